@@ -1,0 +1,40 @@
+// Entry point for `npm start` and `npm test`. Runs on plain Node.js, before any
+// dependency is installed: it installs what is missing, then hands over to the
+// TypeScript script of the same name through tsx.
+import { spawnSync, spawn } from 'node:child_process';
+import { existsSync, statSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const command = process.argv[2];
+if (!['start', 'test', 'bench'].includes(command)) {
+  console.error('usage: node scripts/bootstrap.mjs start|test|bench');
+  process.exit(2);
+}
+
+function needsInstall() {
+  const modules = join(root, 'node_modules');
+  const marker = join(modules, '.package-lock.json');
+  if (!existsSync(modules) || !existsSync(marker)) return true;
+  return statSync(marker).mtimeMs < statSync(join(root, 'package-lock.json')).mtimeMs;
+}
+
+if (needsInstall()) {
+  console.log('[scrubline] installing dependencies (npm ci)…');
+  const result = spawnSync('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root, stdio: 'inherit' });
+  if (result.status !== 0) {
+    console.error('[scrubline] npm ci failed; see the output above.');
+    process.exit(result.status ?? 1);
+  }
+}
+
+const tsx = join(root, 'node_modules', '.bin', 'tsx');
+const child = spawn(tsx, [join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)], {
+  cwd: root,
+  stdio: 'inherit',
+});
+// The terminal delivers Ctrl+C to the whole process group; the child cleans up
+// and exits, and this wrapper then exits with the child's code.
+for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => child.kill(signal));
+child.on('exit', (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

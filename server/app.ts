@@ -1,0 +1,110 @@
+import express from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { randomUUID } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Pool } from 'pg';
+import type { DataSource } from 'typeorm';
+import { csrfSync } from 'csrf-sync';
+import { logger } from './lib/logger';
+import { apiNotFound, errorHandler } from './lib/error-handler';
+import { absoluteTimeout, sessionMiddleware, type SessionSettings } from './auth/session';
+import { createPassport } from './auth/passport';
+import { createAuthRateLimits, DEFAULT_AUTH_LIMITS, type AuthLimits } from './auth/rate-limit';
+import { authRoutes } from './auth/auth.routes';
+import { healthRoutes } from './features/health/health.routes';
+import { adminRoutes } from './features/admin/admin.routes';
+
+export interface AppOptions {
+  ds: DataSource;
+  /** pg pool for the session store and rate-limit counters. */
+  pool: Pool;
+  session: SessionSettings;
+  authLimits?: Partial<AuthLimits>;
+  /** Built client to serve (vite build output); omitted in API tests and in dev. */
+  clientDir?: string;
+  /** Behind a TLS-terminating proxy: trust X-Forwarded-* from it. */
+  trustProxy?: boolean;
+  jsonLimit?: string;
+}
+
+/** Builds the Express app without listening, so tests can run it on port 0. */
+export function createApp(opts: AppOptions) {
+  const app = express();
+  app.disable('x-powered-by');
+  if (opts.trustProxy) app.set('trust proxy', 1);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'"],
+          'connect-src': ["'self'"],
+          'worker-src': ["'self'"],
+          'manifest-src': ["'self'"],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'base-uri': ["'self'"],
+          'form-action': ["'self'"],
+          'upgrade-insecure-requests': opts.session.secureCookie ? [] : null,
+        },
+      },
+      // Also sets X-Content-Type-Options: nosniff.
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (_req, res) => {
+        const id = randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+    }),
+  );
+
+  app.use('/api/health', healthRoutes(opts.ds));
+
+  app.use('/api', express.json({ limit: opts.jsonLimit ?? '100kb' }));
+  app.use('/api', sessionMiddleware(opts.pool, opts.session));
+  app.use('/api', absoluteTimeout(opts.session.absoluteMs));
+  const passport = createPassport(opts.ds);
+  app.use('/api', passport.session());
+
+  const { generateToken, csrfSynchronisedProtection } = csrfSync({
+    getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined,
+  });
+  app.use('/api', csrfSynchronisedProtection);
+
+  const limits = createAuthRateLimits(opts.pool, { ...DEFAULT_AUTH_LIMITS, ...opts.authLimits });
+  app.use('/api/auth', authRoutes({ ds: opts.ds, passport, limits, generateCsrfToken: generateToken }));
+  app.use('/api/admin', adminRoutes(opts.ds));
+  app.use('/api', apiNotFound);
+
+  if (opts.clientDir && existsSync(join(opts.clientDir, 'index.html'))) {
+    const clientDir = opts.clientDir;
+    app.use(
+      express.static(clientDir, {
+        index: false,
+        setHeaders: (res, path) => {
+          // Vite names built assets by content hash, so they never change.
+          if (path.includes('/assets/')) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        },
+      }),
+    );
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(join(clientDir, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,81 @@
+import { Router, type Request } from 'express';
+import type { DataSource } from 'typeorm';
+import { loginInputSchema, registerInputSchema, type LoginInput, type RegisterInput, type User } from '@shared/auth/auth.schema';
+import { AppError } from '../lib/app-error';
+import { parsed, validate } from '../lib/validate';
+import { createUser } from '../features/users/user.service';
+import type { AppPassport } from './passport';
+import type { AuthRateLimits } from './rate-limit';
+import { currentUser, requireAuth } from './access';
+import { SESSION_COOKIE } from './session';
+
+interface Deps {
+  ds: DataSource;
+  passport: AppPassport;
+  limits: AuthRateLimits;
+  generateCsrfToken: (req: Request, overwrite?: boolean) => string;
+}
+
+const INVALID_LOGIN = 'That e-mail and password do not match an account.';
+
+/** Signs the user in: passport regenerates the session ID, then we stamp the sign-in time. */
+function signIn(req: Request, user: User) {
+  return new Promise<void>((resolve, reject) => {
+    req.login(user, (err) => {
+      if (err) return reject(err);
+      req.session.signedInAt = Date.now();
+      resolve();
+    });
+  });
+}
+
+export function authRoutes({ ds, passport, limits, generateCsrfToken }: Deps) {
+  const router = Router();
+
+  router.get('/csrf', (req, res) => {
+    res.json({ token: generateCsrfToken(req) });
+  });
+
+  router.post('/register', validate({ body: registerInputSchema }), async (req, res) => {
+    const input = parsed<RegisterInput>(res, 'body');
+    await limits.beforeRegister(req.ip ?? 'unknown');
+    const user = await createUser(ds, input);
+    await signIn(req, user);
+    res.status(201).json({ user });
+  });
+
+  router.post('/login', validate({ body: loginInputSchema }), async (req, res) => {
+    const input = parsed<LoginInput>(res, 'body');
+    await limits.beforeLogin(req.ip ?? 'unknown', input.email);
+    req.body = input;
+    const user = await new Promise<User | false>((resolve, reject) => {
+      passport.authenticate('local', { session: false }, (err: unknown, found: User | false) =>
+        err ? reject(err) : resolve(found),
+      )(req, res, reject);
+    });
+    if (!user) {
+      await limits.loginFailed(input.email);
+      throw new AppError('unauthenticated', INVALID_LOGIN);
+    }
+    await limits.loginSucceeded(input.email);
+    await signIn(req, user);
+    res.json({ user });
+  });
+
+  router.post('/logout', (req, res, next) => {
+    req.logout((err) => {
+      if (err) return next(err);
+      req.session.destroy((destroyErr) => {
+        if (destroyErr) return next(destroyErr);
+        res.clearCookie(SESSION_COOKIE, { path: '/' });
+        res.status(204).end();
+      });
+    });
+  });
+
+  router.get('/me', requireAuth, (req, res) => {
+    res.json({ user: currentUser(req) });
+  });
+
+  return router;
+}

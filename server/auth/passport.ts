@@ -1,0 +1,31 @@
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import type { DataSource } from 'typeorm';
+import { findUserById, findUserEntityByEmail, rolesOf, toUserDto } from '../features/users/user.service';
+import { verifyAgainstDummy, verifyPassword } from './password';
+
+/** A passport instance of the app's own (tests build several apps in one process). */
+export function createPassport(ds: DataSource) {
+  const instance = new passport.Passport();
+
+  instance.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
+      (async () => {
+        const entity = await findUserEntityByEmail(ds, email);
+        if (!entity) return verifyAgainstDummy(password);
+        if (!(await verifyPassword(entity.passwordHash, password))) return false;
+        return toUserDto(entity, await rolesOf(ds, entity.id));
+      })().then((user) => done(null, user), done);
+    }),
+  );
+
+  instance.serializeUser((user, done) => done(null, user.id));
+  instance.deserializeUser((id: string, done) => {
+    // An account deleted since sign-in reads as signed out (false), not as an error.
+    findUserById(ds, id).then((user) => done(null, user ?? false), done);
+  });
+
+  return instance;
+}
+
+export type AppPassport = ReturnType<typeof createPassport>;

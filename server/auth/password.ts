@@ -1,0 +1,31 @@
+import argon2 from 'argon2';
+
+/**
+ * argon2id with m = 19456 KiB, t = 2, p = 1: the first setting listed by the OWASP
+ * Password Storage Cheat Sheet.
+ */
+export const ARGON2_OPTIONS = { type: argon2.argon2id, memoryCost: 19456, timeCost: 2, parallelism: 1 } as const;
+
+export function hashPassword(password: string): Promise<string> {
+  return argon2.hash(password, ARGON2_OPTIONS);
+}
+
+export async function verifyPassword(hash: string, password: string): Promise<boolean> {
+  try {
+    return await argon2.verify(hash, password);
+  } catch {
+    return false;
+  }
+}
+
+let dummyHash: Promise<string> | undefined;
+
+/**
+ * Spends the same work as a real check when the e-mail is unknown, so response
+ * times do not tell which addresses have accounts.
+ */
+export async function verifyAgainstDummy(password: string): Promise<false> {
+  dummyHash ??= hashPassword('scrubline-dummy-password-not-for-use');
+  await verifyPassword(await dummyHash, password);
+  return false;
+}

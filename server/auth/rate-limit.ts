@@ -1,0 +1,79 @@
+import type { Pool } from 'pg';
+import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import { AppError } from '../lib/app-error';
+
+export interface AuthLimits {
+  /** Failed sign-ins allowed per account in the window. */
+  loginPerAccount: number;
+  /** Sign-in attempts allowed per IP address in the window. */
+  loginPerIp: number;
+  /** Registrations allowed per IP address in the window. */
+  registerPerIp: number;
+  windowSec: number;
+  /** Separates counters of independent app instances sharing one database (tests). */
+  keyPrefix: string;
+}
+
+export const DEFAULT_AUTH_LIMITS: AuthLimits = {
+  loginPerAccount: 5,
+  loginPerIp: 30,
+  registerPerIp: 10,
+  windowSec: 15 * 60,
+  keyPrefix: 'auth',
+};
+
+/**
+ * Sign-in and registration counters kept in PostgreSQL (table auth_rate_limits),
+ * so a restart does not reset them. Per IP, every attempt counts; per account, only
+ * failures count and a success clears them.
+ */
+export function createAuthRateLimits(pool: Pool, limits: AuthLimits) {
+  const make = (name: string, points: number) =>
+    new RateLimiterPostgres({
+      storeClient: pool,
+      tableName: 'auth_rate_limits',
+      tableCreated: true,
+      keyPrefix: `${limits.keyPrefix}:${name}`,
+      points,
+      duration: limits.windowSec,
+    });
+  const loginIp = make('login-ip', limits.loginPerIp);
+  const loginAccount = make('login-account', limits.loginPerAccount);
+  const registerIp = make('register-ip', limits.registerPerIp);
+
+  const tooMany = (msBeforeNext: number) => {
+    const seconds = Math.max(1, Math.ceil(msBeforeNext / 1000));
+    return new AppError('rate_limited', `Too many attempts. Try again in ${Math.ceil(seconds / 60)} min.`, undefined, {
+      'Retry-After': String(seconds),
+    });
+  };
+
+  async function consume(limiter: RateLimiterPostgres, key: string) {
+    try {
+      await limiter.consume(key);
+    } catch (res) {
+      if (res instanceof RateLimiterRes) throw tooMany(res.msBeforeNext);
+      throw res;
+    }
+  }
+
+  return {
+    /** Before checking a password: counts the IP's attempt and refuses a locked account. */
+    async beforeLogin(ip: string, email: string) {
+      await consume(loginIp, ip);
+      const account = await loginAccount.get(email);
+      if (account && account.consumedPoints >= limits.loginPerAccount) throw tooMany(account.msBeforeNext);
+    },
+    async loginFailed(email: string) {
+      await loginAccount.penalty(email, 1);
+    },
+    async loginSucceeded(email: string) {
+      await loginAccount.delete(email);
+    },
+    async beforeRegister(ip: string) {
+      await consume(registerIp, ip);
+    },
+  };
+}
+
+export type AuthRateLimits = ReturnType<typeof createAuthRateLimits>;

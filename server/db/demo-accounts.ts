@@ -1,0 +1,17 @@
+/**
+ * The invented people of the demo season. Every name, club, shop and team here is
+ * made up; addresses use the reserved example.com domain (RFC 2606).
+ */
+export const DEMO_PASSWORD = 'cold-tyres-warm-coffee';
+
+export const DEMO_ACCOUNTS = {
+  driver: { email: 'maren@example.com', displayName: 'Maren Holloway', note: 'driver' },
+  coDriver: { email: 'teo@example.com', displayName: 'Teo Varga', note: 'co-driver of Maren\'s roadster' },
+  secondDriver: { email: 'priya@example.com', displayName: 'Priya Castellan', note: 'second driver' },
+  shopStaff: { email: 'dusty@example.com', displayName: 'Dusty Okonjo', note: 'staff at Kettle Lane Chassis Works' },
+  captain: { email: 'ines@example.com', displayName: 'Ines Brandvold', note: 'captain of the Gravel Pit Irregulars' },
+  admin: { email: 'admin@example.com', displayName: 'Scrubline Admin', note: 'admin' },
+} as const;
+
+export const DEMO_SHOP = 'Kettle Lane Chassis Works';
+export const DEMO_TEAM = 'Gravel Pit Irregulars';

@@ -1,0 +1,26 @@
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+
+@Entity({ name: 'users' })
+export class UserEntity {
+  @PrimaryGeneratedColumn('uuid')
+  id!: string;
+
+  /** Stored lower-cased and trimmed; unique. */
+  @Column({ type: 'text', unique: true })
+  email!: string;
+
+  @Column({ name: 'display_name', type: 'text' })
+  displayName!: string;
+
+  @Column({ name: 'password_hash', type: 'text' })
+  passwordHash!: string;
+
+  @Column({ name: 'is_admin', type: 'boolean', default: false })
+  isAdmin!: boolean;
+
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
+  createdAt!: Date;
+
+  @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' })
+  updatedAt!: Date;
+}

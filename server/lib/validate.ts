@@ -1,0 +1,35 @@
+import type { RequestHandler } from 'express';
+import type { z } from 'zod';
+import { toFieldErrors } from '@shared/api/api-error.schema';
+import { AppError } from './app-error';
+
+interface Schemas {
+  body?: z.ZodType;
+  params?: z.ZodType;
+  query?: z.ZodType;
+}
+
+/**
+ * Parses body, params and query with the shared schemas at the edge. Handlers read
+ * the parsed values from `res.locals.body|params|query`; a failure is a 400 with
+ * field errors.
+ */
+export function validate(schemas: Schemas): RequestHandler {
+  return (req, res, next) => {
+    for (const part of ['params', 'query', 'body'] as const) {
+      const schema = schemas[part];
+      if (!schema) continue;
+      const result = schema.safeParse(req[part] ?? {});
+      if (!result.success) {
+        throw new AppError('validation_failed', 'Some fields need attention.', toFieldErrors(result.error));
+      }
+      res.locals[part] = result.data;
+    }
+    next();
+  };
+}
+
+/** Typed read of what `validate` stored. */
+export function parsed<T>(res: { locals: Record<string, unknown> }, part: 'body' | 'params' | 'query'): T {
+  return res.locals[part] as T;
+}
