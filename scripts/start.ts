@@ -1,0 +1,67 @@
+// `npm start`: private PostgreSQL under .data/, migrations, demo seed on first run,
+// a production build of the client, and one Express process serving both.
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
+import { startCluster, type Cluster } from './lib/pg-cluster';
+import { DATA_DIR, localSessionSecret, ROOT, say } from './lib/env';
+import { loadConfig } from '../server/config';
+import { startServer, type RunningServer } from '../server/index';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../server/db/demo-accounts';
+
+let cluster: Cluster | undefined;
+let running: RunningServer | undefined;
+let stopping = false;
+
+async function shutdown(code: number) {
+  if (stopping) return;
+  stopping = true;
+  say('stopping…');
+  try {
+    await running?.close();
+  } finally {
+    cluster?.stop();
+    say('stopped. Your data stays in .data/ for next time.');
+    process.exit(code);
+  }
+}
+
+async function main() {
+  for (const signal of ['SIGINT', 'SIGTERM'] as const) process.on(signal, () => void shutdown(0));
+
+  let databaseUrl = process.env.DATABASE_URL;
+  if (!databaseUrl) {
+    cluster = await startCluster({ dir: join(DATA_DIR, 'pg'), port: 0, database: 'scrubline', log: say });
+    databaseUrl = cluster.url;
+    say(`PostgreSQL is running on 127.0.0.1:${cluster.port} (data in .data/pg)`);
+  }
+
+  say('building the client…');
+  const build = spawnSync(join(ROOT, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], {
+    cwd: ROOT,
+    stdio: 'inherit',
+  });
+  if (build.status !== 0) throw new Error('The client build failed; see the output above.');
+
+  const config = loadConfig({
+    ...process.env,
+    DATABASE_URL: databaseUrl,
+    SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret(),
+  });
+  running = await startServer(config);
+  if (running.seeded) say('filled in the demo season (first run).');
+
+  const lines = Object.values(DEMO_ACCOUNTS).map((a) => `    ${a.email.padEnd(22)} ${DEMO_PASSWORD}   (${a.note})`);
+  console.log(`
+  Scrubline is running at http://localhost:${running.port}
+
+  Demo sign-ins (e-mail, password):
+${lines.join('\n')}
+
+  Press Ctrl+C to stop the app and its database.
+`);
+}
+
+main().catch(async (err: unknown) => {
+  console.error(`\n[scrubline] could not start: ${err instanceof Error ? err.message : String(err)}\n`);
+  await shutdown(1);
+});
