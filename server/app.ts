@@ -15,6 +15,12 @@ import { createAuthRateLimits, DEFAULT_AUTH_LIMITS, type AuthLimits } from './au
 import { authRoutes } from './auth/auth.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { adminRoutes } from './features/admin/admin.routes';
+import { carRoutes } from './features/cars/car.routes';
+import { carSetupRoutes, setupRoutes } from './features/setups/setup.routes';
+import { changeRoutes } from './features/changes/change.routes';
+import { eventRoutes } from './features/events/event.routes';
+import { runRoutes } from './features/runs/run.routes';
+import { carTyreRoutes, tyreSetRoutes } from './features/tyres/tyre.routes';
 
 export interface AppOptions {
   ds: DataSource;
@@ -86,6 +92,14 @@ export function createApp(opts: AppOptions) {
   const limits = createAuthRateLimits(opts.pool, { ...DEFAULT_AUTH_LIMITS, ...opts.authLimits });
   app.use('/api/auth', authRoutes({ ds: opts.ds, passport, limits, generateCsrfToken: generateToken }));
   app.use('/api/admin', adminRoutes(opts.ds));
+  app.use('/api/cars/:carId/setups', carSetupRoutes(opts.ds));
+  app.use('/api/cars/:carId/changes', changeRoutes(opts.ds));
+  app.use('/api/cars/:carId', carTyreRoutes(opts.ds));
+  app.use('/api/cars', carRoutes(opts.ds));
+  app.use('/api/setups', setupRoutes(opts.ds));
+  app.use('/api/events', eventRoutes(opts.ds));
+  app.use('/api/runs', runRoutes(opts.ds));
+  app.use('/api/tyre-sets', tyreSetRoutes(opts.ds));
   app.use('/api', apiNotFound);
 
   if (opts.clientDir && existsSync(join(opts.clientDir, 'index.html'))) {

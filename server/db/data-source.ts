@@ -3,10 +3,22 @@ import { DataSource } from 'typeorm';
 import { UserEntity } from '../features/users/user.entity';
 import { ShopEntity, ShopMemberEntity } from '../features/shops/shop.entity';
 import { TeamEntity, TeamMemberEntity } from '../features/teams/team.entity';
+import { CarCoDriverEntity, CarEntity } from '../features/cars/car.entity';
+import { SetupCornerEntity, SetupSnapshotEntity } from '../features/setups/setup.entity';
+import { ChangeLogEntity } from '../features/changes/change.entity';
+import { EventEntity } from '../features/events/event.entity';
+import { RunEntity } from '../features/runs/run.entity';
+import { TreadReadingCornerEntity, TreadReadingEntity, TyreMountingEntity, TyreSetEntity } from '../features/tyres/tyre.entity';
+import { PressureReadingEntity } from '../features/pressures/pressure.entity';
 import { Foundation1764633600000 } from './migrations/1764633600000-foundation';
+import { SeasonRecord1764720000000 } from './migrations/1764720000000-season-record';
 
-export const entities = [UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity];
-export const migrations = [Foundation1764633600000];
+export const entities = [
+  UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
+  CarEntity, CarCoDriverEntity, SetupSnapshotEntity, SetupCornerEntity, ChangeLogEntity, EventEntity, RunEntity,
+  TyreSetEntity, TyreMountingEntity, TreadReadingEntity, TreadReadingCornerEntity, PressureReadingEntity,
+];
+export const migrations = [Foundation1764633600000, SeasonRecord1764720000000];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */
 export function createDataSource(url: string, options: { poolSize?: number } = {}) {

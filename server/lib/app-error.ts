@@ -9,6 +9,8 @@ export class AppError extends Error {
     message: string,
     readonly fieldErrors?: FieldErrors,
     readonly headers?: Record<string, string>,
+    /** For a 409 on a stale edit: the record as it stands now. */
+    readonly current?: unknown,
   ) {
     super(message);
     this.name = 'AppError';
@@ -17,3 +19,13 @@ export class AppError extends Error {
 }
 
 export const notFound = (what = 'That record') => new AppError('not_found', `${what} was not found.`);
+
+/** 409 for an edit based on an old version, carrying the current record so the client can merge. */
+export const staleVersion = (current: unknown) =>
+  new AppError(
+    'conflict',
+    'Someone changed this since you opened it. Here is the current version; check it and save again.',
+    undefined,
+    undefined,
+    current,
+  );

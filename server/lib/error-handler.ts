@@ -25,7 +25,12 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
   if (err instanceof AppError) {
     for (const [name, value] of Object.entries(err.headers ?? {})) res.setHeader(name, value);
     return send(res, err.status, {
-      error: { code: err.code, message: err.message, ...(err.fieldErrors ? { fieldErrors: err.fieldErrors } : {}) },
+      error: {
+        code: err.code,
+        message: err.message,
+        ...(err.fieldErrors ? { fieldErrors: err.fieldErrors } : {}),
+        ...(err.current !== undefined ? { current: err.current } : {}),
+      },
     });
   }
   const e = (err ?? {}) as HttpishError;

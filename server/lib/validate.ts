@@ -21,6 +21,8 @@ export function validate(schemas: Schemas): RequestHandler {
       if (!schema) continue;
       const result = schema.safeParse(req[part] ?? {});
       if (!result.success) {
+        // A malformed id names no record: that is "not found", like an id that does not exist.
+        if (part === 'params') throw new AppError('not_found', 'That record was not found.');
         throw new AppError('validation_failed', 'Some fields need attention.', toFieldErrors(result.error));
       }
       res.locals[part] = result.data;

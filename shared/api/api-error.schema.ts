@@ -28,6 +28,8 @@ export const apiErrorSchema = z.object({
     message: z.string(),
     fieldErrors: fieldErrorsSchema.optional(),
     requestId: z.string().optional(),
+    /** On a 409 for a stale edit: the record as it stands now. */
+    current: z.unknown().optional(),
   }),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorSchema>;

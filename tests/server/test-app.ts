@@ -99,3 +99,8 @@ export function sidOf(cookie: string): string {
   const value = decodeURIComponent(cookie.split(';')[0]!.split('=')[1] ?? '');
   return value.slice(2).split('.')[0]!;
 }
+
+/** The Cookie header a supertest request actually sent. */
+export function sentCookie(res: object): string {
+  return String((res as { req: { getHeader(name: string): unknown } }).req.getHeader('cookie') ?? '');
+}

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import argon2 from 'argon2';
-import { client, makeTestApp, sessionCookie, sidOf, signedInClient, TEST_PASSWORD, uniqueEmail, type TestApp } from '../test-app';
+import { client, makeTestApp, sessionCookie, sidOf, sentCookie, signedInClient, TEST_PASSWORD, uniqueEmail, type TestApp } from '../test-app';
 import { UserEntity } from '../../../server/features/users/user.entity';
 
 let t: TestApp;
@@ -147,7 +147,7 @@ describe('POST /api/auth/logout', () => {
   it('when signed in, then it answers 204, deletes the session row and /me is 401 after', async () => {
     const { c } = await signedInClient(t);
     const me = await c.get('/api/auth/me');
-    const sid = sidOf(me.req.getHeader('cookie') as string);
+    const sid = sidOf(sentCookie(me));
     const rowsFor = () => t.ds.query('SELECT 1 FROM session WHERE sid = $1', [sid]);
     expect(await rowsFor()).toHaveLength(1);
     const res = await c.post('/api/auth/logout');
@@ -160,7 +160,7 @@ describe('POST /api/auth/logout', () => {
     const { c, email } = await signedInClient(t);
     const me = await c.get('/api/auth/me');
     expect(me.body.user.email).toBe(email);
-    const cookieHeader = me.req.getHeader('cookie') as string;
+    const cookieHeader = sentCookie(me);
     await c.post('/api/auth/logout');
     const replay = await request(t.app).get('/api/auth/me').set('Cookie', cookieHeader);
     expect(replay.status).toBe(401);

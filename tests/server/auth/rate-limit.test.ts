@@ -1,13 +1,13 @@
 import { randomUUID } from 'node:crypto';
 import { afterEach, describe, expect, it } from 'vitest';
-import { client, makeTestApp, TEST_PASSWORD, uniqueEmail, type TestApp } from '../test-app';
+import { client, makeTestApp, TEST_PASSWORD, uniqueEmail, type TestApp, type TestAppOptions } from '../test-app';
 import { createUser } from '../../../server/features/users/user.service';
 
 const opened: TestApp[] = [];
 afterEach(async () => {
   await Promise.all(opened.splice(0).map((t) => t.close()));
 });
-async function app(limits: Parameters<typeof makeTestApp>[0]['authLimits']) {
+async function app(limits: TestAppOptions['authLimits']) {
   const t = await makeTestApp({ authLimits: limits });
   opened.push(t);
   return t;

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { makeTestApp, sidOf, signedInClient, type TestApp } from '../test-app';
+import { makeTestApp, sidOf, sentCookie, signedInClient, type TestApp } from '../test-app';
 
 const opened: TestApp[] = [];
 afterEach(async () => {
@@ -14,7 +14,7 @@ describe('session lifetime', () => {
     const { c } = await signedInClient(t);
     const me = await c.get('/api/auth/me');
     expect(me.status).toBe(200);
-    const sid = sidOf(me.req.getHeader('cookie') as string);
+    const sid = sidOf(sentCookie(me));
     await sleep(600);
     expect((await c.get('/api/auth/me')).status).toBe(200); // activity does not extend the absolute limit
     await sleep(800);

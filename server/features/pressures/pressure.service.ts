@@ -1,0 +1,86 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { User } from '@shared/auth/auth.schema';
+import { CORNERS, type PerCorner } from '@shared/season/corners';
+import type { CreatePressureReadingInput, PressureReading } from '@shared/season/tyre.schema';
+import { AppError } from '../../lib/app-error';
+import { assertCarAccess } from '../../auth/access';
+import { PressureReadingEntity } from './pressure.entity';
+
+function toReading(p: PressureReadingEntity): PressureReading {
+  const corners: PerCorner<number> = {};
+  for (const c of CORNERS) {
+    const v = p[`${c}Kpa`];
+    if (v !== null) corners[c] = v;
+  }
+  return { id: p.id, carId: p.carId, kind: p.kind, takenAt: p.takenAt.toISOString(), runId: p.runId, corners };
+}
+
+/** Replaces a run's hot pressures (inside the run's own transaction). */
+export async function writeRunHotPressures(
+  m: EntityManager,
+  run: { id: string; carId: string; recordedAt: Date },
+  userId: string,
+  pressures: PerCorner<number> | null,
+) {
+  await m.getRepository(PressureReadingEntity).delete({ runId: run.id, kind: 'hot' });
+  if (!pressures || Object.keys(pressures).length === 0) return;
+  await m.getRepository(PressureReadingEntity).save({
+    carId: run.carId,
+    kind: 'hot',
+    takenAt: run.recordedAt,
+    runId: run.id,
+    lfKpa: pressures.lf ?? null,
+    rfKpa: pressures.rf ?? null,
+    lrKpa: pressures.lr ?? null,
+    rrKpa: pressures.rr ?? null,
+    createdBy: userId,
+  });
+}
+
+export async function createPressureReading(ds: DataSource, user: User, carId: string, input: CreatePressureReadingInput) {
+  await assertCarAccess(ds, user, carId, 'write');
+  const repo = ds.getRepository(PressureReadingEntity);
+  if (input.id) {
+    const existing = await repo.findOneBy({ id: input.id });
+    if (existing) {
+      if (existing.carId !== carId) throw new AppError('conflict', 'That reading id is already in use.');
+      return { reading: toReading(existing), created: false };
+    }
+  }
+  if (input.runId) {
+    const rows: { car_id: string }[] = await ds.query('SELECT car_id FROM runs WHERE id = $1', [input.runId]);
+    if (rows[0]?.car_id !== carId) {
+      throw new AppError('validation_failed', 'Some fields need attention.', { runId: ['Pick a run of this car'] });
+    }
+  }
+  try {
+    const saved = await repo.save(
+      repo.create({
+        ...(input.id ? { id: input.id } : {}),
+        carId,
+        kind: input.kind,
+        takenAt: new Date(input.takenAt),
+        runId: input.runId ?? null,
+        lfKpa: input.corners.lf ?? null,
+        rfKpa: input.corners.rf ?? null,
+        lrKpa: input.corners.lr ?? null,
+        rrKpa: input.corners.rr ?? null,
+        createdBy: user.id,
+      }),
+    );
+    return { reading: toReading(saved), created: true };
+  } catch (err) {
+    if ((err as { constraint?: string }).constraint === 'pressure_readings_run_kind') {
+      throw new AppError('conflict', `This run already has ${input.kind} pressures; edit them instead.`, {
+        runId: [`This run already has ${input.kind} pressures`],
+      });
+    }
+    throw err;
+  }
+}
+
+export async function listPressureReadings(ds: DataSource, user: User, carId: string): Promise<PressureReading[]> {
+  await assertCarAccess(ds, user, carId, 'read');
+  const rows = await ds.getRepository(PressureReadingEntity).find({ where: { carId }, order: { takenAt: 'ASC' } });
+  return rows.map(toReading);
+}

@@ -1,0 +1,277 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { User } from '@shared/auth/auth.schema';
+import { CORNERS, axleOf, type Corner } from '@shared/season/corners';
+import {
+  SETUP_CORNER_FIELDS, setupCornerSchema,
+  type CreateSetupInput, type QuickChangeInput, type Setup, type SetupCorner, type SetupDiff, type UpdateSetupInput,
+} from '@shared/season/setup.schema';
+import { diffSetups } from '@shared/season/setup-diff';
+import { toFieldErrors, type FieldErrors } from '@shared/api/api-error.schema';
+import { AppError, staleVersion } from '../../lib/app-error';
+import { assertCarAccess, assertCarChildAccess } from '../../auth/access';
+import { loadCarEntity } from '../cars/car.service';
+import { SetupCornerEntity, SetupSnapshotEntity } from './setup.entity';
+
+type Db = DataSource | EntityManager;
+
+const emptyCorner = (): SetupCorner => Object.fromEntries(SETUP_CORNER_FIELDS.map((f) => [f, null])) as SetupCorner;
+
+async function toSetups(db: Db, snapshots: SetupSnapshotEntity[]): Promise<Setup[]> {
+  if (snapshots.length === 0) return [];
+  const ids = snapshots.map((s) => s.id);
+  const corners = await db.getRepository(SetupCornerEntity).createQueryBuilder('c').where('c.setup_id IN (:...ids)', { ids }).getMany();
+  const names: { id: string; display_name: string }[] = await db.query('SELECT id, display_name FROM users WHERE id = ANY($1)', [
+    [...new Set(snapshots.map((s) => s.createdBy))],
+  ]);
+  const nameOf = new Map(names.map((n) => [n.id, n.display_name]));
+  return snapshots.map((s) => {
+    const byCorner = Object.fromEntries(CORNERS.map((c) => [c, emptyCorner()])) as Record<Corner, SetupCorner>;
+    for (const c of corners.filter((x) => x.setupId === s.id)) {
+      byCorner[c.corner] = Object.fromEntries(SETUP_CORNER_FIELDS.map((f) => [f, c[f]])) as SetupCorner;
+    }
+    return {
+      id: s.id,
+      carId: s.carId,
+      label: s.label,
+      effectiveFrom: s.effectiveFrom.toISOString(),
+      createdBy: { id: s.createdBy, displayName: nameOf.get(s.createdBy) ?? '' },
+      derivedFromId: s.derivedFromId,
+      notes: s.notes,
+      corners: byCorner,
+      axles: { front: { antiRollBar: s.frontAntiRollBar }, rear: { antiRollBar: s.rearAntiRollBar } },
+      version: s.version,
+      createdAt: s.createdAt.toISOString(),
+      updatedAt: s.updatedAt.toISOString(),
+    };
+  });
+}
+
+export async function loadSetup(db: Db, setupId: string): Promise<Setup> {
+  const s = await db.getRepository(SetupSnapshotEntity).findOneBy({ id: setupId });
+  if (!s) throw new AppError('not_found', 'That setup was not found.');
+  return (await toSetups(db, [s]))[0]!;
+}
+
+/** The snapshot in force on the car at `at`: latest effectiveFrom not after it. */
+export async function activeSetupAt(db: Db, carId: string, at: Date): Promise<Setup | null> {
+  const s = await db
+    .getRepository(SetupSnapshotEntity)
+    .createQueryBuilder('s')
+    .where('s.car_id = :carId AND s.effective_from <= :at', { carId, at })
+    .orderBy('s.effective_from', 'DESC')
+    .addOrderBy('s.created_at', 'DESC')
+    .addOrderBy('s.id', 'DESC')
+    .limit(1)
+    .getOne();
+  return s ? (await toSetups(db, [s]))[0]! : null;
+}
+
+/** Clicks must lie within the car's adjuster: 0 to its number of positions. */
+async function checkClicks(db: Db, carId: string, corners: Partial<Record<Corner, SetupCorner | undefined>>, prefix = 'corners') {
+  const car = await loadCarEntity(db, carId);
+  const errors: FieldErrors = {};
+  for (const corner of CORNERS) {
+    const values = corners[corner];
+    if (!values) continue;
+    const positions = axleOf(corner) === 'front' ? car.frontDamperPositions : car.rearDamperPositions;
+    if (positions === null) continue;
+    for (const field of ['damperClicks', 'damperReboundClicks'] as const) {
+      const v = values[field];
+      if (v !== null && v !== undefined && v > positions) {
+        errors[`${prefix}.${corner}.${field}`] = [`This adjuster has ${positions} clicks; use 0 to ${positions}`];
+      }
+    }
+  }
+  if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
+}
+
+async function writeCorners(m: EntityManager, setupId: string, corners: Partial<Record<Corner, SetupCorner | undefined>>) {
+  const repo = m.getRepository(SetupCornerEntity);
+  for (const corner of CORNERS) {
+    const values = corners[corner];
+    if (!values) continue;
+    const row = { setupId, corner, ...emptyCorner() } as SetupCornerEntity;
+    for (const f of SETUP_CORNER_FIELDS) row[f] = (values[f] ?? null) as never;
+    await repo.save(row);
+  }
+}
+
+export async function createSetup(ds: DataSource, user: User, carId: string, input: CreateSetupInput): Promise<{ setup: Setup; created: boolean }> {
+  await assertCarAccess(ds, user, carId, 'write');
+  await checkClicks(ds, carId, input.corners);
+  if (input.id) {
+    const existing = await ds.getRepository(SetupSnapshotEntity).findOneBy({ id: input.id });
+    if (existing) {
+      if (existing.carId !== carId) throw new AppError('conflict', 'That setup id is already in use.');
+      return { setup: await loadSetup(ds, existing.id), created: false };
+    }
+  }
+  const effectiveFrom = new Date(input.effectiveFrom);
+  if (input.derivedFromId) await assertSameCar(ds, input.derivedFromId, carId, 'derivedFromId');
+  const id = await ds.transaction(async (m) => {
+    const derivedFromId = input.derivedFromId ?? (await activeSetupAt(m, carId, effectiveFrom))?.id ?? null;
+    const saved = await m.getRepository(SetupSnapshotEntity).save(
+      m.getRepository(SetupSnapshotEntity).create({
+        ...(input.id ? { id: input.id } : {}),
+        carId,
+        label: input.label,
+        effectiveFrom,
+        createdBy: user.id,
+        derivedFromId,
+        notes: input.notes ?? null,
+        frontAntiRollBar: input.axles.front?.antiRollBar ?? null,
+        rearAntiRollBar: input.axles.rear?.antiRollBar ?? null,
+      }),
+    );
+    await writeCorners(m, saved.id, input.corners);
+    return saved.id;
+  });
+  return { setup: await loadSetup(ds, id), created: true };
+}
+
+async function assertSameCar(db: Db, setupId: string, carId: string, field: string) {
+  const s = await db.getRepository(SetupSnapshotEntity).findOneBy({ id: setupId });
+  if (!s || s.carId !== carId) {
+    throw new AppError('validation_failed', 'Some fields need attention.', { [field]: ['Pick a setup of this car'] });
+  }
+}
+
+export async function listSetups(ds: DataSource, user: User, carId: string): Promise<Setup[]> {
+  await assertCarAccess(ds, user, carId, 'read');
+  const snapshots = await ds.getRepository(SetupSnapshotEntity).find({
+    where: { carId },
+    order: { effectiveFrom: 'DESC', createdAt: 'DESC' },
+  });
+  return toSetups(ds, snapshots);
+}
+
+export async function getSetup(ds: DataSource, user: User, setupId: string): Promise<Setup> {
+  await assertCarChildAccess(ds, user, 'setup_snapshots', setupId, 'read', 'That setup');
+  return loadSetup(ds, setupId);
+}
+
+export async function updateSetup(ds: DataSource, user: User, setupId: string, input: UpdateSetupInput): Promise<Setup> {
+  const carId = await assertCarChildAccess(ds, user, 'setup_snapshots', setupId, 'write', 'That setup');
+  if (input.corners) await checkClicks(ds, carId, input.corners);
+  if (input.derivedFromId) {
+    if (input.derivedFromId === setupId) {
+      throw new AppError('validation_failed', 'Some fields need attention.', { derivedFromId: ['A setup cannot be derived from itself'] });
+    }
+    await assertSameCar(ds, input.derivedFromId, carId, 'derivedFromId');
+  }
+  const set: Partial<Record<keyof SetupSnapshotEntity, unknown>> = {};
+  if (input.label !== undefined) set.label = input.label;
+  if (input.effectiveFrom !== undefined) set.effectiveFrom = new Date(input.effectiveFrom);
+  if (input.notes !== undefined) set.notes = input.notes;
+  if (input.derivedFromId !== undefined) set.derivedFromId = input.derivedFromId;
+  if (input.axles?.front !== undefined) set.frontAntiRollBar = input.axles.front.antiRollBar ?? null;
+  if (input.axles?.rear !== undefined) set.rearAntiRollBar = input.axles.rear.antiRollBar ?? null;
+  const updated = await ds.transaction(async (m) => {
+    const result = await m
+      .createQueryBuilder()
+      .update(SetupSnapshotEntity)
+      .set({ ...set, version: () => 'version + 1', updatedAt: () => 'now()' })
+      .where('id = :setupId AND version = :version', { setupId, version: input.version })
+      .execute();
+    if (result.affected !== 1) return false;
+    if (input.corners) await writeCorners(m, setupId, input.corners);
+    return true;
+  });
+  if (!updated) throw staleVersion(await loadSetup(ds, setupId));
+  return loadSetup(ds, setupId);
+}
+
+/** Deleting a snapshot re-ties its runs to whatever was in force before it (the tie is computed on read). */
+export async function deleteSetup(ds: DataSource, user: User, setupId: string): Promise<void> {
+  await assertCarChildAccess(ds, user, 'setup_snapshots', setupId, 'write', 'That setup');
+  await ds.getRepository(SetupSnapshotEntity).delete({ id: setupId });
+}
+
+const FIELD_WORDS: Record<string, string> = {
+  damperClicks: 'clicks', damperReboundClicks: 'rebound clicks', coldPressureKpa: 'cold pressure',
+  camberDeg: 'camber', toeMm: 'toe', rideHeightMm: 'ride height',
+};
+
+function describeCorners(corners: Corner[]): string {
+  const set = new Set(corners);
+  if (set.size === 4) return 'all';
+  if (set.size === 2 && set.has('lf') && set.has('rf')) return 'front';
+  if (set.size === 2 && set.has('lr') && set.has('rr')) return 'rear';
+  return [...set].map((c) => c.toUpperCase()).join('+');
+}
+
+/** A new snapshot derived from the active one, with a few values nudged; effective now unless told otherwise. */
+export async function quickChange(ds: DataSource, user: User, carId: string, input: QuickChangeInput): Promise<{ setup: Setup; created: boolean }> {
+  await assertCarAccess(ds, user, carId, 'write');
+  if (input.id) {
+    const existing = await ds.getRepository(SetupSnapshotEntity).findOneBy({ id: input.id });
+    if (existing) {
+      if (existing.carId !== carId) throw new AppError('conflict', 'That setup id is already in use.');
+      return { setup: await loadSetup(ds, existing.id), created: false };
+    }
+  }
+  const effectiveFrom = input.effectiveFrom ? new Date(input.effectiveFrom) : new Date();
+  const active = await activeSetupAt(ds, carId, effectiveFrom);
+  const corners = Object.fromEntries(
+    CORNERS.map((c) => [c, { ...(active?.corners[c] ?? emptyCorner()) }]),
+  ) as Record<Corner, SetupCorner>;
+  const errors: FieldErrors = {};
+  const words: string[] = [];
+  input.changes.forEach((change, i) => {
+    for (const corner of change.corners) {
+      const current = corners[corner][change.field];
+      if (change.value !== undefined) {
+        corners[corner][change.field] = change.value;
+      } else if (current === null || current === undefined) {
+        (errors[`changes.${i}.delta`] ??= []).push(`No current ${FIELD_WORDS[change.field]} on ${corner.toUpperCase()} to change; give a value instead`);
+      } else {
+        corners[corner][change.field] = Math.round((current + change.delta!) * 1e6) / 1e6;
+      }
+    }
+    const amount = change.value !== undefined ? `= ${change.value}` : `${change.delta! > 0 ? '+' : ''}${change.delta}`;
+    words.push(`${describeCorners(change.corners)} ${FIELD_WORDS[change.field]} ${amount}`);
+  });
+  for (const corner of CORNERS) {
+    const result = setupCornerSchema.safeParse(corners[corner]);
+    if (!result.success) {
+      for (const [key, messages] of Object.entries(toFieldErrors(result.error))) {
+        const i = input.changes.findIndex((c) => c.field === key && c.corners.includes(corner));
+        (errors[`changes.${Math.max(i, 0)}.${i >= 0 && input.changes[i]!.value !== undefined ? 'value' : 'delta'}`] ??= []).push(
+          `${corner.toUpperCase()}: ${messages.join('; ')}`,
+        );
+      }
+    }
+  }
+  if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
+  try {
+    await checkClicks(ds, carId, corners);
+  } catch (err) {
+    if (err instanceof AppError && err.fieldErrors) {
+      const remapped: FieldErrors = {};
+      for (const [key, messages] of Object.entries(err.fieldErrors)) {
+        const [, corner, field] = key.split('.');
+        const i = input.changes.findIndex((c) => c.field === field && c.corners.includes(corner as Corner));
+        remapped[`changes.${Math.max(i, 0)}.delta`] = messages.map((m) => `${corner!.toUpperCase()}: ${m}`);
+      }
+      throw new AppError('validation_failed', 'Some fields need attention.', remapped);
+    }
+    throw err;
+  }
+  const created = await createSetup(ds, user, carId, {
+    ...(input.id ? { id: input.id } : {}),
+    label: input.label ?? `Quick change: ${words.join(', ')}`,
+    effectiveFrom: effectiveFrom.toISOString(),
+    corners,
+    axles: { front: { antiRollBar: active?.axles.front.antiRollBar ?? null }, rear: { antiRollBar: active?.axles.rear.antiRollBar ?? null } },
+    derivedFromId: active?.id ?? null,
+    notes: input.notes ?? null,
+  });
+  return created;
+}
+
+export async function diff(ds: DataSource, user: User, fromId: string, toId: string): Promise<SetupDiff> {
+  await assertCarChildAccess(ds, user, 'setup_snapshots', fromId, 'read', 'That setup');
+  await assertCarChildAccess(ds, user, 'setup_snapshots', toId, 'read', 'That setup');
+  const [a, b] = await Promise.all([loadSetup(ds, fromId), loadSetup(ds, toId)]);
+  return { fromId, toId, changes: diffSetups(a, b) };
+}

@@ -1,0 +1,184 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { User } from '@shared/auth/auth.schema';
+import { CORNERS, type Corner } from '@shared/season/corners';
+import { LIMITS } from '@shared/season/limits';
+import type {
+  CreateMountingInput, CreateTreadReadingInput, CreateTyreSetInput, TreadReading, TyreMounting, TyreSet,
+} from '@shared/season/tyre.schema';
+import type { FieldErrors } from '@shared/api/api-error.schema';
+import { AppError } from '../../lib/app-error';
+import { assertCarAccess, assertCarChildAccess, assertEventAccess } from '../../auth/access';
+import { TreadReadingCornerEntity, TreadReadingEntity, TyreMountingEntity, TyreSetEntity } from './tyre.entity';
+
+type Db = DataSource | EntityManager;
+
+const toMounting = (m: TyreMountingEntity): TyreMounting => ({
+  id: m.id,
+  mountedAt: m.mountedAt.toISOString(),
+  positions: { lf: m.lfTyre, rf: m.rfTyre, lr: m.lrTyre, rr: m.rrTyre },
+});
+
+/** The tyre number on `corner` at `at`, from the latest mounting not after it. */
+function tyreOn(mountings: TyreMountingEntity[], corner: Corner, at: Date): number | null {
+  let found: TyreMountingEntity | null = null;
+  for (const m of mountings) if (m.mountedAt <= at && (!found || m.mountedAt >= found.mountedAt)) found = m;
+  return found ? found[`${corner}Tyre`] : null;
+}
+
+async function readingsOf(db: Db, setIds: string[], latestOnly: boolean): Promise<TreadReading[]> {
+  if (setIds.length === 0) return [];
+  const readings: TreadReadingEntity[] = latestOnly
+    ? await db.query(
+        `SELECT DISTINCT ON (tyre_set_id) id, tyre_set_id AS "tyreSetId", taken_at AS "takenAt", event_id AS "eventId",
+                notes, created_at AS "createdAt"
+           FROM tread_readings WHERE tyre_set_id = ANY($1) ORDER BY tyre_set_id, taken_at DESC, created_at DESC`,
+        [setIds],
+      )
+    : await db
+        .getRepository(TreadReadingEntity)
+        .createQueryBuilder('t')
+        .where('t.tyre_set_id IN (:...setIds)', { setIds })
+        .orderBy('t.taken_at', 'ASC')
+        .getMany();
+  if (readings.length === 0) return [];
+  const ids = readings.map((r) => r.id);
+  const corners = await db.getRepository(TreadReadingCornerEntity).createQueryBuilder('c').where('c.reading_id IN (:...ids)', { ids }).getMany();
+  const mountings = await db
+    .getRepository(TyreMountingEntity)
+    .createQueryBuilder('m')
+    .where('m.tyre_set_id IN (:...setIds)', { setIds })
+    .getMany();
+  return readings.map((r) => {
+    const takenAt = new Date(r.takenAt);
+    const setMountings = mountings.filter((m) => m.tyreSetId === r.tyreSetId);
+    const out: TreadReading['corners'] = {};
+    for (const c of corners.filter((x) => x.readingId === r.id)) {
+      out[c.corner] = { innerMm: c.innerMm, middleMm: c.middleMm, outerMm: c.outerMm, tyreNumber: tyreOn(setMountings, c.corner, takenAt) };
+    }
+    return {
+      id: r.id,
+      tyreSetId: r.tyreSetId,
+      takenAt: takenAt.toISOString(),
+      eventId: r.eventId,
+      corners: out,
+      notes: r.notes,
+      createdAt: new Date(r.createdAt).toISOString(),
+    };
+  });
+}
+
+async function toTyreSets(db: Db, sets: TyreSetEntity[]): Promise<TyreSet[]> {
+  const ids = sets.map((s) => s.id);
+  const mountings = ids.length
+    ? await db.getRepository(TyreMountingEntity).createQueryBuilder('m').where('m.tyre_set_id IN (:...ids)', { ids }).orderBy('m.mounted_at', 'ASC').getMany()
+    : [];
+  const latest = await readingsOf(db, ids, true);
+  return sets.map((s) => ({
+    id: s.id,
+    carId: s.carId,
+    label: s.label,
+    size: s.size,
+    boughtOn: s.boughtOn,
+    startTreadMm: s.startTreadMm,
+    notes: s.notes,
+    mountings: mountings.filter((m) => m.tyreSetId === s.id).map(toMounting),
+    latestReading: latest.find((r) => r.tyreSetId === s.id) ?? null,
+    createdAt: s.createdAt.toISOString(),
+  }));
+}
+
+/** A new set starts with tyre 1 on LF, 2 on RF, 3 on LR, 4 on RR; rotations add mountings. */
+export async function createTyreSet(ds: DataSource, user: User, carId: string, input: CreateTyreSetInput) {
+  await assertCarAccess(ds, user, carId, 'write');
+  if (input.id) {
+    const existing = await ds.getRepository(TyreSetEntity).findOneBy({ id: input.id });
+    if (existing) {
+      if (existing.carId !== carId) throw new AppError('conflict', 'That tyre set id is already in use.');
+      return { tyreSet: (await toTyreSets(ds, [existing]))[0]!, created: false };
+    }
+  }
+  const saved = await ds.transaction(async (m) => {
+    const set = await m.getRepository(TyreSetEntity).save(
+      m.getRepository(TyreSetEntity).create({
+        ...(input.id ? { id: input.id } : {}),
+        carId,
+        label: input.label,
+        size: input.size ?? null,
+        boughtOn: input.boughtOn ?? null,
+        startTreadMm: input.startTreadMm ?? null,
+        notes: input.notes ?? null,
+      }),
+    );
+    const mountedAt = input.boughtOn ? new Date(`${input.boughtOn}T00:00:00Z`) : new Date();
+    await m.getRepository(TyreMountingEntity).save({ tyreSetId: set.id, mountedAt, lfTyre: 1, rfTyre: 2, lrTyre: 3, rrTyre: 4 });
+    return set;
+  });
+  return { tyreSet: (await toTyreSets(ds, [saved]))[0]!, created: true };
+}
+
+export async function listTyreSets(ds: DataSource, user: User, carId: string): Promise<TyreSet[]> {
+  await assertCarAccess(ds, user, carId, 'read');
+  const sets = await ds.getRepository(TyreSetEntity).find({ where: { carId }, order: { createdAt: 'ASC' } });
+  return toTyreSets(ds, sets);
+}
+
+export async function addMounting(ds: DataSource, user: User, tyreSetId: string, input: CreateMountingInput): Promise<TyreMounting> {
+  await assertCarChildAccess(ds, user, 'tyre_sets', tyreSetId, 'write', 'That tyre set');
+  const p = input.positions;
+  const saved = await ds.getRepository(TyreMountingEntity).save({
+    tyreSetId, mountedAt: new Date(input.mountedAt), lfTyre: p.lf, rfTyre: p.rf, lrTyre: p.lr, rrTyre: p.rr,
+  });
+  return toMounting(saved);
+}
+
+/**
+ * Tread depths must be 0–20 mm, and a middle reading may not exceed the set's
+ * starting depth by more than 1 mm (a gauge's tolerance; more means a typo).
+ */
+export async function createTreadReading(ds: DataSource, user: User, tyreSetId: string, input: CreateTreadReadingInput) {
+  await assertCarChildAccess(ds, user, 'tyre_sets', tyreSetId, 'write', 'That tyre set');
+  const set = await ds.getRepository(TyreSetEntity).findOneByOrFail({ id: tyreSetId });
+  if (input.id) {
+    const existing = await ds.getRepository(TreadReadingEntity).findOneBy({ id: input.id });
+    if (existing) {
+      if (existing.tyreSetId !== tyreSetId) throw new AppError('conflict', 'That reading id is already in use.');
+      return { reading: (await readingsOf(ds, [tyreSetId], false)).find((r) => r.id === existing.id)!, created: false };
+    }
+  }
+  if (input.eventId) await assertEventAccess(ds, user, input.eventId);
+  const errors: FieldErrors = {};
+  if (set.startTreadMm !== null) {
+    const cap = set.startTreadMm + LIMITS.treadAboveStartMm;
+    for (const corner of CORNERS) {
+      const c = input.corners[corner];
+      if (c && c.middleMm > cap) {
+        errors[`corners.${corner}.middleMm`] = [`Above this set's starting depth of ${set.startTreadMm} mm by more than ${LIMITS.treadAboveStartMm} mm; check the reading`];
+      }
+    }
+  }
+  if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
+  const id = await ds.transaction(async (m) => {
+    const reading = await m.getRepository(TreadReadingEntity).save(
+      m.getRepository(TreadReadingEntity).create({
+        ...(input.id ? { id: input.id } : {}),
+        tyreSetId,
+        takenAt: new Date(input.takenAt),
+        eventId: input.eventId ?? null,
+        notes: input.notes ?? null,
+        createdBy: user.id,
+      }),
+    );
+    for (const corner of CORNERS) {
+      const c = input.corners[corner];
+      if (c) await m.getRepository(TreadReadingCornerEntity).save({ readingId: reading.id, corner, ...c });
+    }
+    return reading.id;
+  });
+  const reading = (await readingsOf(ds, [tyreSetId], false)).find((r) => r.id === id)!;
+  return { reading, created: true };
+}
+
+export async function listTreadReadings(ds: DataSource, user: User, tyreSetId: string): Promise<TreadReading[]> {
+  await assertCarChildAccess(ds, user, 'tyre_sets', tyreSetId, 'read', 'That tyre set');
+  return readingsOf(ds, [tyreSetId], false);
+}

@@ -1,0 +1,18 @@
+import { z } from 'zod';
+
+/** Corners as seen from above, front at the top: left front, right front, left rear, right rear. */
+export const CORNERS = ['lf', 'rf', 'lr', 'rr'] as const;
+export const cornerSchema = z.enum(CORNERS);
+export type Corner = z.infer<typeof cornerSchema>;
+
+export const AXLES = ['front', 'rear'] as const;
+export const axleSchema = z.enum(AXLES);
+export type Axle = z.infer<typeof axleSchema>;
+
+export const axleOf = (corner: Corner): Axle => (corner === 'lf' || corner === 'rf' ? 'front' : 'rear');
+
+/** `{ lf, rf, lr, rr }` of one schema; each corner optional unless `required`. */
+export function perCorner<T extends z.ZodType>(schema: T) {
+  return z.strictObject({ lf: schema.optional(), rf: schema.optional(), lr: schema.optional(), rr: schema.optional() });
+}
+export type PerCorner<T> = Partial<Record<Corner, T>>;

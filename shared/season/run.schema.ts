@@ -1,0 +1,91 @@
+import { z } from 'zod';
+import { perCorner, type PerCorner } from './corners';
+import { LIMITS } from './limits';
+import { pressureKpaSchema } from './setup.schema';
+import { versionSchema } from './car.schema';
+
+export const RUN_STATUSES = ['finished', 'dnf', 'off_course'] as const;
+export const runStatusSchema = z.enum(RUN_STATUSES);
+export type RunStatus = z.infer<typeof runStatusSchema>;
+
+export const rawTimeSecSchema = z
+  .number({ error: 'Enter the time in seconds' })
+  .gt(LIMITS.rawTimeSec.minExclusive, 'The time must be above 0 s')
+  .lt(LIMITS.rawTimeSec.maxExclusive, 'The time must be under 1800 s (30 min)');
+
+export const conesSchema = z
+  .number({ error: 'Cones must be a whole number' })
+  .int('Cones must be a whole number')
+  .min(LIMITS.cones.min, 'Cones cannot be negative')
+  .max(LIMITS.cones.max, `Cones must be at most ${LIMITS.cones.max}`);
+
+const runFields = {
+  runNumber: z.number().int('Run numbers are whole numbers').min(1, 'Run numbers start at 1').max(999),
+  /** Null for a DNF or off-course run with no time taken. */
+  rawTimeSec: rawTimeSecSchema.nullable(),
+  cones: conesSchema.default(0),
+  status: runStatusSchema.default('finished'),
+  recordedAt: z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T09:30:00Z' }),
+  driverId: z.uuid().optional(),
+  hotPressuresKpa: perCorner(pressureKpaSchema).nullable().optional(),
+  notes: z.string().trim().max(2000).nullable().optional(),
+};
+
+const needsTime = (r: { status?: RunStatus; rawTimeSec?: number | null }) =>
+  r.status !== 'finished' || (r.rawTimeSec !== null && r.rawTimeSec !== undefined);
+const timeMessage = { message: 'A finished run needs its time', path: ['rawTimeSec'] };
+
+export const createRunInputSchema = z
+  .strictObject({
+    /** Made by the client (UUID), so a replay of the same run is recognised. */
+    id: z.uuid({ error: 'The run id must be a UUID' }),
+    carId: z.uuid(),
+    eventId: z.uuid(),
+    ...runFields,
+  })
+  .refine(needsTime, timeMessage);
+export type CreateRunInput = z.infer<typeof createRunInputSchema>;
+
+export const updateRunInputSchema = z
+  .strictObject({
+    runNumber: runFields.runNumber.optional(),
+    rawTimeSec: runFields.rawTimeSec.optional(),
+    cones: conesSchema.optional(),
+    status: runStatusSchema.optional(),
+    recordedAt: runFields.recordedAt.optional(),
+    driverId: z.uuid().optional(),
+    hotPressuresKpa: runFields.hotPressuresKpa,
+    notes: runFields.notes,
+    version: versionSchema,
+  })
+  .refine((r) => r.status !== 'finished' || r.rawTimeSec !== null, timeMessage);
+export type UpdateRunInput = z.infer<typeof updateRunInputSchema>;
+
+export const listRunsQuerySchema = z.strictObject({
+  carId: z.uuid().optional(),
+  eventId: z.uuid().optional(),
+});
+
+export interface Run {
+  id: string;
+  carId: string;
+  eventId: string;
+  driver: { id: string; displayName: string };
+  runNumber: number;
+  rawTimeSec: number | null;
+  cones: number;
+  status: RunStatus;
+  recordedAt: string;
+  hotPressuresKpa: PerCorner<number> | null;
+  notes: string | null;
+  /** The car's setup snapshot in force at recordedAt; null when none was. */
+  setupId: string | null;
+  /** raw + cones × the event's cone penalty; null for a DNF or off-course run. */
+  adjustedTimeSec: number | null;
+  /** % off this driver's best adjusted time at this event; null when there is none. */
+  pctOffBest: number | null;
+  isBest: boolean;
+  version: number;
+  createdAt: string;
+  updatedAt: string;
+}
