@@ -1,0 +1,78 @@
+import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
+import { isApiError } from '@/lib/api-client';
+import { toast } from '@/lib/toast-store';
+
+export interface QueryClientOptions {
+  /** Called when the server says the session is gone; the app sends the user to sign in. */
+  onUnauthenticated?: () => void;
+  /** Tests turn retries off. */
+  retry?: boolean;
+}
+
+const FALLBACK_MESSAGE = 'Something went wrong. Your saved data is safe; try again.';
+
+/** Errors a form shows beside its inputs are never toasted. */
+function isFieldValidationError(error: unknown): boolean {
+  return isApiError(error) && error.hasFieldErrors;
+}
+
+function isUnauthenticated(error: unknown): boolean {
+  return isApiError(error) && error.status === 401;
+}
+
+function toastError(error: unknown) {
+  const message = error instanceof Error && error.message ? error.message : FALLBACK_MESSAGE;
+  toast({ tone: 'warning', title: message });
+}
+
+/** Retry reads that may work next time (weak signal, busy server); never retry a refusal. */
+function shouldRetry(failureCount: number, error: unknown): boolean {
+  if (isApiError(error) && error.status >= 400 && error.status < 500) return false;
+  return failureCount < 2;
+}
+
+/**
+ * Builds a QueryClient; the app makes exactly one (see main.tsx), tests make one each.
+ * Every query and mutation error passes through here: a 401 sends the user to sign in, field
+ * errors stay on their form, a screen that shows its own errors (`meta.errorsShownInline`)
+ * is left alone, and everything else becomes a toast.
+ */
+export function createQueryClient({ onUnauthenticated, retry = true }: QueryClientOptions = {}): QueryClient {
+  return new QueryClient({
+    queryCache: new QueryCache({
+      onSuccess: (data, query) => {
+        if (data === null && query.meta?.nullMeansSignedOut) onUnauthenticated?.();
+      },
+      onError: (error, query) => {
+        if (isUnauthenticated(error)) {
+          onUnauthenticated?.();
+          return;
+        }
+        if (query.meta?.errorsShownInline || isFieldValidationError(error)) return;
+        toastError(error);
+      },
+    }),
+    mutationCache: new MutationCache({
+      onError: (error, _variables, _onMutateResult, mutation) => {
+        // On a signed-in page a 401 means the session ended; on the sign-in form it means a wrong
+        // password, and the handler leaves public pages alone.
+        if (isUnauthenticated(error)) onUnauthenticated?.();
+        if (mutation.meta?.errorsShownInline || isFieldValidationError(error)) return;
+        if (isUnauthenticated(error)) {
+          toast({ tone: 'warning', title: 'Your session ended', description: 'Sign in again to carry on.' });
+          return;
+        }
+        toastError(error);
+      },
+    }),
+    defaultOptions: {
+      queries: {
+        retry: retry ? shouldRetry : false,
+        staleTime: 30_000,
+      },
+      mutations: {
+        retry: false,
+      },
+    },
+  });
+}

@@ -1,0 +1,103 @@
+import type { QueryClient } from '@tanstack/react-query';
+import {
+  createBrowserRouter,
+  matchRoutes,
+  Outlet,
+  redirect,
+  type LoaderFunctionArgs,
+  type RouteObject,
+} from 'react-router-dom';
+import { NEXT_PARAM, paths, safeNextPath, signInPath } from '@/config/paths';
+import { RouteError } from '@/components/errors/route-error';
+import { LoadingScreen } from '@/components/ui/loading-screen';
+import { authKeys } from '@/features/auth/api/auth-keys';
+import { meQueryOptions } from '@/features/auth/api/get-me';
+
+/** The layout route that holds every page behind sign-in. */
+export const SIGNED_IN_ROUTE_ID = 'signed-in';
+
+export type AppRouter = ReturnType<typeof createBrowserRouter>;
+
+function pathOf(url: URL): string {
+  return url.pathname + url.search;
+}
+
+/** The app's routes. Pages are loaded on first visit, so the first download stays small. */
+export function createRoutes(queryClient: QueryClient): RouteObject[] {
+  const requireSignIn = async ({ request }: LoaderFunctionArgs) => {
+    const me = await queryClient.ensureQueryData(meQueryOptions());
+    if (!me) throw redirect(signInPath(pathOf(new URL(request.url))));
+    return null;
+  };
+
+  const signedOutOnly = async ({ request }: LoaderFunctionArgs) => {
+    const me = await queryClient.ensureQueryData(meQueryOptions());
+    if (me) throw redirect(safeNextPath(new URL(request.url).searchParams.get(NEXT_PARAM)) ?? paths.home);
+    return null;
+  };
+
+  const loading = <LoadingScreen />;
+
+  return [
+    {
+      id: 'root',
+      element: <Outlet />,
+      errorElement: <RouteError />,
+      hydrateFallbackElement: loading,
+      children: [
+        {
+          path: paths.signIn,
+          loader: signedOutOnly,
+          hydrateFallbackElement: loading,
+          lazy: async () => ({ Component: (await import('./routes/sign-in')).SignInPage }),
+        },
+        {
+          path: paths.register,
+          loader: signedOutOnly,
+          hydrateFallbackElement: loading,
+          lazy: async () => ({ Component: (await import('./routes/register')).RegisterPage }),
+        },
+        {
+          id: SIGNED_IN_ROUTE_ID,
+          loader: requireSignIn,
+          hydrateFallbackElement: loading,
+          lazy: async () => ({ Component: (await import('./routes/signed-in-layout')).SignedInLayout }),
+          children: [
+            {
+              // A pathless wrapper: a page that fails shows its error inside the shell.
+              errorElement: <RouteError variant="in-shell" />,
+              children: [
+                {
+                  index: true,
+                  lazy: async () => ({ Component: (await import('./routes/home')).HomePage }),
+                },
+              ],
+            },
+          ],
+        },
+        {
+          path: '*',
+          lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundPage }),
+        },
+      ],
+    },
+  ];
+}
+
+export function createAppRouter(queryClient: QueryClient): AppRouter {
+  return createBrowserRouter(createRoutes(queryClient));
+}
+
+/**
+ * The session is gone (a 401, or "who am I" answered nobody): mark the user signed out and,
+ * if the current page needs sign-in, go to the sign-in page, remembering where we were.
+ */
+export function sendToSignIn(router: AppRouter, queryClient: QueryClient): void {
+  queryClient.setQueryData(authKeys.me(), null);
+  // While the first page loads, its own loader decides.
+  if (!router.state.initialized) return;
+  const location = router.state.navigation.location ?? router.state.location;
+  const matches = matchRoutes(router.routes, location) ?? [];
+  if (!matches.some((match) => match.route.id === SIGNED_IN_ROUTE_ID)) return;
+  void router.navigate(signInPath(location.pathname + location.search), { replace: true });
+}

@@ -1,0 +1,9 @@
+import type { LucideIcon } from 'lucide-react';
+
+export interface NavItem {
+  to: string;
+  label: string;
+  icon: LucideIcon;
+  /** Match the address exactly (for Home, so it is not "current" on every page). */
+  end?: boolean;
+}

@@ -1,0 +1,47 @@
+import type { ComponentProps } from 'react';
+import { cn } from '@/lib/cn';
+
+type Variant = 'primary' | 'secondary' | 'quiet';
+
+const VARIANTS: Record<Variant, string> = {
+  primary: 'bg-accent text-accent-ink hover:bg-accent-hover',
+  secondary: 'border border-line-strong bg-surface text-ink hover:bg-surface-raised',
+  quiet: 'text-link hover:bg-accent-soft',
+};
+
+const BUTTON_BASE =
+  'inline-flex min-h-tap items-center justify-center gap-2 rounded px-5 font-bold select-none disabled:cursor-not-allowed disabled:opacity-60';
+
+export function buttonClasses(variant: Variant = 'primary', className?: string): string {
+  return cn(BUTTON_BASE, VARIANTS[variant], className);
+}
+
+type ButtonProps = ComponentProps<'button'> & {
+  variant?: Variant;
+  /** Shown instead of the children while the action runs; the button is disabled meanwhile. */
+  pendingLabel?: string;
+  isPending?: boolean;
+};
+
+export function Button({
+  variant = 'primary',
+  type = 'button',
+  pendingLabel,
+  isPending = false,
+  disabled,
+  className,
+  children,
+  ...props
+}: ButtonProps) {
+  return (
+    <button
+      type={type}
+      className={buttonClasses(variant, className)}
+      disabled={disabled || isPending}
+      aria-busy={isPending || undefined}
+      {...props}
+    >
+      {isPending && pendingLabel ? pendingLabel : children}
+    </button>
+  );
+}

@@ -1,0 +1,29 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { userResponseSchema, type User } from '@shared/auth/auth.schema';
+import { api, isApiError } from '@/lib/api-client';
+import { authKeys } from './auth-keys';
+
+/** The signed-in user, or null when nobody is signed in (the server answers 401). */
+export async function getMe({ signal }: { signal?: AbortSignal } = {}): Promise<User | null> {
+  try {
+    const { user } = await api.get('/api/auth/me', { schema: userResponseSchema, signal });
+    return user;
+  } catch (error) {
+    if (isApiError(error) && error.status === 401) return null;
+    throw error;
+  }
+}
+
+export function meQueryOptions() {
+  return queryOptions({
+    queryKey: authKeys.me(),
+    queryFn: ({ signal }) => getMe({ signal }),
+    staleTime: 5 * 60_000,
+    // A failure here blocks the page, whose error screen explains it; a null answer means signed out.
+    meta: { errorsShownInline: true, nullMeansSignedOut: true },
+  });
+}
+
+export function useMe() {
+  return useQuery(meQueryOptions());
+}

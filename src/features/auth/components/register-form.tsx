@@ -1,0 +1,80 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import {
+  PASSWORD_MAX,
+  PASSWORD_MIN,
+  registerInputSchema,
+  type RegisterInput,
+  type User,
+} from '@shared/auth/auth.schema';
+import { Button } from '@/components/ui/button';
+import { FormAlert } from '@/components/ui/form-alert';
+import { PasswordField } from '@/components/ui/password-field';
+import { TextField } from '@/components/ui/text-field';
+import { applyServerErrors } from '@/lib/form-errors';
+import { useRegister } from '../api/register';
+
+type RegisterFormValues = z.input<typeof registerInputSchema>;
+
+const FIELDS = ['displayName', 'email', 'password'] as const;
+
+export const PASSWORD_HINT = `${PASSWORD_MIN} to ${PASSWORD_MAX} characters. A few unrelated words make a strong one.`;
+
+export function RegisterForm({ onSuccess }: { onSuccess: (user: User) => void }) {
+  const registration = useRegister();
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors },
+  } = useForm<RegisterFormValues, unknown, RegisterInput>({
+    resolver: zodResolver(registerInputSchema),
+    defaultValues: { displayName: '', email: '', password: '' },
+  });
+
+  const onSubmit = handleSubmit((values) => {
+    setFormError(null);
+    registration.mutate(values, {
+      onSuccess,
+      onError: (error) => setFormError(applyServerErrors(error, setError, FIELDS)),
+    });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5" aria-label="Create account">
+      <TextField
+        label="Your name"
+        hint="Shown to your shop and team."
+        autoComplete="name"
+        autoCapitalize="words"
+        error={errors.displayName?.message}
+        {...register('displayName')}
+      />
+      <TextField
+        label="E-mail"
+        type="email"
+        inputMode="email"
+        autoComplete="email"
+        autoCapitalize="none"
+        autoCorrect="off"
+        spellCheck={false}
+        error={errors.email?.message}
+        {...register('email')}
+      />
+      <PasswordField
+        label="Password"
+        hint={PASSWORD_HINT}
+        autoComplete="new-password"
+        error={errors.password?.message}
+        {...register('password')}
+      />
+      <FormAlert message={formError} />
+      <Button type="submit" isPending={registration.isPending} pendingLabel="Creating account…" className="w-full">
+        Create account
+      </Button>
+    </form>
+  );
+}

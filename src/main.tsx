@@ -1,0 +1,18 @@
+import { createRoot } from 'react-dom/client';
+import '@fontsource/nunito-sans/400.css';
+import '@fontsource/nunito-sans/600.css';
+import '@fontsource/nunito-sans/700.css';
+import '@fontsource/nunito-sans/800.css';
+import './styles/index.css';
+import { AppProvider } from './app/provider';
+import { createQueryClient } from './app/query-client';
+import { createAppRouter, sendToSignIn } from './app/router';
+
+// The app's one QueryClient and one router; when the session ends, each needs the other.
+const queryClient = createQueryClient({ onUnauthenticated: () => sendToSignIn(router, queryClient) });
+const router = createAppRouter(queryClient);
+
+const container = document.getElementById('root');
+if (!container) throw new Error('index.html has no #root element');
+
+createRoot(container).render(<AppProvider queryClient={queryClient} router={router} />);

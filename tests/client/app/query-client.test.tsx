@@ -1,0 +1,83 @@
+// @vitest-environment jsdom
+import { act, cleanup, render, screen } from '@testing-library/react';
+import { QueryClientProvider, useMutation } from '@tanstack/react-query';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { ApiError } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { ToastProvider } from '@/components/ui/toaster';
+import { createQueryClient } from '@/app/query-client';
+
+afterEach(() => {
+  cleanup();
+  clearToasts();
+});
+
+function Failing({ error, inline = false }: { error: ApiError; inline?: boolean }) {
+  const mutation = useMutation({
+    mutationFn: () => Promise.reject(error),
+    meta: { errorsShownInline: inline },
+  });
+  return (
+    <button type="button" onClick={() => mutation.mutate()}>
+      Save
+    </button>
+  );
+}
+
+function renderFailing(error: ApiError, options: { inline?: boolean; onUnauthenticated?: () => void } = {}) {
+  const queryClient = createQueryClient({ retry: false, onUnauthenticated: options.onUnauthenticated });
+  render(
+    <QueryClientProvider client={queryClient}>
+      <ToastProvider>
+        <Failing error={error} inline={options.inline} />
+      </ToastProvider>
+    </QueryClientProvider>,
+  );
+  return queryClient;
+}
+
+async function clickSave() {
+  await act(async () => {
+    screen.getByRole('button', { name: 'Save' }).click();
+  });
+}
+
+describe('query client error handling', () => {
+  it('when a mutation fails with a server error, then its message is toasted', async () => {
+    renderFailing(new ApiError({ status: 500, code: 'internal', message: 'Something went wrong on our side.' }));
+
+    await clickSave();
+
+    expect(await screen.findByText('Something went wrong on our side.')).toBeTruthy();
+  });
+
+  it('when a mutation fails with field errors, then nothing is toasted (the form shows them)', async () => {
+    renderFailing(
+      new ApiError({ status: 400, code: 'validation_failed', message: 'Check the fields.', fieldErrors: { name: ['Required'] } }),
+    );
+
+    await clickSave();
+
+    expect(screen.queryByText('Check the fields.')).toBeNull();
+  });
+
+  it('when the screen shows the error itself, then nothing is toasted', async () => {
+    renderFailing(new ApiError({ status: 0, code: 'network', message: 'No connection' }), { inline: true });
+
+    await clickSave();
+
+    expect(screen.queryByText('No connection')).toBeNull();
+  });
+
+  it('when a mutation answers 401, then the app is told the session ended', async () => {
+    const onUnauthenticated = vi.fn();
+    renderFailing(new ApiError({ status: 401, code: 'unauthenticated', message: 'Sign in to continue.' }), {
+      onUnauthenticated,
+    });
+
+    await clickSave();
+
+    expect(onUnauthenticated).toHaveBeenCalledTimes(1);
+    expect(await screen.findByText('Your session ended')).toBeTruthy();
+  });
+});

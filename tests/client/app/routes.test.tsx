@@ -1,0 +1,154 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { api, dropCsrfToken, NETWORK_MESSAGE } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../test-utils';
+
+const SAM = { id: 'u1', email: 'sam@example.test', displayName: 'Sam Okafor', roles: ['driver', 'team_captain'] };
+const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
+
+beforeEach(() => dropCsrfToken());
+afterEach(() => {
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+async function signIn(email: string, password: string) {
+  const user = userEvent.setup();
+  await user.type(await screen.findByLabelText('E-mail'), email);
+  await user.type(screen.getByLabelText('Password'), password);
+  await user.click(screen.getByRole('button', { name: 'Sign in' }));
+  return user;
+}
+
+describe('routes', () => {
+  it('when the address matches no page, then the not-found page is shown', async () => {
+    const fetchMock = stubFetch({});
+    renderApp('/no/such/page');
+
+    expect(await screen.findByRole('heading', { name: 'Page not found' })).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Go to Home' }).getAttribute('href')).toBe('/');
+    expect(fetchMock).not.toHaveBeenCalled();
+  });
+
+  it('when a signed-out user opens a signed-in page, then they are sent to sign in and come back after', async () => {
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': SIGNED_OUT,
+      'POST /api/auth/login': jsonResponse(200, { user: SAM }),
+    });
+    const { router } = renderApp('/?view=week');
+
+    await screen.findByRole('heading', { name: 'Sign in' });
+    expect(router.state.location.pathname).toBe('/sign-in');
+    expect(router.state.location.search).toBe('?next=%2F%3Fview%3Dweek');
+
+    await signIn('sam@example.test', 'correct horse battery');
+
+    expect(await screen.findByRole('heading', { name: 'Hi, Sam Okafor' })).toBeTruthy();
+    expect(router.state.location.pathname + router.state.location.search).toBe('/?view=week');
+    expect(requestsTo(fetchMock, 'POST /api/auth/login')[0]?.body).toEqual({
+      email: 'sam@example.test',
+      password: 'correct horse battery',
+    });
+  });
+
+  it('when the e-mail and password do not match (401), then the sign-in form shows the server message', async () => {
+    stubFetch({
+      'GET /api/auth/me': SIGNED_OUT,
+      'POST /api/auth/login': errorResponse(401, 'unauthenticated', 'That e-mail and password do not match an account.'),
+    });
+    const { router } = renderApp('/sign-in');
+
+    await signIn('sam@example.test', 'wrong password');
+
+    const alert = await screen.findByText('That e-mail and password do not match an account.');
+    expect(alert.closest('[role="alert"]')).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/sign-in');
+    // Shown once, on the form: not also as a toast.
+    expect(screen.getAllByText('That e-mail and password do not match an account.')).toHaveLength(1);
+  });
+
+  it('when sign-in is rate limited (429), then the form shows how long to wait', async () => {
+    stubFetch({
+      'GET /api/auth/me': SIGNED_OUT,
+      'POST /api/auth/login': errorResponse(429, 'rate_limited', 'Too many attempts. Try again in 15 min.'),
+    });
+    renderApp('/sign-in');
+
+    await signIn('sam@example.test', 'whatever it is');
+
+    expect(await screen.findByText('Too many attempts. Try again in 15 min.')).toBeTruthy();
+  });
+
+  it('when there is no connection while signing in, then the form says so and nothing is lost', async () => {
+    stubFetch({
+      'GET /api/auth/me': SIGNED_OUT,
+      'POST /api/auth/login': () => Promise.reject(new TypeError('Failed to fetch')),
+    });
+    renderApp('/sign-in');
+
+    await signIn('sam@example.test', 'correct horse battery');
+
+    expect(await screen.findByText(NETWORK_MESSAGE)).toBeTruthy();
+    expect((screen.getByLabelText('Password') as HTMLInputElement).value).toBe('correct horse battery');
+  });
+
+  it('when a signed-in user opens Home, then it greets them, names their roles and shows honest empty sections', async () => {
+    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: SAM }) });
+    renderApp('/');
+
+    expect(await screen.findByRole('heading', { name: 'Hi, Sam Okafor' })).toBeTruthy();
+    expect(screen.getByText('Your roles: driver and team captain.')).toBeTruthy();
+    const cars = screen.getByRole('region', { name: 'Your cars' });
+    expect(within(cars).getByText('No cars yet — cars arrive with the season record.')).toBeTruthy();
+    const sync = screen.getByRole('region', { name: 'Sync' });
+    expect(within(sync).getByText('All saved')).toBeTruthy();
+    expect(screen.getByRole('status').textContent).toContain('All saved');
+  });
+
+  it('when a signed-in user opens the sign-in page, then they go straight to Home', async () => {
+    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: SAM }) });
+    const { router } = renderApp('/sign-in');
+
+    await screen.findByRole('heading', { name: 'Hi, Sam Okafor' });
+    expect(router.state.location.pathname).toBe('/');
+  });
+
+  it('when a request on a signed-in page answers 401, then the user is sent to sign in, keeping the address', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/cars': SIGNED_OUT,
+    });
+    const { router, queryClient } = renderApp('/?view=week');
+    await screen.findByRole('heading', { name: 'Hi, Sam Okafor' });
+
+    await queryClient
+      .fetchQuery({ queryKey: ['cars'], queryFn: () => api.get('/api/cars') })
+      .catch(() => undefined);
+
+    await screen.findByRole('heading', { name: 'Sign in' });
+    expect(router.state.location.pathname + router.state.location.search).toBe('/sign-in?next=%2F%3Fview%3Dweek');
+  });
+
+  it('when the user signs out from the account menu, then the session ends and the sign-in page opens', async () => {
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'POST /api/auth/logout': jsonResponse(204),
+    });
+    const { router, queryClient } = renderApp('/');
+    await screen.findByRole('heading', { name: 'Hi, Sam Okafor' });
+
+    const user = userEvent.setup();
+    screen.getByRole('button', { name: 'Account: Sam Okafor' }).focus();
+    await user.keyboard('{Enter}');
+    await user.click(await screen.findByRole('menuitem', { name: 'Sign out' }));
+
+    await screen.findByRole('heading', { name: 'Sign in' });
+    expect(router.state.location.pathname + router.state.location.search).toBe('/sign-in');
+    expect(requestsTo(fetchMock, 'POST /api/auth/logout')).toHaveLength(1);
+    await waitFor(() => expect(queryClient.getQueryData(['auth', 'me'])).toBeNull());
+  });
+});
