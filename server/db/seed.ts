@@ -4,6 +4,7 @@ import { UserEntity } from '../features/users/user.entity';
 import { ShopEntity, ShopMemberEntity } from '../features/shops/shop.entity';
 import { TeamEntity, TeamMemberEntity } from '../features/teams/team.entity';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_SHOP, DEMO_TEAM } from './demo-accounts';
+import { seedDemoSeason } from './demo-season';
 
 /** Fills an empty database with the demo scenario; does nothing when any account exists. */
 export async function seedDemoIfEmpty(ds: DataSource): Promise<boolean> {
@@ -33,5 +34,12 @@ export async function seedDemo(ds: DataSource): Promise<void> {
       { teamId: team.id, userId: ids.driver, isCaptain: false },
       { teamId: team.id, userId: ids.secondDriver, isCaptain: false },
     ]);
+    await seedDemoSeason(m, {
+      driver: ids.driver,
+      coDriver: ids.coDriver,
+      secondDriver: ids.secondDriver,
+      shopStaff: ids.shopStaff,
+      teamId: team.id,
+    });
   });
 }

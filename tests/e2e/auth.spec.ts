@@ -1,0 +1,73 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { openPhone, screenshot } from './browser';
+
+let phone: Awaited<ReturnType<typeof openPhone>>;
+let page: Page;
+const baseUrl = inject('baseUrl');
+
+beforeAll(async () => {
+  phone = await openPhone();
+  page = phone.page;
+});
+afterAll(async () => {
+  await phone?.close();
+});
+
+describe('signing up and in on a phone (390×844)', () => {
+  const email = `e2e-${randomUUID().slice(0, 8)}@example.com`;
+  const password = 'gravel-and-cones-e2e';
+
+  it('when a new driver registers, then they land on home, signed in', async () => {
+    await page.goto(`${baseUrl}/`);
+    await page.waitForURL(/\/sign-in/);
+    await page.getByRole('link', { name: 'Create an account' }).click();
+    await page.getByLabel('Your name').fill('Wren Halloway');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(password);
+    await screenshot(page, 'register');
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await page.getByRole('heading', { name: 'Hi, Wren Halloway' }).waitFor();
+    expect(new URL(page.url()).pathname).toBe('/');
+    await screenshot(page, 'home-after-register');
+  });
+
+  it('when they sign out and back in, then home shows their name again', async () => {
+    await page.getByRole('button', { name: /Account: Wren Halloway/ }).click();
+    await page.getByRole('menuitem', { name: 'Sign out' }).click();
+    await page.waitForURL(/\/sign-in/);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill('not-my-password-at-all');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText('That e-mail and password do not match an account.').waitFor();
+    await screenshot(page, 'sign-in-wrong-password');
+    await page.getByLabel('Password', { exact: true }).fill(password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Hi, Wren Halloway' }).waitFor();
+    const path = await screenshot(page, 'home-after-sign-in');
+    expect(path).toMatch(/home-after-sign-in\.png$/);
+  });
+
+  it('when the page is at phone width, then nothing scrolls sideways', async () => {
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+  });
+
+  it('when the demo driver signs in, then home greets her', async () => {
+    await page.getByRole('button', { name: /Account:/ }).click();
+    await page.getByRole('menuitem', { name: 'Sign out' }).click();
+    await page.waitForURL(/\/sign-in/);
+    await page.getByLabel('E-mail').fill('maren@example.com');
+    await page.getByLabel('Password', { exact: true }).fill('cold-tyres-warm-coffee');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Hi, Maren Holloway' }).waitFor();
+  });
+
+  it('when an unknown address is opened, then the 404 page shows', async () => {
+    await page.goto(`${baseUrl}/no-such-page`);
+    await page.getByRole('heading', { level: 1 }).waitFor();
+    expect(await page.getByRole('heading', { level: 1 }).textContent()).toMatch(/not|find/i);
+    await screenshot(page, 'not-found');
+  });
+});
