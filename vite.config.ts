@@ -25,7 +25,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'unit',
-          include: ['tests/shared/**/*.test.ts', 'tests/client/**/*.test.{ts,tsx}'],
+          include: ['tests/shared/**/*.test.ts', 'tests/client/**/*.test.{ts,tsx}', 'tests/scripts/**/*.test.ts'],
           environment: 'node',
         },
       },

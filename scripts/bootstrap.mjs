@@ -29,12 +29,13 @@ if (needsInstall()) {
   }
 }
 
-const tsx = join(root, 'node_modules', '.bin', 'tsx');
-const child = spawn(tsx, [join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)], {
+// One Node.js process with tsx's loader (no watcher process in between), so a
+// signal reaches the script itself and it can stop PostgreSQL before exiting.
+const child = spawn(process.execPath, ['--import', 'tsx', join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)], {
   cwd: root,
   stdio: 'inherit',
 });
-// The terminal delivers Ctrl+C to the whole process group; the child cleans up
-// and exits, and this wrapper then exits with the child's code.
+// Ctrl+C reaches the whole process group; a signal sent to this wrapper alone is
+// passed on. The script ignores repeats, cleans up and exits; then so do we.
 for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => child.kill(signal));
 child.on('exit', (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

@@ -2,7 +2,7 @@
 // a production build of the client, and one Express process serving both.
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
-import { startCluster, type Cluster } from './lib/pg-cluster';
+import { portIsFree, startCluster, type Cluster } from './lib/pg-cluster';
 import { DATA_DIR, localSessionSecret, ROOT, say } from './lib/env';
 import { loadConfig } from '../server/config';
 import { startServer, type RunningServer } from '../server/index';
@@ -27,6 +27,11 @@ async function shutdown(code: number) {
 
 async function main() {
   for (const signal of ['SIGINT', 'SIGTERM'] as const) process.on(signal, () => void shutdown(0));
+
+  const port = Number(process.env.PORT ?? 3000);
+  if (port > 0 && !(await portIsFree(port))) {
+    throw new Error(`Port ${port} is already in use by another program. Stop it, or choose another port: PORT=${port + 1} npm start`);
+  }
 
   let databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {

@@ -73,6 +73,8 @@ export function createApp(opts: AppOptions) {
         return id;
       },
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      // Successful and refused requests are routine; log only what the server got wrong.
+      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'debug'),
     }),
   );
 

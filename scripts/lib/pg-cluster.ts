@@ -88,11 +88,16 @@ function pgUid(): { uid: number; gid: number } {
   return { uid, gid };
 }
 
-/** Runs a PostgreSQL binary, as the postgres user when we are root (initdb refuses root). */
+/**
+ * Runs a PostgreSQL binary, as the postgres user when we are root (initdb refuses
+ * root), in a session of its own (setsid) so a Ctrl+C meant for the app cannot
+ * interrupt pg_ctl half-way through stopping the server.
+ */
 function runPg(bin: string, tool: string, args: string[], cwd: string): string {
   const file = join(bin, tool);
-  const [cmd, cmdArgs] = isRoot() ? ['runuser', ['-u', 'postgres', '--', file, ...args]] : [file, args];
-  const res = spawnSync(cmd, cmdArgs, { cwd, encoding: 'utf8' });
+  const inner = isRoot() ? ['runuser', '-u', 'postgres', '--', file, ...args] : [file, ...args];
+  const [cmd, ...cmdArgs] = existsSync('/usr/bin/setsid') ? ['/usr/bin/setsid', '--wait', ...inner] : inner;
+  const res = spawnSync(cmd!, cmdArgs, { cwd, encoding: 'utf8' });
   if (res.status !== 0) {
     throw new Error(`${tool} failed (exit ${res.status}):\n${res.stdout ?? ''}${res.stderr ?? ''}`);
   }
