@@ -54,7 +54,7 @@ describe('signing up and in on a phone (390×844)', () => {
     expect(overflow).toBeLessThanOrEqual(0);
   });
 
-  it('when the demo driver signs in, then home greets her', async () => {
+  it('when the demo driver signs in, then home greets her and lists the car she shares', async () => {
     await page.getByRole('button', { name: /Account:/ }).click();
     await page.getByRole('menuitem', { name: 'Sign out' }).click();
     await page.waitForURL(/\/sign-in/);
@@ -62,6 +62,9 @@ describe('signing up and in on a phone (390×844)', () => {
     await page.getByLabel('Password', { exact: true }).fill('cold-tyres-warm-coffee');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.getByRole('heading', { name: 'Hi, Maren Holloway' }).waitFor();
+    await page.getByText('Pebble').waitFor();
+    expect(await page.getByText(/shared with Teo Varga/).count()).toBe(1);
+    await screenshot(page, 'home-demo-driver');
   });
 
   it('when an unknown address is opened, then the 404 page shows', async () => {

@@ -1,9 +1,9 @@
-import { EmptyState } from '@/components/ui/empty-state';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useMe } from '@/features/auth/api/get-me';
 import { describeRoles } from '@/features/auth/utils/describe-roles';
 import { SyncStatus } from '@/features/sync/components/sync-status';
+import { CarList } from '@/features/cars/components/car-list';
 
 export function HomePage() {
   const { data: user } = useMe();
@@ -20,7 +20,7 @@ export function HomePage() {
       <div className="grid gap-4 md:grid-cols-2">
         <SectionBoundary title="Your cars">
           <SectionCard title="Your cars">
-            <EmptyState message="No cars yet — cars arrive with the season record." />
+            <CarList currentUserId={user.id} />
           </SectionCard>
         </SectionBoundary>
         <SectionBoundary title="Sync">
