@@ -1,0 +1,152 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import pg from 'pg';
+import type { DataSource } from 'typeorm';
+import { createDataSource } from '../../../server/db/data-source';
+import { seedDemoIfEmpty } from '../../../server/db/seed';
+import { DEMO_CAMBER_ARMS_DATE } from '../../../server/db/demo-season';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/db/demo-accounts';
+import { verifyPassword } from '../../../server/auth/password';
+
+/** A fresh database on the test cluster, migrated and seeded. */
+async function seededDatabase() {
+  const base = new URL(inject('databaseUrl'));
+  const name = `seed_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
+  const admin = new pg.Client({ connectionString: base.toString() });
+  await admin.connect();
+  await admin.query(`CREATE DATABASE ${name}`);
+  await admin.end();
+  const url = new URL(base.toString());
+  url.pathname = `/${name}`;
+  const ds = createDataSource(url.toString(), { poolSize: 2 });
+  await ds.initialize();
+  await ds.runMigrations({ transaction: 'each' });
+  const seeded = await seedDemoIfEmpty(ds);
+  return {
+    ds,
+    seeded,
+    async drop() {
+      await ds.destroy();
+      const c = new pg.Client({ connectionString: base.toString() });
+      await c.connect();
+      await c.query(`DROP DATABASE ${name}`);
+      await c.end();
+    },
+  };
+}
+
+let a: Awaited<ReturnType<typeof seededDatabase>>;
+let b: Awaited<ReturnType<typeof seededDatabase>>;
+beforeAll(async () => {
+  [a, b] = await Promise.all([seededDatabase(), seededDatabase()]);
+}, 120_000);
+afterAll(async () => {
+  await Promise.all([a?.drop(), b?.drop()]);
+});
+
+const q = async <T>(ds: DataSource, sql: string, params: unknown[] = []) => (await ds.query(sql, params)) as T[];
+
+/** Everything the season holds, without the database-made ids and timestamps. */
+async function contentOf(ds: DataSource) {
+  return {
+    runs: await q(ds, `SELECT c.name, e.date::text, u.email, r.run_number, r.raw_time_sec, r.cones, r.status, r.recorded_at
+                         FROM runs r JOIN cars c ON c.id = r.car_id JOIN events e ON e.id = r.event_id JOIN users u ON u.id = r.driver_id
+                        ORDER BY r.recorded_at, c.name, r.run_number`),
+    tread: await q(ds, `SELECT t.taken_at, c.corner, c.inner_mm, c.middle_mm, c.outer_mm FROM tread_readings t
+                          JOIN tread_reading_corners c ON c.reading_id = t.id ORDER BY t.taken_at, t.tyre_set_id, c.corner`),
+    setups: await q(ds, `SELECT s.label, s.effective_from, c.corner, c.camber_deg, c.damper_clicks, c.cold_pressure_kpa
+                           FROM setup_snapshots s JOIN setup_corners c ON c.setup_id = s.id ORDER BY s.effective_from, c.corner`),
+    pressures: await q(ds, `SELECT kind, taken_at, lf_kpa, rf_kpa, lr_kpa, rr_kpa FROM pressure_readings ORDER BY taken_at, kind, lf_kpa`),
+  };
+}
+
+describe('the demo season', () => {
+  it('when seeded twice, then both seasons are identical (seeded generator)', async () => {
+    expect(a.seeded).toBe(true);
+    const [ca, cb] = await Promise.all([contentOf(a.ds), contentOf(b.ds)]);
+    expect(ca.runs.length).toBeGreaterThan(0);
+    expect(cb).toEqual(ca);
+  });
+
+  it('when the database already has accounts, then seeding does nothing', async () => {
+    const before = await q<{ n: number }>(a.ds, 'SELECT count(*)::int AS n FROM runs');
+    expect(await seedDemoIfEmpty(a.ds)).toBe(false);
+    expect(await q<{ n: number }>(a.ds, 'SELECT count(*)::int AS n FROM runs')).toEqual(before);
+  });
+
+  it('when seeded, then the six demo accounts exist with the documented password and roles', async () => {
+    const users = await q<{ email: string; password_hash: string; is_admin: boolean }>(a.ds, 'SELECT email, password_hash, is_admin FROM users');
+    expect(users.map((u) => u.email).sort()).toEqual(Object.values(DEMO_ACCOUNTS).map((x) => x.email).sort());
+    const maren = users.find((u) => u.email === DEMO_ACCOUNTS.driver.email)!;
+    expect(await verifyPassword(maren.password_hash, DEMO_PASSWORD)).toBe(true);
+    expect(users.find((u) => u.email === DEMO_ACCOUNTS.admin.email)!.is_admin).toBe(true);
+    const staff = await q(a.ds, 'SELECT 1 FROM shop_members m JOIN users u ON u.id = m.user_id WHERE u.email = $1', [DEMO_ACCOUNTS.shopStaff.email]);
+    expect(staff).toHaveLength(1);
+    const captain = await q(a.ds, 'SELECT 1 FROM team_members m JOIN users u ON u.id = m.user_id WHERE u.email = $1 AND m.is_captain', [DEMO_ACCOUNTS.captain.email]);
+    expect(captain).toHaveLength(1);
+    const coDriver = await q(a.ds, 'SELECT 1 FROM car_co_drivers d JOIN users u ON u.id = d.user_id WHERE u.email = $1', [DEMO_ACCOUNTS.coDriver.email]);
+    expect(coDriver).toHaveLength(1);
+  });
+
+  it('when counted, then 2 cars and 8 events with 6 to 8 runs per car, including cones, a DNF and an off-course', async () => {
+    expect(await q(a.ds, 'SELECT id FROM cars')).toHaveLength(2);
+    expect(await q(a.ds, 'SELECT id FROM events')).toHaveLength(8);
+    const perCar = await q<{ n: number }>(a.ds, 'SELECT count(*)::int AS n FROM runs GROUP BY event_id, car_id');
+    expect(perCar).toHaveLength(16);
+    for (const { n } of perCar) {
+      expect(n).toBeGreaterThanOrEqual(6);
+      expect(n).toBeLessThanOrEqual(8);
+    }
+    const statuses = await q<{ status: string; n: number }>(a.ds, 'SELECT status, count(*)::int AS n FROM runs GROUP BY status');
+    expect(statuses.find((s) => s.status === 'dnf')?.n).toBeGreaterThanOrEqual(1);
+    expect(statuses.find((s) => s.status === 'off_course')?.n).toBeGreaterThanOrEqual(1);
+    expect((await q(a.ds, 'SELECT 1 FROM runs WHERE cones > 0')).length).toBeGreaterThan(0);
+  });
+
+  it('when events are compared, then courses differ: each event has its own typical time', async () => {
+    const medians = await q<{ m: number }>(a.ds, `SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY raw_time_sec) AS m
+                                                    FROM runs r JOIN cars c ON c.id = r.car_id WHERE c.name = 'Pebble' GROUP BY event_id`);
+    const distinct = new Set(medians.map((x) => Math.round(x.m)));
+    expect(distinct.size).toBeGreaterThanOrEqual(5);
+  });
+
+  it('when setups are listed, then they change during events, and camber arms allow more negative front camber from mid-season', async () => {
+    const pebble = await q<{ label: string; effective_from: Date; camber: number }>(a.ds, `
+      SELECT s.label, s.effective_from, c.camber_deg AS camber FROM setup_snapshots s
+        JOIN cars car ON car.id = s.car_id JOIN setup_corners c ON c.setup_id = s.id AND c.corner = 'lf'
+       WHERE car.name = 'Pebble' ORDER BY s.effective_from`);
+    expect(pebble.filter((s) => s.label.startsWith('Quick change')).length).toBeGreaterThanOrEqual(6);
+    const before = pebble.filter((s) => s.effective_from < new Date(DEMO_CAMBER_ARMS_DATE)).map((s) => s.camber);
+    const after = pebble.filter((s) => s.effective_from > new Date(DEMO_CAMBER_ARMS_DATE)).map((s) => s.camber);
+    expect(Math.min(...before)).toBeGreaterThan(-1.5);
+    expect(Math.max(...after)).toBeLessThan(-2);
+    const changes = await q(a.ds, `SELECT 1 FROM change_log WHERE changed_on = $1 AND what ILIKE '%camber arms%'`, [DEMO_CAMBER_ARMS_DATE]);
+    expect(changes).toHaveLength(1);
+  });
+
+  it('when front tread is read after each event, then inner-edge wear per run drops after the camber arms', async () => {
+    const rows = await q<{ taken_at: Date; inner: number; outer: number; runs: number }>(a.ds, `
+      SELECT t.taken_at, avg(c.inner_mm) AS inner, avg(c.outer_mm) AS outer,
+             (SELECT count(*)::int FROM runs r WHERE r.car_id = ts.car_id AND r.recorded_at < t.taken_at) AS runs
+        FROM tread_readings t JOIN tyre_sets ts ON ts.id = t.tyre_set_id JOIN cars car ON car.id = ts.car_id
+        JOIN tread_reading_corners c ON c.reading_id = t.id AND c.corner IN ('lf', 'rf')
+       WHERE car.name = 'Pebble' GROUP BY t.id, t.taken_at, ts.car_id ORDER BY t.taken_at`);
+    expect(rows).toHaveLength(9); // at the start, then after each of 8 events
+    const rate = (from: number, to: number) => (rows[from]!.inner - rows[to]!.inner) / (rows[to]!.runs - rows[from]!.runs);
+    const armsIndex = rows.findIndex((r) => r.taken_at > new Date(DEMO_CAMBER_ARMS_DATE));
+    const beforeRate = rate(0, armsIndex - 1);
+    const afterRate = rate(armsIndex - 1, rows.length - 1);
+    expect(afterRate).toBeLessThan(beforeRate * 0.7);
+  });
+
+  it('when pressures are read, then each event has cold readings and many runs have hot ones above the cold', async () => {
+    const cold = await q<{ n: number }>(a.ds, `SELECT count(*)::int AS n FROM pressure_readings WHERE kind = 'cold'`);
+    expect(cold[0]!.n).toBe(16);
+    const hot = await q<{ lf: number; cold: number }>(a.ds, `
+      SELECT p.lf_kpa AS lf, c.cold_pressure_kpa AS cold FROM pressure_readings p
+        JOIN runs_with_setup r ON r.id = p.run_id JOIN setup_corners c ON c.setup_id = r.setup_id AND c.corner = 'lf'
+       WHERE p.kind = 'hot'`);
+    expect(hot.length).toBeGreaterThan(40);
+    for (const h of hot) expect(h.lf).toBeGreaterThan(h.cold);
+  });
+});
