@@ -3,11 +3,45 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { VitePWA } from 'vite-plugin-pwa';
+import { readFileSync } from 'node:fs';
 
 const r = (p: string) => fileURLToPath(new URL(p, import.meta.url));
+const { version } = JSON.parse(readFileSync(r('./package.json'), 'utf8')) as { version: string };
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  define: { __APP_VERSION__: JSON.stringify(version) },
+  plugins: [
+    react(),
+    tailwindcss(),
+    // An installable app whose shell is kept on the device by a service worker (Workbox, built offline).
+    VitePWA({
+      registerType: 'autoUpdate',
+      injectRegister: false,
+      includeAssets: ['favicon.svg', 'icons/apple-touch-icon-180.png'],
+      manifest: {
+        name: 'Scrubline',
+        short_name: 'Scrubline',
+        description: 'Season notebook for club racers: runs, setups, pressures and tread, at the car.',
+        start_url: '/',
+        scope: '/',
+        display: 'standalone',
+        background_color: '#f3f5f8',
+        theme_color: '#0d6b66',
+        icons: [
+          { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png' },
+          { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png' },
+          { src: '/icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+        ],
+      },
+      workbox: {
+        globPatterns: ['**/*.{js,css,html,svg,png,woff2}'],
+        navigateFallback: '/index.html',
+        navigateFallbackDenylist: [/^\/api\//],
+        cleanupOutdatedCaches: true,
+      },
+    }),
+  ],
   resolve: {
     alias: { '@': r('./src'), '@shared': r('./shared') },
   },

@@ -7,12 +7,19 @@ import './styles/index.css';
 import { AppProvider } from './app/provider';
 import { createQueryClient } from './app/query-client';
 import { createAppRouter, sendToSignIn } from './app/router';
+import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
+import { queryCacheStorage } from './lib/device-store';
+import { createAppOutbox } from './app/outbox';
+import { registerServiceWorker } from './app/service-worker';
 
 // The app's one QueryClient and one router; when the session ends, each needs the other.
 const queryClient = createQueryClient({ onUnauthenticated: () => sendToSignIn(router, queryClient) });
 const router = createAppRouter(queryClient);
+const outbox = createAppOutbox(queryClient);
+const persister = createAsyncStoragePersister({ storage: queryCacheStorage, key: 'scrubline-cache', throttleTime: 1000 });
+registerServiceWorker();
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html has no #root element');
 
-createRoot(container).render(<AppProvider queryClient={queryClient} router={router} />);
+createRoot(container).render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} persister={persister} />);

@@ -9,6 +9,9 @@ export interface QueryClientOptions {
   retry?: boolean;
 }
 
+/** How long data kept on the device stays usable with no signal: a week covers an event weekend and the drive home. */
+export const CACHE_MAX_AGE_MS = 7 * 24 * 60 * 60 * 1000;
+
 const FALLBACK_MESSAGE = 'Something went wrong. Your saved data is safe; try again.';
 
 /** Errors a form shows beside its inputs are never toasted. */
@@ -69,6 +72,8 @@ export function createQueryClient({ onUnauthenticated, retry = true }: QueryClie
       queries: {
         retry: retry ? shouldRetry : false,
         staleTime: 30_000,
+        // Kept at least as long as the persisted copy, or the restored cache would be thrown away.
+        gcTime: CACHE_MAX_AGE_MS,
       },
       mutations: {
         retry: false,

@@ -1,3 +1,5 @@
+import type { Persister } from '@tanstack/react-query-persist-client';
+import { memoryStorage, Outbox } from '../../src/lib/outbox';
 import { render } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
@@ -78,6 +80,11 @@ export function requestsTo(mock: Mock<typeof fetch>, key: string): RecordedReque
     .filter((r) => `${r.method} ${r.url}` === key);
 }
 
+/** A persister that keeps nothing, so each test starts from an empty cache. */
+export function memoryPersister(): Persister {
+  return { persistClient: async () => undefined, restoreClient: async () => undefined, removeClient: async () => undefined };
+}
+
 export function createTestQueryClient(): QueryClient {
   return createQueryClient({ retry: false });
 }
@@ -86,8 +93,9 @@ export function createTestQueryClient(): QueryClient {
 export function renderApp(path: string) {
   const queryClient = createQueryClient({ retry: false, onUnauthenticated: () => sendToSignIn(router, queryClient) });
   const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: [path] });
-  const result = render(<AppProvider queryClient={queryClient} router={router} />);
-  return { ...result, router, queryClient };
+  const outbox = new Outbox({ storage: memoryStorage(), send: async () => undefined, classify: () => ({ kind: 'retry', reason: 'test' }) });
+  const result = render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} persister={memoryPersister()} />);
+  return { ...result, router, queryClient, outbox };
 }
 
 /** Renders one component with a fresh QueryClient around it. */

@@ -1,0 +1,76 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { api, isApiError } from '@/lib/api-client';
+import { Outbox, type NewOutboxEntry, type OutboxEntry, type SendFailure } from '@/lib/outbox';
+import { outboxStorage } from '@/lib/device-store';
+import { outboxMutationKey } from '@/lib/outbox-context';
+
+/** The kinds of change made at the car; each is a mutation registered with setMutationDefaults. */
+export const OUTBOX_KINDS = [
+  'run.create', 'run.update', 'run.delete',
+  'setup.create', 'setup.quickChange',
+  'tyreSet.create', 'tread.create', 'pressure.create', 'change.create', 'event.create', 'car.create',
+] as const;
+
+/** Which cached data an entry changes once it lands, by the first part of its kind. */
+const INVALIDATES: Record<string, string[][]> = {
+  run: [['runs'], ['events'], ['setups']],
+  setup: [['setups'], ['runs'], ['events']],
+  tyreSet: [['tyres']],
+  tread: [['tyres']],
+  pressure: [['pressures']],
+  change: [['changes']],
+  event: [['events']],
+  car: [['cars']],
+};
+
+function send(entry: OutboxEntry) {
+  switch (entry.method) {
+    case 'POST':
+      return api.post(entry.path, entry.body);
+    case 'PATCH':
+      return api.patch(entry.path, entry.body);
+    case 'DELETE':
+      return api.delete(entry.path);
+  }
+}
+
+/** Network trouble and server trouble wait and retry; a refusal stays visible until fixed; a deleted record is done. */
+export function classifySendError(entry: OutboxEntry | null, error: unknown): SendFailure {
+  if (!isApiError(error)) return { kind: 'retry', reason: 'Could not reach Scrubline' };
+  if (error.code === 'network') return { kind: 'retry', reason: 'No connection' };
+  if (error.status === 401) return { kind: 'retry', reason: 'Sign in again to upload' };
+  if (error.status === 408 || error.status === 429 || error.status >= 500) return { kind: 'retry', reason: 'Scrubline is busy' };
+  if (error.status === 404 && entry?.method === 'DELETE') return { kind: 'gone' };
+  return {
+    kind: 'refused',
+    error: { status: error.status, code: error.code, message: error.message, ...(error.fieldErrors ? { fieldErrors: error.fieldErrors } : {}) },
+  };
+}
+
+/** The app's one outbox, wired to the API and the query cache. */
+export function createAppOutbox(queryClient: QueryClient): Outbox {
+  let current: OutboxEntry | null = null;
+  const outbox = new Outbox({
+    storage: outboxStorage(),
+    send: (entry) => {
+      current = entry;
+      return send(entry);
+    },
+    classify: (error) => classifySendError(current, error),
+    onDelivered: (entry) => {
+      for (const queryKey of INVALIDATES[entry.kind.split('.')[0]!] ?? []) void queryClient.invalidateQueries({ queryKey });
+    },
+  });
+  for (const kind of OUTBOX_KINDS) {
+    queryClient.setMutationDefaults(outboxMutationKey(kind), {
+      mutationFn: (entry: NewOutboxEntry) => outbox.add(entry),
+      // Writing to the device works with no signal at all.
+      networkMode: 'always',
+    });
+  }
+  if (typeof window !== 'undefined') {
+    window.addEventListener('online', () => void outbox.retryNow());
+    void outbox.ready().then(() => outbox.flush());
+  }
+  return outbox;
+}
