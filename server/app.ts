@@ -1,8 +1,8 @@
 import express from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
-import { randomUUID } from 'node:crypto';
-import { existsSync } from 'node:fs';
+import { randomBytes, randomUUID } from 'node:crypto';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Pool } from 'pg';
 import type { DataSource } from 'typeorm';
@@ -35,12 +35,21 @@ export interface AppOptions {
   jsonLimit?: string;
 }
 
+/** Stands in index.html for the per-response nonce (see the meta tag `csp-nonce`). */
+export const CSP_NONCE_PLACEHOLDER = '__CSP_NONCE__';
+
 /** Builds the Express app without listening, so tests can run it on port 0. */
 export function createApp(opts: AppOptions) {
   const app = express();
   app.disable('x-powered-by');
   if (opts.trustProxy) app.set('trust proxy', 1);
 
+  // A fresh nonce per response: the only way a <style> element may be added at run time
+  // (dialogs lock page scrolling with one). Scripts stay 'self' only.
+  app.use((_req, res, next) => {
+    res.locals.cspNonce = randomBytes(16).toString('base64');
+    next();
+  });
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -48,7 +57,7 @@ export function createApp(opts: AppOptions) {
         directives: {
           'default-src': ["'self'"],
           'script-src': ["'self'"],
-          'style-src': ["'self'"],
+          'style-src': ["'self'", (_req, res) => `'nonce-${(res as express.Response).locals.cspNonce}'`],
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'"],
           'connect-src': ["'self'"],
@@ -106,6 +115,10 @@ export function createApp(opts: AppOptions) {
 
   if (opts.clientDir && existsSync(join(opts.clientDir, 'index.html'))) {
     const clientDir = opts.clientDir;
+    app.use((req, _res, next) => {
+      if (req.path === '/index.html') req.url = '/';
+      next();
+    });
     app.use(
       express.static(clientDir, {
         index: false,
@@ -115,9 +128,11 @@ export function createApp(opts: AppOptions) {
         },
       }),
     );
+    // index.html is the only page; it carries the response's style nonce for the client to use.
+    const indexHtml = readFileSync(join(clientDir, 'index.html'), 'utf8');
     app.get('/{*splat}', (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(join(clientDir, 'index.html'));
+      res.type('html').send(indexHtml.replace(CSP_NONCE_PLACEHOLDER, res.locals.cspNonce as string));
     });
   }
 

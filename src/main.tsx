@@ -1,4 +1,5 @@
 import { createRoot } from 'react-dom/client';
+import { setNonce } from 'get-nonce';
 import '@fontsource/nunito-sans/400.css';
 import '@fontsource/nunito-sans/600.css';
 import '@fontsource/nunito-sans/700.css';
@@ -11,6 +12,10 @@ import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persi
 import { queryCacheStorage } from './lib/device-store';
 import { createAppOutbox } from './app/outbox';
 import { registerServiceWorker } from './app/service-worker';
+
+// The server's Content-Security-Policy allows a <style> element only with this response's nonce.
+const nonce = document.querySelector<HTMLMetaElement>('meta[name="csp-nonce"]')?.content;
+if (nonce && nonce !== '__CSP_NONCE__') setNonce(nonce);
 
 // The app's one QueryClient and one router; when the session ends, each needs the other.
 const queryClient = createQueryClient({ onUnauthenticated: () => sendToSignIn(router, queryClient) });
