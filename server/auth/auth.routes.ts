@@ -1,9 +1,12 @@
 import { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
-import { loginInputSchema, registerInputSchema, type LoginInput, type RegisterInput, type User } from '@shared/auth/auth.schema';
+import {
+  loginInputSchema, registerInputSchema, updatePreferencesInputSchema,
+  type LoginInput, type RegisterInput, type UpdatePreferencesInput, type User,
+} from '@shared/auth/auth.schema';
 import { AppError } from '../lib/app-error';
 import { parsed, validate } from '../lib/validate';
-import { createUser } from '../features/users/user.service';
+import { createUser, updatePreferences } from '../features/users/user.service';
 import type { AppPassport } from './passport';
 import type { AuthRateLimits } from './rate-limit';
 import { currentUser, requireAuth } from './access';
@@ -75,6 +78,12 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken }: Deps) {
 
   router.get('/me', requireAuth, (req, res) => {
     res.json({ user: currentUser(req) });
+  });
+
+  /** Units per quantity (and later other display choices); merged into what is stored. */
+  router.patch('/me/preferences', requireAuth, validate({ body: updatePreferencesInputSchema }), async (req, res) => {
+    const user = await updatePreferences(ds, currentUser(req).id, parsed<UpdatePreferencesInput>(res, 'body'));
+    res.json({ user });
   });
 
   return router;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { isCommonPassword } from './common-passwords';
+import { QUANTITIES, QUANTITY_UNITS, unitPreferencesSchema, type UnitPreferences } from '../calc/units.calc';
 
 export const ROLES = ['driver', 'shop_staff', 'team_captain', 'admin'] as const;
 export const roleSchema = z.enum(ROLES);
@@ -40,11 +41,28 @@ export const loginInputSchema = z.strictObject({
 });
 export type LoginInput = z.infer<typeof loginInputSchema>;
 
+/** What each user sets for themselves; stored as given, read through this schema so defaults fill gaps. */
+export const preferencesSchema = z.object({
+  units: unitPreferencesSchema.default(unitPreferencesSchema.parse({})),
+});
+export type Preferences = z.infer<typeof preferencesSchema>;
+
+/** A change of some preferences; what is not sent stays as it was (so no defaults here). */
+const unitChoicesSchema = z.strictObject(
+  Object.fromEntries(
+    QUANTITIES.map((q) => [q, z.enum(QUANTITY_UNITS[q] as readonly [string, ...string[]], { error: `Pick one of ${QUANTITY_UNITS[q].join(', ')}` }).optional()]),
+  ),
+) as unknown as z.ZodType<Partial<UnitPreferences>>;
+
+export const updatePreferencesInputSchema = z.strictObject({ units: unitChoicesSchema.optional() });
+export type UpdatePreferencesInput = z.infer<typeof updatePreferencesInputSchema>;
+
 export const userSchema = z.object({
   id: z.string(),
   email: z.string(),
   displayName: z.string(),
   roles: z.array(roleSchema),
+  preferences: preferencesSchema,
 });
 export type User = z.infer<typeof userSchema>;
 

@@ -18,6 +18,10 @@ export class UserEntity {
   @Column({ name: 'is_admin', type: 'boolean', default: false })
   isAdmin!: boolean;
 
+  /** Display preferences; see shared/auth/auth.schema.ts. */
+  @Column({ type: 'jsonb', default: () => "'{}'::jsonb" })
+  preferences!: Record<string, unknown>;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt!: Date;
 

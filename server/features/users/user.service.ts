@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { RegisterInput, Role, User } from '@shared/auth/auth.schema';
+import { preferencesSchema, type Preferences, type RegisterInput, type Role, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
 import { AppError } from '../../lib/app-error';
 import { hashPassword } from '../../auth/password';
 import { UserEntity } from './user.entity';
@@ -30,8 +30,22 @@ function rolesFromRow(row: RoleRow): Role[] {
   return roles;
 }
 
+/** Stored preferences read through the shared schema: unknown or outdated values fall back to defaults. */
+export function readPreferences(stored: unknown): Preferences {
+  const result = preferencesSchema.safeParse(stored ?? {});
+  return result.success ? result.data : preferencesSchema.parse({});
+}
+
 export function toUserDto(entity: UserEntity, roles: Role[]): User {
-  return { id: entity.id, email: entity.email, displayName: entity.displayName, roles };
+  return { id: entity.id, email: entity.email, displayName: entity.displayName, roles, preferences: readPreferences(entity.preferences) };
+}
+
+export async function updatePreferences(ds: DataSource, userId: string, input: UpdatePreferencesInput): Promise<User> {
+  const entity = await ds.getRepository(UserEntity).findOneByOrFail({ id: userId });
+  const current = readPreferences(entity.preferences);
+  const next: Preferences = { ...current, units: { ...current.units, ...input.units } };
+  await ds.getRepository(UserEntity).update({ id: userId }, { preferences: next });
+  return toUserDto({ ...entity, preferences: next }, await rolesOf(ds, userId));
 }
 
 export async function findUserById(ds: DataSource, id: string): Promise<User | null> {
@@ -66,8 +80,10 @@ export async function createUser(ds: DataSource, input: RegisterInput, opts: { i
 }
 
 export async function listUsers(ds: DataSource): Promise<User[]> {
-  const rows: (RoleRow & { id: string; email: string; display_name: string })[] = await ds.query(
-    `SELECT u.id, u.email, u.display_name, ${ROLE_COLUMNS} FROM users u ORDER BY u.created_at, u.email`,
+  const rows: (RoleRow & { id: string; email: string; display_name: string; preferences: unknown })[] = await ds.query(
+    `SELECT u.id, u.email, u.display_name, u.preferences, ${ROLE_COLUMNS} FROM users u ORDER BY u.created_at, u.email`,
   );
-  return rows.map((r) => ({ id: r.id, email: r.email, displayName: r.display_name, roles: rolesFromRow(r) }));
+  return rows.map((r) => ({
+    id: r.id, email: r.email, displayName: r.display_name, roles: rolesFromRow(r), preferences: readPreferences(r.preferences),
+  }));
 }

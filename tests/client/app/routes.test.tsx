@@ -1,3 +1,4 @@
+import { METRIC_PREFERENCES } from '../../../shared/calc/units.calc';
 // @vitest-environment jsdom
 import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
@@ -6,7 +7,7 @@ import { api, dropCsrfToken, NETWORK_MESSAGE } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
 import { errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../test-utils';
 
-const SAM = { id: 'u1', email: 'sam@example.test', displayName: 'Sam Okafor', roles: ['driver', 'team_captain'] };
+const SAM = { id: 'u1', email: 'sam@example.test', displayName: 'Sam Okafor', roles: ['driver', 'team_captain'], preferences: { units: METRIC_PREFERENCES } };
 const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
 
 beforeEach(() => dropCsrfToken());

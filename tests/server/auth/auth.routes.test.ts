@@ -1,3 +1,4 @@
+import { METRIC_PREFERENCES } from '../../../shared/calc/units.calc';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import argon2 from 'argon2';
@@ -21,7 +22,7 @@ describe('POST /api/auth/register', () => {
     const email = uniqueEmail();
     const res = await c.post('/api/auth/register', { email: `  ${email.toUpperCase()} `, password: TEST_PASSWORD, displayName: 'Rhea' });
     expect(res.status).toBe(201);
-    expect(res.body).toEqual({ user: { id: expect.any(String), email, displayName: 'Rhea', roles: ['driver'] } });
+    expect(res.body).toEqual({ user: { id: expect.any(String), email, displayName: 'Rhea', roles: ['driver'], preferences: { units: METRIC_PREFERENCES } } });
     expect(JSON.stringify(res.body)).not.toMatch(/hash/i);
     const me = await c.get('/api/auth/me');
     expect(me.status).toBe(200);
@@ -172,5 +173,31 @@ describe('GET /api/auth/me', () => {
     const res = await request(t.app).get('/api/auth/me');
     expect(res.status).toBe(401);
     expect(res.body).toEqual({ error: { code: 'unauthenticated', message: expect.any(String) } });
+  });
+});
+
+describe('PATCH /api/auth/me/preferences', () => {
+  it('when a driver picks psi and 1/32 in, then they are kept with the account and the rest stay metric', async () => {
+    const { c } = await signedInClient(t);
+    const res = await c.patch('/api/auth/me/preferences', { units: { pressure: 'psi', treadDepth: 'in32' } });
+    expect(res.status).toBe(200);
+    expect(res.body.user.preferences.units).toEqual({ ...METRIC_PREFERENCES, pressure: 'psi', treadDepth: 'in32' });
+    const me = await c.get('/api/auth/me');
+    expect(me.body.user.preferences.units.pressure).toBe('psi');
+    const again = await c.patch('/api/auth/me/preferences', { units: { temperature: 'degF' } });
+    expect(again.body.user.preferences.units).toMatchObject({ pressure: 'psi', treadDepth: 'in32', temperature: 'degF' });
+  });
+
+  it('when a unit does not fit the quantity, then 400 with a field error and nothing changes', async () => {
+    const { c } = await signedInClient(t);
+    const res = await c.patch('/api/auth/me/preferences', { units: { pressure: 'mm' } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fieldErrors['units.pressure']).toBeDefined();
+    expect((await c.get('/api/auth/me')).body.user.preferences.units).toEqual(METRIC_PREFERENCES);
+  });
+
+  it('when signed out, then 401', async () => {
+    const res = await client(t.app).patch('/api/auth/me/preferences', { units: { pressure: 'psi' } });
+    expect(res.status).toBe(401);
   });
 });

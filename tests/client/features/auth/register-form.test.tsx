@@ -1,3 +1,4 @@
+import { METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 // @vitest-environment jsdom
 import { cleanup, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
@@ -6,7 +7,7 @@ import { dropCsrfToken } from '@/lib/api-client';
 import { RegisterForm } from '@/features/auth/components/register-form';
 import { errorResponse, jsonResponse, renderWithQueryClient, requestsTo, stubFetch } from '../../test-utils';
 
-const USER = { id: 'u1', email: 'sam@example.test', displayName: 'Sam', roles: ['driver'] };
+const USER = { id: 'u1', email: 'sam@example.test', displayName: 'Sam', roles: ['driver'], preferences: { units: METRIC_PREFERENCES } };
 
 beforeEach(() => dropCsrfToken());
 afterEach(() => {
