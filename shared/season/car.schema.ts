@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { LIMITS } from './limits';
+import { emailSchema } from '../auth/auth.schema';
 
 export const DAMPER_COUNT_FROM = ['full_stiff', 'full_soft'] as const;
 
@@ -34,7 +35,7 @@ export const versionSchema = z.number({ error: 'Send the version this edit is ba
 export const updateCarInputSchema = createCarInputSchema.partial().extend({ version: versionSchema });
 export type UpdateCarInput = z.infer<typeof updateCarInputSchema>;
 
-export const addCoDriverInputSchema = z.strictObject({ email: z.email({ error: 'Enter a valid e-mail address' }) });
+export const addCoDriverInputSchema = z.strictObject({ email: emailSchema });
 
 export const personSchema = z.object({ id: z.string(), displayName: z.string() });
 export type Person = z.infer<typeof personSchema>;

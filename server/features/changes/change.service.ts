@@ -3,6 +3,7 @@ import type { User } from '@shared/auth/auth.schema';
 import type { ChangeLogEntry, CreateChangeInput } from '@shared/season/change-log.schema';
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess } from '../../auth/access';
+import { insertUnlessPresent } from '../../lib/insert';
 import { ChangeLogEntity } from './change.entity';
 
 async function toEntries(ds: DataSource, rows: ChangeLogEntity[]): Promise<ChangeLogEntry[]> {
@@ -27,32 +28,25 @@ async function toEntries(ds: DataSource, rows: ChangeLogEntity[]): Promise<Chang
 export async function createChange(ds: DataSource, user: User, carId: string, input: CreateChangeInput) {
   await assertCarAccess(ds, user, carId, 'write');
   const repo = ds.getRepository(ChangeLogEntity);
-  if (input.id) {
-    const existing = await repo.findOneBy({ id: input.id });
-    if (existing) {
-      if (existing.carId !== carId) throw new AppError('conflict', 'That entry id is already in use.');
-      return { entry: (await toEntries(ds, [existing]))[0]!, created: false };
-    }
-  }
   if (input.setupId) {
     const rows: { car_id: string }[] = await ds.query('SELECT car_id FROM setup_snapshots WHERE id = $1', [input.setupId]);
     if (rows[0]?.car_id !== carId) {
       throw new AppError('validation_failed', 'Some fields need attention.', { setupId: ['Pick a setup of this car'] });
     }
   }
-  const saved = await repo.save(
-    repo.create({
-      ...(input.id ? { id: input.id } : {}),
-      carId,
-      changedOn: input.changedOn,
-      what: input.what,
-      location: input.location,
-      notes: input.notes ?? null,
-      setupId: input.setupId ?? null,
-      createdBy: user.id,
-    }),
-  );
-  return { entry: (await toEntries(ds, [saved]))[0]!, created: true };
+  const { inserted, id } = await insertUnlessPresent(ds.manager, ChangeLogEntity, {
+    ...(input.id ? { id: input.id } : {}),
+    carId,
+    changedOn: input.changedOn,
+    what: input.what,
+    location: input.location,
+    notes: input.notes ?? null,
+    setupId: input.setupId ?? null,
+    createdBy: user.id,
+  });
+  const saved = await repo.findOneBy({ id: id ?? input.id! });
+  if (!saved || saved.carId !== carId) throw new AppError('conflict', 'That entry id is already in use.');
+  return { entry: (await toEntries(ds, [saved]))[0]!, created: inserted };
 }
 
 export async function listChanges(ds: DataSource, user: User, carId: string): Promise<ChangeLogEntry[]> {

@@ -4,6 +4,7 @@ import { CORNERS, type PerCorner } from '@shared/season/corners';
 import type { CreatePressureReadingInput, PressureReading } from '@shared/season/tyre.schema';
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess } from '../../auth/access';
+import { insertUnlessPresent } from '../../lib/insert';
 import { PressureReadingEntity } from './pressure.entity';
 
 function toReading(p: PressureReadingEntity): PressureReading {
@@ -40,43 +41,31 @@ export async function writeRunHotPressures(
 export async function createPressureReading(ds: DataSource, user: User, carId: string, input: CreatePressureReadingInput) {
   await assertCarAccess(ds, user, carId, 'write');
   const repo = ds.getRepository(PressureReadingEntity);
-  if (input.id) {
-    const existing = await repo.findOneBy({ id: input.id });
-    if (existing) {
-      if (existing.carId !== carId) throw new AppError('conflict', 'That reading id is already in use.');
-      return { reading: toReading(existing), created: false };
-    }
-  }
   if (input.runId) {
     const rows: { car_id: string }[] = await ds.query('SELECT car_id FROM runs WHERE id = $1', [input.runId]);
     if (rows[0]?.car_id !== carId) {
       throw new AppError('validation_failed', 'Some fields need attention.', { runId: ['Pick a run of this car'] });
     }
   }
-  try {
-    const saved = await repo.save(
-      repo.create({
-        ...(input.id ? { id: input.id } : {}),
-        carId,
-        kind: input.kind,
-        takenAt: new Date(input.takenAt),
-        runId: input.runId ?? null,
-        lfKpa: input.corners.lf ?? null,
-        rfKpa: input.corners.rf ?? null,
-        lrKpa: input.corners.lr ?? null,
-        rrKpa: input.corners.rr ?? null,
-        createdBy: user.id,
-      }),
-    );
-    return { reading: toReading(saved), created: true };
-  } catch (err) {
-    if ((err as { constraint?: string }).constraint === 'pressure_readings_run_kind') {
-      throw new AppError('conflict', `This run already has ${input.kind} pressures; edit them instead.`, {
-        runId: [`This run already has ${input.kind} pressures`],
-      });
-    }
-    throw err;
-  }
+  const { inserted, id } = await insertUnlessPresent(ds.manager, PressureReadingEntity, {
+    ...(input.id ? { id: input.id } : {}),
+    carId,
+    kind: input.kind,
+    takenAt: new Date(input.takenAt),
+    runId: input.runId ?? null,
+    lfKpa: input.corners.lf ?? null,
+    rfKpa: input.corners.rf ?? null,
+    lrKpa: input.corners.lr ?? null,
+    rrKpa: input.corners.rr ?? null,
+    createdBy: user.id,
+  });
+  const saved = inserted || input.id ? await repo.findOneBy({ id: id ?? input.id! }) : null;
+  if (saved && saved.carId === carId) return { reading: toReading(saved), created: inserted };
+  if (saved) throw new AppError('conflict', 'That reading id is already in use.');
+  // Nothing inserted and no row with this id: the run already has readings of this kind.
+  throw new AppError('conflict', `This run already has ${input.kind} pressures; edit them instead.`, {
+    runId: [`This run already has ${input.kind} pressures`],
+  });
 }
 
 export async function listPressureReadings(ds: DataSource, user: User, carId: string): Promise<PressureReading[]> {

@@ -9,7 +9,6 @@ import { writeRunHotPressures } from '../pressures/pressure.service';
 import { RunEntity } from './run.entity';
 
 type Db = DataSource | EntityManager;
-const UNIQUE_VIOLATION = '23505';
 
 interface RunRow {
   id: string;
@@ -159,23 +158,22 @@ export async function createRun(ds: DataSource, user: User, input: CreateRunInpu
   const recordedAt = new Date(input.recordedAt);
   const rawTimeSec = input.status === 'finished' ? input.rawTimeSec : (input.rawTimeSec ?? null);
 
-  let created = false;
-  try {
-    created = await ds.transaction(async (m) => {
-      const inserted: { id: string }[] = await m.query(
-        `INSERT INTO runs (id, car_id, event_id, driver_id, run_number, raw_time_sec, cones, status, recorded_at, notes)
-         VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10)
-         ON CONFLICT (id) DO NOTHING RETURNING id`,
-        [input.id, input.carId, input.eventId, driverId, input.runNumber, rawTimeSec, input.cones, input.status, recordedAt, input.notes ?? null],
-      );
-      if (inserted.length === 0) return false;
-      await writeRunHotPressures(m, { id: input.id, carId: input.carId, recordedAt }, user.id, input.hotPressuresKpa ?? null);
-      return true;
-    });
-  } catch (err) {
-    if ((err as { code?: string; constraint?: string }).constraint === 'runs_number_unique') throw runNumberTaken(input.runNumber);
-    if ((err as { code?: string }).code === UNIQUE_VIOLATION) throw runNumberTaken(input.runNumber);
-    throw err;
+  // No conflict target: a replay (same id) and a clash of run numbers both insert nothing;
+  // which of the two happened is read back below, after any racing insert has committed.
+  const created = await ds.transaction(async (m) => {
+    const inserted: { id: string }[] = await m.query(
+      `INSERT INTO runs (id, car_id, event_id, driver_id, run_number, raw_time_sec, cones, status, recorded_at, notes)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10)
+       ON CONFLICT DO NOTHING RETURNING id`,
+      [input.id, input.carId, input.eventId, driverId, input.runNumber, rawTimeSec, input.cones, input.status, recordedAt, input.notes ?? null],
+    );
+    if (inserted.length === 0) return false;
+    await writeRunHotPressures(m, { id: input.id, carId: input.carId, recordedAt }, user.id, input.hotPressuresKpa ?? null);
+    return true;
+  });
+  if (!created) {
+    const existing = await ds.query('SELECT 1 FROM runs WHERE id = $1', [input.id]);
+    if (existing.length === 0) throw runNumberTaken(input.runNumber);
   }
   const run = await loadRun(ds, input.id);
   if (!created) {

@@ -10,6 +10,7 @@ import { toFieldErrors, type FieldErrors } from '@shared/api/api-error.schema';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { assertCarAccess, assertCarChildAccess } from '../../auth/access';
 import { loadCarEntity } from '../cars/car.service';
+import { insertUnlessPresent } from '../../lib/insert';
 import { SetupCornerEntity, SetupSnapshotEntity } from './setup.entity';
 
 type Db = DataSource | EntityManager;
@@ -85,13 +86,18 @@ async function checkClicks(db: Db, carId: string, corners: Partial<Record<Corner
   if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
 }
 
+/**
+ * Writes the corners given. A field left out keeps its stored value (an edit of one
+ * value must not wipe the rest); null clears it.
+ */
 async function writeCorners(m: EntityManager, setupId: string, corners: Partial<Record<Corner, SetupCorner | undefined>>) {
   const repo = m.getRepository(SetupCornerEntity);
   for (const corner of CORNERS) {
     const values = corners[corner];
     if (!values) continue;
+    const stored = await repo.findOneBy({ setupId, corner });
     const row = { setupId, corner, ...emptyCorner() } as SetupCornerEntity;
-    for (const f of SETUP_CORNER_FIELDS) row[f] = (values[f] ?? null) as never;
+    for (const f of SETUP_CORNER_FIELDS) row[f] = (values[f] !== undefined ? values[f] : (stored?.[f] ?? null)) as never;
     await repo.save(row);
   }
 }
@@ -99,34 +105,34 @@ async function writeCorners(m: EntityManager, setupId: string, corners: Partial<
 export async function createSetup(ds: DataSource, user: User, carId: string, input: CreateSetupInput): Promise<{ setup: Setup; created: boolean }> {
   await assertCarAccess(ds, user, carId, 'write');
   await checkClicks(ds, carId, input.corners);
-  if (input.id) {
-    const existing = await ds.getRepository(SetupSnapshotEntity).findOneBy({ id: input.id });
-    if (existing) {
-      if (existing.carId !== carId) throw new AppError('conflict', 'That setup id is already in use.');
-      return { setup: await loadSetup(ds, existing.id), created: false };
-    }
-  }
   const effectiveFrom = new Date(input.effectiveFrom);
   if (input.derivedFromId) await assertSameCar(ds, input.derivedFromId, carId, 'derivedFromId');
-  const id = await ds.transaction(async (m) => {
+  const { id, created } = await ds.transaction(async (m) => {
     const derivedFromId = input.derivedFromId ?? (await activeSetupAt(m, carId, effectiveFrom))?.id ?? null;
-    const saved = await m.getRepository(SetupSnapshotEntity).save(
-      m.getRepository(SetupSnapshotEntity).create({
-        ...(input.id ? { id: input.id } : {}),
-        carId,
-        label: input.label,
-        effectiveFrom,
-        createdBy: user.id,
-        derivedFromId,
-        notes: input.notes ?? null,
-        frontAntiRollBar: input.axles.front?.antiRollBar ?? null,
-        rearAntiRollBar: input.axles.rear?.antiRollBar ?? null,
-      }),
-    );
-    await writeCorners(m, saved.id, input.corners);
-    return saved.id;
+    const { inserted, id: newId } = await insertUnlessPresent(m, SetupSnapshotEntity, {
+      ...(input.id ? { id: input.id } : {}),
+      carId,
+      label: input.label,
+      effectiveFrom,
+      createdBy: user.id,
+      derivedFromId,
+      notes: input.notes ?? null,
+      frontAntiRollBar: input.axles.front?.antiRollBar ?? null,
+      rearAntiRollBar: input.axles.rear?.antiRollBar ?? null,
+    });
+    if (!inserted) return { id: input.id!, created: false };
+    await writeCorners(m, newId!, input.corners);
+    return { id: newId!, created: true };
   });
+  if (!created) return { setup: await existingOfCar(ds, id, carId), created: false };
   return { setup: await loadSetup(ds, id), created: true };
+}
+
+/** A replayed client id: the stored snapshot, if it belongs to this car. */
+async function existingOfCar(ds: DataSource, id: string, carId: string): Promise<Setup> {
+  const existing = await ds.getRepository(SetupSnapshotEntity).findOneBy({ id });
+  if (!existing || existing.carId !== carId) throw new AppError('conflict', 'That setup id is already in use.');
+  return loadSetup(ds, id);
 }
 
 async function assertSameCar(db: Db, setupId: string, carId: string, field: string) {
@@ -204,11 +210,9 @@ function describeCorners(corners: Corner[]): string {
 export async function quickChange(ds: DataSource, user: User, carId: string, input: QuickChangeInput): Promise<{ setup: Setup; created: boolean }> {
   await assertCarAccess(ds, user, carId, 'write');
   if (input.id) {
+    // A replay of a quick change already made: answer with it rather than applying the deltas twice.
     const existing = await ds.getRepository(SetupSnapshotEntity).findOneBy({ id: input.id });
-    if (existing) {
-      if (existing.carId !== carId) throw new AppError('conflict', 'That setup id is already in use.');
-      return { setup: await loadSetup(ds, existing.id), created: false };
-    }
+    if (existing) return { setup: await existingOfCar(ds, existing.id, carId), created: false };
   }
   const effectiveFrom = input.effectiveFrom ? new Date(input.effectiveFrom) : new Date();
   const active = await activeSetupAt(ds, carId, effectiveFrom);
@@ -251,7 +255,8 @@ export async function quickChange(ds: DataSource, user: User, carId: string, inp
       for (const [key, messages] of Object.entries(err.fieldErrors)) {
         const [, corner, field] = key.split('.');
         const i = input.changes.findIndex((c) => c.field === field && c.corners.includes(corner as Corner));
-        remapped[`changes.${Math.max(i, 0)}.delta`] = messages.map((m) => `${corner!.toUpperCase()}: ${m}`);
+        const where = i >= 0 && input.changes[i]!.value !== undefined ? 'value' : 'delta';
+        (remapped[`changes.${Math.max(i, 0)}.${where}`] ??= []).push(...messages.map((m) => `${corner!.toUpperCase()}: ${m}`));
       }
       throw new AppError('validation_failed', 'Some fields need attention.', remapped);
     }

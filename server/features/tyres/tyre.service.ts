@@ -8,6 +8,7 @@ import type {
 import type { FieldErrors } from '@shared/api/api-error.schema';
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess, assertCarChildAccess, assertEventAccess } from '../../auth/access';
+import { insertUnlessPresent } from '../../lib/insert';
 import { TreadReadingCornerEntity, TreadReadingEntity, TyreMountingEntity, TyreSetEntity } from './tyre.entity';
 
 type Db = DataSource | EntityManager;
@@ -22,6 +23,8 @@ const toMounting = (m: TyreMountingEntity): TyreMounting => ({
 function tyreOn(mountings: TyreMountingEntity[], corner: Corner, at: Date): number | null {
   let found: TyreMountingEntity | null = null;
   for (const m of mountings) if (m.mountedAt <= at && (!found || m.mountedAt >= found.mountedAt)) found = m;
+  // Before the first recorded mounting, the set was as first fitted.
+  found ??= mountings.reduce<TyreMountingEntity | null>((a, m) => (!a || m.mountedAt < a.mountedAt ? m : a), null);
   return found ? found[`${corner}Tyre`] : null;
 }
 
@@ -90,30 +93,24 @@ async function toTyreSets(db: Db, sets: TyreSetEntity[]): Promise<TyreSet[]> {
 /** A new set starts with tyre 1 on LF, 2 on RF, 3 on LR, 4 on RR; rotations add mountings. */
 export async function createTyreSet(ds: DataSource, user: User, carId: string, input: CreateTyreSetInput) {
   await assertCarAccess(ds, user, carId, 'write');
-  if (input.id) {
-    const existing = await ds.getRepository(TyreSetEntity).findOneBy({ id: input.id });
-    if (existing) {
-      if (existing.carId !== carId) throw new AppError('conflict', 'That tyre set id is already in use.');
-      return { tyreSet: (await toTyreSets(ds, [existing]))[0]!, created: false };
-    }
-  }
-  const saved = await ds.transaction(async (m) => {
-    const set = await m.getRepository(TyreSetEntity).save(
-      m.getRepository(TyreSetEntity).create({
-        ...(input.id ? { id: input.id } : {}),
-        carId,
-        label: input.label,
-        size: input.size ?? null,
-        boughtOn: input.boughtOn ?? null,
-        startTreadMm: input.startTreadMm ?? null,
-        notes: input.notes ?? null,
-      }),
-    );
+  const { id, created } = await ds.transaction(async (m) => {
+    const { inserted, id: newId } = await insertUnlessPresent(m, TyreSetEntity, {
+      ...(input.id ? { id: input.id } : {}),
+      carId,
+      label: input.label,
+      size: input.size ?? null,
+      boughtOn: input.boughtOn ?? null,
+      startTreadMm: input.startTreadMm ?? null,
+      notes: input.notes ?? null,
+    });
+    if (!inserted) return { id: input.id!, created: false };
     const mountedAt = input.boughtOn ? new Date(`${input.boughtOn}T00:00:00Z`) : new Date();
-    await m.getRepository(TyreMountingEntity).save({ tyreSetId: set.id, mountedAt, lfTyre: 1, rfTyre: 2, lrTyre: 3, rrTyre: 4 });
-    return set;
+    await m.getRepository(TyreMountingEntity).save({ tyreSetId: newId!, mountedAt, lfTyre: 1, rfTyre: 2, lrTyre: 3, rrTyre: 4 });
+    return { id: newId!, created: true };
   });
-  return { tyreSet: (await toTyreSets(ds, [saved]))[0]!, created: true };
+  const saved = await ds.getRepository(TyreSetEntity).findOneBy({ id });
+  if (!saved || saved.carId !== carId) throw new AppError('conflict', 'That tyre set id is already in use.');
+  return { tyreSet: (await toTyreSets(ds, [saved]))[0]!, created };
 }
 
 export async function listTyreSets(ds: DataSource, user: User, carId: string): Promise<TyreSet[]> {
@@ -138,13 +135,6 @@ export async function addMounting(ds: DataSource, user: User, tyreSetId: string,
 export async function createTreadReading(ds: DataSource, user: User, tyreSetId: string, input: CreateTreadReadingInput) {
   await assertCarChildAccess(ds, user, 'tyre_sets', tyreSetId, 'write', 'That tyre set');
   const set = await ds.getRepository(TyreSetEntity).findOneByOrFail({ id: tyreSetId });
-  if (input.id) {
-    const existing = await ds.getRepository(TreadReadingEntity).findOneBy({ id: input.id });
-    if (existing) {
-      if (existing.tyreSetId !== tyreSetId) throw new AppError('conflict', 'That reading id is already in use.');
-      return { reading: (await readingsOf(ds, [tyreSetId], false)).find((r) => r.id === existing.id)!, created: false };
-    }
-  }
   if (input.eventId) await assertEventAccess(ds, user, input.eventId);
   const errors: FieldErrors = {};
   if (set.startTreadMm !== null) {
@@ -157,25 +147,25 @@ export async function createTreadReading(ds: DataSource, user: User, tyreSetId: 
     }
   }
   if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
-  const id = await ds.transaction(async (m) => {
-    const reading = await m.getRepository(TreadReadingEntity).save(
-      m.getRepository(TreadReadingEntity).create({
-        ...(input.id ? { id: input.id } : {}),
-        tyreSetId,
-        takenAt: new Date(input.takenAt),
-        eventId: input.eventId ?? null,
-        notes: input.notes ?? null,
-        createdBy: user.id,
-      }),
-    );
+  const { id, created } = await ds.transaction(async (m) => {
+    const { inserted, id: newId } = await insertUnlessPresent(m, TreadReadingEntity, {
+      ...(input.id ? { id: input.id } : {}),
+      tyreSetId,
+      takenAt: new Date(input.takenAt),
+      eventId: input.eventId ?? null,
+      notes: input.notes ?? null,
+      createdBy: user.id,
+    });
+    if (!inserted) return { id: input.id!, created: false };
     for (const corner of CORNERS) {
       const c = input.corners[corner];
-      if (c) await m.getRepository(TreadReadingCornerEntity).save({ readingId: reading.id, corner, ...c });
+      if (c) await m.getRepository(TreadReadingCornerEntity).save({ readingId: newId!, corner, ...c });
     }
-    return reading.id;
+    return { id: newId!, created: true };
   });
-  const reading = (await readingsOf(ds, [tyreSetId], false)).find((r) => r.id === id)!;
-  return { reading, created: true };
+  const reading = (await readingsOf(ds, [tyreSetId], false)).find((r) => r.id === id);
+  if (!reading) throw new AppError('conflict', 'That reading id is already in use.');
+  return { reading, created };
 }
 
 export async function listTreadReadings(ds: DataSource, user: User, tyreSetId: string): Promise<TreadReading[]> {

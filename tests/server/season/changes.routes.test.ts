@@ -1,0 +1,72 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { makeTestApp, type TestApp } from '../test-app';
+import { countOf, driverWithCarAndEvent, expectError, expectFieldErrors, postSetup } from './season-fixtures';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await makeTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const changesOf = (carId: string) => countOf(t, 'SELECT count(*) AS n FROM change_log WHERE car_id = $1', [carId]);
+
+describe('POST /api/cars/:carId/changes', () => {
+  it('when a change is logged, then 201 with the entry, the whole car as location by default and its author', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const setup = await postSetup(d.c, d.carId);
+    const res = await d.c.post(`/api/cars/${d.carId}/changes`, { changedOn: '2026-03-28', what: 'Corner-balanced with driver', notes: 'Shop visit', setupId: setup.id });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body).toEqual({
+      id: expect.any(String),
+      carId: d.carId,
+      changedOn: '2026-03-28',
+      what: 'Corner-balanced with driver',
+      location: 'car',
+      notes: 'Shop visit',
+      setupId: setup.id,
+      createdBy: { id: d.user.id, displayName: 'Nell Ashdown' },
+      createdAt: expect.any(String),
+    });
+  });
+
+  it('when what or changedOn is missing or malformed, or the location is unknown, then 400 at each field and nothing is written', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const url = `/api/cars/${d.carId}/changes`;
+    expectFieldErrors(await d.c.post(url, { location: 'front' }), ['changedOn', 'what']);
+    expectFieldErrors(await d.c.post(url, { changedOn: '28/03/2026', what: 'x', location: 'roof' }), ['changedOn', 'location']);
+    expectFieldErrors(await d.c.post(url, { changedOn: '2026-03-28', what: 'x'.repeat(201) }), ['what']);
+    expect(expectFieldErrors(await d.c.post(url, { changedOn: '2026-03-28', what: 'x', cost: 40 }), ['cost']).cost).toEqual(['Unknown field']);
+    expect(await changesOf(d.carId)).toBe(0);
+  });
+
+  it('when the setupId belongs to another car, then 400 on setupId and nothing is written', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const other = await driverWithCarAndEvent(t);
+    const foreign = await postSetup(other.c, other.carId);
+    expectFieldErrors(await d.c.post(`/api/cars/${d.carId}/changes`, { changedOn: '2026-03-28', what: 'x', setupId: foreign.id }), ['setupId']);
+    expect(await changesOf(d.carId)).toBe(0);
+  });
+});
+
+describe('GET /api/cars/:carId/changes', () => {
+  it('when changes were logged out of order, then { items, count } in date order', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const url = `/api/cars/${d.carId}/changes`;
+    const late = await d.c.post(url, { changedOn: '2026-06-12', what: 'Front camber arms fitted', location: 'front' });
+    const early = await d.c.post(url, { changedOn: '2026-02-01', what: 'Coilovers fitted' });
+    const res = await d.c.get(url);
+    expect(res.status).toBe(200);
+    expect(res.body.count).toBe(2);
+    expect(res.body.items.map((e: { id: string }) => e.id)).toEqual([early.body.id, late.body.id]);
+  });
+
+  it('when another driver reads or writes the change log, then 404 and nothing is written', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const other = await driverWithCarAndEvent(t);
+    expectError(await other.c.get(`/api/cars/${d.carId}/changes`), 404, 'not_found');
+    expectError(await other.c.post(`/api/cars/${d.carId}/changes`, { changedOn: '2026-03-28', what: 'x' }), 404, 'not_found');
+    expect(await changesOf(d.carId)).toBe(0);
+  });
+});
