@@ -21,6 +21,7 @@ import { changeRoutes } from './features/changes/change.routes';
 import { eventRoutes } from './features/events/event.routes';
 import { runRoutes } from './features/runs/run.routes';
 import { carTyreRoutes, tyreSetRoutes } from './features/tyres/tyre.routes';
+import { analysisRoutes } from './features/analysis/analysis.routes';
 
 export interface AppOptions {
   ds: DataSource;
@@ -106,6 +107,7 @@ export function createApp(opts: AppOptions) {
   app.use('/api/cars/:carId/setups', carSetupRoutes(opts.ds));
   app.use('/api/cars/:carId/changes', changeRoutes(opts.ds));
   app.use('/api/cars/:carId', carTyreRoutes(opts.ds));
+  app.use('/api/cars/:carId', analysisRoutes(opts.ds));
   app.use('/api/cars', carRoutes(opts.ds));
   app.use('/api/setups', setupRoutes(opts.ds));
   app.use('/api/events', eventRoutes(opts.ds));

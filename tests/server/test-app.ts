@@ -18,8 +18,8 @@ export interface TestAppOptions {
  * The real app from createApp() against the real, migrated test database. Each
  * call gets its own rate-limit counters so test files do not see each other's.
  */
-export async function makeTestApp(opts: TestAppOptions = {}) {
-  const url = inject('databaseUrl');
+export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string } = {}) {
+  const url = opts.databaseUrl ?? inject('databaseUrl');
   const ds = createDataSource(url, { poolSize: 4 });
   await ds.initialize();
   const pool = new pg.Pool({ connectionString: url, max: 4 });

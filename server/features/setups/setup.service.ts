@@ -142,6 +142,12 @@ async function assertSameCar(db: Db, setupId: string, carId: string, field: stri
   }
 }
 
+/** Every snapshot of a car, oldest first (callers have checked access). */
+export async function setupsOfCar(db: Db, carId: string): Promise<Setup[]> {
+  const snapshots = await db.getRepository(SetupSnapshotEntity).find({ where: { carId }, order: { effectiveFrom: 'ASC', createdAt: 'ASC' } });
+  return toSetups(db, snapshots);
+}
+
 export async function listSetups(ds: DataSource, user: User, carId: string): Promise<Setup[]> {
   await assertCarAccess(ds, user, carId, 'read');
   const snapshots = await ds.getRepository(SetupSnapshotEntity).find({

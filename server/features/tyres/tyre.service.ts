@@ -113,6 +113,14 @@ export async function createTyreSet(ds: DataSource, user: User, carId: string, i
   return { tyreSet: (await toTyreSets(ds, [saved]))[0]!, created };
 }
 
+/** A car's tyre sets and all their readings, oldest first (callers have checked access). */
+export async function tyreSetsWithReadings(db: Db, carId: string): Promise<{ set: TyreSet; readings: TreadReading[] }[]> {
+  const sets = await db.getRepository(TyreSetEntity).find({ where: { carId }, order: { createdAt: 'ASC' } });
+  const dtos = await toTyreSets(db, sets);
+  const readings = await readingsOf(db, sets.map((s) => s.id), false);
+  return dtos.map((set) => ({ set, readings: readings.filter((r) => r.tyreSetId === set.id) }));
+}
+
 export async function listTyreSets(ds: DataSource, user: User, carId: string): Promise<TyreSet[]> {
   await assertCarAccess(ds, user, carId, 'read');
   const sets = await ds.getRepository(TyreSetEntity).find({ where: { carId }, order: { createdAt: 'ASC' } });

@@ -1,0 +1,302 @@
+import type { DataSource } from 'typeorm';
+import { linearRegression, linearRegressionLine, rSquared } from 'simple-statistics';
+import type { User } from '@shared/auth/auth.schema';
+import { CORNERS, type Corner } from '@shared/season/corners';
+import type { Setup, SetupCorner } from '@shared/season/setup.schema';
+import type { Run } from '@shared/season/run.schema';
+import type { TreadReading } from '@shared/season/tyre.schema';
+import { diffSetups } from '@shared/season/setup-diff';
+import { compareSamples, runsLeft, verdict, wearRateMmPerRun } from '@shared/calc/index';
+import type {
+  CompareQuery, CompareResult, Comparison, CornerOrAxle, ScatterPoint, ScatterQuery, ScatterResult, SeasonResult,
+} from '@shared/analysis/analysis.schema';
+import { AppError } from '../../lib/app-error';
+import { assertCarAccess } from '../../auth/access';
+import { loadCarEntity } from '../cars/car.service';
+import { setupsOfCar } from '../setups/setup.service';
+import { loadRuns } from '../runs/run.service';
+import { tyreSetsWithReadings } from '../tyres/tyre.service';
+import type { CarEntity } from '../cars/car.entity';
+
+/*
+ * Analysis of one car's season: setup values against time and wear, before and
+ * after a change, and tyre life. Data is read per car (indexed by car), and every
+ * number comes from the shared calculations, so the screens and the API agree.
+ */
+
+const PARAM_FIELD = {
+  camber: { field: 'camberDeg', unit: '°' },
+  springRate: { field: 'springRateNPerMm', unit: 'N/mm' },
+  damperClicks: { field: 'damperClicks', unit: 'clicks' },
+  coldPressure: { field: 'coldPressureKpa', unit: 'kPa' },
+  rideHeight: { field: 'rideHeightMm', unit: 'mm' },
+} as const satisfies Record<string, { field: keyof SetupCorner; unit: string }>;
+
+const cornersOf = (c: CornerOrAxle): Corner[] => (c === 'front' ? ['lf', 'rf'] : c === 'rear' ? ['lr', 'rr'] : [c]);
+
+const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
+
+/** The setup value at a corner or the mean over an axle; null when not recorded. */
+function setupValue(setup: Setup | undefined, where: CornerOrAxle, field: keyof SetupCorner): number | null {
+  if (!setup) return null;
+  const values = cornersOf(where).map((c) => setup.corners[c][field]).filter((v): v is number => typeof v === 'number');
+  return values.length === cornersOf(where).length ? mean(values) : null;
+}
+
+/** Clicks as 0–1 of the adjuster's range, 0 at the soft end, whichever end the count starts from. */
+function normalizedClicks(car: CarEntity, where: CornerOrAxle, clicks: number): number | null {
+  const front = where === 'front' || where === 'lf' || where === 'rf';
+  const positions = front ? car.frontDamperPositions : car.rearDamperPositions;
+  const from = front ? car.frontDamperCountFrom : car.rearDamperCountFrom;
+  if (!positions || !from) return null;
+  const share = clicks / positions;
+  return from === 'full_soft' ? share : 1 - share;
+}
+
+interface WearInterval {
+  corner: Corner;
+  from: TreadReading;
+  to: TreadReading;
+  runs: Run[];
+  /** mm lost per run, by position; positive = worn. */
+  inner: number;
+  middle: number;
+  outer: number;
+  setupId: string | null;
+  eventId: string | null;
+}
+
+/**
+ * Wear between consecutive readings of one set, per corner, over the car's runs
+ * between them. An interval across a rotation (a different tyre on the corner)
+ * is left out: the two readings are of different tyres.
+ */
+function wearIntervals(sets: Awaited<ReturnType<typeof tyreSetsWithReadings>>, runs: Run[]): WearInterval[] {
+  const out: WearInterval[] = [];
+  for (const { readings } of sets) {
+    for (let i = 1; i < readings.length; i++) {
+      const from = readings[i - 1]!;
+      const to = readings[i]!;
+      const between = runs.filter((r) => r.recordedAt > from.takenAt && r.recordedAt <= to.takenAt);
+      if (between.length === 0) continue;
+      const counts = new Map<string, number>();
+      for (const r of between) if (r.setupId) counts.set(r.setupId, (counts.get(r.setupId) ?? 0) + 1);
+      const setupId = [...counts.entries()].sort((a, b) => b[1] - a[1])[0]?.[0] ?? null;
+      for (const corner of CORNERS) {
+        const a = from.corners[corner];
+        const b = to.corners[corner];
+        if (!a || !b || a.tyreNumber !== b.tyreNumber) continue;
+        const n = between.length;
+        out.push({
+          corner, from, to, runs: between, setupId,
+          eventId: to.eventId ?? between.at(-1)!.eventId,
+          inner: (a.innerMm - b.innerMm) / n,
+          middle: (a.middleMm - b.middleMm) / n,
+          outer: (a.outerMm - b.outerMm) / n,
+        });
+      }
+    }
+  }
+  return out;
+}
+
+async function loadSeason(ds: DataSource, carId: string) {
+  const [car, setups, runs, sets, events] = await Promise.all([
+    loadCarEntity(ds, carId),
+    setupsOfCar(ds, carId),
+    loadRuns(ds, 'r.car_id = $1', [carId]),
+    tyreSetsWithReadings(ds, carId),
+    ds.query(
+      `SELECT DISTINCT e.id, e.name, e.date::text AS date, e.venue FROM events e JOIN runs r ON r.event_id = e.id
+        WHERE r.car_id = $1 ORDER BY date`,
+      [carId],
+    ) as Promise<{ id: string; name: string; date: string; venue: string | null }[]>,
+  ]);
+  return { car, setups, runs, sets, events, setupById: new Map(setups.map((s) => [s.id, s])), eventById: new Map(events.map((e) => [e.id, e])) };
+}
+
+function fitLine(points: { x: number; y: number }[]): ScatterResult['fit'] {
+  if (points.length < 3 || new Set(points.map((p) => p.x)).size < 2) return null;
+  const pairs = points.map((p) => [p.x, p.y]);
+  const line = linearRegression(pairs);
+  return { slope: line.m, intercept: line.b, r2: rSquared(pairs, linearRegressionLine(line)) };
+}
+
+const inRange = (date: string | null, q: { from?: string; to?: string }) =>
+  !date || ((!q.from || date >= q.from) && (!q.to || date <= q.to));
+
+export async function scatter(ds: DataSource, user: User, carId: string, q: ScatterQuery): Promise<ScatterResult> {
+  await assertCarAccess(ds, user, carId, 'read');
+  const season = await loadSeason(ds, carId);
+  const { field, unit } = PARAM_FIELD[q.x];
+  const points: ScatterPoint[] = [];
+  const base = (setupId: string | null, eventId: string | null) => {
+    const setup = setupId ? season.setupById.get(setupId) : undefined;
+    const event = eventId ? season.eventById.get(eventId) : undefined;
+    const x = setupValue(setup, q.corner, field);
+    if (x === null || !inRange(event?.date ?? null, q)) return null;
+    return {
+      x,
+      xNormalized: q.x === 'damperClicks' ? normalizedClicks(season.car, q.corner, x) : null,
+      setupId,
+      setupLabel: setup?.label ?? null,
+      eventId,
+      eventName: event?.name ?? null,
+      eventDate: event?.date ?? null,
+    };
+  };
+
+  if (q.y === 'time') {
+    for (const run of season.runs) {
+      if (run.pctOffBest === null) continue;
+      const b = base(run.setupId, run.eventId);
+      if (b) points.push({ ...b, y: run.pctOffBest, runId: run.id, runs: null, corner: null });
+    }
+  } else {
+    const wanted = new Set(cornersOf(q.corner));
+    for (const w of wearIntervals(season.sets, season.runs)) {
+      if (!wanted.has(w.corner)) continue;
+      const b = base(w.setupId, w.eventId);
+      if (!b) continue;
+      const y = q.y === 'wear' ? (w.inner + w.middle + w.outer) / 3 : w.inner - w.outer;
+      points.push({ ...b, y, runId: null, runs: w.runs.length, corner: w.corner });
+    }
+  }
+  const descriptions = {
+    time: "% off that driver's best at the same event. Raw times from different courses can't be compared, so each run is measured against its own day.",
+    wear: 'Tread lost per run between two readings, mean of inner, middle and outer.',
+    wearSkew: 'Inner-edge wear minus outer-edge wear per run: above 0, the inner edge wears faster.',
+  } as const;
+  return {
+    x: { param: q.x, corner: q.corner, unit },
+    y: { metric: q.y, unit: q.y === 'time' ? '%' : 'mm/run', description: descriptions[q.y] },
+    points,
+    n: points.length,
+    fit: fitLine(points),
+  };
+}
+
+function comparison(before: number[], after: number[], words: { what: string; unit: string; betterWhen: 'lower' | 'higher' }): Comparison {
+  const c = compareSamples(before, after);
+  return { ...c, verdict: verdict(c, words) };
+}
+
+export async function compare(ds: DataSource, user: User, carId: string, q: CompareQuery): Promise<CompareResult> {
+  await assertCarAccess(ds, user, carId, 'read');
+  let splitAt: Date;
+  let change: CompareResult['change'] = null;
+  if (q.changeId) {
+    const rows: { id: string; what: string; changed_on: string; car_id: string; effective_from: Date | null }[] = await ds.query(
+      `SELECT c.id, c.what, c.changed_on::text AS changed_on, c.car_id, s.effective_from
+         FROM change_log c LEFT JOIN setup_snapshots s ON s.id = c.setup_id WHERE c.id = $1`,
+      [q.changeId],
+    );
+    const row = rows[0];
+    if (!row || row.car_id !== carId) throw new AppError('not_found', 'That change was not found on this car.');
+    // The snapshot the change produced says when it took effect; else the start of the day it was logged.
+    splitAt = row.effective_from ?? new Date(`${row.changed_on}T00:00:00Z`);
+    change = { id: row.id, what: row.what, changedOn: row.changed_on };
+  } else {
+    splitAt = new Date(q.at!.length === 10 ? `${q.at}T00:00:00Z` : q.at!);
+  }
+  const season = await loadSeason(ds, carId);
+  const split = splitAt.toISOString();
+  const intervals = wearIntervals(season.sets, season.runs);
+  const corners = {} as CompareResult['corners'];
+  for (const corner of CORNERS) {
+    const mine = intervals.filter((w) => w.corner === corner);
+    // An interval counts on a side when all its runs were made on that side of the change.
+    const before = mine.filter((w) => w.runs.every((r) => r.recordedAt < split));
+    const after = mine.filter((w) => w.runs.every((r) => r.recordedAt >= split));
+    const label = corner.toUpperCase();
+    corners[corner] = {
+      wear: comparison(before.map((w) => (w.inner + w.middle + w.outer) / 3), after.map((w) => (w.inner + w.middle + w.outer) / 3), {
+        what: `${label} wear`, unit: 'mm per run', betterWhen: 'lower',
+      }),
+      innerWear: comparison(before.map((w) => w.inner), after.map((w) => w.inner), {
+        what: `${label} inner-edge wear`, unit: 'mm per run', betterWhen: 'lower',
+      }),
+      skew: comparison(before.map((w) => w.inner - w.outer), after.map((w) => w.inner - w.outer), {
+        what: `${label} inner-minus-outer wear`, unit: 'mm per run', betterWhen: 'lower',
+      }),
+    };
+  }
+  const timed = season.runs.filter((r) => r.pctOffBest !== null);
+  const time = comparison(
+    timed.filter((r) => r.recordedAt < split).map((r) => r.pctOffBest!),
+    timed.filter((r) => r.recordedAt >= split).map((r) => r.pctOffBest!),
+    { what: "% off the day's best", unit: '%', betterWhen: 'lower' },
+  );
+  return { splitAt: split, change, corners, time };
+}
+
+export async function seasonSummary(ds: DataSource, user: User, carId: string, minDepthMm: number): Promise<SeasonResult> {
+  await assertCarAccess(ds, user, carId, 'read');
+  const season = await loadSeason(ds, carId);
+  const events: SeasonResult['events'] = season.events.map((e) => {
+    const byDriver = new Map<string, Run[]>();
+    for (const r of season.runs.filter((x) => x.eventId === e.id)) byDriver.set(r.driver.id, [...(byDriver.get(r.driver.id) ?? []), r]);
+    return {
+      eventId: e.id,
+      name: e.name,
+      date: e.date,
+      venue: e.venue,
+      drivers: [...byDriver.values()].map((runs) => {
+        const raws = runs.filter((r) => r.status === 'finished' && r.rawTimeSec !== null).map((r) => r.rawTimeSec!);
+        return {
+          driver: runs[0]!.driver,
+          bestRawSec: raws.length ? Math.min(...raws) : null,
+          bestAdjustedSec: runs.find((r) => r.isBest)?.adjustedTimeSec ?? null,
+          runCount: runs.length,
+          cones: runs.reduce((n, r) => n + r.cones, 0),
+          classPosition: null,
+        };
+      }),
+    };
+  });
+  const setupChanges = season.setups.map((s, i) => ({
+    setupId: s.id,
+    label: s.label,
+    effectiveFrom: s.effectiveFrom,
+    createdBy: s.createdBy.displayName,
+    changes: i === 0 ? [] : diffSetups(season.setups[i - 1]!, s),
+  }));
+  const changeLog: SeasonResult['changeLog'] = (
+    (await ds.query(
+      `SELECT id, changed_on::text AS changed_on, what, location, setup_id FROM change_log WHERE car_id = $1 ORDER BY changed_on, created_at`,
+      [carId],
+    )) as { id: string; changed_on: string; what: string; location: string; setup_id: string | null }[]
+  ).map((c) => ({ id: c.id, changedOn: c.changed_on, what: c.what, location: c.location, setupId: c.setup_id }));
+
+  const tyreLife = season.sets.map(({ set, readings }) => {
+    const latest = readings.at(-1) ?? null;
+    let worst: NonNullable<SeasonResult['tyreLife'][number]['worst']> | null = null;
+    for (const corner of CORNERS) {
+      const c = latest?.corners[corner];
+      if (!c) continue;
+      for (const position of ['inner', 'middle', 'outer'] as const) {
+        const depthMm = c[`${position}Mm`];
+        if (!worst || depthMm < worst.depthMm) worst = { corner, position, depthMm };
+      }
+    }
+    // The worst spot's depth against the car's cumulative runs at each reading of this tyre.
+    const points = worst
+      ? readings
+          .filter((r) => r.corners[worst!.corner]?.tyreNumber === latest!.corners[worst!.corner]!.tyreNumber)
+          .map((r) => ({ runs: season.runs.filter((x) => x.recordedAt <= r.takenAt).length, depthMm: r.corners[worst!.corner]![`${worst!.position}Mm`] }))
+      : [];
+    const rate = wearRateMmPerRun(points);
+    return {
+      tyreSetId: set.id,
+      label: set.label,
+      minDepthMm,
+      latestReadingAt: latest?.takenAt ?? null,
+      worst,
+      mmPerRun: rate?.mmPerRun ?? null,
+      r2: rate?.r2 ?? null,
+      n: points.length,
+      runsLeft: rate && worst ? runsLeft({ depthNowMm: worst.depthMm, minimumDepthMm: minDepthMm, mmPerRun: rate.mmPerRun }) : null,
+    };
+  });
+  return { carId, events, setupChanges, changeLog, tyreLife };
+}

@@ -1,0 +1,115 @@
+import { z } from 'zod';
+import type { Corner } from '../season/corners';
+import type { SetupChange } from '../season/setup.schema';
+
+export const SCATTER_PARAMS = ['camber', 'springRate', 'damperClicks', 'coldPressure', 'rideHeight'] as const;
+export const SCATTER_METRICS = ['time', 'wear', 'wearSkew'] as const;
+export const CORNER_OR_AXLE = ['lf', 'rf', 'lr', 'rr', 'front', 'rear'] as const;
+
+export type ScatterParam = (typeof SCATTER_PARAMS)[number];
+export type ScatterMetric = (typeof SCATTER_METRICS)[number];
+export type CornerOrAxle = (typeof CORNER_OR_AXLE)[number];
+
+const isoDate = z.iso.date({ error: 'Use a date such as 2026-06-12' });
+
+export const scatterQuerySchema = z.strictObject({
+  x: z.enum(SCATTER_PARAMS, { error: `Pick x from ${SCATTER_PARAMS.join(', ')}` }),
+  y: z.enum(SCATTER_METRICS, { error: `Pick y from ${SCATTER_METRICS.join(', ')}` }),
+  /** A corner, or an axle (the mean of its two corners). Defaults to the front axle. */
+  corner: z.enum(CORNER_OR_AXLE).default('front'),
+  from: isoDate.optional(),
+  to: isoDate.optional(),
+});
+export type ScatterQuery = z.infer<typeof scatterQuerySchema>;
+
+export const compareQuerySchema = z
+  .strictObject({ changeId: z.uuid().optional(), at: z.iso.datetime({ offset: true }).or(isoDate).optional() })
+  .refine((q) => (q.changeId === undefined) !== (q.at === undefined), {
+    message: 'Give either a change from the log (changeId) or a date (at)',
+    path: ['changeId'],
+  });
+export type CompareQuery = z.infer<typeof compareQuerySchema>;
+
+export const seasonQuerySchema = z.strictObject({
+  /** The depth a driver retires a tyre at; 1.6 mm (2/32 in) is where wear indicators sit. */
+  minDepthMm: z.coerce.number().min(0).max(10).default(1.6),
+});
+
+export interface ScatterPoint {
+  x: number;
+  /** Clicks only: 0 = softest end of the adjuster, 1 = stiffest. */
+  xNormalized: number | null;
+  y: number;
+  runId: string | null;
+  /** Wear points: the runs between the two readings. */
+  runs: number | null;
+  eventId: string | null;
+  eventName: string | null;
+  eventDate: string | null;
+  setupId: string | null;
+  setupLabel: string | null;
+  corner: Corner | null;
+}
+
+export interface LineFit {
+  slope: number;
+  intercept: number;
+  r2: number;
+}
+
+export interface ScatterResult {
+  x: { param: ScatterParam; corner: CornerOrAxle; unit: string };
+  y: { metric: ScatterMetric; unit: string; description: string };
+  points: ScatterPoint[];
+  n: number;
+  /** Null with fewer than 3 points or no spread in x. */
+  fit: LineFit | null;
+}
+
+export interface SampleStats {
+  n: number;
+  mean: number | null;
+  sd: number | null;
+}
+
+export interface Comparison {
+  before: SampleStats;
+  after: SampleStats;
+  difference: number | null;
+  tStatistic: number | null;
+  degreesOfFreedom: number | null;
+  pValue: number | null;
+  enough: boolean;
+  verdict: string;
+}
+
+export interface CompareResult {
+  splitAt: string;
+  change: { id: string; what: string; changedOn: string } | null;
+  corners: Record<Corner, { wear: Comparison; innerWear: Comparison; skew: Comparison }>;
+  time: Comparison;
+}
+
+export interface SeasonResult {
+  carId: string;
+  events: {
+    eventId: string;
+    name: string;
+    date: string;
+    venue: string | null;
+    drivers: { driver: { id: string; displayName: string }; bestRawSec: number | null; bestAdjustedSec: number | null; runCount: number; cones: number; classPosition: number | null }[];
+  }[];
+  setupChanges: { setupId: string; label: string; effectiveFrom: string; createdBy: string; changes: SetupChange[] }[];
+  changeLog: { id: string; changedOn: string; what: string; location: string; setupId: string | null }[];
+  tyreLife: {
+    tyreSetId: string;
+    label: string;
+    minDepthMm: number;
+    latestReadingAt: string | null;
+    worst: { corner: Corner; position: 'inner' | 'middle' | 'outer'; depthMm: number } | null;
+    mmPerRun: number | null;
+    r2: number | null;
+    n: number;
+    runsLeft: number | null;
+  }[];
+}
