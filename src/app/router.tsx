@@ -71,6 +71,39 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                   index: true,
                   lazy: async () => ({ Component: (await import('./routes/home')).HomePage }),
                 },
+                {
+                  path: paths.eventDay,
+                  lazy: async () => ({ Component: (await import('./routes/events/event-day-redirect')).EventDayRedirect }),
+                },
+                {
+                  path: paths.events,
+                  lazy: async () => ({ Component: (await import('./routes/events/events')).EventsPage }),
+                },
+                {
+                  // The trackside screen: its own small chunk.
+                  path: `${paths.events}/:eventId`,
+                  lazy: async () => ({ Component: (await import('./routes/events/event-day')).EventDayPage }),
+                },
+                {
+                  path: paths.cars,
+                  lazy: async () => ({ Component: (await import('./routes/cars/cars')).CarsPage }),
+                },
+                {
+                  path: `${paths.cars}/:carId`,
+                  lazy: async () => ({ Component: (await import('./routes/cars/car')).CarPage }),
+                },
+                {
+                  path: `${paths.cars}/:carId/setups/new`,
+                  lazy: async () => ({ Component: (await import('./routes/cars/new-setup')).NewSetupPage }),
+                },
+                {
+                  path: `${paths.cars}/:carId/tread`,
+                  lazy: async () => ({ Component: (await import('./routes/cars/tread')).TreadPage }),
+                },
+                {
+                  path: paths.settings,
+                  lazy: async () => ({ Component: (await import('./routes/settings')).SettingsPage }),
+                },
               ],
             },
           ],

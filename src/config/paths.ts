@@ -3,7 +3,25 @@ export const paths = {
   home: '/',
   signIn: '/sign-in',
   register: '/register',
+  cars: '/cars',
+  events: '/events',
+  /** Opens today's event, or the latest one. */
+  eventDay: '/event-day',
+  settings: '/settings',
 } as const;
+
+/** Addresses of one record's pages. */
+export const pathTo = {
+  car: (carId: string) => `/cars/${carId}`,
+  newSetup: (carId: string, fromSetupId?: string | null) =>
+    `/cars/${carId}/setups/new${fromSetupId ? `?from=${encodeURIComponent(fromSetupId)}` : ''}`,
+  /** Fix a setup the server refused: the editor reopens the stored entry. */
+  fixSetup: (carId: string, entryKey: string) => `/cars/${carId}/setups/new?fix=${encodeURIComponent(entryKey)}`,
+  tread: (carId: string, tyreSetId?: string | null) =>
+    `/cars/${carId}/tread${tyreSetId ? `?set=${encodeURIComponent(tyreSetId)}` : ''}`,
+  event: (eventId: string, carId?: string | null) =>
+    `/events/${eventId}${carId ? `?carId=${encodeURIComponent(carId)}` : ''}`,
+};
 
 export const NEXT_PARAM = 'next';
 

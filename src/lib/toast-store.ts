@@ -4,11 +4,21 @@
  */
 export type ToastTone = 'info' | 'success' | 'warning';
 
+export interface ToastAction {
+  /** The button's words, e.g. "Undo". */
+  label: string;
+  /** Read to people who cannot see the button, e.g. "Undo: restore run 3". */
+  altText: string;
+  onAction: () => void;
+}
+
 export interface ToastMessage {
   id: number;
   title: string;
   description?: string;
   tone: ToastTone;
+  /** One button in the toast (an undo); such a toast stays a little longer. */
+  action?: ToastAction;
 }
 
 type Listener = () => void;
@@ -23,9 +33,11 @@ function emit() {
 
 /** Shows a toast. The same words already on screen are not shown twice. */
 export function toast(message: Omit<ToastMessage, 'id'>): number {
-  const same = toasts.find(
-    (t) => t.title === message.title && t.description === message.description && t.tone === message.tone,
-  );
+  const same = message.action
+    ? undefined
+    : toasts.find(
+        (t) => !t.action && t.title === message.title && t.description === message.description && t.tone === message.tone,
+      );
   if (same) return same.id;
   const id = nextId++;
   toasts = [...toasts, { ...message, id }];

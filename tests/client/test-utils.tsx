@@ -1,6 +1,9 @@
 import type { Persister } from '@tanstack/react-query-persist-client';
-import { memoryStorage, Outbox } from '../../src/lib/outbox';
-import { render } from '@testing-library/react';
+import { memoryStorage, Outbox, type OutboxEntry } from '../../src/lib/outbox';
+import { outboxMutationKey } from '@/lib/outbox-context';
+import { api } from '@/lib/api-client';
+import { classifySendError, OUTBOX_KINDS } from '@/app/outbox';
+import { configure, render } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
 import { createMemoryRouter } from 'react-router-dom';
@@ -8,6 +11,10 @@ import { vi, type Mock } from 'vitest';
 import { AppProvider } from '@/app/provider';
 import { createQueryClient } from '@/app/query-client';
 import { createRoutes, sendToSignIn } from '@/app/router';
+
+// Pages load lazily and the suite runs many files side by side: give screens a few seconds to appear
+// before a test gives up (a passing test waits no longer than the screen needs).
+configure({ asyncUtilTimeout: 5000 });
 
 export interface RecordedRequest {
   method: string;
@@ -89,13 +96,80 @@ export function createTestQueryClient(): QueryClient {
   return createQueryClient({ retry: false });
 }
 
-/** Renders the whole app (real routes, providers and toasts) at an address, with a fresh QueryClient. */
-export function renderApp(path: string) {
+export interface RenderAppOptions {
+  /** Entries already on the device when the app opens (e.g. runs logged offline earlier). */
+  outboxEntries?: OutboxEntry[];
+}
+
+const liveOutboxes = new Set<Outbox>();
+
+/** Empties every outbox a test made, which also stops its retry timers; call it in afterEach. */
+export async function clearTestOutboxes(): Promise<void> {
+  await Promise.all([...liveOutboxes].map((o) => o.clear()));
+  liveOutboxes.clear();
+}
+
+/**
+ * Renders the whole app (real routes, providers and toasts) at an address, with a fresh QueryClient
+ * and an outbox kept in memory. The outbox works as the app's does: every write kind is registered,
+ * entries are sent through the (stubbed) fetch in order, and failures are classified the same way —
+ * a network error waits, a refusal stays with its error. Retries wait a minute, past any test.
+ */
+export function renderApp(path: string, { outboxEntries = [] }: RenderAppOptions = {}) {
   const queryClient = createQueryClient({ retry: false, onUnauthenticated: () => sendToSignIn(router, queryClient) });
   const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: [path] });
-  const outbox = new Outbox({ storage: memoryStorage(), send: async () => undefined, classify: () => ({ kind: 'retry', reason: 'test' }) });
+  let current: OutboxEntry | null = null;
+  const outbox = new Outbox({
+    storage: memoryStorage(outboxEntries),
+    send: (entry) => {
+      current = entry;
+      if (entry.method === 'POST') return api.post(entry.path, entry.body);
+      if (entry.method === 'PATCH') return api.patch(entry.path, entry.body);
+      return api.delete(entry.path);
+    },
+    classify: (error) => classifySendError(current, error),
+    onDelivered: () => void queryClient.invalidateQueries(),
+    backoffMs: () => 60_000,
+  });
+  liveOutboxes.add(outbox);
+  for (const kind of OUTBOX_KINDS) {
+    queryClient.setMutationDefaults(outboxMutationKey(kind), {
+      mutationFn: (entry: Parameters<Outbox['add']>[0]) => outbox.add(entry),
+      networkMode: 'always',
+    });
+  }
   const result = render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} persister={memoryPersister()} />);
   return { ...result, router, queryClient, outbox };
+}
+
+/** A stored outbox entry, as the outbox keeps it (for `outboxEntries`). */
+export function storedEntry(partial: Partial<OutboxEntry> & Pick<OutboxEntry, 'recordId' | 'kind' | 'method' | 'path'>): OutboxEntry {
+  return {
+    key: partial.key ?? `k-${partial.recordId}-${partial.kind}`,
+    label: partial.kind,
+    scope: {},
+    createdAt: Date.now() - 60_000,
+    attempts: 0,
+    nextAttemptAt: Date.now() - 60_000,
+    state: 'waiting',
+    ...partial,
+  };
+}
+
+/** An entry whose last try failed for want of signal and that waits a while: everything behind it stays unsent. */
+export function blockingEntry(): OutboxEntry {
+  return storedEntry({
+    key: 'blocker',
+    recordId: '00000000-0000-4000-8000-00000000b10c',
+    kind: 'change.create',
+    method: 'POST',
+    path: '/api/cars/elsewhere/changes',
+    body: { id: '00000000-0000-4000-8000-00000000b10c', changedOn: '2026-06-01', what: 'Earlier note' },
+    label: 'Change log · Earlier note',
+    scope: { carId: 'elsewhere' },
+    attempts: 1,
+    nextAttemptAt: Date.now() + 10 * 60_000,
+  });
 }
 
 /** Renders one component with a fresh QueryClient around it. */

@@ -1,23 +1,25 @@
-import { NavLink } from 'react-router-dom';
+import { NavLink, useLocation } from 'react-router-dom';
 import { cn } from '@/lib/cn';
 import type { NavItem } from './nav-items';
 
 /** Phone navigation: a bar at the bottom, in thumb reach, with large targets. Hidden from 768 px. */
 export function BottomNav({ items }: { items: readonly NavItem[] }) {
+  const { pathname } = useLocation();
   return (
     <nav aria-label="Main" className="pb-safe fixed inset-x-0 bottom-0 z-40 border-t border-line bg-surface md:hidden">
       <ul className="mx-auto flex max-w-page">
-        {items.map(({ to, label, icon: Icon, end }) => (
+        {items.map(({ to, label, icon: Icon, end, alsoActiveUnder }) => (
           <li key={to} className="flex-1">
             <NavLink
               to={to}
               end={end}
-              className={({ isActive }) =>
-                cn(
+              className={({ isActive: exact }) => {
+                const isActive = exact || (alsoActiveUnder !== undefined && pathname.startsWith(alsoActiveUnder));
+                return cn(
                   'flex min-h-tap-lg flex-col items-center justify-center gap-0.5 text-sm font-semibold',
                   isActive ? 'text-link' : 'text-ink-muted hover:text-ink',
-                )
-              }
+                );
+              }}
             >
               <Icon aria-hidden="true" className="size-6" />
               {label}

@@ -6,4 +6,6 @@ export interface NavItem {
   icon: LucideIcon;
   /** Match the address exactly (for Home, so it is not "current" on every page). */
   end?: boolean;
+  /** Also "current" on addresses under this one (Event day opens /events/…). */
+  alsoActiveUnder?: string;
 }

@@ -16,7 +16,7 @@ function ToastItem({ message }: { message: ToastMessage }) {
     <Toast.Root
       // Problems are announced at once; confirmations wait their turn.
       type={message.tone === 'warning' ? 'foreground' : 'background'}
-      duration={message.tone === 'warning' ? 10_000 : 5_000}
+      duration={message.tone === 'warning' || message.action ? 10_000 : 5_000}
       onOpenChange={(open) => {
         if (!open) dismissToast(message.id);
       }}
@@ -29,6 +29,18 @@ function ToastItem({ message }: { message: ToastMessage }) {
           <Toast.Description className="text-sm text-ink">{message.description}</Toast.Description>
         ) : null}
       </div>
+      {message.action ? (
+        <Toast.Action
+          altText={message.action.altText}
+          className="inline-flex min-h-tap shrink-0 items-center justify-center rounded border border-line-strong bg-surface px-4 font-bold text-ink hover:bg-surface-raised"
+          onClick={() => {
+            message.action?.onAction();
+            dismissToast(message.id);
+          }}
+        >
+          {message.action.label}
+        </Toast.Action>
+      ) : null}
       <Toast.Close
         className="-m-2 inline-flex size-tap shrink-0 items-center justify-center rounded text-ink-muted hover:text-ink"
         aria-label="Dismiss"

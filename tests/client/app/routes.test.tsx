@@ -98,7 +98,11 @@ describe('routes', () => {
   });
 
   it('when a signed-in user with no cars opens Home, then it greets them, names their roles and says there are no cars yet', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: SAM }), 'GET /api/cars': jsonResponse(200, { items: [], count: 0 }) });
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
+      'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
+    });
     renderApp('/');
 
     expect(await screen.findByRole('heading', { name: 'Hi, Sam Okafor' })).toBeTruthy();

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { api, dropCsrfToken } from '@/lib/api-client';
+import { useOutbox } from '@/lib/outbox-context';
 import { clearToasts } from '@/lib/toast-store';
 import { authKeys } from './auth-keys';
 
@@ -10,16 +11,22 @@ export async function logout(): Promise<void> {
   dropCsrfToken();
 }
 
-/** Signs out, forgets everything cached for the session and opens the sign-in page. */
+/**
+ * Signs out and leaves nothing of the session on the device: the outbox is emptied, the query
+ * cache (and with it the copy kept on the device, rewritten from it) is cleared, and the
+ * sign-in page opens. Screens warn first when entries are still waiting (see AccountMenu).
+ */
 export function useLogout() {
   const queryClient = useQueryClient();
+  const outbox = useOutbox();
   const navigate = useNavigate();
   return useMutation({
     mutationFn: logout,
     onSuccess: async () => {
-      // Marked signed out first, so that the sign-in page does not send us straight back.
+      await outbox.clear();
+      queryClient.clear();
+      // Marked signed out after the clear, so that the sign-in page does not send us straight back.
       queryClient.setQueryData(authKeys.me(), null);
-      queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== authKeys.all[0] });
       clearToasts();
       await navigate(paths.signIn, { replace: true });
     },

@@ -1,4 +1,5 @@
 export const carKeys = {
   all: ['cars'] as const,
   list: () => [...carKeys.all, 'list'] as const,
+  detail: (carId: string) => [...carKeys.all, 'detail', carId] as const,
 };

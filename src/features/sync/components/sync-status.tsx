@@ -1,37 +1,142 @@
-import { CircleCheck, CloudOff } from 'lucide-react';
+import { useState } from 'react';
+import { CircleCheck, CloudOff, CloudUpload, TriangleAlert } from 'lucide-react';
+import type { OutboxEntry } from '@/lib/outbox';
+import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
+import { summariseOutbox } from '@/lib/outbox-summary';
 import { useOnlineStatus } from '@/hooks/use-online-status';
+import { Button } from '@/components/ui/button';
+import { cn } from '@/lib/cn';
 
 /*
- * The save state, always in view. Nothing is recorded on the device yet, so nothing can be
- * waiting to upload: the line says "All saved" and notes when the device is offline. Counts of
- * waiting runs arrive with the run outbox.
+ * The save state, always in view: everything made at the car goes to the outbox on the device
+ * first, and this says plainly whether it has all reached the server.
  */
+
+const TONE = {
+  saved: { Icon: CircleCheck, className: 'text-success' },
+  waiting: { Icon: CloudUpload, className: 'text-ink' },
+  attention: { Icon: TriangleAlert, className: 'text-warning' },
+} as const;
 
 /** One short line for the top bar; the app's live region for the save state. */
 export function SyncStatusBadge() {
+  const entries = useOutboxEntries();
   const online = useOnlineStatus();
-  const Icon = online ? CircleCheck : CloudOff;
+  const summary = summariseOutbox(entries);
+  const { Icon, className } = TONE[summary.tone];
+  const ShownIcon = summary.tone === 'saved' && !online ? CloudOff : Icon;
   return (
-    <p role="status" className={`inline-flex items-center gap-1.5 text-sm font-semibold ${online ? 'text-success' : 'text-ink-muted'}`}>
-      <Icon aria-hidden="true" className="size-4 shrink-0" />
-      {online ? 'All saved' : 'Offline · all saved'}
+    <p role="status" className={cn('inline-flex min-w-0 items-center gap-1.5 text-sm font-semibold', className)}>
+      <ShownIcon aria-hidden="true" className="size-4 shrink-0" />
+      {/* A phone's top bar has room for the short form; the full sentence is read out everywhere. */}
+      <span aria-hidden="true" className="truncate md:hidden">
+        {summary.short}
+      </span>
+      <span className="sr-only md:not-sr-only md:truncate">{summary.text}</span>
+      {!online ? <span className="sr-only"> (offline)</span> : null}
     </p>
   );
 }
 
-/** The longer form for a page section. */
-export function SyncStatus() {
-  const online = useOnlineStatus();
-  const Icon = online ? CircleCheck : CloudOff;
+function FailedEntry({ entry }: { entry: OutboxEntry }) {
+  const outbox = useOutbox();
+  const [confirming, setConfirming] = useState(false);
+  const fieldMessages = Object.entries(entry.error?.fieldErrors ?? {}).flatMap(([, messages]) => messages);
   return (
-    <div className="flex items-start gap-2">
-      <Icon aria-hidden="true" className={`mt-0.5 size-5 shrink-0 ${online ? 'text-success' : 'text-ink-muted'}`} />
-      <div>
-        <p className="font-semibold">All saved</p>
-        <p className="text-sm text-ink-muted">
-          {online ? 'Nothing is waiting to upload.' : 'You are offline. Nothing is waiting to upload.'}
-        </p>
+    <li className="flex flex-col gap-2 rounded border border-warning-line bg-warning-surface p-3">
+      <p className="font-bold text-ink">{entry.label}</p>
+      <p className="text-sm text-warning">
+        Refused: {entry.error?.message ?? 'the server did not accept it'}
+        {fieldMessages.length ? ` — ${fieldMessages.join(' ')}` : ''}
+      </p>
+      <div className="flex flex-wrap gap-2">
+        {confirming ? (
+          <>
+            <Button variant="secondary" onClick={() => void outbox.discard(entry.key)}>
+              Yes, discard it
+            </Button>
+            <Button variant="quiet" onClick={() => setConfirming(false)}>
+              Keep it
+            </Button>
+          </>
+        ) : (
+          <>
+            <Button variant="secondary" onClick={() => void outbox.retry(entry.key)}>
+              Try again
+            </Button>
+            <Button variant="quiet" onClick={() => setConfirming(true)}>
+              Discard…
+            </Button>
+          </>
+        )}
       </div>
+    </li>
+  );
+}
+
+const SHOWN = 5;
+
+/** The longer form for a page section: counts, why the last try failed, and what needs attention. */
+export function SyncStatus() {
+  const outbox = useOutbox();
+  const entries = useOutboxEntries();
+  const online = useOnlineStatus();
+  const [trying, setTrying] = useState(false);
+  const summary = summariseOutbox(entries);
+  const reason = outbox.retryReason();
+  const { Icon, className } = TONE[summary.tone];
+
+  const tryNow = async () => {
+    setTrying(true);
+    try {
+      await outbox.retryNow();
+    } finally {
+      setTrying(false);
+    }
+  };
+
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="flex items-start gap-2">
+        <Icon aria-hidden="true" className={cn('mt-0.5 size-5 shrink-0', className)} />
+        <div>
+          <p className="font-semibold">{summary.text}</p>
+          <p className="text-sm text-ink-muted">
+            {summary.tone === 'saved'
+              ? online
+                ? 'Nothing is waiting to upload.'
+                : 'You are offline. Nothing is waiting to upload.'
+              : summary.waiting.length
+                ? `Kept on this phone and uploaded by itself when there is signal.${reason ? ` Last try: ${reason}.` : ''}`
+                : 'Fix or discard what the server refused; nothing is dropped without you.'}
+          </p>
+        </div>
+      </div>
+      {summary.waiting.length ? (
+        <div className="flex flex-col gap-2">
+          <ul className="flex flex-col gap-1 text-sm">
+            {summary.waiting.slice(0, SHOWN).map((e) => (
+              <li key={e.key} className="tabular-figures flex items-center gap-2">
+                <CloudUpload aria-hidden="true" className="size-4 shrink-0 text-ink-muted" />
+                {e.label}
+              </li>
+            ))}
+            {summary.waiting.length > SHOWN ? <li className="text-ink-muted">and {summary.waiting.length - SHOWN} more</li> : null}
+          </ul>
+          <div>
+            <Button variant="secondary" onClick={() => void tryNow()} isPending={trying} pendingLabel="Trying…">
+              Try now
+            </Button>
+          </div>
+        </div>
+      ) : null}
+      {summary.failed.length ? (
+        <ul className="flex flex-col gap-2" aria-label="Needs attention">
+          {summary.failed.map((e) => (
+            <FailedEntry key={e.key} entry={e} />
+          ))}
+        </ul>
+      ) : null}
     </div>
   );
 }

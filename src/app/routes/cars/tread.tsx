@@ -1,0 +1,43 @@
+import { useCallback } from 'react';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
+import { ArrowLeft } from 'lucide-react';
+import { pathTo } from '@/config/paths';
+import { EmptyState } from '@/components/ui/empty-state';
+import { toast } from '@/lib/toast-store';
+import { useCar } from '@/features/cars/api/get-car';
+import { useTyreSets } from '@/features/tyres/api/get-tyre-sets';
+import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
+
+/** Tread depths of one tyre set (?set=<tyreSetId> to preselect it). */
+export function TreadPage() {
+  const { carId = '' } = useParams();
+  const [params] = useSearchParams();
+  const navigate = useNavigate();
+  const car = useCar(carId);
+  const sets = useTyreSets(carId);
+  const onUploaded = useCallback(() => {
+    toast({ tone: 'success', title: 'Tread reading saved' });
+    void navigate(pathTo.car(carId));
+  }, [navigate, carId]);
+
+  return (
+    <div className="flex flex-col gap-6">
+      <title>Tread · Scrubline</title>
+      <div className="flex flex-col gap-2">
+        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+          <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
+        </Link>
+        <h1 className="text-3xl font-extrabold">Tread depth</h1>
+      </div>
+      {sets.isPending ? (
+        <p className="text-ink-muted">Loading tyre sets…</p>
+      ) : sets.isError ? (
+        <EmptyState message="Tyre sets could not be loaded. Try again when you have signal." />
+      ) : sets.data.count === 0 ? (
+        <EmptyState message="This car has no tyre sets recorded yet." />
+      ) : (
+        <TreadEntryForm carId={carId} sets={sets.data.items} initialSetId={params.get('set')} onUploaded={onUploaded} />
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,192 @@
+import { lazy, Suspense, useState } from 'react';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { Trophy } from 'lucide-react';
+import type { Car, Person } from '@shared/season/car.schema';
+import type { SeasonEvent } from '@shared/season/event.schema';
+import { formatRunTime } from '@shared/season/run-time';
+import { paths } from '@/config/paths';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { SectionBoundary } from '@/components/errors/section-boundary';
+import { notYetFetched, useDeliveredEntries } from '@/lib/delivered-entries';
+import { useOutboxEntriesFor } from '@/lib/outbox-context';
+import { readStoredChoice, writeStoredChoice } from '@/lib/stored-choice';
+import { useMe } from '@/features/auth/api/get-me';
+import { useCars } from '@/features/cars/api/get-cars';
+import { CarDriverPicker, driversOf } from '@/features/cars/components/car-driver-picker';
+import { useEvent } from '@/features/events/api/get-event';
+import { EventFacts } from '@/features/events/components/event-facts';
+import { useRuns } from '@/features/runs/api/get-runs';
+import { LogRunForm } from '@/features/runs/components/log-run-form';
+import { RunList } from '@/features/runs/components/run-list';
+import { mergeRuns, type RunRow } from '@/features/runs/utils/merge-runs';
+import { useSetups } from '@/features/setups/api/get-setups';
+import { CurrentSetup } from '@/features/setups/components/current-setup';
+import { mergePendingSetups, setupInForce } from '@/features/setups/utils/setup-views';
+
+// Loaded on the first tap of "Quick change", so logging runs stays a small download (the service worker keeps it for offline).
+const QuickChangePanel = lazy(async () => ({
+  default: (await import('@/features/setups/components/quick-change-panel')).QuickChangePanel,
+}));
+
+interface Choice {
+  carId: string;
+  driverId: string;
+}
+
+const choiceKey = (eventId: string) => `scrubline.event-day.${eventId}`;
+
+/** Everything under the header once the car and the driver are known. */
+function EventDayBoard({ event, car, driver, me }: { event: SeasonEvent; car: Car; driver: Person; me: Person }) {
+  const entries = useOutboxEntriesFor({ carId: car.id });
+  const setupsQuery = useSetups(car.id);
+  const runsQuery = useRuns({ carId: car.id, eventId: event.id });
+  const [quickChange, setQuickChange] = useState(false);
+
+  // Just uploaded, but not in the data yet: kept in view until the refresh lands, so nothing blinks out.
+  const delivered = useDeliveredEntries();
+  const ofCar = delivered.filter((d) => d.entry.scope.carId === car.id);
+  const setupsDelivered = notYetFetched(ofCar, setupsQuery.dataUpdatedAt).filter((e) => e.kind.startsWith('setup.'));
+  const runsDelivered = notYetFetched(ofCar, runsQuery.dataUpdatedAt).filter((e) => e.scope.eventId === event.id && e.kind.startsWith('run.'));
+
+  const setups = mergePendingSetups(setupsQuery.data?.items ?? [], entries, me, setupsDelivered);
+  const rows = mergeRuns({
+    saved: runsQuery.data?.items ?? [],
+    delivered: runsDelivered,
+    entries: entries.filter((e) => e.scope.eventId === event.id && e.kind.startsWith('run.')),
+    people: driversOf(car),
+    conePenaltySec: event.conePenaltySec,
+  });
+  const current = setupInForce(setups, new Date().toISOString());
+
+  // The server ties saved runs; runs still on the phone — and any run after a quick change still on
+  // the phone — are tied here by the same rule: the snapshot with the latest start not after the run.
+  const setupLabelOf = (row: RunRow): string | null => {
+    const tie = setupInForce(setups, row.recordedAt);
+    if (row.version === null || row.pending || tie?.pending) return tie?.label ?? null;
+    return setups.find((s) => s.id === row.setupId)?.label ?? tie?.label ?? null;
+  };
+
+  const own = rows.filter((r) => r.driver.id === driver.id);
+  const best = own.find((r) => r.isBest);
+
+  return (
+    <>
+      <section aria-label="Setup" className="flex flex-col gap-3 rounded-lg border border-line bg-surface px-3 py-2">
+        <div className="flex items-center justify-between gap-3">
+          <CurrentSetup setup={current} />
+          <Button variant="secondary" className="shrink-0" aria-expanded={quickChange} onClick={() => setQuickChange((v) => !v)}>
+            Quick change
+          </Button>
+        </div>
+        {quickChange ? (
+          <Suspense fallback={<p className="text-ink-muted">Opening…</p>}>
+            <QuickChangePanel carId={car.id} setups={setups} onDone={() => setQuickChange(false)} />
+          </Suspense>
+        ) : null}
+      </section>
+
+      <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_24rem] md:items-start">
+        <section aria-label="Log a run" className="rounded-lg border border-line bg-surface p-3 md:sticky md:top-20 md:order-2">
+          <LogRunForm carId={car.id} eventId={event.id} driver={driver} conePenaltySec={event.conePenaltySec} rows={rows} />
+        </section>
+        <section aria-labelledby="todays-runs" className="flex flex-col gap-3 md:order-1">
+          <div className="flex flex-wrap items-baseline justify-between gap-2">
+            <h2 id="todays-runs" className="text-xl font-bold">
+              Today’s runs
+            </h2>
+            {best?.adjustedTimeSec != null ? (
+              <p className="tabular-figures inline-flex items-center gap-1 font-semibold">
+                <Trophy aria-hidden="true" className="size-4" />
+                {driver.displayName}’s best: <span className="text-time">{formatRunTime(best.adjustedTimeSec)}</span> (run {best.runNumber})
+              </p>
+            ) : null}
+          </div>
+          {runsQuery.isError && !runsQuery.data ? (
+            <p className="text-sm text-ink-muted">Saved runs could not be loaded (no connection?). Runs you log now are kept on this phone.</p>
+          ) : null}
+          {runsQuery.isPending && rows.length === 0 ? <p className="text-ink-muted">Loading runs…</p> : <RunList rows={rows} setupLabelOf={setupLabelOf} />}
+        </section>
+      </div>
+    </>
+  );
+}
+
+/**
+ * The trackside screen: pick the car and the driver once (remembered on this phone for the
+ * event), then log runs, see today's times scored, and make quick setup changes.
+ */
+export function EventDayPage() {
+  const { eventId = '' } = useParams();
+  const [params, setParams] = useSearchParams();
+  const { data: me } = useMe();
+  const eventQuery = useEvent(eventId);
+  const carsQuery = useCars();
+  const [stored, setStored] = useState(() => readStoredChoice<Choice>(choiceKey(eventId)));
+  const [picking, setPicking] = useState(false);
+
+  const cars = carsQuery.data?.items ?? [];
+  const carId = params.get('carId') ?? stored?.carId ?? null;
+  const car = cars.find((c) => c.id === carId) ?? null;
+  const drivers = car ? driversOf(car) : [];
+  const driver = stored?.carId === carId ? (drivers.find((d) => d.id === stored?.driverId) ?? null) : null;
+
+  const choose = (choice: Choice) => {
+    writeStoredChoice(choiceKey(eventId), choice);
+    setStored(choice);
+    setPicking(false);
+    setParams({ carId: choice.carId }, { replace: true });
+  };
+
+  const event = eventQuery.data;
+  if (!me) return null;
+  const person: Person = { id: me.id, displayName: me.displayName };
+
+  return (
+    <div className="-mt-3 flex flex-col gap-3">
+      <title>{`${event?.name ?? 'Event day'} · Scrubline`}</title>
+      <header className="flex flex-col">
+        <h1 className="line-clamp-2 text-xl font-extrabold">{event?.name ?? (eventQuery.isPending ? 'Loading the event…' : 'Event day')}</h1>
+        {event ? <EventFacts event={event} /> : null}
+        {car && driver && !picking ? (
+          <p className="flex flex-wrap items-center gap-x-2 text-sm font-semibold">
+            <span>
+              {car.name}
+              {car.carNumber ? <span className="tabular-figures text-ink-muted"> #{car.carNumber}</span> : null} · {driver.displayName}
+            </span>
+            <button type="button" className="inline-flex min-h-tap items-center text-link underline" onClick={() => setPicking(true)}>
+              Change
+              <span className="sr-only"> car or driver</span>
+            </button>
+          </p>
+        ) : null}
+      </header>
+
+      {eventQuery.isError && !event ? (
+        <EmptyState message="This event could not be loaded, and it is not kept on this phone yet. Open it once with signal to use it offline.">
+          <Link to={paths.events} className="font-semibold text-link underline">
+            All events
+          </Link>
+        </EmptyState>
+      ) : !event || carsQuery.isPending ? (
+        <p className="text-ink-muted">Loading…</p>
+      ) : cars.length === 0 ? (
+        <EmptyState message="You have no cars to log runs for. A car you own or co-drive will show here." />
+      ) : !car || !driver || picking ? (
+        <section aria-label="Choose car and driver" className="rounded-lg border border-line bg-surface p-4">
+          <CarDriverPicker
+            cars={cars}
+            currentUserId={me.id}
+            initialCarId={carId}
+            initialDriverId={stored?.driverId ?? null}
+            onChoose={choose}
+          />
+        </section>
+      ) : (
+        <SectionBoundary title="Event day">
+          <EventDayBoard event={event} car={car} driver={driver} me={person} />
+        </SectionBoundary>
+      )}
+    </div>
+  );
+}

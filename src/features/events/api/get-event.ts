@@ -1,0 +1,16 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { SeasonEvent } from '@shared/season/event.schema';
+import { api } from '@/lib/api-client';
+import { eventKeys } from './event-keys';
+
+export function getEvent(eventId: string, { signal }: { signal?: AbortSignal } = {}): Promise<SeasonEvent> {
+  return api.get(`/api/events/${encodeURIComponent(eventId)}`, { signal });
+}
+
+export function eventQueryOptions(eventId: string) {
+  return queryOptions({ queryKey: eventKeys.detail(eventId), queryFn: ({ signal }) => getEvent(eventId, { signal }) });
+}
+
+export function useEvent(eventId: string) {
+  return useQuery(eventQueryOptions(eventId));
+}

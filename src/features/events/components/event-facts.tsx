@@ -1,0 +1,15 @@
+import type { SeasonEvent } from '@shared/season/event.schema';
+import { formatLongDay } from '@/lib/dates';
+
+const KIND_WORDS: Record<SeasonEvent['kind'], string> = { autocross: 'Autocross', track_day: 'Track day' };
+
+/** One line about an event: day, venue, kind, cone penalty. */
+export function EventFacts({ event }: { event: SeasonEvent }) {
+  return (
+    <p className="tabular-figures text-sm text-ink-muted">
+      {formatLongDay(event.date)}
+      {event.venue ? ` · ${event.venue}` : ''} · {KIND_WORDS[event.kind]}
+      {event.kind === 'autocross' ? ` · ${event.conePenaltySec} s a cone` : ''}
+    </p>
+  );
+}

@@ -1,0 +1,4 @@
+export const runKeys = {
+  all: ['runs'] as const,
+  list: (filter: { carId: string; eventId: string }) => [...runKeys.all, 'list', filter] as const,
+};

@@ -1,0 +1,247 @@
+import { useState, type FormEvent } from 'react';
+import { ChevronDown, ChevronUp } from 'lucide-react';
+import { adjustedTimeSec } from '@shared/calc/scoring.calc';
+import type { Person } from '@shared/season/car.schema';
+import { createRunInputSchema, RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
+import { formatRunTime, parseRunTime } from '@shared/season/run-time';
+import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
+import { Button } from '@/components/ui/button';
+import { FormAlert } from '@/components/ui/form-alert';
+import { SegmentedControl } from '@/components/ui/segmented-control';
+import { Stepper } from '@/components/ui/stepper';
+import { UnitInput } from '@/components/ui/unit-input';
+import { unitSymbol } from '@/lib/numbers';
+import { useUnits } from '@/lib/units-context';
+import { createRunEntry, useCreateRun, type CreateRunBody } from '../api/create-run';
+import { nextRunNumber, type RunRow } from '../utils/merge-runs';
+import { emptyCornerText, readPressures, type CornerTextMap } from '../utils/hot-pressures';
+import { runLabel, STATUS_WORDS } from '../utils/run-words';
+import { TimeKeypad } from './time-keypad';
+
+const STATUS_OPTIONS = RUN_STATUSES.map((s) => ({ value: s, label: STATUS_WORDS[s] }));
+
+interface Errors {
+  time?: string;
+  runNumber?: string;
+  cones?: string;
+  hot?: Partial<Record<keyof CornerTextMap, string>>;
+  form?: string;
+}
+
+interface LogRunFormProps {
+  carId: string;
+  eventId: string;
+  driver: Person;
+  conePenaltySec: number;
+  /** Today's runs of this car, saved and waiting: for the next run number and to refuse a number twice. */
+  rows: readonly RunRow[];
+}
+
+const coneWords = (n: number) => `${n} ${n === 1 ? 'cone' : 'cones'}`;
+
+/**
+ * Logging a run: type the time on the keypad and tap Save (cones and DNF/off course one tap
+ * each). Written to the outbox on the device at once — no signal needed — and shown in the list
+ * straight away as waiting to upload.
+ */
+export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: LogRunFormProps) {
+  const units = useUnits();
+  const write = useCreateRun();
+  const [timeText, setTimeText] = useState('');
+  const [status, setStatus] = useState<RunStatus>('finished');
+  const [cones, setCones] = useState(0);
+  const [runNumberText, setRunNumberText] = useState('');
+  const [extras, setExtras] = useState(false);
+  const [hot, setHot] = useState<CornerTextMap>(emptyCornerText);
+  const [notes, setNotes] = useState('');
+  const [errors, setErrors] = useState<Errors>({});
+  const [saved, setSaved] = useState<string | null>(null);
+
+  const next = nextRunNumber(rows, driver.id);
+  const parsed = timeText.trim() ? parseRunTime(timeText) : null;
+  const preview = (() => {
+    if (!parsed?.ok) return null;
+    const shown = formatRunTime(parsed.seconds);
+    const adjusted = adjustedTimeSec({ rawTimeSec: parsed.seconds, cones, status }, conePenaltySec);
+    const parts = [shown !== timeText.trim() ? `Reads as ${shown}` : null, cones && adjusted !== null ? `Adjusted ${formatRunTime(adjusted)} with ${coneWords(cones)}` : null];
+    return parts.filter(Boolean).join(' · ') || null;
+  })();
+
+  const changeTime = (text: string) => {
+    setTimeText(text);
+    setSaved(null);
+    if (errors.time) setErrors((e) => ({ ...e, time: undefined }));
+  };
+
+  const pasteTime = (text: string) => {
+    setTimeText(text);
+    setSaved(null);
+    const result = parseRunTime(text);
+    setErrors((e) => ({ ...e, time: result.ok ? undefined : result.error }));
+  };
+
+  const onSubmit = async (event: FormEvent) => {
+    event.preventDefault();
+    const found: Errors = {};
+    let rawTimeSec: number | null = null;
+    if (timeText.trim()) {
+      const result = parseRunTime(timeText);
+      if (result.ok) rawTimeSec = result.seconds;
+      else found.time = result.error;
+    } else if (status === 'finished') {
+      found.time = 'Enter the time, or choose DNF or Off course. Type it as 45.678 or 1:05.432';
+    }
+    let runNumber = next;
+    if (runNumberText.trim()) {
+      runNumber = Number(runNumberText);
+      if (!Number.isInteger(runNumber) || runNumber < 1 || runNumber > 999) found.runNumber = 'Run numbers are whole numbers from 1';
+    }
+    if (!found.runNumber && rows.some((r) => r.driver.id === driver.id && r.runNumber === runNumber)) {
+      found.runNumber = `Run ${runNumber} is already logged for ${driver.displayName}; the next is ${next}`;
+    }
+    const pressures = readPressures(hot, units);
+    if (Object.keys(pressures.errors).length) found.hot = pressures.errors;
+
+    const body: CreateRunBody = {
+      id: crypto.randomUUID(),
+      carId,
+      eventId,
+      runNumber,
+      rawTimeSec,
+      cones,
+      status,
+      recordedAt: new Date().toISOString(),
+      driverId: driver.id,
+      ...(pressures.kpa ? { hotPressuresKpa: pressures.kpa } : {}),
+      ...(notes.trim() ? { notes: notes.trim() } : {}),
+    };
+    if (!found.time && !found.runNumber && !found.hot) {
+      const checked = createRunInputSchema.safeParse(body);
+      if (!checked.success) {
+        for (const issue of checked.error.issues) {
+          const [head] = issue.path;
+          if (head === 'rawTimeSec') found.time ??= issue.message;
+          else if (head === 'runNumber') found.runNumber ??= issue.message;
+          else if (head === 'cones') found.cones ??= issue.message;
+          else found.form ??= issue.message;
+        }
+      }
+    }
+    if (Object.values(found).some(Boolean)) {
+      // Nothing typed is cleared: fix the marked part and save again.
+      setErrors(found);
+      if (found.hot) setExtras(true);
+      return;
+    }
+    await write.mutateAsync(createRunEntry(body));
+    setSaved(`${runLabel(body)} saved on this phone.`);
+    setErrors({});
+    setTimeText('');
+    setCones(0);
+    setStatus('finished');
+    setRunNumberText('');
+    setHot(emptyCornerText());
+    setNotes('');
+    setExtras(false);
+  };
+
+  const pressureUnit = unitSymbol('pressure', units);
+  return (
+    <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Log a run" className="flex flex-col gap-3">
+      <TimeKeypad
+        value={timeText}
+        onChange={changeTime}
+        onPaste={pasteTime}
+        preview={preview}
+        error={errors.time ?? null}
+        label={`Raw time · ${driver.displayName}`}
+        aside={
+          <label className="flex shrink-0 items-center gap-2">
+            <span className="text-sm font-semibold">Run number</span>
+            <input
+              type="text"
+              inputMode="numeric"
+              autoComplete="off"
+              placeholder={String(next)}
+              value={runNumberText}
+              onChange={(e) => {
+                setRunNumberText(e.target.value.replace(/\D/g, '').slice(0, 3));
+                setErrors((er) => ({ ...er, runNumber: undefined }));
+              }}
+              aria-invalid={errors.runNumber ? true : undefined}
+              className="tabular-figures min-h-tap w-16 rounded border border-line-strong bg-surface px-2 text-center text-xl font-bold placeholder:text-ink aria-[invalid=true]:border-2 aria-[invalid=true]:border-warning"
+            />
+          </label>
+        }
+      />
+      {errors.runNumber ? <p className="text-sm font-semibold text-warning">{errors.runNumber}</p> : null}
+
+      <div className="flex flex-col gap-1">
+        <span className="text-sm font-semibold">
+          Cones <span className="font-normal text-ink-muted">({conePenaltySec} s each)</span>
+        </span>
+        <Stepper label="Cones" value={cones} min={0} max={50} onChange={setCones} format={coneWords} />
+        {errors.cones ? <p className="text-sm font-semibold text-warning">{errors.cones}</p> : null}
+      </div>
+
+      <SegmentedControl label="Result" options={STATUS_OPTIONS} value={status} onChange={setStatus} name="run-status" />
+      {status !== 'finished' ? <p className="text-sm text-ink-muted">No time needed; type one if the timer gave one.</p> : null}
+
+      <div className="flex flex-col gap-3">
+        <button
+          type="button"
+          aria-expanded={extras}
+          onClick={() => setExtras((v) => !v)}
+          className="inline-flex min-h-tap items-center gap-2 self-start font-semibold text-link"
+        >
+          {extras ? <ChevronUp aria-hidden="true" className="size-5" /> : <ChevronDown aria-hidden="true" className="size-5" />}
+          Hot pressures and note (optional)
+        </button>
+        {extras ? (
+          <div className="flex flex-col gap-3">
+            <CornerGrid
+              label={`Hot pressures (${pressureUnit})`}
+              cornerInvalid={(c) => Boolean(errors.hot?.[c])}
+              renderCorner={(corner) => (
+                <UnitInput
+                  label={`${CORNER_NAMES[corner]} hot pressure`}
+                  hideLabel
+                  unit={pressureUnit}
+                  value={hot[corner]}
+                  error={errors.hot?.[corner]}
+                  onChange={(e) => {
+                    const value = e.target.value;
+                    setHot((h) => ({ ...h, [corner]: value }));
+                    setErrors((er) => ({ ...er, hot: er.hot ? { ...er.hot, [corner]: undefined } : undefined }));
+                  }}
+                />
+              )}
+            />
+            <label className="flex flex-col gap-1">
+              <span className="font-semibold">Note</span>
+              <input
+                type="text"
+                maxLength={2000}
+                value={notes}
+                onChange={(e) => setNotes(e.target.value)}
+                className="min-h-tap rounded border border-line-strong bg-surface px-3 text-base"
+              />
+            </label>
+          </div>
+        ) : null}
+      </div>
+
+      <FormAlert message={errors.form} />
+      {/* On a phone the Save button stays in thumb reach above the bottom bar while the form is in view. */}
+      <div className="sticky bottom-[calc(3.5rem+1px+env(safe-area-inset-bottom))] z-10 -mx-3 -mb-3 flex flex-col gap-1 rounded-b-lg border-t border-line bg-surface px-3 py-2 md:static">
+        <p aria-live="polite" className="text-sm font-semibold text-ink empty:hidden">
+          {saved}
+        </p>
+        <Button type="submit" className="min-h-tap-lg w-full text-xl" isPending={write.isPending} pendingLabel="Saving…">
+          Save run {runNumberText.trim() || next}
+        </Button>
+      </div>
+    </form>
+  );
+}
+

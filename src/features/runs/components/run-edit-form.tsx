@@ -1,0 +1,117 @@
+import { useState, type FormEvent } from 'react';
+import { RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
+import { formatRunTime, parseRunTime } from '@shared/season/run-time';
+import { Button } from '@/components/ui/button';
+import { SegmentedControl } from '@/components/ui/segmented-control';
+import { Stepper } from '@/components/ui/stepper';
+import { TextField } from '@/components/ui/text-field';
+import type { RunRow } from '../utils/merge-runs';
+import { STATUS_WORDS } from '../utils/run-words';
+
+export interface RunChanges {
+  runNumber: number;
+  rawTimeSec: number | null;
+  cones: number;
+  status: RunStatus;
+  notes: string | null;
+}
+
+interface RunEditFormProps {
+  row: RunRow;
+  /** Other runs of the same driver, to refuse a number twice. */
+  takenNumbers: readonly number[];
+  /** The server's messages by field, when it refused this run. */
+  serverErrors?: Record<string, string[]>;
+  submitLabel: string;
+  onSubmit: (changes: RunChanges) => Promise<void> | void;
+  onCancel: () => void;
+  /** Absent when the run cannot be deleted from here (a refused upload is discarded instead). */
+  onDelete?: () => void;
+}
+
+/** Fixing a run after the fact: time, cones, result, number, note. */
+export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSubmit, onCancel, onDelete }: RunEditFormProps) {
+  const [time, setTime] = useState(row.rawTimeSec !== null ? formatRunTime(row.rawTimeSec) : '');
+  const [cones, setCones] = useState(row.cones);
+  const [status, setStatus] = useState<RunStatus>(row.status);
+  const [number, setNumber] = useState(String(row.runNumber));
+  const [notes, setNotes] = useState(row.notes ?? '');
+  const [errors, setErrors] = useState<Record<string, string | undefined>>(() =>
+    Object.fromEntries(Object.entries(serverErrors ?? {}).map(([k, v]) => [k, v.join(' ')])),
+  );
+
+  const submit = async (event: FormEvent) => {
+    event.preventDefault();
+    const found: Record<string, string> = {};
+    let rawTimeSec: number | null = null;
+    if (time.trim()) {
+      const parsed = parseRunTime(time);
+      if (parsed.ok) rawTimeSec = parsed.seconds;
+      else found.rawTimeSec = parsed.error;
+    } else if (status === 'finished') found.rawTimeSec = 'A finished run needs its time';
+    const runNumber = Number(number);
+    if (!Number.isInteger(runNumber) || runNumber < 1 || runNumber > 999) found.runNumber = 'Run numbers are whole numbers from 1';
+    else if (takenNumbers.includes(runNumber)) found.runNumber = `Run ${runNumber} is already logged for ${row.driver.displayName}`;
+    if (Object.keys(found).length) {
+      setErrors(found);
+      return;
+    }
+    await onSubmit({ runNumber, rawTimeSec, cones, status, notes: notes.trim() || null });
+  };
+
+  return (
+    <form onSubmit={(e) => void submit(e)} noValidate aria-label={`Edit run ${row.runNumber}`} className="flex flex-col gap-3 border-t border-line pt-3">
+      <div className="grid grid-cols-[1fr_6rem] gap-3">
+        <TextField
+          label="Raw time"
+          inputMode="decimal"
+          autoComplete="off"
+          className="tabular-figures"
+          value={time}
+          error={errors.rawTimeSec}
+          onChange={(e) => {
+            setTime(e.target.value);
+            setErrors((er) => ({ ...er, rawTimeSec: undefined }));
+          }}
+        />
+        <TextField
+          label="Run number"
+          inputMode="numeric"
+          autoComplete="off"
+          value={number}
+          error={errors.runNumber}
+          onChange={(e) => {
+            setNumber(e.target.value.replace(/\D/g, '').slice(0, 3));
+            setErrors((er) => ({ ...er, runNumber: undefined }));
+          }}
+        />
+      </div>
+      <div className="flex flex-col gap-1">
+        <span className="text-sm font-semibold">Cones</span>
+        <Stepper label="Cones" value={cones} min={0} max={50} onChange={setCones} size="md" />
+        {errors.cones ? <p className="text-sm font-semibold text-warning">{errors.cones}</p> : null}
+      </div>
+      <SegmentedControl
+        label="Result"
+        options={RUN_STATUSES.map((s) => ({ value: s, label: STATUS_WORDS[s] }))}
+        value={status}
+        onChange={setStatus}
+      />
+      <TextField label="Note" value={notes} maxLength={2000} error={errors.notes} onChange={(e) => setNotes(e.target.value)} />
+      {errors._ ? <p className="text-sm font-semibold text-warning">{errors._}</p> : null}
+      <Button type="submit" className="min-h-tap-lg w-full text-lg">
+        {submitLabel}
+      </Button>
+      <div className="flex gap-2">
+        <Button variant="secondary" className="flex-1" onClick={onCancel}>
+          Cancel
+        </Button>
+        {onDelete ? (
+          <Button variant="secondary" className="flex-1" onClick={onDelete}>
+            Delete run
+          </Button>
+        ) : null}
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,104 @@
+import { useId, type ClipboardEvent, type ReactNode } from 'react';
+import { Delete } from 'lucide-react';
+import { cn } from '@/lib/cn';
+
+const MAX_LENGTH = 9;
+const KEYS = ['1', '2', '3', '4', '5', '6', '7', '8', '9'] as const;
+
+/** Keeps what a time can hold: digits, one colon, a decimal point (or comma). */
+export function cleanTimeText(text: string): string {
+  return text.replace(/[^\d:.,]/g, '').slice(0, MAX_LENGTH);
+}
+
+interface TimeKeypadProps {
+  value: string;
+  onChange: (text: string) => void;
+  /** Pasted text, as pasted (a timing sheet's "1:05.432"); the form reads it and says what is wrong. */
+  onPaste: (text: string) => void;
+  /** What the typed time reads as, e.g. "= 1:05.432", or the adjusted time. */
+  preview?: string | null;
+  error?: string | null;
+  label?: string;
+  /** Drawn at the end of the label's row (the run number). */
+  aside?: ReactNode;
+}
+
+/**
+ * The time, typed with gloves on: a big display and a keypad of 56 px keys (digits, point, colon,
+ * backspace). The display is a real input, so a keyboard or a paste from a timing sheet works too;
+ * it opens no on-screen keyboard of its own on a phone.
+ */
+export function TimeKeypad({ value, onChange, onPaste, preview, error, label = 'Raw time', aside }: TimeKeypadProps) {
+  const id = useId();
+  const press = (key: string) => onChange(cleanTimeText(value + key));
+  const key = 'inline-flex min-h-tap-lg items-center justify-center rounded border border-line-strong bg-surface text-2xl font-bold text-ink select-none hover:bg-surface-raised active:bg-accent-soft';
+
+  const handlePaste = (event: ClipboardEvent<HTMLInputElement>) => {
+    event.preventDefault();
+    const text = event.clipboardData.getData('text/plain') || event.clipboardData.getData('text');
+    onPaste(text.trim());
+  };
+
+  return (
+    <div className="flex flex-col gap-2">
+      <div className="flex items-end justify-between gap-3">
+        <label htmlFor={id} className="text-sm font-semibold">
+          {label}
+        </label>
+        {aside}
+      </div>
+      <div className={cn('flex items-center rounded border bg-surface px-3', error ? 'border-2 border-warning' : 'border-line-strong')}>
+        <input
+          id={id}
+          type="text"
+          inputMode="none"
+          autoComplete="off"
+          spellCheck={false}
+          placeholder="0.000"
+          value={value}
+          onChange={(e) => onChange(cleanTimeText(e.target.value))}
+          onPaste={handlePaste}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={`${id}-note`}
+          className="tabular-figures min-h-tap-lg w-full min-w-0 bg-transparent text-right text-time-xl text-ink outline-none placeholder:text-line-strong"
+        />
+        <span className="pl-2 text-lg font-semibold text-ink-muted">s</span>
+      </div>
+      <p id={`${id}-note`} role={error ? 'alert' : undefined} className={cn('tabular-figures min-h-6 text-sm font-semibold', error ? 'text-warning' : 'text-ink-muted')}>
+        {error ?? preview ?? 'Type or paste, e.g. 45.678 or 1:05.432'}
+      </p>
+      <div className="grid grid-cols-4 gap-2" role="group" aria-label="Time keypad">
+        {KEYS.slice(0, 3).map((k) => (
+          <button key={k} type="button" className={key} onClick={() => press(k)}>
+            {k}
+          </button>
+        ))}
+        <button type="button" className={key} aria-label="Backspace" onClick={() => onChange(value.slice(0, -1))}>
+          <Delete aria-hidden="true" className="size-7" />
+        </button>
+        {KEYS.slice(3, 6).map((k) => (
+          <button key={k} type="button" className={key} onClick={() => press(k)}>
+            {k}
+          </button>
+        ))}
+        <button type="button" className={key} aria-label="Colon" onClick={() => press(':')}>
+          :
+        </button>
+        {KEYS.slice(6, 9).map((k) => (
+          <button key={k} type="button" className={key} onClick={() => press(k)}>
+            {k}
+          </button>
+        ))}
+        <button type="button" className={key} aria-label="Point" onClick={() => press('.')}>
+          .
+        </button>
+        <button type="button" className={cn(key, 'col-span-3')} onClick={() => press('0')}>
+          0
+        </button>
+        <button type="button" className={cn(key, 'text-base')} onClick={() => onChange('')}>
+          Clear
+        </button>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,25 @@
+import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
+import { CORNERS, type Corner, type PerCorner } from '@shared/season/corners';
+import { LIMITS } from '@shared/season/limits';
+import { inputToSi } from '@/lib/numbers';
+
+export type CornerTextMap = Record<Corner, string>;
+export const emptyCornerText = (): CornerTextMap => ({ lf: '', rf: '', lr: '', rr: '' });
+
+/** Hot pressures typed in the user's unit, in kPa; errors per corner in the user's unit. */
+export function readPressures(
+  texts: CornerTextMap,
+  units: UnitPreferences,
+): { kpa: PerCorner<number> | null; errors: Partial<Record<Corner, string>> } {
+  const kpa: PerCorner<number> = {};
+  const errors: Partial<Record<Corner, string>> = {};
+  for (const corner of CORNERS) {
+    const si = inputToSi(texts[corner], 'pressure', units);
+    if (si === null) continue;
+    if (si === 'invalid') errors[corner] = 'Type a number, e.g. 32.5';
+    else if (si < LIMITS.pressureKpa.min || si > LIMITS.pressureKpa.max) {
+      errors[corner] = `Between ${formatQuantity(LIMITS.pressureKpa.min, 'pressure', units)} and ${formatQuantity(LIMITS.pressureKpa.max, 'pressure', units)}`;
+    } else kpa[corner] = si;
+  }
+  return { kpa: Object.keys(kpa).length ? kpa : null, errors };
+}

@@ -1,0 +1,51 @@
+import type { SetupChange, SetupCornerField } from '@shared/season/setup.schema';
+import type { UnitPreferences } from '@shared/calc/units.calc';
+import { useUnits } from '@/lib/units-context';
+import { groupChanges, type ChangeGroup } from '../utils/group-changes';
+import { FIELD_INFO, formatFieldDelta, formatFieldValue } from '../utils/setup-fields';
+
+function fieldWords(field: SetupCornerField | 'antiRollBar') {
+  return field === 'antiRollBar' ? 'anti-roll bar' : FIELD_INFO[field].label.toLowerCase();
+}
+
+function valueText(group: ChangeGroup, value: number | string | null, units: UnitPreferences): string {
+  if (value === null) return '—';
+  if (group.field === 'antiRollBar' || typeof value === 'string') return String(value);
+  return formatFieldValue(group.field, value, units);
+}
+
+/** What changed from one snapshot to the next, one line per field and amount, in the user's units. */
+export function SetupChangeList({ changes, emptyText = 'No values changed.' }: { changes: readonly SetupChange[]; emptyText?: string }) {
+  const units = useUnits();
+  const groups = groupChanges(changes);
+  if (groups.length === 0) return <p className="text-sm text-ink-muted">{emptyText}</p>;
+  return (
+    <ul className="flex flex-col gap-1">
+      {groups.map((g) => (
+        <li key={g.key} className="tabular-figures flex flex-wrap items-baseline gap-x-2">
+          <span className="font-semibold">
+            {g.where} {fieldWords(g.field)}
+          </span>
+          {g.delta !== null && g.field !== 'antiRollBar' ? (
+            <>
+              <span className="font-bold">{formatFieldDelta(g.field, g.delta, units)}</span>
+              {g.sameEnds ? (
+                <span className="text-sm text-ink-muted">
+                  ({valueText(g, g.from, units)} → {valueText(g, g.to, units)})
+                </span>
+              ) : null}
+            </>
+          ) : g.from === null ? (
+            <span>set to {valueText(g, g.to, units)}</span>
+          ) : g.to === null ? (
+            <span>cleared (was {valueText(g, g.from, units)})</span>
+          ) : (
+            <span>
+              {valueText(g, g.from, units)} → {valueText(g, g.to, units)}
+            </span>
+          )}
+        </li>
+      ))}
+    </ul>
+  );
+}

@@ -1,0 +1,87 @@
+import { Link } from 'react-router-dom';
+import { diffSetups } from '@shared/season/setup-diff';
+import { pathTo } from '@/config/paths';
+import { buttonClasses } from '@/components/ui/button';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { PendingBadge } from '@/components/ui/pending-badge';
+import { formatDateTime } from '@/lib/dates';
+import { useOutbox } from '@/lib/outbox-context';
+import type { SetupView } from '../utils/setup-views';
+import { SetupChangeList } from './setup-change-list';
+import { SetupValues } from './setup-values';
+
+function PendingProblem({ setup, carId }: { setup: SetupView; carId: string }) {
+  const outbox = useOutbox();
+  const pending = setup.pending;
+  if (!pending || pending.state !== 'failed') return null;
+  const fieldMessages = Object.values(pending.error?.fieldErrors ?? {}).flat();
+  return (
+    <div role="alert" className="flex flex-col gap-2 rounded border border-warning-line bg-warning-surface p-3 text-sm">
+      <p className="font-semibold text-warning">
+        Refused: {pending.error?.message ?? 'the server did not accept it'}
+        {fieldMessages.length ? ` — ${fieldMessages.join(' ')}` : ''}
+      </p>
+      <div className="flex flex-wrap gap-2">
+        {pending.kind === 'setup.create' ? (
+          <Link to={pathTo.fixSetup(carId, pending.entryKey)} className={buttonClasses('secondary')}>
+            Fix it
+          </Link>
+        ) : (
+          <Button variant="secondary" onClick={() => void outbox.retry(pending.entryKey)}>
+            Try again
+          </Button>
+        )}
+        <Button variant="quiet" onClick={() => void outbox.discard(pending.entryKey)}>
+          Discard
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+/** A car's setup history, newest first: each snapshot with what changed from the one before it. */
+export function SetupTimeline({ carId, setups }: { carId: string; setups: readonly SetupView[] }) {
+  if (setups.length === 0) {
+    return <EmptyState message="No setup recorded yet. Record the car as it is now to compare later changes against it." />;
+  }
+  return (
+    <ol className="flex flex-col gap-3" aria-label="Setup history, newest first">
+      {setups.map((setup, i) => {
+        const before = setups[i + 1];
+        return (
+          <li key={setup.id} className="flex flex-col gap-2 rounded border border-line p-3">
+            <div className="flex flex-wrap items-baseline justify-between gap-2">
+              <h3 className="font-bold">{setup.label}</h3>
+              {setup.pending ? <PendingBadge state={setup.pending.state} /> : null}
+            </div>
+            <p className="tabular-figures text-sm text-ink-muted">
+              From {formatDateTime(setup.effectiveFrom)} · by {setup.createdBy.displayName || 'someone'}
+            </p>
+            {before ? (
+              <div className="flex flex-col gap-1">
+                <p className="text-sm text-ink-muted">Changes from “{before.label}”:</p>
+                <SetupChangeList changes={diffSetups(before, setup)} />
+              </div>
+            ) : (
+              <p className="text-sm text-ink-muted">The first snapshot on record.</p>
+            )}
+            {setup.notes ? <p className="text-sm">{setup.notes}</p> : null}
+            <PendingProblem setup={setup} carId={carId} />
+            <details className="group">
+              <summary className="inline-flex min-h-tap cursor-pointer items-center font-semibold text-link">All values</summary>
+              <div className="pt-2">
+                <SetupValues setup={setup} />
+              </div>
+            </details>
+            <div>
+              <Link to={pathTo.newSetup(carId, setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
+                Start a new setup from this one
+              </Link>
+            </div>
+          </li>
+        );
+      })}
+    </ol>
+  );
+}

@@ -1,0 +1,46 @@
+import type { Quantity, UnitPreferences } from '@shared/calc/units.calc';
+import { formatQuantity } from '@shared/calc/units.calc';
+import { LIMITS } from '@shared/season/limits';
+import type { SetupCornerField } from '@shared/season/setup.schema';
+import { formatDelta } from '@/lib/numbers';
+
+export interface FieldInfo {
+  label: string;
+  /** The quantity the value measures; null for clicks (a count, no unit to convert). */
+  quantity: Quantity | null;
+  /** Can be below zero (phones then offer a minus key). */
+  signed: boolean;
+  /** Always-visible note under the field's grid. */
+  note?: string;
+  limits: { min: number; max: number };
+}
+
+/** Every per-corner setup value, in the order the editor and the displays list them. */
+export const FIELD_INFO: Record<SetupCornerField, FieldInfo> = {
+  camberDeg: { label: 'Camber', quantity: 'angle', signed: true, note: 'Negative: top of the wheel leans in.', limits: LIMITS.camberDeg },
+  toeMm: { label: 'Toe', quantity: 'length', signed: true, note: 'Per wheel, toe-in positive.', limits: LIMITS.toeMm },
+  casterDeg: { label: 'Caster', quantity: 'angle', signed: true, limits: LIMITS.casterDeg },
+  springRateNPerMm: { label: 'Spring rate', quantity: 'springRate', signed: false, limits: LIMITS.springRateNPerMm },
+  rideHeightMm: { label: 'Ride height', quantity: 'length', signed: false, limits: LIMITS.rideHeightMm },
+  damperClicks: { label: 'Clicks', quantity: null, signed: false, note: 'Bump, or the only adjuster.', limits: LIMITS.damperClicks },
+  damperReboundClicks: { label: 'Rebound clicks', quantity: null, signed: false, note: 'Double-adjustable dampers only.', limits: LIMITS.damperClicks },
+  coldPressureKpa: { label: 'Cold pressure', quantity: 'pressure', signed: false, limits: LIMITS.pressureKpa },
+  cornerWeightKg: { label: 'Corner weight', quantity: 'mass', signed: false, limits: LIMITS.cornerWeightKg },
+};
+
+const clicks = (n: number) => `${n} ${Math.abs(n) === 1 ? 'click' : 'clicks'}`;
+
+/** A stored (SI) value in the user's units: "−1.20°", "31.9 psi", "12 clicks"; "—" when not recorded. */
+export function formatFieldValue(field: SetupCornerField, si: number | null | undefined, units: UnitPreferences): string {
+  const { quantity } = FIELD_INFO[field];
+  if (si === null || si === undefined) return '—';
+  return quantity ? formatQuantity(si, quantity, units) : clicks(si);
+}
+
+/** A change in the user's units with ▲/▼: "▲ 0.5 psi", "▼ 2 clicks". */
+export function formatFieldDelta(field: SetupCornerField, deltaSi: number, units: UnitPreferences): string {
+  const { quantity } = FIELD_INFO[field];
+  if (quantity) return formatDelta(deltaSi, quantity, units);
+  if (deltaSi === 0) return `± ${clicks(0)}`;
+  return `${deltaSi > 0 ? '▲' : '▼'} ${clicks(Math.abs(deltaSi))}`;
+}

@@ -1,0 +1,353 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { IMPERIAL_PREFERENCES, KPA_PER_PSI, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
+import type { Run } from '../../../../shared/season/run.schema';
+import type { Setup } from '../../../../shared/season/setup.schema';
+import { dropCsrfToken } from '@/lib/api-client';
+import type { OutboxEntry } from '@/lib/outbox';
+import { clearToasts } from '@/lib/toast-store';
+import { blockingEntry, clearTestOutboxes, jsonResponse, renderApp, requestsTo, storedEntry, stubFetch } from '../../test-utils';
+import { BASE_SETUP, CAR, EVENT, IDS, list, RUNS_URL, savedRun, user, UUID } from '../../fixtures/season';
+
+const PATH = `/events/${IDS.event}?carId=${IDS.car}`;
+const offline = () => Promise.reject(new TypeError('Failed to fetch'));
+
+beforeAll(async () => {
+  // jsdom has no pointer capture; Radix toasts ask for it when a toast's button is pressed.
+  Element.prototype.hasPointerCapture ??= () => false;
+  Element.prototype.releasePointerCapture ??= () => undefined;
+  // The page is loaded lazily; load it once up front so the first test does not spend its wait on compiling.
+  await import('@/app/routes/events/event-day');
+  await import('@/features/setups/components/quick-change-panel');
+}, 30_000);
+
+beforeEach(() => {
+  dropCsrfToken();
+  // Car and driver were chosen at this event before: straight to logging.
+  localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.stringify({ carId: IDS.car, driverId: IDS.maren }));
+});
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  localStorage.clear();
+  vi.unstubAllGlobals();
+});
+
+// The runs URL is a GET; stubFetch keys are "METHOD path".
+const RUNS = `GET ${RUNS_URL}`;
+
+interface StubOptions {
+  units?: UnitPreferences;
+  setups?: Setup[];
+  extra?: Parameters<typeof stubFetch>[0];
+}
+
+/** The event, the car, its setups and its runs at the event, as the server would answer; uploads of runs find no signal. */
+function stubWithRuns(runs: Run[] | Response[], opts: StubOptions = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: user(opts.units ?? METRIC_PREFERENCES) }),
+    [`GET /api/events/${IDS.event}`]: jsonResponse(200, EVENT),
+    'GET /api/cars': list([CAR]),
+    [RUNS]: runs.length && runs[0] instanceof Response ? (runs as Response[]) : list(runs as Run[]),
+    [`GET /api/cars/${IDS.car}/setups`]: list(opts.setups ?? [BASE_SETUP]),
+    'POST /api/runs': offline,
+    ...opts.extra,
+  });
+}
+
+async function keypad(userE: ReturnType<typeof userEvent.setup>, time: string) {
+  const names: Record<string, string> = { ':': 'Colon', '.': 'Point' };
+  const pad = screen.getByRole('group', { name: 'Time keypad' });
+  for (const k of time) await userE.click(within(pad).getByRole('button', { name: names[k] ?? k }));
+}
+
+const runItem = (n: number) => screen.getByRole('listitem', { name: new RegExp(`^Run ${n},`) });
+
+describe('event day', () => {
+  it('when a run is logged with the keypad, then exactly one outbox entry holds it in SI with a device-made id, and it shows at once as waiting with its adjusted time', async () => {
+    const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES });
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    await keypad(u, '45.678');
+    await u.click(screen.getByRole('button', { name: 'More: Cones' }));
+    await u.click(screen.getByRole('button', { name: /Hot pressures and note/ }));
+    await u.type(screen.getByLabelText('Left front hot pressure'), '32');
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+
+    // Stored on the phone; the upload failed for want of signal and waits.
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(1));
+    const [entry] = outbox.getSnapshot() as OutboxEntry[];
+    expect(entry).toMatchObject({ kind: 'run.create', method: 'POST', path: '/api/runs', scope: { carId: IDS.car, eventId: IDS.event } });
+    const body = entry!.body as Record<string, unknown>;
+    expect(body.id).toMatch(UUID);
+    expect(entry!.recordId).toBe(body.id);
+    expect(body).toMatchObject({ carId: IDS.car, eventId: IDS.event, driverId: IDS.maren, runNumber: 1, rawTimeSec: 45.678, cones: 1, status: 'finished' });
+    expect((body.hotPressuresKpa as { lf: number }).lf).toBeCloseTo(32 * KPA_PER_PSI, 6);
+    expect(Number.isNaN(Date.parse(body.recordedAt as string))).toBe(false);
+    expect(requestsTo(fetchMock, 'POST /api/runs')[0]?.body).toEqual(body);
+
+    const row = runItem(1);
+    expect(within(row).getByText('Waiting to upload')).toBeTruthy();
+    expect(within(row).getByText('45.678')).toBeTruthy();
+    expect(within(row).getByText('47.678')).toBeTruthy(); // + 1 cone × 2 s
+    expect(within(row).getByText('Setup: Spring baseline')).toBeTruthy();
+    // The form is ready for the next one.
+    expect(screen.getByRole('button', { name: 'Save run 2' })).toBeTruthy();
+  });
+
+  it('when a run uploads before the list has refreshed, then it stays in view as saved, never blinking out', async () => {
+    let posted: Record<string, unknown> | null = null;
+    let releaseRefresh: () => void = () => undefined;
+    stubWithRuns([], {
+      extra: {
+        // The refreshed list arrives only when the test says so (a slow signal).
+        [RUNS]: () =>
+          posted
+            ? new Promise<Response>((resolve) => {
+                releaseRefresh = () =>
+                  resolve(list([savedRun({ ...(posted as object), id: posted!.id as string, runNumber: 1, rawTimeSec: 45.5, adjustedTimeSec: 45.5 })]));
+              })
+            : list([]),
+        'POST /api/runs': ({ body }) => {
+          posted = body as Record<string, unknown>;
+          return jsonResponse(201, {});
+        },
+      },
+    });
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    await keypad(u, '45.5');
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+    await waitFor(() => expect(posted).not.toBeNull());
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(0));
+
+    const row = runItem(1);
+    expect(within(row).queryByText('Waiting to upload')).toBeNull();
+    expect(within(row).getAllByText('45.500')).toHaveLength(2); // raw and adjusted
+
+    releaseRefresh();
+    await waitFor(() => expect(runItem(1)).toBeTruthy());
+    expect(screen.getAllByRole('listitem', { name: /^Run 1,/ })).toHaveLength(1);
+  });
+
+  it('when the time cannot be read, then nothing is saved and what was typed stays with the parser’s message', async () => {
+    stubWithRuns([]);
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    await keypad(u, '1:5.4');
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+
+    expect(await screen.findByText('After the minutes, give the seconds as two digits, e.g. 1:05.432')).toBeTruthy();
+    expect((screen.getByLabelText(/Raw time/) as HTMLInputElement).value).toBe('1:5.4');
+    expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+
+  it('when a faster run is still waiting to upload, then it is scored with the saved ones and marked best instead', async () => {
+    const waitingRun = storedEntry({
+      recordId: IDS.run2,
+      kind: 'run.create',
+      method: 'POST',
+      path: '/api/runs',
+      scope: { carId: IDS.car, eventId: IDS.event },
+      body: {
+        id: IDS.run2, carId: IDS.car, eventId: IDS.event, driverId: IDS.maren, runNumber: 2,
+        rawTimeSec: 44.1, cones: 1, status: 'finished', recordedAt: '2026-06-07T10:05:00.000Z',
+      },
+    });
+    stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 46.5, adjustedTimeSec: 46.5, isBest: true, pctOffBest: 0 })]);
+    renderApp(PATH, { outboxEntries: [waitingRun] });
+
+    await screen.findByRole('listitem', { name: 'Run 1, Maren Holt' });
+    const second = screen.getByRole('listitem', { name: 'Run 2, Maren Holt, best' });
+    expect(within(second).getByText('Best')).toBeTruthy();
+    expect(within(second).getByText('46.100')).toBeTruthy(); // 44.1 + 2 s
+    expect(within(second).getByText('Waiting to upload')).toBeTruthy();
+    const first = screen.getByRole('listitem', { name: 'Run 1, Maren Holt' });
+    expect(within(first).queryByText('Best')).toBeNull();
+    // (46.5 − 46.1) / 46.1 = 0.87 %
+    expect(within(first).getByText('+0.87 % off best')).toBeTruthy();
+    expect(screen.getByText(/Maren Holt’s best:/).textContent).toContain('46.100');
+  });
+
+  it('when a saved run is deleted and the deletion has not left the phone, then Undo cancels it and nothing is sent', async () => {
+    const fetchMock = stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 })]);
+    const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('listitem', { name: /^Run 1,/ });
+
+    await u.click(screen.getByRole('button', { name: 'Edit run 1' }));
+    await u.click(screen.getByRole('button', { name: 'Delete run' }));
+
+    await waitFor(() => expect(screen.queryByRole('listitem', { name: /^Run 1,/ })).toBeNull());
+    expect(outbox.getSnapshot().map((e) => e.kind)).toEqual(['change.create', 'run.delete']);
+
+    await u.click(await screen.findByRole('button', { name: 'Undo' }));
+
+    await screen.findByRole('listitem', { name: /^Run 1,/ });
+    expect(outbox.getSnapshot().map((e) => e.kind)).toEqual(['change.create']);
+    expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'DELETE' || init?.method === 'POST')).toBe(false);
+  });
+
+  it('when a run still waiting on the phone is deleted, then both cancel out, and Undo puts the same run back in the outbox', async () => {
+    stubWithRuns([]);
+    const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    await keypad(u, '44.9');
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(2));
+    const logged = outbox.getSnapshot()[1]!.body;
+
+    await u.click(screen.getByRole('button', { name: 'Edit run 1' }));
+    await u.click(screen.getByRole('button', { name: 'Delete run' }));
+    // Nothing left to send for that run: the upload and the deletion cancelled each other.
+    await waitFor(() => expect(outbox.getSnapshot().map((e) => e.kind)).toEqual(['change.create']));
+    expect(screen.queryByRole('listitem', { name: /^Run 1,/ })).toBeNull();
+
+    await u.click(await screen.findByRole('button', { name: 'Undo' }));
+
+    await waitFor(() => expect(outbox.getSnapshot().map((e) => e.kind)).toEqual(['change.create', 'run.create']));
+    expect(outbox.getSnapshot()[1]!.body).toEqual(logged);
+    expect(within(await screen.findByRole('listitem', { name: /^Run 1,/ })).getByText('Waiting to upload')).toBeTruthy();
+  });
+
+  it('when a deletion already reached the server, then Undo posts the same run again with the same id', async () => {
+    const run = savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 45.9, adjustedTimeSec: 47.9, cones: 1, notes: 'Late on the brakes' });
+    // The server, as far as this run goes: there, deleted, or posted again.
+    let onServer = true;
+    const fetchMock = stubWithRuns([], {
+      extra: {
+        [RUNS]: () => list(onServer ? [run] : []),
+        [`DELETE /api/runs/${IDS.run1}`]: () => {
+          onServer = false;
+          return jsonResponse(204);
+        },
+        'POST /api/runs': () => {
+          onServer = true;
+          return jsonResponse(201, run);
+        },
+      },
+    });
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('listitem', { name: /^Run 1,/ });
+
+    await u.click(screen.getByRole('button', { name: 'Edit run 1' }));
+    await u.click(screen.getByRole('button', { name: 'Delete run' }));
+    await waitFor(() => expect(requestsTo(fetchMock, `DELETE /api/runs/${IDS.run1}`)).toHaveLength(1));
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(0));
+
+    await u.click(await screen.findByRole('button', { name: 'Undo' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, 'POST /api/runs')).toHaveLength(1));
+    expect(requestsTo(fetchMock, 'POST /api/runs')[0]?.body).toEqual({
+      id: IDS.run1, carId: IDS.car, eventId: IDS.event, runNumber: 1, rawTimeSec: 45.9, cones: 1, status: 'finished',
+      recordedAt: run.recordedAt, driverId: IDS.maren, notes: 'Late on the brakes',
+    });
+    await screen.findByRole('listitem', { name: /^Run 1,/ });
+  });
+
+  it('when a quick change is made in psi, then its body carries the change in kPa, the device time, a client id, and the next run shows the new setup', async () => {
+    const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES });
+    const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    const before = Date.now();
+
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+    // Change 1: rear clicks +2.
+    await u.click(within(form).getByRole('button', { name: 'Rear' }));
+    await u.click(within(form).getByRole('button', { name: 'More clicks' }));
+    await u.click(within(form).getByRole('button', { name: 'More clicks' }));
+    // Change 2: all four cold pressures −1.0 psi.
+    await u.click(within(form).getByRole('button', { name: /Another change/ }));
+    await u.selectOptions(within(form).getAllByLabelText('What')[1]!, 'coldPressureKpa');
+    await u.click(within(form).getAllByRole('button', { name: 'Less cold pressure' })[0]!);
+    await u.click(within(form).getAllByRole('button', { name: 'Less cold pressure' })[0]!);
+    await u.click(within(form).getByRole('button', { name: 'Save quick change' }));
+
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(2));
+    const entry = outbox.getSnapshot()[1]!;
+    expect(entry).toMatchObject({ kind: 'setup.quickChange', method: 'POST', path: `/api/cars/${IDS.car}/setups/quick-change`, scope: { carId: IDS.car } });
+    const body = entry.body as { id: string; effectiveFrom: string; label: string; changes: { field: string; corners: string[]; delta: number }[] };
+    expect(body.id).toMatch(UUID);
+    expect(entry.recordId).toBe(body.id);
+    expect(Date.parse(body.effectiveFrom)).toBeGreaterThanOrEqual(before - 1000);
+    expect(Date.parse(body.effectiveFrom)).toBeLessThanOrEqual(Date.now());
+    expect(body.changes[0]).toEqual({ field: 'damperClicks', corners: ['lr', 'rr'], delta: 2 });
+    expect(body.changes[1]!.field).toBe('coldPressureKpa');
+    expect(body.changes[1]!.corners).toEqual(['lf', 'rf', 'lr', 'rr']);
+    expect(body.changes[1]!.delta).toBeCloseTo(-KPA_PER_PSI, 5); // −1.0 psi = −6.894757 kPa
+    expect(body.label).toBe('Quick change: rear clicks +2, all four cold pressure −1.0 psi');
+    expect(fetchMock.mock.calls.some(([url]) => String(url).includes('quick-change'))).toBe(false);
+
+    const setupNow = screen.getByRole('region', { name: 'Setup' });
+    expect(within(setupNow).getByText(body.label)).toBeTruthy();
+    expect(within(setupNow).getByText('Waiting to upload')).toBeTruthy();
+
+    await keypad(u, '45.2');
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+    const row = await screen.findByRole('listitem', { name: /^Run 1,/ });
+    expect(within(row).getByText(`Setup: ${body.label}`)).toBeTruthy();
+  });
+
+  it('when the car and driver have not been chosen at this event, then they are asked once and remembered', async () => {
+    localStorage.clear();
+    stubWithRuns([]);
+    renderApp(`/events/${IDS.event}`);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('radio', { name: /Grey roadster/ }));
+    await u.click(screen.getByRole('radio', { name: /Tomas Reyes/ }));
+    await u.click(screen.getByRole('button', { name: 'Start logging' }));
+
+    await screen.findByRole('form', { name: 'Log a run' });
+    expect(JSON.parse(localStorage.getItem(`scrubline.event-day.${IDS.event}`)!)).toEqual({ carId: IDS.car, driverId: IDS.tomas });
+    expect(screen.getByRole('form', { name: 'Log a run' }).textContent).toContain('Tomas Reyes');
+  });
+
+  it('when the server refused a run, then it stays on screen with its error and can be fixed and sent again', async () => {
+    const refused = storedEntry({
+      key: 'refused-run',
+      recordId: IDS.run2,
+      kind: 'run.create',
+      method: 'POST',
+      path: '/api/runs',
+      scope: { carId: IDS.car, eventId: IDS.event },
+      state: 'failed',
+      attempts: 1,
+      error: { status: 409, code: 'conflict', message: 'Run 1 is already logged for this driver and car at this event.', fieldErrors: { runNumber: ['Run 1 is already logged; use the next number'] } },
+      body: {
+        id: IDS.run2, carId: IDS.car, eventId: IDS.event, driverId: IDS.maren, runNumber: 1,
+        rawTimeSec: 47.2, cones: 0, status: 'finished', recordedAt: '2026-06-07T10:05:00.000Z',
+      },
+    });
+    const fetchMock = stubWithRuns([], { extra: { 'POST /api/runs': offline } });
+    const { outbox } = renderApp(PATH, { outboxEntries: [refused] });
+    const u = userEvent.setup();
+
+    const row = await screen.findByRole('listitem', { name: /^Run 1,/ });
+    expect(within(row).getByText('Needs attention')).toBeTruthy();
+    expect(within(row).getByText(/Run 1 is already logged for this driver/)).toBeTruthy();
+
+    await u.click(within(row).getByRole('button', { name: 'Fix' }));
+    const number = within(row).getByLabelText('Run number');
+    await u.clear(number);
+    await u.type(number, '3');
+    await u.click(within(row).getByRole('button', { name: 'Fix and send again' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, 'POST /api/runs')).toHaveLength(1));
+    expect((requestsTo(fetchMock, 'POST /api/runs')[0]?.body as { runNumber: number }).runNumber).toBe(3);
+    expect(outbox.getSnapshot()[0]?.state).toBe('waiting');
+  });
+});

@@ -1,0 +1,114 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { IMPERIAL_PREFERENCES, KPA_PER_PSI, MM_PER_INCH } from '../../../../shared/calc/units.calc';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { BASE_SETUP, CAR, IDS, list, user, UUID } from '../../fixtures/season';
+
+beforeAll(async () => {
+  await import('@/app/routes/cars/new-setup');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+const SETUPS = `POST /api/cars/${IDS.car}/setups`;
+
+function stub(answer: Parameters<typeof stubFetch>[0][string]) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+    [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
+    [SETUPS]: answer,
+  });
+}
+
+describe('setup editor', () => {
+  it('when values are typed in psi and inches, then the snapshot is sent in kPa and mm, untouched values keep their stored numbers, and the diff shows the change in psi', async () => {
+    const fetchMock = stub(jsonResponse(201, { ...BASE_SETUP, id: IDS.setupBase }));
+    const { outbox } = renderApp(`/cars/${IDS.car}/setups/new`);
+    const u = userEvent.setup();
+
+    const pressure = (await screen.findByLabelText('Left front cold pressure')) as HTMLInputElement;
+    // 200 kPa shown in psi, to the unit's one decimal.
+    expect(pressure.value).toBe('29.0');
+    await u.type(screen.getByLabelText('Label'), 'Softer front for the wet');
+    await u.clear(pressure);
+    await u.type(pressure, '32');
+    const height = screen.getByLabelText('Left front ride height');
+    await u.clear(height);
+    await u.type(height, '4.5');
+
+    // Live diff against "Spring baseline", in the user's units.
+    const diff = screen.getByRole('region', { name: 'Changes from the starting setup' });
+    expect(within(diff).getByText('LF cold pressure')).toBeTruthy();
+    expect(within(diff).getByText('▲ 3.0 psi')).toBeTruthy();
+
+    await u.click(screen.getByRole('button', { name: 'Save as new setup' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, SETUPS)).toHaveLength(1));
+    const body = requestsTo(fetchMock, SETUPS)[0]!.body as {
+      id: string;
+      label: string;
+      derivedFromId: string;
+      corners: Record<string, Record<string, number | null>>;
+    };
+    expect(body.id).toMatch(UUID);
+    expect(body.label).toBe('Softer front for the wet');
+    expect(body.derivedFromId).toBe(IDS.setupBase);
+    expect(body.corners.lf!.coldPressureKpa).toBeCloseTo(32 * KPA_PER_PSI, 5);
+    expect(body.corners.lf!.rideHeightMm).toBeCloseTo(4.5 * MM_PER_INCH, 6);
+    // Not touched: the stored SI values, exactly (no psi round trip).
+    expect(body.corners.rf!.coldPressureKpa).toBe(200);
+    expect(body.corners.lf!.camberDeg).toBe(-1.2);
+    expect(body.corners.lf!.damperClicks).toBe(8);
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(0));
+  });
+
+  it('when the server refuses a value, then its message sits on that input and everything typed stays', async () => {
+    stub(
+      errorResponse(400, 'validation_failed', 'Some fields need attention.', {
+        'corners.lf.camberDeg': ['Camber must be between -10 and 5 °'],
+      }),
+    );
+    const { outbox } = renderApp(`/cars/${IDS.car}/setups/new`);
+    const u = userEvent.setup();
+
+    const camber = await screen.findByLabelText('Left front camber');
+    await u.type(screen.getByLabelText('Label'), 'More camber');
+    await u.clear(camber);
+    await u.type(camber, '-4.5');
+    await u.click(screen.getByRole('button', { name: 'Save as new setup' }));
+
+    const message = await screen.findByText('Camber must be between -10 and 5 °');
+    expect(camber.getAttribute('aria-invalid')).toBe('true');
+    expect(camber.getAttribute('aria-describedby')).toContain(message.id);
+    expect((camber as HTMLInputElement).value).toBe('-4.5');
+    expect((screen.getByLabelText('Label') as HTMLInputElement).value).toBe('More camber');
+    // Refused, kept on the phone to be fixed or discarded — never dropped.
+    expect(outbox.getSnapshot()[0]?.state).toBe('failed');
+    expect(screen.getByRole('button', { name: 'Fix and send again' })).toBeTruthy();
+  });
+
+  it('when a value is out of range in the user’s unit, then the form says so in that unit and sends nothing', async () => {
+    const fetchMock = stub(jsonResponse(201, BASE_SETUP));
+    renderApp(`/cars/${IDS.car}/setups/new`);
+    const u = userEvent.setup();
+
+    const pressure = await screen.findByLabelText('Right rear cold pressure');
+    await u.type(screen.getByLabelText('Label'), 'Typo');
+    await u.clear(pressure);
+    await u.type(pressure, '210'); // kPa typed into a psi field
+    await u.click(screen.getByRole('button', { name: 'Save as new setup' }));
+
+    expect(await screen.findByText('Cold pressure must be between 7.3 psi and 65.3 psi')).toBeTruthy();
+    expect(requestsTo(fetchMock, SETUPS)).toHaveLength(0);
+  });
+});

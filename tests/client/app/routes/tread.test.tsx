@@ -1,0 +1,82 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { blockingEntry, clearTestOutboxes, jsonResponse, renderApp, stubFetch } from '../../test-utils';
+import { CAR, IDS, list, TYRE_SET, user, UUID } from '../../fixtures/season';
+
+beforeAll(async () => {
+  await import('@/app/routes/cars/tread');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+function stub(units: UnitPreferences) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: user(units) }),
+    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+    [`GET /api/cars/${IDS.car}/tyre-sets`]: list([TYRE_SET]),
+  });
+}
+
+const changeUnder = (input: HTMLElement) => document.getElementById(input.getAttribute('aria-describedby')!.split(' ')[1]!)!.textContent;
+
+describe('tread entry', () => {
+  it('when a depth is typed, then the change since the last reading of that position shows beside it', async () => {
+    stub(METRIC_PREFERENCES);
+    renderApp(`/cars/${IDS.car}/tread?set=${IDS.tyreSet}`);
+    const u = userEvent.setup();
+
+    const inner = await screen.findByLabelText('Left front inner');
+    await u.type(inner, '5.2');
+    await u.type(screen.getByLabelText('Left front outer'), '6.6');
+
+    expect(changeUnder(inner)).toBe('▼ 0.8 mm'); // 6.0 → 5.2
+    expect(changeUnder(screen.getByLabelText('Left front outer'))).toBe('± 0.0 mm');
+    // A position never measured before has nothing to compare with.
+    await u.type(screen.getByLabelText('Left rear inner'), '6.9');
+    expect(changeUnder(screen.getByLabelText('Left rear inner')).trim()).toBe('');
+  });
+
+  it('when the reading is saved in 1/32 in, then the outbox holds it in mm with a device-made id', async () => {
+    stub(IMPERIAL_PREFERENCES);
+    const { outbox } = renderApp(`/cars/${IDS.car}/tread`, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+
+    const inner = await screen.findByLabelText('Left front inner');
+    await u.type(inner, '7');
+    expect(changeUnder(inner)).toBe('▼ 0.6/32 in'); // 6.0 mm = 7.56/32 in
+    await u.type(screen.getByLabelText('Left front middle'), '8');
+    await u.type(screen.getByLabelText('Left front outer'), '8');
+    await u.click(screen.getByRole('button', { name: 'Save tread reading' }));
+
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(2));
+    const entry = outbox.getSnapshot()[1]!;
+    expect(entry).toMatchObject({ kind: 'tread.create', method: 'POST', path: `/api/tyre-sets/${IDS.tyreSet}/readings` });
+    const body = entry.body as { id: string; corners: Record<string, Record<string, number>> };
+    expect(body.id).toMatch(UUID);
+    expect(Object.keys(body.corners)).toEqual(['lf']);
+    expect(body.corners.lf!.innerMm).toBeCloseTo((7 * 25.4) / 32, 6);
+    expect(body.corners.lf!.middleMm).toBeCloseTo(6.35, 6);
+  });
+
+  it('when only part of a corner is filled, then the form asks for all three and sends nothing', async () => {
+    stub(METRIC_PREFERENCES);
+    const { outbox } = renderApp(`/cars/${IDS.car}/tread`);
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText('Right rear middle'), '6');
+    await u.click(screen.getByRole('button', { name: 'Save tread reading' }));
+
+    expect(await screen.findByText(/Right rear: enter all three/)).toBeTruthy();
+    expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+});

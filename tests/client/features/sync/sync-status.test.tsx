@@ -1,0 +1,148 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
+import { dropCsrfToken } from '@/lib/api-client';
+import type { OutboxEntry } from '@/lib/outbox';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, storedEntry, stubFetch } from '../../test-utils';
+import { IDS, user } from '../../fixtures/season';
+
+beforeAll(() => {
+  Element.prototype.hasPointerCapture ??= () => false;
+  Element.prototype.releasePointerCapture ??= () => undefined;
+});
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+const later = Date.now() + 10 * 60_000;
+const waitingRun = (n: number): OutboxEntry =>
+  storedEntry({
+    key: `run-${n}`,
+    recordId: `b000000${n}-0000-4000-8000-000000000000`,
+    kind: 'run.create',
+    method: 'POST',
+    path: '/api/runs',
+    label: `Run ${n} · 45.67${n}`,
+    scope: { carId: IDS.car, eventId: IDS.event },
+    body: {},
+    // Tried once without signal; waits before the next try.
+    attempts: 1,
+    nextAttemptAt: later,
+  });
+const refused = storedEntry({
+  key: 'refused',
+  recordId: 'b0000009-0000-4000-8000-000000000000',
+  kind: 'setup.quickChange',
+  method: 'POST',
+  path: `/api/cars/${IDS.car}/setups/quick-change`,
+  label: 'Quick change: rear clicks +30',
+  scope: { carId: IDS.car },
+  state: 'failed',
+  attempts: 1,
+  error: { status: 400, code: 'validation_failed', message: 'Some fields need attention.', fieldErrors: { 'changes.0.delta': ['LR: Clicks must be at most 24'] } },
+});
+
+function stubHome(extra: Parameters<typeof stubFetch>[0] = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+    'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
+    'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
+    'POST /api/runs': jsonResponse(201, {}),
+    ...extra,
+  });
+}
+
+describe('sync status', () => {
+  it('when runs wait and one entry was refused, then the top bar and Home say so in counts', async () => {
+    stubHome();
+    renderApp('/', { outboxEntries: [waitingRun(1), waitingRun(2), refused] });
+
+    await screen.findByRole('heading', { name: 'Hi, Maren Holt' });
+    const badge = screen.getByRole('status');
+    expect(badge.textContent).toContain('1 needs attention · 2 runs waiting to upload');
+    const sync = screen.getByRole('region', { name: 'Sync' });
+    expect(within(sync).getByText('1 needs attention · 2 runs waiting to upload')).toBeTruthy();
+    expect(within(sync).getByText('Run 1 · 45.671')).toBeTruthy();
+    const problem = within(sync).getByRole('list', { name: 'Needs attention' });
+    expect(within(problem).getByText('Quick change: rear clicks +30')).toBeTruthy();
+    expect(within(problem).getByText(/LR: Clicks must be at most 24/)).toBeTruthy();
+  });
+
+  it('when Try now is pressed, then the waiting runs are sent at once and the state reads All saved', async () => {
+    const fetchMock = stubHome();
+    const { outbox } = renderApp('/', { outboxEntries: [waitingRun(1), waitingRun(2)] });
+    const u = userEvent.setup();
+
+    const sync = await screen.findByRole('region', { name: 'Sync' });
+    await u.click(within(sync).getByRole('button', { name: 'Try now' }));
+
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(0));
+    expect(requestsTo(fetchMock, 'POST /api/runs')).toHaveLength(2);
+    expect(await within(sync).findByText('All saved')).toBeTruthy();
+    expect(screen.getByRole('status').textContent).toContain('All saved');
+  });
+
+  it('when a refused entry is discarded, then it is removed only after saying so twice', async () => {
+    stubHome();
+    const { outbox } = renderApp('/', { outboxEntries: [refused] });
+    const u = userEvent.setup();
+
+    const sync = await screen.findByRole('region', { name: 'Sync' });
+    await u.click(within(sync).getByRole('button', { name: 'Discard…' }));
+    expect(outbox.getSnapshot()).toHaveLength(1);
+    await u.click(within(sync).getByRole('button', { name: 'Yes, discard it' }));
+
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(0));
+  });
+});
+
+describe('signing out with work on the phone', () => {
+  async function openSignOut(u: ReturnType<typeof userEvent.setup>) {
+    await screen.findByRole('heading', { name: 'Hi, Maren Holt' });
+    screen.getByRole('button', { name: 'Account: Maren Holt' }).focus();
+    await u.keyboard('{Enter}');
+    await u.click(await screen.findByRole('menuitem', { name: 'Sign out' }));
+  }
+
+  it('when runs are still waiting, then it warns first and Sign out anyway clears the outbox and the cache', async () => {
+    const fetchMock = stubHome({ 'POST /api/auth/logout': jsonResponse(204) });
+    const { outbox, queryClient, router } = renderApp('/', { outboxEntries: [waitingRun(1), waitingRun(2), waitingRun(3)] });
+    const u = userEvent.setup();
+
+    await openSignOut(u);
+
+    const dialog = await screen.findByRole('dialog', { name: 'Not everything is uploaded' });
+    expect(dialog.textContent).toContain('3 runs are still on this phone only');
+    expect(requestsTo(fetchMock, 'POST /api/auth/logout')).toHaveLength(0);
+
+    await u.click(within(dialog).getByRole('button', { name: 'Sign out anyway' }));
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
+    expect(outbox.getSnapshot()).toHaveLength(0);
+    expect(queryClient.getQueryData(['cars', 'list'])).toBeUndefined();
+    expect(queryClient.getQueryData(['auth', 'me'])).toBeNull();
+  });
+
+  it('when Upload now is pressed in the warning, then the runs are sent and it offers a plain sign-out', async () => {
+    const fetchMock = stubHome({ 'POST /api/auth/logout': jsonResponse(204) });
+    const { outbox } = renderApp('/', { outboxEntries: [waitingRun(1)] });
+    const u = userEvent.setup();
+
+    await openSignOut(u);
+    const dialog = await screen.findByRole('dialog');
+    expect(dialog.textContent).toContain('1 run is still on this phone only');
+    await u.click(within(dialog).getByRole('button', { name: 'Upload now' }));
+
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(0));
+    expect(requestsTo(fetchMock, 'POST /api/runs')).toHaveLength(1);
+    expect(await screen.findByRole('dialog', { name: 'Everything is uploaded' })).toBeTruthy();
+    expect(requestsTo(fetchMock, 'POST /api/auth/logout')).toHaveLength(0);
+  });
+});
