@@ -27,12 +27,12 @@ const carFields = {
   notes: text(2000).nullable().optional(),
 };
 
-export const createCarInputSchema = z.strictObject(carFields);
+export const createCarInputSchema = z.strictObject({ id: z.uuid().optional(), ...carFields });
 export type CreateCarInput = z.infer<typeof createCarInputSchema>;
 
 export const versionSchema = z.number({ error: 'Send the version this edit is based on' }).int().min(1);
 
-export const updateCarInputSchema = createCarInputSchema.partial().extend({ version: versionSchema });
+export const updateCarInputSchema = createCarInputSchema.omit({ id: true }).partial().extend({ version: versionSchema });
 export type UpdateCarInput = z.infer<typeof updateCarInputSchema>;
 
 export const addCoDriverInputSchema = z.strictObject({ email: emailSchema });

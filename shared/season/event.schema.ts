@@ -6,6 +6,8 @@ export const EVENT_KINDS = ['autocross', 'track_day'] as const;
 const temperature = z.number().min(LIMITS.temperatureC.min).max(LIMITS.temperatureC.max).nullable().optional();
 
 export const createEventInputSchema = z.strictObject({
+  /** Client-made id, so an event created with no signal is not made twice on replay. */
+  id: z.uuid().optional(),
   name: z.string().trim().min(1, 'Give the event a name').max(120, 'Use at most 120 characters'),
   date: z.iso.date({ error: 'Use a date such as 2026-06-12' }),
   venue: z.string().trim().max(120).nullable().optional(),

@@ -12,7 +12,8 @@ export function carRoutes(ds: DataSource) {
   const carParam = validate({ params: idParam('carId') });
 
   router.post('/', validate({ body: createCarInputSchema }), async (req, res) => {
-    res.status(201).json(await createCar(ds, currentUser(req), parsed<CreateCarInput>(res, 'body')));
+    const { car, created } = await createCar(ds, currentUser(req), parsed<CreateCarInput>(res, 'body'));
+    res.status(created ? 201 : 200).json(car);
   });
 
   router.get('/', async (req, res) => {

@@ -3,6 +3,7 @@ import type { User } from '@shared/auth/auth.schema';
 import type { Car, CreateCarInput, Person, UpdateCarInput } from '@shared/season/car.schema';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { accessibleCarIdsSql, assertCarAccess } from '../../auth/access';
+import { insertUnlessPresent } from '../../lib/insert';
 import { CarCoDriverEntity, CarEntity } from './car.entity';
 
 type Db = DataSource | EntityManager;
@@ -85,10 +86,16 @@ export async function loadCarEntity(db: Db, carId: string): Promise<CarEntity> {
   return car;
 }
 
-export async function createCar(ds: DataSource, user: User, input: CreateCarInput): Promise<Car> {
-  const repo = ds.getRepository(CarEntity);
-  const saved = await repo.save(repo.create({ ...columnsFrom(input), ownerId: user.id }));
-  return loadCar(ds, saved.id);
+export async function createCar(ds: DataSource, user: User, input: CreateCarInput): Promise<{ car: Car; created: boolean }> {
+  const { inserted, id } = await insertUnlessPresent(ds.manager, CarEntity, {
+    ...(input.id ? { id: input.id } : {}),
+    ...columnsFrom(input),
+    ownerId: user.id,
+  });
+  const carId = id ?? input.id!;
+  const stored = await ds.getRepository(CarEntity).findOneBy({ id: carId });
+  if (!stored || stored.ownerId !== user.id) throw new AppError('conflict', 'That car id is already in use.');
+  return { car: await loadCar(ds, carId), created: inserted };
 }
 
 export async function listCars(ds: DataSource, user: User): Promise<Car[]> {

@@ -12,7 +12,8 @@ export function eventRoutes(ds: DataSource) {
   router.use(requireAuth);
 
   router.post('/', validate({ body: createEventInputSchema }), async (req, res) => {
-    res.status(201).json(await createEvent(ds, currentUser(req), parsed<CreateEventInput>(res, 'body')));
+    const { event, created } = await createEvent(ds, currentUser(req), parsed<CreateEventInput>(res, 'body'));
+    res.status(created ? 201 : 200).json(event);
   });
   router.get('/', async (req, res) => {
     res.json(list(await listEvents(ds, currentUser(req))));

@@ -6,6 +6,7 @@ import { bestRun } from '@shared/calc/scoring.calc';
 import { AppError } from '../../lib/app-error';
 import { accessibleCarIdsSql, assertCarAccess, assertEventAccess } from '../../auth/access';
 import { loadRuns } from '../runs/run.service';
+import { insertUnlessPresent } from '../../lib/insert';
 import { EventEntity } from './event.entity';
 
 function toEvent(e: EventEntity): SeasonEvent {
@@ -26,16 +27,18 @@ function toEvent(e: EventEntity): SeasonEvent {
   };
 }
 
-export async function createEvent(ds: DataSource, user: User, input: CreateEventInput): Promise<SeasonEvent> {
+export async function createEvent(ds: DataSource, user: User, input: CreateEventInput): Promise<{ event: SeasonEvent; created: boolean }> {
   if (input.teamId) {
     const member = await ds.query('SELECT 1 FROM team_members WHERE team_id = $1 AND user_id = $2', [input.teamId, user.id]);
     if (member.length === 0) {
       throw new AppError('validation_failed', 'Some fields need attention.', { teamId: ['You are not a member of that team'] });
     }
   }
-  const repo = ds.getRepository(EventEntity);
-  const saved = await repo.save(repo.create({ ...input, createdBy: user.id }));
-  return toEvent(saved);
+  const { inserted, id } = await insertUnlessPresent(ds.manager, EventEntity, { ...input, createdBy: user.id });
+  const saved = await ds.getRepository(EventEntity).findOneBy({ id: id ?? input.id! });
+  // A replay answers with the stored event; someone else's id is not revealed.
+  if (!saved || (!inserted && saved.createdBy !== user.id)) throw new AppError('conflict', 'That event id is already in use.');
+  return { event: toEvent(saved), created: inserted };
 }
 
 /** Events the user can see, newest first (see assertEventAccess for who sees what). */

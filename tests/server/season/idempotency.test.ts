@@ -152,3 +152,37 @@ describe('racing replays of other client-made ids', () => {
     }
   });
 });
+
+describe('events and cars made on the device', () => {
+  it('when an event with a client id is posted twice, then 201 then 200 with the same event, and one row', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const body = { id: randomUUID(), name: 'Gravel Pit practice', date: '2026-05-01' };
+    const first = await d.c.post('/api/events', body);
+    const second = await d.c.post('/api/events', body);
+    expect(first.status).toBe(201);
+    expect(second.status).toBe(200);
+    expect(second.body).toEqual(first.body);
+    expect(first.body.id).toBe(body.id);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM events WHERE id = $1', [body.id])).toBe(1);
+  });
+
+  it("when another driver reuses someone's event or car id, then 409 and nothing of theirs is shown", async () => {
+    const a = await driverWithCarAndEvent(t);
+    const b = await driverWithCarAndEvent(t);
+    const ev = await b.c.post('/api/events', { id: a.eventId, name: 'Mine now', date: '2026-05-01' });
+    expect(ev.status).toBe(409);
+    expect(JSON.stringify(ev.body)).not.toContain('Spring points');
+    const car = await b.c.post('/api/cars', { id: a.carId, name: 'Mine now', classCode: 'X' });
+    expect(car.status).toBe(409);
+  });
+
+  it('when a car with a client id is posted twice, then one car and the same answer', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const body = { id: randomUUID(), name: 'Spare hatch', classCode: 'SH' };
+    const first = await d.c.post('/api/cars', body);
+    const second = await d.c.post('/api/cars', body);
+    expect([first.status, second.status]).toEqual([201, 200]);
+    expect(second.body).toEqual(first.body);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM cars WHERE id = $1', [body.id])).toBe(1);
+  });
+});
