@@ -9,6 +9,8 @@ import { AppProvider } from './app/provider';
 import { createQueryClient } from './app/query-client';
 import { createAppRouter, sendToSignIn } from './app/router';
 import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
+import { persistQueryClient } from '@tanstack/react-query-persist-client';
+import { CACHE_MAX_AGE_MS } from './app/query-client';
 import { queryCacheStorage } from './lib/device-store';
 import { createAppOutbox } from './app/outbox';
 import { registerServiceWorker } from './app/service-worker';
@@ -19,12 +21,19 @@ if (nonce && nonce !== '__CSP_NONCE__') setNonce(nonce);
 
 // The app's one QueryClient and one router; when the session ends, each needs the other.
 const queryClient = createQueryClient({ onUnauthenticated: () => sendToSignIn(router, queryClient) });
-const router = createAppRouter(queryClient);
 const outbox = createAppOutbox(queryClient);
-const persister = createAsyncStoragePersister({ storage: queryCacheStorage, key: 'scrubline-cache', throttleTime: 1000 });
 registerServiceWorker();
+
+// The last data the server sent is restored from the device BEFORE the router starts: its
+// loaders ask "who is signed in?", and with no signal only the kept answer can reply.
+const persister = createAsyncStoragePersister({ storage: queryCacheStorage, key: 'scrubline-cache', throttleTime: 1000 });
+const [, restored] = persistQueryClient({ queryClient, persister, maxAge: CACHE_MAX_AGE_MS, buster: __APP_VERSION__ });
+await restored.catch(() => undefined);
+// Mutations that were paused when the page closed carry on.
+void queryClient.resumePausedMutations();
+const router = createAppRouter(queryClient);
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html has no #root element');
 
-createRoot(container).render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} persister={persister} />);
+createRoot(container).render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} />);

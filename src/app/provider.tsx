@@ -1,6 +1,5 @@
 import { StrictMode } from 'react';
-import type { QueryClient } from '@tanstack/react-query';
-import { PersistQueryClientProvider, type Persister } from '@tanstack/react-query-persist-client';
+import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
 import { RouterProvider } from 'react-router-dom';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
 import { PageMessage } from '@/components/ui/page-message';
@@ -8,7 +7,6 @@ import { ToastProvider } from '@/components/ui/toaster';
 import { OutboxProvider } from '@/lib/outbox-context';
 import type { Outbox } from '@/lib/outbox';
 import type { AppRouter } from './router';
-import { CACHE_MAX_AGE_MS } from './query-client';
 
 function AppCrashed() {
   return (
@@ -22,32 +20,23 @@ interface AppProviderProps {
   queryClient: QueryClient;
   router: AppRouter;
   outbox: Outbox;
-  persister: Persister;
 }
 
 /**
- * Everything the app needs around its pages: the query client with its cache kept on the
- * device (so the app opens with no signal), the outbox, toasts and the router.
+ * Everything the app needs around its pages: the query client (its cache is kept on the
+ * device and restored before the app starts; see main.tsx), the outbox, toasts and the router.
  */
-export function AppProvider({ queryClient, router, outbox, persister }: AppProviderProps) {
+export function AppProvider({ queryClient, router, outbox }: AppProviderProps) {
   return (
     <StrictMode>
       <ErrorBoundary fallback={() => <AppCrashed />}>
-        <PersistQueryClientProvider
-          client={queryClient}
-          persistOptions={{ persister, maxAge: CACHE_MAX_AGE_MS, buster: __APP_VERSION__ }}
-          onSuccess={async () => {
-            // Mutations that were paused when the page closed carry on, then screens refresh.
-            await queryClient.resumePausedMutations();
-            await queryClient.invalidateQueries();
-          }}
-        >
+        <QueryClientProvider client={queryClient}>
           <OutboxProvider outbox={outbox}>
             <ToastProvider>
               <RouterProvider router={router} />
             </ToastProvider>
           </OutboxProvider>
-        </PersistQueryClientProvider>
+        </QueryClientProvider>
       </ErrorBoundary>
     </StrictMode>
   );

@@ -1,4 +1,3 @@
-import type { Persister } from '@tanstack/react-query-persist-client';
 import { memoryStorage, Outbox, type OutboxEntry } from '../../src/lib/outbox';
 import { outboxMutationKey } from '@/lib/outbox-context';
 import { api } from '@/lib/api-client';
@@ -87,11 +86,6 @@ export function requestsTo(mock: Mock<typeof fetch>, key: string): RecordedReque
     .filter((r) => `${r.method} ${r.url}` === key);
 }
 
-/** A persister that keeps nothing, so each test starts from an empty cache. */
-export function memoryPersister(): Persister {
-  return { persistClient: async () => undefined, restoreClient: async () => undefined, removeClient: async () => undefined };
-}
-
 export function createTestQueryClient(): QueryClient {
   return createQueryClient({ retry: false });
 }
@@ -138,7 +132,7 @@ export function renderApp(path: string, { outboxEntries = [] }: RenderAppOptions
       networkMode: 'always',
     });
   }
-  const result = render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} persister={memoryPersister()} />);
+  const result = render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} />);
   return { ...result, router, queryClient, outbox };
 }
 
