@@ -101,6 +101,14 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                   lazy: async () => ({ Component: (await import('./routes/cars/tread')).TreadPage }),
                 },
                 {
+                  path: `${paths.cars}/:carId/review`,
+                  lazy: async () => ({ Component: (await import('./routes/analysis/season-review')).SeasonReviewPage }),
+                },
+                {
+                  path: paths.calculators,
+                  lazy: async () => ({ Component: (await import('./routes/calculators/calculators')).CalculatorsPage }),
+                },
+                {
                   path: paths.settings,
                   lazy: async () => ({ Component: (await import('./routes/settings')).SettingsPage }),
                 },

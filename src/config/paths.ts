@@ -8,11 +8,13 @@ export const paths = {
   /** Opens today's event, or the latest one. */
   eventDay: '/event-day',
   settings: '/settings',
+  calculators: '/calculators',
 } as const;
 
 /** Addresses of one record's pages. */
 export const pathTo = {
   car: (carId: string) => `/cars/${carId}`,
+  review: (carId: string) => `/cars/${carId}/review`,
   newSetup: (carId: string, fromSetupId?: string | null) =>
     `/cars/${carId}/setups/new${fromSetupId ? `?from=${encodeURIComponent(fromSetupId)}` : ''}`,
   /** Fix a setup the server refused: the editor reopens the stored entry. */

@@ -1,5 +1,5 @@
 import { Outlet } from 'react-router-dom';
-import { Car, Flag, House, Settings } from 'lucide-react';
+import { Calculator, Car, Flag, House, Settings } from 'lucide-react';
 import { paths } from '@/config/paths';
 import { AppShell } from '@/components/layouts/app-shell';
 import type { NavItem } from '@/components/layouts/nav-items';
@@ -14,6 +14,7 @@ const NAV_ITEMS: readonly NavItem[] = [
   { to: paths.home, label: 'Home', icon: House, end: true },
   { to: paths.eventDay, label: 'Event day', icon: Flag, alsoActiveUnder: paths.events },
   { to: paths.cars, label: 'Cars', icon: Car },
+  { to: paths.calculators, label: 'Calculators', icon: Calculator },
   { to: paths.settings, label: 'Settings', icon: Settings },
 ];
 

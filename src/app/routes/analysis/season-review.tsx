@@ -1,0 +1,103 @@
+import { useState, type ReactNode } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { ArrowLeft } from 'lucide-react';
+import { fromDisplay, unitFor, type UnitPreferences } from '@shared/calc/units.calc';
+import { pathTo } from '@/config/paths';
+import { SectionBoundary } from '@/components/errors/section-boundary';
+import { EmptyState } from '@/components/ui/empty-state';
+import { SectionCard } from '@/components/ui/section-card';
+import { useUnits } from '@/lib/units-context';
+import { useCar } from '@/features/cars/api/get-car';
+import { useChanges } from '@/features/changes/api/get-changes';
+import { SetupChangeList } from '@/features/setups/components/setup-change-list';
+import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-season';
+import { CompareSection } from '@/features/analysis/components/compare-section';
+import { ScatterSection } from '@/features/analysis/components/scatter-section';
+import { SeasonTimeline } from '@/features/analysis/components/season-timeline';
+import { TyreLife } from '@/features/analysis/components/tyre-life';
+
+/** 1.6 mm, or exactly 2/32 in for someone who reads tread in 1/32 in. */
+function defaultMinDepthMm(units: UnitPreferences): number {
+  return unitFor('treadDepth', units) === 'in32' ? fromDisplay(2, 'treadDepth', units) : DEFAULT_MIN_DEPTH_MM;
+}
+
+function ChangesCompare({ carId }: { carId: string }) {
+  const changes = useChanges(carId);
+  if (changes.isPending) return <p className="text-ink-muted">Loading the change log…</p>;
+  if (changes.isError) return <EmptyState message="The change log could not be loaded. Try again shortly." />;
+  return <CompareSection carId={carId} changes={changes.data.items} />;
+}
+
+function SeasonSections({ carId }: { carId: string }) {
+  const units = useUnits();
+  const [minDepthMm, setMinDepthMm] = useState(() => defaultMinDepthMm(units));
+  const season = useSeason(carId, minDepthMm);
+  const body = (render: (data: NonNullable<typeof season.data>) => ReactNode) =>
+    season.isPending ? (
+      <p className="text-ink-muted">Loading the season…</p>
+    ) : season.isError ? (
+      <EmptyState message="The season could not be loaded. Try again shortly." />
+    ) : (
+      render(season.data)
+    );
+
+  return (
+    <>
+      <SectionBoundary title="Season timeline">
+        <SectionCard title="Season timeline">
+          {body((data) => (
+            <SeasonTimeline season={data} renderChanges={(changes) => <SetupChangeList changes={changes} />} />
+          ))}
+        </SectionCard>
+      </SectionBoundary>
+      <SectionBoundary title="Tyre life">
+        <SectionCard title="Tyre life">
+          {body((data) => (
+            <TyreLife
+              tyreLife={data.tyreLife}
+              minDepthMm={minDepthMm}
+              onMinDepthChange={setMinDepthMm}
+              isUpdating={season.isPlaceholderData}
+            />
+          ))}
+        </SectionCard>
+      </SectionBoundary>
+    </>
+  );
+}
+
+/**
+ * Reading one car's season calmly, at home: setup values against time and wear, before and after a change,
+ * the season's timeline, and tyre life. Meant for /cars/:carId/review. Charts load in their own chunk.
+ */
+export function SeasonReviewPage() {
+  const { carId = '' } = useParams();
+  const car = useCar(carId);
+  const name = car.data?.name ?? 'Car';
+  return (
+    <div className="flex flex-col gap-6">
+      <title>{`Season review · ${name} · Scrubline`}</title>
+      <div className="flex flex-col gap-2">
+        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+          <ArrowLeft aria-hidden="true" className="size-4" /> {name}
+        </Link>
+        <h1 className="text-3xl font-extrabold">Season review</h1>
+        <p className="text-ink-muted">
+          What the season&apos;s numbers say, with how many there are and how sure they are. Few points mean a weak answer:
+          where there are too few, it says so.
+        </p>
+      </div>
+      <SectionBoundary title="Setup against time and wear">
+        <SectionCard title="Setup against time and wear">
+          <ScatterSection carId={carId} />
+        </SectionCard>
+      </SectionBoundary>
+      <SectionBoundary title="Before and after a change">
+        <SectionCard title="Before and after a change">
+          <ChangesCompare carId={carId} />
+        </SectionCard>
+      </SectionBoundary>
+      <SeasonSections carId={carId} />
+    </div>
+  );
+}

@@ -1,0 +1,42 @@
+import { Link } from 'react-router-dom';
+import { UNIT_SYMBOLS, unitFor } from '@shared/calc/units.calc';
+import { paths } from '@/config/paths';
+import { useUnits } from '@/lib/units-context';
+import { AlignmentCard } from '@/features/calculators/components/alignment-card';
+import { CornerBalanceCard } from '@/features/calculators/components/corner-balance-card';
+import { DamperCard } from '@/features/calculators/components/damper-card';
+import { SpringsCard } from '@/features/calculators/components/springs-card';
+import { TyreCard } from '@/features/calculators/components/tyre-card';
+
+/**
+ * The shop calculators: corner balance and wedge, springs, tyre size and pressure, toe and camber, damper length and
+ * droop. Typed in the user's units, worked out by the shared calculations in SI. Meant for /calculators.
+ */
+export function CalculatorsPage() {
+  const units = useUnits();
+  const inUse = (['length', 'mass', 'springRate', 'pressure', 'temperature'] as const)
+    .map((q) => UNIT_SYMBOLS[unitFor(q, units)])
+    .join(', ');
+  return (
+    <div className="flex flex-col gap-6">
+      <title>Calculators · Scrubline</title>
+      <div className="flex flex-col gap-2">
+        <h1 className="text-3xl font-extrabold">Calculators</h1>
+        <p className="text-ink-muted">
+          Planning aids for the garage. Results update as you type, in your units ({inUse});{' '}
+          <Link to={paths.settings} className="font-semibold text-link underline">
+            change units in Settings
+          </Link>
+          .
+        </p>
+      </div>
+      <div className="grid items-start gap-4 lg:grid-cols-2">
+        <CornerBalanceCard />
+        <SpringsCard />
+        <TyreCard />
+        <AlignmentCard />
+        <DamperCard />
+      </div>
+    </div>
+  );
+}

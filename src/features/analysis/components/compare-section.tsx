@@ -1,0 +1,120 @@
+import { useState } from 'react';
+import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
+import type { UnitPreferences } from '@shared/calc/units.calc';
+import { CornerGrid } from '@/components/corner-grid/corner-grid';
+import { EmptyState } from '@/components/ui/empty-state';
+import { SelectField } from '@/components/ui/select-field';
+import { formatDateTime, formatDay } from '@/lib/dates';
+import { cn } from '@/lib/cn';
+import { useUnits } from '@/lib/units-context';
+import { useCompare } from '../api/get-compare';
+import { LOCATION_WORDS, wearRateNumber, wearRateSuffix } from '../utils/analysis-format';
+import { byDay, defaultChangeId, type ChangeOption } from '../utils/pick-change';
+
+/** How one measurement's numbers are written: the number alone, and the unit after it. */
+interface Scale {
+  number: (v: number) => string;
+  suffix: string;
+}
+
+function wearScale(units: UnitPreferences): Scale {
+  return { number: (v) => wearRateNumber(v, units), suffix: wearRateSuffix(units) };
+}
+
+const PERCENT_SCALE: Scale = { number: (v) => v.toFixed(2).replace(/^-/, '−'), suffix: ' %' };
+
+function statsText(s: SampleStats, scale: Scale): string {
+  if (s.n === 0 || s.mean === null) return 'no readings';
+  if (s.sd === null) return `${scale.number(s.mean)}${scale.suffix} (one reading: no spread to show)`;
+  return `${scale.number(s.mean)} ± ${scale.number(s.sd)}${scale.suffix}`;
+}
+
+function differenceText(c: Comparison, scale: Scale): string | null {
+  if (c.difference === null) return null;
+  const arrow = c.difference > 0 ? '▲' : c.difference < 0 ? '▼' : '±';
+  const parts = [`Change ${arrow} ${scale.number(Math.abs(c.difference))}${scale.suffix}`];
+  if (c.pValue !== null) {
+    const df = c.degreesOfFreedom === null ? '' : `, df ${c.degreesOfFreedom.toFixed(1)}`;
+    parts.push(`p = ${c.pValue < 0.001 ? '< 0.001' : c.pValue.toFixed(3)} (Welch's t-test${df})`);
+  }
+  return parts.join(' · ');
+}
+
+/** Before → after for one measurement: n, mean ± sd on each side, the change, and the server's verdict as written. */
+function Measure({ title, comparison, scale, emphasis = false }: { title: string; comparison: Comparison; scale: Scale; emphasis?: boolean }) {
+  const difference = differenceText(comparison, scale);
+  return (
+    <div className={cn('flex flex-col gap-1', emphasis && 'rounded bg-surface-raised p-2')}>
+      <p className="font-bold">{title}</p>
+      <dl className="tabular-figures grid grid-cols-[auto_1fr] gap-x-2 gap-y-0.5 text-sm">
+        <dt className="font-semibold">Before</dt>
+        <dd>
+          {statsText(comparison.before, scale)} <span className="text-ink-muted">(n = {comparison.before.n})</span>
+        </dd>
+        <dt className="font-semibold">After</dt>
+        <dd>
+          {statsText(comparison.after, scale)} <span className="text-ink-muted">(n = {comparison.after.n})</span>
+        </dd>
+      </dl>
+      {difference ? <p className="tabular-figures text-xs text-ink-muted">{difference}</p> : null}
+      <p className={cn('text-sm', comparison.enough ? 'font-semibold' : 'text-ink-muted')}>{comparison.verdict}</p>
+    </div>
+  );
+}
+
+function changeLabel(c: ChangeOption): string {
+  return `${formatDay(c.changedOn)} · ${c.what} (${LOCATION_WORDS[c.location] ?? c.location})`;
+}
+
+function CompareResultView({ carId, changeId }: { carId: string; changeId: string }) {
+  const units = useUnits();
+  const compare = useCompare(carId, changeId);
+  if (compare.isPending) return <p className="text-ink-muted">Comparing before and after…</p>;
+  if (compare.isError) return <EmptyState message="The comparison could not be loaded. Try again shortly." />;
+  const result = compare.data;
+  const wear = wearScale(units);
+  return (
+    <div className="flex flex-col gap-4">
+      <p className="text-sm text-ink-muted">
+        Split at <span className="tabular-figures font-semibold text-ink">{formatDateTime(result.splitAt)}</span>. Wear is
+        measured between two tread readings; an interval whose runs straddle the change counts on neither side. ± is one
+        standard deviation; n is the number of intervals (or runs, for time).
+      </p>
+      <CornerGrid
+        label="Tyre wear per run, before and after"
+        renderCorner={(corner) => {
+          const c = result.corners[corner];
+          return (
+            <div className="flex flex-col gap-3">
+              <Measure title="Inner-edge wear" comparison={c.innerWear} scale={wear} emphasis />
+              <Measure title="Overall wear" comparison={c.wear} scale={wear} />
+              <Measure title="Inner minus outer" comparison={c.skew} scale={wear} />
+            </div>
+          );
+        }}
+      />
+      <div className="flex flex-col gap-1 rounded border border-line p-3">
+        <Measure title="Time: % off the day's best, per run" comparison={result.time} scale={PERCENT_SCALE} />
+      </div>
+    </div>
+  );
+}
+
+/** Wear and time before and after one change from the log. */
+export function CompareSection({ carId, changes }: { carId: string; changes: readonly ChangeOption[] }) {
+  const [picked, setPicked] = useState<string | null>(null);
+  const fallback = defaultChangeId(changes);
+  const changeId = picked !== null && changes.some((c) => c.id === picked) ? picked : fallback;
+  if (changeId === null) {
+    return <EmptyState message="The change log is empty. Log a change (new camber, pressures, springs) to compare before and after it." />;
+  }
+  const options = byDay(changes)
+    .reverse()
+    .map((c) => ({ value: c.id, label: changeLabel(c) }));
+  return (
+    <div className="flex flex-col gap-4">
+      <SelectField label="Change from the log" options={options} value={changeId} onChange={(e) => setPicked(e.target.value)} />
+      <CompareResultView carId={carId} changeId={changeId} />
+    </div>
+  );
+}

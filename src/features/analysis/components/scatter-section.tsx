@@ -1,0 +1,228 @@
+import { lazy, Suspense, useId, useState } from 'react';
+import {
+  CORNER_OR_AXLE,
+  SCATTER_METRICS,
+  SCATTER_PARAMS,
+  type CornerOrAxle,
+  type ScatterMetric,
+  type ScatterParam,
+  type ScatterResult,
+} from '@shared/analysis/analysis.schema';
+import type { UnitPreferences } from '@shared/calc/units.calc';
+import { EmptyState } from '@/components/ui/empty-state';
+import { SegmentedControl } from '@/components/ui/segmented-control';
+import { SelectField } from '@/components/ui/select-field';
+import { formatDay } from '@/lib/dates';
+import { useUnits } from '@/lib/units-context';
+import { useScatter } from '../api/get-scatter';
+import { METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxis, type Axis } from '../utils/analysis-format';
+import { buildScatterPlot, type ScatterPlot } from '../utils/scatter-plot';
+import { ChartLoading } from './chart-loading';
+import { ShowTableToggle } from './show-table-toggle';
+
+const AnalysisChart = lazy(() => import('./analysis-chart').then((m) => ({ default: m.AnalysisChart })));
+
+export const WHERE_LABELS: Record<CornerOrAxle, string> = {
+  lf: 'Left front',
+  rf: 'Right front',
+  lr: 'Left rear',
+  rr: 'Right rear',
+  front: 'Front axle (mean of LF and RF)',
+  rear: 'Rear axle (mean of LR and RR)',
+};
+
+const PARAM_OPTIONS = SCATTER_PARAMS.map((p) => ({ value: p, label: PARAM_INFO[p].label }));
+const WHERE_OPTIONS = CORNER_OR_AXLE.map((c) => ({ value: c, label: WHERE_LABELS[c] }));
+
+function metricOptions(units: UnitPreferences) {
+  const rate = rateUnitWords(units);
+  return SCATTER_METRICS.map((m) => ({
+    value: m,
+    label: m === 'time' ? METRIC_INFO.time.label : m === 'wear' ? `Wear: ${rate}` : `Inner minus outer: ${rate}`,
+  }));
+}
+
+type ClicksAs = 'count' | 'share';
+
+/** What the tooltip and the table say about one point. */
+function describePoint(result: ScatterResult, index: number, x: Axis, y: Axis): string[] {
+  const p = result.points[index]!;
+  const event = p.eventName ? `${p.eventName}${p.eventDate ? `, ${formatDay(p.eventDate)}` : ''}` : 'No event';
+  return [
+    event,
+    p.runs === null ? runsText(p) : `Over ${runsText(p)}`,
+    `Setup: ${p.setupLabel ?? '—'}`,
+    ...(p.corner ? [`Corner: ${p.corner.toUpperCase()}`] : []),
+    `${x.short}: ${x.format(p)}`,
+    `${y.short}: ${y.format(p)}`,
+  ];
+}
+
+function Caption({ result }: { result: ScatterResult }) {
+  const what = result.y.metric === 'time' ? 'runs' : 'wear intervals (between two tread readings)';
+  return (
+    <p className="tabular-figures text-sm">
+      <span className="font-semibold">
+        n = {result.n} {what}
+      </span>
+      {' · '}
+      {result.fit ? (
+        <>
+          fitted straight line, r² = {result.fit.r2.toFixed(2)}
+          <span className="text-ink-muted">
+            {' '}
+            (the share of the spread the line explains: near 0, the setting explains little; a trend, not proof of a cause)
+          </span>
+        </>
+      ) : (
+        <>not enough data yet for a fitted line (it needs at least 3 points and more than one setting)</>
+      )}
+    </p>
+  );
+}
+
+function PointsTable({ id, result, plot, x, y }: { id: string; result: ScatterResult; plot: ScatterPlot; x: Axis; y: Axis }) {
+  const wear = result.y.metric !== 'time';
+  return (
+    <div id={id} className="overflow-x-auto">
+      <table className="tabular-figures w-full text-left text-sm">
+        <caption className="pb-2 text-left font-semibold">
+          {x.short} against {y.short.toLowerCase()}, {result.n} {result.n === 1 ? 'point' : 'points'}
+        </caption>
+        <thead>
+          <tr className="border-b border-line-strong">
+            <th scope="col" className="py-1 pr-3">Marker</th>
+            <th scope="col" className="py-1 pr-3">Event</th>
+            <th scope="col" className="py-1 pr-3">Runs</th>
+            <th scope="col" className="py-1 pr-3">Setup</th>
+            {wear ? <th scope="col" className="py-1 pr-3">Corner</th> : null}
+            <th scope="col" className="py-1 pr-3">{x.short}</th>
+            <th scope="col" className="py-1">{y.short}</th>
+          </tr>
+        </thead>
+        <tbody>
+          {plot.series.flatMap((s) =>
+            s.points.map((pt) => {
+              const p = result.points[pt.index]!;
+              return (
+                <tr key={pt.index} className="border-b border-line">
+                  <td className="py-1 pr-3">
+                    <span aria-hidden="true" style={s.style.color ? { color: s.style.color } : undefined}>
+                      {s.style.glyph}
+                    </span>
+                    <span className="sr-only">{s.style.shapeName}</span>
+                  </td>
+                  <td className="py-1 pr-3">{s.label}</td>
+                  <td className="py-1 pr-3">{runsText(p)}</td>
+                  <td className="py-1 pr-3">{p.setupLabel ?? '—'}</td>
+                  {wear ? <td className="py-1 pr-3">{p.corner?.toUpperCase() ?? '—'}</td> : null}
+                  <td className="py-1 pr-3">{x.format(p)}</td>
+                  <td className="py-1">{y.format(p)}</td>
+                </tr>
+              );
+            }),
+          )}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: ClicksAs }) {
+  const units = useUnits();
+  const tableId = useId();
+  const [showTable, setShowTable] = useState(false);
+  const x = xAxis(result, units, clicksAs === 'share');
+  const y = yAxis(result, units);
+  const plot = buildScatterPlot(result, x, y);
+  const tick = (v: number) => (Number.isInteger(v) ? String(v) : String(Number(v.toFixed(3))));
+
+  return (
+    <div className="flex flex-col gap-3">
+      <p className="text-sm text-ink-muted">{result.y.description}</p>
+      {result.n === 0 ? (
+        <EmptyState message="Not enough data yet: no points with this setting recorded. Try another corner or setting." />
+      ) : (
+        <>
+          <Suspense fallback={<ChartLoading />}>
+            <AnalysisChart
+              series={[
+                ...plot.series.map((s) => ({
+                  label: s.label,
+                  color: s.style.color,
+                  shape: s.style.shape,
+                  points: s.points.map((pt) => ({ x: pt.x, y: pt.y, lines: describePoint(result, pt.index, x, y) })),
+                })),
+                ...(plot.fit
+                  ? [{ label: 'Fitted line', color: null, shape: 'line' as const, line: 'dashed' as const, hidePoints: true, points: plot.fit.map((p) => ({ ...p, lines: [] })) }]
+                  : []),
+              ]}
+              x={{ title: x.title, format: tick }}
+              y={{ title: y.title, format: tick }}
+              summary={`Scatter plot of ${x.title} against ${y.title}, ${result.n} points. Use "Show as table" for the values.`}
+            />
+          </Suspense>
+          <Caption result={result} />
+          <ShowTableToggle shown={showTable} onToggle={() => setShowTable((v) => !v)} controls={tableId} />
+          {showTable ? <PointsTable id={tableId} result={result} plot={plot} x={x} y={y} /> : null}
+        </>
+      )}
+    </div>
+  );
+}
+
+/** A setup value (x) against time or tyre wear (y) over the season, one colour and shape per event. */
+export function ScatterSection({ carId }: { carId: string }) {
+  const units = useUnits();
+  const [param, setParam] = useState<ScatterParam>('camber');
+  const [corner, setCorner] = useState<CornerOrAxle>('front');
+  const [metric, setMetric] = useState<ScatterMetric>('time');
+  const [clicksAs, setClicksAs] = useState<ClicksAs>('count');
+  const scatter = useScatter(carId, { x: param, y: metric, corner });
+  const result = scatter.data;
+  // The answer on screen may still be the last one while a new choice loads; only offer the clicks toggle for clicks.
+  const clicksShown = param === 'damperClicks' && result?.x.param === 'damperClicks';
+  const canNormalize = clicksShown && result.points.length > 0 && result.points.every((p) => p.xNormalized !== null);
+
+  return (
+    <div className="flex flex-col gap-4">
+      <div className="grid gap-3 sm:grid-cols-3">
+        <SelectField label="Setting (x)" options={PARAM_OPTIONS} value={param} onChange={(e) => setParam(e.target.value as ScatterParam)} />
+        <SelectField label="Where" options={WHERE_OPTIONS} value={corner} onChange={(e) => setCorner(e.target.value as CornerOrAxle)} />
+        <SelectField
+          label="Measured (y)"
+          options={metricOptions(units)}
+          value={metric}
+          onChange={(e) => setMetric(e.target.value as ScatterMetric)}
+        />
+      </div>
+      {clicksShown ? (
+        canNormalize ? (
+          <SegmentedControl<ClicksAs>
+            label="Plot clicks as"
+            options={[
+              { value: 'count', label: 'Clicks' },
+              { value: 'share', label: 'Share of range (0 = softest)' },
+            ]}
+            value={clicksAs}
+            onChange={setClicksAs}
+          />
+        ) : (
+          <p className="text-sm text-ink-muted">
+            Clicks are plotted as counted. Record the adjuster&apos;s range on the car to plot them from softest (0) to stiffest (1).
+          </p>
+        )
+      ) : null}
+      {scatter.isPending ? (
+        <p className="text-ink-muted">Loading the season’s points…</p>
+      ) : scatter.isError ? (
+        <EmptyState message="The plot could not be loaded. Try again shortly." />
+      ) : (
+        <div className="flex flex-col gap-2" aria-busy={scatter.isPlaceholderData || undefined}>
+          {scatter.isPlaceholderData ? <p className="text-sm text-ink-muted">Updating the plot…</p> : null}
+          <ScatterBody result={scatter.data} clicksAs={canNormalize ? clicksAs : 'count'} />
+        </div>
+      )}
+    </div>
+  );
+}

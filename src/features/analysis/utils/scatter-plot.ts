@@ -1,0 +1,68 @@
+import type { ScatterResult } from '@shared/analysis/analysis.schema';
+import { formatDay } from '@/lib/dates';
+import type { Axis } from './analysis-format';
+import { seriesStyle, type SeriesStyle } from './series-styles';
+
+/** One plotted point, in the plotted units; `index` points back into the answer's `points`. */
+export interface PlotPoint {
+  x: number;
+  y: number;
+  index: number;
+}
+
+/** One event's points, drawn in its own colour and shape. */
+export interface PlotSeries {
+  key: string;
+  label: string;
+  style: SeriesStyle;
+  points: PlotPoint[];
+}
+
+export interface ScatterPlot {
+  series: PlotSeries[];
+  /** The two ends of the least-squares line, in the plotted units; null when the server fitted none. */
+  fit: { x: number; y: number }[] | null;
+}
+
+/**
+ * Groups the points by event (oldest event first, so an event keeps its colour and shape as the season grows) and
+ * converts them to the plotted units. The fitted line is drawn between the lowest and highest setting: its ends are
+ * the server's line evaluated there, converted like the points (every conversion here is proportional, and the
+ * clicks share is a straight-line function of the clicks, so the line stays straight).
+ */
+export function buildScatterPlot(result: ScatterResult, x: Axis, y: Axis): ScatterPlot {
+  const groups = new Map<string, { label: string; date: string; points: PlotPoint[] }>();
+  result.points.forEach((p, index) => {
+    const px = x.value(p);
+    const py = y.value(p);
+    if (px === null || py === null || !Number.isFinite(px) || !Number.isFinite(py)) return;
+    const key = p.eventId ?? 'none';
+    const label = p.eventName ? `${p.eventName}${p.eventDate ? ` (${formatDay(p.eventDate)})` : ''}` : 'No event';
+    const group = groups.get(key) ?? { label, date: p.eventDate ?? '', points: [] };
+    group.points.push({ x: px, y: py, index });
+    groups.set(key, group);
+  });
+  const series = [...groups.entries()]
+    .sort(([, a], [, b]) => a.date.localeCompare(b.date))
+    .map(([key, g], i) => ({ key, label: g.label, style: seriesStyle(i), points: g.points }));
+
+  let fit: ScatterPlot['fit'] = null;
+  if (result.fit && result.points.length > 0) {
+    const { slope, intercept } = result.fit;
+    let low = result.points[0]!;
+    let high = low;
+    for (const p of result.points) {
+      if (p.x < low.x) low = p;
+      if (p.x > high.x) high = p;
+    }
+    const lowX = x.value(low);
+    const highX = x.value(high);
+    if (lowX !== null && highX !== null && low.x !== high.x) {
+      fit = [
+        { x: lowX, y: y.fromSi(slope * low.x + intercept) },
+        { x: highX, y: y.fromSi(slope * high.x + intercept) },
+      ];
+    }
+  }
+  return { series, fit };
+}

@@ -1,0 +1,52 @@
+/**
+ * How a series (an event, a driver) is drawn: a colour from Okabe & Ito's colour-blind-safe palette (2008) AND a
+ * marker shape, so that no series depends on colour alone. Shapes are Chart.js point styles; `glyph` is the same
+ * shape in text, for legends and tables outside the canvas.
+ */
+export type MarkerShape = 'circle' | 'triangle' | 'rect' | 'rectRot' | 'star' | 'crossRot' | 'rectRounded' | 'cross';
+
+/** Okabe–Ito, most distinct first; black last (it is swapped for the theme's ink, so it shows on the dark theme too). */
+export const OKABE_ITO = [
+  { name: 'orange', hex: '#E69F00' },
+  { name: 'sky blue', hex: '#56B4E9' },
+  { name: 'bluish green', hex: '#009E73' },
+  { name: 'vermillion', hex: '#D55E00' },
+  { name: 'blue', hex: '#0072B2' },
+  { name: 'reddish purple', hex: '#CC79A7' },
+  { name: 'yellow', hex: '#F0E442' },
+  { name: 'black', hex: '#000000' },
+] as const;
+
+const SHAPES: readonly { shape: MarkerShape; glyph: string; name: string }[] = [
+  { shape: 'circle', glyph: '●', name: 'circle' },
+  { shape: 'triangle', glyph: '▲', name: 'triangle' },
+  { shape: 'rect', glyph: '■', name: 'square' },
+  { shape: 'rectRot', glyph: '◆', name: 'diamond' },
+  { shape: 'star', glyph: '✱', name: 'star' },
+  { shape: 'crossRot', glyph: '✕', name: 'cross' },
+  { shape: 'rectRounded', glyph: '▢', name: 'rounded square' },
+  { shape: 'cross', glyph: '✚', name: 'plus' },
+];
+
+export interface SeriesStyle {
+  /** A hex colour; `null` means "the theme's ink colour" (Okabe–Ito black). */
+  color: string | null;
+  colorName: string;
+  shape: MarkerShape;
+  glyph: string;
+  shapeName: string;
+}
+
+/** The style of the i-th series: colour and shape both change, and the pair stays unique for 64 series. */
+export function seriesStyle(index: number): SeriesStyle {
+  const i = Math.max(0, Math.floor(index));
+  const colour = OKABE_ITO[i % OKABE_ITO.length]!;
+  const shape = SHAPES[(i + Math.floor(i / OKABE_ITO.length)) % SHAPES.length]!;
+  return {
+    color: colour.name === 'black' ? null : colour.hex,
+    colorName: colour.name,
+    shape: shape.shape,
+    glyph: shape.glyph,
+    shapeName: shape.name,
+  };
+}

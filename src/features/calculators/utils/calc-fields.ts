@@ -1,0 +1,104 @@
+import { formatInUnit, fromDisplay, toDisplay, UNIT_DECIMALS, unitFor, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
+import { parseDecimal, tidy } from '@/lib/numbers';
+
+/*
+ * Calculator fields: text typed in the user's unit, read into SI for the shared calculations, and results written
+ * back in the user's unit. The calculations check their own inputs and throw errors that name the input
+ * ("Motion ratio must be above 0"); those messages are shown beside the field they name.
+ */
+
+/** What one typed field holds. */
+export type Reading = { kind: 'empty' } | { kind: 'value'; si: number } | { kind: 'invalid'; message: string };
+
+const NOT_A_NUMBER = 'Enter a number, such as 12.5';
+
+/** A field typed in the user's unit for a quantity, in SI. */
+export function readQuantity(text: string, quantity: Quantity, units: UnitPreferences): Reading {
+  const parsed = parseDecimal(text);
+  if (parsed.kind === 'empty') return { kind: 'empty' };
+  if (parsed.kind === 'invalid') return { kind: 'invalid', message: NOT_A_NUMBER };
+  return { kind: 'value', si: fromDisplay(parsed.value, quantity, units) };
+}
+
+/** A field with no unit to convert (motion ratio, frequency in Hz, degrees). */
+export function readNumber(text: string): Reading {
+  const parsed = parseDecimal(text);
+  if (parsed.kind === 'empty') return { kind: 'empty' };
+  if (parsed.kind === 'invalid') return { kind: 'invalid', message: NOT_A_NUMBER };
+  return { kind: 'value', si: parsed.value };
+}
+
+/** A value already known in SI (a result of another calculator), as a reading. */
+export const knownValue = (si: number): Reading => ({ kind: 'value', si });
+
+export type Outcome<T, K extends string> =
+  /** A required field is empty: nothing to show yet (no error either). */
+  | { status: 'incomplete'; errors: Partial<Record<K, string>> }
+  | { status: 'ok'; value: T; errors: Partial<Record<K, string>> }
+  /** A field is not a number, or the calculation refused the inputs; `message` when no one field is to blame. */
+  | { status: 'error'; errors: Partial<Record<K, string>>; message: string | null };
+
+/**
+ * Runs a shared calculation on the typed fields. Fields that are not numbers get "Enter a number"; an error the
+ * calculation throws goes to the field whose label starts its message (`blame`: message prefix → field), or to
+ * the whole calculator when none matches.
+ */
+export function runCalc<K extends string, R extends K, T>(
+  readings: Record<K, Reading>,
+  required: readonly R[],
+  compute: (values: Record<R, number> & Partial<Record<K, number>>) => T,
+  blame: readonly (readonly [prefix: string, field: NoInfer<K>])[] = [],
+): Outcome<T, K> {
+  const errors: Partial<Record<K, string>> = {};
+  const values: Partial<Record<K, number>> = {};
+  let invalid = false;
+  for (const key of Object.keys(readings) as K[]) {
+    const reading = readings[key];
+    if (reading.kind === 'invalid') {
+      errors[key] = reading.message;
+      invalid = true;
+    } else if (reading.kind === 'value') {
+      values[key] = reading.si;
+    }
+  }
+  if (invalid) return { status: 'error', errors, message: null };
+  if (required.some((key) => values[key] === undefined)) return { status: 'incomplete', errors };
+  try {
+    return { status: 'ok', value: compute(values as Record<R, number> & Partial<Record<K, number>>), errors };
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    const field = blame.find(([prefix]) => message.startsWith(prefix))?.[1];
+    if (field !== undefined) return { status: 'error', errors: { [field]: message } as Partial<Record<K, string>>, message: null };
+    return { status: 'error', errors, message };
+  }
+}
+
+/**
+ * An SI result in the user's unit with more decimals than the everyday display (a calculator's answer is read
+ * closely): "211.3 lb/in", "37.00 N/mm", "0.063 in", "−1.327°". `signed` puts + on positive values.
+ */
+export function formatPrecise(
+  si: number,
+  quantity: Quantity,
+  units: UnitPreferences,
+  { extraDecimals = 1, signed = false }: { extraDecimals?: number; signed?: boolean } = {},
+): string {
+  const unit = unitFor(quantity, units);
+  const value = tidy(toDisplay(si, quantity, units));
+  let text = Math.abs(value).toFixed(UNIT_DECIMALS[unit] + extraDecimals);
+  const zero = Number(text) === 0;
+  // The unit's own symbol and spacing, as the everyday display writes them ("0 lb/in", "0°", "0/32 in").
+  const suffix = formatInUnit(0, unit).replace(/^[\d.]+/, '');
+  if (!zero && value < 0) text = `−${text}`;
+  else if (!zero && signed) text = `+${text}`;
+  return `${text}${suffix}`;
+}
+
+/** A plain number to a few decimals with a typographic minus: "1.72", "−0.50". */
+export function formatNumber(value: number, decimals: number): string {
+  const text = Math.abs(value).toFixed(decimals);
+  return value < 0 && Number(text) !== 0 ? `−${text}` : text;
+}
+
+/** A percentage to two decimals: "50.38 %". */
+export const formatPct = (pct: number) => `${formatNumber(pct, 2)} %`;

@@ -1,0 +1,380 @@
+// @vitest-environment jsdom
+import { cleanup, render, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { MemoryRouter, Route, Routes } from 'react-router-dom';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { CompareResult, Comparison, ScatterPoint, ScatterResult, SeasonResult } from '../../../../shared/analysis/analysis.schema';
+import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
+import type { Corner } from '../../../../shared/season/corners';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { UnitsProvider } from '@/lib/units-context';
+import { SeasonReviewPage } from '@/app/routes/analysis/season-review';
+import { createTestQueryClient, jsonResponse, requestsTo, stubFetch } from '../../test-utils';
+import { CAR, IDS, list } from '../../fixtures/season';
+
+// A canvas draws nothing in jsdom: stand in for the chart with the datasets it was given.
+vi.mock('react-chartjs-2', () => ({
+  Scatter: (props: { 'aria-label'?: string; data: { datasets: { label?: string; data: unknown[] }[] } }) => (
+    <div role="img" aria-label={props['aria-label']}>
+      {props.data.datasets.map((d) => `${d.label}: ${d.data.length}`).join('; ')}
+    </div>
+  ),
+}));
+
+beforeEach(() => dropCsrfToken());
+afterEach(() => {
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+const CAR_PATH = `/api/cars/${IDS.car}`;
+const EVENT_A = { eventId: 'e1111111-1111-4111-8111-111111111111', eventName: 'Harrow Flats — Round 3', eventDate: '2026-05-17' };
+const EVENT_B = { eventId: 'e2222222-2222-4222-8222-222222222222', eventName: 'Harrow Flats — Round 4', eventDate: '2026-06-07' };
+const CHANGE_CAMBER = { id: 'd1111111-1111-4111-8111-111111111111', changedOn: '2026-05-20', what: 'Front camber −1.5° → −2.0°', location: 'front' };
+const CHANGE_FLUID = { id: 'd2222222-2222-4222-8222-222222222222', changedOn: '2026-06-01', what: 'Fresh brake fluid', location: 'car' };
+
+function point(partial: Partial<ScatterPoint> & Pick<ScatterPoint, 'x' | 'y'>): ScatterPoint {
+  return {
+    xNormalized: null,
+    runId: 'b1111111-1111-4111-8111-111111111111',
+    runs: null,
+    ...EVENT_A,
+    setupId: IDS.setupBase,
+    setupLabel: 'Baseline',
+    corner: null,
+    ...partial,
+  };
+}
+
+const CAMBER_TIME: ScatterResult = {
+  x: { param: 'camber', corner: 'front', unit: '°' },
+  y: { metric: 'time', unit: '%', description: "% off that driver's best at the same event." },
+  points: [
+    point({ x: -1.5, y: 1.23 }),
+    point({ x: -1.5, y: 2.4 }),
+    point({ x: -2, y: 0.5, ...EVENT_B, setupLabel: 'More camber' }),
+  ],
+  n: 3,
+  fit: { slope: 2.2, intercept: 5, r2: 0.52 },
+};
+
+const PRESSURE_TIME: ScatterResult = { ...CAMBER_TIME, x: { param: 'coldPressure', corner: 'front', unit: 'kPa' }, points: [], n: 0, fit: null };
+
+const PRESSURE_WEAR: ScatterResult = {
+  x: { param: 'coldPressure', corner: 'front', unit: 'kPa' },
+  y: { metric: 'wear', unit: 'mm/run', description: 'Tread lost per run between two readings, mean of inner, middle and outer.' },
+  points: [
+    point({ x: 220.632, y: 0.05, runId: null, runs: 6, corner: 'lf' }),
+    point({ x: 206.8428, y: 0.04, runId: null, runs: 5, corner: 'rf', ...EVENT_B }),
+  ],
+  n: 2,
+  fit: null,
+};
+
+function comparison(before: [number, number, number], after: [number, number, number], verdict: string, enough = true): Comparison {
+  return {
+    before: { n: before[0], mean: before[1], sd: before[2] },
+    after: { n: after[0], mean: after[1], sd: after[2] },
+    difference: after[1] - before[1],
+    tStatistic: -2.1,
+    degreesOfFreedom: 6.4,
+    pValue: 0.076,
+    enough,
+    verdict,
+  };
+}
+
+const CORNER_N: Record<Corner, [number, number]> = { lf: [5, 4], rf: [6, 3], lr: [2, 5], rr: [3, 1] };
+
+function compareAnswer(changeId: string, what: string, tag: string): CompareResult {
+  const corners = {} as CompareResult['corners'];
+  for (const c of ['lf', 'rf', 'lr', 'rr'] as const) {
+    const [nb, na] = CORNER_N[c];
+    const label = c.toUpperCase();
+    corners[c] = {
+      innerWear: comparison([nb, 0.06, 0.01], [na, 0.045, 0.008], `${tag}: ${label} inner-edge wear fell by 0.015 mm per run, give or take 0.007.`, nb >= 3 && na >= 3),
+      wear: comparison([nb, 0.05, 0.01], [na, 0.048, 0.01], `${tag}: ${label} wear barely moved.`),
+      skew: comparison([nb, 0.02, 0.005], [na, 0.004, 0.004], `${tag}: ${label} inner-minus-outer wear fell.`),
+    };
+  }
+  return {
+    splitAt: '2026-05-20T00:00:00.000Z',
+    change: { id: changeId, what, changedOn: '2026-05-20' },
+    corners,
+    time: comparison([24, 2.31, 1.1], [18, 1.8, 0.9], `${tag}: % off the day's best fell by 0.51 %, not enough to rule out chance.`, false),
+  };
+}
+
+function tyreLife(partial: Partial<SeasonResult['tyreLife'][number]> & Pick<SeasonResult['tyreLife'][number], 'tyreSetId' | 'label'>) {
+  return {
+    minDepthMm: 1.6,
+    latestReadingAt: '2026-06-07T15:00:00.000Z',
+    worst: { corner: 'lf' as const, position: 'inner' as const, depthMm: 3.2 },
+    mmPerRun: 0.05,
+    r2: 0.97,
+    n: 4,
+    runsLeft: 32,
+    ...partial,
+  };
+}
+
+function season(minDepthMm: number, runsLeft: number): SeasonResult {
+  return {
+    carId: IDS.car,
+    events: [
+      {
+        eventId: EVENT_A.eventId,
+        name: EVENT_A.eventName,
+        date: EVENT_A.eventDate,
+        venue: 'Harrow Flats airfield',
+        drivers: [
+          { driver: { id: IDS.maren, displayName: 'Maren Holt' }, bestRawSec: 48.1, bestAdjustedSec: 48.1, runCount: 4, cones: 1, classPosition: null },
+          { driver: { id: IDS.tomas, displayName: 'Tomas Reyes' }, bestRawSec: 49.3, bestAdjustedSec: 49.3, runCount: 4, cones: 0, classPosition: null },
+        ],
+      },
+      {
+        eventId: EVENT_B.eventId,
+        name: EVENT_B.eventName,
+        date: EVENT_B.eventDate,
+        venue: 'Harrow Flats airfield',
+        drivers: [{ driver: { id: IDS.maren, displayName: 'Maren Holt' }, bestRawSec: 46.9, bestAdjustedSec: 46.9, runCount: 5, cones: 2, classPosition: null }],
+      },
+    ],
+    setupChanges: [
+      { setupId: IDS.setupBase, label: 'Baseline', effectiveFrom: '2026-04-01T09:00:00.000Z', createdBy: 'Maren Holt', changes: [] },
+      {
+        setupId: '52222222-2222-4222-8222-222222222222',
+        label: 'More camber',
+        effectiveFrom: '2026-05-20T09:00:00.000Z',
+        createdBy: 'Maren Holt',
+        changes: [
+          { path: 'corners.lf.camberDeg', corner: 'lf', axle: null, field: 'camberDeg', from: -1.5, to: -2, delta: -0.5 },
+          { path: 'corners.rf.camberDeg', corner: 'rf', axle: null, field: 'camberDeg', from: -1.5, to: -2, delta: -0.5 },
+        ],
+      },
+    ],
+    changeLog: [
+      { ...CHANGE_CAMBER, setupId: null },
+      { ...CHANGE_FLUID, setupId: null },
+    ],
+    tyreLife: [
+      tyreLife({ tyreSetId: IDS.tyreSet, label: 'Set A — 205/50R15', minDepthMm, runsLeft }),
+      tyreLife({ tyreSetId: 'f2222222-2222-4222-8222-222222222222', label: 'Set B — fresh', mmPerRun: null, r2: null, n: 1, runsLeft: null, minDepthMm }),
+    ],
+  };
+}
+
+const scatterPath = (x: string, y: string, corner = 'front') => `GET ${CAR_PATH}/analysis/scatter?x=${x}&y=${y}&corner=${corner}`;
+
+function stub(extra: Parameters<typeof stubFetch>[0] = {}, minDepth = '1.6') {
+  return stubFetch({
+    [`GET ${CAR_PATH}`]: jsonResponse(200, CAR),
+    [scatterPath('camber', 'time')]: jsonResponse(200, CAMBER_TIME),
+    [`GET ${CAR_PATH}/changes`]: list([CHANGE_CAMBER, CHANGE_FLUID]),
+    [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_CAMBER.id}`]: jsonResponse(200, compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber')),
+    [`GET ${CAR_PATH}/season?minDepthMm=${minDepth}`]: jsonResponse(200, season(Number(minDepth), 32)),
+    ...extra,
+  });
+}
+
+function renderPage(units: UnitPreferences = METRIC_PREFERENCES) {
+  const queryClient = createTestQueryClient();
+  render(
+    <QueryClientProvider client={queryClient}>
+      <UnitsProvider units={units}>
+        <MemoryRouter initialEntries={[`/cars/${IDS.car}/review`]}>
+          <Routes>
+            <Route path="/cars/:carId/review" element={<SeasonReviewPage />} />
+          </Routes>
+        </MemoryRouter>
+      </UnitsProvider>
+    </QueryClientProvider>,
+  );
+  return userEvent.setup();
+}
+
+const section = (name: string) => within(screen.getByRole('region', { name }));
+
+describe('season review: setup against time and wear', () => {
+  it('when "Show as table" is pressed, then the same points are listed in a table with units, and the caption gives n and r²', async () => {
+    stub();
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+
+    // The chart (lazily loaded) gets one dataset per event and the fitted line as another.
+    const chart = await scatter.findByRole('img', { name: /Scatter plot of Camber/ });
+    expect(chart.textContent).toMatch(/^Harrow Flats — Round 3 \(.+\): 2; Harrow Flats — Round 4 \(.+\): 1; Fitted line: 2$/);
+    expect(scatter.getByText(/n = 3 runs/).closest('p')?.textContent).toMatch(/n = 3 runs · fitted straight line, r² = 0\.52/);
+    expect(scatter.getByText("% off that driver's best at the same event.")).toBeTruthy();
+    expect(scatter.queryByRole('table')).toBeNull();
+
+    await u.click(scatter.getByRole('button', { name: 'Show as table' }));
+    const table = scatter.getByRole('table');
+    const rows = within(table).getAllByRole('row');
+    expect(rows).toHaveLength(4); // a heading row and three points
+    expect(within(table).getByRole('columnheader', { name: 'Camber (°)' })).toBeTruthy();
+    const cells = within(rows[1]!).getAllByRole('cell').map((c) => c.textContent);
+    expect(cells[0]).toBe('●circle');
+    expect(cells[1]).toMatch(/^Harrow Flats — Round 3 \(.*2026\)$/);
+    expect(cells.slice(2)).toEqual(['1 run', 'Baseline', '-1.50°', '+1.23 %']);
+    expect(within(rows[3]!).getByText('More camber')).toBeTruthy();
+    expect(scatter.getByRole('button', { name: 'Hide table' }).getAttribute('aria-expanded')).toBe('true');
+  });
+
+  it('when cold pressure against wear is picked in psi and 1/32 in, then the points convert and a fit-less plot says "not enough data yet"', async () => {
+    const fetch = stub(
+      { [scatterPath('coldPressure', 'time')]: jsonResponse(200, PRESSURE_TIME), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, PRESSURE_WEAR) },
+      '1.5875',
+    );
+    const u = renderPage(IMPERIAL_PREFERENCES);
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+    await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+    await waitFor(() => expect(scatter.getByText(/not enough data yet for a fitted line/)).toBeTruthy());
+    expect(scatter.getByText(/n = 2 wear intervals/)).toBeTruthy();
+    expect(requestsTo(fetch, scatterPath('coldPressure', 'wear'))).toHaveLength(1);
+
+    await u.click(scatter.getByRole('button', { name: 'Show as table' }));
+    const rows = within(scatter.getByRole('table')).getAllByRole('row');
+    // 220.632 kPa = 32.0 psi (REFERENCE §3); 0.05 mm per run = 0.063/32 in per run.
+    expect(within(rows[1]!).getByText('32.0 psi')).toBeTruthy();
+    expect(within(rows[1]!).getByText('0.063/32 in per run')).toBeTruthy();
+    expect(within(rows[1]!).getByText('6 runs')).toBeTruthy();
+    expect(within(rows[1]!).getByText('LF')).toBeTruthy();
+  });
+  it('when clicks are plotted as a share of the range, then the table shows 0 = softest values beside the clicks', async () => {
+    const clicks: ScatterResult = {
+      ...CAMBER_TIME,
+      x: { param: 'damperClicks', corner: 'front', unit: 'clicks' },
+      points: [point({ x: 6, xNormalized: 0.25, y: 1.1 }), point({ x: 12, xNormalized: 0.5, y: 0.9 }), point({ x: 18, xNormalized: 0.75, y: 0.4, ...EVENT_B })],
+      fit: { slope: -0.06, intercept: 1.5, r2: 0.9 },
+    };
+    stub({ [scatterPath('damperClicks', 'time')]: jsonResponse(200, clicks) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot of Camber/ });
+
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'damperClicks');
+    await u.click(await scatter.findByRole('radio', { name: /Share of range/ }));
+    await u.click(scatter.getByRole('button', { name: 'Show as table' }));
+
+    const table = scatter.getByRole('table');
+    expect(within(table).getByRole('columnheader', { name: 'Clicks (0 = softest, 1 = stiffest)' })).toBeTruthy();
+    expect(within(table).getByText('0.25 of the range (6 clicks)')).toBeTruthy();
+    expect(scatter.getByRole('img', { name: /share of the range/ }).textContent).toMatch(/Fitted line: 2$/);
+  });
+});
+
+describe('season review: before and after a change', () => {
+  it('when the page opens, then the latest camber change is compared and each corner shows n, mean ± sd and its verdict as written', async () => {
+    stub();
+    renderPage();
+    const compare = section('Before and after a change');
+
+    await compare.findByText('Camber: LF inner-edge wear fell by 0.015 mm per run, give or take 0.007.');
+    expect((compare.getByLabelText('Change from the log') as HTMLSelectElement).value).toBe(CHANGE_CAMBER.id);
+    for (const c of ['lf', 'rf', 'lr', 'rr'] as const) {
+      const name = { lf: 'Left front', rf: 'Right front', lr: 'Left rear', rr: 'Right rear' }[c];
+      const corner = within(compare.getByRole('group', { name }));
+      const label = c.toUpperCase();
+      expect(corner.getByText(`Camber: ${label} inner-edge wear fell by 0.015 mm per run, give or take 0.007.`)).toBeTruthy();
+      expect(corner.getByText(`Camber: ${label} wear barely moved.`)).toBeTruthy();
+      expect(corner.getByText(`Camber: ${label} inner-minus-outer wear fell.`)).toBeTruthy();
+      expect(corner.getAllByText(`(n = ${CORNER_N[c][0]})`).length).toBe(3);
+      expect(corner.getAllByText(`(n = ${CORNER_N[c][1]})`).length).toBe(3);
+    }
+    // Mean ± sd, in mm per run, before and after.
+    const lf = within(compare.getByRole('group', { name: 'Left front' }));
+    expect(lf.getByText('0.060 ± 0.010 mm per run', { exact: false })).toBeTruthy();
+    expect(lf.getByText('0.045 ± 0.008 mm per run', { exact: false })).toBeTruthy();
+    // The time comparison below, with its uncertainty.
+    expect(compare.getByText("Camber: % off the day's best fell by 0.51 %, not enough to rule out chance.")).toBeTruthy();
+    expect(compare.getByText(/2\.31 ± 1\.10 %/)).toBeTruthy();
+    expect(compare.getByText('(n = 24)')).toBeTruthy();
+  });
+
+  it('when another change is picked, then its comparison is fetched and shown', async () => {
+    stub({
+      [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_FLUID.id}`]: jsonResponse(200, compareAnswer(CHANGE_FLUID.id, CHANGE_FLUID.what, 'Fluid')),
+    });
+    const u = renderPage();
+    const compare = section('Before and after a change');
+    await compare.findByText('Camber: RR wear barely moved.');
+
+    await u.selectOptions(compare.getByLabelText('Change from the log'), CHANGE_FLUID.id);
+    expect(await compare.findByText('Fluid: RR wear barely moved.')).toBeTruthy();
+  });
+});
+
+describe('season review: tyre life', () => {
+  it('when the season answers, then each set shows its worst spot and runs left, and "not enough readings yet" where there is no rate', async () => {
+    stub();
+    renderPage();
+    const life = section('Tyre life');
+
+    const setA = within(await life.findByRole('article', { name: 'Set A — 205/50R15' }));
+    expect(setA.getByText('Left front, inner edge: 3.2 mm', { exact: false })).toBeTruthy();
+    expect(setA.getByText('0.050 mm per run')).toBeTruthy();
+    expect(setA.getByText('Runs left to 1.6 mm:')).toBeTruthy();
+    expect(setA.getByText('about 32 runs (a straight-line estimate)')).toBeTruthy();
+    expect(setA.getByText(/n = 4 readings, r² = 0\.97/)).toBeTruthy();
+
+    const setB = within(life.getByRole('article', { name: 'Set B — fresh' }));
+    expect(setB.getAllByText('not enough readings yet')).toHaveLength(2);
+    expect(life.getByRole('complementary', { name: 'Tread depth' }).textContent).toMatch(/1\.6 mm \(2\/32 in\)/);
+  });
+
+  it('when a new minimum depth is entered, then the season is fetched again with it and runs left follow', async () => {
+    const fetch = stub({ [`GET ${CAR_PATH}/season?minDepthMm=3`]: jsonResponse(200, season(3, 4)) });
+    const u = renderPage();
+    const life = section('Tyre life');
+    await life.findByText('about 32 runs (a straight-line estimate)');
+
+    const input = life.getByLabelText('Retire the tyre at');
+    await u.clear(input);
+    await u.type(input, '3');
+    await u.click(life.getByRole('button', { name: 'Recalculate' }));
+
+    expect(await life.findByText('about 4 runs (a straight-line estimate)')).toBeTruthy();
+    expect(life.getAllByText('Runs left to 3.0 mm:')).toHaveLength(2);
+    expect(requestsTo(fetch, `GET ${CAR_PATH}/season?minDepthMm=3`)).toHaveLength(1);
+  });
+
+  it('when the minimum is not a depth, then the field says so and nothing is fetched', async () => {
+    const fetch = stub();
+    const u = renderPage();
+    const life = section('Tyre life');
+    await life.findByText('about 32 runs (a straight-line estimate)');
+
+    const input = life.getByLabelText('Retire the tyre at');
+    await u.clear(input);
+    await u.type(input, '12');
+    await u.click(life.getByRole('button', { name: 'Recalculate' }));
+
+    expect(life.getByText('Enter a depth from 0.0 mm to 10.0 mm')).toBeTruthy();
+    expect(fetch.mock.calls.filter(([url]) => String(url).includes('/season?'))).toHaveLength(1);
+  });
+});
+
+describe('season review: timeline', () => {
+  it('when the season has setup changes, then the chart marks them and they are listed in order with their diffs', async () => {
+    stub();
+    renderPage();
+    const timeline = section('Season timeline');
+
+    const chart = await timeline.findByRole('img', { name: /Best adjusted time per event/ });
+    expect(chart.textContent).toBe('Maren Holt: 2; Tomas Reyes: 1; Setup change: 2; Change-log entry: 2');
+    expect(timeline.getByText(/Courses differ from event to event/)).toBeTruthy();
+
+    const ordered = timeline.getByRole('heading', { name: 'Setup changes, in order' }).nextElementSibling as HTMLElement;
+    const items = within(ordered).getAllByRole('listitem').filter((li) => li.parentElement === ordered);
+    expect(items[0]!.textContent).toMatch(/Baseline.*the starting point/);
+    expect(items[1]!.textContent).toMatch(/More camber/);
+    expect(within(items[1]!).getByText('▼ 0.50°')).toBeTruthy();
+  });
+});

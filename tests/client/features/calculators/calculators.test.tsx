@@ -1,0 +1,201 @@
+// @vitest-environment jsdom
+import { cleanup, render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { MemoryRouter } from 'react-router-dom';
+import { afterEach, describe, expect, it } from 'vitest';
+import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
+import { UnitsProvider } from '@/lib/units-context';
+import { CalculatorsPage } from '@/app/routes/calculators/calculators';
+
+/*
+ * Expected values come from shared/REFERENCE.md (each case names its section and source there); the calculators
+ * must show them in the user's units, live as the numbers are typed.
+ */
+
+afterEach(cleanup);
+
+function renderPage(units: UnitPreferences) {
+  render(
+    <MemoryRouter>
+      <UnitsProvider units={units}>
+        <CalculatorsPage />
+      </UnitsProvider>
+    </MemoryRouter>,
+  );
+  return userEvent.setup();
+}
+
+const card = (name: string) => within(screen.getByRole('region', { name }));
+
+/** The value shown beside a result's name inside one results list. */
+function result(listName: string, term: string): string {
+  const list = within(screen.getByLabelText(listName));
+  return list.getByText(term).nextElementSibling?.textContent ?? '';
+}
+
+describe('corner balance and wedge calculator', () => {
+  it('when 720/680/610/590 are typed in lb, then it shows total 2600 lb, front 53.85 %, left 51.15 % and cross 50.38 %', async () => {
+    // REFERENCE §5 worked example (common practice; Hotchkis; Schroeder "Understanding Corner Weights").
+    const u = renderPage(IMPERIAL_PREFERENCES);
+    const balance = card('Corner balance and wedge');
+    await u.type(balance.getByLabelText('Left front weight'), '720');
+    await u.type(balance.getByLabelText('Right front weight'), '680');
+    await u.type(balance.getByLabelText('Left rear weight'), '610');
+    await u.type(balance.getByLabelText('Right rear weight'), '590');
+
+    expect(result('Corner balance', 'Total')).toBe('2600 lb');
+    expect(result('Corner balance', 'Front')).toBe('53.85 %');
+    expect(result('Corner balance', 'Left')).toBe('51.15 %');
+    expect(result('Corner balance', 'Cross (LF + RR)')).toBe('50.38 %');
+    expect(result('Corner balance', 'Other diagonal (RF + LR)')).toBe('49.62 %');
+    // Scrubline's definition of cross is said on screen.
+    expect(balance.getByText(/the other diagonal \(RF \+ LR/)).toBeTruthy();
+  });
+
+  it('when the left front wheel moves 0.25 in on 200 lb/in wheel rates, then LF gains 12.5 lb and cross goes 50.38 % → 51.35 %', async () => {
+    // REFERENCE §5 perch change: all k_w = 200 lbf/in, δ = 0.25 in → X = 12.5 lb; 50.38 % → 51.35 %.
+    const u = renderPage(IMPERIAL_PREFERENCES);
+    const balance = card('Corner balance and wedge');
+    for (const [corner, lb] of [['Left front', '720'], ['Right front', '680'], ['Left rear', '610'], ['Right rear', '590']] as const) {
+      await u.type(balance.getByLabelText(`${corner} weight`), lb);
+      await u.type(balance.getByLabelText(`${corner} wheel rate`), '200');
+    }
+    await u.type(balance.getByLabelText('Wheel moves by'), '0.25');
+
+    const change = within(balance.getByRole('group', { name: 'Change in corner weight (lb)' }));
+    expect(within(change.getByRole('group', { name: 'Left front' })).getByText('+12.5 lb')).toBeTruthy();
+    expect(within(change.getByRole('group', { name: 'Right front' })).getByText('−12.5 lb')).toBeTruthy();
+    expect(within(change.getByRole('group', { name: 'Right rear' })).getByText('+12.5 lb')).toBeTruthy();
+    expect(result('Perch change', 'Cross (LF + RR)')).toBe('50.38 % → 51.35 %');
+    expect(balance.getByText(/rigid-chassis approximation: ignores anti-roll bars, tyre stiffness and chassis flex/i)).toBeTruthy();
+  });
+
+  it('when a corner weight is not a number, then that field says so and no balance is shown', async () => {
+    const u = renderPage(METRIC_PREFERENCES);
+    const balance = card('Corner balance and wedge');
+    await u.type(balance.getByLabelText('Left front weight'), '32a');
+
+    expect(balance.getByLabelText('Left front weight').getAttribute('aria-invalid')).toBe('true');
+    expect(balance.getByText('Enter a number, such as 12.5')).toBeTruthy();
+    expect(within(screen.getByLabelText('Corner balance')).queryByText('Cross (LF + RR)')).toBeNull();
+  });
+});
+
+describe('springs calculator', () => {
+  it('when 500 lb/in at MR 0.65 with a 700 lb sprung corner is typed, then wheel rate 211.3 lb/in and 1.72 Hz show', async () => {
+    // REFERENCE §4: 500 lbf/in at MR 0.65 → 211.25 lbf/in (36.9955 N/mm); 700 lb sprung → 1.718 Hz
+    // (Barton & Fieldhouse §3.9; Ortiz, Chassis Newsletter Jan 2002).
+    const u = renderPage(IMPERIAL_PREFERENCES);
+    const springs = card('Springs');
+    await u.type(springs.getByLabelText('Spring rate'), '500');
+    await u.type(springs.getByLabelText('Motion ratio'), '0.65');
+    expect(result('Wheel rate', 'Wheel rate')).toBe('211.3 lb/in');
+
+    await u.type(springs.getByLabelText('Sprung corner mass'), '700');
+    expect(result('Ride frequency', 'Ride frequency')).toBe('1.72 Hz');
+  });
+
+  it('when the same spring is typed in N/mm, then the wheel rate shows 37.00 N/mm (36.9955 to two decimals)', async () => {
+    // REFERENCE §3: 500 lbf/in = 87.5634 N/mm; §4: × 0.65² = 36.9955 N/mm.
+    const u = renderPage(METRIC_PREFERENCES);
+    const springs = card('Springs');
+    await u.type(springs.getByLabelText('Spring rate'), '87.5634');
+    await u.type(springs.getByLabelText('Motion ratio'), '0.65');
+    expect(result('Wheel rate', 'Wheel rate')).toBe('37.00 N/mm');
+  });
+
+  it('when the spring leans 10°, then cos θ is squared: 80 N/mm at MR 0.75 gives 43.64 N/mm, not 44.32', async () => {
+    // REFERENCE §4: 80 N/mm, MR 0.75, θ = 10° → 43.643 N/mm (single-cos 44.316 must not match).
+    const u = renderPage(METRIC_PREFERENCES);
+    const springs = card('Springs');
+    await u.type(springs.getByLabelText('Spring rate'), '80');
+    await u.type(springs.getByLabelText('Motion ratio'), '0.75');
+    await u.type(springs.getByLabelText('Spring angle (optional)'), '10');
+    expect(result('Wheel rate', 'Wheel rate')).toBe('43.64 N/mm');
+  });
+
+  it('when a target frequency is typed, then the wheel rate for it shows: 300 kg at 2.0 Hz needs 47.37 N/mm', async () => {
+    // REFERENCE §4 inverse: 300 kg at 2.0 Hz → 47.374 N/mm.
+    const u = renderPage(METRIC_PREFERENCES);
+    const springs = card('Springs');
+    await u.type(springs.getByLabelText('Sprung corner mass'), '300');
+    await u.type(springs.getByLabelText('Target frequency'), '2.0');
+    expect(result('Wheel rate for a frequency', 'Wheel rate needed')).toBe('47.37 N/mm');
+  });
+
+  it('when the motion ratio is 0, then the calculation’s own message shows at that field', async () => {
+    const u = renderPage(METRIC_PREFERENCES);
+    const springs = card('Springs');
+    await u.type(springs.getByLabelText('Spring rate'), '80');
+    await u.type(springs.getByLabelText('Motion ratio'), '0');
+    expect(springs.getByText('Motion ratio must be above 0')).toBeTruthy();
+    expect(springs.getByLabelText('Motion ratio').getAttribute('aria-invalid')).toBe('true');
+  });
+});
+
+describe('tyre size and pressure calculator', () => {
+  it('when a malformed size is typed, then the field shows the calculation’s message', async () => {
+    const u = renderPage(METRIC_PREFERENCES);
+    const tyre = card('Tyre size and pressure');
+    await u.type(tyre.getByLabelText('Tyre size'), '245/4R18');
+
+    expect(tyre.getByText(/"245\/4R18" is not a tyre size we can read\. Use a size like 245\/40R18/)).toBeTruthy();
+    expect(tyre.getByLabelText('Tyre size').getAttribute('aria-invalid')).toBe('true');
+  });
+
+  it('when 245/40R18 is typed, then the nominal overall diameter is 653.2 mm', async () => {
+    // REFERENCE §1 table: 245/40R18 → OD 653.2 mm (ETRTO / TRA conventions).
+    const u = renderPage(METRIC_PREFERENCES);
+    await u.type(card('Tyre size and pressure').getByLabelText('Tyre size'), '245/40R18');
+    expect(result('Nominal tyre dimensions', 'Overall diameter (nominal)')).toBe('653.2 mm');
+  });
+
+  it('when 200 kPa cold at 15 °C warms to 60 °C, then the hot pressure is 247.1 kPa (absolute pressures scaled)', async () => {
+    // REFERENCE §2: 200 kPa at 15 °C → 60 °C: 247.058 kPa (OpenStax College Physics §13.3).
+    const u = renderPage(METRIC_PREFERENCES);
+    const tyre = card('Tyre size and pressure');
+    await u.type(tyre.getByLabelText('Cold pressure'), '200');
+    await u.type(tyre.getByLabelText('Cold temperature'), '15');
+    await u.type(tyre.getByLabelText('Hot temperature'), '60');
+    expect(result('Pressure', 'Hot pressure')).toBe('247.1 kPa');
+  });
+});
+
+describe('toe and camber calculator', () => {
+  it('when 1/16 in of toe per wheel is measured across a 24 in rim, then the angle is 0.149°', async () => {
+    // REFERENCE §6: 1/16 in per wheel at 24 in → 0.1492°.
+    const u = renderPage(IMPERIAL_PREFERENCES);
+    const align = card('Toe and camber');
+    await u.type(align.getByLabelText('Rim diameter'), '24');
+    await u.type(align.getByLabelText('Toe length (front minus rear)'), '0.0625');
+    expect(result('Toe', 'Toe angle, across the rim')).toBe('0.149°');
+  });
+});
+
+describe('damper length and droop calculator', () => {
+  it('when 700 lb sits on 500 lb/in at MR 0.65 with 3.5 in of droop, then the spring is 0.121 in short and a helper must make it up', async () => {
+    // REFERENCE §9: x_s = 2.154 in; 3.5 in wheel droop = 2.275 in at the spring → shortfall 0.121 in.
+    const u = renderPage(IMPERIAL_PREFERENCES);
+    const damper = card('Damper length and droop');
+    await u.type(damper.getByLabelText('Load on the wheel'), '700');
+    await u.type(damper.getByLabelText('Spring motion ratio'), '0.65');
+    await u.type(damper.getByLabelText('Main spring rate'), '500');
+    await u.type(damper.getByLabelText('Wheel droop from ride height'), '3.5');
+
+    expect(result('Droop check', 'Spring compressed at ride height')).toBe('2.154 in');
+    expect(result('Droop check', 'Seated at full droop')).toBe('No: short by 0.121 in');
+    expect(damper.getByText(/A helper spring must make up 0.121 in of travel/)).toBeTruthy();
+  });
+});
+
+describe('every calculator', () => {
+  it('when the page opens, then each card shows its formula with a source and a caution', () => {
+    renderPage(METRIC_PREFERENCES);
+    for (const name of ['Corner balance and wedge', 'Springs', 'Tyre size and pressure', 'Toe and camber', 'Damper length and droop']) {
+      const c = card(name);
+      expect(c.getByText('Formula:')).toBeTruthy();
+      expect(c.getByRole('complementary', { name: 'Caution' }).textContent).toMatch(/planning aids, not a substitute for inspection/);
+    }
+    expect(card('Springs').getByText(/Barton & Fieldhouse/)).toBeTruthy();
+  });
+});
