@@ -1,0 +1,70 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { openPhone, screenshot } from './browser';
+
+let phone: Awaited<ReturnType<typeof openPhone>>;
+let page: Page;
+const baseUrl = inject('baseUrl');
+let carId: string;
+
+beforeAll(async () => {
+  phone = await openPhone();
+  page = phone.page;
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill('maren@example.com');
+  await page.getByLabel('Password', { exact: true }).fill('cold-tyres-warm-coffee');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Hi, Maren Holloway' }).waitFor();
+  const cars = await page.evaluate(async () => (await fetch('/api/cars')).json());
+  carId = (cars.items as { id: string; name: string }[]).find((c) => c.name === 'Pebble')!.id;
+}, 120_000);
+afterAll(async () => {
+  await phone?.close();
+});
+
+describe("the demo driver's season review (390×844)", () => {
+  it('when camber is plotted against front wear, then the chart draws its points', async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    await page.getByLabel('Setting (x)').selectOption('camber');
+    await page.getByLabel('Where').selectOption('front');
+    await page.getByLabel('Measured (y)').selectOption('wear');
+    const chart = page.getByRole('img', { name: /Scatter plot of .*camber.* 16 points/i });
+    await chart.waitFor({ timeout: 20_000 });
+    // The canvas really drew: some pixels are not blank.
+    const drawn = await page.evaluate(() => {
+      const canvas = document.querySelector('canvas');
+      if (!canvas) return 0;
+      const ctx = canvas.getContext('2d')!;
+      const data = ctx.getImageData(0, 0, canvas.width, canvas.height).data;
+      let inked = 0;
+      for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) inked++;
+      return inked;
+    });
+    expect(drawn).toBeGreaterThan(500);
+    await chart.scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-scatter');
+  });
+
+  it('when the camber-arm change is compared, then the front inner edges wore less after it', async () => {
+    const section = page.getByRole('region', { name: 'Before and after a change' });
+    await section.getByLabel('Change from the log').waitFor();
+    const picked = await section.getByLabel('Change from the log').evaluate((el) => (el as HTMLSelectElement).selectedOptions[0]?.textContent ?? '');
+    // The default is the latest log entry about camber: one of the three written when the arms went on.
+    expect(picked).toMatch(/2026.*camber/i);
+    await section.getByText(/LF inner-edge wear fell/i).waitFor({ timeout: 20_000 });
+    await section.getByText(/RF inner-edge wear fell/i).waitFor();
+    await section.scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-before-after');
+  });
+
+  it('when corner weights are typed into the calculator, then it shows the cross weight', async () => {
+    await page.goto(`${baseUrl}/calculators`);
+    // REFERENCE worked example (common practice): LF 720, RF 680, LR 610, RR 590 → cross (LF + RR) 50.38 %.
+    const values: Record<string, string> = { 'Left front': '720', 'Right front': '680', 'Left rear': '610', 'Right rear': '590' };
+    for (const [corner, value] of Object.entries(values)) await page.getByLabel(`${corner} weight`).fill(value);
+    const results = page.getByLabel('Corner balance', { exact: true });
+    await page.getByText('50.38').first().waitFor();
+    expect(await results.first().textContent()).toMatch(/Cross \(LF \+ RR\)\s*50\.38/);
+    await screenshot(page, 'calculators-corner-balance');
+  });
+});
