@@ -10,6 +10,7 @@ import { createQueryClient } from './app/query-client';
 import { createAppRouter, sendToSignIn } from './app/router';
 import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
 import { persistQueryClient } from '@tanstack/react-query-persist-client';
+import { defaultShouldDehydrateQuery } from '@tanstack/react-query';
 import { CACHE_MAX_AGE_MS } from './app/query-client';
 import { queryCacheStorage } from './lib/device-store';
 import { createAppOutbox } from './app/outbox';
@@ -27,7 +28,17 @@ registerServiceWorker();
 // The last data the server sent is restored from the device BEFORE the router starts: its
 // loaders ask "who is signed in?", and with no signal only the kept answer can reply.
 const persister = createAsyncStoragePersister({ storage: queryCacheStorage, key: 'scrubline-cache', throttleTime: 1000 });
-const [, restored] = persistQueryClient({ queryClient, persister, maxAge: CACHE_MAX_AGE_MS, buster: __APP_VERSION__ });
+const [, restored] = persistQueryClient({
+  queryClient,
+  persister,
+  maxAge: CACHE_MAX_AGE_MS,
+  buster: __APP_VERSION__,
+  dehydrateOptions: {
+    // "Nobody is signed in" is never kept: a copy written just before a sign-in would
+    // otherwise send the next page load back to the sign-in form.
+    shouldDehydrateQuery: (query) => defaultShouldDehydrateQuery(query) && !(query.queryKey[0] === 'auth' && query.state.data == null),
+  },
+});
 await restored.catch(() => undefined);
 // Mutations that were paused when the page closed carry on.
 void queryClient.resumePausedMutations();

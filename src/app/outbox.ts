@@ -8,13 +8,14 @@ import { outboxMutationKey } from '@/lib/outbox-context';
 export const OUTBOX_KINDS = [
   'run.create', 'run.update', 'run.delete',
   'setup.create', 'setup.quickChange',
-  'tyreSet.create', 'tread.create', 'pressure.create', 'change.create', 'event.create', 'car.create',
+  'tyreSet.create', 'tyreSet.rotate', 'tread.create', 'pressure.create', 'change.create', 'event.create', 'car.create',
 ] as const;
 
 /** Which cached data an entry changes once it lands, by the first part of its kind. */
 const INVALIDATES: Record<string, string[][]> = {
   run: [['runs'], ['events'], ['setups']],
   setup: [['setups'], ['runs'], ['events']],
+  // tyreSet.create and tyreSet.rotate (a rotation changes which tyre each reading and wear interval belongs to).
   tyreSet: [['tyres']],
   tread: [['tyres']],
   pressure: [['pressures']],

@@ -25,13 +25,13 @@ function pathOf(url: URL): string {
 /** The app's routes. Pages are loaded on first visit, so the first download stays small. */
 export function createRoutes(queryClient: QueryClient): RouteObject[] {
   const requireSignIn = async ({ request }: LoaderFunctionArgs) => {
-    const me = await queryClient.ensureQueryData(meQueryOptions());
+    const me = await queryClient.ensureQueryData({ ...meQueryOptions(), revalidateIfStale: true });
     if (!me) throw redirect(signInPath(pathOf(new URL(request.url))));
     return null;
   };
 
   const signedOutOnly = async ({ request }: LoaderFunctionArgs) => {
-    const me = await queryClient.ensureQueryData(meQueryOptions());
+    const me = await queryClient.ensureQueryData({ ...meQueryOptions(), revalidateIfStale: true });
     if (me) throw redirect(safeNextPath(new URL(request.url).searchParams.get(NEXT_PARAM)) ?? paths.home);
     return null;
   };

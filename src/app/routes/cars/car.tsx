@@ -1,18 +1,21 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { ArrowLeft, Plus, Ruler } from 'lucide-react';
+import { ArrowLeft, ChartScatter, Plus, Ruler } from 'lucide-react';
+import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
-import { buttonClasses } from '@/components/ui/button';
+import { Button, buttonClasses } from '@/components/ui/button';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCar } from '@/features/cars/api/get-car';
+import { CoDrivers } from '@/features/cars/components/co-drivers';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupTimeline } from '@/features/setups/components/setup-timeline';
 import { mergePendingSetups } from '@/features/setups/utils/setup-views';
-import { useTyreSets } from '@/features/tyres/api/get-tyre-sets';
+import { NewTyreSetForm } from '@/features/tyres/components/new-tyre-set-form';
 import { TyreSetList } from '@/features/tyres/components/tyre-set-list';
+import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
 import { useChanges } from '@/features/changes/api/get-changes';
 import { ChangeLog } from '@/features/changes/components/change-log';
 
@@ -29,12 +32,29 @@ function SetupSection({ carId }: { carId: string }) {
   return <SetupTimeline carId={carId} setups={setups} />;
 }
 
-function TyreSection({ carId }: { carId: string }) {
-  const { data, isPending, isError } = useTyreSets(carId);
-  const entries = useOutboxEntriesFor({ carId });
-  if (isPending) return <p className="text-ink-muted">Loading tyre sets…</p>;
-  if (isError) return <p className="text-ink-muted">Tyre sets could not be loaded. Try again shortly.</p>;
-  return <TyreSetList carId={carId} sets={data.items} entries={entries} />;
+function TyreSection({ carId, car }: { carId: string; car: Car | undefined }) {
+  const { sets, entries, isPending, isError } = useTyreSetViews(carId);
+  const [adding, setAdding] = useState(false);
+  return (
+    <div className="flex flex-col gap-4">
+      {isPending ? (
+        <p className="text-ink-muted">Loading tyre sets…</p>
+      ) : isError ? (
+        <p className="text-ink-muted">Tyre sets could not be loaded. Try again shortly.</p>
+      ) : (
+        <TyreSetList carId={carId} sets={sets} entries={entries} />
+      )}
+      {adding ? (
+        <NewTyreSetForm carId={carId} defaultSize={car?.tyreSize ?? null} onSaved={() => setAdding(false)} onCancel={() => setAdding(false)} />
+      ) : (
+        <div>
+          <Button variant="secondary" onClick={() => setAdding(true)}>
+            <Plus aria-hidden="true" className="size-5" /> New tyre set
+          </Button>
+        </div>
+      )}
+    </div>
+  );
 }
 
 function ChangeSection({ carId }: { carId: string }) {
@@ -45,10 +65,11 @@ function ChangeSection({ carId }: { carId: string }) {
   return <ChangeLog carId={carId} saved={data?.items ?? []} entries={entries} />;
 }
 
-/** One car: its setup history, its tyres, and its change log. */
+/** One car: its setup history, its tyres, its drivers, and its change log. */
 export function CarPage() {
   const { carId = '' } = useParams();
   const { data: car, isPending, isError } = useCar(carId);
+  const { data: me } = useMe();
   return (
     <div className="flex flex-col gap-6">
       <title>{`${car?.name ?? 'Car'} · Scrubline`}</title>
@@ -75,6 +96,9 @@ export function CarPage() {
           <Link to={pathTo.tread(carId)} className={buttonClasses('secondary')}>
             <Ruler aria-hidden="true" className="size-5" /> Enter tread
           </Link>
+          <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
+            <ChartScatter aria-hidden="true" className="size-5" /> Season review
+          </Link>
         </div>
       </div>
       <div className="grid gap-4 lg:grid-cols-2">
@@ -86,9 +110,16 @@ export function CarPage() {
         <div className="flex flex-col gap-4">
           <SectionBoundary title="Tyres">
             <SectionCard title="Tyres">
-              <TyreSection carId={carId} />
+              <TyreSection carId={carId} car={car} />
             </SectionCard>
           </SectionBoundary>
+          {car && me ? (
+            <SectionBoundary title="Drivers">
+              <SectionCard title="Drivers">
+                <CoDrivers car={car} currentUserId={me.id} />
+              </SectionCard>
+            </SectionBoundary>
+          ) : null}
           <SectionBoundary title="Change log">
             <SectionCard title="Change log">
               <ChangeSection carId={carId} />

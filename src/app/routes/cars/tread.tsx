@@ -5,8 +5,8 @@ import { pathTo } from '@/config/paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import { toast } from '@/lib/toast-store';
 import { useCar } from '@/features/cars/api/get-car';
-import { useTyreSets } from '@/features/tyres/api/get-tyre-sets';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
+import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
 
 /** Tread depths of one tyre set (?set=<tyreSetId> to preselect it). */
 export function TreadPage() {
@@ -14,7 +14,8 @@ export function TreadPage() {
   const [params] = useSearchParams();
   const navigate = useNavigate();
   const car = useCar(carId);
-  const sets = useTyreSets(carId);
+  // Sets made on this phone count too: a reading of one waits behind the set's own upload.
+  const sets = useTyreSetViews(carId);
   const onUploaded = useCallback(() => {
     toast({ tone: 'success', title: 'Tread reading saved' });
     void navigate(pathTo.car(carId));
@@ -33,10 +34,10 @@ export function TreadPage() {
         <p className="text-ink-muted">Loading tyre sets…</p>
       ) : sets.isError ? (
         <EmptyState message="Tyre sets could not be loaded. Try again when you have signal." />
-      ) : sets.data.count === 0 ? (
-        <EmptyState message="This car has no tyre sets recorded yet." />
+      ) : sets.sets.length === 0 ? (
+        <EmptyState message="This car has no tyre sets recorded yet. Add one on the car’s page." />
       ) : (
-        <TreadEntryForm carId={carId} sets={sets.data.items} initialSetId={params.get('set')} onUploaded={onUploaded} />
+        <TreadEntryForm carId={carId} sets={sets.sets} initialSetId={params.get('set')} onUploaded={onUploaded} />
       )}
     </div>
   );

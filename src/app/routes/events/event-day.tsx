@@ -1,21 +1,23 @@
 import { lazy, Suspense, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
-import { Trophy } from 'lucide-react';
+import { Plus, Trophy } from 'lucide-react';
 import type { Car, Person } from '@shared/season/car.schema';
 import type { SeasonEvent } from '@shared/season/event.schema';
 import { formatRunTime } from '@shared/season/run-time';
 import { paths } from '@/config/paths';
-import { Button } from '@/components/ui/button';
+import { Button, buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
+import { PendingBadge } from '@/components/ui/pending-badge';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { notYetFetched, useDeliveredEntries } from '@/lib/delivered-entries';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { readStoredChoice, writeStoredChoice } from '@/lib/stored-choice';
 import { useMe } from '@/features/auth/api/get-me';
-import { useCars } from '@/features/cars/api/get-cars';
 import { CarDriverPicker, driversOf } from '@/features/cars/components/car-driver-picker';
-import { useEvent } from '@/features/events/api/get-event';
+import { useCarViews } from '@/features/cars/hooks/use-car-views';
+import { NEW_CAR_PATH } from '@/features/cars/utils/new-car-path';
 import { EventFacts } from '@/features/events/components/event-facts';
+import { useDayEvent } from '@/features/events/hooks/use-event-views';
 import { useRuns } from '@/features/runs/api/get-runs';
 import { LogRunForm } from '@/features/runs/components/log-run-form';
 import { RunList } from '@/features/runs/components/run-list';
@@ -120,12 +122,14 @@ export function EventDayPage() {
   const { eventId = '' } = useParams();
   const [params, setParams] = useSearchParams();
   const { data: me } = useMe();
-  const eventQuery = useEvent(eventId);
-  const carsQuery = useCars();
+  // An event made on this phone shows from the outbox until the server has it; runs logged into it queue behind it.
+  const eventQuery = useDayEvent(eventId);
+  // So do cars made on this phone: a driver can start from nothing with no signal.
+  const carsQuery = useCarViews({ id: me?.id ?? '', displayName: me?.displayName ?? 'You' });
   const [stored, setStored] = useState(() => readStoredChoice<Choice>(choiceKey(eventId)));
   const [picking, setPicking] = useState(false);
 
-  const cars = carsQuery.data?.items ?? [];
+  const cars = carsQuery.cars;
   const carId = params.get('carId') ?? stored?.carId ?? null;
   const car = cars.find((c) => c.id === carId) ?? null;
   const drivers = car ? driversOf(car) : [];
@@ -138,7 +142,7 @@ export function EventDayPage() {
     setParams({ carId: choice.carId }, { replace: true });
   };
 
-  const event = eventQuery.data;
+  const event = eventQuery.event;
   if (!me) return null;
   const person: Person = { id: me.id, displayName: me.displayName };
 
@@ -148,6 +152,16 @@ export function EventDayPage() {
       <header className="flex flex-col">
         <h1 className="line-clamp-2 text-xl font-extrabold">{event?.name ?? (eventQuery.isPending ? 'Loading the event…' : 'Event day')}</h1>
         {event ? <EventFacts event={event} /> : null}
+        {event?.pending ? (
+          <p className="flex flex-wrap items-center gap-x-2 gap-y-1 text-sm">
+            <PendingBadge state={event.pending.state} />
+            <span className={event.pending.state === 'failed' ? 'font-semibold text-warning' : 'text-ink-muted'}>
+              {event.pending.state === 'failed'
+                ? `The server refused this event: ${event.pending.error?.message ?? 'no reason given'}. Runs logged at it stay on this phone; see Sync on Home.`
+                : 'This event is on this phone only so far; it uploads before the runs logged at it.'}
+            </span>
+          </p>
+        ) : null}
         {car && driver && !picking ? (
           <p className="flex flex-wrap items-center gap-x-2 text-sm font-semibold">
             <span>
@@ -171,7 +185,17 @@ export function EventDayPage() {
       ) : !event || carsQuery.isPending ? (
         <p className="text-ink-muted">Loading…</p>
       ) : cars.length === 0 ? (
-        <EmptyState message="You have no cars to log runs for. A car you own or co-drive will show here." />
+        <EmptyState
+          message={
+            carsQuery.isError
+              ? 'Your cars could not be loaded, and none are kept on this phone yet. Try again when you have signal, or add your car now.'
+              : 'You have no cars to log runs for. Add yours (it works with no signal); a car you co-drive shows here once its owner adds you.'
+          }
+        >
+          <Link to={NEW_CAR_PATH} className={buttonClasses('primary', 'self-start')}>
+            <Plus aria-hidden="true" className="size-5" /> Add a car
+          </Link>
+        </EmptyState>
       ) : !car || !driver || picking ? (
         <section aria-label="Choose car and driver" className="rounded-lg border border-line bg-surface p-4">
           <CarDriverPicker

@@ -11,6 +11,7 @@ export function eventQueryOptions(eventId: string) {
   return queryOptions({ queryKey: eventKeys.detail(eventId), queryFn: ({ signal }) => getEvent(eventId, { signal }) });
 }
 
-export function useEvent(eventId: string) {
-  return useQuery(eventQueryOptions(eventId));
+/** `enabled: false` while the event is only on this phone: the server cannot know it yet. */
+export function useEvent(eventId: string, { enabled = true }: { enabled?: boolean } = {}) {
+  return useQuery({ ...eventQueryOptions(eventId), enabled });
 }

@@ -1,28 +1,51 @@
-import { CalendarDays, ChevronRight } from 'lucide-react';
+import { CalendarDays, ChevronRight, Plus } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import { pathTo } from '@/config/paths';
+import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
-import { useEvents } from '../api/get-events';
+import { PendingBadge } from '@/components/ui/pending-badge';
+import { useEventViews } from '../hooks/use-event-views';
 import { currentEvent } from '../utils/current-event';
+import { NEW_EVENT_PATH } from '../utils/new-event-path';
 import { EventFacts } from './event-facts';
 
-/** Today's event (or the latest one), one tap from its event-day screen. */
+function StartTodayLink() {
+  return (
+    <Link to={NEW_EVENT_PATH} className={buttonClasses('primary', 'self-start')}>
+      <Plus aria-hidden="true" className="size-5" /> Start today’s event
+    </Link>
+  );
+}
+
+/** Today's event (or the latest one), one tap from its event-day screen; with none today, a way to start one. */
 export function CurrentEventCard() {
-  const { data, isPending, isError } = useEvents();
+  const { events, isPending, isError } = useEventViews();
   if (isPending) return <p className="text-ink-muted">Loading events…</p>;
   if (isError) return <p className="text-ink-muted">Events could not be loaded. Try again shortly.</p>;
-  const current = currentEvent(data.items);
-  if (!current) return <EmptyState message="No events yet. An event you or your co-drivers enter will show here." />;
+  const current = currentEvent(events);
+  if (!current) {
+    return (
+      <EmptyState message="No events yet. Start one at the venue, or an event you or your co-drivers enter will show here.">
+        <StartTodayLink />
+      </EmptyState>
+    );
+  }
   const { event, isToday } = current;
   return (
-    <Link to={pathTo.event(event.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
-      <CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />
-      <div className="flex min-w-0 flex-1 flex-col">
-        <span className="text-sm font-bold text-ink-muted">{isToday ? 'Today' : 'Latest event'}</span>
-        <span className="font-bold">{event.name}</span>
-        <EventFacts event={event} />
-      </div>
-      <ChevronRight aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
-    </Link>
+    <div className="flex flex-col gap-3">
+      <Link to={pathTo.event(event.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
+        <CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />
+        <div className="flex min-w-0 flex-1 flex-col">
+          <span className="text-sm font-bold text-ink-muted">{isToday ? 'Today' : 'Latest event'}</span>
+          <span className="flex flex-wrap items-center gap-2">
+            <span className="font-bold break-words">{event.name}</span>
+            {event.pending ? <PendingBadge state={event.pending.state} /> : null}
+          </span>
+          <EventFacts event={event} />
+        </div>
+        <ChevronRight aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
+      </Link>
+      {isToday ? null : <StartTodayLink />}
+    </div>
   );
 }

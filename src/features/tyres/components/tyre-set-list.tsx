@@ -1,19 +1,40 @@
+import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { RotateCw } from 'lucide-react';
 import { formatQuantity } from '@shared/calc/units.calc';
-import type { TyreSet } from '@shared/season/tyre.schema';
 import { pathTo } from '@/config/paths';
-import { buttonClasses } from '@/components/ui/button';
+import { Button, buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
 import { formatDateTime } from '@/lib/dates';
 import type { OutboxEntry } from '@/lib/outbox';
 import { useUnits } from '@/lib/units-context';
 import { latestReading } from '../utils/tread';
+import { currentPositions, positionsText, type TyreSetView } from '../utils/tyre-set-views';
+import { RotationForm } from './rotation-form';
 import { TreadDisplay } from './tread-display';
 
-/** A car's tyre sets, each with its latest tread reading in the corner grid. */
-export function TyreSetList({ carId, sets, entries }: { carId: string; sets: readonly TyreSet[]; entries: readonly OutboxEntry[] }) {
+/** Where the set's tyres sit now, and since when. */
+function PositionsLine({ set }: { set: TyreSetView }) {
+  const now = currentPositions(set);
+  return (
+    <p className="tabular-figures flex flex-wrap items-center gap-2 text-sm text-ink-muted">
+      <span>
+        Tyres on the car: {positionsText(now.positions)}
+        {now.mountedAt ? ` · since ${formatDateTime(now.mountedAt)}` : ''}
+      </span>
+      {now.pending ? <PendingBadge state={now.pending.state} /> : null}
+    </p>
+  );
+}
+
+/**
+ * A car's tyre sets, each with where its tyres sit, its latest tread reading in the corner grid,
+ * and a way to record a rotation. Sets and rotations still on this phone are marked.
+ */
+export function TyreSetList({ carId, sets, entries }: { carId: string; sets: readonly TyreSetView[]; entries: readonly OutboxEntry[] }) {
   const units = useUnits();
+  const [rotating, setRotating] = useState<string | null>(null);
   if (sets.length === 0) return <EmptyState message="No tyre sets recorded for this car yet." />;
   return (
     <ul className="flex flex-col gap-4">
@@ -22,13 +43,20 @@ export function TyreSetList({ carId, sets, entries }: { carId: string; sets: rea
         return (
           <li key={set.id} className="flex flex-col gap-2 rounded border border-line p-3">
             <div className="flex flex-wrap items-baseline justify-between gap-2">
-              <h3 className="font-bold">{set.label}</h3>
+              <h3 className="flex flex-wrap items-center gap-2 font-bold">
+                {set.label}
+                {set.pending ? <PendingBadge state={set.pending.state} /> : null}
+              </h3>
               <span className="tabular-figures text-sm text-ink-muted">
                 {[set.size, set.startTreadMm !== null ? `new: ${formatQuantity(set.startTreadMm, 'treadDepth', units)}` : null]
                   .filter(Boolean)
                   .join(' · ')}
               </span>
             </div>
+            {set.pending?.state === 'failed' ? (
+              <p className="text-sm font-semibold text-warning">Refused: {set.pending.error?.message ?? 'the server did not accept it'}</p>
+            ) : null}
+            <PositionsLine set={set} />
             {latest ? (
               <>
                 <p className="tabular-figures flex flex-wrap items-center gap-2 text-sm text-ink-muted">
@@ -40,11 +68,18 @@ export function TyreSetList({ carId, sets, entries }: { carId: string; sets: rea
             ) : (
               <p className="text-sm text-ink-muted">No tread readings yet.</p>
             )}
-            <div>
-              <Link to={pathTo.tread(carId, set.id)} className={buttonClasses('secondary')}>
-                Enter tread for this set
-              </Link>
-            </div>
+            {rotating === set.id ? (
+              <RotationForm carId={carId} set={set} onSaved={() => setRotating(null)} onCancel={() => setRotating(null)} />
+            ) : (
+              <div className="flex flex-wrap gap-2">
+                <Link to={pathTo.tread(carId, set.id)} className={buttonClasses('secondary')}>
+                  Enter tread for this set
+                </Link>
+                <Button variant="secondary" onClick={() => setRotating(set.id)}>
+                  <RotateCw aria-hidden="true" className="size-5" /> Rotate tyres<span className="sr-only"> of {set.label}</span>
+                </Button>
+              </div>
+            )}
           </li>
         );
       })}

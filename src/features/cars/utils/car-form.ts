@@ -1,0 +1,98 @@
+import { z } from 'zod';
+import { AXLES, type Axle } from '@shared/season/corners';
+import { createCarInputSchema, DAMPER_COUNT_FROM, type CreateCarInput, type DamperAdjuster } from '@shared/season/car.schema';
+import { LIMITS } from '@shared/season/limits';
+import { parseDecimal } from '@/lib/numbers';
+
+export type DamperCountFrom = (typeof DAMPER_COUNT_FROM)[number];
+
+/** What the new-car form holds, as typed. */
+export interface CarFormValues {
+  name: string;
+  classCode: string;
+  carNumber: string;
+  tyreSize: string;
+  damperAdjusters: Record<Axle, { positions: string; countFrom: DamperCountFrom }>;
+  motionRatios: Record<Axle, string>;
+  notes: string;
+}
+
+export const COUNT_FROM_WORDS: Record<DamperCountFrom, string> = { full_stiff: 'Full stiff', full_soft: 'Full soft' };
+
+export function emptyCarForm(): CarFormValues {
+  return {
+    name: '',
+    classCode: '',
+    carNumber: '',
+    tyreSize: '',
+    // Counting clicks out from full stiff (closed) is the usual way racing dampers are set; the driver picks.
+    damperAdjusters: { front: { positions: '', countFrom: 'full_stiff' }, rear: { positions: '', countFrom: 'full_stiff' } },
+    motionRatios: { front: '', rear: '' },
+    notes: '',
+  };
+}
+
+const optionalText = (s: string) => (s.trim() ? s.trim() : null);
+const text = z.string();
+
+/**
+ * The form's values → the body of POST /api/cars, checked with the shared schema. An axle whose
+ * click count is left empty has no adjuster; an empty motion ratio is unknown.
+ */
+export const carFormSchema = z
+  .object({
+    name: text,
+    classCode: text,
+    carNumber: text,
+    tyreSize: text,
+    damperAdjusters: z.object({
+      front: z.object({ positions: text, countFrom: z.enum(DAMPER_COUNT_FROM) }),
+      rear: z.object({ positions: text, countFrom: z.enum(DAMPER_COUNT_FROM) }),
+    }),
+    motionRatios: z.object({ front: text, rear: text }),
+    notes: text,
+  })
+  .transform((v, ctx): CreateCarInput => {
+    const local = new Set<string>();
+    const problem = (path: string[], message: string) => {
+      local.add(path.join('.'));
+      ctx.addIssue({ code: 'custom', path, message });
+    };
+    const adjuster = (axle: Axle): DamperAdjuster | null => {
+      const typed = v.damperAdjusters[axle].positions.trim();
+      if (!typed) return null;
+      const path = ['damperAdjusters', axle, 'positions'];
+      const { min, max } = LIMITS.damperPositions;
+      if (!/^\d+$/.test(typed)) problem(path, 'Type a whole number of clicks, e.g. 24');
+      else if (Number(typed) < min || Number(typed) > max) problem(path, `Between ${min} and ${max} clicks`);
+      return { positions: Number(typed), countFrom: v.damperAdjusters[axle].countFrom };
+    };
+    const motionRatio = (axle: Axle): number | null => {
+      const parsed = parseDecimal(v.motionRatios[axle]);
+      if (parsed.kind === 'empty') return null;
+      const path = ['motionRatios', axle];
+      const { min, max } = LIMITS.motionRatio;
+      if (parsed.kind === 'invalid') problem(path, 'Type a number, e.g. 0.75');
+      else if (parsed.value < min || parsed.value > max) problem(path, `Between ${min} and ${max}`);
+      return parsed.kind === 'number' ? parsed.value : null;
+    };
+    const body = {
+      name: v.name,
+      classCode: v.classCode,
+      carNumber: optionalText(v.carNumber),
+      tyreSize: optionalText(v.tyreSize),
+      damperAdjusters: Object.fromEntries(AXLES.map((a) => [a, adjuster(a)])) as Record<Axle, DamperAdjuster | null>,
+      motionRatios: Object.fromEntries(AXLES.map((a) => [a, motionRatio(a)])) as Record<Axle, number | null>,
+      notes: optionalText(v.notes),
+    };
+    const checked = createCarInputSchema.safeParse(body);
+    if (!checked.success) {
+      for (const issue of checked.error.issues) {
+        const path = issue.path.map(String);
+        if (!local.has(path.join('.'))) ctx.addIssue({ code: 'custom', path, message: issue.message });
+      }
+      return z.NEVER;
+    }
+    if (local.size > 0) return z.NEVER;
+    return checked.data;
+  });

@@ -1,0 +1,104 @@
+import { z } from 'zod';
+import { formatQuantity, fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
+import { createEventInputSchema, EVENT_KINDS, type CreateEventInput } from '@shared/season/event.schema';
+import { LIMITS } from '@shared/season/limits';
+import { parseDecimal, tidy } from '@/lib/numbers';
+
+/** What the new-event form holds: text as typed, temperatures in the user's unit. */
+export interface EventFormValues {
+  name: string;
+  date: string;
+  venue: string;
+  kind: (typeof EVENT_KINDS)[number];
+  conePenaltySec: string;
+  surface: string;
+  /** In the user's temperature unit (°C or °F), as typed. */
+  airTempC: string;
+  trackTempC: string;
+}
+
+export const EVENT_FORM_FIELDS = ['name', 'date', 'venue', 'kind', 'conePenaltySec', 'surface', 'airTempC', 'trackTempC'] as const;
+
+/** The usual cone penalty; the form says to use the club's own rule. */
+export const DEFAULT_CONE_PENALTY_SEC = 2;
+
+export function emptyEventForm(today: string): EventFormValues {
+  return {
+    name: '',
+    date: today,
+    venue: '',
+    kind: 'autocross',
+    conePenaltySec: String(DEFAULT_CONE_PENALTY_SEC),
+    surface: '',
+    airTempC: '',
+    trackTempC: '',
+  };
+}
+
+const optionalText = (s: string) => (s.trim() ? s.trim() : null);
+
+/**
+ * The form's values → the body of POST /api/events, checked with the shared schema so the
+ * form refuses what the server would. Temperatures typed in °F are sent in °C; every problem
+ * lands on the input it concerns, all at once.
+ */
+export function eventFormSchema(units: UnitPreferences) {
+  const range = `${formatQuantity(LIMITS.temperatureC.min, 'temperature', units)} and ${formatQuantity(LIMITS.temperatureC.max, 'temperature', units)}`;
+  return z
+    .object({
+      name: z.string(),
+      date: z.string(),
+      venue: z.string(),
+      kind: z.enum(EVENT_KINDS),
+      conePenaltySec: z.string(),
+      surface: z.string(),
+      airTempC: z.string(),
+      trackTempC: z.string(),
+    })
+    .transform((v, ctx): CreateEventInput => {
+      const local = new Set<string>();
+      const temperature = (field: 'airTempC' | 'trackTempC'): number | null => {
+        const parsed = parseDecimal(v[field]);
+        if (parsed.kind === 'empty') return null;
+        if (parsed.kind === 'invalid') {
+          local.add(field);
+          ctx.addIssue({ code: 'custom', path: [field], message: 'Type a number, e.g. 21' });
+          return null;
+        }
+        const celsius = tidy(fromDisplay(parsed.value, 'temperature', units));
+        if (celsius < LIMITS.temperatureC.min || celsius > LIMITS.temperatureC.max) {
+          local.add(field);
+          ctx.addIssue({ code: 'custom', path: [field], message: `Between ${range}` });
+        }
+        return celsius;
+      };
+      let conePenaltySec = DEFAULT_CONE_PENALTY_SEC;
+      const cone = parseDecimal(v.conePenaltySec);
+      if (cone.kind === 'number') conePenaltySec = cone.value;
+      else {
+        local.add('conePenaltySec');
+        ctx.addIssue({ code: 'custom', path: ['conePenaltySec'], message: 'Type the seconds added per cone, e.g. 2' });
+      }
+      const body = {
+        name: v.name,
+        date: v.date,
+        venue: optionalText(v.venue),
+        kind: v.kind,
+        conePenaltySec,
+        surface: optionalText(v.surface),
+        airTempC: temperature('airTempC'),
+        trackTempC: temperature('trackTempC'),
+      };
+      const checked = createEventInputSchema.safeParse(body);
+      if (!checked.success) {
+        for (const issue of checked.error.issues) {
+          const field = String(issue.path[0] ?? '');
+          if (!local.has(field)) ctx.addIssue({ code: 'custom', path: issue.path as PropertyKey[], message: issue.message });
+        }
+        return z.NEVER;
+      }
+      if (local.size > 0) return z.NEVER;
+      return checked.data;
+    });
+}
+

@@ -1,0 +1,90 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { CAR, IDS, list, user } from '../../fixtures/season';
+
+const CAR_PAGE = `/cars/${IDS.car}`;
+
+beforeAll(async () => {
+  await import('@/app/routes/cars/car');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+/** The signed-in user: the owner (the fixture's user) or a co-driver. */
+type Me = Omit<ReturnType<typeof user>, 'id'> & { id: string };
+
+function stubCarPage(me: Me = user(), extra: Parameters<typeof stubFetch>[0] = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: me }),
+    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+    [`GET /api/cars/${IDS.car}/setups`]: list([]),
+    [`GET /api/cars/${IDS.car}/tyre-sets`]: list([]),
+    [`GET /api/cars/${IDS.car}/changes`]: list([]),
+    ...extra,
+  });
+}
+
+const drivers = () => screen.getByRole('list', { name: 'Drivers' });
+
+describe('co-drivers', () => {
+  it('when the owner adds an e-mail no account uses, then the server’s message shows on the e-mail field, not as a toast', async () => {
+    const message = 'No account uses that e-mail; ask them to register first';
+    const fetchMock = stubCarPage(user(), {
+      [`POST /api/cars/${IDS.car}/co-drivers`]: errorResponse(400, 'validation_failed', 'No account uses that e-mail.', { email: [message] }),
+    });
+    renderApp(CAR_PAGE);
+    const u = userEvent.setup();
+
+    const email = await screen.findByLabelText('Co-driver’s e-mail');
+    await u.type(email, '  Nobody@Example.test ');
+    await u.click(screen.getByRole('button', { name: 'Add co-driver' }));
+
+    const shown = await screen.findByText(message);
+    expect(email.getAttribute('aria-invalid')).toBe('true');
+    expect(email.getAttribute('aria-describedby')).toContain(shown.id);
+    expect(screen.getAllByText(message)).toHaveLength(1);
+    expect(screen.queryByText('No account uses that e-mail.')).toBeNull();
+    expect(requestsTo(fetchMock, `POST /api/cars/${IDS.car}/co-drivers`)[0]?.body).toEqual({ email: 'nobody@example.test' });
+  });
+
+  it('when the owner removes a co-driver and confirms, then the server is asked and the list no longer shows them', async () => {
+    let removed = false;
+    const fetchMock = stubCarPage(user(), {
+      [`GET /api/cars/${IDS.car}`]: () => jsonResponse(200, removed ? { ...CAR, coDrivers: [], version: 2 } : CAR),
+      'GET /api/cars': () => list([removed ? { ...CAR, coDrivers: [] } : CAR]),
+      [`DELETE /api/cars/${IDS.car}/co-drivers/${IDS.tomas}`]: () => {
+        removed = true;
+        return jsonResponse(204);
+      },
+    });
+    renderApp(CAR_PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Remove Tomas Reyes' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Remove Tomas Reyes?' });
+    await u.click(within(dialog).getByRole('button', { name: 'Remove co-driver' }));
+
+    await waitFor(() => expect(within(drivers()).queryByText('Tomas Reyes')).toBeNull());
+    expect(requestsTo(fetchMock, `DELETE /api/cars/${IDS.car}/co-drivers/${IDS.tomas}`)).toHaveLength(1);
+  });
+
+  it('when the signed-in user is a co-driver, then the drivers are listed without add or remove', async () => {
+    stubCarPage({ ...user(), id: IDS.tomas, email: 'tomas@example.test', displayName: 'Tomas Reyes' });
+    renderApp(CAR_PAGE);
+
+    expect(await screen.findByText('Only the owner, Maren Holt, can add or remove co-drivers.')).toBeTruthy();
+    expect(within(drivers()).getByText(/Tomas Reyes/).textContent).toBe('Tomas Reyes (you)');
+    expect(screen.queryByLabelText('Co-driver’s e-mail')).toBeNull();
+    expect(screen.queryByRole('button', { name: /^Remove/ })).toBeNull();
+  });
+});

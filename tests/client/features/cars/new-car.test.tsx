@@ -1,0 +1,94 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { dropCsrfToken } from '@/lib/api-client';
+import type { OutboxEntry } from '@/lib/outbox';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, jsonResponse, renderApp, stubFetch } from '../../test-utils';
+import { list, user, UUID } from '../../fixtures/season';
+
+const offline = () => Promise.reject(new TypeError('Failed to fetch'));
+
+beforeAll(async () => {
+  await import('@/app/routes/cars/cars');
+  await import('@/app/routes/home');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+function stubNoCars() {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/cars': list([]),
+    'GET /api/events': list([]),
+    'POST /api/cars': offline,
+  });
+}
+
+describe('new car', () => {
+  it('when a car is created with no signal, then one outbox entry holds it with its damper adjusters, and the cars list shows it waiting to upload', async () => {
+    stubNoCars();
+    const { outbox, router } = renderApp('/cars?new=1');
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText(/^Name/), 'Blue hatch');
+    await u.type(screen.getByLabelText('Class'), 'hs');
+    await u.type(screen.getByLabelText('Car number (optional)'), '12');
+    await u.type(screen.getByLabelText('Tyre size (optional)'), '195/55R15');
+    const front = screen.getByRole('group', { name: 'Front dampers' });
+    await u.type(within(front).getByLabelText('Number of clicks'), '24');
+    await u.click(within(front).getByLabelText('Full soft'));
+    const rear = screen.getByRole('group', { name: 'Rear dampers' });
+    await u.type(within(rear).getByLabelText('Number of clicks'), '16');
+    await u.type(screen.getByLabelText('Front motion ratio'), '0,8');
+    await u.click(screen.getByRole('button', { name: 'Save car' }));
+
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(1));
+    const [entry] = outbox.getSnapshot() as OutboxEntry[];
+    const body = entry!.body as Record<string, unknown>;
+    expect(body.id).toMatch(UUID);
+    expect(entry).toMatchObject({ kind: 'car.create', method: 'POST', path: '/api/cars', recordId: body.id });
+    expect(body).toMatchObject({
+      name: 'Blue hatch',
+      classCode: 'hs',
+      carNumber: '12',
+      tyreSize: '195/55R15',
+      damperAdjusters: { front: { positions: 24, countFrom: 'full_soft' }, rear: { positions: 16, countFrom: 'full_stiff' } },
+      motionRatios: { front: 0.8, rear: null },
+    });
+
+    await waitFor(() => expect(router.state.location.pathname + router.state.location.search).toBe('/cars'));
+    const item = (await screen.findByText('Blue hatch')).closest('li')!;
+    expect(within(item).getByText('Waiting to upload')).toBeTruthy();
+    // Not a link yet: its page has nothing to show until the server has it.
+    expect(within(item).queryByRole('link')).toBeNull();
+  });
+
+  it('when the clicks are not a whole number and the class is missing, then both inputs say so and nothing is saved', async () => {
+    stubNoCars();
+    const { outbox } = renderApp('/cars?new=1');
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText(/^Name/), 'Blue hatch');
+    await u.type(within(screen.getByRole('group', { name: 'Rear dampers' })).getByLabelText('Number of clicks'), '12.5');
+    await u.click(screen.getByRole('button', { name: 'Save car' }));
+
+    expect(await screen.findByText('Enter the class')).toBeTruthy();
+    expect(screen.getByText('Type a whole number of clicks, e.g. 24')).toBeTruthy();
+    expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+
+  it('when the driver has no cars, then Home offers to add one', async () => {
+    stubNoCars();
+    renderApp('/');
+
+    const link = await screen.findByRole('link', { name: 'Add a car' });
+    expect(link.getAttribute('href')).toBe('/cars?new=1');
+  });
+});
