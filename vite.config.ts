@@ -52,6 +52,8 @@ export default defineConfig({
   build: {
     outDir: 'dist',
     sourcemap: true,
+    // Lists each chunk's imports, for scripts/bundle-size.ts.
+    manifest: true,
   },
   test: {
     projects: [
