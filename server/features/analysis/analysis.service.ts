@@ -4,7 +4,6 @@ import type { User } from '@shared/auth/auth.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import type { Setup, SetupCorner } from '@shared/season/setup.schema';
 import type { Run } from '@shared/season/run.schema';
-import type { TreadReading } from '@shared/season/tyre.schema';
 import { diffSetups } from '@shared/season/setup-diff';
 import { compareSamples, runsLeft, verdict, wearRateMmPerRun } from '@shared/calc/index';
 import type {
@@ -55,49 +54,96 @@ function normalizedClicks(car: CarEntity, where: CornerOrAxle, clicks: number): 
 
 interface WearInterval {
   corner: Corner;
-  from: TreadReading;
-  to: TreadReading;
-  runs: Run[];
+  /** The two readings' times. */
+  fromAt: string;
+  toAt: string;
+  /** The car's runs between them, and when the first and last were made. */
+  runs: number;
+  firstRunAt: string;
+  lastRunAt: string;
   /** mm lost per run, by position; positive = worn. */
   inner: number;
   middle: number;
   outer: number;
+  /** The snapshot most of those runs were on. */
   setupId: string | null;
   eventId: string | null;
 }
 
+interface WearRow {
+  corner: Corner;
+  from_at: Date;
+  to_at: Date;
+  runs: number;
+  first_run_at: Date;
+  last_run_at: Date;
+  inner: number;
+  middle: number;
+  outer: number;
+  setup_id: string | null;
+  event_id: string | null;
+}
+
 /**
- * Wear between consecutive readings of one set, per corner, over the car's runs
- * between them. An interval across a rotation (a different tyre on the corner)
- * is left out: the two readings are of different tyres.
+ * Wear between consecutive readings of each tyre set, per corner, over the car's
+ * runs between them — worked out in PostgreSQL (a window over the readings and
+ * an aggregate over the runs), so only the intervals leave the database. An
+ * interval across a rotation (another tyre on the corner) is left out: the two
+ * readings are of different tyres. Before the first recorded mounting, the set is
+ * as first fitted.
  */
-function wearIntervals(sets: Awaited<ReturnType<typeof tyreSetsWithReadings>>, runs: Run[]): WearInterval[] {
-  const out: WearInterval[] = [];
-  for (const { readings } of sets) {
-    for (let i = 1; i < readings.length; i++) {
-      const from = readings[i - 1]!;
-      const to = readings[i]!;
-      const between = runs.filter((r) => r.recordedAt > from.takenAt && r.recordedAt <= to.takenAt);
-      if (between.length === 0) continue;
-      const counts = new Map<string, number>();
-      for (const r of between) if (r.setupId) counts.set(r.setupId, (counts.get(r.setupId) ?? 0) + 1);
-      const setupId = [...counts.entries()].sort((a, b) => b[1] - a[1])[0]?.[0] ?? null;
-      for (const corner of CORNERS) {
-        const a = from.corners[corner];
-        const b = to.corners[corner];
-        if (!a || !b || a.tyreNumber !== b.tyreNumber) continue;
-        const n = between.length;
-        out.push({
-          corner, from, to, runs: between, setupId,
-          eventId: to.eventId ?? between.at(-1)!.eventId,
-          inner: (a.innerMm - b.innerMm) / n,
-          middle: (a.middleMm - b.middleMm) / n,
-          outer: (a.outerMm - b.outerMm) / n,
-        });
-      }
-    }
-  }
-  return out;
+async function wearIntervals(ds: DataSource, carId: string): Promise<WearInterval[]> {
+  const rows: WearRow[] = await ds.query(
+    `WITH corner_readings AS (
+       SELECT t.id, t.tyre_set_id, t.taken_at, t.event_id, c.corner, c.inner_mm, c.middle_mm, c.outer_mm,
+              (SELECT CASE c.corner WHEN 'lf' THEN m.lf_tyre WHEN 'rf' THEN m.rf_tyre WHEN 'lr' THEN m.lr_tyre ELSE m.rr_tyre END
+                 FROM tyre_mountings m
+                WHERE m.tyre_set_id = t.tyre_set_id
+                ORDER BY (m.mounted_at <= t.taken_at) DESC,
+                         CASE WHEN m.mounted_at <= t.taken_at THEN m.mounted_at END DESC NULLS LAST,
+                         m.mounted_at
+                LIMIT 1) AS tyre
+         FROM tread_readings t
+         JOIN tyre_sets s ON s.id = t.tyre_set_id
+         JOIN tread_reading_corners c ON c.reading_id = t.id
+        WHERE s.car_id = $1
+     ), pairs AS (
+       SELECT cr.*,
+              lag(cr.taken_at) OVER w AS prev_at, lag(cr.tyre) OVER w AS prev_tyre,
+              lag(cr.inner_mm) OVER w AS prev_inner, lag(cr.middle_mm) OVER w AS prev_middle, lag(cr.outer_mm) OVER w AS prev_outer
+         FROM corner_readings cr
+       WINDOW w AS (PARTITION BY cr.tyre_set_id, cr.corner ORDER BY cr.taken_at, cr.id)
+     )
+     SELECT p.corner, p.prev_at AS from_at, p.taken_at AS to_at, n.runs, n.first_run_at, n.last_run_at,
+            (p.prev_inner - p.inner_mm) / n.runs AS inner,
+            (p.prev_middle - p.middle_mm) / n.runs AS middle,
+            (p.prev_outer - p.outer_mm) / n.runs AS outer,
+            n.setup_id, COALESCE(p.event_id, n.last_event_id) AS event_id
+       FROM pairs p
+       CROSS JOIN LATERAL (
+         SELECT count(*)::int AS runs, min(r.recorded_at) AS first_run_at, max(r.recorded_at) AS last_run_at,
+                mode() WITHIN GROUP (ORDER BY r.setup_id) AS setup_id,
+                (array_agg(r.event_id ORDER BY r.recorded_at DESC))[1] AS last_event_id
+           FROM runs_with_setup r
+          WHERE r.car_id = $1 AND r.recorded_at > p.prev_at AND r.recorded_at <= p.taken_at
+       ) n
+      WHERE p.prev_at IS NOT NULL AND p.prev_tyre IS NOT DISTINCT FROM p.tyre AND n.runs > 0
+      ORDER BY p.taken_at, p.corner`,
+    [carId],
+  );
+  return rows.map((r) => ({
+    corner: r.corner,
+    fromAt: r.from_at.toISOString(),
+    toAt: r.to_at.toISOString(),
+    runs: r.runs,
+    firstRunAt: r.first_run_at.toISOString(),
+    lastRunAt: r.last_run_at.toISOString(),
+    inner: r.inner,
+    middle: r.middle,
+    outer: r.outer,
+    setupId: r.setup_id,
+    eventId: r.event_id,
+  }));
 }
 
 async function loadSeason(ds: DataSource, carId: string) {
@@ -154,12 +200,12 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
     }
   } else {
     const wanted = new Set(cornersOf(q.corner));
-    for (const w of wearIntervals(season.sets, season.runs)) {
+    for (const w of await wearIntervals(ds, carId)) {
       if (!wanted.has(w.corner)) continue;
       const b = base(w.setupId, w.eventId);
       if (!b) continue;
       const y = q.y === 'wear' ? (w.inner + w.middle + w.outer) / 3 : w.inner - w.outer;
-      points.push({ ...b, y, runId: null, runs: w.runs.length, corner: w.corner });
+      points.push({ ...b, y, runId: null, runs: w.runs, corner: w.corner });
     }
   }
   const descriptions = {
@@ -201,13 +247,13 @@ export async function compare(ds: DataSource, user: User, carId: string, q: Comp
   }
   const season = await loadSeason(ds, carId);
   const split = splitAt.toISOString();
-  const intervals = wearIntervals(season.sets, season.runs);
+  const intervals = await wearIntervals(ds, carId);
   const corners = {} as CompareResult['corners'];
   for (const corner of CORNERS) {
     const mine = intervals.filter((w) => w.corner === corner);
     // An interval counts on a side when all its runs were made on that side of the change.
-    const before = mine.filter((w) => w.runs.every((r) => r.recordedAt < split));
-    const after = mine.filter((w) => w.runs.every((r) => r.recordedAt >= split));
+    const before = mine.filter((w) => w.lastRunAt < split);
+    const after = mine.filter((w) => w.firstRunAt >= split);
     const label = corner.toUpperCase();
     corners[corner] = {
       wear: comparison(before.map((w) => (w.inner + w.middle + w.outer) / 3), after.map((w) => (w.inner + w.middle + w.outer) / 3), {
