@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
+import type * as z from '@shared/zod';
 import { loginInputSchema, type LoginInput, type User } from '@shared/auth/auth.schema';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
+import type * as z from '@shared/zod';
 import {
   PASSWORD_MAX,
   PASSWORD_MIN,
