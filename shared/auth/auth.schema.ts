@@ -1,14 +1,14 @@
+/**
+ * The signed-in user, roles and preferences: what every page reads. The sign-in and register
+ * inputs (and the breached-password list they need) are in credentials.schema.ts, so only those
+ * two pages download them.
+ */
 import * as z from '../zod';
-import { isCommonPassword } from './common-passwords';
 import { QUANTITIES, QUANTITY_UNITS, unitPreferencesSchema, type UnitPreferences } from '../calc/units.calc';
 
 export const ROLES = ['driver', 'shop_staff', 'team_captain', 'admin'] as const;
 export const roleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof roleSchema>;
-
-/** OWASP ASVS 4.0 V2.1.1 (at least 12 characters) and V2.1.2 (128 allowed, no more). */
-export const PASSWORD_MIN = 12;
-export const PASSWORD_MAX = 128;
 
 export const emailSchema = z.pipe(
   z
@@ -16,30 +16,6 @@ export const emailSchema = z.pipe(
     .check(z.trim(), z.toLowerCase(), z.maxLength(254, 'An e-mail address has at most 254 characters')),
   z.email({ error: 'Enter a valid e-mail address' }),
 );
-
-export const newPasswordSchema = z
-  .string({ error: 'Choose a password' })
-  .check(
-    z.minLength(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters`),
-    z.maxLength(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters`),
-    z.refine((p) => !isCommonPassword(p), 'This password appears in lists of breached passwords; choose another'),
-  );
-
-export const registerInputSchema = z.strictObject({
-  email: emailSchema,
-  password: newPasswordSchema,
-  displayName: z
-    .string({ error: 'Enter the name others will see' })
-    .check(z.trim(), z.minLength(1, 'Enter the name others will see'), z.maxLength(80, 'Use at most 80 characters')),
-});
-export type RegisterInput = z.infer<typeof registerInputSchema>;
-
-export const loginInputSchema = z.strictObject({
-  email: emailSchema,
-  // Only a length cap here: sign-in must not reveal the password rules of old accounts.
-  password: z.string({ error: 'Enter your password' }).check(z.minLength(1, 'Enter your password'), z.maxLength(PASSWORD_MAX * 4)),
-});
-export type LoginInput = z.infer<typeof loginInputSchema>;
 
 /** What each user sets for themselves; stored as given, read through this schema so defaults fill gaps. */
 export const preferencesSchema = z.object({
