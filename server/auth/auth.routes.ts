@@ -1,9 +1,7 @@
 import { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
-import {
-  loginInputSchema, registerInputSchema, updatePreferencesInputSchema,
-  type LoginInput, type RegisterInput, type UpdatePreferencesInput, type User,
-} from '@shared/auth/auth.schema';
+import { updatePreferencesInputSchema, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
+import { loginInputSchema, registerInputSchema, type LoginInput, type RegisterInput } from '@shared/auth/credentials.schema';
 import { AppError } from '../lib/app-error';
 import { parsed, validate } from '../lib/validate';
 import { createUser, updatePreferences } from '../features/users/user.service';

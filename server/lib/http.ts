@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from '@shared/zod';
 
 /** Path parameters are UUIDs; anything else is simply not found. */
 export const idParam = (...names: string[]) =>

@@ -1,12 +1,12 @@
 import type { RequestHandler } from 'express';
-import type { z } from 'zod';
+import * as z from '@shared/zod';
 import { toFieldErrors } from '@shared/api/api-error.schema';
 import { AppError } from './app-error';
 
 interface Schemas {
-  body?: z.ZodType;
-  params?: z.ZodType;
-  query?: z.ZodType;
+  body?: z.core.$ZodType;
+  params?: z.core.$ZodType;
+  query?: z.core.$ZodType;
 }
 
 /**
@@ -19,7 +19,7 @@ export function validate(schemas: Schemas): RequestHandler {
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = schemas[part];
       if (!schema) continue;
-      const result = schema.safeParse(req[part] ?? {});
+      const result = z.safeParse(schema, req[part] ?? {});
       if (!result.success) {
         // A malformed id names no record: that is "not found", like an id that does not exist.
         if (part === 'params') throw new AppError('not_found', 'That record was not found.');

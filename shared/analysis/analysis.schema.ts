@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from '../zod';
 import type { Corner } from '../season/corners';
 import type { SetupChange } from '../season/setup.schema';
 
@@ -16,23 +16,25 @@ export const scatterQuerySchema = z.strictObject({
   x: z.enum(SCATTER_PARAMS, { error: `Pick x from ${SCATTER_PARAMS.join(', ')}` }),
   y: z.enum(SCATTER_METRICS, { error: `Pick y from ${SCATTER_METRICS.join(', ')}` }),
   /** A corner, or an axle (the mean of its two corners). Defaults to the front axle. */
-  corner: z.enum(CORNER_OR_AXLE).default('front'),
-  from: isoDate.optional(),
-  to: isoDate.optional(),
+  corner: z._default(z.enum(CORNER_OR_AXLE), 'front'),
+  from: z.optional(isoDate),
+  to: z.optional(isoDate),
 });
 export type ScatterQuery = z.infer<typeof scatterQuerySchema>;
 
 export const compareQuerySchema = z
-  .strictObject({ changeId: z.uuid().optional(), at: z.iso.datetime({ offset: true }).or(isoDate).optional() })
-  .refine((q) => (q.changeId === undefined) !== (q.at === undefined), {
-    message: 'Give either a change from the log (changeId) or a date (at)',
-    path: ['changeId'],
-  });
+  .strictObject({ changeId: z.optional(z.uuid()), at: z.optional(z.union([z.iso.datetime({ offset: true }), isoDate])) })
+  .check(
+    z.refine((q) => (q.changeId === undefined) !== (q.at === undefined), {
+      message: 'Give either a change from the log (changeId) or a date (at)',
+      path: ['changeId'],
+    }),
+  );
 export type CompareQuery = z.infer<typeof compareQuerySchema>;
 
 export const seasonQuerySchema = z.strictObject({
   /** The depth a driver retires a tyre at; 1.6 mm (2/32 in) is where wear indicators sit. */
-  minDepthMm: z.coerce.number().min(0).max(10).default(1.6),
+  minDepthMm: z._default(z.coerce.number().check(z.gte(0), z.lte(10)), 1.6),
 });
 
 export interface ScatterPoint {

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from '../zod';
 
 /** Machine-readable error codes; the HTTP status goes with each one. */
 export const API_ERROR_CODES = {
@@ -26,16 +26,16 @@ export const apiErrorSchema = z.object({
   error: z.object({
     code: z.string(),
     message: z.string(),
-    fieldErrors: fieldErrorsSchema.optional(),
-    requestId: z.string().optional(),
+    fieldErrors: z.optional(fieldErrorsSchema),
+    requestId: z.optional(z.string()),
     /** On a 409 for a stale edit: the record as it stands now. */
-    current: z.unknown().optional(),
+    current: z.optional(z.unknown()),
   }),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorSchema>;
 
 /** Flattens a zod error into `{ "path.to.field": ["message"] }`. */
-export function toFieldErrors(error: z.ZodError): FieldErrors {
+export function toFieldErrors(error: z.core.$ZodError): FieldErrors {
   const out: FieldErrors = {};
   for (const issue of error.issues) {
     const key = issue.path.map(String).join('.');

@@ -6,7 +6,7 @@
  * the 1959 international yard and pound agreement), and the derived ones (psi,
  * lbf/in) are computed from them, never typed in rounded.
  */
-import { z } from 'zod';
+import * as z from '../zod';
 
 // ── Exact definitions ────────────────────────────────────────────────────────
 export const MM_PER_INCH = 25.4;
@@ -174,14 +174,14 @@ const choiceMessage = (label: string, q: Quantity) =>
 
 /** A user's unit preferences; every field optional, missing ones default to metric (SI). */
 export const unitPreferencesSchema = z.strictObject({
-  pressure: z.enum(QUANTITY_UNITS.pressure, { error: choiceMessage('Pressure', 'pressure') }).default(SI_UNITS.pressure),
-  length: z.enum(QUANTITY_UNITS.length, { error: choiceMessage('Length', 'length') }).default(SI_UNITS.length),
-  treadDepth: z.enum(QUANTITY_UNITS.treadDepth, { error: choiceMessage('Tread depth', 'treadDepth') }).default(SI_UNITS.treadDepth),
-  springRate: z.enum(QUANTITY_UNITS.springRate, { error: choiceMessage('Spring rate', 'springRate') }).default(SI_UNITS.springRate),
-  mass: z.enum(QUANTITY_UNITS.mass, { error: choiceMessage('Mass', 'mass') }).default(SI_UNITS.mass),
-  temperature: z.enum(QUANTITY_UNITS.temperature, { error: choiceMessage('Temperature', 'temperature') }).default(SI_UNITS.temperature),
-  angle: z.enum(QUANTITY_UNITS.angle, { error: choiceMessage('Angle', 'angle') }).default(SI_UNITS.angle),
-  time: z.enum(QUANTITY_UNITS.time, { error: choiceMessage('Time', 'time') }).default(SI_UNITS.time),
+  pressure: z._default(z.enum(QUANTITY_UNITS.pressure, { error: choiceMessage('Pressure', 'pressure') }), SI_UNITS.pressure),
+  length: z._default(z.enum(QUANTITY_UNITS.length, { error: choiceMessage('Length', 'length') }), SI_UNITS.length),
+  treadDepth: z._default(z.enum(QUANTITY_UNITS.treadDepth, { error: choiceMessage('Tread depth', 'treadDepth') }), SI_UNITS.treadDepth),
+  springRate: z._default(z.enum(QUANTITY_UNITS.springRate, { error: choiceMessage('Spring rate', 'springRate') }), SI_UNITS.springRate),
+  mass: z._default(z.enum(QUANTITY_UNITS.mass, { error: choiceMessage('Mass', 'mass') }), SI_UNITS.mass),
+  temperature: z._default(z.enum(QUANTITY_UNITS.temperature, { error: choiceMessage('Temperature', 'temperature') }), SI_UNITS.temperature),
+  angle: z._default(z.enum(QUANTITY_UNITS.angle, { error: choiceMessage('Angle', 'angle') }), SI_UNITS.angle),
+  time: z._default(z.enum(QUANTITY_UNITS.time, { error: choiceMessage('Time', 'time') }), SI_UNITS.time),
 });
 export type UnitPreferencesInput = z.input<typeof unitPreferencesSchema>;
 

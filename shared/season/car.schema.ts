@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from '../zod';
 import { LIMITS } from './limits';
 import { emailSchema } from '../auth/auth.schema';
 
@@ -6,33 +6,33 @@ export const DAMPER_COUNT_FROM = ['full_stiff', 'full_soft'] as const;
 
 export const damperAdjusterSchema = z.strictObject({
   /** Number of click positions the adjuster has. */
-  positions: z.number().int().min(LIMITS.damperPositions.min).max(LIMITS.damperPositions.max),
+  positions: z.number().check(z.int(), z.gte(LIMITS.damperPositions.min), z.lte(LIMITS.damperPositions.max)),
   /** Which end click 0 is counted from. */
   countFrom: z.enum(DAMPER_COUNT_FROM),
 });
 export type DamperAdjuster = z.infer<typeof damperAdjusterSchema>;
 
-const motionRatio = z.number().min(LIMITS.motionRatio.min).max(LIMITS.motionRatio.max);
-const text = (max: number) => z.string().trim().max(max, `Use at most ${max} characters`);
+const motionRatio = z.number().check(z.gte(LIMITS.motionRatio.min), z.lte(LIMITS.motionRatio.max));
+const text = (max: number) => z.string().check(z.trim(), z.maxLength(max, `Use at most ${max} characters`));
+/** Optional, and null clears it. */
+const clearable = <T extends z.ZodMiniType>(schema: T) => z.optional(z.nullable(schema));
 
 const carFields = {
-  name: text(80).min(1, 'Give the car a name'),
-  classCode: text(20).min(1, 'Enter the class'),
-  carNumber: text(10).nullable().optional(),
-  tyreSize: text(40).nullable().optional(),
-  damperAdjusters: z
-    .strictObject({ front: damperAdjusterSchema.nullable().optional(), rear: damperAdjusterSchema.nullable().optional() })
-    .optional(),
-  motionRatios: z.strictObject({ front: motionRatio.nullable().optional(), rear: motionRatio.nullable().optional() }).optional(),
-  notes: text(2000).nullable().optional(),
+  name: text(80).check(z.minLength(1, 'Give the car a name')),
+  classCode: text(20).check(z.minLength(1, 'Enter the class')),
+  carNumber: clearable(text(10)),
+  tyreSize: clearable(text(40)),
+  damperAdjusters: z.optional(z.strictObject({ front: clearable(damperAdjusterSchema), rear: clearable(damperAdjusterSchema) })),
+  motionRatios: z.optional(z.strictObject({ front: clearable(motionRatio), rear: clearable(motionRatio) })),
+  notes: clearable(text(2000)),
 };
 
-export const createCarInputSchema = z.strictObject({ id: z.uuid().optional(), ...carFields });
+export const createCarInputSchema = z.strictObject({ id: z.optional(z.uuid()), ...carFields });
 export type CreateCarInput = z.infer<typeof createCarInputSchema>;
 
-export const versionSchema = z.number({ error: 'Send the version this edit is based on' }).int().min(1);
+export const versionSchema = z.number({ error: 'Send the version this edit is based on' }).check(z.int(), z.gte(1));
 
-export const updateCarInputSchema = createCarInputSchema.omit({ id: true }).partial().extend({ version: versionSchema });
+export const updateCarInputSchema = z.extend(z.partial(z.omit(createCarInputSchema, { id: true })), { version: versionSchema });
 export type UpdateCarInput = z.infer<typeof updateCarInputSchema>;
 
 export const addCoDriverInputSchema = z.strictObject({ email: emailSchema });

@@ -1,14 +1,14 @@
-import { z } from 'zod';
+import * as z from '../zod';
 
 export const CHANGE_LOCATIONS = ['lf', 'rf', 'lr', 'rr', 'front', 'rear', 'car'] as const;
 
 export const createChangeInputSchema = z.strictObject({
-  id: z.uuid().optional(),
+  id: z.optional(z.uuid()),
   changedOn: z.iso.date({ error: 'Use a date such as 2026-06-12' }),
-  what: z.string().trim().min(1, 'Say what was changed').max(200, 'Use at most 200 characters'),
-  location: z.enum(CHANGE_LOCATIONS).default('car'),
-  notes: z.string().trim().max(2000).nullable().optional(),
-  setupId: z.uuid().nullable().optional(),
+  what: z.string().check(z.trim(), z.minLength(1, 'Say what was changed'), z.maxLength(200, 'Use at most 200 characters')),
+  location: z._default(z.enum(CHANGE_LOCATIONS), 'car'),
+  notes: z.optional(z.nullable(z.string().check(z.trim(), z.maxLength(2000)))),
+  setupId: z.optional(z.nullable(z.uuid())),
 });
 export type CreateChangeInput = z.infer<typeof createChangeInputSchema>;
 

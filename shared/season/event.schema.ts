@@ -1,28 +1,34 @@
-import { z } from 'zod';
+import * as z from '../zod';
 import { LIMITS } from './limits';
 
 export const EVENT_KINDS = ['autocross', 'track_day'] as const;
 
-const temperature = z.number().min(LIMITS.temperatureC.min).max(LIMITS.temperatureC.max).nullable().optional();
+const temperature = z.optional(z.nullable(z.number().check(z.gte(LIMITS.temperatureC.min), z.lte(LIMITS.temperatureC.max))));
+/** Trimmed free text of at most `max` characters; optional, and null clears it. */
+const optionalText = (max: number) => z.optional(z.nullable(z.string().check(z.trim(), z.maxLength(max))));
 
 export const createEventInputSchema = z.strictObject({
   /** Client-made id, so an event created with no signal is not made twice on replay. */
-  id: z.uuid().optional(),
-  name: z.string().trim().min(1, 'Give the event a name').max(120, 'Use at most 120 characters'),
+  id: z.optional(z.uuid()),
+  name: z.string().check(z.trim(), z.minLength(1, 'Give the event a name'), z.maxLength(120, 'Use at most 120 characters')),
   date: z.iso.date({ error: 'Use a date such as 2026-06-12' }),
-  venue: z.string().trim().max(120).nullable().optional(),
-  kind: z.enum(EVENT_KINDS).default('autocross'),
+  venue: optionalText(120),
+  kind: z._default(z.enum(EVENT_KINDS), 'autocross'),
   /** Seconds added per cone; 2 s is common practice in autocross. */
-  conePenaltySec: z
-    .number()
-    .min(LIMITS.conePenaltySec.min, 'The cone penalty cannot be negative')
-    .max(LIMITS.conePenaltySec.max, `The cone penalty must be at most ${LIMITS.conePenaltySec.max} s`)
-    .default(2),
-  surface: z.string().trim().max(80).nullable().optional(),
+  conePenaltySec: z._default(
+    z
+      .number()
+      .check(
+        z.gte(LIMITS.conePenaltySec.min, 'The cone penalty cannot be negative'),
+        z.lte(LIMITS.conePenaltySec.max, `The cone penalty must be at most ${LIMITS.conePenaltySec.max} s`),
+      ),
+    2,
+  ),
+  surface: optionalText(80),
   airTempC: temperature,
   trackTempC: temperature,
-  notes: z.string().trim().max(2000).nullable().optional(),
-  teamId: z.uuid().nullable().optional(),
+  notes: optionalText(2000),
+  teamId: z.optional(z.nullable(z.uuid())),
 });
 export type CreateEventInput = z.infer<typeof createEventInputSchema>;
 

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from '../zod';
 import { perCorner, type PerCorner } from './corners';
 import { LIMITS } from './limits';
 import { pressureKpaSchema } from './setup.schema';
@@ -10,25 +10,29 @@ export type RunStatus = z.infer<typeof runStatusSchema>;
 
 export const rawTimeSecSchema = z
   .number({ error: 'Enter the time in seconds' })
-  .gt(LIMITS.rawTimeSec.minExclusive, 'The time must be above 0 s')
-  .lt(LIMITS.rawTimeSec.maxExclusive, 'The time must be under 1800 s (30 min)');
+  .check(
+    z.gt(LIMITS.rawTimeSec.minExclusive, 'The time must be above 0 s'),
+    z.lt(LIMITS.rawTimeSec.maxExclusive, 'The time must be under 1800 s (30 min)'),
+  );
 
 export const conesSchema = z
   .number({ error: 'Cones must be a whole number' })
-  .int('Cones must be a whole number')
-  .min(LIMITS.cones.min, 'Cones cannot be negative')
-  .max(LIMITS.cones.max, `Cones must be at most ${LIMITS.cones.max}`);
+  .check(
+    z.int('Cones must be a whole number'),
+    z.gte(LIMITS.cones.min, 'Cones cannot be negative'),
+    z.lte(LIMITS.cones.max, `Cones must be at most ${LIMITS.cones.max}`),
+  );
 
 const runFields = {
-  runNumber: z.number().int('Run numbers are whole numbers').min(1, 'Run numbers start at 1').max(999),
+  runNumber: z.number().check(z.int('Run numbers are whole numbers'), z.gte(1, 'Run numbers start at 1'), z.lte(999)),
   /** Null for a DNF or off-course run with no time taken. */
-  rawTimeSec: rawTimeSecSchema.nullable(),
-  cones: conesSchema.default(0),
-  status: runStatusSchema.default('finished'),
+  rawTimeSec: z.nullable(rawTimeSecSchema),
+  cones: z._default(conesSchema, 0),
+  status: z._default(runStatusSchema, 'finished'),
   recordedAt: z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T09:30:00Z' }),
-  driverId: z.uuid().optional(),
-  hotPressuresKpa: perCorner(pressureKpaSchema).nullable().optional(),
-  notes: z.string().trim().max(2000).nullable().optional(),
+  driverId: z.optional(z.uuid()),
+  hotPressuresKpa: z.optional(z.nullable(perCorner(pressureKpaSchema))),
+  notes: z.optional(z.nullable(z.string().check(z.trim(), z.maxLength(2000)))),
 };
 
 const needsTime = (r: { status?: RunStatus; rawTimeSec?: number | null }) =>
@@ -43,27 +47,27 @@ export const createRunInputSchema = z
     eventId: z.uuid(),
     ...runFields,
   })
-  .refine(needsTime, timeMessage);
+  .check(z.refine(needsTime, timeMessage));
 export type CreateRunInput = z.infer<typeof createRunInputSchema>;
 
 export const updateRunInputSchema = z
   .strictObject({
-    runNumber: runFields.runNumber.optional(),
-    rawTimeSec: runFields.rawTimeSec.optional(),
-    cones: conesSchema.optional(),
-    status: runStatusSchema.optional(),
-    recordedAt: runFields.recordedAt.optional(),
-    driverId: z.uuid().optional(),
+    runNumber: z.optional(runFields.runNumber),
+    rawTimeSec: z.optional(runFields.rawTimeSec),
+    cones: z.optional(conesSchema),
+    status: z.optional(runStatusSchema),
+    recordedAt: z.optional(runFields.recordedAt),
+    driverId: z.optional(z.uuid()),
     hotPressuresKpa: runFields.hotPressuresKpa,
     notes: runFields.notes,
     version: versionSchema,
   })
-  .refine((r) => r.status !== 'finished' || r.rawTimeSec !== null, timeMessage);
+  .check(z.refine((r) => r.status !== 'finished' || r.rawTimeSec !== null, timeMessage));
 export type UpdateRunInput = z.infer<typeof updateRunInputSchema>;
 
 export const listRunsQuerySchema = z.strictObject({
-  carId: z.uuid().optional(),
-  eventId: z.uuid().optional(),
+  carId: z.optional(z.uuid()),
+  eventId: z.optional(z.uuid()),
 });
 
 export interface Run {

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from '../zod';
 import { CORNERS, perCorner, type Corner } from './corners';
 import { LIMITS } from './limits';
 import { versionSchema } from './car.schema';
@@ -6,31 +6,37 @@ import { versionSchema } from './car.schema';
 const range = (name: string, unit: string, min: number, max: number) =>
   z
     .number({ error: `${name} must be a number` })
-    .min(min, `${name} must be between ${min} and ${max} ${unit}`)
-    .max(max, `${name} must be between ${min} and ${max} ${unit}`);
+    .check(z.gte(min, `${name} must be between ${min} and ${max} ${unit}`), z.lte(max, `${name} must be between ${min} and ${max} ${unit}`));
 
 const clicks = z
   .number({ error: 'Clicks must be a whole number' })
-  .int('Clicks must be a whole number')
-  .min(LIMITS.damperClicks.min, 'Clicks cannot be negative')
-  .max(LIMITS.damperClicks.max, `Clicks must be at most ${LIMITS.damperClicks.max}`);
+  .check(
+    z.int('Clicks must be a whole number'),
+    z.gte(LIMITS.damperClicks.min, 'Clicks cannot be negative'),
+    z.lte(LIMITS.damperClicks.max, `Clicks must be at most ${LIMITS.damperClicks.max}`),
+  );
+
+/** Optional, and null clears it. */
+const clearable = <T extends z.ZodMiniType>(schema: T) => z.optional(z.nullable(schema));
+/** Trimmed free text of at most `max` characters. */
+const text = (max: number, message?: string) => z.string().check(z.trim(), z.maxLength(max, message));
 
 export const pressureKpaSchema = range('Pressure', 'kPa', LIMITS.pressureKpa.min, LIMITS.pressureKpa.max);
 
 /** One corner's setup, SI units. Every field optional: record what you know. */
 export const setupCornerSchema = z.strictObject({
-  camberDeg: range('Camber', '°', LIMITS.camberDeg.min, LIMITS.camberDeg.max).nullable().optional(),
+  camberDeg: clearable(range('Camber', '°', LIMITS.camberDeg.min, LIMITS.camberDeg.max)),
   /** Per wheel, toe-in positive. */
-  toeMm: range('Toe', 'mm', LIMITS.toeMm.min, LIMITS.toeMm.max).nullable().optional(),
-  casterDeg: range('Caster', '°', LIMITS.casterDeg.min, LIMITS.casterDeg.max).nullable().optional(),
-  springRateNPerMm: range('Spring rate', 'N/mm', LIMITS.springRateNPerMm.min, LIMITS.springRateNPerMm.max).nullable().optional(),
-  rideHeightMm: range('Ride height', 'mm', LIMITS.rideHeightMm.min, LIMITS.rideHeightMm.max).nullable().optional(),
+  toeMm: clearable(range('Toe', 'mm', LIMITS.toeMm.min, LIMITS.toeMm.max)),
+  casterDeg: clearable(range('Caster', '°', LIMITS.casterDeg.min, LIMITS.casterDeg.max)),
+  springRateNPerMm: clearable(range('Spring rate', 'N/mm', LIMITS.springRateNPerMm.min, LIMITS.springRateNPerMm.max)),
+  rideHeightMm: clearable(range('Ride height', 'mm', LIMITS.rideHeightMm.min, LIMITS.rideHeightMm.max)),
   /** Bump (or single) adjuster clicks, counted from the end the car's adjuster says. */
-  damperClicks: clicks.nullable().optional(),
+  damperClicks: clearable(clicks),
   /** Double-adjustable dampers only. */
-  damperReboundClicks: clicks.nullable().optional(),
-  coldPressureKpa: pressureKpaSchema.nullable().optional(),
-  cornerWeightKg: range('Corner weight', 'kg', LIMITS.cornerWeightKg.min, LIMITS.cornerWeightKg.max).nullable().optional(),
+  damperReboundClicks: clearable(clicks),
+  coldPressureKpa: clearable(pressureKpaSchema),
+  cornerWeightKg: clearable(range('Corner weight', 'kg', LIMITS.cornerWeightKg.min, LIMITS.cornerWeightKg.max)),
 });
 export type SetupCorner = z.infer<typeof setupCornerSchema>;
 export const SETUP_CORNER_FIELDS = [
@@ -41,49 +47,50 @@ export type SetupCornerField = (typeof SETUP_CORNER_FIELDS)[number];
 
 /** Anti-roll bar setting: free text or a hole number. */
 export const setupAxleSchema = z.strictObject({
-  antiRollBar: z.string().trim().max(40, 'Use at most 40 characters').nullable().optional(),
+  antiRollBar: clearable(text(40, 'Use at most 40 characters')),
 });
 
 const isoDateTime = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T09:30:00Z' });
 
 export const createSetupInputSchema = z.strictObject({
   /** Client-made id, so an offline replay never makes a second snapshot. */
-  id: z.uuid().optional(),
-  label: z.string().trim().min(1, 'Give the setup a label').max(80, 'Use at most 80 characters'),
+  id: z.optional(z.uuid()),
+  label: z.string().check(z.trim(), z.minLength(1, 'Give the setup a label'), z.maxLength(80, 'Use at most 80 characters')),
   effectiveFrom: isoDateTime,
-  corners: perCorner(setupCornerSchema).default({}),
-  axles: z.strictObject({ front: setupAxleSchema.optional(), rear: setupAxleSchema.optional() }).default({}),
-  derivedFromId: z.uuid().nullable().optional(),
-  notes: z.string().trim().max(2000).nullable().optional(),
+  corners: z._default(perCorner(setupCornerSchema), {}),
+  axles: z._default(z.strictObject({ front: z.optional(setupAxleSchema), rear: z.optional(setupAxleSchema) }), {}),
+  derivedFromId: clearable(z.uuid()),
+  notes: clearable(text(2000)),
 });
 export type CreateSetupInput = z.infer<typeof createSetupInputSchema>;
 
-export const updateSetupInputSchema = createSetupInputSchema.omit({ id: true }).partial().extend({ version: versionSchema });
+export const updateSetupInputSchema = z.extend(z.partial(z.omit(createSetupInputSchema, { id: true })), { version: versionSchema });
 export type UpdateSetupInput = z.infer<typeof updateSetupInputSchema>;
 
 /** A small change applied to the active setup, e.g. rear damperClicks +2, or cold pressure −7 kPa all round. */
 export const QUICK_CHANGE_FIELDS = ['damperClicks', 'damperReboundClicks', 'coldPressureKpa', 'camberDeg', 'toeMm', 'rideHeightMm'] as const;
 export const quickChangeInputSchema = z.strictObject({
-  id: z.uuid().optional(),
-  label: z.string().trim().min(1).max(80).optional(),
-  effectiveFrom: isoDateTime.optional(),
+  id: z.optional(z.uuid()),
+  label: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(80))),
+  effectiveFrom: z.optional(isoDateTime),
   changes: z
     .array(
       z
         .strictObject({
           field: z.enum(QUICK_CHANGE_FIELDS),
-          corners: z.array(z.enum(CORNERS)).min(1, 'Pick at least one corner'),
-          delta: z.number().optional(),
-          value: z.number().optional(),
+          corners: z.array(z.enum(CORNERS)).check(z.minLength(1, 'Pick at least one corner')),
+          delta: z.optional(z.number()),
+          value: z.optional(z.number()),
         })
-        .refine((c) => (c.delta === undefined) !== (c.value === undefined), {
-          message: 'Give either a change (delta) or a new value, not both',
-          path: ['delta'],
-        }),
+        .check(
+          z.refine((c) => (c.delta === undefined) !== (c.value === undefined), {
+            message: 'Give either a change (delta) or a new value, not both',
+            path: ['delta'],
+          }),
+        ),
     )
-    .min(1, 'Make at least one change')
-    .max(20),
-  notes: z.string().trim().max(2000).nullable().optional(),
+    .check(z.minLength(1, 'Make at least one change'), z.maxLength(20)),
+  notes: clearable(text(2000)),
 });
 export type QuickChangeInput = z.infer<typeof quickChangeInputSchema>;
 

@@ -1,36 +1,43 @@
-import { z } from 'zod';
+import * as z from '../zod';
 import { CORNERS, perCorner, type Corner } from './corners';
 import { LIMITS } from './limits';
 
 const depth = (label: string) =>
   z
     .number({ error: `${label} depth must be a number` })
-    .min(LIMITS.treadMm.min, `${label} depth cannot be negative`)
-    .max(LIMITS.treadMm.max, `${label} depth must be at most ${LIMITS.treadMm.max} mm`);
+    .check(
+      z.gte(LIMITS.treadMm.min, `${label} depth cannot be negative`),
+      z.lte(LIMITS.treadMm.max, `${label} depth must be at most ${LIMITS.treadMm.max} mm`),
+    );
+
+/** Optional, and null clears it. */
+const clearable = <T extends z.ZodMiniType>(schema: T) => z.optional(z.nullable(schema));
+/** Trimmed free text of at most `max` characters. */
+const text = (max: number) => z.string().check(z.trim(), z.maxLength(max));
+const tyreNumber = () => z.number().check(z.int(), z.gte(1), z.lte(5));
 
 export const TYRE_POSITIONS = [...CORNERS, 'spare', 'off'] as const;
 
 export const createTyreSetInputSchema = z.strictObject({
-  id: z.uuid().optional(),
-  label: z.string().trim().min(1, 'Give the set a label').max(80),
-  size: z.string().trim().max(40).nullable().optional(),
-  boughtOn: z.iso.date().nullable().optional(),
-  startTreadMm: depth('Starting').nullable().optional(),
-  notes: z.string().trim().max(2000).nullable().optional(),
+  id: z.optional(z.uuid()),
+  label: z.string().check(z.trim(), z.minLength(1, 'Give the set a label'), z.maxLength(80)),
+  size: clearable(text(40)),
+  boughtOn: clearable(z.iso.date()),
+  startTreadMm: clearable(depth('Starting')),
+  notes: clearable(text(2000)),
 });
 export type CreateTyreSetInput = z.infer<typeof createTyreSetInputSchema>;
 
 /** Which of the set's tyres (1–4, marked on the sidewall) sits on which corner from a date: a rotation. */
 export const createMountingInputSchema = z.strictObject({
   mountedAt: z.iso.datetime({ offset: true }),
-  positions: z.strictObject({
-    lf: z.number().int().min(1).max(5),
-    rf: z.number().int().min(1).max(5),
-    lr: z.number().int().min(1).max(5),
-    rr: z.number().int().min(1).max(5),
-  }).refine((p) => new Set(Object.values(p)).size === 4, { message: 'Each tyre can be on one corner only' }),
+  positions: z
+    .strictObject({ lf: tyreNumber(), rf: tyreNumber(), lr: tyreNumber(), rr: tyreNumber() })
+    .check(z.refine((p) => new Set(Object.values(p)).size === 4, { message: 'Each tyre can be on one corner only' })),
 });
 export type CreateMountingInput = z.infer<typeof createMountingInputSchema>;
+
+const atLeastOneCorner = <T extends object>() => z.refine<T>((c) => Object.keys(c).length > 0, { message: 'Enter at least one corner' });
 
 export const treadCornerSchema = z.strictObject({
   innerMm: depth('Inner'),
@@ -40,23 +47,25 @@ export const treadCornerSchema = z.strictObject({
 export type TreadCorner = z.infer<typeof treadCornerSchema>;
 
 export const createTreadReadingInputSchema = z.strictObject({
-  id: z.uuid().optional(),
+  id: z.optional(z.uuid()),
   takenAt: z.iso.datetime({ offset: true }),
-  corners: perCorner(treadCornerSchema).refine((c) => Object.keys(c).length > 0, { message: 'Enter at least one corner' }),
-  eventId: z.uuid().nullable().optional(),
-  notes: z.string().trim().max(2000).nullable().optional(),
+  corners: perCorner(treadCornerSchema).check(atLeastOneCorner()),
+  eventId: clearable(z.uuid()),
+  notes: clearable(text(2000)),
 });
 export type CreateTreadReadingInput = z.infer<typeof createTreadReadingInputSchema>;
 
 export const createPressureReadingInputSchema = z.strictObject({
-  id: z.uuid().optional(),
+  id: z.optional(z.uuid()),
   kind: z.enum(['cold', 'hot']),
   takenAt: z.iso.datetime({ offset: true }),
-  runId: z.uuid().nullable().optional(),
+  runId: clearable(z.uuid()),
   corners: perCorner(
-    z.number().min(LIMITS.pressureKpa.min, `Pressure must be between ${LIMITS.pressureKpa.min} and ${LIMITS.pressureKpa.max} kPa`)
-      .max(LIMITS.pressureKpa.max, `Pressure must be between ${LIMITS.pressureKpa.min} and ${LIMITS.pressureKpa.max} kPa`),
-  ).refine((c) => Object.keys(c).length > 0, { message: 'Enter at least one corner' }),
+    z.number().check(
+      z.gte(LIMITS.pressureKpa.min, `Pressure must be between ${LIMITS.pressureKpa.min} and ${LIMITS.pressureKpa.max} kPa`),
+      z.lte(LIMITS.pressureKpa.max, `Pressure must be between ${LIMITS.pressureKpa.min} and ${LIMITS.pressureKpa.max} kPa`),
+    ),
+  ).check(atLeastOneCorner()),
 });
 export type CreatePressureReadingInput = z.infer<typeof createPressureReadingInputSchema>;
 

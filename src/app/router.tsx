@@ -12,6 +12,7 @@ import { RouteError } from '@/components/errors/route-error';
 import { LoadingScreen } from '@/components/ui/loading-screen';
 import { authKeys } from '@/features/auth/api/auth-keys';
 import { meQueryOptions } from '@/features/auth/api/get-me';
+import { SignedInLayout } from './routes/signed-in-layout';
 
 /** The layout route that holds every page behind sign-in. */
 export const SIGNED_IN_ROUTE_ID = 'signed-in';
@@ -61,7 +62,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
           id: SIGNED_IN_ROUTE_ID,
           loader: requireSignIn,
           hydrateFallbackElement: loading,
-          lazy: async () => ({ Component: (await import('./routes/signed-in-layout')).SignedInLayout }),
+          Component: SignedInLayout,
           children: [
             {
               // A pathless wrapper: a page that fails shows its error inside the shell.

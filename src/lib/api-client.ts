@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import * as z from '@shared/zod';
 import { apiErrorSchema, type ApiErrorCode, type FieldErrors } from '@shared/api/api-error.schema';
 import { csrfResponseSchema } from '@shared/auth/auth.schema';
 
@@ -53,7 +53,7 @@ export const CSRF_HEADER = 'X-CSRF-Token';
 export interface RequestOptions<T> {
   body?: unknown;
   /** Checks the answer's shape; without one the parsed JSON is returned as is. */
-  schema?: z.ZodType<T>;
+  schema?: z.core.$ZodType<T>;
   signal?: AbortSignal;
 }
 
@@ -99,11 +99,11 @@ async function toApiError(response: Response): Promise<ApiError> {
   });
 }
 
-async function parseBody<T>(response: Response, schema: z.ZodType<T> | undefined): Promise<T> {
+async function parseBody<T>(response: Response, schema: z.core.$ZodType<T> | undefined): Promise<T> {
   if (response.status === 204) return undefined as T;
   const json = await readJson(response);
   if (!schema) return json as T;
-  const parsed = schema.safeParse(json);
+  const parsed = z.safeParse(schema, json);
   if (!parsed.success) {
     throw new ApiError({ status: response.status, code: 'unexpected_response', message: UNEXPECTED_MESSAGE, cause: parsed.error });
   }

@@ -1,11 +1,30 @@
-import { intlFormat, isToday, parseISO } from 'date-fns';
-
 /*
- * Dates and times for people, in the browser's locale (date-fns' intlFormat uses the platform's
- * Intl, so a user in Germany reads 12.6.2026 and one in the US 6/12/2026).
+ * Dates and times for people, in the browser's locale (the platform's Intl, so a user in Germany
+ * reads 12.6.2026 and one in the US 6/12/2026). Written by hand rather than with date-fns, which
+ * would add a few KB to every page for the same results (tests/client/lib/dates.test.ts checks
+ * them against date-fns).
  */
 
-const toDate = (value: string | Date) => (typeof value === 'string' ? parseISO(value) : value);
+const DATE_ONLY = /^(\d{4})-(\d{2})-(\d{2})$/;
+
+/**
+ * An ISO date or timestamp as a Date, read as date-fns' parseISO reads the ones the app stores: a
+ * calendar date ("2026-06-12") is local midnight, a timestamp keeps its offset (none: local time).
+ * Anything else, or a day that does not exist, is an Invalid Date.
+ */
+export function parseIsoDate(value: string): Date {
+  const day = DATE_ONLY.exec(value);
+  if (!day) return /^\d{4}-\d{2}-\d{2}[T ]\d/.test(value) ? new Date(value.replace(' ', 'T')) : new Date(Number.NaN);
+  const [year, month, date] = [Number(day[1]), Number(day[2]) - 1, Number(day[3])];
+  const d = new Date(0);
+  d.setFullYear(year, month, date);
+  d.setHours(0, 0, 0, 0);
+  return d.getMonth() === month && d.getDate() === date ? d : new Date(Number.NaN);
+}
+
+const toDate = (value: string | Date) => (typeof value === 'string' ? parseIsoDate(value) : value);
+const intlFormat = (date: Date, options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat(undefined, options).format(date);
+const sameDay = (a: Date, b: Date) => a.getFullYear() === b.getFullYear() && a.getMonth() === b.getMonth() && a.getDate() === b.getDate();
 
 /** "12 Jun 2026" */
 export function formatDay(value: string | Date): string {
@@ -29,7 +48,7 @@ export function formatClock(value: string | Date): string {
 
 /** Whether a calendar date ("2026-06-12") is today on this device. */
 export function isTodayDate(isoDate: string): boolean {
-  return isToday(parseISO(isoDate));
+  return sameDay(parseIsoDate(isoDate), new Date());
 }
 
 const pad = (n: number) => String(n).padStart(2, '0');

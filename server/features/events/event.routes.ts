@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { z } from 'zod';
+import * as z from '@shared/zod';
 import { createEventInputSchema, type CreateEventInput } from '@shared/season/event.schema';
 import { currentUser, requireAuth } from '../../auth/access';
 import { parsed, validate } from '../../lib/validate';
@@ -23,7 +23,7 @@ export function eventRoutes(ds: DataSource) {
   });
   router.get(
     '/:eventId/summary',
-    validate({ params: idParam('eventId'), query: z.strictObject({ carId: z.uuid().optional() }) }),
+    validate({ params: idParam('eventId'), query: z.strictObject({ carId: z.optional(z.uuid()) }) }),
     async (req, res) => {
       const { eventId } = parsed<{ eventId: string }>(res, 'params');
       const { carId } = parsed<{ carId?: string }>(res, 'query');

@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
-import { preferencesSchema, type Preferences, type RegisterInput, type Role, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
+import { preferencesSchema, type Preferences, type Role, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
+import type { RegisterInput } from '@shared/auth/credentials.schema';
 import { AppError } from '../../lib/app-error';
 import { hashPassword } from '../../auth/password';
 import { UserEntity } from './user.entity';

@@ -8,7 +8,7 @@ import { LoadingScreen } from '@/components/ui/loading-screen';
 import { UnitsProvider } from '@/lib/units-context';
 import { useMe } from '@/features/auth/api/get-me';
 import { AccountMenu } from '@/features/auth/components/account-menu';
-import { SyncStatusBadge } from '@/features/sync/components/sync-status';
+import { SyncStatusBadge } from '@/features/sync/components/sync-badge';
 
 const NAV_ITEMS: readonly NavItem[] = [
   { to: paths.home, label: 'Home', icon: House, end: true },

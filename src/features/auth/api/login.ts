@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { userResponseSchema, type LoginInput, type User } from '@shared/auth/auth.schema';
+import { userResponseSchema, type User } from '@shared/auth/auth.schema';
+import type { LoginInput } from '@shared/auth/credentials.schema';
 import { api, dropCsrfToken } from '@/lib/api-client';
 import { authKeys } from './auth-keys';
 

@@ -1,127 +1,48 @@
-import { useState } from 'react';
-import * as DropdownMenu from '@radix-ui/react-dropdown-menu';
-import { CircleUserRound, LogOut, Settings } from 'lucide-react';
-import { Link } from 'react-router-dom';
+import { lazy, Suspense, useState } from 'react';
 import type { User } from '@shared/auth/auth.schema';
-import { paths } from '@/config/paths';
-import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
-import { onDeviceOnlyText, summariseOutbox } from '@/lib/outbox-summary';
-import { Button } from '@/components/ui/button';
-import { Dialog } from '@/components/ui/dialog';
-import { useLogout } from '../api/logout';
+import { ErrorBoundary } from '@/components/errors/error-boundary';
+import { ACCOUNT_BUTTON, AccountButtonFace } from './account-button';
 
-const ITEM =
-  'flex min-h-tap cursor-pointer items-center gap-3 rounded px-3 font-semibold outline-none data-[disabled]:opacity-60 data-[highlighted]:bg-surface-raised';
-
-/** Asks before signing out while changes are still only on this phone: signing out deletes them. */
-function SignOutWarning({ open, onOpenChange }: { open: boolean; onOpenChange: (open: boolean) => void }) {
-  const outbox = useOutbox();
-  const entries = useOutboxEntries();
-  const logout = useLogout();
-  const [uploading, setUploading] = useState(false);
-  const summary = summariseOutbox(entries);
-  const reason = outbox.retryReason();
-
-  const uploadNow = async () => {
-    setUploading(true);
-    try {
-      await outbox.retryNow();
-    } finally {
-      setUploading(false);
-    }
-  };
-
-  const empty = entries.length === 0;
-  return (
-    <Dialog
-      open={open}
-      onOpenChange={onOpenChange}
-      title={empty ? 'Everything is uploaded' : 'Not everything is uploaded'}
-      description={
-        empty ? (
-          'Nothing is left on this phone only. You can sign out.'
-        ) : (
-          <>
-            <span className="font-bold">{onDeviceOnlyText(entries)}.</span> Signing out deletes them from this phone.
-            {summary.failed.length ? ` ${summary.failed.length} of them ${summary.failed.length === 1 ? 'was' : 'were'} refused and ${summary.failed.length === 1 ? 'needs' : 'need'} fixing first.` : ''}
-            {reason ? ` Last try: ${reason}.` : ''}
-          </>
-        )
-      }
-    >
-      <div className="flex flex-col gap-3">
-        {empty ? null : (
-          <Button onClick={() => void uploadNow()} isPending={uploading} pendingLabel="Uploading…" className="w-full">
-            Upload now
-          </Button>
-        )}
-        <Button
-          variant={empty ? 'primary' : 'secondary'}
-          className="w-full"
-          isPending={logout.isPending}
-          pendingLabel="Signing out…"
-          onClick={() => logout.mutate()}
-        >
-          {empty ? 'Sign out' : 'Sign out anyway'}
-        </Button>
-      </div>
-    </Dialog>
-  );
-}
+const loadDropdown = () => import('./account-dropdown');
+// The menu (Radix DropdownMenu and its positioning) and the sign-out warning (Radix Dialog) are
+// loaded on the first reach for the button, so the trackside page stays a small download; the
+// service worker keeps the chunk for offline use.
+const lazyDropdown = () => lazy(async () => ({ default: (await loadDropdown()).AccountDropdown }));
+const preload = () => void loadDropdown().catch(() => undefined);
 
 /** The account button in the top bar: who is signed in, settings, and the way out. */
 export function AccountMenu({ user }: { user: User }) {
-  const logout = useLogout();
-  const entries = useOutboxEntries();
-  const [warning, setWarning] = useState(false);
+  const [wanted, setWanted] = useState(false);
+  const [AccountDropdown, setAccountDropdown] = useState(() => lazyDropdown());
+  const button = (onClick: () => void) => (
+    <button
+      type="button"
+      className={ACCOUNT_BUTTON}
+      aria-label={`Account: ${user.displayName}`}
+      aria-haspopup="menu"
+      aria-expanded={false}
+      // Start the download as soon as a pointer or the focus arrives, so the menu opens at once.
+      onPointerEnter={preload}
+      onFocus={preload}
+      onClick={onClick}
+    >
+      <AccountButtonFace user={user} />
+    </button>
+  );
+  if (!wanted) return button(() => setWanted(true));
   return (
-    <>
-      {/* Not modal: a modal menu locks scrolling with an injected <style>, which our CSP refuses. */}
-      <DropdownMenu.Root modal={false}>
-        <DropdownMenu.Trigger
-          className="inline-flex min-h-tap min-w-tap items-center justify-center gap-2 rounded px-2 font-semibold text-ink hover:bg-surface-raised"
-          aria-label={`Account: ${user.displayName}`}
-        >
-          <CircleUserRound aria-hidden="true" className="size-6" />
-          <span className="hidden max-w-40 truncate md:inline">{user.displayName}</span>
-        </DropdownMenu.Trigger>
-        <DropdownMenu.Portal>
-          <DropdownMenu.Content
-            align="end"
-            sideOffset={6}
-            className="z-50 min-w-60 rounded-lg border border-line bg-surface p-1 text-ink shadow-lg"
-          >
-            <DropdownMenu.Label className="flex flex-col px-3 py-2">
-              <span className="font-bold">{user.displayName}</span>
-              <span className="truncate text-sm text-ink-muted">{user.email}</span>
-            </DropdownMenu.Label>
-            <DropdownMenu.Separator className="my-1 h-px bg-line" />
-            <DropdownMenu.Item asChild className={ITEM}>
-              <Link to={paths.settings}>
-                <Settings aria-hidden="true" className="size-5" />
-                Units and settings
-              </Link>
-            </DropdownMenu.Item>
-            <DropdownMenu.Item
-              className={ITEM}
-              disabled={logout.isPending}
-              onSelect={(event) => {
-                // With work still on the phone, the menu closes and the warning asks first.
-                if (entries.length > 0) {
-                  setWarning(true);
-                  return;
-                }
-                event.preventDefault();
-                logout.mutate();
-              }}
-            >
-              <LogOut aria-hidden="true" className="size-5" />
-              {logout.isPending ? 'Signing out…' : 'Sign out'}
-            </DropdownMenu.Item>
-          </DropdownMenu.Content>
-        </DropdownMenu.Portal>
-      </DropdownMenu.Root>
-      <SignOutWarning open={warning} onOpenChange={setWarning} />
-    </>
+    // Not downloaded (offline before the app was kept on the device): the button stays, and a tap tries again.
+    <ErrorBoundary
+      fallback={({ reset }) =>
+        button(() => {
+          setAccountDropdown(() => lazyDropdown());
+          reset();
+        })
+      }
+    >
+      <Suspense fallback={button(() => undefined)}>
+        <AccountDropdown user={user} defaultOpen />
+      </Suspense>
+    </ErrorBoundary>
   );
 }

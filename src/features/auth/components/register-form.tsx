@@ -1,14 +1,9 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
-import {
-  PASSWORD_MAX,
-  PASSWORD_MIN,
-  registerInputSchema,
-  type RegisterInput,
-  type User,
-} from '@shared/auth/auth.schema';
+import type * as z from '@shared/zod';
+import type { User } from '@shared/auth/auth.schema';
+import { PASSWORD_MAX, PASSWORD_MIN, registerInputSchema, type RegisterInput } from '@shared/auth/credentials.schema';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { z } from 'zod';
+import type * as z from '@shared/zod';
 import type { addCoDriverInputSchema, Car } from '@shared/season/car.schema';
 import { api } from '@/lib/api-client';
 import { carKeys } from './car-keys';

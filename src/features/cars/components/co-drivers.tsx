@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
+import type * as z from '@shared/zod';
 import { UserMinus, UserPlus } from 'lucide-react';
 import { addCoDriverInputSchema, type Car, type Person } from '@shared/season/car.schema';
 import { Button } from '@/components/ui/button';

@@ -1,8 +1,9 @@
-import { z } from 'zod';
+import * as z from '@shared/zod';
 import { AXLES, type Axle } from '@shared/season/corners';
 import { createCarInputSchema, DAMPER_COUNT_FROM, type CreateCarInput, type DamperAdjuster } from '@shared/season/car.schema';
 import { LIMITS } from '@shared/season/limits';
 import { parseDecimal } from '@/lib/numbers';
+import { addIssue } from '@/lib/form-schema';
 
 export type DamperCountFrom = (typeof DAMPER_COUNT_FROM)[number];
 
@@ -39,8 +40,8 @@ const text = z.string();
  * The form's values → the body of POST /api/cars, checked with the shared schema. An axle whose
  * click count is left empty has no adjuster; an empty motion ratio is unknown.
  */
-export const carFormSchema = z
-  .object({
+export const carFormSchema = z.pipe(
+  z.object({
     name: text,
     classCode: text,
     carNumber: text,
@@ -51,12 +52,12 @@ export const carFormSchema = z
     }),
     motionRatios: z.object({ front: text, rear: text }),
     notes: text,
-  })
-  .transform((v, ctx): CreateCarInput => {
+  }),
+  z.transform((v, ctx): CreateCarInput => {
     const local = new Set<string>();
     const problem = (path: string[], message: string) => {
       local.add(path.join('.'));
-      ctx.addIssue({ code: 'custom', path, message });
+      addIssue(ctx, path, message);
     };
     const adjuster = (axle: Axle): DamperAdjuster | null => {
       const typed = v.damperAdjusters[axle].positions.trim();
@@ -89,10 +90,11 @@ export const carFormSchema = z
     if (!checked.success) {
       for (const issue of checked.error.issues) {
         const path = issue.path.map(String);
-        if (!local.has(path.join('.'))) ctx.addIssue({ code: 'custom', path, message: issue.message });
+        if (!local.has(path.join('.'))) addIssue(ctx, path, issue.message);
       }
       return z.NEVER;
     }
     if (local.size > 0) return z.NEVER;
     return checked.data;
-  });
+  }),
+);

@@ -1,8 +1,9 @@
-import { z } from 'zod';
+import * as z from '@shared/zod';
 import { formatQuantity, fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import { createEventInputSchema, EVENT_KINDS, type CreateEventInput } from '@shared/season/event.schema';
 import { LIMITS } from '@shared/season/limits';
 import { parseDecimal, tidy } from '@/lib/numbers';
+import { addIssue } from '@/lib/form-schema';
 
 /** What the new-event form holds: text as typed, temperatures in the user's unit. */
 export interface EventFormValues {
@@ -44,8 +45,8 @@ const optionalText = (s: string) => (s.trim() ? s.trim() : null);
  */
 export function eventFormSchema(units: UnitPreferences) {
   const range = `${formatQuantity(LIMITS.temperatureC.min, 'temperature', units)} and ${formatQuantity(LIMITS.temperatureC.max, 'temperature', units)}`;
-  return z
-    .object({
+  return z.pipe(
+    z.object({
       name: z.string(),
       date: z.string(),
       venue: z.string(),
@@ -54,21 +55,21 @@ export function eventFormSchema(units: UnitPreferences) {
       surface: z.string(),
       airTempC: z.string(),
       trackTempC: z.string(),
-    })
-    .transform((v, ctx): CreateEventInput => {
+    }),
+    z.transform((v, ctx): CreateEventInput => {
       const local = new Set<string>();
       const temperature = (field: 'airTempC' | 'trackTempC'): number | null => {
         const parsed = parseDecimal(v[field]);
         if (parsed.kind === 'empty') return null;
         if (parsed.kind === 'invalid') {
           local.add(field);
-          ctx.addIssue({ code: 'custom', path: [field], message: 'Type a number, e.g. 21' });
+          addIssue(ctx, [field], 'Type a number, e.g. 21');
           return null;
         }
         const celsius = tidy(fromDisplay(parsed.value, 'temperature', units));
         if (celsius < LIMITS.temperatureC.min || celsius > LIMITS.temperatureC.max) {
           local.add(field);
-          ctx.addIssue({ code: 'custom', path: [field], message: `Between ${range}` });
+          addIssue(ctx, [field], `Between ${range}`);
         }
         return celsius;
       };
@@ -77,7 +78,7 @@ export function eventFormSchema(units: UnitPreferences) {
       if (cone.kind === 'number') conePenaltySec = cone.value;
       else {
         local.add('conePenaltySec');
-        ctx.addIssue({ code: 'custom', path: ['conePenaltySec'], message: 'Type the seconds added per cone, e.g. 2' });
+        addIssue(ctx, ['conePenaltySec'], 'Type the seconds added per cone, e.g. 2');
       }
       const body = {
         name: v.name,
@@ -93,12 +94,13 @@ export function eventFormSchema(units: UnitPreferences) {
       if (!checked.success) {
         for (const issue of checked.error.issues) {
           const field = String(issue.path[0] ?? '');
-          if (!local.has(field)) ctx.addIssue({ code: 'custom', path: issue.path as PropertyKey[], message: issue.message });
+          if (!local.has(field)) addIssue(ctx, issue.path as PropertyKey[], issue.message);
         }
         return z.NEVER;
       }
       if (local.size > 0) return z.NEVER;
       return checked.data;
-    });
+    }),
+  );
 }
 

@@ -1,7 +1,8 @@
-import { z } from 'zod';
+import * as z from '@shared/zod';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import { createMountingInputSchema, type CreateMountingInput } from '@shared/season/tyre.schema';
 import { fromLocalInputValue } from '@/lib/dates';
+import { addIssue } from '@/lib/form-schema';
 
 export type RotationPreset = 'frontToRear' | 'crossRearToFront' | 'sideToSide';
 
@@ -44,39 +45,36 @@ const CORNER_WORDS: Record<Corner, string> = { lf: 'left front', rf: 'right fron
  * A tyre picked for two corners is marked on both; a "rotation" that moves nothing is refused.
  */
 export function rotationFormSchema(now: Record<Corner, number>) {
-  return z
-    .object({
+  return z.pipe(
+    z.object({
       mountedAt: z.string(),
       positions: z.object({ lf: z.string(), rf: z.string(), lr: z.string(), rr: z.string() }),
-    })
-    .transform((v, ctx): CreateMountingInput => {
+    }),
+    z.transform((v, ctx): CreateMountingInput => {
       let failed = false;
       const mountedAt = fromLocalInputValue(v.mountedAt);
       if (!mountedAt) {
         failed = true;
-        ctx.addIssue({ code: 'custom', path: ['mountedAt'], message: 'Pick when the tyres were moved' });
+        addIssue(ctx, ['mountedAt'], 'Pick when the tyres were moved');
       }
       const positions = Object.fromEntries(CORNERS.map((c) => [c, Number(v.positions[c])])) as Record<Corner, number>;
       for (const corner of CORNERS) {
         const others = CORNERS.filter((c) => c !== corner && positions[c] === positions[corner]);
         if (others.length) {
           failed = true;
-          ctx.addIssue({
-            code: 'custom',
-            path: ['positions', corner],
-            message: `Tyre ${positions[corner]} is also on the ${others.map((c) => CORNER_WORDS[c]).join(' and ')}`,
-          });
+          addIssue(ctx, ['positions', corner], `Tyre ${positions[corner]} is also on the ${others.map((c) => CORNER_WORDS[c]).join(' and ')}`);
         }
       }
       if (!failed && CORNERS.every((c) => positions[c] === now[c])) {
-        ctx.addIssue({ code: 'custom', path: ['positions'], message: 'That is how the tyres sit now: pick where each one goes.' });
+        addIssue(ctx, ['positions'], 'That is how the tyres sit now: pick where each one goes.');
         return z.NEVER;
       }
       const checked = createMountingInputSchema.safeParse({ mountedAt, positions });
       if (!checked.success) {
-        if (!failed) for (const issue of checked.error.issues) ctx.addIssue({ code: 'custom', path: issue.path.map(String), message: issue.message });
+        if (!failed) for (const issue of checked.error.issues) addIssue(ctx, issue.path.map(String), issue.message);
         return z.NEVER;
       }
       return failed ? z.NEVER : checked.data;
-    });
+    }),
+  );
 }

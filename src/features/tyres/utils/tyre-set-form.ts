@@ -1,8 +1,9 @@
-import { z } from 'zod';
+import * as z from '@shared/zod';
 import { formatQuantity, fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import { LIMITS } from '@shared/season/limits';
 import { createTyreSetInputSchema, type CreateTyreSetInput } from '@shared/season/tyre.schema';
 import { parseDecimal, tidy } from '@/lib/numbers';
+import { addIssue } from '@/lib/form-schema';
 
 /** What the new-tyre-set form holds, as typed; the starting depth in the user's tread unit. */
 export interface TyreSetFormValues {
@@ -17,20 +18,20 @@ const optionalText = (s: string) => (s.trim() ? s.trim() : null);
 /** The form's values → the body of POST /api/cars/:carId/tyre-sets; a depth typed in /32 in is sent in mm. */
 export function tyreSetFormSchema(units: UnitPreferences) {
   const range = `${formatQuantity(LIMITS.treadMm.min, 'treadDepth', units)} and ${formatQuantity(LIMITS.treadMm.max, 'treadDepth', units)}`;
-  return z
-    .object({ label: z.string(), size: z.string(), boughtOn: z.string(), startTreadMm: z.string() })
-    .transform((v, ctx): CreateTyreSetInput => {
+  return z.pipe(
+    z.object({ label: z.string(), size: z.string(), boughtOn: z.string(), startTreadMm: z.string() }),
+    z.transform((v, ctx): CreateTyreSetInput => {
       let depthFailed = false;
       let startTreadMm: number | null = null;
       const parsed = parseDecimal(v.startTreadMm);
       if (parsed.kind === 'invalid') {
         depthFailed = true;
-        ctx.addIssue({ code: 'custom', path: ['startTreadMm'], message: 'Type a number' });
+        addIssue(ctx, ['startTreadMm'], 'Type a number');
       } else if (parsed.kind === 'number') {
         startTreadMm = tidy(fromDisplay(parsed.value, 'treadDepth', units));
         if (startTreadMm < LIMITS.treadMm.min || startTreadMm > LIMITS.treadMm.max) {
           depthFailed = true;
-          ctx.addIssue({ code: 'custom', path: ['startTreadMm'], message: `Between ${range}` });
+          addIssue(ctx, ['startTreadMm'], `Between ${range}`);
         }
       }
       const body = {
@@ -43,10 +44,11 @@ export function tyreSetFormSchema(units: UnitPreferences) {
       if (!checked.success) {
         for (const issue of checked.error.issues) {
           if (depthFailed && issue.path[0] === 'startTreadMm') continue;
-          ctx.addIssue({ code: 'custom', path: issue.path.map(String), message: issue.path[0] === 'boughtOn' ? 'Use a date such as 2026-03-20' : issue.message });
+          addIssue(ctx, issue.path.map(String), issue.path[0] === 'boughtOn' ? 'Use a date such as 2026-03-20' : issue.message);
         }
         return z.NEVER;
       }
       return depthFailed ? z.NEVER : checked.data;
-    });
+    }),
+  );
 }
