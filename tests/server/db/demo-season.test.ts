@@ -1,36 +1,22 @@
-import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import pg from 'pg';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DataSource } from 'typeorm';
+import { seededDatabaseUrl } from '../support-seeded';
 import { createDataSource } from '../../../server/db/data-source';
 import { seedDemoIfEmpty } from '../../../server/db/seed';
 import { DEMO_CAMBER_ARMS_DATE } from '../../../server/db/demo-season';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/db/demo-accounts';
 import { verifyPassword } from '../../../server/auth/password';
 
-/** A fresh database on the test cluster, migrated and seeded. */
+/** A fresh database on the test cluster holding the demo season, and a connection to it. */
 async function seededDatabase() {
-  const base = new URL(inject('databaseUrl'));
-  const name = `seed_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
-  const admin = new pg.Client({ connectionString: base.toString() });
-  await admin.connect();
-  await admin.query(`CREATE DATABASE ${name}`);
-  await admin.end();
-  const url = new URL(base.toString());
-  url.pathname = `/${name}`;
-  const ds = createDataSource(url.toString(), { poolSize: 2 });
+  const db = await seededDatabaseUrl();
+  const ds = createDataSource(db.url, { poolSize: 2 });
   await ds.initialize();
-  await ds.runMigrations({ transaction: 'each' });
-  const seeded = await seedDemoIfEmpty(ds);
   return {
     ds,
-    seeded,
     async drop() {
       await ds.destroy();
-      const c = new pg.Client({ connectionString: base.toString() });
-      await c.connect();
-      await c.query(`DROP DATABASE ${name}`);
-      await c.end();
+      await db.drop();
     },
   };
 }
@@ -62,7 +48,7 @@ async function contentOf(ds: DataSource) {
 
 describe('the demo season', () => {
   it('when seeded twice, then both seasons are identical (seeded generator)', async () => {
-    expect(a.seeded).toBe(true);
+    expect(await q(a.ds, 'SELECT 1 FROM users')).toHaveLength(Object.keys(DEMO_ACCOUNTS).length);
     const [ca, cb] = await Promise.all([contentOf(a.ds), contentOf(b.ds)]);
     expect(ca.runs.length).toBeGreaterThan(0);
     expect(cb).toEqual(ca);
