@@ -30,6 +30,8 @@ export type CreateTyreSetInput = z.infer<typeof createTyreSetInputSchema>;
 
 /** Which of the set's tyres (1–4, marked on the sidewall) sits on which corner from a date: a rotation. */
 export const createMountingInputSchema = z.strictObject({
+  /** Client-made id, so a rotation sent twice is recorded once. */
+  id: z.optional(z.uuid()),
   mountedAt: z.iso.datetime({ offset: true }),
   positions: z
     .strictObject({ lf: tyreNumber(), rf: tyreNumber(), lr: tyreNumber(), rr: tyreNumber() })

@@ -2,12 +2,12 @@ import type { CreateMountingInput } from '@shared/season/tyre.schema';
 import { useOutboxWrite } from '@/lib/outbox-context';
 
 /**
- * A rotation: which of the set's tyres sits on which corner from `mountedAt`. The server takes no
- * client id for it, so the entry's record is the tyre set: it waits behind the set's own upload
- * (and behind a refusal of it). Sent twice by a lost answer, it records the same tyres on the same
- * corners at the same moment, which changes nothing the app reads.
+ * A rotation: which of the set's tyres sits on which corner from `mountedAt`. It carries an id made
+ * here, so a resend after a lost answer is recorded once; the entry's record is the tyre set, so it
+ * waits behind the set's own upload (and behind a refusal of it).
  */
-export function rotateTyresEntry(carId: string, tyreSetId: string, setLabel: string, body: CreateMountingInput) {
+export function rotateTyresEntry(carId: string, tyreSetId: string, setLabel: string, input: CreateMountingInput) {
+  const body: CreateMountingInput = { id: input.id ?? crypto.randomUUID(), ...input };
   return {
     recordId: tyreSetId,
     kind: 'tyreSet.rotate',
