@@ -32,6 +32,8 @@ interface RunRow {
   lr_kpa: number | null;
   rr_kpa: number | null;
   has_hot: boolean;
+  /** Matched `where` itself, rather than only sharing a scoring group with a run that did. */
+  wanted: boolean;
 }
 
 /**
@@ -44,7 +46,8 @@ export async function loadRuns(db: Db, where: string, params: unknown[]): Promis
     `WITH wanted AS (SELECT r.id, r.event_id, r.car_id, r.driver_id FROM runs_with_setup r WHERE ${where})
      SELECT r.id, r.car_id, r.event_id, r.driver_id, u.display_name AS driver_name, r.run_number, r.raw_time_sec,
             r.cones, r.status, r.recorded_at, r.notes, r.version, r.created_at, r.updated_at, r.setup_id,
-            e.cone_penalty_sec, p.lf_kpa, p.rf_kpa, p.lr_kpa, p.rr_kpa, (p.id IS NOT NULL) AS has_hot
+            e.cone_penalty_sec, p.lf_kpa, p.rf_kpa, p.lr_kpa, p.rr_kpa, (p.id IS NOT NULL) AS has_hot,
+            r.id IN (SELECT id FROM wanted) AS wanted
        FROM runs_with_setup r
        JOIN events e ON e.id = r.event_id
        JOIN users u ON u.id = r.driver_id
@@ -52,9 +55,6 @@ export async function loadRuns(db: Db, where: string, params: unknown[]): Promis
       WHERE (r.event_id, r.car_id, r.driver_id) IN (SELECT event_id, car_id, driver_id FROM wanted)
       ORDER BY e.date, r.event_id, r.car_id, r.driver_id, r.run_number, r.recorded_at`,
     params,
-  );
-  const wantedIds = new Set(
-    ((await db.query(`SELECT r.id FROM runs_with_setup r WHERE ${where}`, params)) as { id: string }[]).map((r) => r.id),
   );
   const groups = new Map<string, RunRow[]>();
   for (const row of rows) {
@@ -69,7 +69,7 @@ export async function loadRuns(db: Db, where: string, params: unknown[]): Promis
     );
     for (const s of scored) {
       const r = s.run.row;
-      if (!wantedIds.has(r.id)) continue;
+      if (!r.wanted) continue;
       out.push({
         id: r.id,
         carId: r.car_id,
