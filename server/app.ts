@@ -1,4 +1,4 @@
-import express from 'express';
+import express, { type Router } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { randomBytes, randomUUID } from 'node:crypto';
@@ -22,6 +22,15 @@ import { eventRoutes } from './features/events/event.routes';
 import { runRoutes } from './features/runs/run.routes';
 import { carTyreRoutes, tyreSetRoutes } from './features/tyres/tyre.routes';
 import { analysisRoutes } from './features/analysis/analysis.routes';
+import type { Mount } from './lib/routes';
+import type { MailSettings } from './mail/mailer';
+import { carShopGrantRoutes, shopRoutes } from './features/shops/shop.routes';
+import { commentRoutes } from './features/comments/comment.routes';
+import { notificationRoutes } from './features/notifications/notification.routes';
+import { carSuggestionRoutes, suggestionRoutes } from './features/suggestions/suggestion.routes';
+import { teamRoutes } from './features/teams/team.routes';
+import { invitationRoutes, unsubscribeRoutes } from './features/invitations/invitation.routes';
+import { mailboxRoutes } from './features/dev/mailbox.routes';
 
 export interface AppOptions {
   ds: DataSource;
@@ -34,6 +43,10 @@ export interface AppOptions {
   /** Behind a TLS-terminating proxy: trust X-Forwarded-* from it. */
   trustProxy?: boolean;
   jsonLimit?: string;
+  /** How e-mails go out; without it nothing is sent (notifications still appear in the app). */
+  mail?: MailSettings;
+  /** Development only: the fake SMTP server's message folder, shown at /api/dev/mailbox. Never set in production. */
+  mailboxDir?: string;
 }
 
 /** Stands in index.html for the per-response nonce (see the meta tag `csp-nonce`). */
@@ -88,7 +101,13 @@ export function createApp(opts: AppOptions) {
     }),
   );
 
-  app.use('/api/health', healthRoutes(opts.ds));
+  const mounts: Mount[] = [];
+  const mount = (prefix: string, router: Router) => {
+    mounts.push({ prefix, router });
+    app.use(prefix, router);
+  };
+
+  mount('/api/health', healthRoutes(opts.ds));
 
   app.use('/api', express.json({ limit: opts.jsonLimit ?? '100kb' }));
   app.use('/api', sessionMiddleware(opts.pool, opts.session));
@@ -102,17 +121,27 @@ export function createApp(opts: AppOptions) {
   app.use('/api', csrfSynchronisedProtection);
 
   const limits = createAuthRateLimits(opts.pool, { ...DEFAULT_AUTH_LIMITS, ...opts.authLimits });
-  app.use('/api/auth', authRoutes({ ds: opts.ds, passport, limits, generateCsrfToken: generateToken }));
-  app.use('/api/admin', adminRoutes(opts.ds));
-  app.use('/api/cars/:carId/setups', carSetupRoutes(opts.ds));
-  app.use('/api/cars/:carId/changes', changeRoutes(opts.ds));
-  app.use('/api/cars/:carId', carTyreRoutes(opts.ds));
-  app.use('/api/cars/:carId', analysisRoutes(opts.ds));
-  app.use('/api/cars', carRoutes(opts.ds));
-  app.use('/api/setups', setupRoutes(opts.ds));
-  app.use('/api/events', eventRoutes(opts.ds));
-  app.use('/api/runs', runRoutes(opts.ds));
-  app.use('/api/tyre-sets', tyreSetRoutes(opts.ds));
+  mount('/api/auth', authRoutes({ ds: opts.ds, passport, limits, generateCsrfToken: generateToken }));
+  mount('/api/admin', adminRoutes(opts.ds));
+  mount('/api/cars/:carId/setups', carSetupRoutes(opts.ds));
+  mount('/api/cars/:carId/changes', changeRoutes(opts.ds));
+  mount('/api/cars/:carId/shop-grants', carShopGrantRoutes(opts.ds, opts.mail));
+  mount('/api/cars/:carId/suggestions', carSuggestionRoutes(opts.ds, opts.mail));
+  mount('/api/cars/:carId', carTyreRoutes(opts.ds));
+  mount('/api/cars/:carId', analysisRoutes(opts.ds));
+  mount('/api/cars', carRoutes(opts.ds));
+  mount('/api/setups', setupRoutes(opts.ds));
+  mount('/api/events', eventRoutes(opts.ds));
+  mount('/api/runs', runRoutes(opts.ds));
+  mount('/api/tyre-sets', tyreSetRoutes(opts.ds));
+  mount('/api/comments', commentRoutes(opts.ds, opts.mail));
+  mount('/api/notifications', notificationRoutes(opts.ds, opts.mail));
+  mount('/api/suggestions', suggestionRoutes(opts.ds, opts.mail));
+  mount('/api/shops', shopRoutes(opts.ds, opts.mail));
+  mount('/api/teams', teamRoutes(opts.ds, opts.mail));
+  mount('/api/invitations', invitationRoutes(opts.ds, opts.mail));
+  mount('/api/unsubscribe', unsubscribeRoutes(opts.ds, opts.mail));
+  if (opts.mailboxDir) mount('/api/dev/mailbox', mailboxRoutes(opts.mailboxDir));
   app.use('/api', apiNotFound);
 
   if (opts.clientDir && existsSync(join(opts.clientDir, 'index.html'))) {
@@ -139,5 +168,6 @@ export function createApp(opts: AppOptions) {
   }
 
   app.use(errorHandler);
+  app.locals.mounts = mounts;
   return app;
 }

@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { Role, User } from '@shared/auth/auth.schema';
 import { AppError } from '../lib/app-error';
+import { ACCESS_MATRIX, allows } from './access-matrix';
 
 /**
  * The one place that decides who may do what. Routes declare their need with these
@@ -34,46 +35,112 @@ export function currentUser(req: { user?: User }): User {
 
 /* ---------- Record-level access: cars and everything that hangs off a car ---------- */
 
-export type CarAction = 'read' | 'write' | 'manage';
-export type CarRelation = 'owner' | 'co_driver';
+export type CarAction = keyof (typeof ACCESS_MATRIX)['car'];
+export type CarRelation = 'owner' | 'co_driver' | 'shop_staff';
 
 /**
- * May this user do `action` to this car? Owners may do everything; co-drivers may
- * read and write the season (setups, runs, tyres) but not manage the car itself.
- * Anyone else gets 404, so a car's existence is never revealed. This is the one
- * function every car-scoped route goes through; shop and team access extend it.
+ * May this user do `action` to this car? The answer comes from ACCESS_MATRIX: owners
+ * may do everything; co-drivers read and write the season but do not manage the car;
+ * staff of a shop the owner granted read the season, comment and suggest, and never
+ * write. Anyone else gets 404, so a car's existence is never revealed; someone who may
+ * see the car but not do this gets 403. Every car-scoped route goes through here.
  */
 export async function assertCarAccess(db: Queryable, user: User, carId: string, action: CarAction): Promise<CarRelation> {
-  const rows: { relation: CarRelation }[] = await db.query(
-    `SELECT CASE WHEN c.owner_id = $2 THEN 'owner' ELSE 'co_driver' END AS relation
-       FROM cars c
-      WHERE c.id = $1
-        AND (c.owner_id = $2 OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = $2))`,
-    [carId, user.id],
-  );
-  const relation = rows[0]?.relation;
-  if (!relation) throw new AppError('not_found', 'That car was not found.');
-  if (action === 'manage' && relation !== 'owner') {
-    throw new AppError('forbidden', 'Only the car\'s owner can change or delete the car and its co-drivers.');
-  }
+  const relations = await carRelations(db, user.id, carId);
+  if (!relations.some((r) => allows('car', 'read', r))) throw new AppError('not_found', 'That car was not found.');
+  const relation = relations.find((r) => allows('car', action, r));
+  if (!relation) throw new AppError('forbidden', CAR_REFUSALS[action]);
   return relation;
 }
 
-/** SQL for the ids of the cars user `$n` can read (owned or co-driven). */
+const CAR_REFUSALS: Record<CarAction, string> = {
+  read: 'That car was not found.',
+  write: 'Only the car\'s drivers can change its season.',
+  manage: 'Only the car\'s owner can change or delete the car, its co-drivers and its shop access.',
+  comment: 'Only the car\'s drivers and its shop can comment.',
+  suggest: 'Only staff of a shop the owner has granted can suggest setups.',
+  decide: 'Only the car\'s drivers can accept or decline a suggestion.',
+};
+
+/** Every relation the user has to the car, strongest first (empty: none). */
+export async function carRelations(db: Queryable, userId: string, carId: string): Promise<CarRelation[]> {
+  const rows: { owner: boolean; co_driver: boolean; shop_staff: boolean }[] = await db.query(
+    `SELECT c.owner_id = $2 AS owner,
+            EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = $2) AS co_driver,
+            EXISTS (SELECT 1 FROM shop_grants g JOIN shop_members m ON m.shop_id = g.shop_id
+                     WHERE g.car_id = c.id AND m.user_id = $2) AS shop_staff
+       FROM cars c WHERE c.id = $1`,
+    [carId, userId],
+  );
+  const row = rows[0];
+  if (!row) return [];
+  return (['owner', 'co_driver', 'shop_staff'] as const).filter((r) => row[r]);
+}
+
+/** The shops (of those the user staffs) that hold a grant on the car: the name comments are signed with. */
+export async function grantedShopOf(db: Queryable, userId: string, carId: string): Promise<{ id: string; name: string } | null> {
+  const rows: { id: string; name: string }[] = await db.query(
+    `SELECT s.id, s.name FROM shop_grants g
+       JOIN shop_members m ON m.shop_id = g.shop_id AND m.user_id = $2
+       JOIN shops s ON s.id = g.shop_id
+      WHERE g.car_id = $1 ORDER BY g.created_at LIMIT 1`,
+    [carId, userId],
+  );
+  return rows[0] ?? null;
+}
+
+/** SQL for the ids of the cars user `$n` drives (owned or co-driven): "my cars". */
 export const accessibleCarIdsSql = (param: string) =>
   `(SELECT c.id FROM cars c WHERE c.owner_id = ${param}
     UNION SELECT d.car_id FROM car_co_drivers d WHERE d.user_id = ${param})`;
 
+/** SQL for the ids of every car user `$n` may read: their own, co-driven, and granted to their shop. */
+export const readableCarIdsSql = (param: string) =>
+  `(SELECT c.id FROM cars c WHERE c.owner_id = ${param}
+    UNION SELECT d.car_id FROM car_co_drivers d WHERE d.user_id = ${param}
+    UNION SELECT g.car_id FROM shop_grants g JOIN shop_members m ON m.shop_id = g.shop_id WHERE m.user_id = ${param})`;
+
+/* ---------- Shops and teams ---------- */
+
+export type ShopAction = keyof (typeof ACCESS_MATRIX)['shop'];
+export type TeamAction = keyof (typeof ACCESS_MATRIX)['team'];
+
+/** Staff of the shop may read it; its shop admins manage staff. Others get 404. */
+export async function assertShopAccess(db: Queryable, user: User, shopId: string, action: ShopAction): Promise<'shop_staff' | 'shop_admin'> {
+  const rows: { is_shop_admin: boolean }[] = await db.query(
+    'SELECT is_shop_admin FROM shop_members WHERE shop_id = $1 AND user_id = $2',
+    [shopId, user.id],
+  );
+  if (!rows[0]) throw new AppError('not_found', 'That shop was not found.');
+  const relations = rows[0].is_shop_admin ? (['shop_admin', 'shop_staff'] as const) : (['shop_staff'] as const);
+  const relation = relations.find((r) => allows('shop', action, r));
+  if (!relation) throw new AppError('forbidden', 'Only the shop\'s admins can do this.');
+  return relation;
+}
+
+/** Members read the team and enter their cars; captains manage it. Others get 404. */
+export async function assertTeamAccess(db: Queryable, user: User, teamId: string, action: TeamAction): Promise<'team_member' | 'team_captain'> {
+  const rows: { is_captain: boolean }[] = await db.query(
+    'SELECT is_captain FROM team_members WHERE team_id = $1 AND user_id = $2',
+    [teamId, user.id],
+  );
+  if (!rows[0]) throw new AppError('not_found', 'That team was not found.');
+  const relations = rows[0].is_captain ? (['team_captain', 'team_member'] as const) : (['team_member'] as const);
+  const relation = relations.find((r) => allows('team', action, r));
+  if (!relation) throw new AppError('forbidden', 'Only the team\'s captains can do this.');
+  return relation;
+}
+
 /**
  * An event is visible to its creator, to anyone sharing a car with the creator
- * (so co-drivers log into the same event), and to anyone whose car ran at it.
+ * (so co-drivers log into the same event), and to anyone who may read a car that ran at it.
  */
 export async function assertEventAccess(db: Queryable, user: User, eventId: string): Promise<void> {
   const rows = await db.query(
     `SELECT 1 FROM events e
       WHERE e.id = $1
         AND (e.created_by = $2
-             OR EXISTS (SELECT 1 FROM runs r WHERE r.event_id = e.id AND r.car_id IN ${accessibleCarIdsSql('$2')})
+             OR EXISTS (SELECT 1 FROM runs r WHERE r.event_id = e.id AND r.car_id IN ${readableCarIdsSql('$2')})
              OR EXISTS (SELECT 1 FROM cars c
                          WHERE c.id IN ${accessibleCarIdsSql('$2')}
                            AND (c.owner_id = e.created_by
@@ -87,7 +154,7 @@ export async function assertEventAccess(db: Queryable, user: User, eventId: stri
 export async function assertCarChildAccess(
   db: Queryable,
   user: User,
-  table: 'setup_snapshots' | 'runs' | 'tyre_sets',
+  table: 'setup_snapshots' | 'runs' | 'tyre_sets' | 'setup_suggestions',
   id: string,
   action: CarAction,
   what: string,

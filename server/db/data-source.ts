@@ -13,13 +13,14 @@ import { PressureReadingEntity } from '../features/pressures/pressure.entity';
 import { Foundation1764633600000 } from './migrations/1764633600000-foundation';
 import { SeasonRecord1764720000000 } from './migrations/1764720000000-season-record';
 import { UserPreferences1764806400000 } from './migrations/1764806400000-user-preferences';
+import { Collaboration1764892800000 } from './migrations/1764892800000-collaboration';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
   CarEntity, CarCoDriverEntity, SetupSnapshotEntity, SetupCornerEntity, ChangeLogEntity, EventEntity, RunEntity,
   TyreSetEntity, TyreMountingEntity, TreadReadingEntity, TreadReadingCornerEntity, PressureReadingEntity,
 ];
-export const migrations = [Foundation1764633600000, SeasonRecord1764720000000, UserPreferences1764806400000];
+export const migrations = [Foundation1764633600000, SeasonRecord1764720000000, UserPreferences1764806400000, Collaboration1764892800000];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */
 export function createDataSource(url: string, options: { poolSize?: number } = {}) {

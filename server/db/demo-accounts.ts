@@ -15,3 +15,10 @@ export const DEMO_ACCOUNTS = {
 
 export const DEMO_SHOP = 'Kettle Lane Chassis Works';
 export const DEMO_TEAM = 'Gravel Pit Irregulars';
+
+/** The demo season's year, and the class factors the demo captain entered for it (invented). */
+export const DEMO_SEASON_YEAR = 2026;
+export const DEMO_CLASS_FACTORS: readonly (readonly [string, number])[] = [
+  ['SR', 0.842],
+  ['SH', 0.815],
+];

@@ -1,0 +1,9 @@
+import { Router } from 'express';
+import type { DataSource } from 'typeorm';
+import type { MailSettings } from '../../mail/mailer';
+
+/** Placeholder: filled in with the feature. */
+export function notificationRoutes(_ds: DataSource, _mail?: MailSettings) {
+  return Router({ mergeParams: true });
+}
+

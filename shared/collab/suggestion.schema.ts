@@ -1,0 +1,71 @@
+import * as z from '../zod';
+import { CORNERS, type Corner } from '../season/corners';
+import { SETUP_CORNER_FIELDS, type SetupCornerField } from '../season/setup.schema';
+
+const text = (max: number, empty: string) =>
+  z.string({ error: empty }).check(z.trim(), z.minLength(1, empty), z.maxLength(max, `Use at most ${max} characters`));
+
+/**
+ * One proposed change: a field on some corners, by a delta (camber −0.5°) or to a value
+ * (clicks 6). SI units, like every stored setup value.
+ */
+export const suggestionChangeSchema = z
+  .strictObject({
+    field: z.enum(SETUP_CORNER_FIELDS, { error: 'Pick what to change' }),
+    corners: z.array(z.enum(CORNERS)).check(z.minLength(1, 'Pick at least one corner')),
+    delta: z.optional(z.number({ error: 'The change must be a number' })),
+    value: z.optional(z.number({ error: 'The value must be a number' })),
+  })
+  .check(
+    z.refine((c) => (c.delta === undefined) !== (c.value === undefined), {
+      message: 'Give either a change (delta) or a new value, not both',
+      path: ['delta'],
+    }),
+  );
+export type SuggestionChange = z.infer<typeof suggestionChangeSchema>;
+
+export const createSuggestionInputSchema = z.strictObject({
+  id: z.optional(z.uuid()),
+  baseSetupId: z.uuid({ error: 'Pick the setup this changes' }),
+  title: text(120, 'Give the suggestion a title'),
+  rationale: text(4000, 'Say why'),
+  changes: z.array(suggestionChangeSchema).check(z.minLength(1, 'Propose at least one change'), z.maxLength(20)),
+});
+export type CreateSuggestionInput = z.infer<typeof createSuggestionInputSchema>;
+
+const isoDateTime = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T09:30:00Z' });
+
+export const acceptSuggestionInputSchema = z.strictObject({
+  /** Client-made id for the new snapshot, so a resend never makes two. */
+  setupId: z.optional(z.uuid()),
+  effectiveFrom: isoDateTime,
+  label: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(80, 'Use at most 80 characters'))),
+});
+export type AcceptSuggestionInput = z.infer<typeof acceptSuggestionInputSchema>;
+
+export const declineSuggestionInputSchema = z.strictObject({
+  note: text(2000, 'Say why, so the shop knows'),
+});
+export type DeclineSuggestionInput = z.infer<typeof declineSuggestionInputSchema>;
+
+export const SUGGESTION_STATUSES = ['open', 'accepted', 'declined', 'withdrawn'] as const;
+export type SuggestionStatus = (typeof SUGGESTION_STATUSES)[number];
+
+export interface Suggestion {
+  id: string;
+  carId: string;
+  baseSetup: { id: string; label: string; effectiveFrom: string };
+  shop: { id: string; name: string };
+  author: { id: string; displayName: string };
+  title: string;
+  rationale: string;
+  changes: SuggestionChange[];
+  /** Each change worked out against the base snapshot: from → to per corner. */
+  preview: { field: SetupCornerField; corner: Corner; from: number | null; to: number | null }[];
+  status: SuggestionStatus;
+  decidedBy: { id: string; displayName: string } | null;
+  decidedAt: string | null;
+  decisionNote: string | null;
+  acceptedSetupId: string | null;
+  createdAt: string;
+}

@@ -1,0 +1,111 @@
+import * as z from '../zod';
+
+export const TEAM_SHARING = ['results', 'results_and_setup'] as const;
+export type TeamSharing = (typeof TEAM_SHARING)[number];
+
+const classCode = z.string({ error: 'Enter the class' }).check(z.trim(), z.minLength(1, 'Enter the class'), z.maxLength(20, 'Use at most 20 characters'));
+
+export const createTeamInputSchema = z.strictObject({
+  name: z.string({ error: 'Enter a name' }).check(z.trim(), z.minLength(1, 'Enter a name'), z.maxLength(80, 'Use at most 80 characters')),
+});
+export type CreateTeamInput = z.infer<typeof createTeamInputSchema>;
+
+export const enterCarInputSchema = z.strictObject({
+  carId: z.uuid({ error: 'Pick a car' }),
+  classCode,
+  sharing: z._default(z.enum(TEAM_SHARING, { error: 'Choose what to share' }), 'results'),
+});
+export type EnterCarInput = z.infer<typeof enterCarInputSchema>;
+
+export const updateEntryInputSchema = z.strictObject({
+  classCode: z.optional(classCode),
+  sharing: z.optional(z.enum(TEAM_SHARING, { error: 'Choose what to share' })),
+});
+export type UpdateEntryInput = z.infer<typeof updateEntryInputSchema>;
+
+export const updateMemberInputSchema = z.strictObject({ isCaptain: z.boolean() });
+
+export const seasonSchema = z.coerce.number({ error: 'Enter a year' }).check(z.int('Enter a year'), z.gte(1950, 'Enter a year from 1950'), z.lte(2200, 'Enter a year up to 2200'));
+
+/** The captain enters each class's index factor for a season; none ship with the app. */
+export const setFactorInputSchema = z.strictObject({
+  season: seasonSchema,
+  classCode,
+  /** null removes the factor. */
+  factor: z.nullable(
+    z.number({ error: 'The factor must be a number' }).check(z.gt(0, 'The factor must be above 0'), z.lte(2, 'The factor must be at most 2')),
+  ),
+});
+export type SetFactorInput = z.infer<typeof setFactorInputSchema>;
+
+export const seasonQuerySchema = z.object({ season: z.optional(seasonSchema) });
+
+export interface TeamSummary {
+  id: string;
+  name: string;
+  isCaptain: boolean;
+}
+
+export interface TeamEntry {
+  car: { id: string; name: string; carNumber: string | null };
+  owner: { id: string; displayName: string };
+  classCode: string;
+  sharing: TeamSharing;
+  /** The signed-in user may change or withdraw this entry. */
+  mine: boolean;
+}
+
+export interface Team extends TeamSummary {
+  members: { id: string; displayName: string; isCaptain: boolean }[];
+  entries: TeamEntry[];
+  pendingInvitations: { email: string; asAdmin: boolean; expiresAt: string }[];
+}
+
+export interface ClassFactor {
+  season: number;
+  classCode: string;
+  factor: number;
+}
+
+/** One car's day on the board (best over its drivers, each driver scored separately). */
+export interface BoardResult {
+  eventId: string;
+  eventName: string;
+  date: string;
+  driver: { id: string; displayName: string };
+  bestRawSec: number | null;
+  bestAdjustedSec: number | null;
+  /** Adjusted × the class factor; null when the captain has entered none. */
+  indexSec: number | null;
+  /** Against the class's fastest adjusted time at that event on the board. */
+  pctOffClassFastest: number | null;
+  rankInClass: number | null;
+}
+
+export interface BoardCar {
+  car: { id: string; name: string; carNumber: string | null };
+  owner: { id: string; displayName: string };
+  sharing: TeamSharing;
+  results: BoardResult[];
+  /** Slope of % off the class's fastest per event over the season (negative: closing in). */
+  trendPctPerEvent: number | null;
+  /** The setup in force at the latest event, when the member shares setups; null otherwise. */
+  setup: {
+    label: string;
+    effectiveFrom: string;
+    frontCamberDeg: number | null;
+    rearCamberDeg: number | null;
+    frontSpringNPerMm: number | null;
+    rearSpringNPerMm: number | null;
+    frontClicks: number | null;
+    rearClicks: number | null;
+    frontColdKpa: number | null;
+    rearColdKpa: number | null;
+  } | null;
+}
+
+export interface ClassBoard {
+  team: TeamSummary;
+  season: number;
+  classes: { classCode: string; factor: number | null; cars: BoardCar[] }[];
+}
