@@ -5,6 +5,7 @@ import { inject } from 'vitest';
 import { createApp, type AppOptions } from '../../server/app';
 import { createDataSource } from '../../server/db/data-source';
 import { createUser } from '../../server/features/users/user.service';
+import type { MailMessage, MailSettings } from '../../server/mail/mailer';
 
 export const TEST_PASSWORD = 'long-enough-test-password';
 
@@ -12,6 +13,18 @@ export interface TestAppOptions {
   authLimits?: AppOptions['authLimits'];
   absoluteMs?: number;
   idleMs?: number;
+  mail?: AppOptions['mail'];
+}
+
+/** Mail settings whose mailer keeps every message, for tests to read. */
+export function captureMail() {
+  const sent: MailMessage[] = [];
+  const settings: MailSettings = {
+    mailer: { send: async (message) => void sent.push(message) },
+    publicUrl: 'http://scrubline.test',
+    from: 'Scrubline <no-reply@example.com>',
+  };
+  return { sent, settings };
 }
 
 /**
@@ -32,6 +45,7 @@ export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string 
       absoluteMs: opts.absoluteMs ?? 24 * 60 * 60 * 1000,
       secureCookie: false,
     },
+    mail: opts.mail,
     authLimits: { loginPerIp: 1000, registerPerIp: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
   });
   return {
