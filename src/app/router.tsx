@@ -59,6 +59,33 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
           lazy: async () => ({ Component: (await import('./routes/register')).RegisterPage }),
         },
         {
+          path: paths.forgotPassword,
+          loader: signedOutOnly,
+          hydrateFallbackElement: loading,
+          lazy: async () => ({ Component: (await import('./routes/account/forgot-password')).ForgotPasswordPage }),
+        },
+        {
+          path: paths.resetPassword,
+          hydrateFallbackElement: loading,
+          lazy: async () => ({ Component: (await import('./routes/account/reset-password')).ResetPasswordPage }),
+        },
+        {
+          // Works signed in or out: signed out, the page offers sign-in or registration first.
+          path: '/invitations/:token',
+          hydrateFallbackElement: loading,
+          lazy: async () => ({ Component: (await import('./routes/account/invitation')).InvitationPage }),
+        },
+        {
+          path: '/unsubscribe/:token',
+          hydrateFallbackElement: loading,
+          lazy: async () => ({ Component: (await import('./routes/account/unsubscribe')).UnsubscribePage }),
+        },
+        {
+          path: paths.devMailbox,
+          hydrateFallbackElement: loading,
+          lazy: async () => ({ Component: (await import('./routes/dev/mailbox')).MailboxPage }),
+        },
+        {
           id: SIGNED_IN_ROUTE_ID,
           loader: requireSignIn,
           hydrateFallbackElement: loading,
@@ -108,6 +135,38 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 {
                   path: paths.calculators,
                   lazy: async () => ({ Component: (await import('./routes/calculators/calculators')).CalculatorsPage }),
+                },
+                {
+                  path: paths.notifications,
+                  lazy: async () => ({ Component: (await import('./routes/notifications')).NotificationsPage }),
+                },
+                {
+                  path: paths.shop,
+                  lazy: async () => ({ Component: (await import('./routes/shop/shop')).ShopPage }),
+                },
+                {
+                  path: `${paths.shop}/customers/:carId`,
+                  lazy: async () => ({ Component: (await import('./routes/shop/customer')).CustomerPage }),
+                },
+                {
+                  path: `${paths.cars}/:carId/suggestions/new`,
+                  lazy: async () => ({ Component: (await import('./routes/suggestions/new-suggestion')).NewSuggestionPage }),
+                },
+                {
+                  path: '/suggestions/:suggestionId',
+                  lazy: async () => ({ Component: (await import('./routes/suggestions/suggestion')).SuggestionPage }),
+                },
+                {
+                  path: paths.teams,
+                  lazy: async () => ({ Component: (await import('./routes/teams/teams')).TeamsPage }),
+                },
+                {
+                  path: `${paths.teams}/:teamId`,
+                  lazy: async () => ({ Component: (await import('./routes/teams/team')).TeamPage }),
+                },
+                {
+                  path: `${paths.teams}/:teamId/board`,
+                  lazy: async () => ({ Component: (await import('./routes/teams/class-board')).ClassBoardPage }),
                 },
                 {
                   path: paths.settings,

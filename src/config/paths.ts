@@ -9,6 +9,15 @@ export const paths = {
   eventDay: '/event-day',
   settings: '/settings',
   calculators: '/calculators',
+  notifications: '/notifications',
+  /** Shop staff: the shop's customers and staff. */
+  shop: '/shop',
+  teams: '/teams',
+  forgotPassword: '/forgot-password',
+  /** Reached from the e-mailed link: /reset-password?token=… */
+  resetPassword: '/reset-password',
+  /** Development only: the e-mails the local mail server caught. */
+  devMailbox: '/dev/mailbox',
 } as const;
 
 /** Addresses of one record's pages. */
@@ -21,6 +30,14 @@ export const pathTo = {
   fixSetup: (carId: string, entryKey: string) => `/cars/${carId}/setups/new?fix=${encodeURIComponent(entryKey)}`,
   tread: (carId: string, tyreSetId?: string | null) =>
     `/cars/${carId}/tread${tyreSetId ? `?set=${encodeURIComponent(tyreSetId)}` : ''}`,
+  shopCustomer: (carId: string) => `/shop/customers/${carId}`,
+  newSuggestion: (carId: string, baseSetupId?: string | null) =>
+    `/cars/${carId}/suggestions/new${baseSetupId ? `?from=${encodeURIComponent(baseSetupId)}` : ''}`,
+  suggestion: (suggestionId: string) => `/suggestions/${suggestionId}`,
+  team: (teamId: string) => `/teams/${teamId}`,
+  classBoard: (teamId: string, season?: number) => `/teams/${teamId}/board${season ? `?season=${season}` : ''}`,
+  invitation: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  unsubscribe: (token: string) => `/unsubscribe/${encodeURIComponent(token)}`,
   event: (eventId: string, carId?: string | null) =>
     `/events/${eventId}${carId ? `?carId=${encodeURIComponent(carId)}` : ''}`,
 };

@@ -1,0 +1,6 @@
+import { PageMessage } from '@/components/ui/page-message';
+
+/** Placeholder until the page is built. */
+export function InvitationPage() {
+  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+}
