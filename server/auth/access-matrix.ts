@@ -71,10 +71,10 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'GET /api/health': 'public',
 
   'GET /api/auth/csrf': 'public',
-  'POST /api/auth/register': 'signed_out',
-  'POST /api/auth/login': 'signed_out',
+  'POST /api/auth/register': 'public',
+  'POST /api/auth/login': 'public',
   'POST /api/auth/logout': 'public',
-  'GET /api/auth/me': 'public',
+  'GET /api/auth/me': 'signed_in',
   'PATCH /api/auth/me/preferences': 'signed_in',
   'POST /api/auth/password-reset': 'public',
   'POST /api/auth/password-reset/confirm': 'public',

@@ -14,6 +14,7 @@ export interface TestAppOptions {
   absoluteMs?: number;
   idleMs?: number;
   mail?: AppOptions['mail'];
+  mailboxDir?: string;
 }
 
 /** Mail settings whose mailer keeps every message, for tests to read. */
@@ -46,6 +47,7 @@ export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string 
       secureCookie: false,
     },
     mail: opts.mail,
+    mailboxDir: opts.mailboxDir,
     authLimits: { loginPerIp: 1000, registerPerIp: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
   });
   return {
