@@ -12,3 +12,4 @@ export * from './alignment.calc';
 export * from './droop.calc';
 export * from './wear.calc';
 export * from './comparison.calc';
+export * from './trend.calc';

@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { emailSchema } from '../auth/auth.schema';
 
 export const TEAM_SHARING = ['results', 'results_and_setup'] as const;
 export type TeamSharing = (typeof TEAM_SHARING)[number];
@@ -23,7 +24,15 @@ export const updateEntryInputSchema = z.strictObject({
 });
 export type UpdateEntryInput = z.infer<typeof updateEntryInputSchema>;
 
-export const updateMemberInputSchema = z.strictObject({ isCaptain: z.boolean() });
+export const updateMemberInputSchema = z.strictObject({ isCaptain: z.boolean({ error: 'Choose captain or member' }) });
+export type UpdateMemberInput = z.infer<typeof updateMemberInputSchema>;
+
+/** A captain invites someone by e-mail; asAdmin invites them as a captain. */
+export const inviteMemberInputSchema = z.strictObject({
+  email: emailSchema,
+  asAdmin: z._default(z.boolean({ error: 'Choose captain or member' }), false),
+});
+export type InviteMemberInput = z.infer<typeof inviteMemberInputSchema>;
 
 export const seasonSchema = z.coerce.number({ error: 'Enter a year' }).check(z.int('Enter a year'), z.gte(1950, 'Enter a year from 1950'), z.lte(2200, 'Enter a year up to 2200'));
 
@@ -39,6 +48,7 @@ export const setFactorInputSchema = z.strictObject({
 export type SetFactorInput = z.infer<typeof setFactorInputSchema>;
 
 export const seasonQuerySchema = z.object({ season: z.optional(seasonSchema) });
+export type SeasonQuery = z.infer<typeof seasonQuerySchema>;
 
 export interface TeamSummary {
   id: string;

@@ -7,6 +7,7 @@ import * as droop from '../../../shared/calc/droop.calc';
 import * as pressure from '../../../shared/calc/pressure.calc';
 import * as scoring from '../../../shared/calc/scoring.calc';
 import * as suspension from '../../../shared/calc/suspension.calc';
+import * as trend from '../../../shared/calc/trend.calc';
 import * as tyre from '../../../shared/calc/tyre.calc';
 import * as units from '../../../shared/calc/units.calc';
 import * as wear from '../../../shared/calc/wear.calc';
@@ -34,6 +35,7 @@ const REQUIRED_FUNCTIONS = [
   'wearPattern',
   'compareSamples',
   'verdict',
+  'leastSquaresSlope',
 ] as const;
 
 describe('shared/calc/index.ts', () => {
@@ -47,7 +49,7 @@ describe('shared/calc/index.ts', () => {
   });
 
   it('when every topic module is compared with the index, then each of its exports is re-exported as the same value', () => {
-    const modules = { alignment, comparison, cornerWeights, droop, pressure, scoring, suspension, tyre, units, wear };
+    const modules = { alignment, comparison, cornerWeights, droop, pressure, scoring, suspension, trend, tyre, units, wear };
     for (const [file, mod] of Object.entries(modules)) {
       for (const [name, value] of Object.entries(mod)) {
         expect(Object.hasOwn(calc, name), `${file}.${name} is missing from the index`).toBe(true);

@@ -1,0 +1,214 @@
+import type { DataSource } from 'typeorm';
+import type { User } from '@shared/auth/auth.schema';
+import type { BoardCar, BoardResult, ClassBoard, TeamSharing } from '@shared/collab/team.schema';
+import type { Corner } from '@shared/season/corners';
+import type { RunStatus } from '@shared/season/run.schema';
+import { adjustedTimeSec, bestRun, indexTimeSec, leastSquaresSlope, pctOffBest } from '@shared/calc/index';
+import { entriesOf, factorsOf, teamSummary } from './team.service';
+
+/*
+ * The class board: every entered car's season, grouped by the class it is entered in.
+ * Read in a fixed number of queries whatever the number of cars (access, team, entries,
+ * factors, the season's runs of every entered car, and the shared setups), then scored
+ * with the shared calculations.
+ */
+
+interface BoardRunRow {
+  car_id: string;
+  driver_id: string;
+  driver_name: string;
+  event_id: string;
+  event_name: string;
+  date: string;
+  cone_penalty_sec: number;
+  raw_time_sec: number | null;
+  cones: number;
+  status: RunStatus;
+  setup_id: string | null;
+}
+
+interface SetupRow {
+  id: string;
+  label: string;
+  effective_from: Date;
+  corner: Corner | null;
+  camber_deg: number | null;
+  spring_rate_n_per_mm: number | null;
+  damper_clicks: number | null;
+  cold_pressure_kpa: number | null;
+}
+
+/** The latest season in which an entered car ran; the current year when none has. */
+async function defaultSeason(ds: DataSource, teamId: string): Promise<number> {
+  const rows: { season: number | null }[] = await ds.query(
+    `SELECT max(extract(year FROM e.date))::int AS season
+       FROM runs r
+       JOIN team_entries te ON te.car_id = r.car_id AND te.team_id = $1
+       JOIN events e ON e.id = r.event_id`,
+    [teamId],
+  );
+  return rows[0]?.season ?? new Date().getUTCFullYear();
+}
+
+/** Every run of every entered car at the season's events, each tied to its setup, in one query. */
+function seasonRuns(ds: DataSource, teamId: string, season: number): Promise<BoardRunRow[]> {
+  return ds.query(
+    `SELECT r.car_id, r.driver_id, u.display_name AS driver_name, r.event_id, e.name AS event_name, e.date::text AS date,
+            e.cone_penalty_sec, r.raw_time_sec, r.cones, r.status, r.setup_id
+       FROM runs_with_setup r
+       JOIN team_entries te ON te.car_id = r.car_id AND te.team_id = $1
+       JOIN events e ON e.id = r.event_id
+       JOIN users u ON u.id = r.driver_id
+      WHERE e.date >= make_date($2, 1, 1) AND e.date < make_date($2 + 1, 1, 1)
+      ORDER BY e.date, e.name, e.id, r.recorded_at, r.run_number`,
+    [teamId, season],
+  );
+}
+
+const round6 = (n: number) => Math.round(n * 1e6) / 1e6;
+
+/** Mean of an axle's two corners; null unless both are recorded. */
+function axleMean(rows: SetupRow[], corners: readonly Corner[], field: 'camber_deg' | 'spring_rate_n_per_mm' | 'damper_clicks' | 'cold_pressure_kpa') {
+  const values = corners.map((c) => rows.find((r) => r.corner === c)?.[field]).filter((v): v is number => typeof v === 'number');
+  return values.length === corners.length ? round6(values.reduce((a, b) => a + b, 0) / values.length) : null;
+}
+
+function setupSummary(rows: SetupRow[]): NonNullable<BoardCar['setup']> {
+  const front = ['lf', 'rf'] as const;
+  const rear = ['lr', 'rr'] as const;
+  return {
+    label: rows[0]!.label,
+    effectiveFrom: rows[0]!.effective_from.toISOString(),
+    frontCamberDeg: axleMean(rows, front, 'camber_deg'),
+    rearCamberDeg: axleMean(rows, rear, 'camber_deg'),
+    frontSpringNPerMm: axleMean(rows, front, 'spring_rate_n_per_mm'),
+    rearSpringNPerMm: axleMean(rows, rear, 'spring_rate_n_per_mm'),
+    frontClicks: axleMean(rows, front, 'damper_clicks'),
+    rearClicks: axleMean(rows, rear, 'damper_clicks'),
+    frontColdKpa: axleMean(rows, front, 'cold_pressure_kpa'),
+    rearColdKpa: axleMean(rows, rear, 'cold_pressure_kpa'),
+  };
+}
+
+interface Day {
+  carId: string;
+  classCode: string;
+  eventOrder: number;
+  result: BoardResult;
+}
+
+export async function classBoard(ds: DataSource, user: User, teamId: string, season?: number): Promise<ClassBoard> {
+  const team = await teamSummary(ds, user, teamId);
+  const year = season ?? (await defaultSeason(ds, teamId));
+  const [entries, factors, runs] = await Promise.all([entriesOf(ds, teamId), factorsOf(ds, teamId, year), seasonRuns(ds, teamId, year)]);
+  const factorOf = new Map(factors.map((f) => [f.classCode, f.factor]));
+  const entryOf = new Map(entries.map((e) => [e.car_id, e]));
+
+  // The season's events in date order: the x of each car's trend.
+  const eventOrder = new Map<string, number>();
+  for (const r of runs) if (!eventOrder.has(r.event_id)) eventOrder.set(r.event_id, eventOrder.size + 1);
+
+  // Each car's runs per (event, driver): one line on the board, scored with the shared scoring.
+  const groups = new Map<string, BoardRunRow[]>();
+  for (const r of runs) {
+    const key = `${r.car_id}|${r.event_id}|${r.driver_id}`;
+    const list = groups.get(key) ?? [];
+    list.push(r);
+    groups.set(key, list);
+  }
+  const days: Day[] = [];
+  for (const group of groups.values()) {
+    const first = group[0]!;
+    const classCode = entryOf.get(first.car_id)!.class_code;
+    const runsScored = group.map((r) => ({ rawTimeSec: r.raw_time_sec, cones: r.cones, status: r.status }));
+    const finishedRaw = runsScored.filter((r) => r.status === 'finished' && r.rawTimeSec !== null).map((r) => r.rawTimeSec!);
+    const best = bestRun(runsScored, first.cone_penalty_sec);
+    const bestAdjustedSec = best ? adjustedTimeSec(best, first.cone_penalty_sec) : null;
+    const factor = factorOf.get(classCode);
+    days.push({
+      carId: first.car_id,
+      classCode,
+      eventOrder: eventOrder.get(first.event_id)!,
+      result: {
+        eventId: first.event_id,
+        eventName: first.event_name,
+        date: first.date,
+        driver: { id: first.driver_id, displayName: first.driver_name },
+        bestRawSec: finishedRaw.length > 0 ? Math.min(...finishedRaw) : null,
+        bestAdjustedSec,
+        indexSec: bestAdjustedSec !== null && factor !== undefined ? indexTimeSec(bestAdjustedSec, factor) : null,
+        pctOffClassFastest: null,
+        rankInClass: null,
+      },
+    });
+  }
+
+  // % off the class's fastest adjusted time at each event, and the rank in class there.
+  const byClassEvent = new Map<string, Day[]>();
+  for (const d of days) {
+    const key = `${d.classCode}|${d.result.eventId}`;
+    byClassEvent.set(key, [...(byClassEvent.get(key) ?? []), d]);
+  }
+  for (const group of byClassEvent.values()) {
+    const times = group.map((d) => d.result.bestAdjustedSec).filter((t): t is number => t !== null);
+    if (times.length === 0) continue;
+    const fastest = Math.min(...times);
+    for (const d of group) {
+      const t = d.result.bestAdjustedSec;
+      if (t === null) continue;
+      d.result.pctOffClassFastest = pctOffBest(t, fastest);
+      d.result.rankInClass = times.filter((other) => other < t).length + 1;
+    }
+  }
+
+  // The setups in force at each sharing car's latest event: its last run there, in one query.
+  const lastSetupOf = new Map<string, string | null>();
+  for (const r of runs) if (entryOf.get(r.car_id)!.sharing === 'results_and_setup') lastSetupOf.set(r.car_id, r.setup_id);
+  const setupIds = [...new Set([...lastSetupOf.values()].filter((id): id is string => id !== null))];
+  const setupRows: SetupRow[] = setupIds.length === 0 ? [] : await ds.query(
+    `SELECT s.id, s.label, s.effective_from, c.corner, c.camber_deg, c.spring_rate_n_per_mm, c.damper_clicks, c.cold_pressure_kpa
+       FROM setup_snapshots s LEFT JOIN setup_corners c ON c.setup_id = s.id
+      WHERE s.id = ANY($1)`,
+    [setupIds],
+  );
+
+  const classes = new Map<string, BoardCar[]>();
+  for (const e of entries) {
+    const own = days.filter((d) => d.carId === e.car_id).sort((a, b) => a.eventOrder - b.eventOrder
+      || a.result.driver.displayName.localeCompare(b.result.driver.displayName) || a.result.driver.id.localeCompare(b.result.driver.id));
+    const sharing: TeamSharing = e.sharing;
+    const setupId = sharing === 'results_and_setup' ? lastSetupOf.get(e.car_id) ?? null : null;
+    const rows = setupId ? setupRows.filter((r) => r.id === setupId) : [];
+    classes.set(e.class_code, [...(classes.get(e.class_code) ?? []), {
+      car: { id: e.car_id, name: e.car_name, carNumber: e.car_number },
+      owner: { id: e.owner_id, displayName: e.owner_name },
+      sharing,
+      results: own.map((d) => d.result),
+      trendPctPerEvent: trendOf(own),
+      setup: rows.length > 0 ? setupSummary(rows) : null,
+    }]);
+  }
+
+  return {
+    team,
+    season: year,
+    classes: [...classes.entries()]
+      .sort(([a], [b]) => a.localeCompare(b))
+      .map(([classCode, cars]) => ({ classCode, factor: factorOf.get(classCode) ?? null, cars })),
+  };
+}
+
+/**
+ * Slope of the car's % off its class's fastest against the season's event order
+ * (least squares): at each event the car's best line over its drivers. Null with
+ * fewer than 2 events.
+ */
+function trendOf(days: Day[]): number | null {
+  const bestAt = new Map<number, number>();
+  for (const d of days) {
+    const pct = d.result.pctOffClassFastest;
+    if (pct === null) continue;
+    bestAt.set(d.eventOrder, Math.min(pct, bestAt.get(d.eventOrder) ?? Infinity));
+  }
+  return leastSquaresSlope([...bestAt.entries()]);
+}

@@ -1,0 +1,344 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import type { BoardCar, BoardResult, ClassBoard } from '../../../shared/collab/team.schema';
+import { client, makeTestApp, signedInClient, type TestApp } from '../test-app';
+import { seededDatabaseUrl } from '../support-seeded';
+import { expectError, expectFieldErrors, postSetup, setupBody, type Client } from '../season/season-fixtures';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/db/demo-accounts';
+
+/*
+ * Scoring on the board, checked against numbers worked by hand from the runs inserted here.
+ * Adjusted time = raw + cones × the event's cone penalty: common practice, "time plus
+ * penalties" per cone (club autocross rulebooks). Index time = adjusted × the class factor
+ * the captain entered. % off = (t − fastest) / fastest × 100. Trend = least-squares slope
+ * of % off against event order; for events 1, 2, 3 that is (y₃ − y₁) / 2 (x̄ = 2,
+ * Σ(x − x̄)² = 2, and the middle point has x − x̄ = 0).
+ */
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await makeTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+type Person = Awaited<ReturnType<typeof signedInClient>>;
+
+async function carOf(c: Client, name: string, classCode: string) {
+  const res = await c.post('/api/cars', { name, classCode, carNumber: name.slice(0, 2) });
+  expect(res.status, JSON.stringify(res.body)).toBe(201);
+  return res.body.id as string;
+}
+
+async function event(createdBy: Person, name: string, date: string, conePenaltySec: number) {
+  const rows: { id: string }[] = await t.ds.query(
+    'INSERT INTO events (created_by, name, date, cone_penalty_sec) VALUES ($1, $2, $3, $4) RETURNING id',
+    [createdBy.user.id, name, date, conePenaltySec],
+  );
+  return rows[0]!.id;
+}
+
+/** Runs at a shared event, straight into the table (the runs API is tested elsewhere). */
+async function runs(carId: string, eventId: string, driver: Person, date: string, list: [number | null, number, ('finished' | 'dnf' | 'off_course')?][]) {
+  for (const [i, [raw, cones, status]] of list.entries()) {
+    await t.ds.query(
+      `INSERT INTO runs (id, car_id, event_id, driver_id, run_number, raw_time_sec, cones, status, recorded_at)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9)`,
+      [randomUUID(), carId, eventId, driver.user.id, i + 1, raw, cones, status ?? 'finished', `${date}T${10 + i}:00:00Z`],
+    );
+  }
+}
+
+const entered = (b: ClassBoard, carId: string): BoardCar => {
+  const found = b.classes.flatMap((c) => c.cars).find((c) => c.car.id === carId);
+  expect(found, `car ${carId} on the board`).toBeDefined();
+  return found!;
+};
+const at = (car: BoardCar, eventId: string, driverId: string): BoardResult => {
+  const found = car.results.find((r) => r.eventId === eventId && r.driver.id === driverId);
+  expect(found, `result at ${eventId}`).toBeDefined();
+  return found!;
+};
+
+/**
+ * Team "Late Brakers", season 2025:
+ *   Alpha (SR, Ann's, setup shared; Eve co-drives it), Bravo (SR, Ben's, results only), Delta (SH, Dee's, results only).
+ *   The captain enters an SR factor of 0.842 and none for SH.
+ */
+async function scenario() {
+  const captain = await signedInClient(t, { displayName: 'Cap Tain' });
+  const team = await captain.c.post('/api/teams', { name: 'Late Brakers' });
+  expect(team.status).toBe(201);
+  const teamId = team.body.id as string;
+  const ann = await signedInClient(t, { displayName: 'Ann Apex' });
+  const ben = await signedInClient(t, { displayName: 'Ben Braking' });
+  const dee = await signedInClient(t, { displayName: 'Dee Drift' });
+  const eve = await signedInClient(t, { displayName: 'Eve Early' });
+  for (const p of [ann, ben, dee]) {
+    await t.ds.query('INSERT INTO team_members (team_id, user_id) VALUES ($1, $2)', [teamId, p.user.id]);
+  }
+  const alpha = await carOf(ann.c, 'Alpha', 'SS');
+  const bravo = await carOf(ben.c, 'Bravo', 'SS');
+  const delta = await carOf(dee.c, 'Delta', 'SH');
+  expect((await ann.c.post(`/api/cars/${alpha}/co-drivers`, { email: eve.email })).status).toBe(201);
+  // Entered in the team's own classes, which need not be the car's.
+  for (const [p, carId, classCode, sharing] of [
+    [ann, alpha, 'SR', 'results_and_setup'], [ben, bravo, 'SR', 'results'], [dee, delta, 'SH', 'results'],
+  ] as const) {
+    const res = await p.c.post(`/api/teams/${teamId}/entries`, { carId, classCode, sharing });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+  }
+  expect((await captain.c.put(`/api/teams/${teamId}/factors`, { season: 2025, classCode: 'SR', factor: 0.842 })).status).toBe(200);
+
+  // Setups. Alpha's: a baseline, the change in force at event 3, and one after the season's last event.
+  await postSetup(ann.c, alpha, { label: 'Alpha baseline', effectiveFrom: '2025-03-01T00:00:00Z' });
+  await postSetup(ann.c, alpha, {
+    label: 'After camber change',
+    effectiveFrom: '2025-05-20T00:00:00Z',
+    corners: {
+      lf: { camberDeg: -2.0, springRateNPerMm: 40, damperClicks: 5, coldPressureKpa: 200 },
+      rf: { camberDeg: -2.2, springRateNPerMm: 42, damperClicks: 6, coldPressureKpa: 204 },
+      lr: { camberDeg: -1.5, springRateNPerMm: 30, damperClicks: 7, coldPressureKpa: 190 },
+      rr: { camberDeg: -1.5, springRateNPerMm: 30, damperClicks: 7, coldPressureKpa: 190 },
+    },
+  });
+  await postSetup(ann.c, alpha, { label: 'Winter storage', effectiveFrom: '2025-10-01T00:00:00Z' });
+  // Bravo's setup has values that must never appear on the board.
+  const secret = { camberDeg: -3.33, springRateNPerMm: 77.7, damperClicks: 13, coldPressureKpa: 211.1 };
+  await postSetup(ben.c, bravo, {
+    ...setupBody(),
+    label: 'Secret sauce',
+    effectiveFrom: '2025-03-01T00:00:00Z',
+    corners: { lf: secret, rf: secret, lr: secret, rr: secret },
+  });
+
+  const e1 = await event(ann, 'Round 1', '2025-04-06', 2);
+  const e2 = await event(ann, 'Round 2', '2025-05-04', 2);
+  const e3 = await event(ann, 'Round 3', '2025-06-01', 1);
+  const e0 = await event(dee, 'Last year\'s final', '2024-09-14', 2);
+
+  // Round 1, 2 s a cone.
+  // Alpha/Ann: 50.000+1 → 52.000; 51.000 clean → 51.000; 49.500+2 → 53.500. Best raw 49.500 (cones ignored), best adjusted 51.000.
+  await runs(alpha, e1, ann, '2025-04-06', [[50.0, 1], [51.0, 0], [49.5, 2]]);
+  // Bravo/Ben: 50.200 clean; DNF; 49.900+1 → 51.900. Best raw 49.900, best adjusted 50.200 (class fastest).
+  await runs(bravo, e1, ben, '2025-04-06', [[50.2, 0], [null, 0, 'dnf'], [49.9, 1]]);
+  // Delta/Dee: 55.000 clean, alone in SH.
+  await runs(delta, e1, dee, '2025-04-06', [[55.0, 0]]);
+  // Round 2, 2 s a cone. Alpha/Ann 48.000; Alpha/Eve 48.300; Bravo/Ben 48.600.
+  await runs(alpha, e2, ann, '2025-05-04', [[48.0, 0]]);
+  await runs(alpha, e2, eve, '2025-05-04', [[48.3, 0], [null, 0, 'off_course']]);
+  await runs(bravo, e2, ben, '2025-05-04', [[48.6, 0]]);
+  // Round 3, 1 s a cone. Alpha/Ann: 47.200+1 → 48.200 (with 2 s it would be 49.200, slower than the clean 48.500); 48.500.
+  await runs(alpha, e3, ann, '2025-06-01', [[47.2, 1], [48.5, 0]]);
+  // Bravo/Ben: 48.400 clean.
+  await runs(bravo, e3, ben, '2025-06-01', [[48.4, 0]]);
+  // The season before: Delta only.
+  await runs(delta, e0, dee, '2024-09-14', [[57.0, 0]]);
+
+  return { captain, teamId, ann, ben, dee, eve, alpha, bravo, delta, e0, e1, e2, e3 };
+}
+
+let s: Awaited<ReturnType<typeof scenario>>;
+let board: ClassBoard;
+beforeAll(async () => {
+  s = await scenario();
+  const res = await s.captain.c.get(`/api/teams/${s.teamId}/board?season=2025`);
+  expect(res.status, JSON.stringify(res.body)).toBe(200);
+  board = res.body as ClassBoard;
+}, 60_000);
+
+describe('GET /api/teams/:teamId/board', () => {
+  it('when the captain reads 2025, then cars are grouped by their entered class with the class factor (SR 0.842, SH none)', () => {
+    expect(board.team).toEqual({ id: s.teamId, name: 'Late Brakers', isCaptain: true });
+    expect(board.season).toBe(2025);
+    expect(board.classes.map((c) => [c.classCode, c.factor, c.cars.map((x) => x.car.name)])).toEqual([
+      ['SH', null, ['Delta']],
+      ['SR', 0.842, ['Alpha', 'Bravo']],
+    ]);
+    expect(entered(board, s.alpha).owner).toEqual({ id: s.ann.user.id, displayName: 'Ann Apex' });
+  });
+
+  it('when runs have cones, then best raw ignores them and best adjusted adds the event\'s penalty per cone', () => {
+    const alpha = entered(board, s.alpha);
+    const bravo = entered(board, s.bravo);
+    expect(at(alpha, s.e1, s.ann.user.id)).toMatchObject({ eventName: 'Round 1', date: '2025-04-06', bestRawSec: 49.5, bestAdjustedSec: 51.0 });
+    expect(at(bravo, s.e1, s.ben.user.id)).toMatchObject({ bestRawSec: 49.9, bestAdjustedSec: 50.2 });
+    // Round 3 has a 1 s penalty: 47.200 + 1 × 1 = 48.200 beats the clean 48.500.
+    expect(at(alpha, s.e3, s.ann.user.id)).toMatchObject({ bestRawSec: 47.2, bestAdjustedSec: 48.2 });
+  });
+
+  it('when a class has a factor, then index = adjusted × factor; without one, index is null', () => {
+    // 51.000 × 0.842 = 42.942; 50.200 × 0.842 = 42.2684 → 42.268 (to the millisecond).
+    expect(at(entered(board, s.alpha), s.e1, s.ann.user.id).indexSec).toBeCloseTo(42.942, 9);
+    expect(at(entered(board, s.bravo), s.e1, s.ben.user.id).indexSec).toBeCloseTo(42.268, 9);
+    expect(at(entered(board, s.delta), s.e1, s.dee.user.id).indexSec).toBeNull();
+  });
+
+  it('when drivers meet at an event, then each line has its % off the class\'s fastest and its rank in class', () => {
+    const alpha = entered(board, s.alpha);
+    const bravo = entered(board, s.bravo);
+    // Round 1, SR fastest 50.200 (Bravo): Alpha (51.000 − 50.200) / 50.200 × 100 = 1.5936 %, 2nd.
+    expect(at(bravo, s.e1, s.ben.user.id)).toMatchObject({ pctOffClassFastest: 0, rankInClass: 1 });
+    expect(at(alpha, s.e1, s.ann.user.id).pctOffClassFastest).toBeCloseTo((0.8 / 50.2) * 100, 9);
+    expect(at(alpha, s.e1, s.ann.user.id).rankInClass).toBe(2);
+    // Round 2, SR fastest 48.000 (Ann in Alpha): Eve in Alpha 0.300 / 48 × 100 = 0.625 %, 2nd; Bravo 0.600 / 48 × 100 = 1.25 %, 3rd.
+    expect(at(alpha, s.e2, s.ann.user.id)).toMatchObject({ pctOffClassFastest: 0, rankInClass: 1 });
+    expect(at(alpha, s.e2, s.eve.user.id).pctOffClassFastest).toBeCloseTo(0.625, 9);
+    expect(at(alpha, s.e2, s.eve.user.id).rankInClass).toBe(2);
+    expect(at(bravo, s.e2, s.ben.user.id).pctOffClassFastest).toBeCloseTo(1.25, 9);
+    expect(at(bravo, s.e2, s.ben.user.id).rankInClass).toBe(3);
+    // Round 3, SR fastest 48.200 (Alpha): Bravo 0.200 / 48.2 × 100 = 0.41494 %.
+    expect(at(bravo, s.e3, s.ben.user.id).pctOffClassFastest).toBeCloseTo((0.2 / 48.2) * 100, 9);
+    // Delta is alone in SH: fastest, 1st.
+    expect(at(entered(board, s.delta), s.e1, s.dee.user.id)).toMatchObject({ pctOffClassFastest: 0, rankInClass: 1 });
+    // Results run in event order, one line per driver.
+    expect(alpha.results.map((r) => [r.eventName, r.driver.displayName])).toEqual([
+      ['Round 1', 'Ann Apex'], ['Round 2', 'Ann Apex'], ['Round 2', 'Eve Early'], ['Round 3', 'Ann Apex'],
+    ]);
+  });
+
+  it('when a car closes in or falls back, then its trend is the least-squares slope of its best % off per event', () => {
+    // Alpha: events 1, 2, 3 at 1.5936 %, 0 % (Ann's 0 beats Eve's 0.625), 0 % → slope (0 − 1.5936) / 2 = −0.7968 % per event.
+    expect(entered(board, s.alpha).trendPctPerEvent).toBeCloseTo(-((0.8 / 50.2) * 100) / 2, 9);
+    // Bravo: 0 %, 1.25 %, 0.41494 % → slope (0.41494 − 0) / 2 = +0.20747 % per event (falling back).
+    expect(entered(board, s.bravo).trendPctPerEvent).toBeCloseTo(((0.2 / 48.2) * 100) / 2, 9);
+    // Delta ran one event in 2025: no trend.
+    expect(entered(board, s.delta).trendPctPerEvent).toBeNull();
+  });
+
+  it('when a member shares setups, then the board shows the snapshot in force at the car\'s latest event, as axle averages', () => {
+    // At Round 3 (1 June) "After camber change" (from 20 May) is in force; "Winter storage" (October) is not.
+    expect(entered(board, s.alpha).setup).toEqual({
+      label: 'After camber change',
+      effectiveFrom: '2025-05-20T00:00:00.000Z',
+      frontCamberDeg: -2.1, // (−2.0 + −2.2) / 2
+      rearCamberDeg: -1.5,
+      frontSpringNPerMm: 41, // (40 + 42) / 2
+      rearSpringNPerMm: 30,
+      frontClicks: 5.5, // (5 + 6) / 2
+      rearClicks: 7,
+      frontColdKpa: 202, // (200 + 204) / 2
+      rearColdKpa: 190,
+    });
+  });
+
+  it('when a member shares results only, then the board carries none of their setup values', () => {
+    const bravo = entered(board, s.bravo);
+    expect(bravo.sharing).toBe('results');
+    expect(bravo.setup).toBeNull();
+    const json = JSON.stringify(board);
+    for (const value of ['Secret sauce', '-3.33', '77.7', '211.1']) expect(json).not.toContain(value);
+    expect(entered(board, s.delta).setup).toBeNull();
+  });
+
+  it('when a member reads the board, then they see what the captain sees', async () => {
+    const res = await s.ben.c.get(`/api/teams/${s.teamId}/board?season=2025`);
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ ...board, team: { ...board.team, isCaptain: false } });
+  });
+
+  it('when no season is given, then the latest season with runs by entered cars is shown; another season shows its own events', async () => {
+    const latest = await s.dee.c.get(`/api/teams/${s.teamId}/board`);
+    expect(latest.body.season).toBe(2025);
+    const before = (await s.dee.c.get(`/api/teams/${s.teamId}/board?season=2024`)).body as ClassBoard;
+    expect(before.classes.find((c) => c.classCode === 'SR')!.factor).toBeNull();
+    expect(entered(before, s.delta).results).toEqual([
+      expect.objectContaining({ eventId: s.e0, bestAdjustedSec: 57, indexSec: null, pctOffClassFastest: 0, rankInClass: 1 }),
+    ]);
+    expect(entered(before, s.alpha).results).toEqual([]);
+    expect(entered(before, s.alpha).setup).toBeNull();
+  });
+
+  it('when a team has no runs yet, then the board is for the current year with its cars and no results', async () => {
+    const captain = await signedInClient(t);
+    const teamId = (await captain.c.post('/api/teams', { name: 'Fresh' })).body.id as string;
+    const carId = await carOf(captain.c, 'New car', 'SR');
+    await captain.c.post(`/api/teams/${teamId}/entries`, { carId, classCode: 'SR', sharing: 'results_and_setup' });
+    const res = await captain.c.get(`/api/teams/${teamId}/board`);
+    expect(res.body).toEqual({
+      team: { id: teamId, name: 'Fresh', isCaptain: true },
+      season: new Date().getUTCFullYear(),
+      classes: [{ classCode: 'SR', factor: null, cars: [expect.objectContaining({ results: [], trendPctPerEvent: null, setup: null })] }],
+    });
+  });
+
+  it('when an outsider or another team\'s captain asks, then 404; a bad season is 400', async () => {
+    const outsider = await signedInClient(t);
+    const other = await signedInClient(t);
+    await other.c.post('/api/teams', { name: 'Rivals' });
+    expectError(await outsider.c.get(`/api/teams/${s.teamId}/board`), 404, 'not_found');
+    expectError(await other.c.get(`/api/teams/${s.teamId}/board?season=2025`), 404, 'not_found');
+    expectFieldErrors(await s.captain.c.get(`/api/teams/${s.teamId}/board?season=1066`), ['season']);
+  });
+
+  it('when more cars are entered, then the board takes the same number of queries (no query per car)', async () => {
+    const countQueries = async (c: Client, teamId: string) => {
+      const spy = vi.spyOn(t.ds, 'query');
+      try {
+        const res = await c.get(`/api/teams/${teamId}/board?season=2025`);
+        expect(res.status).toBe(200);
+        return spy.mock.calls.length;
+      } finally {
+        spy.mockRestore();
+      }
+    };
+    // A one-car team, sharing its setup, against the three-car team above.
+    const solo = await signedInClient(t);
+    const teamId = (await solo.c.post('/api/teams', { name: 'Solo' })).body.id as string;
+    const carId = await carOf(solo.c, 'Lonely', 'SR');
+    await solo.c.post(`/api/teams/${teamId}/entries`, { carId, classCode: 'SR', sharing: 'results_and_setup' });
+    await postSetup(solo.c, carId, { effectiveFrom: '2025-01-01T00:00:00Z' });
+    await runs(carId, await event(solo, 'Solo round', '2025-04-06', 2), solo, '2025-04-06', [[50, 0]]);
+
+    const one = await countQueries(solo.c, teamId);
+    const three = await countQueries(s.captain.c, s.teamId);
+    expect(three).toBe(one);
+    expect(three).toBeLessThanOrEqual(10);
+  });
+});
+
+describe('the demo team\'s board', () => {
+  let demo: { url: string; drop: () => Promise<void> };
+  let app: TestApp;
+  beforeAll(async () => {
+    demo = await seededDatabaseUrl();
+    app = await makeTestApp({ databaseUrl: demo.url });
+  }, 120_000);
+  afterAll(async () => {
+    await app?.close();
+    await demo?.drop();
+  });
+
+  it('when the captain reads 2026, then Pebble (SR) and Biscuit Tin (SH) have results, and only Pebble\'s setup is shown', async () => {
+    const c = client(app.app);
+    expect((await c.post('/api/auth/login', { email: DEMO_ACCOUNTS.captain.email, password: DEMO_PASSWORD })).status).toBe(200);
+    const teams = await c.get('/api/teams/mine');
+    expect(teams.body.items).toEqual([{ id: expect.any(String), name: 'Gravel Pit Irregulars', isCaptain: true }]);
+    const res = await c.get(`/api/teams/${teams.body.items[0].id}/board?season=2026`);
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    const b = res.body as ClassBoard;
+    expect(b.classes.map((x) => [x.classCode, x.factor, x.cars.map((car) => [car.car.name, car.sharing])])).toEqual([
+      ['SH', 0.815, [['Biscuit Tin', 'results']]],
+      ['SR', 0.842, [['Pebble', 'results_and_setup']]],
+    ]);
+    const [biscuit, pebble] = b.classes.map((x) => x.cars[0]!);
+    // Eight events: Pebble has Maren and Teo each time, Biscuit Tin has Priya.
+    expect(pebble!.results).toHaveLength(16);
+    expect(biscuit!.results).toHaveLength(8);
+    expect(pebble!.setup).toMatchObject({ frontCamberDeg: -2.4 }); // the camber arms are on by the last event
+    expect(biscuit!.setup).toBeNull();
+
+    // One line checked against the stored runs: Maren's best adjusted at the first event, 2 s a cone.
+    const rows: { raw_time_sec: number; cones: number }[] = await app.ds.query(
+      `SELECT r.raw_time_sec, r.cones FROM runs r JOIN cars c ON c.id = r.car_id JOIN events e ON e.id = r.event_id
+        JOIN users u ON u.id = r.driver_id
+       WHERE c.name = 'Pebble' AND e.date = '2026-04-12' AND u.email = $1 AND r.status = 'finished'`,
+      [DEMO_ACCOUNTS.driver.email],
+    );
+    const expected = Math.min(...rows.map((r) => Math.round((r.raw_time_sec + r.cones * 2) * 1000) / 1000));
+    const first = pebble!.results.find((r) => r.date === '2026-04-12' && r.driver.displayName === DEMO_ACCOUNTS.driver.displayName)!;
+    expect(first.bestAdjustedSec).toBeCloseTo(expected, 9);
+    expect(first.indexSec).toBeCloseTo(Math.round(expected * 0.842 * 1000) / 1000, 9);
+  });
+});

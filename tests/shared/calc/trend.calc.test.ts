@@ -1,0 +1,54 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { linearRegression } from 'simple-statistics';
+import { leastSquaresSlope } from '../../../shared/calc/trend.calc';
+import { expectClose } from './expect-digits';
+
+describe('leastSquaresSlope', () => {
+  it('when the points are (1, 2), (2, 3), (3, 7), then the slope is 2.5 (worked by hand)', () => {
+    // x̄ = 2, ȳ = 4; Σ(x − x̄)(y − ȳ) = (−1)(−2) + 0·(−1) + (1)(3) = 5; Σ(x − x̄)² = 1 + 0 + 1 = 2; slope = 5 / 2.
+    expect(leastSquaresSlope([[1, 2], [2, 3], [3, 7]])).toBeCloseTo(2.5, 12);
+  });
+
+  it('when % off falls 4.0, 2.5, 2.0 over events 1, 2, 4, then the slope is −0.6 % per event (worked by hand)', () => {
+    // x̄ = 7/3, ȳ = 8.5/3; Σ(x − x̄)(y − ȳ) = Σxy − n·x̄·ȳ = (4 + 5 + 8) − 3·(7/3)·(8.5/3) = 17 − 59.5/3 = −8.5/3;
+    // Σ(x − x̄)² = Σx² − n·x̄² = 21 − 49/3 = 14/3; slope = −8.5/14 = −0.607142857…
+    expect(leastSquaresSlope([[1, 4], [2, 2.5], [4, 2]])).toBeCloseTo(-8.5 / 14, 12);
+  });
+
+  it('when two points are given, then the slope is the line through them (rise over run)', () => {
+    expect(leastSquaresSlope([[3, 1.2], [5, 0.2]])).toBeCloseTo(-0.5, 12);
+  });
+
+  it('when there are fewer than 2 points or every x is the same, then there is no slope', () => {
+    expect(leastSquaresSlope([])).toBeNull();
+    expect(leastSquaresSlope([[1, 5]])).toBeNull();
+    expect(leastSquaresSlope([[2, 1], [2, 3]])).toBeNull();
+  });
+
+  it('when compared with simple-statistics linearRegression on random points, then the slopes agree (independent library)', () => {
+    const point = fc.tuple(fc.integer({ min: 1, max: 30 }), fc.double({ min: -50, max: 50, noNaN: true }));
+    fc.assert(
+      fc.property(fc.array(point, { minLength: 2, maxLength: 20 }), (points) => {
+        fc.pre(new Set(points.map(([x]) => x)).size >= 2);
+        const ours = leastSquaresSlope(points)!;
+        const theirs = linearRegression(points.map(([x, y]) => [x, y])).m;
+        expectClose(ours, theirs, 1e-9, 1e-9);
+      }),
+    );
+  });
+
+  it('when every y is shifted by a constant, then the slope is unchanged (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.double({ min: -50, max: 50, noNaN: true }), { minLength: 2, maxLength: 12 }),
+        fc.double({ min: -100, max: 100, noNaN: true }),
+        (ys, shift) => {
+          const points = ys.map((y, i) => [i + 1, y] as const);
+          const shifted = ys.map((y, i) => [i + 1, y + shift] as const);
+          expectClose(leastSquaresSlope(shifted)!, leastSquaresSlope(points)!, 1e-9, 1e-9);
+        },
+      ),
+    );
+  });
+});
