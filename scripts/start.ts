@@ -1,8 +1,11 @@
 // `npm start`: private PostgreSQL under .data/, migrations, demo seed on first run,
-// a production build of the client, and one Express process serving both.
+// a production build of the client, and one Express process serving both. Unless
+// SMTP_URL names a real mail server, e-mails go to a local mail catcher whose
+// messages the app shows at /dev/mailbox.
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { portIsFree, startCluster, type Cluster } from './lib/pg-cluster';
+import type { FakeSmtp } from './lib/fake-smtp';
 import { DATA_DIR, localSessionSecret, ROOT, say } from './lib/env';
 import { loadConfig } from '../server/config';
 import { startServer, type RunningServer } from '../server/index';
@@ -10,6 +13,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../server/db/demo-accounts';
 
 let cluster: Cluster | undefined;
 let running: RunningServer | undefined;
+let smtp: FakeSmtp | undefined;
 let stopping = false;
 
 async function shutdown(code: number) {
@@ -18,6 +22,7 @@ async function shutdown(code: number) {
   say('stopping…');
   try {
     await running?.close();
+    await smtp?.stop();
   } finally {
     cluster?.stop();
     say('stopped. Your data stays in .data/ for next time.');
@@ -40,6 +45,13 @@ async function main() {
     say(`PostgreSQL is running on 127.0.0.1:${cluster.port} (data in .data/pg)`);
   }
 
+  // Loaded only when needed: smtp-server and mailparser are development dependencies.
+  if (!process.env.SMTP_URL && process.env.NODE_ENV !== 'production') {
+    const { startFakeSmtp } = await import('./lib/fake-smtp');
+    smtp = await startFakeSmtp({ dir: join(DATA_DIR, 'mailbox') });
+    say(`e-mails stay on this machine: a local mail catcher on 127.0.0.1:${smtp.port} keeps them in .data/mailbox`);
+  }
+
   say('building the client…');
   const build = spawnSync(join(ROOT, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], {
     cwd: ROOT,
@@ -51,14 +63,18 @@ async function main() {
     ...process.env,
     DATABASE_URL: databaseUrl,
     SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret(),
+    ...(smtp ? { SMTP_URL: smtp.url, MAILBOX_DIR: smtp.dir } : {}),
   });
   running = await startServer(config);
   if (running.seeded) say('filled in the demo season (first run).');
 
+  const mailLine = smtp
+    ? `\n  E-mails the app sends (invitations, password resets): http://localhost:${running.port}/dev/mailbox\n`
+    : '';
   const lines = Object.values(DEMO_ACCOUNTS).map((a) => `    ${a.email.padEnd(22)} ${DEMO_PASSWORD}   (${a.note})`);
   console.log(`
   Scrubline is running at http://localhost:${running.port}
-
+${mailLine}
   Demo sign-ins (e-mail, password):
 ${lines.join('\n')}
 

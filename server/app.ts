@@ -29,7 +29,7 @@ import { commentRoutes } from './features/comments/comment.routes';
 import { notificationRoutes } from './features/notifications/notification.routes';
 import { carSuggestionRoutes, suggestionRoutes } from './features/suggestions/suggestion.routes';
 import { teamRoutes } from './features/teams/team.routes';
-import { invitationRoutes, unsubscribeRoutes } from './features/invitations/invitation.routes';
+import { invitationRoutes, oneClickUnsubscribe, unsubscribeRoutes } from './features/invitations/invitation.routes';
 import { mailboxRoutes } from './features/dev/mailbox.routes';
 
 export interface AppOptions {
@@ -121,7 +121,7 @@ export function createApp(opts: AppOptions) {
   app.use('/api', csrfSynchronisedProtection);
 
   const limits = createAuthRateLimits(opts.pool, { ...DEFAULT_AUTH_LIMITS, ...opts.authLimits });
-  mount('/api/auth', authRoutes({ ds: opts.ds, passport, limits, generateCsrfToken: generateToken }));
+  mount('/api/auth', authRoutes({ ds: opts.ds, passport, limits, generateCsrfToken: generateToken, mail: opts.mail }));
   mount('/api/admin', adminRoutes(opts.ds));
   mount('/api/cars/:carId/setups', carSetupRoutes(opts.ds));
   mount('/api/cars/:carId/changes', changeRoutes(opts.ds));
@@ -143,6 +143,8 @@ export function createApp(opts: AppOptions) {
   mount('/api/unsubscribe', unsubscribeRoutes(opts.ds, opts.mail));
   if (opts.mailboxDir) mount('/api/dev/mailbox', mailboxRoutes(opts.mailboxDir));
   app.use('/api', apiNotFound);
+  // RFC 8058: mail programs POST to the List-Unsubscribe address (the page) without cookies or CSRF token.
+  app.post('/unsubscribe/:token', ...oneClickUnsubscribe(opts.ds));
 
   if (opts.clientDir && existsSync(join(opts.clientDir, 'index.html'))) {
     const clientDir = opts.clientDir;

@@ -4,16 +4,25 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
 import { createApp } from './app';
-import { loadConfig, type Config } from './config';
+import { isProduction, loadConfig, type Config } from './config';
 import { createDataSource } from './db/data-source';
 import { seedDemoIfEmpty } from './db/seed';
 import { logger } from './lib/logger';
+import { smtpMailer, type MailSettings } from './mail/mailer';
 
 export interface RunningServer {
   server: Server;
   port: number;
   seeded: boolean;
+  /** How e-mails go out, or undefined when SMTP_URL is not set (development). */
+  mail?: MailSettings;
   close: () => Promise<void>;
+}
+
+/** This machine's address for links when PUBLIC_URL is not set: the listening host, or localhost for "any". */
+export function localOrigin(host: string, port: number): string {
+  const name = ['0.0.0.0', '::', ''].includes(host) ? 'localhost' : host.includes(':') ? `[${host}]` : host;
+  return `http://${name}:${port}`;
 }
 
 const ROOT = join(fileURLToPath(import.meta.url), '..', '..');
@@ -24,6 +33,14 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
   await ds.initialize();
   await ds.runMigrations({ transaction: 'each' });
   const seeded = config.SEED_DEMO === 'true' ? await seedDemoIfEmpty(ds) : false;
+
+  // Links in e-mails point at PUBLIC_URL; in development, at this server (its port is known once it listens).
+  const mail: MailSettings | undefined = config.SMTP_URL
+    ? { mailer: smtpMailer(config.SMTP_URL, config.MAIL_FROM), publicUrl: config.PUBLIC_URL ?? localOrigin(config.HOST, config.PORT), from: config.MAIL_FROM }
+    : undefined;
+  if (!mail) logger.warn('SMTP_URL is not set: invitations, password resets and notifications are not e-mailed');
+  // The development mailbox shows every e-mail, reset links included: never in production.
+  const mailboxDir = isProduction(config) ? undefined : config.MAILBOX_DIR;
 
   const pool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
   const app = createApp({
@@ -37,6 +54,8 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
       absoluteMs: config.SESSION_ABSOLUTE_MINUTES * 60_000,
       secureCookie: config.COOKIE_SECURE === 'true',
     },
+    mail,
+    mailboxDir,
   });
 
   const server = await new Promise<Server>((resolve, reject) => {
@@ -54,11 +73,14 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
   });
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
+  // The services hold this same object, so they pick up the real port (PORT=0 in tests).
+  if (mail && !config.PUBLIC_URL) mail.publicUrl = localOrigin(config.HOST, port);
 
   return {
     server,
     port,
     seeded,
+    mail,
     async close() {
       await new Promise<void>((resolve) => {
         server.close(() => resolve());

@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { Role, User } from '@shared/auth/auth.schema';
 import { AppError } from '../lib/app-error';
-import { ACCESS_MATRIX, allows } from './access-matrix';
+import { allows, type ACCESS_MATRIX } from './access-matrix';
 
 /**
  * The one place that decides who may do what. Routes declare their need with these

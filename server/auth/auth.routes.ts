@@ -2,6 +2,14 @@ import { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
 import { updatePreferencesInputSchema, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
 import { loginInputSchema, registerInputSchema, type LoginInput, type RegisterInput } from '@shared/auth/credentials.schema';
+import {
+  PASSWORD_RESET_REQUESTED_MESSAGE,
+  passwordResetConfirmSchema,
+  passwordResetRequestSchema,
+  type PasswordResetConfirm,
+  type PasswordResetRequest,
+  type PasswordResetRequested,
+} from '@shared/collab/invitation.schema';
 import { AppError } from '../lib/app-error';
 import { parsed, validate } from '../lib/validate';
 import { createUser, updatePreferences } from '../features/users/user.service';
@@ -9,12 +17,16 @@ import type { AppPassport } from './passport';
 import type { AuthRateLimits } from './rate-limit';
 import { currentUser, requireAuth } from './access';
 import { SESSION_COOKIE } from './session';
+import type { MailSettings } from '../mail/mailer';
+import { confirmPasswordReset, requestPasswordReset } from './password-reset';
 
 interface Deps {
   ds: DataSource;
   passport: AppPassport;
   limits: AuthRateLimits;
   generateCsrfToken: (req: Request, overwrite?: boolean) => string;
+  /** For password-reset e-mails; without it the reset link is stored but not sent. */
+  mail?: MailSettings;
 }
 
 const INVALID_LOGIN = 'That e-mail and password do not match an account.';
@@ -30,7 +42,7 @@ function signIn(req: Request, user: User) {
   });
 }
 
-export function authRoutes({ ds, passport, limits, generateCsrfToken }: Deps) {
+export function authRoutes({ ds, passport, limits, generateCsrfToken, mail }: Deps) {
   const router = Router();
 
   router.get('/csrf', (req, res) => {
@@ -82,6 +94,25 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken }: Deps) {
   router.patch('/me/preferences', requireAuth, validate({ body: updatePreferencesInputSchema }), async (req, res) => {
     const user = await updatePreferences(ds, currentUser(req).id, parsed<UpdatePreferencesInput>(res, 'body'));
     res.json({ user });
+  });
+
+  /** Always 202 with the same words, so the answer does not tell which addresses have accounts. */
+  router.post('/password-reset', validate({ body: passwordResetRequestSchema }), async (req, res) => {
+    const { email } = parsed<PasswordResetRequest>(res, 'body');
+    await limits.beforePasswordReset(req.ip ?? 'unknown', email);
+    await requestPasswordReset(ds, mail, email);
+    const body: PasswordResetRequested = { message: PASSWORD_RESET_REQUESTED_MESSAGE };
+    res.status(202).json(body);
+  });
+
+  /** Sets the new password and ends every session of the account, this browser's included. */
+  router.post('/password-reset/confirm', validate({ body: passwordResetConfirmSchema }), async (req, res) => {
+    const { token, password } = parsed<PasswordResetConfirm>(res, 'body');
+    const { email } = await confirmPasswordReset(ds, token, password);
+    // A lock from earlier failed sign-ins would otherwise keep the owner out with the new password.
+    await limits.loginSucceeded(email);
+    if (req.user) await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
+    res.status(204).end();
   });
 
   return router;

@@ -9,6 +9,10 @@ export interface AuthLimits {
   loginPerIp: number;
   /** Registrations allowed per IP address in the window. */
   registerPerIp: number;
+  /** Password-reset requests allowed per IP address in the window. */
+  resetPerIp: number;
+  /** Password-reset requests allowed per e-mail address in the window (known or not). */
+  resetPerEmail: number;
   windowSec: number;
   /** Separates counters of independent app instances sharing one database (tests). */
   keyPrefix: string;
@@ -18,12 +22,14 @@ export const DEFAULT_AUTH_LIMITS: AuthLimits = {
   loginPerAccount: 5,
   loginPerIp: 30,
   registerPerIp: 10,
+  resetPerIp: 10,
+  resetPerEmail: 3,
   windowSec: 15 * 60,
   keyPrefix: 'auth',
 };
 
 /**
- * Sign-in and registration counters kept in PostgreSQL (table auth_rate_limits),
+ * Sign-in, registration and password-reset counters kept in PostgreSQL (table auth_rate_limits),
  * so a restart does not reset them. Per IP, every attempt counts; per account, only
  * failures count and a success clears them.
  */
@@ -40,6 +46,8 @@ export function createAuthRateLimits(pool: Pool, limits: AuthLimits) {
   const loginIp = make('login-ip', limits.loginPerIp);
   const loginAccount = make('login-account', limits.loginPerAccount);
   const registerIp = make('register-ip', limits.registerPerIp);
+  const resetIp = make('reset-ip', limits.resetPerIp);
+  const resetEmail = make('reset-email', limits.resetPerEmail);
 
   const tooMany = (msBeforeNext: number) => {
     const seconds = Math.max(1, Math.ceil(msBeforeNext / 1000));
@@ -72,6 +80,11 @@ export function createAuthRateLimits(pool: Pool, limits: AuthLimits) {
     },
     async beforeRegister(ip: string) {
       await consume(registerIp, ip);
+    },
+    /** Every reset request counts, per IP and per address, whether or not an account uses it. */
+    async beforePasswordReset(ip: string, email: string) {
+      await consume(resetIp, ip);
+      await consume(resetEmail, email);
     },
   };
 }

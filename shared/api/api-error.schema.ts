@@ -9,6 +9,8 @@ export const API_ERROR_CODES = {
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  /** A link that worked once and no longer does (an expired invitation). */
+  gone: 410,
   payload_too_large: 413,
   unsupported_media_type: 415,
   rate_limited: 429,

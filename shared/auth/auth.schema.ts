@@ -20,6 +20,8 @@ export const emailSchema = z.pipe(
 /** What each user sets for themselves; stored as given, read through this schema so defaults fill gaps. */
 export const preferencesSchema = z.object({
   units: z._default(unitPreferencesSchema, unitPreferencesSchema.parse({})),
+  /** E-mails about comments, suggestions and shop grants; the in-app notifications stay either way. */
+  emailNotifications: z._default(z.boolean(), true),
 });
 export type Preferences = z.infer<typeof preferencesSchema>;
 
@@ -30,7 +32,10 @@ const unitChoicesSchema = z.strictObject(
   ),
 ) as unknown as z.ZodMiniType<Partial<UnitPreferences>>;
 
-export const updatePreferencesInputSchema = z.strictObject({ units: z.optional(unitChoicesSchema) });
+export const updatePreferencesInputSchema = z.strictObject({
+  units: z.optional(unitChoicesSchema),
+  emailNotifications: z.optional(z.boolean({ error: 'Choose on or off' })),
+});
 export type UpdatePreferencesInput = z.infer<typeof updatePreferencesInputSchema>;
 
 export const userSchema = z.object({

@@ -31,3 +31,10 @@ export type PasswordResetConfirm = z.infer<typeof passwordResetConfirmSchema>;
 /** Invitations last a week and reset links an hour; each works once. */
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
 export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
+
+/** The answer to a reset request: the same whether or not an account uses the address. */
+export interface PasswordResetRequested {
+  message: string;
+}
+export const PASSWORD_RESET_REQUESTED_MESSAGE =
+  'If an account uses that address, we have sent it a link to choose a new password. The link works once, within one hour.';

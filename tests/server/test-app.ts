@@ -48,7 +48,7 @@ export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string 
     },
     mail: opts.mail,
     mailboxDir: opts.mailboxDir,
-    authLimits: { loginPerIp: 1000, registerPerIp: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
+    authLimits: { loginPerIp: 1000, registerPerIp: 1000, resetPerIp: 1000, resetPerEmail: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
   });
   return {
     app,

@@ -22,6 +22,10 @@ export class UserEntity {
   @Column({ type: 'jsonb', default: () => "'{}'::jsonb" })
   preferences!: Record<string, unknown>;
 
+  /** Notification e-mails on or off; the unsubscribe link in each one turns them off. */
+  @Column({ name: 'email_notifications', type: 'boolean', default: true })
+  emailNotifications!: boolean;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt!: Date;
 

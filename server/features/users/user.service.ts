@@ -31,22 +31,50 @@ function rolesFromRow(row: RoleRow): Role[] {
   return roles;
 }
 
-/** Stored preferences read through the shared schema: unknown or outdated values fall back to defaults. */
-export function readPreferences(stored: unknown): Preferences {
+/**
+ * Stored preferences read through the shared schema: unknown or outdated values fall back to defaults.
+ * `emailNotifications` lives in its own column (users.email_notifications), not in the JSON.
+ */
+export function readPreferences(stored: unknown, emailNotifications = true): Preferences {
   const result = preferencesSchema.safeParse(stored ?? {});
-  return result.success ? result.data : preferencesSchema.parse({});
+  const prefs = result.success ? result.data : preferencesSchema.parse({});
+  return { ...prefs, emailNotifications };
 }
 
 export function toUserDto(entity: UserEntity, roles: Role[]): User {
-  return { id: entity.id, email: entity.email, displayName: entity.displayName, roles, preferences: readPreferences(entity.preferences) };
+  return {
+    id: entity.id,
+    email: entity.email,
+    displayName: entity.displayName,
+    roles,
+    preferences: readPreferences(entity.preferences, entity.emailNotifications),
+  };
 }
 
 export async function updatePreferences(ds: DataSource, userId: string, input: UpdatePreferencesInput): Promise<User> {
   const entity = await ds.getRepository(UserEntity).findOneByOrFail({ id: userId });
-  const current = readPreferences(entity.preferences);
-  const next: Preferences = { ...current, units: { ...current.units, ...input.units } };
-  await ds.getRepository(UserEntity).update({ id: userId }, { preferences: next });
-  return toUserDto({ ...entity, preferences: next }, await rolesOf(ds, userId));
+  const current = readPreferences(entity.preferences, entity.emailNotifications);
+  const next: Preferences = {
+    ...current,
+    units: { ...current.units, ...input.units },
+    emailNotifications: input.emailNotifications ?? current.emailNotifications,
+  };
+  const { emailNotifications, ...stored } = next;
+  await ds.getRepository(UserEntity).update({ id: userId }, { preferences: stored, emailNotifications });
+  return toUserDto({ ...entity, preferences: stored, emailNotifications }, await rolesOf(ds, userId));
+}
+
+/**
+ * The unsubscribe link in notification e-mails: turns them off for the account whose
+ * token it is. False when no account has that token.
+ */
+export async function unsubscribeByToken(ds: DataSource, token: string): Promise<boolean> {
+  // TypeORM answers an UPDATE with [rows, affected count].
+  const [, affected]: [unknown[], number] = await ds.query(
+    `UPDATE users SET email_notifications = false, updated_at = now() WHERE unsubscribe_token = $1`,
+    [token],
+  );
+  return affected > 0;
 }
 
 export async function findUserById(ds: DataSource, id: string): Promise<User | null> {
@@ -81,10 +109,15 @@ export async function createUser(ds: DataSource, input: RegisterInput, opts: { i
 }
 
 export async function listUsers(ds: DataSource): Promise<User[]> {
-  const rows: (RoleRow & { id: string; email: string; display_name: string; preferences: unknown })[] = await ds.query(
-    `SELECT u.id, u.email, u.display_name, u.preferences, ${ROLE_COLUMNS} FROM users u ORDER BY u.created_at, u.email`,
-  );
+  const rows: (RoleRow & { id: string; email: string; display_name: string; preferences: unknown; email_notifications: boolean })[] =
+    await ds.query(
+      `SELECT u.id, u.email, u.display_name, u.preferences, u.email_notifications, ${ROLE_COLUMNS} FROM users u ORDER BY u.created_at, u.email`,
+    );
   return rows.map((r) => ({
-    id: r.id, email: r.email, displayName: r.display_name, roles: rolesFromRow(r), preferences: readPreferences(r.preferences),
+    id: r.id,
+    email: r.email,
+    displayName: r.display_name,
+    roles: rolesFromRow(r),
+    preferences: readPreferences(r.preferences, r.email_notifications),
   }));
 }

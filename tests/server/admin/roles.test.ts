@@ -31,7 +31,7 @@ describe('role check on /api/admin', () => {
     const res = await c.get('/api/admin/users');
     expect(res.status).toBe(200);
     expect(res.body.count).toBe(res.body.items.length);
-    expect(res.body.items).toContainEqual({ id: user.id, email: user.email, displayName: user.displayName, roles: ['driver', 'admin'], preferences: { units: METRIC_PREFERENCES } });
+    expect(res.body.items).toContainEqual({ id: user.id, email: user.email, displayName: user.displayName, roles: ['driver', 'admin'], preferences: { units: METRIC_PREFERENCES, emailNotifications: true } });
     expect(JSON.stringify(res.body)).not.toMatch(/argon2|passwordHash/);
   });
 });

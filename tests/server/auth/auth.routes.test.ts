@@ -22,7 +22,7 @@ describe('POST /api/auth/register', () => {
     const email = uniqueEmail();
     const res = await c.post('/api/auth/register', { email: `  ${email.toUpperCase()} `, password: TEST_PASSWORD, displayName: 'Rhea' });
     expect(res.status).toBe(201);
-    expect(res.body).toEqual({ user: { id: expect.any(String), email, displayName: 'Rhea', roles: ['driver'], preferences: { units: METRIC_PREFERENCES } } });
+    expect(res.body).toEqual({ user: { id: expect.any(String), email, displayName: 'Rhea', roles: ['driver'], preferences: { units: METRIC_PREFERENCES, emailNotifications: true } } });
     expect(JSON.stringify(res.body)).not.toMatch(/hash/i);
     const me = await c.get('/api/auth/me');
     expect(me.status).toBe(200);

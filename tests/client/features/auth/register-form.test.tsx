@@ -7,7 +7,7 @@ import { dropCsrfToken } from '@/lib/api-client';
 import { RegisterForm } from '@/features/auth/components/register-form';
 import { errorResponse, jsonResponse, renderWithQueryClient, requestsTo, stubFetch } from '../../test-utils';
 
-const USER = { id: 'u1', email: 'sam@example.test', displayName: 'Sam', roles: ['driver'], preferences: { units: METRIC_PREFERENCES } };
+const USER = { id: 'u1', email: 'sam@example.test', displayName: 'Sam', roles: ['driver'], preferences: { units: METRIC_PREFERENCES, emailNotifications: true } };
 
 beforeEach(() => dropCsrfToken());
 afterEach(() => {
