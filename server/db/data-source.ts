@@ -10,6 +10,8 @@ import { EventEntity } from '../features/events/event.entity';
 import { RunEntity } from '../features/runs/run.entity';
 import { TreadReadingCornerEntity, TreadReadingEntity, TyreMountingEntity, TyreSetEntity } from '../features/tyres/tyre.entity';
 import { PressureReadingEntity } from '../features/pressures/pressure.entity';
+import { CommentEntity } from '../features/comments/comment.entity';
+import { SetupSuggestionEntity } from '../features/suggestions/suggestion.entity';
 import { Foundation1764633600000 } from './migrations/1764633600000-foundation';
 import { SeasonRecord1764720000000 } from './migrations/1764720000000-season-record';
 import { UserPreferences1764806400000 } from './migrations/1764806400000-user-preferences';
@@ -19,6 +21,7 @@ export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
   CarEntity, CarCoDriverEntity, SetupSnapshotEntity, SetupCornerEntity, ChangeLogEntity, EventEntity, RunEntity,
   TyreSetEntity, TyreMountingEntity, TreadReadingEntity, TreadReadingCornerEntity, PressureReadingEntity,
+  CommentEntity, SetupSuggestionEntity,
 ];
 export const migrations = [Foundation1764633600000, SeasonRecord1764720000000, UserPreferences1764806400000, Collaboration1764892800000];
 

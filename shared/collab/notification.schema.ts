@@ -22,6 +22,11 @@ export interface NotificationList {
   unread: number;
 }
 
+/** GET /api/notifications/unread-count: what the bell in the top bar shows. */
+export interface UnreadCount {
+  unread: number;
+}
+
 export const markReadInputSchema = z.union([
   z.strictObject({ ids: z.array(z.uuid()).check(z.minLength(1), z.maxLength(200)) }),
   z.strictObject({ all: z.literal(true) }),

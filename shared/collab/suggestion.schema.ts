@@ -1,6 +1,6 @@
 import * as z from '../zod';
 import { CORNERS, type Corner } from '../season/corners';
-import { SETUP_CORNER_FIELDS, type SetupCornerField } from '../season/setup.schema';
+import { SETUP_CORNER_FIELDS, type Setup, type SetupCornerField } from '../season/setup.schema';
 
 const text = (max: number, empty: string) =>
   z.string({ error: empty }).check(z.trim(), z.minLength(1, empty), z.maxLength(max, `Use at most ${max} characters`));
@@ -68,4 +68,10 @@ export interface Suggestion {
   decisionNote: string | null;
   acceptedSetupId: string | null;
   createdAt: string;
+}
+
+/** POST /api/suggestions/:id/accept: the suggestion, now accepted, and the snapshot it made. */
+export interface AcceptedSuggestion {
+  suggestion: Suggestion;
+  setup: Setup;
 }

@@ -101,6 +101,8 @@ export interface Setup {
   effectiveFrom: string;
   createdBy: { id: string; displayName: string };
   derivedFromId: string | null;
+  /** Set when the snapshot was made by accepting a shop's suggestion. */
+  suggestion: { id: string; title: string; shopName: string } | null;
   notes: string | null;
   corners: Record<Corner, SetupCorner>;
   axles: { front: { antiRollBar: string | null }; rear: { antiRollBar: string | null } };

@@ -95,9 +95,10 @@ export async function eventSummary(ds: DataSource, user: User, eventId: string, 
   const params: unknown[] = [eventId, user.id];
   let where = `r.event_id = $1 AND r.car_id IN ${accessibleCarIdsSql('$2')}`;
   if (carId) {
+    // One car asked for by someone who may read it (its drivers, or a granted shop's staff).
     await assertCarAccess(ds, user, carId, 'read');
-    params.push(carId);
-    where += ` AND r.car_id = $3`;
+    where = `r.event_id = $1 AND r.car_id = $2`;
+    params[1] = carId;
   }
   const runs = await loadRuns(ds, where, params);
   const carNames: { id: string; name: string }[] = runs.length

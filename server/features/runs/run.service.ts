@@ -192,9 +192,10 @@ export async function listRuns(ds: DataSource, user: User, filter: { carId?: str
   const clauses = [`r.car_id IN ${accessibleCarIdsSql('$1')}`];
   const params: unknown[] = [user.id];
   if (filter.carId) {
+    // One car asked for by someone who may read it, which includes a granted shop's staff.
     await assertCarAccess(ds, user, filter.carId, 'read');
-    params.push(filter.carId);
-    clauses.push(`r.car_id = $${params.length}`);
+    params[0] = filter.carId;
+    clauses[0] = 'r.car_id = $1';
   }
   if (filter.eventId) {
     await assertEventAccess(ds, user, filter.eventId);

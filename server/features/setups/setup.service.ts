@@ -3,7 +3,7 @@ import type { User } from '@shared/auth/auth.schema';
 import { CORNERS, axleOf, type Corner } from '@shared/season/corners';
 import {
   SETUP_CORNER_FIELDS, setupCornerSchema,
-  type CreateSetupInput, type QuickChangeInput, type Setup, type SetupCorner, type SetupDiff, type UpdateSetupInput,
+  type CreateSetupInput, type SetupCornerField, type QuickChangeInput, type Setup, type SetupCorner, type SetupDiff, type UpdateSetupInput,
 } from '@shared/season/setup.schema';
 import { diffSetups } from '@shared/season/setup-diff';
 import { toFieldErrors, type FieldErrors } from '@shared/api/api-error.schema';
@@ -25,6 +25,14 @@ async function toSetups(db: Db, snapshots: SetupSnapshotEntity[]): Promise<Setup
     [...new Set(snapshots.map((s) => s.createdBy))],
   ]);
   const nameOf = new Map(names.map((n) => [n.id, n.display_name]));
+  // Snapshots made by accepting a shop's suggestion name it and the shop.
+  const links: { setup_id: string; id: string; title: string; shop_name: string }[] = await db.query(
+    `SELECT s.id AS setup_id, g.id, g.title, sh.name AS shop_name
+       FROM setup_snapshots s JOIN setup_suggestions g ON g.id = s.suggestion_id JOIN shops sh ON sh.id = g.shop_id
+      WHERE s.id = ANY($1)`,
+    [ids],
+  );
+  const suggestionOf = new Map(links.map((l) => [l.setup_id, { id: l.id, title: l.title, shopName: l.shop_name }]));
   return snapshots.map((s) => {
     const byCorner = Object.fromEntries(CORNERS.map((c) => [c, emptyCorner()])) as Record<Corner, SetupCorner>;
     for (const c of corners.filter((x) => x.setupId === s.id)) {
@@ -37,6 +45,7 @@ async function toSetups(db: Db, snapshots: SetupSnapshotEntity[]): Promise<Setup
       effectiveFrom: s.effectiveFrom.toISOString(),
       createdBy: { id: s.createdBy, displayName: nameOf.get(s.createdBy) ?? '' },
       derivedFromId: s.derivedFromId,
+      suggestion: suggestionOf.get(s.id) ?? null,
       notes: s.notes,
       corners: byCorner,
       axles: { front: { antiRollBar: s.frontAntiRollBar }, rear: { antiRollBar: s.rearAntiRollBar } },
@@ -109,23 +118,38 @@ export async function createSetup(ds: DataSource, user: User, carId: string, inp
   if (input.derivedFromId) await assertSameCar(ds, input.derivedFromId, carId, 'derivedFromId');
   const { id, created } = await ds.transaction(async (m) => {
     const derivedFromId = input.derivedFromId ?? (await activeSetupAt(m, carId, effectiveFrom))?.id ?? null;
-    const { inserted, id: newId } = await insertUnlessPresent(m, SetupSnapshotEntity, {
-      ...(input.id ? { id: input.id } : {}),
-      carId,
-      label: input.label,
-      effectiveFrom,
-      createdBy: user.id,
-      derivedFromId,
-      notes: input.notes ?? null,
-      frontAntiRollBar: input.axles.front?.antiRollBar ?? null,
-      rearAntiRollBar: input.axles.rear?.antiRollBar ?? null,
-    });
-    if (!inserted) return { id: input.id!, created: false };
-    await writeCorners(m, newId!, input.corners);
-    return { id: newId!, created: true };
+    return insertSnapshot(m, user, carId, { ...input, derivedFromId });
   });
   if (!created) return { setup: await existingOfCar(ds, id, carId), created: false };
   return { setup: await loadSetup(ds, id), created: true };
+}
+
+/**
+ * Writes one snapshot and its corners inside the caller's transaction (access and values
+ * already checked). A client id already used answers `created: false` with that id.
+ */
+export async function insertSnapshot(
+  m: EntityManager,
+  user: User,
+  carId: string,
+  input: CreateSetupInput,
+  opts: { suggestionId?: string } = {},
+): Promise<{ id: string; created: boolean }> {
+  const { inserted, id: newId } = await insertUnlessPresent(m, SetupSnapshotEntity, {
+    ...(input.id ? { id: input.id } : {}),
+    carId,
+    label: input.label,
+    effectiveFrom: new Date(input.effectiveFrom),
+    createdBy: user.id,
+    derivedFromId: input.derivedFromId ?? null,
+    notes: input.notes ?? null,
+    frontAntiRollBar: input.axles.front?.antiRollBar ?? null,
+    rearAntiRollBar: input.axles.rear?.antiRollBar ?? null,
+  });
+  if (!inserted) return { id: input.id!, created: false };
+  await writeCorners(m, newId!, input.corners);
+  if (opts.suggestionId) await m.query('UPDATE setup_snapshots SET suggestion_id = $2 WHERE id = $1', [newId, opts.suggestionId]);
+  return { id: newId!, created: true };
 }
 
 /** A replayed client id: the stored snapshot, if it belongs to this car. */
@@ -199,9 +223,9 @@ export async function deleteSetup(ds: DataSource, user: User, setupId: string): 
   await ds.getRepository(SetupSnapshotEntity).delete({ id: setupId });
 }
 
-const FIELD_WORDS: Record<string, string> = {
-  damperClicks: 'clicks', damperReboundClicks: 'rebound clicks', coldPressureKpa: 'cold pressure',
-  camberDeg: 'camber', toeMm: 'toe', rideHeightMm: 'ride height',
+const FIELD_WORDS: Record<SetupCornerField, string> = {
+  camberDeg: 'camber', toeMm: 'toe', casterDeg: 'caster', springRateNPerMm: 'spring rate', rideHeightMm: 'ride height',
+  damperClicks: 'clicks', damperReboundClicks: 'rebound clicks', coldPressureKpa: 'cold pressure', cornerWeightKg: 'corner weight',
 };
 
 function describeCorners(corners: Corner[]): string {
@@ -210,6 +234,79 @@ function describeCorners(corners: Corner[]): string {
   if (set.size === 2 && set.has('lf') && set.has('rf')) return 'front';
   if (set.size === 2 && set.has('lr') && set.has('rr')) return 'rear';
   return [...set].map((c) => c.toUpperCase()).join('+');
+}
+
+/** A change to some corners' field: by a delta, or to a value (exactly one is given). */
+export interface CornerChange {
+  field: SetupCornerField;
+  corners: Corner[];
+  delta?: number;
+  value?: number;
+}
+
+/** One corner's value before and after one change. */
+export interface AppliedStep {
+  field: SetupCornerField;
+  corner: Corner;
+  from: number | null;
+  to: number | null;
+}
+
+/**
+ * Applies the changes in order to a copy of `start` and checks the result against the
+ * setup field limits. Errors are keyed `changes.<i>.delta|value`, naming the corner.
+ */
+export function applyCornerChanges(start: Record<Corner, SetupCorner> | null, changes: CornerChange[]) {
+  const corners = Object.fromEntries(CORNERS.map((c) => [c, { ...(start?.[c] ?? emptyCorner()) }])) as Record<Corner, SetupCorner>;
+  const errors: FieldErrors = {};
+  const words: string[] = [];
+  const steps: AppliedStep[] = [];
+  changes.forEach((change, i) => {
+    for (const corner of change.corners) {
+      const current = corners[corner][change.field] ?? null;
+      if (change.value !== undefined) {
+        corners[corner][change.field] = change.value;
+      } else if (current === null) {
+        (errors[`changes.${i}.delta`] ??= []).push(`No current ${FIELD_WORDS[change.field]} on ${corner.toUpperCase()} to change; give a value instead`);
+      } else {
+        corners[corner][change.field] = Math.round((current + change.delta!) * 1e6) / 1e6;
+      }
+      steps.push({ field: change.field, corner, from: current, to: corners[corner][change.field] ?? null });
+    }
+    const amount = change.value !== undefined ? `= ${change.value}` : `${change.delta! > 0 ? '+' : ''}${change.delta}`;
+    words.push(`${describeCorners(change.corners)} ${FIELD_WORDS[change.field]} ${amount}`);
+  });
+  for (const corner of CORNERS) {
+    const result = setupCornerSchema.safeParse(corners[corner]);
+    if (!result.success) {
+      for (const [key, messages] of Object.entries(toFieldErrors(result.error))) {
+        const i = changes.findIndex((c) => c.field === key && c.corners.includes(corner));
+        (errors[`changes.${Math.max(i, 0)}.${i >= 0 && changes[i]!.value !== undefined ? 'value' : 'delta'}`] ??= []).push(
+          `${corner.toUpperCase()}: ${messages.join('; ')}`,
+        );
+      }
+    }
+  }
+  return { corners, errors, words, steps };
+}
+
+/** Clicks after the changes must fit the car's adjusters; errors keyed like applyCornerChanges. */
+export async function checkChangedClicks(db: Db, carId: string, corners: Record<Corner, SetupCorner>, changes: CornerChange[]) {
+  try {
+    await checkClicks(db, carId, corners);
+  } catch (err) {
+    if (err instanceof AppError && err.fieldErrors) {
+      const remapped: FieldErrors = {};
+      for (const [key, messages] of Object.entries(err.fieldErrors)) {
+        const [, corner, field] = key.split('.');
+        const i = changes.findIndex((c) => c.field === field && c.corners.includes(corner as Corner));
+        const where = i >= 0 && changes[i]!.value !== undefined ? 'value' : 'delta';
+        (remapped[`changes.${Math.max(i, 0)}.${where}`] ??= []).push(...messages.map((m) => `${corner!.toUpperCase()}: ${m}`));
+      }
+      throw new AppError('validation_failed', 'Some fields need attention.', remapped);
+    }
+    throw err;
+  }
 }
 
 /** A new snapshot derived from the active one, with a few values nudged; effective now unless told otherwise. */
@@ -222,52 +319,9 @@ export async function quickChange(ds: DataSource, user: User, carId: string, inp
   }
   const effectiveFrom = input.effectiveFrom ? new Date(input.effectiveFrom) : new Date();
   const active = await activeSetupAt(ds, carId, effectiveFrom);
-  const corners = Object.fromEntries(
-    CORNERS.map((c) => [c, { ...(active?.corners[c] ?? emptyCorner()) }]),
-  ) as Record<Corner, SetupCorner>;
-  const errors: FieldErrors = {};
-  const words: string[] = [];
-  input.changes.forEach((change, i) => {
-    for (const corner of change.corners) {
-      const current = corners[corner][change.field];
-      if (change.value !== undefined) {
-        corners[corner][change.field] = change.value;
-      } else if (current === null || current === undefined) {
-        (errors[`changes.${i}.delta`] ??= []).push(`No current ${FIELD_WORDS[change.field]} on ${corner.toUpperCase()} to change; give a value instead`);
-      } else {
-        corners[corner][change.field] = Math.round((current + change.delta!) * 1e6) / 1e6;
-      }
-    }
-    const amount = change.value !== undefined ? `= ${change.value}` : `${change.delta! > 0 ? '+' : ''}${change.delta}`;
-    words.push(`${describeCorners(change.corners)} ${FIELD_WORDS[change.field]} ${amount}`);
-  });
-  for (const corner of CORNERS) {
-    const result = setupCornerSchema.safeParse(corners[corner]);
-    if (!result.success) {
-      for (const [key, messages] of Object.entries(toFieldErrors(result.error))) {
-        const i = input.changes.findIndex((c) => c.field === key && c.corners.includes(corner));
-        (errors[`changes.${Math.max(i, 0)}.${i >= 0 && input.changes[i]!.value !== undefined ? 'value' : 'delta'}`] ??= []).push(
-          `${corner.toUpperCase()}: ${messages.join('; ')}`,
-        );
-      }
-    }
-  }
+  const { corners, errors, words } = applyCornerChanges(active?.corners ?? null, input.changes);
   if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
-  try {
-    await checkClicks(ds, carId, corners);
-  } catch (err) {
-    if (err instanceof AppError && err.fieldErrors) {
-      const remapped: FieldErrors = {};
-      for (const [key, messages] of Object.entries(err.fieldErrors)) {
-        const [, corner, field] = key.split('.');
-        const i = input.changes.findIndex((c) => c.field === field && c.corners.includes(corner as Corner));
-        const where = i >= 0 && input.changes[i]!.value !== undefined ? 'value' : 'delta';
-        (remapped[`changes.${Math.max(i, 0)}.${where}`] ??= []).push(...messages.map((m) => `${corner!.toUpperCase()}: ${m}`));
-      }
-      throw new AppError('validation_failed', 'Some fields need attention.', remapped);
-    }
-    throw err;
-  }
+  await checkChangedClicks(ds, carId, corners, input.changes);
   const created = await createSetup(ds, user, carId, {
     ...(input.id ? { id: input.id } : {}),
     label: input.label ?? `Quick change: ${words.join(', ')}`,

@@ -258,7 +258,7 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
   'POST /api/cars/:carId/suggestions': {
     call: () => ({
       path: `/api/cars/${f.car}/suggestions`,
-      body: { baseSetupId: f.setup, title: 'Softer rear', rationale: 'Rear steps out on entry', changes: [{ field: 'damperClicks', corners: ['lr', 'rr'], delta: -2 }] },
+      body: { baseSetupId: f.setup, title: 'Less rear camber', rationale: 'Rear inner shoulders are wearing', changes: [{ field: 'camberDeg', corners: ['lr', 'rr'], delta: 0.3 }] },
     }),
     // Only the granted shop's staff suggest; the drivers see the car but may not.
     expect: [403, 403, 404, 201, 404, 404, 404, 404, 401],

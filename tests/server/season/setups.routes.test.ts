@@ -34,6 +34,7 @@ describe('POST /api/cars/:carId/setups', () => {
       effectiveFrom: '2026-04-01T00:00:00.000Z',
       createdBy: { id: d.user.id, displayName: 'Nell Ashdown' },
       derivedFromId: null,
+      suggestion: null,
       notes: 'Pre-season',
       corners: {
         lf: { ...emptyCorner, camberDeg: -2.25, springRateNPerMm: 70 },

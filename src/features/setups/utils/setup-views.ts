@@ -108,6 +108,7 @@ export function mergePendingSetups(
         effectiveFrom: body.effectiveFrom,
         createdBy: me,
         derivedFromId: body.derivedFromId ?? null,
+        suggestion: null,
         notes: body.notes ?? null,
         corners: Object.fromEntries(CORNERS.map((c) => [c, { ...emptyCorner(), ...(body.corners?.[c] ?? {}) }])) as Record<Corner, SetupCorner>,
         axles: {
@@ -131,6 +132,7 @@ export function mergePendingSetups(
         effectiveFrom,
         createdBy: me,
         derivedFromId: base?.id ?? null,
+        suggestion: null,
         notes: body.notes ?? null,
         corners,
         axles: base?.axles ?? { front: { antiRollBar: null }, rear: { antiRollBar: null } },
