@@ -89,6 +89,8 @@ export interface Run {
   /** % off this driver's best adjusted time at this event; null when there is none. */
   pctOffBest: number | null;
   isBest: boolean;
+  /** Comments in the run's thread, for the "Comments (n)" control; absent from servers that do not count them. */
+  commentCount?: number;
   version: number;
   createdAt: string;
   updatedAt: string;

@@ -34,6 +34,7 @@ interface RunRow {
   has_hot: boolean;
   /** Matched `where` itself, rather than only sharing a scoring group with a run that did. */
   wanted: boolean;
+  comment_count: number;
 }
 
 /**
@@ -47,7 +48,8 @@ export async function loadRuns(db: Db, where: string, params: unknown[]): Promis
      SELECT r.id, r.car_id, r.event_id, r.driver_id, u.display_name AS driver_name, r.run_number, r.raw_time_sec,
             r.cones, r.status, r.recorded_at, r.notes, r.version, r.created_at, r.updated_at, r.setup_id,
             e.cone_penalty_sec, p.lf_kpa, p.rf_kpa, p.lr_kpa, p.rr_kpa, (p.id IS NOT NULL) AS has_hot,
-            r.id IN (SELECT id FROM wanted) AS wanted
+            r.id IN (SELECT id FROM wanted) AS wanted,
+            (SELECT count(*)::int FROM comments c WHERE c.run_id = r.id) AS comment_count
        FROM runs_with_setup r
        JOIN events e ON e.id = r.event_id
        JOIN users u ON u.id = r.driver_id
@@ -82,6 +84,7 @@ export async function loadRuns(db: Db, where: string, params: unknown[]): Promis
         recordedAt: r.recorded_at.toISOString(),
         hotPressuresKpa: r.has_hot ? pressuresOf(r) : null,
         notes: r.notes,
+        commentCount: r.comment_count,
         setupId: r.setup_id,
         adjustedTimeSec: s.adjustedTimeSec,
         pctOffBest: s.pctOffBest,

@@ -47,6 +47,18 @@ describe('POST and GET /api/comments', () => {
     expect(asStaff.body.items.map((c: { mine: boolean }) => c.mine)).toEqual([false, true]);
   });
 
+  it('when a run has comments, then the run itself carries the count, for the "Comments (n)" control', async () => {
+    const { driver, staff } = await grantedCar(t);
+    const run = await postRun(driver.c, driver.carId, driver.eventId);
+    const quiet = await postRun(driver.c, driver.carId, driver.eventId, { runNumber: 2, recordedAt: '2026-04-12T10:05:00Z' });
+    expect((await driver.c.get(`/api/runs/${run.id}`)).body.commentCount).toBe(0);
+    await driver.c.post('/api/comments', { target: { type: 'run', id: run.id }, body: 'Late on the brakes' });
+    await staff.c.post('/api/comments', { target: { type: 'run', id: run.id }, body: 'Hot pressures look high' });
+    const summary = await driver.c.get(`/api/events/${driver.eventId}/summary?carId=${driver.carId}`);
+    const counts = Object.fromEntries(summary.body.entries[0].runs.map((r: { id: string; commentCount: number }) => [r.id, r.commentCount]));
+    expect(counts).toEqual({ [run.id]: 2, [quiet.id]: 0 });
+  });
+
   it('when comments are made on a setup, a tread reading and an event day, then each lands in its own thread only', async () => {
     const { driver, staff } = await grantedCar(t);
     const setup = await postSetup(driver.c, driver.carId);
