@@ -97,7 +97,7 @@ export async function listCustomers(ds: DataSource, user: User, shopId: string):
     `SELECT c.id AS car_id, c.name AS car_name, c.class_code, c.car_number,
             o.id AS owner_id, o.display_name AS owner_name, g.created_at AS granted_at,
             la.at AS activity_at, la.kind AS activity_kind, la.summary AS activity_summary,
-            (SELECT count(*)::int FROM setup_suggestions s WHERE s.car_id = c.id AND s.status = 'open') AS open_suggestions
+            (SELECT count(*)::int FROM setup_suggestions s WHERE s.car_id = c.id AND s.shop_id = g.shop_id AND s.status = 'open') AS open_suggestions
        FROM shop_grants g
        JOIN cars c ON c.id = g.car_id
        JOIN users o ON o.id = c.owner_id
@@ -139,6 +139,15 @@ export async function listCustomers(ds: DataSource, user: User, shopId: string):
 /** A shop admin invites someone by e-mail, as staff or as another admin. */
 export async function inviteStaff(ds: DataSource, mail: MailSettings | undefined, user: User, shopId: string, input: InviteInput) {
   await assertShopAccess(ds, user, shopId, 'manage');
+  const already = await ds.query(
+    'SELECT 1 FROM shop_members m JOIN users u ON u.id = m.user_id WHERE m.shop_id = $1 AND u.email = $2',
+    [shopId, input.email],
+  );
+  if (already.length > 0) {
+    throw new AppError('validation_failed', 'They already work here.', {
+      email: ['They are already on the staff list'],
+    });
+  }
   return createInvitation(ds, mail, { shopId, email: input.email, asAdmin: input.asAdmin, invitedBy: { id: user.id, displayName: user.displayName } });
 }
 

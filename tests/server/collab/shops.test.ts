@@ -159,6 +159,14 @@ describe('GET /api/shops/:shopId/customers', () => {
     const declined = await suggest('Even more');
     await driver.c.post(`/api/suggestions/${declined.body.id}/decline`, { note: 'Not this season' });
     expect((await latest()).openSuggestions).toBe(1);
+    // Another shop's open suggestion on the same car is that shop's business, not counted here.
+    const [other] = await t.ds.query(`INSERT INTO shops (name) VALUES ('Another bench') RETURNING id`);
+    await t.ds.query(
+      `INSERT INTO setup_suggestions (id, car_id, base_setup_id, shop_id, author_id, title, rationale, changes)
+       VALUES (gen_random_uuid(), $1, $2, $3, $4, 'Stiffer rear', 'Why not', '[]')`,
+      [driver.carId, base.id, other.id, driver.user.id],
+    );
+    expect((await latest()).openSuggestions).toBe(1);
   });
 
   it('when a shop has several customers, then the one with the newest activity comes first and cars without any come last', async () => {
@@ -275,6 +283,13 @@ describe('POST /api/shops/:shopId/invitations', () => {
     expectError(await plain.c.post(url, { email: 'new-staff@example.com' }), 403, 'forbidden');
     expectError(await outsider.c.post(url, { email: 'new-staff@example.com' }), 404, 'not_found');
     expectFieldErrors(await admin.c.post(url, { email: 'not an address' }), ['email']);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM invitations WHERE shop_id = $1', [shopId])).toBe(0);
+  });
+
+  it('when the admin invites someone already on the staff, then 400 at email and no invitation is made', async () => {
+    const { shopId, admin } = await shopWithAdmin(t);
+    const plain = await addStaff(t, shopId);
+    expectFieldErrors(await admin.c.post(`/api/shops/${shopId}/invitations`, { email: plain.email }), ['email']);
     expect(await countOf(t, 'SELECT count(*) AS n FROM invitations WHERE shop_id = $1', [shopId])).toBe(0);
   });
 });
