@@ -1,6 +1,32 @@
+import { useState } from 'react';
 import { SectionCard } from '@/components/ui/section-card';
+import { isApiError } from '@/lib/api-client';
 import { useMe } from '@/features/auth/api/get-me';
+import { useUpdatePreferences } from '@/features/auth/api/update-preferences';
 import { UnitSettingsForm } from '@/features/auth/components/unit-settings-form';
+import { EmailNotificationsSwitch } from '@/features/account/components/email-notifications-switch';
+
+const EMAIL_OFFLINE = 'No connection: the e-mail setting was not changed. Try again when you have signal.';
+
+/** Notification e-mails on or off, saved as soon as the switch is pressed. */
+function EmailSetting({ enabled }: { enabled: boolean }) {
+  const update = useUpdatePreferences();
+  const [error, setError] = useState<string | null>(null);
+  return (
+    <EmailNotificationsSwitch
+      checked={enabled}
+      isPending={update.isPending}
+      error={error}
+      onChange={(next) => {
+        setError(null);
+        update.mutate(
+          { emailNotifications: next },
+          { onError: (e) => setError(isApiError(e) && e.code === 'network' ? EMAIL_OFFLINE : e.message || EMAIL_OFFLINE) },
+        );
+      }}
+    />
+  );
+}
 
 export function SettingsPage() {
   const { data: user } = useMe();
@@ -14,6 +40,9 @@ export function SettingsPage() {
       </div>
       <SectionCard title="Units">
         <UnitSettingsForm user={user} />
+      </SectionCard>
+      <SectionCard title="E-mail">
+        <EmailSetting enabled={user.preferences.emailNotifications} />
       </SectionCard>
     </div>
   );

@@ -1,17 +1,44 @@
-import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { NEXT_PARAM, paths, registerPath, safeNextPath } from '@/config/paths';
 import { AuthLayout } from '@/components/layouts/auth-layout';
 import { LoginForm } from '@/features/auth/components/login-form';
 
+/**
+ * What another page may leave for this one in the navigation state: a note shown once (gone on
+ * reload, and no link can set it). Kept here rather than in a shared module, so that the pages
+ * that send it share no code with this one.
+ */
+export interface SignInState {
+  notice: 'password-changed';
+}
+
+const NOTICES: Record<SignInState['notice'], string> = {
+  'password-changed': 'Your password is changed. Sign in with the new one.',
+};
+
+function noticeOf(state: unknown): string | null {
+  const notice = typeof state === 'object' && state !== null ? (state as Partial<SignInState>).notice : undefined;
+  return notice && Object.hasOwn(NOTICES, notice) ? NOTICES[notice] : null;
+}
+
 export function SignInPage() {
   const [params] = useSearchParams();
   const navigate = useNavigate();
+  const notice = noticeOf(useLocation().state);
   const next = safeNextPath(params.get(NEXT_PARAM)) ?? paths.home;
 
   return (
     <AuthLayout title="Sign in" intro="Your season notebook: runs, setups and notes from every event.">
       <title>Sign in · Scrubline</title>
+      {notice ? (
+        <p role="status" className="rounded border border-line bg-success-surface p-3 font-semibold text-success">
+          {notice}
+        </p>
+      ) : null}
       <LoginForm onSuccess={() => void navigate(next, { replace: true })} />
+      <Link to={paths.forgotPassword} className="-mt-2 inline-flex min-h-tap items-center self-start font-bold text-link underline">
+        Forgot your password?
+      </Link>
       <p className="text-ink-muted">
         New to Scrubline?{' '}
         <Link to={registerPath(next)} className="inline-flex min-h-tap items-center font-bold text-link underline">

@@ -1,6 +1,19 @@
-import { PageMessage } from '@/components/ui/page-message';
+import { Link } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import { AuthLayout } from '@/components/layouts/auth-layout';
+import { ForgotPasswordForm } from '@/features/account/components/forgot-password-form';
 
-/** Placeholder until the page is built. */
 export function ForgotPasswordPage() {
-  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+  return (
+    <AuthLayout title="Forgot your password?" intro="We e-mail you a link to choose a new one.">
+      <title>Forgot password · Scrubline</title>
+      <ForgotPasswordForm />
+      <p className="text-ink-muted">
+        Remembered it?{' '}
+        <Link to={paths.signIn} className="inline-flex min-h-tap items-center font-bold text-link underline">
+          Sign in
+        </Link>
+      </p>
+    </AuthLayout>
+  );
 }

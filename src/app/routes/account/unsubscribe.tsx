@@ -1,6 +1,14 @@
-import { PageMessage } from '@/components/ui/page-message';
+import { useParams } from 'react-router-dom';
+import { AuthLayout } from '@/components/layouts/auth-layout';
+import { UnsubscribePanel } from '@/features/account/components/unsubscribe-panel';
 
-/** Placeholder until the page is built. */
+/** Reached from the link at the foot of every notification e-mail; no sign-in needed. */
 export function UnsubscribePage() {
-  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+  const { token = '' } = useParams();
+  return (
+    <AuthLayout title="Notification e-mails">
+      <title>Stop e-mails · Scrubline</title>
+      <UnsubscribePanel token={token} />
+    </AuthLayout>
+  );
 }

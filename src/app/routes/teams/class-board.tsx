@@ -1,6 +1,62 @@
+import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { ArrowLeft } from 'lucide-react';
+import { paths, pathTo } from '@/config/paths';
+import { buttonClasses } from '@/components/ui/button';
 import { PageMessage } from '@/components/ui/page-message';
+import { isApiError } from '@/lib/api-client';
+import { useBoard } from '@/features/teams/api/get-board';
+import { ClassBoardView } from '@/features/teams/components/class-board';
+import { SeasonPicker } from '@/features/teams/components/season-picker';
+import { currentSeason, parseSeason } from '@/features/teams/utils/board-format';
 
-/** Placeholder until the page is built. */
+/** The team's class board for a season (`?season=2026`; without it, the server's current season). */
 export function ClassBoardPage() {
-  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+  const { teamId = '' } = useParams();
+  const [params, setParams] = useSearchParams();
+  const asked = parseSeason(params.get('season'));
+  const { data: board, isPending, isPlaceholderData, error } = useBoard(teamId, asked);
+  const season = asked ?? board?.season ?? currentSeason();
+
+  if (isPending) return <p className="text-ink-muted">Loading the class board…</p>;
+  if (!board) {
+    const notFound = isApiError(error) && (error.status === 404 || error.status === 403);
+    return (
+      <PageMessage
+        variant="in-shell"
+        title={notFound ? 'Team not found' : 'The class board did not load'}
+        actions={
+          <Link to={paths.teams} className={buttonClasses('secondary')}>
+            Your teams
+          </Link>
+        }
+      >
+        <p>{notFound ? 'This team does not exist, or you are not one of its members.' : isApiError(error) ? error.message : 'Try again shortly.'}</p>
+      </PageMessage>
+    );
+  }
+
+  return (
+    <div className="flex min-w-0 flex-col gap-6">
+      <title>{`Class board · ${board.team.name} · Scrubline`}</title>
+      <div className="flex flex-col gap-2">
+        <Link to={pathTo.team(teamId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+          <ArrowLeft aria-hidden="true" className="size-4" /> {board.team.name}
+        </Link>
+        <h1 className="text-3xl font-extrabold">Class board</h1>
+        <p className="text-ink-muted">
+          Each car’s best times per event, against the fastest in its class on this team. Index times use the factors the team’s captains
+          entered.
+        </p>
+      </div>
+      <div className="flex flex-wrap items-center gap-3">
+        <SeasonPicker season={season} onChange={(next) => setParams({ season: String(next) }, { replace: true })} />
+        {isPlaceholderData ? (
+          <p role="status" className="text-sm text-ink-muted">
+            Loading {season}…
+          </p>
+        ) : null}
+      </div>
+      {isPlaceholderData ? null : <ClassBoardView board={board} />}
+    </div>
+  );
 }

@@ -1,0 +1,11 @@
+import { api } from '@/lib/api-client';
+import { teamPath, useTeamWrite } from './use-team-write';
+
+export function withdrawEntry(teamId: string, carId: string): Promise<void> {
+  return api.delete(`${teamPath(teamId)}/entries/${encodeURIComponent(carId)}`);
+}
+
+/** Takes one of the user's cars off the team (its runs and setups stay with the car). */
+export function useWithdrawEntry(teamId: string) {
+  return useTeamWrite(teamId, (carId: string) => withdrawEntry(teamId, carId));
+}

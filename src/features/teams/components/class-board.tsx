@@ -1,0 +1,187 @@
+import { lazy, Suspense, useId } from 'react';
+import type { BoardCar, BoardResult, ClassBoard } from '@shared/collab/team.schema';
+import { Caution } from '@/components/ui/caution';
+import { EmptyState } from '@/components/ui/empty-state';
+import { ErrorBoundary } from '@/components/errors/error-boundary';
+import { formatDay } from '@/lib/dates';
+import { formatPercent } from '@/lib/numbers';
+import { useUnits } from '@/lib/units-context';
+import { boardTime, setupLines, trendWords } from '../utils/board-format';
+import type { TrendPoint } from './trend-chart';
+
+const TrendChart = lazy(() => import('./trend-chart').then((m) => ({ default: m.TrendChart })));
+
+const byDate = (a: BoardResult, b: BoardResult) => a.date.localeCompare(b.date) || a.driver.displayName.localeCompare(b.driver.displayName);
+
+/** The car's % off the class's fastest per event: its best driver that day, in date order. */
+function trendPoints(results: readonly BoardResult[]): TrendPoint[] {
+  const best = new Map<string, BoardResult>();
+  for (const r of [...results].sort(byDate)) {
+    if (r.pctOffClassFastest === null) continue;
+    const seen = best.get(r.eventId);
+    if (!seen || (seen.pctOffClassFastest ?? Infinity) > r.pctOffClassFastest) best.set(r.eventId, r);
+  }
+  return [...best.values()].map((r, i) => ({
+    x: i + 1,
+    y: r.pctOffClassFastest ?? 0,
+    label: `${r.eventName}, ${formatDay(r.date)}: ${formatPercent(r.pctOffClassFastest ?? 0)}`,
+  }));
+}
+
+function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean }) {
+  const results = [...car.results].sort(byDate);
+  const head = 'px-2 py-2 text-right font-semibold whitespace-nowrap';
+  const num = 'tabular-figures px-2 py-2 text-right whitespace-nowrap';
+  return (
+    // The table scrolls inside its own box on a phone; the page itself never scrolls sideways. The event
+    // column stays put while the numbers scroll past it.
+    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Results of ${car.car.name}`}>
+      <table className="w-full min-w-[36rem] border-collapse text-left text-sm">
+        <thead>
+          <tr className="border-b border-line text-ink-muted">
+            <th scope="col" className="sticky left-0 bg-surface py-2 pr-2 font-semibold">
+              Event, date, driver
+            </th>
+            <th scope="col" className={head}>Best raw (s)</th>
+            <th scope="col" className={head}>
+              Best adjusted (s)<span className="block text-xs font-normal">cones counted</span>
+            </th>
+            <th scope="col" className={head}>Index (s)</th>
+            <th scope="col" className={head}>Off class fastest</th>
+            <th scope="col" className={head}>Rank</th>
+          </tr>
+        </thead>
+        <tbody>
+          {results.map((r) => (
+            <tr key={`${r.eventId}-${r.driver.id}`} className="border-b border-line align-top">
+              <th scope="row" className="sticky left-0 max-w-44 min-w-36 bg-surface py-2 pr-2 text-left font-normal">
+                <span className="block font-semibold break-words">{r.eventName}</span>
+                <span className="block text-xs text-ink-muted">
+                  {formatDay(r.date)} · {r.driver.displayName}
+                </span>
+              </th>
+              <td className={num}>{boardTime(r.bestRawSec)}</td>
+              <td className={`${num} font-bold`}>{boardTime(r.bestAdjustedSec)}</td>
+              <td className={num}>{hasFactor ? boardTime(r.indexSec) : '—'}</td>
+              <td className={num}>{r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}</td>
+              <td className={num}>{r.rankInClass ?? '—'}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function SetupSummary({ car }: { car: BoardCar }) {
+  const units = useUnits();
+  if (!car.setup) {
+    return (
+      <p className="text-sm text-ink-muted">
+        {car.sharing === 'results' ? 'Results only — setup not shared.' : 'Setup shared, but none is recorded for this season yet.'}
+      </p>
+    );
+  }
+  const lines = setupLines(car.setup, units);
+  return (
+    <div className="flex flex-col gap-1">
+      <p className="text-sm font-semibold">
+        Setup at the latest event: {car.setup.label} <span className="font-normal text-ink-muted">(from {formatDay(car.setup.effectiveFrom)})</span>
+      </p>
+      <table className="w-full max-w-sm border-collapse text-left text-sm" aria-label={`Setup of ${car.car.name}`}>
+        <thead>
+          <tr className="text-ink-muted">
+            <th scope="col" className="py-1 pr-2 font-semibold">
+              <span className="sr-only">Setting</span>
+            </th>
+            <th scope="col" className="py-1 pr-2 text-right font-semibold">Front</th>
+            <th scope="col" className="py-1 text-right font-semibold">Rear</th>
+          </tr>
+        </thead>
+        <tbody>
+          {lines.map((line) => (
+            <tr key={line.label} className="border-t border-line">
+              <th scope="row" className="py-1 pr-2 font-semibold">{line.label}</th>
+              <td className="tabular-figures py-1 pr-2 text-right">{line.front}</td>
+              <td className="tabular-figures py-1 text-right">{line.rear}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function Trend({ car }: { car: BoardCar }) {
+  const points = trendPoints(car.results);
+  const words = trendWords(car.trendPctPerEvent, points.length);
+  return (
+    <div className="flex flex-col gap-1">
+      <p className="text-sm font-semibold">{words}</p>
+      {points.length >= 2 ? (
+        <ErrorBoundary fallback={() => <p className="text-sm text-ink-muted">The trend line could not be drawn; the table above has the same numbers.</p>}>
+          <Suspense fallback={<div className="h-32 max-w-sm rounded border border-dashed border-line-strong" aria-hidden="true" />}>
+            <TrendChart
+              points={points}
+              summary={`${car.car.name}: percent off the class’s fastest over ${points.length} events. ${words}`}
+            />
+          </Suspense>
+        </ErrorBoundary>
+      ) : null}
+    </div>
+  );
+}
+
+function BoardCarCard({ car, hasFactor }: { car: BoardCar; hasFactor: boolean }) {
+  const headingId = useId();
+  return (
+    <article aria-labelledby={headingId} className="flex min-w-0 flex-col gap-3 rounded border border-line p-3">
+      <div className="flex flex-wrap items-baseline gap-x-2">
+        <h3 id={headingId} className="text-lg font-bold break-words">
+          {car.car.name}
+          {car.car.carNumber ? <span className="tabular-figures font-semibold text-ink-muted"> #{car.car.carNumber}</span> : null}
+        </h3>
+        <span className="text-sm text-ink-muted">{car.owner.displayName}’s car</span>
+      </div>
+      {car.results.length === 0 ? <p className="text-sm text-ink-muted">No results this season yet.</p> : <ResultsTable car={car} hasFactor={hasFactor} />}
+      {car.results.length > 0 ? <Trend car={car} /> : null}
+      <SetupSummary car={car} />
+    </article>
+  );
+}
+
+/** The team's season, class by class: every entered car's results, its trend, and its setup when shared. */
+export function ClassBoardView({ board }: { board: ClassBoard }) {
+  if (board.classes.length === 0) {
+    return <EmptyState message={`No cars are entered in ${board.team.name} yet. Enter a car on the team page and it shows here.`} />;
+  }
+  const anySetup = board.classes.some((c) => c.cars.some((car) => car.setup));
+  return (
+    <div className="flex min-w-0 flex-col gap-6">
+      {anySetup ? (
+        <Caution title="Setups are starting points">
+          <p>
+            A teammate’s setup suits their car, tyres and driving. Before copying a value, check it against your car maker’s data and your
+            event’s rules; have alignment and spring work done by someone qualified.
+          </p>
+        </Caution>
+      ) : null}
+      {board.classes.map((group) => (
+        <section key={group.classCode} aria-label={`Class ${group.classCode}`} className="flex min-w-0 flex-col gap-3 rounded-lg border border-line bg-surface p-4">
+          <div className="flex flex-wrap items-baseline justify-between gap-2">
+            <h2 className="text-xl font-bold">Class {group.classCode}</h2>
+            <p className="tabular-figures text-sm text-ink-muted">
+              {group.factor === null ? `No factor entered for ${board.season}` : `Factor ${group.factor.toFixed(3)}`}
+            </p>
+          </div>
+          {group.factor === null ? (
+            <p className="text-sm text-ink-muted">Index times show — until a captain enters this class’s factor on the team page.</p>
+          ) : null}
+          {group.cars.map((car) => (
+            <BoardCarCard key={car.car.id} car={car} hasFactor={group.factor !== null} />
+          ))}
+        </section>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,61 @@
+import { useState, type ReactNode } from 'react';
+import { Button } from '@/components/ui/button';
+import { Dialog } from '@/components/ui/dialog';
+import { FormAlert } from '@/components/ui/form-alert';
+import { failureMessage } from '../utils/online-failure';
+
+interface ConfirmButtonProps {
+  /** The button that opens the question. */
+  children: ReactNode;
+  variant?: 'primary' | 'secondary' | 'quiet';
+  title: string;
+  description: string;
+  confirmLabel: string;
+  pendingLabel: string;
+  keepLabel?: string;
+  isPending: boolean;
+  /** Runs the action; the dialog closes when it succeeds and shows the error when it fails. */
+  onConfirm: (handlers: { onSuccess: () => void; onError: (error: unknown) => void }) => void;
+}
+
+/** A button that asks first, for what cannot be undone from here (removing, leaving, withdrawing). */
+export function ConfirmButton({
+  children,
+  variant = 'quiet',
+  title,
+  description,
+  confirmLabel,
+  pendingLabel,
+  keepLabel = 'Cancel',
+  isPending,
+  onConfirm,
+}: ConfirmButtonProps) {
+  const [open, setOpen] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const onOpenChange = (next: boolean) => {
+    setOpen(next);
+    if (!next) setError(null);
+  };
+  const confirm = () => {
+    setError(null);
+    onConfirm({ onSuccess: () => setOpen(false), onError: (e) => setError(failureMessage(e)) });
+  };
+  return (
+    <>
+      <Button variant={variant} className="shrink-0" onClick={() => onOpenChange(true)}>
+        {children}
+      </Button>
+      <Dialog open={open} onOpenChange={onOpenChange} title={title} description={description}>
+        <FormAlert message={error} />
+        <div className="flex flex-wrap gap-3">
+          <Button onClick={confirm} isPending={isPending} pendingLabel={pendingLabel}>
+            {confirmLabel}
+          </Button>
+          <Button variant="secondary" onClick={() => onOpenChange(false)}>
+            {keepLabel}
+          </Button>
+        </div>
+      </Dialog>
+    </>
+  );
+}

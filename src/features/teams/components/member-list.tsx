@@ -1,0 +1,100 @@
+import { useState } from 'react';
+import { DoorOpen, UserX } from 'lucide-react';
+import type { Team } from '@shared/collab/team.schema';
+import { Button } from '@/components/ui/button';
+import { FormAlert } from '@/components/ui/form-alert';
+import { useLeaveTeam } from '../api/leave-team';
+import { useRemoveMember } from '../api/remove-member';
+import { useSetCaptain } from '../api/set-captain';
+import { failureMessage } from '../utils/online-failure';
+import { ConfirmButton } from './confirm-button';
+import { CaptainMarker } from './team-list';
+
+type Member = Team['members'][number];
+
+function CaptainToggle({ teamId, member }: { teamId: string; member: Member }) {
+  const setCaptain = useSetCaptain(teamId);
+  const [error, setError] = useState<string | null>(null);
+  const toggle = () => {
+    setError(null);
+    setCaptain.mutate({ userId: member.id, isCaptain: !member.isCaptain }, { onError: (e) => setError(failureMessage(e)) });
+  };
+  return (
+    <div className="flex flex-col gap-1">
+      <Button variant="secondary" className="shrink-0" onClick={toggle} isPending={setCaptain.isPending} pendingLabel="Saving…">
+        {member.isCaptain ? 'Make member' : 'Make captain'}
+        <span className="sr-only"> {member.displayName}</span>
+      </Button>
+      <FormAlert message={error} />
+    </div>
+  );
+}
+
+function RemoveMember({ teamId, member }: { teamId: string; member: Member }) {
+  const remove = useRemoveMember(teamId);
+  return (
+    <ConfirmButton
+      title={`Remove ${member.displayName}?`}
+      description="They leave the team: their cars come off the class board and they no longer see it. You can invite them again later."
+      confirmLabel="Remove from team"
+      pendingLabel="Removing…"
+      isPending={remove.isPending}
+      onConfirm={(handlers) => remove.mutate(member.id, handlers)}
+    >
+      <UserX aria-hidden="true" className="size-5" /> Remove<span className="sr-only"> {member.displayName}</span>
+    </ConfirmButton>
+  );
+}
+
+/** The team's people; captains may change who captains and remove members. */
+export function MemberList({ team, currentUserId }: { team: Team; currentUserId: string }) {
+  return (
+    <ul className="flex flex-col gap-2" aria-label="Members">
+      {team.members.map((member) => {
+        const isMe = member.id === currentUserId;
+        return (
+          <li key={member.id} className="flex min-h-tap flex-wrap items-center gap-2 rounded border border-line px-3 py-2">
+            <span className="min-w-0 font-semibold break-words">
+              {member.displayName}
+              {isMe ? ' (you)' : ''}
+            </span>
+            {member.isCaptain ? <CaptainMarker /> : null}
+            {team.isCaptain ? (
+              <span className="ml-auto flex flex-wrap items-start gap-2">
+                <CaptainToggle teamId={team.id} member={member} />
+                {isMe ? null : <RemoveMember teamId={team.id} member={member} />}
+              </span>
+            ) : null}
+          </li>
+        );
+      })}
+    </ul>
+  );
+}
+
+/** Every member may leave; the page then goes back to the list of teams. */
+export function LeaveTeam({ team, currentUserId, onLeft }: { team: Team; currentUserId: string; onLeft: () => void }) {
+  const leave = useLeaveTeam(team.id, currentUserId);
+  return (
+    <ConfirmButton
+      variant="secondary"
+      title={`Leave ${team.name}?`}
+      description="Your cars come off the team’s class board and you no longer see it. A captain can invite you again."
+      confirmLabel="Leave team"
+      pendingLabel="Leaving…"
+      keepLabel="Stay"
+      isPending={leave.isPending}
+      onConfirm={({ onSuccess, onError }) =>
+        leave.mutate(undefined, {
+          onSuccess: () => {
+            onSuccess();
+            onLeft();
+          },
+          onError,
+        })
+      }
+    >
+      <DoorOpen aria-hidden="true" className="size-5" /> Leave team
+    </ConfirmButton>
+  );
+}

@@ -1,0 +1,61 @@
+import type { BoardCar } from '@shared/collab/team.schema';
+import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
+import { formatRunTime } from '@shared/season/run-time';
+
+/** A time on the board to the thousandth ("45.678", "1:05.432"), or "—" when there is none. */
+export function boardTime(seconds: number | null): string {
+  return seconds === null ? '—' : formatRunTime(seconds);
+}
+
+/** Below this a slope is shown as holding steady: the board's percentages are rounded to 0.1. */
+const STEADY_PCT_PER_EVENT = 0.05;
+
+/**
+ * The season's trend in words. The slope is the change in % off the class's fastest per event:
+ * negative means the car is closing in on the fastest.
+ */
+export function trendWords(slopePctPerEvent: number | null, events: number): string {
+  if (slopePctPerEvent === null) return 'Not enough events yet for a trend.';
+  const over = `over ${events} ${events === 1 ? 'event' : 'events'}`;
+  const size = Math.abs(slopePctPerEvent).toFixed(1);
+  if (Math.abs(slopePctPerEvent) < STEADY_PCT_PER_EVENT) return `Holding steady against the class’s fastest ${over}.`;
+  return slopePctPerEvent < 0 ? `Closing in by ${size} % per event ${over}.` : `Falling back by ${size} % per event ${over}.`;
+}
+
+export interface SetupLine {
+  label: string;
+  front: string;
+  rear: string;
+}
+
+const clicks = (n: number | null) => (n === null ? '—' : `${n} ${n === 1 ? 'click' : 'clicks'}`);
+
+/** A shared setup, front and rear, in the user's units. */
+export function setupLines(setup: NonNullable<BoardCar['setup']>, units: UnitPreferences): SetupLine[] {
+  return [
+    { label: 'Camber', front: formatQuantity(setup.frontCamberDeg, 'angle', units), rear: formatQuantity(setup.rearCamberDeg, 'angle', units) },
+    {
+      label: 'Springs',
+      front: formatQuantity(setup.frontSpringNPerMm, 'springRate', units),
+      rear: formatQuantity(setup.rearSpringNPerMm, 'springRate', units),
+    },
+    { label: 'Clicks', front: clicks(setup.frontClicks), rear: clicks(setup.rearClicks) },
+    {
+      label: 'Cold pressure',
+      front: formatQuantity(setup.frontColdKpa, 'pressure', units),
+      rear: formatQuantity(setup.rearColdKpa, 'pressure', units),
+    },
+  ];
+}
+
+/** The year on this device, the season most people mean. */
+export function currentSeason(): number {
+  return new Date().getFullYear();
+}
+
+/** A season from an address (`?season=2026`), or null when missing or not a plausible year. */
+export function parseSeason(raw: string | null): number | null {
+  if (raw === null || !/^\d{4}$/.test(raw)) return null;
+  const year = Number(raw);
+  return year >= 1950 && year <= 2200 ? year : null;
+}

@@ -1,0 +1,116 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { IMPERIAL_PREFERENCES } from '../../../../shared/calc/units.calc';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { user } from '../../fixtures/season';
+import { BOARD, TEAM_IDS } from './team-fixtures';
+
+// A canvas draws nothing in jsdom: stand in for the trend line with the points it was given.
+vi.mock('react-chartjs-2', () => ({
+  Scatter: (props: { 'aria-label'?: string; data: { datasets: { data: { x: number; y: number }[] }[] } }) => (
+    <div role="img" aria-label={props['aria-label']}>
+      {props.data.datasets[0]?.data.map((p) => `${p.x}:${p.y}`).join(' ')}
+    </div>
+  ),
+}));
+
+const BOARD_API = `/api/teams/${TEAM_IDS.team}/board`;
+
+beforeAll(async () => {
+  await import('@/app/routes/teams/class-board');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+const classSection = (code: string) => screen.getByRole('region', { name: `Class ${code}` });
+const rowsOf = (carName: string) => within(screen.getByRole('region', { name: `Results of ${carName}` })).getAllByRole('row').slice(1);
+const cells = (row: HTMLElement) => within(row).getAllByRole('cell').map((c) => c.textContent);
+const rowHeader = (row: HTMLElement) => within(row).getByRole('rowheader').textContent;
+
+describe('class board', () => {
+  it('when a season is asked for, then times show to the thousandth, index times use the class factor, and "—" shows where there is none', async () => {
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    await screen.findByRole('heading', { level: 1, name: 'Class board' });
+    // The season in the address is the one asked for (any other address would fail the stub).
+    expect(requestsTo(fetchMock, `GET ${BOARD_API}?season=2026`).length).toBeGreaterThan(0);
+
+    // SM has no factor: raw and adjusted times to three decimals, the index time "—".
+    expect(within(classSection('SM')).getByText('No factor entered for 2026')).toBeTruthy();
+    const [round3, round4] = rowsOf('Grey roadster');
+    expect(rowHeader(round3!)).toMatch(/^Harrow Flats — Round 3.+ · Maren Holt$/);
+    expect(cells(round3!)).toEqual(['45.600', '47.600', '—', '+1.20 %', '2']);
+    expect(cells(round4!).slice(0, 3)).toEqual(['44.900', '44.900', '—']);
+
+    // STR has a factor of 0.853: the server's index time is shown; past 60 s times read as minutes.
+    expect(within(classSection('STR')).getByText('Factor 0.853')).toBeTruthy();
+    const [ines] = rowsOf('White roadster');
+    expect(cells(ines!)).toEqual(['1:01.250', '1:03.250', '53.952', '0.00 %', '1']);
+  });
+
+  it('when a car shares results only, then its setup is hidden; when it shares its setup, then the values show in the user’s units', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    const sm = await screen.findByRole('region', { name: 'Class SM' });
+    expect(within(sm).getByText('Results only — setup not shared.')).toBeTruthy();
+    expect(within(sm).queryByRole('table', { name: /^Setup of/ })).toBeNull();
+
+    const setup = within(classSection('STR')).getByRole('table', { name: 'Setup of White roadster' });
+    const row = (label: string) => within(setup).getByRole('rowheader', { name: label }).parentElement!;
+    expect(cells(row('Camber'))).toEqual(['-2.10°', '-1.50°']);
+    // 200 kPa = 29.0 psi and 190 kPa = 27.6 psi (1 psi = 6.894757 kPa, NIST SP 811 appendix B, from memory).
+    expect(cells(row('Cold pressure'))).toEqual(['29.0 psi', '27.6 psi']);
+    // 70 N/mm = 400 lb/in (1 lbf/in = 0.1751268 N/mm, from 1 lbf = 4.448222 N and 1 in = 25.4 mm, NIST SP 811 appendix B, from memory).
+    expect(cells(row('Springs'))).toEqual(['400 lb/in', '300 lb/in']);
+    expect(cells(row('Clicks'))).toEqual(['8 clicks', '6 clicks']);
+    expect(screen.getByRole('complementary', { name: 'Setups are starting points' })).toBeTruthy();
+  });
+
+  it('when a car has a trend, then it is drawn from the % off the class’s fastest and said in words; with too few events, it says so', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    const sm = await screen.findByRole('region', { name: 'Class SM' });
+    expect(within(sm).getByText('Closing in by 0.4 % per event over 2 events.')).toBeTruthy();
+    const chart = await within(sm).findByRole('img', { name: /Grey roadster: percent off the class’s fastest over 2 events/ });
+    expect(chart.textContent).toBe('1:1.2 2:0.8');
+    expect(within(classSection('STR')).getByText('Not enough events yet for a trend.')).toBeTruthy();
+    expect(within(classSection('STR')).queryByRole('img')).toBeNull();
+  });
+
+  it('when the next season is picked, then the board for that season is asked for and the address keeps it', async () => {
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
+      [`GET ${BOARD_API}?season=2027`]: jsonResponse(200, { ...BOARD, season: 2027, classes: [] }),
+    });
+    const { router } = renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Season 2027' }));
+
+    expect(await screen.findByText(/No cars are entered in Harrow Flats Sprint Club yet/)).toBeTruthy();
+    expect(requestsTo(fetchMock, `GET ${BOARD_API}?season=2027`)).toHaveLength(1);
+    await waitFor(() => expect(router.state.location.search).toBe('?season=2027'));
+  });
+});

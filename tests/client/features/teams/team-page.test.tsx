@@ -1,0 +1,201 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { CAR, IDS, list, user } from '../../fixtures/season';
+import { CO_DRIVEN, MAREN_HATCH, team, TEAM_IDS } from './team-fixtures';
+
+const TEAM_PAGE = `/teams/${TEAM_IDS.team}`;
+const TEAM_API = `/api/teams/${TEAM_IDS.team}`;
+const SEASON = new Date().getFullYear();
+const FACTORS_API = `${TEAM_API}/factors?season=${SEASON}`;
+
+beforeAll(async () => {
+  await import('@/app/routes/teams/team');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+function stubTeamPage(isCaptain: boolean, extra: Parameters<typeof stubFetch>[0] = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    [`GET ${TEAM_API}`]: jsonResponse(200, team(isCaptain)),
+    // Maren's roadster (already entered), her hatch, and a coupe she only co-drives.
+    'GET /api/cars': list([CAR, MAREN_HATCH, CO_DRIVEN]),
+    [`GET ${FACTORS_API}`]: list([{ season: SEASON, classCode: 'STR', factor: 0.853 }]),
+    ...extra,
+  });
+}
+
+describe('team page: entering a car', () => {
+  it('when a member enters a car, then only their own cars not yet entered are offered, the class starts as the car’s, and the sharing choice is sent', async () => {
+    const fetchMock = stubTeamPage(false, { [`POST ${TEAM_API}/entries`]: jsonResponse(201, {}) });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    const form = await screen.findByRole('form', { name: 'Enter a car' });
+    const carSelect = within(form).getByLabelText('Your car') as HTMLSelectElement;
+    const offered = within(carSelect).getAllByRole('option').map((o) => o.textContent);
+    expect(offered).toEqual(['Blue hatch #12 · class HS']);
+    expect((within(form).getByLabelText('Class') as HTMLInputElement).value).toBe('HS');
+    expect(within(form).getByText(/shows the team this car’s camber, springs, clicks and pressures/)).toBeTruthy();
+
+    await u.click(within(form).getByRole('radio', { name: /Results and setup/ }));
+    await u.click(within(form).getByRole('button', { name: 'Enter the car' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, `POST ${TEAM_API}/entries`)).toHaveLength(1));
+    expect(requestsTo(fetchMock, `POST ${TEAM_API}/entries`)[0]?.body).toEqual({
+      carId: TEAM_IDS.marenHatch,
+      classCode: 'HS',
+      sharing: 'results_and_setup',
+    });
+  });
+
+  it('when the user owns no car left to enter, then the form is replaced by a way to add one', async () => {
+    stubTeamPage(false, { 'GET /api/cars': list([CAR, CO_DRIVEN]) });
+    renderApp(TEAM_PAGE);
+
+    expect(await screen.findByText(/No car of yours is left to enter/)).toBeTruthy();
+    expect(screen.queryByRole('form', { name: 'Enter a car' })).toBeNull();
+  });
+});
+
+describe('team page: who sees what', () => {
+  it('when the user is a member, not a captain, then captain-only controls are hidden and Leave team is there', async () => {
+    const fetchMock = stubTeamPage(false);
+    renderApp(TEAM_PAGE);
+
+    const members = await screen.findByRole('list', { name: 'Members' });
+    expect(within(members).getAllByText('Captain')).toHaveLength(1);
+    expect(screen.queryByRole('form', { name: 'Invite someone' })).toBeNull();
+    expect(screen.queryByRole('button', { name: /^Make (captain|member)/ })).toBeNull();
+    expect(screen.queryByRole('button', { name: /^Remove/ })).toBeNull();
+    expect(screen.queryByRole('heading', { name: 'Class factors' })).toBeNull();
+    expect(screen.getByRole('button', { name: 'Leave team' })).toBeTruthy();
+    // Only the member's own entry can be changed.
+    const entries = screen.getByRole('list', { name: 'Entered cars' });
+    expect(within(entries).getAllByRole('button', { name: /^Change/ })).toHaveLength(1);
+    expect(within(entries).getByRole('button', { name: 'Change Grey roadster #47' })).toBeTruthy();
+    expect(requestsTo(fetchMock, `GET ${FACTORS_API}`)).toHaveLength(0);
+  });
+
+  it('when the user is a captain, then they can invite, change captains, remove others and see pending invitations', async () => {
+    stubTeamPage(true);
+    renderApp(TEAM_PAGE);
+
+    expect(await screen.findByRole('form', { name: 'Invite someone' })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Make member Ines Okafor' })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Remove Ines Okafor' })).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Remove Maren Holt' })).toBeNull();
+    expect(within(screen.getByRole('list', { name: 'Invitations waiting' })).getByText('dara@example.test')).toBeTruthy();
+  });
+
+  it('when a captain invites someone as captain, then the e-mail and the role are sent', async () => {
+    const fetchMock = stubTeamPage(true, {
+      [`POST ${TEAM_API}/invitations`]: jsonResponse(201, { email: 'jo@example.test', asAdmin: true, expiresAt: '2026-06-20T10:00:00.000Z' }),
+    });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    const form = await screen.findByRole('form', { name: 'Invite someone' });
+    await u.type(within(form).getByLabelText('Their e-mail'), 'Jo@Example.test');
+    await u.click(within(form).getByRole('radio', { name: /Captain/ }));
+    await u.click(within(form).getByRole('button', { name: 'Send invitation' }));
+
+    expect(await within(form).findByText(/Invitation sent to jo@example.test/)).toBeTruthy();
+    expect(requestsTo(fetchMock, `POST ${TEAM_API}/invitations`)[0]?.body).toEqual({ email: 'jo@example.test', asAdmin: true });
+  });
+
+  it('when a captain confirms removing a member, then the server is asked to remove exactly that member', async () => {
+    const fetchMock = stubTeamPage(true, { [`DELETE ${TEAM_API}/members/${TEAM_IDS.ines}`]: jsonResponse(204) });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Remove Ines Okafor' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Remove Ines Okafor?' });
+    expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/members/${TEAM_IDS.ines}`)).toHaveLength(0);
+    await u.click(within(dialog).getByRole('button', { name: 'Remove from team' }));
+
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
+    expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/members/${TEAM_IDS.ines}`)).toHaveLength(1);
+  });
+
+  it('when a member leaves, then their own membership is removed and the list of teams opens', async () => {
+    const fetchMock = stubTeamPage(false, {
+      [`DELETE ${TEAM_API}/members/${IDS.maren}`]: jsonResponse(204),
+      'GET /api/teams/mine': list([]),
+    });
+    const { router } = renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Leave team' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Leave Harrow Flats Sprint Club?' });
+    await u.click(within(dialog).getByRole('button', { name: 'Leave team' }));
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/teams'));
+    expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/members/${IDS.maren}`)).toHaveLength(1);
+  });
+
+  it('when a member changes their entry to share the setup, then the class and sharing are sent for that car', async () => {
+    const fetchMock = stubTeamPage(false, { [`PATCH ${TEAM_API}/entries/${IDS.car}`]: jsonResponse(200, {}) });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Change Grey roadster #47' }));
+    const form = screen.getByRole('form', { name: 'Change the entry of Grey roadster #47' });
+    await u.click(within(form).getByRole('radio', { name: /Results and setup/ }));
+    await u.click(within(form).getByRole('button', { name: 'Save entry' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, `PATCH ${TEAM_API}/entries/${IDS.car}`)).toHaveLength(1));
+    expect(requestsTo(fetchMock, `PATCH ${TEAM_API}/entries/${IDS.car}`)[0]?.body).toEqual({ classCode: 'SM', sharing: 'results_and_setup' });
+  });
+});
+
+describe('team page: class factors', () => {
+  it('when a captain types a factor and empties another, then the number is sent and the emptied one is removed with factor null', async () => {
+    const fetchMock = stubTeamPage(true, { [`PUT ${TEAM_API}/factors`]: list([]) });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    const form = await screen.findByRole('form', { name: `Class factors for ${SEASON}` });
+    expect(screen.getByText(/Enter your own class factors here: Scrubline ships with none/)).toBeTruthy();
+    const sm = within(form).getByLabelText('Factor for class SM') as HTMLInputElement;
+    const str = within(form).getByLabelText('Factor for class STR') as HTMLInputElement;
+    expect(sm.value).toBe('');
+    expect(str.value).toBe('0.853');
+
+    // A comma works as the decimal point, as phones in many countries type it.
+    await u.type(sm, '0,8125');
+    await u.clear(str);
+    await u.click(within(form).getByRole('button', { name: 'Save factors' }));
+
+    expect(await within(form).findByText(`Factors for ${SEASON} saved. The class board uses them now.`)).toBeTruthy();
+    expect(requestsTo(fetchMock, `PUT ${TEAM_API}/factors`).map((r) => r.body)).toEqual([
+      { season: SEASON, classCode: 'SM', factor: 0.813 },
+      { season: SEASON, classCode: 'STR', factor: null },
+    ]);
+  });
+
+  it('when a factor is out of range, then the row says why and nothing is sent', async () => {
+    const fetchMock = stubTeamPage(true, { [`PUT ${TEAM_API}/factors`]: list([]) });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    const form = await screen.findByRole('form', { name: `Class factors for ${SEASON}` });
+    const sm = within(form).getByLabelText('Factor for class SM');
+    await u.type(sm, '2.5');
+    await u.click(within(form).getByRole('button', { name: 'Save factors' }));
+
+    expect(await within(form).findByText('The factor must be at most 2')).toBeTruthy();
+    expect(sm.getAttribute('aria-invalid')).toBe('true');
+    expect(requestsTo(fetchMock, `PUT ${TEAM_API}/factors`)).toHaveLength(0);
+  });
+});
