@@ -1,3 +1,4 @@
+/* How each per-corner setup value is named, measured and shown: the setup screens and the suggestions from shops share it. */
 import type { Quantity, UnitPreferences } from '@shared/calc/units.calc';
 import { formatQuantity } from '@shared/calc/units.calc';
 import { LIMITS } from '@shared/season/limits';

@@ -44,12 +44,15 @@ export const CSRF_TOKEN = 'token-1';
 
 /**
  * Stubs the global fetch with answers keyed "METHOD /path". An array is answered in order
- * (the last one repeats). GET /api/auth/csrf answers a token unless given. Unknown routes fail the test.
+ * (the last one repeats). GET /api/auth/csrf answers a token and GET /api/notifications/unread-count
+ * answers 0 unless given. Unknown routes fail the test.
  */
 export function stubFetch(routes: Record<string, Answer | Answer[]>): Mock<typeof fetch> {
   const calls = new Map<string, number>();
   const all: Record<string, Answer | Answer[]> = {
     'GET /api/auth/csrf': () => jsonResponse(200, { token: CSRF_TOKEN }),
+    // The bell in the top bar asks on every signed-in page.
+    'GET /api/notifications/unread-count': () => jsonResponse(200, { unread: 0 }),
     ...routes,
   };
   const mock = vi.fn<typeof fetch>(async (input, init) => {

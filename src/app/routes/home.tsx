@@ -1,3 +1,7 @@
+import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
+import { ChevronRight } from 'lucide-react';
+import { paths } from '@/config/paths';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useMe } from '@/features/auth/api/get-me';
@@ -6,10 +10,23 @@ import { SyncStatus } from '@/features/sync/components/sync-status';
 import { CarList } from '@/features/cars/components/car-list';
 import { CurrentEventCard } from '@/features/events/components/current-event-card';
 
+function HomeLink({ to, title, children }: { to: string; title: string; children: ReactNode }) {
+  return (
+    <Link to={to} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
+      <span className="flex min-w-0 flex-1 flex-col">
+        <span className="font-bold">{title}</span>
+        <span className="text-sm text-ink-muted">{children}</span>
+      </span>
+      <ChevronRight aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
+    </Link>
+  );
+}
+
 export function HomePage() {
   const { data: user } = useMe();
   if (!user) return null;
   const roles = describeRoles(user.roles);
+  const staff = user.roles.includes('shop_staff');
 
   return (
     <div className="flex flex-col gap-6">
@@ -34,6 +51,18 @@ export function HomePage() {
             <CarList currentUserId={user.id} />
           </SectionCard>
         </SectionBoundary>
+        <SectionCard title={staff ? 'Shop and teams' : 'Teams'}>
+          <nav aria-label={staff ? 'Shop and teams' : 'Teams'} className="flex flex-col gap-2">
+            {staff ? (
+              <HomeLink to={paths.shop} title="Your shop">
+                Customers’ cars, suggestions and staff
+              </HomeLink>
+            ) : null}
+            <HomeLink to={paths.teams} title="Teams">
+              Your teams and their class boards
+            </HomeLink>
+          </nav>
+        </SectionCard>
       </div>
     </div>
   );

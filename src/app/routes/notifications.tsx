@@ -1,6 +1,12 @@
-import { PageMessage } from '@/components/ui/page-message';
+import { NotificationList } from '@/features/notifications/components/notification-list';
 
-/** Placeholder until the page is built. */
+/** Everything the user was told about: comments, suggestions, decisions, shop access. */
 export function NotificationsPage() {
-  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+  return (
+    <div className="flex flex-col gap-6">
+      <title>Notifications · Scrubline</title>
+      <h1 className="text-3xl font-extrabold">Notifications</h1>
+      <NotificationList />
+    </div>
+  );
 }

@@ -1,3 +1,4 @@
+import { lazy, Suspense } from 'react';
 import { Outlet } from 'react-router-dom';
 import { Calculator, Car, Flag, House, Settings } from 'lucide-react';
 import { paths } from '@/config/paths';
@@ -18,6 +19,9 @@ const NAV_ITEMS: readonly NavItem[] = [
   { to: paths.settings, label: 'Settings', icon: Settings },
 ];
 
+// The bell and the comments host load just after the page: no page waits for them (see shell-extras.tsx).
+const ShellExtras = lazy(async () => ({ default: (await import('../shell-extras')).ShellExtras }));
+
 /** Every page behind sign-in: the route's loader has already checked the session. */
 export function SignedInLayout() {
   const { data: user } = useMe();
@@ -29,9 +33,16 @@ export function SignedInLayout() {
       <AppShell
         navItems={NAV_ITEMS}
         status={
-          <ErrorBoundary fallback={() => null}>
-            <SyncStatusBadge />
-          </ErrorBoundary>
+          <>
+            <ErrorBoundary fallback={() => null}>
+              <SyncStatusBadge />
+            </ErrorBoundary>
+            <ErrorBoundary fallback={() => null}>
+              <Suspense fallback={null}>
+                <ShellExtras />
+              </Suspense>
+            </ErrorBoundary>
+          </>
         }
         account={<AccountMenu user={user} />}
       >

@@ -18,6 +18,9 @@ import { TyreSetList } from '@/features/tyres/components/tyre-set-list';
 import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
 import { useChanges } from '@/features/changes/api/get-changes';
 import { ChangeLog } from '@/features/changes/components/change-log';
+import { CommentToggle } from '@/features/comments/components/comment-toggle';
+import { ShopAccess } from '@/features/shops/components/shop-access';
+import { SuggestionList } from '@/features/suggestions/components/suggestion-list';
 
 function SetupSection({ carId }: { carId: string }) {
   const { data: me } = useMe();
@@ -29,7 +32,16 @@ function SetupSection({ carId }: { carId: string }) {
   );
   if (isPending && entries.length === 0) return <p className="text-ink-muted">Loading the setup history…</p>;
   if (isError && setups.length === 0) return <p className="text-ink-muted">The setup history could not be loaded. Try again shortly.</p>;
-  return <SetupTimeline carId={carId} setups={setups} />;
+  return (
+    <SetupTimeline
+      carId={carId}
+      setups={setups}
+      // A snapshot still on this phone has no thread on the server yet.
+      renderExtras={(setup) =>
+        setup.pending ? null : <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} />
+      }
+    />
+  );
 }
 
 function TyreSection({ carId, car }: { carId: string; car: Car | undefined }) {
@@ -120,6 +132,18 @@ export function CarPage() {
               </SectionCard>
             </SectionBoundary>
           ) : null}
+          {car && me ? (
+            <SectionBoundary title="Shop access">
+              <SectionCard title="Shop access">
+                <ShopAccess carId={carId} isOwner={car.owner.id === me.id} ownerName={car.owner.displayName} />
+              </SectionCard>
+            </SectionBoundary>
+          ) : null}
+          <SectionBoundary title="Suggestions from shops">
+            <SectionCard title="Suggestions from shops">
+              <SuggestionList carId={carId} emptyText="No suggestions yet. A shop you let in can suggest setup changes here." />
+            </SectionCard>
+          </SectionBoundary>
           <SectionBoundary title="Change log">
             <SectionCard title="Change log">
               <ChangeSection carId={carId} />

@@ -3,8 +3,11 @@ import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom'
 import { ArrowLeft } from 'lucide-react';
 import { pathTo } from '@/config/paths';
 import { EmptyState } from '@/components/ui/empty-state';
+import { SectionCard } from '@/components/ui/section-card';
+import { formatDateTime } from '@/lib/dates';
 import { toast } from '@/lib/toast-store';
 import { useCar } from '@/features/cars/api/get-car';
+import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
 import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
 
@@ -16,6 +19,8 @@ export function TreadPage() {
   const car = useCar(carId);
   // Sets made on this phone count too: a reading of one waits behind the set's own upload.
   const sets = useTyreSetViews(carId);
+  // Each set's latest saved reading carries a thread (the shop and the drivers talk about the wear).
+  const readings = sets.sets.flatMap((set) => (set.latestReading ? [{ set, reading: set.latestReading }] : []));
   const onUploaded = useCallback(() => {
     toast({ tone: 'success', title: 'Tread reading saved' });
     void navigate(pathTo.car(carId));
@@ -39,6 +44,21 @@ export function TreadPage() {
       ) : (
         <TreadEntryForm carId={carId} sets={sets.sets} initialSetId={params.get('set')} onUploaded={onUploaded} />
       )}
+      {readings.length > 0 ? (
+        <SectionCard title="Latest readings">
+          <ul className="flex flex-col gap-3" aria-label="Latest reading of each set">
+            {readings.map(({ set, reading }) => (
+              <li key={set.id} className="flex flex-col gap-1 rounded border border-line p-3">
+                <p>
+                  <span className="font-bold">{set.label}</span>{' '}
+                  <span className="tabular-figures text-sm text-ink-muted">· {formatDateTime(reading.takenAt)}</span>
+                </p>
+                <CommentToggle target={{ type: 'tread_reading', id: reading.id }} what={`the ${set.label} reading`} />
+              </li>
+            ))}
+          </ul>
+        </SectionCard>
+      ) : null}
     </div>
   );
 }

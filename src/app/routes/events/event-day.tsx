@@ -2,7 +2,6 @@ import { lazy, Suspense, useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { Plus, Trophy } from 'lucide-react';
 import type { Car, Person } from '@shared/season/car.schema';
-import type { SeasonEvent } from '@shared/season/event.schema';
 import { formatRunTime } from '@shared/season/run-time';
 import { paths } from '@/config/paths';
 import { Button, buttonClasses } from '@/components/ui/button';
@@ -15,9 +14,11 @@ import { readStoredChoice, writeStoredChoice } from '@/lib/stored-choice';
 import { useMe } from '@/features/auth/api/get-me';
 import { CarDriverPicker, driversOf } from '@/features/cars/components/car-driver-picker';
 import { useCarViews } from '@/features/cars/hooks/use-car-views';
+import { CommentsButton } from '@/features/comments/components/comments-button';
 import { NEW_CAR_PATH } from '@/features/cars/utils/new-car-path';
 import { EventFacts } from '@/features/events/components/event-facts';
 import { useDayEvent } from '@/features/events/hooks/use-event-views';
+import type { EventView } from '@/features/events/utils/pending-events';
 import { useRuns } from '@/features/runs/api/get-runs';
 import { LogRunForm } from '@/features/runs/components/log-run-form';
 import { RunList } from '@/features/runs/components/run-list';
@@ -39,7 +40,7 @@ interface Choice {
 const choiceKey = (eventId: string) => `scrubline.event-day.${eventId}`;
 
 /** Everything under the header once the car and the driver are known. */
-function EventDayBoard({ event, car, driver, me }: { event: SeasonEvent; car: Car; driver: Person; me: Person }) {
+function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car; driver: Person; me: Person }) {
   const entries = useOutboxEntriesFor({ carId: car.id });
   const setupsQuery = useSetups(car.id);
   const runsQuery = useRuns({ carId: car.id, eventId: event.id });
@@ -67,6 +68,12 @@ function EventDayBoard({ event, car, driver, me }: { event: SeasonEvent; car: Ca
     const tie = setupInForce(setups, row.recordedAt);
     if (row.version === null || row.pending || tie?.pending) return tie?.label ?? null;
     return setups.find((s) => s.id === row.setupId)?.label ?? tie?.label ?? null;
+  };
+
+  // Only runs the server has can carry a thread.
+  const runComments = (row: RunRow) => {
+    const saved = row.pending ? undefined : runsQuery.data?.items.find((r) => r.id === row.id);
+    return saved ? <CommentsButton target={{ type: 'run', id: row.id }} what={`run ${row.runNumber}`} count={saved.commentCount} /> : null;
   };
 
   const own = rows.filter((r) => r.driver.id === driver.id);
@@ -97,6 +104,7 @@ function EventDayBoard({ event, car, driver, me }: { event: SeasonEvent; car: Ca
             <h2 id="todays-runs" className="text-xl font-bold">
               Today’s runs
             </h2>
+            {event.pending ? null : <CommentsButton target={{ type: 'event', id: event.id, carId: car.id }} what={`${car.name} today`} />}
             {best?.adjustedTimeSec != null ? (
               <p className="tabular-figures inline-flex items-center gap-1 font-semibold">
                 <Trophy aria-hidden="true" className="size-4" />
@@ -107,7 +115,11 @@ function EventDayBoard({ event, car, driver, me }: { event: SeasonEvent; car: Ca
           {runsQuery.isError && !runsQuery.data ? (
             <p className="text-sm text-ink-muted">Saved runs could not be loaded (no connection?). Runs you log now are kept on this phone.</p>
           ) : null}
-          {runsQuery.isPending && rows.length === 0 ? <p className="text-ink-muted">Loading runs…</p> : <RunList rows={rows} setupLabelOf={setupLabelOf} />}
+          {runsQuery.isPending && rows.length === 0 ? (
+            <p className="text-ink-muted">Loading runs…</p>
+          ) : (
+            <RunList rows={rows} setupLabelOf={setupLabelOf} renderExtras={runComments} />
+          )}
         </section>
       </div>
     </>

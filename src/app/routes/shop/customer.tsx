@@ -1,6 +1,182 @@
-import { PageMessage } from '@/components/ui/page-message';
+import { useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { ArrowLeft, ChartScatter, ChevronDown, ChevronRight } from 'lucide-react';
+import type { SeasonResult } from '@shared/analysis/analysis.schema';
+import { formatRunTime } from '@shared/season/run-time';
+import { paths, pathTo } from '@/config/paths';
+import { buttonClasses } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { SectionCard } from '@/components/ui/section-card';
+import { SectionBoundary } from '@/components/errors/section-boundary';
+import { formatDay } from '@/lib/dates';
+import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-season';
+import { useCar } from '@/features/cars/api/get-car';
+import { CommentToggle } from '@/features/comments/components/comment-toggle';
+import { useRuns } from '@/features/runs/api/get-runs';
+import { STATUS_WORDS } from '@/features/runs/utils/run-words';
+import { useSetups } from '@/features/setups/api/get-setups';
+import { SetupTimeline } from '@/features/setups/components/setup-timeline';
+import { SuggestionList } from '@/features/suggestions/components/suggestion-list';
 
-/** Placeholder until the page is built. */
+type SeasonEventRow = SeasonResult['events'][number];
+
+/** One event's runs for this car, read-only, each with its thread; and the thread on the car's day. */
+function EventRuns({ carId, event }: { carId: string; event: SeasonEventRow }) {
+  const { data, isPending, isError } = useRuns({ carId, eventId: event.eventId });
+  const { data: setups } = useSetups(carId);
+  const labelOf = (setupId: string | null) => setups?.items.find((s) => s.id === setupId)?.label ?? 'none recorded';
+  return (
+    <div className="flex flex-col gap-3 pt-2">
+      <CommentToggle target={{ type: 'event', id: event.eventId, carId }} what={`the day at ${event.name}`} />
+      {isPending ? (
+        <p className="text-ink-muted">Loading runs…</p>
+      ) : isError ? (
+        <p className="text-ink-muted">The runs could not be loaded. Try again shortly.</p>
+      ) : data.items.length === 0 ? (
+        <p className="text-ink-muted">No runs recorded.</p>
+      ) : (
+        <ol className="flex flex-col gap-2" aria-label={`Runs at ${event.name}`}>
+          {data.items.map((run) => (
+            <li key={run.id} className="flex flex-col gap-1 rounded border border-line p-3">
+              <p className="tabular-figures flex flex-wrap items-baseline gap-x-3">
+                <span className="font-extrabold">Run {run.runNumber}</span>
+                <span className="font-semibold text-ink-muted">{run.driver.displayName}</span>
+                <span>
+                  Raw {run.rawTimeSec === null ? '—' : formatRunTime(run.rawTimeSec)}
+                  {run.cones ? ` +${run.cones} cone${run.cones === 1 ? '' : 's'}` : ''}
+                </span>
+                <span className="font-bold">
+                  {run.status === 'finished' && run.adjustedTimeSec !== null ? formatRunTime(run.adjustedTimeSec) : STATUS_WORDS[run.status]}
+                </span>
+                {run.isBest ? <span className="text-sm font-bold">Best</span> : null}
+              </p>
+              <p className="text-sm text-ink-muted">Setup: {labelOf(run.setupId)}</p>
+              {run.notes ? <p className="text-sm">{run.notes}</p> : null}
+              <CommentToggle target={{ type: 'run', id: run.id }} what={`run ${run.runNumber}`} count={run.commentCount} />
+            </li>
+          ))}
+        </ol>
+      )}
+    </div>
+  );
+}
+
+function EventItem({ carId, event }: { carId: string; event: SeasonEventRow }) {
+  const [open, setOpen] = useState(false);
+  const Chevron = open ? ChevronDown : ChevronRight;
+  return (
+    <li className="flex flex-col gap-1 rounded border border-line p-3">
+      <p className="font-bold break-words">{event.name}</p>
+      <p className="text-sm text-ink-muted">
+        {formatDay(event.date)}
+        {event.venue ? ` · ${event.venue}` : ''}
+      </p>
+      <ul className="tabular-figures text-sm">
+        {event.drivers.map((d) => (
+          <li key={d.driver.id}>
+            {d.driver.displayName}: best {d.bestAdjustedSec === null ? '—' : formatRunTime(d.bestAdjustedSec)} · {d.runCount} run
+            {d.runCount === 1 ? '' : 's'}
+          </li>
+        ))}
+      </ul>
+      <button
+        type="button"
+        aria-expanded={open}
+        onClick={() => setOpen((v) => !v)}
+        className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link"
+      >
+        <Chevron aria-hidden="true" className="size-4" /> Runs and comments
+      </button>
+      {open ? <EventRuns carId={carId} event={event} /> : null}
+    </li>
+  );
+}
+
+function Events({ carId }: { carId: string }) {
+  const { data, isPending, isError } = useSeason(carId, DEFAULT_MIN_DEPTH_MM);
+  if (isPending) return <p className="text-ink-muted">Loading the season…</p>;
+  if (isError) return <EmptyState message="The season could not be loaded. Try again shortly." />;
+  if (data.events.length === 0) return <EmptyState message="No events with runs yet this season." />;
+  return (
+    <ol className="flex flex-col gap-3" aria-label="Events, newest first">
+      {[...data.events].reverse().map((event) => (
+        <EventItem key={event.eventId} carId={carId} event={event} />
+      ))}
+    </ol>
+  );
+}
+
+function Setups({ carId }: { carId: string }) {
+  const { data, isPending, isError } = useSetups(carId);
+  if (isPending) return <p className="text-ink-muted">Loading the setup history…</p>;
+  if (isError) return <p className="text-ink-muted">The setup history could not be loaded. Try again shortly.</p>;
+  return (
+    <SetupTimeline
+      carId={carId}
+      readOnly
+      setups={data.items.map((s) => ({ ...s, pending: null }))}
+      renderExtras={(setup) => (
+        <>
+          <Link to={pathTo.newSuggestion(carId, setup.id)} className={buttonClasses('secondary', 'self-start')}>
+            Suggest a change
+          </Link>
+          <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} />
+        </>
+      )}
+    />
+  );
+}
+
+/** A customer's car as the shop sees it: the season read-only, with threads, and setup suggestions. */
 export function CustomerPage() {
-  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+  const { carId = '' } = useParams();
+  const { data: car, isPending, isError } = useCar(carId);
+  return (
+    <div className="flex flex-col gap-6">
+      <title>{`${car?.name ?? 'Customer'} · Scrubline`}</title>
+      <div className="flex flex-col gap-2">
+        <Link to={paths.shop} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+          <ArrowLeft aria-hidden="true" className="size-4" /> Shop
+        </Link>
+        <h1 className="text-3xl font-extrabold">
+          {car ? car.name : isPending ? 'Loading…' : 'Car'}
+          {car?.carNumber ? <span className="tabular-figures text-ink-muted"> #{car.carNumber}</span> : null}
+        </h1>
+        {car ? (
+          <p className="text-ink-muted">
+            Class {car.classCode}
+            {car.tyreSize ? ` · ${car.tyreSize}` : ''} · {car.owner.displayName}’s car
+            {car.coDrivers.length ? `, also driven by ${car.coDrivers.map((p) => p.displayName).join(', ')}` : ''}. Read only: the
+            drivers record runs and setups; you comment and suggest.
+          </p>
+        ) : isError ? (
+          <p className="text-ink-muted">This car could not be loaded. Its owner may have taken your shop’s access away.</p>
+        ) : null}
+        <div className="flex flex-wrap gap-2 pt-2">
+          <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
+            <ChartScatter aria-hidden="true" className="size-5" /> Season review
+          </Link>
+        </div>
+      </div>
+      <div className="grid gap-4 lg:grid-cols-2">
+        <div className="flex flex-col gap-4">
+          <SectionBoundary title="Suggestions">
+            <SectionCard title="Suggestions">
+              <SuggestionList carId={carId} emptyText="No suggestions yet. Use “Suggest a change” on a setup snapshot." />
+            </SectionCard>
+          </SectionBoundary>
+          <SectionBoundary title="Events">
+            <SectionCard title="Events">
+              <Events carId={carId} />
+            </SectionCard>
+          </SectionBoundary>
+        </div>
+        <SectionBoundary title="Setup history">
+          <SectionCard title="Setup history">
+            <Setups carId={carId} />
+          </SectionCard>
+        </SectionBoundary>
+      </div>
+    </div>
+  );
 }

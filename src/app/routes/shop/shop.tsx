@@ -1,6 +1,79 @@
-import { PageMessage } from '@/components/ui/page-message';
+import { useSearchParams } from 'react-router-dom';
+import { SectionCard } from '@/components/ui/section-card';
+import { SelectField } from '@/components/ui/select-field';
+import { SectionBoundary } from '@/components/errors/section-boundary';
+import { useMe } from '@/features/auth/api/get-me';
+import { useMyShops } from '@/features/shops/api/get-my-shops';
+import { useShop } from '@/features/shops/api/get-shop';
+import { CustomerList } from '@/features/shops/components/customer-list';
+import { StaffSection } from '@/features/shops/components/staff-section';
+import { StartShopForm } from '@/features/shops/components/start-shop-form';
 
-/** Placeholder until the page is built. */
+const SHOP_PARAM = 'shop';
+
+function StaffCard({ shopId, currentUserId }: { shopId: string; currentUserId: string }) {
+  const { data: shop, isPending, isError } = useShop(shopId);
+  if (isPending) return <p className="text-ink-muted">Loading staff…</p>;
+  if (isError) return <p className="text-ink-muted">The staff list could not be loaded. Try again shortly.</p>;
+  return <StaffSection shop={shop} currentUserId={currentUserId} />;
+}
+
+/** Shop staff: the cars the shop looks after, and who works there. With no shop, how to open one. */
 export function ShopPage() {
-  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+  const { data: me } = useMe();
+  const mine = useMyShops();
+  const [params, setParams] = useSearchParams();
+  const shops = mine.data?.items ?? [];
+  const shop = shops.find((s) => s.id === params.get(SHOP_PARAM)) ?? shops[0];
+
+  if (!me) return null;
+  if (mine.isPending) return <p className="text-ink-muted">Loading your shop…</p>;
+  if (mine.isError) return <p className="text-ink-muted">Your shops could not be loaded. Try again shortly.</p>;
+
+  if (!shop) {
+    return (
+      <div className="flex max-w-form flex-col gap-6">
+        <title>Shop · Scrubline</title>
+        <div className="flex flex-col gap-2">
+          <h1 className="text-3xl font-extrabold">Your shop</h1>
+          <p className="text-ink-muted">
+            You do not work for a shop here yet. If a shop has invited you, open the link in the invitation e-mail. Or open your own
+            shop: drivers then let it see their cars, and you can comment and suggest setups.
+          </p>
+        </div>
+        <StartShopForm onCreated={(created) => setParams({ [SHOP_PARAM]: created.id }, { replace: true })} />
+      </div>
+    );
+  }
+
+  return (
+    <div className="flex flex-col gap-6">
+      <title>{`${shop.name} · Scrubline`}</title>
+      <div className="flex flex-col gap-2">
+        <h1 className="text-3xl font-extrabold break-words">{shop.name}</h1>
+        <p className="text-ink-muted">{shop.isShopAdmin ? 'You are a shop admin.' : 'You are on the staff.'}</p>
+        {shops.length > 1 ? (
+          <SelectField
+            className="max-w-form"
+            label="Shop"
+            value={shop.id}
+            options={shops.map((s) => ({ value: s.id, label: s.name }))}
+            onChange={(e) => setParams({ [SHOP_PARAM]: e.target.value }, { replace: true })}
+          />
+        ) : null}
+      </div>
+      <div className="grid gap-4 lg:grid-cols-2">
+        <SectionBoundary title="Customers">
+          <SectionCard title="Customers">
+            <CustomerList shopId={shop.id} />
+          </SectionCard>
+        </SectionBoundary>
+        <SectionBoundary title="Staff">
+          <SectionCard title="Staff">
+            <StaffCard shopId={shop.id} currentUserId={me.id} />
+          </SectionCard>
+        </SectionBoundary>
+      </div>
+    </div>
+  );
 }

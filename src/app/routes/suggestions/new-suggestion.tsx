@@ -1,6 +1,58 @@
-import { PageMessage } from '@/components/ui/page-message';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
+import { ArrowLeft } from 'lucide-react';
+import { pathTo } from '@/config/paths';
+import { EmptyState } from '@/components/ui/empty-state';
+import { useCar } from '@/features/cars/api/get-car';
+import { useSetups } from '@/features/setups/api/get-setups';
+import { SuggestionForm } from '@/features/suggestions/components/suggestion-form';
 
-/** Placeholder until the page is built. */
+/** Shop staff suggest a change to one of a customer car's setups (?from=<setupId>; the newest when not given). */
 export function NewSuggestionPage() {
-  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+  const { carId = '' } = useParams();
+  const [params] = useSearchParams();
+  const navigate = useNavigate();
+  const car = useCar(carId);
+  const setups = useSetups(carId);
+  const from = params.get('from');
+  const items = setups.data?.items ?? [];
+  // The list is newest first: without ?from, the latest snapshot is the one to change.
+  const base = from ? items.find((s) => s.id === from) : items[0];
+
+  return (
+    <div className="flex flex-col gap-6">
+      <title>Suggest a change · Scrubline</title>
+      <div className="flex flex-col gap-2">
+        <Link to={pathTo.shopCustomer(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+          <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
+        </Link>
+        <h1 className="text-3xl font-extrabold">Suggest a setup change</h1>
+        {car.data ? (
+          <p className="text-ink-muted">
+            For {car.data.owner.displayName}’s {car.data.name}. The drivers see it, and accept or decline it.
+          </p>
+        ) : null}
+      </div>
+      {setups.isPending ? (
+        <p className="text-ink-muted">Loading the car’s setups…</p>
+      ) : setups.isError ? (
+        <EmptyState message="The car’s setups could not be loaded. Try again shortly." />
+      ) : !base ? (
+        <EmptyState
+          message={
+            from
+              ? 'That setup snapshot was not found on this car. Pick one from the car’s setup history.'
+              : 'This car has no setup recorded yet. A suggestion changes a recorded setup, so the drivers need to record one first.'
+          }
+        >
+          <Link to={pathTo.shopCustomer(carId)} className="font-semibold text-link underline">
+            Back to the car
+          </Link>
+        </EmptyState>
+      ) : (
+        <div className="max-w-2xl">
+          <SuggestionForm carId={carId} base={base} onCreated={({ id }) => void navigate(pathTo.suggestion(id))} />
+        </div>
+      )}
+    </div>
+  );
 }

@@ -1,6 +1,77 @@
+import { useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { ArrowLeft } from 'lucide-react';
+import { pathTo } from '@/config/paths';
+import { Caution } from '@/components/ui/caution';
 import { PageMessage } from '@/components/ui/page-message';
+import { SectionCard } from '@/components/ui/section-card';
+import { isApiError } from '@/lib/api-client';
+import { useMe } from '@/features/auth/api/get-me';
+import { carQueryOptions } from '@/features/cars/api/get-car';
+import { setupKeys } from '@/features/setups/api/setup-keys';
+import { useSuggestion } from '@/features/suggestions/api/get-suggestion';
+import { DecisionPanel } from '@/features/suggestions/components/decision-panel';
+import { DecisionStatus, SuggestionDetails } from '@/features/suggestions/components/suggestion-details';
 
-/** Placeholder until the page is built. */
+/** One suggestion: what and why; the car's drivers accept or decline it while it is open. */
 export function SuggestionPage() {
-  return <PageMessage title="Coming soon"><p>This page is on its way.</p></PageMessage>;
+  const { suggestionId = '' } = useParams();
+  const queryClient = useQueryClient();
+  const { data: me } = useMe();
+  const { data: suggestion, isPending, isError, error } = useSuggestion(suggestionId);
+  const car = useQuery({ ...carQueryOptions(suggestion?.carId ?? ''), enabled: Boolean(suggestion) });
+  const [acceptedHere, setAcceptedHere] = useState(false);
+
+  if (isPending) return <p className="text-ink-muted">Loading the suggestion…</p>;
+  if (isError) {
+    return (
+      <PageMessage variant="in-shell" title={isApiError(error) && error.status === 404 ? 'Suggestion not found' : 'The suggestion could not be loaded'}>
+        <p>
+          {isApiError(error) && error.status === 404
+            ? 'It may be for a car you no longer have access to.'
+            : 'Try again when you have signal.'}
+        </p>
+      </PageMessage>
+    );
+  }
+
+  const isDriver = Boolean(me && car.data && (car.data.owner.id === me.id || car.data.coDrivers.some((p) => p.id === me.id)));
+  const back = isDriver ? pathTo.car(suggestion.carId) : pathTo.shopCustomer(suggestion.carId);
+
+  return (
+    <div className="flex max-w-2xl flex-col gap-6">
+      <title>{`${suggestion.title} · Scrubline`}</title>
+      <div className="flex flex-col gap-2">
+        <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+          <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
+        </Link>
+        <p className="text-sm font-semibold text-ink-muted">Setup suggestion</p>
+        <h1 className="text-3xl font-extrabold break-words">{suggestion.title}</h1>
+      </div>
+      <SuggestionDetails suggestion={suggestion} />
+      <SectionCard title="Decision">
+        <DecisionStatus suggestion={suggestion} hideSetupLink={acceptedHere} />
+        {isDriver ? (
+          <>
+            {suggestion.status === 'open' ? (
+              <Caution>
+                <p>
+                  Make alignment, suspension and pressure changes within the vehicle and tyre makers’ data and the event’s rules,
+                  and have them done by someone competent to do them. Accept once the car is set up this way.
+                </p>
+              </Caution>
+            ) : null}
+            <DecisionPanel
+              suggestion={suggestion}
+              onAccepted={() => {
+                setAcceptedHere(true);
+                void queryClient.invalidateQueries({ queryKey: setupKeys.ofCar(suggestion.carId) });
+              }}
+            />
+          </>
+        ) : null}
+      </SectionCard>
+    </div>
+  );
 }

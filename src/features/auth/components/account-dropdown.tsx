@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import * as DropdownMenu from '@radix-ui/react-dropdown-menu';
-import { LogOut, Settings } from 'lucide-react';
+import { LogOut, Settings, Store, Users } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import type { User } from '@shared/auth/auth.schema';
 import { paths } from '@/config/paths';
@@ -96,6 +96,20 @@ export function AccountDropdown({ user, defaultOpen = false }: { user: User; def
               <span className="truncate text-sm text-ink-muted">{user.email}</span>
             </DropdownMenu.Label>
             <DropdownMenu.Separator className="my-1 h-px bg-line" />
+            {user.roles.includes('shop_staff') ? (
+              <DropdownMenu.Item asChild className={ITEM}>
+                <Link to={paths.shop}>
+                  <Store aria-hidden="true" className="size-5" />
+                  Your shop
+                </Link>
+              </DropdownMenu.Item>
+            ) : null}
+            <DropdownMenu.Item asChild className={ITEM}>
+              <Link to={paths.teams}>
+                <Users aria-hidden="true" className="size-5" />
+                Teams
+              </Link>
+            </DropdownMenu.Item>
             <DropdownMenu.Item asChild className={ITEM}>
               <Link to={paths.settings}>
                 <Settings aria-hidden="true" className="size-5" />

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { Pencil, Trophy } from 'lucide-react';
 import type { Corner } from '@shared/season/corners';
 import { formatRunTime } from '@shared/season/run-time';
@@ -24,6 +24,8 @@ interface RunListProps {
   rows: readonly RunRow[];
   /** The label of the setup each run ran on (saved tie, or worked out on the device). */
   setupLabelOf: (row: RunRow) => string | null;
+  /** More beside a run's Edit button (its comments). */
+  renderExtras?: (row: RunRow) => ReactNode;
 }
 
 /** The same run, posted again with the same id: the server re-creates a deleted run, or answers "already there". */
@@ -61,7 +63,7 @@ function Time({ label, seconds, strong }: { label: string; seconds: number | nul
  * the best one marked with a trophy and the word, the setup each ran on, and what is still
  * waiting or was refused.
  */
-export function RunList({ rows, setupLabelOf }: RunListProps) {
+export function RunList({ rows, setupLabelOf, renderExtras }: RunListProps) {
   const units = useUnits();
   const outbox = useOutbox();
   const entries = useOutboxEntries();
@@ -204,10 +206,11 @@ export function RunList({ rows, setupLabelOf }: RunListProps) {
                 onDelete={failed?.action === 'create' ? undefined : () => void deleteRun(row)}
               />
             ) : failed ? null : (
-              <div>
+              <div className="flex flex-wrap gap-1">
                 <Button variant="quiet" className="px-2" onClick={() => setEditing(row.id)} aria-label={`Edit run ${row.runNumber}`}>
                   <Pencil aria-hidden="true" className="size-4" /> Edit
                 </Button>
+                {renderExtras?.(row)}
               </div>
             )}
           </li>

@@ -12,7 +12,7 @@ import { formatSigned, parseDecimal, tidy, unitSymbol } from '@/lib/numbers';
 import { toast } from '@/lib/toast-store';
 import { useUnits } from '@/lib/units-context';
 import { quickChangeEntry, useQuickChange, type QuickChangeBody } from '../api/quick-change';
-import { FIELD_INFO, formatFieldValue } from '../utils/setup-fields';
+import { FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
 import { applyQuickChange, setupInForce, type SetupView } from '../utils/setup-views';
 
 type QuickField = (typeof QUICK_CHANGE_FIELDS)[number];

@@ -2,7 +2,7 @@ import type { SetupChange, SetupCornerField } from '@shared/season/setup.schema'
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { useUnits } from '@/lib/units-context';
 import { groupChanges, type ChangeGroup } from '../utils/group-changes';
-import { FIELD_INFO, formatFieldDelta, formatFieldValue } from '../utils/setup-fields';
+import { FIELD_INFO, formatFieldDelta, formatFieldValue } from '@/lib/setup-fields';
 
 function fieldWords(field: SetupCornerField | 'antiRollBar') {
   return field === 'antiRollBar' ? 'anti-roll bar' : FIELD_INFO[field].label.toLowerCase();

@@ -19,7 +19,7 @@ import { useOutbox } from '@/lib/outbox-context';
 import { useUnits } from '@/lib/units-context';
 import { useWatchedEntry } from '@/lib/use-outbox-entry';
 import { createSetupEntry, useCreateSetup, type CreateSetupBody } from '../api/create-setup';
-import { FIELD_INFO, formatFieldDelta } from '../utils/setup-fields';
+import { FIELD_INFO, formatFieldDelta } from '@/lib/setup-fields';
 import { compactCorners, cornersToTexts, maxClicks, textsToSi, type SetupFormValues } from '../utils/setup-form';
 import { setupInForce, type SetupView } from '../utils/setup-views';
 import { SetupChangeList } from './setup-change-list';

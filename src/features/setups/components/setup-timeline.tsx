@@ -1,4 +1,6 @@
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
+import { Lightbulb } from 'lucide-react';
 import { diffSetups } from '@shared/season/setup-diff';
 import { pathTo } from '@/config/paths';
 import { buttonClasses } from '@/components/ui/button';
@@ -40,8 +42,34 @@ function PendingProblem({ setup, carId }: { setup: SetupView; carId: string }) {
   );
 }
 
+/** "from Kettle Lane Chassis Works: More front camber", linking to the suggestion. */
+function SuggestionBadge({ setup }: { setup: SetupView }) {
+  const from = setup.suggestion;
+  if (!from) return null;
+  return (
+    <Link
+      to={pathTo.suggestion(from.id)}
+      className="inline-flex min-h-tap items-center gap-1 self-start rounded bg-accent-soft px-2 text-sm font-semibold text-link"
+    >
+      <Lightbulb aria-hidden="true" className="size-4 shrink-0" />
+      <span className="break-words">
+        from {from.shopName}: {from.title}
+      </span>
+    </Link>
+  );
+}
+
+interface SetupTimelineProps {
+  carId: string;
+  setups: readonly SetupView[];
+  /** For readers who cannot record setups (a shop): no "start a new setup" link. */
+  readOnly?: boolean;
+  /** More under each snapshot: its comments, a shop's "Suggest a change". */
+  renderExtras?: (setup: SetupView) => ReactNode;
+}
+
 /** A car's setup history, newest first: each snapshot with what changed from the one before it. */
-export function SetupTimeline({ carId, setups }: { carId: string; setups: readonly SetupView[] }) {
+export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }: SetupTimelineProps) {
   if (setups.length === 0) {
     return <EmptyState message="No setup recorded yet. Record the car as it is now to compare later changes against it." />;
   }
@@ -50,7 +78,8 @@ export function SetupTimeline({ carId, setups }: { carId: string; setups: readon
       {setups.map((setup, i) => {
         const before = setups[i + 1];
         return (
-          <li key={setup.id} className="flex flex-col gap-2 rounded border border-line p-3">
+          // The id lets a link land on one snapshot (the suggestion page's "Open the new setup").
+          <li key={setup.id} id={`setup-${setup.id}`} className="flex flex-col gap-2 rounded border border-line p-3">
             <div className="flex flex-wrap items-baseline justify-between gap-2">
               <h3 className="font-bold">{setup.label}</h3>
               {setup.pending ? <PendingBadge state={setup.pending.state} /> : null}
@@ -58,6 +87,7 @@ export function SetupTimeline({ carId, setups }: { carId: string; setups: readon
             <p className="tabular-figures text-sm text-ink-muted">
               From {formatDateTime(setup.effectiveFrom)} · by {setup.createdBy.displayName || 'someone'}
             </p>
+            <SuggestionBadge setup={setup} />
             {before ? (
               <div className="flex flex-col gap-1">
                 <p className="text-sm text-ink-muted">Changes from “{before.label}”:</p>
@@ -74,11 +104,14 @@ export function SetupTimeline({ carId, setups }: { carId: string; setups: readon
                 <SetupValues setup={setup} />
               </div>
             </details>
-            <div>
-              <Link to={pathTo.newSetup(carId, setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
-                Start a new setup from this one
-              </Link>
-            </div>
+            {readOnly ? null : (
+              <div>
+                <Link to={pathTo.newSetup(carId, setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
+                  Start a new setup from this one
+                </Link>
+              </div>
+            )}
+            {renderExtras?.(setup)}
           </li>
         );
       })}

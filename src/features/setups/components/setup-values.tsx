@@ -1,7 +1,7 @@
 import { SETUP_CORNER_FIELDS, type Setup } from '@shared/season/setup.schema';
 import { CornerGrid } from '@/components/corner-grid/corner-grid';
 import { useUnits } from '@/lib/units-context';
-import { FIELD_INFO, formatFieldValue } from '../utils/setup-fields';
+import { FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
 
 /** Every recorded value of a snapshot, each field in the corner grid. */
 export function SetupValues({ setup }: { setup: Pick<Setup, 'corners' | 'axles'> }) {

@@ -3,7 +3,7 @@ import type { Car } from '@shared/season/car.schema';
 import { axleOf, CORNERS, type Corner } from '@shared/season/corners';
 import { SETUP_CORNER_FIELDS, type SetupCorner, type SetupCornerField } from '@shared/season/setup.schema';
 import { inputToSi, parseDecimal, toInputText } from '@/lib/numbers';
-import { FIELD_INFO } from './setup-fields';
+import { FIELD_INFO } from '@/lib/setup-fields';
 
 export type CornerTexts = Record<SetupCornerField, string>;
 

@@ -1,0 +1,59 @@
+import { lazy, Suspense, useEffect, useState } from 'react';
+import { ErrorBoundary } from '@/components/errors/error-boundary';
+import { toast } from '@/lib/toast-store';
+// Type only: importing the button's module would tie this chunk (on every page) to the trackside one.
+import type { OpenCommentsDetail } from './comments-button';
+
+/** Must match OPEN_COMMENTS_EVENT in comments-button.tsx. */
+const OPEN_COMMENTS_EVENT = 'scrubline:open-comments';
+
+const lazyDialog = () => lazy(async () => ({ default: (await import('./comment-thread')).CommentDialog }));
+
+/** The thread's code could not be fetched (no signal since the app was kept on the device): say so once. */
+function CouldNotOpen({ onShown }: { onShown: () => void }) {
+  useEffect(() => {
+    toast({ tone: 'warning', title: 'Comments could not open', description: 'They need a connection the first time.' });
+    onShown();
+  }, [onShown]);
+  return null;
+}
+
+/**
+ * Opens a comment thread over whatever page asked (the trackside "Comments" buttons): the app shell
+ * mounts this once, and the thread's code is fetched on the first request.
+ */
+export function CommentsHost() {
+  const [request, setRequest] = useState<OpenCommentsDetail | null>(null);
+  // A fresh lazy component after a failed download, so the next tap tries again.
+  const [CommentDialog, setCommentDialog] = useState(() => lazyDialog());
+  useEffect(() => {
+    const onOpen = (event: Event) => setRequest((event as CustomEvent<OpenCommentsDetail>).detail);
+    window.addEventListener(OPEN_COMMENTS_EVENT, onOpen);
+    return () => window.removeEventListener(OPEN_COMMENTS_EVENT, onOpen);
+  }, []);
+  if (!request) return null;
+  return (
+    <ErrorBoundary
+      fallback={({ reset }) => (
+        <CouldNotOpen
+          onShown={() => {
+            setRequest(null);
+            setCommentDialog(() => lazyDialog());
+            reset();
+          }}
+        />
+      )}
+    >
+      <Suspense fallback={null}>
+        <CommentDialog
+          target={request.target}
+          title={`Comments on ${request.what}`}
+          open
+          onOpenChange={(open) => {
+            if (!open) setRequest(null);
+          }}
+        />
+      </Suspense>
+    </ErrorBoundary>
+  );
+}

@@ -1,0 +1,6 @@
+/** Every suggestion query key. */
+export const suggestionKeys = {
+  all: ['suggestions'] as const,
+  ofCar: (carId: string) => [...suggestionKeys.all, 'car', carId] as const,
+  detail: (suggestionId: string) => [...suggestionKeys.all, 'detail', suggestionId] as const,
+};

@@ -1,0 +1,53 @@
+import { Link } from 'react-router-dom';
+import { ChevronRight } from 'lucide-react';
+import type { Suggestion, SuggestionStatus } from '@shared/collab/suggestion.schema';
+import { pathTo } from '@/config/paths';
+import { cn } from '@/lib/cn';
+import { formatDay } from '@/lib/dates';
+import { useSuggestions } from '../api/get-suggestions';
+
+const STATUS_WORDS: Record<SuggestionStatus, string> = {
+  open: 'Waiting for the driver',
+  accepted: 'Accepted',
+  declined: 'Declined',
+  withdrawn: 'Withdrawn',
+};
+
+export function StatusBadge({ status }: { status: Suggestion['status'] }) {
+  return (
+    <span
+      className={cn(
+        'inline-flex items-center self-start rounded px-2 text-sm font-bold',
+        status === 'open' ? 'bg-accent text-accent-ink' : status === 'accepted' ? 'bg-success-surface text-success' : 'bg-surface-raised text-ink-muted',
+      )}
+    >
+      {STATUS_WORDS[status]}
+    </span>
+  );
+}
+
+/** A car's suggestions from its shops, newest first; each opens its own page. */
+export function SuggestionList({ carId, emptyText }: { carId: string; emptyText: string }) {
+  const { data, isPending, isError } = useSuggestions(carId);
+  if (isPending) return <p className="text-ink-muted">Loading suggestions…</p>;
+  if (isError) return <p className="text-ink-muted">Suggestions could not be loaded. Try again shortly.</p>;
+  if (data.items.length === 0) return <p className="text-sm text-ink-muted">{emptyText}</p>;
+  return (
+    <ul className="flex flex-col gap-2" aria-label="Suggestions">
+      {data.items.map((s) => (
+        <li key={s.id}>
+          <Link to={pathTo.suggestion(s.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
+            <span className="flex min-w-0 flex-1 flex-col gap-0.5">
+              <span className="font-bold break-words">{s.title}</span>
+              <span className="text-sm text-ink-muted">
+                {s.shop.name} · {s.author.displayName} · {formatDay(s.createdAt)}
+              </span>
+              <StatusBadge status={s.status} />
+            </span>
+            <ChevronRight aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
+          </Link>
+        </li>
+      ))}
+    </ul>
+  );
+}

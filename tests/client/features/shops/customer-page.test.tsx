@@ -1,0 +1,90 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { SeasonResult } from '../../../../shared/analysis/analysis.schema';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { BASE_SETUP, CAR, EVENT, IDS, list, RUNS_URL, savedRun } from '../../fixtures/season';
+import { staffUser, suggestion } from '../../fixtures/collab';
+
+const PAGE = `/shop/customers/${IDS.car}`;
+
+const SEASON: SeasonResult = {
+  carId: IDS.car,
+  events: [
+    {
+      eventId: IDS.event,
+      name: EVENT.name,
+      date: EVENT.date,
+      venue: EVENT.venue,
+      drivers: [{ driver: { id: IDS.maren, displayName: 'Maren Holt' }, bestRawSec: 45.5, bestAdjustedSec: 45.5, runCount: 2, cones: 1, classPosition: null }],
+    },
+  ],
+  setupChanges: [],
+  changeLog: [],
+  tyreLife: [],
+};
+
+beforeAll(async () => {
+  await import('@/app/routes/shop/customer');
+  await import('@/features/comments/components/comment-thread');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+function stubCustomer(extra: Parameters<typeof stubFetch>[0] = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+    [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
+    [`GET /api/cars/${IDS.car}/season?minDepthMm=1.6`]: jsonResponse(200, SEASON),
+    [`GET /api/cars/${IDS.car}/suggestions`]: list([suggestion()]),
+    [`GET ${RUNS_URL}`]: list([
+      savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 45.5, adjustedTimeSec: 45.5, commentCount: 1 }),
+      savedRun({ id: IDS.run2, runNumber: 2, rawTimeSec: 46.1, cones: 1, adjustedTimeSec: 48.1, isBest: false }),
+    ]),
+    ...extra,
+  });
+}
+
+describe('a customer’s car, for the shop', () => {
+  it('shows the season read-only: setups with "Suggest a change" and no way to record, and a link to the season review', async () => {
+    stubCustomer();
+    renderApp(PAGE);
+
+    const history = await screen.findByRole('list', { name: 'Setup history, newest first' });
+    const suggest = within(history).getByRole('link', { name: 'Suggest a change' });
+    expect(suggest.getAttribute('href')).toBe(`/cars/${IDS.car}/suggestions/new?from=${IDS.setupBase}`);
+    expect(within(history).queryByRole('link', { name: /Start a new setup/ })).toBeNull();
+    expect(screen.queryByRole('link', { name: /New setup/ })).toBeNull();
+    expect(screen.getByRole('link', { name: 'Season review' }).getAttribute('href')).toBe(`/cars/${IDS.car}/review`);
+    expect(within(await screen.findByRole('list', { name: 'Suggestions' })).getByText('More front camber')).toBeTruthy();
+  });
+
+  it('when an event is opened, then its runs show with times and each run’s comments, and the day’s thread is there too', async () => {
+    const fetchMock = stubCustomer({ [`GET /api/comments?type=run&id=${IDS.run1}`]: list([]) });
+    renderApp(PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Runs and comments' }));
+
+    const runs = await screen.findByRole('list', { name: `Runs at ${EVENT.name}` });
+    const [first, second] = within(runs).getAllByRole('listitem');
+    expect(first!.textContent).toContain('Run 1');
+    expect(first!.textContent).toContain('45.500');
+    expect(first!.textContent).toContain('Setup: Spring baseline');
+    expect(second!.textContent).toContain('+1 cone');
+    expect(second!.textContent).toContain('48.100');
+    expect(screen.getByRole('button', { name: `Comments on the day at ${EVENT.name}` })).toBeTruthy();
+
+    await u.click(within(first!).getByRole('button', { name: 'Comments (1) on run 1' }));
+    await waitFor(() => expect(requestsTo(fetchMock, `GET /api/comments?type=run&id=${IDS.run1}`).length).toBeGreaterThan(0));
+  });
+});

@@ -1,0 +1,173 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { BASE_SETUP, CAR, IDS, list, UUID } from '../../fixtures/season';
+import { COLLAB_IDS, staffUser, suggestion } from '../../fixtures/collab';
+
+const PATH = `/cars/${IDS.car}/suggestions/new?from=${IDS.setupBase}`;
+const POST = `POST /api/cars/${IDS.car}/suggestions`;
+
+beforeAll(async () => {
+  await import('@/app/routes/suggestions/new-suggestion');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+function stub(units: UnitPreferences, extra: Parameters<typeof stubFetch>[0] = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
+    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+    [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
+    [`GET /api/suggestions/${COLLAB_IDS.suggestion}`]: jsonResponse(200, suggestion()),
+    ...extra,
+  });
+}
+
+type U = ReturnType<typeof userEvent.setup>;
+const change = (n: number) => screen.getByRole('group', { name: `Change ${n}` });
+
+async function fillWords(u: U) {
+  await u.click(await screen.findByLabelText('Title'));
+  await u.paste('More front camber, softer pressures');
+  await u.click(screen.getByLabelText('Why'));
+  await u.paste('The outside front edges wear faster than the middle.');
+}
+
+describe('suggesting a setup change', () => {
+  it('when changes are typed in imperial units, then each corner previews from → to and the request carries SI values', async () => {
+    const fetchMock = stub(IMPERIAL_PREFERENCES, {
+      [POST]: ({ body }) => jsonResponse(201, suggestion({ id: (body as { id: string }).id })),
+    });
+    const { router } = renderApp(PATH);
+    const u = userEvent.setup();
+    await fillWords(u);
+
+    // Change 1: front pair camber by −0.5° (degrees need no conversion).
+    await u.click(within(change(1)).getByRole('button', { name: 'Front pair' }));
+    await u.type(within(change(1)).getByLabelText('Change camber by'), '-0.5');
+    const lf = within(within(change(1)).getByRole('group', { name: 'Left front' })).getByRole('button');
+    expect(lf.getAttribute('aria-pressed')).toBe('true');
+    // −1.20° now, −1.70° after, 0.50° less (the base snapshot has −1.2° on the front).
+    expect(lf.textContent).toContain('-1.20°');
+    expect(lf.textContent).toContain('→ -1.70°');
+    expect(lf.textContent).toContain('▼ 0.50°');
+    const lr = within(within(change(1)).getByRole('group', { name: 'Left rear' })).getByRole('button');
+    expect(lr.getAttribute('aria-pressed')).toBe('false');
+
+    // Change 2: all four cold pressures down 1 psi.
+    await u.click(screen.getByRole('button', { name: 'Another change' }));
+    await u.selectOptions(within(change(2)).getByLabelText('What'), 'Cold pressure');
+    await u.click(within(change(2)).getByRole('button', { name: 'All four' }));
+    await u.type(within(change(2)).getByLabelText('Change cold pressure by'), '-1');
+    // The rear has 190 kPa, 27.6 psi; 1 psi less is 26.6 psi.
+    const rr = within(within(change(2)).getByRole('group', { name: 'Right rear' })).getByRole('button');
+    expect(rr.textContent).toContain('→ 26.6 psi');
+
+    await u.click(screen.getByRole('button', { name: 'Send the suggestion' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(1));
+    const body = requestsTo(fetchMock, POST)[0]!.body as {
+      id: string;
+      baseSetupId: string;
+      title: string;
+      changes: { field: string; corners: string[]; delta?: number; value?: number }[];
+    };
+    expect(body.id).toMatch(UUID);
+    expect(body.baseSetupId).toBe(IDS.setupBase);
+    expect(body.title).toBe('More front camber, softer pressures');
+    expect(body.changes[0]).toEqual({ field: 'camberDeg', corners: ['lf', 'rf'], delta: -0.5 });
+    expect(body.changes[1]).toMatchObject({ field: 'coldPressureKpa', corners: ['lf', 'rf', 'lr', 'rr'] });
+    // 1 psi = 6.894 757 kPa (NIST SP 811, 2008, Appendix B.8: pound-force per square inch to pascal, 6.894 757 E+03).
+    expect(body.changes[1]!.delta).toBeCloseTo(-6.894757, 6);
+    expect(body.changes[1]!.value).toBeUndefined();
+
+    // Then the new suggestion's own page.
+    await waitFor(() => expect(router.state.location.pathname).toBe(`/suggestions/${body.id}`));
+  }, 15_000);
+
+  it('when "Set to" is used for clicks, then the value is sent as a whole number of clicks, not a change', async () => {
+    const fetchMock = stub(METRIC_PREFERENCES, {
+      [POST]: ({ body }) => jsonResponse(201, suggestion({ id: (body as { id: string }).id })),
+    });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    await fillWords(u);
+
+    await u.selectOptions(within(change(1)).getByLabelText('What'), 'Rebound clicks');
+    await u.click(within(change(1)).getByRole('button', { name: 'Rear pair' }));
+    await u.click(within(change(1)).getByRole('radio', { name: 'Set to' }));
+    await u.type(within(change(1)).getByLabelText('Set rebound clicks to'), '6');
+    await u.click(screen.getByRole('button', { name: 'Send the suggestion' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(1));
+    expect((requestsTo(fetchMock, POST)[0]!.body as { changes: unknown[] }).changes).toEqual([
+      { field: 'damperReboundClicks', corners: ['lr', 'rr'], value: 6 },
+    ]);
+  });
+
+  it('when the form is sent empty, then nothing goes to the server and each field says what is missing', async () => {
+    const fetchMock = stub(METRIC_PREFERENCES);
+    renderApp(PATH);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Send the suggestion' }));
+
+    expect(await screen.findByText('Give the suggestion a title')).toBeTruthy();
+    expect(screen.getByText('Say why')).toBeTruthy();
+    expect(within(change(1)).getByText('Pick at least one corner')).toBeTruthy();
+    expect(within(change(1)).getByText('Say how much to change it by')).toBeTruthy();
+    expect(screen.getByLabelText('Title').getAttribute('aria-invalid')).toBe('true');
+    expect(requestsTo(fetchMock, POST)).toHaveLength(0);
+  });
+
+  it('when the server refuses with field errors, then each shows beside its own input and the same id is used to send again', async () => {
+    const fetchMock = stub(METRIC_PREFERENCES, {
+      [POST]: [
+        errorResponse(400, 'validation_failed', 'Some fields are not valid.', {
+          title: ['Use at most 120 characters'],
+          'changes.0.delta': ['Camber must be between -10 and 5 °'],
+        }),
+        jsonResponse(201, suggestion()),
+      ],
+    });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    await fillWords(u);
+    await u.click(within(change(1)).getByRole('button', { name: 'All four' }));
+    await u.type(within(change(1)).getByLabelText('Change camber by'), '-12');
+    await u.click(screen.getByRole('button', { name: 'Send the suggestion' }));
+
+    const camberError = await within(change(1)).findByText('Camber must be between -10 and 5 °');
+    const amount = within(change(1)).getByLabelText('Change camber by');
+    expect(amount.getAttribute('aria-invalid')).toBe('true');
+    expect(amount.getAttribute('aria-describedby')).toContain(camberError.id);
+    expect(screen.getByText('Use at most 120 characters')).toBeTruthy();
+    // Not a toast: the form says it.
+    expect(screen.getByText('The server could not take some answers; they are marked below.')).toBeTruthy();
+
+    await u.clear(amount);
+    await u.type(amount, '-2');
+    await u.click(screen.getByRole('button', { name: 'Send the suggestion' }));
+    await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(2));
+    const [first, second] = requestsTo(fetchMock, POST).map((r) => (r.body as { id: string }).id);
+    expect(second).toBe(first);
+  });
+
+  it('shows the caution that such changes follow the maker’s data and are made by someone competent', async () => {
+    stub(METRIC_PREFERENCES);
+    renderApp(PATH);
+    const caution = await screen.findByRole('complementary', { name: 'Caution' });
+    expect(caution.textContent).toMatch(/makers’ data/);
+    expect(caution.textContent).toMatch(/someone competent/);
+  });
+});

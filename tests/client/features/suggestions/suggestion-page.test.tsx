@@ -1,0 +1,146 @@
+// @vitest-environment jsdom
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { Suggestion } from '../../../../shared/collab/suggestion.schema';
+import { dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
+import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { BASE_SETUP, CAR, IDS, list, user, UUID } from '../../fixtures/season';
+import { COLLAB_IDS, SHOP_NAME, staffUser, suggestion } from '../../fixtures/collab';
+
+const PAGE = `/suggestions/${COLLAB_IDS.suggestion}`;
+const GET = `GET /api/suggestions/${COLLAB_IDS.suggestion}`;
+const ACCEPT = `POST /api/suggestions/${COLLAB_IDS.suggestion}/accept`;
+const DECLINE = `POST /api/suggestions/${COLLAB_IDS.suggestion}/decline`;
+
+beforeAll(async () => {
+  await import('@/app/routes/suggestions/suggestion');
+}, 30_000);
+beforeEach(() => dropCsrfToken());
+afterEach(async () => {
+  await clearTestOutboxes();
+  cleanup();
+  clearToasts();
+  vi.unstubAllGlobals();
+});
+
+function stub(me: object, current: () => Suggestion, extra: Parameters<typeof stubFetch>[0] = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: me }),
+    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+    [GET]: () => jsonResponse(200, current()),
+    ...extra,
+  });
+}
+
+const decision = () => screen.getByRole('region', { name: 'Decision' });
+
+describe('a suggestion', () => {
+  it('shows what the shop proposes and why, each corner from → to, and who sent it', async () => {
+    stub(user(), () => suggestion());
+    renderApp(PAGE);
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'More front camber' })).toBeTruthy();
+    expect(screen.getByText(SHOP_NAME)).toBeTruthy();
+    expect(screen.getByText('The outside front edges are wearing faster than the middle.')).toBeTruthy();
+    expect(screen.getByText('Front pair camber: change by −0.50°')).toBeTruthy();
+    const grid = screen.getByRole('group', { name: 'Camber' });
+    const lf = within(grid).getByRole('group', { name: 'Left front' });
+    expect(lf.textContent).toContain('-1.20°');
+    expect(lf.textContent).toContain('→ -1.70°');
+    expect(within(grid).getByRole('group', { name: 'Left rear' }).textContent).toContain('unchanged');
+  });
+
+  it('when a driver accepts it with a time and a label, then the server gets a device-made setup id, and the new setup is one tap away', async () => {
+    let current = suggestion();
+    const fetchMock = stub(user(), () => current, {
+      [ACCEPT]: ({ body }) => {
+        const { setupId } = body as { setupId: string };
+        current = suggestion({ status: 'accepted', acceptedSetupId: setupId, decidedBy: { id: IDS.maren, displayName: 'Maren Holt' }, decidedAt: '2026-06-08T10:00:00.000Z' });
+        return jsonResponse(200, { suggestion: current, setup: { ...BASE_SETUP, id: setupId } });
+      },
+      [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
+    });
+    renderApp(PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await within(await screen.findByRole('region', { name: 'Decision' })).findByRole('button', { name: 'Accept' }));
+    const when = screen.getByLabelText('Takes effect from') as HTMLInputElement;
+    // Now, to the minute, unless the driver says otherwise.
+    expect(when.value).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/);
+    await u.clear(when);
+    await u.type(when, '2026-06-08T09:30');
+    await u.type(screen.getByLabelText('Label for the new setup (optional)'), 'Shop camber');
+    await u.click(screen.getByRole('button', { name: 'Accept and record the setup' }));
+
+    expect(await within(decision()).findByText('Accepted. The new setup is recorded.')).toBeTruthy();
+    const body = requestsTo(fetchMock, ACCEPT)[0]!.body as { setupId: string; effectiveFrom: string; label: string };
+    expect(body.setupId).toMatch(UUID);
+    expect(body.effectiveFrom).toBe(new Date('2026-06-08T09:30').toISOString());
+    expect(body.label).toBe('Shop camber');
+    const link = within(decision()).getByRole('link', { name: 'Open the new setup on the car’s page' });
+    expect(link.getAttribute('href')).toBe(`/cars/${IDS.car}#setup-${body.setupId}`);
+    await waitFor(() => expect(within(decision()).queryByRole('button', { name: 'Accept' })).toBeNull());
+  });
+
+  it('when a driver declines without a note, then nothing is sent and the note is asked for; with one, the shop gets it', async () => {
+    let current = suggestion();
+    const fetchMock = stub(user(), () => current, {
+      [DECLINE]: ({ body }) => {
+        current = suggestion({ status: 'declined', decisionNote: (body as { note: string }).note, decidedBy: { id: IDS.maren, displayName: 'Maren Holt' } });
+        return jsonResponse(200, current);
+      },
+    });
+    renderApp(PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await within(await screen.findByRole('region', { name: 'Decision' })).findByRole('button', { name: 'Decline' }));
+    await u.click(screen.getByRole('button', { name: 'Decline' }));
+    expect(await screen.findByText('Say why, so the shop knows')).toBeTruthy();
+    expect(screen.getByLabelText('Why not?').getAttribute('aria-invalid')).toBe('true');
+    expect(requestsTo(fetchMock, DECLINE)).toHaveLength(0);
+
+    await u.type(screen.getByLabelText('Why not?'), 'Already at the class limit for camber.');
+    await u.click(screen.getByRole('button', { name: 'Decline' }));
+
+    expect(await within(decision()).findByText('Already at the class limit for camber.')).toBeTruthy();
+    expect(requestsTo(fetchMock, DECLINE)[0]?.body).toEqual({ note: 'Already at the class limit for camber.' });
+    expect(within(decision()).getByText(/Declined by Maren Holt/)).toBeTruthy();
+  });
+
+  it('when accepting is refused with a field error, then it shows on its field', async () => {
+    stub(user(), () => suggestion(), {
+      [ACCEPT]: errorResponse(400, 'validation_failed', 'Some fields are not valid.', { effectiveFrom: ['Pick a time after the base setup'] }),
+    });
+    renderApp(PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await within(await screen.findByRole('region', { name: 'Decision' })).findByRole('button', { name: 'Accept' }));
+    await u.click(screen.getByRole('button', { name: 'Accept and record the setup' }));
+
+    expect(await screen.findByText('Pick a time after the base setup')).toBeTruthy();
+    expect(screen.getByLabelText('Takes effect from').getAttribute('aria-invalid')).toBe('true');
+  });
+
+  it('when shop staff open a declined suggestion, then they see the status and the driver’s note, and no accept or decline', async () => {
+    stub(staffUser(), () =>
+      suggestion({ status: 'declined', decisionNote: 'Already at the class limit.', decidedBy: { id: IDS.maren, displayName: 'Maren Holt' }, decidedAt: '2026-06-08T10:00:00.000Z' }),
+    );
+    renderApp(PAGE);
+
+    await screen.findByRole('heading', { level: 1, name: 'More front camber' });
+    expect(within(decision()).getByText('Declined')).toBeTruthy();
+    expect(within(decision()).getByText('Already at the class limit.')).toBeTruthy();
+    expect(within(decision()).queryByRole('button', { name: /Accept|Decline/ })).toBeNull();
+  });
+
+  it('when shop staff open an open suggestion, then it waits for the drivers and offers them nothing to press', async () => {
+    stub(staffUser(), () => suggestion());
+    renderApp(PAGE);
+
+    await screen.findByRole('heading', { level: 1, name: 'More front camber' });
+    await waitFor(() => expect(within(decision()).getByText('The car’s drivers have not decided yet.')).toBeTruthy());
+    expect(within(decision()).queryByRole('button')).toBeNull();
+  });
+});
