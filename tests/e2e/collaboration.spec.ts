@@ -1,0 +1,139 @@
+import { afterAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import type { MailboxMessage } from '@shared/collab/mailbox.schema';
+import { openPhone, screenshot } from './browser';
+
+/**
+ * The demo shop reviews a customer's season and suggests a change; the driver hears of it
+ * and accepts; the e-mail is caught by the local mail server; the team captain reads the
+ * class board. Every step at phone size, as each person would do it.
+ */
+const baseUrl = inject('baseUrl');
+const PASSWORD = 'cold-tyres-warm-coffee';
+const TITLE = 'Half a degree more front camber';
+
+let phone: Awaited<ReturnType<typeof openPhone>> | undefined;
+
+afterAll(async () => {
+  await phone?.close();
+});
+
+/** Each person on their own phone: a fresh browser profile, so nothing of the last person is cached. */
+async function signInAs(email: string, name: string): Promise<Page> {
+  await phone?.close();
+  phone = await openPhone();
+  const page = phone.page;
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: `Hi, ${name}` }).waitFor({ timeout: 20_000 });
+  return page;
+}
+
+describe('a shop reviews a customer, the driver accepts its suggestion, the captain reads the board (390×844)', () => {
+  it('when the shop opens a customer, comments on a run and suggests more front camber, then the suggestion is sent', async () => {
+    const page = await signInAs('dusty@example.com', 'Dusty Okonjo');
+    await page.getByRole('link', { name: /Your shop/ }).first().click();
+    await page.getByRole('link', { name: /Pebble/ }).first().click();
+    await page.getByRole('heading', { name: 'Setup history' }).waitFor({ timeout: 20_000 });
+
+    // The newest event's runs, and a comment on its first run.
+    const events = page.getByRole('list', { name: 'Events, newest first' });
+    await events.getByRole('button', { name: 'Runs and comments' }).first().click();
+    const runs = events.getByRole('list', { name: /^Runs at / }).first();
+    await runs.getByRole('button', { name: /Comments.* on run 1$/ }).first().click();
+    const form = runs.getByRole('form', { name: 'Write a comment' }).first();
+    await form.getByLabel('Add a comment').fill('Fronts are still going off on the outer shoulder by the last run.');
+    await form.getByRole('button', { name: 'Send' }).click();
+    await runs.getByText('Kettle Lane Chassis Works').first().waitFor({ timeout: 15_000 });
+    await screenshot(page, 'shop-customer-comment');
+
+    // A suggestion against the setup in force now: the first in the history.
+    await page.getByRole('link', { name: 'Suggest a change' }).first().click();
+    const suggest = page.getByRole('form', { name: 'Suggest a setup change' });
+    await suggest.getByLabel('Title').fill(TITLE);
+    await suggest.getByLabel('Why').fill('The outer shoulders of both fronts wear faster than the inners since the arms went on.');
+    await suggest.getByLabel('What').selectOption('camberDeg');
+    await suggest.getByRole('button', { name: 'Front pair' }).click();
+    await suggest.getByLabel(/Change camber by/).fill('-0.5');
+    await screenshot(page, 'shop-suggestion-form');
+    await suggest.getByRole('button', { name: 'Send the suggestion' }).click();
+    await page.getByRole('heading', { name: TITLE }).waitFor({ timeout: 15_000 });
+    await screenshot(page, 'shop-suggestion-sent');
+  });
+
+  it('when the driver signs in, then the bell counts the news, and accepting the suggestion records a new setup', async () => {
+    const page = await signInAs('maren@example.com', 'Maren Holloway');
+    const bell = page.getByRole('link', { name: /^\d+ unread notifications?$/ });
+    await bell.waitFor({ timeout: 20_000 });
+    const unread = Number((await bell.getAttribute('aria-label'))!.split(' ')[0]);
+    // The run comment and the suggestion: one each.
+    expect(unread).toBeGreaterThanOrEqual(2);
+    await screenshot(page, 'driver-unread-bell');
+
+    await bell.click();
+    await page.getByRole('heading', { name: 'Notifications' }).waitFor();
+    await screenshot(page, 'driver-notifications');
+    await page.getByRole('button', { name: /suggest/i }).first().click();
+    await page.getByRole('heading', { name: TITLE }).waitFor({ timeout: 15_000 });
+
+    await page.getByRole('button', { name: 'Accept', exact: true }).click();
+    const accept = page.getByRole('form', { name: 'Accept the suggestion' });
+    await accept.getByRole('button', { name: 'Accept and record the setup' }).click();
+    await page.getByText('Accepted. The new setup is recorded.').waitFor({ timeout: 15_000 });
+    await screenshot(page, 'driver-suggestion-accepted');
+
+    // The new snapshot is on the car, linked to the suggestion, with the front camber 0.5° more negative.
+    const { carId, setups } = await page.evaluate(async () => {
+      const cars = await (await fetch('/api/cars')).json();
+      const carId = (cars.items as { id: string; name: string }[]).find((c) => c.name === 'Pebble')!.id;
+      return { carId, setups: (await (await fetch(`/api/cars/${carId}/setups`)).json()).items };
+    });
+    type SetupRow = { id: string; derivedFromId: string | null; suggestion: { title: string } | null; corners: Record<string, { camberDeg?: number | null }> };
+    const made = (setups as SetupRow[]).find((s) => s.suggestion?.title === TITLE)!;
+    expect(made).toBeTruthy();
+    const before = (setups as SetupRow[]).find((s) => s.id === made.derivedFromId)!;
+    for (const corner of ['lf', 'rf']) {
+      expect(made.corners[corner]!.camberDeg!).toBeCloseTo(before.corners[corner]!.camberDeg! - 0.5, 6);
+    }
+    expect(made.corners.lr!.camberDeg).toBe(before.corners.lr!.camberDeg);
+
+    await page.goto(`${baseUrl}/cars/${carId}`);
+    const badge = page.getByRole('link', { name: `from Kettle Lane Chassis Works: ${TITLE}` });
+    await badge.waitFor({ timeout: 15_000 });
+    await badge.scrollIntoViewIfNeeded();
+    await screenshot(page, 'driver-setup-from-suggestion');
+  });
+
+  it('when the mailbox is opened, then the notification e-mails to the driver are there, with text, HTML and a way to stop them', async () => {
+    const page = phone!.page;
+    const messages: MailboxMessage[] = await page.evaluate(async () => (await (await fetch('/api/dev/mailbox?to=maren@example.com')).json()).items);
+    const suggestion = messages.find((m) => m.subject === 'A setup suggestion for Pebble');
+    expect(suggestion, messages.map((m) => m.subject).join(' | ')).toBeTruthy();
+    expect(suggestion!.text).toContain(TITLE);
+    expect(suggestion!.html).toContain('Stop these e-mails');
+    expect(messages.some((m) => m.subject === 'New comment on Pebble')).toBe(true);
+
+    await page.goto(`${baseUrl}/dev/mailbox`);
+    await page.getByText('A setup suggestion for Pebble').first().waitFor({ timeout: 15_000 });
+    await screenshot(page, 'dev-mailbox');
+  });
+
+  it('when the captain opens the class board, then both demo cars are there, each in its class', async () => {
+    const page = await signInAs('ines@example.com', 'Ines Brandvold');
+    await page.goto(`${baseUrl}/teams`);
+    await page.getByRole('link', { name: /board/i }).first().click();
+    await page.getByRole('heading', { name: 'Class board' }).waitFor({ timeout: 20_000 });
+    const sr = page.getByRole('region', { name: 'Class SR' });
+    const sh = page.getByRole('region', { name: 'Class SH' });
+    await sr.getByText('Pebble').first().waitFor({ timeout: 20_000 });
+    await sh.getByText('Biscuit Tin').first().waitFor();
+    // Pebble shares its setup; Biscuit Tin shares results only.
+    await sr.getByRole('table', { name: 'Setup of Pebble' }).waitFor();
+    await sh.getByText(/setup not shared/i).first().waitFor();
+    const sideways = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(sideways).toBeLessThanOrEqual(0);
+    await screenshot(page, 'captain-class-board');
+  });
+});
