@@ -39,6 +39,7 @@ describe('POST /api/runs', () => {
       adjustedTimeSec: 45.678,
       pctOffBest: 0,
       isBest: true,
+      commentCount: 0,
       version: 1,
       createdAt: expect.any(String),
       updatedAt: expect.any(String),
