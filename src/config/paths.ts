@@ -35,9 +35,7 @@ export const pathTo = {
     `/cars/${carId}/suggestions/new${baseSetupId ? `?from=${encodeURIComponent(baseSetupId)}` : ''}`,
   suggestion: (suggestionId: string) => `/suggestions/${suggestionId}`,
   team: (teamId: string) => `/teams/${teamId}`,
-  classBoard: (teamId: string, season?: number) => `/teams/${teamId}/board${season ? `?season=${season}` : ''}`,
-  invitation: (token: string) => `/invitations/${encodeURIComponent(token)}`,
-  unsubscribe: (token: string) => `/unsubscribe/${encodeURIComponent(token)}`,
+  classBoard: (teamId: string) => `/teams/${teamId}/board`,
   event: (eventId: string, carId?: string | null) =>
     `/events/${eventId}${carId ? `?carId=${encodeURIComponent(carId)}` : ''}`,
 };

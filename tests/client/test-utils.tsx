@@ -1,12 +1,13 @@
 import { memoryStorage, Outbox, type OutboxEntry } from '../../src/lib/outbox';
 import { outboxMutationKey } from '@/lib/outbox-context';
-import { api } from '@/lib/api-client';
+import { api, dropCsrfToken } from '@/lib/api-client';
+import { clearToasts } from '@/lib/toast-store';
 import { classifySendError, OUTBOX_KINDS } from '@/app/outbox';
-import { configure, render } from '@testing-library/react';
+import { cleanup, configure, render } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
 import { createMemoryRouter } from 'react-router-dom';
-import { vi, type Mock } from 'vitest';
+import { afterEach, beforeAll, beforeEach, vi, type Mock } from 'vitest';
 import { AppProvider } from '@/app/provider';
 import { createQueryClient } from '@/app/query-client';
 import { createRoutes, sendToSignIn } from '@/app/router';
@@ -23,6 +24,9 @@ export interface RecordedRequest {
 }
 
 type Answer = Response | ((request: RecordedRequest) => Response | Promise<Response>);
+
+/** A fake server's answers, keyed "METHOD /path" (see stubFetch). */
+export type StubRoutes = Record<string, Answer | Answer[]>;
 
 export function jsonResponse(status: number, body?: unknown): Response {
   return new Response(body === undefined ? null : JSON.stringify(body), {
@@ -42,14 +46,17 @@ export function errorResponse(
 
 export const CSRF_TOKEN = 'token-1';
 
+/** GET /api/auth/me when nobody is signed in. */
+export const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
+
 /**
  * Stubs the global fetch with answers keyed "METHOD /path". An array is answered in order
  * (the last one repeats). GET /api/auth/csrf answers a token and GET /api/notifications/unread-count
  * answers 0 unless given. Unknown routes fail the test.
  */
-export function stubFetch(routes: Record<string, Answer | Answer[]>): Mock<typeof fetch> {
+export function stubFetch(routes: StubRoutes): Mock<typeof fetch> {
   const calls = new Map<string, number>();
-  const all: Record<string, Answer | Answer[]> = {
+  const all: StubRoutes = {
     'GET /api/auth/csrf': () => jsonResponse(200, { token: CSRF_TOKEN }),
     // The bell in the top bar asks on every signed-in page.
     'GET /api/notifications/unread-count': () => jsonResponse(200, { unread: 0 }),
@@ -104,6 +111,32 @@ const liveOutboxes = new Set<Outbox>();
 export async function clearTestOutboxes(): Promise<void> {
   await Promise.all([...liveOutboxes].map((o) => o.clear()));
   liveOutboxes.clear();
+}
+
+export interface AppTestOptions {
+  /** Also empty localStorage after each test (for pages that remember a choice there). */
+  clearLocalStorage?: boolean;
+}
+
+/**
+ * The hooks of a test file that renders the app: the given pages loaded once, in order, before
+ * the first test (pages load lazily; otherwise the first test spends its wait compiling), a fresh
+ * CSRF token for each test, and after each test its outboxes, screen, toasts and stubbed fetch gone.
+ */
+export function setUpAppTests(pages: readonly (() => Promise<unknown>)[] = [], { clearLocalStorage = false }: AppTestOptions = {}): void {
+  if (pages.length > 0) {
+    beforeAll(async () => {
+      for (const load of pages) await load();
+    }, 30_000);
+  }
+  beforeEach(() => dropCsrfToken());
+  afterEach(async () => {
+    await clearTestOutboxes();
+    cleanup();
+    clearToasts();
+    if (clearLocalStorage) localStorage.clear();
+    vi.unstubAllGlobals();
+  });
 }
 
 /**

@@ -5,10 +5,9 @@ import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { api, dropCsrfToken, NETWORK_MESSAGE } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
-import { errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../test-utils';
+import { errorResponse, jsonResponse, renderApp, requestsTo, SIGNED_OUT, stubFetch } from '../test-utils';
 
 const SAM = { id: 'u1', email: 'sam@example.test', displayName: 'Sam Okafor', roles: ['driver', 'team_captain'], preferences: { units: METRIC_PREFERENCES } };
-const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
 
 beforeEach(() => dropCsrfToken());
 afterEach(() => {

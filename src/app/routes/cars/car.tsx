@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { ArrowLeft, ChartScatter, Plus, Ruler } from 'lucide-react';
+import { ChartScatter, Plus, Ruler } from 'lucide-react';
 import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
 import { Button, buttonClasses } from '@/components/ui/button';
@@ -9,6 +9,7 @@ import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCar } from '@/features/cars/api/get-car';
+import { CarHeader } from '@/features/cars/components/car-header';
 import { CoDrivers } from '@/features/cars/components/co-drivers';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupTimeline } from '@/features/setups/components/setup-timeline';
@@ -85,34 +86,24 @@ export function CarPage() {
   return (
     <div className="flex flex-col gap-6">
       <title>{`${car?.name ?? 'Car'} · Scrubline`}</title>
-      <div className="flex flex-col gap-2">
-        <Link to={paths.cars} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
-          <ArrowLeft aria-hidden="true" className="size-4" /> Cars
+      <CarHeader
+        car={car}
+        isPending={isPending}
+        isError={isError}
+        back={{ to: paths.cars, label: 'Cars' }}
+        about={(c) => <>driven by {[c.owner, ...c.coDrivers].map((p) => p.displayName).join(', ')}</>}
+        errorText="This car could not be loaded."
+      >
+        <Link to={pathTo.newSetup(carId)} className={buttonClasses('primary')}>
+          <Plus aria-hidden="true" className="size-5" /> New setup
         </Link>
-        <h1 className="text-3xl font-extrabold">
-          {car ? car.name : isPending ? 'Loading…' : 'Car'}
-          {car?.carNumber ? <span className="tabular-figures text-ink-muted"> #{car.carNumber}</span> : null}
-        </h1>
-        {car ? (
-          <p className="text-ink-muted">
-            Class {car.classCode}
-            {car.tyreSize ? ` · ${car.tyreSize}` : ''} · driven by {[car.owner, ...car.coDrivers].map((p) => p.displayName).join(', ')}
-          </p>
-        ) : isError ? (
-          <p className="text-ink-muted">This car could not be loaded.</p>
-        ) : null}
-        <div className="flex flex-wrap gap-2 pt-2">
-          <Link to={pathTo.newSetup(carId)} className={buttonClasses('primary')}>
-            <Plus aria-hidden="true" className="size-5" /> New setup
-          </Link>
-          <Link to={pathTo.tread(carId)} className={buttonClasses('secondary')}>
-            <Ruler aria-hidden="true" className="size-5" /> Enter tread
-          </Link>
-          <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
-            <ChartScatter aria-hidden="true" className="size-5" /> Season review
-          </Link>
-        </div>
-      </div>
+        <Link to={pathTo.tread(carId)} className={buttonClasses('secondary')}>
+          <Ruler aria-hidden="true" className="size-5" /> Enter tread
+        </Link>
+        <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
+          <ChartScatter aria-hidden="true" className="size-5" /> Season review
+        </Link>
+      </CarHeader>
       <div className="grid gap-4 lg:grid-cols-2">
         <SectionBoundary title="Setup history">
           <SectionCard title="Setup history">

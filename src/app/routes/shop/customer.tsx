@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { ArrowLeft, ChartScatter, ChevronDown, ChevronRight } from 'lucide-react';
+import { ChartScatter, ChevronDown, ChevronRight } from 'lucide-react';
 import type { SeasonResult } from '@shared/analysis/analysis.schema';
 import { formatRunTime } from '@shared/season/run-time';
 import { paths, pathTo } from '@/config/paths';
@@ -11,6 +11,7 @@ import { SectionBoundary } from '@/components/errors/section-boundary';
 import { formatDay } from '@/lib/dates';
 import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-season';
 import { useCar } from '@/features/cars/api/get-car';
+import { CarHeader } from '@/features/cars/components/car-header';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { useRuns } from '@/features/runs/api/get-runs';
 import { STATUS_WORDS } from '@/features/runs/utils/run-words';
@@ -134,30 +135,24 @@ export function CustomerPage() {
   return (
     <div className="flex flex-col gap-6">
       <title>{`${car?.name ?? 'Customer'} · Scrubline`}</title>
-      <div className="flex flex-col gap-2">
-        <Link to={paths.shop} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
-          <ArrowLeft aria-hidden="true" className="size-4" /> Shop
+      <CarHeader
+        car={car}
+        isPending={isPending}
+        isError={isError}
+        back={{ to: paths.shop, label: 'Shop' }}
+        about={(c) => (
+          <>
+            {c.owner.displayName}’s car
+            {c.coDrivers.length ? `, also driven by ${c.coDrivers.map((p) => p.displayName).join(', ')}` : ''}. Read only: the drivers
+            record runs and setups; you comment and suggest.
+          </>
+        )}
+        errorText="This car could not be loaded. Its owner may have taken your shop’s access away."
+      >
+        <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
+          <ChartScatter aria-hidden="true" className="size-5" /> Season review
         </Link>
-        <h1 className="text-3xl font-extrabold">
-          {car ? car.name : isPending ? 'Loading…' : 'Car'}
-          {car?.carNumber ? <span className="tabular-figures text-ink-muted"> #{car.carNumber}</span> : null}
-        </h1>
-        {car ? (
-          <p className="text-ink-muted">
-            Class {car.classCode}
-            {car.tyreSize ? ` · ${car.tyreSize}` : ''} · {car.owner.displayName}’s car
-            {car.coDrivers.length ? `, also driven by ${car.coDrivers.map((p) => p.displayName).join(', ')}` : ''}. Read only: the
-            drivers record runs and setups; you comment and suggest.
-          </p>
-        ) : isError ? (
-          <p className="text-ink-muted">This car could not be loaded. Its owner may have taken your shop’s access away.</p>
-        ) : null}
-        <div className="flex flex-wrap gap-2 pt-2">
-          <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
-            <ChartScatter aria-hidden="true" className="size-5" /> Season review
-          </Link>
-        </div>
-      </div>
+      </CarHeader>
       <div className="grid gap-4 lg:grid-cols-2">
         <div className="flex flex-col gap-4">
           <SectionBoundary title="Suggestions">

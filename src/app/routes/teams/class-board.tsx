@@ -1,12 +1,10 @@
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { ArrowLeft } from 'lucide-react';
-import { paths, pathTo } from '@/config/paths';
-import { buttonClasses } from '@/components/ui/button';
-import { PageMessage } from '@/components/ui/page-message';
-import { isApiError } from '@/lib/api-client';
+import { pathTo } from '@/config/paths';
 import { useBoard } from '@/features/teams/api/get-board';
 import { ClassBoardView } from '@/features/teams/components/class-board';
 import { SeasonPicker } from '@/features/teams/components/season-picker';
+import { TeamUnavailable } from '@/features/teams/components/team-unavailable';
 import { currentSeason, parseSeason } from '@/features/teams/utils/board-format';
 
 /** The team's class board for a season (`?season=2026`; without it, the server's current season). */
@@ -18,22 +16,7 @@ export function ClassBoardPage() {
   const season = asked ?? board?.season ?? currentSeason();
 
   if (isPending) return <p className="text-ink-muted">Loading the class board…</p>;
-  if (!board) {
-    const notFound = isApiError(error) && (error.status === 404 || error.status === 403);
-    return (
-      <PageMessage
-        variant="in-shell"
-        title={notFound ? 'Team not found' : 'The class board did not load'}
-        actions={
-          <Link to={paths.teams} className={buttonClasses('secondary')}>
-            Your teams
-          </Link>
-        }
-      >
-        <p>{notFound ? 'This team does not exist, or you are not one of its members.' : isApiError(error) ? error.message : 'Try again shortly.'}</p>
-      </PageMessage>
-    );
-  }
+  if (!board) return <TeamUnavailable error={error} failedTitle="The class board did not load" />;
 
   return (
     <div className="flex min-w-0 flex-col gap-6">

@@ -4,10 +4,8 @@ import { ArrowLeft, Trophy } from 'lucide-react';
 import type { Team } from '@shared/collab/team.schema';
 import { paths, pathTo } from '@/config/paths';
 import { buttonClasses } from '@/components/ui/button';
-import { PageMessage } from '@/components/ui/page-message';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
-import { isApiError } from '@/lib/api-client';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCars } from '@/features/cars/api/get-cars';
 import { useTeam } from '@/features/teams/api/get-team';
@@ -17,6 +15,7 @@ import { FactorsEditor } from '@/features/teams/components/factors-form';
 import { InviteForm, PendingInvitations } from '@/features/teams/components/invite-form';
 import { LeaveTeam, MemberList } from '@/features/teams/components/member-list';
 import { CaptainMarker } from '@/features/teams/components/team-list';
+import { TeamUnavailable } from '@/features/teams/components/team-unavailable';
 
 /** The user's own cars not yet on the team: co-driven cars are their owners' to enter. */
 function EnterCarSection({ team, currentUserId }: { team: Team; currentUserId: string }) {
@@ -37,22 +36,7 @@ export function TeamPage() {
 
   if (!me) return null;
   if (isPending) return <p className="text-ink-muted">Loading the team…</p>;
-  if (!team) {
-    const notFound = isApiError(error) && (error.status === 404 || error.status === 403);
-    return (
-      <PageMessage
-        variant="in-shell"
-        title={notFound ? 'Team not found' : 'The team did not load'}
-        actions={
-          <Link to={paths.teams} className={buttonClasses('secondary')}>
-            Your teams
-          </Link>
-        }
-      >
-        <p>{notFound ? 'This team does not exist, or you are not one of its members.' : isApiError(error) ? error.message : 'Try again shortly.'}</p>
-      </PageMessage>
-    );
-  }
+  if (!team) return <TeamUnavailable error={error} failedTitle="The team did not load" />;
 
   const entryClasses = [...new Set(team.entries.map((e) => e.classCode))];
   return (

@@ -1,115 +1,60 @@
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type * as z from '@shared/zod';
 import { UserMinus, UserPlus } from 'lucide-react';
 import { addCoDriverInputSchema, type Car, type Person } from '@shared/season/car.schema';
-import { Button } from '@/components/ui/button';
-import { Dialog } from '@/components/ui/dialog';
-import { FormAlert } from '@/components/ui/form-alert';
-import { TextField } from '@/components/ui/text-field';
+import { ConfirmButton } from '@/components/dialogs/confirm-button';
+import { EmailInviteForm } from '@/components/forms/email-invite-form';
 import { useOnlineStatus } from '@/hooks/use-online-status';
 import { isApiError } from '@/lib/api-client';
-import { applyServerErrors } from '@/lib/form-errors';
-import { useAddCoDriver, type AddCoDriverInput } from '../api/add-co-driver';
+import { useAddCoDriver } from '../api/add-co-driver';
 import { useRemoveCoDriver } from '../api/remove-co-driver';
 
 const NEEDS_SIGNAL = 'This needs a connection: the server has to find the account. Try again when you have signal.';
 
-/** What went wrong with an online write, in words for the form. */
-function failureText(error: unknown): string | null {
-  if (isApiError(error) && error.code === 'network') return NEEDS_SIGNAL;
-  return null;
+/** What went wrong removing someone, in words for the dialog. */
+function failureText(error: unknown): string {
+  if (!isApiError(error)) return 'Something went wrong; try again.';
+  return error.code === 'network' ? NEEDS_SIGNAL : error.message;
 }
 
 function AddCoDriverForm({ carId, knownIds }: { carId: string; knownIds: readonly string[] }) {
   const add = useAddCoDriver(carId);
   const online = useOnlineStatus();
-  const [formError, setFormError] = useState<string | null>(null);
-  const [added, setAdded] = useState<string | null>(null);
-  const { register, handleSubmit, setError, reset, formState } = useForm<z.input<typeof addCoDriverInputSchema>, unknown, AddCoDriverInput>({
-    resolver: zodResolver(addCoDriverInputSchema),
-    defaultValues: { email: '' },
-  });
-
-  const onSubmit = handleSubmit((input) => {
-    setFormError(null);
-    setAdded(null);
-    add.mutate(input, {
-      onSuccess: (car) => {
-        const person = car.coDrivers.find((p) => !knownIds.includes(p.id));
-        setAdded(person ? `${person.displayName} can now drive this car.` : 'That person already co-drives this car.');
-        reset({ email: '' });
-      },
-      onError: (error) => setFormError(failureText(error) ?? applyServerErrors(error, setError, ['email'])),
-    });
-  });
-
   return (
-    <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Add a co-driver" className="flex flex-col gap-3">
-      <TextField
-        label="Co-driver’s e-mail"
-        hint="They need a Scrubline account. They will see this car’s season and can log runs in it."
-        type="email"
-        inputMode="email"
-        autoComplete="off"
-        autoCapitalize="none"
-        autoCorrect="off"
-        spellCheck={false}
-        error={formState.errors.email?.message}
-        {...register('email', { onChange: () => setAdded(null) })}
-      />
-      {!online ? <p className="text-sm text-ink-muted">You seem to be offline; adding a co-driver needs a connection.</p> : null}
-      <FormAlert message={formError} />
-      <p role="status" className="text-sm font-semibold text-success">
-        {added}
-      </p>
-      <div>
-        <Button type="submit" variant="secondary" isPending={add.isPending} pendingLabel="Adding…">
-          <UserPlus aria-hidden="true" className="size-5" /> Add co-driver
-        </Button>
-      </div>
-    </form>
+    <EmailInviteForm
+      label="Add a co-driver"
+      emailLabel="Co-driver’s e-mail"
+      emailHint="They need a Scrubline account. They will see this car’s season and can log runs in it."
+      schema={addCoDriverInputSchema}
+      defaultValues={{ email: '' }}
+      mutation={add}
+      doneText={(_input, car) => {
+        const person = car.coDrivers.find((p) => !knownIds.includes(p.id));
+        return person ? `${person.displayName} can now drive this car.` : 'That person already co-drives this car.';
+      }}
+      offlineText={NEEDS_SIGNAL}
+      submitLabel="Add co-driver"
+      submitIcon={UserPlus}
+      pendingLabel="Adding…"
+    >
+      {() => (!online ? <p className="text-sm text-ink-muted">You seem to be offline; adding a co-driver needs a connection.</p> : null)}
+    </EmailInviteForm>
   );
 }
 
 function RemoveCoDriver({ carId, person }: { carId: string; person: Person }) {
   const remove = useRemoveCoDriver(carId);
-  const [open, setOpen] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const onOpenChange = (next: boolean) => {
-    setOpen(next);
-    if (!next) setError(null);
-  };
-  const confirm = () => {
-    setError(null);
-    remove.mutate(person.id, {
-      onSuccess: () => setOpen(false),
-      onError: (e) => setError(failureText(e) ?? (isApiError(e) ? e.message : 'Something went wrong; try again.')),
-    });
-  };
   return (
-    <>
-      <Button variant="quiet" className="shrink-0" onClick={() => onOpenChange(true)}>
-        <UserMinus aria-hidden="true" className="size-5" /> Remove<span className="sr-only"> {person.displayName}</span>
-      </Button>
-      <Dialog
-        open={open}
-        onOpenChange={onOpenChange}
-        title={`Remove ${person.displayName}?`}
-        description="They will no longer see this car or log runs in it. You can add them again later."
-      >
-        <FormAlert message={error} />
-        <div className="flex flex-wrap gap-3">
-          <Button onClick={confirm} isPending={remove.isPending} pendingLabel="Removing…">
-            Remove co-driver
-          </Button>
-          <Button variant="secondary" onClick={() => onOpenChange(false)}>
-            Keep
-          </Button>
-        </div>
-      </Dialog>
-    </>
+    <ConfirmButton
+      title={`Remove ${person.displayName}?`}
+      description="They will no longer see this car or log runs in it. You can add them again later."
+      confirmLabel="Remove co-driver"
+      pendingLabel="Removing…"
+      keepLabel="Keep"
+      isPending={remove.isPending}
+      onConfirm={(handlers) => remove.mutate(person.id, handlers)}
+      failureText={failureText}
+    >
+      <UserMinus aria-hidden="true" className="size-5" /> Remove<span className="sr-only"> {person.displayName}</span>
+    </ConfirmButton>
   );
 }
 

@@ -1,8 +1,8 @@
 import { useId, useState } from 'react';
 import { Search } from 'lucide-react';
 import type { ShopGrant, ShopSummary } from '@shared/collab/shop.schema';
+import { ConfirmButton } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
-import { Dialog } from '@/components/ui/dialog';
 import { FormAlert } from '@/components/ui/form-alert';
 import { isApiError } from '@/lib/api-client';
 import { formatDay } from '@/lib/dates';
@@ -22,41 +22,19 @@ function failureText(error: unknown): string {
 
 function RevokeShop({ carId, shop }: { carId: string; shop: ShopSummary }) {
   const revoke = useRevokeShop(carId);
-  const [open, setOpen] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const onOpenChange = (next: boolean) => {
-    setOpen(next);
-    if (!next) setError(null);
-  };
   return (
-    <>
-      <Button variant="quiet" className="shrink-0" onClick={() => onOpenChange(true)}>
-        Revoke<span className="sr-only"> {shop.name}</span>
-      </Button>
-      <Dialog
-        open={open}
-        onOpenChange={onOpenChange}
-        title={`Revoke ${shop.name}’s access?`}
-        description="Its staff will no longer see this car’s season, comment or suggest setups. Their past comments and suggestions stay. You can let the shop in again later."
-      >
-        <FormAlert message={error} />
-        <div className="flex flex-wrap gap-3">
-          <Button
-            isPending={revoke.isPending}
-            pendingLabel="Revoking…"
-            onClick={() => {
-              setError(null);
-              revoke.mutate(shop.id, { onSuccess: () => setOpen(false), onError: (e) => setError(failureText(e)) });
-            }}
-          >
-            Revoke access
-          </Button>
-          <Button variant="secondary" onClick={() => onOpenChange(false)}>
-            Keep
-          </Button>
-        </div>
-      </Dialog>
-    </>
+    <ConfirmButton
+      title={`Revoke ${shop.name}’s access?`}
+      description="Its staff will no longer see this car’s season, comment or suggest setups. Their past comments and suggestions stay. You can let the shop in again later."
+      confirmLabel="Revoke access"
+      pendingLabel="Revoking…"
+      keepLabel="Keep"
+      isPending={revoke.isPending}
+      onConfirm={(handlers) => revoke.mutate(shop.id, handlers)}
+      failureText={failureText}
+    >
+      Revoke<span className="sr-only"> {shop.name}</span>
+    </ConfirmButton>
   );
 }
 

@@ -21,14 +21,25 @@ function problemsOf(error: unknown): { fields: Errors; form: string | null } {
   return { fields, form: error.hasFieldErrors ? null : error.message };
 }
 
+/** A form's field messages and its message for the whole form, and how a failed decision fills them. */
+function useProblems() {
+  const [errors, setErrors] = useState<Errors>({});
+  const [formError, setFormError] = useState<string | null>(null);
+  const showFailure = (error: unknown) => {
+    const { fields, form } = problemsOf(error);
+    setErrors(fields);
+    setFormError(form);
+  };
+  return { errors, setErrors, formError, setFormError, showFailure };
+}
+
 function AcceptForm({ suggestion, onCancel, onAccepted }: { suggestion: Suggestion; onCancel: () => void; onAccepted: (setupId: string) => void }) {
   const accept = useAcceptSuggestion(suggestion);
   // The new snapshot's id, made once: pressing again after a lost answer never records a second setup.
   const [setupId] = useState(() => crypto.randomUUID());
   const [when, setWhen] = useState(() => toLocalInputValue(new Date()));
   const [label, setLabel] = useState('');
-  const [errors, setErrors] = useState<Errors>({});
-  const [formError, setFormError] = useState<string | null>(null);
+  const { errors, setErrors, formError, setFormError, showFailure } = useProblems();
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -41,14 +52,7 @@ function AcceptForm({ suggestion, onCancel, onAccepted }: { suggestion: Suggesti
     setErrors({});
     accept.mutate(
       { setupId, effectiveFrom, ...(label.trim() ? { label: label.trim() } : {}) },
-      {
-        onSuccess: () => onAccepted(setupId),
-        onError: (error) => {
-          const { fields, form } = problemsOf(error);
-          setErrors(fields);
-          setFormError(form);
-        },
-      },
+      { onSuccess: () => onAccepted(setupId), onError: showFailure },
     );
   };
 
@@ -87,8 +91,7 @@ function AcceptForm({ suggestion, onCancel, onAccepted }: { suggestion: Suggesti
 function DeclineForm({ suggestion, onCancel }: { suggestion: Suggestion; onCancel: () => void }) {
   const decline = useDeclineSuggestion(suggestion);
   const [note, setNote] = useState('');
-  const [errors, setErrors] = useState<Errors>({});
-  const [formError, setFormError] = useState<string | null>(null);
+  const { errors, setErrors, formError, setFormError, showFailure } = useProblems();
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -98,16 +101,7 @@ function DeclineForm({ suggestion, onCancel }: { suggestion: Suggestion; onCance
       return;
     }
     setErrors({});
-    decline.mutate(
-      { note: note.trim() },
-      {
-        onError: (error) => {
-          const { fields, form } = problemsOf(error);
-          setErrors(fields);
-          setFormError(form);
-        },
-      },
-    );
+    decline.mutate({ note: note.trim() }, { onError: showFailure });
   };
 
   return (

@@ -1,6 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { Pencil } from 'lucide-react';
 import type { Team, TeamEntry, TeamSharing } from '@shared/collab/team.schema';
+import { ConfirmButton } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { FormAlert } from '@/components/ui/form-alert';
@@ -8,9 +9,8 @@ import { TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
 import { useUpdateEntry } from '../api/update-entry';
 import { useWithdrawEntry } from '../api/withdraw-entry';
-import { onlineFailure } from '../utils/online-failure';
+import { failureMessage, onlineFailure } from '../utils/online-failure';
 import { SHARING_LABELS } from '../utils/team-words';
-import { ConfirmButton } from './confirm-button';
 import { SharingChoice } from './sharing-choice';
 
 const carName = (entry: TeamEntry) => `${entry.car.name}${entry.car.carNumber ? ` #${entry.car.carNumber}` : ''}`;
@@ -75,6 +75,7 @@ function EditEntry({ teamId, entry, onDone }: { teamId: string; entry: TeamEntry
           keepLabel="Keep it entered"
           isPending={withdraw.isPending}
           onConfirm={(handlers) => withdraw.mutate(entry.car.id, handlers)}
+          failureText={failureMessage}
         >
           Withdraw<span className="sr-only"> {carName(entry)}</span>
         </ConfirmButton>

@@ -1,17 +1,11 @@
-import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { Controller } from 'react-hook-form';
 import { Mail } from 'lucide-react';
-import type * as z from '@shared/zod';
-import { inviteMemberInputSchema, type InviteMemberInput, type Team } from '@shared/collab/team.schema';
-import { Button } from '@/components/ui/button';
-import { FormAlert } from '@/components/ui/form-alert';
+import { inviteMemberInputSchema, type Team } from '@shared/collab/team.schema';
+import { EmailInviteForm } from '@/components/forms/email-invite-form';
 import { SegmentedControl } from '@/components/ui/segmented-control';
-import { TextField } from '@/components/ui/text-field';
 import { formatDay } from '@/lib/dates';
-import { applyServerErrors } from '@/lib/form-errors';
 import { useInviteToTeam } from '../api/invite-to-team';
-import { onlineFailure } from '../utils/online-failure';
+import { NEEDS_SIGNAL } from '../utils/online-failure';
 
 const ROLE_OPTIONS = [
   { value: 'member', label: 'Member' },
@@ -21,63 +15,39 @@ const ROLE_OPTIONS = [
 /** Captains: invite someone by e-mail; the link works for a week, once. */
 export function InviteForm({ teamId }: { teamId: string }) {
   const invite = useInviteToTeam(teamId);
-  const [formError, setFormError] = useState<string | null>(null);
-  const [sent, setSent] = useState<string | null>(null);
-  const { register, control, handleSubmit, setError, reset, formState } = useForm<z.input<typeof inviteMemberInputSchema>, unknown, InviteMemberInput>({
-    resolver: zodResolver(inviteMemberInputSchema),
-    defaultValues: { email: '', asAdmin: false },
-  });
-
-  const onSubmit = handleSubmit((input) => {
-    setFormError(null);
-    setSent(null);
-    invite.mutate(input, {
-      onSuccess: () => {
-        setSent(`Invitation sent to ${input.email}. The link works for a week.`);
-        reset({ email: '', asAdmin: false });
-      },
-      onError: (error) => setFormError(onlineFailure(error) ?? applyServerErrors(error, setError, ['email', 'asAdmin'])),
-    });
-  });
-
   return (
-    <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Invite someone" className="flex flex-col gap-3">
-      <TextField
-        label="Their e-mail"
-        hint="They get a link to join. Without an account yet, they can create one from the link."
-        type="email"
-        inputMode="email"
-        autoComplete="off"
-        autoCapitalize="none"
-        autoCorrect="off"
-        spellCheck={false}
-        error={formState.errors.email?.message}
-        {...register('email', { onChange: () => setSent(null) })}
-      />
-      <Controller
-        control={control}
-        name="asAdmin"
-        render={({ field }) => (
-          <SegmentedControl
-            label="Join as"
-            name="invite-as"
-            options={ROLE_OPTIONS}
-            value={field.value ? 'captain' : 'member'}
-            onChange={(value) => field.onChange(value === 'captain')}
+    <EmailInviteForm
+      label="Invite someone"
+      emailLabel="Their e-mail"
+      emailHint="They get a link to join. Without an account yet, they can create one from the link."
+      schema={inviteMemberInputSchema}
+      defaultValues={{ email: '', asAdmin: false }}
+      mutation={invite}
+      doneText={(input) => `Invitation sent to ${input.email}. The link works for a week.`}
+      offlineText={NEEDS_SIGNAL}
+      submitLabel="Send invitation"
+      submitIcon={Mail}
+      pendingLabel="Sending…"
+    >
+      {({ control }) => (
+        <>
+          <Controller
+            control={control}
+            name="asAdmin"
+            render={({ field }) => (
+              <SegmentedControl
+                label="Join as"
+                name="invite-as"
+                options={ROLE_OPTIONS}
+                value={field.value ? 'captain' : 'member'}
+                onChange={(value) => field.onChange(value === 'captain')}
+              />
+            )}
           />
-        )}
-      />
-      <p className="text-sm text-ink-muted">Captains invite people, change who captains and enter the class factors.</p>
-      <FormAlert message={formError} />
-      <p role="status" className="text-sm font-semibold text-success">
-        {sent}
-      </p>
-      <div>
-        <Button type="submit" variant="secondary" isPending={invite.isPending} pendingLabel="Sending…">
-          <Mail aria-hidden="true" className="size-5" /> Send invitation
-        </Button>
-      </div>
-    </form>
+          <p className="text-sm text-ink-muted">Captains invite people, change who captains and enter the class factors.</p>
+        </>
+      )}
+    </EmailInviteForm>
   );
 }
 

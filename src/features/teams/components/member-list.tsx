@@ -1,13 +1,13 @@
 import { useState } from 'react';
 import { DoorOpen, UserX } from 'lucide-react';
 import type { Team } from '@shared/collab/team.schema';
+import { ConfirmButton } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { useLeaveTeam } from '../api/leave-team';
 import { useRemoveMember } from '../api/remove-member';
 import { useSetCaptain } from '../api/set-captain';
 import { failureMessage } from '../utils/online-failure';
-import { ConfirmButton } from './confirm-button';
 import { CaptainMarker } from './team-list';
 
 type Member = Team['members'][number];
@@ -40,6 +40,7 @@ function RemoveMember({ teamId, member }: { teamId: string; member: Member }) {
       pendingLabel="Removing…"
       isPending={remove.isPending}
       onConfirm={(handlers) => remove.mutate(member.id, handlers)}
+      failureText={failureMessage}
     >
       <UserX aria-hidden="true" className="size-5" /> Remove<span className="sr-only"> {member.displayName}</span>
     </ConfirmButton>
@@ -93,6 +94,7 @@ export function LeaveTeam({ team, currentUserId, onLeft }: { team: Team; current
           onError,
         })
       }
+      failureText={failureMessage}
     >
       <DoorOpen aria-hidden="true" className="size-5" /> Leave team
     </ConfirmButton>

@@ -1,6 +1,7 @@
 import { isApiError } from '@/lib/api-client';
 
-const NEEDS_SIGNAL = 'This needs a connection. Nothing was changed; try again when you have signal.';
+/** No connection: said on forms whose writes cannot wait for signal. */
+export const NEEDS_SIGNAL = 'This needs a connection. Nothing was changed; try again when you have signal.';
 
 /** What went wrong with an online write, in words for the form; null when the form should use the server's own words. */
 export function onlineFailure(error: unknown): string | null {

@@ -1,40 +1,27 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, KPA_PER_PSI, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
 import type { Run } from '../../../../shared/season/run.schema';
 import type { Setup } from '../../../../shared/season/setup.schema';
-import { dropCsrfToken } from '@/lib/api-client';
 import type { OutboxEntry } from '@/lib/outbox';
-import { clearToasts } from '@/lib/toast-store';
-import { blockingEntry, clearTestOutboxes, jsonResponse, renderApp, requestsTo, storedEntry, stubFetch } from '../../test-utils';
-import { BASE_SETUP, CAR, EVENT, IDS, list, RUNS_URL, savedRun, user, UUID } from '../../fixtures/season';
+import { blockingEntry, jsonResponse, renderApp, requestsTo, setUpAppTests, storedEntry, stubFetch } from '../../test-utils';
+import { BASE_SETUP, CAR, EVENT, IDS, list, runOnPhone, RUNS_URL, savedRun, user, UUID } from '../../fixtures/season';
 
 const PATH = `/events/${IDS.event}?carId=${IDS.car}`;
 const offline = () => Promise.reject(new TypeError('Failed to fetch'));
 
-beforeAll(async () => {
+beforeAll(() => {
   // jsdom has no pointer capture; Radix toasts ask for it when a toast's button is pressed.
   Element.prototype.hasPointerCapture ??= () => false;
   Element.prototype.releasePointerCapture ??= () => undefined;
-  // The page is loaded lazily; load it once up front so the first test does not spend its wait on compiling.
-  await import('@/app/routes/events/event-day');
-  await import('@/features/setups/components/quick-change-panel');
-}, 30_000);
-
-beforeEach(() => {
-  dropCsrfToken();
-  // Car and driver were chosen at this event before: straight to logging.
-  localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.stringify({ carId: IDS.car, driverId: IDS.maren }));
 });
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  localStorage.clear();
-  vi.unstubAllGlobals();
+setUpAppTests([() => import('@/app/routes/events/event-day'), () => import('@/features/setups/components/quick-change-panel')], {
+  clearLocalStorage: true,
 });
+// Car and driver were chosen at this event before: straight to logging.
+beforeEach(() => localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.stringify({ carId: IDS.car, driverId: IDS.maren })));
 
 // The runs URL is a GET; stubFetch keys are "METHOD path".
 const RUNS = `GET ${RUNS_URL}`;
@@ -152,17 +139,7 @@ describe('event day', () => {
   });
 
   it('when a faster run is still waiting to upload, then it is scored with the saved ones and marked best instead', async () => {
-    const waitingRun = storedEntry({
-      recordId: IDS.run2,
-      kind: 'run.create',
-      method: 'POST',
-      path: '/api/runs',
-      scope: { carId: IDS.car, eventId: IDS.event },
-      body: {
-        id: IDS.run2, carId: IDS.car, eventId: IDS.event, driverId: IDS.maren, runNumber: 2,
-        rawTimeSec: 44.1, cones: 1, status: 'finished', recordedAt: '2026-06-07T10:05:00.000Z',
-      },
-    });
+    const waitingRun = runOnPhone({ cones: 1 });
     stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 46.5, adjustedTimeSec: 46.5, isBest: true, pctOffBest: 0 })]);
     renderApp(PATH, { outboxEntries: [waitingRun] });
 

@@ -1,23 +1,12 @@
 // @vitest-environment jsdom
-import { cleanup, screen } from '@testing-library/react';
+import { screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { user } from '../../fixtures/season';
 
-beforeAll(async () => {
-  await import('@/app/routes/settings');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/settings')]);
 
 describe('unit settings', () => {
   it('when Imperial is chosen and saved, then every choosable unit is sent and the app reads the new units', async () => {

@@ -1,23 +1,12 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, KPA_PER_PSI, MM_PER_INCH } from '../../../../shared/calc/units.calc';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, IDS, list, user, UUID } from '../../fixtures/season';
 
-beforeAll(async () => {
-  await import('@/app/routes/cars/new-setup');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/cars/new-setup')]);
 
 const SETUPS = `POST /api/cars/${IDS.car}/setups`;
 

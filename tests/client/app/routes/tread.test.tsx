@@ -1,23 +1,12 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor } from '@testing-library/react';
+import { screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { blockingEntry, clearTestOutboxes, jsonResponse, renderApp, stubFetch } from '../../test-utils';
+import { blockingEntry, jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
 import { CAR, IDS, list, TYRE_SET, user, UUID } from '../../fixtures/season';
 
-beforeAll(async () => {
-  await import('@/app/routes/cars/tread');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/cars/tread')]);
 
 function stub(units: UnitPreferences) {
   return stubFetch({

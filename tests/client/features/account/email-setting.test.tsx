@@ -1,24 +1,13 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor } from '@testing-library/react';
+import { screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { describe, expect, it } from 'vitest';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { user } from '../../fixtures/season';
 
 const withEmails = (on: boolean) => ({ ...user(), preferences: { ...user().preferences, emailNotifications: on } });
 
-beforeAll(async () => {
-  await import('@/app/routes/settings');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/settings')]);
 
 describe('e-mail setting', () => {
   it('when the switch is turned off, then only that preference is sent and the switch shows the saved answer', async () => {

@@ -1,17 +1,14 @@
 // @vitest-environment jsdom
 import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { InvitationPreview } from '../../../../shared/collab/invitation.schema';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, stubFetch } from '../../test-utils';
 import { list, user } from '../../fixtures/season';
 
 const TOKEN = 'q7Yb2mKx0PzR4sVt8wNc1dLh6jGf3eAu9oIy5rTk_Q';
 const PAGE = `/invitations/${TOKEN}`;
 const TEAM_ID = '7e111111-1111-4111-8111-111111111111';
-const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
 
 const PREVIEW: InvitationPreview = {
   kind: 'team',
@@ -23,16 +20,11 @@ const PREVIEW: InvitationPreview = {
   state: 'open',
 };
 
-beforeAll(async () => {
-  await Promise.all([import('@/app/routes/account/invitation'), import('@/app/routes/teams/team'), import('@/app/routes/sign-in')]);
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([
+  () => import('@/app/routes/account/invitation'),
+  () => import('@/app/routes/teams/team'),
+  () => import('@/app/routes/sign-in'),
+]);
 
 describe('invitation page', () => {
   it('when nobody is signed in, then it says who invites whom to what, and sign-in and registration come back here', async () => {

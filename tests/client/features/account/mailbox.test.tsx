@@ -1,14 +1,11 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { MailboxMessage } from '../../../../shared/collab/mailbox.schema';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, stubFetch } from '../../test-utils';
 import { list } from '../../fixtures/season';
 
-const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
 const ORIGIN = window.location.origin;
 
 const RESET: MailboxMessage = {
@@ -33,16 +30,7 @@ const INVITE: MailboxMessage = {
   listUnsubscribe: null,
 };
 
-beforeAll(async () => {
-  await import('@/app/routes/dev/mailbox');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/dev/mailbox')]);
 
 describe('development mailbox', () => {
   it('when e-mails were caught, then they are listed newest first and the chosen one shows its text, with only this app’s links clickable', async () => {

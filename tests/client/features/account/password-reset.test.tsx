@@ -1,30 +1,19 @@
 // @vitest-environment jsdom
 import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { PASSWORD_RESET_REQUESTED_MESSAGE } from '../../../../shared/collab/invitation.schema';
 import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, stubFetch } from '../../test-utils';
 
-const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
 const TOKEN = 'Zr8kQ2vN5xLp0mT7yB3cW9dF1gH4jK6s_A';
 const NEW_PASSWORD = 'gravel kettle orbit lantern';
 
-beforeAll(async () => {
-  await Promise.all([
-    import('@/app/routes/account/forgot-password'),
-    import('@/app/routes/account/reset-password'),
-    import('@/app/routes/sign-in'),
-  ]);
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([
+  () => import('@/app/routes/account/forgot-password'),
+  () => import('@/app/routes/account/reset-password'),
+  () => import('@/app/routes/sign-in'),
+]);
 
 describe('forgot password', () => {
   it('when an address is sent, then the page shows the one message whatever the server found, and sends the address it was given', async () => {

@@ -1,24 +1,12 @@
 // @vitest-environment jsdom
-import { cleanup, screen } from '@testing-library/react';
+import { screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { describe, expect, it } from 'vitest';
+import { CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, stubFetch } from '../../test-utils';
 
 const TOKEN = '9b0c1d2e-3f40-4152-8637-48596a7b8c9d';
-const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
 
-beforeAll(async () => {
-  await import('@/app/routes/account/unsubscribe');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/account/unsubscribe')]);
 
 describe('unsubscribe page', () => {
   it('when the button is pressed, then the token is posted with the CSRF token and the page says how to turn e-mails back on', async () => {

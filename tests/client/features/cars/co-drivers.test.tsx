@@ -1,38 +1,14 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
-import { CAR, IDS, list, user } from '../../fixtures/season';
+import { describe, expect, it } from 'vitest';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests } from '../../test-utils';
+import { stubCarPage } from '../../fixtures/car-page';
+import { CAR, coDriverUser, IDS, list, user } from '../../fixtures/season';
 
 const CAR_PAGE = `/cars/${IDS.car}`;
 
-beforeAll(async () => {
-  await import('@/app/routes/cars/car');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
-
-/** The signed-in user: the owner (the fixture's user) or a co-driver. */
-type Me = Omit<ReturnType<typeof user>, 'id'> & { id: string };
-
-function stubCarPage(me: Me = user(), extra: Parameters<typeof stubFetch>[0] = {}) {
-  return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: me }),
-    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
-    [`GET /api/cars/${IDS.car}/setups`]: list([]),
-    [`GET /api/cars/${IDS.car}/tyre-sets`]: list([]),
-    [`GET /api/cars/${IDS.car}/changes`]: list([]),
-    ...extra,
-  });
-}
+setUpAppTests([() => import('@/app/routes/cars/car')]);
 
 const drivers = () => screen.getByRole('list', { name: 'Drivers' });
 
@@ -79,7 +55,7 @@ describe('co-drivers', () => {
   });
 
   it('when the signed-in user is a co-driver, then the drivers are listed without add or remove', async () => {
-    stubCarPage({ ...user(), id: IDS.tomas, email: 'tomas@example.test', displayName: 'Tomas Reyes' });
+    stubCarPage(coDriverUser());
     renderApp(CAR_PAGE);
 
     expect(await screen.findByText('Only the owner, Maren Holt, can add or remove co-drivers.')).toBeTruthy();

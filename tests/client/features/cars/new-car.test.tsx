@@ -1,26 +1,14 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
+import { describe, expect, it } from 'vitest';
 import type { OutboxEntry } from '@/lib/outbox';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, stubFetch } from '../../test-utils';
+import { jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
 import { list, user, UUID } from '../../fixtures/season';
 
 const offline = () => Promise.reject(new TypeError('Failed to fetch'));
 
-beforeAll(async () => {
-  await import('@/app/routes/cars/cars');
-  await import('@/app/routes/home');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/cars/cars'), () => import('@/app/routes/home')]);
 
 function stubNoCars() {
   return stubFetch({

@@ -1,31 +1,18 @@
 // @vitest-environment jsdom
-import { cleanup, screen, within } from '@testing-library/react';
+import { screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { blockingEntry, clearTestOutboxes, jsonResponse, renderApp, requestsTo, storedEntry, stubFetch } from '../../test-utils';
-import { BASE_SETUP, CAR, EVENT, IDS, list, RUNS_URL, savedRun, user } from '../../fixtures/season';
+import { beforeEach, describe, expect, it } from 'vitest';
+import { blockingEntry, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
+import { BASE_SETUP, CAR, EVENT, IDS, list, runOnPhone, RUNS_URL, savedRun, user } from '../../fixtures/season';
 import { COLLAB_IDS, comment, SHOP_NAME } from '../../fixtures/collab';
 
 const PATH = `/events/${IDS.event}?carId=${IDS.car}`;
 
-beforeAll(async () => {
-  await import('@/app/routes/events/event-day');
-  await import('@/app/shell-extras');
-  await import('@/features/comments/components/comment-thread');
-}, 30_000);
-beforeEach(() => {
-  dropCsrfToken();
-  localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.stringify({ carId: IDS.car, driverId: IDS.maren }));
-});
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  localStorage.clear();
-  vi.unstubAllGlobals();
-});
+setUpAppTests(
+  [() => import('@/app/routes/events/event-day'), () => import('@/app/shell-extras'), () => import('@/features/comments/components/comment-thread')],
+  { clearLocalStorage: true },
+);
+beforeEach(() => localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.stringify({ carId: IDS.car, driverId: IDS.maren })));
 
 function stubDay(extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({
@@ -81,17 +68,7 @@ describe('comments at the track', () => {
   });
 
   it('when a run is still on the phone, then it offers no thread (the server has no run to hang it on), while saved runs do', async () => {
-    const waitingRun = storedEntry({
-      recordId: IDS.run2,
-      kind: 'run.create',
-      method: 'POST',
-      path: '/api/runs',
-      scope: { carId: IDS.car, eventId: IDS.event },
-      body: {
-        id: IDS.run2, carId: IDS.car, eventId: IDS.event, driverId: IDS.maren, runNumber: 2,
-        rawTimeSec: 44.1, cones: 0, status: 'finished', recordedAt: '2026-06-07T10:05:00.000Z',
-      },
-    });
+    const waitingRun = runOnPhone();
     stubDay({
       [`GET ${RUNS_URL}`]: list([savedRun({ id: IDS.run1, runNumber: 1 })]),
       'POST /api/runs': () => Promise.reject(new TypeError('Failed to fetch')),

@@ -1,23 +1,11 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { describe, expect, it } from 'vitest';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { CAR, IDS, list, TYRE_SET, user } from '../../fixtures/season';
 
-beforeAll(async () => {
-  await import('@/app/routes/cars/tread');
-  await import('@/features/comments/components/comment-thread');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/cars/tread'), () => import('@/features/comments/components/comment-thread')]);
 
 describe('comments on a tread reading', () => {
   it('when the latest reading’s comments are opened, then that reading’s thread is asked for', async () => {

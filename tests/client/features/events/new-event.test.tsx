@@ -1,29 +1,15 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
-import { dropCsrfToken } from '@/lib/api-client';
 import type { OutboxEntry } from '@/lib/outbox';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, storedEntry, stubFetch } from '../../test-utils';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, storedEntry, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, IDS, list, user, UUID } from '../../fixtures/season';
 
 const offline = () => Promise.reject(new TypeError('Failed to fetch'));
 
-beforeAll(async () => {
-  // Pages load lazily; load them once up front so the first test does not spend its wait compiling.
-  await import('@/app/routes/events/events');
-  await import('@/app/routes/events/event-day');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  localStorage.clear();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/events/events'), () => import('@/app/routes/events/event-day')], { clearLocalStorage: true });
 
 function stub(units: UnitPreferences, extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({

@@ -1,27 +1,14 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
+import { describe, expect, it, vi } from 'vitest';
 import { focusManager } from '@tanstack/react-query';
 import { UNREAD_POLL_MS } from '@/features/notifications/api/get-unread-count';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { IDS, user } from '../../fixtures/season';
 import { COLLAB_IDS, notification, suggestion } from '../../fixtures/collab';
 
-beforeAll(async () => {
-  await import('@/app/routes/notifications');
-  await import('@/app/routes/settings');
-  await import('@/app/shell-extras');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/notifications'), () => import('@/app/routes/settings'), () => import('@/app/shell-extras')]);
 
 const bell = () => screen.findByRole('link', { name: /notification/i });
 

@@ -1,11 +1,9 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { SeasonResult } from '../../../../shared/analysis/analysis.schema';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, EVENT, IDS, list, RUNS_URL, savedRun } from '../../fixtures/season';
 import { staffUser, suggestion } from '../../fixtures/collab';
 
@@ -27,17 +25,7 @@ const SEASON: SeasonResult = {
   tyreLife: [],
 };
 
-beforeAll(async () => {
-  await import('@/app/routes/shop/customer');
-  await import('@/features/comments/components/comment-thread');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/shop/customer'), () => import('@/features/comments/components/comment-thread')]);
 
 function stubCustomer(extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({

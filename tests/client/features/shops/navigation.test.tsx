@@ -1,24 +1,12 @@
 // @vitest-environment jsdom
-import { cleanup, screen, within } from '@testing-library/react';
+import { screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, stubFetch } from '../../test-utils';
+import { describe, expect, it } from 'vitest';
+import { jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
 import { user } from '../../fixtures/season';
 import { staffUser } from '../../fixtures/collab';
 
-beforeAll(async () => {
-  await import('@/app/routes/settings');
-  await import('@/features/auth/components/account-dropdown');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/settings'), () => import('@/features/auth/components/account-dropdown')]);
 
 async function openAccountMenu(name: string) {
   const u = userEvent.setup();

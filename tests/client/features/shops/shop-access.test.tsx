@@ -1,47 +1,27 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
-import { CAR, IDS, list, user } from '../../fixtures/season';
+import { describe, expect, it } from 'vitest';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, type StubRoutes } from '../../test-utils';
+import { stubCarPage } from '../../fixtures/car-page';
+import { coDriverUser, IDS, list, user, type SignedInUser } from '../../fixtures/season';
 import { COLLAB_IDS, GRANT, SHOP_NAME } from '../../fixtures/collab';
 
 const CAR_PAGE = `/cars/${IDS.car}`;
 const GRANTS = `/api/cars/${IDS.car}/shop-grants`;
 
-beforeAll(async () => {
-  await import('@/app/routes/cars/car');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/cars/car')]);
 
-type Me = Omit<ReturnType<typeof user>, 'id'> & { id: string };
-
-function stubCarPage(me: Me = user(), extra: Parameters<typeof stubFetch>[0] = {}) {
-  return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: me }),
-    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
-    [`GET /api/cars/${IDS.car}/setups`]: list([]),
-    [`GET /api/cars/${IDS.car}/tyre-sets`]: list([]),
-    [`GET /api/cars/${IDS.car}/changes`]: list([]),
-    [`GET /api/cars/${IDS.car}/suggestions`]: list([]),
-    [`GET ${GRANTS}`]: list([GRANT]),
-    ...extra,
-  });
+/** The car page with Kettle Lane already let in. */
+function stubGranted(me: SignedInUser = user(), extra: StubRoutes = {}) {
+  return stubCarPage(me, { [`GET ${GRANTS}`]: list([GRANT]), ...extra });
 }
 
 const section = () => screen.getByRole('region', { name: 'Shop access' });
 
 describe('shop access on the car page', () => {
   it('says in one sentence what a shop can and cannot do', async () => {
-    stubCarPage();
+    stubGranted();
     renderApp(CAR_PAGE);
     await screen.findByRole('list', { name: 'Shops with access' });
     expect(
@@ -52,7 +32,7 @@ describe('shop access on the car page', () => {
   it('when the owner finds a shop and grants it, then the server gets that shop’s id and the list shows it', async () => {
     let granted = false;
     const other = { id: COLLAB_IDS.otherShop, name: 'Spoon Hill Alignment' };
-    const fetchMock = stubCarPage(user(), {
+    const fetchMock = stubGranted(user(), {
       [`GET ${GRANTS}`]: () => list(granted ? [GRANT, { ...GRANT, shop: other }] : [GRANT]),
       'GET /api/shops?q=Spoon': list([other]),
       [`POST ${GRANTS}`]: () => {
@@ -75,7 +55,7 @@ describe('shop access on the car page', () => {
 
   it('when a grant is refused with a field error, then the message shows where the owner asked', async () => {
     const other = { id: COLLAB_IDS.otherShop, name: 'Spoon Hill Alignment' };
-    stubCarPage(user(), {
+    stubGranted(user(), {
       'GET /api/shops?q=Spoon': list([other]),
       [`POST ${GRANTS}`]: errorResponse(400, 'validation_failed', 'Some fields are not valid.', { shopId: ['That shop was not found'] }),
     });
@@ -91,7 +71,7 @@ describe('shop access on the car page', () => {
 
   it('when the owner revokes a shop and confirms, then the server is asked and the shop leaves the list', async () => {
     let revoked = false;
-    const fetchMock = stubCarPage(user(), {
+    const fetchMock = stubGranted(user(), {
       [`GET ${GRANTS}`]: () => list(revoked ? [] : [GRANT]),
       [`DELETE ${GRANTS}/${COLLAB_IDS.shop}`]: () => {
         revoked = true;
@@ -110,7 +90,7 @@ describe('shop access on the car page', () => {
   });
 
   it('when the signed-in user is a co-driver, then the shops are listed without grant or revoke', async () => {
-    stubCarPage({ ...user(), id: IDS.tomas, email: 'tomas@example.test', displayName: 'Tomas Reyes' });
+    stubGranted(coDriverUser());
     renderApp(CAR_PAGE);
 
     const granted = await screen.findByRole('list', { name: 'Shops with access' });

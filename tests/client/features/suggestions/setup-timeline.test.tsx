@@ -1,12 +1,11 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Setup } from '../../../../shared/season/setup.schema';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
-import { BASE_SETUP, CAR, IDS, list, user } from '../../fixtures/season';
+import { renderApp, requestsTo, setUpAppTests, type StubRoutes } from '../../test-utils';
+import { stubCarPage } from '../../fixtures/car-page';
+import { BASE_SETUP, IDS, list, user } from '../../fixtures/season';
 import { COLLAB_IDS, GRANT, SHOP_NAME, suggestion } from '../../fixtures/collab';
 
 const ACCEPTED: Setup = {
@@ -19,25 +18,12 @@ const ACCEPTED: Setup = {
   corners: { ...BASE_SETUP.corners, lf: { ...BASE_SETUP.corners.lf, camberDeg: -1.7 }, rf: { ...BASE_SETUP.corners.rf, camberDeg: -1.7 } },
 };
 
-beforeAll(async () => {
-  await import('@/app/routes/cars/car');
-  await import('@/features/comments/components/comment-thread');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/cars/car'), () => import('@/features/comments/components/comment-thread')]);
 
-function stubCarPage(extra: Parameters<typeof stubFetch>[0] = {}) {
-  return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
-    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+/** The car page with the accepted suggestion's snapshot on top of the baseline. */
+function stubTimeline(extra: StubRoutes = {}) {
+  return stubCarPage(user(), {
     [`GET /api/cars/${IDS.car}/setups`]: list([ACCEPTED, BASE_SETUP]),
-    [`GET /api/cars/${IDS.car}/tyre-sets`]: list([]),
-    [`GET /api/cars/${IDS.car}/changes`]: list([]),
     [`GET /api/cars/${IDS.car}/shop-grants`]: list([GRANT]),
     [`GET /api/cars/${IDS.car}/suggestions`]: list([suggestion({ status: 'accepted', acceptedSetupId: ACCEPTED.id })]),
     ...extra,
@@ -48,7 +34,7 @@ const history = () => screen.getByRole('list', { name: 'Setup history, newest fi
 
 describe('the setup timeline and suggestions on the car page', () => {
   it('when a snapshot came from an accepted suggestion, then it says which shop and which suggestion, and links to it', async () => {
-    stubCarPage();
+    stubTimeline();
     renderApp(`/cars/${IDS.car}`);
 
     const badge = await screen.findByRole('link', { name: `from ${SHOP_NAME}: More front camber` });
@@ -60,7 +46,7 @@ describe('the setup timeline and suggestions on the car page', () => {
   });
 
   it('lists the shops’ suggestions for the car with their status', async () => {
-    stubCarPage();
+    stubTimeline();
     renderApp(`/cars/${IDS.car}`);
 
     const suggestions = await screen.findByRole('list', { name: 'Suggestions' });
@@ -72,7 +58,7 @@ describe('the setup timeline and suggestions on the car page', () => {
 
   it('when a snapshot’s comments are opened, then its thread is fetched then, not before', async () => {
     const url = `GET /api/comments?type=setup&id=${ACCEPTED.id}`;
-    const fetchMock = stubCarPage({ [url]: list([]) });
+    const fetchMock = stubTimeline({ [url]: list([]) });
     renderApp(`/cars/${IDS.car}`);
     const u = userEvent.setup();
 

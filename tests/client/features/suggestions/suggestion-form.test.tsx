@@ -1,27 +1,16 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, IDS, list, UUID } from '../../fixtures/season';
 import { COLLAB_IDS, staffUser, suggestion } from '../../fixtures/collab';
 
 const PATH = `/cars/${IDS.car}/suggestions/new?from=${IDS.setupBase}`;
 const POST = `POST /api/cars/${IDS.car}/suggestions`;
 
-beforeAll(async () => {
-  await import('@/app/routes/suggestions/new-suggestion');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/suggestions/new-suggestion')]);
 
 function stub(units: UnitPreferences, extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({

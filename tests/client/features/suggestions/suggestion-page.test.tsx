@@ -1,11 +1,9 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Suggestion } from '../../../../shared/collab/suggestion.schema';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, IDS, list, user, UUID } from '../../fixtures/season';
 import { COLLAB_IDS, SHOP_NAME, staffUser, suggestion } from '../../fixtures/collab';
 
@@ -14,16 +12,7 @@ const GET = `GET /api/suggestions/${COLLAB_IDS.suggestion}`;
 const ACCEPT = `POST /api/suggestions/${COLLAB_IDS.suggestion}/accept`;
 const DECLINE = `POST /api/suggestions/${COLLAB_IDS.suggestion}/decline`;
 
-beforeAll(async () => {
-  await import('@/app/routes/suggestions/suggestion');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/suggestions/suggestion')]);
 
 function stub(me: object, current: () => Suggestion, extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({

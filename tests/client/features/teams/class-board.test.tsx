@@ -1,11 +1,9 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { IMPERIAL_PREFERENCES } from '../../../../shared/calc/units.calc';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { user } from '../../fixtures/season';
 import { BOARD, TEAM_IDS } from './team-fixtures';
 
@@ -20,16 +18,7 @@ vi.mock('react-chartjs-2', () => ({
 
 const BOARD_API = `/api/teams/${TEAM_IDS.team}/board`;
 
-beforeAll(async () => {
-  await import('@/app/routes/teams/class-board');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/teams/class-board')]);
 
 const classSection = (code: string) => screen.getByRole('region', { name: `Class ${code}` });
 const rowsOf = (carName: string) => within(screen.getByRole('region', { name: `Results of ${carName}` })).getAllByRole('row').slice(1);

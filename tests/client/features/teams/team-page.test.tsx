@@ -1,10 +1,8 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { describe, expect, it } from 'vitest';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { CAR, IDS, list, user } from '../../fixtures/season';
 import { CO_DRIVEN, MAREN_HATCH, team, TEAM_IDS } from './team-fixtures';
 
@@ -13,16 +11,7 @@ const TEAM_API = `/api/teams/${TEAM_IDS.team}`;
 const SEASON = new Date().getFullYear();
 const FACTORS_API = `${TEAM_API}/factors?season=${SEASON}`;
 
-beforeAll(async () => {
-  await import('@/app/routes/teams/team');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/teams/team')]);
 
 function stubTeamPage(isCaptain: boolean, extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({

@@ -1,23 +1,12 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { dropCsrfToken } from '@/lib/api-client';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { describe, expect, it } from 'vitest';
+import { CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { list, user } from '../../fixtures/season';
 import { team, TEAM_IDS } from './team-fixtures';
 
-beforeAll(async () => {
-  await Promise.all([import('@/app/routes/teams/teams'), import('@/app/routes/teams/team')]);
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/teams/teams'), () => import('@/app/routes/teams/team')]);
 
 const OTHER_TEAM = { id: '7e222222-2222-4222-8222-222222222222', name: 'Night Sprint Crew', isCaptain: true };
 

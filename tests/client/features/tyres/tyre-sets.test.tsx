@@ -1,27 +1,16 @@
 // @vitest-environment jsdom
-import { cleanup, screen, waitFor, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, MM_PER_INCH, type UnitPreferences } from '../../../../shared/calc/units.calc';
-import { dropCsrfToken } from '@/lib/api-client';
 import type { OutboxEntry } from '@/lib/outbox';
-import { clearToasts } from '@/lib/toast-store';
-import { clearTestOutboxes, jsonResponse, renderApp, requestsTo, stubFetch } from '../../test-utils';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { CAR, IDS, list, TYRE_SET, user, UUID } from '../../fixtures/season';
 
 const CAR_PAGE = `/cars/${IDS.car}`;
 const offline = () => Promise.reject(new TypeError('Failed to fetch'));
 
-beforeAll(async () => {
-  await import('@/app/routes/cars/car');
-}, 30_000);
-beforeEach(() => dropCsrfToken());
-afterEach(async () => {
-  await clearTestOutboxes();
-  cleanup();
-  clearToasts();
-  vi.unstubAllGlobals();
-});
+setUpAppTests([() => import('@/app/routes/cars/car')]);
 
 /** The car page with one saved tyre set (tyres as first fitted); uploads find no signal. */
 function stubCarPage(units: UnitPreferences) {

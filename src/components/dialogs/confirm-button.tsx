@@ -2,7 +2,8 @@ import { useState, type ReactNode } from 'react';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { FormAlert } from '@/components/ui/form-alert';
-import { failureMessage } from '../utils/online-failure';
+
+// Not in components/ui: the build bundles ui/ into one file the trackside page loads, and this one brings the dialog with it.
 
 interface ConfirmButtonProps {
   /** The button that opens the question. */
@@ -16,9 +17,11 @@ interface ConfirmButtonProps {
   isPending: boolean;
   /** Runs the action; the dialog closes when it succeeds and shows the error when it fails. */
   onConfirm: (handlers: { onSuccess: () => void; onError: (error: unknown) => void }) => void;
+  /** The words shown in the dialog when the action fails. */
+  failureText: (error: unknown) => string;
 }
 
-/** A button that asks first, for what cannot be undone from here (removing, leaving, withdrawing). */
+/** A button that asks first, for what cannot be undone from here (removing, revoking, leaving, withdrawing). */
 export function ConfirmButton({
   children,
   variant = 'quiet',
@@ -29,6 +32,7 @@ export function ConfirmButton({
   keepLabel = 'Cancel',
   isPending,
   onConfirm,
+  failureText,
 }: ConfirmButtonProps) {
   const [open, setOpen] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -38,7 +42,7 @@ export function ConfirmButton({
   };
   const confirm = () => {
     setError(null);
-    onConfirm({ onSuccess: () => setOpen(false), onError: (e) => setError(failureMessage(e)) });
+    onConfirm({ onSuccess: () => setOpen(false), onError: (e) => setError(failureText(e)) });
   };
   return (
     <>
