@@ -54,6 +54,9 @@ export default defineConfig({
     sourcemap: true,
     // Lists each chunk's imports, for scripts/bundle-size.ts.
     manifest: true,
+    // Browsers without <link rel="modulepreload"> (older Safari) still load every module, only without
+    // the head start; the polyfill would cost every page's first download on every phone.
+    modulePreload: { polyfill: false },
     rolldownOptions: {
       output: {
         // Fewer, larger files than one per set of shared modules: fewer requests, and each compresses
