@@ -21,6 +21,19 @@ export const ACCESS_MATRIX = {
     comment: ['owner', 'co_driver', 'shop_staff'],
     suggest: ['shop_staff'],
     decide: ['owner', 'co_driver'],
+    /** Open a service visit (work order) on the car. */
+    service: ['shop_staff'],
+  },
+  /**
+   * A shop's service visit on a car. `shop_staff` here means staff of the visit's own shop;
+   * editing also needs that shop to hold a grant on the car still.
+   */
+  work_order: {
+    read: ['owner', 'co_driver', 'shop_staff'],
+    edit: ['shop_staff'],
+    comment: ['owner', 'co_driver', 'shop_staff'],
+    pay: ['owner', 'co_driver'],
+    mark_paid: ['shop_staff'],
   },
   /** A comment already written. Reading it is reading its car. */
   comment: {

@@ -60,6 +60,7 @@ const CAR_REFUSALS: Record<CarAction, string> = {
   comment: 'Only the car\'s drivers and its shop can comment.',
   suggest: 'Only staff of a shop the owner has granted can suggest setups.',
   decide: 'Only the car\'s drivers can accept or decline a suggestion.',
+  service: 'Only staff of a shop the owner has granted can open a work order.',
 };
 
 /** Every relation the user has to the car, strongest first (empty: none). */
@@ -99,6 +100,45 @@ export const readableCarIdsSql = (param: string) =>
   `(SELECT c.id FROM cars c WHERE c.owner_id = ${param}
     UNION SELECT d.car_id FROM car_co_drivers d WHERE d.user_id = ${param}
     UNION SELECT g.car_id FROM shop_grants g JOIN shop_members m ON m.shop_id = g.shop_id WHERE m.user_id = ${param})`;
+
+/* ---------- Service visits ---------- */
+
+export type WorkOrderAction = keyof (typeof ACCESS_MATRIX)['work_order'];
+export type WorkOrderRelation = 'owner' | 'co_driver' | 'shop_staff';
+
+/**
+ * May this user do `action` to this work order? The car's drivers read it, comment on it
+ * and pay its invoice; staff of the visit's shop read it, and edit it and take cash while
+ * the shop still holds a grant on the car. Anyone else gets 404.
+ */
+export async function assertWorkOrderAccess(
+  db: Queryable,
+  user: User,
+  workOrderId: string,
+  action: WorkOrderAction,
+): Promise<{ relation: WorkOrderRelation; carId: string; shopId: string }> {
+  const rows: { car_id: string; shop_id: string; owner: boolean; co_driver: boolean; staff: boolean; granted: boolean }[] = await db.query(
+    `SELECT w.car_id, w.shop_id,
+            c.owner_id = $2 AS owner,
+            EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = w.car_id AND d.user_id = $2) AS co_driver,
+            EXISTS (SELECT 1 FROM shop_members m WHERE m.shop_id = w.shop_id AND m.user_id = $2) AS staff,
+            EXISTS (SELECT 1 FROM shop_grants g WHERE g.car_id = w.car_id AND g.shop_id = w.shop_id) AS granted
+       FROM work_orders w JOIN cars c ON c.id = w.car_id
+      WHERE w.id = $1`,
+    [workOrderId, user.id],
+  );
+  const row = rows[0];
+  const relations: WorkOrderRelation[] = row
+    ? [...(row.owner ? (['owner'] as const) : []), ...(row.co_driver ? (['co_driver'] as const) : []), ...(row.staff ? (['shop_staff'] as const) : [])]
+    : [];
+  if (!row || !relations.some((r) => allows('work_order', 'read', r))) throw new AppError('not_found', 'That work order was not found.');
+  const relation = relations.find((r) => allows('work_order', action, r));
+  if (!relation) throw new AppError('forbidden', 'Only the shop that did the work can change this work order; the drivers read it and pay.');
+  if (relation === 'shop_staff' && action !== 'read' && action !== 'comment' && !row.granted) {
+    throw new AppError('forbidden', 'The owner no longer shares this car with your shop, so the work order can only be read.');
+  }
+  return { relation, carId: row.car_id, shopId: row.shop_id };
+}
 
 /* ---------- Shops and teams ---------- */
 
