@@ -1,19 +1,22 @@
 // `npm start`: private PostgreSQL under .data/, migrations, demo seed on first run,
 // a production build of the client, and one Express process serving both. Unless
 // SMTP_URL names a real mail server, e-mails go to a local mail catcher whose
-// messages the app shows at /dev/mailbox.
+// messages the app shows at /dev/mailbox. Unless STRIPE_SECRET_KEY is set, online payments
+// go to a local fake of the payment service (see docs/payments.md).
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { portIsFree, startCluster, type Cluster } from './lib/pg-cluster';
 import type { FakeSmtp } from './lib/fake-smtp';
+import { startFakePayments, type FakePayments } from './lib/fake-payments';
 import { DATA_DIR, localSessionSecret, ROOT, say } from './lib/env';
 import { loadConfig } from '../server/config';
-import { startServer, type RunningServer } from '../server/index';
+import { localOrigin, startServer, type RunningServer } from '../server/index';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../server/db/demo-accounts';
 
 let cluster: Cluster | undefined;
 let running: RunningServer | undefined;
 let smtp: FakeSmtp | undefined;
+let payments: FakePayments | undefined;
 let stopping = false;
 
 async function shutdown(code: number) {
@@ -23,6 +26,7 @@ async function shutdown(code: number) {
   try {
     await running?.close();
     await smtp?.stop();
+    await payments?.stop();
   } finally {
     cluster?.stop();
     say('stopped. Your data stays in .data/ for next time.');
@@ -52,6 +56,11 @@ async function main() {
     say(`e-mails stay on this machine: a local mail catcher on 127.0.0.1:${smtp.port} keeps them in .data/mailbox`);
   }
 
+  if (!process.env.STRIPE_SECRET_KEY && process.env.NODE_ENV !== 'production') {
+    payments = await startFakePayments();
+    say(`payments stay on this machine: a local fake of the payment service on 127.0.0.1:${payments.port}`);
+  }
+
   say('building the client…');
   const build = spawnSync(join(ROOT, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], {
     cwd: ROOT,
@@ -64,8 +73,10 @@ async function main() {
     DATABASE_URL: databaseUrl,
     SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret(),
     ...(smtp ? { SMTP_URL: smtp.url, MAILBOX_DIR: smtp.dir } : {}),
+    ...(payments ? { STRIPE_SECRET_KEY: payments.secretKey, STRIPE_WEBHOOK_SECRET: payments.webhookSecret, STRIPE_API_URL: payments.url } : {}),
   });
   running = await startServer(config);
+  payments?.setWebhookUrl(`${localOrigin(config.HOST, running.port)}/api/payments/webhook`);
   if (running.seeded) say('filled in the demo season (first run).');
 
   const mailLine = smtp

@@ -31,6 +31,10 @@ import { carSuggestionRoutes, suggestionRoutes } from './features/suggestions/su
 import { teamRoutes } from './features/teams/team.routes';
 import { invitationRoutes, oneClickUnsubscribe, unsubscribeRoutes } from './features/invitations/invitation.routes';
 import { mailboxRoutes } from './features/dev/mailbox.routes';
+import { invoiceRoutes, workOrderInvoiceRoutes } from './features/invoices/invoice.routes';
+import { paymentWebhookRoutes } from './features/payments/payment.routes';
+import type { PaymentSettings } from './features/payments/payment-settings';
+import { carWorkOrderRoutes, shopWorkOrderRoutes, workOrderRoutes } from './features/work-orders/work-order.routes';
 
 export interface AppOptions {
   ds: DataSource;
@@ -47,6 +51,8 @@ export interface AppOptions {
   mail?: MailSettings;
   /** Development only: the fake SMTP server's message folder, shown at /api/dev/mailbox. Never set in production. */
   mailboxDir?: string;
+  /** The payment service (or its local fake); without it invoices are paid only in cash. */
+  payments?: PaymentSettings;
 }
 
 /** Stands in index.html for the per-response nonce (see the meta tag `csp-nonce`). */
@@ -108,6 +114,8 @@ export function createApp(opts: AppOptions) {
   };
 
   mount('/api/health', healthRoutes(opts.ds));
+  // The payment service signs the raw body and sends no cookie or CSRF token.
+  mount('/api/payments', paymentWebhookRoutes(opts.ds, opts.payments, opts.mail));
 
   app.use('/api', express.json({ limit: opts.jsonLimit ?? '100kb' }));
   app.use('/api', sessionMiddleware(opts.pool, opts.session));
@@ -127,6 +135,7 @@ export function createApp(opts: AppOptions) {
   mount('/api/cars/:carId/changes', changeRoutes(opts.ds));
   mount('/api/cars/:carId/shop-grants', carShopGrantRoutes(opts.ds, opts.mail));
   mount('/api/cars/:carId/suggestions', carSuggestionRoutes(opts.ds, opts.mail));
+  mount('/api/cars/:carId/work-orders', carWorkOrderRoutes(opts.ds));
   mount('/api/cars/:carId', carTyreRoutes(opts.ds));
   mount('/api/cars/:carId', analysisRoutes(opts.ds));
   mount('/api/cars', carRoutes(opts.ds));
@@ -137,7 +146,11 @@ export function createApp(opts: AppOptions) {
   mount('/api/comments', commentRoutes(opts.ds, opts.mail));
   mount('/api/notifications', notificationRoutes(opts.ds, opts.mail));
   mount('/api/suggestions', suggestionRoutes(opts.ds, opts.mail));
+  mount('/api/shops/:shopId/work-orders', shopWorkOrderRoutes(opts.ds));
   mount('/api/shops', shopRoutes(opts.ds, opts.mail));
+  mount('/api/work-orders/:workOrderId/invoice', workOrderInvoiceRoutes(opts.ds));
+  mount('/api/work-orders', workOrderRoutes(opts.ds, opts.mail));
+  mount('/api/invoices', invoiceRoutes(opts.ds, opts.payments));
   mount('/api/teams', teamRoutes(opts.ds, opts.mail));
   mount('/api/invitations', invitationRoutes(opts.ds, opts.mail));
   mount('/api/unsubscribe', unsubscribeRoutes(opts.ds, opts.mail));

@@ -34,6 +34,18 @@ const envSchema = z
     MAIL_FROM: z._default(z.string().check(z.trim(), z.minLength(3, 'MAIL_FROM must be an address such as Scrubline <no-reply@example.org>')), DEFAULT_MAIL_FROM),
     /** Development only: the folder of the local mail catcher, shown at /api/dev/mailbox. */
     MAILBOX_DIR: optionalText,
+    /** The payment service's secret API key (sk_live_…, sk_test_… or a restricted rk_… key). */
+    STRIPE_SECRET_KEY: z.optional(
+      z.string().check(z.trim(), z.regex(/^(sk|rk)_[A-Za-z0-9_]+$/, 'STRIPE_SECRET_KEY must be a secret key such as sk_live_… or sk_test_…')),
+    ),
+    /** The signing secret of the webhook endpoint registered with the payment service (whsec_…). */
+    STRIPE_WEBHOOK_SECRET: z.optional(
+      z.string().check(z.trim(), z.regex(/^whsec_[A-Za-z0-9_]+$/, 'STRIPE_WEBHOOK_SECRET must be a webhook signing secret such as whsec_…')),
+    ),
+    /** Development and tests only: the local fake payment service, http://127.0.0.1:PORT. Unset = the real service. */
+    STRIPE_API_URL: z.optional(
+      z.url({ protocol: /^https?$/, error: 'STRIPE_API_URL must be an http(s) address such as http://127.0.0.1:12111' }),
+    ),
   })
   .check(
     z.superRefine((env, ctx) => {
@@ -41,6 +53,18 @@ const envSchema = z
       if (!env.SMTP_URL) ctx.addIssue({ code: 'custom', path: ['SMTP_URL'], message: 'SMTP_URL is required in production (the mail provider e-mails are sent through)', input: env });
       if (!env.PUBLIC_URL) ctx.addIssue({ code: 'custom', path: ['PUBLIC_URL'], message: 'PUBLIC_URL is required in production (the address links in e-mails point at)', input: env });
       if (env.MAILBOX_DIR) ctx.addIssue({ code: 'custom', path: ['MAILBOX_DIR'], message: 'MAILBOX_DIR is for development only; unset it in production', input: env });
+      if (!env.STRIPE_SECRET_KEY) ctx.addIssue({ code: 'custom', path: ['STRIPE_SECRET_KEY'], message: 'STRIPE_SECRET_KEY is required in production (the payment service\'s secret key)', input: env });
+      if (!env.STRIPE_WEBHOOK_SECRET) ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: 'STRIPE_WEBHOOK_SECRET is required in production (the signing secret of the registered webhook)', input: env });
+      if (env.STRIPE_API_URL) ctx.addIssue({ code: 'custom', path: ['STRIPE_API_URL'], message: 'STRIPE_API_URL points at a local fake; unset it in production', input: env });
+    }),
+  )
+  .check(
+    z.superRefine((env, ctx) => {
+      // One without the other would take money and never hear back, or listen for payments it cannot start.
+      if (!!env.STRIPE_SECRET_KEY !== !!env.STRIPE_WEBHOOK_SECRET) {
+        const missing = env.STRIPE_SECRET_KEY ? 'STRIPE_WEBHOOK_SECRET' : 'STRIPE_SECRET_KEY';
+        ctx.addIssue({ code: 'custom', path: [missing], message: 'Set STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET together', input: env });
+      }
     }),
   );
 

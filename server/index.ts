@@ -9,6 +9,7 @@ import { createDataSource } from './db/data-source';
 import { seedDemoIfEmpty } from './db/seed';
 import { logger } from './lib/logger';
 import { smtpMailer, type MailSettings } from './mail/mailer';
+import { createPaymentSettings, type PaymentSettings } from './features/payments/payment-settings';
 
 export interface RunningServer {
   server: Server;
@@ -16,6 +17,8 @@ export interface RunningServer {
   seeded: boolean;
   /** How e-mails go out, or undefined when SMTP_URL is not set (development). */
   mail?: MailSettings;
+  /** The payment service, or undefined when STRIPE_SECRET_KEY is not set (invoices are then paid in cash only). */
+  payments?: PaymentSettings;
   close: () => Promise<void>;
 }
 
@@ -39,6 +42,16 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
     ? { mailer: smtpMailer(config.SMTP_URL, config.MAIL_FROM), publicUrl: config.PUBLIC_URL ?? localOrigin(config.HOST, config.PORT), from: config.MAIL_FROM }
     : undefined;
   if (!mail) logger.warn('SMTP_URL is not set: invitations, password resets and notifications are not e-mailed');
+  // Keys only ever come from the environment; STRIPE_API_URL points the SDK at the local fake.
+  const payments: PaymentSettings | undefined = config.STRIPE_SECRET_KEY && config.STRIPE_WEBHOOK_SECRET
+    ? createPaymentSettings({
+        secretKey: config.STRIPE_SECRET_KEY,
+        webhookSecret: config.STRIPE_WEBHOOK_SECRET,
+        apiUrl: config.STRIPE_API_URL,
+        publicUrl: config.PUBLIC_URL ?? localOrigin(config.HOST, config.PORT),
+      })
+    : undefined;
+  if (!payments) logger.warn('STRIPE_SECRET_KEY is not set: invoices can be marked paid in cash but not paid online');
   // The development mailbox shows every e-mail, reset links included: never in production.
   const mailboxDir = isProduction(config) ? undefined : config.MAILBOX_DIR;
 
@@ -56,6 +69,7 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
     },
     mail,
     mailboxDir,
+    payments,
   });
 
   const server = await new Promise<Server>((resolve, reject) => {
@@ -75,12 +89,14 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
   const port = typeof address === 'object' && address ? address.port : config.PORT;
   // The services hold this same object, so they pick up the real port (PORT=0 in tests).
   if (mail && !config.PUBLIC_URL) mail.publicUrl = localOrigin(config.HOST, port);
+  if (payments && !config.PUBLIC_URL) payments.publicUrl = localOrigin(config.HOST, port);
 
   return {
     server,
     port,
     seeded,
     mail,
+    payments,
     async close() {
       await new Promise<void>((resolve) => {
         server.close(() => resolve());

@@ -176,6 +176,26 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'PUT /api/teams/:teamId/factors': 'team.manage',
   'GET /api/teams/:teamId/board': 'team.read',
 
+  // Service visits (work orders)
+  'POST /api/cars/:carId/work-orders': 'car.service',
+  'GET /api/cars/:carId/work-orders': 'car.read',
+  'GET /api/shops/:shopId/work-orders': 'shop.read',
+  'GET /api/work-orders/:workOrderId': 'work_order.read',
+  'PATCH /api/work-orders/:workOrderId': 'work_order.edit',
+  'PUT /api/work-orders/:workOrderId/lines': 'work_order.edit',
+  'PUT /api/work-orders/:workOrderId/measurements/:stage': 'work_order.edit',
+  'PUT /api/work-orders/:workOrderId/build-sheet': 'work_order.edit',
+  'POST /api/work-orders/:workOrderId/close': 'work_order.edit',
+
+  // Invoices and payment
+  'PATCH /api/shops/:shopId/settings': 'shop.manage',
+  'POST /api/work-orders/:workOrderId/invoice': 'work_order.mark_paid',
+  'GET /api/work-orders/:workOrderId/invoice': 'work_order.read',
+  'POST /api/invoices/:invoiceId/checkout': 'work_order.pay',
+  'POST /api/invoices/:invoiceId/mark-paid': 'work_order.mark_paid',
+  /** The payment service's signed events: no session; the signature is the check. */
+  'POST /api/payments/webhook': 'public',
+
   'GET /api/invitations/:token': 'public',
   'POST /api/invitations/:token/accept': 'signed_in',
   'POST /api/unsubscribe/:token': 'public',

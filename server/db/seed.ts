@@ -4,7 +4,7 @@ import { UserEntity } from '../features/users/user.entity';
 import { ShopEntity, ShopMemberEntity } from '../features/shops/shop.entity';
 import { TeamEntity, TeamMemberEntity } from '../features/teams/team.entity';
 import { DEMO_ACCOUNTS, DEMO_CLASS_FACTORS, DEMO_PASSWORD, DEMO_SEASON_YEAR, DEMO_SHOP, DEMO_TEAM } from './demo-accounts';
-import { seedDemoSeason } from './demo-season';
+import { DEMO_CAMBER_ARMS_DATE, seedDemoSeason } from './demo-season';
 
 /** Fills an empty database with the demo scenario; does nothing when any account exists. */
 export async function seedDemoIfEmpty(ds: DataSource): Promise<boolean> {
@@ -42,6 +42,7 @@ export async function seedDemo(ds: DataSource): Promise<void> {
       teamId: team.id,
     });
     await seedDemoCollaboration(m, ids, shop.id, team.id);
+    await seedDemoServiceVisits(m, ids, shop.id);
   });
 }
 
@@ -74,4 +75,82 @@ async function seedDemoCollaboration(
       [teamId, DEMO_SEASON_YEAR, classCode, factor, ids.captain],
     );
   }
+}
+
+/**
+ * The shop's visits to Pebble: the mid-season camber-arm change, closed and handed over
+ * (linked to the setup snapshot and change-log entries the season already holds), and a
+ * coilover fit still open with its build sheet part-filled. Invented numbers.
+ */
+async function seedDemoServiceVisits(m: EntityManager, ids: Record<keyof typeof DEMO_ACCOUNTS, string>, shopId: string): Promise<void> {
+  const [pebble]: { id: string }[] = await m.query('SELECT id FROM cars WHERE owner_id = $1 ORDER BY created_at LIMIT 1', [ids.driver]);
+  const [arms]: { id: string; effective_from: Date }[] = await m.query(
+    'SELECT id, effective_from FROM setup_snapshots WHERE car_id = $1 AND effective_from::date = $2 AND created_by = $3',
+    [pebble!.id, DEMO_CAMBER_ARMS_DATE, ids.shopStaff],
+  );
+  const [closed]: { id: string }[] = await m.query(
+    `INSERT INTO work_orders (id, shop_id, car_id, opened_by, visit_date, requested_work, notes, status, handover_at, closed_by, setup_id)
+     VALUES (gen_random_uuid(), $1, $2, $3, $4, $5, $6, 'closed', $7, $3, $8) RETURNING id`,
+    [
+      shopId, pebble!.id, ids.shopStaff, DEMO_CAMBER_ARMS_DATE,
+      'Fit adjustable front camber arms, align to −2.4° front camber, corner-balance with the driver in',
+      'Stock arms were at the end of their adjustment. Driver in the seat (74 kg), half a tank.',
+      arms!.effective_from, arms!.id,
+    ],
+  );
+  await m.query('UPDATE setup_snapshots SET work_order_id = $1 WHERE id = $2', [closed!.id, arms!.id]);
+  await m.query('UPDATE change_log SET work_order_id = $1 WHERE car_id = $2 AND setup_id = $3', [closed!.id, pebble!.id, arms!.id]);
+  await m.query(
+    `INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES
+       ($1, 'part', 'Adjustable front camber arm', 2, 18950, 0),
+       ($1, 'labour', 'Fit arms, four-wheel alignment and corner balance', 2.5, 9500, 1)`,
+    [closed!.id],
+  );
+  const day = (time: string) => `${DEMO_CAMBER_ARMS_DATE}T${time}:00Z`;
+  await m.query(
+    `INSERT INTO work_order_stages (work_order_id, stage, measured_at, driver_in_car, driver_weight_kg, fuel_level_pct) VALUES
+       ($1, 'before', $2, true, 74, 50), ($1, 'after', $3, true, 74, 50)`,
+    [closed!.id, day('09:10'), day('14:40')],
+  );
+  // [stage, corner, camber °, toe mm, caster °, ride height mm, corner weight kg]
+  const readings: [string, string, number, number, number | null, number, number][] = [
+    ['before', 'lf', -1.1, -0.8, 5.5, 122, 258], ['before', 'rf', -1.2, -0.7, 5.6, 121, 249],
+    ['before', 'lr', -1.6, 1.0, null, 127, 266], ['before', 'rr', -1.5, 1.0, null, 128, 271],
+    ['after', 'lf', -2.4, 0, 5.6, 122, 256], ['after', 'rf', -2.4, 0, 5.6, 122, 251],
+    ['after', 'lr', -1.6, 1.0, null, 127, 268], ['after', 'rr', -1.6, 1.0, null, 127, 269],
+  ];
+  for (const [stage, corner, camber, toe, caster, ride, weight] of readings) {
+    await m.query(
+      `INSERT INTO work_order_measurements (work_order_id, stage, corner, camber_deg, toe_mm, caster_deg, ride_height_mm, corner_weight_kg)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8)`,
+      [closed!.id, stage, corner, camber, toe, caster, ride, weight],
+    );
+  }
+
+  // Still on the bench: coilovers going on, the fronts built, the rears half-way.
+  const [open]: { id: string }[] = await m.query(
+    `INSERT INTO work_orders (id, shop_id, car_id, opened_by, visit_date, requested_work, notes)
+     VALUES (gen_random_uuid(), $1, $2, $3, '2026-09-03', $4, $5) RETURNING id`,
+    [
+      shopId, pebble!.id, ids.shopStaff,
+      'Fit adjustable-body coilovers, set ride height, align and corner-balance',
+      'Customer supplied the dampers; springs from our stock. Keep the stock bump stops.',
+    ],
+  );
+  await m.query(
+    `INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES
+       ($1, 'part', 'Main spring 70 N/mm, 178 mm free', 2, 8900, 0),
+       ($1, 'part', 'Helper spring 10 N/mm', 2, 2400, 1),
+       ($1, 'labour', 'Coilover fit and build', 4, 9500, 2)`,
+    [open!.id],
+  );
+  await m.query(
+    `INSERT INTO build_sheet_corners (work_order_id, corner, damper_free_length_mm, damper_compressed_length_mm, reference_compressed_length_mm,
+            stroke_mm, body_length_setting, main_spring_rate_n_per_mm, main_spring_free_length_mm, helper_spring_rate_n_per_mm,
+            helper_spring_free_length_mm, perch_position_mm, preload_mm, bump_clicks, rebound_clicks, wheel_load_kg, wheel_droop_mm, bump_stop_mm)
+     VALUES ($1, 'lf', 480, 345, 352, 118, '38 mm of thread below the lock ring', 70, 178, 10, 60, 95, 2, 8, 10, 256, 75, 25),
+            ($1, 'rf', 480, 345, 352, 118, '38 mm of thread below the lock ring', 70, 178, 10, 60, 96, 2, 8, 10, 251, 75, 25),
+            ($1, 'lr', 470, 330, 350, 110, NULL, 50, NULL, NULL, NULL, NULL, NULL, NULL, NULL, 268, NULL, NULL)`,
+    [open!.id],
+  );
 }

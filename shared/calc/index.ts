@@ -13,3 +13,5 @@ export * from './droop.calc';
 export * from './wear.calc';
 export * from './comparison.calc';
 export * from './trend.calc';
+export * from './build-sheet.calc';
+export * from './invoice.calc';

@@ -2,7 +2,7 @@ import * as z from '../zod';
 import { versionSchema } from '../season/car.schema';
 
 /** What a thread hangs on. An event thread is per car: each car's people talk about their own day. */
-export const COMMENT_TARGETS = ['run', 'event', 'setup', 'tread_reading'] as const;
+export const COMMENT_TARGETS = ['run', 'event', 'setup', 'tread_reading', 'work_order'] as const;
 export type CommentTargetType = (typeof COMMENT_TARGETS)[number];
 
 const body = z

@@ -17,6 +17,36 @@ export const inviteInputSchema = z.strictObject({
 });
 export type InviteInput = z.infer<typeof inviteInputSchema>;
 
+/** What a shop sets for its own bench: invoice tax and currency, and the build sheet's compressed-length tolerance. */
+export const updateShopSettingsInputSchema = z.strictObject({
+  taxRatePct: z.optional(
+    z.number({ error: 'Enter the tax rate as a number' }).check(
+      z.gte(0, 'The tax rate must be between 0 and 50 %'),
+      z.lte(50, 'The tax rate must be between 0 and 50 %'),
+      z.refine((v) => Math.abs(v * 1000 - Math.round(v * 1000)) < 1e-6, 'Use at most three decimals, e.g. 8.875'),
+    ),
+  ),
+  currency: z.optional(
+    z.string({ error: 'Enter a currency code such as USD' }).check(z.trim(), z.toLowerCase(), z.regex(/^[a-z]{3}$/, 'Use a three-letter currency code such as USD or EUR')),
+  ),
+  compressedLengthToleranceMm: z.optional(
+    z.number({ error: 'Enter the tolerance in mm' }).check(
+      z.gte(0, 'The tolerance must be between 0 and 100 mm'),
+      z.lte(100, 'The tolerance must be between 0 and 100 mm'),
+    ),
+  ),
+});
+export type UpdateShopSettingsInput = z.infer<typeof updateShopSettingsInputSchema>;
+
+export interface ShopSettings {
+  /** Percent added to invoices, e.g. 8.875. */
+  taxRatePct: number;
+  /** ISO 4217 code, lower case as the payment service uses it, e.g. 'usd'. */
+  currency: string;
+  /** How much shorter than the reference a damper's compressed length may be before the build sheet warns, mm. */
+  compressedLengthToleranceMm: number;
+}
+
 export interface ShopSummary {
   id: string;
   name: string;
@@ -35,6 +65,7 @@ export interface Shop extends ShopSummary {
   /** The signed-in user's standing. */
   isShopAdmin: boolean;
   pendingInvitations: { email: string; asAdmin: boolean; expiresAt: string }[];
+  settings: ShopSettings;
 }
 
 /** A shop one of the user's shops: for the shop switcher. */

@@ -15,6 +15,7 @@ export interface TestAppOptions {
   idleMs?: number;
   mail?: AppOptions['mail'];
   mailboxDir?: string;
+  payments?: AppOptions['payments'];
 }
 
 /** Mail settings whose mailer keeps every message, for tests to read. */
@@ -48,6 +49,7 @@ export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string 
     },
     mail: opts.mail,
     mailboxDir: opts.mailboxDir,
+    payments: opts.payments,
     authLimits: { loginPerIp: 1000, registerPerIp: 1000, resetPerIp: 1000, resetPerEmail: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
   });
   return {

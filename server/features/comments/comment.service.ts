@@ -5,17 +5,19 @@ import type { Comment, CommentTarget, CommentTargetType, CreateCommentInput, Upd
 import { AppError, staleVersion } from '../../lib/app-error';
 import { insertUnlessPresent } from '../../lib/insert';
 import { allows } from '../../auth/access-matrix';
-import { assertCarAccess, assertEventAccess, carRelations, grantedShopOf, type CarAction, type Queryable } from '../../auth/access';
+import { assertCarAccess, assertEventAccess, assertWorkOrderAccess, carRelations, grantedShopOf, type CarAction, type Queryable } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
 import { actorLabel, carAudience, driverRecipients, notify, sendOutbox, staffRecipients } from '../notifications/notify';
+import { workOrderTarget } from '../work-orders/work-order.service';
 import { CommentEntity } from './comment.entity';
 
 /** The column each target type's id lives in. */
-const TARGET_COLUMN: Record<CommentTargetType, 'run_id' | 'event_id' | 'setup_id' | 'tread_reading_id'> = {
+const TARGET_COLUMN: Record<CommentTargetType, 'run_id' | 'event_id' | 'setup_id' | 'tread_reading_id' | 'work_order_id'> = {
   run: 'run_id',
   event: 'event_id',
   setup: 'setup_id',
   tread_reading: 'tread_reading_id',
+  work_order: 'work_order_id',
 };
 
 const NOT_FOUND: Record<CommentTargetType, string> = {
@@ -23,6 +25,7 @@ const NOT_FOUND: Record<CommentTargetType, string> = {
   event: 'That event was not found.',
   setup: 'That setup was not found.',
   tread_reading: 'That tread reading was not found.',
+  work_order: 'That work order was not found.',
 };
 
 /** What a thread hangs on, worked out: its car, where its people should be sent, and how to name it. */
@@ -34,6 +37,8 @@ interface ResolvedTarget {
   driverLink: string;
   /** "run 3 at Harbour Lot Sprint" */
   description: string;
+  /** A work-order thread: the visit's shop, which its staff sign with even after the car's grant is withdrawn. */
+  shop?: { id: string; name: string };
 }
 
 /**
@@ -78,6 +83,19 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
         driverLink: `/cars/${t.car_id}/tread`, description: `a tread reading of ${t.label}`,
       };
       break;
+    }
+    case 'work_order': {
+      // A visit has its own rule (the visit's shop keeps reading and commenting), not the car's.
+      const visit = await workOrderTarget(db, target.id);
+      if (!visit) throw missing();
+      const { relation } = await assertWorkOrderAccess(db, user, target.id, action === 'read' ? 'read' : 'comment');
+      const shopRows: { id: string; name: string }[] =
+        relation === 'shop_staff' ? await db.query('SELECT s.id, s.name FROM work_orders w JOIN shops s ON s.id = w.shop_id WHERE w.id = $1', [target.id]) : [];
+      return {
+        type: 'work_order', id: target.id, carId: visit.carId,
+        driverLink: `/work-orders/${target.id}`, description: visit.description,
+        ...(shopRows[0] ? { shop: shopRows[0] } : {}),
+      };
     }
     case 'event': {
       if (!target.carId) {
@@ -125,6 +143,7 @@ interface CommentRow {
   event_id: string | null;
   setup_id: string | null;
   tread_reading_id: string | null;
+  work_order_id: string | null;
   author_id: string;
   author_name: string;
   shop_id: string | null;
@@ -136,7 +155,7 @@ interface CommentRow {
 }
 
 const SELECT_COMMENTS = `
-  SELECT k.id, k.car_id, k.run_id, k.event_id, k.setup_id, k.tread_reading_id, k.author_id, u.display_name AS author_name,
+  SELECT k.id, k.car_id, k.run_id, k.event_id, k.setup_id, k.tread_reading_id, k.work_order_id, k.author_id, u.display_name AS author_name,
          k.shop_id, s.name AS shop_name, k.body, k.version, k.edited_at, k.created_at
     FROM comments k JOIN users u ON u.id = k.author_id LEFT JOIN shops s ON s.id = k.shop_id`;
 
@@ -186,7 +205,7 @@ export async function createComment(
   const target = await resolveTarget(ds, user, input.target, 'comment', 'target.carId');
   const relations = await carRelations(ds, user.id, target.carId);
   const drives = relations.includes('owner') || relations.includes('co_driver');
-  const shop = drives ? null : await grantedShopOf(ds, user.id, target.carId);
+  const shop = drives ? null : (target.shop ?? (await grantedShopOf(ds, user.id, target.carId)));
   const { id, created, outbox } = await ds.transaction(async (m) => {
     const { inserted, id: newId } = await insertUnlessPresent(m, CommentEntity, {
       id: input.id ?? randomUUID(),
@@ -195,6 +214,7 @@ export async function createComment(
       eventId: target.type === 'event' ? target.id : null,
       setupId: target.type === 'setup' ? target.id : null,
       treadReadingId: target.type === 'tread_reading' ? target.id : null,
+      workOrderId: target.type === 'work_order' ? target.id : null,
       authorId: user.id,
       shopId: shop?.id ?? null,
       body: input.body,

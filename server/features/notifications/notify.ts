@@ -23,6 +23,8 @@ export interface NewNotification {
   carId: string;
   commentId?: string;
   suggestionId?: string;
+  /** Set for notifications about a service visit. */
+  workOrderId?: string;
   /** One line naming who did what, e.g. "Dusty Okonjo (Kettle Lane Chassis Works) commented on run 3 at …". */
   summary: string;
   /** Shown under the summary in the e-mail: the comment, the suggestion's title, the decision's note. */
@@ -39,6 +41,8 @@ const SUBJECTS: Record<NotificationKind, (car: string) => string> = {
   suggestion: (car) => `A setup suggestion for ${car}`,
   suggestion_decided: (car) => `Your setup suggestion for ${car} was answered`,
   shop_grant: (car) => `${car} is now shared with your shop`,
+  work_order_closed: (car) => `The shop has finished work on ${car}`,
+  invoice_paid: (car) => `An invoice for ${car} was paid`,
 };
 
 const ACTIONS: Record<NotificationKind, string> = {
@@ -46,6 +50,8 @@ const ACTIONS: Record<NotificationKind, string> = {
   suggestion: 'Open the suggestion',
   suggestion_decided: 'Open the suggestion',
   shop_grant: 'Open the car',
+  work_order_closed: 'Open the car',
+  invoice_paid: 'Open the invoice',
 };
 
 /**
@@ -58,11 +64,11 @@ export async function notify(m: EntityManager, mail: MailSettings | undefined, n
   const recipients = n.recipients.filter((r) => !seen.has(r.userId) && seen.add(r.userId));
   if (recipients.length === 0) return [];
   await m.query(
-    `INSERT INTO notifications (user_id, kind, car_id, comment_id, suggestion_id, actor_id, summary, link)
-     SELECT r.user_id, $3, $4, $5, $6, $7, $8, r.link FROM unnest($1::uuid[], $2::text[]) AS r(user_id, link)`,
+    `INSERT INTO notifications (user_id, kind, car_id, comment_id, suggestion_id, actor_id, summary, link, work_order_id)
+     SELECT r.user_id, $3, $4, $5, $6, $7, $8, r.link, $9 FROM unnest($1::uuid[], $2::text[]) AS r(user_id, link)`,
     [
       recipients.map((r) => r.userId), recipients.map((r) => r.link),
-      n.kind, n.carId, n.commentId ?? null, n.suggestionId ?? null, n.actorId, n.summary,
+      n.kind, n.carId, n.commentId ?? null, n.suggestionId ?? null, n.actorId, n.summary, n.workOrderId ?? null,
     ],
   );
   if (!mail) return [];

@@ -2,8 +2,8 @@ import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import * as z from '@shared/zod';
 import {
-  createShopInputSchema, grantShopInputSchema, inviteInputSchema,
-  type CreateShopInput, type GrantShopInput, type InviteInput,
+  createShopInputSchema, grantShopInputSchema, inviteInputSchema, updateShopSettingsInputSchema,
+  type CreateShopInput, type GrantShopInput, type InviteInput, type UpdateShopSettingsInput,
 } from '@shared/collab/shop.schema';
 import { currentUser, requireAuth } from '../../auth/access';
 import { parsed, validate } from '../../lib/validate';
@@ -11,6 +11,7 @@ import { idParam, list } from '../../lib/http';
 import type { MailSettings } from '../../mail/mailer';
 import {
   createShop, getShop, grantShop, inviteStaff, listCustomers, listGrants, listShops, myShops, removeStaff, revokeShop,
+  updateShopSettings,
 } from './shop.service';
 
 const shopListQuery = z.object({ q: z.optional(z.string().check(z.maxLength(80, 'Use at most 80 characters'))) });
@@ -32,6 +33,10 @@ export function shopRoutes(ds: DataSource, mail?: MailSettings) {
   });
   router.get('/:shopId', shopParam, async (req, res) => {
     res.json(await getShop(ds, currentUser(req), parsed<{ shopId: string }>(res, 'params').shopId));
+  });
+  router.patch('/:shopId/settings', validate({ params: idParam('shopId'), body: updateShopSettingsInputSchema }), async (req, res) => {
+    const { shopId } = parsed<{ shopId: string }>(res, 'params');
+    res.json(await updateShopSettings(ds, currentUser(req), shopId, parsed<UpdateShopSettingsInput>(res, 'body')));
   });
   router.get('/:shopId/customers', shopParam, async (req, res) => {
     res.json(list(await listCustomers(ds, currentUser(req), parsed<{ shopId: string }>(res, 'params').shopId)));

@@ -1,6 +1,8 @@
 import type { DataSource } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
-import type { CreateShopInput, Customer, InviteInput, MyShop, Shop, ShopGrant, ShopSummary } from '@shared/collab/shop.schema';
+import type {
+  CreateShopInput, Customer, InviteInput, MyShop, Shop, ShopGrant, ShopSummary, UpdateShopSettingsInput,
+} from '@shared/collab/shop.schema';
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess, assertShopAccess, type Queryable } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
@@ -47,8 +49,23 @@ export async function getShop(ds: DataSource, user: User, shopId: string): Promi
   return loadShop(ds, user, shopId);
 }
 
+/** A shop admin sets the shop's tax rate, currency and build-sheet tolerance; fields left out stay as they are. */
+export async function updateShopSettings(ds: DataSource, user: User, shopId: string, input: UpdateShopSettingsInput): Promise<Shop> {
+  await assertShopAccess(ds, user, shopId, 'manage');
+  await ds.query(
+    `UPDATE shops SET tax_rate_pct = COALESCE($2, tax_rate_pct), currency = COALESCE($3, currency),
+            compressed_length_tolerance_mm = COALESCE($4, compressed_length_tolerance_mm)
+      WHERE id = $1`,
+    [shopId, input.taxRatePct ?? null, input.currency ?? null, input.compressedLengthToleranceMm ?? null],
+  );
+  return loadShop(ds, user, shopId);
+}
+
 async function loadShop(db: Queryable, user: User, shopId: string): Promise<Shop> {
-  const shops: { id: string; name: string }[] = await db.query('SELECT id, name FROM shops WHERE id = $1', [shopId]);
+  const shops: { id: string; name: string; tax_rate_pct: number; currency: string; compressed_length_tolerance_mm: number }[] = await db.query(
+    'SELECT id, name, tax_rate_pct, currency, compressed_length_tolerance_mm FROM shops WHERE id = $1',
+    [shopId],
+  );
   const shop = shops[0];
   if (!shop) throw new AppError('not_found', 'That shop was not found.');
   const staff: { id: string; display_name: string; email: string; is_shop_admin: boolean }[] = await db.query(
@@ -68,6 +85,7 @@ async function loadShop(db: Queryable, user: User, shopId: string): Promise<Shop
     staff: staff.map((s) => ({ id: s.id, displayName: s.display_name, email: s.email, isShopAdmin: s.is_shop_admin })),
     isShopAdmin: staff.some((s) => s.id === user.id && s.is_shop_admin),
     pendingInvitations: invitations.map((i) => ({ email: i.email, asAdmin: i.as_admin, expiresAt: i.expires_at.toISOString() })),
+    settings: { taxRatePct: shop.tax_rate_pct, currency: shop.currency, compressedLengthToleranceMm: shop.compressed_length_tolerance_mm },
   };
 }
 

@@ -14,18 +14,22 @@ import { listRoutes, type Mount } from '../../../server/lib/routes';
 import { createInvitation } from '../../../server/features/invitations/invitation.service';
 import { captureMail, client, makeTestApp, signedInClient, TEST_PASSWORD, type TestApp } from '../test-app';
 import { runBody, setupBody, type Client } from '../season/season-fixtures';
+import { startFakePayments, type FakePayments } from '../../../scripts/lib/fake-payments';
+import { fakeSettings } from '../service/invoice-fixtures';
 
 const ACTORS = ['owner', 'coDriver', 'otherDriver', 'grantedStaff', 'otherStaff', 'captain', 'member', 'admin', 'anon'] as const;
 type Actor = (typeof ACTORS)[number];
 
 let t: TestApp;
 let mailboxDir: string;
+let payments: FakePayments;
 let f: Awaited<ReturnType<typeof makeFixture>>;
 const people = {} as Record<Exclude<Actor, 'anon'>, { c: Client; id: string; email: string }>;
 
 beforeAll(async () => {
   mailboxDir = mkdtempSync(join(tmpdir(), 'scrubline-mailbox-'));
-  t = await makeTestApp({ mail: captureMail().settings, mailboxDir });
+  payments = await startFakePayments();
+  t = await makeTestApp({ mail: captureMail().settings, mailboxDir, payments: fakeSettings(payments) });
   for (const actor of ACTORS) {
     if (actor === 'anon') continue;
     const s = await signedInClient(t, { isAdmin: actor === 'admin', displayName: `Test ${actor}` });
@@ -35,6 +39,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await t.close();
+  await payments.stop();
   rmSync(mailboxDir, { recursive: true, force: true });
 });
 
@@ -96,6 +101,32 @@ async function newSuggestion(car: string, setup: string, shop: string) {
      VALUES ($1, $2, $3, $4, $5, 'More front camber', 'Outer shoulders are wearing', $6) RETURNING id`,
     [randomUUID(), car, setup, shop, people.grantedStaff.id, JSON.stringify([{ field: 'camberDeg', corners: ['lf', 'rf'], delta: -0.5 }])],
   );
+}
+
+/** An open service visit on the car by the granted shop (work orders). */
+async function newWorkOrder(car = f.car) {
+  return one(
+    `INSERT INTO work_orders (id, shop_id, car_id, opened_by, visit_date, requested_work) VALUES ($1, $2, $3, $4, '2026-06-12', 'Align') RETURNING id`,
+    [randomUUID(), f.grantedShop, car, people.grantedStaff.id],
+  );
+}
+
+/** A handed-over visit by the granted shop, with one labour line, and (unless told not to) its open invoice (invoices). */
+async function closedWorkOrder(withInvoice = true) {
+  const id = await one(
+    `INSERT INTO work_orders (id, shop_id, car_id, opened_by, visit_date, requested_work, status, handover_at, closed_by)
+     VALUES ($1, $2, $3, $4, '2026-06-12', 'Align', 'closed', '2026-06-12T16:00:00Z', $4) RETURNING id`,
+    [randomUUID(), f.grantedShop, f.car, people.grantedStaff.id],
+  );
+  await sql(`INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES ($1, 'labour', 'Alignment', 1, 9000, 0)`, [id]);
+  const invoice = withInvoice
+    ? await one(
+        `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents)
+         VALUES ($1, $2, $3, 'usd', 9000, 0, 0, 9000) RETURNING id`,
+        [id, f.grantedShop, f.car],
+      )
+    : null;
+  return { workOrder: id, invoice: invoice! };
 }
 
 async function newComment(run: string) {
@@ -338,6 +369,62 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     expect: teamManage(200),
   },
   'GET /api/teams/:teamId/board': { call: () => ({ path: `/api/teams/${f.team}/board?season=2026` }), expect: TEAM_READ },
+
+  // Service visits (work orders): the granted shop's staff open and edit them; the car's drivers read them.
+  'POST /api/cars/:carId/work-orders': {
+    call: () => ({ path: `/api/cars/${f.car}/work-orders`, body: { visitDate: '2026-06-12', requestedWork: 'Align' } }),
+    expect: [403, 403, 404, 201, 404, 404, 404, 404, 401],
+  },
+  'GET /api/cars/:carId/work-orders': { call: () => ({ path: `/api/cars/${f.car}/work-orders` }), expect: CAR_READ },
+  'GET /api/shops/:shopId/work-orders': { call: () => ({ path: `/api/shops/${f.grantedShop}/work-orders?status=open` }), expect: SHOP_READ },
+  'GET /api/work-orders/:workOrderId': { call: async () => ({ path: `/api/work-orders/${await newWorkOrder()}` }), expect: CAR_READ },
+  'PATCH /api/work-orders/:workOrderId': {
+    call: async () => ({ path: `/api/work-orders/${await newWorkOrder()}`, body: { notes: 'Checked', version: 1 } }),
+    expect: [403, 403, 404, 200, 404, 404, 404, 404, 401],
+  },
+  'PUT /api/work-orders/:workOrderId/lines': {
+    call: async () => ({
+      path: `/api/work-orders/${await newWorkOrder()}/lines`,
+      body: { lines: [{ kind: 'labour', description: 'Alignment', quantity: 1, unitPriceCents: 9000 }] },
+    }),
+    expect: [403, 403, 404, 200, 404, 404, 404, 404, 401],
+  },
+  'PUT /api/work-orders/:workOrderId/measurements/:stage': {
+    call: async () => ({
+      path: `/api/work-orders/${await newWorkOrder()}/measurements/before`,
+      body: { driverInCar: false, corners: { lf: { camberDeg: -1.1 } } },
+    }),
+    expect: [403, 403, 404, 200, 404, 404, 404, 404, 401],
+  },
+  'PUT /api/work-orders/:workOrderId/build-sheet': {
+    call: async () => ({ path: `/api/work-orders/${await newWorkOrder()}/build-sheet`, body: { corners: { lf: { strokeMm: 110 } } } }),
+    expect: [403, 403, 404, 200, 404, 404, 404, 404, 401],
+  },
+  'POST /api/work-orders/:workOrderId/close': {
+    call: async () => ({ path: `/api/work-orders/${await newWorkOrder()}/close`, body: { handoverAt: '2026-06-12T16:00:00Z' } }),
+    expect: [403, 403, 404, 200, 404, 404, 404, 404, 401],
+  },
+
+  // Invoices and payment: the visit's shop invoices and takes cash; the car's drivers pay online.
+  'PATCH /api/shops/:shopId/settings': {
+    call: () => ({ path: `/api/shops/${f.grantedShop}/settings`, body: { taxRatePct: 8.25 } }),
+    expect: [404, 404, 404, 200, 404, 404, 404, 404, 401],
+  },
+  'POST /api/work-orders/:workOrderId/invoice': {
+    call: async () => ({ path: `/api/work-orders/${(await closedWorkOrder(false)).workOrder}/invoice` }),
+    expect: [403, 403, 404, 201, 404, 404, 404, 404, 401],
+  },
+  'GET /api/work-orders/:workOrderId/invoice': { call: async () => ({ path: `/api/work-orders/${(await closedWorkOrder()).workOrder}/invoice` }), expect: CAR_READ },
+  'POST /api/invoices/:invoiceId/checkout': {
+    call: async () => ({ path: `/api/invoices/${(await closedWorkOrder()).invoice}/checkout` }),
+    expect: [200, 200, 404, 403, 404, 404, 404, 404, 401],
+  },
+  'POST /api/invoices/:invoiceId/mark-paid': {
+    call: async () => ({ path: `/api/invoices/${(await closedWorkOrder()).invoice}/mark-paid`, body: { method: 'cash' } }),
+    expect: [403, 403, 404, 200, 404, 404, 404, 404, 401],
+  },
+  // No session: the payment service's signature is the check, and an unsigned call is refused for everyone.
+  'POST /api/payments/webhook': { call: () => ({ path: '/api/payments/webhook', body: { id: 'evt_unsigned', type: 'checkout.session.completed' } }), expect: everyone(400) },
 
   'GET /api/invitations/:token': {
     call: async () => ({ path: `/api/invitations/${await invitationFor('someone@example.com')}` }),

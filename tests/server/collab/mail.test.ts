@@ -34,7 +34,11 @@ describe('mail configuration', () => {
 
   it('when NODE_ENV is production, then SMTP_URL and PUBLIC_URL are required and MAILBOX_DIR is refused', () => {
     expect(() => loadConfig({ ...BASE, NODE_ENV: 'production' })).toThrow(/SMTP_URL: SMTP_URL is required in production[\s\S]*PUBLIC_URL: PUBLIC_URL is required/);
-    const prod = { ...BASE, NODE_ENV: 'production', SMTP_URL: 'smtp://u:p@mail.example.org:587', PUBLIC_URL: 'https://scrubline.example.org' };
+    const prod = {
+      ...BASE, NODE_ENV: 'production', SMTP_URL: 'smtp://u:p@mail.example.org:587', PUBLIC_URL: 'https://scrubline.example.org',
+      // Also required in production (tested in service/payments.test.ts).
+      STRIPE_SECRET_KEY: 'sk_live_example', STRIPE_WEBHOOK_SECRET: 'whsec_example',
+    };
     expect(loadConfig(prod).PUBLIC_URL).toBe('https://scrubline.example.org');
     expect(() => loadConfig({ ...prod, MAILBOX_DIR: '/tmp/mailbox' })).toThrow(/MAILBOX_DIR is for development only/);
   });

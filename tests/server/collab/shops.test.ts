@@ -27,6 +27,8 @@ describe('POST /api/shops and GET /api/shops/mine', () => {
       staff: [{ id: user.id, displayName: 'Dusty Okonjo', email, isShopAdmin: true }],
       isShopAdmin: true,
       pendingInvitations: [],
+      // The defaults from the migration: no tax, US dollars, 15 mm compressed-length tolerance.
+      settings: { taxRatePct: 0, currency: 'usd', compressedLengthToleranceMm: 15 },
     });
     const mine = await c.get('/api/shops/mine');
     expect(mine.status).toBe(200);

@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import * as calc from '../../../shared/calc';
 import * as alignment from '../../../shared/calc/alignment.calc';
+import * as buildSheet from '../../../shared/calc/build-sheet.calc';
 import * as comparison from '../../../shared/calc/comparison.calc';
 import * as cornerWeights from '../../../shared/calc/corner-weights.calc';
 import * as droop from '../../../shared/calc/droop.calc';
+import * as invoice from '../../../shared/calc/invoice.calc';
 import * as pressure from '../../../shared/calc/pressure.calc';
 import * as scoring from '../../../shared/calc/scoring.calc';
 import * as suspension from '../../../shared/calc/suspension.calc';
@@ -29,6 +31,11 @@ const REQUIRED_FUNCTIONS = [
   'droopCheck',
   'bumpTravelAtWheelMm',
   'compressedLengthCheck',
+  'buildSheetChecks',
+  'buildSheetCornerChecks',
+  'balanceIfComplete',
+  'invoiceTotals',
+  'invoiceLineCents',
   'wearRateMmPerRun',
   'runsLeft',
   'innerOuterSkewMm',
@@ -49,7 +56,7 @@ describe('shared/calc/index.ts', () => {
   });
 
   it('when every topic module is compared with the index, then each of its exports is re-exported as the same value', () => {
-    const modules = { alignment, comparison, cornerWeights, droop, pressure, scoring, suspension, trend, tyre, units, wear };
+    const modules = { alignment, buildSheet, comparison, cornerWeights, droop, invoice, pressure, scoring, suspension, trend, tyre, units, wear };
     for (const [file, mod] of Object.entries(modules)) {
       for (const [name, value] of Object.entries(mod)) {
         expect(Object.hasOwn(calc, name), `${file}.${name} is missing from the index`).toBe(true);

@@ -1,0 +1,233 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { User } from '@shared/auth/auth.schema';
+import type { CheckoutRedirect, Invoice, InvoiceLine, InvoiceStatus, PaymentMethod } from '@shared/service/invoice.schema';
+import type { LineKind } from '@shared/service/work-order.schema';
+import { invoiceLineCents, invoiceTotals } from '@shared/calc/invoice.calc';
+import { AppError } from '../../lib/app-error';
+import { logger } from '../../lib/logger';
+import { assertWorkOrderAccess, type Queryable, type WorkOrderAction } from '../../auth/access';
+import type { PaymentSettings } from '../payments/payment-settings';
+
+/** The largest amount the invoices table holds (a PostgreSQL integer), in cents. */
+const MAX_CENTS = 2_147_483_647;
+
+interface InvoiceRow {
+  id: string;
+  work_order_id: string;
+  shop_id: string;
+  car_id: string;
+  currency: string;
+  subtotal_cents: number;
+  tax_rate_pct: number;
+  tax_cents: number;
+  total_cents: number;
+  status: InvoiceStatus;
+  paid_at: Date | null;
+  paid_method: PaymentMethod | null;
+  checkout_session_id: string | null;
+  created_at: Date;
+}
+
+interface LineRow {
+  kind: LineKind;
+  description: string;
+  quantity: string;
+  unit_price_cents: number;
+}
+
+const invoiceNotFound = () => new AppError('not_found', 'That invoice was not found.');
+
+async function linesOf(db: Queryable, workOrderId: string): Promise<LineRow[]> {
+  return db.query(
+    'SELECT kind, description, quantity, unit_price_cents FROM work_order_lines WHERE work_order_id = $1 ORDER BY position, id',
+    [workOrderId],
+  );
+}
+
+async function loadInvoice(db: Queryable, where: { id: string } | { workOrderId: string }): Promise<Invoice | null> {
+  const rows: InvoiceRow[] = await db.query(
+    `SELECT * FROM invoices WHERE ${'id' in where ? 'id' : 'work_order_id'} = $1`,
+    ['id' in where ? where.id : where.workOrderId],
+  );
+  const r = rows[0];
+  if (!r) return null;
+  const lines: InvoiceLine[] = (await linesOf(db, r.work_order_id)).map((l) => {
+    const quantity = Number(l.quantity);
+    return {
+      kind: l.kind,
+      description: l.description,
+      quantity,
+      unitPriceCents: l.unit_price_cents,
+      amountCents: invoiceLineCents({ quantity, unitPriceCents: l.unit_price_cents }),
+    };
+  });
+  return {
+    id: r.id,
+    workOrderId: r.work_order_id,
+    shopId: r.shop_id,
+    carId: r.car_id,
+    currency: r.currency,
+    lines,
+    subtotalCents: r.subtotal_cents,
+    taxRatePct: r.tax_rate_pct,
+    taxCents: r.tax_cents,
+    totalCents: r.total_cents,
+    status: r.status,
+    paidAt: r.paid_at?.toISOString() ?? null,
+    paidMethod: r.paid_method,
+    checkoutStarted: r.checkout_session_id !== null,
+    createdAt: r.created_at.toISOString(),
+  };
+}
+
+/** The invoice's work order, after checking the user may do `action` to it; 404 for an invoice they cannot see. */
+async function assertInvoiceAccess(db: Queryable, user: User, invoiceId: string, action: WorkOrderAction) {
+  const rows: { work_order_id: string }[] = await db.query('SELECT work_order_id FROM invoices WHERE id = $1', [invoiceId]);
+  const workOrderId = rows[0]?.work_order_id;
+  if (!workOrderId) throw invoiceNotFound();
+  try {
+    await assertWorkOrderAccess(db, user, workOrderId, action);
+  } catch (err) {
+    if (err instanceof AppError && err.code === 'not_found') throw invoiceNotFound();
+    throw err;
+  }
+  return workOrderId;
+}
+
+/**
+ * The shop invoices a closed visit: parts and labour from its lines, tax at the shop's rate,
+ * totals kept as issued. Asking again answers the invoice already made.
+ */
+export async function createInvoice(ds: DataSource, user: User, workOrderId: string): Promise<{ invoice: Invoice; created: boolean }> {
+  await assertWorkOrderAccess(ds, user, workOrderId, 'mark_paid');
+  const { id, created } = await ds.transaction(async (m) => {
+    const orders: { status: string; shop_id: string; car_id: string; tax_rate_pct: number; currency: string }[] = await m.query(
+      `SELECT w.status, w.shop_id, w.car_id, s.tax_rate_pct, s.currency
+         FROM work_orders w JOIN shops s ON s.id = w.shop_id WHERE w.id = $1 FOR UPDATE OF w`,
+      [workOrderId],
+    );
+    const order = orders[0];
+    if (!order) throw new AppError('not_found', 'That work order was not found.');
+    const existing: { id: string }[] = await m.query('SELECT id FROM invoices WHERE work_order_id = $1', [workOrderId]);
+    if (existing[0]) return { id: existing[0].id, created: false };
+    if (order.status !== 'closed') throw new AppError('conflict', 'Close the work order first; the invoice is made from the finished visit.');
+
+    // Rates are entered to at most three decimals; rounding here keeps an odd stored value from stopping the invoice.
+    const taxRatePct = Math.round(order.tax_rate_pct * 10_000) / 10_000;
+    const totals = invoiceTotals(
+      (await linesOf(m, workOrderId)).map((l) => ({ quantity: Number(l.quantity), unitPriceCents: l.unit_price_cents })),
+      taxRatePct,
+    );
+    if (totals.totalCents > MAX_CENTS) throw new AppError('conflict', 'This invoice would be too large to keep; split the work into smaller orders.');
+    const rows: { id: string }[] = await m.query(
+      `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8) RETURNING id`,
+      [workOrderId, order.shop_id, order.car_id, order.currency, totals.subtotalCents, taxRatePct, totals.taxCents, totals.totalCents],
+    );
+    return { id: rows[0]!.id, created: true };
+  });
+  return { invoice: (await loadInvoice(ds, { id }))!, created };
+}
+
+/** The visit's invoice, for its drivers and its shop; 404 while there is none. */
+export async function getWorkOrderInvoice(ds: DataSource, user: User, workOrderId: string): Promise<Invoice> {
+  await assertWorkOrderAccess(ds, user, workOrderId, 'read');
+  const invoice = await loadInvoice(ds, { workOrderId });
+  if (!invoice) throw new AppError('not_found', 'There is no invoice for this work order yet.');
+  return invoice;
+}
+
+/**
+ * A driver starts paying: a hosted checkout session for the invoice's total on the payment
+ * service, which sends them back to the work order afterwards. An open session already made
+ * for the invoice is reused.
+ */
+export async function startCheckout(
+  ds: DataSource,
+  payments: PaymentSettings | undefined,
+  user: User,
+  invoiceId: string,
+): Promise<CheckoutRedirect> {
+  const workOrderId = await assertInvoiceAccess(ds, user, invoiceId, 'pay');
+  if (!payments) throw new AppError('unavailable', 'Paying online is not set up on this server; pay the shop directly.');
+  const rows: (InvoiceRow & { shop_name: string; car_name: string })[] = await ds.query(
+    `SELECT i.*, s.name AS shop_name, c.name AS car_name
+       FROM invoices i JOIN shops s ON s.id = i.shop_id JOIN cars c ON c.id = i.car_id WHERE i.id = $1`,
+    [invoiceId],
+  );
+  const invoice = rows[0];
+  if (!invoice) throw invoiceNotFound();
+  if (invoice.status !== 'open') throw new AppError('conflict', 'This invoice is already paid.');
+  if (invoice.total_cents <= 0) throw new AppError('conflict', 'There is nothing to pay on this invoice.');
+
+  try {
+    if (invoice.checkout_session_id) {
+      const previous = await payments.stripe.checkout.sessions.retrieve(invoice.checkout_session_id);
+      if (previous.status === 'open' && previous.url) return { url: previous.url };
+    }
+    const back = `${payments.publicUrl}/work-orders/${workOrderId}`;
+    const session = await payments.stripe.checkout.sessions.create({
+      mode: 'payment',
+      line_items: [
+        {
+          quantity: 1,
+          price_data: {
+            currency: invoice.currency,
+            unit_amount: invoice.total_cents,
+            product_data: { name: `${invoice.shop_name}: service visit on ${invoice.car_name}` },
+          },
+        },
+      ],
+      metadata: { invoiceId, workOrderId },
+      client_reference_id: invoiceId,
+      success_url: `${back}?paid=1`,
+      cancel_url: back,
+    });
+    if (!session.url) throw new Error('The checkout session came back without a payment page address');
+    await ds.query(`UPDATE invoices SET checkout_session_id = $2 WHERE id = $1 AND status = 'open'`, [invoiceId, session.id]);
+    return { url: session.url };
+  } catch (err) {
+    logger.error({ err, invoiceId }, 'starting a checkout failed');
+    throw new AppError('unavailable', 'The payment service did not answer; try again in a minute.');
+  }
+}
+
+/** The shop took cash for an open invoice. */
+export async function markPaidInCash(ds: DataSource, user: User, invoiceId: string): Promise<Invoice> {
+  await assertInvoiceAccess(ds, user, invoiceId, 'mark_paid');
+  // Wrapped in a SELECT: TypeORM answers a bare UPDATE with [rows, count] rather than the rows.
+  const rows: { id: string }[] = await ds.query(
+    `WITH paid AS (
+       UPDATE invoices SET status = 'paid', paid_at = now(), paid_method = 'cash' WHERE id = $1 AND status = 'open' RETURNING id
+     ) SELECT id FROM paid`,
+    [invoiceId],
+  );
+  if (!rows[0]) throw new AppError('conflict', 'This invoice is already paid.');
+  return (await loadInvoice(ds, { id: invoiceId }))!;
+}
+
+export interface CardPayment {
+  invoiceId: string;
+  /** What the payment service took, in cents, and in which currency. */
+  amountCents: number | null;
+  currency: string | null;
+}
+
+/**
+ * Marks an invoice paid by card from a completed checkout, inside the caller's transaction.
+ * Answers the paid invoice's ids, or null when it was already paid or the amount does not match.
+ */
+export async function markPaidByCard(
+  m: EntityManager,
+  payment: CardPayment,
+): Promise<{ workOrderId: string; carId: string; shopId: string; totalCents: number; currency: string } | null> {
+  const rows: InvoiceRow[] = await m.query('SELECT * FROM invoices WHERE id = $1 FOR UPDATE', [payment.invoiceId]);
+  const invoice = rows[0];
+  if (!invoice || invoice.status !== 'open') return null;
+  if (payment.amountCents !== invoice.total_cents || payment.currency?.toLowerCase() !== invoice.currency) {
+    logger.warn({ invoiceId: invoice.id, paid: payment.amountCents, currency: payment.currency }, 'a completed checkout does not match its invoice; left open');
+    return null;
+  }
+  await m.query(`UPDATE invoices SET status = 'paid', paid_at = now(), paid_method = 'card' WHERE id = $1`, [invoice.id]);
+  return { workOrderId: invoice.work_order_id, carId: invoice.car_id, shopId: invoice.shop_id, totalCents: invoice.total_cents, currency: invoice.currency };
+}

@@ -1,0 +1,53 @@
+import * as z from '../zod';
+import type { LineKind } from './work-order.schema';
+
+/**
+ * The invoice for a closed service visit: its parts and labour, tax at the shop's rate and the
+ * total, worked out once when the invoice is made and kept as issued. Money in whole cents;
+ * currency as the lower-case ISO 4217 code the payment service uses ('usd').
+ */
+
+export const INVOICE_STATUSES = ['open', 'paid'] as const;
+export type InvoiceStatus = (typeof INVOICE_STATUSES)[number];
+export const PAYMENT_METHODS = ['card', 'cash'] as const;
+export type PaymentMethod = (typeof PAYMENT_METHODS)[number];
+
+export interface InvoiceLine {
+  kind: LineKind;
+  description: string;
+  /** Parts: how many; labour: hours. */
+  quantity: number;
+  unitPriceCents: number;
+  /** quantity × unit price, rounded to the cent. */
+  amountCents: number;
+}
+
+export interface Invoice {
+  id: string;
+  workOrderId: string;
+  shopId: string;
+  carId: string;
+  currency: string;
+  lines: InvoiceLine[];
+  subtotalCents: number;
+  taxRatePct: number;
+  taxCents: number;
+  totalCents: number;
+  status: InvoiceStatus;
+  paidAt: string | null;
+  paidMethod: PaymentMethod | null;
+  /** A driver has opened the hosted checkout at least once. */
+  checkoutStarted: boolean;
+  createdAt: string;
+}
+
+/** POST /api/invoices/:invoiceId/checkout answers where to send the driver to pay. */
+export interface CheckoutRedirect {
+  url: string;
+}
+
+/** The shop took the money over the counter. */
+export const markPaidInputSchema = z.strictObject({
+  method: z.literal('cash', { error: 'Only cash can be marked here; cards are paid through the checkout' }),
+});
+export type MarkPaidInput = z.infer<typeof markPaidInputSchema>;
