@@ -9,6 +9,7 @@ import {
   type UpdateWorkOrderInput, type WorkOrder, type WorkOrderStage, type WorkOrderStatus,
 } from '@shared/service/work-order.schema';
 import { balanceIfComplete, buildSheetChecks } from '@shared/calc/build-sheet.calc';
+import { invoiceLineCents } from '@shared/calc/invoice.calc';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { assertCarAccess, assertShopAccess, assertWorkOrderAccess, carRelations, grantedShopOf, type Queryable } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
@@ -111,7 +112,7 @@ export async function loadWorkOrder(db: Queryable, workOrderId: string): Promise
 
   const outLines = lines.map((l) => {
     const quantity = Number(l.quantity);
-    return { kind: l.kind, description: l.description, quantity, unitPriceCents: l.unit_price_cents, totalCents: Math.round(quantity * l.unit_price_cents) };
+    return { kind: l.kind, description: l.description, quantity, unitPriceCents: l.unit_price_cents, totalCents: invoiceLineCents({ quantity, unitPriceCents: l.unit_price_cents }) };
   });
   const sum = (kind: string) => outLines.filter((l) => l.kind === kind).reduce((a, l) => a + l.totalCents, 0);
   return {

@@ -192,6 +192,16 @@ describe('editing a visit', () => {
     expect(await countOf(t, 'SELECT count(*) AS n FROM work_order_lines WHERE work_order_id = $1', [workOrder.id])).toBe(2);
   });
 
+  it('when a line lands on half a cent, then the work order rounds it as the invoice will (half away from zero)', async () => {
+    const { staff, workOrder } = await openVisit();
+    // 0.29 h × 50 cents = 14.5 cents exactly → 15 cents; binary floating point gives 14.499… and would show 14.
+    const res = await staff.c.put(`/api/work-orders/${workOrder.id}/lines`, {
+      lines: [{ kind: 'labour', description: 'Check torque', quantity: 0.29, unitPriceCents: 50 }],
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.lines[0].totalCents).toBe(15);
+  });
+
   it('when measurements are out of range or the driver sat in without a weight, then 400 per field and nothing is written', async () => {
     const { staff, workOrder } = await openVisit();
     const url = `/api/work-orders/${workOrder.id}/measurements`;
