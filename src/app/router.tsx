@@ -157,6 +157,10 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                   lazy: async () => ({ Component: (await import('./routes/suggestions/suggestion')).SuggestionPage }),
                 },
                 {
+                  path: '/work-orders/:workOrderId',
+                  lazy: async () => ({ Component: (await import('./routes/work-orders/work-order')).WorkOrderPage }),
+                },
+                {
                   path: paths.teams,
                   lazy: async () => ({ Component: (await import('./routes/teams/teams')).TeamsPage }),
                 },

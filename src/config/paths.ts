@@ -34,6 +34,7 @@ export const pathTo = {
   newSuggestion: (carId: string, baseSetupId?: string | null) =>
     `/cars/${carId}/suggestions/new${baseSetupId ? `?from=${encodeURIComponent(baseSetupId)}` : ''}`,
   suggestion: (suggestionId: string) => `/suggestions/${suggestionId}`,
+  workOrder: (workOrderId: string) => `/work-orders/${workOrderId}`,
   team: (teamId: string) => `/teams/${teamId}`,
   classBoard: (teamId: string) => `/teams/${teamId}/board`,
   event: (eventId: string, carId?: string | null) =>

@@ -22,6 +22,7 @@ import { ChangeLog } from '@/features/changes/components/change-log';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { ShopAccess } from '@/features/shops/components/shop-access';
 import { SuggestionList } from '@/features/suggestions/components/suggestion-list';
+import { CarVisits } from '@/features/work-orders/components/work-order-lists';
 
 function SetupSection({ carId }: { carId: string }) {
   const { data: me } = useMe();
@@ -133,6 +134,11 @@ export function CarPage() {
           <SectionBoundary title="Suggestions from shops">
             <SectionCard title="Suggestions from shops">
               <SuggestionList carId={carId} emptyText="No suggestions yet. A shop you let in can suggest setup changes here." />
+            </SectionCard>
+          </SectionBoundary>
+          <SectionBoundary title="Shop visits">
+            <SectionCard title="Shop visits">
+              <CarVisits carId={carId} />
             </SectionCard>
           </SectionBoundary>
           <SectionBoundary title="Change log">

@@ -18,6 +18,7 @@ import { STATUS_WORDS } from '@/features/runs/utils/run-words';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupTimeline } from '@/features/setups/components/setup-timeline';
 import { SuggestionList } from '@/features/suggestions/components/suggestion-list';
+import { OpenWorkOrderForm } from '@/features/work-orders/components/work-order-lists';
 
 type SeasonEventRow = SeasonResult['events'][number];
 
@@ -155,6 +156,11 @@ export function CustomerPage() {
       </CarHeader>
       <div className="grid gap-4 lg:grid-cols-2">
         <div className="flex flex-col gap-4">
+          <SectionBoundary title="Open a work order">
+            <SectionCard title="Open a work order">
+              <OpenWorkOrderForm carId={carId} />
+            </SectionCard>
+          </SectionBoundary>
           <SectionBoundary title="Suggestions">
             <SectionCard title="Suggestions">
               <SuggestionList carId={carId} emptyText="No suggestions yet. Use “Suggest a change” on a setup snapshot." />

@@ -8,6 +8,7 @@ import { useShop } from '@/features/shops/api/get-shop';
 import { CustomerList } from '@/features/shops/components/customer-list';
 import { StaffSection } from '@/features/shops/components/staff-section';
 import { StartShopForm } from '@/features/shops/components/start-shop-form';
+import { ShopBoard } from '@/features/work-orders/components/work-order-lists';
 
 const SHOP_PARAM = 'shop';
 
@@ -63,6 +64,11 @@ export function ShopPage() {
         ) : null}
       </div>
       <div className="grid gap-4 lg:grid-cols-2">
+        <SectionBoundary title="Open work orders">
+          <SectionCard title="Open work orders">
+            <ShopBoard shopId={shop.id} />
+          </SectionCard>
+        </SectionBoundary>
         <SectionBoundary title="Customers">
           <SectionCard title="Customers">
             <CustomerList shopId={shop.id} />

@@ -1,0 +1,119 @@
+import { Link, useParams } from 'react-router-dom';
+import { useQuery } from '@tanstack/react-query';
+import { ArrowLeft, Printer } from 'lucide-react';
+import { pathTo } from '@/config/paths';
+import { Button, buttonClasses } from '@/components/ui/button';
+import { PageMessage } from '@/components/ui/page-message';
+import { SectionCard } from '@/components/ui/section-card';
+import { SectionBoundary } from '@/components/errors/section-boundary';
+import { isApiError } from '@/lib/api-client';
+import { CommentToggle } from '@/features/comments/components/comment-toggle';
+import { useMyShops } from '@/features/shops/api/get-my-shops';
+import { shopQueryOptions } from '@/features/shops/api/get-shop';
+import { useWorkOrder } from '@/features/work-orders/api/get-work-order';
+import { BuildSheetEditor, BuildSheetView, BuildSheetCautions } from '@/features/work-orders/components/build-sheet';
+import { CloseWorkOrderForm } from '@/features/work-orders/components/close-work-order-form';
+import { MeasurementsForm, MeasurementsView } from '@/features/work-orders/components/measurements';
+import { LinesEditor, LinesTable } from '@/features/work-orders/components/work-order-lines';
+import { WorkOrderHeader } from '@/features/work-orders/components/work-order-header';
+import { InvoiceSection } from '@/features/invoices/components/invoice-section';
+
+/** One shop visit: staff of the shop edit it while it is open; the car's drivers read it and comment. */
+export function WorkOrderPage() {
+  const { workOrderId = '' } = useParams();
+  const { data: workOrder, isPending, isError, error } = useWorkOrder(workOrderId);
+  const myShops = useMyShops();
+  const isStaff = Boolean(workOrder && myShops.data?.items.some((s) => s.id === workOrder.shop.id));
+  const shop = useQuery({ ...shopQueryOptions(workOrder?.shop.id ?? ''), enabled: isStaff });
+  const shopCurrency = isStaff ? shop.data?.settings.currency : undefined;
+
+  if (isPending) return <p className="text-ink-muted">Loading the work order…</p>;
+  if (isError) {
+    const missing = isApiError(error) && error.status === 404;
+    return (
+      <PageMessage variant="in-shell" title={missing ? 'Work order not found' : 'The work order could not be loaded'}>
+        <p>{missing ? 'It may be for a car you no longer have access to.' : 'Try again when you have signal.'}</p>
+      </PageMessage>
+    );
+  }
+
+  const canEdit = isStaff && workOrder.status === 'open';
+  const currency = shopCurrency ?? 'usd';
+  const back = isStaff ? pathTo.shopCustomer(workOrder.carId) : pathTo.car(workOrder.carId);
+
+  return (
+    <div className="flex max-w-3xl flex-col gap-6 print:max-w-none print:gap-2 print:text-xs">
+      <title>{`${workOrder.carName}: work order · Scrubline`}</title>
+      <div className="flex flex-col gap-2">
+        <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link print:hidden">
+          <ArrowLeft aria-hidden="true" className="size-4" /> {workOrder.carName}
+        </Link>
+        <WorkOrderHeader workOrder={workOrder} />
+        {workOrder.setupId ? (
+          <Link to={pathTo.car(workOrder.carId)} className={buttonClasses('secondary', 'self-start print:hidden')}>
+            See the setup snapshot it wrote
+          </Link>
+        ) : null}
+        <Button variant="secondary" className="self-start print:hidden" onClick={() => window.print()}>
+          <Printer aria-hidden="true" className="size-4" /> Print the handover sheet
+        </Button>
+      </div>
+
+      <SectionBoundary title="Measurements">
+        <SectionCard title="Measurements">
+          <MeasurementsView workOrder={workOrder} />
+          {canEdit ? (
+            <div className="flex flex-col gap-6 print:hidden">
+              <MeasurementsForm key={`before-${workOrder.version}`} workOrder={workOrder} stage="before" />
+              <MeasurementsForm key={`after-${workOrder.version}`} workOrder={workOrder} stage="after" />
+            </div>
+          ) : null}
+        </SectionCard>
+      </SectionBoundary>
+
+      <SectionBoundary title="Build sheet">
+        <SectionCard title="Build sheet">
+          <BuildSheetCautions />
+          {canEdit ? <BuildSheetEditor key={workOrder.version} workOrder={workOrder} /> : <BuildSheetView workOrder={workOrder} />}
+        </SectionCard>
+      </SectionBoundary>
+
+      <SectionBoundary title="Parts and labour">
+        <SectionCard title="Parts and labour">
+          {canEdit ? (
+            <>
+              <div className="hidden print:block">
+                <LinesTable workOrder={workOrder} currency={currency} />
+              </div>
+              <div className="print:hidden">
+                <LinesEditor key={`${workOrder.version}-${currency}`} workOrder={workOrder} currency={currency} />
+              </div>
+            </>
+          ) : (
+            <LinesTable workOrder={workOrder} currency={currency} />
+          )}
+        </SectionCard>
+      </SectionBoundary>
+
+      {canEdit ? (
+        <div className="print:hidden">
+          <SectionCard title="Close and hand over">
+            <CloseWorkOrderForm workOrder={workOrder} />
+          </SectionCard>
+        </div>
+      ) : null}
+
+      {workOrder.status === 'closed' ? (
+        <div className="print:hidden">
+          <SectionBoundary title="Invoice">
+            <InvoiceSection workOrderId={workOrder.id} isStaff={isStaff} />
+          </SectionBoundary>
+        </div>
+      ) : null}
+
+      <div className="print:hidden">
+        <CommentToggle target={{ type: 'work_order', id: workOrder.id }} what="this work order" />
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,53 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { CheckoutRedirect, Invoice, MarkPaidInput } from '@shared/service/invoice.schema';
+import { api } from '@/lib/api-client';
+import { invoiceKeys } from './invoice-keys';
+
+export function makeInvoice(workOrderId: string): Promise<Invoice> {
+  return api.post(`/api/work-orders/${encodeURIComponent(workOrderId)}/invoice`);
+}
+
+export function startCheckout(invoiceId: string): Promise<CheckoutRedirect> {
+  return api.post(`/api/invoices/${encodeURIComponent(invoiceId)}/checkout`);
+}
+
+export function markPaid(invoiceId: string, input: MarkPaidInput): Promise<Invoice> {
+  return api.post(`/api/invoices/${encodeURIComponent(invoiceId)}/mark-paid`, input);
+}
+
+/** Staff make the invoice for a closed visit (making it again answers the same one). */
+export function useMakeInvoice(workOrderId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => makeInvoice(workOrderId),
+    networkMode: 'always',
+    meta: { errorsShownInline: true },
+    onSuccess: (invoice) => queryClient.setQueryData(invoiceKeys.ofWorkOrder(workOrderId), invoice),
+  });
+}
+
+/** Leaving the app for the hosted checkout; one object so a test can watch it. */
+export const checkoutNavigation = {
+  go: (url: string) => window.location.assign(url),
+};
+
+/** The driver is sent to the hosted checkout; the page they come back to reads the result. */
+export function useStartCheckout() {
+  return useMutation({
+    mutationFn: (invoiceId: string) => startCheckout(invoiceId),
+    networkMode: 'always',
+    meta: { errorsShownInline: true },
+    onSuccess: ({ url }) => checkoutNavigation.go(url),
+  });
+}
+
+/** Staff took the money over the counter. */
+export function useMarkPaidInCash(workOrderId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (invoiceId: string) => markPaid(invoiceId, { method: 'cash' }),
+    networkMode: 'always',
+    meta: { errorsShownInline: true },
+    onSuccess: (invoice) => queryClient.setQueryData(invoiceKeys.ofWorkOrder(workOrderId), invoice),
+  });
+}

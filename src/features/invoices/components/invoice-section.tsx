@@ -1,0 +1,136 @@
+import { useSearchParams } from 'react-router-dom';
+import { CreditCard } from 'lucide-react';
+import type { Invoice } from '@shared/service/invoice.schema';
+import { Button } from '@/components/ui/button';
+import { FormAlert } from '@/components/ui/form-alert';
+import { SectionCard } from '@/components/ui/section-card';
+import { isApiError } from '@/lib/api-client';
+import { formatDateTime } from '@/lib/dates';
+import { useWorkOrderInvoice } from '../api/get-invoice';
+import { useMakeInvoice, useMarkPaidInCash, useStartCheckout } from '../api/pay-invoice';
+import { formatMoney } from '../utils/money';
+
+/** After coming back from the checkout, ask a few times while the payment service tells the server. */
+const PAID_POLL_MS = 2000;
+const PAID_POLL_TRIES = 5;
+
+const errorText = (error: unknown) => (error ? (isApiError(error) ? error.message : 'Something went wrong; try again.') : null);
+
+function InvoiceDetails({ invoice }: { invoice: Invoice }) {
+  const money = (cents: number) => formatMoney(cents, invoice.currency);
+  return (
+    <div className="flex flex-col gap-2">
+      <table className="tabular-figures w-full text-left text-sm">
+        <caption className="sr-only">Invoice lines</caption>
+        <thead>
+          <tr className="border-b border-line">
+            <th scope="col" className="py-1 pr-2">What</th>
+            <th scope="col" className="py-1 pr-2 text-right">Qty / hours</th>
+            <th scope="col" className="py-1 text-right">Amount</th>
+          </tr>
+        </thead>
+        <tbody>
+          {invoice.lines.map((line, i) => (
+            <tr key={i} className="border-b border-line">
+              <td className="py-1 pr-2 break-words">{line.description}</td>
+              <td className="py-1 pr-2 text-right">
+                {line.quantity}
+                {line.kind === 'labour' ? ' h' : ''} × {money(line.unitPriceCents)}
+              </td>
+              <td className="py-1 text-right">{money(line.amountCents)}</td>
+            </tr>
+          ))}
+        </tbody>
+        <tfoot>
+          <tr>
+            <th scope="row" colSpan={2} className="py-1 pr-2 text-right font-semibold">Subtotal</th>
+            <td className="py-1 text-right">{money(invoice.subtotalCents)}</td>
+          </tr>
+          <tr>
+            <th scope="row" colSpan={2} className="py-1 pr-2 text-right font-semibold">Tax ({invoice.taxRatePct} %)</th>
+            <td className="py-1 text-right">{money(invoice.taxCents)}</td>
+          </tr>
+          <tr>
+            <th scope="row" colSpan={2} className="py-1 pr-2 text-right text-lg font-extrabold">Total</th>
+            <td className="py-1 text-right text-lg font-extrabold">{money(invoice.totalCents)}</td>
+          </tr>
+        </tfoot>
+      </table>
+      <p className="font-bold" aria-label="Invoice status">
+        {invoice.status === 'paid'
+          ? `Paid${invoice.paidMethod === 'cash' ? ' in cash' : invoice.paidMethod === 'card' ? ' by card' : ''}${
+              invoice.paidAt ? ` on ${formatDateTime(invoice.paidAt)}` : ''
+            }`
+          : 'Not paid yet'}
+      </p>
+    </div>
+  );
+}
+
+/** The visit's invoice: staff make it and take cash; drivers pay online. */
+export function InvoiceSection({ workOrderId, isStaff }: { workOrderId: string; isStaff: boolean }) {
+  const [params] = useSearchParams();
+  const returnedPaid = params.get('paid') === '1';
+  const { data: invoice, isPending, isError, isFetching } = useWorkOrderInvoice(workOrderId, {
+    pollUntilPaid: returnedPaid ? { everyMs: PAID_POLL_MS, tries: PAID_POLL_TRIES } : null,
+  });
+  const waitingForPayment = returnedPaid && invoice?.status !== 'paid' && isFetching;
+  const make = useMakeInvoice(workOrderId);
+  const checkout = useStartCheckout();
+  const cash = useMarkPaidInCash(workOrderId);
+
+  return (
+    <SectionCard title="Invoice">
+      {isPending ? (
+        <p className="text-ink-muted">Loading the invoice…</p>
+      ) : isError ? (
+        <p className="text-ink-muted">The invoice could not be loaded. Try again shortly.</p>
+      ) : invoice === null ? (
+        isStaff ? (
+          <div className="flex flex-col gap-2">
+            <p className="text-ink-muted">No invoice yet. It lists the parts and labour with tax at the shop’s rate.</p>
+            <FormAlert message={errorText(make.error)} />
+            <Button className="self-start" isPending={make.isPending} pendingLabel="Making the invoice…" onClick={() => make.mutate()}>
+              Make the invoice
+            </Button>
+          </div>
+        ) : (
+          <p className="text-ink-muted">The shop has not sent an invoice yet.</p>
+        )
+      ) : (
+        <div className="flex flex-col gap-3">
+          {returnedPaid && invoice.status === 'paid' ? (
+            <p role="status" className="font-bold">
+              Payment received — thank you
+            </p>
+          ) : waitingForPayment ? (
+            <p role="status" className="text-ink-muted">
+              Checking the payment…
+            </p>
+          ) : returnedPaid && invoice.status !== 'paid' ? (
+            <p role="status" className="text-ink-muted">
+              The payment has not reached the shop yet. Reload this page in a minute.
+            </p>
+          ) : null}
+          <InvoiceDetails invoice={invoice} />
+          {invoice.status === 'open' ? (
+            <>
+              <FormAlert message={errorText(checkout.error) ?? errorText(cash.error)} />
+              <div className="flex flex-wrap gap-2">
+                {isStaff ? (
+                  <Button variant="secondary" isPending={cash.isPending} pendingLabel="Saving…" onClick={() => cash.mutate(invoice.id)}>
+                    Paid in cash
+                  </Button>
+                ) : (
+                  <Button isPending={checkout.isPending} pendingLabel="Opening the checkout…" onClick={() => checkout.mutate(invoice.id)}>
+                    <CreditCard aria-hidden="true" className="size-5" /> Pay online
+                  </Button>
+                )}
+              </div>
+            </>
+          ) : null}
+        </div>
+      )}
+    </SectionCard>
+  );
+}

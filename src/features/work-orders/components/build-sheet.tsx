@@ -1,0 +1,240 @@
+import { useState } from 'react';
+import { formatQuantity, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
+import { CORNERS, type Corner } from '@shared/season/corners';
+import {
+  BUILD_SHEET_FIELDS,
+  type BuildSheetCornerChecks,
+  type BuildSheetField,
+  type BuildSheetInput,
+  type WorkOrder,
+} from '@shared/service/work-order.schema';
+import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
+import { Button } from '@/components/ui/button';
+import { Caution } from '@/components/ui/caution';
+import { FormAlert } from '@/components/ui/form-alert';
+import { SegmentedControl } from '@/components/ui/segmented-control';
+import { TextField } from '@/components/ui/text-field';
+import { UnitInput } from '@/components/ui/unit-input';
+import { inputToSi, parseDecimal, toInputText, unitSymbol } from '@/lib/numbers';
+import { useUnits } from '@/lib/units-context';
+import { usePutBuildSheet } from '../api/edit-work-order';
+import { splitErrors } from '../utils/field-errors';
+
+type FieldKind = { kind: 'quantity'; quantity: Quantity } | { kind: 'clicks' } | { kind: 'text'; max: number };
+
+/** Each build-sheet field: its name and how it is typed. */
+const FIELD_INFO: Record<BuildSheetField, { label: string } & FieldKind> = {
+  damperFreeLengthMm: { label: 'Damper free length', kind: 'quantity', quantity: 'length' },
+  damperCompressedLengthMm: { label: 'Damper compressed length', kind: 'quantity', quantity: 'length' },
+  referenceCompressedLengthMm: { label: 'Reference compressed length', kind: 'quantity', quantity: 'length' },
+  strokeMm: { label: 'Stroke', kind: 'quantity', quantity: 'length' },
+  bodyLengthSetting: { label: 'Body length setting', kind: 'text', max: 40 },
+  mainSpringRateNPerMm: { label: 'Main spring rate', kind: 'quantity', quantity: 'springRate' },
+  mainSpringFreeLengthMm: { label: 'Main spring free length', kind: 'quantity', quantity: 'length' },
+  helperSpringRateNPerMm: { label: 'Helper spring rate', kind: 'quantity', quantity: 'springRate' },
+  helperSpringFreeLengthMm: { label: 'Helper spring free length', kind: 'quantity', quantity: 'length' },
+  perchPositionMm: { label: 'Perch position', kind: 'quantity', quantity: 'length' },
+  preloadMm: { label: 'Preload', kind: 'quantity', quantity: 'length' },
+  bumpClicks: { label: 'Bump clicks as delivered', kind: 'clicks' },
+  reboundClicks: { label: 'Rebound clicks as delivered', kind: 'clicks' },
+  wheelLoadKg: { label: 'Static wheel load', kind: 'quantity', quantity: 'mass' },
+  wheelDroopMm: { label: 'Wheel droop from ride height', kind: 'quantity', quantity: 'length' },
+  bumpStopMm: { label: 'Bump stop length', kind: 'quantity', quantity: 'length' },
+  notes: { label: 'Notes', kind: 'text', max: 500 },
+};
+
+function valueText(field: BuildSheetField, value: string | number | null, units: UnitPreferences): string {
+  const info = FIELD_INFO[field];
+  if (value === null) return '—';
+  if (info.kind === 'quantity') return formatQuantity(value as number, info.quantity, units);
+  return String(value);
+}
+
+/** The server's checks for one corner, in plain words. */
+export function CornerChecks({ checks, toleranceMm }: { checks: BuildSheetCornerChecks | null; toleranceMm: number }) {
+  const units = useUnits();
+  if (!checks) return null;
+  const mm = (v: number) => formatQuantity(v, 'length', units);
+  const lines: string[] = [];
+  if (checks.compressedLength) {
+    const d = checks.compressedLength.differenceMm;
+    const how = d === 0 ? 'the same as the reference' : `${mm(Math.abs(d))} ${d < 0 ? 'shorter' : 'longer'} than the reference`;
+    lines.push(
+      `Compressed length: ${how} — ${
+        checks.compressedLength.withinTolerance
+          ? `within the shop’s ${mm(toleranceMm)} tolerance.`
+          : d > 0
+            ? 'longer than the reference: the damper could bottom out before the original bump stop.'
+            : `more than ${mm(toleranceMm)} shorter: the wheel could travel into the body. Check clearances.`
+      }`,
+    );
+  }
+  if (checks.droop) {
+    lines.push(
+      checks.droop.seated
+        ? `Main spring stays seated at full droop (compressed ${mm(checks.droop.staticCompressionMm)} at ride height, extends ${mm(checks.droop.droopAtSpringMm)}).`
+        : `Main spring comes off its seat at full droop: a helper spring needs ${mm(checks.droop.shortfallMm)} of travel, or limit the droop.`,
+    );
+  }
+  if (checks.bumpTravelAtWheelMm !== null) lines.push(`Bump travel left at the wheel: ${mm(checks.bumpTravelAtWheelMm)}.`);
+  if (lines.length === 0 && checks.problems.length === 0) return null;
+  return (
+    <ul className="flex flex-col gap-1 text-sm" aria-label="Checks">
+      {lines.map((l) => (
+        <li key={l}>{l}</li>
+      ))}
+      {checks.problems.map((p) => (
+        <li key={p} className="font-semibold text-warning">
+          {p}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/** The usual cautions beside coilover work. */
+export function BuildSheetCautions() {
+  return (
+    <Caution>
+      <ul className="list-disc pl-4">
+        <li>Use proper spring compressors; a loaded spring can fly off.</li>
+        <li>Support the car on stands on firm, level ground — never work under a car held up by a jack alone.</li>
+        <li>Check clearances with the spring removed and the suspension compressed through its full travel.</li>
+        <li>Follow the damper maker’s data for lengths, preload and settings.</li>
+      </ul>
+    </Caution>
+  );
+}
+
+/** The build sheet as everyone reads it: each corner's values and checks. */
+export function BuildSheetView({ workOrder }: { workOrder: WorkOrder }) {
+  const units = useUnits();
+  const { corners, checks } = workOrder.buildSheet;
+  if (CORNERS.every((c) => corners[c] === null)) return <p className="text-ink-muted">No build sheet for this visit.</p>;
+  return (
+    <CornerGrid
+      label="Build sheet, per corner"
+      renderCorner={(corner) => {
+        const sheet = corners[corner];
+        if (!sheet) return <p className="text-sm text-ink-muted">Not filled in.</p>;
+        return (
+          <div className="flex flex-col gap-2">
+            <dl className="tabular-figures grid grid-cols-[1fr_auto] gap-x-2 text-sm">
+              {BUILD_SHEET_FIELDS.filter((f) => sheet[f] !== null).map((f) => (
+                <div key={f} className="contents">
+                  <dt className="text-ink-muted">{FIELD_INFO[f].label}</dt>
+                  <dd className="text-right break-words">{valueText(f, sheet[f], units)}</dd>
+                </div>
+              ))}
+            </dl>
+            <CornerChecks checks={checks[corner]} toleranceMm={workOrder.shop.compressedLengthToleranceMm} />
+          </div>
+        );
+      }}
+    />
+  );
+}
+
+type Texts = Record<Corner, Record<BuildSheetField, string>>;
+
+function toText(field: BuildSheetField, value: string | number | null | undefined, units: UnitPreferences): string {
+  const info = FIELD_INFO[field];
+  if (value === null || value === undefined) return '';
+  if (info.kind === 'quantity') return toInputText(value as number, info.quantity, units);
+  return String(value);
+}
+
+/** Staff fill the sheet one corner at a time; it is sent in SI. */
+export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
+  const units = useUnits();
+  const [corner, setCorner] = useState<Corner>('lf');
+  const [texts, setTexts] = useState<Texts>(
+    () =>
+      Object.fromEntries(
+        CORNERS.map((c) => [c, Object.fromEntries(BUILD_SHEET_FIELDS.map((f) => [f, toText(f, workOrder.buildSheet.corners[c]?.[f], units)]))]),
+      ) as Texts,
+  );
+  const [localErrors, setLocalErrors] = useState<Record<string, string>>({});
+  const save = usePutBuildSheet(workOrder.id);
+  const server = splitErrors(save.error);
+  const errorOf = (c: Corner, f: BuildSheetField) => localErrors[`corners.${c}.${f}`] ?? server.fields[`corners.${c}.${f}`];
+
+  const submit = () => {
+    const errors: Record<string, string> = {};
+    const corners: BuildSheetInput['corners'] = {};
+    for (const c of CORNERS) {
+      const out: Record<string, string | number | null> = {};
+      for (const f of BUILD_SHEET_FIELDS) {
+        const info = FIELD_INFO[f];
+        const text = texts[c][f];
+        if (info.kind === 'text') out[f] = text.trim() || null;
+        else if (info.kind === 'clicks') {
+          const n = parseDecimal(text);
+          if (n.kind === 'invalid' || (n.kind === 'number' && !Number.isInteger(n.value))) errors[`corners.${c}.${f}`] = 'Enter a whole number';
+          out[f] = n.kind === 'number' ? n.value : null;
+        } else {
+          const si = inputToSi(text, info.quantity, units);
+          if (si === 'invalid') errors[`corners.${c}.${f}`] = 'Enter a number';
+          out[f] = si === 'invalid' ? null : si;
+        }
+      }
+      corners[c] = out as BuildSheetInput['corners'][Corner];
+    }
+    setLocalErrors(errors);
+    const first = CORNERS.find((c) => BUILD_SHEET_FIELDS.some((f) => errors[`corners.${c}.${f}`]));
+    if (first) {
+      setCorner(first);
+      return;
+    }
+    save.mutate({ corners });
+  };
+
+  return (
+    <div className="flex flex-col gap-3">
+      <BuildSheetView workOrder={workOrder} />
+      <form
+        aria-label="Edit the build sheet"
+        className="flex flex-col gap-3 print:hidden"
+        onSubmit={(e) => {
+          e.preventDefault();
+          submit();
+        }}
+      >
+        <SegmentedControl
+          label="Corner to edit"
+          options={CORNERS.map((c) => ({ value: c, label: c.toUpperCase() }))}
+          value={corner}
+          onChange={setCorner}
+        />
+        <fieldset className="grid grid-cols-2 gap-2" aria-label={CORNER_NAMES[corner]}>
+          <legend className="col-span-2 font-bold">{CORNER_NAMES[corner]}</legend>
+          {BUILD_SHEET_FIELDS.map((f) => {
+            const info = FIELD_INFO[f];
+            const common = {
+              label: info.label,
+              value: texts[corner][f],
+              error: errorOf(corner, f),
+              onChange: (e: { target: { value: string } }) => {
+                const value = e.target.value;
+                setTexts((t) => ({ ...t, [corner]: { ...t[corner], [f]: value } }));
+              },
+            };
+            if (info.kind === 'text') return <TextField key={`${corner}-${f}`} {...common} maxLength={info.max} className="col-span-2" />;
+            return (
+              <UnitInput
+                key={`${corner}-${f}`}
+                {...common}
+                unit={info.kind === 'clicks' ? 'clicks' : unitSymbol(info.quantity, units)}
+              />
+            );
+          })}
+        </fieldset>
+        <FormAlert message={server.form} />
+        <Button type="submit" isPending={save.isPending} pendingLabel="Saving…" className="self-start">
+          Save the build sheet
+        </Button>
+        {save.isSuccess && !save.isPending ? <p role="status" className="text-sm text-ink-muted">Saved.</p> : null}
+      </form>
+    </div>
+  );
+}

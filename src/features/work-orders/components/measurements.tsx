@@ -1,0 +1,184 @@
+import { useState } from 'react';
+import { CORNERS, type Corner } from '@shared/season/corners';
+import { MEASUREMENT_FIELDS, type MeasurementField, type Stage, type WorkOrder, type WorkOrderStage } from '@shared/service/work-order.schema';
+import { formatQuantity } from '@shared/calc/units.calc';
+import { CornerGrid } from '@/components/corner-grid/corner-grid';
+import { Button } from '@/components/ui/button';
+import { FormAlert } from '@/components/ui/form-alert';
+import { UnitInput } from '@/components/ui/unit-input';
+import { formatDelta, inputToSi, parseDecimal, toInputText, unitSymbol } from '@/lib/numbers';
+import { useUnits } from '@/lib/units-context';
+import { usePutMeasurements } from '../api/edit-work-order';
+import { splitErrors } from '../utils/field-errors';
+import { MEASUREMENT_INFO, STAGE_WORDS } from '../utils/measurement-fields';
+
+function Balance({ stage }: { stage: WorkOrderStage }) {
+  const units = useUnits();
+  const how = [
+    stage.driverInCar ? `driver in the car (${formatQuantity(stage.driverWeightKg, 'mass', units)})` : 'no driver in the car',
+    stage.fuelLevelPct === null ? 'fuel not noted' : `fuel ${stage.fuelLevelPct} %`,
+  ].join(', ');
+  return (
+    <div className="tabular-figures flex flex-col gap-1 text-sm">
+      <p className="text-ink-muted">Measured with {how}.</p>
+      {stage.balance ? (
+        <p>
+          Total {formatQuantity(stage.balance.totalKg, 'mass', units)} · cross {stage.balance.crossPct.toFixed(1)} % · front{' '}
+          {stage.balance.frontPct.toFixed(1)} % · left {stage.balance.leftPct.toFixed(1)} %
+        </p>
+      ) : (
+        <p className="text-ink-muted">Cross, front and left % appear once all four corner weights are in.</p>
+      )}
+    </div>
+  );
+}
+
+/** Before and after side by side, each corner showing after's change from before. */
+export function MeasurementsView({ workOrder }: { workOrder: WorkOrder }) {
+  const units = useUnits();
+  const { before, after } = workOrder.stages;
+  if (!before && !after) return <p className="text-ink-muted">No measurements yet.</p>;
+  const cell = (corner: Corner, field: MeasurementField) => {
+    const info = MEASUREMENT_INFO[field];
+    const b = before?.corners[corner][field] ?? null;
+    const a = after?.corners[corner][field] ?? null;
+    const d = workOrder.diff[corner][field];
+    return (
+      <div key={field} className="tabular-figures flex flex-wrap justify-between gap-x-2 text-sm">
+        <span className="text-ink-muted">{info.label}</span>
+        <span>
+          {formatQuantity(b, info.quantity, units)} → {formatQuantity(a, info.quantity, units)}
+          {d !== null ? <span className="ml-1 font-semibold">{formatDelta(d, info.quantity, units)}</span> : null}
+        </span>
+      </div>
+    );
+  };
+  return (
+    <div className="flex flex-col gap-3">
+      <CornerGrid
+        label="Before → after, per corner"
+        renderCorner={(corner) => <div className="flex flex-col gap-0.5">{MEASUREMENT_FIELDS.map((f) => cell(corner, f))}</div>}
+      />
+      {(['before', 'after'] as const).map((s) => {
+        const stage = workOrder.stages[s];
+        return stage ? (
+          <div key={s} className="flex flex-col gap-1">
+            <h3 className="font-bold">{STAGE_WORDS[s]}</h3>
+            <Balance stage={stage} />
+          </div>
+        ) : null;
+      })}
+    </div>
+  );
+}
+
+type CornerTexts = Record<Corner, Record<MeasurementField, string>>;
+
+/** Staff type one stage's readings in their own units; they are sent in SI. */
+export function MeasurementsForm({ workOrder, stage }: { workOrder: WorkOrder; stage: Stage }) {
+  const units = useUnits();
+  const current = workOrder.stages[stage];
+  const [texts, setTexts] = useState<CornerTexts>(
+    () =>
+      Object.fromEntries(
+        CORNERS.map((c) => [
+          c,
+          Object.fromEntries(
+            MEASUREMENT_FIELDS.map((f) => [f, toInputText(current?.corners[c][f] ?? null, MEASUREMENT_INFO[f].quantity, units)]),
+          ),
+        ]),
+      ) as CornerTexts,
+  );
+  const [driverInCar, setDriverInCar] = useState(current?.driverInCar ?? false);
+  const [driverWeight, setDriverWeight] = useState(toInputText(current?.driverWeightKg ?? null, 'mass', units));
+  const [fuel, setFuel] = useState(current?.fuelLevelPct === null || current?.fuelLevelPct === undefined ? '' : String(current.fuelLevelPct));
+  const [localErrors, setLocalErrors] = useState<Record<string, string>>({});
+  const save = usePutMeasurements(workOrder.id, stage);
+  const server = splitErrors(save.error);
+  const errorOf = (key: string) => localErrors[key] ?? server.fields[key];
+
+  const submit = () => {
+    const errors: Record<string, string> = {};
+    const corners = Object.fromEntries(
+      CORNERS.map((c) => [
+        c,
+        Object.fromEntries(
+          MEASUREMENT_FIELDS.map((f) => {
+            const si = inputToSi(texts[c][f], MEASUREMENT_INFO[f].quantity, units);
+            if (si === 'invalid') errors[`corners.${c}.${f}`] = 'Enter a number';
+            return [f, si === 'invalid' ? null : si];
+          }),
+        ),
+      ]),
+    );
+    const weight = inputToSi(driverWeight, 'mass', units);
+    if (weight === 'invalid') errors.driverWeightKg = 'Enter a number';
+    const fuelParsed = parseDecimal(fuel);
+    if (fuelParsed.kind === 'invalid') errors.fuelLevelPct = 'Enter a number';
+    setLocalErrors(errors);
+    if (Object.keys(errors).length > 0) return;
+    save.mutate({
+      driverInCar,
+      driverWeightKg: weight === 'invalid' ? null : weight,
+      fuelLevelPct: fuelParsed.kind === 'number' ? fuelParsed.value : null,
+      corners,
+    });
+  };
+
+  const words = STAGE_WORDS[stage];
+  return (
+    <form
+      aria-label={`${words} measurements`}
+      className="flex flex-col gap-3"
+      onSubmit={(e) => {
+        e.preventDefault();
+        submit();
+      }}
+    >
+      <CornerGrid
+        label={`${words}: per corner`}
+        cornerInvalid={(c) => MEASUREMENT_FIELDS.some((f) => Boolean(errorOf(`corners.${c}.${f}`)))}
+        renderCorner={(corner) => (
+          <div className="flex flex-col gap-1">
+            {MEASUREMENT_FIELDS.map((f) => {
+              const info = MEASUREMENT_INFO[f];
+              return (
+                <UnitInput
+                  key={f}
+                  label={info.label}
+                  unit={unitSymbol(info.quantity, units)}
+                  signed={info.signed}
+                  value={texts[corner][f]}
+                  error={errorOf(`corners.${corner}.${f}`)}
+                  onChange={(e) => {
+                    const value = e.target.value;
+                    setTexts((t) => ({ ...t, [corner]: { ...t[corner], [f]: value } }));
+                  }}
+                />
+              );
+            })}
+          </div>
+        )}
+      />
+      <label className="flex min-h-tap items-center gap-2 font-semibold">
+        <input type="checkbox" className="size-5" checked={driverInCar} onChange={(e) => setDriverInCar(e.target.checked)} />
+        Driver in the car
+      </label>
+      <div className="grid grid-cols-2 gap-2">
+        <UnitInput
+          label="Driver weight"
+          unit={unitSymbol('mass', units)}
+          value={driverWeight}
+          error={errorOf('driverWeightKg')}
+          onChange={(e) => setDriverWeight(e.target.value)}
+        />
+        <UnitInput label="Fuel level" unit="%" value={fuel} error={errorOf('fuelLevelPct')} onChange={(e) => setFuel(e.target.value)} />
+      </div>
+      <FormAlert message={server.form} />
+      <Button type="submit" isPending={save.isPending} pendingLabel="Saving…" className="self-start">
+        Save {words.toLowerCase()} measurements
+      </Button>
+      {save.isSuccess && !save.isPending ? <p role="status" className="text-sm text-ink-muted">Saved.</p> : null}
+    </form>
+  );
+}

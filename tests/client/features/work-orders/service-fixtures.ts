@@ -1,0 +1,61 @@
+import type { Invoice } from '../../../../shared/service/invoice.schema';
+import type { MeasuredCorner, WorkOrder } from '../../../../shared/service/work-order.schema';
+import { COLLAB_IDS, SHOP_NAME } from '../../fixtures/collab';
+import { IDS } from '../../fixtures/season';
+
+/** An invented visit: Dusty's shop aligns Maren's roadster. */
+export const SERVICE_IDS = {
+  workOrder: '0a111111-1111-4111-8111-111111111111',
+  invoice: '1a111111-1111-4111-8111-111111111111',
+  newSetup: '52222222-2222-4222-8222-222222222222',
+} as const;
+
+const emptyCorner = (): MeasuredCorner => ({ camberDeg: null, toeMm: null, casterDeg: null, rideHeightMm: null, cornerWeightKg: null });
+const perCorner = <T,>(make: () => T) => ({ lf: make(), rf: make(), lr: make(), rr: make() });
+
+export function workOrder(partial: Partial<WorkOrder> = {}): WorkOrder {
+  return {
+    id: SERVICE_IDS.workOrder,
+    carId: IDS.car,
+    carName: 'Grey roadster',
+    shop: { id: COLLAB_IDS.shop, name: SHOP_NAME, compressedLengthToleranceMm: 13 },
+    openedBy: { id: COLLAB_IDS.dusty, displayName: 'Dusty Okonjo' },
+    visitDate: '2026-06-10',
+    requestedWork: 'Four-wheel alignment and corner weights',
+    notes: null,
+    status: 'open',
+    handoverAt: null,
+    closedBy: null,
+    setupId: null,
+    lines: [],
+    totals: { partsCents: 0, labourCents: 0, subtotalCents: 0 },
+    stages: { before: null, after: null },
+    diff: perCorner(emptyCorner),
+    buildSheet: { motionRatio: { front: null, rear: null }, corners: perCorner(() => null), checks: perCorner(() => null) },
+    version: 1,
+    createdAt: '2026-06-10T08:00:00.000Z',
+    updatedAt: '2026-06-10T08:00:00.000Z',
+    ...partial,
+  };
+}
+
+export function invoice(partial: Partial<Invoice> = {}): Invoice {
+  return {
+    id: SERVICE_IDS.invoice,
+    workOrderId: SERVICE_IDS.workOrder,
+    shopId: COLLAB_IDS.shop,
+    carId: IDS.car,
+    currency: 'usd',
+    lines: [{ kind: 'labour', description: 'Alignment', quantity: 1.5, unitPriceCents: 9000, amountCents: 13500 }],
+    subtotalCents: 13500,
+    taxRatePct: 8.875,
+    taxCents: 1198,
+    totalCents: 14698,
+    status: 'open',
+    paidAt: null,
+    paidMethod: null,
+    checkoutStarted: false,
+    createdAt: '2026-06-10T17:00:00.000Z',
+    ...partial,
+  };
+}

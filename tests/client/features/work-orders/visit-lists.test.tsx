@@ -1,0 +1,96 @@
+// @vitest-environment jsdom
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import type { CarWorkOrderSummary, ShopWorkOrderRow } from '../../../../shared/service/work-order.schema';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
+import { stubCarPage } from '../../fixtures/car-page';
+import { CAR, IDS, list, UUID } from '../../fixtures/season';
+import { COLLAB_IDS, SHOP, SHOP_NAME, staffUser } from '../../fixtures/collab';
+import { SERVICE_IDS, workOrder } from './service-fixtures';
+
+setUpAppTests([
+  () => import('@/app/routes/cars/car'),
+  () => import('@/app/routes/shop/shop'),
+  () => import('@/app/routes/shop/customer'),
+  () => import('@/app/routes/work-orders/work-order'),
+]);
+
+const VISIT: CarWorkOrderSummary = {
+  id: SERVICE_IDS.workOrder,
+  shop: { id: COLLAB_IDS.shop, name: SHOP_NAME },
+  visitDate: '2026-06-10',
+  requestedWork: 'Four-wheel alignment and corner weights',
+  status: 'closed',
+  handoverAt: '2026-06-10T16:30:00.000Z',
+  setupId: SERVICE_IDS.newSetup,
+};
+
+describe('shop visits on the car page', () => {
+  it('when the car has a closed visit, then it links to its work order and to the snapshot it wrote', async () => {
+    stubCarPage(undefined, { [`GET /api/cars/${IDS.car}/work-orders`]: list([VISIT]) });
+    renderApp(`/cars/${IDS.car}`);
+    const visits = await screen.findByRole('list', { name: 'Shop visits' });
+    const link = within(visits).getByRole('link', { name: new RegExp(SHOP_NAME) });
+    expect(link.getAttribute('href')).toBe(`/work-orders/${SERVICE_IDS.workOrder}`);
+    expect(within(visits).getByText('Four-wheel alignment and corner weights')).toBeTruthy();
+    expect(within(visits).getByRole('link', { name: 'Setup it wrote' }).getAttribute('href')).toBe(`#setup-${SERVICE_IDS.newSetup}`);
+  });
+});
+
+describe('the shop’s board', () => {
+  it('when the shop has an open work order, then the board lists it with a link to its page', async () => {
+    const row: ShopWorkOrderRow = {
+      id: SERVICE_IDS.workOrder,
+      car: { id: IDS.car, name: CAR.name },
+      owner: { id: IDS.maren, displayName: 'Maren Holt' },
+      visitDate: '2026-06-10',
+      requestedWork: 'Corner weights',
+      status: 'open',
+      handoverAt: null,
+    };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      'GET /api/shops/mine': list([{ id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 }]),
+      [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
+      [`GET /api/shops/${COLLAB_IDS.shop}/customers`]: list([]),
+      [`GET /api/shops/${COLLAB_IDS.shop}/work-orders?status=open`]: list([row]),
+    });
+    renderApp('/shop');
+    const board = await screen.findByRole('list', { name: 'Open work orders' });
+    expect(within(board).getByRole('link', { name: /Grey roadster/ }).getAttribute('href')).toBe(`/work-orders/${SERVICE_IDS.workOrder}`);
+    expect(within(board).getByText('Maren Holt')).toBeTruthy();
+  });
+});
+
+describe('opening a work order from a customer’s car', () => {
+  it('when staff open one, then it is sent with an id made here and the work order page opens', async () => {
+    const POST = `POST /api/cars/${IDS.car}/work-orders`;
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+      [`GET /api/cars/${IDS.car}/setups`]: list([]),
+      [`GET /api/cars/${IDS.car}/season?minDepthMm=1.6`]: jsonResponse(200, { carId: IDS.car, events: [], setupChanges: [], changeLog: [], tyreLife: [] }),
+      [`GET /api/cars/${IDS.car}/suggestions`]: list([]),
+      [POST]: ({ body }) => jsonResponse(201, workOrder({ id: (body as { id: string }).id })),
+      [`GET /api/work-orders/${SERVICE_IDS.workOrder}`]: jsonResponse(200, workOrder()),
+      'GET /api/shops/mine': list([{ id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 }]),
+      [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
+    });
+    const { router } = renderApp(`/shop/customers/${IDS.car}`);
+    const u = userEvent.setup();
+    const form = await screen.findByRole('form', { name: 'Open a work order' });
+    const date = within(form).getByLabelText('Visit date');
+    expect((date as HTMLInputElement).value).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    await u.clear(date);
+    await u.type(date, '2026-06-12');
+    await u.type(within(form).getByLabelText('Requested work'), 'Fit coilovers and align');
+    await u.click(within(form).getByRole('button', { name: 'Open a work order' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(1));
+    const body = requestsTo(fetchMock, POST)[0]!.body as { id: string; visitDate: string; requestedWork: string };
+    expect(body.id).toMatch(UUID);
+    expect(body).toMatchObject({ visitDate: '2026-06-12', requestedWork: 'Fit coilovers and align' });
+    await waitFor(() => expect(router.state.location.pathname).toBe(`/work-orders/${body.id}`));
+  });
+});
