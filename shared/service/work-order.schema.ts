@@ -217,7 +217,8 @@ export interface WorkOrder {
   id: string;
   carId: string;
   carName: string;
-  shop: { id: string; name: string; compressedLengthToleranceMm: number };
+  /** `currency`: the shop's, for every amount on the visit (ISO 4217, lower case). */
+  shop: { id: string; name: string; compressedLengthToleranceMm: number; currency: string };
   openedBy: { id: string; displayName: string };
   visitDate: string;
   requestedWork: string;

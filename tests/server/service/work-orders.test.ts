@@ -140,7 +140,11 @@ describe('editing a visit', () => {
   it('when drivers read the visit, then 200; when they edit it, then 403; another driver or shop gets 404', async () => {
     const { driver, co, workOrder } = await openVisit();
     const url = `/api/work-orders/${workOrder.id}`;
-    expect((await driver.c.get(url)).status).toBe(200);
+    // The driver reads amounts in the shop's own currency, though they cannot read the shop.
+    await t.ds.query(`UPDATE shops SET currency = 'eur' WHERE id = (SELECT shop_id FROM work_orders WHERE id = $1)`, [workOrder.id]);
+    const read = await driver.c.get(url);
+    expect(read.status).toBe(200);
+    expect(read.body.shop.currency).toBe('eur');
     expect((await co.c.get(url)).status).toBe(200);
     expectError(await driver.c.patch(url, { notes: 'x', version: 1 }), 403, 'forbidden');
     expectError(await co.c.put(`${url}/lines`, LINES), 403, 'forbidden');

@@ -1,5 +1,4 @@
 import { Link, useParams } from 'react-router-dom';
-import { useQuery } from '@tanstack/react-query';
 import { ArrowLeft, Printer } from 'lucide-react';
 import { pathTo } from '@/config/paths';
 import { Button, buttonClasses } from '@/components/ui/button';
@@ -9,7 +8,6 @@ import { SectionBoundary } from '@/components/errors/section-boundary';
 import { isApiError } from '@/lib/api-client';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { useMyShops } from '@/features/shops/api/get-my-shops';
-import { shopQueryOptions } from '@/features/shops/api/get-shop';
 import { useWorkOrder } from '@/features/work-orders/api/get-work-order';
 import { BuildSheetEditor, BuildSheetView, BuildSheetCautions } from '@/features/work-orders/components/build-sheet';
 import { CloseWorkOrderForm } from '@/features/work-orders/components/close-work-order-form';
@@ -24,8 +22,6 @@ export function WorkOrderPage() {
   const { data: workOrder, isPending, isError, error } = useWorkOrder(workOrderId);
   const myShops = useMyShops();
   const isStaff = Boolean(workOrder && myShops.data?.items.some((s) => s.id === workOrder.shop.id));
-  const shop = useQuery({ ...shopQueryOptions(workOrder?.shop.id ?? ''), enabled: isStaff });
-  const shopCurrency = isStaff ? shop.data?.settings.currency : undefined;
 
   if (isPending) return <p className="text-ink-muted">Loading the work order…</p>;
   if (isError) {
@@ -38,7 +34,7 @@ export function WorkOrderPage() {
   }
 
   const canEdit = isStaff && workOrder.status === 'open';
-  const currency = shopCurrency ?? 'usd';
+  const currency = workOrder.shop.currency;
   const back = isStaff ? pathTo.shopCustomer(workOrder.carId) : pathTo.car(workOrder.carId);
 
   return (

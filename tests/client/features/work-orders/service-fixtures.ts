@@ -18,7 +18,7 @@ export function workOrder(partial: Partial<WorkOrder> = {}): WorkOrder {
     id: SERVICE_IDS.workOrder,
     carId: IDS.car,
     carName: 'Grey roadster',
-    shop: { id: COLLAB_IDS.shop, name: SHOP_NAME, compressedLengthToleranceMm: 13 },
+    shop: { id: COLLAB_IDS.shop, name: SHOP_NAME, compressedLengthToleranceMm: 13, currency: 'usd' },
     openedBy: { id: COLLAB_IDS.dusty, displayName: 'Dusty Okonjo' },
     visitDate: '2026-06-10',
     requestedWork: 'Four-wheel alignment and corner weights',
