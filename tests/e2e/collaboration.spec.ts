@@ -35,7 +35,7 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
   it('when the shop opens a customer, comments on a run and suggests more front camber, then the suggestion is sent', async () => {
     const page = await signInAs('dusty@example.com', 'Dusty Okonjo');
     await page.getByRole('link', { name: /Your shop/ }).first().click();
-    await page.getByRole('link', { name: /Pebble/ }).first().click();
+    await page.getByRole('list', { name: 'Customers' }).getByRole('link', { name: /Pebble/ }).click();
     await page.getByRole('heading', { name: 'Setup history' }).waitFor({ timeout: 20_000 });
 
     // The newest event's runs, and a comment on its first run.
