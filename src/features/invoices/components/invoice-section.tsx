@@ -8,7 +8,7 @@ import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/dates';
 import { useWorkOrderInvoice } from '../api/get-invoice';
 import { useMakeInvoice, useMarkPaidInCash, useStartCheckout } from '../api/pay-invoice';
-import { formatMoney } from '../utils/money';
+import { formatMoney } from '@/lib/money';
 
 /** After coming back from the checkout, ask a few times while the payment service tells the server. */
 const PAID_POLL_MS = 2000;

@@ -8,7 +8,7 @@ import { UnitInput } from '@/components/ui/unit-input';
 import { parseDecimal } from '@/lib/numbers';
 import { useReplaceLines } from '../api/edit-work-order';
 import { splitErrors } from '../utils/field-errors';
-import { centsToMajorText, formatMoney, majorToCents } from '../utils/money';
+import { centsToMajorText, formatMoney, majorToCents } from '@/lib/money';
 
 const KIND_WORDS: Record<LineKind, string> = { part: 'Part', labour: 'Labour' };
 
