@@ -103,6 +103,8 @@ export interface Setup {
   derivedFromId: string | null;
   /** Set when the snapshot was made by accepting a shop's suggestion. */
   suggestion: { id: string; title: string; shopName: string } | null;
+  /** Set when the snapshot was written by closing a shop's work order (the car as handed back). */
+  workOrder: { id: string; shopName: string } | null;
   notes: string | null;
   corners: Record<Corner, SetupCorner>;
   axles: { front: { antiRollBar: string | null }; rear: { antiRollBar: string | null } };

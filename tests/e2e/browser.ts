@@ -4,18 +4,31 @@ import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 export const PHONE = { width: 390, height: 844 };
+export const DESKTOP = { width: 1280, height: 800 };
 export const SCREENSHOT_DIR = join(import.meta.dirname, '..', '..', 'test-results', 'e2e');
 
+export interface OpenBrowser {
+  context: BrowserContext;
+  page: Page;
+  close: () => Promise<void>;
+}
+
 /** Debian's Chromium through playwright-core, on a fresh profile; never a downloaded browser. */
-export async function openPhone(): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
+export function openPhone(): Promise<OpenBrowser> {
+  return openBrowser('phone');
+}
+
+/** A phone (390×844, touch) or a desktop window (1280×800, mouse), each on a fresh profile. */
+export async function openBrowser(size: 'phone' | 'desktop'): Promise<OpenBrowser> {
+  const phone = size === 'phone';
   const profile = mkdtempSync(join(tmpdir(), 'scrubline-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
-    viewport: PHONE,
-    deviceScaleFactor: 2,
-    isMobile: true,
-    hasTouch: true,
+    viewport: phone ? PHONE : DESKTOP,
+    deviceScaleFactor: phone ? 2 : 1,
+    isMobile: phone,
+    hasTouch: phone,
     args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
       '--disable-component-update', '--disable-sync'],
   });
@@ -30,9 +43,10 @@ export async function openPhone(): Promise<{ context: BrowserContext; page: Page
   };
 }
 
-export async function screenshot(page: Page, name: string) {
+/** The whole page by default; `{ fullPage: false }` for what the window shows (after a jump to an anchor). */
+export async function screenshot(page: Page, name: string, { fullPage = true }: { fullPage?: boolean } = {}) {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
   const path = join(SCREENSHOT_DIR, `${name}.png`);
-  await page.screenshot({ path, fullPage: true });
+  await page.screenshot({ path, fullPage });
   return path;
 }

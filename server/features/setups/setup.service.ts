@@ -33,6 +33,14 @@ async function toSetups(db: Db, snapshots: SetupSnapshotEntity[]): Promise<Setup
     [ids],
   );
   const suggestionOf = new Map(links.map((l) => [l.setup_id, { id: l.id, title: l.title, shopName: l.shop_name }]));
+  // Snapshots written by closing a shop's work order name the visit and the shop.
+  const visits: { setup_id: string; id: string; shop_name: string }[] = await db.query(
+    `SELECT s.id AS setup_id, w.id, sh.name AS shop_name
+       FROM setup_snapshots s JOIN work_orders w ON w.id = s.work_order_id JOIN shops sh ON sh.id = w.shop_id
+      WHERE s.id = ANY($1)`,
+    [ids],
+  );
+  const workOrderOf = new Map(visits.map((v) => [v.setup_id, { id: v.id, shopName: v.shop_name }]));
   return snapshots.map((s) => {
     const byCorner = Object.fromEntries(CORNERS.map((c) => [c, emptyCorner()])) as Record<Corner, SetupCorner>;
     for (const c of corners.filter((x) => x.setupId === s.id)) {
@@ -46,6 +54,7 @@ async function toSetups(db: Db, snapshots: SetupSnapshotEntity[]): Promise<Setup
       createdBy: { id: s.createdBy, displayName: nameOf.get(s.createdBy) ?? '' },
       derivedFromId: s.derivedFromId,
       suggestion: suggestionOf.get(s.id) ?? null,
+      workOrder: workOrderOf.get(s.id) ?? null,
       notes: s.notes,
       corners: byCorner,
       axles: { front: { antiRollBar: s.frontAntiRollBar }, rear: { antiRollBar: s.rearAntiRollBar } },

@@ -25,7 +25,7 @@ export function AppShell({ navItems, status, account, children }: AppShellProps)
       >
         Skip to content
       </a>
-      <header className="sticky top-0 z-30 border-b border-line bg-surface">
+      <header className="sticky top-0 z-30 border-b border-line bg-surface print:hidden">
         <div className="mx-auto flex min-h-tap-lg max-w-page items-center gap-3 px-4">
           <Link to={paths.home} className="inline-flex min-h-tap items-center rounded" aria-label="Scrubline, Home">
             <Wordmark />
@@ -37,7 +37,7 @@ export function AppShell({ navItems, status, account, children }: AppShellProps)
           </div>
         </div>
       </header>
-      <main id="main" tabIndex={-1} className="mx-auto w-full max-w-page flex-1 px-4 pt-6 pb-28 outline-none md:pb-10">
+      <main id="main" tabIndex={-1} className="mx-auto w-full max-w-page flex-1 px-4 pt-6 pb-28 outline-none md:pb-10 print:max-w-none print:p-0">
         {children}
       </main>
       <BottomNav items={navItems} />

@@ -6,7 +6,7 @@ import type { NavItem } from './nav-items';
 export function BottomNav({ items }: { items: readonly NavItem[] }) {
   const { pathname } = useLocation();
   return (
-    <nav aria-label="Main" className="pb-safe fixed inset-x-0 bottom-0 z-40 border-t border-line bg-surface md:hidden">
+    <nav aria-label="Main" className="pb-safe fixed inset-x-0 bottom-0 z-40 border-t border-line bg-surface md:hidden print:hidden">
       <ul className="mx-auto flex max-w-page">
         {items.map(({ to, label, icon: Icon, end, alsoActiveUnder }) => (
           <li key={to} className="flex-1">

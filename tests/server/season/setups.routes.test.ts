@@ -35,6 +35,7 @@ describe('POST /api/cars/:carId/setups', () => {
       createdBy: { id: d.user.id, displayName: 'Nell Ashdown' },
       derivedFromId: null,
       suggestion: null,
+      workOrder: null,
       notes: 'Pre-season',
       corners: {
         lf: { ...emptyCorner, camberDeg: -2.25, springRateNPerMm: 70 },

@@ -299,6 +299,9 @@ describe('POST /api/work-orders/:workOrderId/close', () => {
       effectiveFrom: '2026-06-12T16:30:00.000Z',
       createdBy: { id: staff.user.id },
       derivedFromId: setup.id,
+      // The snapshot names the visit and the shop, so the driver's timeline can link back to it.
+      workOrder: { id: workOrder.id, shopName: SHOP_NAME },
+      suggestion: null,
       axles: { front: { antiRollBar: 'hole 2' }, rear: { antiRollBar: 'disconnected' } },
     });
     // After-measurements laid over the baseline; the sheet's spring and clicks on LF; pressures kept from the baseline.

@@ -38,7 +38,7 @@ export function WorkOrderPage() {
   const back = isStaff ? pathTo.shopCustomer(workOrder.carId) : pathTo.car(workOrder.carId);
 
   return (
-    <div className="flex max-w-3xl flex-col gap-6 print:max-w-none print:gap-2 print:text-xs">
+    <div className="handover-sheet flex max-w-3xl flex-col gap-6 print:max-w-none print:gap-1">
       <title>{`${workOrder.carName}: work order · Scrubline`}</title>
       <div className="flex flex-col gap-2">
         <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link print:hidden">
@@ -46,7 +46,7 @@ export function WorkOrderPage() {
         </Link>
         <WorkOrderHeader workOrder={workOrder} />
         {workOrder.setupId ? (
-          <Link to={pathTo.car(workOrder.carId)} className={buttonClasses('secondary', 'self-start print:hidden')}>
+          <Link to={`${back}#setup-${workOrder.setupId}`} className={buttonClasses('secondary', 'self-start print:hidden')}>
             See the setup snapshot it wrote
           </Link>
         ) : null}
@@ -58,10 +58,11 @@ export function WorkOrderPage() {
       <SectionBoundary title="Measurements">
         <SectionCard title="Measurements">
           <MeasurementsView workOrder={workOrder} />
+          {/* Each form keeps what is typed in it: saving one section must not wipe another's unsaved values. */}
           {canEdit ? (
             <div className="flex flex-col gap-6 print:hidden">
-              <MeasurementsForm key={`before-${workOrder.version}`} workOrder={workOrder} stage="before" />
-              <MeasurementsForm key={`after-${workOrder.version}`} workOrder={workOrder} stage="after" />
+              <MeasurementsForm workOrder={workOrder} stage="before" />
+              <MeasurementsForm workOrder={workOrder} stage="after" />
             </div>
           ) : null}
         </SectionCard>
@@ -70,7 +71,7 @@ export function WorkOrderPage() {
       <SectionBoundary title="Build sheet">
         <SectionCard title="Build sheet">
           <BuildSheetCautions />
-          {canEdit ? <BuildSheetEditor key={workOrder.version} workOrder={workOrder} /> : <BuildSheetView workOrder={workOrder} />}
+          {canEdit ? <BuildSheetEditor workOrder={workOrder} /> : <BuildSheetView workOrder={workOrder} />}
         </SectionCard>
       </SectionBoundary>
 
@@ -82,7 +83,7 @@ export function WorkOrderPage() {
                 <LinesTable workOrder={workOrder} currency={currency} />
               </div>
               <div className="print:hidden">
-                <LinesEditor key={`${workOrder.version}-${currency}`} workOrder={workOrder} currency={currency} />
+                <LinesEditor key={currency} workOrder={workOrder} currency={currency} />
               </div>
             </>
           ) : (

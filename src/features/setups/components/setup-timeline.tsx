@@ -1,6 +1,6 @@
-import type { ReactNode } from 'react';
-import { Link } from 'react-router-dom';
-import { Lightbulb } from 'lucide-react';
+import { useEffect, type ReactNode } from 'react';
+import { Link, useLocation } from 'react-router-dom';
+import { Lightbulb, Wrench } from 'lucide-react';
 import { diffSetups } from '@shared/season/setup-diff';
 import { pathTo } from '@/config/paths';
 import { buttonClasses } from '@/components/ui/button';
@@ -59,6 +59,36 @@ function SuggestionBadge({ setup }: { setup: SetupView }) {
   );
 }
 
+/** "handed back by Kettle Lane Chassis Works", linking to the work order that wrote the snapshot. */
+function VisitBadge({ setup }: { setup: SetupView }) {
+  const visit = setup.workOrder;
+  if (!visit) return null;
+  return (
+    <Link
+      to={pathTo.workOrder(visit.id)}
+      className="inline-flex min-h-tap items-center gap-1 self-start rounded bg-accent-soft px-2 text-sm font-semibold text-link"
+    >
+      <Wrench aria-hidden="true" className="size-4 shrink-0" />
+      <span className="break-words">handed back by {visit.shopName}: the work order</span>
+    </Link>
+  );
+}
+
+/**
+ * A link such as /cars/…#setup-<id> lands on one snapshot. The list arrives after the page has
+ * drawn, so the browser's own jump to the anchor has nothing to find; do it once the item exists.
+ */
+function useScrollToSnapshot(count: number) {
+  const { hash } = useLocation();
+  useEffect(() => {
+    if (!hash.startsWith('#setup-')) return;
+    const target = document.getElementById(decodeURIComponent(hash.slice(1)));
+    if (!target) return;
+    target.scrollIntoView({ block: 'start' });
+    target.focus({ preventScroll: true });
+  }, [hash, count]);
+}
+
 interface SetupTimelineProps {
   carId: string;
   setups: readonly SetupView[];
@@ -70,6 +100,7 @@ interface SetupTimelineProps {
 
 /** A car's setup history, newest first: each snapshot with what changed from the one before it. */
 export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }: SetupTimelineProps) {
+  useScrollToSnapshot(setups.length);
   if (setups.length === 0) {
     return <EmptyState message="No setup recorded yet. Record the car as it is now to compare later changes against it." />;
   }
@@ -79,7 +110,12 @@ export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }:
         const before = setups[i + 1];
         return (
           // The id lets a link land on one snapshot (the suggestion page's "Open the new setup").
-          <li key={setup.id} id={`setup-${setup.id}`} className="flex flex-col gap-2 rounded border border-line p-3">
+          <li
+            key={setup.id}
+            id={`setup-${setup.id}`}
+            tabIndex={-1}
+            className="flex scroll-mt-4 flex-col gap-2 rounded border border-line p-3 focus:ring-2 focus:ring-accent focus:outline-none"
+          >
             <div className="flex flex-wrap items-baseline justify-between gap-2">
               <h3 className="font-bold">{setup.label}</h3>
               {setup.pending ? <PendingBadge state={setup.pending.state} /> : null}
@@ -88,6 +124,7 @@ export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }:
               From {formatDateTime(setup.effectiveFrom)} · by {setup.createdBy.displayName || 'someone'}
             </p>
             <SuggestionBadge setup={setup} />
+            <VisitBadge setup={setup} />
             {before ? (
               <div className="flex flex-col gap-1">
                 <p className="text-sm text-ink-muted">Changes from “{before.label}”:</p>

@@ -109,6 +109,7 @@ export function mergePendingSetups(
         createdBy: me,
         derivedFromId: body.derivedFromId ?? null,
         suggestion: null,
+        workOrder: null,
         notes: body.notes ?? null,
         corners: Object.fromEntries(CORNERS.map((c) => [c, { ...emptyCorner(), ...(body.corners?.[c] ?? {}) }])) as Record<Corner, SetupCorner>,
         axles: {
@@ -133,6 +134,7 @@ export function mergePendingSetups(
         createdBy: me,
         derivedFromId: base?.id ?? null,
         suggestion: null,
+        workOrder: null,
         notes: body.notes ?? null,
         corners,
         axles: base?.axles ?? { front: { antiRollBar: null }, rear: { antiRollBar: null } },

@@ -108,9 +108,72 @@ export function BuildSheetCautions() {
 
 /** The build sheet as everyone reads it: each corner's values and checks. */
 export function BuildSheetView({ workOrder }: { workOrder: WorkOrder }) {
+  const { corners } = workOrder.buildSheet;
+  if (CORNERS.every((c) => corners[c] === null)) return <p className="text-ink-muted">No build sheet for this visit.</p>;
+  return (
+    <>
+      <div className="print:hidden">
+        <BuildSheetGrid workOrder={workOrder} />
+      </div>
+      <div className="hidden print:block">
+        <BuildSheetTable workOrder={workOrder} />
+      </div>
+    </>
+  );
+}
+
+/**
+ * On paper: one row per value, one column per corner, so the whole sheet fits on the handover
+ * page beside the measurements; each corner's checks follow the table.
+ */
+function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
   const units = useUnits();
   const { corners, checks } = workOrder.buildSheet;
-  if (CORNERS.every((c) => corners[c] === null)) return <p className="text-ink-muted">No build sheet for this visit.</p>;
+  const fields = BUILD_SHEET_FIELDS.filter((f) => CORNERS.some((c) => (corners[c]?.[f] ?? null) !== null));
+  return (
+    <div className="flex flex-col gap-1">
+      <table className="tabular-figures w-full text-left">
+        <caption className="sr-only">Build sheet</caption>
+        <thead>
+          <tr className="border-b border-line">
+            <th scope="col">Value</th>
+            {CORNERS.map((c) => (
+              <th key={c} scope="col" className="text-right">
+                {CORNER_NAMES[c]}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {fields.map((f) => (
+            <tr key={f} className="border-b border-line">
+              <th scope="row" className="pr-2 font-normal">
+                {FIELD_INFO[f].label}
+              </th>
+              {CORNERS.map((c) => (
+                <td key={c} className="pl-2 text-right break-words">
+                  {valueText(f, corners[c]?.[f] ?? null, units)}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {CORNERS.map((c) =>
+        checks[c] ? (
+          <div key={c} className="flex gap-1">
+            <span className="font-bold">{CORNER_NAMES[c]}:</span>
+            <CornerChecks checks={checks[c]} toleranceMm={workOrder.shop.compressedLengthToleranceMm} />
+          </div>
+        ) : null,
+      )}
+    </div>
+  );
+}
+
+function BuildSheetGrid({ workOrder }: { workOrder: WorkOrder }) {
+  const units = useUnits();
+  const { corners, checks } = workOrder.buildSheet;
   return (
     <CornerGrid
       label="Build sheet, per corner"

@@ -54,20 +54,22 @@ export function MeasurementsView({ workOrder }: { workOrder: WorkOrder }) {
     );
   };
   return (
-    <div className="flex flex-col gap-3">
+    <div className="flex flex-col gap-3 print:grid print:grid-cols-[3fr_2fr] print:items-start">
       <CornerGrid
         label="Before → after, per corner"
         renderCorner={(corner) => <div className="flex flex-col gap-0.5">{MEASUREMENT_FIELDS.map((f) => cell(corner, f))}</div>}
       />
-      {(['before', 'after'] as const).map((s) => {
-        const stage = workOrder.stages[s];
-        return stage ? (
-          <div key={s} className="flex flex-col gap-1">
-            <h3 className="font-bold">{STAGE_WORDS[s]}</h3>
-            <Balance stage={stage} />
-          </div>
-        ) : null;
-      })}
+      <div className="flex flex-col gap-3">
+        {(['before', 'after'] as const).map((s) => {
+          const stage = workOrder.stages[s];
+          return stage ? (
+            <div key={s} className="flex flex-col gap-1">
+              <h3 className="font-bold">{STAGE_WORDS[s]}</h3>
+              <Balance stage={stage} />
+            </div>
+          ) : null;
+        })}
+      </div>
     </div>
   );
 }

@@ -132,7 +132,7 @@ describe('the work order page for shop staff', () => {
     expect(body.handoverAt).toBe(new Date('2026-06-10T18:30').toISOString());
     expect(body.label).toBeUndefined();
     const link = await screen.findByRole('link', { name: 'See the setup snapshot it wrote' });
-    expect(link.getAttribute('href')).toBe(`/cars/${CAR.id}`);
+    expect(link.getAttribute('href')).toBe(`/shop/customers/${CAR.id}#setup-${SERVICE_IDS.newSetup}`);
     expect(screen.queryByRole('form', { name: 'Close and hand over' })).toBeNull();
     expect(screen.getByRole('button', { name: 'Make the invoice' })).toBeTruthy();
   });
