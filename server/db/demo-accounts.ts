@@ -14,6 +14,7 @@ export const DEMO_ACCOUNTS = {
 } as const;
 
 export const DEMO_SHOP = 'Kettle Lane Chassis Works';
+export const DEMO_SHOP_TAX_RATE_PCT = 8.25;
 export const DEMO_TEAM = 'Gravel Pit Irregulars';
 
 /** The demo season's year, and the class factors the demo captain entered for it (invented). */

@@ -3,7 +3,7 @@ import { hashPassword } from '../auth/password';
 import { UserEntity } from '../features/users/user.entity';
 import { ShopEntity, ShopMemberEntity } from '../features/shops/shop.entity';
 import { TeamEntity, TeamMemberEntity } from '../features/teams/team.entity';
-import { DEMO_ACCOUNTS, DEMO_CLASS_FACTORS, DEMO_PASSWORD, DEMO_SEASON_YEAR, DEMO_SHOP, DEMO_TEAM } from './demo-accounts';
+import { DEMO_ACCOUNTS, DEMO_CLASS_FACTORS, DEMO_PASSWORD, DEMO_SEASON_YEAR, DEMO_SHOP, DEMO_SHOP_TAX_RATE_PCT, DEMO_TEAM } from './demo-accounts';
 import { DEMO_CAMBER_ARMS_DATE, seedDemoSeason } from './demo-season';
 
 /** Fills an empty database with the demo scenario; does nothing when any account exists. */
@@ -26,6 +26,8 @@ export async function seedDemo(ds: DataSource): Promise<void> {
       ids[key] = saved.id;
     }
     const shop = await m.getRepository(ShopEntity).save({ name: DEMO_SHOP });
+    // The demo shop charges an invented sales tax, so its invoices show how tax is added.
+    await m.query('UPDATE shops SET tax_rate_pct = $2 WHERE id = $1', [shop.id, DEMO_SHOP_TAX_RATE_PCT]);
     await m.getRepository(ShopMemberEntity).save({ shopId: shop.id, userId: ids.shopStaff, isShopAdmin: true });
 
     const team = await m.getRepository(TeamEntity).save({ name: DEMO_TEAM });

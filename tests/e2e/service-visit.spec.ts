@@ -184,8 +184,11 @@ describe.each(['phone', 'desktop'] as const)('a service visit, staff then driver
     await status.getByText('Not paid yet').waitFor({ timeout: 15_000 });
     const invoice = page.getByRole('table', { name: 'Invoice lines' });
     subtotalText = (await invoice.getByRole('row', { name: /^Subtotal/ }).getByRole('cell').innerText()).trim();
-    // 2 × 12.50 + 1.5 h × 80 = 145.00 before tax.
+    // 2 × 12.50 + 1.5 h × 80 = 145.00 before tax; the demo shop adds 8.25 %: 145.00 × 0.0825 = 11.9625,
+    // 11.96 to the cent, 156.96 in all (worked by hand).
     expect(subtotalText).toMatch(/145\.00/);
+    await invoice.getByRole('row', { name: /^Tax \(8\.25 %\)/ }).getByText(/11\.96/).waitFor();
+    await invoice.getByRole('row', { name: /^Total/ }).getByText(/156\.96/).waitFor();
     await screenshot(page, `service-${size}-invoice-open`);
   });
 
@@ -226,7 +229,7 @@ describe.each(['phone', 'desktop'] as const)('a service visit, staff then driver
     // The hosted checkout: another site, one Pay button.
     await page.waitForURL((url) => !url.href.startsWith(baseUrl), { timeout: 20_000 });
     await screenshot(page, `service-${size}-checkout`);
-    await page.getByRole('button', { name: /^Pay / }).click();
+    await page.getByRole('button', { name: /^Pay .*156\.96/ }).click();
 
     // Back on the work order, paid.
     await page.waitForURL(`${workOrderUrl}?paid=1`, { timeout: 20_000 });

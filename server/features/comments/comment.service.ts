@@ -248,8 +248,18 @@ async function ownComment(ds: DataSource, user: User, commentId: string, action:
   const comment = await loadComment(ds, user, commentId);
   const missing = () => new AppError('not_found', 'That comment was not found.');
   if (!comment) throw missing();
-  const relations = await carRelations(ds, user.id, comment.carId);
-  if (!relations.some((r) => allows('car', 'read', r))) throw missing();
+  // A work order's thread is readable by whoever reads the work order (its shop's staff keep it
+  // after a grant is withdrawn); every other thread by whoever reads the car.
+  const [row]: { work_order_id: string | null }[] = await ds.query('SELECT work_order_id FROM comments WHERE id = $1', [commentId]);
+  const workOrderId = row?.work_order_id ?? null;
+  if (workOrderId) {
+    await assertWorkOrderAccess(ds, user, workOrderId, 'read').catch((err: unknown) => {
+      throw err instanceof AppError && err.code === 'not_found' ? missing() : err;
+    });
+  } else {
+    const relations = await carRelations(ds, user.id, comment.carId);
+    if (!relations.some((r) => allows('car', 'read', r))) throw missing();
+  }
   if (!allows('comment', action, comment.mine ? 'author' : 'signed_in')) {
     throw new AppError('forbidden', `Only its author can ${action} a comment.`);
   }

@@ -388,6 +388,25 @@ describe('comments on a visit', () => {
     expectError(await stranger.c.post('/api/comments', { target, body: 'hi' }), 404, 'not_found');
     expectError(await stranger.c.get(`/api/comments?type=work_order&id=${workOrder.id}`), 404, 'not_found');
   });
+
+  it('when the owner withdraws the shop\'s access, then its staff still edit and delete their own comments on the visit; a stranger still gets 404', async () => {
+    const { driver, staff, shopId, workOrder } = await openVisit();
+    const target = { type: 'work_order', id: workOrder.id };
+    const mine = (await staff.c.post('/api/comments', { target, body: 'Rear toe checked: 1 mm in per side.' })).body as { id: string; version: number };
+    const theirs = (await driver.c.post('/api/comments', { target, body: 'Thanks!' })).body as { id: string; version: number };
+    expect((await driver.c.delete(`/api/cars/${driver.carId}/shop-grants/${shopId}`)).status).toBe(204);
+
+    const edited = await staff.c.patch(`/api/comments/${mine.id}`, { body: 'Rear toe checked: 1.0 mm in per side.', version: mine.version });
+    expect(edited.status, JSON.stringify(edited.body)).toBe(200);
+    expect(edited.body.body).toBe('Rear toe checked: 1.0 mm in per side.');
+    // Still only the author's own: the driver's comment is not theirs to change.
+    expectError(await staff.c.patch(`/api/comments/${theirs.id}`, { body: 'x', version: theirs.version }), 403, 'forbidden');
+    const stranger = await signedInClient(t);
+    expectError(await stranger.c.delete(`/api/comments/${mine.id}`), 404, 'not_found');
+    expect((await staff.c.delete(`/api/comments/${mine.id}`)).status).toBe(204);
+    const thread = await driver.c.get(`/api/comments?type=work_order&id=${workOrder.id}`);
+    expect(thread.body.items.map((c: { body: string }) => c.body)).toEqual(['Thanks!']);
+  });
 });
 
 describe('the demo visits', () => {

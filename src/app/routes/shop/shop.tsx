@@ -1,4 +1,5 @@
 import { useSearchParams } from 'react-router-dom';
+import { useQueryClient } from '@tanstack/react-query';
 import { SectionCard } from '@/components/ui/section-card';
 import { SelectField } from '@/components/ui/select-field';
 import { SectionBoundary } from '@/components/errors/section-boundary';
@@ -8,6 +9,8 @@ import { useShop } from '@/features/shops/api/get-shop';
 import { CustomerList } from '@/features/shops/components/customer-list';
 import { StaffSection } from '@/features/shops/components/staff-section';
 import { StartShopForm } from '@/features/shops/components/start-shop-form';
+import { ShopSettingsForm, ShopSettingsSummary } from '@/features/shops/components/shop-settings';
+import { workOrderKeys } from '@/features/work-orders/api/work-order-keys';
 import { ShopBoard } from '@/features/work-orders/components/work-order-lists';
 
 const SHOP_PARAM = 'shop';
@@ -17,6 +20,18 @@ function StaffCard({ shopId, currentUserId }: { shopId: string; currentUserId: s
   if (isPending) return <p className="text-ink-muted">Loading staff…</p>;
   if (isError) return <p className="text-ink-muted">The staff list could not be loaded. Try again shortly.</p>;
   return <StaffSection shop={shop} currentUserId={currentUserId} />;
+}
+
+function SettingsCard({ shopId }: { shopId: string }) {
+  const queryClient = useQueryClient();
+  const { data: shop, isPending, isError } = useShop(shopId);
+  if (isPending) return <p className="text-ink-muted">Loading the settings…</p>;
+  if (isError) return <p className="text-ink-muted">The settings could not be loaded. Try again shortly.</p>;
+  if (!shop.isShopAdmin) return <ShopSettingsSummary shop={shop} />;
+  return (
+    // Open work orders read their amounts in the shop's currency and their checks against its tolerance.
+    <ShopSettingsForm shop={shop} onSaved={() => void queryClient.invalidateQueries({ queryKey: workOrderKeys.all })} />
+  );
 }
 
 /** Shop staff: the cars the shop looks after, and who works there. With no shop, how to open one. */
@@ -77,6 +92,11 @@ export function ShopPage() {
         <SectionBoundary title="Staff">
           <SectionCard title="Staff">
             <StaffCard shopId={shop.id} currentUserId={me.id} />
+          </SectionCard>
+        </SectionBoundary>
+        <SectionBoundary title="Invoices and build sheets">
+          <SectionCard title="Invoices and build sheets">
+            <SettingsCard shopId={shop.id} />
           </SectionCard>
         </SectionBoundary>
       </div>

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CheckoutRedirect, Invoice, MarkPaidInput } from '@shared/service/invoice.schema';
-import { api } from '@/lib/api-client';
+import { api, isApiError } from '@/lib/api-client';
 import { invoiceKeys } from './invoice-keys';
 
 export function makeInvoice(workOrderId: string): Promise<Invoice> {
@@ -31,13 +31,22 @@ export const checkoutNavigation = {
   go: (url: string) => window.location.assign(url),
 };
 
+/** A 409 means the invoice changed elsewhere (paid meanwhile): read it again, so the page says so. */
+function rereadOnConflict(queryClient: ReturnType<typeof useQueryClient>, workOrderId: string) {
+  return (error: unknown) => {
+    if (isApiError(error) && error.status === 409) void queryClient.invalidateQueries({ queryKey: invoiceKeys.ofWorkOrder(workOrderId) });
+  };
+}
+
 /** The driver is sent to the hosted checkout; the page they come back to reads the result. */
-export function useStartCheckout() {
+export function useStartCheckout(workOrderId: string) {
+  const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (invoiceId: string) => startCheckout(invoiceId),
     networkMode: 'always',
     meta: { errorsShownInline: true },
     onSuccess: ({ url }) => checkoutNavigation.go(url),
+    onError: rereadOnConflict(queryClient, workOrderId),
   });
 }
 
@@ -49,5 +58,6 @@ export function useMarkPaidInCash(workOrderId: string) {
     networkMode: 'always',
     meta: { errorsShownInline: true },
     onSuccess: (invoice) => queryClient.setQueryData(invoiceKeys.ofWorkOrder(workOrderId), invoice),
+    onError: rereadOnConflict(queryClient, workOrderId),
   });
 }

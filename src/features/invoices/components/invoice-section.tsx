@@ -76,7 +76,7 @@ export function InvoiceSection({ workOrderId, isStaff }: { workOrderId: string; 
   });
   const waitingForPayment = returnedPaid && invoice?.status !== 'paid' && isFetching;
   const make = useMakeInvoice(workOrderId);
-  const checkout = useStartCheckout();
+  const checkout = useStartCheckout(workOrderId);
   const cash = useMarkPaidInCash(workOrderId);
 
   return (

@@ -249,7 +249,17 @@ export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
       setCorner(first);
       return;
     }
-    save.mutate({ corners });
+    save.mutate(
+      { corners },
+      {
+        // The server refused a value: turn to the first corner it names, which may not be the one on screen.
+        onError: (error) => {
+          const refused = splitErrors(error).fields;
+          const at = CORNERS.find((c) => BUILD_SHEET_FIELDS.some((f) => refused[`corners.${c}.${f}`]));
+          if (at) setCorner(at);
+        },
+      },
+    );
   };
 
   return (
