@@ -50,3 +50,16 @@ export async function screenshot(page: Page, name: string, { fullPage = true }: 
   await page.screenshot({ path, fullPage });
   return path;
 }
+
+/** The demo accounts' password (server/db/demo-accounts.ts). */
+export const DEMO_PASSWORD = 'cold-tyres-warm-coffee';
+
+/** Signs a demo account in through the sign-in page and waits for its home page. */
+export async function signIn(page: Page, baseUrl: string, email: string, name: string): Promise<Page> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: `Hi, ${name}` }).waitFor({ timeout: 20_000 });
+  return page;
+}

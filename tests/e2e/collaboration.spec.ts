@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { MailboxMessage } from '@shared/collab/mailbox.schema';
-import { openPhone, screenshot } from './browser';
+import { openPhone, screenshot, signIn } from './browser';
 
 /**
  * The demo shop reviews a customer's season and suggests a change; the driver hears of it
@@ -9,7 +9,6 @@ import { openPhone, screenshot } from './browser';
  * class board. Every step at phone size, as each person would do it.
  */
 const baseUrl = inject('baseUrl');
-const PASSWORD = 'cold-tyres-warm-coffee';
 const TITLE = 'Half a degree more front camber';
 
 let phone: Awaited<ReturnType<typeof openPhone>> | undefined;
@@ -22,13 +21,7 @@ afterAll(async () => {
 async function signInAs(email: string, name: string): Promise<Page> {
   await phone?.close();
   phone = await openPhone();
-  const page = phone.page;
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: `Hi, ${name}` }).waitFor({ timeout: 20_000 });
-  return page;
+  return signIn(phone.page, baseUrl, email, name);
 }
 
 describe('a shop reviews a customer, the driver accepts its suggestion, the captain reads the board (390×844)', () => {

@@ -2,7 +2,7 @@ import { afterAll, describe, expect, inject, it } from 'vitest';
 import type { Locator, Page } from 'playwright-core';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { openBrowser, screenshot, SCREENSHOT_DIR, type OpenBrowser } from './browser';
+import { openBrowser, screenshot, SCREENSHOT_DIR, signIn, type OpenBrowser } from './browser';
 
 /**
  * A service visit from both sides, once on a phone and once on a desktop: the shop opens a
@@ -11,7 +11,6 @@ import { openBrowser, screenshot, SCREENSHOT_DIR, type OpenBrowser } from './bro
  * through the hosted checkout (a local fake of the payment service, started by global-setup).
  */
 const baseUrl = inject('baseUrl');
-const PASSWORD = 'cold-tyres-warm-coffee';
 const SHOP = 'Kettle Lane Chassis Works';
 
 type Corner = 'lf' | 'rf' | 'lr' | 'rr';
@@ -62,13 +61,7 @@ afterAll(async () => {
 async function signInAs(size: 'phone' | 'desktop', email: string, name: string): Promise<Page> {
   await browser?.close();
   browser = await openBrowser(size);
-  const page = browser.page;
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: `Hi, ${name}` }).waitFor({ timeout: 20_000 });
-  return page;
+  return signIn(browser.page, baseUrl, email, name);
 }
 
 async function enterCornerWeights(form: Locator, stage: string, weights: Record<Corner, number>) {

@@ -8,7 +8,7 @@ import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/dates';
 import { useWorkOrderInvoice } from '../api/get-invoice';
 import { useMakeInvoice, useMarkPaidInCash, useStartCheckout } from '../api/pay-invoice';
-import { formatMoney } from '@/lib/money';
+import { LineItemsTable } from '@/components/line-items/line-items-table';
 
 /** After coming back from the checkout, ask a few times while the payment service tells the server. */
 const PAID_POLL_MS = 2000;
@@ -17,45 +17,18 @@ const PAID_POLL_TRIES = 5;
 const errorText = (error: unknown) => (error ? (isApiError(error) ? error.message : 'Something went wrong; try again.') : null);
 
 function InvoiceDetails({ invoice }: { invoice: Invoice }) {
-  const money = (cents: number) => formatMoney(cents, invoice.currency);
   return (
     <div className="flex flex-col gap-2">
-      <table className="tabular-figures w-full text-left text-sm">
-        <caption className="sr-only">Invoice lines</caption>
-        <thead>
-          <tr className="border-b border-line">
-            <th scope="col" className="py-1 pr-2">What</th>
-            <th scope="col" className="py-1 pr-2 text-right">Qty / hours</th>
-            <th scope="col" className="py-1 text-right">Amount</th>
-          </tr>
-        </thead>
-        <tbody>
-          {invoice.lines.map((line, i) => (
-            <tr key={i} className="border-b border-line">
-              <td className="py-1 pr-2 break-words">{line.description}</td>
-              <td className="py-1 pr-2 text-right">
-                {line.quantity}
-                {line.kind === 'labour' ? ' h' : ''} × {money(line.unitPriceCents)}
-              </td>
-              <td className="py-1 text-right">{money(line.amountCents)}</td>
-            </tr>
-          ))}
-        </tbody>
-        <tfoot>
-          <tr>
-            <th scope="row" colSpan={2} className="py-1 pr-2 text-right font-semibold">Subtotal</th>
-            <td className="py-1 text-right">{money(invoice.subtotalCents)}</td>
-          </tr>
-          <tr>
-            <th scope="row" colSpan={2} className="py-1 pr-2 text-right font-semibold">Tax ({invoice.taxRatePct} %)</th>
-            <td className="py-1 text-right">{money(invoice.taxCents)}</td>
-          </tr>
-          <tr>
-            <th scope="row" colSpan={2} className="py-1 pr-2 text-right text-lg font-extrabold">Total</th>
-            <td className="py-1 text-right text-lg font-extrabold">{money(invoice.totalCents)}</td>
-          </tr>
-        </tfoot>
-      </table>
+      <LineItemsTable
+        caption="Invoice lines"
+        currency={invoice.currency}
+        lines={invoice.lines}
+        totals={[
+          { label: 'Subtotal', cents: invoice.subtotalCents },
+          { label: `Tax (${invoice.taxRatePct} %)`, cents: invoice.taxCents },
+          { label: 'Total', cents: invoice.totalCents, weight: 'total' },
+        ]}
+      />
       <p className="font-bold" aria-label="Invoice status">
         {invoice.status === 'paid'
           ? `Paid${invoice.paidMethod === 'cash' ? ' in cash' : invoice.paidMethod === 'card' ? ' by card' : ''}${

@@ -42,34 +42,21 @@ function PendingProblem({ setup, carId }: { setup: SetupView; carId: string }) {
   );
 }
 
-/** "from Kettle Lane Chassis Works: More front camber", linking to the suggestion. */
-function SuggestionBadge({ setup }: { setup: SetupView }) {
-  const from = setup.suggestion;
-  if (!from) return null;
+/** Where a snapshot came from, when a shop made it: its suggestion or its work order, linked. */
+function OriginBadge({ setup }: { setup: SetupView }) {
+  const origin = setup.suggestion
+    ? { to: pathTo.suggestion(setup.suggestion.id), Icon: Lightbulb, text: `from ${setup.suggestion.shopName}: ${setup.suggestion.title}` }
+    : setup.workOrder
+      ? { to: pathTo.workOrder(setup.workOrder.id), Icon: Wrench, text: `handed back by ${setup.workOrder.shopName}: the work order` }
+      : null;
+  if (!origin) return null;
   return (
     <Link
-      to={pathTo.suggestion(from.id)}
+      to={origin.to}
       className="inline-flex min-h-tap items-center gap-1 self-start rounded bg-accent-soft px-2 text-sm font-semibold text-link"
     >
-      <Lightbulb aria-hidden="true" className="size-4 shrink-0" />
-      <span className="break-words">
-        from {from.shopName}: {from.title}
-      </span>
-    </Link>
-  );
-}
-
-/** "handed back by Kettle Lane Chassis Works", linking to the work order that wrote the snapshot. */
-function VisitBadge({ setup }: { setup: SetupView }) {
-  const visit = setup.workOrder;
-  if (!visit) return null;
-  return (
-    <Link
-      to={pathTo.workOrder(visit.id)}
-      className="inline-flex min-h-tap items-center gap-1 self-start rounded bg-accent-soft px-2 text-sm font-semibold text-link"
-    >
-      <Wrench aria-hidden="true" className="size-4 shrink-0" />
-      <span className="break-words">handed back by {visit.shopName}: the work order</span>
+      <origin.Icon aria-hidden="true" className="size-4 shrink-0" />
+      <span className="break-words">{origin.text}</span>
     </Link>
   );
 }
@@ -123,8 +110,7 @@ export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }:
             <p className="tabular-figures text-sm text-ink-muted">
               From {formatDateTime(setup.effectiveFrom)} · by {setup.createdBy.displayName || 'someone'}
             </p>
-            <SuggestionBadge setup={setup} />
-            <VisitBadge setup={setup} />
+            <OriginBadge setup={setup} />
             {before ? (
               <div className="flex flex-col gap-1">
                 <p className="text-sm text-ink-muted">Changes from “{before.label}”:</p>

@@ -112,10 +112,11 @@ export function BuildSheetView({ workOrder }: { workOrder: WorkOrder }) {
   if (CORNERS.every((c) => corners[c] === null)) return <p className="text-ink-muted">No build sheet for this visit.</p>;
   return (
     <>
-      <div className="print:hidden">
+      {/* A phone reads one corner at a time; a wider screen and paper compare the corners across a row. */}
+      <div className="md:hidden print:hidden">
         <BuildSheetGrid workOrder={workOrder} />
       </div>
-      <div className="hidden print:block">
+      <div className="hidden md:block print:block">
         <BuildSheetTable workOrder={workOrder} />
       </div>
     </>
@@ -123,8 +124,8 @@ export function BuildSheetView({ workOrder }: { workOrder: WorkOrder }) {
 }
 
 /**
- * On paper: one row per value, one column per corner, so the whole sheet fits on the handover
- * page beside the measurements; each corner's checks follow the table.
+ * On a wide screen and on paper: one row per value, one column per corner, so the whole sheet
+ * fits on the handover page beside the measurements; each corner's checks follow the table.
  */
 function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
   const units = useUnits();
@@ -132,13 +133,15 @@ function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
   const fields = BUILD_SHEET_FIELDS.filter((f) => CORNERS.some((c) => (corners[c]?.[f] ?? null) !== null));
   return (
     <div className="flex flex-col gap-1">
-      <table className="tabular-figures w-full text-left">
+      <table className="tabular-figures w-full text-left text-sm">
         <caption className="sr-only">Build sheet</caption>
         <thead>
           <tr className="border-b border-line">
-            <th scope="col">Value</th>
+            <th scope="col" className="py-1">
+              Value
+            </th>
             {CORNERS.map((c) => (
-              <th key={c} scope="col" className="text-right">
+              <th key={c} scope="col" className="py-1 text-right">
                 {CORNER_NAMES[c]}
               </th>
             ))}
@@ -147,11 +150,11 @@ function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
         <tbody>
           {fields.map((f) => (
             <tr key={f} className="border-b border-line">
-              <th scope="row" className="pr-2 font-normal">
+              <th scope="row" className="py-1 pr-2 font-normal text-ink-muted">
                 {FIELD_INFO[f].label}
               </th>
               {CORNERS.map((c) => (
-                <td key={c} className="pl-2 text-right break-words">
+                <td key={c} className="py-1 pl-2 text-right break-words">
                   {valueText(f, corners[c]?.[f] ?? null, units)}
                 </td>
               ))}
@@ -161,8 +164,8 @@ function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
       </table>
       {CORNERS.map((c) =>
         checks[c] ? (
-          <div key={c} className="flex gap-1">
-            <span className="font-bold">{CORNER_NAMES[c]}:</span>
+          <div key={c} className="flex gap-1 text-sm">
+            <span className="shrink-0 font-bold">{CORNER_NAMES[c]}:</span>
             <CornerChecks checks={checks[c]} toleranceMm={workOrder.shop.compressedLengthToleranceMm} />
           </div>
         ) : null,

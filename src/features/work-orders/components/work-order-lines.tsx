@@ -8,54 +8,24 @@ import { UnitInput } from '@/components/ui/unit-input';
 import { parseDecimal } from '@/lib/numbers';
 import { useReplaceLines } from '../api/edit-work-order';
 import { splitErrors } from '../utils/field-errors';
-import { centsToMajorText, formatMoney, majorToCents } from '@/lib/money';
-
-const KIND_WORDS: Record<LineKind, string> = { part: 'Part', labour: 'Labour' };
+import { centsToMajorText, majorToCents } from '@/lib/money';
+import { LINE_KIND_WORDS, LineItemsTable } from '@/components/line-items/line-items-table';
 
 /** Parts and labour as everyone reads them, with the totals. */
 export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; currency: string }) {
   if (workOrder.lines.length === 0) return <p className="text-ink-muted">No parts or labour recorded yet.</p>;
+  const { partsCents, labourCents, subtotalCents } = workOrder.totals;
   return (
-    <table className="tabular-figures w-full text-left text-sm">
-      <caption className="sr-only">Parts and labour</caption>
-      <thead>
-        <tr className="border-b border-line">
-          <th scope="col" className="py-1 pr-2">What</th>
-          <th scope="col" className="py-1 pr-2 text-right">Qty / hours</th>
-          <th scope="col" className="py-1 pr-2 text-right">Price / rate</th>
-          <th scope="col" className="py-1 text-right">Amount</th>
-        </tr>
-      </thead>
-      <tbody>
-        {workOrder.lines.map((line, i) => (
-          <tr key={i} className="border-b border-line">
-            <td className="py-1 pr-2 break-words">
-              <span className="text-ink-muted">{KIND_WORDS[line.kind]}:</span> {line.description}
-            </td>
-            <td className="py-1 pr-2 text-right">{line.kind === 'labour' ? `${line.quantity} h` : line.quantity}</td>
-            <td className="py-1 pr-2 text-right">
-              {formatMoney(line.unitPriceCents, currency)}
-              {line.kind === 'labour' ? '/h' : ''}
-            </td>
-            <td className="py-1 text-right">{formatMoney(line.totalCents, currency)}</td>
-          </tr>
-        ))}
-      </tbody>
-      <tfoot>
-        <tr>
-          <th scope="row" colSpan={3} className="py-1 pr-2 text-right font-semibold">Parts</th>
-          <td className="py-1 text-right">{formatMoney(workOrder.totals.partsCents, currency)}</td>
-        </tr>
-        <tr>
-          <th scope="row" colSpan={3} className="py-1 pr-2 text-right font-semibold">Labour</th>
-          <td className="py-1 text-right">{formatMoney(workOrder.totals.labourCents, currency)}</td>
-        </tr>
-        <tr>
-          <th scope="row" colSpan={3} className="py-1 pr-2 text-right font-bold">Subtotal</th>
-          <td className="py-1 text-right font-bold">{formatMoney(workOrder.totals.subtotalCents, currency)}</td>
-        </tr>
-      </tfoot>
-    </table>
+    <LineItemsTable
+      caption="Parts and labour"
+      currency={currency}
+      lines={workOrder.lines.map((l) => ({ ...l, amountCents: l.totalCents }))}
+      totals={[
+        { label: 'Parts', cents: partsCents },
+        { label: 'Labour', cents: labourCents },
+        { label: 'Subtotal', cents: subtotalCents, weight: 'strong' },
+      ]}
+    />
   );
 }
 
@@ -121,7 +91,7 @@ export function LinesEditor({ workOrder, currency }: { workOrder: WorkOrder; cur
           <li key={row.key}>
             <fieldset className="flex flex-col gap-2 rounded border border-line p-3" aria-label={`Line ${i + 1}`}>
               <legend className="px-1 text-sm font-bold">
-                {KIND_WORDS[row.kind]} {i + 1}
+                {LINE_KIND_WORDS[row.kind]} {i + 1}
               </legend>
               <TextField
                 label="Description"

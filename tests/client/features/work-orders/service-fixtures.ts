@@ -1,7 +1,9 @@
 import type { Invoice } from '../../../../shared/service/invoice.schema';
 import type { MeasuredCorner, WorkOrder } from '../../../../shared/service/work-order.schema';
-import { COLLAB_IDS, SHOP_NAME } from '../../fixtures/collab';
-import { IDS } from '../../fixtures/season';
+import type { UnitPreferences } from '../../../../shared/calc/units.calc';
+import { COLLAB_IDS, SHOP, SHOP_NAME, staffUser } from '../../fixtures/collab';
+import { CAR, IDS, list, user } from '../../fixtures/season';
+import { jsonResponse, stubFetch, type StubRoutes } from '../../test-utils';
 
 /** An invented visit: Dusty's shop aligns Maren's roadster. */
 export const SERVICE_IDS = {
@@ -58,4 +60,29 @@ export function invoice(partial: Partial<Invoice> = {}): Invoice {
     createdAt: '2026-06-10T17:00:00.000Z',
     ...partial,
   };
+}
+
+export const WO = `/api/work-orders/${SERVICE_IDS.workOrder}`;
+export const WORK_ORDER_PATH = `/work-orders/${SERVICE_IDS.workOrder}`;
+const MINE = { id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 };
+
+/** Signed in as the shop's admin, in the given units, with the open visit. */
+export function stubStaff(units: UnitPreferences, extra: StubRoutes = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
+    'GET /api/shops/mine': list([MINE]),
+    [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
+    [`GET ${WO}`]: jsonResponse(200, workOrder()),
+    ...extra,
+  });
+}
+
+/** Signed in as the car's owner, who works for no shop. */
+export function stubDriver(extra: StubRoutes = {}) {
+  return stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/shops/mine': list([]),
+    [`GET /api/cars/${CAR.id}`]: jsonResponse(200, CAR),
+    ...extra,
+  });
 }

@@ -2,7 +2,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
-import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
+import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 import { CORNERS, type Corner } from '../../../../shared/season/corners';
 import {
   BUILD_SHEET_FIELDS,
@@ -12,15 +12,11 @@ import {
   type MeasurementsInput,
   type WorkOrderStage,
 } from '../../../../shared/service/work-order.schema';
-import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch, type StubRoutes } from '../../test-utils';
-import { CAR, list, user } from '../../fixtures/season';
-import { COLLAB_IDS, SHOP, SHOP_NAME, staffUser } from '../../fixtures/collab';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests } from '../../test-utils';
 import { formatDateTime } from '@/lib/dates';
-import { invoice, SERVICE_IDS, workOrder } from './service-fixtures';
+import { invoice, SERVICE_IDS, stubDriver, stubStaff, WO, WORK_ORDER_PATH, workOrder } from './service-fixtures';
 
-const WO = `/api/work-orders/${SERVICE_IDS.workOrder}`;
-const PATH = `/work-orders/${SERVICE_IDS.workOrder}`;
-const MINE = { id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 };
+const PATH = WORK_ORDER_PATH;
 const BUILD_SHEET_PUT = `PUT ${WO}/build-sheet`;
 const MAKE_INVOICE = `POST ${WO}/invoice`;
 const MARK_PAID = `POST /api/invoices/${SERVICE_IDS.invoice}/mark-paid`;
@@ -28,25 +24,6 @@ const CLOSED = { status: 'closed', handoverAt: '2026-06-10T16:30:00.000Z', setup
 const NO_INVOICE = errorResponse(404, 'not_found', 'There is no invoice for this work order yet.');
 
 setUpAppTests([() => import('@/app/routes/work-orders/work-order')]);
-
-function stubStaff(units: UnitPreferences, extra: StubRoutes = {}) {
-  return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
-    'GET /api/shops/mine': list([MINE]),
-    [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
-    [`GET ${WO}`]: jsonResponse(200, workOrder()),
-    ...extra,
-  });
-}
-
-function stubDriver(extra: StubRoutes = {}) {
-  return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
-    'GET /api/shops/mine': list([]),
-    [`GET /api/cars/${CAR.id}`]: jsonResponse(200, CAR),
-    ...extra,
-  });
-}
 
 /** The build-sheet form, once the page has loaded. */
 async function buildSheetForm() {
@@ -232,7 +209,7 @@ describe('the invoice for shop staff', () => {
 
     const table = await screen.findByRole('table', { name: 'Invoice lines' });
     expect(requestsTo(fetchMock, MAKE_INVOICE)).toHaveLength(1);
-    expect(within(table).getByRole('cell', { name: 'Alignment' })).toBeTruthy();
+    expect(within(table).getByRole('cell', { name: 'Labour: Alignment' })).toBeTruthy();
     expect(within(within(table).getByRole('row', { name: /^Subtotal/ })).getByText('$135.00')).toBeTruthy();
     expect(within(within(table).getByRole('row', { name: /^Tax \(8\.875 %\)/ })).getByText('$11.98')).toBeTruthy();
     expect(within(within(table).getByRole('row', { name: /^Total/ })).getByText('$146.98')).toBeTruthy();

@@ -2,38 +2,16 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
-import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
+import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 import type { MeasurementsInput, ReplaceLinesInput } from '../../../../shared/service/work-order.schema';
-import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch, type StubRoutes } from '../../test-utils';
-import { CAR, list, user } from '../../fixtures/season';
-import { COLLAB_IDS, SHOP, SHOP_NAME, staffUser } from '../../fixtures/collab';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests } from '../../test-utils';
+import { CAR } from '../../fixtures/season';
 import { checkoutNavigation } from '@/features/invoices/api/pay-invoice';
-import { invoice, SERVICE_IDS, workOrder } from './service-fixtures';
+import { invoice, SERVICE_IDS, stubDriver, stubStaff, WO, WORK_ORDER_PATH, workOrder } from './service-fixtures';
 
-const WO = `/api/work-orders/${SERVICE_IDS.workOrder}`;
-const PATH = `/work-orders/${SERVICE_IDS.workOrder}`;
-const MINE = { id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 };
+const PATH = WORK_ORDER_PATH;
 
 setUpAppTests([() => import('@/app/routes/work-orders/work-order')]);
-
-function stubStaff(units: UnitPreferences, extra: StubRoutes = {}) {
-  return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
-    'GET /api/shops/mine': list([MINE]),
-    [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
-    [`GET ${WO}`]: jsonResponse(200, workOrder()),
-    ...extra,
-  });
-}
-
-function stubDriver(extra: StubRoutes = {}) {
-  return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
-    'GET /api/shops/mine': list([]),
-    [`GET /api/cars/${CAR.id}`]: jsonResponse(200, CAR),
-    ...extra,
-  });
-}
 
 describe('the work order page for shop staff', () => {
   it('when before readings are typed in inches and pounds, then the measurements are sent in millimetres and kilograms', async () => {
