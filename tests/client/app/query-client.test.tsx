@@ -1,11 +1,17 @@
 // @vitest-environment jsdom
 import { act, cleanup, render, screen } from '@testing-library/react';
 import { QueryClientProvider, useMutation } from '@tanstack/react-query';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ApiError } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
 import { ToastProvider } from '@/components/ui/toaster';
 import { createQueryClient } from '@/app/query-client';
+
+// The toasts' layer is loaded on first use; load it before the clock of the first test starts,
+// so a busy machine does not make the first toast miss its wait.
+beforeAll(async () => {
+  await import('@/components/ui/toast-layer');
+}, 30_000);
 
 afterEach(() => {
   cleanup();
