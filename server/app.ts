@@ -35,6 +35,10 @@ import { invoiceRoutes, workOrderInvoiceRoutes } from './features/invoices/invoi
 import { paymentWebhookRoutes } from './features/payments/payment.routes';
 import type { PaymentSettings } from './features/payments/payment-settings';
 import { carWorkOrderRoutes, shopWorkOrderRoutes, workOrderRoutes } from './features/work-orders/work-order.routes';
+import { attachmentRoutes } from './features/attachments/attachment.routes';
+import type { FileStorage } from './files/storage';
+import { eventImportRoutes } from './features/imports/import.routes';
+import { exportRoutes, SEASON_IMPORT_PATH, seasonFileBodyParser } from './features/exports/export.routes';
 
 export interface AppOptions {
   ds: DataSource;
@@ -53,6 +57,8 @@ export interface AppOptions {
   mailboxDir?: string;
   /** The payment service (or its local fake); without it invoices are paid only in cash. */
   payments?: PaymentSettings;
+  /** Where attachments are kept (disk or S3); without it the upload routes answer 503. */
+  storage?: FileStorage;
 }
 
 /** Stands in index.html for the per-response nonce (see the meta tag `csp-nonce`). */
@@ -117,6 +123,7 @@ export function createApp(opts: AppOptions) {
   // The payment service signs the raw body and sends no cookie or CSRF token.
   mount('/api/payments', paymentWebhookRoutes(opts.ds, opts.payments, opts.mail));
 
+  app.use(SEASON_IMPORT_PATH, seasonFileBodyParser); // season files: up to 5 MB (the parser below then skips them)
   app.use('/api', express.json({ limit: opts.jsonLimit ?? '100kb' }));
   app.use('/api', sessionMiddleware(opts.pool, opts.session));
   app.use('/api', absoluteTimeout(opts.session.absoluteMs));
@@ -138,8 +145,10 @@ export function createApp(opts: AppOptions) {
   mount('/api/cars/:carId/work-orders', carWorkOrderRoutes(opts.ds));
   mount('/api/cars/:carId', carTyreRoutes(opts.ds));
   mount('/api/cars/:carId', analysisRoutes(opts.ds));
+  mount('/api/cars', exportRoutes(opts.ds)); // season export and re-import
   mount('/api/cars', carRoutes(opts.ds));
   mount('/api/setups', setupRoutes(opts.ds));
+  mount('/api/events/:eventId/imports', eventImportRoutes(opts.ds)); // timing-sheet import
   mount('/api/events', eventRoutes(opts.ds));
   mount('/api/runs', runRoutes(opts.ds));
   mount('/api/tyre-sets', tyreSetRoutes(opts.ds));
@@ -154,6 +163,7 @@ export function createApp(opts: AppOptions) {
   mount('/api/teams', teamRoutes(opts.ds, opts.mail));
   mount('/api/invitations', invitationRoutes(opts.ds, opts.mail));
   mount('/api/unsubscribe', unsubscribeRoutes(opts.ds, opts.mail));
+  mount('/api/attachments', attachmentRoutes(opts.ds, opts.storage)); // uploads
   if (opts.mailboxDir) mount('/api/dev/mailbox', mailboxRoutes(opts.mailboxDir));
   app.use('/api', apiNotFound);
   // RFC 8058: mail programs POST to the List-Unsubscribe address (the page) without cookies or CSRF token.

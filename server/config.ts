@@ -46,6 +46,18 @@ const envSchema = z
     STRIPE_API_URL: z.optional(
       z.url({ protocol: /^https?$/, error: 'STRIPE_API_URL must be an http(s) address such as http://127.0.0.1:12111' }),
     ),
+    // Uploads: local disk by default; an S3-compatible bucket when S3_BUCKET is set.
+    /** The folder attachments are kept in when S3_BUCKET is not set (default .data/uploads). */
+    UPLOAD_DIR: optionalText,
+    /** The bucket attachments are kept in; setting it chooses S3 storage. */
+    S3_BUCKET: optionalText,
+    /** The region of the bucket (us-east-1 when unset; S3-compatible services often ignore it). */
+    S3_REGION: optionalText,
+    /** An S3-compatible service's address, e.g. https://minio.example.org:9000; unset for AWS S3 itself. */
+    S3_ENDPOINT: z.optional(z.url({ protocol: /^https?$/, error: 'S3_ENDPOINT must be an http(s) address such as https://minio.example.org:9000' })),
+    /** The access key; without it and S3_SECRET_ACCESS_KEY the SDK's usual credential chain is used. */
+    S3_ACCESS_KEY_ID: optionalText,
+    S3_SECRET_ACCESS_KEY: optionalText,
   })
   .check(
     z.superRefine((env, ctx) => {
@@ -56,6 +68,18 @@ const envSchema = z
       if (!env.STRIPE_SECRET_KEY) ctx.addIssue({ code: 'custom', path: ['STRIPE_SECRET_KEY'], message: 'STRIPE_SECRET_KEY is required in production (the payment service\'s secret key)', input: env });
       if (!env.STRIPE_WEBHOOK_SECRET) ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: 'STRIPE_WEBHOOK_SECRET is required in production (the signing secret of the registered webhook)', input: env });
       if (env.STRIPE_API_URL) ctx.addIssue({ code: 'custom', path: ['STRIPE_API_URL'], message: 'STRIPE_API_URL points at a local fake; unset it in production', input: env });
+    }),
+  )
+  .check(
+    z.superRefine((env, ctx) => {
+      // Uploads: a key without its secret (or the reverse) is a typo, not a choice.
+      if (!!env.S3_ACCESS_KEY_ID !== !!env.S3_SECRET_ACCESS_KEY) {
+        const missing = env.S3_ACCESS_KEY_ID ? 'S3_SECRET_ACCESS_KEY' : 'S3_ACCESS_KEY_ID';
+        ctx.addIssue({ code: 'custom', path: [missing], message: 'Set S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY together', input: env });
+      }
+      if (!env.S3_BUCKET && (env.S3_ENDPOINT || env.S3_ACCESS_KEY_ID)) {
+        ctx.addIssue({ code: 'custom', path: ['S3_BUCKET'], message: 'S3_BUCKET is required when other S3_ settings are given (it chooses S3 storage)', input: env });
+      }
     }),
   )
   .check(

@@ -10,6 +10,8 @@ import { seedDemoIfEmpty } from './db/seed';
 import { logger } from './lib/logger';
 import { smtpMailer, type MailSettings } from './mail/mailer';
 import { createPaymentSettings, type PaymentSettings } from './features/payments/payment-settings';
+import type { FileStorage } from './files/storage';
+import { DEFAULT_UPLOAD_DIR, diskStorage } from './files/disk-storage';
 
 export interface RunningServer {
   server: Server;
@@ -29,6 +31,22 @@ export function localOrigin(host: string, port: number): string {
 }
 
 const ROOT = join(fileURLToPath(import.meta.url), '..', '..');
+
+/**
+ * The attachment storage the configuration chooses: S3 when S3_BUCKET is set, else disk.
+ * The S3 SDK is loaded only when it is used.
+ */
+export async function storageFromConfig(config: Config): Promise<FileStorage> {
+  if (!config.S3_BUCKET) return diskStorage(config.UPLOAD_DIR ?? DEFAULT_UPLOAD_DIR);
+  const { s3Storage } = await import('./files/s3-storage');
+  return s3Storage({
+    bucket: config.S3_BUCKET,
+    region: config.S3_REGION ?? 'us-east-1',
+    endpoint: config.S3_ENDPOINT,
+    accessKeyId: config.S3_ACCESS_KEY_ID,
+    secretAccessKey: config.S3_SECRET_ACCESS_KEY,
+  });
+}
 
 /** Connects, migrates, seeds an empty database, and listens. */
 export async function startServer(config: Config, clientDir = join(ROOT, 'dist')): Promise<RunningServer> {
@@ -52,6 +70,9 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
       })
     : undefined;
   if (!payments) logger.warn('STRIPE_SECRET_KEY is not set: invoices can be marked paid in cash but not paid online');
+  // Attachments: an S3-compatible bucket when S3_BUCKET is set, otherwise a folder on this disk.
+  const storage = await storageFromConfig(config);
+  logger.info(storage.kind === 's3' ? `Attachments are kept in the S3 bucket ${config.S3_BUCKET}` : `Attachments are kept in ${config.UPLOAD_DIR ?? DEFAULT_UPLOAD_DIR}`);
   // The development mailbox shows every e-mail, reset links included: never in production.
   const mailboxDir = isProduction(config) ? undefined : config.MAILBOX_DIR;
 
@@ -70,6 +91,7 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
     mail,
     mailboxDir,
     payments,
+    storage,
   });
 
   const server = await new Promise<Server>((resolve, reject) => {

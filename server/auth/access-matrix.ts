@@ -200,6 +200,22 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'POST /api/invitations/:token/accept': 'signed_in',
   'POST /api/unsubscribe/:token': 'public',
 
+  // Timing-sheet import: runs for one car (car write) at an event the user can see.
+  'POST /api/events/:eventId/imports': 'car.write',
+
+  // Season export (anyone who reads the car, its granted shop too) and re-import into a new car of one's own.
+  'GET /api/cars/:carId/export.csv': 'car.read',
+  'GET /api/cars/:carId/export.json': 'car.read',
+  'POST /api/cars/import': 'signed_in',
+
+  // Uploads: files on a tread reading, run or setup follow the car (drivers add, its shop reads);
+  // an event's files, whoever sees the event. Deleting: the uploader or the owner/creator (checked in the service).
+  'POST /api/attachments': 'car.write',
+  'GET /api/attachments': 'car.read',
+  'GET /api/attachments/:attachmentId/file': 'car.read',
+  'GET /api/attachments/:attachmentId/thumbnail': 'car.read',
+  'DELETE /api/attachments/:attachmentId': 'car.read',
+
   'GET /api/dev/mailbox': 'dev_only',
   'DELETE /api/dev/mailbox': 'dev_only',
 };

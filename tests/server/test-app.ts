@@ -1,4 +1,7 @@
 import { randomUUID } from 'node:crypto';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import pg from 'pg';
 import request from 'supertest';
 import { inject } from 'vitest';
@@ -6,6 +9,7 @@ import { createApp, type AppOptions } from '../../server/app';
 import { createDataSource } from '../../server/db/data-source';
 import { createUser } from '../../server/features/users/user.service';
 import type { MailMessage, MailSettings } from '../../server/mail/mailer';
+import { diskStorage } from '../../server/files/disk-storage';
 
 export const TEST_PASSWORD = 'long-enough-test-password';
 
@@ -16,6 +20,8 @@ export interface TestAppOptions {
   mail?: AppOptions['mail'];
   mailboxDir?: string;
   payments?: AppOptions['payments'];
+  /** Where attachments go; by default a disk storage in a fresh temporary folder, removed on close. */
+  storage?: AppOptions['storage'];
 }
 
 /** Mail settings whose mailer keeps every message, for tests to read. */
@@ -38,6 +44,7 @@ export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string 
   const ds = createDataSource(url, { poolSize: 4 });
   await ds.initialize();
   const pool = new pg.Pool({ connectionString: url, max: 4 });
+  const uploadDir = opts.storage ? undefined : mkdtempSync(join(tmpdir(), 'scrubline-uploads-'));
   const app = createApp({
     ds,
     pool,
@@ -50,15 +57,18 @@ export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string 
     mail: opts.mail,
     mailboxDir: opts.mailboxDir,
     payments: opts.payments,
+    storage: opts.storage ?? diskStorage(uploadDir),
     authLimits: { loginPerIp: 1000, registerPerIp: 1000, resetPerIp: 1000, resetPerEmail: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
   });
   return {
     app,
     ds,
     pool,
+    uploadDir,
     async close() {
       await pool.end();
       await ds.destroy();
+      if (uploadDir) rmSync(uploadDir, { recursive: true, force: true });
     },
   };
 }

@@ -446,10 +446,53 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     expect: everyone(204),
   },
 
+  // Timing-sheet import: the car's drivers add runs; the shop reads only. Each actor imports the same run, so repeats are "already there".
+  'POST /api/events/:eventId/imports': {
+    call: () => ({ path: `/api/events/${f.event}/imports`, body: { carId: f.car, runs: [{ line: 2, runNumber: 900, status: 'finished', rawTimeSec: 47.25, cones: 0 }] } }),
+    expect: carWrite(200),
+  },
+
+  // Season export: whoever reads the car downloads it; an import makes a new car of the importer's own.
+  'GET /api/cars/:carId/export.csv': { call: () => ({ path: `/api/cars/${f.car}/export.csv` }), expect: CAR_READ },
+  'GET /api/cars/:carId/export.json': { call: () => ({ path: `/api/cars/${f.car}/export.json` }), expect: CAR_READ },
+  'POST /api/cars/import': {
+    call: () => ({ path: '/api/cars/import', body: { format: 'scrubline-season', version: 1, car: { id: 'c1', name: 'Imported', classCode: 'SR' } } }),
+    expect: signedIn(201),
+  },
+
+  // Uploads. The POST here sends JSON with no files: the car's drivers pass the access check and are
+  // told to choose a file (400); the shop may not add files (403). Real uploads are in tests/server/files.
+  'POST /api/attachments': {
+    call: () => ({ path: '/api/attachments', body: { targetType: 'run', targetId: f.run } }),
+    expect: [400, 400, 404, 403, 404, 404, 404, 404, 401],
+  },
+  'GET /api/attachments': { call: () => ({ path: `/api/attachments?targetType=run&targetId=${f.run}` }), expect: CAR_READ },
+  'GET /api/attachments/:attachmentId/file': { call: async () => ({ path: `/api/attachments/${await ownerAttachment()}/file` }), expect: CAR_READ },
+  'GET /api/attachments/:attachmentId/thumbnail': { call: async () => ({ path: `/api/attachments/${await ownerAttachment()}/thumbnail` }), expect: CAR_READ },
+  'DELETE /api/attachments/:attachmentId': {
+    call: async () => ({ path: `/api/attachments/${await newAttachment()}` }),
+    // The uploader (here the owner, who is also the car's owner) deletes; the co-driver and the shop see it but may not.
+    expect: [204, 403, 404, 403, 404, 404, 404, 404, 401],
+  },
+
   // Mounted only outside production (see the production-config test); here it is on.
   'GET /api/dev/mailbox': { call: () => ({ path: '/api/dev/mailbox' }), expect: everyone(200) },
   'DELETE /api/dev/mailbox': { call: () => ({ path: '/api/dev/mailbox' }), expect: everyone(204) },
 };
+
+/** A 1 × 1 PNG (uploads). */
+const TINY_PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=', 'base64');
+
+/** A photo the owner attached to the fixture's run (uploads). */
+async function newAttachment() {
+  const c = people.owner.c;
+  const res = await c.agent.post('/api/attachments').set('X-CSRF-Token', await c.csrf())
+    .field('targetType', 'run').field('targetId', f.run).attach('files', TINY_PNG, 'wear.png');
+  expect(res.status).toBe(201);
+  return (res.body as { items: { id: string }[] }).items[0]!.id;
+}
+let sharedAttachment: Promise<string> | undefined;
+const ownerAttachment = () => (sharedAttachment ??= newAttachment());
 
 async function freshCar() {
   const id = await one(`INSERT INTO cars (owner_id, name, class_code) VALUES ($1, 'Fresh car', 'SR') RETURNING id`, [people.owner.id]);

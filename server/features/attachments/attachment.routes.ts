@@ -1,0 +1,106 @@
+import { Router, type RequestHandler, type Response } from 'express';
+import multer from 'multer';
+import type { DataSource } from 'typeorm';
+import {
+  attachmentTargetSchema, MAX_ATTACHMENT_BYTES, MAX_ATTACHMENTS_PER_REQUEST, type AttachmentTarget,
+} from '@shared/files/attachment.schema';
+import { currentUser, requireAuth } from '../../auth/access';
+import { AppError } from '../../lib/app-error';
+import { parsed, validate } from '../../lib/validate';
+import { idParam, list } from '../../lib/http';
+import type { FileStorage } from '../../files/storage';
+import { inlineDisposition } from '../../files/inspect';
+import {
+  createAttachments, deleteAttachment, listAttachments, readAttachmentFile, readAttachmentThumbnail, type FileBytes,
+} from './attachment.service';
+
+const MB = MAX_ATTACHMENT_BYTES / (1024 * 1024);
+
+/**
+ * The form beside the files holds targetType and targetId only. Every multer limit is set,
+ * so a request cannot make the server hold more than the files themselves.
+ */
+const LIMITS: multer.Options['limits'] & { fieldNestingDepth: number; fieldArrayIndexLimit: number } = {
+  fileSize: MAX_ATTACHMENT_BYTES,
+  files: MAX_ATTACHMENTS_PER_REQUEST,
+  fields: 4,
+  fieldNameSize: 50,
+  fieldSize: 200,
+  parts: MAX_ATTACHMENTS_PER_REQUEST + 4,
+  headerPairs: 20,
+  fieldNestingDepth: 0,
+  fieldArrayIndexLimit: 0,
+};
+
+/** Private: only the signed-in reader's browser keeps a copy, for an hour (our own choice). */
+const CACHE_CONTROL = 'private, max-age=3600';
+
+/** Multer's refusals, in the API's words: limits are 413, a malformed form 400. */
+function uploadError(err: unknown): AppError {
+  const code = err instanceof multer.MulterError ? err.code : undefined;
+  switch (code) {
+    case 'LIMIT_FILE_SIZE':
+      return new AppError('payload_too_large', `Each file may be at most ${MB} MB.`);
+    case 'LIMIT_FILE_COUNT':
+      return new AppError('payload_too_large', `Send at most ${MAX_ATTACHMENTS_PER_REQUEST} files at a time.`);
+    case 'LIMIT_PART_COUNT':
+      return new AppError('payload_too_large', `The form has too many parts: send targetType, targetId and at most ${MAX_ATTACHMENTS_PER_REQUEST} files.`);
+    case 'LIMIT_UNEXPECTED_FILE':
+      return new AppError('validation_failed', 'Some fields need attention.', { files: ['Send the files in the field named "files"'] });
+    default:
+      return new AppError('validation_failed', 'The upload was not a well-formed form. Send targetType, targetId and the files as multipart/form-data.');
+  }
+}
+
+function receiveFiles(): RequestHandler {
+  const receive = multer({ storage: multer.memoryStorage(), limits: LIMITS, defParamCharset: 'utf8' } as multer.Options).array('files');
+  return (req, res, next) => {
+    receive(req, res, (err?: unknown) => next(err ? uploadError(err) : undefined));
+  };
+}
+
+function sendFile(res: Response, file: FileBytes) {
+  res.setHeader('Content-Type', file.contentType);
+  res.setHeader('Content-Disposition', inlineDisposition(file.fileName));
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.setHeader('Cache-Control', CACHE_CONTROL);
+  res.send(file.bytes);
+}
+
+/**
+ * Routes under /api/attachments: photos and PDFs on tread readings, runs, setups and events.
+ * Without a storage (not configured) they answer 503.
+ */
+export function attachmentRoutes(ds: DataSource, storage?: FileStorage) {
+  const router = Router();
+  router.use(requireAuth);
+  const attachmentParam = idParam('attachmentId');
+  const store = (): FileStorage => {
+    if (!storage) throw new AppError('unavailable', 'File uploads are not set up on this server.');
+    return storage;
+  };
+
+  router.post('/', receiveFiles(), validate({ body: attachmentTargetSchema }), async (req, res) => {
+    const received = (req.files as Express.Multer.File[] | undefined) ?? [];
+    const files = received.map((f) => ({ originalName: f.originalname, bytes: f.buffer }));
+    const items = await createAttachments(ds, store(), currentUser(req), parsed<AttachmentTarget>(res, 'body'), files);
+    res.status(201).json(list(items));
+  });
+  router.get('/', validate({ query: attachmentTargetSchema }), async (req, res) => {
+    res.json(list(await listAttachments(ds, currentUser(req), parsed<AttachmentTarget>(res, 'query'))));
+  });
+  router.get('/:attachmentId/file', validate({ params: attachmentParam }), async (req, res) => {
+    const { attachmentId } = parsed<{ attachmentId: string }>(res, 'params');
+    sendFile(res, await readAttachmentFile(ds, store(), currentUser(req), attachmentId));
+  });
+  router.get('/:attachmentId/thumbnail', validate({ params: attachmentParam }), async (req, res) => {
+    const { attachmentId } = parsed<{ attachmentId: string }>(res, 'params');
+    sendFile(res, await readAttachmentThumbnail(ds, store(), currentUser(req), attachmentId));
+  });
+  router.delete('/:attachmentId', validate({ params: attachmentParam }), async (req, res) => {
+    const { attachmentId } = parsed<{ attachmentId: string }>(res, 'params');
+    await deleteAttachment(ds, store(), currentUser(req), attachmentId);
+    res.status(204).end();
+  });
+  return router;
+}

@@ -1,0 +1,43 @@
+import { mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { randomUUID } from 'node:crypto';
+import { dirname, resolve, sep } from 'node:path';
+import { assertStorageKey, type FileStorage } from './storage';
+
+/** Relative to the working directory the server starts in; git-ignored with the rest of `.data/`. */
+export const DEFAULT_UPLOAD_DIR = '.data/uploads';
+
+/**
+ * Files under one folder on this machine's disk. Keys become paths below the root; a key that
+ * would leave the root is refused. Writes go to a temporary name first, then are renamed, so a
+ * reader never sees half a file.
+ */
+export function diskStorage(rootDir: string = DEFAULT_UPLOAD_DIR): FileStorage {
+  const root = resolve(rootDir);
+  const pathOf = (key: string) => {
+    assertStorageKey(key);
+    const path = resolve(root, key);
+    if (!path.startsWith(root + sep)) throw new Error(`Refusing storage key ${JSON.stringify(key)}`);
+    return path;
+  };
+  return {
+    kind: 'disk',
+    async put(key, bytes) {
+      const path = pathOf(key);
+      await mkdir(dirname(path), { recursive: true });
+      const temporary = `${path}.${randomUUID()}.part`;
+      await writeFile(temporary, bytes, { flag: 'wx' });
+      await rename(temporary, path);
+    },
+    async get(key) {
+      try {
+        return await readFile(pathOf(key));
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code === 'ENOENT') return null;
+        throw err;
+      }
+    },
+    async delete(key) {
+      await rm(pathOf(key), { force: true });
+    },
+  };
+}
