@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import type { QueryClient } from '@tanstack/react-query';
 import {
   createBrowserRouter,
@@ -5,6 +6,7 @@ import {
   Outlet,
   redirect,
   type LoaderFunctionArgs,
+  type PatchRoutesOnNavigationFunction,
   type RouteObject,
 } from 'react-router-dom';
 import { NEXT_PARAM, paths, safeNextPath, signInPath } from '@/config/paths';
@@ -12,10 +14,18 @@ import { RouteError } from '@/components/errors/route-error';
 import { LoadingScreen } from '@/components/ui/loading-screen';
 import { authKeys } from '@/features/auth/api/auth-keys';
 import { meQueryOptions } from '@/features/auth/api/get-me';
+import type { MoreRoutesShared } from './more-routes';
 import { SignedInLayout } from './routes/signed-in-layout';
 
 /** The layout route that holds every page behind sign-in. */
 export const SIGNED_IN_ROUTE_ID = 'signed-in';
+/** The pathless route inside it whose children are the signed-in pages. */
+const PAGES_ROUTE_ID = 'signed-in-pages';
+const ROOT_ROUTE_ID = 'root';
+
+/** Addresses of the pages in more-routes.tsx: only these make the router fetch that list. */
+const MORE_ROUTES_PATH =
+  /^\/(shop|teams|suggestions|work-orders|setups|invitations|unsubscribe|dev|forgot-password|reset-password)(\/|$)|^\/cars\/[^/]+\/(import|suggestions)(\/|$)/;
 
 export type AppRouter = ReturnType<typeof createBrowserRouter>;
 
@@ -23,8 +33,11 @@ function pathOf(url: URL): string {
   return url.pathname + url.search;
 }
 
-/** The app's routes. Pages are loaded on first visit, so the first download stays small. */
-export function createRoutes(queryClient: QueryClient): RouteObject[] {
+/**
+ * The app's routes. Pages are loaded on first visit, so the first download stays small; the
+ * pages opened now and then are not even listed until an address asks for one (`discover`).
+ */
+export function createRoutes(queryClient: QueryClient): { routes: RouteObject[]; discover: PatchRoutesOnNavigationFunction } {
   const requireSignIn = async ({ request }: LoaderFunctionArgs) => {
     const me = await queryClient.ensureQueryData({ ...meQueryOptions(), revalidateIfStale: true });
     if (!me) throw redirect(signInPath(pathOf(new URL(request.url))));
@@ -39,9 +52,48 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
 
   const loading = <LoadingScreen />;
 
+  return {
+    routes: staticRoutes({ requireSignIn, signedOutOnly, loading }),
+    discover: discoverRoutes({ signedOutOnly, loading }),
+  };
+}
+
+/**
+ * Adds the pages of more-routes.tsx the first time an address needs one of them. Every other
+ * address (the trackside page above all) is answered at once, without waiting for that list.
+ */
+function discoverRoutes(shared: MoreRoutesShared): PatchRoutesOnNavigationFunction {
+  let added: Promise<void> | null = null;
+  return ({ path, patch }) => {
+    if (!MORE_ROUTES_PATH.test(path)) return;
+    added ??= import('./more-routes').then(
+      ({ moreRoutes }) => {
+        const more = moreRoutes(shared);
+        patch(ROOT_ROUTE_ID, more.root);
+        patch(PAGES_ROUTE_ID, more.signedIn);
+      },
+      (error: unknown) => {
+        // No signal: let the next navigation try again.
+        added = null;
+        throw error;
+      },
+    );
+    return added;
+  };
+}
+
+function staticRoutes({
+  requireSignIn,
+  signedOutOnly,
+  loading,
+}: {
+  requireSignIn: (args: LoaderFunctionArgs) => Promise<null>;
+  signedOutOnly: (args: LoaderFunctionArgs) => Promise<null>;
+  loading: ReactNode;
+}): RouteObject[] {
   return [
     {
-      id: 'root',
+      id: ROOT_ROUTE_ID,
       element: <Outlet />,
       errorElement: <RouteError />,
       hydrateFallbackElement: loading,
@@ -59,33 +111,6 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
           lazy: async () => ({ Component: (await import('./routes/register')).RegisterPage }),
         },
         {
-          path: paths.forgotPassword,
-          loader: signedOutOnly,
-          hydrateFallbackElement: loading,
-          lazy: async () => ({ Component: (await import('./routes/account/forgot-password')).ForgotPasswordPage }),
-        },
-        {
-          path: paths.resetPassword,
-          hydrateFallbackElement: loading,
-          lazy: async () => ({ Component: (await import('./routes/account/reset-password')).ResetPasswordPage }),
-        },
-        {
-          // Works signed in or out: signed out, the page offers sign-in or registration first.
-          path: '/invitations/:token',
-          hydrateFallbackElement: loading,
-          lazy: async () => ({ Component: (await import('./routes/account/invitation')).InvitationPage }),
-        },
-        {
-          path: '/unsubscribe/:token',
-          hydrateFallbackElement: loading,
-          lazy: async () => ({ Component: (await import('./routes/account/unsubscribe')).UnsubscribePage }),
-        },
-        {
-          path: paths.devMailbox,
-          hydrateFallbackElement: loading,
-          lazy: async () => ({ Component: (await import('./routes/dev/mailbox')).MailboxPage }),
-        },
-        {
           id: SIGNED_IN_ROUTE_ID,
           loader: requireSignIn,
           hydrateFallbackElement: loading,
@@ -93,6 +118,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
           children: [
             {
               // A pathless wrapper: a page that fails shows its error inside the shell.
+              id: PAGES_ROUTE_ID,
               errorElement: <RouteError variant="in-shell" />,
               children: [
                 {
@@ -141,38 +167,6 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                   lazy: async () => ({ Component: (await import('./routes/notifications')).NotificationsPage }),
                 },
                 {
-                  path: paths.shop,
-                  lazy: async () => ({ Component: (await import('./routes/shop/shop')).ShopPage }),
-                },
-                {
-                  path: `${paths.shop}/customers/:carId`,
-                  lazy: async () => ({ Component: (await import('./routes/shop/customer')).CustomerPage }),
-                },
-                {
-                  path: `${paths.cars}/:carId/suggestions/new`,
-                  lazy: async () => ({ Component: (await import('./routes/suggestions/new-suggestion')).NewSuggestionPage }),
-                },
-                {
-                  path: '/suggestions/:suggestionId',
-                  lazy: async () => ({ Component: (await import('./routes/suggestions/suggestion')).SuggestionPage }),
-                },
-                {
-                  path: '/work-orders/:workOrderId',
-                  lazy: async () => ({ Component: (await import('./routes/work-orders/work-order')).WorkOrderPage }),
-                },
-                {
-                  path: paths.teams,
-                  lazy: async () => ({ Component: (await import('./routes/teams/teams')).TeamsPage }),
-                },
-                {
-                  path: `${paths.teams}/:teamId`,
-                  lazy: async () => ({ Component: (await import('./routes/teams/team')).TeamPage }),
-                },
-                {
-                  path: `${paths.teams}/:teamId/board`,
-                  lazy: async () => ({ Component: (await import('./routes/teams/class-board')).ClassBoardPage }),
-                },
-                {
                   path: paths.settings,
                   lazy: async () => ({ Component: (await import('./routes/settings')).SettingsPage }),
                 },
@@ -190,7 +184,8 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
 }
 
 export function createAppRouter(queryClient: QueryClient): AppRouter {
-  return createBrowserRouter(createRoutes(queryClient));
+  const { routes, discover } = createRoutes(queryClient);
+  return createBrowserRouter(routes, { patchRoutesOnNavigation: discover });
 }
 
 /**

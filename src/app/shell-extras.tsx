@@ -1,16 +1,24 @@
+import type { CommentTarget } from '@shared/collab/comment.schema';
+import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { CommentsHost } from '@/features/comments/components/comments-host';
 import { NotificationBell } from '@/features/notifications/components/notification-bell';
 
+/** A run's or an event's photos, in the dialog the trackside "Comments" buttons open (the strip loads when unfolded). */
+function photosOf(target: CommentTarget) {
+  if (target.type !== 'run' && target.type !== 'event') return null;
+  return <AttachmentToggle target={{ targetType: target.type, targetId: target.id }} what={target.type === 'run' ? 'this run' : 'this event'} />;
+}
+
 /**
  * The parts of the signed-in shell no page waits for: the notification bell (a count the server
- * sends anyway) and the host that opens comment threads over the trackside screen. One small file,
- * loaded just after the page (see signed-in-layout.tsx).
+ * sends anyway) and the host that opens comment threads over the trackside screen, with the record's
+ * photos. One small file, loaded just after the page (see signed-in-layout.tsx).
  */
 export function ShellExtras() {
   return (
     <>
       <NotificationBell />
-      <CommentsHost />
+      <CommentsHost renderExtras={photosOf} />
     </>
   );
 }

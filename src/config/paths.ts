@@ -39,6 +39,11 @@ export const pathTo = {
   classBoard: (teamId: string) => `/teams/${teamId}/board`,
   event: (eventId: string, carId?: string | null) =>
     `/events/${eventId}${carId ? `?carId=${encodeURIComponent(carId)}` : ''}`,
+  /** Timing-sheet import for one car, optionally at a chosen event. */
+  importResults: (carId: string, eventId?: string | null) =>
+    `/cars/${carId}/import${eventId ? `?eventId=${encodeURIComponent(eventId)}` : ''}`,
+  /** Season export: one setup snapshot as a printable sheet. */
+  setupSheet: (setupId: string) => `/setups/${setupId}/sheet`,
 };
 
 export const NEXT_PARAM = 'next';

@@ -147,7 +147,8 @@ export function setUpAppTests(pages: readonly (() => Promise<unknown>)[] = [], {
  */
 export function renderApp(path: string, { outboxEntries = [] }: RenderAppOptions = {}) {
   const queryClient = createQueryClient({ retry: false, onUnauthenticated: () => sendToSignIn(router, queryClient) });
-  const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: [path] });
+  const { routes, discover } = createRoutes(queryClient);
+  const router = createMemoryRouter(routes, { initialEntries: [path], patchRoutesOnNavigation: discover });
   let current: OutboxEntry | null = null;
   const outbox = new Outbox({
     storage: memoryStorage(outboxEntries),

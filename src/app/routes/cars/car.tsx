@@ -1,12 +1,13 @@
 import { useMemo, useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
-import { ChartScatter, Plus, Ruler } from 'lucide-react';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { ChartScatter, FileUp, Plus, Ruler } from 'lucide-react';
 import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
+import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCar } from '@/features/cars/api/get-car';
 import { CarHeader } from '@/features/cars/components/car-header';
@@ -23,6 +24,10 @@ import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { ShopAccess } from '@/features/shops/components/shop-access';
 import { SuggestionList } from '@/features/suggestions/components/suggestion-list';
 import { CarVisits } from '@/features/work-orders/components/work-order-lists';
+// Season export
+import { useQueryClient } from '@tanstack/react-query';
+import { carKeys } from '@/features/cars/api/car-keys';
+import { SeasonData } from '@/features/exports/components/season-data';
 
 function SetupSection({ carId }: { carId: string }) {
   const { data: me } = useMe();
@@ -38,9 +43,14 @@ function SetupSection({ carId }: { carId: string }) {
     <SetupTimeline
       carId={carId}
       setups={setups}
-      // A snapshot still on this phone has no thread on the server yet.
+      // A snapshot still on this phone has no thread (nor photos) on the server yet.
       renderExtras={(setup) =>
-        setup.pending ? null : <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} />
+        setup.pending ? null : (
+          <>
+            <AttachmentToggle target={{ targetType: 'setup', targetId: setup.id }} what={`“${setup.label}”`} />
+            <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} />
+          </>
+        )
       }
     />
   );
@@ -79,6 +89,21 @@ function ChangeSection({ carId }: { carId: string }) {
   return <ChangeLog carId={carId} saved={data?.items ?? []} entries={entries} />;
 }
 
+/** Season export: the downloads, and a file brought in as a new car (then opened). */
+function DataSection({ carId }: { carId: string }) {
+  const queryClient = useQueryClient();
+  const navigate = useNavigate();
+  return (
+    <SeasonData
+      carId={carId}
+      onImported={async ({ carId: newCarId }) => {
+        await queryClient.invalidateQueries({ queryKey: carKeys.all });
+        await navigate(pathTo.car(newCarId));
+      }}
+    />
+  );
+}
+
 /** One car: its setup history, its tyres, its drivers, and its change log. */
 export function CarPage() {
   const { carId = '' } = useParams();
@@ -103,6 +128,9 @@ export function CarPage() {
         </Link>
         <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
           <ChartScatter aria-hidden="true" className="size-5" /> Season review
+        </Link>
+        <Link to={pathTo.importResults(carId)} className={buttonClasses('secondary')}>
+          <FileUp aria-hidden="true" className="size-5" /> Import results
         </Link>
       </CarHeader>
       <div className="grid gap-4 lg:grid-cols-2">
@@ -144,6 +172,11 @@ export function CarPage() {
           <SectionBoundary title="Change log">
             <SectionCard title="Change log">
               <ChangeSection carId={carId} />
+            </SectionCard>
+          </SectionBoundary>
+          <SectionBoundary title="Your data">
+            <SectionCard title="Your data">
+              <DataSection carId={carId} />
             </SectionCard>
           </SectionBoundary>
         </div>

@@ -6,6 +6,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { SectionCard } from '@/components/ui/section-card';
 import { formatDateTime } from '@/lib/dates';
 import { toast } from '@/lib/toast-store';
+import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useCar } from '@/features/cars/api/get-car';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
@@ -48,11 +49,12 @@ export function TreadPage() {
         <SectionCard title="Latest readings">
           <ul className="flex flex-col gap-3" aria-label="Latest reading of each set">
             {readings.map(({ set, reading }) => (
-              <li key={set.id} className="flex flex-col gap-1 rounded border border-line p-3">
+              <li key={set.id} className="flex flex-col gap-2 rounded border border-line p-3">
                 <p>
                   <span className="font-bold">{set.label}</span>{' '}
                   <span className="tabular-figures text-sm text-ink-muted">· {formatDateTime(reading.takenAt)}</span>
                 </p>
+                <AttachmentToggle target={{ targetType: 'tread_reading', targetId: reading.id }} what={`the ${set.label} reading`} defaultOpen />
                 <CommentToggle target={{ type: 'tread_reading', id: reading.id }} what={`the ${set.label} reading`} />
               </li>
             ))}

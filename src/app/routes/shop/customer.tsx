@@ -10,6 +10,7 @@ import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { formatDay } from '@/lib/dates';
 import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-season';
+import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useCar } from '@/features/cars/api/get-car';
 import { CarHeader } from '@/features/cars/components/car-header';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
@@ -30,6 +31,7 @@ function EventRuns({ carId, event }: { carId: string; event: SeasonEventRow }) {
   return (
     <div className="flex flex-col gap-3 pt-2">
       <CommentToggle target={{ type: 'event', id: event.eventId, carId }} what={`the day at ${event.name}`} />
+      <AttachmentToggle target={{ targetType: 'event', targetId: event.eventId }} what={event.name} />
       {isPending ? (
         <p className="text-ink-muted">Loading runs…</p>
       ) : isError ? (
@@ -55,6 +57,7 @@ function EventRuns({ carId, event }: { carId: string; event: SeasonEventRow }) {
               <p className="text-sm text-ink-muted">Setup: {labelOf(run.setupId)}</p>
               {run.notes ? <p className="text-sm">{run.notes}</p> : null}
               <CommentToggle target={{ type: 'run', id: run.id }} what={`run ${run.runNumber}`} count={run.commentCount} />
+              <AttachmentToggle target={{ targetType: 'run', targetId: run.id }} what={`run ${run.runNumber}`} />
             </li>
           ))}
         </ol>
@@ -122,6 +125,7 @@ function Setups({ carId }: { carId: string }) {
           <Link to={pathTo.newSuggestion(carId, setup.id)} className={buttonClasses('secondary', 'self-start')}>
             Suggest a change
           </Link>
+          <AttachmentToggle target={{ targetType: 'setup', targetId: setup.id }} what={`“${setup.label}”`} />
           <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} />
         </>
       )}

@@ -1,4 +1,4 @@
-import { useId, useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent, type ReactNode } from 'react';
 import { Pencil, Trash2 } from 'lucide-react';
 import type { Comment, CommentTarget } from '@shared/collab/comment.schema';
 import { Button } from '@/components/ui/button';
@@ -228,16 +228,19 @@ interface CommentDialogProps {
   title: string;
   open: boolean;
   onOpenChange: (open: boolean) => void;
+  /** More about the same record above the thread (the app adds its photos). */
+  children?: ReactNode;
 }
 
 /**
  * A thread over the page, for the trackside screen: the shell's comments host (comments-host.tsx)
  * loads it on the first tap, so the screen that logs runs does not carry it.
  */
-export function CommentDialog({ target, title, open, onOpenChange }: CommentDialogProps) {
+export function CommentDialog({ target, title, open, onOpenChange, children }: CommentDialogProps) {
   return (
     <Dialog open={open} onOpenChange={onOpenChange} title={title}>
-      <div className="max-h-[70dvh] overflow-y-auto">
+      <div className="flex max-h-[70dvh] flex-col gap-3 overflow-y-auto">
+        {children}
         <CommentThread target={target} label={title} />
       </div>
     </Dialog>

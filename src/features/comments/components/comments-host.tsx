@@ -1,4 +1,5 @@
-import { lazy, Suspense, useEffect, useState } from 'react';
+import { lazy, Suspense, useEffect, useState, type ReactNode } from 'react';
+import type { CommentTarget } from '@shared/collab/comment.schema';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
 import { toast } from '@/lib/toast-store';
 // Type only: importing the button's module would tie this chunk (on every page) to the trackside one.
@@ -20,9 +21,10 @@ function CouldNotOpen({ onShown }: { onShown: () => void }) {
 
 /**
  * Opens a comment thread over whatever page asked (the trackside "Comments" buttons): the app shell
- * mounts this once, and the thread's code is fetched on the first request.
+ * mounts this once, and the thread's code is fetched on the first request. `renderExtras` adds more
+ * about the same record above the thread (the shell passes the record's photos).
  */
-export function CommentsHost() {
+export function CommentsHost({ renderExtras }: { renderExtras?: (target: CommentTarget) => ReactNode } = {}) {
   const [request, setRequest] = useState<OpenCommentsDetail | null>(null);
   // A fresh lazy component after a failed download, so the next tap tries again.
   const [CommentDialog, setCommentDialog] = useState(() => lazyDialog());
@@ -52,7 +54,9 @@ export function CommentsHost() {
           onOpenChange={(open) => {
             if (!open) setRequest(null);
           }}
-        />
+        >
+          {renderExtras?.(request.target)}
+        </CommentDialog>
       </Suspense>
     </ErrorBoundary>
   );

@@ -127,11 +127,19 @@ export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }:
                 <SetupValues setup={setup} />
               </div>
             </details>
-            {readOnly ? null : (
-              <div>
-                <Link to={pathTo.newSetup(carId, setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
-                  Start a new setup from this one
-                </Link>
+            {readOnly && setup.pending ? null : (
+              <div className="flex flex-wrap gap-x-4">
+                {readOnly ? null : (
+                  <Link to={pathTo.newSetup(carId, setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
+                    Start a new setup from this one
+                  </Link>
+                )}
+                {/* Season export: a snapshot still on this phone is not on the server to print yet. */}
+                {setup.pending ? null : (
+                  <Link to={pathTo.setupSheet(setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
+                    Print a setup sheet
+                  </Link>
+                )}
               </div>
             )}
             {renderExtras?.(setup)}

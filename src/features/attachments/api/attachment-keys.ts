@@ -1,0 +1,13 @@
+import type { AttachmentTarget } from '@shared/files/attachment.schema';
+
+/** Every attachment query key; a list's key holds its whole target. */
+export const attachmentKeys = {
+  all: ['attachments'] as const,
+  list: (target: AttachmentTarget) => [...attachmentKeys.all, 'list', { type: target.targetType, id: target.targetId }] as const,
+};
+
+/** The file itself, served only to people who may see its record (the session cookie goes along). */
+export const attachmentFileUrl = (attachmentId: string) => `/api/attachments/${encodeURIComponent(attachmentId)}/file`;
+
+/** A small image of a photo; only when the attachment says it has one. */
+export const attachmentThumbnailUrl = (attachmentId: string) => `/api/attachments/${encodeURIComponent(attachmentId)}/thumbnail`;

@@ -1,0 +1,19 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { AttachmentTarget } from '@shared/files/attachment.schema';
+import { api } from '@/lib/api-client';
+import { attachmentKeys } from './attachment-keys';
+
+export function deleteAttachment(attachmentId: string): Promise<void> {
+  return api.delete(`/api/attachments/${encodeURIComponent(attachmentId)}`);
+}
+
+/** An online write: its error (no connection, not allowed) is shown beside the strip. */
+export function useDeleteAttachment(target: AttachmentTarget) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: deleteAttachment,
+    networkMode: 'always',
+    meta: { errorsShownInline: true },
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: attachmentKeys.list(target) }),
+  });
+}

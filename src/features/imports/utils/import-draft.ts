@@ -1,0 +1,70 @@
+import { formatRunTime } from '@shared/season/run-time';
+import type { ImportRow, ImportRun } from '@shared/import/mapping';
+import type { ImportFailure, ImportRunItem } from '@shared/import/import.schema';
+
+/** Which rows are the user's: a car number to match exactly and/or words of the driver's name. */
+export interface WhoseFilter {
+  carNumber: string;
+  driverName: string;
+}
+
+const words = (s: string) => s.toLowerCase().split(/[\s,.]+/).filter(Boolean);
+
+/**
+ * A row matches when its car number equals the one given (if any) and its driver name holds every
+ * word given (if any), in any order, so "Nell Ashdown" finds "Ashdown, Nell". An empty filter matches all.
+ */
+export function matchesWhose(row: ImportRow, filter: WhoseFilter): boolean {
+  const number = filter.carNumber.trim().replace(/^#\s*/, '').toLowerCase();
+  if (number && row.carNumber.trim().toLowerCase() !== number) return false;
+  const wanted = words(filter.driverName);
+  const have = words(row.driverName);
+  return wanted.every((w) => have.includes(w));
+}
+
+/** The runs of the chosen rows, as the server takes them; runs the sheet could not give are listed apart. */
+export function runsToSend(rows: readonly ImportRow[]): { runs: ImportRunItem[]; notSent: ImportFailure[] } {
+  const runs: ImportRunItem[] = [];
+  const notSent: ImportFailure[] = [];
+  for (const row of rows) {
+    if (row.error) notSent.push({ line: row.line, runNumber: 0, reason: row.error });
+    for (const run of row.runs) {
+      if (run.error) notSent.push({ line: row.line, runNumber: run.runNumber, reason: run.error });
+      else runs.push({ line: row.line, runNumber: run.runNumber, status: run.status, rawTimeSec: run.rawSec, cones: run.cones });
+    }
+  }
+  return { runs, notSent };
+}
+
+/** "46.210 +1", "DNF", "Off course", "DSQ" — one run as the page shows it. */
+export function describeRun(run: ImportRun): string {
+  if (run.error) return 'cannot be read';
+  const time = run.rawSec === null ? null : formatRunTime(run.rawSec);
+  const cones = run.cones > 0 ? ` +${run.cones}` : '';
+  switch (run.status) {
+    case 'finished':
+      return `${time ?? ''}${cones}`;
+    case 'dnf':
+      return time ? `DNF (${time})` : 'DNF';
+    case 'off_course':
+      return time ? `Off course (${time})` : 'Off course';
+    case 'dsq':
+      return time ? `DSQ (${time})` : 'DSQ';
+  }
+}
+
+/** Noon on the event's date where this browser is, as the time run 1 is taken to have started. */
+export function localNoon(date: string): string | undefined {
+  const at = new Date(`${date}T12:00:00`);
+  return Number.isNaN(at.getTime()) ? undefined : at.toISOString();
+}
+
+/** The file's text (UTF-8), through FileReader, which every browser we support has. */
+export function readFileText(file: Blob): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const reader = new FileReader();
+    reader.onload = () => resolve(String(reader.result ?? ''));
+    reader.onerror = () => reject(reader.error ?? new Error('The file could not be read'));
+    reader.readAsText(file);
+  });
+}
