@@ -50,11 +50,11 @@ export function SetupSheet({ car, setup, printedOn = new Date() }: SetupSheetPro
         label="Setup values by corner"
         title={<h2 className="text-lg font-bold print:text-[12pt]">Corners</h2>}
         renderCorner={(corner) => (
-          <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-sm print:gap-y-0">
+          <dl className="grid grid-cols-[minmax(0,1fr)_auto] gap-x-2 gap-y-0.5 text-sm print:gap-y-0">
             {SETUP_CORNER_FIELDS.map((field) => (
               <Fragment key={field}>
                 <dt className="text-ink-muted">{FIELD_INFO[field].label}</dt>
-                <dd className="text-right font-semibold tabular-figures">{formatFieldValue(field, setup.corners[corner]?.[field], units)}</dd>
+                <dd className="text-right font-semibold whitespace-nowrap tabular-figures">{formatFieldValue(field, setup.corners[corner]?.[field], units)}</dd>
               </Fragment>
             ))}
           </dl>
