@@ -24,7 +24,7 @@ const PAGES_ROUTE_ID = 'signed-in-pages';
 const ROOT_ROUTE_ID = 'root';
 
 /** Addresses of the pages in more-routes.tsx: only these make the router fetch that list. */
-const MORE_ROUTES_PATH =
+export const MORE_ROUTES_PATH =
   /^\/(shop|teams|suggestions|work-orders|setups|invitations|unsubscribe|dev|forgot-password|reset-password)(\/|$)|^\/cars\/[^/]+\/(import|suggestions)(\/|$)/;
 
 export type AppRouter = ReturnType<typeof createBrowserRouter>;
