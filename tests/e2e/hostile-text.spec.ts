@@ -1,0 +1,56 @@
+import { afterAll, describe, expect, inject, it } from 'vitest';
+import { openBrowser, screenshot, signIn, type OpenBrowser } from './browser';
+
+/**
+ * Text people type is stored as typed and drawn as text: markup in a car's name or a comment
+ * never becomes an element, and its event handlers never run (OWASP, "Cross Site Scripting
+ * Prevention Cheat Sheet": output encoding; React escapes text children by default).
+ */
+const baseUrl = inject('baseUrl');
+const PAYLOAD = '<img src=x onerror="window.__scrublineXss = (window.__scrublineXss || 0) + 1">';
+const SQL = "Robert'); DROP TABLE runs;--";
+
+let browser: OpenBrowser | undefined;
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('markup and SQL typed into the notebook (390×844)', () => {
+  it('when a car is named with an <img onerror> and a comment carries one, then both read as text and nothing runs', async () => {
+    browser = await openBrowser('phone');
+    // The second demo driver: no other browser test reads her cars.
+    const page = await signIn(browser.page, baseUrl, 'priya@example.com', 'Priya Castellan');
+    const { carId, setupLabel } = await page.evaluate(
+      async ({ name, body }) => {
+        const token = (await (await fetch('/api/auth/csrf')).json()).token as string;
+        const post = (path: string, data: object) =>
+          fetch(path, { method: 'POST', headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': token }, body: JSON.stringify(data) });
+        const car = await (await post('/api/cars', { name, classCode: 'SS' })).json();
+        const setup = await (
+          await post(`/api/cars/${car.id}/setups`, { label: 'Baseline', effectiveFrom: '2026-04-01T08:00:00.000Z', corners: {} })
+        ).json();
+        const comment = await post('/api/comments', { target: { type: 'setup', id: setup.id }, body });
+        if (!comment.ok) throw new Error(`comment: ${comment.status}`);
+        return { carId: car.id as string, setupLabel: setup.label as string };
+      },
+      { name: PAYLOAD, body: `${PAYLOAD} ${SQL}` },
+    );
+
+    await page.goto(`${baseUrl}/cars`);
+    await page.getByText(PAYLOAD, { exact: true }).first().waitFor({ timeout: 20_000 });
+
+    await page.goto(`${baseUrl}/cars/${carId}`);
+    await page.getByRole('button', { name: new RegExp(`^Comments.* on “${setupLabel}”`) }).first().click();
+    await page.getByText(`${PAYLOAD} ${SQL}`, { exact: true }).waitFor({ timeout: 20_000 });
+    await screenshot(page, 'hostile-text-car');
+
+    // Drawn as text: no <img src="x"> anywhere, and its handler never ran.
+    expect(await page.locator('img[src="x"]').count()).toBe(0);
+    expect(await page.evaluate(() => (window as unknown as { __scrublineXss?: number }).__scrublineXss)).toBeUndefined();
+    // Stored as typed, and the runs table is still there to answer.
+    const back = await page.evaluate(async (id) => (await (await fetch(`/api/cars/${id}`)).json()).name as string, carId);
+    expect(back).toBe(PAYLOAD);
+    expect(await page.evaluate(async (id) => (await fetch(`/api/runs?carId=${id}`)).status, carId)).toBe(200);
+  });
+});
