@@ -66,6 +66,11 @@ export const CSP_NONCE_PLACEHOLDER = '__CSP_NONCE__';
 
 /** Builds the Express app without listening, so tests can run it on port 0. */
 export function createApp(opts: AppOptions) {
+  // When PostgreSQL restarts, the session store's idle connections die; without a listener the pool's
+  // 'error' event would end the process. The pool drops them and connects afresh on the next request.
+  if (opts.pool.listenerCount('error') === 0) {
+    opts.pool.on('error', (err) => logger.warn({ err }, 'an idle database connection was closed'));
+  }
   const app = express();
   app.disable('x-powered-by');
   if (opts.trustProxy) app.set('trust proxy', 1);

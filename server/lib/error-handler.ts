@@ -18,6 +18,20 @@ interface HttpishError {
   code?: string;
 }
 
+/**
+ * The database cannot be reached or is going away: node-postgres's socket errors, PostgreSQL's SQLSTATE
+ * class 08 (connection exception) and 57P (operator intervention: shutdown, cannot connect now), and
+ * the pool's own words when a connection dies or cannot be made. TypeORM keeps the driver's error inside.
+ */
+export function isDatabaseUnavailable(err: unknown): boolean {
+  const e = (err ?? {}) as { code?: unknown; message?: unknown; driverError?: unknown };
+  if (e.driverError && isDatabaseUnavailable(e.driverError)) return true;
+  const code = typeof e.code === 'string' ? e.code : '';
+  if (['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'ENOTFOUND'].includes(code) || /^(08|57P)/.test(code)) return true;
+  const message = typeof e.message === 'string' ? e.message : '';
+  return /Connection terminated|timeout exceeded when trying to connect|the database system is (starting up|shutting down)/i.test(message);
+}
+
 /** Registered last: every error leaves the server through here, in one shape. */
 export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) => {
   if (res.headersSent) return next(err);
@@ -47,6 +61,13 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
   }
   if (e.status === 415 || e.type === 'encoding.unsupported' || e.type === 'charset.unsupported') {
     return send(res, 415, { error: { code: 'unsupported_media_type', message: 'That content type is not supported.' } });
+  }
+  if (isDatabaseUnavailable(err)) {
+    logger.warn({ err, requestId, method: req.method, url: req.originalUrl }, 'database unavailable');
+    res.setHeader('Retry-After', '5');
+    return send(res, 503, {
+      error: { code: 'unavailable', message: 'Scrubline cannot reach its database just now. Nothing you saved is lost; try again in a moment.' },
+    });
   }
   logger.error({ err, requestId, method: req.method, url: req.originalUrl }, 'unhandled error');
   return send(res, 500, {
