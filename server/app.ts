@@ -168,7 +168,7 @@ export function createApp(opts: AppOptions) {
   mount('/api/teams', teamRoutes(opts.ds, opts.mail));
   mount('/api/invitations', invitationRoutes(opts.ds, opts.mail));
   mount('/api/unsubscribe', unsubscribeRoutes(opts.ds, opts.mail));
-  mount('/api/attachments', attachmentRoutes(opts.ds, opts.storage)); // uploads
+  mount('/api/attachments', attachmentRoutes(opts.ds, opts.storage, limits)); // uploads
   if (opts.mailboxDir) mount('/api/dev/mailbox', mailboxRoutes(opts.mailboxDir));
   app.use('/api', apiNotFound);
   // RFC 8058: mail programs POST to the List-Unsubscribe address (the page) without cookies or CSRF token.

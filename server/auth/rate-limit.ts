@@ -13,6 +13,8 @@ export interface AuthLimits {
   resetPerIp: number;
   /** Password-reset requests allowed per e-mail address in the window (known or not). */
   resetPerEmail: number;
+  /** Upload requests (each up to 10 files) allowed per account in the window. */
+  uploadsPerUser: number;
   windowSec: number;
   /** Separates counters of independent app instances sharing one database (tests). */
   keyPrefix: string;
@@ -24,12 +26,13 @@ export const DEFAULT_AUTH_LIMITS: AuthLimits = {
   registerPerIp: 10,
   resetPerIp: 10,
   resetPerEmail: 3,
+  uploadsPerUser: 60,
   windowSec: 15 * 60,
   keyPrefix: 'auth',
 };
 
 /**
- * Sign-in, registration and password-reset counters kept in PostgreSQL (table auth_rate_limits),
+ * Sign-in, registration, password-reset and upload counters kept in PostgreSQL (table auth_rate_limits),
  * so a restart does not reset them. Per IP, every attempt counts; per account, only
  * failures count and a success clears them.
  */
@@ -48,6 +51,7 @@ export function createAuthRateLimits(pool: Pool, limits: AuthLimits) {
   const registerIp = make('register-ip', limits.registerPerIp);
   const resetIp = make('reset-ip', limits.resetPerIp);
   const resetEmail = make('reset-email', limits.resetPerEmail);
+  const uploadUser = make('upload-user', limits.uploadsPerUser);
 
   const tooMany = (msBeforeNext: number) => {
     const seconds = Math.max(1, Math.ceil(msBeforeNext / 1000));
@@ -85,6 +89,10 @@ export function createAuthRateLimits(pool: Pool, limits: AuthLimits) {
     async beforePasswordReset(ip: string, email: string) {
       await consume(resetIp, ip);
       await consume(resetEmail, email);
+    },
+    /** Before an upload's body is read: every upload request counts, per account. */
+    async beforeUpload(userId: string) {
+      await consume(uploadUser, userId);
     },
   };
 }

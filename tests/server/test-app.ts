@@ -58,7 +58,7 @@ export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string 
     mailboxDir: opts.mailboxDir,
     payments: opts.payments,
     storage: opts.storage ?? diskStorage(uploadDir),
-    authLimits: { loginPerIp: 1000, registerPerIp: 1000, resetPerIp: 1000, resetPerEmail: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
+    authLimits: { loginPerIp: 1000, registerPerIp: 1000, resetPerIp: 1000, resetPerEmail: 1000, uploadsPerUser: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
   });
   return {
     app,

@@ -8,6 +8,7 @@ import { currentUser, requireAuth } from '../../auth/access';
 import { AppError } from '../../lib/app-error';
 import { parsed, validate } from '../../lib/validate';
 import { idParam, list } from '../../lib/http';
+import type { AuthRateLimits } from '../../auth/rate-limit';
 import type { FileStorage } from '../../files/storage';
 import { inlineDisposition } from '../../files/inspect';
 import {
@@ -71,7 +72,7 @@ function sendFile(res: Response, file: FileBytes) {
  * Routes under /api/attachments: photos and PDFs on tread readings, runs, setups and events.
  * Without a storage (not configured) they answer 503.
  */
-export function attachmentRoutes(ds: DataSource, storage?: FileStorage) {
+export function attachmentRoutes(ds: DataSource, storage: FileStorage | undefined, limits: Pick<AuthRateLimits, 'beforeUpload'>) {
   const router = Router();
   router.use(requireAuth);
   const attachmentParam = idParam('attachmentId');
@@ -80,7 +81,11 @@ export function attachmentRoutes(ds: DataSource, storage?: FileStorage) {
     return storage;
   };
 
-  router.post('/', receiveFiles(), validate({ body: attachmentTargetSchema }), async (req, res) => {
+  // The count comes first: a flood of uploads is refused before its bodies are read.
+  const counted: RequestHandler = (req, _res, next) => {
+    limits.beforeUpload(currentUser(req).id).then(() => next(), next);
+  };
+  router.post('/', counted, receiveFiles(), validate({ body: attachmentTargetSchema }), async (req, res) => {
     const received = (req.files as Express.Multer.File[] | undefined) ?? [];
     const files = received.map((f) => ({ originalName: f.originalname, bytes: f.buffer }));
     const items = await createAttachments(ds, store(), currentUser(req), parsed<AttachmentTarget>(res, 'body'), files);
