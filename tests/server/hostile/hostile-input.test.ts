@@ -1,0 +1,115 @@
+import fc from 'fast-check';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { listRoutes, type Mount } from '../../../server/lib/routes';
+import { makeTestApp, type TestApp } from '../test-app';
+import { driverWithCarAndEvent, type Driver } from '../season/season-fixtures';
+
+/**
+ * Random and malformed bodies (fast-check) sent to every POST, PUT and PATCH route the app lists,
+ * signed in as a driver with a car, an event and a valid CSRF token, so each request reaches the
+ * route's own checks. The answer is never a 500: a body the route cannot take is a 400 in the
+ * error envelope (with field errors when it was valid JSON), and nothing is written.
+ */
+let t: TestApp;
+let d: Driver;
+
+beforeAll(async () => {
+  t = await makeTestApp();
+  d = await driverWithCarAndEvent(t);
+});
+afterAll(async () => {
+  await t.close();
+});
+
+/** Every row of every table of ours, summed: a refused request must leave it unchanged. */
+async function totalRows(): Promise<number> {
+  const tables: { relname: string }[] = await t.ds.query(
+    `SELECT relname FROM pg_stat_user_tables WHERE relname NOT IN ('session', 'auth_rate_limits', 'migrations')`,
+  );
+  const counts = await Promise.all(tables.map(async ({ relname }) => Number((await t.ds.query(`SELECT count(*) AS n FROM "${relname}"`))[0].n)));
+  return counts.reduce((a, b) => a + b, 0);
+}
+
+/** Field names the app's schemas use, so generated objects get past "unknown key" into type and range checks. */
+const FIELD = fc.constantFrom(
+  'id', 'name', 'label', 'carId', 'eventId', 'runNumber', 'rawTimeSec', 'cones', 'status', 'recordedAt', 'effectiveFrom',
+  'corners', 'lf', 'camberDeg', 'body', 'target', 'type', 'email', 'password', 'displayName', 'lines', 'quantity',
+  'unitPriceCents', 'version', 'date', 'classCode', 'notes', 'handoverAt', 'taxRatePct', 'runs', 'changes', 'kind',
+);
+const HOSTILE_TEXT = fc.constantFrom(
+  '<img src=x onerror=alert(1)>', "'; DROP TABLE runs; --", '\u0000', '\uFFFF'.repeat(3), '🏁'.repeat(50), '-1e309', 'NaN', '__proto__',
+);
+const value = fc.oneof(fc.jsonValue({ maxDepth: 3 }), HOSTILE_TEXT, fc.constantFrom(-1, 0, 1e308, -0, 2 ** 53 + 1));
+const body = fc.oneof(
+  { weight: 3, arbitrary: fc.dictionary(FIELD, value, { maxKeys: 6 }) },
+  { weight: 1, arbitrary: fc.jsonValue({ maxDepth: 3 }) },
+  { weight: 1, arbitrary: fc.array(fc.dictionary(FIELD, value, { maxKeys: 3 }), { maxLength: 3 }) },
+);
+/** Text sent as application/json that is not JSON at all. */
+const broken = fc.constantFrom('{"a":', '{name: 1}', "{'a':1}", '[1,2', '\u0000', 'null null', '{"a":1}}');
+
+/**
+ * Left out: the payment service's webhook (it checks a signature, not a session) and signing out
+ * (it takes no body, and would end the session the other requests use).
+ */
+const SKIP = new Set(['POST /api/payments/webhook', 'POST /api/auth/logout']);
+
+function pathFor(route: string): string {
+  const path = route.split(' ')[1]!;
+  return path
+    .replace(':carId', d.carId)
+    .replace(':eventId', d.eventId)
+    .replace(/:[A-Za-z]+/g, '0b5c8a52-2d1f-4c1e-9a7a-6f1d2a3b4c5d');
+}
+
+describe('hostile input on every POST, PUT and PATCH route', () => {
+  it('when random, malformed and hostile bodies are sent, then no answer is a 500, a 400 has the error envelope, and refused requests write nothing', async () => {
+    const routes = listRoutes(t.app.locals.mounts as Mount[]).filter((r) => /^(POST|PUT|PATCH) /.test(r) && !SKIP.has(r));
+    expect(routes.length).toBeGreaterThan(40);
+    const token = await d.c.csrf();
+    const seen = new Map<string, Set<number>>();
+
+    for (const route of routes) {
+      const [method] = route.split(' ') as ['POST' | 'PUT' | 'PATCH'];
+      const path = pathFor(route);
+      const send = (payload: string) =>
+        d.c.agent[method.toLowerCase() as 'post' | 'put' | 'patch'](path)
+          .set('X-CSRF-Token', token)
+          .set('Content-Type', 'application/json')
+          .send(payload);
+      const rowsBefore = await totalRows();
+      let anyWrite = false;
+      await fc.assert(
+        fc.asyncProperty(fc.oneof({ weight: 5, arbitrary: body.map((b) => JSON.stringify(b)) }, { weight: 1, arbitrary: broken }), async (payload) => {
+          const res = await send(payload);
+          seen.set(route, (seen.get(route) ?? new Set()).add(res.status));
+          expect(res.status, `${route} ${payload.slice(0, 200)} → ${JSON.stringify(res.body)}`).toBeLessThan(500);
+          if (res.status < 300) anyWrite = true;
+          if (res.status === 400) {
+            expect(['validation_failed', 'malformed_json']).toContain(res.body.error?.code);
+            if (res.body.error.code === 'validation_failed') expect(res.body.error.fieldErrors ?? res.body.error.message).toBeTruthy();
+          }
+        }),
+        { numRuns: 25, seed: 20261202 },
+      );
+      // A route that refused every body wrote nothing.
+      if (!anyWrite) expect(await totalRows(), route).toBe(rowsBefore);
+    }
+    // Most routes refused with 400 (their body was checked), not merely 404 for the made-up ids.
+    const checked = [...seen.values()].filter((statuses) => statuses.has(400)).length;
+    expect(checked).toBeGreaterThan(routes.length * 0.6);
+  }, 240_000);
+
+  it('when a body is over the size limit, then the answer is 413 and nothing is written', async () => {
+    const before = await totalRows();
+    const token = await d.c.csrf();
+    const res = await d.c.agent
+      .post('/api/runs')
+      .set('X-CSRF-Token', token)
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify({ notes: 'x'.repeat(200 * 1024) }));
+    expect(res.status).toBe(413);
+    expect(res.body.error.code).toBe('payload_too_large');
+    expect(await totalRows()).toBe(before);
+  });
+});
