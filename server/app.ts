@@ -124,6 +124,12 @@ export function createApp(opts: AppOptions) {
     app.use(prefix, router);
   };
 
+  // API answers carry people's records: no browser or shared cache keeps them (OWASP ASVS 8.2.1). A route
+  // whose answer may be kept (an attachment's bytes, privately) sets its own header.
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   mount('/api/health', healthRoutes(opts.ds));
   // The payment service signs the raw body and sends no cookie or CSRF token.
   mount('/api/payments', paymentWebhookRoutes(opts.ds, opts.payments, opts.mail));

@@ -67,4 +67,10 @@ describe('security headers', () => {
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(res.headers['x-powered-by']).toBeUndefined();
   });
+
+  it('when an API answer is sent, then no cache may keep it (OWASP ASVS 4.0.3, 8.2.1)', async () => {
+    for (const path of ['/api/health', '/api/auth/me', '/api/no-such-route']) {
+      expect((await request(t.app).get(path)).headers['cache-control'], path).toBe('no-store');
+    }
+  });
 });
