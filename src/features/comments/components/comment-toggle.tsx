@@ -1,7 +1,7 @@
-import { lazy, Suspense, useId, useState } from 'react';
-import { ChevronDown, ChevronRight, MessageSquare } from 'lucide-react';
+import { lazy } from 'react';
+import { MessageSquare } from 'lucide-react';
 import type { CommentTarget } from '@shared/collab/comment.schema';
-import { ErrorBoundary } from '@/components/errors/error-boundary';
+import { FoldOut } from '@/components/fold-out/fold-out';
 
 // The thread's code comes with the first thread opened on the page.
 const CommentThread = lazy(async () => ({ default: (await import('./comment-thread')).CommentThread }));
@@ -16,32 +16,15 @@ interface CommentToggleProps {
 
 /** A thread folded away under its button; fetched only when opened, so a long list asks for nothing up front. */
 export function CommentToggle({ target, what, count }: CommentToggleProps) {
-  const [open, setOpen] = useState(false);
-  const panelId = useId();
-  const Chevron = open ? ChevronDown : ChevronRight;
   return (
-    <div className="flex flex-col gap-2">
-      <button
-        type="button"
-        aria-expanded={open}
-        aria-controls={panelId}
-        onClick={() => setOpen((v) => !v)}
-        className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link"
-      >
-        <Chevron aria-hidden="true" className="size-4" />
-        <MessageSquare aria-hidden="true" className="size-4" />
-        Comments{count !== undefined ? ` (${count})` : ''}
-        <span className="sr-only"> on {what}</span>
-      </button>
-      <div id={panelId} hidden={!open}>
-        {open ? (
-          <ErrorBoundary fallback={() => <p className="text-ink-muted">Comments could not be opened. Try again when you have signal.</p>}>
-            <Suspense fallback={<p className="text-ink-muted">Loading comments…</p>}>
-              <CommentThread target={target} label={`Comments on ${what}`} />
-            </Suspense>
-          </ErrorBoundary>
-        ) : null}
-      </div>
-    </div>
+    <FoldOut
+      icon={MessageSquare}
+      label={`Comments${count !== undefined ? ` (${count})` : ''}`}
+      what={what}
+      loadingText="Loading comments…"
+      failedText="Comments could not be opened. Try again when you have signal."
+    >
+      <CommentThread target={target} label={`Comments on ${what}`} />
+    </FoldOut>
   );
 }

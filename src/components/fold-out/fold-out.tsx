@@ -1,0 +1,48 @@
+import { Suspense, useId, useState, type ComponentType, type ReactNode } from 'react';
+import { ChevronDown, ChevronRight } from 'lucide-react';
+import { ErrorBoundary } from '@/components/errors/error-boundary';
+
+interface FoldOutProps {
+  /** The button's icon beside the chevron. */
+  icon: ComponentType<{ 'aria-hidden'?: boolean | 'true'; className?: string }>;
+  /** The button's words, e.g. "Comments (3)". */
+  label: ReactNode;
+  /** Read out after the label: what it is about, e.g. "run 3". */
+  what: string;
+  /** Shown while the content's code loads, and when it cannot. */
+  loadingText: string;
+  failedText: string;
+  defaultOpen?: boolean;
+  /** Rendered only once opened, so a long list asks for nothing up front; usually a lazy component. */
+  children: ReactNode;
+}
+
+/** A section folded away under its button: comments, photos. Its content loads and renders on first open. */
+export function FoldOut({ icon: Icon, label, what, loadingText, failedText, defaultOpen = false, children }: FoldOutProps) {
+  const [open, setOpen] = useState(defaultOpen);
+  const panelId = useId();
+  const Chevron = open ? ChevronDown : ChevronRight;
+  return (
+    <div className="flex flex-col gap-2">
+      <button
+        type="button"
+        aria-expanded={open}
+        aria-controls={panelId}
+        onClick={() => setOpen((v) => !v)}
+        className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link"
+      >
+        <Chevron aria-hidden="true" className="size-4" />
+        <Icon aria-hidden="true" className="size-4" />
+        {label}
+        <span className="sr-only"> on {what}</span>
+      </button>
+      <div id={panelId} hidden={!open}>
+        {open ? (
+          <ErrorBoundary fallback={() => <p className="text-ink-muted">{failedText}</p>}>
+            <Suspense fallback={<p className="text-ink-muted">{loadingText}</p>}>{children}</Suspense>
+          </ErrorBoundary>
+        ) : null}
+      </div>
+    </div>
+  );
+}
