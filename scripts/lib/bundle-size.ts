@@ -1,0 +1,59 @@
+// Gzipped JavaScript each route loads, from the Vite build manifest: the entry, then the route's lazy
+// chunk and everything both import statically. Needs a build (`vite build`) in dist/.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { gzipSync } from 'node:zlib';
+import { ROOT } from './env';
+
+interface Chunk {
+  file: string;
+  src?: string;
+  isEntry?: boolean;
+  imports?: string[];
+  dynamicImports?: string[];
+}
+
+const LAYOUT = 'src/app/routes/signed-in-layout.tsx';
+/** Routes a driver opens, with the source modules each needs on first load (besides the entry). */
+export const ROUTES: Record<string, string[]> = {
+  'sign-in': ['src/app/routes/sign-in.tsx'],
+  home: [LAYOUT, 'src/app/routes/home.tsx'],
+  'event day (trackside)': [LAYOUT, 'src/app/routes/events/event-day.tsx'],
+  'season review': [LAYOUT, 'src/app/routes/analysis/season-review.tsx'],
+  calculators: [LAYOUT, 'src/app/routes/calculators/calculators.tsx'],
+};
+export const TRACKSIDE_ROUTE = 'event day (trackside)';
+export const TRACKSIDE_BUDGET_BYTES = 150 * 1024;
+
+export interface RouteSize {
+  route: string;
+  bytes: number;
+  files: number;
+  /** Over its budget (only the trackside route has one). */
+  over: boolean;
+}
+
+export function routeSizes(dist = join(ROOT, 'dist')): RouteSize[] {
+  const manifest = JSON.parse(readFileSync(join(dist, '.vite', 'manifest.json'), 'utf8')) as Record<string, Chunk>;
+  const gz = (file: string) => gzipSync(readFileSync(join(dist, file))).length;
+  const closure = (keys: string[], seen = new Set<string>()): Set<string> => {
+    for (const key of keys) {
+      if (seen.has(key) || !manifest[key]) continue;
+      seen.add(key);
+      closure(manifest[key].imports ?? [], seen);
+    }
+    return seen;
+  };
+  const entry = Object.keys(manifest).find((k) => manifest[k]!.isEntry)!;
+  return Object.entries(ROUTES).map(([route, keys]) => {
+    const files = [...closure([entry, ...keys])].map((k) => manifest[k]!.file).filter((f) => f.endsWith('.js'));
+    const bytes = files.reduce((n, f) => n + gz(f), 0);
+    return { route, bytes, files: files.length, over: route === TRACKSIDE_ROUTE && bytes > TRACKSIDE_BUDGET_BYTES };
+  });
+}
+
+export function formatSizes(sizes: RouteSize[]): string {
+  return sizes
+    .map((s) => `${s.route.padEnd(24)} ${(s.bytes / 1024).toFixed(1).padStart(7)} KB gzipped in ${s.files} files${s.over ? '  OVER the 150 KB budget' : ''}`)
+    .join('\n');
+}
