@@ -16,13 +16,58 @@ export const SESSION_COOKIE = 'scrubline.sid';
 export const DEFAULT_IDLE_MS = 7 * 24 * 60 * 60 * 1000;
 export const DEFAULT_ABSOLUTE_MS = 30 * 24 * 60 * 60 * 1000;
 
+/**
+ * How stale the stored expiry may get before a request writes it again. express-session "touches" the
+ * store at the end of every request that did not change the session, and connect-pg-simple answers
+ * each touch with an UPDATE that the response waits for: a write per read. Refreshing it at most
+ * every five minutes (the "lazy session update" of connect-mongo's `touchAfter`,
+ * https://github.com/jdesboeufs/connect-mongo#lazy-session-update) ends an idle session at most five
+ * minutes early against a seven-day idle timeout, and drops that write from nearly every request.
+ * A short idle timeout (tests use seconds) refreshes at a twentieth of it instead.
+ */
+export const TOUCH_AFTER_MS = 5 * 60 * 1000;
+export const touchAfterMs = (idleMs: number) => Math.min(TOUCH_AFTER_MS, idleMs / 20);
+
+/** Where the row's stored expiry rides on the loaded session, from `get` to `touch`; never stored. */
+const STORED_EXPIRY = '__storedExpiryMs';
+
+type SessionData = session.SessionData & { [STORED_EXPIRY]?: number };
+type Callback<T = void> = (err: unknown, value?: T) => void;
+
+function throttledPgStore(pool: Pool, touchAfter: number) {
+  const PgStore = connectPgSimple(session);
+  return new (class extends PgStore {
+    override get(sid: string, fn: Callback<SessionData | null>) {
+      pool
+        .query<{ sess: SessionData | string; expire: Date }>('SELECT sess, expire FROM session WHERE sid = $1 AND expire >= now()', [sid])
+        .then(({ rows: [row] }) => {
+          if (!row) return fn(null, null);
+          const sess = typeof row.sess === 'string' ? (JSON.parse(row.sess) as SessionData) : row.sess;
+          fn(null, { ...sess, [STORED_EXPIRY]: row.expire.getTime() });
+        })
+        .catch(fn);
+    }
+
+    override set(sid: string, sess: SessionData, fn?: Callback) {
+      const { [STORED_EXPIRY]: _dropped, ...stored } = sess;
+      super.set(sid, stored as session.SessionData, fn);
+    }
+
+    override touch(sid: string, sess: SessionData, fn?: Callback) {
+      const stored = sess[STORED_EXPIRY];
+      const next = sess.cookie.expires?.getTime();
+      if (stored !== undefined && next !== undefined && next - stored < touchAfter) return fn?.(null);
+      super.touch(sid, sess, fn as () => void);
+    }
+  })({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+}
+
 /** express-session backed by PostgreSQL (table `session`, created by a migration). */
 export function sessionMiddleware(pool: Pool, s: SessionSettings): RequestHandler {
-  const PgStore = connectPgSimple(session);
   return session({
     name: SESSION_COOKIE,
     secret: s.secret,
-    store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    store: throttledPgStore(pool, touchAfterMs(s.idleMs)),
     resave: false,
     saveUninitialized: false,
     rolling: true,

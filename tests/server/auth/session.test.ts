@@ -1,4 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
+import { touchAfterMs } from '../../../server/auth/session';
 import { makeTestApp, sidOf, sentCookie, signedInClient, type TestApp } from '../test-app';
 
 const opened: TestApp[] = [];
@@ -29,5 +30,42 @@ describe('session lifetime', () => {
     expect((await c.get('/api/auth/me')).status).toBe(200);
     await sleep(2600);
     expect((await c.get('/api/auth/me')).status).toBe(401);
+  });
+
+  it('when a session is used again within a few minutes, then its stored expiry is not rewritten; once it is older than that, the next request moves it on by the idle timeout', async () => {
+    const idleMs = 60 * 60 * 1000;
+    const t = await makeTestApp({ idleMs });
+    opened.push(t);
+    const { c } = await signedInClient(t);
+    const me = await c.get('/api/auth/me');
+    const sid = sidOf(sentCookie(me));
+    const expiry = async () => ((await t.ds.query('SELECT expire FROM session WHERE sid = $1', [sid])) as { expire: Date }[])[0]!.expire.getTime();
+    const first = await expiry();
+
+    await sleep(1100); // the expire column has whole-second precision (to_timestamp of seconds)
+    for (let i = 0; i < 5; i++) expect((await c.get('/api/auth/me')).status).toBe(200);
+    expect(await expiry()).toBe(first);
+
+    // The row as a request older than the refresh interval would have left it.
+    const stale = Date.now() + idleMs - touchAfterMs(idleMs) - 60_000;
+    await t.ds.query('UPDATE session SET expire = to_timestamp($1 / 1000.0) WHERE sid = $2', [stale, sid]);
+    const before = Date.now();
+    expect((await c.get('/api/auth/me')).status).toBe(200);
+    const moved = await expiry();
+    expect(moved).toBeGreaterThanOrEqual(before + idleMs - 1000);
+    expect(moved).toBeLessThanOrEqual(Date.now() + idleMs + 1000);
+    // What a save stores is the session alone, not the expiry the store read.
+    const [row] = (await t.ds.query('SELECT sess::text AS sess FROM session WHERE sid = $1', [sid])) as { sess: string }[];
+    expect(row!.sess).not.toMatch(/storedExpiry/);
+  });
+
+  it('when the idle timeout is short and requests keep coming, then the session stays open past it', async () => {
+    const t = await makeTestApp({ idleMs: 2000 });
+    opened.push(t);
+    const { c } = await signedInClient(t);
+    for (let i = 0; i < 6; i++) {
+      expect((await c.get('/api/auth/me')).status).toBe(200);
+      await sleep(700);
+    }
   });
 });
