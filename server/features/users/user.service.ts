@@ -77,9 +77,22 @@ export async function unsubscribeByToken(ds: DataSource, token: string): Promise
   return affected > 0;
 }
 
+/** The signed-in user of every request (passport's deserializeUser): the account and its roles in one query. */
 export async function findUserById(ds: DataSource, id: string): Promise<User | null> {
-  const entity = await ds.getRepository(UserEntity).findOneBy({ id });
-  return entity ? toUserDto(entity, await rolesOf(ds, entity.id)) : null;
+  const rows: (RoleRow & { id: string; email: string; display_name: string; preferences: unknown; email_notifications: boolean })[] =
+    await ds.query(
+      `SELECT u.id, u.email, u.display_name, u.preferences, u.email_notifications, ${ROLE_COLUMNS} FROM users u WHERE u.id = $1`,
+      [id],
+    );
+  const row = rows[0];
+  if (!row) return null;
+  return {
+    id: row.id,
+    email: row.email,
+    displayName: row.display_name,
+    roles: rolesFromRow(row),
+    preferences: readPreferences(row.preferences, row.email_notifications),
+  };
 }
 
 export function findUserEntityByEmail(ds: DataSource, email: string) {
