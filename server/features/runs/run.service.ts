@@ -163,17 +163,25 @@ export async function createRun(ds: DataSource, user: User, input: CreateRunInpu
 
   // No conflict target: a replay (same id) and a clash of run numbers both insert nothing;
   // which of the two happened is read back below, after any racing insert has committed.
-  const created = await ds.transaction(async (m) => {
-    const inserted: { id: string }[] = await m.query(
+  const insert = async (db: Db) => {
+    const inserted: { id: string }[] = await db.query(
       `INSERT INTO runs (id, car_id, event_id, driver_id, run_number, raw_time_sec, cones, status, recorded_at, notes)
        VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10)
        ON CONFLICT DO NOTHING RETURNING id`,
       [input.id, input.carId, input.eventId, driverId, input.runNumber, rawTimeSec, input.cones, input.status, recordedAt, input.notes ?? null],
     );
-    if (inserted.length === 0) return false;
-    await writeRunHotPressures(m, { id: input.id, carId: input.carId, recordedAt }, user.id, input.hotPressuresKpa ?? null);
-    return true;
-  });
+    return inserted.length > 0;
+  };
+  const pressures = input.hotPressuresKpa && Object.keys(input.hotPressuresKpa).length > 0 ? input.hotPressuresKpa : null;
+  // A run with hot pressures is two rows, written together or not at all. A run alone is one
+  // statement, atomic by itself: it needs no BEGIN and COMMIT round trips (most runs at the track).
+  const created = pressures
+    ? await ds.transaction(async (m) => {
+        if (!(await insert(m))) return false;
+        await writeRunHotPressures(m, { id: input.id, carId: input.carId, recordedAt }, user.id, pressures);
+        return true;
+      })
+    : await insert(ds);
   if (!created) {
     const existing = await ds.query('SELECT 1 FROM runs WHERE id = $1', [input.id]);
     if (existing.length === 0) throw runNumberTaken(input.runNumber);
