@@ -1,8 +1,11 @@
+import type { IncomingMessage } from 'node:http';
+import type { Request } from 'express';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { DataSource } from 'typeorm';
 import { findUserById, findUserEntityByEmail, rolesOf, toUserDto } from '../features/users/user.service';
 import { verifyAgainstDummy, verifyPassword } from './password';
+import { userReadWithSession } from './session';
 
 /** A passport instance of the app's own (tests build several apps in one process). */
 export function createPassport(ds: DataSource) {
@@ -20,8 +23,10 @@ export function createPassport(ds: DataSource) {
   );
 
   instance.serializeUser((user, done) => done(null, user.id));
-  instance.deserializeUser((id: string, done) => {
+  instance.deserializeUser((req: IncomingMessage, id: string, done: (err: unknown, user?: Express.User | false) => void) => {
     // An account deleted since sign-in reads as signed out (false), not as an error.
+    const read = userReadWithSession((req as Request).session, id);
+    if (read !== undefined) return done(null, read ?? false);
     findUserById(ds, id).then((user) => done(null, user ?? false), done);
   });
 

@@ -2,6 +2,8 @@ import type { RequestHandler } from 'express';
 import session from 'express-session';
 import connectPgSimple from 'connect-pg-simple';
 import type { Pool } from 'pg';
+import type { User } from '@shared/auth/auth.schema';
+import { USER_COLUMNS, userFromRow, type UserRow } from '../features/users/user.service';
 
 export interface SessionSettings {
   secret: string | string[];
@@ -28,28 +30,50 @@ export const DEFAULT_ABSOLUTE_MS = 30 * 24 * 60 * 60 * 1000;
 export const TOUCH_AFTER_MS = 5 * 60 * 1000;
 export const touchAfterMs = (idleMs: number) => Math.min(TOUCH_AFTER_MS, idleMs / 20);
 
-/** Where the row's stored expiry rides on the loaded session, from `get` to `touch`; never stored. */
+/**
+ * What the store read alongside the session, riding on the loaded session from `get` to `touch` and
+ * to passport's deserializeUser; never stored (`set` drops them).
+ */
 const STORED_EXPIRY = '__storedExpiryMs';
+const SIGNED_IN_USER = '__signedInUser';
 
-type SessionData = session.SessionData & { [STORED_EXPIRY]?: number };
+type SessionData = session.SessionData & { passport?: { user?: string }; [STORED_EXPIRY]?: number; [SIGNED_IN_USER]?: User | null };
 type Callback<T = void> = (err: unknown, value?: T) => void;
 
-function throttledPgStore(pool: Pool, touchAfter: number) {
+/**
+ * The signed-in user the store read with this request's session (the same query, so never stale), or
+ * undefined when it did not (then passport reads the account itself).
+ */
+export function userReadWithSession(sess: object | undefined, id: string): User | null | undefined {
+  const user = (sess as SessionData | undefined)?.[SIGNED_IN_USER];
+  return user === null || user?.id === id ? user : undefined;
+}
+
+export function sessionStore(pool: Pool, touchAfter: number) {
   const PgStore = connectPgSimple(session);
   return new (class extends PgStore {
+    /** The session and its signed-in account in one round trip: every request of a signed-in user needs both. */
     override get(sid: string, fn: Callback<SessionData | null>) {
       pool
-        .query<{ sess: SessionData | string; expire: Date }>('SELECT sess, expire FROM session WHERE sid = $1 AND expire >= now()', [sid])
+        .query<{ sess: SessionData | string; expire: Date; user_id: string | null } & UserRow>(
+          `SELECT s.sess, s.expire, u.id AS user_id, ${USER_COLUMNS}
+             FROM session s
+             LEFT JOIN users u ON u.id = (s.sess #>> '{passport,user}')::uuid
+            WHERE s.sid = $1 AND s.expire >= now()`,
+          [sid],
+        )
         .then(({ rows: [row] }) => {
           if (!row) return fn(null, null);
           const sess = typeof row.sess === 'string' ? (JSON.parse(row.sess) as SessionData) : row.sess;
-          fn(null, { ...sess, [STORED_EXPIRY]: row.expire.getTime() });
+          // null: the session names an account that no longer exists.
+          const user = sess.passport?.user === undefined ? undefined : row.user_id ? userFromRow(row) : null;
+          fn(null, { ...sess, [STORED_EXPIRY]: row.expire.getTime(), [SIGNED_IN_USER]: user });
         })
         .catch(fn);
     }
 
     override set(sid: string, sess: SessionData, fn?: Callback) {
-      const { [STORED_EXPIRY]: _dropped, ...stored } = sess;
+      const { [STORED_EXPIRY]: _expiry, [SIGNED_IN_USER]: _user, ...stored } = sess;
       super.set(sid, stored as session.SessionData, fn);
     }
 
@@ -67,7 +91,7 @@ export function sessionMiddleware(pool: Pool, s: SessionSettings): RequestHandle
   return session({
     name: SESSION_COOKIE,
     secret: s.secret,
-    store: throttledPgStore(pool, touchAfterMs(s.idleMs)),
+    store: sessionStore(pool, touchAfterMs(s.idleMs)),
     resave: false,
     saveUninitialized: false,
     rolling: true,

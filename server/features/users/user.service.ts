@@ -77,15 +77,12 @@ export async function unsubscribeByToken(ds: DataSource, token: string): Promise
   return affected > 0;
 }
 
-/** The signed-in user of every request (passport's deserializeUser): the account and its roles in one query. */
-export async function findUserById(ds: DataSource, id: string): Promise<User | null> {
-  const rows: (RoleRow & { id: string; email: string; display_name: string; preferences: unknown; email_notifications: boolean })[] =
-    await ds.query(
-      `SELECT u.id, u.email, u.display_name, u.preferences, u.email_notifications, ${ROLE_COLUMNS} FROM users u WHERE u.id = $1`,
-      [id],
-    );
-  const row = rows[0];
-  if (!row) return null;
+/** The columns `userFromRow` reads, for `users u`. */
+export const USER_COLUMNS = `u.id, u.email, u.display_name, u.preferences, u.email_notifications, ${ROLE_COLUMNS}`;
+
+export type UserRow = RoleRow & { id: string; email: string; display_name: string; preferences: unknown; email_notifications: boolean };
+
+export function userFromRow(row: UserRow): User {
   return {
     id: row.id,
     email: row.email,
@@ -93,6 +90,12 @@ export async function findUserById(ds: DataSource, id: string): Promise<User | n
     roles: rolesFromRow(row),
     preferences: readPreferences(row.preferences, row.email_notifications),
   };
+}
+
+/** An account with its roles, in one query. */
+export async function findUserById(ds: DataSource, id: string): Promise<User | null> {
+  const rows: UserRow[] = await ds.query(`SELECT ${USER_COLUMNS} FROM users u WHERE u.id = $1`, [id]);
+  return rows[0] ? userFromRow(rows[0]) : null;
 }
 
 export function findUserEntityByEmail(ds: DataSource, email: string) {

@@ -1,5 +1,5 @@
-import { afterEach, describe, expect, it } from 'vitest';
-import { touchAfterMs } from '../../../server/auth/session';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { sessionStore, touchAfterMs } from '../../../server/auth/session';
 import { makeTestApp, sidOf, sentCookie, signedInClient, type TestApp } from '../test-app';
 
 const opened: TestApp[] = [];
@@ -54,9 +54,23 @@ describe('session lifetime', () => {
     const moved = await expiry();
     expect(moved).toBeGreaterThanOrEqual(before + idleMs - 1000);
     expect(moved).toBeLessThanOrEqual(Date.now() + idleMs + 1000);
-    // What a save stores is the session alone, not the expiry the store read.
-    const [row] = (await t.ds.query('SELECT sess::text AS sess FROM session WHERE sid = $1', [sid])) as { sess: string }[];
-    expect(row!.sess).not.toMatch(/storedExpiry/);
+  });
+
+  it('when a loaded session is saved, then the row holds the session alone, not the expiry and account read with it', async () => {
+    const t = await makeTestApp();
+    opened.push(t);
+    const { c, user } = await signedInClient(t);
+    const sid = sidOf(sentCookie(await c.get('/api/auth/me')));
+    const store = sessionStore(t.pool, 60_000);
+    const loaded = await new Promise<Record<string, unknown>>((resolve, reject) =>
+      store.get(sid, (err, sess) => (err ? reject(err) : resolve(sess as unknown as Record<string, unknown>))),
+    );
+    expect(JSON.stringify(loaded)).toContain(user.email); // the account came with it
+    await new Promise<void>((resolve, reject) => store.set(sid, { ...loaded, note: 'saved' } as never, (err) => (err ? reject(err) : resolve())));
+    const [row] = (await t.ds.query('SELECT sess FROM session WHERE sid = $1', [sid])) as { sess: Record<string, unknown> }[];
+    expect(row!.sess).toMatchObject({ note: 'saved', passport: { user: user.id } });
+    expect(JSON.stringify(row!.sess)).not.toContain(user.email);
+    expect(Object.keys(row!.sess).filter((k) => k.startsWith('__'))).toEqual([]);
   });
 
   it('when the idle timeout is short and requests keep coming, then the session stays open past it', async () => {
@@ -67,5 +81,32 @@ describe('session lifetime', () => {
       expect((await c.get('/api/auth/me')).status).toBe(200);
       await sleep(700);
     }
+  });
+
+  it('when a signed-in request arrives, then its session and its account are read in one query, and nothing is written', async () => {
+    const t = await makeTestApp();
+    opened.push(t);
+    const { c } = await signedInClient(t);
+    expect((await c.get('/api/auth/me')).status).toBe(200);
+    const storeQueries = vi.spyOn(t.pool, 'query');
+    const appQueries = vi.spyOn(t.ds, 'query');
+    const me = await c.get('/api/auth/me');
+    expect(me.status).toBe(200);
+    expect(storeQueries).toHaveBeenCalledTimes(1);
+    expect(appQueries).not.toHaveBeenCalled();
+    vi.restoreAllMocks();
+  });
+
+  it('when the account changes between two requests, then the second sees the change, and a deleted account reads as signed out', async () => {
+    const t = await makeTestApp();
+    opened.push(t);
+    const { c, user } = await signedInClient(t);
+    expect((await c.get('/api/auth/me')).body.user.roles).not.toContain('admin');
+    await t.ds.query('UPDATE users SET is_admin = true, display_name = $2 WHERE id = $1', [user.id, 'Renamed Driver']);
+    const after = await c.get('/api/auth/me');
+    expect(after.body.user.roles).toContain('admin');
+    expect(after.body.user.displayName).toBe('Renamed Driver');
+    await t.ds.query('DELETE FROM users WHERE id = $1', [user.id]);
+    expect((await c.get('/api/auth/me')).status).toBe(401);
   });
 });
