@@ -4,12 +4,15 @@
 // the raw-insert floor, growth to 1000 drivers, and the trackside page's speed in Chromium. Not part of
 // `npm test`. BENCH_ONLY=size,read,session,write,growth,page runs some sections only.
 import { spawnSync } from 'node:child_process';
-import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
+import { chmodSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
+import pg from 'pg';
 import { startCluster } from './lib/pg-cluster';
-import { ROOT, say } from './lib/env';
+import { DATA_DIR, ROOT, say } from './lib/env';
+import { measureWithLighthouse, measureWithPlaywright, median } from './lib/page-speed';
+import { enableQueryPlans, explainRequestQueries, growDrivers, rowCounts, type PlanCapture } from './lib/growth';
 import { formatSizes, routeSizes } from './lib/bundle-size';
 import { register, signIn, type BenchSession } from './lib/bench-session';
 import { benchCars, benchEvents, formatLoad, loadApi, loadGet, loadRawInserts, RunSlots, type LoadResult } from './lib/bench-write';
@@ -130,6 +133,77 @@ async function writePath(base: string, databaseUrl: string) {
   await new Promise((r) => setTimeout(r, 2000));
 }
 
+async function growth(s: BenchSession, capture: PlanCapture) {
+  const sizes = [10, 100, 1000];
+  heading(`Growth: the demo car's reads with ${sizes.join(', ')} more drivers, each with a full season (p50 ms of ${ROUNDS}; shared buffers and statements of one request)`);
+  const { paths } = await demoCarPaths(s);
+  const seen = new Map<string, { p50: number; buffers: number; statements: number }[]>(paths.map(([name]) => [name, []]));
+  const plans: string[] = [];
+  for (const n of sizes) {
+    const grown = await growDrivers(capture.pool, n);
+    say(`${grown.after} grown drivers (${(grown.ms / 1000).toFixed(1)} s to seed)`);
+    for (const [name, path] of paths) {
+      const { p50 } = await timeGet(s, path);
+      const q = await explainRequestQueries(capture, () => s.get(path));
+      seen.get(name)!.push({ p50, buffers: q.sharedBuffers, statements: q.statements });
+      if (n === sizes.at(-1)) {
+        plans.push(`### ${name}: GET ${path.replace(/[0-9a-f-]{36}/g, ':id')} — ${q.statements} statements\n`);
+        for (const plan of q.plans) plans.push(`-- ${plan.durationMs.toFixed(2)} ms: ${plan.query}\n${plan.plan}\n`);
+      }
+    }
+  }
+  console.log(`${'endpoint'.padEnd(24)} ${sizes.map((n) => `${n} drivers`.padStart(22)).join('')} ${'×'.padStart(6)}`);
+  let worst = 0;
+  for (const [name, rows] of seen) {
+    const ratio = rows.at(-1)!.p50 / rows[0]!.p50;
+    worst = Math.max(worst, ratio);
+    const cells = rows.map((r) => `${r.p50.toFixed(1)} (${r.buffers}, ${r.statements})`.padStart(22)).join('');
+    console.log(`${name.padEnd(24)} ${cells} ${ratio.toFixed(2).padStart(6)}`);
+  }
+  console.log(`\nLargest tables at ${sizes.at(-1)} grown drivers:`);
+  for (const t of await rowCounts(capture.pool, 8)) console.log(`  ${t.table.padEnd(26)} ${String(t.rows).padStart(8)}`);
+  const dir = join(DATA_DIR, 'bench');
+  mkdirSync(dir, { recursive: true });
+  const file = join(dir, `plans-${new Date().toISOString().slice(0, 19).replace(/:/g, '')}.md`);
+  writeFileSync(file, plans.join('\n'));
+  console.log(`\nEXPLAIN ANALYZE of every statement at ${sizes.at(-1)} drivers: ${file}`);
+  target(`growth: each read at ${sizes.at(-1)} drivers at most 1.5× its time at ${sizes[0]}`, worst <= 1.5, `worst ${worst.toFixed(2)}×`);
+}
+
+async function pageSpeed(s: BenchSession) {
+  heading('Trackside page, cold load at 390×844 (median of 3)');
+  const cars = await s.get<{ items: { id: string; name: string; owner: { id: string } }[] }>('/api/cars');
+  const car = cars.items.find((c) => c.name === 'Pebble')!;
+  const runs = await s.get<{ items: { eventId: string }[] }>(`/api/runs?carId=${car.id}`);
+  const count = new Map<string, number>();
+  for (const r of runs.items) count.set(r.eventId, (count.get(r.eventId) ?? 0) + 1);
+  const [eventId] = [...count.entries()].sort((a, b) => b[1] - a[1])[0]!;
+  const page = {
+    baseUrl: s.base,
+    path: `/events/${eventId}?carId=${car.id}`,
+    cookie: s.cookie,
+    // The page keeps the car and driver chosen for the event on the device; without it, it asks.
+    localStorage: { [`scrubline.event-day.${eventId}`]: JSON.stringify({ carId: car.id, driverId: car.owner.id }) },
+  };
+  const pw = await measureWithPlaywright(page, 3);
+  const m = (xs: number[]) => median(xs);
+  const lcp = m(pw.map((r) => r.lcpMs));
+  const tbt = m(pw.map((r) => r.tbtMs));
+  const cls = m(pw.map((r) => r.clsScore));
+  console.log('Chromium through playwright-core, CPU slowed 4× (Emulation.setCPUThrottlingRate), network not slowed:');
+  console.log(`  FCP ${m(pw.map((r) => r.fcpMs)).toFixed(0)} ms · LCP ${lcp.toFixed(0)} ms · TBT ${tbt.toFixed(0)} ms · CLS ${cls.toFixed(3)} · settled (TTI) ${m(pw.map((r) => r.interactiveMs)).toFixed(0)} ms`);
+  console.log(`  the keypad answers a tap from ${m(pw.map((r) => r.inputReadyMs)).toFixed(0)} ms after navigation, the answer ${m(pw.map((r) => r.inputWaitMs)).toFixed(0)} ms after the tap`);
+  console.log(`  LCP element: ${pw[0]?.lcpElement ?? 'unknown'}`);
+  const lh = await measureWithLighthouse(page, 3);
+  const lhLcp = m(lh.map((r) => r.lcpMs));
+  const lhTbt = m(lh.map((r) => r.tbtMs));
+  const lhCls = m(lh.map((r) => r.cls));
+  console.log('Lighthouse 12.2.3, mobile defaults (simulated slow 4G: 150 ms round trip, 1.6 Mbit/s; CPU 4×):');
+  console.log(`  score ${m(lh.map((r) => r.performanceScore)).toFixed(0)} · FCP ${m(lh.map((r) => r.fcpMs)).toFixed(0)} ms · LCP ${lhLcp.toFixed(0)} ms · TBT ${lhTbt.toFixed(0)} ms · CLS ${lhCls.toFixed(3)}`);
+  target('trackside page (Chromium, 4× CPU): LCP < 1.5 s, TBT < 200 ms, CLS < 0.1', lcp < 1500 && tbt < 200 && cls < 0.1, `LCP ${lcp.toFixed(0)} ms, TBT ${tbt.toFixed(0)} ms, CLS ${cls.toFixed(3)}`);
+  target('trackside page (Lighthouse median of 3): LCP < 1.5 s, TBT < 200 ms, CLS < 0.1', lhLcp < 1500 && lhTbt < 200 && lhCls < 0.1, `LCP ${lhLcp.toFixed(0)} ms, TBT ${lhTbt.toFixed(0)} ms, CLS ${lhCls.toFixed(3)}`);
+}
+
 async function main() {
   if (ONLY.has('size') || ONLY.has('page')) {
     say('building the client…');
@@ -140,6 +214,10 @@ async function main() {
   const work = mkdtempSync(join(tmpdir(), 'scrubline-bench-'));
   chmodSync(work, 0o755);
   const cluster = await startCluster({ dir: join(work, 'pg'), port: 0, database: 'scrubline_bench', log: say });
+  // auto_explain is loaded into every connection opened from now on (idle until a capture), so
+  // it must be set before the server opens its pool.
+  const admin = new pg.Pool({ connectionString: cluster.url, max: 2 });
+  if (ONLY.has('growth')) await enableQueryPlans(admin);
   const running = await startServer(
     loadConfig({ DATABASE_URL: cluster.url, SESSION_SECRET: 'bench-secret-bench-secret-bench-secret', PORT: '0', HOST: '127.0.0.1', LOG_LEVEL: 'silent', SEED_DEMO: 'true' }),
   );
@@ -160,12 +238,15 @@ async function main() {
     if (ONLY.has('read')) await readPaths(driver);
     if (ONLY.has('session')) await sessionCost(driver);
     if (ONLY.has('write')) await writePath(base, cluster.url);
+    if (ONLY.has('page')) await pageSpeed(driver);
+    if (ONLY.has('growth')) await growth(driver, { pool: admin, logFile: join(work, 'pg', 'server.log') });
 
     heading('Targets');
     for (const t of targets) console.log(`${t.met ? 'met   ' : 'MISSED'}  ${t.what} — ${t.detail}`);
     process.exitCode = targets.some((t) => !t.met && t.what.startsWith('trackside route')) ? 1 : 0;
   } finally {
     await running.close();
+    await admin.end();
     cluster.stop();
     rmSync(work, { recursive: true, force: true });
   }
