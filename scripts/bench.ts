@@ -3,21 +3,19 @@
 // read paths for one car, the cost every request pays for its session, the write path under load against
 // the raw-insert floor, growth to 1000 drivers, and the trackside page's speed in Chromium. Not part of
 // `npm test`. BENCH_ONLY=size,read,session,write,growth,page runs some sections only.
-import { spawnSync } from 'node:child_process';
-import { chmodSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { spawn, spawnSync } from 'node:child_process';
+import { chmodSync, mkdirSync, mkdtempSync, openSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import pg from 'pg';
-import { startCluster } from './lib/pg-cluster';
+import { freePort, startCluster } from './lib/pg-cluster';
 import { DATA_DIR, ROOT, say } from './lib/env';
 import { measureWithLighthouse, measureWithPlaywright, median } from './lib/page-speed';
 import { enableQueryPlans, explainRequestQueries, growDrivers, rowCounts, type PlanCapture } from './lib/growth';
 import { formatSizes, routeSizes } from './lib/bundle-size';
 import { register, signIn, type BenchSession } from './lib/bench-session';
 import { benchCars, benchEvents, formatLoad, loadApi, loadGet, loadRawInserts, RunSlots, type LoadResult } from './lib/bench-write';
-import { loadConfig } from '../server/config';
-import { startServer } from '../server/index';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../server/db/demo-accounts';
 
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 50);
@@ -218,10 +216,21 @@ async function main() {
   // it must be set before the server opens its pool.
   const admin = new pg.Pool({ connectionString: cluster.url, max: 2 });
   if (ONLY.has('growth')) await enableQueryPlans(admin);
-  const running = await startServer(
-    loadConfig({ DATABASE_URL: cluster.url, SESSION_SECRET: 'bench-secret-bench-secret-bench-secret', PORT: '0', HOST: '127.0.0.1', LOG_LEVEL: 'silent', SEED_DEMO: 'true' }),
-  );
-  const base = `http://127.0.0.1:${running.port}`;
+  // The server runs in a process of its own, as deployed (`tsx server/index.ts`): autocannon, the raw
+  // floor's client and the page-speed browser must not share its event loop.
+  const port = await freePort();
+  const server = spawn(process.execPath, ['--import', 'tsx', join(ROOT, 'server', 'index.ts')], {
+    cwd: ROOT,
+    env: { ...process.env, DATABASE_URL: cluster.url, SESSION_SECRET: 'bench-secret-bench-secret-bench-secret', PORT: String(port), HOST: '127.0.0.1', LOG_LEVEL: 'warn', SEED_DEMO: 'true' },
+    stdio: ['ignore', openSync(join(work, 'server.log'), 'a'), openSync(join(work, 'server.log'), 'a')],
+  });
+  const base = `http://127.0.0.1:${port}`;
+  for (let waited = 0; ; waited += 250) {
+    if (server.exitCode !== null) throw new Error(`the server stopped (exit ${server.exitCode}); see ${join(work, 'server.log')}`);
+    if (await fetch(`${base}/api/health`).then((r) => r.ok, () => false)) break;
+    if (waited > 120_000) throw new Error('the server did not answer within two minutes');
+    await new Promise((r) => setTimeout(r, 250));
+  }
   try {
     console.log(`# Scrubline bench — ${new Date().toISOString()}`);
     console.log(`machine: ${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}`);
@@ -245,7 +254,10 @@ async function main() {
     for (const t of targets) console.log(`${t.met ? 'met   ' : 'MISSED'}  ${t.what} — ${t.detail}`);
     process.exitCode = targets.some((t) => !t.met && t.what.startsWith('trackside route')) ? 1 : 0;
   } finally {
-    await running.close();
+    await new Promise((resolve) => {
+      server.once('exit', resolve);
+      server.kill('SIGTERM');
+    });
     await admin.end();
     cluster.stop();
     rmSync(work, { recursive: true, force: true });

@@ -46,11 +46,7 @@ export type CarRelation = 'owner' | 'co_driver' | 'shop_staff';
  * see the car but not do this gets 403. Every car-scoped route goes through here.
  */
 export async function assertCarAccess(db: Queryable, user: User, carId: string, action: CarAction): Promise<CarRelation> {
-  const relations = await carRelations(db, user.id, carId);
-  if (!relations.some((r) => allows('car', 'read', r))) throw new AppError('not_found', 'That car was not found.');
-  const relation = relations.find((r) => allows('car', action, r));
-  if (!relation) throw new AppError('forbidden', CAR_REFUSALS[action]);
-  return relation;
+  return assertCarRelations(await carRelations(db, user.id, carId), action);
 }
 
 const CAR_REFUSALS: Record<CarAction, string> = {
@@ -63,19 +59,44 @@ const CAR_REFUSALS: Record<CarAction, string> = {
   service: 'Only staff of a shop the owner has granted can open a work order.',
 };
 
+/** The user's relations to the car `c`, as the columns owner, co_driver and shop_staff. */
+const carRelationColumns = (user: string) => `c.owner_id = ${user} AS owner,
+            EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = ${user}) AS co_driver,
+            EXISTS (SELECT 1 FROM shop_grants g JOIN shop_members m ON m.shop_id = g.shop_id
+                     WHERE g.car_id = c.id AND m.user_id = ${user}) AS shop_staff`;
+
+type RelationRow = { owner: boolean; co_driver: boolean; shop_staff: boolean };
+const relationsOf = (row: RelationRow | undefined): CarRelation[] =>
+  row ? (['owner', 'co_driver', 'shop_staff'] as const).filter((r) => row[r]) : [];
+
 /** Every relation the user has to the car, strongest first (empty: none). */
 export async function carRelations(db: Queryable, userId: string, carId: string): Promise<CarRelation[]> {
-  const rows: { owner: boolean; co_driver: boolean; shop_staff: boolean }[] = await db.query(
-    `SELECT c.owner_id = $2 AS owner,
-            EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = $2) AS co_driver,
-            EXISTS (SELECT 1 FROM shop_grants g JOIN shop_members m ON m.shop_id = g.shop_id
-                     WHERE g.car_id = c.id AND m.user_id = $2) AS shop_staff
+  const rows: RelationRow[] = await db.query(`SELECT ${carRelationColumns('$2')} FROM cars c WHERE c.id = $1`, [carId, userId]);
+  return relationsOf(rows[0]);
+}
+
+/**
+ * What writing a run needs to know, in one round trip: the user's relations to the car, whether the
+ * user may see the event, and whether `driverId` drives the car (its owner or a co-driver). The
+ * answers are the same as carRelations and assertEventAccess give one query each.
+ */
+export async function runWriteAccess(db: Queryable, userId: string, carId: string, eventId: string, driverId: string) {
+  const rows: (RelationRow & { event_visible: boolean; drives_car: boolean })[] = await db.query(
+    `SELECT ${carRelationColumns('$2')},
+            EXISTS (SELECT 1 FROM events e WHERE e.id = $3 AND ${eventVisibleSql('$2')}) AS event_visible,
+            (c.owner_id = $4 OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = $4)) AS drives_car
        FROM cars c WHERE c.id = $1`,
-    [carId, userId],
+    [carId, userId, eventId, driverId],
   );
-  const row = rows[0];
-  if (!row) return [];
-  return (['owner', 'co_driver', 'shop_staff'] as const).filter((r) => row[r]);
+  return { relations: relationsOf(rows[0]), eventVisible: rows[0]?.event_visible ?? false, drivesCar: rows[0]?.drives_car ?? false };
+}
+
+/** Refuses as assertCarAccess does, from relations already read. */
+export function assertCarRelations(relations: CarRelation[], action: CarAction): CarRelation {
+  if (!relations.some((r) => allows('car', 'read', r))) throw new AppError('not_found', 'That car was not found.');
+  const relation = relations.find((r) => allows('car', action, r));
+  if (!relation) throw new AppError('forbidden', CAR_REFUSALS[action]);
+  return relation;
 }
 
 /** The shops (of those the user staffs) that hold a grant on the car: the name comments are signed with. */
@@ -174,19 +195,17 @@ export async function assertTeamAccess(db: Queryable, user: User, teamId: string
 /**
  * An event is visible to its creator, to anyone sharing a car with the creator
  * (so co-drivers log into the same event), and to anyone who may read a car that ran at it.
+ * A condition on `events e`.
  */
-export async function assertEventAccess(db: Queryable, user: User, eventId: string): Promise<void> {
-  const rows = await db.query(
-    `SELECT 1 FROM events e
-      WHERE e.id = $1
-        AND (e.created_by = $2
-             OR EXISTS (SELECT 1 FROM runs r WHERE r.event_id = e.id AND r.car_id IN ${readableCarIdsSql('$2')})
+const eventVisibleSql = (user: string) => `(e.created_by = ${user}
+             OR EXISTS (SELECT 1 FROM runs r WHERE r.event_id = e.id AND r.car_id IN ${readableCarIdsSql(user)})
              OR EXISTS (SELECT 1 FROM cars c
-                         WHERE c.id IN ${accessibleCarIdsSql('$2')}
+                         WHERE c.id IN ${accessibleCarIdsSql(user)}
                            AND (c.owner_id = e.created_by
-                                OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = e.created_by))))`,
-    [eventId, user.id],
-  );
+                                OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = e.created_by))))`;
+
+export async function assertEventAccess(db: Queryable, user: User, eventId: string): Promise<void> {
+  const rows = await db.query(`SELECT 1 FROM events e WHERE e.id = $1 AND ${eventVisibleSql('$2')}`, [eventId, user.id]);
   if (rows.length === 0) throw new AppError('not_found', 'That event was not found.');
 }
 

@@ -4,7 +4,7 @@ import { CORNERS, type Corner, type PerCorner } from '@shared/season/corners';
 import type { CreateRunInput, Run, RunStatus, UpdateRunInput } from '@shared/season/run.schema';
 import { scoreRuns } from '@shared/calc/scoring.calc';
 import { AppError, staleVersion } from '../../lib/app-error';
-import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, assertEventAccess } from '../../auth/access';
+import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, assertCarRelations, assertEventAccess, runWriteAccess } from '../../auth/access';
 import { writeRunHotPressures } from '../pressures/pressure.service';
 import { RunEntity } from './run.entity';
 
@@ -119,12 +119,13 @@ async function assertDriverOfCar(db: Db, carId: string, driverId: string) {
        AND (c.owner_id = $2 OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = $2))`,
     [carId, driverId],
   );
-  if (rows.length === 0) {
-    throw new AppError('validation_failed', 'Some fields need attention.', {
-      driverId: ['The driver must be the car\'s owner or one of its co-drivers'],
-    });
-  }
+  if (rows.length === 0) throw notTheCarsDriver();
 }
+
+const notTheCarsDriver = () =>
+  new AppError('validation_failed', 'Some fields need attention.', {
+    driverId: ['The driver must be the car\'s owner or one of its co-drivers'],
+  });
 
 const runNumberTaken = (n: number) =>
   new AppError('conflict', `Run ${n} is already logged for this driver and car at this event.`, {
@@ -154,10 +155,12 @@ function sameContent(stored: Run, input: CreateRunInput, driverId: string): bool
  * two requests race) and answers with the stored run, or 409 if it differs.
  */
 export async function createRun(ds: DataSource, user: User, input: CreateRunInput): Promise<{ run: Run; created: boolean }> {
-  await assertCarAccess(ds, user, input.carId, 'write');
-  await assertEventAccess(ds, user, input.eventId);
   const driverId = input.driverId ?? user.id;
-  await assertDriverOfCar(ds, input.carId, driverId);
+  // The car, the event and the driver, checked in one round trip and refused in that order.
+  const access = await runWriteAccess(ds, user.id, input.carId, input.eventId, driverId);
+  assertCarRelations(access.relations, 'write');
+  if (!access.eventVisible) throw new AppError('not_found', 'That event was not found.');
+  if (!access.drivesCar) throw notTheCarsDriver();
   const recordedAt = new Date(input.recordedAt);
   const rawTimeSec = input.status === 'finished' ? input.rawTimeSec : (input.rawTimeSec ?? null);
 
