@@ -1,7 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { api, isApiError } from '@/lib/api-client';
-import { Outbox, type NewOutboxEntry, type OutboxEntry, type SendFailure } from '@/lib/outbox';
-import { outboxStorage } from '@/lib/device-store';
+import { deviceStorage, Outbox, type NewOutboxEntry, type OutboxEntry, type SendFailure } from '@/lib/outbox';
 import { outboxMutationKey } from '@/lib/outbox-context';
 
 /** The kinds of change made at the car; each is a mutation registered with setMutationDefaults. */
@@ -52,7 +51,7 @@ export function classifySendError(entry: OutboxEntry | null, error: unknown): Se
 export function createAppOutbox(queryClient: QueryClient): Outbox {
   let current: OutboxEntry | null = null;
   const outbox = new Outbox({
-    storage: outboxStorage(),
+    storage: deviceStorage(),
     send: (entry) => {
       current = entry;
       return send(entry);

@@ -1,10 +1,9 @@
 import { createStore, del, get, set, type UseStore } from 'idb-keyval';
-import type { OutboxEntry, OutboxStorage } from './outbox';
-import { memoryStorage } from './outbox';
 
 /*
- * What the app keeps on the device, in IndexedDB: the outbox and the last data the
- * server sent (so the trackside screen opens with no signal).
+ * What the app keeps on the device, in IndexedDB: the last data the server sent (so the
+ * trackside screen opens with no signal). The outbox keeps its entries in the same store,
+ * one record each (deviceStorage in outbox.ts).
  */
 
 let store: UseStore | null = null;
@@ -12,17 +11,6 @@ function deviceStore(): UseStore | null {
   if (typeof indexedDB === 'undefined') return null;
   store ??= createStore('scrubline', 'device');
   return store;
-}
-
-const OUTBOX_KEY = 'outbox';
-
-export function outboxStorage(): OutboxStorage {
-  const s = deviceStore();
-  if (!s) return memoryStorage();
-  return {
-    load: async () => ((await get<OutboxEntry[]>(OUTBOX_KEY, s)) ?? []),
-    save: (entries) => set(OUTBOX_KEY, entries, s),
-  };
 }
 
 /** An async key-value storage for TanStack Query's persister. */

@@ -1,3 +1,4 @@
+import { createStore } from 'idb-keyval';
 import type { FieldErrors } from '@shared/api/api-error.schema';
 
 /*
@@ -5,7 +6,8 @@ import type { FieldErrors } from '@shared/api/api-error.schema';
  * after, in order, until the server confirms it. A weak signal, a killed tab or a
  * flat battery between the two cannot lose it, and a replay cannot double it: each
  * record carries an id made on the device, and the server treats a repeat as the
- * same record.
+ * same record. Every tab of the site shares the stored entries, one record each, so
+ * a second tab open at the car neither hides nor overwrites what the first queued.
  */
 
 export type OutboxMethod = 'POST' | 'PATCH' | 'DELETE';
@@ -44,9 +46,19 @@ export type NewOutboxEntry = Pick<OutboxEntry, 'recordId' | 'kind' | 'method' | 
   key?: string;
 };
 
+/** Entries to write and keys to remove; every other entry on the device stays as it is. */
+export interface OutboxChange {
+  put?: OutboxEntry[];
+  remove?: string[];
+}
+
+/**
+ * Where entries are kept. Every tab of the site shares it, so a tab never writes its list over it:
+ * `change` reads what is stored now, writes only what its callback returns, with no other tab's
+ * change in between, and resolves with what is then stored. Without a callback it only reads.
+ */
 export interface OutboxStorage {
-  load(): Promise<OutboxEntry[]>;
-  save(entries: OutboxEntry[]): Promise<void>;
+  change(fn?: (stored: OutboxEntry[]) => OutboxChange | undefined): Promise<OutboxEntry[]>;
 }
 
 /** What a failed send means for the entry. */
@@ -66,17 +78,30 @@ export interface OutboxOptions {
   /** Timers, replaceable in tests. */
   setTimer?: (fn: () => void, ms: number) => unknown;
   clearTimer?: (handle: unknown) => void;
+  /** Runs a flush while no other tab flushes; by default a Web Lock where the browser has them. */
+  lock?: (run: () => Promise<void>) => Promise<unknown>;
 }
 
 const defaultBackoff = (attempts: number) => Math.min(60_000, 1000 * 2 ** Math.max(0, attempts - 1));
+
+/**
+ * One Web Lock for every tab of the site: while one tab holds it, the others' requests queue
+ * (Web Locks API, §1: https://www.w3.org/TR/web-locks/). Browsers without it still send each
+ * entry; a second tab may then send one twice, which the server's idempotency absorbs.
+ */
+const defaultLock = (run: () => Promise<void>) =>
+  typeof navigator !== 'undefined' && navigator.locks ? navigator.locks.request('scrubline-outbox', run) : run();
 
 export class Outbox {
   private entries: OutboxEntry[] = [];
   private listeners = new Set<() => void>();
   private flushing: Promise<void> | null = null;
+  private again = false;
   private timer: unknown = null;
   private loaded: Promise<void>;
   private lastRetryReason: string | null = null;
+  /** The entry this tab is sending; any other marked as sending belongs to another tab, or to a page that died. */
+  private sendingKey: string | null = null;
   private readonly o: Required<Omit<OutboxOptions, 'onDelivered'>> & Pick<OutboxOptions, 'onDelivered'>;
 
   constructor(options: OutboxOptions) {
@@ -86,13 +111,10 @@ export class Outbox {
       backoffMs: defaultBackoff,
       setTimer: (fn, ms) => setTimeout(fn, ms),
       clearTimer: (h) => clearTimeout(h as ReturnType<typeof setTimeout>),
+      lock: defaultLock,
       ...options,
     };
-    this.loaded = this.o.storage.load().then((stored) => {
-      // An entry caught mid-send when the page died is simply waiting again; the server's idempotency makes the resend safe.
-      this.entries = [...stored.map((e) => (e.state === 'sending' ? { ...e, state: 'waiting' as const } : e)), ...this.entries];
-      this.emit();
-    });
+    this.loaded = this.change();
   }
 
   /** Resolves once the stored entries are loaded. */
@@ -115,85 +137,92 @@ export class Outbox {
   /**
    * Adds an entry and resolves once it is stored on the device, before anything is sent.
    * An edit of a record whose creation has not been sent is folded into the creation;
-   * a delete of such a record removes both, so nothing is sent at all.
+   * a delete of such a record removes both, so nothing is sent at all. Whether the creation
+   * is still unsent is decided from the device, where another tab may have sent it.
    */
   async add(input: NewOutboxEntry): Promise<OutboxEntry | null> {
     await this.loaded;
-    const unsentCreate = this.entries.find(
-      (e) => e.recordId === input.recordId && e.method === 'POST' && e.state === 'waiting' && e.attempts === 0,
-    );
-    if (unsentCreate && input.method === 'DELETE') {
-      this.entries = this.entries.filter((e) => e.recordId !== input.recordId || e.state === 'sending');
-      await this.persist();
-      return null;
-    }
-    if (unsentCreate && input.method === 'PATCH' && isObject(input.body) && isObject(unsentCreate.body)) {
-      const { version: _version, ...changes } = input.body;
-      const merged = { ...unsentCreate, body: { ...unsentCreate.body, ...changes }, label: input.label };
-      this.entries = this.entries.map((e) => (e.key === unsentCreate.key ? merged : e));
-      await this.persist();
-      this.kick();
-      return merged;
-    }
-    const now = this.o.now();
-    const entry: OutboxEntry = {
-      key: input.key ?? this.o.newKey(),
-      recordId: input.recordId,
-      kind: input.kind,
-      method: input.method,
-      path: input.path,
-      body: input.body,
-      label: input.label,
-      scope: input.scope,
-      createdAt: now,
-      attempts: 0,
-      nextAttemptAt: now,
-      state: 'waiting',
-    };
-    this.entries = [...this.entries, entry];
-    await this.persist();
-    this.kick();
-    return entry;
+    let added: OutboxEntry | null = null;
+    await this.change((stored) => {
+      const unsentCreate = stored.find(
+        (e) => e.recordId === input.recordId && e.method === 'POST' && e.state === 'waiting' && e.attempts === 0,
+      );
+      if (unsentCreate && input.method === 'DELETE') {
+        added = null;
+        return { remove: stored.filter((e) => e.recordId === input.recordId && e.state !== 'sending').map((e) => e.key) };
+      }
+      if (unsentCreate && input.method === 'PATCH' && isObject(input.body) && isObject(unsentCreate.body)) {
+        const { version: _version, ...changes } = input.body;
+        added = { ...unsentCreate, body: { ...unsentCreate.body, ...changes }, label: input.label };
+        return { put: [added] };
+      }
+      const now = this.o.now();
+      added = {
+        key: input.key ?? this.o.newKey(),
+        recordId: input.recordId,
+        kind: input.kind,
+        method: input.method,
+        path: input.path,
+        body: input.body,
+        label: input.label,
+        scope: input.scope,
+        // Also the order of sending, so it only goes up, even when two entries share a millisecond.
+        createdAt: Math.max(now, (stored.at(-1)?.createdAt ?? 0) + 1),
+        attempts: 0,
+        nextAttemptAt: now,
+        state: 'waiting',
+      };
+      return { put: [added] };
+    });
+    if (added) this.kick();
+    return added;
   }
 
-  /** Sends what is due, oldest first. Safe to call any time; concurrent calls share one pass. */
+  /**
+   * Sends what is due, oldest first, including what other tabs added. Safe to call any time;
+   * concurrent calls share one flush, and tabs take turns.
+   */
   flush(): Promise<void> {
-    this.flushing ??= this.loaded.then(() => this.pass()).finally(() => {
+    this.again = true;
+    this.flushing ??= this.passes().finally(() => {
       this.flushing = null;
       this.schedule();
     });
     return this.flushing;
   }
 
+  /** A flush asked for during a pass gets a pass of its own after it, so nothing added meanwhile waits for a timer. */
+  private async passes() {
+    await this.loaded;
+    while (this.again) {
+      this.again = false;
+      await this.o.lock(() => this.pass());
+    }
+  }
+
   /** A refused entry, fixed or not, goes back in line. */
   async retry(key: string, body?: unknown): Promise<void> {
-    this.entries = this.entries.map((e) =>
-      e.key === key ? { ...e, state: 'waiting', error: undefined, nextAttemptAt: this.o.now(), ...(body !== undefined ? { body } : {}) } : e,
-    );
-    await this.persist();
+    await this.update(key, () => ({ state: 'waiting', error: undefined, nextAttemptAt: this.o.now(), ...(body !== undefined ? { body } : {}) }));
     this.kick();
   }
 
   /** Retry everything that is waiting now, without waiting for the backoff. */
   async retryNow(): Promise<void> {
     const now = this.o.now();
-    this.entries = this.entries.map((e) => (e.state === 'waiting' ? { ...e, nextAttemptAt: now } : e));
-    await this.persist();
+    await this.change((stored) => ({ put: stored.filter((e) => e.state === 'waiting').map((e) => ({ ...e, nextAttemptAt: now })) }));
     await this.flush();
   }
 
   async discard(key: string): Promise<void> {
-    this.entries = this.entries.filter((e) => e.key !== key);
-    await this.persist();
+    await this.change(() => ({ remove: [key] }));
   }
 
-  /** Removes everything (sign-out). */
+  /** Removes everything on the device (sign-out). */
   async clear(): Promise<void> {
     await this.loaded;
-    this.entries = [];
     if (this.timer !== null) this.o.clearTimer(this.timer);
     this.timer = null;
-    await this.persist();
+    await this.change((stored) => ({ remove: stored.map((e) => e.key) }));
   }
 
   /**
@@ -203,41 +232,39 @@ export class Outbox {
    */
   private async pass(): Promise<void> {
     for (;;) {
-      const next = this.head();
-      if (!next || next.nextAttemptAt > this.o.now()) return;
-      this.update(next.key, { state: 'sending' });
+      let next: OutboxEntry | undefined;
+      // Marked as sending on the device, so no tab folds an edit into it while it is on its way.
+      await this.change((stored) => {
+        next = head(stored);
+        if (!next || next.nextAttemptAt > this.o.now()) return (next = undefined);
+        this.sendingKey = next.key;
+        return { put: [{ ...next, state: 'sending' }] };
+      });
+      if (!next) return;
+      const { key, attempts } = next;
       try {
         const result = await this.o.send(next);
-        this.entries = this.entries.filter((e) => e.key !== next.key);
         this.lastRetryReason = null;
-        await this.persist();
+        await this.change(() => ({ remove: [key] }));
         this.o.onDelivered?.(next, result);
       } catch (error) {
         const failure = this.o.classify(error);
         if (failure.kind === 'gone') {
-          this.entries = this.entries.filter((e) => e.key !== next.key);
-          await this.persist();
+          await this.change(() => ({ remove: [key] }));
           continue;
         }
         if (failure.kind === 'refused') {
-          this.update(next.key, { state: 'failed', error: failure.error, attempts: next.attempts + 1 });
-          await this.persist();
+          await this.update(key, () => ({ state: 'failed', error: failure.error, attempts: attempts + 1 }));
           continue;
         }
         // No connection or a struggling server: everything behind waits too.
-        const attempts = next.attempts + 1;
         this.lastRetryReason = failure.reason;
-        this.update(next.key, { state: 'waiting', attempts, nextAttemptAt: this.o.now() + this.o.backoffMs(attempts) });
-        await this.persist();
+        await this.update(key, () => ({ state: 'waiting', attempts: attempts + 1, nextAttemptAt: this.o.now() + this.o.backoffMs(attempts + 1) }));
         return;
+      } finally {
+        this.sendingKey = null;
       }
     }
-  }
-
-  /** The first entry that may be sent: not refused, and not behind a refused entry of its record. */
-  private head(): OutboxEntry | undefined {
-    const blocked = new Set(this.entries.filter((e) => e.state === 'failed').map((e) => e.recordId));
-    return this.entries.find((e) => e.state !== 'failed' && !blocked.has(e.recordId));
   }
 
   private kick() {
@@ -247,23 +274,29 @@ export class Outbox {
   private schedule() {
     if (this.timer !== null) this.o.clearTimer(this.timer);
     this.timer = null;
-    const head = this.head();
-    if (!head) return;
-    const due = head.nextAttemptAt;
+    const next = head(this.entries);
+    if (!next) return;
+    const due = next.nextAttemptAt;
     this.timer = this.o.setTimer(() => {
       this.timer = null;
       void this.flush();
     }, Math.max(0, due - this.o.now()));
   }
 
-  private update(key: string, patch: Partial<OutboxEntry>) {
-    this.entries = this.entries.map((e) => (e.key === key ? { ...e, ...patch } : e));
-    this.emit();
+  /** Changes an entry if it is still on the device: one another tab has delivered is not brought back. */
+  private update(key: string, patch: (stored: OutboxEntry) => Partial<OutboxEntry>) {
+    return this.change((stored) => {
+      const e = stored.find((s) => s.key === key);
+      return e && { put: [{ ...e, ...patch(e) }] };
+    });
   }
 
-  private async persist() {
+  /** Writes a change through to the device and shows what the device then holds, oldest first. */
+  private async change(fn?: (stored: OutboxEntry[]) => OutboxChange | undefined) {
+    const stored = await this.o.storage.change(fn && ((s) => fn(byAge(s))));
+    // An entry marked as sending by a page that died is simply waiting again; the server's idempotency makes a resend safe.
+    this.entries = byAge(stored).map((e) => (e.state === 'sending' && e.key !== this.sendingKey ? { ...e, state: 'waiting' } : e));
     this.emit();
-    await this.o.storage.save(this.entries);
   }
 
   private emit() {
@@ -271,18 +304,78 @@ export class Outbox {
   }
 }
 
+/** The first entry that may be sent: not refused, and not behind a refused entry of its record. */
+function head(entries: readonly OutboxEntry[]): OutboxEntry | undefined {
+  const blocked = new Set(entries.filter((e) => e.state === 'failed').map((e) => e.recordId));
+  return entries.find((e) => e.state !== 'failed' && !blocked.has(e.recordId));
+}
+
+const byAge = (entries: OutboxEntry[]) => [...entries].sort((a, b) => a.createdAt - b.createdAt);
+
 function isObject(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
 }
 
 /** Keeps entries in memory only (tests, or a browser without IndexedDB). */
 export function memoryStorage(initial: OutboxEntry[] = []): OutboxStorage & { saved: OutboxEntry[] } {
+  const copy = (entries: OutboxEntry[]) => entries.map((e) => ({ ...e }));
   const store = {
     saved: initial,
-    load: async () => store.saved.map((e) => ({ ...e })),
-    save: async (entries: OutboxEntry[]) => {
-      store.saved = entries.map((e) => ({ ...e }));
+    change: async (fn?: (stored: OutboxEntry[]) => OutboxChange | undefined) => {
+      const { put = [], remove = [] } = fn?.(copy(store.saved)) ?? {};
+      // Rewritten in place, so entries made in one millisecond keep their order.
+      const byKey = new Map(store.saved.map((e) => [e.key, e]));
+      for (const e of copy(put)) byKey.set(e.key, e);
+      for (const key of remove) byKey.delete(key);
+      store.saved = [...byKey.values()];
+      return copy(store.saved);
     },
   };
   return store;
+}
+
+const PREFIX = 'outbox:';
+
+/**
+ * Keeps entries in the site's IndexedDB, one record per entry under `outbox:<key>`, beside the
+ * rest of what the app keeps on the device. Each change is one read-write transaction, and
+ * IndexedDB runs read-write transactions on one store one after another, whichever tab opened
+ * them (Indexed Database API, "Transaction scheduling": https://www.w3.org/TR/IndexedDB/).
+ * A list stored whole under `outbox`, as earlier versions did, is moved into records on the
+ * first change.
+ */
+export function deviceStorage(): OutboxStorage {
+  if (typeof indexedDB === 'undefined') return memoryStorage();
+  const store = createStore('scrubline', 'device');
+  return {
+    change: (fn) =>
+      store('readwrite', (os) => {
+        const list = os.get('outbox');
+        const records = os.getAll(IDBKeyRange.bound(PREFIX, `${PREFIX}\uffff`));
+        let stored: OutboxEntry[] = [];
+        records.onsuccess = () => {
+          const migrated: OutboxEntry[] = [];
+          let last = 0;
+          for (const e of Array.isArray(list.result) ? (list.result as OutboxEntry[]) : []) {
+            // The list's order is the order of sending; a shared millisecond must not reorder it.
+            last = Math.max(e.createdAt, last + 1);
+            if (!records.result.some((s) => (s as OutboxEntry).key === e.key)) migrated.push({ ...e, createdAt: last });
+          }
+          if (list.result !== undefined) os.delete('outbox');
+          const current = [...(records.result as OutboxEntry[]), ...migrated];
+          const { put = [], remove = [] } = fn?.(current) ?? {};
+          const byKey = new Map([...current, ...put].map((e) => [e.key, e]));
+          for (const e of [...migrated, ...put]) os.put(e, PREFIX + e.key);
+          for (const key of remove) {
+            os.delete(PREFIX + key);
+            byKey.delete(key);
+          }
+          stored = [...byKey.values()];
+        };
+        return new Promise<OutboxEntry[]>((resolve, reject) => {
+          os.transaction.oncomplete = () => resolve(stored);
+          os.transaction.onabort = () => reject(os.transaction.error);
+        });
+      }),
+  };
 }

@@ -192,6 +192,25 @@ describe('the outbox', () => {
     expect(t.storage.saved).toHaveLength(0);
   });
 
+  it('when an entry is added while another is being sent, then it is sent in the same flush, without waiting for a timer', async () => {
+    let arrive!: () => void;
+    const held = new Promise<void>((resolve) => (arrive = resolve));
+    const sent: string[] = [];
+    const t = setup({
+      send: async (e) => {
+        sent.push(e.recordId);
+        if (e.recordId === 'r1') await held;
+      },
+    });
+    await t.outbox.add(run('r1'));
+    const flushed = t.outbox.flush();
+    await t.outbox.add(run('r2'));
+    arrive();
+    await flushed;
+    expect(sent).toEqual(['r1', 'r2']);
+    expect(t.timers).toHaveLength(0);
+  });
+
   it('when subscribed, then listeners hear every change', async () => {
     const t = setup();
     const listener = vi.fn();

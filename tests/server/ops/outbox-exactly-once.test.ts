@@ -4,7 +4,7 @@ import 'fake-indexeddb/auto';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { MutationObserver, QueryClient } from '@tanstack/react-query';
-import { createStore, get } from 'idb-keyval';
+import { createStore, entries } from 'idb-keyval';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { createAppOutbox } from '@/app/outbox';
 import { login } from '@/features/auth/api/login';
@@ -115,8 +115,9 @@ function openTab() {
   return { queryClient, outbox, logRun };
 }
 
-/** What the device has stored for the outbox (shared by every tab). */
-const storedOnDevice = async () => (await get<OutboxEntry[]>('outbox', createStore('scrubline', 'device'))) ?? [];
+/** What the device has stored for the outbox (shared by every tab): one record per entry, under `outbox:<key>`. */
+const storedOnDevice = async () =>
+  (await entries<IDBValidKey, unknown>(createStore('scrubline', 'device'))).filter(([key]) => String(key).startsWith('outbox'));
 
 async function signedInBrowser() {
   const d = await driverWithCarAndEvent(t);
