@@ -1,6 +1,8 @@
 import type { RequestHandler } from 'express';
 import type { Role, User } from '@shared/auth/auth.schema';
+import type { DataSource, EntityManager } from 'typeorm';
 import { AppError } from '../lib/app-error';
+import { queryPrepared } from '../db/prepared';
 import { allows, type ACCESS_MATRIX } from './access-matrix';
 
 /**
@@ -80,8 +82,8 @@ export async function carRelations(db: Queryable, userId: string, carId: string)
  * user may see the event, and whether `driverId` drives the car (its owner or a co-driver). The
  * answers are the same as carRelations and assertEventAccess give one query each.
  */
-export async function runWriteAccess(db: Queryable, userId: string, carId: string, eventId: string, driverId: string) {
-  const rows: (RelationRow & { event_visible: boolean; drives_car: boolean })[] = await db.query(
+export async function runWriteAccess(db: DataSource | EntityManager, userId: string, carId: string, eventId: string, driverId: string) {
+  const rows = await queryPrepared<RelationRow & { event_visible: boolean; drives_car: boolean }>(db,
     `SELECT ${carRelationColumns('$2')},
             EXISTS (SELECT 1 FROM events e WHERE e.id = $3 AND ${eventVisibleSql('$2')}) AS event_visible,
             (c.owner_id = $4 OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = $4)) AS drives_car

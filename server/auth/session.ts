@@ -55,13 +55,15 @@ export function sessionStore(pool: Pool, touchAfter: number) {
     /** The session and its signed-in account in one round trip: every request of a signed-in user needs both. */
     override get(sid: string, fn: Callback<SessionData | null>) {
       pool
-        .query<{ sess: SessionData | string; expire: Date; user_id: string | null } & UserRow>(
-          `SELECT s.sess, s.expire, u.id AS user_id, ${USER_COLUMNS}
-             FROM session s
-             LEFT JOIN users u ON u.id = (s.sess #>> '{passport,user}')::uuid
-            WHERE s.sid = $1 AND s.expire >= now()`,
-          [sid],
-        )
+        .query<{ sess: SessionData | string; expire: Date; user_id: string | null } & UserRow>({
+          // Prepared, so its plan is kept per connection (see server/db/prepared.ts).
+          name: 'session_with_user',
+          text: `SELECT s.sess, s.expire, u.id AS user_id, ${USER_COLUMNS}
+                   FROM session s
+                   LEFT JOIN users u ON u.id = (s.sess #>> '{passport,user}')::uuid
+                  WHERE s.sid = $1 AND s.expire >= now()`,
+          values: [sid],
+        })
         .then(({ rows: [row] }) => {
           if (!row) return fn(null, null);
           const sess = typeof row.sess === 'string' ? (JSON.parse(row.sess) as SessionData) : row.sess;

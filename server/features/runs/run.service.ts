@@ -5,6 +5,7 @@ import type { CreateRunInput, Run, RunStatus, UpdateRunInput } from '@shared/sea
 import { scoreRuns } from '@shared/calc/scoring.calc';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, assertCarRelations, assertEventAccess, runWriteAccess } from '../../auth/access';
+import { queryPrepared } from '../../db/prepared';
 import { writeRunHotPressures } from '../pressures/pressure.service';
 import { RunEntity } from './run.entity';
 
@@ -43,7 +44,7 @@ interface RunRow {
  * bests and % off best always come from the one scoring function.
  */
 export async function loadRuns(db: Db, where: string, params: unknown[]): Promise<Run[]> {
-  const rows: RunRow[] = await db.query(
+  const rows = await queryPrepared<RunRow>(db,
     `WITH wanted AS (SELECT r.id, r.event_id, r.car_id, r.driver_id FROM runs_with_setup r WHERE ${where})
      SELECT r.id, r.car_id, r.event_id, r.driver_id, u.display_name AS driver_name, r.run_number, r.raw_time_sec,
             r.cones, r.status, r.recorded_at, r.notes, r.version, r.created_at, r.updated_at, r.setup_id,
@@ -167,7 +168,7 @@ export async function createRun(ds: DataSource, user: User, input: CreateRunInpu
   // No conflict target: a replay (same id) and a clash of run numbers both insert nothing;
   // which of the two happened is read back below, after any racing insert has committed.
   const insert = async (db: Db) => {
-    const inserted: { id: string }[] = await db.query(
+    const inserted = await queryPrepared<{ id: string }>(db,
       `INSERT INTO runs (id, car_id, event_id, driver_id, run_number, raw_time_sec, cones, status, recorded_at, notes)
        VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10)
        ON CONFLICT DO NOTHING RETURNING id`,
