@@ -23,7 +23,10 @@ export function parseIsoDate(value: string): Date {
 }
 
 const toDate = (value: string | Date) => (typeof value === 'string' ? parseIsoDate(value) : value);
-const intlFormat = (date: Date, options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat(undefined, options).format(date);
+// Building an Intl.DateTimeFormat costs far more than formatting with one: keep one per pattern.
+const formatters: Record<string, Intl.DateTimeFormat> = {};
+const intlFormat = (date: Date, options: Intl.DateTimeFormatOptions) =>
+  (formatters[JSON.stringify(options)] ??= new Intl.DateTimeFormat(undefined, options)).format(date);
 const sameDay = (a: Date, b: Date) => a.getFullYear() === b.getFullYear() && a.getMonth() === b.getMonth() && a.getDate() === b.getDate();
 
 /** "12 Jun 2026" */
