@@ -42,7 +42,7 @@ const [, restored] = persistQueryClient({
 await restored.catch(() => undefined);
 // Mutations that were paused when the page closed carry on.
 void queryClient.resumePausedMutations();
-const router = createAppRouter(queryClient);
+const router = createAppRouter(queryClient, (id) => outbox.getSnapshot().some((e) => e.kind === 'event.create' && e.recordId === id));
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html has no #root element');

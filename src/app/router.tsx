@@ -37,7 +37,11 @@ function pathOf(url: URL): string {
  * The app's routes. Pages are loaded on first visit, so the first download stays small; the
  * pages opened now and then are not even listed until an address asks for one (`discover`).
  */
-export function createRoutes(queryClient: QueryClient): { routes: RouteObject[]; discover: PatchRoutesOnNavigationFunction } {
+/** `eventWaiting`: is this event still only on the phone (its creation waiting in the outbox)? The server cannot know it yet. */
+export function createRoutes(
+  queryClient: QueryClient,
+  eventWaiting: (eventId: string) => boolean = () => false,
+): { routes: RouteObject[]; discover: PatchRoutesOnNavigationFunction } {
   const requireSignIn = async ({ request }: LoaderFunctionArgs) => {
     const me = await queryClient.ensureQueryData({ ...meQueryOptions(), revalidateIfStale: true });
     if (!me) throw redirect(signInPath(pathOf(new URL(request.url))));
@@ -53,7 +57,7 @@ export function createRoutes(queryClient: QueryClient): { routes: RouteObject[];
   const loading = <LoadingScreen />;
 
   return {
-    routes: staticRoutes({ requireSignIn, signedOutOnly, loading }),
+    routes: staticRoutes({ queryClient, eventWaiting, requireSignIn, signedOutOnly, loading }),
     discover: discoverRoutes({ signedOutOnly, loading }),
   };
 }
@@ -83,10 +87,14 @@ function discoverRoutes(shared: MoreRoutesShared): PatchRoutesOnNavigationFuncti
 }
 
 function staticRoutes({
+  queryClient,
+  eventWaiting,
   requireSignIn,
   signedOutOnly,
   loading,
 }: {
+  queryClient: QueryClient;
+  eventWaiting: (eventId: string) => boolean;
   requireSignIn: (args: LoaderFunctionArgs) => Promise<null>;
   signedOutOnly: (args: LoaderFunctionArgs) => Promise<null>;
   loading: ReactNode;
@@ -136,7 +144,10 @@ function staticRoutes({
                 {
                   // The trackside screen: its own small chunk.
                   path: `${paths.events}/:eventId`,
-                  lazy: async () => ({ Component: (await import('./routes/events/event-day')).EventDayPage }),
+                  lazy: async () => {
+                    const { EventDayPage, eventDayLoader } = await import('./routes/events/event-day');
+                    return { Component: EventDayPage, loader: eventDayLoader(queryClient, eventWaiting) };
+                  },
                 },
                 {
                   path: paths.cars,
@@ -183,8 +194,8 @@ function staticRoutes({
   ];
 }
 
-export function createAppRouter(queryClient: QueryClient): AppRouter {
-  const { routes, discover } = createRoutes(queryClient);
+export function createAppRouter(queryClient: QueryClient, eventWaiting?: (eventId: string) => boolean): AppRouter {
+  const { routes, discover } = createRoutes(queryClient, eventWaiting);
   return createBrowserRouter(routes, { patchRoutesOnNavigation: discover });
 }
 

@@ -147,7 +147,8 @@ export function setUpAppTests(pages: readonly (() => Promise<unknown>)[] = [], {
  */
 export function renderApp(path: string, { outboxEntries = [] }: RenderAppOptions = {}) {
   const queryClient = createQueryClient({ retry: false, onUnauthenticated: () => sendToSignIn(router, queryClient) });
-  const { routes, discover } = createRoutes(queryClient);
+  // As main.tsx does: an event whose creation waits in this outbox is not asked of the server.
+  const { routes, discover } = createRoutes(queryClient, (id) => outbox.getSnapshot().some((e) => e.kind === 'event.create' && e.recordId === id));
   const router = createMemoryRouter(routes, { initialEntries: [path], patchRoutesOnNavigation: discover });
   let current: OutboxEntry | null = null;
   const outbox = new Outbox({

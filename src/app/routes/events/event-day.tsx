@@ -1,5 +1,6 @@
 import { lazy, Suspense, useState } from 'react';
-import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import type { QueryClient } from '@tanstack/react-query';
 import { Plus, Trophy } from 'lucide-react';
 import type { Car, Person } from '@shared/season/car.schema';
 import { formatRunTime } from '@shared/season/run-time';
@@ -18,12 +19,14 @@ import { CommentsButton } from '@/features/comments/components/comments-button';
 import { NEW_CAR_PATH } from '@/features/cars/utils/new-car-path';
 import { EventFacts } from '@/features/events/components/event-facts';
 import { useDayEvent } from '@/features/events/hooks/use-event-views';
+import { eventQueryOptions } from '@/features/events/api/get-event';
+import { carsQueryOptions } from '@/features/cars/api/get-cars';
 import type { EventView } from '@/features/events/utils/pending-events';
-import { useRuns } from '@/features/runs/api/get-runs';
+import { runsQueryOptions, useRuns } from '@/features/runs/api/get-runs';
 import { LogRunForm } from '@/features/runs/components/log-run-form';
 import { RunList } from '@/features/runs/components/run-list';
 import { mergeRuns, type RunRow } from '@/features/runs/utils/merge-runs';
-import { useSetups } from '@/features/setups/api/get-setups';
+import { setupsQueryOptions, useSetups } from '@/features/setups/api/get-setups';
 import { CurrentSetup } from '@/features/setups/components/current-setup';
 import { mergePendingSetups, setupInForce } from '@/features/setups/utils/setup-views';
 
@@ -38,6 +41,26 @@ interface Choice {
 }
 
 const choiceKey = (eventId: string) => `scrubline.event-day.${eventId}`;
+
+/**
+ * The page's reads start as soon as its address is known, beside the sign-in check, instead of after
+ * its first render and then after the event and the car arrive (two round trips less before the
+ * runs show). Nothing waits on them here: the page still renders from the cache or shows its loading.
+ */
+export const eventDayLoader =
+  (queryClient: QueryClient, eventWaiting: (eventId: string) => boolean) =>
+  ({ params: { eventId = '' }, request }: LoaderFunctionArgs) => {
+    // An event still on the phone: the server cannot know it or its runs yet.
+    if (eventWaiting(eventId)) return null;
+    const carId = new URL(request.url).searchParams.get('carId') ?? readStoredChoice<Choice>(choiceKey(eventId))?.carId;
+    void queryClient.prefetchQuery(eventQueryOptions(eventId));
+    void queryClient.prefetchQuery(carsQueryOptions());
+    if (carId) {
+      void queryClient.prefetchQuery(setupsQueryOptions(carId));
+      void queryClient.prefetchQuery(runsQueryOptions({ carId, eventId }));
+    }
+    return null;
+  };
 
 /** Everything under the header once the car and the driver are known. */
 function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car; driver: Person; me: Person }) {

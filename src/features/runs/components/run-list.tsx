@@ -1,4 +1,4 @@
-import { useState, type ReactNode } from 'react';
+import { lazy, Suspense, useState, type ReactNode } from 'react';
 import { Pencil, Trophy } from 'lucide-react';
 import type { Corner } from '@shared/season/corners';
 import { formatRunTime } from '@shared/season/run-time';
@@ -18,7 +18,10 @@ import { deleteRunEntry, useDeleteRun } from '../api/delete-run';
 import { updateRunEntry, useUpdateRun } from '../api/update-run';
 import type { RunRow } from '../utils/merge-runs';
 import { STATUS_WORDS } from '../utils/run-words';
-import { RunEditForm, type RunChanges } from './run-edit-form';
+import type { RunChanges } from './run-edit-form';
+
+// Loaded on the first "Edit" or "Fix", so logging runs stays a small download (the service worker keeps it for offline).
+const RunEditForm = lazy(async () => ({ default: (await import('./run-edit-form')).RunEditForm }));
 
 interface RunListProps {
   rows: readonly RunRow[];
@@ -196,15 +199,17 @@ export function RunList({ rows, setupLabelOf, renderExtras }: RunListProps) {
               </div>
             ) : null}
             {editing === row.id ? (
-              <RunEditForm
-                row={row}
-                takenNumbers={taken}
-                serverErrors={failed?.error?.fieldErrors}
-                submitLabel={failed ? 'Fix and send again' : 'Save changes'}
-                onSubmit={(changes) => save(row, changes)}
-                onCancel={() => setEditing(null)}
-                onDelete={failed?.action === 'create' ? undefined : () => void deleteRun(row)}
-              />
+              <Suspense fallback={<p className="text-ink-muted">Opening the run…</p>}>
+                <RunEditForm
+                  row={row}
+                  takenNumbers={taken}
+                  serverErrors={failed?.error?.fieldErrors}
+                  submitLabel={failed ? 'Fix and send again' : 'Save changes'}
+                  onSubmit={(changes) => save(row, changes)}
+                  onCancel={() => setEditing(null)}
+                  onDelete={failed?.action === 'create' ? undefined : () => void deleteRun(row)}
+                />
+              </Suspense>
             ) : failed ? null : (
               <div className="flex flex-wrap gap-1">
                 <Button variant="quiet" className="px-2" onClick={() => setEditing(row.id)} aria-label={`Edit run ${row.runNumber}`}>

@@ -54,6 +54,18 @@ async function keypad(userE: ReturnType<typeof userEvent.setup>, time: string) {
 const runItem = (n: number) => screen.getByRole('listitem', { name: new RegExp(`^Run ${n},`) });
 
 describe('event day', () => {
+  it('when the page opens, then the car\'s setups and runs are asked for at once, without waiting for the event and the car to arrive', async () => {
+    const never = () => new Promise<Response>(() => undefined);
+    const fetchMock = stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 })], {
+      extra: { [`GET /api/events/${IDS.event}`]: never, 'GET /api/cars': never },
+    });
+    renderApp(PATH);
+    await waitFor(() => expect(requestsTo(fetchMock, RUNS)).toHaveLength(1));
+    expect(requestsTo(fetchMock, `GET /api/cars/${IDS.car}/setups`)).toHaveLength(1);
+    // Still waiting on the event: the runs arrived first and are kept for when it does.
+    expect(screen.queryByRole('listitem', { name: /^Run 1,/ })).toBeNull();
+  });
+
   it('when a run is logged with the keypad, then exactly one outbox entry holds it in SI with a device-made id, and it shows at once as waiting with its adjusted time', async () => {
     const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES });
     const { outbox } = renderApp(PATH);
@@ -162,7 +174,8 @@ describe('event day', () => {
     await screen.findByRole('listitem', { name: /^Run 1,/ });
 
     await u.click(screen.getByRole('button', { name: 'Edit run 1' }));
-    await u.click(screen.getByRole('button', { name: 'Delete run' }));
+    // The edit form loads on first use.
+    await u.click(await screen.findByRole('button', { name: 'Delete run' }));
 
     await waitFor(() => expect(screen.queryByRole('listitem', { name: /^Run 1,/ })).toBeNull());
     expect(outbox.getSnapshot().map((e) => e.kind)).toEqual(['change.create', 'run.delete']);
@@ -185,7 +198,8 @@ describe('event day', () => {
     const logged = outbox.getSnapshot()[1]!.body;
 
     await u.click(screen.getByRole('button', { name: 'Edit run 1' }));
-    await u.click(screen.getByRole('button', { name: 'Delete run' }));
+    // The edit form loads on first use.
+    await u.click(await screen.findByRole('button', { name: 'Delete run' }));
     // Nothing left to send for that run: the upload and the deletion cancelled each other.
     await waitFor(() => expect(outbox.getSnapshot().map((e) => e.kind)).toEqual(['change.create']));
     expect(screen.queryByRole('listitem', { name: /^Run 1,/ })).toBeNull();
@@ -219,7 +233,8 @@ describe('event day', () => {
     await screen.findByRole('listitem', { name: /^Run 1,/ });
 
     await u.click(screen.getByRole('button', { name: 'Edit run 1' }));
-    await u.click(screen.getByRole('button', { name: 'Delete run' }));
+    // The edit form loads on first use.
+    await u.click(await screen.findByRole('button', { name: 'Delete run' }));
     await waitFor(() => expect(requestsTo(fetchMock, `DELETE /api/runs/${IDS.run1}`)).toHaveLength(1));
     await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(0));
 
@@ -318,7 +333,7 @@ describe('event day', () => {
     expect(within(row).getByText(/Run 1 is already logged for this driver/)).toBeTruthy();
 
     await u.click(within(row).getByRole('button', { name: 'Fix' }));
-    const number = within(row).getByLabelText('Run number');
+    const number = await within(row).findByLabelText('Run number');
     await u.clear(number);
     await u.type(number, '3');
     await u.click(within(row).getByRole('button', { name: 'Fix and send again' }));
