@@ -1,6 +1,6 @@
 /// <reference types="vitest/config" />
 import { fileURLToPath } from 'node:url';
-import { defineConfig } from 'vite';
+import { defineConfig, type Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { VitePWA } from 'vite-plugin-pwa';
@@ -9,11 +9,36 @@ import { readFileSync } from 'node:fs';
 const r = (p: string) => fileURLToPath(new URL(p, import.meta.url));
 const { version } = JSON.parse(readFileSync(r('./package.json'), 'utf8')) as { version: string };
 
+/**
+ * Preloads the Latin files of the Nunito Sans weights the pages draw with, so the first text is drawn in its
+ * own font. Without it the fonts were found only once the stylesheet applied, arrived after the first render,
+ * and swapping them in for the fallback font moved the lines of the trackside page (a layout shift).
+ */
+function preloadFonts(): Plugin {
+  return {
+    name: 'scrubline-preload-fonts',
+    apply: 'build',
+    transformIndexHtml: {
+      order: 'post',
+      handler: (_html, ctx) =>
+        Object.keys(ctx.bundle ?? {})
+          .filter((file) => /nunito-sans-latin-(400|600|700|800)-normal-[\w-]+\.woff2$/.test(file))
+          .sort()
+          .map((file) => ({
+            tag: 'link',
+            attrs: { rel: 'preload', as: 'font', type: 'font/woff2', href: `/${file}`, crossorigin: true },
+            injectTo: 'head' as const,
+          })),
+    },
+  };
+}
+
 export default defineConfig({
   define: { __APP_VERSION__: JSON.stringify(version) },
   plugins: [
     react(),
     tailwindcss(),
+    preloadFonts(),
     // An installable app whose shell is kept on the device by a service worker (Workbox, built offline).
     VitePWA({
       registerType: 'autoUpdate',

@@ -60,6 +60,25 @@ afterAll(async () => {
 });
 
 describe('trackside on a phone (390×844)', () => {
+  it('when the page is opened, then its text fonts are asked for with the page itself, not after the stylesheet, and every preloaded file is one the page draws with', async () => {
+    const html = await (await fetch(`${baseUrl}/events/${eventId}?carId=${carId}`)).text();
+    const preloaded = [...html.matchAll(/<link rel="preload" as="font" type="font\/woff2" href="([^"]+)" crossorigin>/g)].map((m) => m[1]!);
+    expect(preloaded).toHaveLength(4);
+    for (const href of preloaded) {
+      const res = await fetch(baseUrl + href);
+      expect(res.status).toBe(200);
+      expect(res.headers.get('content-type')).toBe('font/woff2');
+    }
+    await page.goto(`${baseUrl}/events/${eventId}?carId=${carId}`);
+    await page.getByRole('heading', { level: 1, name: 'Practice at Harrow Flats' }).waitFor();
+    const used = await page.evaluate(async () => {
+      await document.fonts.ready;
+      return performance.getEntriesByType('resource').filter((e) => e.name.endsWith('.woff2')).map((e) => new URL(e.name).pathname);
+    });
+    // Nothing preloaded goes unused (which would cost a download for nothing on a weak signal).
+    for (const href of preloaded) expect(used).toContain(href);
+  });
+
   it('when the driver logs a clean run, a run with 2 cones and a DNF, then adjusted times and the best show on screen', async () => {
     await page.goto(`${baseUrl}/events/${eventId}?carId=${carId}`);
     await page.getByRole('radio', { name: /Maren Holloway/ }).check({ force: true });
