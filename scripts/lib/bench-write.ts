@@ -105,6 +105,11 @@ export async function loadApi(
     headers: { 'content-type': 'application/json', cookie: s.cookie, 'x-csrf-token': s.csrfToken },
     requests: [{ setupRequest: (req) => ({ ...req, body: JSON.stringify(slots.take()) }) }],
   });
+  return loadResult(opts, r);
+}
+
+/** autocannon's answer as one row of the report: every request that failed or was not 2xx is an error. */
+function loadResult(opts: { label: string; connections: number }, r: autocannon.Result): LoadResult {
   return {
     label: opts.label,
     connections: opts.connections,
@@ -177,16 +182,7 @@ export async function loadGet(s: BenchSession | { base: string }, path: string, 
     duration: opts.durationSec,
     headers: 'cookie' in s ? { cookie: s.cookie } : {},
   });
-  return {
-    label: opts.label,
-    connections: opts.connections,
-    throughput: r.requests.total / r.duration,
-    total: r.requests.total,
-    p50: r.latency.p50,
-    p97_5: r.latency.p97_5,
-    p99: r.latency.p99,
-    errors: r.errors + r.timeouts + r.non2xx,
-  } satisfies LoadResult;
+  return loadResult(opts, r);
 }
 
 export function formatLoad(rows: LoadResult[]): string {
