@@ -11,7 +11,8 @@ import { performance } from 'node:perf_hooks';
 import pg from 'pg';
 import { freePort, startCluster } from './lib/pg-cluster';
 import { DATA_DIR, ROOT, say } from './lib/env';
-import { measureWithLighthouse, measureWithPlaywright, median } from './lib/page-speed';
+import { median, quantileSorted } from 'simple-statistics';
+import { measureWithLighthouse, measureWithPlaywright } from './lib/page-speed';
 import { enableQueryPlans, explainRequestQueries, growDrivers, rowCounts, type PlanCapture } from './lib/growth';
 import { formatSizes, routeSizes } from './lib/bundle-size';
 import { register, signIn, type BenchSession } from './lib/bench-session';
@@ -28,13 +29,6 @@ const APP_POOL_SIZE = 10;
 const targets: { what: string; met: boolean; detail: string }[] = [];
 const target = (what: string, met: boolean, detail: string) => targets.push({ what, met, detail });
 
-function quantile(sorted: number[], q: number) {
-  const i = (sorted.length - 1) * q;
-  const lo = Math.floor(i);
-  const hi = Math.ceil(i);
-  return sorted[lo]! + (sorted[hi]! - sorted[lo]!) * (i - lo);
-}
-
 /** p50, p95 and max of `rounds` sequential GETs after 5 warm-ups. */
 async function timeGet(s: BenchSession, path: string, rounds = ROUNDS) {
   for (let i = 0; i < 5; i++) await s.get(path);
@@ -45,7 +39,7 @@ async function timeGet(s: BenchSession, path: string, rounds = ROUNDS) {
     times.push(performance.now() - t0);
   }
   times.sort((a, b) => a - b);
-  return { p50: quantile(times, 0.5), p95: quantile(times, 0.95), max: times.at(-1)! };
+  return { p50: quantileSorted(times, 0.5), p95: quantileSorted(times, 0.95), max: times.at(-1)! };
 }
 
 async function demoCarPaths(s: BenchSession) {
@@ -190,20 +184,19 @@ async function pageSpeed(s: BenchSession) {
     localStorage: { [`scrubline.event-day.${eventId}`]: JSON.stringify({ carId: car.id, driverId: car.owner.id }) },
   };
   const pw = await measureWithPlaywright(page, 3);
-  const m = (xs: number[]) => median(xs);
-  const lcp = m(pw.map((r) => r.lcpMs));
-  const tbt = m(pw.map((r) => r.tbtMs));
-  const cls = m(pw.map((r) => r.clsScore));
+  const lcp = median(pw.map((r) => r.lcpMs));
+  const tbt = median(pw.map((r) => r.tbtMs));
+  const cls = median(pw.map((r) => r.clsScore));
   console.log('Chromium through playwright-core, CPU slowed 4× (Emulation.setCPUThrottlingRate), network not slowed:');
-  console.log(`  FCP ${m(pw.map((r) => r.fcpMs)).toFixed(0)} ms · LCP ${lcp.toFixed(0)} ms · TBT ${tbt.toFixed(0)} ms · CLS ${cls.toFixed(3)} · settled (TTI) ${m(pw.map((r) => r.interactiveMs)).toFixed(0)} ms`);
-  console.log(`  the keypad answers a tap from ${m(pw.map((r) => r.inputReadyMs)).toFixed(0)} ms after navigation, the answer ${m(pw.map((r) => r.inputWaitMs)).toFixed(0)} ms after the tap`);
+  console.log(`  FCP ${median(pw.map((r) => r.fcpMs)).toFixed(0)} ms · LCP ${lcp.toFixed(0)} ms · TBT ${tbt.toFixed(0)} ms · CLS ${cls.toFixed(3)} · settled (TTI) ${median(pw.map((r) => r.interactiveMs)).toFixed(0)} ms`);
+  console.log(`  the keypad answers a tap from ${median(pw.map((r) => r.inputReadyMs)).toFixed(0)} ms after navigation, the answer ${median(pw.map((r) => r.inputWaitMs)).toFixed(0)} ms after the tap`);
   console.log(`  LCP element: ${pw[0]?.lcpElement ?? 'unknown'}`);
   const lh = await measureWithLighthouse(page, 3);
-  const lhLcp = m(lh.map((r) => r.lcpMs));
-  const lhTbt = m(lh.map((r) => r.tbtMs));
-  const lhCls = m(lh.map((r) => r.cls));
+  const lhLcp = median(lh.map((r) => r.lcpMs));
+  const lhTbt = median(lh.map((r) => r.tbtMs));
+  const lhCls = median(lh.map((r) => r.cls));
   console.log('Lighthouse 12.2.3, mobile defaults (simulated slow 4G: 150 ms round trip, 1.6 Mbit/s; CPU 4×):');
-  console.log(`  score ${m(lh.map((r) => r.performanceScore)).toFixed(0)} · FCP ${m(lh.map((r) => r.fcpMs)).toFixed(0)} ms · LCP ${lhLcp.toFixed(0)} ms · TBT ${lhTbt.toFixed(0)} ms · CLS ${lhCls.toFixed(3)}`);
+  console.log(`  score ${median(lh.map((r) => r.performanceScore)).toFixed(0)} · FCP ${median(lh.map((r) => r.fcpMs)).toFixed(0)} ms · LCP ${lhLcp.toFixed(0)} ms · TBT ${lhTbt.toFixed(0)} ms · CLS ${lhCls.toFixed(3)}`);
   target('trackside page (Chromium, 4× CPU): LCP < 1.5 s, TBT < 200 ms, CLS < 0.1', lcp < 1500 && tbt < 200 && cls < 0.1, `LCP ${lcp.toFixed(0)} ms, TBT ${tbt.toFixed(0)} ms, CLS ${cls.toFixed(3)}`);
   target('trackside page (Lighthouse median of 3): LCP < 1.5 s, TBT < 200 ms, CLS < 0.1', lhLcp < 1500 && lhTbt < 200 && lhCls < 0.1, `LCP ${lhLcp.toFixed(0)} ms, TBT ${lhTbt.toFixed(0)} ms, CLS ${lhCls.toFixed(3)}`);
 }

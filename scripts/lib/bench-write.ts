@@ -7,6 +7,7 @@ import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
 import autocannon from 'autocannon';
 import pg from 'pg';
+import { quantileSorted } from 'simple-statistics';
 import type { BenchSession } from './bench-session';
 
 export interface LoadResult {
@@ -122,11 +123,6 @@ function loadResult(opts: { label: string; connections: number }, r: autocannon.
   };
 }
 
-function quantile(sorted: number[], q: number) {
-  const i = Math.min(sorted.length - 1, Math.ceil(sorted.length * q) - 1);
-  return sorted[Math.max(0, i)]!;
-}
-
 /**
  * The floor: `total` INSERTs of the same run row, `connections` at a time, through a pool as large as the
  * app's TypeORM pool (10), so both sides have the same number of database connections to work with.
@@ -167,9 +163,9 @@ export async function loadRawInserts(
     connections: opts.connections,
     throughput: latencies.length / seconds,
     total: latencies.length,
-    p50: quantile(latencies, 0.5),
-    p97_5: quantile(latencies, 0.975),
-    p99: quantile(latencies, 0.99),
+    p50: quantileSorted(latencies, 0.5),
+    p97_5: quantileSorted(latencies, 0.975),
+    p99: quantileSorted(latencies, 0.99),
     errors,
   };
 }

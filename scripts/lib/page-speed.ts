@@ -107,13 +107,6 @@ const QUIET_MAX_IN_FLIGHT = 2;
 // (https://web.dev/articles/tbt).
 const BLOCKING_THRESHOLD_MS = 50;
 
-export function median(xs: number[]): number {
-  if (xs.length === 0) throw new Error('median of no values');
-  const sorted = [...xs].sort((a, b) => a - b);
-  const mid = Math.floor(sorted.length / 2);
-  return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
-}
-
 // ---------------------------------------------------------------------------------------------
 // Playwright
 
