@@ -13,7 +13,7 @@ import { persistQueryClient } from '@tanstack/react-query-persist-client';
 import { defaultShouldDehydrateQuery } from '@tanstack/react-query';
 import { CACHE_MAX_AGE_MS } from './app/query-client';
 import { queryCacheStorage } from './lib/device-store';
-import { createAppOutbox } from './app/outbox';
+import { createAppOutbox, eventWaitingIn } from './app/outbox';
 import { registerServiceWorker } from './app/service-worker';
 
 // The server's Content-Security-Policy allows a <style> element only with this response's nonce.
@@ -42,7 +42,7 @@ const [, restored] = persistQueryClient({
 await restored.catch(() => undefined);
 // Mutations that were paused when the page closed carry on.
 void queryClient.resumePausedMutations();
-const router = createAppRouter(queryClient, (id) => outbox.getSnapshot().some((e) => e.kind === 'event.create' && e.recordId === id));
+const router = createAppRouter(queryClient, eventWaitingIn(outbox));
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html has no #root element');

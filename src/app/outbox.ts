@@ -48,6 +48,10 @@ export function classifySendError(entry: OutboxEntry | null, error: unknown): Se
 }
 
 /** The app's one outbox, wired to the API and the query cache. */
+/** Is this event still only on the phone, its creation waiting in the outbox? The server cannot know it yet. */
+export const eventWaitingIn = (outbox: Outbox) => (eventId: string) =>
+  outbox.getSnapshot().some((e) => e.kind === 'event.create' && e.recordId === eventId);
+
 export function createAppOutbox(queryClient: QueryClient): Outbox {
   let current: OutboxEntry | null = null;
   const outbox = new Outbox({

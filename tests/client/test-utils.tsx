@@ -2,7 +2,7 @@ import { memoryStorage, Outbox, type OutboxEntry } from '../../src/lib/outbox';
 import { outboxMutationKey } from '@/lib/outbox-context';
 import { api, dropCsrfToken } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
-import { classifySendError, OUTBOX_KINDS } from '@/app/outbox';
+import { classifySendError, eventWaitingIn, OUTBOX_KINDS } from '@/app/outbox';
 import { cleanup, configure, render } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
@@ -147,8 +147,8 @@ export function setUpAppTests(pages: readonly (() => Promise<unknown>)[] = [], {
  */
 export function renderApp(path: string, { outboxEntries = [] }: RenderAppOptions = {}) {
   const queryClient = createQueryClient({ retry: false, onUnauthenticated: () => sendToSignIn(router, queryClient) });
-  // As main.tsx does: an event whose creation waits in this outbox is not asked of the server.
-  const { routes, discover } = createRoutes(queryClient, (id) => outbox.getSnapshot().some((e) => e.kind === 'event.create' && e.recordId === id));
+  // As main.tsx does: an event whose creation waits in this outbox (made below) is not asked of the server.
+  const { routes, discover } = createRoutes(queryClient, (id) => eventWaitingIn(outbox)(id));
   const router = createMemoryRouter(routes, { initialEntries: [path], patchRoutesOnNavigation: discover });
   let current: OutboxEntry | null = null;
   const outbox = new Outbox({
