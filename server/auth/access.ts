@@ -61,6 +61,10 @@ const CAR_REFUSALS: Record<CarAction, string> = {
   service: 'Only staff of a shop the owner has granted can open a work order.',
 };
 
+/** Does `driver` drive the car `c` (its owner or a co-driver)? A condition on `cars c`. */
+export const drivesCarSql = (driver: string) =>
+  `(c.owner_id = ${driver} OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = ${driver}))`;
+
 /** The user's relations to the car `c`, as the columns owner, co_driver and shop_staff. */
 const carRelationColumns = (user: string) => `c.owner_id = ${user} AS owner,
             EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = ${user}) AS co_driver,
@@ -86,7 +90,7 @@ export async function runWriteAccess(db: DataSource | EntityManager, userId: str
   const rows = await queryPrepared<RelationRow & { event_visible: boolean; drives_car: boolean }>(db,
     `SELECT ${carRelationColumns('$2')},
             EXISTS (SELECT 1 FROM events e WHERE e.id = $3 AND ${eventVisibleSql('$2')}) AS event_visible,
-            (c.owner_id = $4 OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = $4)) AS drives_car
+            ${drivesCarSql('$4')} AS drives_car
        FROM cars c WHERE c.id = $1`,
     [carId, userId, eventId, driverId],
   );

@@ -13,8 +13,15 @@ import type { PostgresQueryRunner } from 'typeorm/driver/postgres/PostgresQueryR
  * reading a run back with its setup and the day's scoring planned in about 3 ms and ran in 0.5 ms.
  * Use it only for fixed statement texts: each distinct text is kept by every connection.
  */
+const names = new Map<string, string>();
+const nameOf = (text: string) => {
+  let name = names.get(text);
+  if (!name) names.set(text, (name = `s_${createHash('sha1').update(text).digest('hex').slice(0, 20)}`));
+  return name;
+};
+
 export async function queryPrepared<T>(db: DataSource | EntityManager, text: string, values: unknown[]): Promise<T[]> {
-  const name = `s_${createHash('sha1').update(text).digest('hex').slice(0, 20)}`;
+  const name = nameOf(text);
   if (db instanceof DataSource) {
     const pool = (db.driver as PostgresDriver).master as pg.Pool;
     return (await pool.query<T & pg.QueryResultRow>({ name, text, values })).rows;

@@ -4,7 +4,7 @@ import { CORNERS, type Corner, type PerCorner } from '@shared/season/corners';
 import type { CreateRunInput, Run, RunStatus, UpdateRunInput } from '@shared/season/run.schema';
 import { scoreRuns } from '@shared/calc/scoring.calc';
 import { AppError, staleVersion } from '../../lib/app-error';
-import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, assertCarRelations, assertEventAccess, runWriteAccess } from '../../auth/access';
+import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, assertCarRelations, assertEventAccess, drivesCarSql, runWriteAccess } from '../../auth/access';
 import { queryPrepared } from '../../db/prepared';
 import { writeRunHotPressures } from '../pressures/pressure.service';
 import { RunEntity } from './run.entity';
@@ -116,8 +116,7 @@ export async function loadRun(db: Db, runId: string): Promise<Run> {
 
 async function assertDriverOfCar(db: Db, carId: string, driverId: string) {
   const rows = await db.query(
-    `SELECT 1 FROM cars c WHERE c.id = $1
-       AND (c.owner_id = $2 OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = $2))`,
+    `SELECT 1 FROM cars c WHERE c.id = $1 AND ${drivesCarSql('$2')}`,
     [carId, driverId],
   );
   if (rows.length === 0) throw notTheCarsDriver();
