@@ -4,7 +4,7 @@
 //   metrics read from the page's own PerformanceObserver entries.
 // - measureWithLighthouse: Lighthouse's performance category, mobile, in the same Chromium.
 import { spawn } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -494,9 +494,4 @@ export async function measureWithLighthouse(t: PageSpeedTarget, runs = 3): Promi
     });
   }
   return results;
-}
-
-/** Writes a Lighthouse run's final frame (a data: URL) to a file, for a look at what was measured. */
-export function saveScreenshot(dataUrl: string, path: string): void {
-  writeFileSync(path, Buffer.from(dataUrl.replace(/^data:[^,]*,/, ''), 'base64'));
 }
