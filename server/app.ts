@@ -5,6 +5,7 @@ import { pinoHttp } from 'pino-http';
 import { randomBytes, randomUUID } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import type { IncomingMessage } from 'node:http';
 import type { Pool } from 'pg';
 import type { DataSource } from 'typeorm';
 import { csrfSync } from 'csrf-sync';
@@ -39,7 +40,7 @@ import { carWorkOrderRoutes, shopWorkOrderRoutes, workOrderRoutes } from './feat
 import { attachmentRoutes } from './features/attachments/attachment.routes';
 import type { FileStorage } from './files/storage';
 import { eventImportRoutes } from './features/imports/import.routes';
-import { exportRoutes, SEASON_IMPORT_PATH, seasonFileBodyParser } from './features/exports/export.routes';
+import { exportRoutes, isSeasonFile } from './features/exports/export.routes';
 
 export interface AppOptions {
   ds: DataSource;
@@ -141,8 +142,10 @@ export function createApp(opts: AppOptions) {
   // The payment service signs the raw body and sends no cookie or CSRF token.
   mount('/api/payments', paymentWebhookRoutes(opts.ds, opts.payments, opts.mail));
 
-  app.use(SEASON_IMPORT_PATH, seasonFileBodyParser); // season files: up to 5 MB (the parser below then skips them)
-  app.use('/api', express.json({ limit: opts.jsonLimit ?? '100kb' }));
+  // Season files (up to 5 MB) are read on their own route, after sign-in and the CSRF token.
+  // body-parser hands `type` the request Express made, so it has `is`.
+  const apiJson = (req: IncomingMessage) => Boolean((req as express.Request).is('application/json')) && !isSeasonFile(req as express.Request);
+  app.use('/api', express.json({ limit: opts.jsonLimit ?? '100kb', type: apiJson }));
   app.use('/api', sessionMiddleware(opts.pool, opts.session));
   app.use('/api', absoluteTimeout(opts.session.absoluteMs));
   const passport = createPassport(opts.ds);

@@ -14,7 +14,7 @@ export type AttachmentContentType = (typeof ATTACHMENT_CONTENT_TYPES)[number];
 export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
 export const MAX_ATTACHMENTS_PER_REQUEST = 10;
 
-/** The form fields sent beside the files (multipart/form-data), and the query of a list. */
+/** The record files hang on: the query string of an upload (read before its files) and of a list. */
 export const attachmentTargetSchema = z.strictObject({
   targetType: z.enum(ATTACHMENT_TARGET_TYPES, { error: 'Choose what the file belongs to: tread_reading, run, setup or event' }),
   targetId: z.uuid({ error: 'That record id is not valid' }),

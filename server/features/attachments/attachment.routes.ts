@@ -12,22 +12,23 @@ import type { AuthRateLimits } from '../../auth/rate-limit';
 import type { FileStorage } from '../../files/storage';
 import { inlineDisposition } from '../../files/inspect';
 import {
-  createAttachments, deleteAttachment, listAttachments, readAttachmentFile, readAttachmentThumbnail, type FileBytes,
+  assertCanAttach, createAttachments, deleteAttachment, listAttachments, readAttachmentFile, readAttachmentThumbnail, type FileBytes,
 } from './attachment.service';
 
 const MB = MAX_ATTACHMENT_BYTES / (1024 * 1024);
 
 /**
- * The form beside the files holds targetType and targetId only. Every multer limit is set,
- * so a request cannot make the server hold more than the files themselves.
+ * The form holds the files and nothing else (the target is in the query). Every multer limit is
+ * set, so a request cannot make the server hold more than the files themselves. One part more
+ * than files, so an eleventh file is refused as a file too many.
  */
 const LIMITS: multer.Options['limits'] & { fieldNestingDepth: number; fieldArrayIndexLimit: number } = {
   fileSize: MAX_ATTACHMENT_BYTES,
   files: MAX_ATTACHMENTS_PER_REQUEST,
-  fields: 4,
+  fields: 0,
   fieldNameSize: 50,
-  fieldSize: 200,
-  parts: MAX_ATTACHMENTS_PER_REQUEST + 4,
+  fieldSize: 0,
+  parts: MAX_ATTACHMENTS_PER_REQUEST + 1,
   headerPairs: 20,
   fieldNestingDepth: 0,
   fieldArrayIndexLimit: 0,
@@ -45,11 +46,13 @@ function uploadError(err: unknown): AppError {
     case 'LIMIT_FILE_COUNT':
       return new AppError('payload_too_large', `Send at most ${MAX_ATTACHMENTS_PER_REQUEST} files at a time.`);
     case 'LIMIT_PART_COUNT':
-      return new AppError('payload_too_large', `The form has too many parts: send targetType, targetId and at most ${MAX_ATTACHMENTS_PER_REQUEST} files.`);
+      return new AppError('payload_too_large', `The form has too many parts: send at most ${MAX_ATTACHMENTS_PER_REQUEST} files and nothing else.`);
     case 'LIMIT_UNEXPECTED_FILE':
       return new AppError('validation_failed', 'Some fields need attention.', { files: ['Send the files in the field named "files"'] });
+    case 'LIMIT_FIELD_COUNT':
+      return new AppError('validation_failed', 'The form carries only the files: send targetType and targetId in the query string.');
     default:
-      return new AppError('validation_failed', 'The upload was not a well-formed form. Send targetType, targetId and the files as multipart/form-data.');
+      return new AppError('validation_failed', 'The upload was not a well-formed form. Send the files as multipart/form-data.');
   }
 }
 
@@ -85,10 +88,16 @@ export function attachmentRoutes(ds: DataSource, storage: FileStorage | undefine
   const counted: RequestHandler = (req, _res, next) => {
     limits.beforeUpload(currentUser(req).id).then(() => next(), next);
   };
-  router.post('/', counted, receiveFiles(), validate({ body: attachmentTargetSchema }), async (req, res) => {
+  // Then the target, named in the query: someone who may not add files to it is refused before
+  // multer reads a byte of them.
+  const writableTarget: RequestHandler = (req, res, next) => {
+    store(); // not set up: 503 before the files are read, too
+    assertCanAttach(ds, currentUser(req), parsed<AttachmentTarget>(res, 'query')).then(() => next(), next);
+  };
+  router.post('/', counted, validate({ query: attachmentTargetSchema }), writableTarget, receiveFiles(), async (req, res) => {
     const received = (req.files as Express.Multer.File[] | undefined) ?? [];
     const files = received.map((f) => ({ originalName: f.originalname, bytes: f.buffer }));
-    const items = await createAttachments(ds, store(), currentUser(req), parsed<AttachmentTarget>(res, 'body'), files);
+    const items = await createAttachments(ds, store(), currentUser(req), parsed<AttachmentTarget>(res, 'query'), files);
     res.status(201).json(list(items));
   });
   router.get('/', validate({ query: attachmentTargetSchema }), async (req, res) => {

@@ -139,6 +139,15 @@ export async function listAttachments(ds: DataSource, user: User, input: Attachm
   return rows.map(toDto);
 }
 
+/**
+ * Checks the user may add files to the record and answers its car (null for an event); refuses like
+ * resolveTarget. The route runs it before the files are read; createAttachments runs it again once
+ * they have arrived, since a long upload may outlast a co-driver's access.
+ */
+export async function assertCanAttach(db: Queryable, user: User, input: AttachmentTarget): Promise<string | null> {
+  return resolveTarget(db, user, refOf(input), 'write');
+}
+
 export interface ReceivedFile {
   /** As the browser named it; kept only for the download's name. */
   originalName: string;
@@ -146,10 +155,10 @@ export interface ReceivedFile {
 }
 
 /**
- * Stores every file or none. Each file's type comes from its bytes; if any is not a photo or
- * PDF the whole request is refused (415) before anything is stored. The objects go to storage
- * first and the rows are written in one transaction; if either fails, the stored objects are
- * removed again.
+ * Stores every file or none, on a record the user may add files to (assertCanAttach). Each file's
+ * type comes from its bytes; if any is not a photo or PDF the whole request is refused (415) before
+ * anything is stored. The objects go to storage first and the rows are written in one transaction;
+ * if either fails, the stored objects are removed again.
  */
 export async function createAttachments(
   ds: DataSource,
@@ -159,7 +168,7 @@ export async function createAttachments(
   files: ReceivedFile[],
 ): Promise<Attachment[]> {
   const target = refOf(input);
-  const carId = await resolveTarget(ds, user, target, 'write');
+  const carId = await assertCanAttach(ds, user, input);
   if (files.length === 0) {
     throw new AppError('validation_failed', 'Choose at least one file.', { files: ['Choose at least one photo or PDF'] });
   }

@@ -1,4 +1,4 @@
-import express, { Router } from 'express';
+import express, { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
 import { SEASON_FILE_MAX_BYTES } from '@shared/export/season-export.schema';
 import { currentUser, requireAuth } from '../../auth/access';
@@ -7,14 +7,17 @@ import { idParam } from '../../lib/http';
 import { exportSeason, importSeason, seasonFileName } from './export.service';
 import { exportSeasonCsv } from './season-csv';
 
-/** The path a season file is posted to; app.ts gives it the larger body limit below. */
+/** The path a season file is posted to. */
 export const SEASON_IMPORT_PATH = '/api/cars/import';
 
 /**
- * A season file may be up to 5 MB; every other API body keeps the app's small limit. Mounted on
- * SEASON_IMPORT_PATH before the app-wide JSON parser (which then skips the already-read body).
+ * A season file, which the app-wide JSON parser (limit 100 kB) leaves unread: it would read any body
+ * that says application/json before sign-in and the CSRF token are checked. The route reads it after.
  */
-export const seasonFileBodyParser = express.json({ limit: SEASON_FILE_MAX_BYTES });
+export const isSeasonFile = (req: Request) => req.originalUrl.split('?')[0] === SEASON_IMPORT_PATH;
+
+/** A season file may be up to 5 MB; every other API body keeps the app's small limit. */
+const readSeasonFile = express.json({ limit: SEASON_FILE_MAX_BYTES });
 
 /** The name is letters, digits and dashes only (seasonFileName), so it needs no escaping. */
 const attachment = (fileName: string) => `attachment; filename="${fileName}"`;
@@ -39,7 +42,7 @@ export function exportRoutes(ds: DataSource) {
     res.type('application/json; charset=utf-8').send(JSON.stringify(file, null, 2));
   });
 
-  router.post('/import', requireAuth, async (req, res) => {
+  router.post('/import', requireAuth, readSeasonFile, async (req, res) => {
     res.status(201).json(await importSeason(ds, currentUser(req), req.body));
   });
 

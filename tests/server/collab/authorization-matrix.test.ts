@@ -460,10 +460,10 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     expect: signedIn(201),
   },
 
-  // Uploads. The POST here sends JSON with no files: the car's drivers pass the access check and are
-  // told to choose a file (400); the shop may not add files (403). Real uploads are in tests/server/files.
+  // Uploads. The POST here names the run in its query and sends no files: the car's drivers pass the access
+  // check and are told to choose a file (400); the shop may not add files (403). Real uploads are in tests/server/files.
   'POST /api/attachments': {
-    call: () => ({ path: '/api/attachments', body: { targetType: 'run', targetId: f.run } }),
+    call: () => ({ path: `/api/attachments?targetType=run&targetId=${f.run}` }),
     expect: [400, 400, 404, 403, 404, 404, 404, 404, 401],
   },
   'GET /api/attachments': { call: () => ({ path: `/api/attachments?targetType=run&targetId=${f.run}` }), expect: CAR_READ },
@@ -486,8 +486,8 @@ const TINY_PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0
 /** A photo the owner attached to the fixture's run (uploads). */
 async function newAttachment() {
   const c = people.owner.c;
-  const res = await c.agent.post('/api/attachments').set('X-CSRF-Token', await c.csrf())
-    .field('targetType', 'run').field('targetId', f.run).attach('files', TINY_PNG, 'wear.png');
+  const res = await c.agent.post(`/api/attachments?targetType=run&targetId=${f.run}`).set('X-CSRF-Token', await c.csrf())
+    .attach('files', TINY_PNG, 'wear.png');
   expect(res.status).toBe(201);
   return (res.body as { items: { id: string }[] }).items[0]!.id;
 }

@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { makeTestApp, signedInClient, type TestApp } from '../test-app';
+import { client, makeTestApp, signedInClient, type TestApp } from '../test-app';
+import { answerWhileBodyOpen, credentialsOf } from '../open-body';
 import { countOf, driverWithCarAndEvent, expectError, postRun, postSetup, setupBody, type Client, type Driver } from '../season/season-fixtures';
 
 let t: TestApp;
@@ -268,8 +269,29 @@ describe('POST /api/cars/import refuses a bad file with a 400 and writes nothing
   });
 
   it('when nobody is signed in, then 401', async () => {
-    const c = (await import('../test-app')).client(t.app);
+    const c = client(t.app);
     expectError(await c.post('/api/cars/import', minimal()), 401, 'unauthenticated');
+  });
+
+  it('when a large file that never ends comes signed out or without a CSRF token, then 401 or 403 comes while the body is still open', async () => {
+    // 256 KiB of a season file, past the app's usual 100 kB, and then nothing more is sent.
+    const firstChunk = `{"format":"scrubline-season","version":1,"car":{"id":"c","name":"Huge","classCode":"SS","notes":"${'x'.repeat(256 * 1024)}`;
+    const open = (headers: Record<string, string>) =>
+      answerWhileBodyOpen(t.app, { path: '/api/cars/import', headers: { ...headers, 'Content-Type': 'application/json' }, firstChunk });
+
+    // A session and a valid token, but nobody signed in.
+    const signedOut = await open(await credentialsOf(client(t.app)));
+    expect(signedOut).toMatchObject({ status: 401, body: { error: { code: 'unauthenticated' } }, bodyStillOpen: true });
+    // Signed in, but no token: the CSRF check refuses it.
+    const b = await signedInClient(t);
+    const { Cookie } = await credentialsOf(b.c);
+    const noToken = await open({ Cookie });
+    expect(noToken).toMatchObject({ status: 403, body: { error: { code: 'csrf_invalid' } }, bodyStillOpen: true });
+    // Neither cookie nor token.
+    expect(await open({})).toMatchObject({ status: 403, bodyStillOpen: true });
+    expect(await carsOf(b.user.id)).toBe(0);
+    // The same account with its token still imports (the larger files above go the same way).
+    expect((await b.c.post('/api/cars/import', minimal())).status).toBe(201);
   });
 });
 

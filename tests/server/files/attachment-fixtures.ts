@@ -11,13 +11,13 @@ export interface Upload {
   type?: string;
 }
 
-/** Sends a multipart upload the way a browser form does: the target fields first, then the files. */
+/** POST /api/attachments with the target in the query string, read before any file. */
+export const uploadPath = (target: { targetType: string; targetId: string }) =>
+  `/api/attachments?${new URLSearchParams({ targetType: target.targetType, targetId: target.targetId }).toString()}`;
+
+/** Sends a multipart upload the way the app does: the target in the query, the files alone in the form. */
 export async function upload(c: Client, target: { targetType: string; targetId: string }, files: Upload[]) {
-  let req = c.agent
-    .post('/api/attachments')
-    .set('X-CSRF-Token', await c.csrf())
-    .field('targetType', target.targetType)
-    .field('targetId', target.targetId);
+  let req = c.agent.post(uploadPath(target)).set('X-CSRF-Token', await c.csrf());
   for (const f of files) req = req.attach('files', f.bytes, { filename: f.name, contentType: f.type ?? 'application/octet-stream' });
   return req;
 }

@@ -1,11 +1,13 @@
+import { randomUUID } from 'node:crypto';
 import { readdirSync } from 'node:fs';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Attachment } from '@shared/files/attachment.schema';
 import { makeTestApp, type TestApp } from '../test-app';
-import { anonymous } from '../season/season-fixtures';
-import { attachmentWorld, jpeg, png, tinyPdf, upload, windowsExecutable } from './attachment-fixtures';
+import { anonymous, type Client } from '../season/season-fixtures';
+import { answerWhileBodyOpen, credentialsOf } from '../open-body';
+import { attachmentWorld, jpeg, png, tinyPdf, upload, uploadPath, windowsExecutable } from './attachment-fixtures';
 
 let t: TestApp;
 let w: Awaited<ReturnType<typeof attachmentWorld>>;
@@ -109,12 +111,15 @@ describe('uploading photos and PDFs', () => {
     expect(res.body.error.code).toBe('not_found');
   });
 
-  it('when the target fields come after the files, then the upload still works', async () => {
+  it('when the form still carries targetType and targetId beside the files, then it is 400 pointing to the query string, and nothing is stored', async () => {
     const c = w.owner.c;
-    const res = await c.agent.post('/api/attachments').set('X-CSRF-Token', await c.csrf())
-      .attach('files', await png(10, 10), 'late.png')
-      .field('targetType', 'run').field('targetId', w.runId);
-    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const before = storedFiles().length;
+    const res = await c.agent.post(uploadPath(onRun())).set('X-CSRF-Token', await c.csrf())
+      .field('targetType', 'run').field('targetId', w.runId)
+      .attach('files', await png(10, 10), 'a.png');
+    expect(res.status).toBe(400);
+    expect(res.body.error).toEqual({ code: 'validation_failed', message: 'The form carries only the files: send targetType and targetId in the query string.' });
+    expect(storedFiles().length).toBe(before);
   });
 
   it('when stored, then the object keys are the server\'s own, never the uploaded file name', async () => {
@@ -198,8 +203,8 @@ describe('limits and refusals', () => {
 
   it('when files come in another field, then it is 400', async () => {
     const c = w.owner.c;
-    const res = await c.agent.post('/api/attachments').set('X-CSRF-Token', await c.csrf())
-      .field('targetType', 'run').field('targetId', w.runId).attach('photo', await png(8, 8), 'a.png');
+    const res = await c.agent.post(uploadPath(onRun())).set('X-CSRF-Token', await c.csrf())
+      .attach('photo', await png(8, 8), 'a.png');
     expect(res.status).toBe(400);
     expect(res.body.error.fieldErrors).toHaveProperty('files');
   });
@@ -207,6 +212,47 @@ describe('limits and refusals', () => {
   it('when the list or a file is asked for without a session, then it is 401', async () => {
     const anon = anonymous(t);
     expect((await anon.get(listPath(onRun()))).status).toBe(401);
+  });
+});
+
+describe('the target is checked before any file is read', () => {
+  const BOUNDARY = 'scrubline-open-body';
+  /** The start of a form whose one file never ends: 64 KiB of a JPEG, and then nothing more is sent. */
+  const firstChunk = Buffer.concat([
+    Buffer.from(`--${BOUNDARY}\r\nContent-Disposition: form-data; name="files"; filename="wear.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`),
+    Buffer.from([0xff, 0xd8, 0xff, 0xe0]),
+    Buffer.alloc(64 * 1024, 0x20),
+  ]);
+  const openUpload = async (c: Client, path: string) =>
+    answerWhileBodyOpen(t.app, {
+      path,
+      headers: { ...(await credentialsOf(c)), 'Content-Type': `multipart/form-data; boundary=${BOUNDARY}` },
+      firstChunk,
+    });
+
+  it('when someone who may not add files to the record starts an upload that never ends, then the refusal comes while the body is still open', async () => {
+    const rowsBefore = Number((await t.ds.query('SELECT count(*) AS n FROM attachments'))[0].n);
+    // Another driver cannot see the run: 404, as on every route.
+    const hidden = await openUpload(w.otherDriver.c, uploadPath(onRun()));
+    expect(hidden).toMatchObject({ status: 404, body: { error: { code: 'not_found', message: 'That run was not found.' } }, bodyStillOpen: true });
+    // The granted shop reads the run but may not add to it: 403.
+    const readOnly = await openUpload(w.staff.c, uploadPath(onRun()));
+    expect(readOnly).toMatchObject({ status: 403, body: { error: { code: 'forbidden' } }, bodyStillOpen: true });
+    // A record that does not exist, even for the car's owner: 404.
+    const missing = await openUpload(w.owner.c, uploadPath({ targetType: 'tread_reading', targetId: randomUUID() }));
+    expect(missing).toMatchObject({ status: 404, body: { error: { code: 'not_found' } }, bodyStillOpen: true });
+    // Signed out: 401.
+    const signedOut = await openUpload(anonymous(t), uploadPath(onRun()));
+    expect(signedOut).toMatchObject({ status: 401, body: { error: { code: 'unauthenticated' } }, bodyStillOpen: true });
+    expect(Number((await t.ds.query('SELECT count(*) AS n FROM attachments'))[0].n)).toBe(rowsBefore);
+  });
+
+  it('when the query names no target or a bad one, then it is 400 with field errors while the body is still open', async () => {
+    const none = await openUpload(w.owner.c, '/api/attachments');
+    expect(none).toMatchObject({ status: 400, body: { error: { code: 'validation_failed' } }, bodyStillOpen: true });
+    expect(Object.keys((none.body.error as { fieldErrors: object }).fieldErrors).sort()).toEqual(['targetId', 'targetType']);
+    const bad = await openUpload(w.owner.c, '/api/attachments?targetType=car&targetId=abc');
+    expect(bad).toMatchObject({ status: 400, bodyStillOpen: true });
   });
 });
 

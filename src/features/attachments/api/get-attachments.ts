@@ -1,15 +1,14 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Attachment, AttachmentTarget } from '@shared/files/attachment.schema';
 import { api } from '@/lib/api-client';
-import { attachmentKeys } from './attachment-keys';
+import { attachmentKeys, attachmentsUrl } from './attachment-keys';
 
 /** The photos and files on one record. */
 export function getAttachments(
   target: AttachmentTarget,
   { signal }: { signal?: AbortSignal } = {},
 ): Promise<{ items: Attachment[]; count: number }> {
-  const query = new URLSearchParams({ targetType: target.targetType, targetId: target.targetId });
-  return api.get(`/api/attachments?${query.toString()}`, { signal });
+  return api.get(attachmentsUrl(target), { signal });
 }
 
 export function attachmentsQueryOptions(target: AttachmentTarget) {

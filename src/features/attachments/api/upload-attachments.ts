@@ -8,7 +8,7 @@ import {
   type AttachmentTarget,
 } from '@shared/files/attachment.schema';
 import { api, ApiError, CSRF_HEADER, CSRF_PATH } from '@/lib/api-client';
-import { attachmentKeys } from './attachment-keys';
+import { attachmentKeys, attachmentsUrl } from './attachment-keys';
 
 const MAX_MB = MAX_ATTACHMENT_BYTES / (1024 * 1024);
 
@@ -33,11 +33,9 @@ export function checkChosenFiles(files: readonly File[]): string | null {
   return big ? `“${big.name}” is over ${MAX_MB} MB; each file may be up to ${MAX_MB} MB.` : null;
 }
 
-/** The record's fields first, so the server knows where the files go before it reads them. */
-export function attachmentFormData(target: AttachmentTarget, files: readonly File[]): FormData {
+/** The files alone: the record they go on travels in the query string (attachmentsUrl). */
+export function attachmentFormData(files: readonly File[]): FormData {
   const form = new FormData();
-  form.append('targetType', target.targetType);
-  form.append('targetId', target.targetId);
   for (const file of files) form.append('files', file, file.name);
   return form;
 }
@@ -66,12 +64,12 @@ async function refusal(response: Response): Promise<ApiError> {
   });
 }
 
-async function post(form: FormData): Promise<Response> {
+async function post(target: AttachmentTarget, form: FormData): Promise<Response> {
   // The token the session already has (the server hands out the same one); the api client keeps JSON only.
   const { token } = await api.get(CSRF_PATH, { schema: csrfResponseSchema });
   try {
     // No Content-Type: the browser writes the multipart boundary itself.
-    return await fetch('/api/attachments', {
+    return await fetch(attachmentsUrl(target), {
       method: 'POST',
       headers: { Accept: 'application/json', [CSRF_HEADER]: token },
       body: form,
@@ -86,10 +84,10 @@ async function post(form: FormData): Promise<Response> {
 export async function uploadAttachments(target: AttachmentTarget, files: readonly File[]): Promise<UploadAnswer> {
   const problem = checkChosenFiles(files);
   if (problem) throw new ApiError({ status: 0, code: 'payload_too_large', message: problem });
-  const form = attachmentFormData(target, files);
+  const form = attachmentFormData(files);
   let response: Response;
   try {
-    response = await post(form);
+    response = await post(target, form);
   } catch (error) {
     // The token request found no connection either.
     if (error instanceof ApiError && error.code === 'network') {
@@ -100,7 +98,7 @@ export async function uploadAttachments(target: AttachmentTarget, files: readonl
   if (response.status === 403) {
     const error = await refusal(response.clone());
     // The session changed since the token was read: once more with a fresh one.
-    if (error.code === 'csrf_invalid') response = await post(form);
+    if (error.code === 'csrf_invalid') response = await post(target, form);
   }
   if (!response.ok) throw await refusal(response);
   return (await response.json()) as UploadAnswer;

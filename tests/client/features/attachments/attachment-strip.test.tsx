@@ -12,6 +12,9 @@ import { IDS, list, TYRE_SET } from '../../fixtures/season';
 const READING_ID = TYRE_SET.latestReading!.id;
 const TARGET: AttachmentTarget = { targetType: 'tread_reading', targetId: READING_ID };
 const LIST = `GET /api/attachments?targetType=tread_reading&targetId=${READING_ID}`;
+/** The target rides in the query string, so the server checks it before reading any file. */
+const UPLOAD_URL = `/api/attachments?targetType=tread_reading&targetId=${READING_ID}`;
+const UPLOAD = `POST ${UPLOAD_URL}`;
 const WHAT = 'the Set B reading';
 
 beforeEach(() => dropCsrfToken());
@@ -56,7 +59,7 @@ function renderStrip(props: { canAdd?: boolean } = {}) {
 /** The body of each POST /api/attachments, as the strip handed it to fetch. */
 function uploads(fetchMock: Mock<typeof fetch>): FormData[] {
   return fetchMock.mock.calls
-    .filter(([input, init]) => String(input) === '/api/attachments' && init?.method === 'POST')
+    .filter(([input, init]) => String(input).startsWith('/api/attachments') && init?.method === 'POST')
     .map(([, init]) => init!.body as FormData);
 }
 
@@ -92,10 +95,10 @@ describe('photos and files on a record', () => {
     expect(input.hasAttribute('multiple')).toBe(true);
   });
 
-  it('when photos are chosen, then one multipart POST carries the target first, then the files, with the CSRF header, and the list refreshes', async () => {
+  it('when photos are chosen, then one multipart POST names the target in its query and carries only the files, with the CSRF header, and the list refreshes', async () => {
     const fetchMock = stubFetch({
       [LIST]: [list([]), list([PHOTO])],
-      'POST /api/attachments': jsonResponse(201, { items: [PHOTO], count: 1 }),
+      [UPLOAD]: jsonResponse(201, { items: [PHOTO], count: 1 }),
     });
     renderStrip();
     await screen.findByText('No photos yet.');
@@ -105,11 +108,10 @@ describe('photos and files on a record', () => {
     await waitFor(() => expect(uploads(fetchMock)).toHaveLength(1));
     const form = uploads(fetchMock)[0]!;
     expect(form).toBeInstanceOf(FormData);
-    expect([...form.keys()]).toEqual(['targetType', 'targetId', 'files', 'files']);
-    expect(form.get('targetType')).toBe('tread_reading');
-    expect(form.get('targetId')).toBe(READING_ID);
+    expect([...form.keys()]).toEqual(['files', 'files']);
     expect(form.getAll('files').map((f) => (f as File).name)).toEqual(['left-front-wear.jpg', 'right-front-wear.jpg']);
-    const [, init] = fetchMock.mock.calls.find(([input, i]) => String(input) === '/api/attachments' && i?.method === 'POST')!;
+    const [input, init] = fetchMock.mock.calls.find(([u, i]) => String(u).startsWith('/api/attachments') && i?.method === 'POST')!;
+    expect(String(input)).toBe(UPLOAD_URL);
     const headers = new Headers(init?.headers);
     expect(headers.get(CSRF_HEADER)).toBe(CSRF_TOKEN);
     // The browser writes the multipart boundary; a JSON content type would break the upload.
@@ -122,7 +124,7 @@ describe('photos and files on a record', () => {
   it('when the server refuses the type (415), then its message is shown', async () => {
     stubFetch({
       [LIST]: list([]),
-      'POST /api/attachments': errorResponse(415, 'unsupported_media_type', '“setup.jpg” is not a photo or a PDF, whatever its name says.'),
+      [UPLOAD]: errorResponse(415, 'unsupported_media_type', '“setup.jpg” is not a photo or a PDF, whatever its name says.'),
     });
     renderStrip();
     await screen.findByText('No photos yet.');
@@ -135,7 +137,7 @@ describe('photos and files on a record', () => {
   it('when the server says the files are too large (413), then its message is shown', async () => {
     stubFetch({
       [LIST]: list([]),
-      'POST /api/attachments': errorResponse(413, 'payload_too_large', '“huge.jpg” is over 10 MB; each file may be up to 10 MB.'),
+      [UPLOAD]: errorResponse(413, 'payload_too_large', '“huge.jpg” is over 10 MB; each file may be up to 10 MB.'),
     });
     renderStrip();
     await screen.findByText('No photos yet.');
@@ -148,7 +150,7 @@ describe('photos and files on a record', () => {
   it('when a proxy refuses a large upload without our error shape (413), then the limits are still explained', async () => {
     stubFetch({
       [LIST]: list([]),
-      'POST /api/attachments': new Response('<html>413 Request Entity Too Large</html>', { status: 413 }),
+      [UPLOAD]: new Response('<html>413 Request Entity Too Large</html>', { status: 413 }),
     });
     renderStrip();
     await screen.findByText('No photos yet.');
@@ -172,7 +174,7 @@ describe('photos and files on a record', () => {
   it('when there is no connection, then it says uploads need one and are not kept for later', async () => {
     stubFetch({
       [LIST]: list([]),
-      'POST /api/attachments': () => {
+      [UPLOAD]: () => {
         throw new TypeError('Failed to fetch');
       },
     });
