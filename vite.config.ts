@@ -4,7 +4,9 @@ import { defineConfig, type Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { VitePWA } from 'vite-plugin-pwa';
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { brotliCompressSync, constants as zlib, gzipSync } from 'node:zlib';
 
 const r = (p: string) => fileURLToPath(new URL(p, import.meta.url));
 const { version } = JSON.parse(readFileSync(r('./package.json'), 'utf8')) as { version: string };
@@ -33,12 +35,36 @@ function preloadFonts(): Plugin {
   };
 }
 
+/**
+ * Writes a Brotli (quality 11) and a gzip (level 9) copy beside each built script, stylesheet and
+ * image of text, for the server to send as they are (express-static-gzip): the best compression,
+ * paid once at build time instead of on every request. Brotli makes the main chunk about a sixth
+ * smaller than gzip, which a phone with one bar of signal feels.
+ */
+function precompress(): Plugin {
+  return {
+    name: 'scrubline-precompress',
+    apply: 'build',
+    writeBundle: (options, bundle) => {
+      for (const file of Object.keys(bundle)) {
+        if (!/\.(js|css|svg|webmanifest)$/.test(file)) continue;
+        const path = join(options.dir ?? 'dist', file);
+        const bytes = readFileSync(path);
+        if (bytes.length < 1024) continue;
+        writeFileSync(`${path}.br`, brotliCompressSync(bytes, { params: { [zlib.BROTLI_PARAM_QUALITY]: 11, [zlib.BROTLI_PARAM_SIZE_HINT]: bytes.length } }));
+        writeFileSync(`${path}.gz`, gzipSync(bytes, { level: 9 }));
+      }
+    },
+  };
+}
+
 export default defineConfig({
   define: { __APP_VERSION__: JSON.stringify(version) },
   plugins: [
     react(),
     tailwindcss(),
     preloadFonts(),
+    precompress(),
     // An installable app whose shell is kept on the device by a service worker (Workbox, built offline).
     VitePWA({
       registerType: 'autoUpdate',

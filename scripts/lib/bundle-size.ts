@@ -1,6 +1,8 @@
 // Gzipped JavaScript each route loads, from the Vite build manifest: the entry, then the route's lazy
-// chunk and everything both import statically. Needs a build (`vite build`) in dist/.
-import { readFileSync } from 'node:fs';
+// chunk and everything both import statically. Needs a build (`vite build`) in dist/. The budget is
+// on gzip; the server sends the Brotli copies the build makes to browsers that take them (all current
+// ones), which are reported beside it.
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { ROOT } from './env';
@@ -28,6 +30,8 @@ export const TRACKSIDE_BUDGET_BYTES = 150 * 1024;
 export interface RouteSize {
   route: string;
   bytes: number;
+  /** What is sent to a browser that takes Brotli: the .br copies the build wrote (vite.config.ts, precompress). */
+  brotliBytes: number;
   files: number;
   /** Over its budget (only the trackside route has one). */
   over: boolean;
@@ -36,6 +40,11 @@ export interface RouteSize {
 export function routeSizes(dist = join(ROOT, 'dist')): RouteSize[] {
   const manifest = JSON.parse(readFileSync(join(dist, '.vite', 'manifest.json'), 'utf8')) as Record<string, Chunk>;
   const gz = (file: string) => gzipSync(readFileSync(join(dist, file))).length;
+  // Files under 1 KB get no copy and are sent as they are.
+  const br = (file: string) => {
+    const copy = join(dist, `${file}.br`);
+    return existsSync(copy) ? readFileSync(copy).length : readFileSync(join(dist, file)).length;
+  };
   const closure = (keys: string[], seen = new Set<string>()): Set<string> => {
     for (const key of keys) {
       if (seen.has(key) || !manifest[key]) continue;
@@ -48,12 +57,16 @@ export function routeSizes(dist = join(ROOT, 'dist')): RouteSize[] {
   return Object.entries(ROUTES).map(([route, keys]) => {
     const files = [...closure([entry, ...keys])].map((k) => manifest[k]!.file).filter((f) => f.endsWith('.js'));
     const bytes = files.reduce((n, f) => n + gz(f), 0);
-    return { route, bytes, files: files.length, over: route === TRACKSIDE_ROUTE && bytes > TRACKSIDE_BUDGET_BYTES };
+    const brotliBytes = files.reduce((n, f) => n + br(f), 0);
+    return { route, bytes, brotliBytes, files: files.length, over: route === TRACKSIDE_ROUTE && bytes > TRACKSIDE_BUDGET_BYTES };
   });
 }
 
 export function formatSizes(sizes: RouteSize[]): string {
   return sizes
-    .map((s) => `${s.route.padEnd(24)} ${(s.bytes / 1024).toFixed(1).padStart(7)} KB gzipped in ${s.files} files${s.over ? '  OVER the 150 KB budget' : ''}`)
+    .map(
+      (s) =>
+        `${s.route.padEnd(24)} ${(s.bytes / 1024).toFixed(1).padStart(7)} KB gzipped (${(s.brotliBytes / 1024).toFixed(1)} KB as sent, Brotli) in ${s.files} files${s.over ? '  OVER the 150 KB budget' : ''}`,
+    )
     .join('\n');
 }

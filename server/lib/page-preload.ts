@@ -1,0 +1,57 @@
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+
+/**
+ * Each page's code is a chunk of its own that the client asks for only once its router has started,
+ * after the main chunk has arrived and run: one more round trip before the page can ask for its data.
+ * The server knows the address the document is for, so it names that page's chunks in the document
+ * itself (`<link rel="modulepreload">`) and the browser fetches them beside the main chunk.
+ *
+ * The address patterns follow the client's routes (src/app/router.tsx); tests/server/lib/page-preload.test.ts
+ * checks that each one still leads the client router to the module named here.
+ */
+export const PAGE_MODULES: readonly { pattern: RegExp; module: string; example: string }[] = [
+  { pattern: /^\/events\/[^/]+\/?$/, module: 'src/app/routes/events/event-day.tsx', example: '/events/e1' },
+  { pattern: /^\/events\/?$/, module: 'src/app/routes/events/events.tsx', example: '/events' },
+  { pattern: /^\/cars\/[^/]+\/?$/, module: 'src/app/routes/cars/car.tsx', example: '/cars/c1' },
+  { pattern: /^\/cars\/?$/, module: 'src/app/routes/cars/cars.tsx', example: '/cars' },
+  { pattern: /^\/cars\/[^/]+\/tread\/?$/, module: 'src/app/routes/cars/tread.tsx', example: '/cars/c1/tread' },
+  { pattern: /^\/cars\/[^/]+\/review\/?$/, module: 'src/app/routes/analysis/season-review.tsx', example: '/cars/c1/review' },
+  { pattern: /^\/$/, module: 'src/app/routes/home.tsx', example: '/' },
+];
+
+interface ManifestChunk {
+  file: string;
+  isEntry?: boolean;
+  imports?: string[];
+}
+
+/**
+ * From the build's manifest (dist/.vite/manifest.json): for an address, the `<link rel="modulepreload">`
+ * tags of its page's chunk and the chunks that one imports, less those the entry already brings
+ * (index.html preloads them). Empty for an address of no listed page, or without a manifest.
+ */
+export function pagePreloader(clientDir: string): (path: string) => string {
+  const file = join(clientDir, '.vite', 'manifest.json');
+  if (!existsSync(file)) return () => '';
+  const manifest = JSON.parse(readFileSync(file, 'utf8')) as Record<string, ManifestChunk>;
+  const closure = (keys: string[], seen = new Set<string>()): Set<string> => {
+    for (const key of keys) {
+      if (seen.has(key) || !manifest[key]) continue;
+      seen.add(key);
+      closure(manifest[key].imports ?? [], seen);
+    }
+    return seen;
+  };
+  const entry = closure(Object.keys(manifest).filter((key) => manifest[key]!.isEntry));
+  const tags = new Map<string, string>();
+  for (const page of PAGE_MODULES) {
+    if (!manifest[page.module]) continue;
+    const files = [...closure([page.module])].filter((key) => !entry.has(key)).map((key) => manifest[key]!.file);
+    tags.set(page.module, files.map((f) => `<link rel="modulepreload" crossorigin href="/${f}">`).join(''));
+  }
+  return (path) => {
+    const page = PAGE_MODULES.find((p) => p.pattern.test(path));
+    return (page && tags.get(page.module)) ?? '';
+  };
+}
