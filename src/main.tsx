@@ -25,8 +25,9 @@ const queryClient = createQueryClient({ onUnauthenticated: () => sendToSignIn(ro
 const outbox = createAppOutbox(queryClient);
 registerServiceWorker();
 
-// The last data the server sent is restored from the device BEFORE the router starts: its
-// loaders ask "who is signed in?", and with no signal only the kept answer can reply.
+// The last data the server sent is restored from the device while the router starts: the first page's
+// code and the reads that need nothing kept go out at once, and its loaders wait for what is kept
+// before they ask "who is signed in?" (with no signal only the kept answer can reply).
 const persister = createAsyncStoragePersister({ storage: queryCacheStorage, key: 'scrubline-cache', throttleTime: 1000 });
 const [, restored] = persistQueryClient({
   queryClient,
@@ -39,12 +40,13 @@ const [, restored] = persistQueryClient({
     shouldDehydrateQuery: (query) => defaultShouldDehydrateQuery(query) && !(query.queryKey[0] === 'auth' && query.state.data == null),
   },
 });
-await restored.catch(() => undefined);
-// Mutations that were paused when the page closed carry on.
-void queryClient.resumePausedMutations();
-const router = createAppRouter(queryClient, eventWaitingIn(outbox));
+const deviceRead = Promise.all([restored.catch(() => undefined), outbox.ready()]);
+const router = createAppRouter(queryClient, { eventWaiting: eventWaitingIn(outbox), read: deviceRead });
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html has no #root element');
 
 createRoot(container).render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} />);
+await deviceRead;
+// Mutations that were paused when the page closed carry on.
+void queryClient.resumePausedMutations();

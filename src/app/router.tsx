@@ -37,19 +37,36 @@ function pathOf(url: URL): string {
  * The app's routes. Pages are loaded on first visit, so the first download stays small; the
  * pages opened now and then are not even listed until an address asks for one (`discover`).
  */
-/** `eventWaiting`: is this event still only on the phone (its creation waiting in the outbox)? The server cannot know it yet. */
+export interface DeviceState {
+  /** Is this event still only on the phone (its creation waiting in the outbox)? The server cannot know it yet. */
+  eventWaiting: (eventId: string) => boolean;
+  /**
+   * Settles once what the device keeps is read: the last answers of the server and the outbox. The router
+   * starts before that (opening IndexedDB on a phone's first visit takes a few hundred ms), so the first
+   * page's code and the reads that need nothing kept go out meanwhile; what depends on it waits here.
+   */
+  read: Promise<unknown>;
+}
+
 export function createRoutes(
   queryClient: QueryClient,
-  eventWaiting: (eventId: string) => boolean = () => false,
+  device: DeviceState,
 ): { routes: RouteObject[]; discover: PatchRoutesOnNavigationFunction } {
+  // Asked at once; but with no signal only the answer kept on the device can reply, so that is read first.
+  const whoIsSignedIn = async () => {
+    void queryClient.prefetchQuery(meQueryOptions());
+    await device.read;
+    return queryClient.ensureQueryData({ ...meQueryOptions(), revalidateIfStale: true });
+  };
+
   const requireSignIn = async ({ request }: LoaderFunctionArgs) => {
-    const me = await queryClient.ensureQueryData({ ...meQueryOptions(), revalidateIfStale: true });
+    const me = await whoIsSignedIn();
     if (!me) throw redirect(signInPath(pathOf(new URL(request.url))));
     return null;
   };
 
   const signedOutOnly = async ({ request }: LoaderFunctionArgs) => {
-    const me = await queryClient.ensureQueryData({ ...meQueryOptions(), revalidateIfStale: true });
+    const me = await whoIsSignedIn();
     if (me) throw redirect(safeNextPath(new URL(request.url).searchParams.get(NEXT_PARAM)) ?? paths.home);
     return null;
   };
@@ -57,7 +74,7 @@ export function createRoutes(
   const loading = <LoadingScreen />;
 
   return {
-    routes: staticRoutes({ queryClient, eventWaiting, requireSignIn, signedOutOnly, loading }),
+    routes: staticRoutes({ queryClient, device, requireSignIn, signedOutOnly, loading }),
     discover: discoverRoutes({ signedOutOnly, loading }),
   };
 }
@@ -88,13 +105,13 @@ function discoverRoutes(shared: MoreRoutesShared): PatchRoutesOnNavigationFuncti
 
 function staticRoutes({
   queryClient,
-  eventWaiting,
+  device,
   requireSignIn,
   signedOutOnly,
   loading,
 }: {
   queryClient: QueryClient;
-  eventWaiting: (eventId: string) => boolean;
+  device: DeviceState;
   requireSignIn: (args: LoaderFunctionArgs) => Promise<null>;
   signedOutOnly: (args: LoaderFunctionArgs) => Promise<null>;
   loading: ReactNode;
@@ -146,7 +163,7 @@ function staticRoutes({
                   path: `${paths.events}/:eventId`,
                   lazy: async () => {
                     const { EventDayPage, eventDayLoader } = await import('./routes/events/event-day');
-                    return { Component: EventDayPage, loader: eventDayLoader(queryClient, eventWaiting) };
+                    return { Component: EventDayPage, loader: eventDayLoader(queryClient, device) };
                   },
                 },
                 {
@@ -194,8 +211,8 @@ function staticRoutes({
   ];
 }
 
-export function createAppRouter(queryClient: QueryClient, eventWaiting?: (eventId: string) => boolean): AppRouter {
-  const { routes, discover } = createRoutes(queryClient, eventWaiting);
+export function createAppRouter(queryClient: QueryClient, device: DeviceState): AppRouter {
+  const { routes, discover } = createRoutes(queryClient, device);
   return createBrowserRouter(routes, { patchRoutesOnNavigation: discover });
 }
 

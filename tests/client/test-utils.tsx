@@ -103,6 +103,8 @@ export function createTestQueryClient(): QueryClient {
 export interface RenderAppOptions {
   /** Entries already on the device when the app opens (e.g. runs logged offline earlier). */
   outboxEntries?: OutboxEntry[];
+  /** Settles when the device has read what it keeps (the query cache, as main.tsx restores it); at once by default. */
+  deviceRead?: Promise<unknown>;
 }
 
 const liveOutboxes = new Set<Outbox>();
@@ -145,10 +147,10 @@ export function setUpAppTests(pages: readonly (() => Promise<unknown>)[] = [], {
  * entries are sent through the (stubbed) fetch in order, and failures are classified the same way —
  * a network error waits, a refusal stays with its error. Retries wait a minute, past any test.
  */
-export function renderApp(path: string, { outboxEntries = [] }: RenderAppOptions = {}) {
+export function renderApp(path: string, { outboxEntries = [], deviceRead = Promise.resolve() }: RenderAppOptions = {}) {
   const queryClient = createQueryClient({ retry: false, onUnauthenticated: () => sendToSignIn(router, queryClient) });
-  // As main.tsx does: an event whose creation waits in this outbox (made below) is not asked of the server.
-  const { routes, discover } = createRoutes(queryClient, (id) => eventWaitingIn(outbox)(id));
+  // As main.tsx does: an event whose creation waits in this outbox (made below, so read after this turn) is not asked of the server.
+  const { routes, discover } = createRoutes(queryClient, { eventWaiting: (id) => eventWaitingIn(outbox)(id), read: Promise.all([deviceRead, Promise.resolve().then(() => outbox.ready())]) });
   const router = createMemoryRouter(routes, { initialEntries: [path], patchRoutesOnNavigation: discover });
   let current: OutboxEntry | null = null;
   const outbox = new Outbox({

@@ -1,6 +1,7 @@
 import { lazy, Suspense, useState } from 'react';
 import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { QueryClient } from '@tanstack/react-query';
+import type { DeviceState } from '@/app/router';
 import { Plus, Trophy } from 'lucide-react';
 import type { Car, Person } from '@shared/season/car.schema';
 import { formatRunTime } from '@shared/season/run-time';
@@ -12,6 +13,7 @@ import { SectionBoundary } from '@/components/errors/section-boundary';
 import { notYetFetched, useDeliveredEntries } from '@/lib/delivered-entries';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { readStoredChoice, writeStoredChoice } from '@/lib/stored-choice';
+import { prepareDateFormats } from '@/lib/dates';
 import { useMe } from '@/features/auth/api/get-me';
 import { CarDriverPicker, driversOf } from '@/features/cars/components/car-driver-picker';
 import { useCarViews } from '@/features/cars/hooks/use-car-views';
@@ -46,15 +48,21 @@ const choiceKey = (eventId: string) => `scrubline.event-day.${eventId}`;
  * The page's reads start as soon as its address is known, beside the sign-in check, instead of after
  * its first render and then after the event and the car arrive (two round trips less before the
  * runs show). Nothing waits on them here: the page still renders from the cache or shows its loading.
+ * The car list needs nothing from the device; the rest waits until the outbox is read, since an
+ * event still on the phone is not asked for.
  */
 export const eventDayLoader =
-  (queryClient: QueryClient, eventWaiting: (eventId: string) => boolean) =>
-  ({ params: { eventId = '' }, request }: LoaderFunctionArgs) => {
+  (queryClient: QueryClient, device: DeviceState) =>
+  async ({ params: { eventId = '' }, request }: LoaderFunctionArgs) => {
+    void queryClient.prefetchQuery(carsQueryOptions());
+    // The platform's first date formatter takes a few hundred ms on a slow phone: built now, it
+    // overlaps the wait for the device and the network instead of delaying the first drawing.
+    prepareDateFormats();
+    await device.read;
     // An event still on the phone: the server cannot know it or its runs yet.
-    if (eventWaiting(eventId)) return null;
+    if (device.eventWaiting(eventId)) return null;
     const carId = new URL(request.url).searchParams.get('carId') ?? readStoredChoice<Choice>(choiceKey(eventId))?.carId;
     void queryClient.prefetchQuery(eventQueryOptions(eventId));
-    void queryClient.prefetchQuery(carsQueryOptions());
     if (carId) {
       void queryClient.prefetchQuery(setupsQueryOptions(carId));
       void queryClient.prefetchQuery(runsQueryOptions({ carId, eventId }));
@@ -106,7 +114,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
     <>
       <section aria-label="Setup" className="flex flex-col gap-3 rounded-lg border border-line bg-surface px-3 py-2">
         <div className="flex items-center justify-between gap-3">
-          <CurrentSetup setup={current} />
+          <CurrentSetup setup={current} loading={setupsQuery.isPending && setups.length === 0} />
           <Button variant="secondary" className="shrink-0" aria-expanded={quickChange} onClick={() => setQuickChange((v) => !v)}>
             Quick change
           </Button>

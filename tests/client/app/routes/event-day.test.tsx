@@ -66,6 +66,37 @@ describe('event day', () => {
     expect(screen.queryByRole('listitem', { name: /^Run 1,/ })).toBeNull();
   });
 
+  it('when the device is still reading what it keeps, then who is signed in and the car list are asked for already, and the event\'s reads wait for it', async () => {
+    const fetchMock = stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 })]);
+    let deviceDone: () => void = () => undefined;
+    renderApp(PATH, { deviceRead: new Promise<void>((resolve) => (deviceDone = resolve)) });
+    await waitFor(() => expect(requestsTo(fetchMock, 'GET /api/cars')).toHaveLength(1));
+    expect(requestsTo(fetchMock, 'GET /api/auth/me')).toHaveLength(1);
+    // Whether this event is still only on the phone is not known yet: nothing about it is asked.
+    expect(requestsTo(fetchMock, `GET /api/events/${IDS.event}`)).toHaveLength(0);
+    expect(requestsTo(fetchMock, RUNS)).toHaveLength(0);
+    deviceDone();
+    await waitFor(() => expect(requestsTo(fetchMock, RUNS)).toHaveLength(1));
+    expect(requestsTo(fetchMock, `GET /api/events/${IDS.event}`)).toHaveLength(1);
+    expect(await screen.findByRole('listitem', { name: /^Run 1,/ })).toBeTruthy();
+    // Each was asked once: the sign-in check found the answer already on its way.
+    expect(requestsTo(fetchMock, 'GET /api/auth/me')).toHaveLength(1);
+  });
+
+  it('when the car\'s setups are still on their way, then the setup line says it is checking, never "none recorded", and keeps its height', async () => {
+    let answer: (r: Response) => void = () => undefined;
+    stubWithRuns([], { extra: { [`GET /api/cars/${IDS.car}/setups`]: () => new Promise<Response>((resolve) => (answer = resolve)) } });
+    renderApp(PATH);
+    const setup = await screen.findByRole('region', { name: 'Setup' });
+    await within(setup).findByText('checking…');
+    expect(within(setup).queryByText('none recorded')).toBeNull();
+    const lines = setup.querySelectorAll('p').length;
+    answer(list([BASE_SETUP]));
+    await within(setup).findByText('Spring baseline');
+    expect(within(setup).queryByText('checking…')).toBeNull();
+    expect(setup.querySelectorAll('p').length).toBe(lines);
+  });
+
   it('when a run is logged with the keypad, then exactly one outbox entry holds it in SI with a device-made id, and it shows at once as waiting with its adjusted time', async () => {
     const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES });
     const { outbox } = renderApp(PATH);
