@@ -6,14 +6,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { ROOT } from './env';
-
-interface Chunk {
-  file: string;
-  src?: string;
-  isEntry?: boolean;
-  imports?: string[];
-  dynamicImports?: string[];
-}
+import { readBuildManifest, staticClosure } from '../../server/lib/build-manifest';
 
 const LAYOUT = 'src/app/routes/signed-in-layout.tsx';
 /** Routes a driver opens, with the source modules each needs on first load (besides the entry). */
@@ -38,24 +31,16 @@ export interface RouteSize {
 }
 
 export function routeSizes(dist = join(ROOT, 'dist')): RouteSize[] {
-  const manifest = JSON.parse(readFileSync(join(dist, '.vite', 'manifest.json'), 'utf8')) as Record<string, Chunk>;
+  const manifest = readBuildManifest(dist);
   const gz = (file: string) => gzipSync(readFileSync(join(dist, file))).length;
   // Files under 1 KB get no copy and are sent as they are.
   const br = (file: string) => {
     const copy = join(dist, `${file}.br`);
     return existsSync(copy) ? readFileSync(copy).length : readFileSync(join(dist, file)).length;
   };
-  const closure = (keys: string[], seen = new Set<string>()): Set<string> => {
-    for (const key of keys) {
-      if (seen.has(key) || !manifest[key]) continue;
-      seen.add(key);
-      closure(manifest[key].imports ?? [], seen);
-    }
-    return seen;
-  };
   const entry = Object.keys(manifest).find((k) => manifest[k]!.isEntry)!;
   return Object.entries(ROUTES).map(([route, keys]) => {
-    const files = [...closure([entry, ...keys])].map((k) => manifest[k]!.file).filter((f) => f.endsWith('.js'));
+    const files = [...staticClosure(manifest, [entry, ...keys])].map((k) => manifest[k]!.file).filter((f) => f.endsWith('.js'));
     const bytes = files.reduce((n, f) => n + gz(f), 0);
     const brotliBytes = files.reduce((n, f) => n + br(f), 0);
     return { route, bytes, brotliBytes, files: files.length, over: route === TRACKSIDE_ROUTE && bytes > TRACKSIDE_BUDGET_BYTES };

@@ -1,5 +1,6 @@
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { join } from 'node:path';
+import { readBuildManifest, staticClosure } from './build-manifest';
 
 /**
  * Each page's code is a chunk of its own that the client asks for only once its router has started,
@@ -20,29 +21,15 @@ export const PAGE_MODULES: readonly { pattern: RegExp; module: string; example: 
   { pattern: /^\/$/, module: 'src/app/routes/home.tsx', example: '/' },
 ];
 
-interface ManifestChunk {
-  file: string;
-  isEntry?: boolean;
-  imports?: string[];
-}
-
 /**
  * From the build's manifest (dist/.vite/manifest.json): for an address, the `<link rel="modulepreload">`
  * tags of its page's chunk and the chunks that one imports, less those the entry already brings
  * (index.html preloads them). Empty for an address of no listed page, or without a manifest.
  */
 export function pagePreloader(clientDir: string): (path: string) => string {
-  const file = join(clientDir, '.vite', 'manifest.json');
-  if (!existsSync(file)) return () => '';
-  const manifest = JSON.parse(readFileSync(file, 'utf8')) as Record<string, ManifestChunk>;
-  const closure = (keys: string[], seen = new Set<string>()): Set<string> => {
-    for (const key of keys) {
-      if (seen.has(key) || !manifest[key]) continue;
-      seen.add(key);
-      closure(manifest[key].imports ?? [], seen);
-    }
-    return seen;
-  };
+  if (!existsSync(join(clientDir, '.vite', 'manifest.json'))) return () => '';
+  const manifest = readBuildManifest(clientDir);
+  const closure = (keys: string[]) => staticClosure(manifest, keys);
   const entry = closure(Object.keys(manifest).filter((key) => manifest[key]!.isEntry));
   const tags = new Map<string, string>();
   for (const page of PAGE_MODULES) {
