@@ -107,7 +107,13 @@ export default defineConfig({
     manifest: true,
     // Browsers without <link rel="modulepreload"> (older Safari) still load every module, only without
     // the head start; the polyfill would cost every page's first download on every phone.
-    modulePreload: { polyfill: false },
+    modulePreload: {
+      polyfill: false,
+      // A lazy chunk's list of files to fetch with it leaves out the runtime and the app chunk (script and
+      // stylesheet): index.html loads them before anything can import lazily, and each name is a hash
+      // that does not compress, repeated in every list.
+      resolveDependencies: (_file, deps) => deps.filter((dep) => !/^assets\/(rolldown-runtime|app)-[\w-]+\.(js|css)$/.test(dep)),
+    },
     rolldownOptions: {
       output: {
         // Fewer, larger files than one per set of shared modules: fewer requests, and each compresses

@@ -1,4 +1,4 @@
-import { lazy, Suspense, useState } from 'react';
+import { lazy, Suspense, useDeferredValue, useState } from 'react';
 import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { QueryClient } from '@tanstack/react-query';
 import type { DeviceState } from '@/app/router';
@@ -107,6 +107,10 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
     return saved ? <CommentsButton target={{ type: 'run', id: row.id }} what={`run ${row.runNumber}`} count={saved.commentCount} /> : null;
   };
 
+  // The run list is most of the page's elements. It is drawn just after the rest (a deferred render that
+  // React may interrupt), so the setup line and the keypad are on screen and answer a tap sooner.
+  const listDrawn = useDeferredValue(true, false);
+
   const own = rows.filter((r) => r.driver.id === driver.id);
   const best = own.find((r) => r.isBest);
 
@@ -146,7 +150,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
           {runsQuery.isError && !runsQuery.data ? (
             <p className="text-sm text-ink-muted">Saved runs could not be loaded (no connection?). Runs you log now are kept on this phone.</p>
           ) : null}
-          {runsQuery.isPending && rows.length === 0 ? (
+          {(runsQuery.isPending && rows.length === 0) || !listDrawn ? (
             <p className="text-ink-muted">Loading runs…</p>
           ) : (
             <RunList rows={rows} setupLabelOf={setupLabelOf} renderExtras={runComments} />

@@ -83,6 +83,30 @@ describe('event day', () => {
     expect(requestsTo(fetchMock, 'GET /api/auth/me')).toHaveLength(1);
   });
 
+  it('when the page first draws with its runs known, then the keypad goes on screen before the run list, which follows in a later drawing', async () => {
+    stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })]);
+    // Which insertion into the document brought each part, judged when the insertion is reported: one
+    // insertion bringing both would mean the list held the keypad back.
+    const FORM = 'form[aria-label="Log a run"]';
+    const LIST = 'ol[aria-label^="Today"]';
+    const brought = (nodes: Node[], selector: string) => nodes.some((n) => n instanceof Element && (n.matches(selector) || n.querySelector(selector) !== null));
+    const insertions: { form: boolean; list: boolean }[] = [];
+    const observer = new MutationObserver((records) => {
+      for (const r of records) {
+        const nodes = [...r.addedNodes];
+        if (nodes.length) insertions.push({ form: brought(nodes, FORM), list: brought(nodes, LIST) });
+      }
+    });
+    observer.observe(document.body, { childList: true, subtree: true });
+    renderApp(PATH);
+    await screen.findByRole('listitem', { name: /^Run 2,/ });
+    observer.disconnect();
+    const form = insertions.findIndex((i) => i.form);
+    const list = insertions.findIndex((i) => i.list);
+    expect(form).toBeGreaterThanOrEqual(0);
+    expect(list).toBeGreaterThan(form);
+  });
+
   it('when the car\'s setups are still on their way, then the setup line says it is checking, never "none recorded", and keeps its height', async () => {
     let answer: (r: Response) => void = () => undefined;
     stubWithRuns([], { extra: { [`GET /api/cars/${IDS.car}/setups`]: () => new Promise<Response>((resolve) => (answer = resolve)) } });
