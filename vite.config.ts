@@ -38,7 +38,7 @@ function preloadFonts(): Plugin {
 /**
  * Writes a Brotli (quality 11) and a gzip (level 9) copy beside each built script, stylesheet and
  * image of text, for the server to send as they are (express-static-gzip): the best compression,
- * paid once at build time instead of on every request. Brotli makes the main chunk about a sixth
+ * paid once at build time instead of on every request. Brotli makes the main chunk about an eighth
  * smaller than gzip, which a phone with one bar of signal feels.
  */
 function precompress(): Plugin {
@@ -50,9 +50,12 @@ function precompress(): Plugin {
         if (!/\.(js|css|svg|webmanifest)$/.test(file)) continue;
         const path = join(options.dir ?? 'dist', file);
         const bytes = readFileSync(path);
-        if (bytes.length < 1024) continue;
-        writeFileSync(`${path}.br`, brotliCompressSync(bytes, { params: { [zlib.BROTLI_PARAM_QUALITY]: 11, [zlib.BROTLI_PARAM_SIZE_HINT]: bytes.length } }));
-        writeFileSync(`${path}.gz`, gzipSync(bytes, { level: 9 }));
+        const copies = {
+          br: brotliCompressSync(bytes, { params: { [zlib.BROTLI_PARAM_QUALITY]: 11, [zlib.BROTLI_PARAM_SIZE_HINT]: bytes.length } }),
+          gz: gzipSync(bytes, { level: 9 }),
+        };
+        // A tiny file can come out larger; it is then sent as it is.
+        for (const [ext, copy] of Object.entries(copies)) if (copy.length < bytes.length) writeFileSync(`${path}.${ext}`, copy);
       }
     },
   };

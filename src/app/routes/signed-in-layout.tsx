@@ -38,7 +38,8 @@ export function SignedInLayout() {
               <SyncStatusBadge />
             </ErrorBoundary>
             <ErrorBoundary fallback={() => null}>
-              <Suspense fallback={null}>
+              {/* Holds the bell's place, so the sync status beside it does not move when it comes. */}
+              <Suspense fallback={<span aria-hidden="true" className="inline-flex size-tap shrink-0" />}>
                 <ShellExtras />
               </Suspense>
             </ErrorBoundary>

@@ -111,6 +111,10 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
   // React may interrupt), so the setup line and the keypad are on screen and answer a tap sooner.
   const listDrawn = useDeferredValue(true, false);
 
+  // How tall the setup line is depends on the setup's name: the board waits while the car's setups are on
+  // their way, so the keypad never moves under a thumb when they land. With no signal they are not coming.
+  if (setupsQuery.isPending && setupsQuery.fetchStatus === 'fetching' && setups.length === 0) return <p className="text-ink-muted">Loading…</p>;
+
   const own = rows.filter((r) => r.driver.id === driver.id);
   const best = own.find((r) => r.isBest);
 
@@ -118,7 +122,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
     <>
       <section aria-label="Setup" className="flex flex-col gap-3 rounded-lg border border-line bg-surface px-3 py-2">
         <div className="flex items-center justify-between gap-3">
-          <CurrentSetup setup={current} loading={setupsQuery.isPending && setups.length === 0} />
+          <CurrentSetup setup={current} loading={setupsQuery.data === undefined && setups.length === 0} />
           <Button variant="secondary" className="shrink-0" aria-expanded={quickChange} onClick={() => setQuickChange((v) => !v)}>
             Quick change
           </Button>
@@ -209,7 +213,8 @@ export function EventDayPage() {
             </span>
           </p>
         ) : null}
-        {car && driver && !picking ? (
+        {/* With the event's facts, which come above it: drawn before them, this line would move down. */}
+        {event && car && driver && !picking ? (
           <p className="flex flex-wrap items-center gap-x-2 text-sm font-semibold">
             <span>
               {car.name}

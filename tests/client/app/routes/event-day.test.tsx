@@ -107,18 +107,39 @@ describe('event day', () => {
     expect(list).toBeGreaterThan(form);
   });
 
-  it('when the car\'s setups are still on their way, then the setup line says it is checking, never "none recorded", and keeps its height', async () => {
+  it('when the car\'s setups are still on their way, then the keypad waits for them, so it does not move when the setup line fills in, and "none recorded" is never shown', async () => {
     let answer: (r: Response) => void = () => undefined;
     stubWithRuns([], { extra: { [`GET /api/cars/${IDS.car}/setups`]: () => new Promise<Response>((resolve) => (answer = resolve)) } });
     renderApp(PATH);
-    const setup = await screen.findByRole('region', { name: 'Setup' });
-    await within(setup).findByText('checking…');
-    expect(within(setup).queryByText('none recorded')).toBeNull();
-    const lines = setup.querySelectorAll('p').length;
+    // The event and the car are known: the header is drawn.
+    await screen.findByRole('button', { name: 'Change car or driver' });
+    expect(screen.queryByRole('form', { name: 'Log a run' })).toBeNull();
+    expect(screen.queryByText('none recorded')).toBeNull();
     answer(list([BASE_SETUP]));
-    await within(setup).findByText('Spring baseline');
-    expect(within(setup).queryByText('checking…')).toBeNull();
-    expect(setup.querySelectorAll('p').length).toBe(lines);
+    const setup = await screen.findByRole('region', { name: 'Setup' });
+    expect(within(setup).getByText('Spring baseline')).toBeTruthy();
+    expect(screen.getByRole('form', { name: 'Log a run' })).toBeTruthy();
+  });
+
+  it('when the car\'s setups cannot be had (no signal), then the keypad is there and the setup line says the setup is not known, not that there is none', async () => {
+    stubWithRuns([], { extra: { [`GET /api/cars/${IDS.car}/setups`]: offline } });
+    renderApp(PATH);
+    const setup = await screen.findByRole('region', { name: 'Setup' });
+    expect(within(setup).getByText('not known yet')).toBeTruthy();
+    expect(within(setup).queryByText('none recorded')).toBeNull();
+    expect(screen.getByRole('form', { name: 'Log a run' })).toBeTruthy();
+  });
+
+  it('when the event is still on its way, then the car line waits with it, so it is not pushed down when the event\'s facts arrive', async () => {
+    let answer: (r: Response) => void = () => undefined;
+    const fetchMock = stubWithRuns([], { extra: { [`GET /api/events/${IDS.event}`]: () => new Promise<Response>((resolve) => (answer = resolve)) } });
+    renderApp(PATH);
+    await waitFor(() => expect(requestsTo(fetchMock, `GET /api/events/${IDS.event}`)).toHaveLength(1));
+    await waitFor(() => expect(requestsTo(fetchMock, 'GET /api/cars')).toHaveLength(1));
+    await screen.findByText('Loading the event…');
+    expect(screen.queryByRole('button', { name: 'Change car or driver' })).toBeNull();
+    answer(jsonResponse(200, EVENT));
+    expect(await screen.findByRole('button', { name: 'Change car or driver' })).toBeTruthy();
   });
 
   it('when a run is logged with the keypad, then exactly one outbox entry holds it in SI with a device-made id, and it shows at once as waiting with its adjusted time', async () => {
