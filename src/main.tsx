@@ -40,7 +40,8 @@ const [, restored] = persistQueryClient({
     shouldDehydrateQuery: (query) => defaultShouldDehydrateQuery(query) && !(query.queryKey[0] === 'auth' && query.state.data == null),
   },
 });
-const deviceRead = Promise.all([restored.catch(() => undefined), outbox.ready()]);
+// A device that cannot read its storage (a private window in some browsers) still opens the app.
+const deviceRead = Promise.all([restored, outbox.ready()]).catch(() => undefined);
 const router = createAppRouter(queryClient, { eventWaiting: eventWaitingIn(outbox), read: deviceRead });
 
 const container = document.getElementById('root');

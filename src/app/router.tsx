@@ -33,10 +33,6 @@ function pathOf(url: URL): string {
   return url.pathname + url.search;
 }
 
-/**
- * The app's routes. Pages are loaded on first visit, so the first download stays small; the
- * pages opened now and then are not even listed until an address asks for one (`discover`).
- */
 export interface DeviceState {
   /** Is this event still only on the phone (its creation waiting in the outbox)? The server cannot know it yet. */
   eventWaiting: (eventId: string) => boolean;
@@ -48,6 +44,10 @@ export interface DeviceState {
   read: Promise<unknown>;
 }
 
+/**
+ * The app's routes. Pages are loaded on first visit, so the first download stays small; the
+ * pages opened now and then are not even listed until an address asks for one (`discover`).
+ */
 export function createRoutes(
   queryClient: QueryClient,
   device: DeviceState,
