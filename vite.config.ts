@@ -115,7 +115,9 @@ export default defineConfig({
       // A lazy chunk's list of files to fetch with it leaves out the runtime and the app chunk (script and
       // stylesheet): index.html loads them before anything can import lazily, and each name is a hash
       // that does not compress, repeated in every list.
-      resolveDependencies: (_file, deps) => deps.filter((dep) => !/^assets\/(rolldown-runtime|app)-[\w-]+\.(js|css)$/.test(dep)),
+      // (index.html itself still preloads them.)
+      resolveDependencies: (_file, deps, { hostType }) =>
+        hostType === 'html' ? deps : deps.filter((dep) => !/^assets\/(rolldown-runtime|app)-[\w-]+\.(js|css)$/.test(dep)),
     },
     rolldownOptions: {
       output: {

@@ -79,6 +79,22 @@ describe('trackside on a phone (390×844)', () => {
     for (const href of preloaded) expect(used).toContain(href);
   });
 
+  it('when the page is opened, then its document names every script the page runs before it draws, so none waits for another to be read first', async () => {
+    const html = await (await fetch(`${baseUrl}/events/${eventId}?carId=${carId}`)).text();
+    const named = [...html.matchAll(/<link rel="modulepreload" crossorigin href="([^"]+)">/g)].map((m) => m[1]!);
+    const entry = /<script type="module" crossorigin src="([^"]+)"><\/script>/.exec(html)?.[1];
+    expect(entry).toBeDefined();
+    await page.goto(`${baseUrl}/events/${eventId}?carId=${carId}`);
+    await page.getByRole('heading', { level: 1, name: 'Practice at Harrow Flats' }).waitFor();
+    // The scripts fetched by the time the page is drawn: the entry, the main chunk and the page's own.
+    const fetched = await page.evaluate(() =>
+      performance.getEntriesByType('resource').map((e) => new URL(e.name).pathname).filter((p) => /^\/assets\/.+\.js$/.test(p)),
+    );
+    const drawnWith = fetched.filter((p) => /\/(app|rolldown-runtime|event-day|trackside|ui)-/.test(p));
+    expect(drawnWith.length).toBeGreaterThanOrEqual(5);
+    for (const p of drawnWith) expect(named, p).toContain(p);
+  });
+
   it('when the driver logs a clean run, a run with 2 cones and a DNF, then adjusted times and the best show on screen', async () => {
     await page.goto(`${baseUrl}/events/${eventId}?carId=${carId}`);
     await page.getByRole('radio', { name: /Maren Holloway/ }).check({ force: true });
