@@ -8,7 +8,7 @@ import { exportSeason, importSeason, seasonFileName } from './export.service';
 import { exportSeasonCsv } from './season-csv';
 
 /** The path a season file is posted to. */
-export const SEASON_IMPORT_PATH = '/api/cars/import';
+const SEASON_IMPORT_PATH = '/api/cars/import';
 
 /**
  * A season file, which the app-wide JSON parser (limit 100 kB) leaves unread: it would read any body
