@@ -1,8 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { Role, User } from '@shared/auth/auth.schema';
-import type { DataSource, EntityManager } from 'typeorm';
 import { AppError } from '../lib/app-error';
-import { queryPrepared } from '../db/prepared';
 import { allows, type ACCESS_MATRIX } from './access-matrix';
 
 /**
@@ -71,9 +69,9 @@ const carRelationColumns = (user: string) => `c.owner_id = ${user} AS owner,
             EXISTS (SELECT 1 FROM shop_grants g JOIN shop_members m ON m.shop_id = g.shop_id
                      WHERE g.car_id = c.id AND m.user_id = ${user}) AS shop_staff`;
 
-type RelationRow = { owner: boolean; co_driver: boolean; shop_staff: boolean };
-const relationsOf = (row: RelationRow | undefined): CarRelation[] =>
-  row ? (['owner', 'co_driver', 'shop_staff'] as const).filter((r) => row[r]) : [];
+type RelationRow = Record<CarRelation, boolean>;
+const CAR_RELATIONS = ['owner', 'co_driver', 'shop_staff'] as const satisfies readonly CarRelation[];
+const relationsOf = (row: RelationRow | undefined): CarRelation[] => (row ? CAR_RELATIONS.filter((r) => row[r]) : []);
 
 /** Every relation the user has to the car, strongest first (empty: none). */
 export async function carRelations(db: Queryable, userId: string, carId: string): Promise<CarRelation[]> {
@@ -82,19 +80,34 @@ export async function carRelations(db: Queryable, userId: string, carId: string)
 }
 
 /**
- * What writing a run needs to know, in one round trip: the user's relations to the car, whether the
- * user may see the event, and whether `driverId` drives the car (its owner or a co-driver). The
- * answers are the same as carRelations and assertEventAccess give one query each.
+ * SQL that is true when the relation columns of row `alias` (owner, co_driver, shop_staff) allow `action`
+ * on the car. Built from ACCESS_MATRIX, so a statement that writes only where this holds follows the same
+ * table as assertCarRelations.
  */
-export async function runWriteAccess(db: DataSource | EntityManager, userId: string, carId: string, eventId: string, driverId: string) {
-  const rows = await queryPrepared<RelationRow & { event_visible: boolean; drives_car: boolean }>(db,
-    `SELECT ${carRelationColumns('$2')},
-            EXISTS (SELECT 1 FROM events e WHERE e.id = $3 AND ${eventVisibleSql('$2')}) AS event_visible,
-            ${drivesCarSql('$4')} AS drives_car
-       FROM cars c WHERE c.id = $1`,
-    [carId, userId, eventId, driverId],
-  );
-  return { relations: relationsOf(rows[0]), eventVisible: rows[0]?.event_visible ?? false, drivesCar: rows[0]?.drives_car ?? false };
+export const carActionAllowedSql = (alias: string, action: CarAction) => {
+  const allowed = CAR_RELATIONS.filter((r) => allows('car', action, r));
+  return allowed.length > 0 ? `(${allowed.map((r) => `${alias}.${r}`).join(' OR ')})` : 'false';
+};
+
+/**
+ * What writing a run needs to know, as one row (none when the car does not exist): the user's relations
+ * to the car, whether the user may see the event (event_visible), and whether the driver drives the car
+ * (drives_car, its owner or a co-driver). The answers are the same as carRelations and assertEventAccess
+ * give one query each; a write can join this row and happen only where it allows.
+ */
+export const runWriteFactsSql = (p: { user: string; car: string; event: string; driver: string }) =>
+  `SELECT ${carRelationColumns(p.user)},
+          EXISTS (SELECT 1 FROM events e WHERE e.id = ${p.event} AND ${eventVisibleSql(p.user)}) AS event_visible,
+          ${drivesCarSql(p.driver)} AS drives_car
+     FROM cars c WHERE c.id = ${p.car}`;
+
+export type RunWriteFactsRow = RelationRow & { event_visible: boolean; drives_car: boolean };
+
+/** Refuses a run's write from the facts of runWriteFactsSql, in order: the car (404, 403), the event (404), the driver. */
+export function assertRunWrite(row: RunWriteFactsRow | undefined, notTheDriver: () => AppError): void {
+  assertCarRelations(relationsOf(row), 'write');
+  if (!row?.event_visible) throw new AppError('not_found', 'That event was not found.');
+  if (!row.drives_car) throw notTheDriver();
 }
 
 /** Refuses as assertCarAccess does, from relations already read. */

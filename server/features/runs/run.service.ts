@@ -4,7 +4,10 @@ import { CORNERS, type Corner, type PerCorner } from '@shared/season/corners';
 import type { CreateRunInput, Run, RunStatus, UpdateRunInput } from '@shared/season/run.schema';
 import { scoreRuns } from '@shared/calc/scoring.calc';
 import { AppError, staleVersion } from '../../lib/app-error';
-import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, assertCarRelations, assertEventAccess, drivesCarSql, runWriteAccess } from '../../auth/access';
+import {
+  accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, assertEventAccess, assertRunWrite, carActionAllowedSql, drivesCarSql,
+  runWriteFactsSql, type RunWriteFactsRow,
+} from '../../auth/access';
 import { queryPrepared } from '../../db/prepared';
 import { writeRunHotPressures } from '../pressures/pressure.service';
 import { RunEntity } from './run.entity';
@@ -156,24 +159,26 @@ function sameContent(stored: Run, input: CreateRunInput, driverId: string): bool
  */
 export async function createRun(ds: DataSource, user: User, input: CreateRunInput): Promise<{ run: Run; created: boolean }> {
   const driverId = input.driverId ?? user.id;
-  // The car, the event and the driver, checked in one round trip and refused in that order.
-  const access = await runWriteAccess(ds, user.id, input.carId, input.eventId, driverId);
-  assertCarRelations(access.relations, 'write');
-  if (!access.eventVisible) throw new AppError('not_found', 'That event was not found.');
-  if (!access.drivesCar) throw notTheCarsDriver();
   const recordedAt = new Date(input.recordedAt);
   const rawTimeSec = input.status === 'finished' ? input.rawTimeSec : (input.rawTimeSec ?? null);
 
-  // No conflict target: a replay (same id) and a clash of run numbers both insert nothing;
-  // which of the two happened is read back below, after any racing insert has committed.
+  // One round trip checks the car, the event and the driver and inserts only where all three allow it.
+  // No conflict target: a replay (same id) and a clash of run numbers both insert nothing; which of the
+  // two happened is read back below, after any racing insert has committed.
   const insert = async (db: Db) => {
-    const inserted = await queryPrepared<{ id: string }>(db,
-      `INSERT INTO runs (id, car_id, event_id, driver_id, run_number, raw_time_sec, cones, status, recorded_at, notes)
-       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10)
-       ON CONFLICT DO NOTHING RETURNING id`,
-      [input.id, input.carId, input.eventId, driverId, input.runNumber, rawTimeSec, input.cones, input.status, recordedAt, input.notes ?? null],
+    const [row] = await queryPrepared<RunWriteFactsRow & { created: boolean }>(db,
+      `WITH f AS (${runWriteFactsSql({ user: '$11', car: '$2', event: '$3', driver: '$4' })}),
+       ins AS (
+         INSERT INTO runs (id, car_id, event_id, driver_id, run_number, raw_time_sec, cones, status, recorded_at, notes)
+         SELECT $1::uuid, $2::uuid, $3::uuid, $4::uuid, $5::int, $6::double precision, $7::int, $8::text, $9::timestamptz, $10::text
+           FROM f WHERE f.event_visible AND f.drives_car AND ${carActionAllowedSql('f', 'write')}
+         ON CONFLICT DO NOTHING RETURNING id)
+       SELECT f.*, EXISTS (SELECT 1 FROM ins) AS created FROM f`,
+      [input.id, input.carId, input.eventId, driverId, input.runNumber, rawTimeSec, input.cones, input.status, recordedAt, input.notes ?? null, user.id],
     );
-    return inserted.length > 0;
+    // Nothing was written unless all three allowed it; refused in that order: the car, the event, the driver.
+    assertRunWrite(row, notTheCarsDriver);
+    return row!.created;
   };
   const pressures = input.hotPressuresKpa && Object.keys(input.hotPressuresKpa).length > 0 ? input.hotPressuresKpa : null;
   // A run with hot pressures is two rows, written together or not at all. A run alone is one

@@ -1,9 +1,11 @@
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import pg from 'pg';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { makeTestApp, signedInClient, type TestApp } from '../test-app';
 import {
   addCoDriver, countOf, driverWithCarAndEvent, expectError, expectFieldErrors, postRun, runBody, type Driver,
 } from './season-fixtures';
+import { grantedCar } from '../collab/shop-fixtures';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -154,6 +156,33 @@ describe('POST /api/runs', () => {
     expectError(await d.c.post('/api/runs', runBody(d.carId, other.eventId)), 404, 'not_found');
     expectError(await d.c.post('/api/runs', runBody(d.carId, randomUUID())), 404, 'not_found');
     expect(await runsOf(d.carId)).toBe(0);
+  });
+
+  it('when shop staff, a stranger, the wrong driver or a hidden event carry hot pressures, then each is refused as without them and neither a run nor a pressure is stored', async () => {
+    const { driver: d, staff } = await grantedCar(t);
+    const stranger = await driverWithCarAndEvent(t);
+    const hot = { hotPressuresKpa: { lf: 250, rf: 251, lr: 240, rr: 241 } };
+    expectError(await staff.c.post('/api/runs', runBody(d.carId, d.eventId, hot)), 403, 'forbidden');
+    expectError(await stranger.c.post('/api/runs', runBody(d.carId, stranger.eventId, hot)), 404, 'not_found');
+    expectError(await d.c.post('/api/runs', runBody(d.carId, stranger.eventId, hot)), 404, 'not_found');
+    expectFieldErrors(await d.c.post('/api/runs', runBody(d.carId, d.eventId, { ...hot, driverId: stranger.user.id })), ['driverId']);
+    expect(await runsOf(d.carId)).toBe(0);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM pressure_readings WHERE car_id = $1', [d.carId])).toBe(0);
+  });
+
+  it('when a run is logged, then the request sends PostgreSQL three statements: the session with its account, the checked insert and the read-back', async () => {
+    const d = await driverWithCarAndEvent(t);
+    await post(d, { runNumber: 1 }); // opens the connections
+    const token = await d.c.csrf();
+    const sent = vi.spyOn(pg.Client.prototype, 'query');
+    try {
+      const res = await d.c.agent.post('/api/runs').set('X-CSRF-Token', token).send(runBody(d.carId, d.eventId, { runNumber: 2 }));
+      expect(res.status, JSON.stringify(res.body)).toBe(201);
+      expect(sent).toHaveBeenCalledTimes(3);
+    } finally {
+      sent.mockRestore();
+    }
+    expect(await runsOf(d.carId)).toBe(2);
   });
 });
 
