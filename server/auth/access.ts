@@ -104,7 +104,7 @@ export const runWriteFactsSql = (p: { user: string; car: string; event: string; 
 export type RunWriteFactsRow = RelationRow & { event_visible: boolean; drives_car: boolean };
 
 /** Refuses a run's write from the facts of runWriteFactsSql, in order: the car (404, 403), the event (404), the driver. */
-export function assertRunWrite(row: RunWriteFactsRow | undefined, notTheDriver: () => AppError): void {
+export function assertRunWrite(row: RunWriteFactsRow | undefined, notTheDriver: () => AppError): asserts row is RunWriteFactsRow {
   assertCarRelations(relationsOf(row), 'write');
   if (!row?.event_visible) throw new AppError('not_found', 'That event was not found.');
   if (!row.drives_car) throw notTheDriver();

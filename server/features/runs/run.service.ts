@@ -178,7 +178,7 @@ export async function createRun(ds: DataSource, user: User, input: CreateRunInpu
     );
     // Nothing was written unless all three allowed it; refused in that order: the car, the event, the driver.
     assertRunWrite(row, notTheCarsDriver);
-    return row!.created;
+    return row.created;
   };
   const pressures = input.hotPressuresKpa && Object.keys(input.hotPressuresKpa).length > 0 ? input.hotPressuresKpa : null;
   // A run with hot pressures is two rows, written together or not at all. A run alone is one
