@@ -8,7 +8,7 @@ import { readBuildManifest, staticClosure } from './build-manifest';
  * The server knows the address the document is for, so it names that page's chunks in the document
  * itself (`<link rel="modulepreload">`) and the browser fetches them beside the main chunk.
  *
- * The address patterns follow the client's routes (src/app/router.tsx); tests/server/lib/page-preload.test.ts
+ * The address patterns follow the client's routes (src/app/router.tsx); tests/client/app/page-preload-routes.test.tsx
  * checks that each one still leads the client router to the module named here.
  */
 export const PAGE_MODULES: readonly { pattern: RegExp; module: string; example: string }[] = [
