@@ -16,7 +16,18 @@ import { measureWithLighthouse, measureWithPlaywright } from './lib/page-speed';
 import { enableQueryPlans, explainRequestQueries, growDrivers, rowCounts, type PlanCapture } from './lib/growth';
 import { formatSizes, routeSizes } from './lib/bundle-size';
 import { register, signIn, type BenchSession } from './lib/bench-session';
-import { benchCars, benchEvents, formatLoad, loadApi, loadGet, loadRawInserts, RunSlots, type LoadResult } from './lib/bench-write';
+import {
+  autocannonCalibration,
+  benchCars,
+  benchEvents,
+  fixedRateApi,
+  formatLoad,
+  loadApi,
+  loadGet,
+  loadRawInserts,
+  RunSlots,
+  type LoadResult,
+} from './lib/bench-write';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../server/db/demo-accounts';
 
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 50);
@@ -112,20 +123,32 @@ async function writePath(base: string, databaseUrl: string) {
     worstRatio = Math.min(worstRatio, a.throughput / r.throughput);
     console.log(`${connections} connections: API ${a.throughput.toFixed(0)} req/s, floor ${r.throughput.toFixed(0)} inserts/s, ratio ${(a.throughput / r.throughput).toFixed(2)}`);
   }
-  // autocannon paces a fixed rate per connection: each sends its share of the second back to back, then waits
-  // for the next second (lib/httpClient.js, `reqsMadeThisSecond`), so the arrivals come in bursts as wide as
-  // the number of connections. The target must hold at each count tried.
-  const fixed: LoadResult[] = [];
+  // A fixed 200 req/s, two ways, at 2, 10 and 50 connections; the target must hold at each count tried.
+  // autocannon's -R sends each connection's share of the second back to back and weights its histogram by
+  // latency (scripts/lib/bench-write.ts), so the target is judged on the open-loop measurement: a request
+  // every 5 ms, each timed from when it was due. autocannon's figures are printed beside it, with what it
+  // makes of a server whose answers are known.
+  const autocannonFixed: LoadResult[] = [];
+  const openLoop: LoadResult[] = [];
   for (const connections of [2, 10, 50]) {
-    fixed.push(await loadApi(s, apiSlots, { label: 'API at a fixed 200 req/s (-R)', connections, durationSec: STEP_SEC * 2, overallRate: 200 }));
+    autocannonFixed.push(await loadApi(s, apiSlots, { label: 'API at 200 req/s, autocannon -R', connections, durationSec: STEP_SEC * 2, overallRate: 200 }));
+    openLoop.push(await fixedRateApi(s, apiSlots, { label: 'API at 200 req/s, open loop', connections, durationSec: STEP_SEC * 2, ratePerSec: 200 }));
   }
-  rows.push(...fixed);
+  rows.push(...autocannonFixed, ...openLoop);
   console.log(`\n${formatLoad(rows)}`);
+  const calibration = await autocannonCalibration({ connections: 10, durationSec: 5, overallRate: 200 });
+  console.log(
+    `\nautocannon -R 200, 10 connections, against a server that answers at once except every 100th request after 200 ms: ` +
+      `the ${calibration.answers} answers it saw had p50 ${calibration.seen.p50.toFixed(1)}, p97.5 ${calibration.seen.p97_5.toFixed(1)}, ` +
+      `p99 ${calibration.seen.p99.toFixed(1)} ms; it reports p50 ${calibration.reported.p50}, p97.5 ${calibration.reported.p97_5}, ` +
+      `p99 ${calibration.reported.p99} ms from ${calibration.reported.samples} samples.`,
+  );
   target('write path: API ÷ raw insert ≥ 0.5 at every concurrency', worstRatio >= 0.5, `lowest ratio ${worstRatio.toFixed(2)}`);
+  const fixedDetail = (list: LoadResult[]) => list.map((f) => `${f.connections} conns: p97.5 ${f.p97_5.toFixed(1)} ms, p99 ${f.p99.toFixed(1)} ms, ${f.errors} errors`).join('; ');
   target(
-    'write path at a fixed 200 req/s (2, 10 and 50 connections): p97.5 ≤ 25 ms, p99 ≤ 50 ms, no errors',
-    fixed.every((f) => f.p97_5 <= 25 && f.p99 <= 50 && f.errors === 0),
-    fixed.map((f) => `${f.connections} conns: p97.5 ${f.p97_5} ms, p99 ${f.p99} ms, ${f.errors} errors`).join('; '),
+    'write path at a fixed 200 req/s, open loop (2, 10 and 50 connections): p97.5 ≤ 25 ms, p99 ≤ 50 ms, no errors',
+    openLoop.every((f) => f.p97_5 <= 25 && f.p99 <= 50 && f.errors === 0),
+    `${fixedDetail(openLoop)} (autocannon -R, weighted by latency: ${fixedDetail(autocannonFixed)})`,
   );
   // autocannon stops counting at the end of a step, not its requests: let the last ones finish.
   await new Promise((r) => setTimeout(r, 2000));

@@ -1,14 +1,22 @@
 // The write path under load: POST /api/runs through the whole app (session, CSRF, validation, access
 // checks, the insert and the answer) against the floor of the same single-row INSERT sent through
 // plain node-postgres at the same concurrency. autocannon reports p2.5/p50/p97.5/p99, not p95
-// (https://github.com/mcollina/autocannon#readme); its `overallRate` is the CLI's `-R`, which times each
-// request from when it was due, correcting for coordinated omission.
+// (https://github.com/mcollina/autocannon#readme). Its `overallRate` (the CLI's `-R`) neither spaces the
+// requests nor times them from when they were due: each connection sends its share of the second back to
+// back (lib/httpClient.js, `reqsMadeThisSecond`), and each answer is recorded with
+// `recordValueWithExpectedInterval(responseTime, Math.ceil(1 / rate))` (lib/run.js), an interval of 1 ms for
+// any rate above one request a second per connection, so an answer of L ms is counted L times. The fixed
+// rate is therefore also measured open loop (`fixedRateApi`, scripts/lib/fixed-rate.ts), and
+// `autocannonCalibration` shows on a known server what autocannon's figures make of it.
 import { randomUUID } from 'node:crypto';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { performance } from 'node:perf_hooks';
 import autocannon from 'autocannon';
 import pg from 'pg';
 import { quantileSorted } from 'simple-statistics';
 import type { BenchSession } from './bench-session';
+import { fixedRateLoad } from './fixed-rate';
 
 export interface LoadResult {
   label: string;
@@ -107,6 +115,73 @@ export async function loadApi(
     requests: [{ setupRequest: (req) => ({ ...req, body: JSON.stringify(slots.take()) }) }],
   });
   return loadResult(opts, r);
+}
+
+/**
+ * POST /api/runs at a fixed rate, open loop: a new run every 1/rate s, at most `connections` on the wire,
+ * each timed from when it was due.
+ */
+export async function fixedRateApi(
+  s: BenchSession,
+  slots: RunSlots,
+  opts: { label: string; connections: number; durationSec: number; ratePerSec: number },
+): Promise<LoadResult> {
+  const r = await fixedRateLoad({
+    url: `${s.base}/api/runs`,
+    method: 'POST',
+    headers: { 'content-type': 'application/json', cookie: s.cookie, 'x-csrf-token': s.csrfToken },
+    body: () => JSON.stringify(slots.take()),
+    ratePerSec: opts.ratePerSec,
+    durationSec: opts.durationSec,
+    connections: opts.connections,
+  });
+  return {
+    label: opts.label,
+    connections: opts.connections,
+    throughput: r.latencies.length / opts.durationSec,
+    total: r.sent,
+    p50: r.p50,
+    p97_5: r.p97_5,
+    p99: r.p99,
+    errors: r.errors,
+  };
+}
+
+/**
+ * autocannon's `overallRate` against a server whose answers are known: at once, except every 100th after
+ * 200 ms. Returns the percentiles of the answers autocannon itself saw (its `response` events) beside the
+ * ones it reports.
+ */
+export async function autocannonCalibration(opts: { connections: number; durationSec: number; overallRate: number }) {
+  let n = 0;
+  const server = http.createServer((req, res) => {
+    req.resume();
+    setTimeout(() => res.end('ok'), ++n % 100 === 0 ? 200 : 0);
+  });
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const seen: number[] = [];
+  try {
+    const r = await new Promise<autocannon.Result>((resolve, reject) => {
+      const instance = autocannon(
+        {
+          url: `http://127.0.0.1:${(server.address() as AddressInfo).port}/`,
+          connections: opts.connections,
+          duration: opts.durationSec,
+          overallRate: opts.overallRate,
+        },
+        (err, result) => (err ? reject(err) : resolve(result)),
+      );
+      instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => seen.push(responseTime));
+    });
+    seen.sort((a, b) => a - b);
+    return {
+      answers: seen.length,
+      seen: { p50: quantileSorted(seen, 0.5), p97_5: quantileSorted(seen, 0.975), p99: quantileSorted(seen, 0.99) },
+      reported: { p50: r.latency.p50, p97_5: r.latency.p97_5, p99: r.latency.p99, samples: (r.latency as { totalCount?: number }).totalCount },
+    };
+  } finally {
+    await new Promise((resolve) => server.close(resolve));
+  }
 }
 
 /** autocannon's answer as one row of the report: every request that failed or was not 2xx is an error. */
