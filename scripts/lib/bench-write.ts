@@ -135,6 +135,7 @@ export async function fixedRateApi(
     durationSec: opts.durationSec,
     connections: opts.connections,
   });
+  if (r.errors > 0) console.log(`${opts.label}, ${opts.connections} connections: errors ${JSON.stringify(r.errorKinds)}`);
   return {
     label: opts.label,
     connections: opts.connections,

@@ -31,6 +31,8 @@ export interface FixedRateResult {
   max: number;
   /** Answers that were not 2xx, connection errors and timeouts. */
   errors: number;
+  /** The errors by kind: "status 503", "ECONNRESET", "timeout". */
+  errorKinds: Record<string, number>;
   /** The most any request went out after it was due while a connection was free (this process's own lag). */
   maxSendLagMs: number;
 }
@@ -39,10 +41,13 @@ export async function fixedRateLoad(opts: FixedRateOptions): Promise<FixedRateRe
   const total = Math.round(opts.ratePerSec * opts.durationSec);
   const intervalMs = 1000 / opts.ratePerSec;
   const timeoutMs = opts.timeoutMs ?? 10_000;
-  const agent = new http.Agent({ keepAlive: true, maxSockets: opts.connections });
+  // FIFO: the connections take turns, as a load generator's do; with the default LIFO most of them would
+  // sit idle until the server closed them, and a request sent as it did so would fail.
+  const agent = new http.Agent({ keepAlive: true, maxSockets: opts.connections, scheduling: 'fifo' });
   const url = new URL(opts.url);
   const latencies: number[] = [];
   let errors = 0;
+  const errorKinds: Record<string, number> = {};
   let maxSendLagMs = 0;
   let inFlight = 0;
   const waiting: number[] = [];
@@ -64,28 +69,30 @@ export async function fixedRateLoad(opts: FixedRateOptions): Promise<FixedRateRe
     const body = opts.body?.();
     const headers = { ...opts.headers, ...(body === undefined ? {} : { 'content-length': String(Buffer.byteLength(body)) }) };
     let done = false;
-    const fail = () => {
+    const fail = (kind: string) => {
       if (done) return;
       done = true;
       errors++;
+      errorKinds[kind] = (errorKinds[kind] ?? 0) + 1;
       settle();
     };
     const req = http.request({ agent, host: url.hostname, port: url.port, path: url.pathname + url.search, method: opts.method ?? 'GET', headers }, (res) => {
       res.resume();
       res.on('end', () => {
+        const status = res.statusCode ?? 0;
+        if (status < 200 || status >= 300) return fail(`status ${status}`);
         if (done) return;
         done = true;
-        if (res.statusCode !== undefined && res.statusCode >= 200 && res.statusCode < 300) latencies.push(performance.now() - due);
-        else errors++;
+        latencies.push(performance.now() - due);
         settle();
       });
-      res.on('error', fail);
+      res.on('error', (e: NodeJS.ErrnoException) => fail(e.code ?? e.message));
     });
     req.setTimeout(Math.max(1, due + timeoutMs - performance.now()), () => {
+      fail('timeout');
       req.destroy();
-      fail();
     });
-    req.on('error', fail);
+    req.on('error', (e: NodeJS.ErrnoException) => fail(e.code ?? e.message));
     req.end(body);
   }
 
@@ -119,6 +126,7 @@ export async function fixedRateLoad(opts: FixedRateOptions): Promise<FixedRateRe
     p99: q(0.99),
     max: latencies.at(-1) ?? NaN,
     errors,
+    errorKinds,
     maxSendLagMs,
   };
 }

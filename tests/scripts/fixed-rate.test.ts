@@ -73,6 +73,7 @@ describe('fixed-rate load', () => {
     expect(r.sent).toBe(20);
     // Requests 0, 5, 10 and 15 answered 503, and request 3 never: five errors, fifteen latencies.
     expect(r.errors).toBe(5);
+    expect(r.errorKinds).toEqual({ 'status 503': 4, timeout: 1 });
     expect(r.latencies).toHaveLength(15);
   });
 });
