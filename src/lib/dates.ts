@@ -67,6 +67,11 @@ export function isTodayDate(isoDate: string): boolean {
   return sameDay(parseIsoDate(isoDate), new Date());
 }
 
+/** Whether a moment falls on a calendar date ("2026-06-12") on this device. */
+export function isOnDate(value: string | Date, isoDate: string): boolean {
+  return sameDay(toDate(value), parseIsoDate(isoDate));
+}
+
 const pad = (n: number) => String(n).padStart(2, '0');
 // Machine formats for inputs, built by hand: date-fns' format() would pull its whole locale into the trackside page.
 const localDay = (d: Date) => `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}`;

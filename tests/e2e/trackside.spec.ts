@@ -101,6 +101,15 @@ describe('trackside on a phone (390×844)', () => {
     await page.getByRole('button', { name: 'Start logging' }).click();
     await screenshot(page, 'trackside-empty');
 
+    // The whole keypad is on the first screen, above the Save bar that stays at the bottom: "0" and
+    // "Clear" are not under it.
+    await page.evaluate(() => window.scrollTo(0, 0));
+    const saveBar = (await page.getByRole('button', { name: /^Save run/ }).locator('..').boundingBox())!;
+    for (const name of ['0', 'Clear']) {
+      const key = (await page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name, exact: true }).boundingBox())!;
+      expect(key.y + key.height, `the "${name}" key's bottom`).toBeLessThanOrEqual(saveBar.y);
+    }
+
     await logRun('47.210');
     await logRun('46.905', { cones: 2 });
     await logRun(null, { status: 'DNF' });

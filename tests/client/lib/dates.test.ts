@@ -1,6 +1,6 @@
-import { intlFormat, isToday, parseISO } from 'date-fns';
+import { intlFormat, isSameDay, isToday, parseISO } from 'date-fns';
 import { describe, expect, it } from 'vitest';
-import { formatClock, formatDateTime, formatDay, formatLongDay, isTodayDate, parseIsoDate, toLocalInputValue } from '@/lib/dates';
+import { formatClock, formatDateTime, formatDay, formatLongDay, isOnDate, isTodayDate, parseIsoDate, toLocalInputValue } from '@/lib/dates';
 
 // The app reads and shows dates without date-fns (a few KB less on every page); date-fns, an
 // independent library from npm, is the reference each case is checked against.
@@ -35,5 +35,14 @@ describe('formatting', () => {
   it('when a calendar date is today or not, then isTodayDate agrees with date-fns isToday', () => {
     const today = toLocalInputValue(new Date()).slice(0, 10);
     for (const value of [today, '2026-06-12', '1999-12-31']) expect(isTodayDate(value)).toBe(isToday(parseISO(value)));
+  });
+
+  it.each(TIMESTAMPS)('when %j is checked against the days around it, then isOnDate agrees with date-fns isSameDay', (value) => {
+    const d = parseISO(value);
+    const local = toLocalInputValue(d).slice(0, 10);
+    const [y, m, day] = local.split('-').map(Number) as [number, number, number];
+    const around = [-1, 0, 1].map((k) => toLocalInputValue(new Date(y, m - 1, day + k, 12)).slice(0, 10));
+    for (const date of around) expect(isOnDate(value, date)).toBe(isSameDay(d, parseISO(date)));
+    expect(around.filter((date) => isOnDate(value, date))).toEqual([local]);
   });
 });

@@ -122,8 +122,8 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
     <>
       <section aria-label="Setup" className="flex flex-col gap-3 rounded-lg border border-line bg-surface px-3 py-2">
         <div className="flex items-center justify-between gap-3">
-          <CurrentSetup setup={current} loading={setupsQuery.data === undefined && setups.length === 0} />
-          <Button variant="secondary" className="shrink-0" aria-expanded={quickChange} onClick={() => setQuickChange((v) => !v)}>
+          <CurrentSetup setup={current} loading={setupsQuery.data === undefined && setups.length === 0} day={event.date} />
+          <Button variant="secondary" className="shrink-0 px-3" aria-expanded={quickChange} onClick={() => setQuickChange((v) => !v)}>
             Quick change
           </Button>
         </div>

@@ -1,24 +1,27 @@
 import { Wrench } from 'lucide-react';
 import { PendingBadge } from '@/components/ui/pending-badge';
-import { formatClock, formatDay } from '@/lib/dates';
+import { formatClock, formatDay, isOnDate } from '@/lib/dates';
 import type { SetupView } from '../utils/setup-views';
 
 /**
- * The setup on the car right now, in one line; the next run will be tied to it. `loading`: the car's
- * setups have not come yet (no signal so far), which is not the same as "none recorded".
+ * The setup on the car right now, in two lines at most; the next run will be tied to it. `loading`: the
+ * car's setups have not come yet (no signal so far), which is not the same as "none recorded". `day`
+ * (yyyy-MM-dd, the event's): a setup made that day says only the time it started.
  */
-export function CurrentSetup({ setup, loading = false }: { setup: SetupView | null; loading?: boolean }) {
+export function CurrentSetup({ setup, loading = false, day }: { setup: SetupView | null; loading?: boolean; day?: string }) {
+  const sameDay = setup !== null && day !== undefined && isOnDate(setup.effectiveFrom, day);
   return (
     <div className="flex min-w-0 items-center gap-2">
       <Wrench aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
       <div className="flex min-w-0 flex-col">
-        <p className="text-sm">
+        {/* Kept to two lines, so the keypad below stays whole on a phone's first screen (each run shows the full name). */}
+        <p className="line-clamp-2 text-sm">
           <span className="text-ink-muted">Setup now: </span>
           <span className="font-bold break-words">{setup ? setup.label : loading ? 'not known yet' : 'none recorded'}</span>
         </p>
         {setup ? (
           <p className="tabular-figures flex flex-wrap items-center gap-x-2 text-xs text-ink-muted">
-            since {formatDay(setup.effectiveFrom)}, {formatClock(setup.effectiveFrom)}
+            {sameDay ? `since ${formatClock(setup.effectiveFrom)}` : `since ${formatDay(setup.effectiveFrom)}, ${formatClock(setup.effectiveFrom)}`}
             {setup.pending ? <PendingBadge state={setup.pending.state} /> : null}
           </p>
         ) : null}
