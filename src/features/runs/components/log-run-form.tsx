@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
 import { ChevronDown, ChevronUp } from 'lucide-react';
 import { adjustedTimeSec } from '@shared/calc/scoring.calc';
 import type { Person } from '@shared/season/car.schema';
@@ -56,6 +56,7 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
   const [notes, setNotes] = useState('');
   const [errors, setErrors] = useState<Errors>({});
   const [saved, setSaved] = useState<string | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
 
   const next = nextRunNumber(rows, driver.id);
   const parsed = timeText.trim() ? parseRunTime(timeText) : null;
@@ -131,6 +132,12 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
       // Nothing typed is cleared: fix the marked part and save again.
       setErrors(found);
       if (found.hot) setExtras(true);
+      // The first marked field comes into view with the focus: on a phone it may sit under the Save bar.
+      requestAnimationFrame(() => {
+        const first = formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]');
+        first?.focus();
+        first?.scrollIntoView?.({ block: 'center' });
+      });
       return;
     }
     await write.mutateAsync(createRunEntry(body));
@@ -146,8 +153,9 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
   };
 
   const pressureUnit = unitSymbol('pressure', units);
+  const refused = Boolean(errors.time || errors.runNumber || errors.cones || errors.form || Object.values(errors.hot ?? {}).some(Boolean));
   return (
-    <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Log a run" className="flex flex-col gap-3">
+    <form ref={formRef} onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Log a run" className="flex flex-col gap-3">
       <TimeKeypad
         value={timeText}
         onChange={changeTime}
@@ -234,8 +242,8 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
       <FormAlert message={errors.form} />
       {/* On a phone the Save button stays in thumb reach above the bottom bar while the form is in view. */}
       <div className="sticky bottom-[calc(3.5rem+1px+env(safe-area-inset-bottom))] z-10 -mx-3 -mb-3 flex flex-col gap-1 rounded-b-lg border-t border-line bg-surface px-3 py-2 md:static">
-        <p aria-live="polite" className="text-sm font-semibold text-ink empty:hidden">
-          {saved}
+        <p aria-live="polite" className={`text-sm font-semibold empty:hidden ${refused ? 'text-warning' : 'text-ink'}`}>
+          {refused ? 'Not saved: fix what is marked above.' : saved}
         </p>
         <Button type="submit" className="min-h-tap-lg w-full text-xl" isPending={write.isPending} pendingLabel="Saving…">
           Save run {runNumberText.trim() || next}

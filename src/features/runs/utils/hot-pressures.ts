@@ -6,6 +6,9 @@ import { inputToSi } from '@/lib/numbers';
 export type CornerTextMap = Record<Corner, string>;
 export const emptyCornerText = (): CornerTextMap => ({ lf: '', rf: '', lr: '', rr: '' });
 
+/** A plausible hot pressure for the example in an error, shown in the user's unit (224 kPa ≈ 32.5 psi). */
+const EXAMPLE_HOT_KPA = 224;
+
 /** Hot pressures typed in the user's unit, in kPa; errors per corner in the user's unit. */
 export function readPressures(
   texts: CornerTextMap,
@@ -16,7 +19,7 @@ export function readPressures(
   for (const corner of CORNERS) {
     const si = inputToSi(texts[corner], 'pressure', units);
     if (si === null) continue;
-    if (si === 'invalid') errors[corner] = 'Type a number, e.g. 32.5';
+    if (si === 'invalid') errors[corner] = `Type a number, e.g. ${formatQuantity(EXAMPLE_HOT_KPA, 'pressure', units)}`;
     else if (si < LIMITS.pressureKpa.min || si > LIMITS.pressureKpa.max) {
       errors[corner] = `Between ${formatQuantity(LIMITS.pressureKpa.min, 'pressure', units)} and ${formatQuantity(LIMITS.pressureKpa.max, 'pressure', units)}`;
     } else kpa[corner] = si;
