@@ -1,4 +1,5 @@
 import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
+import { TriangleAlert } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import { convert, formatQuantity, SI_UNITS, unitFor } from '@shared/calc/units.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
@@ -63,7 +64,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
     if (!refusal || shown.current === refusal) return;
     shown.current = refusal;
     setErrors(Object.fromEntries(Object.entries(refusal.fieldErrors ?? {}).map(([k, v]) => [k, v.join(' ')])));
-    setFormError(refusal.fieldErrors ? 'The server refused some readings; they are marked below.' : refusal.message);
+    setFormError(refusal.fieldErrors ? 'The server refused some readings; they are marked above.' : refusal.message);
   }, [refusal]);
   const uploaded = watched.status === 'delivered';
   const told = useRef(false);
@@ -110,7 +111,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
     if (Object.keys(found).length === 0 && Object.keys(corners).length === 0) found._ = 'Enter at least one corner: outer, middle and inner.';
     if (Object.keys(found).length) {
       setErrors(found);
-      setFormError(found._ ?? 'Some readings need attention; they are marked below.');
+      setFormError(found._ ?? 'Some readings need attention; they are marked above.');
       return;
     }
     const body: CreateTreadReadingBody = {
@@ -135,6 +136,14 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
   const waiting = watched.status === 'waiting';
   const reason = outbox.retryReason();
   const toUnit = (mm: number) => convert(mm, SI_UNITS.treadDepth, unitFor('treadDepth', units));
+
+  // Every position typed at or below the wear bars, in words: said in text, not by colour alone.
+  const worn = CORNERS.flatMap((corner) =>
+    positionsAcross(corner).flatMap((pos) => {
+      const si = inputToSi(texts[corner][pos], 'treadDepth', units);
+      return typeof si === 'number' && si <= WEAR_BAR_MM ? [`${CORNER_NAMES[corner].toLowerCase()} ${POSITION_WORDS[pos]} (${formatQuantity(si, 'treadDepth', units)})`] : [];
+    }),
+  );
 
   return (
     <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Tread reading" className="flex flex-col gap-5">
@@ -162,7 +171,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
             />
             <span>
               {s.label}
-              {s.size ? <span className="font-normal text-ink-muted"> · {s.size}</span> : null}
+              {s.size && !s.label.includes(s.size) ? <span className="font-normal text-ink-muted"> · {s.size}</span> : null}
             </span>
           </label>
         ))}
@@ -237,6 +246,15 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
           )}
         />
         <p className="text-xs text-ink-muted">The faint number in each box is the last reading; ▲/▼ under it is the change since then.</p>
+        {worn.length > 0 ? (
+          <p role="status" className="mt-1 flex items-start gap-2 rounded border-2 border-warning-line bg-warning-surface px-3 py-2 text-sm font-semibold text-warning">
+            <TriangleAlert aria-hidden="true" className="mt-0.5 size-5 shrink-0" />
+            <span>
+              At or below the wear bars ({formatQuantity(WEAR_BAR_MM, 'treadDepth', units)}): {worn.join(', ')}. A tyre worn to them is done: follow your local
+              law and the tyre maker’s advice.
+            </span>
+          </p>
+        ) : null}
       </div>
 
       <TextField label="Taken at" type="datetime-local" value={takenAt} error={errors.takenAt} onChange={(e) => setTakenAt(e.target.value)} />

@@ -35,6 +35,23 @@ describe('tread entry', () => {
     expect(changeUnder(screen.getByLabelText('Left rear inner')).trim()).toBe('');
   });
 
+  it('when a depth at or below the wear bars is typed, then the form says which position in words, not by colour alone', async () => {
+    stub(METRIC_PREFERENCES);
+    renderApp(`/cars/${IDS.car}/tread?set=${IDS.tyreSet}`);
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText('Left rear outer'), '2.0');
+    expect(screen.queryByText(/At or below the wear bars/)).toBeNull();
+    await u.clear(screen.getByLabelText('Left rear outer'));
+    // Wear bars at 2/32 in, 1.6 mm (FMVSS 109/119; EU minimum 1.6 mm, from memory): 1.2 mm and 1.6 mm are worn to them.
+    await u.type(screen.getByLabelText('Left rear outer'), '1.2');
+    await u.type(screen.getByLabelText('Right front inner'), '1.6');
+    const status = screen.getAllByRole('status').find((el) => el.textContent?.startsWith('At or below the wear bars'))!;
+    expect(status.textContent).toContain('At or below the wear bars (1.6 mm)');
+    expect(status.textContent).toContain('right front inner (1.6 mm)');
+    expect(status.textContent).toContain('left rear outer (1.2 mm)');
+  });
+
   it('when the reading is saved in 1/32 in, then the outbox holds it in mm with a device-made id', async () => {
     stub(IMPERIAL_PREFERENCES);
     const { outbox } = renderApp(`/cars/${IDS.car}/tread`, { outboxEntries: [blockingEntry()] });
