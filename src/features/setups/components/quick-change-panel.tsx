@@ -5,6 +5,7 @@ import { CORNERS, type Corner } from '@shared/season/corners';
 import { QUICK_CHANGE_FIELDS, quickChangeInputSchema, type QuickChangeInput } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
+import { Caution } from '@/components/ui/caution';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SelectField } from '@/components/ui/select-field';
 import { cn } from '@/lib/cn';
@@ -169,8 +170,10 @@ export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProp
         const step = stepOf(line.field, units);
         const errorId = `qc-${line.id}-error`;
         const preview = amount !== null ? applyQuickChange(base, [{ field: line.field, corners: line.corners, ...(line.mode === 'delta' ? { delta: toSi(amount, quantity, units) } : { value: toSi(amount, quantity, units) }) }]) : null;
+        // What this change would leave out of range is said as it is typed, not only on Save.
+        const lineError = errors[line.id] || (preview?.problems.length ? preview.problems.join('. ') : '');
         return (
-          <fieldset key={line.id} className="flex flex-col gap-3 rounded border border-line p-3" aria-describedby={errors[line.id] ? errorId : undefined}>
+          <fieldset key={line.id} className="flex flex-col gap-3 rounded border border-line p-3" aria-describedby={lineError ? errorId : undefined}>
             <legend className="px-1 font-bold">Change {index + 1}</legend>
             <div className="flex items-end gap-2">
               <SelectField
@@ -275,8 +278,8 @@ export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProp
                     value={line.amount}
                     placeholder={line.mode === 'delta' ? `±${step}` : ''}
                     onChange={(e) => update(line.id, { amount: e.target.value })}
-                    aria-invalid={errors[line.id] ? true : undefined}
-                    aria-describedby={errors[line.id] ? errorId : undefined}
+                    aria-invalid={lineError ? true : undefined}
+                    aria-describedby={lineError ? errorId : undefined}
                     className="tabular-figures min-h-tap-lg w-full min-w-0 bg-transparent px-3 text-center text-2xl font-bold outline-none"
                   />
                   <span className="shrink-0 pr-3 font-semibold text-ink-muted">{unit}</span>
@@ -292,9 +295,9 @@ export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProp
                   </button>
                 ) : null}
               </div>
-              {errors[line.id] ? (
+              {lineError ? (
                 <p id={errorId} className="text-sm font-semibold text-warning">
-                  {errors[line.id]}
+                  {lineError}
                 </p>
               ) : null}
             </div>
@@ -316,6 +319,13 @@ export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProp
           className="min-h-tap rounded border border-line-strong bg-surface px-3 text-base"
         />
       </label>
+      <Caution title="Before you change the car">
+        <p>
+          Set pressures with a gauge you trust, and let hot tyres cool before comparing with cold figures. Change camber, toe or ride
+          height only with the car on stands on firm, level ground, never under a car held only by a jack; have the alignment checked
+          afterwards. Stay within the manufacturer’s data and your event’s rules.
+        </p>
+      </Caution>
       <FormAlert message={formError} />
       <div className="flex gap-2">
         <Button type="submit" className="min-h-tap-lg flex-1 text-lg" isPending={write.isPending} pendingLabel="Saving…">

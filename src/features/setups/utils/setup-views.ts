@@ -7,6 +7,7 @@ import {
   type Setup,
   type SetupCorner,
 } from '@shared/season/setup.schema';
+import { CORNER_NAMES } from '@/components/corner-grid/corner-grid';
 import type { OutboxEntry, OutboxError } from '@/lib/outbox';
 import type { CreateSetupBody } from '../api/create-setup';
 import type { QuickChangeBody } from '../api/quick-change';
@@ -61,13 +62,13 @@ export function applyQuickChange(base: Pick<Setup, 'corners'> | null, changes: Q
       const current = corners[corner][change.field];
       if (change.value !== undefined) corners[corner][change.field] = change.value;
       else if (current === null || current === undefined) {
-        problems.push(`No ${FIELD_WORDS[change.field]} is recorded on ${corner.toUpperCase()} to change; set a value instead`);
+        problems.push(`No ${FIELD_WORDS[change.field]} is recorded on the ${CORNER_NAMES[corner].toLowerCase()} to change; set a value instead`);
       } else corners[corner][change.field] = Math.round((current + (change.delta ?? 0)) * 1e6) / 1e6;
     }
   }
   for (const corner of CORNERS) {
     const result = setupCornerSchema.safeParse(corners[corner]);
-    if (!result.success) for (const issue of result.error.issues) problems.push(`${corner.toUpperCase()}: ${issue.message}`);
+    if (!result.success) for (const issue of result.error.issues) problems.push(`${CORNER_NAMES[corner]}: ${issue.message}`);
   }
   return { corners, problems };
 }

@@ -369,6 +369,45 @@ describe('event day', () => {
     expect(within(row).getByText(`Setup: ${body.label}`)).toBeTruthy();
   });
 
+  it('when a quick change would take a corner out of range, then the line says which as it is typed, with the caution beside it, and nothing is saved', async () => {
+    stubWithRuns([]);
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+    expect(within(form).getByRole('complementary', { name: 'Before you change the car' }).textContent).toMatch(/stands/);
+    await u.selectOptions(within(form).getByLabelText('What'), 'coldPressureKpa');
+    await u.click(within(form).getByRole('button', { name: 'Front' }));
+    await u.click(within(form).getByRole('button', { name: 'Set to' }));
+    const amount = within(form).getByLabelText(/Set cold pressure to/);
+    await u.type(amount, '900');
+
+    // Cold pressure is held to 50–450 kPa, as the server holds it; said per corner before Save.
+    expect(amount.getAttribute('aria-invalid')).toBe('true');
+    expect(within(form).getByText(/Left front: .*between 50 and 450 kPa.*Right front: /)).toBeTruthy();
+    await u.click(within(form).getByRole('button', { name: 'Save quick change' }));
+    expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+
+  it('when a run cannot be saved, then the Save bar says so and the first marked field takes the focus', async () => {
+    stubWithRuns([]);
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    await keypad(u, '45.2');
+    await u.click(screen.getByRole('button', { name: /Hot pressures and note/ }));
+    await u.type(screen.getByLabelText('Left rear hot pressure'), '3o');
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+
+    expect(await screen.findByText('Not saved: fix what is marked above.')).toBeTruthy();
+    await waitFor(() => expect(document.activeElement).toBe(screen.getByLabelText('Left rear hot pressure')));
+    expect(screen.getByText('Type a number, e.g. 224 kPa')).toBeTruthy();
+    expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+
   it('when the car and driver have not been chosen at this event, then they are asked once and remembered', async () => {
     localStorage.clear();
     stubWithRuns([]);
