@@ -17,7 +17,7 @@ import { unitSymbol } from '@/lib/numbers';
 import { FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
 import { useUnits } from '@/lib/units-context';
 import { useCreateSuggestion, type CreateSuggestionBody } from '../api/create-suggestion';
-import { CORNER_SETS, FIELD_LABELS, newChangeRow, previewChanges, rowToChange, type ChangeRow } from '../utils/change-rows';
+import { CORNER_SETS, FIELD_LABELS, newChangeRow, outOfRange, previewChanges, rowToChange, type ChangeRow } from '../utils/change-rows';
 import { FromTo } from './change-preview';
 import { TextArea } from './text-area';
 
@@ -57,7 +57,9 @@ function RowEditor({ row, index, count, base, before, errors, onChange, onRemove
   const cells = change ? previewChanges(base, [...before, change]).slice(-change.corners.length) : [];
   const at = `changes.${index}`;
   const cornerError = errors[`${at}.corners`];
-  const amountError = errors[`${at}.${row.mode}`] ?? errors[`${at}.delta`] ?? errors[`${at}.value`] ?? errors[`${at}.field`];
+  // A value the change would take out of range is said as it is typed, not only when the server refuses it.
+  const rangeError = outOfRange(cells).join('. ') || undefined;
+  const amountError = errors[`${at}.${row.mode}`] ?? errors[`${at}.delta`] ?? errors[`${at}.value`] ?? errors[`${at}.field`] ?? rangeError;
   const name = `change ${index + 1}`;
 
   return (
@@ -142,7 +144,7 @@ function RowEditor({ row, index, count, base, before, errors, onChange, onRemove
         value={row.amount}
         placeholder={row.mode === 'delta' ? 'e.g. -0.5' : ''}
         onChange={(e) => onChange({ amount: e.target.value })}
-        hint={row.mode === 'delta' ? 'Negative for less, positive for more.' : undefined}
+        hint={row.mode === 'delta' ? 'Added to each corner’s value: −0.5 takes −2.4 to −2.9, +0.5 takes it to −1.9.' : undefined}
         error={amountError}
       />
     </fieldset>
@@ -194,7 +196,10 @@ export function SuggestionForm({ carId, base, onCreated }: SuggestionFormProps) 
     rows.forEach((row, i) => {
       const { change, problems } = rowToChange(row, units);
       for (const p of problems) found[`changes.${i}.${p.path}`] ??= p.message;
-      if (change) changes.push(change);
+      if (!change) return;
+      const range = outOfRange(previewChanges(base, [...changes, change]).slice(-change.corners.length));
+      if (range.length) found[`changes.${i}.${row.mode}`] ??= range.join('. ');
+      changes.push(change);
     });
     const body: CreateSuggestionBody = { id, baseSetupId: base.id, title, rationale, changes };
     const checked = createSuggestionInputSchema.safeParse(body);
@@ -207,7 +212,7 @@ export function SuggestionForm({ carId, base, onCreated }: SuggestionFormProps) 
     }
     setErrors(found);
     if (Object.keys(found).length > 0 || !checked.success) {
-      setFormError('Some answers need another look; they are marked below.');
+      setFormError('Some answers need another look; they are marked above.');
       return;
     }
     create.mutate(
@@ -222,7 +227,7 @@ export function SuggestionForm({ carId, base, onCreated }: SuggestionFormProps) 
             setFormError('No connection. Everything you typed is still here; send it again when you have signal.');
           } else if (isApiError(error) && error.hasFieldErrors) {
             setErrors(flatten(error.fieldErrors));
-            setFormError('The server could not take some answers; they are marked below.');
+            setFormError('The server could not take some answers; they are marked above.');
           } else {
             setFormError(isApiError(error) ? error.message : 'Something went wrong. Everything you typed is still here; try again.');
           }

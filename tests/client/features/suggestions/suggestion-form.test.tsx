@@ -133,7 +133,8 @@ describe('suggesting a setup change', () => {
     const u = userEvent.setup();
     await fillWords(u);
     await u.click(within(change(1)).getByRole('button', { name: 'All four' }));
-    await u.type(within(change(1)).getByLabelText('Change camber by'), '-12');
+    // The server's own limits decide here (the stub refuses what the form took).
+    await u.type(within(change(1)).getByLabelText('Change camber by'), '-0.5');
     await u.click(screen.getByRole('button', { name: 'Send the suggestion' }));
 
     const camberError = await within(change(1)).findByText('Camber must be between -10 and 5 °');
@@ -142,7 +143,7 @@ describe('suggesting a setup change', () => {
     expect(amount.getAttribute('aria-describedby')).toContain(camberError.id);
     expect(screen.getByText('Use at most 120 characters')).toBeTruthy();
     // Not a toast: the form says it.
-    expect(screen.getByText('The server could not take some answers; they are marked below.')).toBeTruthy();
+    expect(screen.getByText('The server could not take some answers; they are marked above.')).toBeTruthy();
 
     await u.clear(amount);
     await u.type(amount, '-2');
@@ -150,6 +151,28 @@ describe('suggesting a setup change', () => {
     await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(2));
     const [first, second] = requestsTo(fetchMock, POST).map((r) => (r.body as { id: string }).id);
     expect(second).toBe(first);
+  });
+
+  it('when a change would take a corner out of range, then the form says which corner as it is typed and sends nothing', async () => {
+    const fetchMock = stub(METRIC_PREFERENCES);
+    renderApp(PATH);
+    const u = userEvent.setup();
+    await fillWords(u);
+    await u.click(within(change(1)).getByRole('button', { name: 'All four' }));
+    const amount = within(change(1)).getByLabelText('Change camber by');
+    await u.type(amount, '-20');
+
+    // Camber is held to −10° … +5° (the same limit the server applies); every corner would pass it.
+    expect(amount.getAttribute('aria-invalid')).toBe('true');
+    const said = within(change(1)).getByText(/Left front: Camber must be between -10 and 5/);
+    expect(said.textContent).toMatch(/Right rear: Camber must be between/);
+    await u.click(screen.getByRole('button', { name: 'Send the suggestion' }));
+    expect(requestsTo(fetchMock, POST)).toHaveLength(0);
+    expect(screen.getByText('Some answers need another look; they are marked above.')).toBeTruthy();
+
+    await u.clear(amount);
+    await u.type(amount, '-0.5');
+    expect(within(change(1)).queryByText(/Camber must be between/)).toBeNull();
   });
 
   it('shows the caution that such changes follow the maker’s data and are made by someone competent', async () => {
