@@ -100,7 +100,7 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
         focus = false;
       } else leftOver.push(messages.join(' '));
     }
-    setFormError(leftOver.length ? leftOver.join(' ') : refusal.fieldErrors ? 'The server refused some values; they are marked below.' : refusal.message);
+    setFormError(leftOver.length ? leftOver.join(' ') : refusal.fieldErrors ? 'The server refused some values; they are marked above.' : refusal.message);
   }, [refusal, setError]);
 
   const uploaded = watched.status === 'delivered';
@@ -153,7 +153,7 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
         if (SERVER_FIELDS.has(key)) setError(key as Path<SetupFormValues>, { type: 'client', message: local[key] }, { shouldFocus: i === 0 });
       });
       const stray = keys.filter((k) => !SERVER_FIELDS.has(k));
-      setFormError(stray.length ? stray.map((k) => local[k]).join(' ') : 'Some values need attention; they are marked below.');
+      setFormError(stray.length ? stray.map((k) => local[k]).join(' ') : 'Some values need attention; they are marked above.');
       return;
     }
     if (entryKey && watched.status === 'failed') {

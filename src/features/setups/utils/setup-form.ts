@@ -49,7 +49,8 @@ export interface ConvertedCorners {
 /**
  * The typed values in SI, checked against the plausible ranges (shown in the user's units).
  * A value left as it was shown keeps its stored SI number exactly, so a round trip through
- * psi or inches never shows a change nobody made.
+ * psi or inches never shows a change nobody made. A value that cannot be taken keeps the one it
+ * started with, beside its error: it is not yet a change, and certainly not a cleared value.
  */
 export function textsToSi(
   texts: Record<Corner, CornerTexts>,
@@ -66,6 +67,10 @@ export function textsToSi(
       const text = texts[corner]?.[field] ?? '';
       const path = `corners.${corner}.${field}`;
       const info = FIELD_INFO[field];
+      const refuse = (message: string) => {
+        errors[path] = message;
+        out[field] = initialSi?.[corner]?.[field] ?? null;
+      };
       if (text === (initialTexts[corner]?.[field] ?? '') && text !== '') {
         out[field] = initialSi?.[corner]?.[field] ?? null;
         continue;
@@ -73,21 +78,21 @@ export function textsToSi(
       if (!info.quantity) {
         const parsed = parseDecimal(text);
         if (parsed.kind === 'empty') out[field] = null;
-        else if (parsed.kind === 'invalid' || !Number.isInteger(parsed.value)) errors[path] = 'Clicks are whole numbers, e.g. 12';
+        else if (parsed.kind === 'invalid' || !Number.isInteger(parsed.value)) refuse('Clicks are whole numbers, e.g. 12');
         else {
           const max = maxClicks(car, corner);
-          if (parsed.value < 0 || parsed.value > max) errors[path] = `Use 0 to ${max} clicks`;
+          if (parsed.value < 0 || parsed.value > max) refuse(`Use 0 to ${max} clicks`);
           else out[field] = parsed.value;
         }
         continue;
       }
       const si = inputToSi(text, info.quantity, units);
       if (si === 'invalid') {
-        errors[path] = 'Type a number, e.g. 1.5';
+        refuse('Type a number, e.g. 1.5');
         continue;
       }
       if (si !== null && (si < info.limits.min || si > info.limits.max)) {
-        errors[path] = `${info.label} must be between ${formatQuantity(info.limits.min, info.quantity, units)} and ${formatQuantity(info.limits.max, info.quantity, units)}`;
+        refuse(`${info.label} must be between ${formatQuantity(info.limits.min, info.quantity, units)} and ${formatQuantity(info.limits.max, info.quantity, units)}`);
         continue;
       }
       out[field] = si;

@@ -60,7 +60,7 @@ export function RotationForm({ carId, set, onSaved, onCancel }: RotationFormProp
   });
 
   const duplicate = CORNERS.some((c) => cornerError(c));
-  const summary = errors.positions?.message ?? (duplicate ? 'Each tyre can be on one corner only; the corners marked below share one.' : null);
+  const summary = errors.positions?.message ?? (duplicate ? 'Each tyre can be on one corner only; the corners marked above share one.' : null);
 
   return (
     <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label={`Rotate ${set.label}`} className="flex flex-col gap-4 rounded border border-line p-3">

@@ -99,5 +99,12 @@ describe('setup editor', () => {
 
     expect(await screen.findByText('Cold pressure must be between 7.3 psi and 65.3 psi')).toBeTruthy();
     expect(requestsTo(fetchMock, SETUPS)).toHaveLength(0);
+    // A value the form cannot take is not a change yet, and certainly not a cleared one.
+    const diff = screen.getByRole('region', { name: 'Changes from the starting setup' });
+    expect(within(diff).queryByText(/cleared/)).toBeNull();
+    await u.clear(pressure);
+    await u.type(pressure, 'abc');
+    expect(within(diff).queryByText(/cleared/)).toBeNull();
+    expect(within(diff).getByText('Nothing changed yet.')).toBeTruthy();
   });
 });
