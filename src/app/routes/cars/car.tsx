@@ -4,7 +4,9 @@ import { ChartScatter, FileUp, Plus, Ruler } from 'lucide-react';
 import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
 import { Button, buttonClasses } from '@/components/ui/button';
+import { PageMessage } from '@/components/ui/page-message';
 import { SectionCard } from '@/components/ui/section-card';
+import { isApiError } from '@/lib/api-client';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
@@ -107,8 +109,24 @@ function DataSection({ carId }: { carId: string }) {
 /** One car: its setup history, its tyres, its drivers, and its change log. */
 export function CarPage() {
   const { carId = '' } = useParams();
-  const { data: car, isPending, isError } = useCar(carId);
+  const { data: car, isPending, isError, error } = useCar(carId);
   const { data: me } = useMe();
+  // A car that is gone or not shared with this account: one clear message, not a page of empty sections.
+  if (!car && isApiError(error) && (error.status === 404 || error.status === 403)) {
+    return (
+      <PageMessage
+        variant="in-shell"
+        title="Car not found"
+        actions={
+          <Link to={paths.cars} className={buttonClasses('secondary')}>
+            Back to your cars
+          </Link>
+        }
+      >
+        <p>It may have been deleted, or its driver has not shared it with you.</p>
+      </PageMessage>
+    );
+  }
   return (
     <div className="flex flex-col gap-6">
       <title>{`${car?.name ?? 'Car'} · Scrubline`}</title>
