@@ -165,8 +165,10 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
         label={`Raw time · ${driver.displayName}`}
         aside={
           <label className="flex shrink-0 items-center gap-2">
-            <span className="text-sm font-semibold">Run number</span>
+            {/* "Run" alone keeps the time's label on one line, so the keypad fits above the Save bar. */}
+            <span className="text-sm font-semibold">Run</span>
             <input
+              aria-label="Run number"
               type="text"
               inputMode="numeric"
               autoComplete="off"
@@ -243,7 +245,7 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
       {/* On a phone the Save button stays in thumb reach above the bottom bar while the form is in view. */}
       <div className="sticky bottom-[calc(3.5rem+1px+env(safe-area-inset-bottom))] z-10 -mx-3 -mb-3 flex flex-col gap-1 rounded-b-lg border-t border-line bg-surface px-3 py-2 md:static">
         <p aria-live="polite" className={`text-sm font-semibold empty:hidden ${refused ? 'text-warning' : 'text-ink'}`}>
-          {refused ? 'Not saved: fix what is marked above.' : saved}
+          {refused ? 'Not saved: fix what is marked.' : saved}
         </p>
         <Button type="submit" className="min-h-tap-lg w-full text-xl" isPending={write.isPending} pendingLabel="Saving…">
           Save run {runNumberText.trim() || next}

@@ -65,7 +65,7 @@ export function TimeKeypad({ value, onChange, onPaste, preview, error, label = '
         <span className="pl-2 text-lg font-semibold text-ink-muted">s</span>
       </div>
       <p id={`${id}-note`} role={error ? 'alert' : undefined} className={cn('tabular-figures min-h-6 text-sm font-semibold', error ? 'text-warning' : 'text-ink-muted')}>
-        {error ?? preview ?? 'Type or paste, e.g. 45.678 or 1:05.432'}
+        {error ?? preview ?? 'Type or paste: 45.678 or 1:05.432'}
       </p>
       <div className="grid grid-cols-4 gap-2" role="group" aria-label="Time keypad">
         {KEYS.slice(0, 3).map((k) => (

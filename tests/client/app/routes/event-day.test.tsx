@@ -402,7 +402,7 @@ describe('event day', () => {
     await u.type(screen.getByLabelText('Left rear hot pressure'), '3o');
     await u.click(screen.getByRole('button', { name: 'Save run 1' }));
 
-    expect(await screen.findByText('Not saved: fix what is marked above.')).toBeTruthy();
+    expect(await screen.findByText('Not saved: fix what is marked.')).toBeTruthy();
     await waitFor(() => expect(document.activeElement).toBe(screen.getByLabelText('Left rear hot pressure')));
     expect(screen.getByText('Type a number, e.g. 224 kPa')).toBeTruthy();
     expect(outbox.getSnapshot()).toHaveLength(0);
