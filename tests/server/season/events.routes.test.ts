@@ -131,7 +131,7 @@ describe('GET /api/events/:eventId/summary', () => {
     expect(res.body.event.id).toBe(d.eventId);
     expect(res.body.entries).toHaveLength(1);
     const entry = res.body.entries[0];
-    // REFERENCE.md §8 worked example: runs [52.101 + 1 cone, DNF, 51.880] → best 51.880 (time plus penalties)
+    // Worked by hand: runs [52.101 + 1 cone, DNF, 51.880] → best 51.880 (time plus penalties, SCCA Solo Rules §1.2.1)
     expect(entry).toMatchObject({
       carId: d.carId,
       carName: 'Blue roadster',

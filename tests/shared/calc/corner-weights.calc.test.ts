@@ -6,9 +6,9 @@ import { convert, STANDARD_GRAVITY } from '../../../shared/calc/units.calc';
 import { expectClose, expectToDigits } from './expect-digits';
 
 // Percentages: definitions, common practice (Hotchkis on weight distribution; Schroeder "Understanding Corner Weights");
-// worked example REFERENCE.md §5. Perch change: rigid-chassis statics, no stored published source (REFERENCE.md §5
+// worked example computed by hand. Perch change: rigid-chassis statics, no published source (the app
 // labels it an approximation); checked here against an independent first-principles solve with mathjs.
-const CORNER_SOURCE = 'REFERENCE.md §5 worked example; common practice';
+const CORNER_SOURCE = 'worked example by hand; common practice';
 
 const CAR = { lf: 720, rf: 680, lr: 610, rr: 590 }; // "lb" scale readings; percentages do not depend on the unit
 
@@ -23,7 +23,7 @@ describe('cornerWeights', () => {
     expectToDigits(w.crossPct, '50.38');
   });
 
-  it('when cross is computed, then it is LF + RR (Scrubline\'s convention), NOT the oval-track "wedge" RF + LR (REFERENCE.md §5)', () => {
+  it('when cross is computed, then it is LF + RR (Scrubline\'s convention), NOT the oval-track "wedge" RF + LR (common practice)', () => {
     const w = cornerWeights({ lf: 300, rf: 250, lr: 250, rr: 300 });
     expect(w.crossPct).toBeCloseTo((600 / 1100) * 100, 12);
     expect(Math.abs(w.crossPct - (500 / 1100) * 100)).toBeGreaterThan(5);
@@ -120,14 +120,14 @@ describe('wedgeChange', () => {
   const k200 = convert(200, 'lbf/in', 'N/mm');
   const allK200 = { lf: k200, rf: k200, lr: k200, rr: k200 };
 
-  it('when LF is raised 0.25 in on 200 lbf/in all round, then X = 12.5 lb: LF and RR gain, RF and LR lose (REFERENCE.md §5 worked example)', () => {
+  it('when LF is raised 0.25 in on 200 lbf/in all round, then X = 12.5 lb: LF and RR gain, RF and LR lose (rigid-chassis statics, worked by hand)', () => {
     const change = wedgeChange({ wheelRatesNPerMm: allK200, corner: 'lf', wheelOffsetMm: convert(0.25, 'in', 'mm') });
     for (const [c, sign] of [['lf', 1], ['rf', -1], ['lr', -1], ['rr', 1]] as const) {
       expectToDigits(convert(change[c], 'kg', 'lb'), String(12.5 * sign));
     }
   });
 
-  it('when that change is applied to the 2600 lb car, then cross goes from 50.38 % to 51.35 % (REFERENCE.md §5 worked example)', () => {
+  it('when that change is applied to the 2600 lb car, then cross goes from 50.38 % to 51.35 % (rigid-chassis statics, worked by hand)', () => {
     const change = wedgeChange({ wheelRatesNPerMm: allK200, corner: 'lf', wheelOffsetMm: convert(0.25, 'in', 'mm') });
     const lb = (c: Corner) => convert(change[c], 'kg', 'lb');
     const after = cornerWeights({ lf: CAR.lf + lb('lf'), rf: CAR.rf + lb('rf'), lr: CAR.lr + lb('lr'), rr: CAR.rr + lb('rr') });
@@ -135,7 +135,7 @@ describe('wedgeChange', () => {
     expectToDigits(after.crossPct, '51.35');
   });
 
-  it('when the front track is wider, then the rear corners change by X·t_f/t_r (REFERENCE.md §5 formula)', () => {
+  it('when the front track is wider, then the rear corners change by X·t_f/t_r (rigid-chassis statics)', () => {
     const k = { lf: 40, rf: 30, lr: 25, rr: 35 };
     const change = wedgeChange({ wheelRatesNPerMm: k, corner: 'lf', wheelOffsetMm: 5, trackFrontMm: 1500, trackRearMm: 1450 });
     const r = 1500 / 1450;

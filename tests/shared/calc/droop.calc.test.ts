@@ -5,8 +5,8 @@ import { convert, NEWTONS_PER_POUND_FORCE } from '../../../shared/calc/units.cal
 import { expectToDigits } from './expect-digits';
 
 // F_s = F_w/MR; x_s = F_s/k_s; d_s = d_w·MR; seated iff x_s ≥ d_s; bump = (stroke − droop − bump stop)/MR.
-// Common practice; worked values REFERENCE.md §9.
-const SOURCE = 'REFERENCE.md §9 worked example (common practice)';
+// Common practice; worked values computed by hand.
+const SOURCE = 'worked example by hand (common practice)';
 const lbf = (x: number) => x * NEWTONS_PER_POUND_FORCE;
 const lbfPerIn = (x: number) => convert(x, 'lbf/in', 'N/mm');
 const inch = (x: number) => convert(x, 'in', 'mm');
@@ -68,7 +68,7 @@ describe('bumpTravelAtWheelMm', () => {
     expectToDigits(toIn(bumpTravelAtWheelMm({ strokeMm: inch(5), droopAtDamperMm: inch(2), motionRatio: 0.65 })), '4.615');
   });
 
-  it('when a bump stop takes part of the stroke, then its length comes off before dividing by MR (REFERENCE.md §9)', () => {
+  it('when a bump stop takes part of the stroke, then its length comes off before dividing by MR (common practice)', () => {
     const r = bumpTravelAtWheelMm({ strokeMm: 127, droopAtDamperMm: 50.8, bumpStopMm: 25, motionRatio: 0.65 });
     expect(r).toBeCloseTo((127 - 50.8 - 25) / 0.65, 12);
   });
@@ -80,7 +80,7 @@ describe('bumpTravelAtWheelMm', () => {
 
 describe('compressedLengthCheck', () => {
   // Common practice: an adjustable damper's compressed length stays close to the original's — a little shorter
-  // at most, around 13–16 mm (REFERENCE.md §9).
+  // at most, around 13–16 mm (common practice).
   it.each([
     { compressed: 400, reference: 400, tolerance: undefined, difference: 0, within: true, why: 'the same length' },
     { compressed: 390, reference: 400, tolerance: undefined, difference: -10, within: true, why: '10 mm shorter (inside 13)' },

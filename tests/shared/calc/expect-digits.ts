@@ -1,8 +1,8 @@
 import { expect } from 'vitest';
 
 /**
- * |actual − expected| ≤ half a unit in the last decimal of `expected` as written (REFERENCE.md: "allow ±0.5 in the
- * last digit shown").
+ * |actual − expected| ≤ half a unit in the last decimal of `expected` as written: a value quoted to a fixed number of
+ * decimals is good to ±0.5 in the last digit shown (common practice).
  */
 export function expectToDigits(actual: number, expected: string): void {
   const decimals = expected.split('.')[1]?.length ?? 0;

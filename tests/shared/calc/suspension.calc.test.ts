@@ -6,8 +6,8 @@ import { convert } from '../../../shared/calc/units.calc';
 import { expectClose, expectToDigits } from './expect-digits';
 
 // Sources: Barton & Fieldhouse, Automotive Chassis Engineering (Springer 2018) §3.9 eqs 3.29–3.33 (k_w = k_s·MR²·cos²θ;
-// f = (1/2π)√(k/m)); Mark Ortiz, Chassis Newsletter Jan 2002 (f = .159·√(S/m)). Worked values: REFERENCE.md §4.
-const BARTON = 'Barton & Fieldhouse §3.9 / REFERENCE.md §4';
+// f = (1/2π)√(k/m)); Mark Ortiz, Chassis Newsletter Jan 2002 (f = .159·√(S/m)). Worked values computed by hand from those equations.
+const BARTON = 'Barton & Fieldhouse §3.9, eqs 3.29–3.33';
 const lbfPerIn = (x: number) => convert(x, 'lbf/in', 'N/mm');
 const toLbfPerIn = (x: number) => convert(x, 'N/mm', 'lbf/in');
 

@@ -5,8 +5,8 @@ import { tyreDimensions } from '../../../shared/calc/tyre.calc';
 import { expectClose, expectToDigits } from './expect-digits';
 
 // Formula: ETRTO / Tire and Rim Association conventions (from memory, consistent with ETRTO Engineering Design
-// Information); aspect ratio = height / width × 100 (Yokohama "Basic Tyre Knowledge"). Worked values: REFERENCE.md §1.
-const SOURCE = 'REFERENCE.md §1 table (ETRTO/TRA nominal design values)';
+// Information); aspect ratio = height / width × 100 (Yokohama "Basic Tyre Knowledge"). Worked values computed by hand from that formula.
+const SOURCE = 'ETRTO/TRA nominal design values (formula from memory)';
 
 describe('tyreDimensions: nominal values', () => {
   it.each([
@@ -23,7 +23,7 @@ describe('tyreDimensions: nominal values', () => {
     expectToDigits(d.revsPerMile, row.perMile);
   });
 
-  it('when the size is 205/60R15, then the OD rounds to the Tire and Rim Association design value 24.69 in (TRA, via REFERENCE.md §1)', () => {
+  it('when the size is 205/60R15, then the OD rounds to the Tire and Rim Association design value 24.69 in (Tire and Rim Association, from memory)', () => {
     expectToDigits(tyreDimensions('205/60R15').overallDiameterMm / 25.4, '24.69');
   });
 

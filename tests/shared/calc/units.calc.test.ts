@@ -26,7 +26,7 @@ import {
 
 // Sources: exact definitions in NIST Handbook 44 App. C and NIST SP 811 App. B (1959 international yard and pound):
 // in = 25.4 mm; lb = 0.453 592 37 kg; g_n = 9.806 65 m/s²; lbf = lb·g_n; kgf = kg·g_n; psi = lbf/in²; bar = 100 kPa;
-// °F = °C·9/5 + 32. Worked values from docs REFERENCE.md §3, which allows ±0.5 in the last digit shown.
+// °F = °C·9/5 + 32. Worked values from those exact definitions, allowing ±0.5 in the last digit shown.
 const NIST = 'NIST Handbook 44 App. C / NIST SP 811';
 
 /** |actual − expected| ≤ half a unit in the last decimal of `expected` as written. */
@@ -55,7 +55,7 @@ const DIMENSIONS: readonly (readonly Unit[])[] = [
 const dimensionOf = (u: Unit) => DIMENSIONS.findIndex((d) => d.includes(u));
 
 describe('convert: worked values against the exact definitions', () => {
-  // [value, from, to, expected as written in REFERENCE.md §3]
+  // [value, from, to, expected as worked from NIST SP 811's exact factors]
   const cases: [number, Unit, Unit, string][] = [
     [32, 'psi', 'kPa', '220.632'],
     [32, 'psi', 'bar', '2.20632'],
@@ -102,7 +102,7 @@ describe('convert: worked values against the exact definitions', () => {
     expect(convert(10, 'degC', 'degF')).not.toBe(18); // a 10 K difference is 18 °F, but a point 10 °C is 50 °F
   });
 
-  it('when a scale reads "lb" as force, then its number equals lb mass at g_n (REFERENCE.md §3; common practice)', () => {
+  it('when a scale reads "lb" as force, then its number equals lb mass at g_n (NIST SP 811; common practice)', () => {
     // 1 lbf / g_n = 1 lb: a corner weight of 700 "lb" is 317.5 kg either way.
     expectToDigits(convert(700, 'lb', 'kg'), '317.515');
   });

@@ -5,7 +5,7 @@ import { convert } from '../../../shared/calc/units.calc';
 import { expectClose, expectToDigits } from './expect-digits';
 
 // Wear rate = depth lost per run; runs left = (depth now − limit)/rate (common practice). Wear indicators 2/32 in
-// (FMVSS 109/119); EU 1.6 mm (Directive 89/459/EEC, from memory). Patterns: ASE study guides. REFERENCE.md §7.
+// (FMVSS 109/119); EU 1.6 mm (Directive 89/459/EEC, from memory). Patterns: ASE study guides. Wear rate and runs left: common practice.
 const in32 = (x: number) => convert(x, 'in32', 'mm');
 
 /** Least squares by hand: slope = Sxy/Sxx, intercept = ȳ − slope·x̄, R² = Sxy²/(Sxx·Syy) (independent of simple-statistics). */
@@ -26,7 +26,7 @@ function byHand(points: { runs: number; depthMm: number }[]) {
 }
 
 describe('wearRateMmPerRun', () => {
-  it('when the tread goes 7.0 → 5.8 mm over 24 runs, then 0.050 mm per run (REFERENCE.md §7 worked example)', () => {
+  it('when the tread goes 7.0 → 5.8 mm over 24 runs, then 0.050 mm per run (common practice, worked by hand)', () => {
     const r = wearRateMmPerRun([
       { runs: 0, depthMm: 7.0 },
       { runs: 24, depthMm: 5.8 },
@@ -36,7 +36,7 @@ describe('wearRateMmPerRun', () => {
     expectToDigits(r!.intercept, '7.0');
   });
 
-  it('when 9/32 → 6/32 in over 3 heat cycles, then 0.79375 mm per cycle (REFERENCE.md §7 worked example)', () => {
+  it('when 9/32 → 6/32 in over 3 heat cycles, then 0.79375 mm per cycle (common practice, worked by hand)', () => {
     const r = wearRateMmPerRun([
       { runs: 0, depthMm: in32(9) },
       { runs: 3, depthMm: in32(6) },
@@ -104,7 +104,7 @@ describe('wearRateMmPerRun', () => {
 });
 
 describe('runsLeft', () => {
-  it('when 6/32 in is left and wear is 0.79375 mm per cycle, then 4 more cycles to 2/32 in (REFERENCE.md §7 worked example)', () => {
+  it('when 6/32 in is left and wear is 0.79375 mm per cycle, then 4 more cycles to 2/32 in (common practice, worked by hand)', () => {
     expect(runsLeft({ depthNowMm: in32(6), minimumDepthMm: in32(2), mmPerRun: in32(1) })).toBe(4);
   });
 
@@ -147,7 +147,7 @@ describe('innerOuterSkewMm', () => {
 });
 
 describe('wearPattern', () => {
-  // Patterns: ASE study guides and vehicle makers' service text (REFERENCE.md §7). The 0.5 mm threshold is
+  // Patterns: ASE study guides and vehicle makers' service text (from memory). The 0.5 mm threshold is
   // Scrubline's own choice — there is no published one.
   it.each<[number, number, number, WearPattern, string]>([
     [6.0, 6.0, 6.0, 'even', 'all the same'],

