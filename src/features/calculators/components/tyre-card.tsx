@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { coldPressureKpa, hotPressureKpa, tyreDimensions, type TyreDimensions } from '@shared/calc/index';
 import { formatQuantity } from '@shared/calc/units.calc';
+import { LIMITS } from '@shared/season/limits';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { TextField } from '@/components/ui/text-field';
 import { UnitInput } from '@/components/ui/unit-input';
@@ -10,6 +11,13 @@ import { formatNumber, formatPrecise, readQuantity, runCalc } from '../utils/cal
 import { CalcHeading, CalculatorCard, ResultNote, ResultRow, Results } from './calculator-card';
 
 type Direction = 'coldToHot' | 'hotToCold';
+
+/**
+ * What a tyre sees in use: −40 °C (a winter morning) to 150 °C (well past a track tyre's working range), and
+ * pressures within the limits a setup may hold (common practice; from memory). The gas law still answers
+ * outside them, so the card says the numbers look wrong instead of letting a typo pass as a result.
+ */
+const TYRE_TEMP_C = { min: -40, max: 150 } as const;
 
 /** Reads a size; a size that cannot be read gives the calculation's own message. */
 function readSize(size: string): { kind: 'empty' } | { kind: 'ok'; value: TyreDimensions } | { kind: 'error'; message: string } {
@@ -47,6 +55,12 @@ export function TyreCard() {
         ? hotPressureKpa({ coldGaugeKpa: v.p, coldTempC: v.from, hotTempC: v.to })
         : coldPressureKpa({ hotGaugeKpa: v.p, hotTempC: v.from, coldTempC: v.to }),
   );
+
+  const temps = [readQuantity(fromTemp, 'temperature', units), readQuantity(toTemp, 'temperature', units)];
+  const implausible =
+    converted.status === 'ok' &&
+    (temps.some((t) => t.kind === 'value' && (t.si < TYRE_TEMP_C.min || t.si > TYRE_TEMP_C.max)) ||
+      converted.value > LIMITS.pressureKpa.max);
 
   return (
     <CalculatorCard
@@ -127,7 +141,15 @@ export function TyreCard() {
           <ResultRow term={coldToHot ? 'Hot pressure' : 'Cold pressure'} emphasis>
             {formatPrecise(converted.value, 'pressure', units)}
           </ResultRow>
-        ) : converted.status === 'error' && converted.message ? (
+        ) : null}
+        {implausible ? (
+          <ResultNote error>
+            These numbers are outside what a tyre sees in use ({formatQuantity(TYRE_TEMP_C.min, 'temperature', units)} to{' '}
+            {formatQuantity(TYRE_TEMP_C.max, 'temperature', units)}, up to {formatQuantity(LIMITS.pressureKpa.max, 'pressure', units)}). Check
+            them before setting a tyre by this result.
+          </ResultNote>
+        ) : null}
+        {converted.status === 'ok' ? null : converted.status === 'error' && converted.message ? (
           <ResultNote error>{converted.message}</ResultNote>
         ) : (
           <ResultNote>Enter a pressure and both temperatures.</ResultNote>

@@ -161,6 +161,24 @@ describe('tyre size and pressure calculator', () => {
   });
 });
 
+describe('tyre pressure plausibility', () => {
+  it('when a temperature no tyre sees is typed, then the result still shows, with a warning to check the numbers', async () => {
+    // The gas law answers anyway (OpenStax College Physics §13.3, absolute values): (200 + 101.325) × 1173.15 / 288.15
+    // − 101.325 = 1125.5 kPa at 900 °C, far past any tyre.
+    const u = renderPage(METRIC_PREFERENCES);
+    const tyre = card('Tyre size and pressure');
+    await u.type(tyre.getByLabelText('Cold pressure'), '200');
+    await u.type(tyre.getByLabelText('Cold temperature'), '15');
+    await u.type(tyre.getByLabelText('Hot temperature'), '60');
+    expect(tyre.queryByRole('alert')).toBeNull();
+
+    await u.clear(tyre.getByLabelText('Hot temperature'));
+    await u.type(tyre.getByLabelText('Hot temperature'), '900');
+    expect(result('Pressure', 'Hot pressure')).toBe('1125.5 kPa');
+    expect(tyre.getByRole('alert').textContent).toMatch(/outside what a tyre sees in use \([-−]40 °C to 150 °C, up to 450 kPa\)/);
+  });
+});
+
 describe('toe and camber calculator', () => {
   it('when 1/16 in of toe per wheel is measured across a 24 in rim, then the angle is 0.149°', async () => {
     // Alignment shop guides (x = D·sin θ), worked by hand: 1/16 in per wheel at 24 in → 0.1492°.
