@@ -37,8 +37,10 @@ export type UpdateCarInput = z.infer<typeof updateCarInputSchema>;
 
 export const addCoDriverInputSchema = z.strictObject({ email: emailSchema });
 
-export const personSchema = z.object({ id: z.string(), displayName: z.string() });
-export type Person = z.infer<typeof personSchema>;
+export interface Person {
+  id: string;
+  displayName: string;
+}
 
 export interface Car {
   id: string;

@@ -2,12 +2,10 @@ import * as z from '../zod';
 
 /** Corners as seen from above, front at the top: left front, right front, left rear, right rear. */
 export const CORNERS = ['lf', 'rf', 'lr', 'rr'] as const;
-export const cornerSchema = z.enum(CORNERS);
-export type Corner = z.infer<typeof cornerSchema>;
+export type Corner = (typeof CORNERS)[number];
 
 export const AXLES = ['front', 'rear'] as const;
-export const axleSchema = z.enum(AXLES);
-export type Axle = z.infer<typeof axleSchema>;
+export type Axle = (typeof AXLES)[number];
 
 export const axleOf = (corner: Corner): Axle => (corner === 'lf' || corner === 'rf' ? 'front' : 'rear');
 
