@@ -1,14 +1,9 @@
 import type { Person } from '@shared/season/car.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
-import {
-  SETUP_CORNER_FIELDS,
-  setupCornerSchema,
-  type QuickChangeInput,
-  type Setup,
-  type SetupCorner,
-} from '@shared/season/setup.schema';
+import { SETUP_CORNER_FIELDS, type QuickChangeInput, type Setup, type SetupCorner } from '@shared/season/setup.schema';
 import { CORNER_NAMES } from '@/components/corner-grid/corner-grid';
 import type { OutboxEntry, OutboxError } from '@/lib/outbox';
+import { cornerProblems } from '@/lib/setup-corner-problems';
 import type { CreateSetupBody } from '../api/create-setup';
 import type { QuickChangeBody } from '../api/quick-change';
 
@@ -66,10 +61,7 @@ export function applyQuickChange(base: Pick<Setup, 'corners'> | null, changes: Q
       } else corners[corner][change.field] = Math.round((current + (change.delta ?? 0)) * 1e6) / 1e6;
     }
   }
-  for (const corner of CORNERS) {
-    const result = setupCornerSchema.safeParse(corners[corner]);
-    if (!result.success) for (const issue of result.error.issues) problems.push(`${CORNER_NAMES[corner]}: ${issue.message}`);
-  }
+  for (const corner of CORNERS) problems.push(...cornerProblems(corner, corners[corner]));
   return { corners, problems };
 }
 

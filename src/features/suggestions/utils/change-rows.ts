@@ -1,9 +1,9 @@
 import { fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import type { SuggestionChange } from '@shared/collab/suggestion.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
-import { SETUP_CORNER_FIELDS, setupCornerSchema, type Setup, type SetupCornerField } from '@shared/season/setup.schema';
-import { CORNER_NAMES } from '@/components/corner-grid/corner-grid';
+import { SETUP_CORNER_FIELDS, type Setup, type SetupCornerField } from '@shared/season/setup.schema';
 import { parseDecimal, tidy } from '@/lib/numbers';
+import { cornerProblems } from '@/lib/setup-corner-problems';
 import { FIELD_INFO } from '@/lib/setup-fields';
 
 /** What a shop can suggest changing, named as the trade says it. */
@@ -82,9 +82,5 @@ export function previewChanges(base: Pick<Setup, 'corners'> | null, changes: rea
 
 /** Each corner the changes would take outside what a snapshot may hold, said as the server says it. */
 export function outOfRange(cells: readonly PreviewCell[]): string[] {
-  return cells.flatMap((cell) => {
-    if (cell.to === null) return [];
-    const checked = setupCornerSchema.shape[cell.field].safeParse(cell.to);
-    return checked.success ? [] : [`${CORNER_NAMES[cell.corner]}: ${checked.error.issues[0]?.message ?? 'out of range'}`];
-  });
+  return cells.flatMap((cell) => (cell.to === null ? [] : cornerProblems(cell.corner, { [cell.field]: cell.to })));
 }
