@@ -25,7 +25,7 @@ async function api<T>(method: string, path: string, body?: unknown): Promise<{ s
   ) as Promise<{ status: number; json: T }>;
 }
 
-const runRows = () => page.getByRole('list', { name: "Today's runs, newest first" }).getByRole('listitem');
+const runRows = () => page.getByRole('list', { name: 'Today’s runs, newest first' }).getByRole('listitem');
 
 async function logRun(time: string | null, opts: { cones?: number; status?: 'DNF' | 'Off course' } = {}) {
   if (time) {

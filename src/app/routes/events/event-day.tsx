@@ -13,7 +13,7 @@ import { SectionBoundary } from '@/components/errors/section-boundary';
 import { notYetFetched, useDeliveredEntries } from '@/lib/delivered-entries';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { readStoredChoice, writeStoredChoice } from '@/lib/stored-choice';
-import { prepareDateFormats } from '@/lib/dates';
+import { formatDay, isOnDate, prepareDateFormats } from '@/lib/dates';
 import { useMe } from '@/features/auth/api/get-me';
 import { CarDriverPicker, driversOf } from '@/features/cars/components/car-driver-picker';
 import { useCarViews } from '@/features/cars/hooks/use-car-views';
@@ -117,6 +117,8 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
 
   const own = rows.filter((r) => r.driver.id === driver.id);
   const best = own.find((r) => r.isBest);
+  // Opened after the day (to tidy up the runs, or to read them), the list is not today's.
+  const heading = isOnDate(new Date(), event.date) ? 'Today’s runs' : `Runs on ${formatDay(event.date)}`;
 
   return (
     <>
@@ -138,12 +140,12 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
         <section aria-label="Log a run" className="rounded-lg border border-line bg-surface p-3 md:sticky md:top-20 md:order-2">
           <LogRunForm carId={car.id} eventId={event.id} driver={driver} conePenaltySec={event.conePenaltySec} rows={rows} />
         </section>
-        <section aria-labelledby="todays-runs" className="flex flex-col gap-3 md:order-1">
+        <section aria-labelledby="runs" className="flex flex-col gap-3 md:order-1">
           <div className="flex flex-wrap items-baseline justify-between gap-2">
-            <h2 id="todays-runs" className="text-xl font-bold">
-              Today’s runs
+            <h2 id="runs" className="text-xl font-bold">
+              {heading}
             </h2>
-            {event.pending ? null : <CommentsButton target={{ type: 'event', id: event.id, carId: car.id }} what={`${car.name} today`} />}
+            {event.pending ? null : <CommentsButton target={{ type: 'event', id: event.id, carId: car.id }} what={`${car.name} at ${event.name}`} />}
             {best?.adjustedTimeSec != null ? (
               <p className="tabular-figures inline-flex items-center gap-1 font-semibold">
                 <Trophy aria-hidden="true" className="size-4" />
@@ -157,7 +159,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
           {(runsQuery.isPending && rows.length === 0) || !listDrawn ? (
             <p className="text-ink-muted">Loading runs…</p>
           ) : (
-            <RunList rows={rows} setupLabelOf={setupLabelOf} renderExtras={runComments} />
+            <RunList label={heading} rows={rows} setupLabelOf={setupLabelOf} renderExtras={runComments} />
           )}
         </section>
       </div>

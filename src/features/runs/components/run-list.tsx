@@ -24,6 +24,8 @@ import type { RunChanges } from './run-edit-form';
 const RunEditForm = lazy(async () => ({ default: (await import('./run-edit-form')).RunEditForm }));
 
 interface RunListProps {
+  /** What the list is: "Today’s runs", or the runs of an earlier day. */
+  label: string;
   rows: readonly RunRow[];
   /** The label of the setup each run ran on (saved tie, or worked out on the device). */
   setupLabelOf: (row: RunRow) => string | null;
@@ -62,11 +64,11 @@ function Time({ label, seconds, strong }: { label: string; seconds: number | nul
 }
 
 /**
- * Today's runs of one car, newest first: raw and adjusted time, cones, % off the driver's best,
+ * The runs of one car at an event, newest first: raw and adjusted time, cones, % off the driver's best,
  * the best one marked with a trophy and the word, the setup each ran on, and what is still
  * waiting or was refused.
  */
-export function RunList({ rows, setupLabelOf, renderExtras }: RunListProps) {
+export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProps) {
   const units = useUnits();
   const outbox = useOutbox();
   const entries = useOutboxEntries();
@@ -75,7 +77,7 @@ export function RunList({ rows, setupLabelOf, renderExtras }: RunListProps) {
   const remove = useDeleteRun();
   const [editing, setEditing] = useState<string | null>(null);
 
-  if (rows.length === 0) return <EmptyState message="No runs yet today. Your first one shows here the moment you save it." />;
+  if (rows.length === 0) return <EmptyState message="No runs yet. Your first one shows here the moment you save it." />;
 
   const save = async (row: RunRow, changes: RunChanges) => {
     const pending = row.pending;
@@ -118,7 +120,7 @@ export function RunList({ rows, setupLabelOf, renderExtras }: RunListProps) {
   };
 
   return (
-    <ol className="flex flex-col gap-2" aria-label="Today's runs, newest first">
+    <ol className="flex flex-col gap-2" aria-label={`${label}, newest first`}>
       {rows.map((row) => {
         const setup = setupLabelOf(row);
         const failed = row.pending?.state === 'failed' ? row.pending : null;

@@ -5,6 +5,7 @@ import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, KPA_PER_PSI, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
 import type { Run } from '../../../../shared/season/run.schema';
 import type { Setup } from '../../../../shared/season/setup.schema';
+import { formatDay, todayIsoDate } from '@/lib/dates';
 import type { OutboxEntry } from '@/lib/outbox';
 import { blockingEntry, jsonResponse, renderApp, requestsTo, setUpAppTests, storedEntry, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, EVENT, IDS, list, runOnPhone, RUNS_URL, savedRun, user, UUID } from '../../fixtures/season';
@@ -88,7 +89,7 @@ describe('event day', () => {
     // Which insertion into the document brought each part, judged when the insertion is reported: one
     // insertion bringing both would mean the list held the keypad back.
     const FORM = 'form[aria-label="Log a run"]';
-    const LIST = 'ol[aria-label^="Today"]';
+    const LIST = 'ol[aria-label$="newest first"]';
     const brought = (nodes: Node[], selector: string) => nodes.some((n) => n instanceof Element && (n.matches(selector) || n.querySelector(selector) !== null));
     const insertions: { form: boolean; list: boolean }[] = [];
     const observer = new MutationObserver((records) => {
@@ -241,6 +242,24 @@ describe('event day', () => {
     // (46.5 − 46.1) / 46.1 = 0.87 %
     expect(within(first).getByText('+0.87 % off best')).toBeTruthy();
     expect(screen.getByText(/Maren Holt’s best:/).textContent).toContain('46.100');
+  });
+
+  it('when the event was on an earlier day, then its runs are headed with its date, not as today’s', async () => {
+    stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 })], { extra: { [`GET /api/events/${IDS.event}`]: jsonResponse(200, { ...EVENT, date: '2025-05-03' }) } });
+    renderApp(PATH);
+
+    const heading = await screen.findByRole('heading', { level: 2, name: /runs/i });
+    expect(heading.textContent).toBe(`Runs on ${formatDay('2025-05-03')}`);
+    expect(heading.textContent).toMatch(/2025/);
+    expect(screen.queryByText(/today/i)).toBeNull();
+    expect(await screen.findByRole('list', { name: `Runs on ${formatDay('2025-05-03')}, newest first` })).toBeTruthy();
+  });
+
+  it('when the event is today, then its runs are headed as today’s', async () => {
+    stubWithRuns([], { extra: { [`GET /api/events/${IDS.event}`]: jsonResponse(200, { ...EVENT, date: todayIsoDate() }) } });
+    renderApp(PATH);
+
+    expect((await screen.findByRole('heading', { level: 2, name: /runs/i })).textContent).toBe('Today’s runs');
   });
 
   it('when a saved run is deleted and the deletion has not left the phone, then Undo cancels it and nothing is sent', async () => {
