@@ -65,7 +65,7 @@ function Time({ label, seconds, strong }: { label: string; seconds: number | nul
 
 /**
  * The runs of one car at an event, newest first: raw and adjusted time, cones, % off the driver's best,
- * the best one marked with a trophy and the word, the setup each ran on, and what is still
+ * each driver's best marked with a trophy and whose it is, the setup each ran on, and what is still
  * waiting or was refused.
  */
 export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProps) {
@@ -126,6 +126,8 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
         const failed = row.pending?.state === 'failed' ? row.pending : null;
         const taken = rows.filter((r) => r.id !== row.id && r.driver.id === row.driver.id).map((r) => r.runNumber);
         const hot = row.hotPressuresKpa;
+        // Each driver of a shared car is scored on their own runs: the best and the % off it say whose.
+        const whose = `${row.driver.displayName.split(' ')[0]}’s best`;
         return (
           <li
             key={row.id}
@@ -143,7 +145,7 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
               {row.isBest ? (
                 <span className="inline-flex items-center gap-1 rounded bg-accent px-2 py-0.5 text-sm font-bold text-accent-ink">
                   <Trophy aria-hidden="true" className="size-4" />
-                  Best
+                  {whose}
                 </span>
               ) : null}
               {row.pending ? <PendingBadge state={row.pending.state} /> : null}
@@ -161,7 +163,7 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
             </div>
             <p className="tabular-figures flex flex-wrap gap-x-3 text-sm">
               <span>{row.cones ? `+${coneWords(row.cones)}` : 'Clean'}</span>
-              {row.pctOffBest !== null ? <span>{row.isBest ? 'Best of the day' : `${formatPercent(row.pctOffBest)} off best`}</span> : null}
+              {row.pctOffBest !== null && !row.isBest ? <span>{`${formatPercent(row.pctOffBest)} off ${whose}`}</span> : null}
               <span className="text-ink-muted">Setup: {setup ?? 'none recorded'}</span>
             </p>
             {row.notes ? <p className="text-sm text-ink-muted">{row.notes}</p> : null}

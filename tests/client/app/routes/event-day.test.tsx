@@ -26,6 +26,7 @@ beforeEach(() => localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.s
 
 // The runs URL is a GET; stubFetch keys are "METHOD path".
 const RUNS = `GET ${RUNS_URL}`;
+const UUID_TOMAS_RUN = 'b3333333-3333-4333-8333-333333333333';
 
 interface StubOptions {
   units?: UnitPreferences;
@@ -234,14 +235,33 @@ describe('event day', () => {
 
     await screen.findByRole('listitem', { name: 'Run 1, Maren Holt' });
     const second = screen.getByRole('listitem', { name: 'Run 2, Maren Holt, best' });
-    expect(within(second).getByText('Best')).toBeTruthy();
+    expect(within(second).getByText('Maren’s best')).toBeTruthy();
     expect(within(second).getByText('46.100')).toBeTruthy(); // 44.1 + 2 s
     expect(within(second).getByText('Waiting to upload')).toBeTruthy();
     const first = screen.getByRole('listitem', { name: 'Run 1, Maren Holt' });
-    expect(within(first).queryByText('Best')).toBeNull();
+    expect(within(first).queryByText('Maren’s best')).toBeNull();
     // (46.5 − 46.1) / 46.1 = 0.87 %
-    expect(within(first).getByText('+0.87 % off best')).toBeTruthy();
+    expect(within(first).getByText('+0.87 % off Maren’s best')).toBeTruthy();
     expect(screen.getByText(/Maren Holt’s best:/).textContent).toContain('46.100');
+  });
+
+  it('when two drivers share the car, then each one’s best says whose it is, and a slower run says whose best it is off', async () => {
+    const tomas = { id: IDS.tomas, displayName: 'Tomas Reyes' };
+    stubWithRuns([
+      savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 46.5, adjustedTimeSec: 46.5 }),
+      savedRun({ id: IDS.run2, runNumber: 2, rawTimeSec: 47, adjustedTimeSec: 47, isBest: false, recordedAt: '2026-06-07T10:00:00.000Z' }),
+      savedRun({ id: UUID_TOMAS_RUN, runNumber: 1, driver: tomas, rawTimeSec: 45.9, adjustedTimeSec: 45.9, recordedAt: '2026-06-07T09:45:00.000Z' }),
+    ]);
+    renderApp(PATH);
+
+    // Scored per driver (co-drivers are classed apart): Maren's 46.500 and Tomas's 45.900 are each a best.
+    const marenBest = await screen.findByRole('listitem', { name: 'Run 1, Maren Holt, best' });
+    const tomasBest = screen.getByRole('listitem', { name: 'Run 1, Tomas Reyes, best' });
+    expect(within(marenBest).getByText('Maren’s best')).toBeTruthy();
+    expect(within(tomasBest).getByText('Tomas’s best')).toBeTruthy();
+    expect(screen.queryByText('Best')).toBeNull();
+    // (47.0 − 46.5) / 46.5 = 1.08 %, off Maren's own best, not the car's (45.9, which would be 2.40 %).
+    expect(within(screen.getByRole('listitem', { name: 'Run 2, Maren Holt' })).getByText('+1.08 % off Maren’s best')).toBeTruthy();
   });
 
   it('when the event was on an earlier day, then its runs are headed with its date, not as today’s', async () => {
