@@ -40,6 +40,15 @@ async function logRun(time: string | null, opts: { cones?: number; status?: 'DNF
   await page.getByText(/saved on this phone/).waitFor();
 }
 
+/** Waits until the service worker holds the app shell and answers for this page (a page opened before it was installed needs a reload). */
+async function serviceWorkerInControl() {
+  await page.waitForFunction(async () => (await navigator.serviceWorker.ready) && !!navigator.serviceWorker.controller, null, { timeout: 20_000 })
+    .catch(async () => {
+      await page.reload();
+      await page.waitForFunction(() => !!navigator.serviceWorker.controller, null, { timeout: 20_000 });
+    });
+}
+
 beforeAll(async () => {
   phone = await openPhone();
   page = phone.page;
@@ -127,11 +136,7 @@ describe('trackside on a phone (390×844)', () => {
 
   it('when the phone goes offline and two runs are logged, then after a reload still offline both show as waiting', async () => {
     // The service worker must hold the app shell before the signal goes.
-    await page.waitForFunction(async () => (await navigator.serviceWorker.ready) && !!navigator.serviceWorker.controller, null, { timeout: 20_000 })
-      .catch(async () => {
-        await page.reload();
-        await page.waitForFunction(() => !!navigator.serviceWorker.controller, null, { timeout: 20_000 });
-      });
+    await serviceWorkerInControl();
     await page.waitForTimeout(1500); // the query cache is written to the device at most once a second
     await phone.context.setOffline(true);
     await logRun('46.800');
@@ -181,5 +186,46 @@ describe('trackside on a phone (390×844)', () => {
       }, { timeout: 20_000 })
       .toMatch(/rear clicks \+2/);
     await screenshot(page, 'trackside-after-quick-change');
+  });
+
+  it('when a co-driver is picked at an earlier event and the page is reloaded, with signal and then without, then it stays on that event, car and driver, and the runs are headed with the event’s date', async () => {
+    const day = new Date(Date.now() - 30 * 86_400_000).toISOString().slice(0, 10);
+    const earlier = await api<{ id: string }>('POST', '/api/events', { name: 'Spring practice at Harrow Flats', date: day, venue: 'Harrow Flats airfield' });
+    expect(earlier.status).toBe(201);
+    const path = `/events/${earlier.json.id}`;
+    await page.goto(baseUrl + path);
+    await page.getByRole('radio', { name: /Pebble/ }).check({ force: true });
+    // Not the one signed in, so a choice that was forgotten would show: the picker offers Maren first.
+    await page.getByRole('radio', { name: /Teo Varga/ }).check({ force: true });
+    await page.getByRole('button', { name: 'Start logging' }).click();
+
+    const onTheEvent = async () => {
+      await page.getByRole('heading', { level: 1, name: 'Spring practice at Harrow Flats' }).waitFor({ timeout: 20_000 });
+      await page.getByRole('form', { name: 'Log a run' }).waitFor({ timeout: 20_000 });
+      expect(new URL(page.url()).pathname).toBe(path);
+      expect(await page.getByRole('form', { name: 'Car and driver' }).count()).toBe(0);
+      const carLine = await page.getByRole('button', { name: 'Change car or driver' }).locator('..').textContent();
+      expect(carLine).toMatch(/^Pebble #\d+ · Teo Varga/);
+      expect(await page.getByRole('form', { name: 'Log a run' }).textContent()).toContain('Teo Varga');
+      // A past event: its runs are not "today's".
+      await page.getByRole('heading', { level: 2, name: /^Runs on / }).waitFor();
+      expect(await page.getByRole('heading', { name: 'Today’s runs' }).count()).toBe(0);
+    };
+    await onTheEvent();
+
+    await page.reload();
+    await onTheEvent();
+
+    // With no signal the page comes from the service worker, and the event and the car from the device.
+    await serviceWorkerInControl();
+    await page.waitForTimeout(1500); // the query cache is written to the device at most once a second
+    await phone.context.setOffline(true);
+    try {
+      await page.reload();
+      await onTheEvent();
+      await screenshot(page, 'trackside-earlier-event-reloaded-offline', { fullPage: false });
+    } finally {
+      await phone.context.setOffline(false);
+    }
   });
 });
