@@ -29,6 +29,18 @@ interface RunEditFormProps {
   onDelete?: () => void;
 }
 
+/**
+ * The run number as typed. A minus sign (hyphen or "−"), a decimal point or a letter is refused with a message,
+ * never dropped: "-3" must not turn into run 3.
+ */
+function readRunNumber(text: string): { ok: true; value: number } | { ok: false; error: string } {
+  const s = text.trim();
+  if (/^[-−–]/.test(s)) return { ok: false, error: 'Run numbers start at 1' };
+  const value = Number(s);
+  if (!/^\d{1,3}$/.test(s) || value < 1) return { ok: false, error: 'A whole number from 1 to 999' };
+  return { ok: true, value };
+}
+
 /** Fixing a run after the fact: time, cones, result, number, note. */
 export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSubmit, onCancel, onDelete }: RunEditFormProps) {
   const [time, setTime] = useState(row.rawTimeSec !== null ? formatRunTime(row.rawTimeSec) : '');
@@ -49,14 +61,14 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
       if (parsed.ok) rawTimeSec = parsed.seconds;
       else found.rawTimeSec = parsed.error;
     } else if (status === 'finished') found.rawTimeSec = 'A finished run needs its time';
-    const runNumber = Number(number);
-    if (!Number.isInteger(runNumber) || runNumber < 1 || runNumber > 999) found.runNumber = 'Run numbers are whole numbers from 1';
-    else if (takenNumbers.includes(runNumber)) found.runNumber = `Run ${runNumber} is already logged for ${row.driver.displayName}`;
-    if (Object.keys(found).length) {
+    const read = readRunNumber(number);
+    if (!read.ok) found.runNumber = read.error;
+    else if (takenNumbers.includes(read.value)) found.runNumber = `Run ${read.value} is already logged for ${row.driver.displayName}`;
+    if (!read.ok || Object.keys(found).length) {
       setErrors(found);
       return;
     }
-    await onSubmit({ runNumber, rawTimeSec, cones, status, notes: notes.trim() || null });
+    await onSubmit({ runNumber: read.value, rawTimeSec, cones, status, notes: notes.trim() || null });
   };
 
   return (
@@ -81,7 +93,7 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
           value={number}
           error={errors.runNumber}
           onChange={(e) => {
-            setNumber(e.target.value.replace(/\D/g, '').slice(0, 3));
+            setNumber(e.target.value);
             setErrors((er) => ({ ...er, runNumber: undefined }));
           }}
         />
