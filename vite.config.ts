@@ -128,12 +128,13 @@ export default defineConfig({
             // What every page needs before it draws: React, the router, TanStack Query, zod, the API
             // client, the signed-in shell.
             { name: 'app', tags: ['$initial'], priority: 3, test: (id) => !/[\\/](index\.html|src[\\/]main\.tsx)$/.test(id) },
-            // The small UI primitives pages share (not the Radix dialog and toasts, loaded on use).
+            // The small UI primitives pages share (not the Radix dialog and toasts, loaded on use, nor the
+            // password field and its eye icons, which only the sign-in and password pages draw).
             {
               name: 'ui',
               priority: 2,
               minShareCount: 2,
-              test: (id) => /[\\/]src[\\/]components[\\/]ui[\\/]/.test(id) && !/[\\/](dialog|toast-layer)\.tsx$/.test(id),
+              test: (id) => /[\\/]src[\\/]components[\\/]ui[\\/]/.test(id) && !/[\\/](dialog|toast-layer|password-field)\.tsx$/.test(id),
             },
             // The trackside page and everything else it needs, in one file: at the car, with a weak
             // signal, it opens in a handful of requests. Pages that share some of it load this file too.

@@ -291,6 +291,45 @@ describe('PATCH /api/runs/:runId', () => {
     expect((await d.c.get(`/api/runs/${second.id}`)).body.runNumber).toBe(2);
   });
 
+  it('when the hot pressures are changed, one corner left out, then the run holds exactly the new set and every other field as it was', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const run = await postRun(d.c, d.carId, d.eventId, { cones: 1, notes: 'Wet start', hotPressuresKpa: { lf: 250, rf: 252, lr: 240, rr: 241 } });
+    const res = await d.c.patch(`/api/runs/${run.id}`, {
+      version: 1, runNumber: run.runNumber, rawTimeSec: run.rawTimeSec, cones: 1, status: 'finished', notes: 'Wet start',
+      hotPressuresKpa: { lf: 255.1, rf: 252, lr: 240 },
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body).toEqual({ ...run, hotPressuresKpa: { lf: 255.1, rf: 252, lr: 240 }, version: 2, updatedAt: res.body.updatedAt });
+    expect((await d.c.get(`/api/runs/${run.id}`)).body).toEqual(res.body);
+    expect(await countOf(t, "SELECT count(*) AS n FROM pressure_readings WHERE run_id = $1 AND kind = 'hot'", [run.id])).toBe(1);
+  });
+
+  it('when the hot pressures are set to null, then the run has none and its other fields are kept', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const run = await postRun(d.c, d.carId, d.eventId, { notes: 'Cold tyres', hotPressuresKpa: { lf: 250, rr: 241 } });
+    const res = await d.c.patch(`/api/runs/${run.id}`, { version: 1, hotPressuresKpa: null });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body).toMatchObject({ hotPressuresKpa: null, notes: 'Cold tyres', rawTimeSec: run.rawTimeSec, version: 2 });
+    expect(await countOf(t, 'SELECT count(*) AS n FROM pressure_readings WHERE run_id = $1', [run.id])).toBe(0);
+  });
+
+  it('when an edit leaves the hot pressures out, then they are kept as they were', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const run = await postRun(d.c, d.carId, d.eventId, { hotPressuresKpa: { lf: 250.4, rf: 252 } });
+    const res = await d.c.patch(`/api/runs/${run.id}`, { version: 1, cones: 2 });
+    expect(res.body).toMatchObject({ cones: 2, hotPressuresKpa: { lf: 250.4, rf: 252 } });
+  });
+
+  it('when a hot pressure in an edit is negative or outside 50–450 kPa, then 400 at that corner and nothing changes', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const run = await postRun(d.c, d.carId, d.eventId, { hotPressuresKpa: { lf: 250 } });
+    expectFieldErrors(await d.c.patch(`/api/runs/${run.id}`, { version: 1, cones: 3, hotPressuresKpa: { lf: -250, rr: 451 } }), [
+      'hotPressuresKpa.lf',
+      'hotPressuresKpa.rr',
+    ]);
+    expect((await d.c.get(`/api/runs/${run.id}`)).body).toEqual(run);
+  });
+
   it('when the driver is changed to someone not on the car, then 400 on driverId', async () => {
     const d = await driverWithCarAndEvent(t);
     const stranger = await signedInClient(t);

@@ -78,3 +78,15 @@ export function ResultNote({ children, error = false }: { children: ReactNode; e
     <p className="text-sm text-ink-muted">{children}</p>
   );
 }
+
+/**
+ * Inputs the calculation still answers but the job never sees (a typo, a unit mix-up, a slipped decimal point):
+ * the result stays in view and this says, with the limits, to check the numbers before acting on it.
+ */
+export function CheckTheNumbers({ outside, limits, before }: { outside: string; limits: string; before: string }) {
+  return (
+    <ResultNote error>
+      These numbers are outside what {outside} ({limits}). Check them before {before}.
+    </ResultNote>
+  );
+}

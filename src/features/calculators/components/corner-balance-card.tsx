@@ -4,11 +4,11 @@ import { CORNERS, type Corner } from '@shared/season/corners';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { SelectField } from '@/components/ui/select-field';
 import { UnitInput } from '@/components/ui/unit-input';
-import { formatQuantity } from '@shared/calc/units.calc';
+import { formatQuantity, toDisplay } from '@shared/calc/units.calc';
 import { unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { formatPct, formatPrecise, readQuantity, runCalc, type Reading } from '../utils/calc-fields';
-import { CalcHeading, CalculatorCard, ResultNote, ResultRow, Results } from './calculator-card';
+import { aboveZero, formatNumber, formatPct, formatPrecise, readQuantity, runCalc, type Reading } from '../utils/calc-fields';
+import { CalcHeading, CalculatorCard, CheckTheNumbers, ResultNote, ResultRow, Results } from './calculator-card';
 
 type PerCornerText = Record<Corner, string>;
 const EMPTY: PerCornerText = { lf: '', rf: '', lr: '', rr: '' };
@@ -17,6 +17,13 @@ const WEIGHT_BLAME = CORNERS.map((c) => [`${CORNER_NAMES[c]} weight`, c] as cons
 const RATE_BLAME = CORNERS.map((c) => [`${CORNER_NAMES[c]} wheel rate`, c] as const);
 
 const CORNER_OPTIONS = CORNERS.map((c) => ({ value: c, label: CORNER_NAMES[c] }));
+
+/**
+ * What a club car weighs on the scales, driver in and fuel as raced: well under 5000 kg in all and 1500 kg at any
+ * one corner, even for a heavy saloon or pickup (common practice; from memory). Readings past these are almost
+ * certainly a typo or lb typed as kg, so the card says to check them, and still shows what they give.
+ */
+const CLUB_CAR_KG = { corner: 1500, total: 5000 } as const;
 
 /** Corner weights → total, front %, left %, cross %; and what raising one corner's perch does to them. */
 export function CornerBalanceCard() {
@@ -32,8 +39,20 @@ export function CornerBalanceCard() {
   const rateUnit = unitSymbol('springRate', units);
   const lengthUnit = unitSymbol('length', units);
 
-  const weightReadings = Object.fromEntries(CORNERS.map((c) => [c, readQuantity(weights[c], 'mass', units)])) as Record<Corner, Reading>;
+  // A corner at 0 or below is no car on four scales: each such corner is marked, before any balance is worked out.
+  const weightReadings = Object.fromEntries(
+    CORNERS.map((c) => [c, aboveZero(readQuantity(weights[c], 'mass', units), `${CORNER_NAMES[c]} weight`)]),
+  ) as Record<Corner, Reading>;
   const balance = runCalc(weightReadings, CORNERS, (v) => cornerWeights(v), WEIGHT_BLAME);
+  const implausible =
+    balance.status === 'ok' &&
+    (CORNERS.some((c) => {
+      const w = weightReadings[c];
+      return w.kind === 'value' && w.si > CLUB_CAR_KG.corner;
+    }) ||
+      balance.value.totalKg > CLUB_CAR_KG.total);
+  // The limits in the user's mass unit, to the kg or lb: "1500 kg", "3307 lb".
+  const massLimit = (kg: number) => `${formatNumber(toDisplay(kg, 'mass', units), 0)} ${massUnit}`;
 
   const rateReadings = Object.fromEntries(CORNERS.map((c) => [c, readQuantity(rates[c], 'springRate', units)])) as Record<Corner, Reading>;
   const wedge = runCalc(
@@ -97,6 +116,13 @@ export function CornerBalanceCard() {
               {formatPct(balance.value.crossPct)}
             </ResultRow>
             <ResultRow term="Other diagonal (RF + LR)">{formatPct(100 - balance.value.crossPct)}</ResultRow>
+            {implausible ? (
+              <CheckTheNumbers
+                outside="a club car weighs"
+                limits={`up to ${massLimit(CLUB_CAR_KG.corner)} at a corner, ${massLimit(CLUB_CAR_KG.total)} in all`}
+                before="setting the car by this balance"
+              />
+            ) : null}
           </>
         ) : balance.status === 'error' && balance.message ? (
           <ResultNote error>{balance.message}</ResultNote>

@@ -8,7 +8,7 @@ import { UnitInput } from '@/components/ui/unit-input';
 import { unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { formatNumber, formatPrecise, readQuantity, runCalc } from '../utils/calc-fields';
-import { CalcHeading, CalculatorCard, ResultNote, ResultRow, Results } from './calculator-card';
+import { CalcHeading, CalculatorCard, CheckTheNumbers, ResultNote, ResultRow, Results } from './calculator-card';
 
 type Direction = 'coldToHot' | 'hotToCold';
 
@@ -143,11 +143,11 @@ export function TyreCard() {
           </ResultRow>
         ) : null}
         {implausible ? (
-          <ResultNote error>
-            These numbers are outside what a tyre sees in use ({formatQuantity(TYRE_TEMP_C.min, 'temperature', units)} to{' '}
-            {formatQuantity(TYRE_TEMP_C.max, 'temperature', units)}, up to {formatQuantity(LIMITS.pressureKpa.max, 'pressure', units)}). Check
-            them before setting a tyre by this result.
-          </ResultNote>
+          <CheckTheNumbers
+            outside="a tyre sees in use"
+            limits={`${formatQuantity(TYRE_TEMP_C.min, 'temperature', units)} to ${formatQuantity(TYRE_TEMP_C.max, 'temperature', units)}, up to ${formatQuantity(LIMITS.pressureKpa.max, 'pressure', units)}`}
+            before="setting a tyre by this result"
+          />
         ) : null}
         {converted.status === 'ok' ? null : converted.status === 'error' && converted.message ? (
           <ResultNote error>{converted.message}</ResultNote>

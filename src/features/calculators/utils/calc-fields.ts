@@ -28,6 +28,14 @@ export function readNumber(text: string): Reading {
   return { kind: 'value', si: parsed.value };
 }
 
+/**
+ * A reading that must be above 0 (a scale reading, a length): 0 or less is the field's own error, said per field,
+ * rather than a result worked out from it.
+ */
+export function aboveZero(reading: Reading, label: string): Reading {
+  return reading.kind === 'value' && !(reading.si > 0) ? { kind: 'invalid', message: `${label} must be above 0` } : reading;
+}
+
 /** A value already known in SI (a result of another calculator), as a reading. */
 export const knownValue = (si: number): Reading => ({ kind: 'value', si });
 

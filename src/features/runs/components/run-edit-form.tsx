@@ -1,10 +1,16 @@
-import { useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent } from 'react';
+import { CORNERS, type Corner, type PerCorner } from '@shared/season/corners';
 import { RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
 import { formatRunTime, parseRunTime } from '@shared/season/run-time';
+import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { Stepper } from '@/components/ui/stepper';
 import { TextField } from '@/components/ui/text-field';
+import { UnitInput } from '@/components/ui/unit-input';
+import { toInputText, unitSymbol } from '@/lib/numbers';
+import { useUnits } from '@/lib/units-context';
+import { readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import type { RunRow } from '../utils/merge-runs';
 import { STATUS_WORDS } from '../utils/run-words';
 
@@ -14,7 +20,15 @@ export interface RunChanges {
   cones: number;
   status: RunStatus;
   notes: string | null;
+  /**
+   * Only when a hot pressure was changed: the run's whole set in kPa (a corner left out is cleared), or null
+   * when none is left. Absent, the saved hot pressures stay as they are.
+   */
+  hotPressuresKpa?: PerCorner<number> | null;
 }
+
+/** A corner's field, named as the server names it in its fieldErrors, so a refusal lands on the corner. */
+const hotField = (corner: Corner) => `hotPressuresKpa.${corner}`;
 
 interface RunEditFormProps {
   row: RunRow;
@@ -29,13 +43,32 @@ interface RunEditFormProps {
   onDelete?: () => void;
 }
 
-/** Fixing a run after the fact: time, cones, result, number, note. */
+/**
+ * The run number as typed. A minus sign (hyphen or "−"), a decimal point or a letter is refused with a message,
+ * never dropped: "-3" must not turn into run 3.
+ */
+function readRunNumber(text: string): { ok: true; value: number } | { ok: false; error: string } {
+  const s = text.trim();
+  if (/^[-−–]/.test(s)) return { ok: false, error: 'Run numbers start at 1' };
+  const value = Number(s);
+  if (!/^\d{1,3}$/.test(s) || value < 1) return { ok: false, error: 'A whole number from 1 to 999' };
+  return { ok: true, value };
+}
+
+/** Fixing a run after the fact: time, cones, result, number, hot pressures, note. */
 export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSubmit, onCancel, onDelete }: RunEditFormProps) {
+  const units = useUnits();
+  const formRef = useRef<HTMLFormElement>(null);
   const [time, setTime] = useState(row.rawTimeSec !== null ? formatRunTime(row.rawTimeSec) : '');
   const [cones, setCones] = useState(row.cones);
   const [status, setStatus] = useState<RunStatus>(row.status);
   const [number, setNumber] = useState(String(row.runNumber));
   const [notes, setNotes] = useState(row.notes ?? '');
+  // The saved hot pressures as the driver types them (rounded to the unit's decimals), to tell what was changed.
+  const [savedHot] = useState(
+    () => Object.fromEntries(CORNERS.map((c) => [c, toInputText(row.hotPressuresKpa?.[c], 'pressure', units)])) as CornerTextMap,
+  );
+  const [hot, setHot] = useState(savedHot);
   const [errors, setErrors] = useState<Record<string, string | undefined>>(() =>
     Object.fromEntries(Object.entries(serverErrors ?? {}).map(([k, v]) => [k, v.join(' ')])),
   );
@@ -49,18 +82,48 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
       if (parsed.ok) rawTimeSec = parsed.seconds;
       else found.rawTimeSec = parsed.error;
     } else if (status === 'finished') found.rawTimeSec = 'A finished run needs its time';
-    const runNumber = Number(number);
-    if (!Number.isInteger(runNumber) || runNumber < 1 || runNumber > 999) found.runNumber = 'Run numbers are whole numbers from 1';
-    else if (takenNumbers.includes(runNumber)) found.runNumber = `Run ${runNumber} is already logged for ${row.driver.displayName}`;
-    if (Object.keys(found).length) {
+    const read = readRunNumber(number);
+    if (!read.ok) found.runNumber = read.error;
+    else if (takenNumbers.includes(read.value)) found.runNumber = `Run ${read.value} is already logged for ${row.driver.displayName}`;
+
+    // Hot pressures go with the save only when one was changed; a corner left as it was keeps its saved value
+    // exactly, not the rounded number shown in psi or kPa.
+    let hotPressuresKpa: PerCorner<number> | null | undefined;
+    if (CORNERS.some((c) => hot[c] !== savedHot[c])) {
+      const typed = readPressures(hot, units);
+      for (const [corner, message] of Object.entries(typed.errors)) found[hotField(corner as Corner)] = message;
+      const kpa: PerCorner<number> = {};
+      for (const c of CORNERS) {
+        const value = hot[c] === savedHot[c] ? row.hotPressuresKpa?.[c] : typed.kpa?.[c];
+        if (value !== undefined) kpa[c] = value;
+      }
+      hotPressuresKpa = Object.keys(kpa).length ? kpa : null;
+    }
+
+    if (!read.ok || Object.keys(found).length) {
+      // Nothing typed is cleared: the first marked field gets the focus, in view above the buttons.
       setErrors(found);
+      requestAnimationFrame(() => {
+        const first = formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]');
+        first?.focus();
+        first?.scrollIntoView?.({ block: 'center' });
+      });
       return;
     }
-    await onSubmit({ runNumber, rawTimeSec, cones, status, notes: notes.trim() || null });
+    await onSubmit({
+      runNumber: read.value,
+      rawTimeSec,
+      cones,
+      status,
+      notes: notes.trim() || null,
+      ...(hotPressuresKpa !== undefined ? { hotPressuresKpa } : {}),
+    });
   };
 
+  const pressureUnit = unitSymbol('pressure', units);
+
   return (
-    <form onSubmit={(e) => void submit(e)} noValidate aria-label={`Edit run ${row.runNumber}`} className="flex flex-col gap-3 border-t border-line pt-3">
+    <form ref={formRef} onSubmit={(e) => void submit(e)} noValidate aria-label={`Edit run ${row.runNumber}`} className="flex flex-col gap-3 border-t border-line pt-3">
       <div className="grid grid-cols-[1fr_6rem] gap-3">
         <TextField
           label="Raw time"
@@ -81,7 +144,7 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
           value={number}
           error={errors.runNumber}
           onChange={(e) => {
-            setNumber(e.target.value.replace(/\D/g, '').slice(0, 3));
+            setNumber(e.target.value);
             setErrors((er) => ({ ...er, runNumber: undefined }));
           }}
         />
@@ -97,6 +160,27 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
         value={status}
         onChange={setStatus}
       />
+      <div className="flex flex-col gap-1">
+        <CornerGrid
+          label={`Hot pressures (${pressureUnit})`}
+          cornerInvalid={(c) => Boolean(errors[hotField(c)])}
+          renderCorner={(corner) => (
+            <UnitInput
+              label={`${CORNER_NAMES[corner]} hot pressure`}
+              hideLabel
+              unit={pressureUnit}
+              value={hot[corner]}
+              error={errors[hotField(corner)]}
+              onChange={(e) => {
+                const value = e.target.value;
+                setHot((h) => ({ ...h, [corner]: value }));
+                setErrors((er) => ({ ...er, [hotField(corner)]: undefined }));
+              }}
+            />
+          )}
+        />
+        <p className="text-sm text-ink-muted">Empty a corner to clear its reading.</p>
+      </div>
       <TextField label="Note" value={notes} maxLength={2000} error={errors.notes} onChange={(e) => setNotes(e.target.value)} />
       {errors._ ? <p className="text-sm font-semibold text-warning">{errors._}</p> : null}
       <Button type="submit" className="min-h-tap-lg w-full text-lg">

@@ -363,6 +363,46 @@ describe('event day', () => {
     await screen.findByRole('listitem', { name: /^Run 1,/ });
   });
 
+  it('when a saved run’s hot pressures are changed in psi and one is cleared, then the edit sends them in kPa with its other fields as they were', async () => {
+    const run = savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 45.9, adjustedTimeSec: 47.9, cones: 1, notes: 'Late on the brakes', hotPressuresKpa: { lf: 250, rf: 252, lr: 240, rr: 241 } });
+    // The server, as far as this run goes.
+    let onServer: Run = run;
+    const fetchMock = stubWithRuns([], {
+      units: IMPERIAL_PREFERENCES,
+      extra: {
+        [RUNS]: () => list([onServer]),
+        [`PATCH /api/runs/${IDS.run1}`]: (r) => {
+          onServer = { ...run, ...(r.body as Partial<Run>), version: 2 };
+          return jsonResponse(200, onServer);
+        },
+      },
+    });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('listitem', { name: /^Run 1,/ });
+
+    await u.click(screen.getByRole('button', { name: 'Edit run 1' }));
+    const lf = await screen.findByLabelText('Left front hot pressure');
+    await u.clear(lf);
+    await u.type(lf, '37.0');
+    await u.clear(screen.getByLabelText('Right rear hot pressure'));
+    await u.click(screen.getByRole('button', { name: 'Save changes' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, `PATCH /api/runs/${IDS.run1}`)).toHaveLength(1));
+    const body = requestsTo(fetchMock, `PATCH /api/runs/${IDS.run1}`)[0]!.body as Record<string, unknown> & { hotPressuresKpa: Record<string, number> };
+    expect(body).toMatchObject({ version: 1, runNumber: 1, rawTimeSec: 45.9, cones: 1, status: 'finished', notes: 'Late on the brakes' });
+    // 37.0 psi × 6.894 757 293 168 kPa/psi = 255.106 kPa (NIST SP 811, worked by hand); the untouched corners exactly as saved.
+    expect(Object.keys(body.hotPressuresKpa).sort()).toEqual(['lf', 'lr', 'rf']);
+    expect(body.hotPressuresKpa.lf).toBeCloseTo(255.106, 3);
+    expect(body.hotPressuresKpa).toMatchObject({ rf: 252, lr: 240 });
+    // 255.106 kPa = 37.0 psi in the run's hot pressures.
+    const item = await screen.findByRole('listitem', { name: /^Run 1,/ });
+    await waitFor(() => expect(within(item).queryByRole('form')).toBeNull());
+    const shown = within(within(item).getByRole('group', { name: 'Hot pressures' }));
+    expect(within(shown.getByRole('group', { name: 'Left front' })).getByText('37.0 psi')).toBeTruthy();
+    expect(within(shown.getByRole('group', { name: 'Right rear' })).getByText('—')).toBeTruthy();
+  });
+
   it('when a quick change is made in psi, then its body carries the change in kPa, the device time, a client id, and the next run shows the new setup', async () => {
     const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES });
     const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });

@@ -81,6 +81,59 @@ describe('corner balance and wedge calculator', () => {
   });
 });
 
+describe('corner weight plausibility', () => {
+  async function typeWeights(u: ReturnType<typeof userEvent.setup>, weights: readonly [string, string, string, string]) {
+    const balance = card('Corner balance and wedge');
+    const corners = ['Left front', 'Right front', 'Left rear', 'Right rear'] as const;
+    for (const [i, corner] of corners.entries()) await u.type(balance.getByLabelText(`${corner} weight`), weights[i]!);
+    return balance;
+  }
+
+  it('when a corner reads 99999 kg, then the balance still shows, with a warning that names the 1500 kg and 5000 kg limits', async () => {
+    // Worked by hand: 99999 + 680 + 610 + 590 = 101879 kg; cross (99999 + 590) / 101879 = 98.73 %.
+    const u = renderPage(METRIC_PREFERENCES);
+    const balance = await typeWeights(u, ['99999', '680', '610', '590']);
+
+    expect(result('Corner balance', 'Total')).toBe('101879.0 kg');
+    expect(result('Corner balance', 'Cross (LF + RR)')).toBe('98.73 %');
+    expect(balance.getByRole('alert').textContent).toMatch(
+      /outside what a club car weighs \(up to 1500 kg at a corner, 5000 kg in all\)\. Check them/,
+    );
+    // The cautions about scales and jacking stay beside it.
+    expect(balance.getByText(/never work under a car held by a jack alone/)).toBeTruthy();
+  });
+
+  it('when the readings are those of a club car, then no warning shows', async () => {
+    // 720/680/610/590 kg: 2600 kg in all, no corner above 1500 kg.
+    const u = renderPage(METRIC_PREFERENCES);
+    const balance = await typeWeights(u, ['720', '680', '610', '590']);
+    expect(result('Corner balance', 'Total')).toBe('2600.0 kg');
+    expect(balance.queryByRole('alert')).toBeNull();
+  });
+
+  it('when each corner reads 3000 lb, then the 12000 lb total alone brings the warning, its limits said in lb', async () => {
+    // 1 lb = 0.453 592 37 kg exactly (NIST Handbook 44, Appendix C), worked by hand: 3000 lb = 1360.8 kg, under
+    // 1500 kg; 12000 lb = 5443.1 kg, over 5000 kg. The limits in lb: 1500 / 0.45359237 = 3306.9 → 3307 lb,
+    // 5000 / 0.45359237 = 11023.1 → 11023 lb.
+    const u = renderPage(IMPERIAL_PREFERENCES);
+    const balance = await typeWeights(u, ['3000', '3000', '3000', '3000']);
+    expect(result('Corner balance', 'Total')).toBe('12000 lb');
+    expect(balance.getByRole('alert').textContent).toMatch(/\(up to 3307 lb at a corner, 11023 lb in all\)/);
+  });
+
+  it('when a corner reads 0, or below 0 with either minus sign, then each of those fields says it must be above 0 and no balance shows', async () => {
+    const u = renderPage(METRIC_PREFERENCES);
+    const balance = await typeWeights(u, ['0', '680', '-610', '\u2212590']);
+
+    for (const corner of ['Left front', 'Left rear', 'Right rear']) {
+      expect(balance.getByLabelText(`${corner} weight`).getAttribute('aria-invalid')).toBe('true');
+      expect(balance.getByText(`${corner} weight must be above 0`)).toBeTruthy();
+    }
+    expect(balance.getByLabelText('Right front weight').getAttribute('aria-invalid')).toBeNull();
+    expect(within(screen.getByLabelText('Corner balance')).queryByText('Cross (LF + RR)')).toBeNull();
+  });
+});
+
 describe('springs calculator', () => {
   it('when 500 lb/in at MR 0.65 with a 700 lb sprung corner is typed, then wheel rate 211.3 lb/in and 1.72 Hz show', async () => {
     // Barton & Fieldhouse §3.9 (wheel rate = k·MR², f = (1/2π)√(k/m)): 500 lbf/in at MR 0.65 → 211.25 lbf/in (36.9955 N/mm); 700 lb sprung → 1.718 Hz
