@@ -57,6 +57,62 @@ describe("the demo driver's season review (390×844)", () => {
     await screenshot(page, 'review-before-after');
   });
 
+  it('when the review opens on a phone, then every series of each chart is named in full below it, inside its card', async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    // What the charts draw, from the same answers: one series per event (and the fitted line); one per driver
+    // plus the setup-change and change-log marks.
+    const scatter = await page.evaluate(async (id) => (await fetch(`/api/cars/${id}/analysis/scatter?x=camber&y=time&corner=front`)).json(), carId);
+    const scatterSeries = new Set((scatter.points as { eventId: string | null }[]).map((p) => p.eventId)).size + (scatter.fit ? 1 : 0);
+    const season = await page.evaluate(async (id) => (await fetch(`/api/cars/${id}/season?minDepthMm=1.6`)).json(), carId);
+    const drivers = new Set(
+      (season.events as { drivers: { driver: { id: string }; bestAdjustedSec: number | null }[] }[]).flatMap((e) =>
+        e.drivers.filter((d) => d.bestAdjustedSec !== null).map((d) => d.driver.id),
+      ),
+    ).size;
+    const timelineSeries = drivers + (season.setupChanges.length ? 1 : 0) + (season.changeLog.length ? 1 : 0);
+    expect(scatterSeries).toBeGreaterThan(6); // more than Chart.js's own legend had room for at this size
+
+    for (const [name, expected] of [['Setup against time and wear', scatterSeries], ['Season timeline', timelineSeries]] as const) {
+      const card = page.getByRole('region', { name });
+      await card.getByRole('img').waitFor({ timeout: 20_000 });
+      const entries = card.getByRole('list', { name: 'Series on the chart' }).getByRole('button');
+      expect(await entries.count()).toBe(expected);
+      const cardBox = (await card.boundingBox())!;
+      for (const entry of await entries.all()) {
+        await entry.scrollIntoViewIfNeeded();
+        expect(await entry.isVisible()).toBe(true);
+        const box = (await entry.boundingBox())!;
+        expect(box.x).toBeGreaterThanOrEqual(cardBox.x);
+        expect(box.x + box.width).toBeLessThanOrEqual(Math.min(cardBox.x + cardBox.width, 390));
+        // The whole label shows: nothing of it is clipped or scrolled out of the entry.
+        expect(await entry.evaluate((el) => el.scrollWidth <= el.clientWidth && el.scrollHeight <= el.clientHeight)).toBe(true);
+      }
+    }
+  });
+
+  it('when a series is pressed in the key, then the chart stops drawing it until it is pressed again', async () => {
+    const card = page.getByRole('region', { name: 'Setup against time and wear' });
+    const canvas = card.locator('canvas');
+    const inked = () =>
+      canvas.evaluate((el) => {
+        const c = el as HTMLCanvasElement;
+        const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+        let n = 0;
+        for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) n++;
+        return n;
+      });
+    const before = await inked();
+    const first = card.getByRole('list', { name: 'Series on the chart' }).getByRole('button').first();
+    await first.click();
+    expect(await first.getAttribute('aria-pressed')).toBe('false');
+    await expect.poll(inked).toBeLessThan(before);
+    await first.click();
+    expect(await first.getAttribute('aria-pressed')).toBe('true');
+    await expect.poll(inked).toBe(before);
+    await card.getByRole('list', { name: 'Series on the chart' }).scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-chart-key', { fullPage: false });
+  });
+
   it('when corner weights are typed into the calculator, then it shows the cross weight', async () => {
     await page.goto(`${baseUrl}/calculators`);
     // REFERENCE worked example (common practice): LF 720, RF 680, LR 610, RR 590 → cross (LF + RR) 50.38 %.

@@ -151,6 +151,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
                   label: s.label,
                   color: s.style.color,
                   shape: s.style.shape,
+                  glyph: s.style.glyph,
                   points: s.points.map((pt) => ({ x: pt.x, y: pt.y, lines: describePoint(result, pt.index, x, y) })),
                 })),
                 ...(plot.fit

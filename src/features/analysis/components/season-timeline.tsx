@@ -73,12 +73,12 @@ function TimelineChart({ season, drivers }: { season: SeasonResult; drivers: Dri
   const xPad = Math.max(2 * DAY_MS, (last - first) * 0.04);
 
   const series: ChartSeries[] = [
-    ...drivers.map((d) => ({ label: d.name, color: d.style.color, shape: d.style.shape, line: 'solid' as const, points: d.points })),
+    ...drivers.map((d) => ({ label: d.name, color: d.style.color, shape: d.style.shape, glyph: d.style.glyph, line: 'solid' as const, points: d.points })),
     ...(setupMarks.length
-      ? [{ label: 'Setup change', color: null, shape: 'triangle' as const, rotation: 180, verticalLines: 'dashed' as const, points: setupMarks }]
+      ? [{ label: 'Setup change', color: null, shape: 'triangle' as const, glyph: '▼', rotation: 180, verticalLines: 'dashed' as const, points: setupMarks }]
       : []),
     ...(logMarks.length
-      ? [{ label: 'Change-log entry', color: null, shape: 'rectRot' as const, verticalLines: 'dotted' as const, points: logMarks }]
+      ? [{ label: 'Change-log entry', color: null, shape: 'rectRot' as const, glyph: '◆', verticalLines: 'dotted' as const, points: logMarks }]
       : []),
   ];
 
