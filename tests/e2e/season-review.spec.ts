@@ -113,6 +113,68 @@ describe("the demo driver's season review (390×844)", () => {
     await screenshot(page, 'review-chart-key', { fullPage: false });
   });
 
+  it('when the points are shown as a table on a phone, then each value keeps to one line and the table scrolls in its own box', async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    const card = page.getByRole('region', { name: 'Setup against time and wear' });
+    await card.getByRole('img').waitFor({ timeout: 20_000 });
+    await card.getByRole('button', { name: 'Show as table' }).click();
+    const table = card.getByRole('table');
+    await table.waitFor();
+
+    // Lines each cell's text is laid out on: Runs, the setting (x) and the measurement (y) one each; the event at most three.
+    const lines = await table.evaluate((t) => {
+      const count = (el: Element) => {
+        const range = document.createRange();
+        range.selectNodeContents(el);
+        return new Set([...range.getClientRects()].filter((r) => r.width > 0).map((r) => Math.round(r.top))).size;
+      };
+      return [...t.querySelectorAll('tbody tr')].map((row) => {
+        const cells = [...row.children];
+        return { event: count(cells[1]!), runs: count(cells[2]!), x: count(cells.at(-2)!), y: count(cells.at(-1)!) };
+      });
+    });
+    expect(lines.length).toBeGreaterThan(10);
+    for (const row of lines) expect(row).toEqual({ event: expect.any(Number), runs: 1, x: 1, y: 1 });
+    expect(Math.max(...lines.map((r) => r.event))).toBeLessThanOrEqual(3);
+
+    // The table is wider than the phone: it scrolls inside its box, the page does not, and a line says so.
+    const box = card.getByRole('region', { name: /against .* points$/ });
+    expect(await box.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
+    expect(await card.getByText('Swipe the table sideways for the setup and the plotted values.').isVisible()).toBe(true);
+    await box.scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-points-table', { fullPage: false });
+  });
+
+  it("when the timeline is shown as a table on a phone, then each date and each driver's time keep to one line", async () => {
+    const card = page.getByRole('region', { name: 'Season timeline' });
+    await card.getByRole('img').waitFor({ timeout: 20_000 });
+    await card.getByRole('button', { name: 'Show as table' }).click();
+    const table = card.getByRole('table');
+    await table.waitFor();
+
+    const lines = await table.evaluate((t) => {
+      const count = (el: Node) => {
+        const range = document.createRange();
+        range.selectNodeContents(el);
+        return new Set([...range.getClientRects()].filter((r) => r.width > 0).map((r) => Math.round(r.top))).size;
+      };
+      return [...t.querySelectorAll('tbody tr')].map((row) => {
+        const [date, , ...drivers] = [...row.children];
+        // A driver's cell: the time, then the runs and cones under it.
+        return { date: count(date!), times: drivers.map((d) => count(d.firstChild!)) };
+      });
+    });
+    expect(lines.length).toBeGreaterThan(3);
+    for (const row of lines) expect(row).toEqual({ date: 1, times: row.times.map(() => 1) });
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
+    expect(await card.getByText(/^Swipe the table sideways for/).isVisible()).toBe(true);
+    const box = card.getByRole('region', { name: /^Best adjusted time per event/ });
+    expect(await box.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+    await box.scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-timeline-table', { fullPage: false });
+  });
+
   it('when corner weights are typed into the calculator, then it shows the cross weight', async () => {
     await page.goto(`${baseUrl}/calculators`);
     // REFERENCE worked example (common practice): LF 720, RF 680, LR 610, RR 590 → cross (LF + RR) 50.38 %.
