@@ -91,7 +91,9 @@ describe("the demo driver's season review (390×844)", () => {
   });
 
   it('when a series is pressed in the key, then the chart stops drawing it until it is pressed again', async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
     const card = page.getByRole('region', { name: 'Setup against time and wear' });
+    await card.getByRole('img').waitFor({ timeout: 20_000 });
     const canvas = card.locator('canvas');
     const inked = () =>
       canvas.evaluate((el) => {
@@ -147,6 +149,7 @@ describe("the demo driver's season review (390×844)", () => {
   });
 
   it("when the timeline is shown as a table on a phone, then each date and each driver's time keep to one line", async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
     const card = page.getByRole('region', { name: 'Season timeline' });
     await card.getByRole('img').waitFor({ timeout: 20_000 });
     await card.getByRole('button', { name: 'Show as table' }).click();
@@ -173,6 +176,24 @@ describe("the demo driver's season review (390×844)", () => {
     expect(await box.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
     await box.scrollIntoViewIfNeeded();
     await screenshot(page, 'review-timeline-table', { fullPage: false });
+  });
+
+  it("when a change is compared on a phone, then each corner's card is nearly the screen's width, one under another", async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    const section = page.getByRole('region', { name: 'Before and after a change' });
+    await section.getByText(/LF inner-edge wear/i).waitFor({ timeout: 20_000 });
+    const wear = section.getByRole('group', { name: 'Tyre wear per run, before and after' });
+    const boxes = [];
+    for (const name of ['Left front', 'Right front', 'Left rear', 'Right rear']) boxes.push((await wear.getByRole('group', { name }).boundingBox())!);
+    for (const box of boxes) {
+      expect(box.width).toBeGreaterThanOrEqual(300);
+      expect(box.x).toBeCloseTo(boxes[0]!.x, 0);
+    }
+    // Front before rear, left before right, each below the last.
+    for (let i = 1; i < boxes.length; i++) expect(boxes[i]!.y).toBeGreaterThanOrEqual(boxes[i - 1]!.y + boxes[i - 1]!.height);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
+    await wear.getByRole('group', { name: 'Left front' }).scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-before-after-corners', { fullPage: false });
   });
 
   it('when corner weights are typed into the calculator, then it shows the cross weight', async () => {

@@ -311,6 +311,33 @@ describe('season review: before and after a change', () => {
     expect(compare.getByText('(n = 24)')).toBeTruthy();
   });
 
+  it('when the screen is narrow, then the corners come one under another, front first, each headed by its name', async () => {
+    stub();
+    renderPage();
+    const compare = section('Before and after a change');
+    await compare.findByText('Camber: LF inner-edge wear fell by 0.015 mm per run, give or take 0.007.');
+
+    const wear = within(compare.getByRole('group', { name: 'Tyre wear per run, before and after' }));
+    const corners = { 'Left front': 'LF', 'Right front': 'RF', 'Left rear': 'LR', 'Right rear': 'RR' };
+    expect(wear.getAllByRole('heading', { level: 3 }).map((h) => h.textContent)).toEqual(Object.keys(corners));
+    for (const [name, short] of Object.entries(corners)) {
+      expect(wear.getByRole('group', { name }).textContent).toContain(`Camber: ${short} wear barely moved.`);
+    }
+  });
+
+  it('when the screen is wide, then the corners sit side by side in the car-shaped grid', async () => {
+    vi.stubGlobal('matchMedia', (query: string) => ({ matches: query === '(min-width: 48rem)', addEventListener: () => {}, removeEventListener: () => {} }));
+    stub();
+    renderPage();
+    const compare = section('Before and after a change');
+    await compare.findByText('Camber: LF inner-edge wear fell by 0.015 mm per run, give or take 0.007.');
+
+    const wear = within(compare.getByRole('group', { name: 'Tyre wear per run, before and after' }));
+    expect(wear.queryAllByRole('heading')).toHaveLength(0);
+    expect(wear.getByText('▲ Front')).toBeTruthy();
+    expect(wear.getByRole('group', { name: 'Right rear' }).textContent).toContain('Camber: RR wear barely moved.');
+  });
+
   it('when another change is picked, then its comparison is fetched and shown', async () => {
     stub({
       [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_FLUID.id}`]: jsonResponse(200, compareAnswer(CHANGE_FLUID.id, CHANGE_FLUID.what, 'Fluid')),
