@@ -57,6 +57,145 @@ describe("the demo driver's season review (390×844)", () => {
     await screenshot(page, 'review-before-after');
   });
 
+  it('when the review opens on a phone, then every series of each chart is named in full below it, inside its card', async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    // What the charts draw, from the same answers: one series per event (and the fitted line); one per driver
+    // plus the setup-change and change-log marks.
+    const scatter = await page.evaluate(async (id) => (await fetch(`/api/cars/${id}/analysis/scatter?x=camber&y=time&corner=front`)).json(), carId);
+    const scatterSeries = new Set((scatter.points as { eventId: string | null }[]).map((p) => p.eventId)).size + (scatter.fit ? 1 : 0);
+    const season = await page.evaluate(async (id) => (await fetch(`/api/cars/${id}/season?minDepthMm=1.6`)).json(), carId);
+    const drivers = new Set(
+      (season.events as { drivers: { driver: { id: string }; bestAdjustedSec: number | null }[] }[]).flatMap((e) =>
+        e.drivers.filter((d) => d.bestAdjustedSec !== null).map((d) => d.driver.id),
+      ),
+    ).size;
+    const timelineSeries = drivers + (season.setupChanges.length ? 1 : 0) + (season.changeLog.length ? 1 : 0);
+    expect(scatterSeries).toBeGreaterThan(6); // more than Chart.js's own legend had room for at this size
+
+    for (const [name, expected] of [['Setup against time and wear', scatterSeries], ['Season timeline', timelineSeries]] as const) {
+      const card = page.getByRole('region', { name });
+      await card.getByRole('img').waitFor({ timeout: 20_000 });
+      const entries = card.getByRole('list', { name: 'Series on the chart' }).getByRole('button');
+      expect(await entries.count()).toBe(expected);
+      const cardBox = (await card.boundingBox())!;
+      for (const entry of await entries.all()) {
+        await entry.scrollIntoViewIfNeeded();
+        expect(await entry.isVisible()).toBe(true);
+        const box = (await entry.boundingBox())!;
+        expect(box.x).toBeGreaterThanOrEqual(cardBox.x);
+        expect(box.x + box.width).toBeLessThanOrEqual(Math.min(cardBox.x + cardBox.width, 390));
+        // The whole label shows: nothing of it is clipped or scrolled out of the entry.
+        expect(await entry.evaluate((el) => el.scrollWidth <= el.clientWidth && el.scrollHeight <= el.clientHeight)).toBe(true);
+      }
+    }
+  });
+
+  it('when a series is pressed in the key, then the chart stops drawing it until it is pressed again', async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    const card = page.getByRole('region', { name: 'Setup against time and wear' });
+    await card.getByRole('img').waitFor({ timeout: 20_000 });
+    const canvas = card.locator('canvas');
+    const inked = () =>
+      canvas.evaluate((el) => {
+        const c = el as HTMLCanvasElement;
+        const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+        let n = 0;
+        for (let i = 3; i < data.length; i += 4) if (data[i]! > 0) n++;
+        return n;
+      });
+    const before = await inked();
+    const first = card.getByRole('list', { name: 'Series on the chart' }).getByRole('button').first();
+    await first.click();
+    expect(await first.getAttribute('aria-pressed')).toBe('false');
+    await expect.poll(inked).toBeLessThan(before);
+    await first.click();
+    expect(await first.getAttribute('aria-pressed')).toBe('true');
+    await expect.poll(inked).toBe(before);
+    await card.getByRole('list', { name: 'Series on the chart' }).scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-chart-key', { fullPage: false });
+  });
+
+  it('when the points are shown as a table on a phone, then each value keeps to one line and the table scrolls in its own box', async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    const card = page.getByRole('region', { name: 'Setup against time and wear' });
+    await card.getByRole('img').waitFor({ timeout: 20_000 });
+    await card.getByRole('button', { name: 'Show as table' }).click();
+    const table = card.getByRole('table');
+    await table.waitFor();
+
+    // Lines each cell's text is laid out on: Runs, the setting (x) and the measurement (y) one each; the event at most three.
+    const lines = await table.evaluate((t) => {
+      const count = (el: Element) => {
+        const range = document.createRange();
+        range.selectNodeContents(el);
+        return new Set([...range.getClientRects()].filter((r) => r.width > 0).map((r) => Math.round(r.top))).size;
+      };
+      return [...t.querySelectorAll('tbody tr')].map((row) => {
+        const cells = [...row.children];
+        return { event: count(cells[1]!), runs: count(cells[2]!), x: count(cells.at(-2)!), y: count(cells.at(-1)!) };
+      });
+    });
+    expect(lines.length).toBeGreaterThan(10);
+    for (const row of lines) expect(row).toEqual({ event: expect.any(Number), runs: 1, x: 1, y: 1 });
+    expect(Math.max(...lines.map((r) => r.event))).toBeLessThanOrEqual(3);
+
+    // The table is wider than the phone: it scrolls inside its box, the page does not, and a line says so.
+    const box = card.getByRole('region', { name: /against .* points$/ });
+    expect(await box.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
+    expect(await card.getByText('Swipe the table sideways for the setup and the plotted values.').isVisible()).toBe(true);
+    await box.scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-points-table', { fullPage: false });
+  });
+
+  it("when the timeline is shown as a table on a phone, then each date and each driver's time keep to one line", async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    const card = page.getByRole('region', { name: 'Season timeline' });
+    await card.getByRole('img').waitFor({ timeout: 20_000 });
+    await card.getByRole('button', { name: 'Show as table' }).click();
+    const table = card.getByRole('table');
+    await table.waitFor();
+
+    const lines = await table.evaluate((t) => {
+      const count = (el: Node) => {
+        const range = document.createRange();
+        range.selectNodeContents(el);
+        return new Set([...range.getClientRects()].filter((r) => r.width > 0).map((r) => Math.round(r.top))).size;
+      };
+      return [...t.querySelectorAll('tbody tr')].map((row) => {
+        const [date, , ...drivers] = [...row.children];
+        // A driver's cell: the time, then the runs and cones under it.
+        return { date: count(date!), times: drivers.map((d) => count(d.firstChild!)) };
+      });
+    });
+    expect(lines.length).toBeGreaterThan(3);
+    for (const row of lines) expect(row).toEqual({ date: 1, times: row.times.map(() => 1) });
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
+    expect(await card.getByText(/^Swipe the table sideways for/).isVisible()).toBe(true);
+    const box = card.getByRole('region', { name: /^Best adjusted time per event/ });
+    expect(await box.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+    await box.scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-timeline-table', { fullPage: false });
+  });
+
+  it("when a change is compared on a phone, then each corner's card is nearly the screen's width, one under another", async () => {
+    await page.goto(`${baseUrl}/cars/${carId}/review`);
+    const section = page.getByRole('region', { name: 'Before and after a change' });
+    await section.getByText(/LF inner-edge wear/i).waitFor({ timeout: 20_000 });
+    const wear = section.getByRole('group', { name: 'Tyre wear per run, before and after' });
+    const boxes = [];
+    for (const name of ['Left front', 'Right front', 'Left rear', 'Right rear']) boxes.push((await wear.getByRole('group', { name }).boundingBox())!);
+    for (const box of boxes) {
+      expect(box.width).toBeGreaterThanOrEqual(300);
+      expect(box.x).toBeCloseTo(boxes[0]!.x, 0);
+    }
+    // Front before rear, left before right, each below the last.
+    for (let i = 1; i < boxes.length; i++) expect(boxes[i]!.y).toBeGreaterThanOrEqual(boxes[i - 1]!.y + boxes[i - 1]!.height);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
+    await wear.getByRole('group', { name: 'Left front' }).scrollIntoViewIfNeeded();
+    await screenshot(page, 'review-before-after-corners', { fullPage: false });
+  });
+
   it('when corner weights are typed into the calculator, then it shows the cross weight', async () => {
     await page.goto(`${baseUrl}/calculators`);
     // REFERENCE worked example (common practice): LF 720, RF 680, LR 610, RR 590 → cross (LF + RR) 50.38 %.

@@ -2,9 +2,9 @@
  * The one module that imports chart.js. Sections load it with React.lazy, so chart.js lands in a chunk of its own
  * that only the season review page asks for — never in the trackside bundle.
  */
+import { useState } from 'react';
 import {
   Chart as ChartJS,
-  Legend,
   LinearScale,
   LineElement,
   PointElement,
@@ -17,16 +17,20 @@ import {
 } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
 import type { MarkerShape } from '../utils/series-styles';
+import { ChartLegend } from './chart-legend';
 
 // Only the pieces these charts use: the scatter controller (which also draws the fitted and per-driver lines),
-// linear axes, points, lines, the tooltip and the legend.
-ChartJS.register(ScatterController, LinearScale, PointElement, LineElement, Tooltip, Legend);
+// linear axes, points, lines and the tooltip. The key is ours, in HTML below the canvas: Chart.js's own gives a
+// bottom legend at most half the chart's height and cuts the rest off on a narrow screen.
+ChartJS.register(ScatterController, LinearScale, PointElement, LineElement, Tooltip);
 
 export interface ChartSeries {
   label: string;
   /** A hex colour, or null for the theme's ink colour. */
   color: string | null;
   shape: MarkerShape | 'line';
+  /** The marker as text, for the key below the chart (a series drawn as a line alone shows its line there). */
+  glyph?: string;
   /** Points in the plotted units; `lines` is what the tooltip says about the point. */
   points: { x: number; y: number; lines: string[] }[];
   /** Join the points with a line (a fitted line, a driver's season). */
@@ -90,8 +94,15 @@ const verticalLines: Plugin<'scatter'> = {
   },
 };
 
-/** A scatter plot (with optional joined series and markers) in the page's colours, with shapes in the legend. */
+/** A scatter plot (with optional joined series and markers) in the page's colours, with its key below it. */
 export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
+  const [hidden, setHidden] = useState<ReadonlySet<string>>(() => new Set());
+  const toggle = (label: string) =>
+    setHidden((was) => {
+      const next = new Set(was);
+      if (!next.delete(label)) next.add(label);
+      return next;
+    });
   const ink = themeColour('ink', '#131a24');
   const muted = themeColour('ink-muted', '#4a5566');
   const grid = themeColour('line', '#d3dae3');
@@ -101,6 +112,7 @@ export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
       const colour = s.color ?? ink;
       return {
         label: s.label,
+        hidden: hidden.has(s.label),
         data: s.points.map((p) => ({ x: p.x, y: p.y })),
         backgroundColor: colour,
         borderColor: colour,
@@ -145,7 +157,6 @@ export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
       },
     },
     plugins: {
-      legend: { position: 'bottom', labels: { usePointStyle: true, color: ink, padding: 14 } },
       tooltip: {
         filter: (item) => !series[item.datasetIndex]?.hidePoints,
         callbacks: {
@@ -157,8 +168,11 @@ export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
   };
 
   return (
-    <div className="relative h-80 w-full sm:h-96">
-      <Scatter data={data} options={options} plugins={[verticalLines]} role="img" aria-label={summary} />
+    <div className="flex flex-col gap-2">
+      <div className="relative h-80 w-full sm:h-96">
+        <Scatter data={data} options={options} plugins={[verticalLines]} role="img" aria-label={summary} />
+      </div>
+      <ChartLegend series={series} hidden={hidden} onToggle={toggle} onShowAll={() => setHidden(new Set())} />
     </div>
   );
 }

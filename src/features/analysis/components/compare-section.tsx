@@ -1,13 +1,15 @@
-import { useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
 import type { UnitPreferences } from '@shared/calc/units.calc';
-import { CornerGrid } from '@/components/corner-grid/corner-grid';
+import { CORNERS, type Corner } from '@shared/season/corners';
+import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { EmptyState } from '@/components/ui/empty-state';
 import { SelectField } from '@/components/ui/select-field';
 import { formatDateTime, formatDay } from '@/lib/dates';
 import { cn } from '@/lib/cn';
 import { useUnits } from '@/lib/units-context';
 import { useCompare } from '../api/get-compare';
+import { useMediaQuery } from '../hooks/use-media-query';
 import { LOCATION_WORDS, wearRateNumber, wearRateSuffix } from '../utils/analysis-format';
 import { byDay, defaultChangeId, type ChangeOption } from '../utils/pick-change';
 
@@ -66,13 +68,77 @@ function changeLabel(c: ChangeOption): string {
   return `${formatDay(c.changedOn)} · ${c.what} (${LOCATION_WORDS[c.location] ?? c.location})`;
 }
 
+/** Where each wheel sits on the small car outline (viewBox 24 × 72, front at the top). */
+const WHEEL_AT: Record<Corner, { x: number; y: number }> = { lf: { x: 1, y: 14 }, rf: { x: 19.5, y: 14 }, lr: { x: 1, y: 52 }, rr: { x: 19.5, y: 52 } };
+
+/** The car from above, front at the top, with the card's wheel filled in: which corner it is, at a glance. */
+function CornerMark({ corner }: { corner: Corner }) {
+  return (
+    <svg viewBox="0 0 24 72" className="h-12 w-5 shrink-0 text-line-strong" aria-hidden="true" focusable="false">
+      <path d="M12 1 L17 7 H7 Z" fill="currentColor" />
+      <rect x="5" y="8" width="14" height="60" rx="5" fill="none" stroke="currentColor" strokeWidth="1.5" />
+      {CORNERS.map((c) => (
+        <rect
+          key={c}
+          {...WHEEL_AT[c]}
+          width="3.5"
+          height="10"
+          rx="1"
+          stroke="currentColor"
+          strokeWidth="1"
+          className={c === corner ? 'fill-accent stroke-accent' : 'fill-none'}
+        />
+      ))}
+    </svg>
+  );
+}
+
+/**
+ * On a phone the corners come one under another, front first and left before right, each card as wide as the
+ * screen and marked on a small outline of the car; side by side they would be too narrow to read.
+ */
+function StackedCorners({ label, renderCorner }: { label: string; renderCorner: (corner: Corner) => ReactNode }) {
+  const baseId = useId();
+  return (
+    <div role="group" aria-label={label} className="flex flex-col gap-2">
+      <div className="font-semibold">{label}</div>
+      {CORNERS.map((corner) => (
+        <div key={corner} role="group" aria-labelledby={`${baseId}-${corner}`} className="flex flex-col gap-2 rounded border border-line p-3">
+          <div className="flex items-center gap-2">
+            <CornerMark corner={corner} />
+            <h3 id={`${baseId}-${corner}`} className="font-bold">
+              {CORNER_NAMES[corner]}
+            </h3>
+          </div>
+          {renderCorner(corner)}
+        </div>
+      ))}
+    </div>
+  );
+}
+
+/** Wide enough for the car's four corners side by side with each still comfortably readable. */
+const CORNERS_SIDE_BY_SIDE = '(min-width: 48rem)';
+
 function CompareResultView({ carId, changeId }: { carId: string; changeId: string }) {
   const units = useUnits();
+  const sideBySide = useMediaQuery(CORNERS_SIDE_BY_SIDE);
   const compare = useCompare(carId, changeId);
   if (compare.isPending) return <p className="text-ink-muted">Comparing before and after…</p>;
   if (compare.isError) return <EmptyState message="The comparison could not be loaded. Try again shortly." />;
   const result = compare.data;
   const wear = wearScale(units);
+  const label = 'Tyre wear per run, before and after';
+  const renderCorner = (corner: Corner) => {
+    const c = result.corners[corner];
+    return (
+      <div className="flex flex-col gap-3">
+        <Measure title="Inner-edge wear" comparison={c.innerWear} scale={wear} emphasis />
+        <Measure title="Overall wear" comparison={c.wear} scale={wear} />
+        <Measure title="Inner minus outer" comparison={c.skew} scale={wear} />
+      </div>
+    );
+  };
   return (
     <div className="flex flex-col gap-4">
       <p className="text-sm text-ink-muted">
@@ -80,19 +146,7 @@ function CompareResultView({ carId, changeId }: { carId: string; changeId: strin
         measured between two tread readings; an interval whose runs straddle the change counts on neither side. ± is one
         standard deviation; n is the number of intervals (or runs, for time).
       </p>
-      <CornerGrid
-        label="Tyre wear per run, before and after"
-        renderCorner={(corner) => {
-          const c = result.corners[corner];
-          return (
-            <div className="flex flex-col gap-3">
-              <Measure title="Inner-edge wear" comparison={c.innerWear} scale={wear} emphasis />
-              <Measure title="Overall wear" comparison={c.wear} scale={wear} />
-              <Measure title="Inner minus outer" comparison={c.skew} scale={wear} />
-            </div>
-          );
-        }}
-      />
+      {sideBySide ? <CornerGrid label={label} renderCorner={renderCorner} /> : <StackedCorners label={label} renderCorner={renderCorner} />}
       <div className="flex flex-col gap-1 rounded border border-line p-3">
         <Measure title="Time: % off the day's best, per run" comparison={result.time} scale={PERCENT_SCALE} />
       </div>

@@ -18,9 +18,12 @@ import { useScatter } from '../api/get-scatter';
 import { METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxis, type Axis } from '../utils/analysis-format';
 import { buildScatterPlot, type ScatterPlot } from '../utils/scatter-plot';
 import { ChartLoading } from './chart-loading';
-import { ShowTableToggle } from './show-table-toggle';
+import type { PointRow } from './points-table';
+import { ShowTableToggle, TableLoading } from './show-table-toggle';
 
 const AnalysisChart = lazy(() => import('./analysis-chart').then((m) => ({ default: m.AnalysisChart })));
+// Loaded on "Show as table", like the chart: most visits never open it.
+const PointsTable = lazy(() => import('./points-table').then((m) => ({ default: m.PointsTable })));
 
 export const WHERE_LABELS: Record<CornerOrAxle, string> = {
   lf: 'Left front',
@@ -58,6 +61,26 @@ function describePoint(result: ScatterResult, index: number, x: Axis, y: Axis): 
   ];
 }
 
+/** The table's rows, in the chart's order (event by event), every value written out in the user's units. */
+function pointRows(result: ScatterResult, plot: ScatterPlot, x: Axis, y: Axis): PointRow[] {
+  const wear = result.y.metric !== 'time';
+  return plot.series.flatMap((s) =>
+    s.points.map((pt) => {
+      const p = result.points[pt.index]!;
+      return {
+        key: pt.index,
+        marker: { glyph: s.style.glyph, color: s.style.color, name: s.style.shapeName },
+        event: s.label,
+        runs: runsText(p),
+        setup: p.setupLabel ?? '—',
+        ...(wear ? { corner: p.corner?.toUpperCase() ?? '—' } : {}),
+        x: x.format(p),
+        y: y.format(p),
+      };
+    }),
+  );
+}
+
 function Caption({ result }: { result: ScatterResult }) {
   const what = result.y.metric === 'time' ? 'runs' : 'wear intervals (between two tread readings)';
   return (
@@ -81,53 +104,6 @@ function Caption({ result }: { result: ScatterResult }) {
   );
 }
 
-function PointsTable({ id, result, plot, x, y }: { id: string; result: ScatterResult; plot: ScatterPlot; x: Axis; y: Axis }) {
-  const wear = result.y.metric !== 'time';
-  return (
-    <div id={id} className="overflow-x-auto">
-      <table className="tabular-figures w-full text-left text-sm">
-        <caption className="pb-2 text-left font-semibold">
-          {x.short} against {y.short.toLowerCase()}, {result.n} {result.n === 1 ? 'point' : 'points'}
-        </caption>
-        <thead>
-          <tr className="border-b border-line-strong">
-            <th scope="col" className="py-1 pr-3">Marker</th>
-            <th scope="col" className="py-1 pr-3">Event</th>
-            <th scope="col" className="py-1 pr-3">Runs</th>
-            <th scope="col" className="py-1 pr-3">Setup</th>
-            {wear ? <th scope="col" className="py-1 pr-3">Corner</th> : null}
-            <th scope="col" className="py-1 pr-3">{x.short}</th>
-            <th scope="col" className="py-1">{y.short}</th>
-          </tr>
-        </thead>
-        <tbody>
-          {plot.series.flatMap((s) =>
-            s.points.map((pt) => {
-              const p = result.points[pt.index]!;
-              return (
-                <tr key={pt.index} className="border-b border-line">
-                  <td className="py-1 pr-3">
-                    <span aria-hidden="true" style={s.style.color ? { color: s.style.color } : undefined}>
-                      {s.style.glyph}
-                    </span>
-                    <span className="sr-only">{s.style.shapeName}</span>
-                  </td>
-                  <td className="py-1 pr-3">{s.label}</td>
-                  <td className="py-1 pr-3">{runsText(p)}</td>
-                  <td className="py-1 pr-3">{p.setupLabel ?? '—'}</td>
-                  {wear ? <td className="py-1 pr-3">{p.corner?.toUpperCase() ?? '—'}</td> : null}
-                  <td className="py-1 pr-3">{x.format(p)}</td>
-                  <td className="py-1">{y.format(p)}</td>
-                </tr>
-              );
-            }),
-          )}
-        </tbody>
-      </table>
-    </div>
-  );
-}
-
 function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: ClicksAs }) {
   const units = useUnits();
   const tableId = useId();
@@ -135,6 +111,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
   const x = xAxis(result, units, clicksAs === 'share');
   const y = yAxis(result, units);
   const plot = buildScatterPlot(result, x, y);
+  const wear = result.y.metric !== 'time';
   const tick = (v: number) => (Number.isInteger(v) ? String(v) : String(Number(v.toFixed(3))));
 
   return (
@@ -151,6 +128,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
                   label: s.label,
                   color: s.style.color,
                   shape: s.style.shape,
+                  glyph: s.style.glyph,
                   points: s.points.map((pt) => ({ x: pt.x, y: pt.y, lines: describePoint(result, pt.index, x, y) })),
                 })),
                 ...(plot.fit
@@ -164,7 +142,18 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
           </Suspense>
           <Caption result={result} />
           <ShowTableToggle shown={showTable} onToggle={() => setShowTable((v) => !v)} controls={tableId} />
-          {showTable ? <PointsTable id={tableId} result={result} plot={plot} x={x} y={y} /> : null}
+          {showTable ? (
+            <Suspense fallback={<TableLoading />}>
+              <PointsTable
+                id={tableId}
+                caption={`${x.short} against ${y.short.toLowerCase()}, ${result.n} ${result.n === 1 ? 'point' : 'points'}`}
+                xHeading={x.short}
+                yHeading={y.short}
+                withCorner={wear}
+                rows={pointRows(result, plot, x, y)}
+              />
+            </Suspense>
+          ) : null}
         </>
       )}
     </div>

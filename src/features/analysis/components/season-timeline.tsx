@@ -9,13 +9,15 @@ import { LOCATION_WORDS } from '../utils/analysis-format';
 import { seriesStyle, type SeriesStyle } from '../utils/series-styles';
 import type { ChartSeries } from './analysis-chart';
 import { ChartLoading } from './chart-loading';
-import { ShowTableToggle } from './show-table-toggle';
+import { ShowTableToggle, TableLoading } from './show-table-toggle';
 
 const AnalysisChart = lazy(() => import('./analysis-chart').then((m) => ({ default: m.AnalysisChart })));
+// Loaded on "Show as table", like the chart: most visits never open it.
+const EventsTable = lazy(() => import('./events-table').then((m) => ({ default: m.EventsTable })));
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
-interface DriverSeries {
+export interface DriverSeries {
   id: string;
   name: string;
   style: SeriesStyle;
@@ -73,12 +75,12 @@ function TimelineChart({ season, drivers }: { season: SeasonResult; drivers: Dri
   const xPad = Math.max(2 * DAY_MS, (last - first) * 0.04);
 
   const series: ChartSeries[] = [
-    ...drivers.map((d) => ({ label: d.name, color: d.style.color, shape: d.style.shape, line: 'solid' as const, points: d.points })),
+    ...drivers.map((d) => ({ label: d.name, color: d.style.color, shape: d.style.shape, glyph: d.style.glyph, line: 'solid' as const, points: d.points })),
     ...(setupMarks.length
-      ? [{ label: 'Setup change', color: null, shape: 'triangle' as const, rotation: 180, verticalLines: 'dashed' as const, points: setupMarks }]
+      ? [{ label: 'Setup change', color: null, shape: 'triangle' as const, glyph: '▼', rotation: 180, verticalLines: 'dashed' as const, points: setupMarks }]
       : []),
     ...(logMarks.length
-      ? [{ label: 'Change-log entry', color: null, shape: 'rectRot' as const, verticalLines: 'dotted' as const, points: logMarks }]
+      ? [{ label: 'Change-log entry', color: null, shape: 'rectRot' as const, glyph: '◆', verticalLines: 'dotted' as const, points: logMarks }]
       : []),
   ];
 
@@ -91,51 +93,6 @@ function TimelineChart({ season, drivers }: { season: SeasonResult; drivers: Dri
         summary={`Best adjusted time per event for ${drivers.map((d) => d.name).join(' and ')}, with ${setupMarks.length} setup changes and ${logMarks.length} change-log entries marked. Use "Show as table" for the values.`}
       />
     </Suspense>
-  );
-}
-
-function EventsTable({ id, season, drivers }: { id: string; season: SeasonResult; drivers: DriverSeries[] }) {
-  const events = [...season.events].sort((a, b) => a.date.localeCompare(b.date));
-  return (
-    <div id={id} className="overflow-x-auto">
-      <table className="tabular-figures w-full text-left text-sm">
-        <caption className="pb-2 text-left font-semibold">Best adjusted time per event (courses differ between events)</caption>
-        <thead>
-          <tr className="border-b border-line-strong">
-            <th scope="col" className="py-1 pr-3">Date</th>
-            <th scope="col" className="py-1 pr-3">Event</th>
-            {drivers.map((d) => (
-              <th key={d.id} scope="col" className="py-1 pr-3">
-                <span aria-hidden="true" style={d.style.color ? { color: d.style.color } : undefined}>
-                  {d.style.glyph}{' '}
-                </span>
-                {d.name}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {events.map((e) => (
-            <tr key={e.eventId} className="border-b border-line">
-              <td className="py-1 pr-3">{formatDay(e.date)}</td>
-              <th scope="row" className="py-1 pr-3 font-normal">
-                {e.name}
-                {e.venue ? <span className="text-ink-muted"> · {e.venue}</span> : null}
-              </th>
-              {drivers.map((d) => {
-                const entry = e.drivers.find((x) => x.driver.id === d.id);
-                return (
-                  <td key={d.id} className="py-1 pr-3">
-                    {entry?.bestAdjustedSec != null ? `${formatRunTime(entry.bestAdjustedSec)} s` : '—'}
-                    {entry ? <span className="text-ink-muted"> ({entry.runCount} runs, {entry.cones} cones)</span> : null}
-                  </td>
-                );
-              })}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
   );
 }
 
@@ -172,7 +129,11 @@ export function SeasonTimeline({
             ▼ dashed line: a setup change. ◆ dotted line: a change-log entry. Hover or tap a marker for what it was.
           </p>
           <ShowTableToggle shown={showTable} onToggle={() => setShowTable((v) => !v)} controls={tableId} />
-          {showTable ? <EventsTable id={tableId} season={season} drivers={drivers} /> : null}
+          {showTable ? (
+            <Suspense fallback={<TableLoading />}>
+              <EventsTable id={tableId} season={season} drivers={drivers} />
+            </Suspense>
+          ) : null}
         </>
       )}
       <div className="flex flex-col gap-2">

@@ -10,3 +10,8 @@ export function ShowTableToggle({ shown, onToggle, controls }: { shown: boolean;
     </Button>
   );
 }
+
+/** Stands in for a table while its code arrives. */
+export function TableLoading() {
+  return <p className="text-sm text-ink-muted">Loading the table…</p>;
+}

@@ -3,6 +3,7 @@ import type { BoardCar, BoardResult, ClassBoard } from '@shared/collab/team.sche
 import { Caution } from '@/components/ui/caution';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
+import { SideScroll } from '@/components/side-scroll/side-scroll';
 import { formatDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
@@ -33,46 +34,42 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
   const head = 'px-2 py-2 text-right font-semibold whitespace-nowrap';
   const num = 'tabular-figures px-2 py-2 text-right whitespace-nowrap';
   return (
-    // The table scrolls inside its own box on a phone; the page itself never scrolls sideways. The event
-    // column stays put while the numbers scroll past it, and a line above says there is more to the right.
-    <>
-      <p className="text-xs text-ink-muted sm:hidden">Swipe the table sideways for adjusted times, index times and rank.</p>
-      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Results of ${car.car.name}`}>
-        <table className="w-full min-w-[36rem] border-collapse text-left text-sm">
-          <thead>
-            <tr className="border-b border-line text-ink-muted">
-              <th scope="col" className="sticky left-0 bg-surface py-2 pr-2 font-semibold">
-                Event, date, driver
+    // On a phone the event column stays put while the numbers scroll past it.
+    <SideScroll label={`Results of ${car.car.name}`} more="adjusted times, index times and rank">
+      <table className="w-full min-w-[36rem] border-collapse text-left text-sm">
+        <thead>
+          <tr className="border-b border-line text-ink-muted">
+            <th scope="col" className="sticky left-0 bg-surface py-2 pr-2 font-semibold">
+              Event, date, driver
+            </th>
+            <th scope="col" className={head}>Best raw (s)</th>
+            <th scope="col" className={head}>
+              Best adjusted (s)<span className="block text-xs font-normal">cones counted</span>
+            </th>
+            <th scope="col" className={head}>Index (s)</th>
+            <th scope="col" className={head}>Off class fastest</th>
+            <th scope="col" className={head}>Rank</th>
+          </tr>
+        </thead>
+        <tbody>
+          {results.map((r) => (
+            <tr key={`${r.eventId}-${r.driver.id}`} className="border-b border-line align-top">
+              <th scope="row" className="sticky left-0 max-w-44 min-w-36 bg-surface py-2 pr-2 text-left font-normal">
+                <span className="block font-semibold break-words">{r.eventName}</span>
+                <span className="block text-xs text-ink-muted">
+                  {formatDay(r.date)} · {r.driver.displayName}
+                </span>
               </th>
-              <th scope="col" className={head}>Best raw (s)</th>
-              <th scope="col" className={head}>
-                Best adjusted (s)<span className="block text-xs font-normal">cones counted</span>
-              </th>
-              <th scope="col" className={head}>Index (s)</th>
-              <th scope="col" className={head}>Off class fastest</th>
-              <th scope="col" className={head}>Rank</th>
+              <td className={num}>{boardTime(r.bestRawSec)}</td>
+              <td className={`${num} font-bold`}>{boardTime(r.bestAdjustedSec)}</td>
+              <td className={num}>{hasFactor ? boardTime(r.indexSec) : '—'}</td>
+              <td className={num}>{r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}</td>
+              <td className={num}>{r.rankInClass ?? '—'}</td>
             </tr>
-          </thead>
-          <tbody>
-            {results.map((r) => (
-              <tr key={`${r.eventId}-${r.driver.id}`} className="border-b border-line align-top">
-                <th scope="row" className="sticky left-0 max-w-44 min-w-36 bg-surface py-2 pr-2 text-left font-normal">
-                  <span className="block font-semibold break-words">{r.eventName}</span>
-                  <span className="block text-xs text-ink-muted">
-                    {formatDay(r.date)} · {r.driver.displayName}
-                  </span>
-                </th>
-                <td className={num}>{boardTime(r.bestRawSec)}</td>
-                <td className={`${num} font-bold`}>{boardTime(r.bestAdjustedSec)}</td>
-                <td className={num}>{hasFactor ? boardTime(r.indexSec) : '—'}</td>
-                <td className={num}>{r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}</td>
-                <td className={num}>{r.rankInClass ?? '—'}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
-    </>
+          ))}
+        </tbody>
+      </table>
+    </SideScroll>
   );
 }
 

@@ -212,7 +212,7 @@ describe('season review: setup against time and wear', () => {
     expect(scatter.queryByRole('table')).toBeNull();
 
     await u.click(scatter.getByRole('button', { name: 'Show as table' }));
-    const table = scatter.getByRole('table');
+    const table = await scatter.findByRole('table');
     const rows = within(table).getAllByRole('row');
     expect(rows).toHaveLength(4); // a heading row and three points
     expect(within(table).getByRole('columnheader', { name: 'Camber (°)' })).toBeTruthy();
@@ -222,6 +222,19 @@ describe('season review: setup against time and wear', () => {
     expect(cells.slice(2)).toEqual(['1 run', 'Baseline', '-1.50°', '+1.23 %']);
     expect(within(rows[3]!).getByText('More camber')).toBeTruthy();
     expect(scatter.getByRole('button', { name: 'Hide table' }).getAttribute('aria-expanded')).toBe('true');
+  });
+
+  it('when the table is shown, then it scrolls sideways in a box of its own, and a phone is told so', async () => {
+    stub();
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot of Camber/ });
+    await u.click(scatter.getByRole('button', { name: 'Show as table' }));
+
+    const box = await scatter.findByRole('region', { name: "Camber (°) against off the day's best (%), 3 points" });
+    expect(box.getAttribute('tabindex')).toBe('0'); // keys scroll it too
+    expect(within(box).getByRole('table', { name: "Camber (°) against off the day's best (%), 3 points" })).toBeTruthy();
+    expect(scatter.getByText('Swipe the table sideways for the setup and the plotted values.')).toBeTruthy();
   });
 
   it('when cold pressure against wear is picked in psi and 1/32 in, then the points convert and a fit-less plot says "not enough data yet"', async () => {
@@ -240,7 +253,7 @@ describe('season review: setup against time and wear', () => {
     expect(requestsTo(fetch, scatterPath('coldPressure', 'wear'))).toHaveLength(1);
 
     await u.click(scatter.getByRole('button', { name: 'Show as table' }));
-    const rows = within(scatter.getByRole('table')).getAllByRole('row');
+    const rows = within(await scatter.findByRole('table')).getAllByRole('row');
     // 220.632 kPa = 32.0 psi (NIST SP 811); 0.05 mm per run = 0.063/32 in per run.
     expect(within(rows[1]!).getByText('32.0 psi')).toBeTruthy();
     expect(within(rows[1]!).getByText('0.063/32 in per run')).toBeTruthy();
@@ -263,7 +276,7 @@ describe('season review: setup against time and wear', () => {
     await u.click(await scatter.findByRole('radio', { name: /Share of range/ }));
     await u.click(scatter.getByRole('button', { name: 'Show as table' }));
 
-    const table = scatter.getByRole('table');
+    const table = await scatter.findByRole('table');
     expect(within(table).getByRole('columnheader', { name: 'Clicks (0 = softest, 1 = stiffest)' })).toBeTruthy();
     expect(within(table).getByText('0.25 of the range (6 clicks)')).toBeTruthy();
     expect(scatter.getByRole('img', { name: /share of the range/ }).textContent).toMatch(/Fitted line: 2$/);
@@ -296,6 +309,33 @@ describe('season review: before and after a change', () => {
     expect(compare.getByText("Camber: % off the day's best fell by 0.51 %, not enough to rule out chance.")).toBeTruthy();
     expect(compare.getByText(/2\.31 ± 1\.10 %/)).toBeTruthy();
     expect(compare.getByText('(n = 24)')).toBeTruthy();
+  });
+
+  it('when the screen is narrow, then the corners come one under another, front first, each headed by its name', async () => {
+    stub();
+    renderPage();
+    const compare = section('Before and after a change');
+    await compare.findByText('Camber: LF inner-edge wear fell by 0.015 mm per run, give or take 0.007.');
+
+    const wear = within(compare.getByRole('group', { name: 'Tyre wear per run, before and after' }));
+    const corners = { 'Left front': 'LF', 'Right front': 'RF', 'Left rear': 'LR', 'Right rear': 'RR' };
+    expect(wear.getAllByRole('heading', { level: 3 }).map((h) => h.textContent)).toEqual(Object.keys(corners));
+    for (const [name, short] of Object.entries(corners)) {
+      expect(wear.getByRole('group', { name }).textContent).toContain(`Camber: ${short} wear barely moved.`);
+    }
+  });
+
+  it('when the screen is wide, then the corners sit side by side in the car-shaped grid', async () => {
+    vi.stubGlobal('matchMedia', (query: string) => ({ matches: query === '(min-width: 48rem)', addEventListener: () => {}, removeEventListener: () => {} }));
+    stub();
+    renderPage();
+    const compare = section('Before and after a change');
+    await compare.findByText('Camber: LF inner-edge wear fell by 0.015 mm per run, give or take 0.007.');
+
+    const wear = within(compare.getByRole('group', { name: 'Tyre wear per run, before and after' }));
+    expect(wear.queryAllByRole('heading')).toHaveLength(0);
+    expect(wear.getByText('▲ Front')).toBeTruthy();
+    expect(wear.getByRole('group', { name: 'Right rear' }).textContent).toContain('Camber: RR wear barely moved.');
   });
 
   it('when another change is picked, then its comparison is fetched and shown', async () => {
@@ -376,5 +416,19 @@ describe('season review: timeline', () => {
     expect(items[0]!.textContent).toMatch(/Baseline.*the starting point/);
     expect(items[1]!.textContent).toMatch(/More camber/);
     expect(within(items[1]!).getByText('▼ 0.50°')).toBeTruthy();
+  });
+
+  it('when the timeline is shown as a table, then each time sits on its own line above its runs and cones, and a phone is told to swipe', async () => {
+    stub();
+    const u = renderPage();
+    const timeline = section('Season timeline');
+    await timeline.findByRole('img', { name: /Best adjusted time per event/ });
+    await u.click(timeline.getByRole('button', { name: 'Show as table' }));
+
+    const box = await timeline.findByRole('region', { name: 'Best adjusted time per event (courses differ between events)' });
+    expect(timeline.getByText("Swipe the table sideways for every driver's times.")).toBeTruthy();
+    const round3 = within(box).getByRole('row', { name: /Harrow Flats — Round 3/ });
+    const maren = within(round3).getAllByRole('cell')[1]!;
+    expect([...maren.children].map((line) => line.textContent)).toEqual(['48.100 s', '4 runs, 1 cone']);
   });
 });
