@@ -175,7 +175,7 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
               placeholder={String(next)}
               value={runNumberText}
               onChange={(e) => {
-                setRunNumberText(e.target.value.replace(/\D/g, '').slice(0, 3));
+                setRunNumberText(e.target.value.slice(0, 4));
                 setErrors((er) => ({ ...er, runNumber: undefined }));
               }}
               aria-invalid={errors.runNumber ? true : undefined}

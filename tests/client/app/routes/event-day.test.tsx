@@ -228,6 +228,21 @@ describe('event day', () => {
     expect(outbox.getSnapshot()).toHaveLength(0);
   });
 
+  it.each(['-3', '−3', '2.5'])('when the run number is typed as %s, then it stays as typed and is refused at its field, and nothing is saved', async (typed) => {
+    stubWithRuns([]);
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    await keypad(u, '45.2');
+    await u.type(screen.getByLabelText('Run number'), typed);
+    expect((screen.getByLabelText('Run number') as HTMLInputElement).value).toBe(typed);
+    await u.click(screen.getByRole('button', { name: `Save run ${typed}` }));
+
+    expect(await screen.findByText('Run numbers are whole numbers from 1')).toBeTruthy();
+    expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+
   it('when a faster run is still waiting to upload, then it is scored with the saved ones and marked best instead', async () => {
     const waitingRun = runOnPhone({ cones: 1 });
     stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 46.5, adjustedTimeSec: 46.5, isBest: true, pctOffBest: 0 })]);
