@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/button';
 export const OPEN_COMMENTS_EVENT = 'scrubline:open-comments';
 export interface OpenCommentsDetail {
   target: CommentTarget;
-  /** "run 3", "Grey roadster today". */
+  /** "run 3", "Grey roadster at Harbour Lot Sprint". */
   what: string;
 }
 

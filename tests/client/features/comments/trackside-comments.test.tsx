@@ -60,9 +60,9 @@ describe('comments at the track', () => {
     renderApp(PATH);
     const u = userEvent.setup();
 
-    await u.click(await screen.findByRole('button', { name: 'Comments on Grey roadster today' }));
+    await u.click(await screen.findByRole('button', { name: /^Comments on Grey roadster at / }));
 
-    const dialog = await screen.findByRole('dialog', { name: 'Comments on Grey roadster today' });
+    const dialog = await screen.findByRole('dialog', { name: /^Comments on Grey roadster at / });
     expect(await within(dialog).findByText('No comments yet.')).toBeTruthy();
     expect(requestsTo(fetchMock, url).length).toBeGreaterThan(0);
   });
