@@ -4,18 +4,17 @@ import { adjustedTimeSec } from '@shared/calc/scoring.calc';
 import type { Person } from '@shared/season/car.schema';
 import { createRunInputSchema, RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
 import { formatRunTime, parseRunTime } from '@shared/season/run-time';
-import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { Stepper } from '@/components/ui/stepper';
-import { UnitInput } from '@/components/ui/unit-input';
 import { unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { createRunEntry, useCreateRun, type CreateRunBody } from '../api/create-run';
 import { nextRunNumber, type RunRow } from '../utils/merge-runs';
 import { emptyCornerText, readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import { runLabel, STATUS_WORDS } from '../utils/run-words';
+import { HotPressureGrid } from './hot-pressure-grid';
 import { TimeKeypad } from './time-keypad';
 
 const STATUS_OPTIONS = RUN_STATUSES.map((s) => ({ value: s, label: STATUS_WORDS[s] }));
@@ -209,23 +208,14 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
         </button>
         {extras ? (
           <div className="flex flex-col gap-3">
-            <CornerGrid
-              label={`Hot pressures (${pressureUnit})`}
-              cornerInvalid={(c) => Boolean(errors.hot?.[c])}
-              renderCorner={(corner) => (
-                <UnitInput
-                  label={`${CORNER_NAMES[corner]} hot pressure`}
-                  hideLabel
-                  unit={pressureUnit}
-                  value={hot[corner]}
-                  error={errors.hot?.[corner]}
-                  onChange={(e) => {
-                    const value = e.target.value;
-                    setHot((h) => ({ ...h, [corner]: value }));
-                    setErrors((er) => ({ ...er, hot: er.hot ? { ...er.hot, [corner]: undefined } : undefined }));
-                  }}
-                />
-              )}
+            <HotPressureGrid
+              unit={pressureUnit}
+              values={hot}
+              errorOf={(corner) => errors.hot?.[corner]}
+              onChange={(corner, text) => {
+                setHot((h) => ({ ...h, [corner]: text }));
+                setErrors((er) => ({ ...er, hot: er.hot ? { ...er.hot, [corner]: undefined } : undefined }));
+              }}
             />
             <label className="flex flex-col gap-1">
               <span className="font-semibold">Note</span>

@@ -2,17 +2,16 @@ import { useRef, useState, type FormEvent } from 'react';
 import { CORNERS, type Corner, type PerCorner } from '@shared/season/corners';
 import { RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
 import { formatRunTime, parseRunTime } from '@shared/season/run-time';
-import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { Stepper } from '@/components/ui/stepper';
 import { TextField } from '@/components/ui/text-field';
-import { UnitInput } from '@/components/ui/unit-input';
 import { toInputText, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import type { RunRow } from '../utils/merge-runs';
 import { STATUS_WORDS } from '../utils/run-words';
+import { HotPressureGrid } from './hot-pressure-grid';
 
 export interface RunChanges {
   runNumber: number;
@@ -161,23 +160,14 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
         onChange={setStatus}
       />
       <div className="flex flex-col gap-1">
-        <CornerGrid
-          label={`Hot pressures (${pressureUnit})`}
-          cornerInvalid={(c) => Boolean(errors[hotField(c)])}
-          renderCorner={(corner) => (
-            <UnitInput
-              label={`${CORNER_NAMES[corner]} hot pressure`}
-              hideLabel
-              unit={pressureUnit}
-              value={hot[corner]}
-              error={errors[hotField(corner)]}
-              onChange={(e) => {
-                const value = e.target.value;
-                setHot((h) => ({ ...h, [corner]: value }));
-                setErrors((er) => ({ ...er, [hotField(corner)]: undefined }));
-              }}
-            />
-          )}
+        <HotPressureGrid
+          unit={pressureUnit}
+          values={hot}
+          errorOf={(corner) => errors[hotField(corner)]}
+          onChange={(corner, text) => {
+            setHot((h) => ({ ...h, [corner]: text }));
+            setErrors((er) => ({ ...er, [hotField(corner)]: undefined }));
+          }}
         />
         <p className="text-sm text-ink-muted">Empty a corner to clear its reading.</p>
       </div>
