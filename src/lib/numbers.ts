@@ -24,6 +24,14 @@ export function parseDecimal(text: string): ParsedDecimal {
   return Number.isFinite(value) ? { kind: 'number', value } : { kind: 'invalid' };
 }
 
+/**
+ * The one message for a field whose text is not a number, with an example as the user would type it
+ * (a hyphen for minus, the key every phone has: "-0.5"). Values the app shows use the true minus (formatSigned).
+ */
+export function typeANumber(example?: string): string {
+  return example ? `Type a number, e.g. ${example}` : 'Type a number';
+}
+
 /** Removes the float noise a unit conversion leaves (1.5875000000000001 → 1.5875). */
 export const tidy = (n: number) => Math.round(n * 1e6) / 1e6;
 

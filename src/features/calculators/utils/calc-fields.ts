@@ -1,5 +1,5 @@
 import { formatInUnit, fromDisplay, toDisplay, UNIT_DECIMALS, unitFor, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
-import { parseDecimal, tidy } from '@/lib/numbers';
+import { parseDecimal, tidy, typeANumber } from '@/lib/numbers';
 
 /*
  * Calculator fields: text typed in the user's unit, read into SI for the shared calculations, and results written
@@ -10,7 +10,7 @@ import { parseDecimal, tidy } from '@/lib/numbers';
 /** What one typed field holds. */
 export type Reading = { kind: 'empty' } | { kind: 'value'; si: number } | { kind: 'invalid'; message: string };
 
-const NOT_A_NUMBER = 'Enter a number, such as 12.5';
+const NOT_A_NUMBER = typeANumber('12.5');
 
 /** A field typed in the user's unit for a quantity, in SI. */
 export function readQuantity(text: string, quantity: Quantity, units: UnitPreferences): Reading {

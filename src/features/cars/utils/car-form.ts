@@ -2,7 +2,7 @@ import * as z from '@shared/zod';
 import { AXLES, type Axle } from '@shared/season/corners';
 import { createCarInputSchema, DAMPER_COUNT_FROM, type CreateCarInput, type DamperAdjuster } from '@shared/season/car.schema';
 import { LIMITS } from '@shared/season/limits';
-import { parseDecimal } from '@/lib/numbers';
+import { parseDecimal, typeANumber } from '@/lib/numbers';
 import { addIssue } from '@/lib/form-schema';
 
 export type DamperCountFrom = (typeof DAMPER_COUNT_FROM)[number];
@@ -73,7 +73,7 @@ export const carFormSchema = z.pipe(
       if (parsed.kind === 'empty') return null;
       const path = ['motionRatios', axle];
       const { min, max } = LIMITS.motionRatio;
-      if (parsed.kind === 'invalid') problem(path, 'Type a number, e.g. 0.75');
+      if (parsed.kind === 'invalid') problem(path, typeANumber('0.75'));
       else if (parsed.value < min || parsed.value > max) problem(path, `Between ${min} and ${max}`);
       return parsed.kind === 'number' ? parsed.value : null;
     };

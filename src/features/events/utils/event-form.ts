@@ -2,7 +2,7 @@ import * as z from '@shared/zod';
 import { formatQuantity, fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import { createEventInputSchema, EVENT_KINDS, type CreateEventInput } from '@shared/season/event.schema';
 import { LIMITS } from '@shared/season/limits';
-import { parseDecimal, tidy } from '@/lib/numbers';
+import { parseDecimal, tidy, typeANumber } from '@/lib/numbers';
 import { addIssue } from '@/lib/form-schema';
 
 /** What the new-event form holds: text as typed, temperatures in the user's unit. */
@@ -63,7 +63,7 @@ export function eventFormSchema(units: UnitPreferences) {
         if (parsed.kind === 'empty') return null;
         if (parsed.kind === 'invalid') {
           local.add(field);
-          addIssue(ctx, [field], 'Type a number, e.g. 21');
+          addIssue(ctx, [field], typeANumber('21'));
           return null;
         }
         const celsius = tidy(fromDisplay(parsed.value, 'temperature', units));

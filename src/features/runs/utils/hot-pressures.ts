@@ -1,7 +1,7 @@
 import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { CORNERS, type Corner, type PerCorner } from '@shared/season/corners';
 import { LIMITS } from '@shared/season/limits';
-import { inputToSi } from '@/lib/numbers';
+import { inputToSi, typeANumber } from '@/lib/numbers';
 
 export type CornerTextMap = Record<Corner, string>;
 export const emptyCornerText = (): CornerTextMap => ({ lf: '', rf: '', lr: '', rr: '' });
@@ -19,7 +19,7 @@ export function readPressures(
   for (const corner of CORNERS) {
     const si = inputToSi(texts[corner], 'pressure', units);
     if (si === null) continue;
-    if (si === 'invalid') errors[corner] = `Type a number, e.g. ${formatQuantity(EXAMPLE_HOT_KPA, 'pressure', units)}`;
+    if (si === 'invalid') errors[corner] = typeANumber(formatQuantity(EXAMPLE_HOT_KPA, 'pressure', units));
     else if (si < LIMITS.pressureKpa.min || si > LIMITS.pressureKpa.max) {
       errors[corner] = `Between ${formatQuantity(LIMITS.pressureKpa.min, 'pressure', units)} and ${formatQuantity(LIMITS.pressureKpa.max, 'pressure', units)}`;
     } else kpa[corner] = si;

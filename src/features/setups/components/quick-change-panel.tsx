@@ -9,7 +9,7 @@ import { Caution } from '@/components/ui/caution';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SelectField } from '@/components/ui/select-field';
 import { cn } from '@/lib/cn';
-import { formatSigned, parseDecimal, tidy, unitSymbol } from '@/lib/numbers';
+import { formatSigned, parseDecimal, tidy, typeANumber, unitSymbol } from '@/lib/numbers';
 import { toast } from '@/lib/toast-store';
 import { useUnits } from '@/lib/units-context';
 import { quickChangeEntry, useQuickChange, type QuickChangeBody } from '../api/quick-change';
@@ -109,7 +109,7 @@ export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProp
       const amount = amountOf(line);
       const { quantity } = FIELD_INFO[line.field];
       if (line.corners.length === 0) lineErrors[line.id] = 'Pick at least one corner';
-      else if (amount === null) lineErrors[line.id] = line.amount.trim() ? 'Type a number' : 'Choose how much to change';
+      else if (amount === null) lineErrors[line.id] = line.amount.trim() ? typeANumber() : 'Choose how much to change';
       else if (line.mode === 'delta' && amount === 0) lineErrors[line.id] = 'A change of 0 changes nothing';
       else if (!quantity && !Number.isInteger(amount)) lineErrors[line.id] = 'Clicks are whole numbers';
       if (lineErrors[line.id] || amount === null) continue;

@@ -2,7 +2,7 @@ import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
 import type { Car } from '@shared/season/car.schema';
 import { axleOf, CORNERS, type Corner } from '@shared/season/corners';
 import { SETUP_CORNER_FIELDS, type SetupCorner, type SetupCornerField } from '@shared/season/setup.schema';
-import { inputToSi, parseDecimal, toInputText } from '@/lib/numbers';
+import { inputToSi, parseDecimal, toInputText, typeANumber } from '@/lib/numbers';
 import { FIELD_INFO } from '@/lib/setup-fields';
 
 export type CornerTexts = Record<SetupCornerField, string>;
@@ -88,7 +88,7 @@ export function textsToSi(
       }
       const si = inputToSi(text, info.quantity, units);
       if (si === 'invalid') {
-        refuse('Type a number, e.g. 1.5');
+        refuse(typeANumber('1.5'));
         continue;
       }
       if (si !== null && (si < info.limits.min || si > info.limits.max)) {

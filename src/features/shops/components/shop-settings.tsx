@@ -6,7 +6,7 @@ import { FormAlert } from '@/components/ui/form-alert';
 import { TextField } from '@/components/ui/text-field';
 import { UnitInput } from '@/components/ui/unit-input';
 import { isApiError } from '@/lib/api-client';
-import { inputToSi, parseDecimal, toInputText, unitSymbol } from '@/lib/numbers';
+import { inputToSi, parseDecimal, toInputText, typeANumber, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { useUpdateShopSettings } from '../api/update-shop-settings';
 
@@ -47,9 +47,9 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: Shop; onSaved?: () =
   const submit = () => {
     const errors: Record<string, string> = {};
     const taxParsed = parseDecimal(tax);
-    if (taxParsed.kind !== 'number') errors.taxRatePct = 'Enter the tax rate as a number, 0 if none';
+    if (taxParsed.kind !== 'number') errors.taxRatePct = typeANumber('8.25, or 0 if none');
     const toleranceMm = inputToSi(tolerance, 'length', units);
-    if (toleranceMm === null || toleranceMm === 'invalid') errors.compressedLengthToleranceMm = 'Enter the tolerance as a number';
+    if (toleranceMm === null || toleranceMm === 'invalid') errors.compressedLengthToleranceMm = typeANumber();
     const input = {
       taxRatePct: taxParsed.kind === 'number' ? taxParsed.value : undefined,
       currency,

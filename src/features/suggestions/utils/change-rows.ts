@@ -2,7 +2,7 @@ import { fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import type { SuggestionChange } from '@shared/collab/suggestion.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import { SETUP_CORNER_FIELDS, type Setup, type SetupCornerField } from '@shared/season/setup.schema';
-import { parseDecimal, tidy } from '@/lib/numbers';
+import { parseDecimal, tidy, typeANumber } from '@/lib/numbers';
 import { cornerProblems } from '@/lib/setup-corner-problems';
 import { FIELD_INFO } from '@/lib/setup-fields';
 
@@ -42,7 +42,7 @@ export function rowToChange(row: ChangeRow, units: UnitPreferences): { change: S
   const parsed = parseDecimal(row.amount);
   const { quantity } = FIELD_INFO[row.field];
   if (parsed.kind === 'empty') problems.push({ path: row.mode, message: row.mode === 'delta' ? 'Say how much to change it by' : 'Say what to set it to' });
-  else if (parsed.kind === 'invalid') problems.push({ path: row.mode, message: 'Type a number, such as -0.5' });
+  else if (parsed.kind === 'invalid') problems.push({ path: row.mode, message: typeANumber('-0.5') });
   else if (row.mode === 'delta' && parsed.value === 0) problems.push({ path: 'delta', message: 'A change of 0 changes nothing' });
   else if (!quantity && !Number.isInteger(parsed.value)) problems.push({ path: row.mode, message: 'Clicks are whole numbers' });
   if (problems.length > 0 || parsed.kind !== 'number') return { change: null, problems };

@@ -4,7 +4,7 @@ import * as z from '@shared/zod';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { isApiError } from '@/lib/api-client';
-import { parseDecimal } from '@/lib/numbers';
+import { parseDecimal, typeANumber } from '@/lib/numbers';
 import { useFactors } from '../api/get-factors';
 import { FactorSaveError, useSetFactors } from '../api/set-factor';
 import { failureMessage } from '../utils/online-failure';
@@ -33,7 +33,7 @@ function changedRows(
     const text = drafts[classCode] ?? factorText(saved.get(classCode));
     const parsed = parseDecimal(text);
     if (parsed.kind === 'invalid') {
-      errors[classCode] = 'The factor must be a number, e.g. 0.853';
+      errors[classCode] = typeANumber('0.853');
       continue;
     }
     const factor = parsed.kind === 'empty' ? null : Math.round(parsed.value * 1000) / 1000;

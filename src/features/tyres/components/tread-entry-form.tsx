@@ -14,7 +14,7 @@ import { TextField } from '@/components/ui/text-field';
 import { pathTo } from '@/config/paths';
 import { cn } from '@/lib/cn';
 import { formatDateTime, fromLocalInputValue, toLocalInputValue } from '@/lib/dates';
-import { formatDelta, inputToSi, unitSymbol } from '@/lib/numbers';
+import { formatDelta, inputToSi, typeANumber, unitSymbol } from '@/lib/numbers';
 import type { OutboxEntry } from '@/lib/outbox';
 import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
 import { useUnits } from '@/lib/units-context';
@@ -95,7 +95,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
       for (const pos of typed) {
         const si = inputToSi(texts[corner][pos], 'treadDepth', units);
         const path = `corners.${corner}.${pos}`;
-        if (si === 'invalid' || si === null) found[path] = 'Type a number';
+        if (si === 'invalid' || si === null) found[path] = typeANumber();
         else if (si < LIMITS.treadMm.min || si > LIMITS.treadMm.max) {
           found[path] = `Between ${formatQuantity(LIMITS.treadMm.min, 'treadDepth', units)} and ${formatQuantity(LIMITS.treadMm.max, 'treadDepth', units)}`;
         } else if (pos === 'middleMm' && set.startTreadMm !== null && si > set.startTreadMm + LIMITS.treadAboveStartMm) {

@@ -2,7 +2,7 @@ import * as z from '@shared/zod';
 import { formatQuantity, fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import { LIMITS } from '@shared/season/limits';
 import { createTyreSetInputSchema, type CreateTyreSetInput } from '@shared/season/tyre.schema';
-import { parseDecimal, tidy } from '@/lib/numbers';
+import { parseDecimal, tidy, typeANumber } from '@/lib/numbers';
 import { addIssue } from '@/lib/form-schema';
 
 /** What the new-tyre-set form holds, as typed; the starting depth in the user's tread unit. */
@@ -26,7 +26,7 @@ export function tyreSetFormSchema(units: UnitPreferences) {
       const parsed = parseDecimal(v.startTreadMm);
       if (parsed.kind === 'invalid') {
         depthFailed = true;
-        addIssue(ctx, ['startTreadMm'], 'Type a number');
+        addIssue(ctx, ['startTreadMm'], typeANumber());
       } else if (parsed.kind === 'number') {
         startTreadMm = tidy(fromDisplay(parsed.value, 'treadDepth', units));
         if (startTreadMm < LIMITS.treadMm.min || startTreadMm > LIMITS.treadMm.max) {

@@ -15,7 +15,7 @@ import { FormAlert } from '@/components/ui/form-alert';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { TextField } from '@/components/ui/text-field';
 import { UnitInput } from '@/components/ui/unit-input';
-import { inputToSi, parseDecimal, toInputText, unitSymbol } from '@/lib/numbers';
+import { inputToSi, parseDecimal, toInputText, typeANumber, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { usePutBuildSheet } from '../api/edit-work-order';
 import { splitErrors } from '../utils/field-errors';
@@ -240,7 +240,7 @@ export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
           out[f] = n.kind === 'number' ? n.value : null;
         } else {
           const si = inputToSi(text, info.quantity, units);
-          if (si === 'invalid') errors[`corners.${c}.${f}`] = 'Enter a number';
+          if (si === 'invalid') errors[`corners.${c}.${f}`] = typeANumber();
           out[f] = si === 'invalid' ? null : si;
         }
       }

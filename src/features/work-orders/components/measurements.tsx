@@ -6,7 +6,7 @@ import { CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { UnitInput } from '@/components/ui/unit-input';
-import { formatDelta, inputToSi, parseDecimal, toInputText, unitSymbol } from '@/lib/numbers';
+import { formatDelta, inputToSi, parseDecimal, toInputText, typeANumber, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { usePutMeasurements } from '../api/edit-work-order';
 import { splitErrors } from '../utils/field-errors';
@@ -107,16 +107,16 @@ export function MeasurementsForm({ workOrder, stage }: { workOrder: WorkOrder; s
         Object.fromEntries(
           MEASUREMENT_FIELDS.map((f) => {
             const si = inputToSi(texts[c][f], MEASUREMENT_INFO[f].quantity, units);
-            if (si === 'invalid') errors[`corners.${c}.${f}`] = 'Enter a number';
+            if (si === 'invalid') errors[`corners.${c}.${f}`] = typeANumber();
             return [f, si === 'invalid' ? null : si];
           }),
         ),
       ]),
     );
     const weight = inputToSi(driverWeight, 'mass', units);
-    if (weight === 'invalid') errors.driverWeightKg = 'Enter a number';
+    if (weight === 'invalid') errors.driverWeightKg = typeANumber();
     const fuelParsed = parseDecimal(fuel);
-    if (fuelParsed.kind === 'invalid') errors.fuelLevelPct = 'Enter a number';
+    if (fuelParsed.kind === 'invalid') errors.fuelLevelPct = typeANumber();
     setLocalErrors(errors);
     if (Object.keys(errors).length > 0) return;
     save.mutate({

@@ -76,7 +76,7 @@ describe('corner balance and wedge calculator', () => {
     await u.type(balance.getByLabelText('Left front weight'), '32a');
 
     expect(balance.getByLabelText('Left front weight').getAttribute('aria-invalid')).toBe('true');
-    expect(balance.getByText('Enter a number, such as 12.5')).toBeTruthy();
+    expect(balance.getByText('Type a number, e.g. 12.5')).toBeTruthy();
     expect(within(screen.getByLabelText('Corner balance')).queryByText('Cross (LF + RR)')).toBeNull();
   });
 });
