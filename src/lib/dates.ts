@@ -72,6 +72,23 @@ export function isOnDate(value: string | Date, isoDate: string): boolean {
   return sameDay(toDate(value), parseIsoDate(isoDate));
 }
 
+/**
+ * When a run logged now at an event on a calendar date counts as run, which ties it to the car's setup: now,
+ * until that day is over; later, the day's last millisecond, so runs typed in from notes after the event are
+ * tied to the setup the car ended the day with, not today's. `dayOver` says which.
+ */
+export function runMoment(isoDate: string, now = new Date()): { at: Date; dayOver: boolean } {
+  const end = parseIsoDate(isoDate);
+  end.setHours(23, 59, 59, 999);
+  return now > end ? { at: end, dayOver: true } : { at: now, dayOver: false };
+}
+
+/** Whether a moment is a day's last millisecond: a run typed in after its day, whose time of day is not known. */
+export function isDayEnd(value: string | Date): boolean {
+  const d = toDate(value);
+  return d.getHours() === 23 && d.getMinutes() === 59 && d.getSeconds() === 59 && d.getMilliseconds() === 999;
+}
+
 const pad = (n: number) => String(n).padStart(2, '0');
 // Machine formats for inputs, built by hand: date-fns' format() would pull its whole locale into the trackside page.
 const localDay = (d: Date) => `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}`;

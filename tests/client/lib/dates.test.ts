@@ -1,6 +1,6 @@
-import { intlFormat, isSameDay, isToday, parseISO } from 'date-fns';
+import { endOfDay, intlFormat, isSameDay, isToday, parseISO } from 'date-fns';
 import { describe, expect, it } from 'vitest';
-import { formatClock, formatDateTime, formatDay, formatLongDay, isOnDate, isTodayDate, parseIsoDate, toLocalInputValue } from '@/lib/dates';
+import { formatClock, formatDateTime, formatDay, formatLongDay, isDayEnd, isOnDate, isTodayDate, parseIsoDate, runMoment, toLocalInputValue } from '@/lib/dates';
 
 // The app reads and shows dates without date-fns (a few KB less on every page); date-fns, an
 // independent library from npm, is the reference each case is checked against.
@@ -44,5 +44,32 @@ describe('formatting', () => {
     const around = [-1, 0, 1].map((k) => toLocalInputValue(new Date(y, m - 1, day + k, 12)).slice(0, 10));
     for (const date of around) expect(isOnDate(value, date)).toBe(isSameDay(d, parseISO(date)));
     expect(around.filter((date) => isOnDate(value, date))).toEqual([local]);
+  });
+});
+
+describe('runMoment', () => {
+  it.each(DATES)('when a run is logged at an event on %j after that day, then it counts at the day\'s last moment, date-fns endOfDay', (date) => {
+    const end = endOfDay(parseISO(date));
+    const later = new Date(end.getTime() + 1);
+    expect(runMoment(date, later)).toEqual({ at: end, dayOver: true });
+    expect(isDayEnd(runMoment(date, later).at)).toBe(true);
+    expect(isDayEnd(runMoment(date, later).at.toISOString())).toBe(true);
+  });
+
+  it.each(DATES)('when a run is logged at an event on %j during that day or before it, then it counts now', (date) => {
+    const end = endOfDay(parseISO(date));
+    for (const now of [end, new Date(end.getTime() - 1), parseISO(date), new Date(parseISO(date).getTime() - 86_400_000)]) {
+      expect(runMoment(date, now)).toEqual({ at: now, dayOver: false });
+    }
+  });
+
+  it('when the event\'s date cannot be read, then the run counts now', () => {
+    const now = new Date();
+    expect(runMoment('2026-02-30', now)).toEqual({ at: now, dayOver: false });
+  });
+
+  it.each(TIMESTAMPS)('when %j is checked, then it is not taken for a day\'s end, nor is the millisecond before one', (value) => {
+    expect(isDayEnd(value)).toBe(false);
+    expect(isDayEnd(new Date(endOfDay(parseISO(value)).getTime() - 1))).toBe(false);
   });
 });

@@ -13,7 +13,7 @@ import { SectionBoundary } from '@/components/errors/section-boundary';
 import { notYetFetched, useDeliveredEntries } from '@/lib/delivered-entries';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { readStoredChoice, writeStoredChoice } from '@/lib/stored-choice';
-import { formatDay, isOnDate, prepareDateFormats } from '@/lib/dates';
+import { formatDay, isOnDate, prepareDateFormats, runMoment } from '@/lib/dates';
 import { useMe } from '@/features/auth/api/get-me';
 import { CarDriverPicker, driversOf } from '@/features/cars/components/car-driver-picker';
 import { useCarViews } from '@/features/cars/hooks/use-car-views';
@@ -91,7 +91,9 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
     people: driversOf(car),
     conePenaltySec: event.conePenaltySec,
   });
-  const current = setupInForce(setups, new Date().toISOString());
+  // After the event's day, runs logged are tied to the setup the car ended that day with (runMoment).
+  const moment = runMoment(event.date);
+  const current = setupInForce(setups, moment.at.toISOString());
 
   // The server ties saved runs; runs still on the phone — and any run after a quick change still on
   // the phone — are tied here by the same rule: the snapshot with the latest start not after the run.
@@ -124,12 +126,15 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
     <>
       <section aria-label="Setup" className="flex flex-col gap-3 rounded-lg border border-line bg-surface px-3 py-2">
         <div className="flex items-center justify-between gap-3">
-          <CurrentSetup setup={current} loading={setupsQuery.data === undefined && setups.length === 0} day={event.date} />
-          <Button variant="secondary" className="shrink-0 px-3" aria-expanded={quickChange} onClick={() => setQuickChange((v) => !v)}>
-            Quick change
-          </Button>
+          <CurrentSetup setup={current} loading={setupsQuery.data === undefined && setups.length === 0} day={event.date} dayOver={moment.dayOver} />
+          {/* A quick change starts now; one made on a past day is entered, with its time, in the setup editor. */}
+          {moment.dayOver ? null : (
+            <Button variant="secondary" className="shrink-0 px-3" aria-expanded={quickChange} onClick={() => setQuickChange((v) => !v)}>
+              Quick change
+            </Button>
+          )}
         </div>
-        {quickChange ? (
+        {quickChange && !moment.dayOver ? (
           <Suspense fallback={<p className="text-ink-muted">Opening…</p>}>
             <QuickChangePanel carId={car.id} setups={setups} onDone={() => setQuickChange(false)} />
           </Suspense>
@@ -138,7 +143,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
 
       <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_24rem] md:items-start">
         <section aria-label="Log a run" className="rounded-lg border border-line bg-surface p-3 md:sticky md:top-20 md:order-2">
-          <LogRunForm carId={car.id} eventId={event.id} driver={driver} conePenaltySec={event.conePenaltySec} rows={rows} />
+          <LogRunForm carId={car.id} eventId={event.id} eventDate={event.date} driver={driver} conePenaltySec={event.conePenaltySec} rows={rows} />
         </section>
         <section aria-labelledby="runs" className="flex flex-col gap-3 md:order-1">
           <div className="flex flex-wrap items-baseline justify-between gap-2">

@@ -8,6 +8,7 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { Stepper } from '@/components/ui/stepper';
+import { runMoment } from '@/lib/dates';
 import { unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { createRunEntry, useCreateRun, type CreateRunBody } from '../api/create-run';
@@ -30,6 +31,8 @@ interface Errors {
 interface LogRunFormProps {
   carId: string;
   eventId: string;
+  /** The event's calendar date: a run logged after that day is tied to the setup the car ended it with. */
+  eventDate: string;
   driver: Person;
   conePenaltySec: number;
   /** Today's runs of this car, saved and waiting: for the next run number and to refuse a number twice. */
@@ -43,7 +46,7 @@ const coneWords = (n: number) => `${n} ${n === 1 ? 'cone' : 'cones'}`;
  * each). Written to the outbox on the device at once — no signal needed — and shown in the list
  * straight away as waiting to upload.
  */
-export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: LogRunFormProps) {
+export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, rows }: LogRunFormProps) {
   const units = useUnits();
   const write = useCreateRun();
   const [timeText, setTimeText] = useState('');
@@ -110,7 +113,7 @@ export function LogRunForm({ carId, eventId, driver, conePenaltySec, rows }: Log
       rawTimeSec,
       cones,
       status,
-      recordedAt: new Date().toISOString(),
+      recordedAt: runMoment(eventDate).at.toISOString(),
       driverId: driver.id,
       ...(pressures.kpa ? { hotPressuresKpa: pressures.kpa } : {}),
       ...(notes.trim() ? { notes: notes.trim() } : {}),

@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
 import { cn } from '@/lib/cn';
-import { formatClock } from '@/lib/dates';
+import { formatClock, isDayEnd } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
 import { toast } from '@/lib/toast-store';
@@ -141,7 +141,8 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
             <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
               <span className="text-lg font-extrabold">Run {row.runNumber}</span>
               <span className="font-semibold text-ink-muted">{row.driver.displayName}</span>
-              <span className="tabular-figures text-sm text-ink-muted">{formatClock(row.recordedAt)}</span>
+              {/* A run typed in after its day has no known time of day. */}
+              {isDayEnd(row.recordedAt) ? null : <span className="tabular-figures text-sm text-ink-muted">{formatClock(row.recordedAt)}</span>}
               {row.isBest ? (
                 <span className="inline-flex items-center gap-1 rounded bg-accent px-2 py-0.5 text-sm font-bold text-accent-ink">
                   <Trophy aria-hidden="true" className="size-4" />

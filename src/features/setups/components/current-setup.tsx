@@ -4,11 +4,12 @@ import { formatClock, formatDay, isOnDate } from '@/lib/dates';
 import type { SetupView } from '../utils/setup-views';
 
 /**
- * The setup on the car right now, in two lines at most; the next run will be tied to it. `loading`: the
- * car's setups have not come yet (no signal so far), which is not the same as "none recorded". `day`
- * (yyyy-MM-dd, the event's): a setup made that day says only the time it started.
+ * The setup the next run will be tied to, in two lines at most: the one on the car now, or, once the event's
+ * day is over (`dayOver`), the one it ended that day with. `loading`: the car's setups have not come yet (no
+ * signal so far), which is not the same as "none recorded". `day` (yyyy-MM-dd, the event's): a setup made
+ * that day says only the time it started.
  */
-export function CurrentSetup({ setup, loading = false, day }: { setup: SetupView | null; loading?: boolean; day?: string }) {
+export function CurrentSetup({ setup, loading = false, day, dayOver = false }: { setup: SetupView | null; loading?: boolean; day?: string; dayOver?: boolean }) {
   const sameDay = setup !== null && day !== undefined && isOnDate(setup.effectiveFrom, day);
   return (
     <div className="flex min-w-0 items-center gap-2">
@@ -16,7 +17,7 @@ export function CurrentSetup({ setup, loading = false, day }: { setup: SetupView
       <div className="flex min-w-0 flex-col">
         {/* Kept to two lines, so the keypad below stays whole on a phone's first screen (each run shows the full name). */}
         <p className="line-clamp-2 text-sm">
-          <span className="text-ink-muted">Setup now: </span>
+          <span className="text-ink-muted">{dayOver ? 'Setup that day: ' : 'Setup now: '}</span>
           <span className="font-bold break-words">{setup ? setup.label : loading ? 'not known yet' : 'none recorded'}</span>
         </p>
         {setup ? (

@@ -1,6 +1,7 @@
 // @vitest-environment jsdom
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import { endOfDay, parseISO } from 'date-fns';
 import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, KPA_PER_PSI, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
 import type { Run } from '../../../../shared/season/run.schema';
@@ -52,6 +53,9 @@ async function keypad(userE: ReturnType<typeof userEvent.setup>, time: string) {
   const pad = screen.getByRole('group', { name: 'Time keypad' });
   for (const k of time) await userE.click(within(pad).getByRole('button', { name: names[k] ?? k }));
 }
+
+// A quick change is made on the event's day; the fixture's event is long past.
+const TODAY_EVENT = () => ({ [`GET /api/events/${IDS.event}`]: jsonResponse(200, { ...EVENT, date: todayIsoDate() }) });
 
 const runItem = (n: number) => screen.getByRole('listitem', { name: new RegExp(`^Run ${n},`) });
 
@@ -290,6 +294,53 @@ describe('event day', () => {
     expect(await screen.findByRole('list', { name: `Runs on ${formatDay('2025-05-03')}, newest first` })).toBeTruthy();
   });
 
+  it('when the event\'s day is over, then the setup line shows the setup the car ended that day with, a run logged now is tied to it at the day\'s last moment with no time of day shown, and there is no quick change', async () => {
+    // Three snapshots: the spring baseline, one made during the event (local 14:00 on its day) and one a month later.
+    const onTheDay: Setup = { ...BASE_SETUP, id: '5e7e7e7e-0000-4000-8000-000000000002', label: 'Softer rear at the event', effectiveFrom: new Date(2026, 5, 7, 14, 0).toISOString() };
+    const later: Setup = { ...BASE_SETUP, id: '5e7e7e7e-0000-4000-8000-000000000003', label: 'New springs in July', effectiveFrom: new Date(2026, 6, 7, 10, 0).toISOString() };
+    stubWithRuns([], { setups: [later, onTheDay, BASE_SETUP] });
+    const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    const setup = screen.getByRole('region', { name: 'Setup' });
+    expect(within(setup).getByText('Setup that day:')).toBeTruthy();
+    expect(within(setup).getByText('Softer rear at the event')).toBeTruthy();
+    expect(within(setup).queryByText('New springs in July')).toBeNull();
+    expect(within(setup).queryByRole('button', { name: 'Quick change' })).toBeNull();
+
+    await keypad(u, '45.2');
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(2));
+    const body = outbox.getSnapshot()[1]!.body as { recordedAt: string };
+    // The last millisecond of 7 June 2026 on this device, as date-fns' endOfDay gives it (an independent library).
+    expect(body.recordedAt).toBe(endOfDay(parseISO(EVENT.date)).toISOString());
+    const row = await screen.findByRole('listitem', { name: /^Run 1,/ });
+    expect(within(row).getByText('Setup: Softer rear at the event')).toBeTruthy();
+    expect(within(row).queryByText(/\d{1,2}:\d{2}/)).toBeNull();
+  });
+
+  it('when the event is today, then the setup line shows the setup on the car now, with a quick change, and a run logged is timed now', async () => {
+    const later: Setup = { ...BASE_SETUP, id: '5e7e7e7e-0000-4000-8000-000000000003', label: 'Changed an hour ago', effectiveFrom: new Date(Date.now() - 3_600_000).toISOString() };
+    stubWithRuns([], { setups: [later, BASE_SETUP], extra: TODAY_EVENT() });
+    const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    const setup = screen.getByRole('region', { name: 'Setup' });
+    expect(within(setup).getByText('Setup now:')).toBeTruthy();
+    expect(within(setup).getByText('Changed an hour ago')).toBeTruthy();
+    expect(within(setup).getByRole('button', { name: 'Quick change' })).toBeTruthy();
+
+    const before = Date.now();
+    await keypad(u, '45.2');
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(2));
+    const at = Date.parse((outbox.getSnapshot()[1]!.body as { recordedAt: string }).recordedAt);
+    expect(at).toBeGreaterThanOrEqual(before);
+    expect(at).toBeLessThanOrEqual(Date.now());
+  });
+
   it('when the event is today, then its runs are headed as today’s', async () => {
     stubWithRuns([], { extra: { [`GET /api/events/${IDS.event}`]: jsonResponse(200, { ...EVENT, date: todayIsoDate() }) } });
     renderApp(PATH);
@@ -419,7 +470,7 @@ describe('event day', () => {
   });
 
   it('when a quick change is made in psi, then its body carries the change in kPa, the device time, a client id, and the next run shows the new setup', async () => {
-    const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES });
+    const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES, extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
     const u = userEvent.setup();
     await screen.findByRole('form', { name: 'Log a run' });
@@ -464,7 +515,7 @@ describe('event day', () => {
   });
 
   it('when a quick change would take a corner out of range, then the line says which as it is typed, with the caution beside it, and nothing is saved', async () => {
-    stubWithRuns([]);
+    stubWithRuns([], { extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH);
     const u = userEvent.setup();
     await screen.findByRole('form', { name: 'Log a run' });
