@@ -19,7 +19,8 @@ export function openPhone(): Promise<OpenBrowser> {
 }
 
 /** A phone (390×844, touch) or a desktop window (1280×800, mouse), each on a fresh profile. */
-export async function openBrowser(size: 'phone' | 'desktop'): Promise<OpenBrowser> {
+/** `serviceWorkers: 'block'` lets a test hold back the app's own files (routes do not see what a service worker answers). */
+export async function openBrowser(size: 'phone' | 'desktop', { serviceWorkers = 'allow' }: { serviceWorkers?: 'allow' | 'block' } = {}): Promise<OpenBrowser> {
   const phone = size === 'phone';
   const profile = mkdtempSync(join(tmpdir(), 'scrubline-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
@@ -29,6 +30,7 @@ export async function openBrowser(size: 'phone' | 'desktop'): Promise<OpenBrowse
     deviceScaleFactor: phone ? 2 : 1,
     isMobile: phone,
     hasTouch: phone,
+    serviceWorkers,
     args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
       '--disable-component-update', '--disable-sync'],
   });

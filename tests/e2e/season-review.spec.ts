@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openPhone, screenshot } from './browser';
+import { openBrowser, openPhone, screenshot, signIn } from './browser';
 
 let phone: Awaited<ReturnType<typeof openPhone>>;
 let page: Page;
@@ -87,6 +87,42 @@ describe("the demo driver's season review (390×844)", () => {
         // The whole label shows: nothing of it is clipped or scrolled out of the entry.
         expect(await entry.evaluate((el) => el.scrollWidth <= el.clientWidth && el.scrollHeight <= el.clientHeight)).toBe(true);
       }
+    }
+  });
+
+  it('when the charts\' code is slow to arrive, then their keys are written out meanwhile and nothing below a chart moves when it lands', async () => {
+    const slow = await openBrowser('phone', { serviceWorkers: 'block' });
+    try {
+      await signIn(slow.page, baseUrl, 'maren@example.com', 'Maren Holloway');
+      let release: () => void = () => undefined;
+      const held = new Promise<void>((resolve) => (release = resolve));
+      await slow.page.route(/\/assets\/analysis-chart-[^/]+\.js$/, async (route) => {
+        await held;
+        await route.continue();
+      });
+      await slow.page.goto(`${baseUrl}/cars/${carId}/review`);
+      const cards = ['Setup against time and wear', 'Season timeline'].map((name) => slow.page.getByRole('region', { name }));
+      const below = cards.map((card) => card.getByRole('button', { name: 'Show as table' }));
+      for (const card of cards) await card.getByText('Loading the chart…').waitFor({ timeout: 20_000 });
+      const waiting = [];
+      for (const [i, card] of cards.entries()) {
+        const key = card.getByRole('list', { name: 'Series on the chart' }).getByRole('button');
+        expect(await key.count()).toBeGreaterThan(1);
+        expect(await key.first().isDisabled()).toBe(true);
+        waiting.push({ entries: await key.allTextContents(), y: (await below[i]!.boundingBox())!.y });
+      }
+      await screenshot(slow.page, 'review-chart-loading');
+
+      release();
+      for (const card of cards) await card.locator('canvas').waitFor({ timeout: 20_000 });
+      for (const [i, card] of cards.entries()) {
+        const key = card.getByRole('list', { name: 'Series on the chart' }).getByRole('button');
+        expect(await key.allTextContents()).toEqual(waiting[i]!.entries);
+        expect(await key.first().isEnabled()).toBe(true);
+        expect((await below[i]!.boundingBox())!.y).toBe(waiting[i]!.y);
+      }
+    } finally {
+      await slow.close();
     }
   });
 

@@ -24,13 +24,15 @@ interface ChartLegendProps {
   hidden: ReadonlySet<string>;
   onToggle: (label: string) => void;
   onShowAll: () => void;
+  /** Drawn while the chart is still on its way: the same key, its toggles not yet working. */
+  disabled?: boolean;
 }
 
 /**
  * The chart's key, written below the canvas as a list that wraps, so every series stays readable however many
  * there are and however narrow the screen. Each entry is a toggle, pressed while its series is drawn.
  */
-export function ChartLegend({ series, hidden, onToggle, onShowAll }: ChartLegendProps) {
+export function ChartLegend({ series, hidden, onToggle, onShowAll, disabled = false }: ChartLegendProps) {
   const anyHidden = series.some((s) => hidden.has(s.label));
   return (
     <div className="flex flex-col gap-1">
@@ -42,6 +44,7 @@ export function ChartLegend({ series, hidden, onToggle, onShowAll }: ChartLegend
               <button
                 type="button"
                 aria-pressed={shown}
+                disabled={disabled}
                 onClick={() => onToggle(s.label)}
                 className={cn('flex min-h-tap max-w-full items-center gap-2 rounded px-1 text-left text-sm hover:bg-surface-raised', !shown && 'text-ink-muted')}
               >

@@ -17,6 +17,7 @@ import { useUnits } from '@/lib/units-context';
 import { useScatter } from '../api/get-scatter';
 import { METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxis, type Axis } from '../utils/analysis-format';
 import { buildScatterPlot, type ScatterPlot } from '../utils/scatter-plot';
+import type { ChartSeries } from './analysis-chart';
 import { ChartLoading } from './chart-loading';
 import type { PointRow } from './points-table';
 import { ShowTableToggle, TableLoading } from './show-table-toggle';
@@ -113,6 +114,18 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
   const plot = buildScatterPlot(result, x, y);
   const wear = result.y.metric !== 'time';
   const tick = (v: number) => (Number.isInteger(v) ? String(v) : String(Number(v.toFixed(3))));
+  const series: ChartSeries[] = [
+    ...plot.series.map((s) => ({
+      label: s.label,
+      color: s.style.color,
+      shape: s.style.shape,
+      glyph: s.style.glyph,
+      points: s.points.map((pt) => ({ x: pt.x, y: pt.y, lines: describePoint(result, pt.index, x, y) })),
+    })),
+    ...(plot.fit
+      ? [{ label: 'Fitted line', color: null, shape: 'line' as const, line: 'dashed' as const, hidePoints: true, points: plot.fit.map((p) => ({ ...p, lines: [] })) }]
+      : []),
+  ];
 
   return (
     <div className="flex flex-col gap-3">
@@ -121,20 +134,9 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
         <EmptyState message="Not enough data yet: no points with this setting recorded. Try another corner or setting." />
       ) : (
         <>
-          <Suspense fallback={<ChartLoading />}>
+          <Suspense fallback={<ChartLoading series={series} />}>
             <AnalysisChart
-              series={[
-                ...plot.series.map((s) => ({
-                  label: s.label,
-                  color: s.style.color,
-                  shape: s.style.shape,
-                  glyph: s.style.glyph,
-                  points: s.points.map((pt) => ({ x: pt.x, y: pt.y, lines: describePoint(result, pt.index, x, y) })),
-                })),
-                ...(plot.fit
-                  ? [{ label: 'Fitted line', color: null, shape: 'line' as const, line: 'dashed' as const, hidePoints: true, points: plot.fit.map((p) => ({ ...p, lines: [] })) }]
-                  : []),
-              ]}
+              series={series}
               x={{ title: x.title, format: tick }}
               y={{ title: y.title, format: tick }}
               summary={`Scatter plot of ${x.title} against ${y.title}, ${result.n} points. Use "Show as table" for the values.`}

@@ -85,7 +85,7 @@ function TimelineChart({ season, drivers }: { season: SeasonResult; drivers: Dri
   ];
 
   return (
-    <Suspense fallback={<ChartLoading />}>
+    <Suspense fallback={<ChartLoading series={series} />}>
       <AnalysisChart
         series={series}
         x={{ title: 'Date', format: (v) => formatDay(new Date(v)), min: first - xPad, max: last + xPad }}
