@@ -16,7 +16,7 @@ import {
   type TooltipItem,
 } from 'chart.js';
 import { Scatter } from 'react-chartjs-2';
-import type { MarkerShape } from '../utils/series-styles';
+import { isHollow, type MarkerShape } from '../utils/series-styles';
 import { ChartLegend } from './chart-legend';
 
 // Only the pieces these charts use: the scatter controller (which also draws the fitted and per-driver lines),
@@ -115,6 +115,7 @@ export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
         hidden: hidden.has(s.label),
         data: s.points.map((p) => ({ x: p.x, y: p.y })),
         backgroundColor: colour,
+        pointBackgroundColor: isHollow(s.shape) ? 'transparent' : colour,
         borderColor: colour,
         pointStyle: s.shape === 'line' ? 'line' : s.shape,
         pointRotation: s.rotation ?? 0,

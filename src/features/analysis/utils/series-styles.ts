@@ -24,9 +24,15 @@ const SHAPES: readonly { shape: MarkerShape; glyph: string; name: string }[] = [
   { shape: 'rectRot', glyph: '◆', name: 'diamond' },
   { shape: 'star', glyph: '✱', name: 'star' },
   { shape: 'crossRot', glyph: '✕', name: 'cross' },
-  { shape: 'rectRounded', glyph: '▢', name: 'rounded square' },
+  { shape: 'rectRounded', glyph: '▢', name: 'open square' },
   { shape: 'cross', glyph: '✚', name: 'plus' },
 ];
+
+/**
+ * Shapes the chart draws as an outline only, as their glyph shows them: the rounded square (▢), which filled
+ * would be hard to tell from the square (■) at a marker's size.
+ */
+export const isHollow = (shape: MarkerShape | 'line') => shape === 'rectRounded';
 
 export interface SeriesStyle {
   /** A hex colour; `null` means "the theme's ink colour" (Okabe–Ito black). */
