@@ -191,13 +191,15 @@ export function EventDayPage() {
   const carId = params.get('carId') ?? stored?.carId ?? null;
   const car = cars.find((c) => c.id === carId) ?? null;
   const drivers = car ? driversOf(car) : [];
-  const driver = stored?.carId === carId ? (drivers.find((d) => d.id === stored?.driverId) ?? null) : null;
+  // The address holds both, so a reload, Back or a shared link opens the same board; this phone remembers them too.
+  const driverId = params.get('driverId') ?? (stored?.carId === carId ? stored.driverId : null);
+  const driver = drivers.find((d) => d.id === driverId) ?? null;
 
   const choose = (choice: Choice) => {
     writeStoredChoice(choiceKey(eventId), choice);
     setStored(choice);
     setPicking(false);
-    setParams({ carId: choice.carId }, { replace: true });
+    setParams({ carId: choice.carId, driverId: choice.driverId }, { replace: true });
   };
 
   const event = eventQuery.event;
@@ -261,7 +263,7 @@ export function EventDayPage() {
             cars={cars}
             currentUserId={me.id}
             initialCarId={carId}
-            initialDriverId={stored?.driverId ?? null}
+            initialDriverId={driverId}
             onChoose={choose}
           />
         </section>

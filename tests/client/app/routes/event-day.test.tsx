@@ -556,7 +556,7 @@ describe('event day', () => {
   it('when the car and driver have not been chosen at this event, then they are asked once and remembered', async () => {
     localStorage.clear();
     stubWithRuns([]);
-    renderApp(`/events/${IDS.event}`);
+    const { router } = renderApp(`/events/${IDS.event}`);
     const u = userEvent.setup();
 
     await u.click(await screen.findByRole('radio', { name: /Grey roadster/ }));
@@ -566,6 +566,28 @@ describe('event day', () => {
     await screen.findByRole('form', { name: 'Log a run' });
     expect(JSON.parse(localStorage.getItem(`scrubline.event-day.${IDS.event}`)!)).toEqual({ carId: IDS.car, driverId: IDS.tomas });
     expect(screen.getByRole('form', { name: 'Log a run' }).textContent).toContain('Tomas Reyes');
+    // The address holds the choice too.
+    const search = new URLSearchParams(router.state.location.search);
+    expect([search.get('carId'), search.get('driverId')]).toEqual([IDS.car, IDS.tomas]);
+  });
+
+  it('when the page is opened from an address with the car and the driver, then it goes straight to logging for them, even on a phone that never chose them', async () => {
+    localStorage.clear();
+    stubWithRuns([]);
+    renderApp(`/events/${IDS.event}?carId=${IDS.car}&driverId=${IDS.tomas}`);
+
+    const form = await screen.findByRole('form', { name: 'Log a run' });
+    expect(form.textContent).toContain('Tomas Reyes');
+    expect(screen.queryByRole('button', { name: 'Start logging' })).toBeNull();
+  });
+
+  it('when the address names a driver who does not drive that car, then the car and driver are asked for', async () => {
+    localStorage.clear();
+    stubWithRuns([]);
+    renderApp(`/events/${IDS.event}?carId=${IDS.car}&driverId=${IDS.event}`);
+
+    expect(await screen.findByRole('button', { name: 'Start logging' })).toBeTruthy();
+    expect(screen.queryByRole('form', { name: 'Log a run' })).toBeNull();
   });
 
   it('when the server refused a run, then it stays on screen with its error and can be fixed and sent again', async () => {
