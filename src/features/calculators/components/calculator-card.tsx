@@ -47,13 +47,16 @@ export function CalcHeading({ children }: { children: ReactNode }) {
   return <h3 className="text-lg font-bold">{children}</h3>;
 }
 
-/** Live results: read out politely as they change. */
+/**
+ * Live results, read out politely as they change: a labelled group of result rows, notes and grids (a row is a
+ * name and its value, so only the rows are description lists).
+ */
 export function Results({ label, children }: { label: string; children: ReactNode }) {
   return (
     <div aria-live="polite" className="rounded border border-line bg-surface-raised p-3">
-      <dl aria-label={label} className="tabular-figures flex flex-col gap-1">
+      <div role="group" aria-label={label} className="tabular-figures flex flex-col gap-1">
         {children}
-      </dl>
+      </div>
     </div>
   );
 }
@@ -61,10 +64,10 @@ export function Results({ label, children }: { label: string; children: ReactNod
 /** One result: its name and its value in the user's units. */
 export function ResultRow({ term, children, emphasis = false }: { term: ReactNode; children: ReactNode; emphasis?: boolean }) {
   return (
-    <div className="flex flex-wrap items-baseline justify-between gap-x-3">
+    <dl className="flex flex-wrap items-baseline justify-between gap-x-3">
       <dt className="font-semibold">{term}</dt>
       <dd className={emphasis ? 'text-2xl font-bold' : 'text-lg font-bold'}>{children}</dd>
-    </div>
+    </dl>
   );
 }
 

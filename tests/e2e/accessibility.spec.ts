@@ -1,0 +1,126 @@
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { afterAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { openPhone, signIn } from './browser';
+
+/**
+ * Every main screen of each role, at phone size, checked with axe-core (Deque's open-source engine for the
+ * WCAG 2.2 A and AA success criteria that can be tested automatically: names and labels, roles and their
+ * required children, contrast, and so on). What axe cannot judge (reading order, wording) is left to review.
+ */
+const baseUrl = inject('baseUrl');
+const AXE_SOURCE = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+
+interface Violation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: { target: string[] }[];
+}
+interface Axe {
+  run: (context: Document | { include: string[][] }, options: object) => Promise<{ violations: Violation[] }>;
+}
+
+let phone: Awaited<ReturnType<typeof openPhone>> | undefined;
+afterAll(async () => {
+  await phone?.close();
+});
+
+async function signInAs(email: string, name: string): Promise<Page> {
+  await phone?.close();
+  phone = await openPhone();
+  return signIn(phone.page, baseUrl, email, name);
+}
+
+/** The page's violations, each as "page: rule (impact) — what, at: first targets", so a failure says where. */
+async function audit(page: Page, name: string): Promise<string[]> {
+  // Whatever the page loads after its first drawing (its data, a lazy chart) is in before the check.
+  await page.waitForLoadState('networkidle');
+  await page.evaluate(AXE_SOURCE);
+  const violations = await page.evaluate(async (tags) => {
+    const { axe } = window as unknown as { axe: Axe };
+    const found = (await axe.run(document, { runOnly: { type: 'tag', values: tags } })).violations;
+    // Target size counts only the part of a control in view: one a sticky bar (the Save bar) covers at this
+    // scroll position is judged again where it is in view, as the reader would reach it.
+    for (const v of found.filter((x) => x.id === 'target-size')) {
+      const still: typeof v.nodes = [];
+      for (const node of v.nodes) {
+        document.querySelector(node.target[0]!)?.scrollIntoView({ block: 'center' });
+        const again = await axe.run({ include: [node.target] }, { runOnly: { type: 'rule', values: ['target-size'] } });
+        if (again.violations.length) still.push(node);
+      }
+      v.nodes = still;
+    }
+    window.scrollTo(0, 0);
+    return found.filter((v) => v.nodes.length);
+  }, WCAG_TAGS);
+  return violations.map((v) => `${name}: ${v.id} (${v.impact}) — ${v.help}, at: ${v.nodes.slice(0, 3).map((n) => n.target.join(' ')).join(' | ')}`);
+}
+
+async function auditAll(page: Page, paths: [name: string, path: string][]): Promise<string[]> {
+  const found: string[] = [];
+  for (const [name, path] of paths) {
+    await page.goto(`${baseUrl}${path}`);
+    await page.locator('main h1').first().waitFor({ timeout: 20_000 });
+    found.push(...(await audit(page, name)));
+  }
+  return found;
+}
+
+const firstId = async (page: Page, url: string) => ((await page.evaluate(async (u) => (await fetch(u)).json(), url)) as { items: { id: string }[] }).items[0]!.id;
+
+describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen at 390×844', () => {
+  it('when the driver goes through their screens, then none breaks a rule', async () => {
+    const page = await signInAs('maren@example.com', 'Maren Holloway');
+    const carId = await firstId(page, '/api/cars');
+    const eventId = await firstId(page, '/api/events');
+    const me = ((await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { user: { id: string } }).user.id;
+    const board = `/events/${eventId}?carId=${carId}&driverId=${me}`;
+    const found = await auditAll(page, [
+      ['home', '/'],
+      ['events', '/events'],
+      ['event day', board],
+      ['car', `/cars/${carId}`],
+      ['new setup', `/cars/${carId}/setups/new`],
+      ['tread', `/cars/${carId}/tread`],
+      ['season review', `/cars/${carId}/review`],
+      ['calculators', '/calculators'],
+      ['notifications', '/notifications'],
+      ['settings', '/settings'],
+      ['teams', '/teams'],
+    ]);
+    // The run form's optional part, open, and a refused value marked on it.
+    await page.goto(`${baseUrl}${board}`);
+    await page.getByRole('button', { name: /Hot pressures and note/ }).click();
+    await page.getByLabel('Left rear hot pressure').fill('3o');
+    await page.getByRole('button', { name: /^Save run/ }).click();
+    await page.getByText('Not saved: fix what is marked.').waitFor();
+    found.push(...(await audit(page, 'event day, a refused run')));
+    expect(found).toEqual([]);
+  });
+
+  it('when the shop goes through its screens, then none breaks a rule', async () => {
+    const page = await signInAs('dusty@example.com', 'Dusty Okonjo');
+    const found = await auditAll(page, [['shop', '/shop']]);
+    await page.getByRole('list', { name: 'Customers' }).getByRole('link', { name: /Pebble/ }).click();
+    await page.getByRole('heading', { name: 'Setup history' }).waitFor({ timeout: 20_000 });
+    found.push(...(await audit(page, 'customer')));
+    await page.goto(`${baseUrl}/shop`);
+    await page.getByRole('region', { name: 'Open work orders' }).getByRole('link').first().click();
+    await page.waitForURL(/\/work-orders\//);
+    await page.locator('main h1').first().waitFor({ timeout: 20_000 });
+    found.push(...(await audit(page, 'work order')));
+    expect(found).toEqual([]);
+  });
+
+  it('when the captain opens the team and its class board, then neither breaks a rule', async () => {
+    const page = await signInAs('ines@example.com', 'Ines Brandvold');
+    const found = await auditAll(page, [['teams', '/teams']]);
+    await page.getByRole('link', { name: /board/i }).first().click();
+    await page.getByRole('heading', { name: 'Class board' }).waitFor({ timeout: 20_000 });
+    found.push(...(await audit(page, 'class board')));
+    expect(found).toEqual([]);
+  });
+});
