@@ -72,9 +72,26 @@ async function auditAll(page: Page, paths: [name: string, path: string][]): Prom
 const firstId = async (page: Page, url: string) => ((await page.evaluate(async (u) => (await fetch(u)).json(), url)) as { items: { id: string }[] }).items[0]!.id;
 
 describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen at 390×844', () => {
+  it('when someone not signed in opens the sign-in, registration and password-reset screens, then none breaks a rule', async () => {
+    await phone?.close();
+    phone = await openPhone();
+    const found = await auditAll(phone.page, [
+      ['sign-in', '/sign-in'],
+      ['register', '/register'],
+      ['forgot password', '/forgot-password'],
+    ]);
+    // A refused sign-in, its message on screen.
+    await phone.page.goto(`${baseUrl}/sign-in`);
+    await phone.page.getByRole('button', { name: 'Sign in' }).click();
+    await phone.page.getByText(/e-mail/i).first().waitFor();
+    found.push(...(await audit(phone.page, 'sign-in, refused')));
+    expect(found).toEqual([]);
+  });
+
   it('when the driver goes through their screens, then none breaks a rule', async () => {
     const page = await signInAs('maren@example.com', 'Maren Holloway');
-    const carId = await firstId(page, '/api/cars');
+    const cars = (await page.evaluate(async () => (await fetch('/api/cars')).json())) as { items: { id: string; name: string }[] };
+    const carId = cars.items.find((c) => c.name === 'Pebble')!.id;
     const eventId = await firstId(page, '/api/events');
     const me = ((await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { user: { id: string } }).user.id;
     const board = `/events/${eventId}?carId=${carId}&driverId=${me}`;
@@ -90,6 +107,8 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
       ['notifications', '/notifications'],
       ['settings', '/settings'],
       ['teams', '/teams'],
+      ['import results', `/cars/${carId}/import`],
+      ['setup sheet', `/setups/${await firstId(page, `/api/cars/${carId}/setups`)}/sheet`],
     ]);
     // The run form's optional part, open, and a refused value marked on it.
     await page.goto(`${baseUrl}${board}`);
