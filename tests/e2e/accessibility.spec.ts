@@ -120,6 +120,25 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
     expect(found).toEqual([]);
   });
 
+  it('when the phone asks for the dark theme, then the driver\'s main screens break no rule either (contrast above all)', async () => {
+    const page = await signInAs('maren@example.com', 'Maren Holloway');
+    await page.emulateMedia({ colorScheme: 'dark' });
+    expect(await page.evaluate(() => matchMedia('(prefers-color-scheme: dark)').matches)).toBe(true);
+    const cars = (await page.evaluate(async () => (await fetch('/api/cars')).json())) as { items: { id: string; name: string }[] };
+    const carId = cars.items.find((c) => c.name === 'Pebble')!.id;
+    const me = ((await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { user: { id: string } }).user.id;
+    const eventId = await firstId(page, '/api/events');
+    const found = await auditAll(page, [
+      ['home, dark', '/'],
+      ['event day, dark', `/events/${eventId}?carId=${carId}&driverId=${me}`],
+      ['car, dark', `/cars/${carId}`],
+      ['tread, dark', `/cars/${carId}/tread`],
+      ['season review, dark', `/cars/${carId}/review`],
+      ['calculators, dark', '/calculators'],
+    ]);
+    expect(found).toEqual([]);
+  });
+
   it('when the shop goes through its screens, then none breaks a rule', async () => {
     const page = await signInAs('dusty@example.com', 'Dusty Okonjo');
     const found = await auditAll(page, [['shop', '/shop']]);
