@@ -5,7 +5,7 @@ import type { DeviceState } from '@/app/router';
 import { Plus, Trophy } from 'lucide-react';
 import type { Car, Person } from '@shared/season/car.schema';
 import { formatRunTime } from '@shared/season/run-time';
-import { paths } from '@/config/paths';
+import { paths, pathTo } from '@/config/paths';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
@@ -128,7 +128,11 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
         <div className="flex items-center justify-between gap-3">
           <CurrentSetup setup={current} loading={setupsQuery.data === undefined && setups.length === 0} day={event.date} dayOver={moment.dayOver} />
           {/* A quick change starts now; one made on a past day is entered, with its time, in the setup editor. */}
-          {moment.dayOver ? null : (
+          {moment.dayOver ? (
+            <Link to={pathTo.newSetup(car.id, current?.id)} className={buttonClasses('secondary', 'shrink-0 px-3')}>
+              Add a change
+            </Link>
+          ) : (
             <Button variant="secondary" className="shrink-0 px-3" aria-expanded={quickChange} onClick={() => setQuickChange((v) => !v)}>
               Quick change
             </Button>

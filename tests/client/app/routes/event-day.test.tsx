@@ -308,6 +308,8 @@ describe('event day', () => {
     expect(within(setup).getByText('Softer rear at the event')).toBeTruthy();
     expect(within(setup).queryByText('New springs in July')).toBeNull();
     expect(within(setup).queryByRole('button', { name: 'Quick change' })).toBeNull();
+    // A change made that day goes in the setup editor, with its own time, starting from that day's setup.
+    expect(within(setup).getByRole('link', { name: 'Add a change' }).getAttribute('href')).toBe(`/cars/${IDS.car}/setups/new?from=${onTheDay.id}`);
 
     await keypad(u, '45.2');
     await u.click(screen.getByRole('button', { name: 'Save run 1' }));
@@ -331,6 +333,7 @@ describe('event day', () => {
     expect(within(setup).getByText('Setup now:')).toBeTruthy();
     expect(within(setup).getByText('Changed an hour ago')).toBeTruthy();
     expect(within(setup).getByRole('button', { name: 'Quick change' })).toBeTruthy();
+    expect(within(setup).queryByRole('link', { name: 'Add a change' })).toBeNull();
 
     const before = Date.now();
     await keypad(u, '45.2');
