@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { afterAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openPhone, signIn } from './browser';
+import { onePhoneAtATime } from './browser';
 
 /**
  * Every main screen of each role, at phone size, checked with axe-core (Deque's open-source engine for the
@@ -23,16 +23,11 @@ interface Axe {
   run: (context: Document | { include: string[][] }, options: object) => Promise<{ violations: Violation[] }>;
 }
 
-let phone: Awaited<ReturnType<typeof openPhone>> | undefined;
+const phones = onePhoneAtATime(baseUrl);
+const signInAs = phones.signInAs;
 afterAll(async () => {
-  await phone?.close();
+  await phones.close();
 });
-
-async function signInAs(email: string, name: string): Promise<Page> {
-  await phone?.close();
-  phone = await openPhone();
-  return signIn(phone.page, baseUrl, email, name);
-}
 
 /** The page's violations, each as "page: rule (impact) — what, at: first targets", so a failure says where. */
 async function audit(page: Page, name: string): Promise<string[]> {
@@ -73,18 +68,17 @@ const firstId = async (page: Page, url: string) => ((await page.evaluate(async (
 
 describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen at 390×844', () => {
   it('when someone not signed in opens the sign-in, registration and password-reset screens, then none breaks a rule', async () => {
-    await phone?.close();
-    phone = await openPhone();
-    const found = await auditAll(phone.page, [
+    const page = await phones.fresh();
+    const found = await auditAll(page, [
       ['sign-in', '/sign-in'],
       ['register', '/register'],
       ['forgot password', '/forgot-password'],
     ]);
     // A refused sign-in, its message on screen.
-    await phone.page.goto(`${baseUrl}/sign-in`);
-    await phone.page.getByRole('button', { name: 'Sign in' }).click();
-    await phone.page.getByText(/e-mail/i).first().waitFor();
-    found.push(...(await audit(phone.page, 'sign-in, refused')));
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText(/e-mail/i).first().waitFor();
+    found.push(...(await audit(page, 'sign-in, refused')));
     expect(found).toEqual([]);
   });
 

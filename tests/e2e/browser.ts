@@ -65,3 +65,26 @@ export async function signIn(page: Page, baseUrl: string, email: string, name: s
   await page.getByRole('heading', { name: `Hi, ${name}` }).waitFor({ timeout: 20_000 });
   return page;
 }
+
+/**
+ * One person at a time, each on their own phone: a fresh browser profile for each, so nothing of the last person
+ * is cached. `close()` in the spec's afterAll.
+ */
+export function onePhoneAtATime(baseUrl: string) {
+  let open: OpenBrowser | undefined;
+  const fresh = async (): Promise<Page> => {
+    await open?.close();
+    open = await openPhone();
+    return open.page;
+  };
+  return {
+    /** A new phone with nobody signed in. */
+    fresh,
+    signInAs: async (email: string, name: string): Promise<Page> => signIn(await fresh(), baseUrl, email, name),
+    /** The phone now in hand. */
+    get page(): Page | undefined {
+      return open?.page;
+    },
+    close: async () => open?.close(),
+  };
+}

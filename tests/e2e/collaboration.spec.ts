@@ -1,7 +1,6 @@
 import { afterAll, describe, expect, inject, it } from 'vitest';
-import type { Page } from 'playwright-core';
 import type { MailboxMessage } from '@shared/collab/mailbox.schema';
-import { openPhone, screenshot, signIn } from './browser';
+import { onePhoneAtATime, screenshot } from './browser';
 
 /**
  * The demo shop reviews a customer's season and suggests a change; the driver hears of it
@@ -11,18 +10,12 @@ import { openPhone, screenshot, signIn } from './browser';
 const baseUrl = inject('baseUrl');
 const TITLE = 'Half a degree more front camber';
 
-let phone: Awaited<ReturnType<typeof openPhone>> | undefined;
+const phones = onePhoneAtATime(baseUrl);
+const signInAs = phones.signInAs;
 
 afterAll(async () => {
-  await phone?.close();
+  await phones.close();
 });
-
-/** Each person on their own phone: a fresh browser profile, so nothing of the last person is cached. */
-async function signInAs(email: string, name: string): Promise<Page> {
-  await phone?.close();
-  phone = await openPhone();
-  return signIn(phone.page, baseUrl, email, name);
-}
 
 describe('a shop reviews a customer, the driver accepts its suggestion, the captain reads the board (390×844)', () => {
   it('when the shop opens a customer, comments on a run and suggests more front camber, then the suggestion is sent', async () => {
@@ -100,7 +93,7 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
   });
 
   it('when the mailbox is opened, then the notification e-mails to the driver are there, with text, HTML and a way to stop them', async () => {
-    const page = phone!.page;
+    const page = phones.page!;
     const messages: MailboxMessage[] = await page.evaluate(async () => (await (await fetch('/api/dev/mailbox?to=maren@example.com')).json()).items);
     const suggestion = messages.find((m) => m.subject === 'A setup suggestion for Pebble');
     expect(suggestion, messages.map((m) => m.subject).join(' | ')).toBeTruthy();
