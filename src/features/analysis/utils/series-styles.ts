@@ -17,14 +17,19 @@ export const OKABE_ITO = [
   { name: 'black', hex: '#000000' },
 ] as const;
 
+/**
+ * In the order the colours above take them, so the first eight series pair them one to one: the marks drawn
+ * with the least ink (the open square, the star) go to the darkest colours, and the palest colour (yellow, about
+ * 1.2:1 against white) gets the filled square, the mark with the most.
+ */
 const SHAPES: readonly { shape: MarkerShape; glyph: string; name: string }[] = [
   { shape: 'circle', glyph: '●', name: 'circle' },
   { shape: 'triangle', glyph: '▲', name: 'triangle' },
-  { shape: 'rect', glyph: '■', name: 'square' },
-  { shape: 'rectRot', glyph: '◆', name: 'diamond' },
   { shape: 'star', glyph: '✱', name: 'star' },
-  { shape: 'crossRot', glyph: '✕', name: 'cross' },
+  { shape: 'rectRot', glyph: '◆', name: 'diamond' },
   { shape: 'rectRounded', glyph: '▢', name: 'open square' },
+  { shape: 'crossRot', glyph: '✕', name: 'cross' },
+  { shape: 'rect', glyph: '■', name: 'square' },
   { shape: 'cross', glyph: '✚', name: 'plus' },
 ];
 
