@@ -11,6 +11,7 @@
  */
 import { gammaln, mean, sampleVariance } from 'simple-statistics';
 import { requireFinite, requirePositive } from './input-checks.calc';
+import { formatP } from './p-value';
 
 export interface SampleSummary {
   n: number;
@@ -158,12 +159,6 @@ function autoDecimals(before: number, after: number): number {
 function fixed(value: number, decimals: number): string {
   const text = value.toFixed(decimals);
   return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
-}
-
-/** p to two significant figures, "p < 0.001" below that. */
-function formatP(p: number): string {
-  if (p < 0.001) return 'p < 0.001';
-  return `p = ${Number(p.toPrecision(2))}`;
 }
 
 /**

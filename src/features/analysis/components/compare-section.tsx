@@ -1,5 +1,6 @@
 import { useId, useState, type ReactNode } from 'react';
 import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
+import { formatP } from '@shared/calc/p-value';
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
@@ -37,7 +38,7 @@ function differenceText(c: Comparison, scale: Scale): string | null {
   const parts = [`Change ${arrow} ${scale.number(Math.abs(c.difference))}${scale.suffix}`];
   if (c.pValue !== null) {
     const df = c.degreesOfFreedom === null ? '' : `, df ${c.degreesOfFreedom.toFixed(1)}`;
-    parts.push(`p = ${c.pValue < 0.001 ? '< 0.001' : c.pValue.toFixed(3)} (Welch's t-test${df})`);
+    parts.push(`${formatP(c.pValue)} (Welch's t-test${df})`);
   }
   return parts.join(' · ');
 }

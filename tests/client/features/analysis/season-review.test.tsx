@@ -81,7 +81,7 @@ function comparison(before: [number, number, number], after: [number, number, nu
     difference: after[1] - before[1],
     tStatistic: -2.1,
     degreesOfFreedom: 6.4,
-    pValue: 0.076,
+    pValue: 0.00549,
     enough,
     verdict,
   };
@@ -305,6 +305,8 @@ describe('season review: before and after a change', () => {
     const lf = within(compare.getByRole('group', { name: 'Left front' }));
     expect(lf.getByText('0.060 ± 0.010 mm per run', { exact: false })).toBeTruthy();
     expect(lf.getByText('0.045 ± 0.008 mm per run', { exact: false })).toBeTruthy();
+    // p as the server's sentences write it (two significant figures, formatP), not to three decimals (0.005).
+    expect(lf.getAllByText(/· p = 0\.0055 \(Welch's t-test, df 6\.4\)/).length).toBe(3);
     // The time comparison below, with its uncertainty.
     expect(compare.getByText("Camber: % off the day's best fell by 0.51 %, not enough to rule out chance.")).toBeTruthy();
     expect(compare.getByText(/2\.31 ± 1\.10 %/)).toBeTruthy();
