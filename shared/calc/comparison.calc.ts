@@ -156,9 +156,10 @@ function autoDecimals(before: number, after: number): number {
   return Math.min(6, Math.max(0, sig - 1 - Math.floor(Math.log10(scale))));
 }
 
+/** A mean as people read it: no "-0.000", and a true minus (U+2212) as everywhere else the app shows a value. */
 function fixed(value: number, decimals: number): string {
   const text = value.toFixed(decimals);
-  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
+  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text.replace(/^-/, '\u2212');
 }
 
 /**

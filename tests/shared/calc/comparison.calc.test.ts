@@ -223,6 +223,14 @@ describe('verdict', () => {
     expect(verdict(comparison(0.003, 45.2, 44.1), { betterWhen: 'higher', what: 'grip', unit: 'g' })).toMatch(/fell from 45\.2 to 44\.1 g .*step back/);
   });
 
+  it('when a mean is below zero, then it is written with a true minus (U+2212), and a mean that rounds to zero with none', () => {
+    const skew = { betterWhen: 'lower' as const, what: 'inner-minus-outer wear', unit: 'mm per run' };
+    expect(verdict(comparison(0.11, 0.016, -0.003), skew)).toBe(
+      'Inner-minus-outer wear fell from 0.016 to \u22120.003 mm per run (n = 4 and 4; p = 0.11): a hint, not yet sure. If it holds, that\'s an improvement.',
+    );
+    expect(verdict(comparison(0.11, 0.016, -0.0001), { ...skew, decimals: 3 })).toMatch(/ to 0\.000 mm per run/);
+  });
+
   it('when the means are equal, then it says so and claims neither better nor worse', () => {
     expect(verdict(comparison(0.9, 0.05, 0.05), wear)).toBe('Inner-edge wear was 0.0500 mm per run before and after (n = 4 and 4; p = 0.9): could be chance.');
   });
