@@ -209,12 +209,16 @@ export function fromDisplay(userValue: number, quantity: Quantity, prefs: UnitPr
   return convert(userValue, unitFor(quantity, prefs), SI_UNITS[quantity]);
 }
 
-/** A value already in `unit`, rounded to that unit's decimals, with its symbol: "32.0 psi", "-1.25°", "8.8/32 in". */
+/**
+ * A value already in `unit`, rounded to that unit's decimals, with its symbol, for people to read: "32.0 psi",
+ * "−1.25°" (a true minus, U+2212, not the hyphen a form field takes), "8.8/32 in".
+ */
 export function formatInUnit(value: number, unit: Unit): string {
   const def = definitionOf(unit);
   if (!Number.isFinite(value)) throw new RangeError(`Cannot format ${String(value)} ${unit}: the value must be a finite number`);
   let text = value.toFixed(def.decimals);
-  if (/^-0(\.0*)?$/.test(text)) text = text.slice(1); // no "-0.0" for a value that rounds to zero
+  // No "-0.0" for a value that rounds to zero.
+  text = /^-0(\.0*)?$/.test(text) ? text.slice(1) : text.replace(/^-/, '\u2212');
   return def.spaced ? `${text} ${def.symbol}` : `${text}${def.symbol}`;
 }
 

@@ -361,7 +361,7 @@ describe('toDisplay / fromDisplay / formatQuantity', () => {
     [1360.77711, 'mass', 'metric', '1360.8 kg'],
     [20, 'temperature', 'imperial', '68 °F'],
     [20, 'temperature', 'metric', '20 °C'],
-    [-1.25, 'angle', 'imperial', '-1.25°'],
+    [-1.25, 'angle', 'imperial', '\u22121.25°'],
     [45.678, 'time', 'metric', '45.678 s'],
   ])(`when %s (SI) of %s is formatted for a %s user, then "%s" (${NIST} for the factors)`, (si, q, preset, expected) => {
     expect(formatQuantity(si, q, PRESETS[preset]!)).toBe(expected);
@@ -375,7 +375,8 @@ describe('toDisplay / fromDisplay / formatQuantity', () => {
   it('when a small negative value rounds to zero, then no minus sign is shown', () => {
     expect(formatQuantity(-0.004, 'angle', METRIC_PREFERENCES)).toBe('0.00°');
     expect(formatInUnit(-0.04, 'mm')).toBe('0.0 mm');
-    expect(formatInUnit(-0.06, 'mm')).toBe('-0.1 mm');
+    // Below zero: a true minus (U+2212), as people read it.
+    expect(formatInUnit(-0.06, 'mm')).toBe('\u22120.1 mm');
   });
 
   it('when any value is formatted, then it is the display value to the unit\'s decimals followed by its symbol (property)', () => {
@@ -385,7 +386,9 @@ describe('toDisplay / fromDisplay / formatQuantity', () => {
         const text = formatQuantity(x, q, prefs);
         const symbol = UNIT_SYMBOLS[u];
         expect(text.endsWith(symbol)).toBe(true);
-        const number = text.slice(0, -symbol.length).trimEnd();
+        const shown = text.slice(0, -symbol.length).trimEnd();
+        expect(shown).not.toContain('-');
+        const number = shown.replace('\u2212', '-');
         const decimals = UNIT_DECIMALS[u];
         expect(number).toMatch(decimals === 0 ? /^-?\d+$/ : new RegExp(`^-?\\d+\\.\\d{${decimals}}$`));
         expect(Math.abs(Number(number) - toDisplay(x, q, prefs))).toBeLessThanOrEqual(0.5 * 10 ** -decimals * (1 + 1e-9));

@@ -219,7 +219,7 @@ describe('season review: setup against time and wear', () => {
     const cells = within(rows[1]!).getAllByRole('cell').map((c) => c.textContent);
     expect(cells[0]).toBe('●circle');
     expect(cells[1]).toMatch(/^Harrow Flats — Round 3 \(.*2026\)$/);
-    expect(cells.slice(2)).toEqual(['1 run', 'Baseline', '-1.50°', '+1.23 %']);
+    expect(cells.slice(2)).toEqual(['1 run', 'Baseline', '\u22121.50°', '+1.23 %']);
     expect(within(rows[3]!).getByText('More camber')).toBeTruthy();
     expect(scatter.getByRole('button', { name: 'Hide table' }).getAttribute('aria-expanded')).toBe('true');
   });

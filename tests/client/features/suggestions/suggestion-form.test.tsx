@@ -47,8 +47,8 @@ describe('suggesting a setup change', () => {
     const lf = within(within(change(1)).getByRole('group', { name: 'Left front' })).getByRole('button');
     expect(lf.getAttribute('aria-pressed')).toBe('true');
     // −1.20° now, −1.70° after, 0.50° less (the base snapshot has −1.2° on the front).
-    expect(lf.textContent).toContain('-1.20°');
-    expect(lf.textContent).toContain('→ -1.70°');
+    expect(lf.textContent).toContain('\u22121.20°');
+    expect(lf.textContent).toContain('→ \u22121.70°');
     expect(lf.textContent).toContain('▼ 0.50°');
     const lr = within(within(change(1)).getByRole('group', { name: 'Left rear' })).getByRole('button');
     expect(lr.getAttribute('aria-pressed')).toBe('false');

@@ -36,8 +36,8 @@ describe('a suggestion', () => {
     expect(screen.getByText('Front pair camber: change by −0.50°')).toBeTruthy();
     const grid = screen.getByRole('group', { name: 'Camber' });
     const lf = within(grid).getByRole('group', { name: 'Left front' });
-    expect(lf.textContent).toContain('-1.20°');
-    expect(lf.textContent).toContain('→ -1.70°');
+    expect(lf.textContent).toContain('\u22121.20°');
+    expect(lf.textContent).toContain('→ \u22121.70°');
     expect(within(grid).getByRole('group', { name: 'Left rear' }).textContent).toContain('unchanged');
   });
 

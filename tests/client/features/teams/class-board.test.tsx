@@ -65,7 +65,7 @@ describe('class board', () => {
 
     const setup = within(classSection('STR')).getByRole('table', { name: 'Setup of White roadster' });
     const row = (label: string) => within(setup).getByRole('rowheader', { name: label }).parentElement!;
-    expect(cells(row('Camber'))).toEqual(['-2.10°', '-1.50°']);
+    expect(cells(row('Camber'))).toEqual(['\u22122.10°', '\u22121.50°']);
     // 200 kPa = 29.0 psi and 190 kPa = 27.6 psi (1 psi = 6.894757 kPa, NIST SP 811 appendix B, from memory).
     expect(cells(row('Cold pressure'))).toEqual(['29.0 psi', '27.6 psi']);
     // 70 N/mm = 400 lb/in (1 lbf/in = 0.1751268 N/mm, from 1 lbf = 4.448222 N and 1 in = 25.4 mm, NIST SP 811 appendix B, from memory).
