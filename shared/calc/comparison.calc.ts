@@ -11,7 +11,7 @@
  */
 import { gammaln, mean, sampleVariance } from 'simple-statistics';
 import { requireFinite, requirePositive } from './input-checks.calc';
-import { formatP } from './p-value';
+import { formatFixed, formatP } from './display';
 
 export interface SampleSummary {
   n: number;
@@ -156,11 +156,6 @@ function autoDecimals(before: number, after: number): number {
   return Math.min(6, Math.max(0, sig - 1 - Math.floor(Math.log10(scale))));
 }
 
-/** A mean as people read it: no "-0.000", and a true minus (U+2212) as everywhere else the app shows a value. */
-function fixed(value: number, decimals: number): string {
-  const text = value.toFixed(decimals);
-  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text.replace(/^-/, '\u2212');
-}
 
 /**
  * One plain sentence on a before/after comparison, e.g.
@@ -181,8 +176,8 @@ export function verdict(
   const subject = what.charAt(0).toUpperCase() + what.slice(1);
   const unit = options.unit.trim() ? ` ${options.unit.trim()}` : '';
   const decimals = options.decimals ?? autoDecimals(before.mean, after.mean);
-  const from = fixed(before.mean, decimals);
-  const to = fixed(after.mean, decimals);
+  const from = formatFixed(before.mean, decimals);
+  const to = formatFixed(after.mean, decimals);
   const counts = `n = ${before.n} and ${after.n}`;
 
   const same = difference === 0 || from === to;

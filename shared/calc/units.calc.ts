@@ -7,6 +7,7 @@
  * lbf/in) are computed from them, never typed in rounded.
  */
 import * as z from '../zod';
+import { formatFixed } from './display';
 
 // ── Exact definitions ────────────────────────────────────────────────────────
 export const MM_PER_INCH = 25.4;
@@ -216,9 +217,7 @@ export function fromDisplay(userValue: number, quantity: Quantity, prefs: UnitPr
 export function formatInUnit(value: number, unit: Unit): string {
   const def = definitionOf(unit);
   if (!Number.isFinite(value)) throw new RangeError(`Cannot format ${String(value)} ${unit}: the value must be a finite number`);
-  let text = value.toFixed(def.decimals);
-  // No "-0.0" for a value that rounds to zero.
-  text = /^-0(\.0*)?$/.test(text) ? text.slice(1) : text.replace(/^-/, '\u2212');
+  const text = formatFixed(value, def.decimals);
   return def.spaced ? `${text} ${def.symbol}` : `${text}${def.symbol}`;
 }
 

@@ -1,6 +1,6 @@
 import { useId, useState, type ReactNode } from 'react';
 import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
-import { formatP } from '@shared/calc/p-value';
+import { formatP } from '@shared/calc/display';
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';

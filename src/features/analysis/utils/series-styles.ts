@@ -20,7 +20,7 @@ export const OKABE_ITO = [
 /**
  * In the order the colours above take them, so the first eight series pair them one to one: the marks drawn
  * with the least ink (the open square, the star) go to the darkest colours, and the palest colour (yellow, about
- * 1.2:1 against white) gets the filled square, the mark with the most.
+ * 1.3:1 against white) gets the filled square, the mark with the most.
  */
 const SHAPES: readonly { shape: MarkerShape; glyph: string; name: string }[] = [
   { shape: 'circle', glyph: '●', name: 'circle' },

@@ -1,3 +1,4 @@
+import { formatFixed } from '@shared/calc/display';
 import { formatInUnit, fromDisplay, toDisplay, UNIT_DECIMALS, unitFor, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { parseDecimal, tidy, typeANumber } from '@/lib/numbers';
 
@@ -103,10 +104,7 @@ export function formatPrecise(
 }
 
 /** A plain number to a few decimals with a typographic minus: "1.72", "−0.50". */
-export function formatNumber(value: number, decimals: number): string {
-  const text = Math.abs(value).toFixed(decimals);
-  return value < 0 && Number(text) !== 0 ? `−${text}` : text;
-}
+export const formatNumber = formatFixed;
 
 /** A percentage to two decimals: "50.38 %". */
 export const formatPct = (pct: number) => `${formatNumber(pct, 2)} %`;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatP } from '../../../shared/calc/p-value';
+import { formatFixed, formatP } from '../../../shared/calc/display';
 
 describe('formatP', () => {
   it.each([
@@ -19,3 +19,16 @@ describe('formatP', () => {
     expect(formatP(0)).toBe('p < 0.001');
   });
 });
+
+describe('formatFixed', () => {
+  it.each([
+    [-1.25, 2, '\u22121.25'],
+    [1.25, 2, '1.25'],
+    [-0.04, 1, '0.0'],
+    [-0.06, 1, '\u22120.1'],
+    [0, 3, '0.000'],
+  ])('when %s is written to %s decimals, then %j (toFixed rounding, ECMA-262; a true minus, U+2212)', (value, decimals, text) => {
+    expect(formatFixed(value, decimals)).toBe(text);
+  });
+});
+
