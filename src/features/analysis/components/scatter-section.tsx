@@ -15,7 +15,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { formatDay } from '@/lib/dates';
 import { useUnits } from '@/lib/units-context';
 import { useScatter } from '../api/get-scatter';
-import { METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxis, type Axis } from '../utils/analysis-format';
+import { axisTick, METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxis, type Axis } from '../utils/analysis-format';
 import { buildScatterPlot, type ScatterPlot } from '../utils/scatter-plot';
 import type { ChartSeries } from './analysis-chart';
 import { ChartLoading } from './chart-loading';
@@ -113,7 +113,6 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
   const y = yAxis(result, units);
   const plot = buildScatterPlot(result, x, y);
   const wear = result.y.metric !== 'time';
-  const tick = (v: number) => (Number.isInteger(v) ? String(v) : String(Number(v.toFixed(3))));
   const series: ChartSeries[] = [
     ...plot.series.map((s) => ({
       label: s.label,
@@ -137,8 +136,8 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
           <Suspense fallback={<ChartLoading series={series} />}>
             <AnalysisChart
               series={series}
-              x={{ title: x.title, format: tick }}
-              y={{ title: y.title, format: tick }}
+              x={{ title: x.title, format: axisTick }}
+              y={{ title: y.title, format: axisTick }}
               summary={`Scatter plot of ${x.title} against ${y.title}, ${result.n} points. Use "Show as table" for the values.`}
             />
           </Suspense>

@@ -32,6 +32,9 @@ export const METRIC_INFO: Record<ScatterMetric, { label: string }> = {
 /** A minus sign that reads as one ("−0.012"), not a hyphen. */
 const signed = (text: string) => text.replace(/^-/, '−');
 
+/** A chart axis's tick: up to three decimals, no trailing zeros, a true minus: "−2.5", "0.125", "3". */
+export const axisTick = (v: number) => signed(String(Number(v.toFixed(3))));
+
 /** "mm per run" or "1/32 in per run", in the user's tread-depth unit. */
 export function rateUnitWords(units: UnitPreferences): string {
   return unitFor('treadDepth', units) === 'in32' ? '1/32 in per run' : 'mm per run';
