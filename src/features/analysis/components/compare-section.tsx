@@ -1,6 +1,6 @@
 import { useId, useState, type ReactNode } from 'react';
 import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
-import { formatP } from '@shared/calc/display';
+import { formatFixed, formatP } from '@shared/calc/display';
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
@@ -24,7 +24,7 @@ function wearScale(units: UnitPreferences): Scale {
   return { number: (v) => wearRateNumber(v, units), suffix: wearRateSuffix(units) };
 }
 
-const PERCENT_SCALE: Scale = { number: (v) => v.toFixed(2).replace(/^-/, '−'), suffix: ' %' };
+const PERCENT_SCALE: Scale = { number: (v) => formatFixed(v, 2), suffix: ' %' };
 
 function statsText(s: SampleStats, scale: Scale): string {
   if (s.n === 0 || s.mean === null) return 'no readings';

@@ -1,4 +1,5 @@
 import type { ScatterMetric, ScatterParam, ScatterPoint, ScatterResult } from '@shared/analysis/analysis.schema';
+import { formatFixed } from '@shared/calc/display';
 import {
   formatQuantity,
   SI_UNITS,
@@ -47,7 +48,7 @@ export function formatWearRate(mmPerRun: number, units: UnitPreferences): string
 
 /** A wear rate's number in the user's tread unit, without the unit: "0.050", "−0.012". */
 export function wearRateNumber(mmPerRun: number, units: UnitPreferences): string {
-  return signed(tidy(toDisplay(mmPerRun, 'treadDepth', units)).toFixed(3));
+  return formatFixed(tidy(toDisplay(mmPerRun, 'treadDepth', units)), 3);
 }
 
 /** The unit after a wear-rate number: " mm per run" or "/32 in per run" (as in "0.063/32 in per run"). */
