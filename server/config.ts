@@ -58,6 +58,8 @@ const envSchema = z
     /** The access key; without it and S3_SECRET_ACCESS_KEY the SDK's usual credential chain is used. */
     S3_ACCESS_KEY_ID: optionalText,
     S3_SECRET_ACCESS_KEY: optionalText,
+    /** How often the stored objects of deleted records are removed (default every 60 s). */
+    FILE_SWEEP_SECONDS: z._default(z.coerce.number().check(z.int(), z.positive(), z.lte(86_400)), 60),
   })
   .check(
     z.superRefine((env, ctx) => {

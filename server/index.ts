@@ -12,6 +12,7 @@ import { smtpMailer, type MailSettings } from './mail/mailer';
 import { createPaymentSettings, type PaymentSettings } from './features/payments/payment-settings';
 import type { FileStorage } from './files/storage';
 import { DEFAULT_UPLOAD_DIR, diskStorage } from './files/disk-storage';
+import { startFileSweeper, type FileSweeper } from './files/file-sweep';
 
 export interface RunningServer {
   server: Server;
@@ -21,6 +22,8 @@ export interface RunningServer {
   mail?: MailSettings;
   /** The payment service, or undefined when STRIPE_SECRET_KEY is not set (invoices are then paid in cash only). */
   payments?: PaymentSettings;
+  /** Removes the stored objects of deleted records, every FILE_SWEEP_SECONDS. */
+  sweeper: FileSweeper;
   close: () => Promise<void>;
 }
 
@@ -107,6 +110,10 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
     await ds.destroy();
     throw err;
   });
+  // Objects of attachments deleted with their record (a run, a setup, a car…) are queued by the
+  // database and removed here; the first sweep also takes what was queued while no server ran.
+  const sweeper = startFileSweeper(ds, storage, config.FILE_SWEEP_SECONDS * 1000);
+  sweeper.soon();
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
   // The services hold this same object, so they pick up the real port (PORT=0 in tests).
@@ -119,11 +126,13 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
     seeded,
     mail,
     payments,
+    sweeper,
     async close() {
       await new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeAllConnections();
       });
+      await sweeper.stop();
       await pool.end();
       await ds.destroy();
     },

@@ -18,6 +18,7 @@ import { UserPreferences1764806400000 } from './migrations/1764806400000-user-pr
 import { Collaboration1764892800000 } from './migrations/1764892800000-collaboration';
 import { ServiceVisits1764979200000 } from './migrations/1764979200000-service-visits';
 import { Attachments1765065600000 } from './migrations/1765065600000-attachments';
+import { StoredFileRemovals1765152000000 } from './migrations/1765152000000-stored-file-removals';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -25,7 +26,10 @@ export const entities = [
   TyreSetEntity, TyreMountingEntity, TreadReadingEntity, TreadReadingCornerEntity, PressureReadingEntity,
   CommentEntity, SetupSuggestionEntity,
 ];
-export const migrations = [Foundation1764633600000, SeasonRecord1764720000000, UserPreferences1764806400000, Collaboration1764892800000, ServiceVisits1764979200000, Attachments1765065600000];
+export const migrations = [
+  Foundation1764633600000, SeasonRecord1764720000000, UserPreferences1764806400000, Collaboration1764892800000,
+  ServiceVisits1764979200000, Attachments1765065600000, StoredFileRemovals1765152000000,
+];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */
 export function createDataSource(url: string, options: { poolSize?: number } = {}) {

@@ -1,4 +1,4 @@
-import { mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { mkdir, readFile, rename, rm, rmdir, writeFile } from 'node:fs/promises';
 import { randomUUID } from 'node:crypto';
 import { dirname, resolve, sep } from 'node:path';
 import { assertStorageKey, type FileStorage } from './storage';
@@ -37,7 +37,15 @@ export function diskStorage(rootDir: string = DEFAULT_UPLOAD_DIR): FileStorage {
       }
     },
     async delete(key) {
-      await rm(pathOf(key), { force: true });
+      const path = pathOf(key);
+      await rm(path, { force: true });
+      // The record's folder (`<attachment id>/`) goes with its last object; one still holding a file stays.
+      const folder = dirname(path);
+      if (folder !== root) {
+        await rmdir(folder).catch((err: NodeJS.ErrnoException) => {
+          if (err.code !== 'ENOTEMPTY' && err.code !== 'EEXIST' && err.code !== 'ENOENT') throw err;
+        });
+      }
     },
   };
 }

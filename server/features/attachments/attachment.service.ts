@@ -6,6 +6,7 @@ import { AppError } from '../../lib/app-error';
 import { logger } from '../../lib/logger';
 import { assertCarAccess, assertEventAccess, type Queryable } from '../../auth/access';
 import type { FileStorage } from '../../files/storage';
+import { sweepStoredFiles } from '../../files/file-sweep';
 import { cleanFileName, describeImage, detectContentType } from '../../files/inspect';
 
 /** The column each target type's id lives in. */
@@ -221,7 +222,7 @@ export async function createAttachments(
       }
     });
   } catch (err) {
-    await removeObjects(storage, stored);
+    await removeObjects(ds, storage, stored);
     throw err;
   }
 
@@ -281,17 +282,30 @@ export async function deleteAttachment(ds: DataSource, storage: FileStorage, use
       row.event_id ? 'Only the person who added this file or the event\'s creator can delete it.' : 'Only the person who added this file or the car\'s owner can delete it.',
     );
   }
+  // The delete queues the row's objects (a trigger, in the same statement); they are removed at once,
+  // or stay queued for the sweep if the storage refuses now.
   await ds.query('DELETE FROM attachments WHERE id = $1', [attachmentId]);
-  await removeObjects(storage, [row.storage_key, ...(row.thumbnail_key ? [row.thumbnail_key] : [])]);
+  await sweepStoredFiles(ds, storage, { keys: [row.storage_key, ...(row.thumbnail_key ? [row.thumbnail_key] : [])] }).catch((err: unknown) =>
+    logger.warn({ err, attachmentId }, 'the deleted file\'s objects stay queued for the sweep'),
+  );
 }
 
-/** Best effort: an object left behind is unreachable (no row points at it) and only takes space. */
-async function removeObjects(storage: FileStorage, keys: string[]) {
+/**
+ * Objects stored for an upload whose rows were never written. Each is removed now; one the storage
+ * refuses is queued for the sweep, if the database can be reached.
+ */
+async function removeObjects(ds: DataSource, storage: FileStorage, keys: string[]) {
+  const left: string[] = [];
   for (const key of keys) {
     try {
       await storage.delete(key);
     } catch (err) {
       logger.warn({ err, key }, 'could not remove a stored file');
+      left.push(key);
     }
   }
+  if (left.length === 0) return;
+  await ds
+    .query('INSERT INTO stored_file_removals (storage_key) SELECT unnest($1::text[]) ON CONFLICT (storage_key) DO NOTHING', [left])
+    .catch((err: unknown) => logger.warn({ err, keys: left }, 'could not queue stored files for removal; they stay unreachable'));
 }

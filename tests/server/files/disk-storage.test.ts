@@ -19,6 +19,18 @@ describe('the disk storage', () => {
     await storage.delete('0b7e1a52-3c1f-4d8e-9a66-6d2b1f0c9e11/original');
   });
 
+  it('when the last object of a folder is deleted, then the folder goes too; one still holding an object stays', async () => {
+    const folder = '5d1e2f30-1a2b-4c3d-8e9f-0a1b2c3d4e5f';
+    await storage.put(`${folder}/original`, Buffer.from([1]), 'image/png');
+    await storage.put(`${folder}/thumbnail`, Buffer.from([2]), 'image/webp');
+    await storage.delete(`${folder}/thumbnail`);
+    expect(existsSync(join(root, 'uploads', folder))).toBe(true);
+    await storage.delete(`${folder}/original`);
+    expect(existsSync(join(root, 'uploads', folder))).toBe(false);
+    // The root itself is never removed, even when empty.
+    expect(existsSync(join(root, 'uploads'))).toBe(true);
+  });
+
   it.each(['../escape', 'a/../../escape', '/etc/passwd', 'a/./b', 'A/Original', 'a\\..\\b', '', 'a//b', 'name with space'])(
     'when the key is %j, then it is refused before the disk is touched',
     async (key) => {
