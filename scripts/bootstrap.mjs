@@ -8,8 +8,8 @@ import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const command = process.argv[2];
-if (!['start', 'test', 'dev', 'bench', 'db-backup', 'db-restore'].includes(command)) {
-  console.error('usage: node scripts/bootstrap.mjs start|test|dev|bench|db-backup|db-restore');
+if (!['start', 'test', 'dev', 'bench', 'db-backup', 'db-restore', 'files-check'].includes(command)) {
+  console.error('usage: node scripts/bootstrap.mjs start|test|dev|bench|db-backup|db-restore|files-check');
   process.exit(2);
 }
 

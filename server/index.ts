@@ -10,8 +10,8 @@ import { seedDemoIfEmpty } from './db/seed';
 import { logger } from './lib/logger';
 import { smtpMailer, type MailSettings } from './mail/mailer';
 import { createPaymentSettings, type PaymentSettings } from './features/payments/payment-settings';
-import type { FileStorage } from './files/storage';
-import { DEFAULT_UPLOAD_DIR, diskStorage } from './files/disk-storage';
+import { DEFAULT_UPLOAD_DIR } from './files/disk-storage';
+import { storageFromConfig } from './files/storage-config';
 import { startFileSweeper, type FileSweeper } from './files/file-sweep';
 
 export interface RunningServer {
@@ -34,22 +34,6 @@ export function localOrigin(host: string, port: number): string {
 }
 
 const ROOT = join(fileURLToPath(import.meta.url), '..', '..');
-
-/**
- * The attachment storage the configuration chooses: S3 when S3_BUCKET is set, else disk.
- * The S3 SDK is loaded only when it is used.
- */
-export async function storageFromConfig(config: Config): Promise<FileStorage> {
-  if (!config.S3_BUCKET) return diskStorage(config.UPLOAD_DIR ?? DEFAULT_UPLOAD_DIR);
-  const { s3Storage } = await import('./files/s3-storage');
-  return s3Storage({
-    bucket: config.S3_BUCKET,
-    region: config.S3_REGION ?? 'us-east-1',
-    endpoint: config.S3_ENDPOINT,
-    accessKeyId: config.S3_ACCESS_KEY_ID,
-    secretAccessKey: config.S3_SECRET_ACCESS_KEY,
-  });
-}
 
 /** Connects, migrates, seeds an empty database, and listens. */
 export async function startServer(config: Config, clientDir = join(ROOT, 'dist')): Promise<RunningServer> {

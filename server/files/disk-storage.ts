@@ -1,7 +1,7 @@
-import { mkdir, readFile, rename, rm, rmdir, writeFile } from 'node:fs/promises';
+import { mkdir, readdir, readFile, rename, rm, rmdir, stat, writeFile } from 'node:fs/promises';
 import { randomUUID } from 'node:crypto';
-import { dirname, resolve, sep } from 'node:path';
-import { assertStorageKey, type FileStorage } from './storage';
+import { dirname, join, relative, resolve, sep } from 'node:path';
+import { assertStorageKey, isStorageKey, type FileStorage, type StoredObject } from './storage';
 
 /** Relative to the working directory the server starts in; git-ignored with the rest of `.data/`. */
 export const DEFAULT_UPLOAD_DIR = '.data/uploads';
@@ -46,6 +46,27 @@ export function diskStorage(rootDir: string = DEFAULT_UPLOAD_DIR): FileStorage {
           if (err.code !== 'ENOTEMPTY' && err.code !== 'EEXIST' && err.code !== 'ENOENT') throw err;
         });
       }
+    },
+    async *list() {
+      let entries;
+      try {
+        entries = await readdir(root, { recursive: true, withFileTypes: true });
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code === 'ENOENT') return;
+        throw err;
+      }
+      const page: StoredObject[] = [];
+      for (const entry of entries) {
+        if (!entry.isFile()) continue;
+        const path = join(entry.parentPath, entry.name);
+        // A write in progress (`….part`) is not an object yet, and is not a key the server makes.
+        const key = relative(root, path).split(sep).join('/');
+        if (!isStorageKey(key) || key.endsWith('.part')) continue;
+        const info = await stat(path).catch(() => null);
+        if (info) page.push({ key, modifiedAt: info.mtime });
+        if (page.length === 1000) yield page.splice(0);
+      }
+      if (page.length > 0) yield page;
     },
   };
 }

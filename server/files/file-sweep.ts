@@ -24,6 +24,16 @@ export interface SweepOptions {
   keys?: string[];
 }
 
+/** Queues the keys for the sweep; answers how many were not queued already. */
+export async function queueForRemoval(ds: DataSource, keys: string[]): Promise<number> {
+  if (keys.length === 0) return 0;
+  const rows: unknown[] = await ds.query(
+    'INSERT INTO stored_file_removals (storage_key) SELECT unnest($1::text[]) ON CONFLICT (storage_key) DO NOTHING RETURNING storage_key',
+    [keys],
+  );
+  return rows.length;
+}
+
 /** One batch: at most `batchSize` due keys. */
 export async function sweepStoredFiles(ds: DataSource, storage: FileStorage, { batchSize = 100, keys }: SweepOptions = {}): Promise<SweepResult> {
   return ds.transaction(async (m) => {

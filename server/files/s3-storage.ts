@@ -1,5 +1,5 @@
-import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
-import { assertStorageKey, type FileStorage } from './storage';
+import { DeleteObjectCommand, GetObjectCommand, ListObjectsV2Command, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { assertStorageKey, isStorageKey, type FileStorage } from './storage';
 
 export interface S3Settings {
   bucket: string;
@@ -48,6 +48,16 @@ export function s3Storage(settings: S3Settings): FileStorage {
     async delete(key) {
       assertStorageKey(key);
       await client.send(new DeleteObjectCommand({ Bucket, Key: key }));
+    },
+    async *list() {
+      let ContinuationToken: string | undefined;
+      do {
+        const res = await client.send(new ListObjectsV2Command({ Bucket, ContinuationToken }));
+        yield (res.Contents ?? [])
+          .filter((o) => o.Key !== undefined && isStorageKey(o.Key))
+          .map((o) => ({ key: o.Key!, modifiedAt: o.LastModified ?? new Date(0) }));
+        ContinuationToken = res.IsTruncated ? res.NextContinuationToken : undefined;
+      } while (ContinuationToken);
     },
   };
 }

@@ -10,8 +10,28 @@ export interface FileStorage {
   get(key: string): Promise<Buffer | null>;
   /** Removes the object; removing a key that holds nothing is not an error. */
   delete(key: string): Promise<void>;
+  /**
+   * Every stored object, with when it was last written, a page at a time (for the storage check; no
+   * request uses it). Only keys the server could have made are listed; anything else is not ours.
+   */
+  list(): AsyncIterable<StoredObject[]>;
   /** For logs and docs: "disk" or "s3". */
   readonly kind: 'disk' | 's3';
+}
+
+export interface StoredObject {
+  key: string;
+  modifiedAt: Date;
+}
+
+/** Whether the key is one the server could have made (see assertStorageKey). */
+export function isStorageKey(key: string): boolean {
+  try {
+    assertStorageKey(key);
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 /** Lower-case letters, digits, dashes and dots in `/`-separated segments; no `.` or `..` segment. */

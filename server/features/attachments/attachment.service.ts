@@ -6,7 +6,7 @@ import { AppError } from '../../lib/app-error';
 import { logger } from '../../lib/logger';
 import { assertCarAccess, assertEventAccess, type Queryable } from '../../auth/access';
 import type { FileStorage } from '../../files/storage';
-import { sweepStoredFiles } from '../../files/file-sweep';
+import { queueForRemoval, sweepStoredFiles } from '../../files/file-sweep';
 import { cleanFileName, describeImage, detectContentType } from '../../files/inspect';
 
 /** The column each target type's id lives in. */
@@ -305,7 +305,5 @@ async function removeObjects(ds: DataSource, storage: FileStorage, keys: string[
     }
   }
   if (left.length === 0) return;
-  await ds
-    .query('INSERT INTO stored_file_removals (storage_key) SELECT unnest($1::text[]) ON CONFLICT (storage_key) DO NOTHING', [left])
-    .catch((err: unknown) => logger.warn({ err, keys: left }, 'could not queue stored files for removal; they stay unreachable'));
+  await queueForRemoval(ds, left).catch((err: unknown) => logger.warn({ err, keys: left }, 'could not queue stored files for removal; they stay unreachable'));
 }

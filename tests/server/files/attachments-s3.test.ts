@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { GetObjectCommand, ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
+import { GetObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import S3rver from 's3rver';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -73,5 +73,21 @@ describe('attachments in an S3-compatible bucket (a local fake S3 server)', () =
     const res = await w.owner.c.get(`/api/attachments/${id}/file`);
     expect(res.status).toBe(404);
     expect(res.body.error.code).toBe('not_found');
+  });
+
+  it('when the bucket is listed for the storage check, then every object comes back with its time, and keys the server never makes are left out', async () => {
+    const storage = s3Storage({ bucket: BUCKET, region: 'us-east-1', endpoint, ...CREDENTIALS });
+    await s3.send(new PutObjectCommand({ Bucket: BUCKET, Key: 'Not Ours/readme.txt', Body: 'x' }));
+    const before = Date.now();
+    const up = await upload(w.owner.c, { targetType: 'run', targetId: w.runId }, [{ bytes: await jpeg(20, 20), name: 'listed.jpg' }]);
+    const id = (up.body as { items: Attachment[] }).items[0]!.id;
+    const listed: { key: string; modifiedAt: Date }[] = [];
+    for await (const page of storage.list()) listed.push(...page);
+    const ours = (await bucketKeys()).filter((k) => k !== 'Not Ours/readme.txt');
+    expect(listed.map((o) => o.key).sort()).toEqual(ours);
+    expect(ours).toContain(`${id}/thumbnail`);
+    const mine = listed.find((o) => o.key === `${id}/original`)!;
+    // S3 keeps times to the second.
+    expect(mine.modifiedAt.getTime()).toBeGreaterThanOrEqual(Math.floor(before / 1000) * 1000);
   });
 });
