@@ -89,6 +89,7 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'POST /api/auth/logout': 'public',
   'GET /api/auth/me': 'signed_in',
   'PATCH /api/auth/me/preferences': 'signed_in',
+  'POST /api/auth/me/password': 'signed_in',
   'POST /api/auth/password-reset': 'public',
   'POST /api/auth/password-reset/confirm': 'public',
 

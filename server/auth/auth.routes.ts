@@ -1,7 +1,14 @@
 import { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
 import { updatePreferencesInputSchema, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
-import { loginInputSchema, registerInputSchema, type LoginInput, type RegisterInput } from '@shared/auth/credentials.schema';
+import {
+  changePasswordInputSchema,
+  loginInputSchema,
+  registerInputSchema,
+  type ChangePasswordInput,
+  type LoginInput,
+  type RegisterInput,
+} from '@shared/auth/credentials.schema';
 import {
   PASSWORD_RESET_REQUESTED_MESSAGE,
   passwordResetConfirmSchema,
@@ -19,6 +26,7 @@ import { currentUser, requireAuth } from './access';
 import { SESSION_COOKIE } from './session';
 import type { MailSettings } from '../mail/mailer';
 import { confirmPasswordReset, requestPasswordReset } from './password-reset';
+import { changePassword } from './password-change';
 
 interface Deps {
   ds: DataSource;
@@ -94,6 +102,24 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail }: De
   router.patch('/me/preferences', requireAuth, validate({ body: updatePreferencesInputSchema }), async (req, res) => {
     const user = await updatePreferences(ds, currentUser(req).id, parsed<UpdatePreferencesInput>(res, 'body'));
     res.json({ user });
+  });
+
+  /**
+   * A new password for the signed-in account, the current one typed again. A wrong current password counts
+   * as a failed sign-in of the account, so this cannot be used to guess it past the sign-in limit.
+   */
+  router.post('/me/password', requireAuth, validate({ body: changePasswordInputSchema }), async (req, res) => {
+    const input = parsed<ChangePasswordInput>(res, 'body');
+    const user = currentUser(req);
+    await limits.beforeLogin(req.ip ?? 'unknown', user.email);
+    try {
+      await changePassword(ds, user.id, req.sessionID, input);
+    } catch (err) {
+      if (err instanceof AppError && err.code === 'validation_failed') await limits.loginFailed(user.email);
+      throw err;
+    }
+    await limits.loginSucceeded(user.email);
+    res.status(204).end();
   });
 
   /** Always 202 with the same words, so the answer does not tell which addresses have accounts. */

@@ -5,6 +5,7 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useUpdatePreferences } from '@/features/auth/api/update-preferences';
 import { UnitSettingsForm } from '@/features/auth/components/unit-settings-form';
 import { EmailNotificationsSwitch } from '@/features/account/components/email-notifications-switch';
+import { ChangePasswordForm } from '@/features/account/components/change-password-form';
 
 const EMAIL_OFFLINE = 'No connection: the e-mail setting was not changed. Try again when you have signal.';
 
@@ -43,6 +44,9 @@ export function SettingsPage() {
       </SectionCard>
       <SectionCard title="E-mail">
         <EmailSetting enabled={user.preferences.emailNotifications} />
+      </SectionCard>
+      <SectionCard title="Password">
+        <ChangePasswordForm email={user.email} />
       </SectionCard>
     </div>
   );

@@ -176,6 +176,11 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
   'POST /api/auth/logout': { call: () => ({ path: '/api/auth/logout' }), expect: everyone(204), fresh: true },
   'GET /api/auth/me': { call: () => ({ path: '/api/auth/me' }), expect: signedIn(200) },
   'PATCH /api/auth/me/preferences': { call: () => ({ path: '/api/auth/me/preferences', body: { units: { pressure: 'kPa' } } }), expect: signedIn(200) },
+  // A wrong current password: every signed-in person reaches the check (400), no one's password changes.
+  'POST /api/auth/me/password': {
+    call: () => ({ path: '/api/auth/me/password', body: { currentPassword: 'not the password at all', newPassword: 'a long enough pass phrase' } }),
+    expect: signedIn(400),
+  },
   'POST /api/auth/password-reset': { call: () => ({ path: '/api/auth/password-reset', body: { email: 'nobody@example.com' } }), expect: everyone(202) },
   'POST /api/auth/password-reset/confirm': {
     call: () => ({ path: '/api/auth/password-reset/confirm', body: { token: 'x'.repeat(43), password: 'a long enough pass phrase' } }),

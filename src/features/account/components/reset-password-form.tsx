@@ -3,7 +3,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'react-router-dom';
 import * as z from '@shared/zod';
-import { newPasswordSchema, PASSWORD_MAX, PASSWORD_MIN } from '@shared/auth/credentials.schema';
+import { NEW_PASSWORD_HINT, newPasswordSchema } from '@shared/auth/credentials.schema';
 import { paths } from '@/config/paths';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
@@ -11,9 +11,6 @@ import { PasswordField } from '@/components/ui/password-field';
 import { isApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useConfirmPasswordReset } from '../api/confirm-password-reset';
-
-/** The same rules and words as registration. */
-export const NEW_PASSWORD_HINT = `${PASSWORD_MIN} to ${PASSWORD_MAX} characters. A few unrelated words make a strong one.`;
 
 const formSchema = z.strictObject({ password: newPasswordSchema });
 type FormValues = z.infer<typeof formSchema>;

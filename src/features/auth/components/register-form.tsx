@@ -3,7 +3,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type * as z from '@shared/zod';
 import type { User } from '@shared/auth/auth.schema';
-import { PASSWORD_MAX, PASSWORD_MIN, registerInputSchema, type RegisterInput } from '@shared/auth/credentials.schema';
+import { NEW_PASSWORD_HINT, registerInputSchema, type RegisterInput } from '@shared/auth/credentials.schema';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';
@@ -14,8 +14,6 @@ import { useRegister } from '../api/register';
 type RegisterFormValues = z.input<typeof registerInputSchema>;
 
 const FIELDS = ['displayName', 'email', 'password'] as const;
-
-export const PASSWORD_HINT = `${PASSWORD_MIN} to ${PASSWORD_MAX} characters. A few unrelated words make a strong one.`;
 
 export function RegisterForm({ onSuccess }: { onSuccess: (user: User) => void }) {
   const registration = useRegister();
@@ -61,7 +59,7 @@ export function RegisterForm({ onSuccess }: { onSuccess: (user: User) => void })
       />
       <PasswordField
         label="Password"
-        hint={PASSWORD_HINT}
+        hint={NEW_PASSWORD_HINT}
         autoComplete="new-password"
         error={errors.password?.message}
         {...register('password')}

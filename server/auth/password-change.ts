@@ -1,0 +1,26 @@
+import type { DataSource } from 'typeorm';
+import { AppError } from '../lib/app-error';
+import { hashPassword, verifyPassword } from './password';
+
+export const WRONG_CURRENT_PASSWORD = 'That is not your current password';
+
+/**
+ * A signed-in person's new password, in one transaction: the current one checked against the stored
+ * argon2id hash, the new hash stored, any open reset link voided, and every other session of the
+ * account ended (OWASP ASVS 4.0 V3.3.3); the session that asked stays signed in. Throws a field
+ * error on `currentPassword` when it does not match.
+ */
+export async function changePassword(ds: DataSource, userId: string, sessionId: string, input: { currentPassword: string; newPassword: string }): Promise<void> {
+  const newHash = await hashPassword(input.newPassword);
+  await ds.transaction(async (m) => {
+    const rows: { password_hash: string }[] = await m.query('SELECT password_hash FROM users WHERE id = $1 FOR UPDATE', [userId]);
+    const row = rows[0];
+    if (!row || !(await verifyPassword(row.password_hash, input.currentPassword))) {
+      throw new AppError('validation_failed', `${WRONG_CURRENT_PASSWORD}.`, { currentPassword: [WRONG_CURRENT_PASSWORD] });
+    }
+    await m.query('UPDATE users SET password_hash = $2, updated_at = now() WHERE id = $1', [userId, newHash]);
+    await m.query('UPDATE password_resets SET used_at = now() WHERE user_id = $1 AND used_at IS NULL', [userId]);
+    // passport.serializeUser stores the user id at sess.passport.user (server/auth/passport.ts).
+    await m.query(`DELETE FROM session WHERE sess -> 'passport' ->> 'user' = $1 AND sid <> $2`, [userId, sessionId]);
+  });
+}
