@@ -12,6 +12,8 @@ declare module 'express-session' {
   interface SessionData {
     /** When the signed-in session began (ms since epoch), for the absolute timeout. */
     signedInAt?: number;
+    /** What the browser said it was at sign-in ("Chrome on Android"), for the list of signed-in devices. */
+    device?: string | null;
     csrfToken?: string;
   }
 }

@@ -90,6 +90,8 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'GET /api/auth/me': 'signed_in',
   'PATCH /api/auth/me/preferences': 'signed_in',
   'POST /api/auth/me/password': 'signed_in',
+  'GET /api/auth/me/sessions': 'signed_in',
+  'POST /api/auth/me/sessions/end': 'signed_in',
   'POST /api/auth/password-reset': 'public',
   'POST /api/auth/password-reset/confirm': 'public',
 

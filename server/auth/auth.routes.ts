@@ -1,14 +1,8 @@
 import { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
 import { updatePreferencesInputSchema, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
-import {
-  changePasswordInputSchema,
-  loginInputSchema,
-  registerInputSchema,
-  type ChangePasswordInput,
-  type LoginInput,
-  type RegisterInput,
-} from '@shared/auth/credentials.schema';
+import { loginInputSchema, registerInputSchema, type LoginInput, type RegisterInput } from '@shared/auth/credentials.schema';
+import { changePasswordInputSchema, endSessionsInputSchema, type ChangePasswordInput, type EndSessionsInput } from '@shared/auth/account.schema';
 import {
   PASSWORD_RESET_REQUESTED_MESSAGE,
   passwordResetConfirmSchema,
@@ -27,6 +21,7 @@ import { SESSION_COOKIE } from './session';
 import type { MailSettings } from '../mail/mailer';
 import { confirmPasswordReset, requestPasswordReset } from './password-reset';
 import { changePassword } from './password-change';
+import { deviceLabel, endOtherSessions, listDevices } from './devices';
 
 interface Deps {
   ds: DataSource;
@@ -35,22 +30,28 @@ interface Deps {
   generateCsrfToken: (req: Request, overwrite?: boolean) => string;
   /** For password-reset e-mails; without it the reset link is stored but not sent. */
   mail?: MailSettings;
+  /** The session's idle timeout: a session's last request is its stored expiry less this. */
+  idleMs: number;
 }
 
 const INVALID_LOGIN = 'That e-mail and password do not match an account.';
 
-/** Signs the user in: passport regenerates the session ID, then we stamp the sign-in time. */
+/**
+ * Signs the user in: passport regenerates the session ID, then we stamp the sign-in time and what the
+ * browser says it is, for the list of signed-in devices.
+ */
 function signIn(req: Request, user: User) {
   return new Promise<void>((resolve, reject) => {
     req.login(user, (err) => {
       if (err) return reject(err);
       req.session.signedInAt = Date.now();
+      req.session.device = deviceLabel(req.get('user-agent'));
       resolve();
     });
   });
 }
 
-export function authRoutes({ ds, passport, limits, generateCsrfToken, mail }: Deps) {
+export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idleMs }: Deps) {
   const router = Router();
 
   router.get('/csrf', (req, res) => {
@@ -120,6 +121,27 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail }: De
     }
     await limits.loginSucceeded(user.email);
     res.status(204).end();
+  });
+
+  /** The devices signed in to this account, this one first. */
+  router.get('/me/sessions', requireAuth, async (req, res) => {
+    res.json({ items: await listDevices(ds, currentUser(req).id, req.sessionID, idleMs) });
+  });
+
+  /** Signs out one other device, or all of them, with the password typed again; counted like a sign-in. */
+  router.post('/me/sessions/end', requireAuth, validate({ body: endSessionsInputSchema }), async (req, res) => {
+    const input = parsed<EndSessionsInput>(res, 'body');
+    const user = currentUser(req);
+    await limits.beforeLogin(req.ip ?? 'unknown', user.email);
+    let ended: number;
+    try {
+      ended = await endOtherSessions(ds, user.id, req.sessionID, input);
+    } catch (err) {
+      if (err instanceof AppError && err.code === 'validation_failed') await limits.loginFailed(user.email);
+      throw err;
+    }
+    await limits.loginSucceeded(user.email);
+    res.json({ ended });
   });
 
   /** Always 202 with the same words, so the answer does not tell which addresses have accounts. */

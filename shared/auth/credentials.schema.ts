@@ -32,14 +32,3 @@ export const loginInputSchema = z.strictObject({
   password: z.string({ error: 'Enter your password' }).check(z.minLength(1, 'Enter your password'), z.maxLength(PASSWORD_MAX * 4)),
 });
 export type LoginInput = z.infer<typeof loginInputSchema>;
-
-/** The password a signed-in person types to prove it is them: no rules beyond a length cap, as at sign-in. */
-const currentPasswordSchema = z
-  .string({ error: 'Enter your current password' })
-  .check(z.minLength(1, 'Enter your current password'), z.maxLength(PASSWORD_MAX * 4));
-
-/** A signed-in person changing their password (OWASP ASVS 4.0 V2.1.5, V3.7.1: the current one is asked again). */
-export const changePasswordInputSchema = z
-  .strictObject({ currentPassword: currentPasswordSchema, newPassword: newPasswordSchema })
-  .check(z.refine((v) => v.currentPassword !== v.newPassword, { message: 'Choose a password other than your current one', path: ['newPassword'] }));
-export type ChangePasswordInput = z.infer<typeof changePasswordInputSchema>;

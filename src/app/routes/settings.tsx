@@ -6,6 +6,7 @@ import { useUpdatePreferences } from '@/features/auth/api/update-preferences';
 import { UnitSettingsForm } from '@/features/auth/components/unit-settings-form';
 import { EmailNotificationsSwitch } from '@/features/account/components/email-notifications-switch';
 import { ChangePasswordForm } from '@/features/account/components/change-password-form';
+import { SignedInDevices } from '@/features/account/components/signed-in-devices';
 
 const EMAIL_OFFLINE = 'No connection: the e-mail setting was not changed. Try again when you have signal.';
 
@@ -47,6 +48,9 @@ export function SettingsPage() {
       </SectionCard>
       <SectionCard title="Password">
         <ChangePasswordForm email={user.email} />
+      </SectionCard>
+      <SectionCard title="Signed-in devices">
+        <SignedInDevices />
       </SectionCard>
     </div>
   );

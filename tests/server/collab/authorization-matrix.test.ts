@@ -181,6 +181,9 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     call: () => ({ path: '/api/auth/me/password', body: { currentPassword: 'not the password at all', newPassword: 'a long enough pass phrase' } }),
     expect: signedIn(400),
   },
+  'GET /api/auth/me/sessions': { call: () => ({ path: '/api/auth/me/sessions' }), expect: signedIn(200) },
+  // A wrong password: every signed-in person reaches the check (400), no device is signed out.
+  'POST /api/auth/me/sessions/end': { call: () => ({ path: '/api/auth/me/sessions/end', body: { password: 'not the password at all' } }), expect: signedIn(400) },
   'POST /api/auth/password-reset': { call: () => ({ path: '/api/auth/password-reset', body: { email: 'nobody@example.com' } }), expect: everyone(202) },
   'POST /api/auth/password-reset/confirm': {
     call: () => ({ path: '/api/auth/password-reset/confirm', body: { token: 'x'.repeat(43), password: 'a long enough pass phrase' } }),

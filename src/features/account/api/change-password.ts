@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import type { ChangePasswordInput } from '@shared/auth/credentials.schema';
+import type { ChangePasswordInput } from '@shared/auth/account.schema';
 import { api } from '@/lib/api-client';
 
 /** A new password for the signed-in account; every other device is signed out, this one stays. */

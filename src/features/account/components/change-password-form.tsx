@@ -1,7 +1,8 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { changePasswordInputSchema, NEW_PASSWORD_HINT, type ChangePasswordInput } from '@shared/auth/credentials.schema';
+import { changePasswordInputSchema, type ChangePasswordInput } from '@shared/auth/account.schema';
+import { NEW_PASSWORD_HINT } from '@shared/auth/credentials.schema';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';

@@ -12,7 +12,11 @@ const CURRENT = 'cold tyres warm coffee';
 const NEW = 'copper kettle under the grandstand';
 
 async function openPasswordSection(answer: Response) {
-  const fetchMock = stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }), 'POST /api/auth/me/password': answer });
+  const fetchMock = stubFetch({
+    'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+    'GET /api/auth/me/sessions': jsonResponse(200, { items: [] }),
+    'POST /api/auth/me/password': answer,
+  });
   renderApp('/settings');
   const form = await screen.findByRole('form', { name: 'Change password' });
   return { fetchMock, form: within(form), u: userEvent.setup() };
