@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import * as z from '@shared/zod';
@@ -24,7 +24,9 @@ type Target = { kind: 'one'; device: SignedInDevice } | { kind: 'others'; count:
 function ConfirmSignOut({ target, onDone, onCancel }: { target: Target; onDone: (ended: number) => void; onCancel: () => void }) {
   const end = useEndSessions();
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<FormValues>({ resolver: zodResolver(formSchema), defaultValues: { password: '' } });
+  const { register, handleSubmit, setError, setFocus, formState } = useForm<FormValues>({ resolver: zodResolver(formSchema), defaultValues: { password: '' } });
+  // Opened by a tap on Sign out: the keyboard comes up for the password straight away.
+  useEffect(() => setFocus('password'), [setFocus]);
   const what = target.kind === 'one' ? nameOf(target.device) : target.count === 1 ? 'the other device' : `all ${target.count} other devices`;
 
   const onSubmit = handleSubmit(({ password }) => {

@@ -49,6 +49,7 @@ describe('signed-in devices in settings', () => {
     await u.click(await screen.findByRole('button', { name: 'Sign out Safari on iOS' }));
     const confirm = within(screen.getByRole('form', { name: 'Confirm signing out' }));
     expect(confirm.getByText(/Sign out Safari on iOS\?/)).toBeTruthy();
+    expect(document.activeElement).toBe(confirm.getByLabelText('Your password'));
     await u.type(confirm.getByLabelText('Your password'), 'cold tyres warm coffee');
     await u.click(confirm.getByRole('button', { name: 'Sign out' }));
 
