@@ -90,6 +90,8 @@ export default defineConfig({
       },
       workbox: {
         globPatterns: ['**/*.{js,css,html,svg,png,woff2}'],
+        // The password-strength word lists: fetched only by someone choosing a password, not kept on every phone.
+        globIgnores: ['**/zxcvbn-*.js'],
         navigateFallback: '/index.html',
         navigateFallbackDenylist: [/^\/api\//],
         cleanupOutdatedCaches: true,
@@ -129,13 +131,16 @@ export default defineConfig({
             // client, the signed-in shell.
             { name: 'app', tags: ['$initial'], priority: 3, test: (id) => !/[\\/](index\.html|src[\\/]main\.tsx)$/.test(id) },
             // The small UI primitives pages share (not the Radix dialog and toasts, loaded on use, nor the
-            // password field and its eye icons, which only the sign-in and password pages draw).
+            // password field, its eye icons and the strength meter, which only the sign-in and password pages draw).
             {
               name: 'ui',
               priority: 2,
               minShareCount: 2,
-              test: (id) => /[\\/]src[\\/]components[\\/]ui[\\/]/.test(id) && !/[\\/](dialog|toast-layer|password-field)\.tsx$/.test(id),
+              test: (id) => /[\\/]src[\\/]components[\\/]ui[\\/]/.test(id) && !/[\\/](dialog|toast-layer|password-field|password-strength)\.tsx$/.test(id),
             },
+            // The password-strength estimator and its word lists (zxcvbn-ts): large, and loaded only when
+            // someone types a new password (src/lib/password-strength.ts).
+            { name: 'zxcvbn', priority: 4, test: /[\\/]node_modules[\\/]@zxcvbn-ts[\\/]/ },
             // The trackside page and everything else it needs, in one file: at the car, with a weak
             // signal, it opens in a handful of requests. Pages that share some of it load this file too.
             { name: 'trackside', priority: 1, test: /[\\/]src[\\/]app[\\/]routes[\\/]events[\\/]event-day\.tsx$/ },

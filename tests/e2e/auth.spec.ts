@@ -19,6 +19,20 @@ describe('signing up and in on a phone (390×844)', () => {
   const email = `e2e-${randomUUID().slice(0, 8)}@example.com`;
   const password = 'gravel-and-cones-e2e';
 
+  it('when a password is typed at registration, then a strength meter judges it, its word lists fetched then and never kept by the service worker', async () => {
+    await page.goto(`${baseUrl}/register`);
+    const lists = page.waitForResponse((res) => /\/assets\/zxcvbn-[\w-]+\.js$/.test(res.url()));
+    await page.getByLabel('Password', { exact: true }).fill('qwertyuiop12');
+    expect((await lists).status()).toBe(200);
+    await expect.poll(() => page.getByText(/^Strength: (Very weak|Weak)\./).count(), { timeout: 10_000 }).toBe(1);
+    await page.getByLabel('Password', { exact: true }).fill('copper kettle under the grandstand');
+    await expect.poll(() => page.getByText('Strength: Very strong.').count(), { timeout: 10_000 }).toBe(1);
+    // The meter itself is kept for offline use; the word lists (over 200 KB) are not.
+    const worker = await (await fetch(`${baseUrl}/sw.js`)).text();
+    expect(worker).toMatch(/assets\/password-strength-[\w-]+\.js/);
+    expect(worker).not.toMatch(/zxcvbn/);
+  });
+
   it('when a new driver registers, then they land on home, signed in', async () => {
     await page.goto(`${baseUrl}/`);
     await page.waitForURL(/\/sign-in/);

@@ -1,11 +1,12 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { changePasswordInputSchema, type ChangePasswordInput } from '@shared/auth/account.schema';
 import { NEW_PASSWORD_HINT } from '@shared/auth/credentials.schema';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';
+import { PasswordStrength } from '@/components/ui/password-strength';
 import { isApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useChangePassword } from '../api/change-password';
@@ -18,10 +19,12 @@ export function ChangePasswordForm({ email }: { email: string }) {
   const change = useChangePassword();
   const [formError, setFormError] = useState<string | null>(null);
   const [done, setDone] = useState(false);
-  const { register, handleSubmit, setError, reset, formState } = useForm<ChangePasswordInput>({
+  const { register, handleSubmit, setError, reset, control, formState } = useForm<ChangePasswordInput>({
     resolver: zodResolver(changePasswordInputSchema),
     defaultValues: { currentPassword: '', newPassword: '' },
   });
+
+  const newPassword = useWatch({ control, name: 'newPassword' });
 
   const onSubmit = handleSubmit((input) => {
     setFormError(null);
@@ -55,6 +58,7 @@ export function ChangePasswordForm({ email }: { email: string }) {
         error={formState.errors.newPassword?.message}
         {...register('newPassword', { onChange: () => setDone(false) })}
       />
+      <PasswordStrength password={newPassword} userInputs={[email]} />
       <FormAlert message={formError} />
       {done ? (
         <p role="status" className="rounded border border-line bg-success-surface p-3 font-semibold text-success">

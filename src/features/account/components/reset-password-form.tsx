@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'react-router-dom';
 import * as z from '@shared/zod';
@@ -8,6 +8,7 @@ import { paths } from '@/config/paths';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';
+import { PasswordStrength } from '@/components/ui/password-strength';
 import { isApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useConfirmPasswordReset } from '../api/confirm-password-reset';
@@ -34,16 +35,18 @@ export function ResetPasswordForm({ token, onDone }: { token: string; onDone: ()
   const confirm = useConfirmPasswordReset();
   const [formError, setFormError] = useState<string | null>(null);
   const [tokenError, setTokenError] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<FormValues>({
+  const { register, handleSubmit, setError, control, formState } = useForm<FormValues>({
     resolver: zodResolver(formSchema),
     defaultValues: { password: '' },
   });
 
-  const onSubmit = handleSubmit(({ password }) => {
+  const password = useWatch({ control, name: 'password' });
+
+  const onSubmit = handleSubmit((values) => {
     setFormError(null);
     setTokenError(null);
     confirm.mutate(
-      { token, password },
+      { token, password: values.password },
       {
         onSuccess: onDone,
         onError: (error) => {
@@ -73,6 +76,7 @@ export function ResetPasswordForm({ token, onDone }: { token: string; onDone: ()
         error={formState.errors.password?.message}
         {...register('password')}
       />
+      <PasswordStrength password={password} />
       <FormAlert message={formError} />
       <Button type="submit" className="w-full" isPending={confirm.isPending} pendingLabel="Saving…">
         Save the new password

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type * as z from '@shared/zod';
 import type { User } from '@shared/auth/auth.schema';
@@ -7,6 +7,7 @@ import { NEW_PASSWORD_HINT, registerInputSchema, type RegisterInput } from '@sha
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';
+import { PasswordStrength } from '@/components/ui/password-strength';
 import { TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useRegister } from '../api/register';
@@ -22,11 +23,14 @@ export function RegisterForm({ onSuccess }: { onSuccess: (user: User) => void })
     register,
     handleSubmit,
     setError,
+    control,
     formState: { errors },
   } = useForm<RegisterFormValues, unknown, RegisterInput>({
     resolver: zodResolver(registerInputSchema),
     defaultValues: { displayName: '', email: '', password: '' },
   });
+
+  const [password, email, displayName] = useWatch({ control, name: ['password', 'email', 'displayName'] });
 
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
@@ -64,6 +68,7 @@ export function RegisterForm({ onSuccess }: { onSuccess: (user: User) => void })
         error={errors.password?.message}
         {...register('password')}
       />
+      <PasswordStrength password={password} userInputs={[email, displayName]} />
       <FormAlert message={formError} />
       <Button type="submit" isPending={registration.isPending} pendingLabel="Creating account…" className="w-full">
         Create account

@@ -39,6 +39,17 @@ describe('changing the password in settings', () => {
     expect(form.getByLabelText('New password').getAttribute('autocomplete')).toBe('new-password');
   });
 
+  it('when a new password is typed, then the meter under it says how strong it is and what makes it weak', async () => {
+    const { form, u } = await openPasswordSection(new Response(null, { status: 204 }));
+    await u.type(form.getByLabelText('New password'), 'aaaaaaaaaaaa');
+    expect(await form.findByText('Strength: Very weak.', {}, { timeout: 5000 })).toBeTruthy();
+    expect(form.getByText(/Repeated characters like "aaa" are easy to guess/)).toBeTruthy();
+    await u.clear(form.getByLabelText('New password'));
+    expect(form.queryByText(/Strength:/)).toBeNull();
+    await u.type(form.getByLabelText('New password'), NEW);
+    expect(await form.findByText('Strength: Very strong.')).toBeTruthy();
+  });
+
   it('when the server says the current password is wrong, then that field says so and keeps focus for a retry', async () => {
     const { form, u } = await openPasswordSection(
       errorResponse(400, 'validation_failed', 'That is not your current password.', { currentPassword: ['That is not your current password'] }),
