@@ -54,6 +54,23 @@ function signIn(req: Request, user: User) {
 export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idleMs }: Deps) {
   const router = Router();
 
+  /**
+   * Runs `act`, which checks the signed-in person's password typed again, under the account's sign-in limit:
+   * a wrong password (a validation error) counts as a failed sign-in, a right one clears the count.
+   */
+  async function withPasswordLimit<T>(req: Request, act: (user: User) => Promise<T>): Promise<T> {
+    const user = currentUser(req);
+    await limits.beforeLogin(req.ip ?? 'unknown', user.email);
+    try {
+      const result = await act(user);
+      await limits.loginSucceeded(user.email);
+      return result;
+    } catch (err) {
+      if (err instanceof AppError && err.code === 'validation_failed') await limits.loginFailed(user.email);
+      throw err;
+    }
+  }
+
   router.get('/csrf', (req, res) => {
     res.json({ token: generateCsrfToken(req) });
   });
@@ -111,15 +128,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
    */
   router.post('/me/password', requireAuth, validate({ body: changePasswordInputSchema }), async (req, res) => {
     const input = parsed<ChangePasswordInput>(res, 'body');
-    const user = currentUser(req);
-    await limits.beforeLogin(req.ip ?? 'unknown', user.email);
-    try {
-      await changePassword(ds, user.id, req.sessionID, input);
-    } catch (err) {
-      if (err instanceof AppError && err.code === 'validation_failed') await limits.loginFailed(user.email);
-      throw err;
-    }
-    await limits.loginSucceeded(user.email);
+    await withPasswordLimit(req, (user) => changePassword(ds, user.id, req.sessionID, input));
     res.status(204).end();
   });
 
@@ -131,16 +140,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
   /** Signs out one other device, or all of them, with the password typed again; counted like a sign-in. */
   router.post('/me/sessions/end', requireAuth, validate({ body: endSessionsInputSchema }), async (req, res) => {
     const input = parsed<EndSessionsInput>(res, 'body');
-    const user = currentUser(req);
-    await limits.beforeLogin(req.ip ?? 'unknown', user.email);
-    let ended: number;
-    try {
-      ended = await endOtherSessions(ds, user.id, req.sessionID, input);
-    } catch (err) {
-      if (err instanceof AppError && err.code === 'validation_failed') await limits.loginFailed(user.email);
-      throw err;
-    }
-    await limits.loginSucceeded(user.email);
+    const ended = await withPasswordLimit(req, (user) => endOtherSessions(ds, user.id, req.sessionID, input));
     res.json({ ended });
   });
 

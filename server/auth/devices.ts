@@ -2,7 +2,7 @@ import Bowser from 'bowser';
 import type { DataSource } from 'typeorm';
 import type { SignedInDevice } from '@shared/auth/account.schema';
 import { AppError } from '../lib/app-error';
-import { verifyPassword } from './password';
+import { assertOwnPassword } from './password';
 
 /*
  * The devices signed in to an account: its rows in the `session` table. A session's id is its secret,
@@ -62,10 +62,7 @@ export async function endOtherSessions(
   currentSid: string,
   input: { password: string; sessionId?: string },
 ): Promise<number> {
-  const [user]: { password_hash: string }[] = await ds.query('SELECT password_hash FROM users WHERE id = $1', [userId]);
-  if (!user || !(await verifyPassword(user.password_hash, input.password))) {
-    throw new AppError('validation_failed', `${WRONG_PASSWORD}.`, { password: [WRONG_PASSWORD] });
-  }
+  await assertOwnPassword(ds, userId, input.password, { field: 'password', message: WRONG_PASSWORD });
   // Counted by a SELECT over the DELETE: TypeORM answers a bare DELETE with [rows, count], not rows.
   const rows: { ended: number }[] = await ds.query(
     `WITH gone AS (

@@ -1,6 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { AppError } from '../lib/app-error';
-import { hashPassword, verifyPassword } from './password';
+import { assertOwnPassword, hashPassword } from './password';
 
 export const WRONG_CURRENT_PASSWORD = 'That is not your current password';
 
@@ -13,11 +12,7 @@ export const WRONG_CURRENT_PASSWORD = 'That is not your current password';
 export async function changePassword(ds: DataSource, userId: string, sessionId: string, input: { currentPassword: string; newPassword: string }): Promise<void> {
   const newHash = await hashPassword(input.newPassword);
   await ds.transaction(async (m) => {
-    const rows: { password_hash: string }[] = await m.query('SELECT password_hash FROM users WHERE id = $1 FOR UPDATE', [userId]);
-    const row = rows[0];
-    if (!row || !(await verifyPassword(row.password_hash, input.currentPassword))) {
-      throw new AppError('validation_failed', `${WRONG_CURRENT_PASSWORD}.`, { currentPassword: [WRONG_CURRENT_PASSWORD] });
-    }
+    await assertOwnPassword(m, userId, input.currentPassword, { field: 'currentPassword', message: WRONG_CURRENT_PASSWORD, forUpdate: true });
     await m.query('UPDATE users SET password_hash = $2, updated_at = now() WHERE id = $1', [userId, newHash]);
     await m.query('UPDATE password_resets SET used_at = now() WHERE user_id = $1 AND used_at IS NULL', [userId]);
     // passport.serializeUser stores the user id at sess.passport.user (server/auth/passport.ts).

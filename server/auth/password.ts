@@ -1,4 +1,6 @@
 import argon2 from 'argon2';
+import { AppError } from '../lib/app-error';
+import type { Queryable } from './access';
 
 /**
  * argon2id with m = 19456 KiB, t = 2, p = 1: the first setting listed by the OWASP
@@ -28,4 +30,19 @@ export async function verifyAgainstDummy(password: string): Promise<false> {
   dummyHash ??= hashPassword('scrubline-dummy-password-not-for-use');
   await verifyPassword(await dummyHash, password);
   return false;
+}
+
+/**
+ * A signed-in person's password typed again, checked against the stored hash; a mismatch is a field error on
+ * `field` (the form's password field). `forUpdate` locks the account's row for the rest of the transaction.
+ */
+export async function assertOwnPassword(
+  db: Queryable,
+  userId: string,
+  password: string,
+  { field, message, forUpdate = false }: { field: string; message: string; forUpdate?: boolean },
+): Promise<void> {
+  const rows: { password_hash: string }[] = await db.query(`SELECT password_hash FROM users WHERE id = $1${forUpdate ? ' FOR UPDATE' : ''}`, [userId]);
+  const row = rows[0];
+  if (!row || !(await verifyPassword(row.password_hash, password))) throw new AppError('validation_failed', `${message}.`, { [field]: [message] });
 }
