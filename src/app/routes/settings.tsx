@@ -38,9 +38,10 @@ export function SettingsPage() {
       <title>Settings · Scrubline</title>
       <div className="flex flex-col gap-1">
         <h1 className="text-3xl font-extrabold">Settings</h1>
-        <p className="text-ink-muted">Units apply to every value you read and type, on every device you sign in on.</p>
+        <p className="text-ink-muted">Your account’s units, e-mails, password and signed-in devices.</p>
       </div>
       <SectionCard title="Units">
+        <p className="text-sm text-ink-muted">Units apply to every value you read and type, on every device you sign in on.</p>
         <UnitSettingsForm user={user} />
       </SectionCard>
       <SectionCard title="E-mail">
