@@ -2,7 +2,7 @@ import Bowser from 'bowser';
 import type { DataSource } from 'typeorm';
 import type { SignedInDevice } from '@shared/auth/account.schema';
 import { AppError } from '../lib/app-error';
-import { assertOwnPassword } from './password';
+import { assertOwnPassword, SESSION_USER_SQL } from './password';
 
 /*
  * The devices signed in to an account: its rows in the `session` table. A session's id is its secret,
@@ -34,7 +34,7 @@ interface SessionRow {
 export async function listDevices(ds: DataSource, userId: string, currentSid: string, idleMs: number): Promise<SignedInDevice[]> {
   const rows: SessionRow[] = await ds.query(
     `SELECT ${SESSION_KEY} AS key, sess, expire, sid = $2 AS current
-       FROM session WHERE sess #>> '{passport,user}' = $1 AND expire >= now()`,
+       FROM session WHERE ${SESSION_USER_SQL} = $1 AND expire >= now()`,
     [userId, currentSid],
   );
   return rows
@@ -67,7 +67,7 @@ export async function endOtherSessions(
   const rows: { ended: number }[] = await ds.query(
     `WITH gone AS (
        DELETE FROM session
-        WHERE sess #>> '{passport,user}' = $1 AND sid <> $2 AND ($3::text IS NULL OR ${SESSION_KEY} = $3)
+        WHERE ${SESSION_USER_SQL} = $1 AND sid <> $2 AND ($3::text IS NULL OR ${SESSION_KEY} = $3)
         RETURNING 1
      )
      SELECT count(*)::int AS ended FROM gone`,

@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { assertOwnPassword, hashPassword } from './password';
+import { assertOwnPassword, hashPassword, storeNewPassword } from './password';
 
 export const WRONG_CURRENT_PASSWORD = 'That is not your current password';
 
@@ -13,9 +13,6 @@ export async function changePassword(ds: DataSource, userId: string, sessionId: 
   const newHash = await hashPassword(input.newPassword);
   await ds.transaction(async (m) => {
     await assertOwnPassword(m, userId, input.currentPassword, { field: 'currentPassword', message: WRONG_CURRENT_PASSWORD, forUpdate: true });
-    await m.query('UPDATE users SET password_hash = $2, updated_at = now() WHERE id = $1', [userId, newHash]);
-    await m.query('UPDATE password_resets SET used_at = now() WHERE user_id = $1 AND used_at IS NULL', [userId]);
-    // passport.serializeUser stores the user id at sess.passport.user (server/auth/passport.ts).
-    await m.query(`DELETE FROM session WHERE sess -> 'passport' ->> 'user' = $1 AND sid <> $2`, [userId, sessionId]);
+    await storeNewPassword(m, userId, newHash, sessionId);
   });
 }

@@ -4,7 +4,7 @@ import { AppError } from '../lib/app-error';
 import { hashSecretToken, newSecretToken } from '../lib/secret-token';
 import { sendInBackground, type MailSettings } from '../mail/mailer';
 import { renderMail } from '../mail/templates';
-import { hashPassword } from './password';
+import { hashPassword, storeNewPassword } from './password';
 
 export const resetPasswordUrl = (publicUrl: string, token: string) => `${publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
 
@@ -56,10 +56,7 @@ export async function confirmPasswordReset(ds: DataSource, token: string, passwo
     );
     const row = rows[0];
     if (!row) throw new AppError('validation_failed', LINK_UNUSABLE, { token: [LINK_UNUSABLE] });
-    await m.query(`UPDATE users SET password_hash = $2, updated_at = now() WHERE id = $1`, [row.user_id, await hashPassword(password)]);
-    await m.query(`UPDATE password_resets SET used_at = now() WHERE user_id = $1 AND used_at IS NULL`, [row.user_id]);
-    // passport.serializeUser stores the user id at sess.passport.user (server/auth/passport.ts).
-    await m.query(`DELETE FROM session WHERE sess -> 'passport' ->> 'user' = $1`, [row.user_id]);
+    await storeNewPassword(m, row.user_id, await hashPassword(password), null);
     return { userId: row.user_id, email: row.email };
   });
 }
