@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { SignedInDevice } from '@shared/auth/account.schema';
 import { deviceLabel } from '../../../server/auth/devices';
+import { SESSION_USER_SQL } from '../../../server/auth/password';
 import { client, makeTestApp, sessionCookie, signedInClient, sidOf, TEST_PASSWORD, type TestApp } from '../test-app';
 
 /**
@@ -134,5 +135,23 @@ describe('the devices signed in to an account', () => {
     const res = await c.post('/api/auth/me/sessions/end', body);
     expect(res.status).toBe(400);
     expect(res.body.error.fieldErrors[field]).toEqual([message]);
+  });
+
+  it('when sessions are found by their account, then PostgreSQL can use an index on the account, not read the whole table', async () => {
+    const { user } = await signedInClient(t);
+    // With sequential scans priced out, the planner still picks one when no index matches the expression.
+    const plans = await t.ds.transaction(async (m) => {
+      await m.query('SET LOCAL enable_seqscan = off');
+      return Promise.all(
+        [
+          `SELECT sid FROM session WHERE ${SESSION_USER_SQL} = $1 AND expire >= now()`,
+          `DELETE FROM session WHERE ${SESSION_USER_SQL} = $1 AND sid IS DISTINCT FROM NULL`,
+        ].map(async (sql) => JSON.stringify(await m.query(`EXPLAIN (FORMAT JSON) ${sql}`, [user.id]))),
+      );
+    });
+    for (const plan of plans) {
+      expect(plan).toContain('"Index Name":"session_account_idx"');
+      expect(plan).not.toContain('Seq Scan');
+    }
   });
 });
