@@ -96,6 +96,8 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'POST /api/auth/password-reset/confirm': 'public',
 
   'GET /api/admin/users': 'users.manage',
+  'POST /api/admin/users/:userId/suspend': 'users.manage',
+  'POST /api/admin/users/:userId/restore': 'users.manage',
 
   'POST /api/cars': 'signed_in',
   'GET /api/cars': 'signed_in',

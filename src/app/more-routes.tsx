@@ -3,7 +3,7 @@ import type { ReactNode } from 'react';
 import { paths } from '@/config/paths';
 
 /**
- * Pages most people open now and then: the shop's and the team's, suggestions and work orders,
+ * Pages most people open now and then: the shop's and the team's, suggestions and work orders, the admin's accounts,
  * the printable setup sheet, the timing-sheet import, and the pages reached from an e-mail.
  * The router learns of them only when the address asks for one (see `discoverRoutes` in
  * router.tsx), so their entries stay out of the first download that the trackside page needs.
@@ -74,6 +74,10 @@ export function moreRoutes({ signedOutOnly, loading }: MoreRoutesShared): {
       {
         path: paths.teams,
         lazy: async () => ({ Component: (await import('./routes/teams/teams')).TeamsPage }),
+      },
+      {
+        path: paths.accounts,
+        lazy: async () => ({ Component: (await import('./routes/admin/accounts')).AccountsPage }),
       },
       {
         path: `${paths.teams}/:teamId`,

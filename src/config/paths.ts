@@ -13,6 +13,8 @@ export const paths = {
   /** Shop staff: the shop's customers and staff. */
   shop: '/shop',
   teams: '/teams',
+  /** Admins: every account. */
+  accounts: '/accounts',
   forgotPassword: '/forgot-password',
   /** Reached from the e-mailed link: /reset-password?token=… */
   resetPassword: '/reset-password',

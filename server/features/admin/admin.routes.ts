@@ -1,15 +1,28 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { requireRole } from '../../auth/access';
-import { listUsers } from '../users/user.service';
+import {
+  accountListQuerySchema, suspendAccountInputSchema, type AccountListQuery, type SuspendAccountInput,
+} from '@shared/auth/admin.schema';
+import { currentUser, requireRole } from '../../auth/access';
+import { idParam } from '../../lib/http';
+import { parsed, validate } from '../../lib/validate';
+import { listAccounts, restoreAccount, suspendAccount } from './admin.service';
 
-/** Administration: for now the list of accounts with their roles. */
+/** Administration: the accounts, and suspending or restoring one's sign-in. */
 export function adminRoutes(ds: DataSource) {
   const router = Router();
   router.use(requireRole('admin'));
-  router.get('/users', async (_req, res) => {
-    const items = await listUsers(ds);
-    res.json({ items, count: items.length });
+  const userParam = validate({ params: idParam('userId') });
+
+  router.get('/users', validate({ query: accountListQuerySchema }), async (_req, res) => {
+    res.json(await listAccounts(ds, parsed<AccountListQuery>(res, 'query').q || undefined));
+  });
+  router.post('/users/:userId/suspend', userParam, validate({ body: suspendAccountInputSchema }), async (req, res) => {
+    const { userId } = parsed<{ userId: string }>(res, 'params');
+    res.json(await suspendAccount(ds, currentUser(req), userId, parsed<SuspendAccountInput>(res, 'body')));
+  });
+  router.post('/users/:userId/restore', userParam, async (_req, res) => {
+    res.json(await restoreAccount(ds, parsed<{ userId: string }>(res, 'params').userId));
   });
   return router;
 }

@@ -26,6 +26,10 @@ export class UserEntity {
   @Column({ name: 'email_notifications', type: 'boolean', default: true })
   emailNotifications!: boolean;
 
+  /** Set while an admin has suspended the account: it cannot sign in. */
+  @Column({ name: 'suspended_at', type: 'timestamptz', nullable: true })
+  suspendedAt!: Date | null;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt!: Date;
 

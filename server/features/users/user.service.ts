@@ -7,14 +7,14 @@ import { UserEntity } from './user.entity';
 
 const UNIQUE_VIOLATION = '23505';
 
-interface RoleRow {
+export interface RoleRow {
   is_admin: boolean;
   shop_staff: boolean;
   team_captain: boolean;
 }
 
 /** Role flags for `users u`, derived from memberships so they are always current. */
-const ROLE_COLUMNS = `u.is_admin,
+export const ROLE_COLUMNS = `u.is_admin,
   EXISTS (SELECT 1 FROM shop_members s WHERE s.user_id = u.id) AS shop_staff,
   EXISTS (SELECT 1 FROM team_members t WHERE t.user_id = u.id AND t.is_captain) AS team_captain`;
 
@@ -23,7 +23,7 @@ export async function rolesOf(ds: DataSource, userId: string): Promise<Role[]> {
   return rows[0] ? rolesFromRow(rows[0]) : [];
 }
 
-function rolesFromRow(row: RoleRow): Role[] {
+export function rolesFromRow(row: RoleRow): Role[] {
   const roles: Role[] = ['driver'];
   if (row.shop_staff) roles.push('shop_staff');
   if (row.team_captain) roles.push('team_captain');
@@ -124,16 +124,3 @@ export async function createUser(ds: DataSource, input: RegisterInput, opts: { i
   }
 }
 
-export async function listUsers(ds: DataSource): Promise<User[]> {
-  const rows: (RoleRow & { id: string; email: string; display_name: string; preferences: unknown; email_notifications: boolean })[] =
-    await ds.query(
-      `SELECT u.id, u.email, u.display_name, u.preferences, u.email_notifications, ${ROLE_COLUMNS} FROM users u ORDER BY u.created_at, u.email`,
-    );
-  return rows.map((r) => ({
-    id: r.id,
-    email: r.email,
-    displayName: r.display_name,
-    roles: rolesFromRow(r),
-    preferences: readPreferences(r.preferences, r.email_notifications),
-  }));
-}

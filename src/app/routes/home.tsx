@@ -27,6 +27,10 @@ export function HomePage() {
   if (!user) return null;
   const roles = describeRoles(user.roles);
   const staff = user.roles.includes('shop_staff');
+  const admin = user.roles.includes('admin');
+  // "Teams", "Shop and teams", "Teams and accounts", "Shop, teams, and accounts".
+  const links = new Intl.ListFormat('en', { type: 'conjunction' }).format([...(staff ? ['shop'] : []), 'teams', ...(admin ? ['accounts'] : [])]);
+  const linksTitle = links[0]!.toUpperCase() + links.slice(1);
 
   return (
     <div className="flex flex-col gap-6">
@@ -51,8 +55,8 @@ export function HomePage() {
             <CarList currentUserId={user.id} />
           </SectionCard>
         </SectionBoundary>
-        <SectionCard title={staff ? 'Shop and teams' : 'Teams'}>
-          <nav aria-label={staff ? 'Shop and teams' : 'Teams'} className="flex flex-col gap-2">
+        <SectionCard title={linksTitle}>
+          <nav aria-label={linksTitle} className="flex flex-col gap-2">
             {staff ? (
               <HomeLink to={paths.shop} title="Your shop">
                 Customers’ cars, suggestions and staff
@@ -61,6 +65,11 @@ export function HomePage() {
             <HomeLink to={paths.teams} title="Teams">
               Your teams and their class boards
             </HomeLink>
+            {admin ? (
+              <HomeLink to={paths.accounts} title="Accounts">
+                Find an account; suspend or restore its sign-in
+              </HomeLink>
+            ) : null}
           </nav>
         </SectionCard>
       </div>

@@ -191,6 +191,15 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
   },
 
   'GET /api/admin/users': { call: () => ({ path: '/api/admin/users' }), expect: [403, 403, 403, 403, 403, 403, 403, 200, 401] },
+  // An account that does not exist: the admin gets past the role check to the lookup (404); no one is suspended.
+  'POST /api/admin/users/:userId/suspend': {
+    call: () => ({ path: `/api/admin/users/${randomUUID()}/suspend`, body: { note: 'Matrix check' } }),
+    expect: [403, 403, 403, 403, 403, 403, 403, 404, 401],
+  },
+  'POST /api/admin/users/:userId/restore': {
+    call: () => ({ path: `/api/admin/users/${randomUUID()}/restore`, body: {} }),
+    expect: [403, 403, 403, 403, 403, 403, 403, 404, 401],
+  },
 
   'POST /api/cars': { call: () => ({ path: '/api/cars', body: { name: 'Spare', classCode: 'SR' } }), expect: signedIn(201) },
   'GET /api/cars': { call: () => ({ path: '/api/cars' }), expect: signedIn(200) },

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import * as DropdownMenu from '@radix-ui/react-dropdown-menu';
-import { LogOut, Settings, Store, Users } from 'lucide-react';
+import { LogOut, Settings, Store, UserCog, Users } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import type { User } from '@shared/auth/auth.schema';
 import { paths } from '@/config/paths';
@@ -110,6 +110,14 @@ export function AccountDropdown({ user, defaultOpen = false }: { user: User; def
                 Teams
               </Link>
             </DropdownMenu.Item>
+            {user.roles.includes('admin') ? (
+              <DropdownMenu.Item asChild className={ITEM}>
+                <Link to={paths.accounts}>
+                  <UserCog aria-hidden="true" className="size-5" />
+                  Accounts
+                </Link>
+              </DropdownMenu.Item>
+            ) : null}
             <DropdownMenu.Item asChild className={ITEM}>
               <Link to={paths.settings}>
                 <Settings aria-hidden="true" className="size-5" />

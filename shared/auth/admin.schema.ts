@@ -1,0 +1,49 @@
+import * as z from '../zod';
+import type { Role } from './auth.schema';
+
+/*
+ * What the `admin` role does: look through the accounts, and suspend or restore one's sign-in. An
+ * admin sees no cars, shops or teams through this (docs/api.md, the access table).
+ */
+
+/** At most this many accounts come back at once; the search narrows the rest down. */
+export const ACCOUNT_LIST_LIMIT = 100;
+export const SUSPENSION_NOTE_MAX = 500;
+
+export const accountListQuerySchema = z.object({
+  q: z.optional(z.string().check(z.trim(), z.maxLength(80, 'Use at most 80 characters'))),
+});
+export type AccountListQuery = z.infer<typeof accountListQuerySchema>;
+
+/** One account as an admin sees it. */
+export interface AdminAccount {
+  id: string;
+  email: string;
+  displayName: string;
+  roles: Role[];
+  createdAt: string;
+  /** Set while the account may not sign in. */
+  suspendedAt: string | null;
+  /** Why, as the admin who suspended it wrote it. */
+  suspensionNote: string | null;
+  /** Sessions signed in now (none while suspended). */
+  signedInDevices: number;
+}
+
+export interface AdminAccountList {
+  items: AdminAccount[];
+  count: number;
+  /** Every account the search matches; more than `count` when the list was cut at ACCOUNT_LIST_LIMIT. */
+  total: number;
+}
+
+export const suspendAccountInputSchema = z.strictObject({
+  note: z
+    .string({ error: 'Say why, for the next admin who reads this' })
+    .check(
+      z.trim(),
+      z.minLength(1, 'Say why, for the next admin who reads this'),
+      z.maxLength(SUSPENSION_NOTE_MAX, `Use at most ${SUSPENSION_NOTE_MAX} characters`),
+    ),
+});
+export type SuspendAccountInput = z.infer<typeof suspendAccountInputSchema>;

@@ -1,0 +1,52 @@
+import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { AdminAccount, AdminAccountList, SuspendAccountInput } from '@shared/auth/admin.schema';
+import { api } from '@/lib/api-client';
+
+/** Every accounts query key; a write refreshes them all. */
+export const accountKeys = {
+  all: ['admin', 'accounts'] as const,
+  search: (q: string) => [...accountKeys.all, q] as const,
+};
+
+const accountPath = (userId: string) => `/api/admin/users/${encodeURIComponent(userId)}`;
+
+export function getAccounts(q: string, { signal }: { signal?: AbortSignal } = {}): Promise<AdminAccountList> {
+  return api.get(`/api/admin/users${q ? `?${new URLSearchParams({ q }).toString()}` : ''}`, { signal });
+}
+
+export function accountsQueryOptions(q: string) {
+  return queryOptions({
+    queryKey: accountKeys.search(q),
+    queryFn: ({ signal }) => getAccounts(q, { signal }),
+    meta: { errorsShownInline: true },
+  });
+}
+
+/** The accounts whose name or e-mail holds `q`; the last answer stays in view while the next one comes. */
+export function useAccounts(q: string) {
+  return useQuery({ ...accountsQueryOptions(q.trim()), placeholderData: keepPreviousData });
+}
+
+/**
+ * Suspending or restoring: an online write, made at a desk, not at the car. Tried at once, never queued,
+ * its error shown where it was asked; every list is refreshed before it counts as done.
+ */
+function useAccountWrite<TInput>(write: (input: TInput) => Promise<AdminAccount>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: write,
+    networkMode: 'always',
+    meta: { errorsShownInline: true },
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: accountKeys.all }),
+  });
+}
+
+export function useSuspendAccount() {
+  return useAccountWrite(({ userId, ...input }: SuspendAccountInput & { userId: string }) =>
+    api.post<AdminAccount>(`${accountPath(userId)}/suspend`, input),
+  );
+}
+
+export function useRestoreAccount() {
+  return useAccountWrite((userId: string) => api.post<AdminAccount>(`${accountPath(userId)}/restore`));
+}

@@ -1,0 +1,181 @@
+import { useEffect, useState } from 'react';
+import { Ban, RotateCcw } from 'lucide-react';
+import { ACCOUNT_LIST_LIMIT, SUSPENSION_NOTE_MAX, type AdminAccount } from '@shared/auth/admin.schema';
+import { ConfirmButton } from '@/components/dialogs/confirm-button';
+import { Button } from '@/components/ui/button';
+import { Dialog } from '@/components/ui/dialog';
+import { EmptyState } from '@/components/ui/empty-state';
+import { FormAlert } from '@/components/ui/form-alert';
+import { TextField } from '@/components/ui/text-field';
+import { isApiError } from '@/lib/api-client';
+import { formatDay, formatDateTime } from '@/lib/dates';
+import { describeRoles } from '@/features/auth/utils/describe-roles';
+import { TextArea } from '@/features/suggestions/components/text-area';
+import { failureMessage } from '@/features/teams/utils/online-failure';
+import { useAccounts, useRestoreAccount, useSuspendAccount } from '../api/accounts';
+
+/** Asks for a reason, then suspends: the account is signed out everywhere and cannot sign in until restored. */
+function SuspendAccount({ account }: { account: AdminAccount }) {
+  const suspend = useSuspendAccount();
+  const [open, setOpen] = useState(false);
+  const [note, setNote] = useState('');
+  const [noteError, setNoteError] = useState<string | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const onOpenChange = (next: boolean) => {
+    setOpen(next);
+    if (!next) {
+      setNote('');
+      setNoteError(null);
+      setError(null);
+    }
+  };
+  const confirm = () => {
+    setNoteError(null);
+    setError(null);
+    if (!note.trim()) return setNoteError('Say why, for the next admin who reads this');
+    suspend.mutate(
+      { userId: account.id, note },
+      {
+        onSuccess: () => onOpenChange(false),
+        onError: (e) => {
+          const field = isApiError(e) ? e.fieldErrors.note?.[0] : undefined;
+          if (field) setNoteError(field);
+          else setError(failureMessage(e));
+        },
+      },
+    );
+  };
+  return (
+    <>
+      <Button variant="secondary" className="shrink-0" onClick={() => onOpenChange(true)}>
+        <Ban aria-hidden="true" className="size-5" /> Suspend<span className="sr-only"> {account.displayName}</span>
+      </Button>
+      <Dialog
+        open={open}
+        onOpenChange={onOpenChange}
+        title={`Suspend ${account.displayName}?`}
+        description="They are signed out on every device at once and cannot sign in until an admin restores the account. Their cars, runs and setups stay as they are."
+      >
+        <TextArea
+          label="Why"
+          hint="Kept with the account for the next admin; the person suspended does not see it."
+          value={note}
+          onChange={setNote}
+          error={noteError}
+          rows={3}
+          maxLength={SUSPENSION_NOTE_MAX}
+        />
+        <FormAlert message={error} />
+        <div className="flex flex-wrap gap-3">
+          <Button onClick={confirm} isPending={suspend.isPending} pendingLabel="Suspending…">
+            Suspend account
+          </Button>
+          <Button variant="secondary" onClick={() => onOpenChange(false)}>
+            Cancel
+          </Button>
+        </div>
+      </Dialog>
+    </>
+  );
+}
+
+function RestoreAccount({ account }: { account: AdminAccount }) {
+  const restore = useRestoreAccount();
+  return (
+    <ConfirmButton
+      variant="secondary"
+      title={`Restore ${account.displayName}?`}
+      description="They can sign in again with their password. The note about the suspension is removed."
+      confirmLabel="Restore account"
+      pendingLabel="Restoring…"
+      isPending={restore.isPending}
+      onConfirm={(handlers) => restore.mutate(account.id, handlers)}
+      failureText={failureMessage}
+    >
+      <RotateCcw aria-hidden="true" className="size-5" /> Restore<span className="sr-only"> {account.displayName}</span>
+    </ConfirmButton>
+  );
+}
+
+function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean }) {
+  const devices = account.signedInDevices;
+  return (
+    <li className="flex flex-col gap-2 rounded border border-line p-3">
+      <div className="flex flex-wrap items-start gap-x-3 gap-y-2">
+        <div className="flex min-w-0 flex-1 flex-col">
+          <span className="font-bold break-words">
+            {account.displayName}
+            {isMe ? ' (you)' : ''}
+          </span>
+          <span className="text-sm break-all text-ink-muted">{account.email}</span>
+        </div>
+        {isMe ? null : account.suspendedAt ? <RestoreAccount account={account} /> : <SuspendAccount account={account} />}
+      </div>
+      <p className="text-sm text-ink-muted">
+        {describeRoles(account.roles)} · joined {formatDay(account.createdAt)} ·{' '}
+        {devices === 0 ? 'not signed in' : `signed in on ${devices} ${devices === 1 ? 'device' : 'devices'}`}
+      </p>
+      {account.suspendedAt ? (
+        <div className="flex flex-col gap-1 rounded border border-warning-line bg-warning-surface p-3 text-sm">
+          <p className="font-semibold text-warning">Suspended since {formatDateTime(account.suspendedAt)}</p>
+          <p className="break-words whitespace-pre-line text-ink">{account.suspensionNote}</p>
+        </div>
+      ) : null}
+    </li>
+  );
+}
+
+/** Waits until typing pauses before asking the server again. */
+function useSettled(value: string, ms = 300) {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    const timer = setTimeout(() => setSettled(value), ms);
+    return () => clearTimeout(timer);
+  }, [value, ms]);
+  return settled;
+}
+
+/** Every account, or those whose name or e-mail holds what is typed; suspended ones first. */
+export function AccountList({ currentUserId }: { currentUserId: string }) {
+  const [typed, setTyped] = useState('');
+  const q = useSettled(typed);
+  const { data, error, isPending, refetch } = useAccounts(q);
+  return (
+    <div className="flex flex-col gap-4">
+      <TextField
+        label="Find an account"
+        hint="Part of a name or an e-mail address."
+        type="search"
+        value={typed}
+        maxLength={80}
+        autoComplete="off"
+        onChange={(e) => setTyped(e.target.value)}
+      />
+      {isPending ? (
+        <p className="text-ink-muted">Loading the accounts…</p>
+      ) : error && !data ? (
+        <div className="flex flex-col gap-3">
+          <FormAlert message={failureMessage(error)} />
+          <Button variant="secondary" onClick={() => void refetch()}>
+            Try again
+          </Button>
+        </div>
+      ) : data.items.length === 0 ? (
+        <EmptyState message={q ? `No account’s name or e-mail holds “${q}”.` : 'No accounts yet.'} />
+      ) : (
+        <>
+          <p className="text-sm text-ink-muted" aria-live="polite">
+            {data.total > data.count
+              ? `The first ${ACCOUNT_LIST_LIMIT} of ${data.total} accounts; type to narrow them down.`
+              : `${data.total} ${data.total === 1 ? 'account' : 'accounts'}`}
+          </p>
+          <ul className="flex flex-col gap-3" aria-label="Accounts">
+            {data.items.map((account) => (
+              <AccountRow key={account.id} account={account} isMe={account.id === currentUserId} />
+            ))}
+          </ul>
+        </>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,114 @@
+// @vitest-environment jsdom
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import type { AdminAccount } from '../../../../shared/auth/admin.schema';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
+import { user } from '../../fixtures/season';
+
+setUpAppTests([() => import('@/app/routes/admin/accounts'), () => import('@/app/routes/home')]);
+
+const ADMIN = { ...user(), roles: ['driver', 'admin'] };
+const ME: AdminAccount = {
+  id: ADMIN.id, email: ADMIN.email, displayName: ADMIN.displayName, roles: ['driver', 'admin'],
+  createdAt: '2026-03-01T10:00:00Z', suspendedAt: null, suspensionNote: null, signedInDevices: 1,
+};
+const TOMAS: AdminAccount = {
+  id: '5a111111-1111-4111-8111-111111111111', email: 'tomas@example.test', displayName: 'Tomas Reed', roles: ['driver'],
+  createdAt: '2026-04-12T10:00:00Z', suspendedAt: null, suspensionNote: null, signedInDevices: 2,
+};
+const SUSPENDED: AdminAccount = {
+  ...TOMAS, suspendedAt: '2026-11-30T18:00:00Z', suspensionNote: 'Asked by the club after the November event', signedInDevices: 0,
+};
+const page = (items: AdminAccount[]) => jsonResponse(200, { items, count: items.length, total: items.length });
+
+describe('the accounts page', () => {
+  it('when an admin opens it, then every account shows its roles and devices, theirs without buttons, a suspended one with its note and a Restore button', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': page([{ ...SUSPENDED, id: '5a222222-2222-4222-8222-222222222222', displayName: 'Lena Park' }, ME, TOMAS]),
+    });
+    renderApp('/accounts');
+    const items = within(await screen.findByRole('list', { name: 'Accounts' })).getAllByRole('listitem');
+    expect(items.map((i) => i.querySelector('.font-bold')?.textContent)).toEqual(['Lena Park', 'Maren Holt (you)', 'Tomas Reed']);
+    expect(items[0]!.textContent).toMatch(/Suspended since .*2026.*Asked by the club after the November event/);
+    expect(within(items[0]!).getByRole('button', { name: 'Restore Lena Park' })).toBeTruthy();
+    expect(within(items[1]!).queryByRole('button')).toBeNull();
+    expect(items[1]!.textContent).toContain('signed in on 1 device');
+    expect(items[2]!.textContent).toMatch(/driver · joined .*2026 · signed in on 2 devices/);
+    expect(screen.getByText('3 accounts')).toBeTruthy();
+  });
+
+  it('when a search is typed, then the server is asked once typing pauses, with what was typed', async () => {
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': page([ME, TOMAS]),
+      'GET /api/admin/users?q=tom': page([TOMAS]),
+    });
+    renderApp('/accounts');
+    const u = userEvent.setup();
+    await screen.findByRole('list', { name: 'Accounts' });
+    await u.type(screen.getByLabelText('Find an account'), 'tom');
+    await waitFor(() => expect(within(screen.getByRole('list', { name: 'Accounts' })).getAllByRole('listitem')).toHaveLength(1));
+    // Not one request per letter.
+    expect(fetchMock.mock.calls.filter(([url]) => String(url).startsWith('/api/admin/users?'))).toHaveLength(1);
+  });
+
+  it('when Suspend is confirmed without a reason, then nothing is sent and the reason is asked for; with one, it is sent and the list read again', async () => {
+    let suspended = false;
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': () => page([suspended ? SUSPENDED : TOMAS]),
+      [`POST /api/admin/users/${TOMAS.id}/suspend`]: () => {
+        suspended = true;
+        return jsonResponse(200, SUSPENDED);
+      },
+    });
+    renderApp('/accounts');
+    const u = userEvent.setup();
+    await u.click(await screen.findByRole('button', { name: 'Suspend Tomas Reed' }));
+    const dialog = within(screen.getByRole('dialog', { name: 'Suspend Tomas Reed?' }));
+    await u.click(dialog.getByRole('button', { name: 'Suspend account' }));
+    expect(dialog.getByText('Say why, for the next admin who reads this')).toBeTruthy();
+    expect(requestsTo(fetchMock, `POST /api/admin/users/${TOMAS.id}/suspend`)).toHaveLength(0);
+
+    await u.type(dialog.getByLabelText('Why'), 'Asked by the club after the November event');
+    await u.click(dialog.getByRole('button', { name: 'Suspend account' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
+    expect(requestsTo(fetchMock, `POST /api/admin/users/${TOMAS.id}/suspend`)[0]?.body).toEqual({ note: 'Asked by the club after the November event' });
+    expect(await screen.findByRole('button', { name: 'Restore Tomas Reed' })).toBeTruthy();
+  });
+
+  it('when the server refuses the suspension, then its words show in the dialog, which stays open', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': page([TOMAS]),
+      [`POST /api/admin/users/${TOMAS.id}/suspend`]: errorResponse(400, 'validation_failed', 'Some fields need attention.', { note: ['Use at most 500 characters'] }),
+    });
+    renderApp('/accounts');
+    const u = userEvent.setup();
+    await u.click(await screen.findByRole('button', { name: 'Suspend Tomas Reed' }));
+    const dialog = within(screen.getByRole('dialog'));
+    await u.type(dialog.getByLabelText('Why'), 'Long story');
+    await u.click(dialog.getByRole('button', { name: 'Suspend account' }));
+    expect(await dialog.findByText('Use at most 500 characters')).toBeTruthy();
+    expect(dialog.getByLabelText('Why').getAttribute('aria-invalid')).toBe('true');
+  });
+
+  it('when a driver who is not an admin opens it, then the page says so and asks the server nothing', async () => {
+    const fetchMock = stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }) });
+    renderApp('/accounts');
+    expect(await screen.findByText('Only an administrator can see the accounts.')).toBeTruthy();
+    expect(requestsTo(fetchMock, 'GET /api/admin/users')).toHaveLength(0);
+  });
+
+  it.each([
+    ['an admin', ADMIN, 'Teams and accounts', true],
+    ['a driver', user(), 'Teams', false],
+  ])('when %s is on the home page, then its links are named %j and Accounts is there: %s', async (_who, me, name, linked) => {
+    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: me }), 'GET /api/cars': jsonResponse(200, { items: [], count: 0 }) });
+    renderApp('/');
+    const nav = await screen.findByRole('navigation', { name });
+    expect(within(nav).queryByRole('link', { name: /^Accounts/ })?.getAttribute('href') ?? null).toBe(linked ? '/accounts' : null);
+  });
+});
