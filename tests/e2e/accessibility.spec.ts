@@ -155,4 +155,16 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
     found.push(...(await audit(page, 'class board')));
     expect(found).toEqual([]);
   });
+
+  it('when the admin opens the accounts and the question before a suspension, then neither breaks a rule', async () => {
+    const page = await signInAs('admin@example.com', 'Scrubline Admin');
+    const found = await auditAll(page, [['accounts', '/accounts']]);
+    // The question with its field refused (no reason given); cancelled, so no account is suspended.
+    await page.getByRole('button', { name: /^Suspend / }).first().click();
+    await page.getByRole('button', { name: 'Suspend account' }).click();
+    await page.getByText('Say why, for the next admin who reads this').waitFor();
+    found.push(...(await audit(page, 'suspend question, refused')));
+    await page.getByRole('button', { name: 'Cancel' }).click();
+    expect(found).toEqual([]);
+  });
 });
