@@ -36,7 +36,7 @@ describe('typeANumber', () => {
   });
 
   it('when text that is not a number is typed in a calculator, a suggested change, a hot pressure or a tyre set, then every form says it the same way', () => {
-    const calculator = readNumber('abc');
+    const calculator = readNumber('abc', 0.8);
     const messages = [
       calculator.kind === 'invalid' ? calculator.message : null,
       rowToChange({ key: 'k', field: 'camberDeg', corners: ['lf'], mode: 'delta', amount: 'abc' }, METRIC_PREFERENCES).problems.find((p) => p.path === 'delta')?.message,

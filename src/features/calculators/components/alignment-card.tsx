@@ -21,22 +21,23 @@ export function AlignmentCard() {
 
   const lengthUnit = unitSymbol('length', units);
   const across = basis === 'rim' ? 'the rim' : 'the tyre';
-  const diameterReading = readQuantity(diameter, 'length', units);
+  // Typical values for the examples in error messages: a 15 in rim, a 24 in tyre.
+  const diameterReading = readQuantity(diameter, 'length', units, basis === 'rim' ? 381 : 610);
 
   const toAngle = runCalc(
-    { toe: readQuantity(toeLength, 'length', units), d: diameterReading },
+    { toe: readQuantity(toeLength, 'length', units, 1.5), d: diameterReading },
     ['toe', 'd'],
     (v) => toeAngleDeg({ toeMm: v.toe, diameterMm: v.d }),
     [['Toe', 'toe'], ['Diameter', 'd']],
   );
   const toLength = runCalc(
-    { angle: readNumber(toeAngle), d: diameterReading },
+    { angle: readNumber(toeAngle, 0.1), d: diameterReading },
     ['angle', 'd'],
     (v) => toeLengthMm({ angleDeg: v.angle, diameterMm: v.d }),
     [['Toe angle', 'angle'], ['Diameter', 'd']],
   );
   const camber = runCalc(
-    { dx: readQuantity(topInboard, 'length', units), h: readQuantity(height, 'length', units) },
+    { dx: readQuantity(topInboard, 'length', units, 6), h: readQuantity(height, 'length', units, 381) },
     ['dx', 'h'],
     (v) => camberDeg({ topInboardMm: v.dx, heightMm: v.h }),
     [['Top inboard', 'dx'], ['Height', 'h']],

@@ -41,7 +41,7 @@ export function CornerBalanceCard() {
 
   // A corner at 0 or below is no car on four scales: each such corner is marked, before any balance is worked out.
   const weightReadings = Object.fromEntries(
-    CORNERS.map((c) => [c, aboveZero(readQuantity(weights[c], 'mass', units), `${CORNER_NAMES[c]} weight`)]),
+    CORNERS.map((c) => [c, aboveZero(readQuantity(weights[c], 'mass', units, 300), `${CORNER_NAMES[c]} weight`)]),
   ) as Record<Corner, Reading>;
   const balance = runCalc(weightReadings, CORNERS, (v) => cornerWeights(v), WEIGHT_BLAME);
   const implausible =
@@ -54,9 +54,9 @@ export function CornerBalanceCard() {
   // The limits in the user's mass unit, to the kg or lb: "1500 kg", "3307 lb".
   const massLimit = (kg: number) => `${formatNumber(toDisplay(kg, 'mass', units), 0)} ${massUnit}`;
 
-  const rateReadings = Object.fromEntries(CORNERS.map((c) => [c, readQuantity(rates[c], 'springRate', units)])) as Record<Corner, Reading>;
+  const rateReadings = Object.fromEntries(CORNERS.map((c) => [c, readQuantity(rates[c], 'springRate', units, 70)])) as Record<Corner, Reading>;
   const wedge = runCalc(
-    { ...rateReadings, offset: readQuantity(offset, 'length', units), tf: readQuantity(trackFront, 'length', units), tr: readQuantity(trackRear, 'length', units) },
+    { ...rateReadings, offset: readQuantity(offset, 'length', units, 3), tf: readQuantity(trackFront, 'length', units, 1500), tr: readQuantity(trackRear, 'length', units, 1500) },
     [...CORNERS, 'offset'],
     (v) =>
       wedgeChange({

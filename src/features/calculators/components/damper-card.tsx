@@ -30,10 +30,10 @@ export function DamperCard() {
 
   const droop = runCalc(
     {
-      load: readQuantity(load, 'mass', units),
-      mr: readNumber(springMr),
-      k: readQuantity(springRate, 'springRate', units),
-      droop: readQuantity(wheelDroop, 'length', units),
+      load: readQuantity(load, 'mass', units, 300),
+      mr: readNumber(springMr, 0.8),
+      k: readQuantity(springRate, 'springRate', units, 70),
+      droop: readQuantity(wheelDroop, 'length', units, 75),
     },
     ['load', 'mr', 'k', 'droop'],
     // The load is typed as a mass (a corner-scale reading); the spring carries its weight: × g_n.
@@ -43,10 +43,10 @@ export function DamperCard() {
 
   const bump = runCalc(
     {
-      stroke: readQuantity(stroke, 'length', units),
-      droop: readQuantity(damperDroop, 'length', units),
-      stop: readQuantity(bumpStop, 'length', units),
-      mr: readNumber(damperMr),
+      stroke: readQuantity(stroke, 'length', units, 100),
+      droop: readQuantity(damperDroop, 'length', units, 50),
+      stop: readQuantity(bumpStop, 'length', units, 15),
+      mr: readNumber(damperMr, 0.8),
     },
     ['stroke', 'droop', 'mr'],
     (v) => bumpTravelAtWheelMm({ strokeMm: v.stroke, droopAtDamperMm: v.droop, bumpStopMm: v.stop, motionRatio: v.mr }),
@@ -55,9 +55,9 @@ export function DamperCard() {
 
   const length = runCalc(
     {
-      compressed: readQuantity(compressed, 'length', units),
-      reference: readQuantity(reference, 'length', units),
-      tolerance: readQuantity(tolerance, 'length', units),
+      compressed: readQuantity(compressed, 'length', units, 350),
+      reference: readQuantity(reference, 'length', units, 350),
+      tolerance: readQuantity(tolerance, 'length', units, 2),
     },
     ['compressed', 'reference'],
     (v) => compressedLengthCheck({ compressedLengthMm: v.compressed, referenceLengthMm: v.reference, toleranceMm: v.tolerance }),

@@ -21,20 +21,20 @@ export function SpringsCard() {
   const massUnit = unitSymbol('mass', units);
 
   const wheel = runCalc(
-    { spring: readQuantity(spring, 'springRate', units), mr: readNumber(motionRatio), angle: readNumber(angle) },
+    { spring: readQuantity(spring, 'springRate', units, 70), mr: readNumber(motionRatio, 0.8), angle: readNumber(angle, 10) },
     ['spring', 'mr'],
     (v) => wheelRateNPerMm({ springRateNPerMm: v.spring, motionRatio: v.mr, springAngleDeg: v.angle }),
     [['Spring rate', 'spring'], ['Motion ratio', 'mr'], ['Spring angle', 'angle']],
   );
 
   // A wheel rate typed here wins; left blank, the one worked out above is used.
-  const typedWheelRate = readQuantity(wheelRateText, 'springRate', units);
+  const typedWheelRate = readQuantity(wheelRateText, 'springRate', units, 45);
   const usesComputed = typedWheelRate.kind === 'empty' && wheel.status === 'ok';
   const frequency = runCalc(
     {
       wr: usesComputed ? knownValue(wheel.value) : typedWheelRate,
-      mass: readQuantity(mass, 'mass', units),
-      tyre: readQuantity(tyreRate, 'springRate', units),
+      mass: readQuantity(mass, 'mass', units, 300),
+      tyre: readQuantity(tyreRate, 'springRate', units, 250),
     },
     ['wr', 'mass'],
     (v) => rideFrequencyHz({ wheelRateNPerMm: v.wr, sprungMassKg: v.mass, tyreRateNPerMm: v.tyre }),
@@ -42,14 +42,14 @@ export function SpringsCard() {
   );
 
   const inverse = runCalc(
-    { f: readNumber(target), mass: readQuantity(mass, 'mass', units), tyre: readQuantity(tyreRate, 'springRate', units) },
+    { f: readNumber(target, 2), mass: readQuantity(mass, 'mass', units, 300), tyre: readQuantity(tyreRate, 'springRate', units, 250) },
     ['f', 'mass'],
     (v) => wheelRateForFrequencyNPerMm({ frequencyHz: v.f, sprungMassKg: v.mass, tyreRateNPerMm: v.tyre }),
     [['Frequency', 'f'], ["That frequency needs", 'f'], ['Tyre rate', 'tyre']],
   );
   // The spring that gives that wheel rate at the motion ratio and angle above: the wheel rate of a 1 N/mm spring
   // is the installation's factor MR²·cos²θ.
-  const factor = runCalc({ mr: readNumber(motionRatio), angle: readNumber(angle) }, ['mr'], (v) =>
+  const factor = runCalc({ mr: readNumber(motionRatio, 0.8), angle: readNumber(angle, 10) }, ['mr'], (v) =>
     wheelRateNPerMm({ springRateNPerMm: 1, motionRatio: v.mr, springAngleDeg: v.angle }),
   );
 

@@ -43,12 +43,11 @@ export function TyreCard() {
   const tempUnit = unitSymbol('temperature', units);
   const coldToHot = direction === 'coldToHot';
 
+  // Typical values for the examples in error messages: 200 kPa cold at 20 °C, 230 kPa hot at 60 °C.
+  const from = readQuantity(fromTemp, 'temperature', units, coldToHot ? 20 : 60);
+  const to = readQuantity(toTemp, 'temperature', units, coldToHot ? 60 : 20);
   const converted = runCalc(
-    {
-      p: readQuantity(pressure, 'pressure', units),
-      from: readQuantity(fromTemp, 'temperature', units),
-      to: readQuantity(toTemp, 'temperature', units),
-    },
+    { p: readQuantity(pressure, 'pressure', units, coldToHot ? 200 : 230), from, to },
     ['p', 'from', 'to'],
     (v) =>
       coldToHot
@@ -56,7 +55,7 @@ export function TyreCard() {
         : coldPressureKpa({ hotGaugeKpa: v.p, hotTempC: v.from, coldTempC: v.to }),
   );
 
-  const temps = [readQuantity(fromTemp, 'temperature', units), readQuantity(toTemp, 'temperature', units)];
+  const temps = [from, to];
   const implausible =
     converted.status === 'ok' &&
     (temps.some((t) => t.kind === 'value' && (t.si < TYRE_TEMP_C.min || t.si > TYRE_TEMP_C.max)) ||

@@ -11,21 +11,27 @@ import { parseDecimal, tidy, typeANumber } from '@/lib/numbers';
 /** What one typed field holds. */
 export type Reading = { kind: 'empty' } | { kind: 'value'; si: number } | { kind: 'invalid'; message: string };
 
-const NOT_A_NUMBER = typeANumber('12.5');
+/**
+ * "Type a number, e.g. 400": each field gives a typical value of its own, shown in the user's unit to two
+ * significant figures and written as it would be typed ("0.059", "-0.5").
+ */
+function notANumber(example: number): Reading {
+  return { kind: 'invalid', message: typeANumber(String(Number(example.toPrecision(2)))) };
+}
 
-/** A field typed in the user's unit for a quantity, in SI. */
-export function readQuantity(text: string, quantity: Quantity, units: UnitPreferences): Reading {
+/** A field typed in the user's unit for a quantity, in SI; `exampleSi` is a typical value for it, in SI. */
+export function readQuantity(text: string, quantity: Quantity, units: UnitPreferences, exampleSi: number): Reading {
   const parsed = parseDecimal(text);
   if (parsed.kind === 'empty') return { kind: 'empty' };
-  if (parsed.kind === 'invalid') return { kind: 'invalid', message: NOT_A_NUMBER };
+  if (parsed.kind === 'invalid') return notANumber(toDisplay(exampleSi, quantity, units));
   return { kind: 'value', si: fromDisplay(parsed.value, quantity, units) };
 }
 
-/** A field with no unit to convert (motion ratio, frequency in Hz, degrees). */
-export function readNumber(text: string): Reading {
+/** A field with no unit to convert (motion ratio, frequency in Hz, degrees); `example` is a typical value. */
+export function readNumber(text: string, example: number): Reading {
   const parsed = parseDecimal(text);
   if (parsed.kind === 'empty') return { kind: 'empty' };
-  if (parsed.kind === 'invalid') return { kind: 'invalid', message: NOT_A_NUMBER };
+  if (parsed.kind === 'invalid') return notANumber(example);
   return { kind: 'value', si: parsed.value };
 }
 

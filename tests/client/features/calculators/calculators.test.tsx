@@ -76,7 +76,8 @@ describe('corner balance and wedge calculator', () => {
     await u.type(balance.getByLabelText('Left front weight'), '32a');
 
     expect(balance.getByLabelText('Left front weight').getAttribute('aria-invalid')).toBe('true');
-    expect(balance.getByText('Type a number, e.g. 12.5')).toBeTruthy();
+    // The example is a typical corner weight, 300 kg.
+    expect(balance.getByText('Type a number, e.g. 300')).toBeTruthy();
     expect(within(screen.getByLabelText('Corner balance')).queryByText('Cross (LF + RR)')).toBeNull();
   });
 });
@@ -268,5 +269,25 @@ describe('every calculator', () => {
       expect(c.getByRole('complementary', { name: 'Caution' }).textContent).toMatch(/planning aids, not a substitute for inspection/);
     }
     expect(card('Springs').getByText(/Barton & Fieldhouse/)).toBeTruthy();
+  });
+});
+
+describe('the example in a field that is not a number', () => {
+  it.each([
+    // 70 N/mm in lb/in: 1 lbf = 4.448 221 615 260 5 N and 1 in = 25.4 mm exactly (NIST SP 811, appendix B.8),
+    // so 70 × 25.4 / 4.448 221 615 = 399.7, to two figures 400.
+    ['Springs', 'Spring rate', 'imperial', 'Type a number, e.g. 400'],
+    ['Springs', 'Spring rate', 'metric', 'Type a number, e.g. 70'],
+    // A motion ratio has no unit.
+    ['Springs', 'Motion ratio', 'imperial', 'Type a number, e.g. 0.8'],
+    // 20 °C in °F: 20 × 9/5 + 32 = 68 (the definition of the scales, NIST SP 811 §4.2.1.1).
+    ['Tyre size and pressure', 'Cold temperature', 'imperial', 'Type a number, e.g. 68'],
+    // 200 kPa in psi: 1 psi = 6.894 757 kPa (NIST SP 811, B.8), 29.0, to two figures 29.
+    ['Tyre size and pressure', 'Cold pressure', 'imperial', 'Type a number, e.g. 29'],
+  ] as const)('when text is typed in the %s card’s %s in %s units, then the message gives an example in those units: %j', async (name, label, units, message) => {
+    const u = renderPage(units === 'imperial' ? IMPERIAL_PREFERENCES : METRIC_PREFERENCES);
+    const c = card(name);
+    await u.type(c.getByLabelText(label), 'abc');
+    expect(c.getByText(message)).toBeTruthy();
   });
 });
