@@ -2,7 +2,10 @@ import { Router, type Request } from 'express';
 import type { DataSource } from 'typeorm';
 import { updatePreferencesInputSchema, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
 import { loginInputSchema, registerInputSchema, type LoginInput, type RegisterInput } from '@shared/auth/credentials.schema';
-import { changePasswordInputSchema, endSessionsInputSchema, type ChangePasswordInput, type EndSessionsInput } from '@shared/auth/account.schema';
+import {
+  changeEmailInputSchema, changePasswordInputSchema, confirmEmailChangeSchema, endSessionsInputSchema,
+  type ChangeEmailInput, type ChangePasswordInput, type ConfirmEmailChange, type EndSessionsInput,
+} from '@shared/auth/account.schema';
 import {
   PASSWORD_RESET_REQUESTED_MESSAGE,
   passwordResetConfirmSchema,
@@ -13,7 +16,7 @@ import {
 } from '@shared/collab/invitation.schema';
 import { AppError } from '../lib/app-error';
 import { parsed, validate } from '../lib/validate';
-import { createUser, updatePreferences } from '../features/users/user.service';
+import { createUser, findUserById, updatePreferences } from '../features/users/user.service';
 import type { AppPassport } from './passport';
 import type { AuthRateLimits } from './rate-limit';
 import { currentUser, requireAuth } from './access';
@@ -22,6 +25,7 @@ import type { MailSettings } from '../mail/mailer';
 import { confirmPasswordReset, requestPasswordReset } from './password-reset';
 import { changePassword } from './password-change';
 import { deviceLabel, endOtherSessions, listDevices } from './devices';
+import { confirmEmailChange, pendingEmailChange, requestEmailChange } from './email-change';
 
 interface Deps {
   ds: DataSource;
@@ -130,6 +134,27 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
     const input = parsed<ChangePasswordInput>(res, 'body');
     await withPasswordLimit(req, (user) => changePassword(ds, user.id, req.sessionID, input));
     res.status(204).end();
+  });
+
+  /** A change of sign-in address still waiting for its link to be opened, or none. */
+  router.get('/me/email', requireAuth, async (req, res) => {
+    res.json(await pendingEmailChange(ds, currentUser(req).id));
+  });
+
+  /**
+   * Asks to sign in with a new address, the password typed again (counted like a sign-in): a link goes to
+   * the new address and a warning to the old one; nothing changes until the link is opened.
+   */
+  router.post('/me/email', requireAuth, validate({ body: changeEmailInputSchema }), async (req, res) => {
+    const input = parsed<ChangeEmailInput>(res, 'body');
+    res.status(202).json(await withPasswordLimit(req, (user) => requestEmailChange(ds, mail, user, input)));
+  });
+
+  /** The link from the new address, opened by the account that asked: the address changes. */
+  router.post('/me/email/confirm', requireAuth, validate({ body: confirmEmailChangeSchema }), async (req, res) => {
+    const { id } = currentUser(req);
+    await confirmEmailChange(ds, id, parsed<ConfirmEmailChange>(res, 'body').token);
+    res.json({ user: await findUserById(ds, id) });
   });
 
   /** The devices signed in to this account, this one first. */

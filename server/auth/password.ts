@@ -51,11 +51,14 @@ export async function assertOwnPassword(
 export const SESSION_USER_SQL = `sess #>> '{passport,user}'`;
 
 /**
- * A new password hash for the account, inside the caller's transaction: every open reset link is voided and the
- * account's sessions end, but `keepSessionId` (the one that changed it while signed in), when given.
+ * A new password hash for the account, inside the caller's transaction: every open reset link and change of
+ * address is voided and the account's sessions end, but `keepSessionId` (the one that changed it while signed
+ * in), when given.
  */
 export async function storeNewPassword(db: Queryable, userId: string, hash: string, keepSessionId: string | null): Promise<void> {
   await db.query('UPDATE users SET password_hash = $2, updated_at = now() WHERE id = $1', [userId, hash]);
   await db.query('UPDATE password_resets SET used_at = now() WHERE user_id = $1 AND used_at IS NULL', [userId]);
+  // A change of address asked for with the old password waits no longer (server/auth/email-change.ts).
+  await db.query('UPDATE email_changes SET used_at = now() WHERE user_id = $1 AND used_at IS NULL', [userId]);
   await db.query(`DELETE FROM session WHERE ${SESSION_USER_SQL} = $1 AND sid IS DISTINCT FROM $2`, [userId, keepSessionId]);
 }

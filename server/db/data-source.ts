@@ -21,6 +21,7 @@ import { Attachments1765065600000 } from './migrations/1765065600000-attachments
 import { StoredFileRemovals1765152000000 } from './migrations/1765152000000-stored-file-removals';
 import { SessionAccountIndex1765238400000 } from './migrations/1765238400000-session-account-index';
 import { AccountSuspension1765324800000 } from './migrations/1765324800000-account-suspension';
+import { EmailChanges1765411200000 } from './migrations/1765411200000-email-changes';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -31,7 +32,7 @@ export const entities = [
 export const migrations = [
   Foundation1764633600000, SeasonRecord1764720000000, UserPreferences1764806400000, Collaboration1764892800000,
   ServiceVisits1764979200000, Attachments1765065600000, StoredFileRemovals1765152000000,
-  SessionAccountIndex1765238400000, AccountSuspension1765324800000,
+  SessionAccountIndex1765238400000, AccountSuspension1765324800000, EmailChanges1765411200000,
 ];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */

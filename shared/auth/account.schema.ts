@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { emailSchema } from './auth.schema';
 import { newPasswordSchema, PASSWORD_MAX } from './credentials.schema';
 
 /*
@@ -37,3 +38,29 @@ export const endSessionsInputSchema = z.strictObject({
   sessionId: z.optional(z.string({ error: 'Choose a device from the list' }).check(z.regex(/^[0-9a-f]{32}$/, 'Choose a device from the list'))),
 });
 export type EndSessionsInput = z.infer<typeof endSessionsInputSchema>;
+
+/** A link to confirm a new address works for a day, once; asking again voids the one before. */
+export const EMAIL_CHANGE_TTL_MS = 24 * 60 * 60 * 1000;
+
+/** A new sign-in address, with the password typed again (OWASP ASVS 4.0 V3.7.1). */
+export const changeEmailInputSchema = z.strictObject({
+  newEmail: emailSchema,
+  password: z
+    .string({ error: 'Enter your password' })
+    .check(z.minLength(1, 'Enter your password'), z.maxLength(PASSWORD_MAX * 4)),
+});
+export type ChangeEmailInput = z.infer<typeof changeEmailInputSchema>;
+
+/** The secret from the link sent to the new address. */
+export const confirmEmailChangeSchema = z.strictObject({
+  token: z.string({ error: 'The link is incomplete' }).check(z.minLength(20, 'The link is incomplete'), z.maxLength(200)),
+});
+export type ConfirmEmailChange = z.infer<typeof confirmEmailChangeSchema>;
+
+/** A change of address waiting for its link to be opened, or none. */
+export interface PendingEmailChange {
+  pending: { email: string; expiresAt: string } | null;
+}
+
+/** The query parameter the link sets on the settings page: /settings?email-link=… */
+export const EMAIL_LINK_PARAM = 'email-link';

@@ -68,6 +68,38 @@ describe('signing up and in on a phone (390×844)', () => {
     expect(overflow).toBeLessThanOrEqual(0);
   });
 
+  it('when they move to a new sign-in address, then the link sent to it, opened signed in, makes it the one that works', async () => {
+    const moved = `moved-${email}`;
+    await page.goto(`${baseUrl}/settings`);
+    await page.getByRole('button', { name: 'Change address' }).click();
+    await page.getByLabel('New address').fill(moved);
+    await page.getByLabel('Your password').fill(password);
+    await page.getByRole('button', { name: 'Send the link' }).click();
+    await page.getByText(`A link was sent to ${moved}.`, { exact: false }).waitFor();
+    await screenshot(page, 'settings-address-waiting');
+
+    // The e-mail, as the local mail catcher holds it; the old address got a warning.
+    const inbox = async (to: string) =>
+      (await page.evaluate(async (a) => (await (await fetch(`/api/dev/mailbox?to=${encodeURIComponent(a)}`)).json()).items, to)) as { subject: string; text: string }[];
+    await expect.poll(async () => (await inbox(email)).map((m) => m.subject), { timeout: 10_000 }).toContain('Your Scrubline address is about to change');
+    await expect.poll(async () => (await inbox(moved)).length, { timeout: 10_000 }).toBe(1);
+    const link = /https?:\/\/\S+\/settings\?email-link=[\w-]+/.exec((await inbox(moved))[0]!.text)?.[0];
+    expect(link).toBeDefined();
+
+    await page.goto(`${baseUrl}${new URL(link!).pathname}${new URL(link!).search}`);
+    await page.getByText(`Done: you now sign in with ${moved}.`).waitFor();
+    expect(new URL(page.url()).search).toBe('');
+    await screenshot(page, 'settings-address-changed');
+
+    await page.getByRole('button', { name: /Account: Wren Halloway/ }).click();
+    await page.getByRole('menuitem', { name: 'Sign out' }).click();
+    await page.waitForURL(/\/sign-in/);
+    await page.getByLabel('E-mail').fill(moved);
+    await page.getByLabel('Password', { exact: true }).fill(password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Hi, Wren Halloway' }).waitFor();
+  });
+
   it('when the demo driver signs in, then home greets her and lists the car she shares', async () => {
     await page.getByRole('button', { name: /Account:/ }).click();
     await page.getByRole('menuitem', { name: 'Sign out' }).click();

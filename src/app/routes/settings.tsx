@@ -7,6 +7,7 @@ import { UnitSettingsForm } from '@/features/auth/components/unit-settings-form'
 import { EmailNotificationsSwitch } from '@/features/account/components/email-notifications-switch';
 import { ChangePasswordForm } from '@/features/account/components/change-password-form';
 import { SignedInDevices } from '@/features/account/components/signed-in-devices';
+import { EmailLinkResult, SignInAddress } from '@/features/account/components/change-email';
 
 const EMAIL_OFFLINE = 'No connection: the e-mail setting was not changed. Try again when you have signal.';
 
@@ -38,13 +39,16 @@ export function SettingsPage() {
       <title>Settings · Scrubline</title>
       <div className="flex flex-col gap-1">
         <h1 className="text-3xl font-extrabold">Settings</h1>
-        <p className="text-ink-muted">Your account’s units, e-mails, password and signed-in devices.</p>
+        <p className="text-ink-muted">Your account’s units, e-mail address and e-mails, password and signed-in devices.</p>
       </div>
+      {/* The link from a new address lands here: what it did is said first, above the fold. */}
+      <EmailLinkResult />
       <SectionCard title="Units">
         <p className="text-sm text-ink-muted">Units apply to every value you read and type, on every device you sign in on.</p>
         <UnitSettingsForm user={user} />
       </SectionCard>
       <SectionCard title="E-mail">
+        <SignInAddress email={user.email} />
         <EmailSetting enabled={user.preferences.emailNotifications} />
       </SectionCard>
       <SectionCard title="Password">
