@@ -2,8 +2,8 @@ import * as z from '../zod';
 import type { Role } from './auth.schema';
 
 /*
- * What the `admin` role does: look through the accounts, and suspend or restore one's sign-in. An
- * admin sees no cars, shops or teams through this (docs/api.md, the access table).
+ * What the `admin` role does: look through the accounts, suspend or restore one's sign-in, and give or take
+ * the role itself. An admin sees no cars, shops or teams through this (docs/api.md, the access table).
  */
 
 /** At most this many accounts come back at once; the search narrows the rest down. */
@@ -47,3 +47,9 @@ export const suspendAccountInputSchema = z.strictObject({
     ),
 });
 export type SuspendAccountInput = z.infer<typeof suspendAccountInputSchema>;
+
+/** Gives or takes the `admin` role. */
+export const setAdminInputSchema = z.strictObject({
+  isAdmin: z.boolean({ error: 'Choose yes or no' }),
+});
+export type SetAdminInput = z.infer<typeof setAdminInputSchema>;

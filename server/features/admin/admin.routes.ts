@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import {
-  accountListQuerySchema, suspendAccountInputSchema, type AccountListQuery, type SuspendAccountInput,
+  accountListQuerySchema, setAdminInputSchema, suspendAccountInputSchema, type AccountListQuery, type SetAdminInput, type SuspendAccountInput,
 } from '@shared/auth/admin.schema';
 import { currentUser, requireRole } from '../../auth/access';
 import { idParam } from '../../lib/http';
 import { parsed, validate } from '../../lib/validate';
-import { listAccounts, restoreAccount, suspendAccount } from './admin.service';
+import { listAccounts, restoreAccount, setAdmin, suspendAccount } from './admin.service';
 
-/** Administration: the accounts, and suspending or restoring one's sign-in. */
+/** Administration: the accounts, suspending or restoring one's sign-in, and the admin role. */
 export function adminRoutes(ds: DataSource) {
   const router = Router();
   router.use(requireRole('admin'));
@@ -23,6 +23,10 @@ export function adminRoutes(ds: DataSource) {
   });
   router.post('/users/:userId/restore', userParam, async (_req, res) => {
     res.json(await restoreAccount(ds, parsed<{ userId: string }>(res, 'params').userId));
+  });
+  router.put('/users/:userId/admin', userParam, validate({ body: setAdminInputSchema }), async (req, res) => {
+    const { userId } = parsed<{ userId: string }>(res, 'params');
+    res.json(await setAdmin(ds, currentUser(req), userId, parsed<SetAdminInput>(res, 'body').isAdmin));
   });
   return router;
 }

@@ -81,3 +81,14 @@ export async function restoreAccount(ds: DataSource, id: string): Promise<AdminA
   );
   return loadAccount(ds, id);
 }
+
+/**
+ * Gives or takes the `admin` role. An admin cannot take it from themselves, so the accounts always keep one
+ * admin who can give it back.
+ */
+export async function setAdmin(ds: DataSource, admin: User, id: string, isAdmin: boolean): Promise<AdminAccount> {
+  if (id === admin.id && !isAdmin) throw new AppError('conflict', 'You cannot take the admin role from yourself; ask another admin.');
+  const rows: { id: string }[] = await ds.query('UPDATE users SET is_admin = $2, updated_at = now() WHERE id = $1 RETURNING id', [id, isAdmin]);
+  if (!rows[0]) throw notFound('That account');
+  return loadAccount(ds, id);
+}

@@ -150,3 +150,37 @@ describe('the list of accounts', () => {
     expect(res.body.error.fieldErrors.q).toEqual(['Use at most 80 characters']);
   });
 });
+
+describe('the admin role', () => {
+  it('when an admin gives it to a driver, then the driver is an admin at once; taken back, the admin routes refuse them again', async () => {
+    const admin = await signedInClient(t, { isAdmin: true });
+    const driver = await signedInClient(t);
+    expect((await driver.c.get('/api/admin/users')).status).toBe(403);
+
+    const given = await admin.c.put(`/api/admin/users/${driver.user.id}/admin`, { isAdmin: true });
+    expect(given.status).toBe(200);
+    expect(given.body.roles).toEqual(['driver', 'admin']);
+    // The session reads the account's roles on every request: no new sign-in needed.
+    expect((await driver.c.get('/api/auth/me')).body.user.roles).toContain('admin');
+    expect((await driver.c.get('/api/admin/users')).status).toBe(200);
+
+    const taken = await admin.c.put(`/api/admin/users/${driver.user.id}/admin`, { isAdmin: false });
+    expect(taken.body.roles).toEqual(['driver']);
+    expect((await driver.c.get('/api/admin/users')).status).toBe(403);
+  });
+
+  it('when an admin tries to take the role from themselves, then 409 and they stay an admin', async () => {
+    const admin = await signedInClient(t, { isAdmin: true });
+    const res = await admin.c.put(`/api/admin/users/${admin.user.id}/admin`, { isAdmin: false });
+    expect(res.status).toBe(409);
+    expect((await admin.c.get('/api/admin/users')).status).toBe(200);
+  });
+
+  it('when the body is not a yes or no, then 400 on isAdmin', async () => {
+    const admin = await signedInClient(t, { isAdmin: true });
+    const driver = await signedInClient(t);
+    const res = await admin.c.put(`/api/admin/users/${driver.user.id}/admin`, { isAdmin: 'yes' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fieldErrors.isAdmin).toEqual(['Choose yes or no']);
+  });
+});

@@ -208,6 +208,10 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     call: () => ({ path: `/api/admin/users/${randomUUID()}/restore`, body: {} }),
     expect: [403, 403, 403, 403, 403, 403, 403, 404, 401],
   },
+  'PUT /api/admin/users/:userId/admin': {
+    call: () => ({ path: `/api/admin/users/${randomUUID()}/admin`, body: { isAdmin: true } }),
+    expect: [403, 403, 403, 403, 403, 403, 403, 404, 401],
+  },
 
   'POST /api/cars': { call: () => ({ path: '/api/cars', body: { name: 'Spare', classCode: 'SR' } }), expect: signedIn(201) },
   'GET /api/cars': { call: () => ({ path: '/api/cars' }), expect: signedIn(200) },

@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AdminAccount, AdminAccountList, SuspendAccountInput } from '@shared/auth/admin.schema';
+import type { AdminAccount, AdminAccountList, SetAdminInput, SuspendAccountInput } from '@shared/auth/admin.schema';
 import { api } from '@/lib/api-client';
 
 /** Every accounts query key; a write refreshes them all. */
@@ -49,4 +49,8 @@ export function useSuspendAccount() {
 
 export function useRestoreAccount() {
   return useAccountWrite((userId: string) => api.post<AdminAccount>(`${accountPath(userId)}/restore`));
+}
+
+export function useSetAdmin() {
+  return useAccountWrite(({ userId, ...input }: SetAdminInput & { userId: string }) => api.put<AdminAccount>(`${accountPath(userId)}/admin`, input));
 }

@@ -12,7 +12,7 @@ import { formatDay, formatDateTime } from '@/lib/dates';
 import { describeRoles } from '@/features/auth/utils/describe-roles';
 import { TextArea } from '@/features/suggestions/components/text-area';
 import { failureMessage } from '@/features/teams/utils/online-failure';
-import { useAccounts, useRestoreAccount, useSuspendAccount } from '../api/accounts';
+import { useAccounts, useRestoreAccount, useSetAdmin, useSuspendAccount } from '../api/accounts';
 
 /** Asks for a reason, then suspends: the account is signed out everywhere and cannot sign in until restored. */
 function SuspendAccount({ account }: { account: AdminAccount }) {
@@ -97,6 +97,30 @@ function RestoreAccount({ account }: { account: AdminAccount }) {
   );
 }
 
+/** Gives or takes the admin role, after asking. */
+function AdminRole({ account }: { account: AdminAccount }) {
+  const setAdmin = useSetAdmin();
+  const isAdmin = account.roles.includes('admin');
+  return (
+    <ConfirmButton
+      title={isAdmin ? `Take the admin role from ${account.displayName}?` : `Make ${account.displayName} an admin?`}
+      description={
+        isAdmin
+          ? 'They keep their account, cars and shops, but can no longer see the accounts or suspend anyone.'
+          : 'They can then see every account, suspend or restore one, and give or take this role, as you can.'
+      }
+      confirmLabel={isAdmin ? 'Take the role' : 'Make admin'}
+      pendingLabel="Saving…"
+      isPending={setAdmin.isPending}
+      onConfirm={(handlers) => setAdmin.mutate({ userId: account.id, isAdmin: !isAdmin }, handlers)}
+      failureText={failureMessage}
+    >
+      {isAdmin ? 'Take admin role' : 'Make admin'}
+      <span className="sr-only"> {account.displayName}</span>
+    </ConfirmButton>
+  );
+}
+
 function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean }) {
   const devices = account.signedInDevices;
   return (
@@ -115,6 +139,11 @@ function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean })
         {describeRoles(account.roles)} · joined {formatDay(account.createdAt)} ·{' '}
         {devices === 0 ? 'not signed in' : `signed in on ${devices} ${devices === 1 ? 'device' : 'devices'}`}
       </p>
+      {isMe ? null : (
+        <div className="-ml-3">
+          <AdminRole account={account} />
+        </div>
+      )}
       {account.suspendedAt ? (
         <div className="flex flex-col gap-1 rounded border border-warning-line bg-warning-surface p-3 text-sm">
           <p className="font-semibold text-warning">Suspended since {formatDateTime(account.suspendedAt)}</p>

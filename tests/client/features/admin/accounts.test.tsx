@@ -95,6 +95,25 @@ describe('the accounts page', () => {
     expect(dialog.getByLabelText('Why').getAttribute('aria-invalid')).toBe('true');
   });
 
+  it('when an admin makes a driver an admin, then the role is sent after asking, and the row then offers to take it back', async () => {
+    let admin = false;
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': () => page([admin ? { ...TOMAS, roles: ['driver', 'admin'] } : TOMAS]),
+      [`PUT /api/admin/users/${TOMAS.id}/admin`]: () => {
+        admin = true;
+        return jsonResponse(200, { ...TOMAS, roles: ['driver', 'admin'] });
+      },
+    });
+    renderApp('/accounts');
+    const u = userEvent.setup();
+    await u.click(await screen.findByRole('button', { name: 'Make admin Tomas Reed' }));
+    const dialog = within(screen.getByRole('dialog', { name: 'Make Tomas Reed an admin?' }));
+    await u.click(dialog.getByRole('button', { name: 'Make admin' }));
+    expect(await screen.findByRole('button', { name: 'Take admin role Tomas Reed' })).toBeTruthy();
+    expect(requestsTo(fetchMock, `PUT /api/admin/users/${TOMAS.id}/admin`).map((r) => r.body)).toEqual([{ isAdmin: true }]);
+  });
+
   it('when a driver who is not an admin opens it, then the page says so and asks the server nothing', async () => {
     const fetchMock = stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }) });
     renderApp('/accounts');
