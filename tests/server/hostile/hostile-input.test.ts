@@ -1,21 +1,23 @@
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { listRoutes, type Mount } from '../../../server/lib/routes';
-import { makeTestApp, type TestApp } from '../test-app';
+import { makeTestApp, signedInClient, type TestApp } from '../test-app';
 import { driverWithCarAndEvent, type Driver } from '../season/season-fixtures';
 
 /**
  * Random and malformed bodies (fast-check) sent to every POST, PUT and PATCH route the app lists,
- * signed in as a driver with a car, an event and a valid CSRF token, so each request reaches the
- * route's own checks. The answer is never a 500: a body the route cannot take is a 400 in the
+ * signed in as a driver with a car, an event and a valid CSRF token (as an admin for the admin's
+ * routes), so each request reaches the route's own checks. The answer is never a 500: a body the route cannot take is a 400 in the
  * error envelope (with field errors when it was valid JSON), and nothing is written.
  */
 let t: TestApp;
 let d: Driver;
+let admin: Awaited<ReturnType<typeof signedInClient>>;
 
 beforeAll(async () => {
   t = await makeTestApp();
   d = await driverWithCarAndEvent(t);
+  admin = await signedInClient(t, { isAdmin: true });
 });
 afterAll(async () => {
   await t.close();
@@ -35,6 +37,7 @@ const FIELD = fc.constantFrom(
   'id', 'name', 'label', 'carId', 'eventId', 'runNumber', 'rawTimeSec', 'cones', 'status', 'recordedAt', 'effectiveFrom',
   'corners', 'lf', 'camberDeg', 'body', 'target', 'type', 'email', 'password', 'displayName', 'lines', 'quantity',
   'unitPriceCents', 'version', 'date', 'classCode', 'notes', 'handoverAt', 'taxRatePct', 'runs', 'changes', 'kind',
+  'note', 'isAdmin', 'newEmail', 'token',
 );
 const HOSTILE_TEXT = fc.constantFrom(
   '<img src=x onerror=alert(1)>', "'; DROP TABLE runs; --", '\u0000', '\uFFFF'.repeat(3), '🏁'.repeat(50), '-1e309', 'NaN', '__proto__',
@@ -66,15 +69,16 @@ describe('hostile input on every POST, PUT and PATCH route', () => {
   it('when random, malformed and hostile bodies are sent, then no answer is a 500, a 400 has the error envelope, and refused requests write nothing', async () => {
     const routes = listRoutes(t.app.locals.mounts as Mount[]).filter((r) => /^(POST|PUT|PATCH) /.test(r) && !SKIP.has(r));
     expect(routes.length).toBeGreaterThan(40);
-    const token = await d.c.csrf();
+    const tokens = { driver: await d.c.csrf(), admin: await admin.c.csrf() };
     const seen = new Map<string, Set<number>>();
 
     for (const route of routes) {
       const [method] = route.split(' ') as ['POST' | 'PUT' | 'PATCH'];
       const path = pathFor(route);
+      const who = path.startsWith('/api/admin/') ? 'admin' : 'driver';
       const send = (payload: string) =>
-        d.c.agent[method.toLowerCase() as 'post' | 'put' | 'patch'](path)
-          .set('X-CSRF-Token', token)
+        (who === 'admin' ? admin.c : d.c).agent[method.toLowerCase() as 'post' | 'put' | 'patch'](path)
+          .set('X-CSRF-Token', tokens[who])
           .set('Content-Type', 'application/json')
           .send(payload);
       const rowsBefore = await totalRows();
@@ -95,6 +99,10 @@ describe('hostile input on every POST, PUT and PATCH route', () => {
       // A route that refused every body wrote nothing.
       if (!anyWrite) expect(await totalRows(), route).toBe(rowsBefore);
     }
+    // The admin's routes were reached by the admin (their checks ran), not refused at the role check.
+    const adminRoutes = routes.filter((r) => r.includes(' /api/admin/'));
+    expect(adminRoutes.length).toBeGreaterThan(0);
+    for (const r of adminRoutes) expect([...seen.get(r)!], r).not.toContain(403);
     // Most routes refused with 400 (their body was checked), not merely 404 for the made-up ids.
     const checked = [...seen.values()].filter((statuses) => statuses.has(400)).length;
     expect(checked).toBeGreaterThan(routes.length * 0.6);
