@@ -25,7 +25,7 @@ import type { MailSettings } from '../mail/mailer';
 import { confirmPasswordReset, requestPasswordReset } from './password-reset';
 import { changePassword } from './password-change';
 import { deviceLabel, endOtherSessions, listDevices } from './devices';
-import { confirmEmailChange, pendingEmailChange, requestEmailChange } from './email-change';
+import { assertNewAddress, confirmEmailChange, pendingEmailChange, requestEmailChange } from './email-change';
 
 interface Deps {
   ds: DataSource;
@@ -147,6 +147,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
    */
   router.post('/me/email', requireAuth, validate({ body: changeEmailInputSchema }), async (req, res) => {
     const input = parsed<ChangeEmailInput>(res, 'body');
+    assertNewAddress(currentUser(req), input.newEmail);
     res.status(202).json(await withPasswordLimit(req, (user) => requestEmailChange(ds, mail, user, input)));
   });
 

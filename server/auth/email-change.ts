@@ -45,11 +45,20 @@ export function emailChangeWarningMail(o: { oldEmail: string; newEmail: string; 
   });
 }
 
+/**
+ * Refuses the account's own address. Checked before the password and outside its sign-in limit, so that
+ * only a wrong password counts as a failed sign-in.
+ */
+export function assertNewAddress(user: User, newEmail: string): void {
+  if (newEmail === user.email) throw new AppError('validation_failed', `${SAME_ADDRESS}.`, { newEmail: [SAME_ADDRESS] });
+}
+
 const taken = () => new AppError('conflict', `${ADDRESS_TAKEN}.`, { newEmail: [ADDRESS_TAKEN] });
 
 /**
- * Asks for a new address: checks the password and that no account uses the address, voids any earlier
- * request, stores the new one (only the hash of its secret) and sends the two e-mails.
+ * Asks for a new address (one `assertNewAddress` let through): checks the password and that no account uses
+ * the address, voids any earlier request, stores the new one (only the hash of its secret) and sends the two
+ * e-mails.
  */
 export async function requestEmailChange(
   ds: DataSource,
@@ -58,7 +67,6 @@ export async function requestEmailChange(
   input: { newEmail: string; password: string },
 ): Promise<PendingEmailChange> {
   await assertOwnPassword(ds, user.id, input.password, { field: 'password', message: WRONG_PASSWORD });
-  if (input.newEmail === user.email) throw new AppError('validation_failed', `${SAME_ADDRESS}.`, { newEmail: [SAME_ADDRESS] });
   const { token, hash } = newSecretToken();
   const expiresAt = new Date(Date.now() + EMAIL_CHANGE_TTL_MS);
   await ds.transaction(async (m) => {

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { AdminAccount } from '@shared/auth/admin.schema';
+import { ACCOUNT_LIST_LIMIT, type AdminAccount } from '@shared/auth/admin.schema';
 import { SUSPENDED_SIGN_IN } from '../../../server/auth/passport';
 import { client, makeTestApp, signedInClient, TEST_PASSWORD, type TestApp } from '../test-app';
 
@@ -134,6 +134,20 @@ describe('the list of accounts', () => {
     ]);
     const byMail = await admin.c.get(`/api/admin/users?q=${encodeURIComponent(a.email.toUpperCase())}`);
     expect(byMail.body.items.map((x: AdminAccount) => x.id)).toEqual([a.user.id]);
+  });
+
+  it('when more accounts match than one list holds, then the first 100 come back with the number of all that match', async () => {
+    const admin = await signedInClient(t, { isAdmin: true });
+    const tag = `Wombat${Date.now()}`;
+    // Rows made directly (no password needed to list them).
+    await t.ds.query(
+      `INSERT INTO users (email, display_name, password_hash)
+       SELECT lower($1) || '-' || n || '@example.com', $1 || ' ' || lpad(n::text, 3, '0'), 'not-a-hash' FROM generate_series(1, 101) AS n`,
+      [tag],
+    );
+    const res = await admin.c.get(`/api/admin/users?q=${tag}`);
+    expect(res.body).toMatchObject({ count: ACCOUNT_LIST_LIMIT, total: 101 });
+    expect(res.body.items[0].displayName).toBe(`${tag} 001`);
   });
 
   it('when the search holds % or _, then they match only themselves', async () => {
