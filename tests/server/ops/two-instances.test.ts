@@ -63,6 +63,28 @@ describe('two app instances on one database', () => {
     expect((await request(a.app).get('/api/auth/me').set('Cookie', cookie)).status).toBe(401);
   });
 
+  it('when an admin on one instance suspends an account signed in on the other, then the other refuses it at its next request', async () => {
+    const signIn = async (app: TestApp['app'], email: string) => {
+      const first = await csrfOn(app, '');
+      const res = await request(app).post('/api/auth/login').set('Cookie', first.cookie).set('X-CSRF-Token', first.token).send({ email, password: TEST_PASSWORD });
+      expect(res.status).toBe(200);
+      return sessionCookie(res.headers['set-cookie'])!;
+    };
+    const driverEmail = uniqueEmail();
+    const adminEmail = uniqueEmail('admin');
+    const driver = await createUser(a.ds, { email: driverEmail, password: TEST_PASSWORD, displayName: 'Two Boxes Driver' });
+    await createUser(a.ds, { email: adminEmail, password: TEST_PASSWORD, displayName: 'Two Boxes Admin' }, { isAdmin: true });
+    const driverOnB = await signIn(b.app, driverEmail);
+    expect((await request(b.app).get('/api/auth/me').set('Cookie', driverOnB)).status).toBe(200);
+
+    const adminOnA = await signIn(a.app, adminEmail);
+    const { token, cookie } = await csrfOn(a.app, adminOnA);
+    const res = await request(a.app).post(`/api/admin/users/${driver.id}/suspend`).set('Cookie', cookie).set('X-CSRF-Token', token).send({ note: 'Two instances' });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    // No copy of the session or the account is kept in B's memory.
+    expect((await request(b.app).get('/api/auth/me').set('Cookie', driverOnB)).status).toBe(401);
+  });
+
   it('when wrong passwords are tried on both instances, then the counter is one: the limit holds across them', async () => {
     const email = uniqueEmail();
     await createUser(a.ds, { email, password: TEST_PASSWORD, displayName: 'Guessed At' });
