@@ -16,7 +16,7 @@ const NO_CONNECTION = 'No connection: nothing was sent and your address is uncha
 const SUCCESS = 'rounded border border-line bg-success-surface p-3 font-semibold text-success';
 
 /** The new address and the password typed again (OWASP ASVS 4.0 V3.7.1); a link then goes to the new address. */
-function ChangeEmailForm({ email, onSent }: { email: string; onSent: () => void }) {
+function ChangeEmailForm({ email, onSent, onCancel }: { email: string; onSent: () => void; onCancel: () => void }) {
   const request = useRequestEmailChange();
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, reset, formState } = useForm<ChangeEmailInput>({
@@ -50,9 +50,14 @@ function ChangeEmailForm({ email, onSent }: { email: string; onSent: () => void 
       />
       <PasswordField label="Your password" autoComplete="current-password" error={formState.errors.password?.message} {...register('password')} />
       <FormAlert message={formError} />
-      <Button type="submit" className="self-start" isPending={request.isPending} pendingLabel="Sending…">
-        Send the link
-      </Button>
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" isPending={request.isPending} pendingLabel="Sending…">
+          Send the link
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
     </form>
   );
 }
@@ -74,7 +79,7 @@ export function SignInAddress({ email }: { email: string }) {
         </p>
       ) : null}
       {open ? (
-        <ChangeEmailForm email={email} onSent={() => setOpen(false)} />
+        <ChangeEmailForm email={email} onSent={() => setOpen(false)} onCancel={() => setOpen(false)} />
       ) : (
         <Button variant="secondary" className="self-start" onClick={() => setOpen(true)}>
           Change address

@@ -42,6 +42,12 @@ describe('the sign-in address in settings', () => {
     expect(await form.findByText('Enter a valid e-mail address')).toBeTruthy();
     expect(form.getByText('Enter your password')).toBeTruthy();
     expect(requestsTo(fetchMock, 'POST /api/auth/me/email')).toHaveLength(0);
+
+    // Cancel closes it again, sending nothing.
+    await u.click(form.getByRole('button', { name: 'Cancel' }));
+    expect(screen.queryByRole('form', { name: 'Change sign-in address' })).toBeNull();
+    expect((await section()).getByRole('button', { name: 'Change address' })).toBeTruthy();
+    expect(requestsTo(fetchMock, 'POST /api/auth/me/email')).toHaveLength(0);
   });
 
   it('when a new address and the password are sent, then the form closes and the page says a link is waiting at the new address', async () => {
