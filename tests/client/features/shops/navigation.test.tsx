@@ -24,13 +24,22 @@ describe('reaching the shop and teams', () => {
     expect(within(menu).getByRole('menuitem', { name: 'Teams' }).getAttribute('href')).toBe('/teams');
   });
 
-  it('when the user is a driver only, then the menu offers teams and no shop', async () => {
+  it('when the user is a driver only, then the menu offers teams and no shop, and no accounts', async () => {
     stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }) });
     renderApp('/settings');
 
     const menu = await openAccountMenu('Maren Holt');
     expect(within(menu).getByRole('menuitem', { name: 'Teams' })).toBeTruthy();
     expect(within(menu).queryByRole('menuitem', { name: 'Your shop' })).toBeNull();
+    expect(within(menu).queryByRole('menuitem', { name: 'Accounts' })).toBeNull();
+  });
+
+  it('when the user is an admin, then the menu offers the accounts', async () => {
+    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: { ...user(), roles: ['driver', 'admin'] } }) });
+    renderApp('/settings');
+
+    const menu = await openAccountMenu('Maren Holt');
+    expect(within(menu).getByRole('menuitem', { name: 'Accounts' }).getAttribute('href')).toBe('/accounts');
   });
 
   it('keeps the phone’s bottom bar to five places', async () => {
