@@ -19,6 +19,10 @@ interface ConfirmButtonProps {
   onConfirm: (handlers: { onSuccess: () => void; onError: (error: unknown) => void }) => void;
   /** The words shown in the dialog when the action fails. */
   failureText: (error: unknown) => string;
+  /** Fields the question asks for (a reason), above its buttons. */
+  fields?: ReactNode;
+  /** Runs whenever the question closes, done or not: to clear what its fields held. */
+  onClose?: () => void;
 }
 
 /** A button that asks first, for what cannot be undone from here (removing, revoking, leaving, withdrawing). */
@@ -33,12 +37,17 @@ export function ConfirmButton({
   isPending,
   onConfirm,
   failureText,
+  fields,
+  onClose,
 }: ConfirmButtonProps) {
   const [open, setOpen] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const onOpenChange = (next: boolean) => {
     setOpen(next);
-    if (!next) setError(null);
+    if (!next) {
+      setError(null);
+      onClose?.();
+    }
   };
   const confirm = () => {
     setError(null);
@@ -50,6 +59,7 @@ export function ConfirmButton({
         {children}
       </Button>
       <Dialog open={open} onOpenChange={onOpenChange} title={title} description={description}>
+        {fields}
         <FormAlert message={error} />
         <div className="flex flex-wrap gap-3">
           <Button onClick={confirm} isPending={isPending} pendingLabel={pendingLabel}>

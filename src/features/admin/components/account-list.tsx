@@ -3,7 +3,6 @@ import { Ban, RotateCcw } from 'lucide-react';
 import { ACCOUNT_LIST_LIMIT, SUSPENSION_NOTE_MAX, type AdminAccount } from '@shared/auth/admin.schema';
 import { ConfirmButton } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
-import { Dialog } from '@/components/ui/dialog';
 import { EmptyState } from '@/components/ui/empty-state';
 import { FormAlert } from '@/components/ui/form-alert';
 import { TextField } from '@/components/ui/text-field';
@@ -14,48 +13,22 @@ import { TextArea } from '@/features/suggestions/components/text-area';
 import { failureMessage } from '@/features/teams/utils/online-failure';
 import { useAccounts, useRestoreAccount, useSetAdmin, useSuspendAccount } from '../api/accounts';
 
+const ASK_WHY = 'Say why, for the next admin who reads this';
+
 /** Asks for a reason, then suspends: the account is signed out everywhere and cannot sign in until restored. */
 function SuspendAccount({ account }: { account: AdminAccount }) {
   const suspend = useSuspendAccount();
-  const [open, setOpen] = useState(false);
   const [note, setNote] = useState('');
   const [noteError, setNoteError] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const onOpenChange = (next: boolean) => {
-    setOpen(next);
-    if (!next) {
-      setNote('');
-      setNoteError(null);
-      setError(null);
-    }
-  };
-  const confirm = () => {
-    setNoteError(null);
-    setError(null);
-    if (!note.trim()) return setNoteError('Say why, for the next admin who reads this');
-    suspend.mutate(
-      { userId: account.id, note },
-      {
-        onSuccess: () => onOpenChange(false),
-        onError: (e) => {
-          const field = isApiError(e) ? e.fieldErrors.note?.[0] : undefined;
-          if (field) setNoteError(field);
-          else setError(failureMessage(e));
-        },
-      },
-    );
-  };
   return (
-    <>
-      <Button variant="secondary" className="shrink-0" onClick={() => onOpenChange(true)}>
-        <Ban aria-hidden="true" className="size-5" /> Suspend<span className="sr-only"> {account.displayName}</span>
-      </Button>
-      <Dialog
-        open={open}
-        onOpenChange={onOpenChange}
-        title={`Suspend ${account.displayName}?`}
-        description="They are signed out on every device at once and cannot sign in until an admin restores the account. Their cars, runs and setups stay as they are."
-      >
+    <ConfirmButton
+      variant="secondary"
+      title={`Suspend ${account.displayName}?`}
+      description="They are signed out on every device at once and cannot sign in until an admin restores the account. Their cars, runs and setups stay as they are."
+      confirmLabel="Suspend account"
+      pendingLabel="Suspending…"
+      isPending={suspend.isPending}
+      fields={
         <TextArea
           label="Why"
           hint="Kept with the account for the next admin; the person suspended does not see it."
@@ -65,17 +38,31 @@ function SuspendAccount({ account }: { account: AdminAccount }) {
           rows={3}
           maxLength={SUSPENSION_NOTE_MAX}
         />
-        <FormAlert message={error} />
-        <div className="flex flex-wrap gap-3">
-          <Button onClick={confirm} isPending={suspend.isPending} pendingLabel="Suspending…">
-            Suspend account
-          </Button>
-          <Button variant="secondary" onClick={() => onOpenChange(false)}>
-            Cancel
-          </Button>
-        </div>
-      </Dialog>
-    </>
+      }
+      onClose={() => {
+        setNote('');
+        setNoteError(null);
+      }}
+      onConfirm={({ onSuccess, onError }) => {
+        setNoteError(null);
+        if (!note.trim()) return setNoteError(ASK_WHY);
+        suspend.mutate(
+          { userId: account.id, note },
+          {
+            onSuccess,
+            // A refusal of the reason goes beside it; anything else above the buttons.
+            onError: (e) => {
+              const field = isApiError(e) ? e.fieldErrors.note?.[0] : undefined;
+              if (field) setNoteError(field);
+              else onError(e);
+            },
+          },
+        );
+      }}
+      failureText={failureMessage}
+    >
+      <Ban aria-hidden="true" className="size-5" /> Suspend<span className="sr-only"> {account.displayName}</span>
+    </ConfirmButton>
   );
 }
 
