@@ -92,6 +92,7 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'POST /api/auth/me/password': 'signed_in',
   'GET /api/auth/me/email': 'signed_in',
   'POST /api/auth/me/email': 'signed_in',
+  'POST /api/auth/me/close': 'signed_in',
   'POST /api/auth/me/email/confirm': 'signed_in',
   'GET /api/auth/me/sessions': 'signed_in',
   'POST /api/auth/me/sessions/end': 'signed_in',

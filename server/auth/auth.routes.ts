@@ -3,8 +3,8 @@ import type { DataSource } from 'typeorm';
 import { updatePreferencesInputSchema, type UpdatePreferencesInput, type User } from '@shared/auth/auth.schema';
 import { loginInputSchema, registerInputSchema, type LoginInput, type RegisterInput } from '@shared/auth/credentials.schema';
 import {
-  changeEmailInputSchema, changePasswordInputSchema, confirmEmailChangeSchema, endSessionsInputSchema,
-  type ChangeEmailInput, type ChangePasswordInput, type ConfirmEmailChange, type EndSessionsInput,
+  changeEmailInputSchema, changePasswordInputSchema, closeAccountInputSchema, confirmEmailChangeSchema, endSessionsInputSchema,
+  type ChangeEmailInput, type ChangePasswordInput, type CloseAccountInput, type ConfirmEmailChange, type EndSessionsInput,
 } from '@shared/auth/account.schema';
 import {
   PASSWORD_RESET_REQUESTED_MESSAGE,
@@ -26,6 +26,7 @@ import { confirmPasswordReset, requestPasswordReset } from './password-reset';
 import { changePassword } from './password-change';
 import { deviceLabel, endOtherSessions, listDevices } from './devices';
 import { assertNewAddress, confirmEmailChange, pendingEmailChange, requestEmailChange } from './email-change';
+import { closeAccount } from './close-account';
 
 interface Deps {
   ds: DataSource;
@@ -105,15 +106,20 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
     res.json({ user });
   });
 
-  router.post('/logout', (req, res, next) => {
-    req.logout((err) => {
-      if (err) return next(err);
-      req.session.destroy((destroyErr) => {
-        if (destroyErr) return next(destroyErr);
-        res.clearCookie(SESSION_COOKIE, { path: '/' });
-        res.status(204).end();
+  /** Signs this browser out: the session's row is deleted and its cookie cleared. */
+  function signOut(req: Request) {
+    return new Promise<void>((resolve, reject) => {
+      req.logout((err) => {
+        if (err) return reject(err);
+        req.session.destroy((destroyErr) => (destroyErr ? reject(destroyErr) : resolve()));
       });
     });
+  }
+
+  router.post('/logout', async (req, res) => {
+    await signOut(req);
+    res.clearCookie(SESSION_COOKIE, { path: '/' });
+    res.status(204).end();
   });
 
   router.get('/me', requireAuth, (req, res) => {
@@ -156,6 +162,18 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
     const { id } = currentUser(req);
     await confirmEmailChange(ds, id, parsed<ConfirmEmailChange>(res, 'body').token);
     res.json({ user: await findUserById(ds, id) });
+  });
+
+  /**
+   * Closes the account, the password typed again (counted like a sign-in): its cars and their seasons go, the
+   * rest is made anonymous, every device is signed out, this one included. 409 while others depend on it.
+   */
+  router.post('/me/close', requireAuth, validate({ body: closeAccountInputSchema }), async (req, res) => {
+    const input = parsed<CloseAccountInput>(res, 'body');
+    await withPasswordLimit(req, (user) => closeAccount(ds, mail, user, input));
+    await signOut(req);
+    res.clearCookie(SESSION_COOKIE, { path: '/' });
+    res.status(204).end();
   });
 
   /** The devices signed in to this account, this one first. */

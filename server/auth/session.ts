@@ -60,14 +60,14 @@ export function sessionStore(pool: Pool, touchAfter: number) {
           name: 'session_with_user',
           text: `SELECT s.sess, s.expire, u.id AS user_id, ${USER_COLUMNS}
                    FROM session s
-                   LEFT JOIN users u ON u.id = (s.sess #>> '{passport,user}')::uuid AND u.suspended_at IS NULL
+                   LEFT JOIN users u ON u.id = (s.sess #>> '{passport,user}')::uuid AND u.suspended_at IS NULL AND u.closed_at IS NULL
                   WHERE s.sid = $1 AND s.expire >= now()`,
           values: [sid],
         })
         .then(({ rows: [row] }) => {
           if (!row) return fn(null, null);
           const sess = typeof row.sess === 'string' ? (JSON.parse(row.sess) as SessionData) : row.sess;
-          // null: the session names an account that no longer exists, or one suspended since.
+          // null: the session names an account that no longer exists, or one suspended or closed since.
           const user = sess.passport?.user === undefined ? undefined : row.user_id ? userFromRow(row) : null;
           fn(null, { ...sess, [STORED_EXPIRY]: row.expire.getTime(), [SIGNED_IN_USER]: user });
         })

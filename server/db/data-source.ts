@@ -22,6 +22,7 @@ import { StoredFileRemovals1765152000000 } from './migrations/1765152000000-stor
 import { SessionAccountIndex1765238400000 } from './migrations/1765238400000-session-account-index';
 import { AccountSuspension1765324800000 } from './migrations/1765324800000-account-suspension';
 import { EmailChanges1765411200000 } from './migrations/1765411200000-email-changes';
+import { ClosedAccounts1765497600000 } from './migrations/1765497600000-closed-accounts';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -33,6 +34,7 @@ export const migrations = [
   Foundation1764633600000, SeasonRecord1764720000000, UserPreferences1764806400000, Collaboration1764892800000,
   ServiceVisits1764979200000, Attachments1765065600000, StoredFileRemovals1765152000000,
   SessionAccountIndex1765238400000, AccountSuspension1765324800000, EmailChanges1765411200000,
+  ClosedAccounts1765497600000,
 ];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */

@@ -18,6 +18,11 @@ export const changePasswordInputSchema = z
   .check(z.refine((v) => v.currentPassword !== v.newPassword, { message: 'Choose a password other than your current one', path: ['newPassword'] }));
 export type ChangePasswordInput = z.infer<typeof changePasswordInputSchema>;
 
+/** The password typed again before something that cannot be undone from another device. */
+const passwordAgainSchema = z
+  .string({ error: 'Enter your password' })
+  .check(z.minLength(1, 'Enter your password'), z.maxLength(PASSWORD_MAX * 4));
+
 /** One device signed in to the account (a session), named by a digest of its id, never the id itself. */
 export interface SignedInDevice {
   id: string;
@@ -32,9 +37,7 @@ export interface SignedInDevice {
 
 /** Signs out one other device, or every other one (no sessionId), with the password typed again (OWASP ASVS 4.0 V3.3.4). */
 export const endSessionsInputSchema = z.strictObject({
-  password: z
-    .string({ error: 'Enter your password' })
-    .check(z.minLength(1, 'Enter your password'), z.maxLength(PASSWORD_MAX * 4)),
+  password: passwordAgainSchema,
   sessionId: z.optional(z.string({ error: 'Choose a device from the list' }).check(z.regex(/^[0-9a-f]{32}$/, 'Choose a device from the list'))),
 });
 export type EndSessionsInput = z.infer<typeof endSessionsInputSchema>;
@@ -45,9 +48,7 @@ export const EMAIL_CHANGE_TTL_MS = 24 * 60 * 60 * 1000;
 /** A new sign-in address, with the password typed again (OWASP ASVS 4.0 V3.7.1). */
 export const changeEmailInputSchema = z.strictObject({
   newEmail: emailSchema,
-  password: z
-    .string({ error: 'Enter your password' })
-    .check(z.minLength(1, 'Enter your password'), z.maxLength(PASSWORD_MAX * 4)),
+  password: passwordAgainSchema,
 });
 export type ChangeEmailInput = z.infer<typeof changeEmailInputSchema>;
 
@@ -64,3 +65,10 @@ export interface PendingEmailChange {
 
 /** The query parameter the link sets on the settings page: /settings?email-link=… */
 export const EMAIL_LINK_PARAM = 'email-link';
+
+/** Closing one's own account, with the password typed again (OWASP ASVS 4.0 V8.3.2: data removed on demand). */
+export const closeAccountInputSchema = z.strictObject({ password: passwordAgainSchema });
+export type CloseAccountInput = z.infer<typeof closeAccountInputSchema>;
+
+/** What a closed account is called wherever its old records still name it. */
+export const CLOSED_ACCOUNT_NAME = 'Closed account';

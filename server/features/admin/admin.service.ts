@@ -33,13 +33,13 @@ function toAccount(r: AccountRow): AdminAccount {
   };
 }
 
-/** Accounts whose name or e-mail holds `q` (all when none), suspended ones first, then by name. */
+/** Accounts whose name or e-mail holds `q` (all when none), suspended ones first, then by name; closed ones never. */
 export async function listAccounts(ds: DataSource, q: string | undefined): Promise<AdminAccountList> {
   const like = q ? `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
   const rows: AccountRow[] = await ds.query(
     `SELECT ${ACCOUNT_COLUMNS}, count(*) OVER ()::int AS total
        FROM users u
-      WHERE $1::text IS NULL OR u.email ILIKE $1 OR u.display_name ILIKE $1
+      WHERE u.closed_at IS NULL AND ($1::text IS NULL OR u.email ILIKE $1 OR u.display_name ILIKE $1)
       ORDER BY u.suspended_at IS NULL, lower(u.display_name), u.email
       LIMIT ${ACCOUNT_LIST_LIMIT}`,
     [like],
@@ -48,7 +48,7 @@ export async function listAccounts(ds: DataSource, q: string | undefined): Promi
 }
 
 async function loadAccount(ds: DataSource, id: string): Promise<AdminAccount> {
-  const rows: AccountRow[] = await ds.query(`SELECT ${ACCOUNT_COLUMNS}, 1 AS total FROM users u WHERE u.id = $1`, [id]);
+  const rows: AccountRow[] = await ds.query(`SELECT ${ACCOUNT_COLUMNS}, 1 AS total FROM users u WHERE u.id = $1 AND u.closed_at IS NULL`, [id]);
   if (!rows[0]) throw notFound('That account');
   return toAccount(rows[0]);
 }
@@ -63,7 +63,7 @@ export async function suspendAccount(ds: DataSource, admin: User, id: string, in
   await ds.transaction(async (m) => {
     const rows: { id: string }[] = await m.query(
       `UPDATE users SET suspended_at = coalesce(suspended_at, now()), suspended_by = $2, suspension_note = $3, updated_at = now()
-        WHERE id = $1 RETURNING id`,
+        WHERE id = $1 AND closed_at IS NULL RETURNING id`,
       [id, admin.id, input.note],
     );
     if (!rows[0]) throw notFound('That account');
@@ -88,7 +88,7 @@ export async function restoreAccount(ds: DataSource, id: string): Promise<AdminA
  */
 export async function setAdmin(ds: DataSource, admin: User, id: string, isAdmin: boolean): Promise<AdminAccount> {
   if (id === admin.id && !isAdmin) throw new AppError('conflict', 'You cannot take the admin role from yourself; ask another admin.');
-  const rows: { id: string }[] = await ds.query('UPDATE users SET is_admin = $2, updated_at = now() WHERE id = $1 RETURNING id', [id, isAdmin]);
+  const rows: { id: string }[] = await ds.query('UPDATE users SET is_admin = $2, updated_at = now() WHERE id = $1 AND closed_at IS NULL RETURNING id', [id, isAdmin]);
   if (!rows[0]) throw notFound('That account');
   return loadAccount(ds, id);
 }
