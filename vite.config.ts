@@ -61,6 +61,9 @@ function precompress(): Plugin {
   };
 }
 
+/** The chunks `codeSplitting.groups` makes, and the bundler's runtime, named in their files (see `chunkFileNames`). */
+const NAMED_GROUPS = new Set(['app', 'ui', 'zxcvbn', 'trackside', 'rolldown-runtime']);
+
 export default defineConfig({
   define: { __APP_VERSION__: JSON.stringify(version) },
   plugins: [
@@ -123,6 +126,10 @@ export default defineConfig({
     },
     rolldownOptions: {
       output: {
+        // The small pieces several pages share go by their hash alone: every file a page may load later is
+        // named in the first download, so a name there is bytes on every phone's first visit. Pages and the
+        // groups below keep their names, for the network panel and the tests that look for them.
+        chunkFileNames: (chunk) => (chunk.isDynamicEntry || NAMED_GROUPS.has(chunk.name) ? 'assets/[name]-[hash].js' : 'assets/[hash].js'),
         // Fewer, larger files than one per set of shared modules: fewer requests, and each compresses
         // better. The service worker keeps every chunk on the device either way.
         codeSplitting: {

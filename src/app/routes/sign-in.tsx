@@ -9,11 +9,12 @@ import { LoginForm } from '@/features/auth/components/login-form';
  * that send it share no code with this one.
  */
 export interface SignInState {
-  notice: 'password-changed';
+  notice: 'password-changed' | 'account-closed';
 }
 
 const NOTICES: Record<SignInState['notice'], string> = {
   'password-changed': 'Your password is changed. Sign in with the new one.',
+  'account-closed': 'Your account is closed.',
 };
 
 function noticeOf(state: unknown): string | null {

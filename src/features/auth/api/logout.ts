@@ -12,23 +12,25 @@ export async function logout(): Promise<void> {
 }
 
 /**
- * Signs out and leaves nothing of the session on the device: the outbox is emptied, the query
- * cache (and with it the copy kept on the device, rewritten from it) is cleared, and the
- * sign-in page opens. Screens warn first when entries are still waiting (see AccountMenu).
+ * What signing out leaves on the device: nothing. The outbox is emptied, the query cache (and with it the
+ * copy kept on the device, rewritten from it) is cleared, and the sign-in page opens, with `state` for it.
  */
-export function useLogout() {
+export function useLeaveDevice() {
   const queryClient = useQueryClient();
   const outbox = useOutbox();
   const navigate = useNavigate();
-  return useMutation({
-    mutationFn: logout,
-    onSuccess: async () => {
-      await outbox.clear();
-      queryClient.clear();
-      // Marked signed out after the clear, so that the sign-in page does not send us straight back.
-      queryClient.setQueryData(authKeys.me(), null);
-      clearToasts();
-      await navigate(paths.signIn, { replace: true });
-    },
-  });
+  return async (state?: object) => {
+    await outbox.clear();
+    queryClient.clear();
+    // Marked signed out after the clear, so that the sign-in page does not send us straight back.
+    queryClient.setQueryData(authKeys.me(), null);
+    clearToasts();
+    await navigate(paths.signIn, { replace: true, state });
+  };
+}
+
+/** Signs out (see useLeaveDevice). Screens warn first when entries are still waiting (see AccountMenu). */
+export function useLogout() {
+  const leave = useLeaveDevice();
+  return useMutation({ mutationFn: logout, onSuccess: () => leave() });
 }

@@ -1,0 +1,91 @@
+import { useEffect, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Link } from 'react-router-dom';
+import { CLOSED_ACCOUNT_NAME, closeAccountInputSchema, type CloseAccountInput } from '@shared/auth/account.schema';
+import { Button } from '@/components/ui/button';
+import { FormAlert } from '@/components/ui/form-alert';
+import { PasswordField } from '@/components/ui/password-field';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { applyServerErrors } from '@/lib/form-errors';
+import { useOutboxEntries } from '@/lib/outbox-context';
+import { onDeviceOnlyText } from '@/lib/outbox-summary';
+import { useCloseAccount } from '../api/close-account';
+
+const NO_CONNECTION = 'No connection: your account is still open. Try again when you have signal.';
+
+/** The password typed again, with what goes and what stays said right above the button. */
+function CloseAccountForm({ email, onCancel }: { email: string; onCancel: () => void }) {
+  const close = useCloseAccount();
+  const entries = useOutboxEntries();
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, setFocus, formState } = useForm<CloseAccountInput>({
+    resolver: zodResolver(closeAccountInputSchema),
+    defaultValues: { password: '' },
+  });
+  useEffect(() => setFocus('password'), [setFocus]);
+  const onSubmit = handleSubmit((input) => {
+    setFormError(null);
+    close.mutate(input, {
+      onError: (error) => {
+        if (isApiError(error) && error.code === 'network') setFormError(NO_CONNECTION);
+        else setFormError(applyServerErrors(error, setError, ['password']));
+      },
+    });
+  });
+  return (
+    <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Close account" className="flex flex-col gap-3 rounded border border-line-strong p-3">
+      <input type="text" name="username" autoComplete="username" value={email} readOnly hidden />
+      <p className="font-semibold">This cannot be undone. Type your password to close the account.</p>
+      {entries.length ? (
+        <p className="rounded border border-line bg-surface-raised p-3 text-sm">
+          <span className="font-bold">{onDeviceOnlyText(entries)}.</span> Closing the account deletes them too.
+        </p>
+      ) : null}
+      <PasswordField label="Your password" autoComplete="current-password" error={formState.errors.password?.message} {...register('password')} />
+      <FormAlert message={formError} />
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" isPending={close.isPending} pendingLabel="Closing…">
+          Close my account
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Keep my account
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+/**
+ * Closing the account (OWASP ASVS 4.0 V8.3.2): what is deleted, what stays with other people's records, and
+ * where to download a season first.
+ */
+export function CloseAccount({ email }: { email: string }) {
+  const [open, setOpen] = useState(false);
+  return (
+    <div className="flex flex-col gap-3">
+      <ul className="list-disc space-y-1 pl-5 text-sm">
+        <li>Your cars are deleted, with every event, run, setup, tyre reading, file and work order on them, your co-drivers’ runs included.</li>
+        <li>Your comments are deleted, and you leave your shops and teams.</li>
+        <li>
+          Runs you drove on other people’s cars, and setups or suggestions you wrote for them, stay in their seasons under “{CLOSED_ACCOUNT_NAME}”.
+        </li>
+      </ul>
+      <p className="text-sm text-ink-muted">
+        To keep a season, download it first from the car’s page in{' '}
+        <Link to={paths.cars} className="font-bold text-link underline">
+          Cars
+        </Link>{' '}
+        (Download everything).
+      </p>
+      {open ? (
+        <CloseAccountForm email={email} onCancel={() => setOpen(false)} />
+      ) : (
+        <Button variant="secondary" className="self-start" onClick={() => setOpen(true)}>
+          Close account…
+        </Button>
+      )}
+    </div>
+  );
+}
