@@ -5,6 +5,8 @@ import { join } from 'node:path';
 export interface ManifestChunk {
   file: string;
   src?: string;
+  /** The chunk's name (a page's module, or a shared piece's first module), also when its file goes by its hash alone. */
+  name?: string;
   isEntry?: boolean;
   imports?: string[];
   dynamicImports?: string[];
