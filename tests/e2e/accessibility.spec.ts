@@ -111,6 +111,12 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
     await page.getByRole('button', { name: /^Save run/ }).click();
     await page.getByText('Not saved: fix what is marked.').waitFor();
     found.push(...(await audit(page, 'event day, a refused run')));
+    // Closing the account: the question open, with its password refused for being empty (nothing is sent).
+    await page.goto(`${baseUrl}/settings`);
+    await page.getByRole('button', { name: 'Close account…' }).click();
+    await page.getByRole('button', { name: 'Close my account' }).click();
+    await page.getByRole('form', { name: 'Close account' }).getByText('Enter your password').waitFor();
+    found.push(...(await audit(page, 'settings, closing the account')));
     expect(found).toEqual([]);
   });
 
