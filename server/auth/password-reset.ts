@@ -30,7 +30,7 @@ export async function requestPasswordReset(ds: DataSource, mail: MailSettings | 
   // One statement either way: it inserts a row only when an account uses the address.
   const rows: { email: string }[] = await ds.query(
     `INSERT INTO password_resets (token_hash, user_id, expires_at)
-     SELECT $1, u.id, $3 FROM users u WHERE u.email = $2
+     SELECT $1, u.id, $3 FROM users u WHERE u.email = $2 AND u.closed_at IS NULL
      RETURNING (SELECT email FROM users WHERE id = user_id) AS email`,
     [hash, email.trim().toLowerCase(), new Date(Date.now() + PASSWORD_RESET_TTL_MS)],
   );

@@ -136,7 +136,7 @@ export async function deleteCar(ds: DataSource, user: User, carId: string): Prom
 
 export async function addCoDriver(ds: DataSource, user: User, carId: string, email: string): Promise<Car> {
   await assertCarAccess(ds, user, carId, 'manage');
-  const found: { id: string }[] = await ds.query('SELECT id FROM users WHERE email = $1', [email.trim().toLowerCase()]);
+  const found: { id: string }[] = await ds.query('SELECT id FROM users WHERE email = $1 AND closed_at IS NULL', [email.trim().toLowerCase()]);
   const coDriverId = found[0]?.id;
   if (!coDriverId) {
     throw new AppError('validation_failed', 'No account uses that e-mail.', { email: ['No account uses that e-mail; ask them to register first'] });

@@ -95,6 +95,14 @@ describe('closing one’s own account', () => {
     expect(farewell?.subject).toBe('Your Scrubline account is closed');
     expect(farewell?.text).toContain('Its car was deleted with its season.');
 
+    // Its stand-in address reaches nobody: no reset link is made for it, and no car can take it as a co-driver.
+    const reset = await client(t.app).post('/api/auth/password-reset', { email: closedAddress(user.id) });
+    expect(reset.status).toBe(202);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM password_resets WHERE user_id = $1', [user.id])).toBe(0);
+    const owner = await signedInClient(t);
+    const ownCar = await owner.c.post('/api/cars', { name: 'Borrowed coupe', classCode: 'SS' });
+    expectFieldErrors(await owner.c.post(`/api/cars/${ownCar.body.id}/co-drivers`, { email: closedAddress(user.id) }), ['email']);
+
     // The address may be used for a new, empty account.
     const again = await client(t.app).post('/api/auth/register', { email, password: TEST_PASSWORD, displayName: 'Oskar Penhale' });
     expect(again.status, JSON.stringify(again.body)).toBe(201);
