@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CLOSED_ACCOUNT_NAME } from '../../../shared/auth/account.schema';
 import { closedAddress, WRONG_PASSWORD } from '../../../server/auth/close-account';
@@ -170,8 +171,14 @@ describe('closing one’s own account', () => {
     const priya = await demo('secondDriver');
     const carIds = ((await t.ds.query('SELECT id FROM cars WHERE owner_id = $1', [maren.id])) as { id: string }[]).map((r) => r.id);
     expect(carIds.length).toBeGreaterThan(0);
-    const files = await countOf(t, 'SELECT count(*) AS n FROM attachments WHERE car_id = ANY($1)', [carIds]);
-    const queuedBefore = await countOf(t, 'SELECT count(*) AS n FROM stored_file_removals');
+    // A photo on one of her runs, as an upload stores it.
+    const storageKey = `${randomUUID()}/original`;
+    await t.ds.query(
+      `INSERT INTO attachments (id, car_id, run_id, storage_key, file_name, content_type, size_bytes, uploaded_by)
+       SELECT gen_random_uuid(), r.car_id, r.id, $2, 'tyre-chalk.jpg', 'image/jpeg', 1234, $1 FROM runs r WHERE r.car_id = ANY($3) LIMIT 1`,
+      [maren.id, storageKey, carIds],
+    );
+    expect(await countOf(t, 'SELECT count(*) AS n FROM attachments WHERE storage_key = $1', [storageKey])).toBe(1);
     const shared: { id: string }[] = await t.ds.query(
       'SELECT DISTINCT e.id FROM events e JOIN runs r ON r.event_id = e.id WHERE e.created_by = $1 AND r.car_id <> ALL($2)',
       [maren.id, carIds],
@@ -198,8 +205,9 @@ describe('closing one’s own account', () => {
     ] as const) {
       expect(await countOf(t, sql, [...params]), sql).toBe(0);
     }
-    // Every stored file of her cars is queued for removal from storage.
-    expect(await countOf(t, 'SELECT count(*) AS n FROM stored_file_removals')).toBeGreaterThanOrEqual(queuedBefore + files);
+    // The stored file goes with its record: queued for removal from storage in the same transaction.
+    expect(await countOf(t, 'SELECT count(*) AS n FROM attachments WHERE storage_key = $1', [storageKey])).toBe(0);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM stored_file_removals WHERE storage_key = $1', [storageKey])).toBe(1);
     // The other driver's season and the events it uses are untouched.
     expect(await countOf(t, 'SELECT count(*) AS n FROM runs WHERE driver_id = $1', [priya.id])).toBe(priyaRuns);
     expect(await countOf(t, 'SELECT count(*) AS n FROM events WHERE id = ANY($1)', [shared.map((e) => e.id)])).toBe(shared.length);
