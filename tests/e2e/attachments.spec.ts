@@ -30,7 +30,7 @@ describe('photos on a tread reading (phone)', () => {
     const page = await signIn(browser.page, baseUrl, 'maren@example.com', 'Maren Holloway');
 
     await page.getByRole('link', { name: /Pebble/ }).first().click();
-    await page.getByRole('link', { name: 'Enter tread' }).click();
+    await page.getByRole('link', { name: 'Enter tread', exact: true }).click();
     const readings = page.getByRole('list', { name: 'Latest reading of each set' });
     await readings.waitFor({ timeout: 20_000 });
     const reading = readings.getByRole('listitem').first();
