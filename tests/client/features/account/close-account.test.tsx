@@ -35,7 +35,7 @@ describe('closing the account from settings', () => {
   it('when the section is read, then it says what is deleted, what stays under which name, and where to download a season first', async () => {
     open();
     const s = await section();
-    expect(s.getByText(/Your cars are deleted, with every event, run, setup/)).toBeTruthy();
+    expect(s.getByText(/Your cars are deleted, with every run, setup, tyre reading/)).toBeTruthy();
     expect(s.getByText(new RegExp(`stay in their seasons under “${CLOSED_ACCOUNT_NAME}”`))).toBeTruthy();
     expect(s.getByRole('link', { name: 'Cars' }).getAttribute('href')).toBe('/cars');
   });
