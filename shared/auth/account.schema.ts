@@ -70,5 +70,4 @@ export const EMAIL_LINK_PARAM = 'email-link';
 export const closeAccountInputSchema = z.strictObject({ password: passwordAgainSchema });
 export type CloseAccountInput = z.infer<typeof closeAccountInputSchema>;
 
-/** What a closed account is called wherever its old records still name it. */
-export const CLOSED_ACCOUNT_NAME = 'Closed account';
+export { CLOSED_ACCOUNT_NAME } from './person-name';

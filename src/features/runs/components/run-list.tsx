@@ -1,5 +1,6 @@
 import { lazy, Suspense, useState, type ReactNode } from 'react';
 import { Pencil, Trophy } from 'lucide-react';
+import { shortName } from '@shared/auth/person-name';
 import type { Corner } from '@shared/season/corners';
 import { formatRunTime } from '@shared/season/run-time';
 import { CornerGrid } from '@/components/corner-grid/corner-grid';
@@ -127,7 +128,7 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
         const taken = rows.filter((r) => r.id !== row.id && r.driver.id === row.driver.id).map((r) => r.runNumber);
         const hot = row.hotPressuresKpa;
         // Each driver of a shared car is scored on their own runs: the best and the % off it say whose.
-        const whose = `${row.driver.displayName.split(' ')[0]}’s best`;
+        const whose = `${shortName(row.driver.displayName)}’s best`;
         return (
           <li
             key={row.id}

@@ -3,6 +3,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { endOfDay, parseISO } from 'date-fns';
 import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { CLOSED_ACCOUNT_NAME } from '../../../../shared/auth/person-name';
 import { IMPERIAL_PREFERENCES, KPA_PER_PSI, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
 import type { Run } from '../../../../shared/season/run.schema';
 import type { Setup } from '../../../../shared/season/setup.schema';
@@ -281,6 +282,22 @@ describe('event day', () => {
     expect(screen.queryByText('Best')).toBeNull();
     // (47.0 − 46.5) / 46.5 = 1.08 %, off Maren's own best, not the car's (45.9, which would be 2.40 %).
     expect(within(screen.getByRole('listitem', { name: 'Run 2, Maren Holt' })).getByText('+1.08 % off Maren’s best')).toBeTruthy();
+  });
+
+  it('when a co-driver has closed their account, then their runs say “Closed account’s best”, not a first name that is not one', async () => {
+    const closed = { id: IDS.tomas, displayName: CLOSED_ACCOUNT_NAME };
+    stubWithRuns([
+      savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 46.5, adjustedTimeSec: 46.5 }),
+      savedRun({ id: UUID_TOMAS_RUN, runNumber: 1, driver: closed, rawTimeSec: 45.9, adjustedTimeSec: 45.9, recordedAt: '2026-06-07T09:45:00.000Z' }),
+      savedRun({ id: IDS.run2, runNumber: 2, driver: closed, rawTimeSec: 47, adjustedTimeSec: 47, isBest: false, recordedAt: '2026-06-07T10:00:00.000Z' }),
+    ]);
+    renderApp(PATH);
+
+    const best = await screen.findByRole('listitem', { name: 'Run 1, Closed account, best' });
+    expect(within(best).getByText('Closed account’s best')).toBeTruthy();
+    // (47.0 − 45.9) / 45.9 = 2.40 %.
+    expect(within(screen.getByRole('listitem', { name: 'Run 2, Closed account' })).getByText('+2.40 % off Closed account’s best')).toBeTruthy();
+    expect(screen.queryByText(/Closed’s best/)).toBeNull();
   });
 
   it('when the event was on an earlier day, then its runs are headed with its date, not as today’s', async () => {
