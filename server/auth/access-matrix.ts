@@ -93,6 +93,7 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'GET /api/auth/me/email': 'signed_in',
   'POST /api/auth/me/email': 'signed_in',
   'POST /api/auth/me/close': 'signed_in',
+  'GET /api/auth/me/export.json': 'signed_in',
   'POST /api/auth/me/email/confirm': 'signed_in',
   'GET /api/auth/me/sessions': 'signed_in',
   'POST /api/auth/me/sessions/end': 'signed_in',

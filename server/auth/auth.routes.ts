@@ -27,6 +27,7 @@ import { changePassword } from './password-change';
 import { deviceLabel, endOtherSessions, listDevices } from './devices';
 import { assertNewAddress, confirmEmailChange, pendingEmailChange, requestEmailChange } from './email-change';
 import { closeAccount } from './close-account';
+import { accountFileName, exportAccount } from '../features/exports/account-export';
 
 interface Deps {
   ds: DataSource;
@@ -162,6 +163,14 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
     const { id } = currentUser(req);
     await confirmEmailChange(ds, id, parsed<ConfirmEmailChange>(res, 'body').token);
     res.json({ user: await findUserById(ds, id) });
+  });
+
+  /** Everything the account holds, as one JSON file to keep (its cars' season files among it). */
+  router.get('/me/export.json', requireAuth, async (req, res) => {
+    const file = await exportAccount(ds, currentUser(req));
+    res.setHeader('Content-Disposition', `attachment; filename="${accountFileName()}"`);
+    res.setHeader('Cache-Control', 'no-store');
+    res.type('application/json; charset=utf-8').send(JSON.stringify(file, null, 2));
   });
 
   /**

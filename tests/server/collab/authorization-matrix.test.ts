@@ -189,6 +189,7 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
   },
   // A link that was never sent: 400 for everyone signed in.
   'POST /api/auth/me/email/confirm': { call: () => ({ path: '/api/auth/me/email/confirm', body: { token: 'x'.repeat(43) } }), expect: signedIn(400) },
+  'GET /api/auth/me/export.json': { call: () => ({ path: '/api/auth/me/export.json' }), expect: signedIn(200) },
   // A wrong password: every signed-in person reaches the check (400), no account is closed.
   'POST /api/auth/me/close': { call: () => ({ path: '/api/auth/me/close', body: { password: 'not the password at all' } }), expect: signedIn(400) },
   'GET /api/auth/me/sessions': { call: () => ({ path: '/api/auth/me/sessions' }), expect: signedIn(200) },
