@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { readBuildManifest } from '../../server/lib/build-manifest';
@@ -103,9 +104,15 @@ describe('signing up and in on a phone (390×844)', () => {
     await page.getByRole('heading', { name: 'Hi, Wren Halloway' }).waitFor();
   });
 
-  it('when they close their account, then the phone is signed out, the sign-in page says so, and the address and password no longer sign in', async () => {
+  it('when they download their data and close their account, then the file holds the account, the phone is signed out, the sign-in page says so, and the address and password no longer sign in', async () => {
     const moved = `moved-${email}`;
     await page.goto(`${baseUrl}/settings`);
+    // First the data, as the page suggests: one file the browser saves.
+    const [saved] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download your data' }).click()]);
+    expect(saved.suggestedFilename()).toMatch(/^scrubline-account-\d{4}-\d{2}-\d{2}\.json$/);
+    const file = JSON.parse(readFileSync(await saved.path(), 'utf8')) as { format: string; account: { email: string; displayName: string } };
+    expect(file).toMatchObject({ format: 'scrubline-account', account: { email: moved, displayName: 'Wren Halloway' } });
+
     await page.getByRole('button', { name: 'Close account…' }).click();
     await page.getByRole('form', { name: 'Close account' }).getByLabel('Your password').fill(password);
     await page.getByRole('form', { name: 'Close account' }).scrollIntoViewIfNeeded();

@@ -8,7 +8,7 @@ import { EmailNotificationsSwitch } from '@/features/account/components/email-no
 import { ChangePasswordForm } from '@/features/account/components/change-password-form';
 import { SignedInDevices } from '@/features/account/components/signed-in-devices';
 import { EmailLinkResult, SignInAddress } from '@/features/account/components/change-email';
-import { CloseAccount } from '@/features/account/components/close-account';
+import { CloseAccount, DownloadYourData } from '@/features/account/components/your-data';
 
 const EMAIL_OFFLINE = 'No connection: the e-mail setting was not changed. Try again when you have signal.';
 
@@ -40,7 +40,7 @@ export function SettingsPage() {
       <title>Settings · Scrubline</title>
       <div className="flex flex-col gap-1">
         <h1 className="text-3xl font-extrabold">Settings</h1>
-        <p className="text-ink-muted">Your account’s units, e-mail address and e-mails, password and signed-in devices, and closing it.</p>
+        <p className="text-ink-muted">Your account’s units, e-mail address and e-mails, password and signed-in devices, your data and closing the account.</p>
       </div>
       {/* The link from a new address lands here: what it did is said first, above the fold. */}
       <EmailLinkResult />
@@ -57,6 +57,9 @@ export function SettingsPage() {
       </SectionCard>
       <SectionCard title="Signed-in devices">
         <SignedInDevices />
+      </SectionCard>
+      <SectionCard title="Your data">
+        <DownloadYourData />
       </SectionCard>
       <SectionCard title="Close account">
         <CloseAccount email={user.email} />

@@ -32,12 +32,17 @@ async function openForm(u: ReturnType<typeof userEvent.setup>) {
 }
 
 describe('closing the account from settings', () => {
-  it('when the section is read, then it says what is deleted, what stays under which name, and where to download a season first', async () => {
+  it('when the section is read, then it says what is deleted, what stays under which name, and that the data downloads first from just above', async () => {
     open();
     const s = await section();
     expect(s.getByText(/Your cars are deleted, with every run, setup, tyre reading/)).toBeTruthy();
     expect(s.getByText(new RegExp(`stay in their seasons under “${CLOSED_ACCOUNT_NAME}”`))).toBeTruthy();
-    expect(s.getByRole('link', { name: 'Cars' }).getAttribute('href')).toBe('/cars');
+    expect(s.getByText('To keep your seasons, download your data first (above).')).toBeTruthy();
+    // The download above it is a plain link to the account's file, saved by the browser.
+    const data = within(screen.getByRole('region', { name: 'Your data' }));
+    const link = data.getByRole('link', { name: 'Download your data' });
+    expect(link.getAttribute('href')).toBe('/api/auth/me/export.json');
+    expect(link.hasAttribute('download')).toBe(true);
   });
 
   it('when the form is sent without a password, then the field says so and nothing is sent; “Keep my account” closes it', async () => {

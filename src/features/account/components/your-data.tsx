@@ -1,12 +1,11 @@
 import { useEffect, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Link } from 'react-router-dom';
 import { CLOSED_ACCOUNT_NAME, closeAccountInputSchema, type CloseAccountInput } from '@shared/auth/account.schema';
-import { Button } from '@/components/ui/button';
+import { ACCOUNT_EXPORT_PATH } from '@shared/export/account-export';
+import { Button, buttonClasses } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';
-import { paths } from '@/config/paths';
 import { isApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useOutboxEntries } from '@/lib/outbox-context';
@@ -58,8 +57,25 @@ function CloseAccountForm({ email, onCancel }: { email: string; onCancel: () => 
 }
 
 /**
- * Closing the account (OWASP ASVS 4.0 V8.3.2): what is deleted, what stays with other people's records, and
- * where to download a season first.
+ * Everything the account holds, as one file (OWASP ASVS 4.0 V8.3.2): a plain link, so the browser saves it as
+ * it saves any download.
+ */
+export function DownloadYourData() {
+  return (
+    <div className="flex flex-col gap-3">
+      <p className="text-sm">
+        One JSON file with your profile and settings, each of your cars’ seasons (each one imports again on its own, from
+        the Cars page), the runs you drove on other people’s cars, your comments, and the shops and teams you belong to.
+      </p>
+      <a href={ACCOUNT_EXPORT_PATH} download className={buttonClasses('secondary', 'self-start')}>
+        Download your data
+      </a>
+    </div>
+  );
+}
+
+/**
+ * Closing the account (OWASP ASVS 4.0 V8.3.2): what is deleted, and what stays with other people's records.
  */
 export function CloseAccount({ email }: { email: string }) {
   const [open, setOpen] = useState(false);
@@ -72,13 +88,7 @@ export function CloseAccount({ email }: { email: string }) {
           Runs you drove on other people’s cars, and setups or suggestions you wrote for them, stay in their seasons under “{CLOSED_ACCOUNT_NAME}”.
         </li>
       </ul>
-      <p className="text-sm text-ink-muted">
-        To keep a season, download it first from the car’s page in{' '}
-        <Link to={paths.cars} className="font-bold text-link underline">
-          Cars
-        </Link>{' '}
-        (Download everything).
-      </p>
+      <p className="text-sm text-ink-muted">To keep your seasons, download your data first (above).</p>
       {open ? (
         <CloseAccountForm email={email} onCancel={() => setOpen(false)} />
       ) : (
