@@ -58,7 +58,7 @@ export function SettingsPage() {
       <SectionCard title="Signed-in devices">
         <SignedInDevices />
       </SectionCard>
-      <SectionCard title="Your data">
+      <SectionCard title="Your account’s data">
         <DownloadYourData />
       </SectionCard>
       <SectionCard title="Close account">

@@ -39,7 +39,7 @@ describe('closing the account from settings', () => {
     expect(s.getByText(new RegExp(`stay in their seasons under “${CLOSED_ACCOUNT_NAME}”`))).toBeTruthy();
     expect(s.getByText('To keep your seasons, download your data first (above).')).toBeTruthy();
     // The download above it is a plain link to the account's file, saved by the browser.
-    const data = within(screen.getByRole('region', { name: 'Your data' }));
+    const data = within(screen.getByRole('region', { name: 'Your account’s data' }));
     const link = data.getByRole('link', { name: 'Download your data' });
     expect(link.getAttribute('href')).toBe('/api/auth/me/export.json');
     expect(link.hasAttribute('download')).toBe(true);
