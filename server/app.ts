@@ -160,7 +160,7 @@ export function createApp(opts: AppOptions) {
 
   const limits = createAuthRateLimits(opts.pool, { ...DEFAULT_AUTH_LIMITS, ...opts.authLimits });
   mount('/api/auth', authRoutes({ ds: opts.ds, passport, limits, generateCsrfToken: generateToken, mail: opts.mail, idleMs: opts.session.idleMs }));
-  mount('/api/admin', adminRoutes(opts.ds));
+  mount('/api/admin', adminRoutes(opts.ds, opts.mail));
   mount('/api/cars/:carId/setups', carSetupRoutes(opts.ds));
   mount('/api/cars/:carId/changes', changeRoutes(opts.ds));
   mount('/api/cars/:carId/shop-grants', carShopGrantRoutes(opts.ds, opts.mail));

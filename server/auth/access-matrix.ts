@@ -103,6 +103,7 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'GET /api/admin/users': 'users.manage',
   'POST /api/admin/users/:userId/suspend': 'users.manage',
   'POST /api/admin/users/:userId/restore': 'users.manage',
+  'POST /api/admin/users/:userId/close': 'users.manage',
   'PUT /api/admin/users/:userId/admin': 'users.manage',
 
   'POST /api/cars': 'signed_in',

@@ -53,3 +53,11 @@ export const setAdminInputSchema = z.strictObject({
   isAdmin: z.boolean({ error: 'Choose yes or no' }),
 });
 export type SetAdminInput = z.infer<typeof setAdminInputSchema>;
+
+/** An admin closing a suspended account types its address again, as the confirmation. */
+export const closeAccountByAdminInputSchema = z.strictObject({
+  email: z
+    .string({ error: 'Type the account’s e-mail address' })
+    .check(z.trim(), z.toLowerCase(), z.minLength(1, 'Type the account’s e-mail address'), z.maxLength(254, 'An e-mail address has at most 254 characters')),
+});
+export type CloseAccountByAdminInput = z.infer<typeof closeAccountByAdminInputSchema>;

@@ -1,15 +1,18 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import {
-  accountListQuerySchema, setAdminInputSchema, suspendAccountInputSchema, type AccountListQuery, type SetAdminInput, type SuspendAccountInput,
+  accountListQuerySchema, closeAccountByAdminInputSchema, setAdminInputSchema, suspendAccountInputSchema,
+  type AccountListQuery, type CloseAccountByAdminInput, type SetAdminInput, type SuspendAccountInput,
 } from '@shared/auth/admin.schema';
 import { currentUser, requireRole } from '../../auth/access';
 import { idParam } from '../../lib/http';
 import { parsed, validate } from '../../lib/validate';
+import { closeAccountAsAdmin } from '../../auth/close-account';
+import type { MailSettings } from '../../mail/mailer';
 import { listAccounts, restoreAccount, setAdmin, suspendAccount } from './admin.service';
 
-/** Administration: the accounts, suspending or restoring one's sign-in, and the admin role. */
-export function adminRoutes(ds: DataSource) {
+/** Administration: the accounts, suspending or restoring one's sign-in, closing a suspended one, and the admin role. */
+export function adminRoutes(ds: DataSource, mail?: MailSettings) {
   const router = Router();
   router.use(requireRole('admin'));
   const userParam = validate({ params: idParam('userId') });
@@ -23,6 +26,12 @@ export function adminRoutes(ds: DataSource) {
   });
   router.post('/users/:userId/restore', userParam, async (_req, res) => {
     res.json(await restoreAccount(ds, parsed<{ userId: string }>(res, 'params').userId));
+  });
+  /** A suspended account closed for good, its address typed again: 204, and it no longer appears. */
+  router.post('/users/:userId/close', userParam, validate({ body: closeAccountByAdminInputSchema }), async (req, res) => {
+    const { userId } = parsed<{ userId: string }>(res, 'params');
+    await closeAccountAsAdmin(ds, mail, currentUser(req), userId, parsed<CloseAccountByAdminInput>(res, 'body'));
+    res.status(204).end();
   });
   router.put('/users/:userId/admin', userParam, validate({ body: setAdminInputSchema }), async (req, res) => {
     const { userId } = parsed<{ userId: string }>(res, 'params');

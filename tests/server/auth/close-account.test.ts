@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CLOSED_ACCOUNT_NAME } from '../../../shared/auth/account.schema';
-import { closedAddress, WRONG_PASSWORD } from '../../../server/auth/close-account';
+import { closedAddress, NOT_THAT_ADDRESS, SUSPEND_FIRST, WRONG_PASSWORD } from '../../../server/auth/close-account';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_SHOP, DEMO_TEAM } from '../../../server/db/demo-accounts';
 import { seededDatabaseUrl } from '../support-seeded';
 import { captureMail, client, makeTestApp, signedInClient, TEST_PASSWORD, type TestApp } from '../test-app';
@@ -218,5 +218,45 @@ describe('closing one’s own account', () => {
     expect(list.body.total).toBe(0);
     expectError(await admin.c.post(`/api/admin/users/${maren.id}/suspend`, { note: 'Too late' }), 404, 'not_found');
     expectError(await admin.c.put(`/api/admin/users/${maren.id}/admin`, { isAdmin: true }), 404, 'not_found');
+  });
+});
+
+describe('an admin closing someone else’s account', () => {
+  it('when the account is not suspended, the address is mistyped, or it is the admin’s own, then refused and nothing changes', async () => {
+    const admin = await signedInClient(t, { isAdmin: true });
+    const driver = await signedInClient(t, { displayName: 'Pim Achterberg' });
+    const url = `/api/admin/users/${driver.user.id}/close`;
+
+    const active = await admin.c.post(url, { email: driver.email });
+    expectError(active, 409, 'conflict');
+    expect(active.body.error.message).toBe(SUSPEND_FIRST);
+
+    expect((await admin.c.post(`/api/admin/users/${driver.user.id}/suspend`, { note: 'Asked by e-mail to be removed' })).status).toBe(200);
+    const wrong = expectFieldErrors(await admin.c.post(url, { email: 'someone-else@example.com' }), ['email']);
+    expect(wrong.email).toEqual([NOT_THAT_ADDRESS]);
+    expectFieldErrors(await admin.c.post(url, {}), ['email']);
+    expectError(await admin.c.post(`/api/admin/users/${admin.user.id}/close`, { email: admin.email }), 409, 'conflict');
+    expectError(await driver.c.post(url, { email: driver.email }), 401, 'unauthenticated');
+    expect((await userRow(driver.user.id)).closed_at).toBeNull();
+  });
+
+  it('when a suspended account is closed with its address typed again, then its car goes, a farewell says an admin closed it, and it leaves the list', async () => {
+    const admin = await signedInClient(t, { isAdmin: true });
+    const driver = await signedInClient(t, { displayName: 'Pim Achterberg' });
+    const car = await driver.c.post('/api/cars', { name: 'Spare hatch', classCode: 'SS' });
+    expect(car.status).toBe(201);
+    expect((await admin.c.post(`/api/admin/users/${driver.user.id}/suspend`, { note: 'Asked by e-mail to be removed' })).status).toBe(200);
+
+    const res = await admin.c.post(`/api/admin/users/${driver.user.id}/close`, { email: `  ${driver.email.toUpperCase()} ` });
+    expect(res.status, JSON.stringify(res.body)).toBe(204);
+
+    expect(await countOf(t, 'SELECT count(*) AS n FROM cars WHERE id = $1', [car.body.id])).toBe(0);
+    expect(await userRow(driver.user.id)).toMatchObject({ email: closedAddress(driver.user.id), display_name: CLOSED_ACCOUNT_NAME });
+    const row = (await t.ds.query('SELECT suspended_at, suspension_note FROM users WHERE id = $1', [driver.user.id]))[0];
+    expect(row).toEqual({ suspended_at: null, suspension_note: null });
+    const farewell = mail.sent.filter((m) => m.to === driver.email).at(-1);
+    expect(farewell?.text).toContain('was closed by an administrator');
+    expect((await admin.c.get(`/api/admin/users?q=${encodeURIComponent(driver.email)}`)).body.total).toBe(0);
+    expectError(await admin.c.post(`/api/admin/users/${driver.user.id}/close`, { email: driver.email }), 404, 'not_found');
   });
 });

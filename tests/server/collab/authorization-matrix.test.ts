@@ -211,6 +211,10 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     call: () => ({ path: `/api/admin/users/${randomUUID()}/restore`, body: {} }),
     expect: [403, 403, 403, 403, 403, 403, 403, 404, 401],
   },
+  'POST /api/admin/users/:userId/close': {
+    call: () => ({ path: `/api/admin/users/${randomUUID()}/close`, body: { email: 'nobody@example.com' } }),
+    expect: [403, 403, 403, 403, 403, 403, 403, 404, 401],
+  },
   'PUT /api/admin/users/:userId/admin': {
     call: () => ({ path: `/api/admin/users/${randomUUID()}/admin`, body: { isAdmin: true } }),
     expect: [403, 403, 403, 403, 403, 403, 403, 404, 401],
