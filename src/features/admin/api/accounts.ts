@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AdminAccount, AdminAccountList, SetAdminInput, SuspendAccountInput } from '@shared/auth/admin.schema';
+import type { AdminAccount, AdminAccountList, CloseAccountByAdminInput, SetAdminInput, SuspendAccountInput } from '@shared/auth/admin.schema';
 import { api } from '@/lib/api-client';
 
 /** Every accounts query key; a write refreshes them all. */
@@ -28,10 +28,10 @@ export function useAccounts(q: string) {
 }
 
 /**
- * Suspending or restoring: an online write, made at a desk, not at the car. Tried at once, never queued,
+ * Suspending, restoring or closing: an online write, made at a desk, not at the car. Tried at once, never queued,
  * its error shown where it was asked; every list is refreshed before it counts as done.
  */
-function useAccountWrite<TInput>(write: (input: TInput) => Promise<AdminAccount>) {
+function useAccountWrite<TInput, TOutput = AdminAccount>(write: (input: TInput) => Promise<TOutput>) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: write,
@@ -53,4 +53,9 @@ export function useRestoreAccount() {
 
 export function useSetAdmin() {
   return useAccountWrite(({ userId, ...input }: SetAdminInput & { userId: string }) => api.put<AdminAccount>(`${accountPath(userId)}/admin`, input));
+}
+
+/** Closes a suspended account for good, its address typed again. */
+export function useCloseSuspendedAccount() {
+  return useAccountWrite(({ userId, ...input }: CloseAccountByAdminInput & { userId: string }) => api.post<void>(`${accountPath(userId)}/close`, input));
 }

@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import { Ban, RotateCcw } from 'lucide-react';
 import { ACCOUNT_LIST_LIMIT, SUSPENSION_NOTE_MAX, type AdminAccount } from '@shared/auth/admin.schema';
+import { CLOSED_ACCOUNT_NAME } from '@shared/auth/person-name';
 import { ConfirmButton } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -11,7 +12,7 @@ import { formatDay, formatDateTime } from '@/lib/dates';
 import { describeRoles } from '@/features/auth/utils/describe-roles';
 import { TextArea } from '@/features/suggestions/components/text-area';
 import { failureMessage } from '@/features/teams/utils/online-failure';
-import { useAccounts, useRestoreAccount, useSetAdmin, useSuspendAccount } from '../api/accounts';
+import { useAccounts, useCloseSuspendedAccount, useRestoreAccount, useSetAdmin, useSuspendAccount } from '../api/accounts';
 
 const ASK_WHY = 'Say why, for the next admin who reads this';
 
@@ -84,6 +85,60 @@ function RestoreAccount({ account }: { account: AdminAccount }) {
   );
 }
 
+const TYPE_ADDRESS = 'Type the account’s e-mail address';
+
+/**
+ * Closes a suspended account for good (someone asked to be removed, or the account was abuse): its address is
+ * typed again first, as the confirmation.
+ */
+function CloseSuspendedAccount({ account }: { account: AdminAccount }) {
+  const close = useCloseSuspendedAccount();
+  const [email, setEmail] = useState('');
+  const [emailError, setEmailError] = useState<string | null>(null);
+  return (
+    <ConfirmButton
+      title={`Close ${account.displayName}’s account for good?`}
+      description={`Their cars go, with every run, setup, tyre reading, file and work order on them, and so do their comments and memberships. What they wrote into other people’s records stays there under “${CLOSED_ACCOUNT_NAME}”. This cannot be undone; they get an e-mail saying so.`}
+      confirmLabel="Close the account"
+      pendingLabel="Closing…"
+      isPending={close.isPending}
+      fields={
+        <TextField
+          label="Their e-mail address"
+          hint={`Type ${account.email} to confirm.`}
+          type="email"
+          autoComplete="off"
+          value={email}
+          onChange={(e) => setEmail(e.target.value)}
+          error={emailError ?? undefined}
+        />
+      }
+      onClose={() => {
+        setEmail('');
+        setEmailError(null);
+      }}
+      onConfirm={({ onSuccess, onError }) => {
+        setEmailError(null);
+        if (!email.trim()) return setEmailError(TYPE_ADDRESS);
+        close.mutate(
+          { userId: account.id, email },
+          {
+            onSuccess,
+            onError: (e) => {
+              const field = isApiError(e) ? e.fieldErrors.email?.[0] : undefined;
+              if (field) setEmailError(field);
+              else onError(e);
+            },
+          },
+        );
+      }}
+      failureText={failureMessage}
+    >
+      Close for good<span className="sr-only"> {account.displayName}</span>
+    </ConfirmButton>
+  );
+}
+
 /** Gives or takes the admin role, after asking. */
 function AdminRole({ account }: { account: AdminAccount }) {
   const setAdmin = useSetAdmin();
@@ -127,8 +182,9 @@ function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean })
         {devices === 0 ? 'not signed in' : `signed in on ${devices} ${devices === 1 ? 'device' : 'devices'}`}
       </p>
       {isMe ? null : (
-        <div className="-ml-3">
+        <div className="-ml-3 flex flex-wrap gap-x-2">
           <AdminRole account={account} />
+          {account.suspendedAt ? <CloseSuspendedAccount account={account} /> : null}
         </div>
       )}
       {account.suspendedAt ? (

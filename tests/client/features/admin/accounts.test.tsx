@@ -36,6 +36,8 @@ describe('the accounts page', () => {
     expect(within(items[1]!).queryByRole('button')).toBeNull();
     expect(items[1]!.textContent).toContain('signed in on 1 device');
     expect(items[2]!.textContent).toMatch(/driver · joined .*2026 · signed in on 2 devices/);
+    expect(within(items[0]!).getByRole('button', { name: 'Close for good Lena Park' })).toBeTruthy();
+    expect(within(items[2]!).queryByRole('button', { name: /Close for good/ })).toBeNull();
     expect(screen.getByText('3 accounts')).toBeTruthy();
   });
 
@@ -93,6 +95,44 @@ describe('the accounts page', () => {
     await u.click(dialog.getByRole('button', { name: 'Suspend account' }));
     expect(await dialog.findByText('Use at most 500 characters')).toBeTruthy();
     expect(dialog.getByLabelText('Why').getAttribute('aria-invalid')).toBe('true');
+  });
+
+  it('when a suspended account is closed for good, then its address is asked for, a wrong one is refused beside the field, and once typed it is sent and the row goes', async () => {
+    let closed = false;
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': () => page(closed ? [] : [SUSPENDED]),
+      [`POST /api/admin/users/${TOMAS.id}/close`]: [
+        errorResponse(400, 'validation_failed', 'Type the account’s e-mail address exactly as shown.', { email: ['Type the account’s e-mail address exactly as shown'] }),
+        () => {
+          closed = true;
+          return jsonResponse(204);
+        },
+      ],
+    });
+    renderApp('/accounts');
+    const u = userEvent.setup();
+    // Only a suspended row offers it.
+    await u.click(await screen.findByRole('button', { name: 'Close for good Tomas Reed' }));
+    const dialog = within(screen.getByRole('dialog', { name: 'Close Tomas Reed’s account for good?' }));
+    expect(dialog.getByText(/stays there under “Closed account”\. This cannot be undone/)).toBeTruthy();
+    await u.click(dialog.getByRole('button', { name: 'Close the account' }));
+    expect(dialog.getByText('Type the account’s e-mail address')).toBeTruthy();
+    expect(requestsTo(fetchMock, `POST /api/admin/users/${TOMAS.id}/close`)).toHaveLength(0);
+
+    await u.type(dialog.getByLabelText('Their e-mail address'), 'tomas@example.com');
+    await u.click(dialog.getByRole('button', { name: 'Close the account' }));
+    expect(await dialog.findByText('Type the account’s e-mail address exactly as shown')).toBeTruthy();
+
+    await u.clear(dialog.getByLabelText('Their e-mail address'));
+    await u.type(dialog.getByLabelText('Their e-mail address'), TOMAS.email);
+    await u.click(dialog.getByRole('button', { name: 'Close the account' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
+    expect(requestsTo(fetchMock, `POST /api/admin/users/${TOMAS.id}/close`).map((r) => r.body)).toEqual([
+      { email: 'tomas@example.com' },
+      { email: TOMAS.email },
+    ]);
+    expect(await screen.findByText('No accounts yet.')).toBeTruthy();
   });
 
   it('when an admin makes a driver an admin, then the role is sent after asking, and the row then offers to take it back', async () => {
