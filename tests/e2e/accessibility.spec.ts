@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { afterAll, describe, expect, inject, it } from 'vitest';
@@ -172,5 +173,39 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
     found.push(...(await audit(page, 'suspend question, refused')));
     await page.getByRole('button', { name: 'Cancel' }).click();
     expect(found).toEqual([]);
+  });
+
+  it('when the admin closes a suspended account for good, then the question breaks no rule, a wrong address is refused, and the account is gone', async () => {
+    // An account of its own, registered from elsewhere, so that no demo account changes for the other tests.
+    const email = `leaving-${randomUUID().slice(0, 8)}@example.com`;
+    /** A write from a browser of its own: a fresh session and its CSRF token each time. */
+    const postElsewhere = async (path: string, body: object) => {
+      const csrf = await fetch(`${baseUrl}/api/auth/csrf`);
+      const cookie = csrf.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+      const { token } = (await csrf.json()) as { token: string };
+      return fetch(`${baseUrl}${path}`, { method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': token, cookie }, body: JSON.stringify(body) });
+    };
+    const registered = await postElsewhere('/api/auth/register', { email, password: 'long-enough-to-leave-with', displayName: 'Odile Marchetti' });
+    expect(registered.status).toBe(201);
+
+    const page = await signInAs('admin@example.com', 'Scrubline Admin');
+    await page.goto(`${baseUrl}/accounts`);
+    await page.getByLabel('Find an account').fill(email);
+    await page.getByRole('button', { name: 'Suspend Odile Marchetti' }).click();
+    await page.getByLabel('Why').fill('Asked by e-mail to be removed');
+    await page.getByRole('button', { name: 'Suspend account' }).click();
+    await page.getByRole('button', { name: 'Close for good Odile Marchetti' }).click();
+    await page.getByRole('button', { name: 'Close the account' }).click();
+    await page.getByText('Type the account’s e-mail address').waitFor();
+    const found = await audit(page, 'close question, refused');
+    await page.getByLabel('Their e-mail address').fill('someone-else@example.com');
+    await page.getByRole('button', { name: 'Close the account' }).click();
+    await page.getByText('Type the account’s e-mail address exactly as shown').waitFor();
+    await page.getByLabel('Their e-mail address').fill(email);
+    await page.getByRole('button', { name: 'Close the account' }).click();
+    await page.getByText(`No account’s name or e-mail holds “${email}”.`).waitFor();
+    expect(found).toEqual([]);
+
+    expect((await postElsewhere('/api/auth/login', { email, password: 'long-enough-to-leave-with' })).status).toBe(401);
   });
 });
