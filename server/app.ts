@@ -10,6 +10,7 @@ import type { IncomingMessage } from 'node:http';
 import type { Pool } from 'pg';
 import type { DataSource } from 'typeorm';
 import { csrfSync } from 'csrf-sync';
+import type { Logger } from 'pino';
 import { logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './lib/error-handler';
 import { pagePreloader } from './lib/page-preload';
@@ -63,6 +64,8 @@ export interface AppOptions {
   payments?: PaymentSettings;
   /** Where attachments are kept (disk or S3); without it the upload routes answer 503. */
   storage?: FileStorage;
+  /** Where request and security log lines go; the app's logger (server/lib/logger.ts) by default. */
+  logger?: Logger;
 }
 
 /** Stands in index.html for the per-response nonce (see the meta tag `csp-nonce`). */
@@ -110,15 +113,19 @@ export function createApp(opts: AppOptions) {
   );
   app.use(
     pinoHttp({
-      logger,
+      logger: opts.logger ?? logger,
       genReqId: (_req, res) => {
         const id = randomUUID();
         res.setHeader('X-Request-Id', id);
         return id;
       },
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-      // Successful and refused requests are routine; log only what the server got wrong.
-      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'debug'),
+      // What the server got wrong is an error; a refusal of access or of too many tries is worth a look
+      // (OWASP ASVS 4.0 V7.2.2: failed access decisions are logged); the rest is routine. A 401 is routine too:
+      // every signed-out visit asks who is signed in.
+      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode === 403 || res.statusCode === 429 ? 'warn' : 'debug'),
+      // Who asked, read when the answer is logged (the session is loaded by then).
+      customProps: (req) => ({ userId: (req as Express.Request).user?.id ?? null }),
     }),
   );
 

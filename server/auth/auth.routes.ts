@@ -15,6 +15,7 @@ import {
   type PasswordResetRequested,
 } from '@shared/collab/invitation.schema';
 import { AppError } from '../lib/app-error';
+import { accountKey, securityEvent, type SecurityEvent } from '../lib/security-log';
 import { parsed, validate } from '../lib/validate';
 import { createUser, findUserById, updatePreferences } from '../features/users/user.service';
 import type { AppPassport } from './passport';
@@ -64,15 +65,19 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
    * Runs `act`, which checks the signed-in person's password typed again, under the account's sign-in limit:
    * a wrong password (a validation error) counts as a failed sign-in, a right one clears the count.
    */
-  async function withPasswordLimit<T>(req: Request, act: (user: User) => Promise<T>): Promise<T> {
+  async function withPasswordLimit<T>(req: Request, event: SecurityEvent, act: (user: User) => Promise<T>): Promise<T> {
     const user = currentUser(req);
     await limits.beforeLogin(req.ip ?? 'unknown', user.email);
     try {
       const result = await act(user);
       await limits.loginSucceeded(user.email);
+      securityEvent(req, event);
       return result;
     } catch (err) {
-      if (err instanceof AppError && err.code === 'validation_failed') await limits.loginFailed(user.email);
+      if (err instanceof AppError && err.code === 'validation_failed') {
+        await limits.loginFailed(user.email);
+        securityEvent(req, 'password-check-failed', { for: event });
+      }
       throw err;
     }
   }
@@ -86,6 +91,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
     await limits.beforeRegister(req.ip ?? 'unknown');
     const user = await createUser(ds, input);
     await signIn(req, user);
+    securityEvent(req, 'registered');
     res.status(201).json({ user });
   });
 
@@ -97,13 +103,19 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
       passport.authenticate('local', { session: false }, (err: unknown, found: User | false) =>
         err ? reject(err) : resolve(found),
       )(req, res, reject);
+    }).catch((err: unknown) => {
+      // A suspended account, its password right.
+      if (err instanceof AppError) securityEvent(req, 'sign-in-refused', { account: accountKey(input.email), reason: err.code });
+      throw err;
     });
     if (!user) {
       await limits.loginFailed(input.email);
+      securityEvent(req, 'sign-in-refused', { account: accountKey(input.email), reason: 'no match' });
       throw new AppError('unauthenticated', INVALID_LOGIN);
     }
     await limits.loginSucceeded(input.email);
     await signIn(req, user);
+    securityEvent(req, 'signed-in');
     res.json({ user });
   });
 
@@ -118,6 +130,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
   }
 
   router.post('/logout', async (req, res) => {
+    if (req.user) securityEvent(req, 'signed-out');
     await signOut(req);
     res.clearCookie(SESSION_COOKIE, { path: '/' });
     res.status(204).end();
@@ -139,7 +152,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
    */
   router.post('/me/password', requireAuth, validate({ body: changePasswordInputSchema }), async (req, res) => {
     const input = parsed<ChangePasswordInput>(res, 'body');
-    await withPasswordLimit(req, (user) => changePassword(ds, user.id, req.sessionID, input));
+    await withPasswordLimit(req, 'password-changed', (user) => changePassword(ds, user.id, req.sessionID, input));
     res.status(204).end();
   });
 
@@ -155,13 +168,14 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
   router.post('/me/email', requireAuth, validate({ body: changeEmailInputSchema }), async (req, res) => {
     const input = parsed<ChangeEmailInput>(res, 'body');
     assertNewAddress(currentUser(req), input.newEmail);
-    res.status(202).json(await withPasswordLimit(req, (user) => requestEmailChange(ds, mail, user, input)));
+    res.status(202).json(await withPasswordLimit(req, 'email-change-asked', (user) => requestEmailChange(ds, mail, user, input)));
   });
 
   /** The link from the new address, opened by the account that asked: the address changes. */
   router.post('/me/email/confirm', requireAuth, validate({ body: confirmEmailChangeSchema }), async (req, res) => {
     const { id } = currentUser(req);
     await confirmEmailChange(ds, id, parsed<ConfirmEmailChange>(res, 'body').token);
+    securityEvent(req, 'email-changed');
     res.json({ user: await findUserById(ds, id) });
   });
 
@@ -179,7 +193,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
    */
   router.post('/me/close', requireAuth, validate({ body: closeAccountInputSchema }), async (req, res) => {
     const input = parsed<CloseAccountInput>(res, 'body');
-    await withPasswordLimit(req, (user) => closeAccount(ds, mail, user, input));
+    await withPasswordLimit(req, 'account-closed', (user) => closeAccount(ds, mail, user, input));
     await signOut(req);
     res.clearCookie(SESSION_COOKIE, { path: '/' });
     res.status(204).end();
@@ -193,7 +207,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
   /** Signs out one other device, or all of them, with the password typed again; counted like a sign-in. */
   router.post('/me/sessions/end', requireAuth, validate({ body: endSessionsInputSchema }), async (req, res) => {
     const input = parsed<EndSessionsInput>(res, 'body');
-    const ended = await withPasswordLimit(req, (user) => endOtherSessions(ds, user.id, req.sessionID, input));
+    const ended = await withPasswordLimit(req, 'devices-signed-out', (user) => endOtherSessions(ds, user.id, req.sessionID, input));
     res.json({ ended });
   });
 
@@ -202,6 +216,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
     const { email } = parsed<PasswordResetRequest>(res, 'body');
     await limits.beforePasswordReset(req.ip ?? 'unknown', email);
     await requestPasswordReset(ds, mail, email);
+    securityEvent(req, 'password-reset-asked', { account: accountKey(email) });
     const body: PasswordResetRequested = { message: PASSWORD_RESET_REQUESTED_MESSAGE };
     res.status(202).json(body);
   });
@@ -210,6 +225,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
   router.post('/password-reset/confirm', validate({ body: passwordResetConfirmSchema }), async (req, res) => {
     const { token, password } = parsed<PasswordResetConfirm>(res, 'body');
     const { email } = await confirmPasswordReset(ds, token, password);
+    securityEvent(req, 'password-reset', { account: accountKey(email) });
     // A lock from earlier failed sign-ins would otherwise keep the owner out with the new password.
     await limits.loginSucceeded(email);
     if (req.user) await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));

@@ -22,6 +22,8 @@ export interface TestAppOptions {
   payments?: AppOptions['payments'];
   /** Where attachments go; by default a disk storage in a fresh temporary folder, removed on close. */
   storage?: AppOptions['storage'];
+  /** Where log lines go; by default the app's logger, silent under test. */
+  logger?: AppOptions['logger'];
 }
 
 /** Mail settings whose mailer keeps every message, for tests to read. */
@@ -58,6 +60,7 @@ export async function makeTestApp(opts: TestAppOptions & { databaseUrl?: string 
     mailboxDir: opts.mailboxDir,
     payments: opts.payments,
     storage: opts.storage ?? diskStorage(uploadDir),
+    logger: opts.logger,
     authLimits: { loginPerIp: 1000, registerPerIp: 1000, resetPerIp: 1000, resetPerEmail: 1000, uploadsPerUser: 1000, keyPrefix: `test-${randomUUID()}`, ...opts.authLimits },
   });
   return {

@@ -1,0 +1,98 @@
+import { createHash } from 'node:crypto';
+import { Writable } from 'node:stream';
+import { pino } from 'pino';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { client, makeTestApp, signedInClient, TEST_PASSWORD, type TestApp } from '../test-app';
+
+/**
+ * Security events in the log (OWASP ASVS 4.0.3 V7.1.3: successful and failed authentication and access-control
+ * failures are logged; V7.2.1: every authentication decision, without passwords or session tokens; V7.2.2: failed
+ * access decisions; V7.1.1, V7.1.2: no credentials, and no personal data beyond what is needed).
+ */
+interface Line {
+  level: number;
+  msg: string;
+  security?: string;
+  userId?: string | null;
+  account?: string;
+  reason?: string;
+  for?: string;
+  target?: string;
+  res?: { statusCode: number };
+  req?: { url: string; headers?: Record<string, string> };
+}
+
+const lines: Line[] = [];
+const raw: string[] = [];
+const sink = new Writable({
+  write(chunk: Buffer, _enc, done) {
+    for (const text of chunk.toString('utf8').split('\n').filter(Boolean)) {
+      raw.push(text);
+      lines.push(JSON.parse(text) as Line);
+    }
+    done();
+  },
+});
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await makeTestApp({ logger: pino({ level: 'info', redact: ['req.headers.cookie', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'] }, sink), authLimits: { loginPerAccount: 3 } });
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const events = (name: string) => lines.filter((l) => l.security === name);
+const digest = (email: string) => createHash('sha256').update(email).digest('hex').slice(0, 16);
+const WARN = 40;
+const INFO = 30;
+
+describe('the security log', () => {
+  it('when someone signs in with a wrong password and then the right one, then both decisions are logged, the address only as a digest and no password at all', async () => {
+    const { email, user } = await signedInClient(t);
+    const c = client(t.app);
+    await c.post('/api/auth/login', { email, password: 'a wrong password, typed' });
+    await c.post('/api/auth/login', { email, password: TEST_PASSWORD });
+
+    const refused = events('sign-in-refused').find((l) => l.account === digest(email));
+    expect(refused).toMatchObject({ level: INFO, userId: null, reason: 'no match' });
+    expect(events('signed-in').some((l) => l.userId === user.id)).toBe(true);
+    const all = raw.join('\n');
+    expect(all).not.toContain(email);
+    expect(all).not.toContain(TEST_PASSWORD);
+    expect(all).not.toContain('a wrong password, typed');
+    expect(all).not.toMatch(/scrubline\.sid=/);
+  });
+
+  it('when a write comes without its CSRF token, or sign-in is tried past the limit, then the refusal is logged at warn with the account that asked', async () => {
+    const { c, email, user } = await signedInClient(t);
+    await c.agent.post('/api/cars').send({ name: 'No token', classCode: 'SS' });
+    const forbidden = lines.find((l) => l.res?.statusCode === 403 && l.req?.url === '/api/cars' && l.userId === user.id);
+    expect(forbidden?.level).toBe(WARN);
+
+    const other = client(t.app);
+    for (let i = 0; i < 4; i++) await other.post('/api/auth/login', { email, password: `guess ${i} of many` });
+    expect(lines.some((l) => l.res?.statusCode === 429 && l.req?.url === '/api/auth/login' && l.level === WARN)).toBe(true);
+  });
+
+  it('when the password is changed, mistyped at a change, or the account closed, then each is an event of that account', async () => {
+    const { c, user } = await signedInClient(t);
+    await c.post('/api/auth/me/password', { currentPassword: 'not the current one at all', newPassword: 'a brand new long password' });
+    await c.post('/api/auth/me/password', { currentPassword: TEST_PASSWORD, newPassword: 'a brand new long password' });
+    await c.post('/api/auth/me/close', { password: 'a brand new long password' });
+    expect(events('password-check-failed').find((l) => l.userId === user.id)?.for).toBe('password-changed');
+    expect(events('password-changed').some((l) => l.userId === user.id)).toBe(true);
+    expect(events('account-closed').some((l) => l.userId === user.id)).toBe(true);
+  });
+
+  it('when an admin suspends, restores, and gives the admin role, then each decision names the admin and the account', async () => {
+    const admin = await signedInClient(t, { isAdmin: true });
+    const driver = await signedInClient(t);
+    await admin.c.post(`/api/admin/users/${driver.user.id}/suspend`, { note: 'Checking the log' });
+    await admin.c.post(`/api/admin/users/${driver.user.id}/restore`);
+    await admin.c.put(`/api/admin/users/${driver.user.id}/admin`, { isAdmin: true });
+    for (const name of ['account-suspended', 'account-restored', 'admin-role-changed']) {
+      expect(events(name).find((l) => l.target === driver.user.id), name).toMatchObject({ userId: admin.user.id });
+    }
+  });
+});
