@@ -124,8 +124,9 @@ export function createApp(opts: AppOptions) {
       // (OWASP ASVS 4.0 V7.2.2: failed access decisions are logged); the rest is routine. A 401 is routine too:
       // every signed-out visit asks who is signed in.
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode === 403 || res.statusCode === 429 ? 'warn' : 'debug'),
-      // Who asked, read when the answer is logged (the session is loaded by then).
-      customProps: (req) => ({ userId: (req as Express.Request).user?.id ?? null }),
+      // Who asked, read when the answer is logged (the session is loaded by then); only on the lines written at
+      // `warn` or above; a routine request's empty bindings make no child logger for a line that is not written.
+      customProps: (req, res) => (res.statusCode === 403 || res.statusCode === 429 || res.statusCode >= 500 ? { userId: (req as Express.Request).user?.id ?? null } : {}),
     }),
   );
 
