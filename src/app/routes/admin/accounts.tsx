@@ -15,7 +15,7 @@ export function AccountsPage() {
         <h1 className="text-3xl font-extrabold">Accounts</h1>
         <p className="text-ink-muted">
           Everyone with a Scrubline account. A suspended account is signed out everywhere and cannot sign in until it is
-          restored; nothing it logged is removed.
+          restored; nothing it logged is removed until it is closed for good.
         </p>
       </div>
       {admin ? (
