@@ -5,7 +5,7 @@ import { FormAlert } from '@/components/ui/form-alert';
 
 // Not in components/ui: the build bundles ui/ into one file the trackside page loads, and this one brings the dialog with it.
 
-interface ConfirmButtonProps {
+export interface ConfirmButtonProps {
   /** The button that opens the question. */
   children: ReactNode;
   variant?: 'primary' | 'secondary' | 'quiet';

@@ -1,8 +1,8 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { Ban, RotateCcw } from 'lucide-react';
 import { ACCOUNT_LIST_LIMIT, SUSPENSION_NOTE_MAX, type AdminAccount } from '@shared/auth/admin.schema';
 import { CLOSED_ACCOUNT_NAME } from '@shared/auth/person-name';
-import { ConfirmButton } from '@/components/dialogs/confirm-button';
+import { ConfirmButton, type ConfirmButtonProps } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { FormAlert } from '@/components/ui/form-alert';
@@ -15,55 +15,115 @@ import { failureMessage } from '@/features/teams/utils/online-failure';
 import { useAccounts, useCloseSuspendedAccount, useRestoreAccount, useSetAdmin, useSuspendAccount } from '../api/accounts';
 
 const ASK_WHY = 'Say why, for the next admin who reads this';
+const TYPE_ADDRESS = 'Type the account’s e-mail address';
+
+type Handlers = { onSuccess: () => void; onError: (error: unknown) => void };
+
+/**
+ * A question that asks for one field before it is answered: an empty field is asked for again and nothing is
+ * sent, and the server's refusal of that field goes beside it; anything else shows above the buttons.
+ */
+function ConfirmWithField({
+  field,
+  emptyMessage,
+  renderField,
+  send,
+  ...question
+}: Omit<ConfirmButtonProps, 'fields' | 'onClose' | 'onConfirm' | 'failureText'> & {
+  /** The field's name in the API's field errors. */
+  field: string;
+  emptyMessage: string;
+  renderField: (value: string, setValue: (next: string) => void, error: string | null) => ReactNode;
+  send: (value: string, handlers: Handlers) => void;
+}) {
+  const [value, setValue] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  return (
+    <ConfirmButton
+      {...question}
+      fields={renderField(value, setValue, error)}
+      onClose={() => {
+        setValue('');
+        setError(null);
+      }}
+      onConfirm={({ onSuccess, onError }) => {
+        setError(null);
+        if (!value.trim()) return setError(emptyMessage);
+        send(value, {
+          onSuccess,
+          onError: (e) => {
+            const refused = isApiError(e) ? e.fieldErrors[field]?.[0] : undefined;
+            if (refused) setError(refused);
+            else onError(e);
+          },
+        });
+      }}
+      failureText={failureMessage}
+    />
+  );
+}
 
 /** Asks for a reason, then suspends: the account is signed out everywhere and cannot sign in until restored. */
 function SuspendAccount({ account }: { account: AdminAccount }) {
   const suspend = useSuspendAccount();
-  const [note, setNote] = useState('');
-  const [noteError, setNoteError] = useState<string | null>(null);
   return (
-    <ConfirmButton
+    <ConfirmWithField
       variant="secondary"
       title={`Suspend ${account.displayName}?`}
       description="They are signed out on every device at once and cannot sign in until an admin restores the account. Their cars, runs and setups stay as they are."
       confirmLabel="Suspend account"
       pendingLabel="Suspending…"
       isPending={suspend.isPending}
-      fields={
+      field="note"
+      emptyMessage={ASK_WHY}
+      renderField={(note, setNote, error) => (
         <TextArea
           label="Why"
           hint="Kept with the account for the next admin; the person suspended does not see it."
           value={note}
           onChange={setNote}
-          error={noteError}
+          error={error}
           rows={3}
           maxLength={SUSPENSION_NOTE_MAX}
         />
-      }
-      onClose={() => {
-        setNote('');
-        setNoteError(null);
-      }}
-      onConfirm={({ onSuccess, onError }) => {
-        setNoteError(null);
-        if (!note.trim()) return setNoteError(ASK_WHY);
-        suspend.mutate(
-          { userId: account.id, note },
-          {
-            onSuccess,
-            // A refusal of the reason goes beside it; anything else above the buttons.
-            onError: (e) => {
-              const field = isApiError(e) ? e.fieldErrors.note?.[0] : undefined;
-              if (field) setNoteError(field);
-              else onError(e);
-            },
-          },
-        );
-      }}
-      failureText={failureMessage}
+      )}
+      send={(note, handlers) => suspend.mutate({ userId: account.id, note }, handlers)}
     >
       <Ban aria-hidden="true" className="size-5" /> Suspend<span className="sr-only"> {account.displayName}</span>
-    </ConfirmButton>
+    </ConfirmWithField>
+  );
+}
+
+/**
+ * Closes a suspended account for good (someone asked to be removed, or the account was abuse): its address is
+ * typed again first, as the confirmation.
+ */
+function CloseSuspendedAccount({ account }: { account: AdminAccount }) {
+  const close = useCloseSuspendedAccount();
+  return (
+    <ConfirmWithField
+      title={`Close ${account.displayName}’s account for good?`}
+      description={`Their cars go, with every run, setup, tyre reading, file and work order on them, and so do their comments and memberships. What they wrote into other people’s records stays there under “${CLOSED_ACCOUNT_NAME}”. This cannot be undone; they get an e-mail saying so.`}
+      confirmLabel="Close the account"
+      pendingLabel="Closing…"
+      isPending={close.isPending}
+      field="email"
+      emptyMessage={TYPE_ADDRESS}
+      renderField={(email, setEmail, error) => (
+        <TextField
+          label="Their e-mail address"
+          hint={`Type ${account.email} to confirm.`}
+          type="email"
+          autoComplete="off"
+          value={email}
+          onChange={(e) => setEmail(e.target.value)}
+          error={error ?? undefined}
+        />
+      )}
+      send={(email, handlers) => close.mutate({ userId: account.id, email }, handlers)}
+    >
+      Close for good<span className="sr-only"> {account.displayName}</span>
+    </ConfirmWithField>
   );
 }
 
@@ -81,60 +141,6 @@ function RestoreAccount({ account }: { account: AdminAccount }) {
       failureText={failureMessage}
     >
       <RotateCcw aria-hidden="true" className="size-5" /> Restore<span className="sr-only"> {account.displayName}</span>
-    </ConfirmButton>
-  );
-}
-
-const TYPE_ADDRESS = 'Type the account’s e-mail address';
-
-/**
- * Closes a suspended account for good (someone asked to be removed, or the account was abuse): its address is
- * typed again first, as the confirmation.
- */
-function CloseSuspendedAccount({ account }: { account: AdminAccount }) {
-  const close = useCloseSuspendedAccount();
-  const [email, setEmail] = useState('');
-  const [emailError, setEmailError] = useState<string | null>(null);
-  return (
-    <ConfirmButton
-      title={`Close ${account.displayName}’s account for good?`}
-      description={`Their cars go, with every run, setup, tyre reading, file and work order on them, and so do their comments and memberships. What they wrote into other people’s records stays there under “${CLOSED_ACCOUNT_NAME}”. This cannot be undone; they get an e-mail saying so.`}
-      confirmLabel="Close the account"
-      pendingLabel="Closing…"
-      isPending={close.isPending}
-      fields={
-        <TextField
-          label="Their e-mail address"
-          hint={`Type ${account.email} to confirm.`}
-          type="email"
-          autoComplete="off"
-          value={email}
-          onChange={(e) => setEmail(e.target.value)}
-          error={emailError ?? undefined}
-        />
-      }
-      onClose={() => {
-        setEmail('');
-        setEmailError(null);
-      }}
-      onConfirm={({ onSuccess, onError }) => {
-        setEmailError(null);
-        if (!email.trim()) return setEmailError(TYPE_ADDRESS);
-        close.mutate(
-          { userId: account.id, email },
-          {
-            onSuccess,
-            onError: (e) => {
-              const field = isApiError(e) ? e.fieldErrors.email?.[0] : undefined;
-              if (field) setEmailError(field);
-              else onError(e);
-            },
-          },
-        );
-      }}
-      failureText={failureMessage}
-    >
-      Close for good<span className="sr-only"> {account.displayName}</span>
     </ConfirmButton>
   );
 }
