@@ -8,6 +8,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { FormAlert } from '@/components/ui/form-alert';
 import { TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
+import { toast } from '@/lib/toast-store';
 import { formatDay, formatDateTime } from '@/lib/dates';
 import { describeRoles } from '@/features/auth/utils/describe-roles';
 import { TextArea } from '@/features/suggestions/components/text-area';
@@ -120,7 +121,18 @@ function CloseSuspendedAccount({ account }: { account: AdminAccount }) {
           error={error ?? undefined}
         />
       )}
-      send={(email, handlers) => close.mutate({ userId: account.id, email }, handlers)}
+      send={(email, { onSuccess, onError }) =>
+        close.mutate(
+          { userId: account.id, email },
+          {
+            onSuccess: () => {
+              onSuccess();
+              toast({ tone: 'success', title: `${account.displayName}’s account is closed`, description: 'A farewell e-mail went to them.' });
+            },
+            onError,
+          },
+        )
+      }
     >
       Close for good<span className="sr-only"> {account.displayName}</span>
     </ConfirmWithField>

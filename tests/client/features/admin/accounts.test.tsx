@@ -133,6 +133,7 @@ describe('the accounts page', () => {
       { email: TOMAS.email },
     ]);
     expect(await screen.findByText('No accounts yet.')).toBeTruthy();
+    expect(await screen.findByText('Tomas Reed’s account is closed')).toBeTruthy();
   });
 
   it('when an admin makes a driver an admin, then the role is sent after asking, and the row then offers to take it back', async () => {
