@@ -136,6 +136,7 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
       ['tread, dark', `/cars/${carId}/tread`],
       ['season review, dark', `/cars/${carId}/review`],
       ['calculators, dark', '/calculators'],
+      ['settings, dark', '/settings'],
     ]);
     expect(found).toEqual([]);
   });
