@@ -5,7 +5,9 @@ import { AppError } from '../lib/app-error';
 import { sendInBackground, type MailSettings } from '../mail/mailer';
 import { renderMail } from '../mail/templates';
 import type { Queryable } from './access';
-import { assertOwnPassword, SESSION_USER_SQL } from './password';
+import { WRONG_PASSWORD, assertOwnPassword, SESSION_USER_SQL } from './password';
+
+export { WRONG_PASSWORD };
 
 /*
  * Closing one's own account (OWASP ASVS 4.0 V8.3.2: users can remove their data on demand).
@@ -19,7 +21,6 @@ import { assertOwnPassword, SESSION_USER_SQL } from './password';
  * one can receive mail at or type by chance, and its password a value no password hashes to.
  */
 
-export const WRONG_PASSWORD = 'That is not your password';
 
 /** The address a closed account keeps, unique as the column requires; `.invalid` is reserved by RFC 2606 §2. */
 export const closedAddress = (userId: string) => `closed-${userId}@scrubline.invalid`;
@@ -36,7 +37,8 @@ const NO_PASSWORD = '!';
  * what to do first. The rows are locked, so two people closing at once cannot both pass.
  */
 async function seatsToHandOver(m: Queryable, userId: string, by: ClosedBy): Promise<string[]> {
-  await m.query('SELECT id FROM users WHERE is_admin FOR UPDATE');
+  // The admins' rows only when an admin is leaving: closing anyone else never waits on them.
+  await m.query('SELECT id FROM users WHERE is_admin AND EXISTS (SELECT 1 FROM users me WHERE me.id = $1 AND me.is_admin) FOR UPDATE', [userId]);
   await m.query('SELECT 1 FROM shop_members WHERE shop_id IN (SELECT shop_id FROM shop_members WHERE user_id = $1) FOR UPDATE', [userId]);
   await m.query('SELECT 1 FROM team_members WHERE team_id IN (SELECT team_id FROM team_members WHERE user_id = $1) FOR UPDATE', [userId]);
   const rows: { kind: 'site' | 'shop' | 'team'; name: string }[] = await m.query(

@@ -2,7 +2,9 @@ import Bowser from 'bowser';
 import type { DataSource } from 'typeorm';
 import type { SignedInDevice } from '@shared/auth/account.schema';
 import { AppError } from '../lib/app-error';
-import { assertOwnPassword, SESSION_USER_SQL } from './password';
+import { WRONG_PASSWORD, assertOwnPassword, SESSION_USER_SQL } from './password';
+
+export { WRONG_PASSWORD };
 
 /*
  * The devices signed in to an account: its rows in the `session` table. A session's id is its secret,
@@ -48,7 +50,6 @@ export async function listDevices(ds: DataSource, userId: string, currentSid: st
     .sort((a, b) => Number(b.current) - Number(a.current) || b.lastActiveAt.localeCompare(a.lastActiveAt));
 }
 
-export const WRONG_PASSWORD = 'That is not your password';
 export const UNKNOWN_DEVICE = 'That device is no longer signed in';
 
 /**

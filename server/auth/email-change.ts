@@ -5,7 +5,9 @@ import { AppError } from '../lib/app-error';
 import { hashSecretToken, newSecretToken } from '../lib/secret-token';
 import { sendInBackground, type MailSettings } from '../mail/mailer';
 import { renderMail } from '../mail/templates';
-import { assertOwnPassword } from './password';
+import { WRONG_PASSWORD, assertOwnPassword } from './password';
+
+export { WRONG_PASSWORD };
 
 /*
  * Changing the sign-in address (OWASP ASVS 4.0 V3.7.1): the password is typed again, a link goes to the new
@@ -14,7 +16,6 @@ import { assertOwnPassword } from './password';
  */
 
 const UNIQUE_VIOLATION = '23505';
-export const WRONG_PASSWORD = 'That is not your password';
 export const SAME_ADDRESS = 'That is already your address';
 export const ADDRESS_TAKEN = 'An account with this e-mail already exists';
 export const LINK_UNUSABLE = 'This link has expired, was already used, or was sent for another account. Ask for a new one here.';

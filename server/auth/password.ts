@@ -32,6 +32,9 @@ export async function verifyAgainstDummy(password: string): Promise<false> {
   return false;
 }
 
+/** The field error when a signed-in person's password, typed again, does not match. */
+export const WRONG_PASSWORD = 'That is not your password';
+
 /**
  * A signed-in person's password typed again, checked against the stored hash; a mismatch is a field error on
  * `field` (the form's password field). `forUpdate` locks the account's row for the rest of the transaction.
