@@ -6,12 +6,10 @@ import '@fontsource/nunito-sans/700.css';
 import '@fontsource/nunito-sans/800.css';
 import './styles/index.css';
 import { AppProvider } from './app/provider';
-import { createQueryClient } from './app/query-client';
+import { CACHE_MAX_AGE_MS, createQueryClient, keptOnDevice } from './app/query-client';
 import { createAppRouter, sendToSignIn } from './app/router';
 import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
 import { persistQueryClient } from '@tanstack/react-query-persist-client';
-import { defaultShouldDehydrateQuery } from '@tanstack/react-query';
-import { CACHE_MAX_AGE_MS } from './app/query-client';
 import { queryCacheStorage } from './lib/device-store';
 import { createAppOutbox, eventWaitingIn } from './app/outbox';
 import { registerServiceWorker } from './app/service-worker';
@@ -34,11 +32,7 @@ const [, restored] = persistQueryClient({
   persister,
   maxAge: CACHE_MAX_AGE_MS,
   buster: __APP_VERSION__,
-  dehydrateOptions: {
-    // "Nobody is signed in" is never kept: a copy written just before a sign-in would
-    // otherwise send the next page load back to the sign-in form.
-    shouldDehydrateQuery: (query) => defaultShouldDehydrateQuery(query) && !(query.queryKey[0] === 'auth' && query.state.data == null),
-  },
+  dehydrateOptions: { shouldDehydrateQuery: keptOnDevice },
 });
 // A device that cannot read its storage (a private window in some browsers) still opens the app.
 const deviceRead = Promise.all([restored, outbox.ready()]).catch(() => undefined);

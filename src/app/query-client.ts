@@ -1,4 +1,4 @@
-import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
+import { defaultShouldDehydrateQuery, MutationCache, QueryCache, type Query, QueryClient } from '@tanstack/react-query';
 import { isApiError } from '@/lib/api-client';
 import { toast } from '@/lib/toast-store';
 
@@ -11,6 +11,17 @@ export interface QueryClientOptions {
 
 /** How long data kept on the device stays usable with no signal: a week covers an event weekend and the drive home. */
 export const CACHE_MAX_AGE_MS = 7 * 24 * 60 * 60 * 1000;
+
+/**
+ * Which answers are written to the device for the next page load. Not "nobody is signed in" (a copy written just
+ * before a sign-in would send the next load back to the sign-in form), and not a query marked
+ * `meta.notKeptOnDevice`: other people's accounts, read at a desk, that must not outlive the page on a shared
+ * computer nor come back from it stale after a suspension.
+ */
+export function keptOnDevice(query: Query): boolean {
+  if (!defaultShouldDehydrateQuery(query) || query.meta?.notKeptOnDevice) return false;
+  return !(query.queryKey[0] === 'auth' && query.state.data == null);
+}
 
 const FALLBACK_MESSAGE = 'Something went wrong. Your saved data is safe; try again.';
 

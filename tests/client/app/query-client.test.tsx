@@ -1,11 +1,12 @@
 // @vitest-environment jsdom
 import { act, cleanup, render, screen } from '@testing-library/react';
-import { QueryClientProvider, useMutation } from '@tanstack/react-query';
+import { dehydrate, QueryClientProvider, useMutation } from '@tanstack/react-query';
 import { afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ApiError } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
 import { ToastProvider } from '@/components/ui/toaster';
-import { createQueryClient } from '@/app/query-client';
+import { createQueryClient, keptOnDevice } from '@/app/query-client';
+import { accountsQueryOptions } from '@/features/admin/api/accounts';
 
 // The toasts' layer is loaded on first use; load it before the clock of the first test starts,
 // so a busy machine does not make the first toast miss its wait.
@@ -85,5 +86,22 @@ describe('query client error handling', () => {
 
     expect(onUnauthenticated).toHaveBeenCalledTimes(1);
     expect(await screen.findByText('Your session ended')).toBeTruthy();
+  });
+});
+
+describe('what is written to the device for the next page load', () => {
+  it('when the cache is written, then a car and who is signed in are kept, but not other people’s accounts nor “nobody is signed in”', async () => {
+    const queryClient = createQueryClient({ retry: false });
+    queryClient.setQueryData(['cars', 'list'], [{ id: 'c1' }]);
+    queryClient.setQueryData(['auth', 'me'], { id: 'u1' });
+    await queryClient.prefetchQuery({ ...accountsQueryOptions(''), queryFn: () => ({ items: [], count: 0, total: 0 }) });
+    await queryClient.prefetchQuery({ ...accountsQueryOptions('odile'), queryFn: () => ({ items: [], count: 0, total: 0 }) });
+    const kept = (client: typeof queryClient) =>
+      dehydrate(client, { shouldDehydrateQuery: keptOnDevice }).queries.map((q) => JSON.stringify(q.queryKey));
+
+    expect(kept(queryClient)).toEqual(['["cars","list"]', '["auth","me"]']);
+
+    queryClient.setQueryData(['auth', 'me'], null);
+    expect(kept(queryClient)).toEqual(['["cars","list"]']);
   });
 });

@@ -18,7 +18,7 @@ export function accountsQueryOptions(q: string) {
   return queryOptions({
     queryKey: accountKeys.search(q),
     queryFn: ({ signal }) => getAccounts(q, { signal }),
-    meta: { errorsShownInline: true },
+    meta: { errorsShownInline: true, notKeptOnDevice: true },
   });
 }
 
