@@ -2,6 +2,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { api, isApiError } from '@/lib/api-client';
 import { deviceStorage, Outbox, type NewOutboxEntry, type OutboxEntry, type SendFailure } from '@/lib/outbox';
 import { outboxMutationKey } from '@/lib/outbox-context';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** The kinds of change made at the car; each is a mutation registered with setMutationDefaults. */
 export const OUTBOX_KINDS = [
@@ -62,7 +63,7 @@ export function createAppOutbox(queryClient: QueryClient): Outbox {
     },
     classify: (error) => classifySendError(current, error),
     onDelivered: (entry) => {
-      for (const queryKey of INVALIDATES[entry.kind.split('.')[0]!] ?? []) void queryClient.invalidateQueries({ queryKey });
+      for (const queryKey of INVALIDATES[entry.kind.split('.')[0]!] ?? []) void refreshAfterWrite(queryClient, { queryKey });
     },
   });
   for (const kind of OUTBOX_KINDS) {

@@ -30,6 +30,7 @@ import { CarVisits } from '@/features/work-orders/components/work-order-lists';
 import { useQueryClient } from '@tanstack/react-query';
 import { carKeys } from '@/features/cars/api/car-keys';
 import { SeasonData } from '@/features/exports/components/season-data';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 function SetupSection({ carId }: { carId: string }) {
   const { data: me } = useMe();
@@ -99,7 +100,7 @@ function DataSection({ carId }: { carId: string }) {
     <SeasonData
       carId={carId}
       onImported={async ({ carId: newCarId }) => {
-        await queryClient.invalidateQueries({ queryKey: carKeys.all });
+        await refreshAfterWrite(queryClient, { queryKey: carKeys.all });
         await navigate(pathTo.car(newCarId));
       }}
     />

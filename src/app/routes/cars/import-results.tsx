@@ -22,6 +22,7 @@ import { ImportSummary } from '@/features/imports/components/import-summary';
 import { RowChooser } from '@/features/imports/components/row-chooser';
 import { SheetPreview } from '@/features/imports/components/sheet-preview';
 import { localNoon, matchesWhose, readFileText, runsToSend, type WhoseFilter } from '@/features/imports/utils/import-draft';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 const runs = (n: number) => `${n} ${n === 1 ? 'run' : 'runs'}`;
 
@@ -44,7 +45,7 @@ export function ImportResultsPage() {
   const [filter, setFilter] = useState<WhoseFilter>({ carNumber: '', driverName: '' });
   const [unticked, setUnticked] = useState<ReadonlySet<number>>(new Set());
   const [driverId, setDriverId] = useState<string | null>(null);
-  const mutation = useImportResults(eventId, () => queryClient.invalidateQueries({ queryKey: runKeys.all }));
+  const mutation = useImportResults(eventId, () => refreshAfterWrite(queryClient, { queryKey: runKeys.all }));
 
   const rows = useMemo(() => (sheet && mapping ? rowsToRuns(sheet, mapping) : []), [sheet, mapping]);
   const matching = useMemo(() => rows.filter((r) => matchesWhose(r, filter)), [rows, filter]);

@@ -12,6 +12,7 @@ import { StartShopForm } from '@/features/shops/components/start-shop-form';
 import { ShopSettingsForm, ShopSettingsSummary } from '@/features/shops/components/shop-settings';
 import { workOrderKeys } from '@/features/work-orders/api/work-order-keys';
 import { ShopBoard } from '@/features/work-orders/components/work-order-lists';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 const SHOP_PARAM = 'shop';
 
@@ -30,7 +31,7 @@ function SettingsCard({ shopId }: { shopId: string }) {
   if (!shop.isShopAdmin) return <ShopSettingsSummary shop={shop} />;
   return (
     // Open work orders read their amounts in the shop's currency and their checks against its tolerance.
-    <ShopSettingsForm shop={shop} onSaved={() => void queryClient.invalidateQueries({ queryKey: workOrderKeys.all })} />
+    <ShopSettingsForm shop={shop} onSaved={() => void refreshAfterWrite(queryClient, { queryKey: workOrderKeys.all })} />
   );
 }
 

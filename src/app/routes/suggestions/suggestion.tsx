@@ -13,6 +13,7 @@ import { setupKeys } from '@/features/setups/api/setup-keys';
 import { useSuggestion } from '@/features/suggestions/api/get-suggestion';
 import { DecisionPanel } from '@/features/suggestions/components/decision-panel';
 import { DecisionStatus, SuggestionDetails } from '@/features/suggestions/components/suggestion-details';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** One suggestion: what and why; the car's drivers accept or decline it while it is open. */
 export function SuggestionPage() {
@@ -66,7 +67,7 @@ export function SuggestionPage() {
               suggestion={suggestion}
               onAccepted={() => {
                 setAcceptedHere(true);
-                void queryClient.invalidateQueries({ queryKey: setupKeys.ofCar(suggestion.carId) });
+                void refreshAfterWrite(queryClient, { queryKey: setupKeys.ofCar(suggestion.carId) });
               }}
             />
           </>

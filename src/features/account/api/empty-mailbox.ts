@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { MAILBOX_KEY } from './get-mailbox';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function emptyMailbox(): Promise<void> {
   return api.delete('/api/dev/mailbox');
@@ -13,6 +14,6 @@ export function useEmptyMailbox() {
     mutationFn: emptyMailbox,
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: MAILBOX_KEY }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: MAILBOX_KEY }),
   });
 }

@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { EndSessionsInput, SignedInDevice } from '@shared/auth/account.schema';
 import { api } from '@/lib/api-client';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 const devicesKey = ['auth', 'devices'] as const;
 
@@ -20,6 +21,6 @@ export function useEndSessions() {
     mutationFn: (input: EndSessionsInput) => api.post<{ ended: number }>('/api/auth/me/sessions/end', input),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSettled: () => queryClient.invalidateQueries({ queryKey: devicesKey }),
+    onSettled: () => refreshAfterWrite(queryClient, { queryKey: devicesKey }),
   });
 }

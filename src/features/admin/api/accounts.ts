@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { AdminAccount, AdminAccountList, CloseAccountByAdminInput, SetAdminInput, SuspendAccountInput } from '@shared/auth/admin.schema';
 import { api } from '@/lib/api-client';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** Every accounts query key; a write refreshes them all. */
 export const accountKeys = {
@@ -37,7 +38,7 @@ function useAccountWrite<TInput, TOutput = AdminAccount>(write: (input: TInput) 
     mutationFn: write,
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: accountKeys.all }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: accountKeys.all }),
   });
 }
 

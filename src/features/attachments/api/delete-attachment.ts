@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AttachmentTarget } from '@shared/files/attachment.schema';
 import { api } from '@/lib/api-client';
 import { attachmentKeys } from './attachment-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function deleteAttachment(attachmentId: string): Promise<void> {
   return api.delete(`/api/attachments/${encodeURIComponent(attachmentId)}`);
@@ -14,6 +15,6 @@ export function useDeleteAttachment(target: AttachmentTarget) {
     mutationFn: deleteAttachment,
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: attachmentKeys.list(target) }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: attachmentKeys.list(target) }),
   });
 }

@@ -9,6 +9,7 @@ import {
 } from '@shared/files/attachment.schema';
 import { api, ApiError, CSRF_HEADER, CSRF_PATH } from '@/lib/api-client';
 import { attachmentKeys, attachmentsUrl } from './attachment-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 const MAX_MB = MAX_ATTACHMENT_BYTES / (1024 * 1024);
 
@@ -111,6 +112,6 @@ export function useUploadAttachments(target: AttachmentTarget) {
     mutationFn: (files: readonly File[]) => uploadAttachments(target, files),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: attachmentKeys.list(target) }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: attachmentKeys.list(target) }),
   });
 }

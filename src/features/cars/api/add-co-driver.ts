@@ -3,6 +3,7 @@ import type * as z from '@shared/zod';
 import type { addCoDriverInputSchema, Car } from '@shared/season/car.schema';
 import { api } from '@/lib/api-client';
 import { carKeys } from './car-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export type AddCoDriverInput = z.output<typeof addCoDriverInputSchema>;
 
@@ -23,7 +24,7 @@ export function useAddCoDriver(carId: string) {
     meta: { errorsShownInline: true },
     onSuccess: (car) => {
       queryClient.setQueryData(carKeys.detail(carId), car);
-      return queryClient.invalidateQueries({ queryKey: carKeys.all });
+      return refreshAfterWrite(queryClient, { queryKey: carKeys.all });
     },
   });
 }

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { carKeys } from './car-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function removeCoDriver(carId: string, userId: string): Promise<void> {
   return api.delete(`/api/cars/${encodeURIComponent(carId)}/co-drivers/${encodeURIComponent(userId)}`);
@@ -13,6 +14,6 @@ export function useRemoveCoDriver(carId: string) {
     mutationFn: (userId: string) => removeCoDriver(carId, userId),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: carKeys.all }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: carKeys.all }),
   });
 }

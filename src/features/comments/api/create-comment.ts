@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Comment, CreateCommentInput } from '@shared/collab/comment.schema';
 import { api } from '@/lib/api-client';
 import { commentKeys } from './comment-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** Always sent with an id made on the device, so sending the same comment again never posts it twice. */
 export type CreateCommentBody = CreateCommentInput & { id: string };
@@ -17,6 +18,6 @@ export function useCreateComment() {
     mutationFn: createComment,
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: (_comment, body) => queryClient.invalidateQueries({ queryKey: commentKeys.thread(body.target) }),
+    onSuccess: (_comment, body) => refreshAfterWrite(queryClient, { queryKey: commentKeys.thread(body.target) }),
   });
 }

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CommentTarget } from '@shared/collab/comment.schema';
 import { api } from '@/lib/api-client';
 import { commentKeys } from './comment-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function deleteComment(commentId: string): Promise<void> {
   return api.delete(`/api/comments/${encodeURIComponent(commentId)}`);
@@ -13,6 +14,6 @@ export function useDeleteComment(target: CommentTarget) {
     mutationFn: deleteComment,
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: commentKeys.thread(target) }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: commentKeys.thread(target) }),
   });
 }

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Comment, CommentTarget, UpdateCommentInput } from '@shared/collab/comment.schema';
 import { api } from '@/lib/api-client';
 import { commentKeys } from './comment-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function updateComment(commentId: string, input: UpdateCommentInput): Promise<Comment> {
   return api.patch(`/api/comments/${encodeURIComponent(commentId)}`, input);
@@ -14,6 +15,6 @@ export function useUpdateComment(target: CommentTarget) {
     mutationFn: ({ commentId, input }: { commentId: string; input: UpdateCommentInput }) => updateComment(commentId, input),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: commentKeys.thread(target) }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: commentKeys.thread(target) }),
   });
 }

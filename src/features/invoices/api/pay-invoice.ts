@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CheckoutRedirect, Invoice, MarkPaidInput } from '@shared/service/invoice.schema';
 import { api, isApiError } from '@/lib/api-client';
 import { invoiceKeys } from './invoice-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function makeInvoice(workOrderId: string): Promise<Invoice> {
   return api.post(`/api/work-orders/${encodeURIComponent(workOrderId)}/invoice`);
@@ -34,7 +35,7 @@ export const checkoutNavigation = {
 /** A 409 means the invoice changed elsewhere (paid meanwhile): read it again, so the page says so. */
 function rereadOnConflict(queryClient: ReturnType<typeof useQueryClient>, workOrderId: string) {
   return (error: unknown) => {
-    if (isApiError(error) && error.status === 409) void queryClient.invalidateQueries({ queryKey: invoiceKeys.ofWorkOrder(workOrderId) });
+    if (isApiError(error) && error.status === 409) void refreshAfterWrite(queryClient, { queryKey: invoiceKeys.ofWorkOrder(workOrderId) });
   };
 }
 

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { MarkReadInput } from '@shared/collab/notification.schema';
 import { api } from '@/lib/api-client';
 import { notificationKeys } from './notification-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** Marks some notifications (or all of them) read. */
 export function markRead(input: MarkReadInput): Promise<unknown> {
@@ -13,6 +14,6 @@ export function useMarkRead() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: markRead,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: notificationKeys.all }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: notificationKeys.all }),
   });
 }

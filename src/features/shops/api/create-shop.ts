@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateShopInput, ShopSummary } from '@shared/collab/shop.schema';
 import { api } from '@/lib/api-client';
 import { shopKeys } from './shop-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** Opens a shop; the user becomes its first admin. */
 export function createShop(input: CreateShopInput): Promise<ShopSummary> {
@@ -14,6 +15,6 @@ export function useCreateShop() {
     mutationFn: createShop,
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: shopKeys.mine() }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: shopKeys.mine() }),
   });
 }

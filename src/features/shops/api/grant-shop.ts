@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { GrantShopInput } from '@shared/collab/shop.schema';
 import { api } from '@/lib/api-client';
 import { grantKeys } from './grant-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function grantShop(carId: string, input: GrantShopInput): Promise<unknown> {
   return api.post(`/api/cars/${encodeURIComponent(carId)}/shop-grants`, input);
@@ -14,6 +15,6 @@ export function useGrantShop(carId: string) {
     mutationFn: (input: GrantShopInput) => grantShop(carId, input),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: grantKeys.ofCar(carId) }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: grantKeys.ofCar(carId) }),
   });
 }

@@ -3,6 +3,7 @@ import type * as z from '@shared/zod';
 import type { inviteInputSchema } from '@shared/collab/shop.schema';
 import { api } from '@/lib/api-client';
 import { shopKeys } from './shop-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export type InviteStaffInput = z.output<typeof inviteInputSchema>;
 
@@ -17,6 +18,6 @@ export function useInviteStaff(shopId: string) {
     mutationFn: (input: InviteStaffInput) => inviteStaff(shopId, input),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: shopKeys.detail(shopId) }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: shopKeys.detail(shopId) }),
   });
 }

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { shopKeys } from './shop-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function removeStaff(shopId: string, userId: string): Promise<void> {
   return api.delete(`/api/shops/${encodeURIComponent(shopId)}/staff/${encodeURIComponent(userId)}`);
@@ -13,6 +14,6 @@ export function useRemoveStaff(shopId: string) {
     mutationFn: (userId: string) => removeStaff(shopId, userId),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: shopKeys.all }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: shopKeys.all }),
   });
 }

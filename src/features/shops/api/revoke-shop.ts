@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { grantKeys } from './grant-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export function revokeShop(carId: string, shopId: string): Promise<void> {
   return api.delete(`/api/cars/${encodeURIComponent(carId)}/shop-grants/${encodeURIComponent(shopId)}`);
@@ -13,6 +14,6 @@ export function useRevokeShop(carId: string) {
     mutationFn: (shopId: string) => revokeShop(carId, shopId),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: grantKeys.ofCar(carId) }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: grantKeys.ofCar(carId) }),
   });
 }

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateSuggestionInput, Suggestion } from '@shared/collab/suggestion.schema';
 import { api } from '@/lib/api-client';
 import { suggestionKeys } from './suggestion-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** Sent with an id made on the device, so sending again after a lost answer never makes two. */
 export type CreateSuggestionBody = CreateSuggestionInput & { id: string };
@@ -17,6 +18,6 @@ export function useCreateSuggestion(carId: string) {
     mutationFn: (body: CreateSuggestionBody) => createSuggestion(carId, body),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: suggestionKeys.ofCar(carId) }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: suggestionKeys.ofCar(carId) }),
   });
 }

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AcceptedSuggestion, AcceptSuggestionInput, DeclineSuggestionInput, Suggestion } from '@shared/collab/suggestion.schema';
 import { api } from '@/lib/api-client';
 import { suggestionKeys } from './suggestion-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** Always sent with the new snapshot's id made on the device, so accepting twice never records two setups. */
 export type AcceptSuggestionBody = AcceptSuggestionInput & { setupId: string };
@@ -18,8 +19,8 @@ function useRefresh(suggestion: Pick<Suggestion, 'id' | 'carId'>) {
   const queryClient = useQueryClient();
   return () =>
     Promise.all([
-      queryClient.invalidateQueries({ queryKey: suggestionKeys.detail(suggestion.id) }),
-      queryClient.invalidateQueries({ queryKey: suggestionKeys.ofCar(suggestion.carId) }),
+      refreshAfterWrite(queryClient, { queryKey: suggestionKeys.detail(suggestion.id) }),
+      refreshAfterWrite(queryClient, { queryKey: suggestionKeys.ofCar(suggestion.carId) }),
     ]);
 }
 

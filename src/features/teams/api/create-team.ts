@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateTeamInput, TeamSummary } from '@shared/collab/team.schema';
 import { api } from '@/lib/api-client';
 import { teamKeys } from './team-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** Starts a team with the signed-in user as its captain. */
 export function createTeam(input: CreateTeamInput): Promise<TeamSummary> {
@@ -15,6 +16,6 @@ export function useCreateTeam() {
     mutationFn: createTeam,
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: teamKeys.mine() }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: teamKeys.mine() }),
   });
 }

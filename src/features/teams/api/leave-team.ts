@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { teamKeys } from './team-keys';
 import { removeMember } from './remove-member';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /**
  * The signed-in member leaves the team. Only the list of teams is refreshed: the team's own page
@@ -12,6 +13,6 @@ export function useLeaveTeam(teamId: string, currentUserId: string) {
     mutationFn: () => removeMember(teamId, currentUserId),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: teamKeys.mine() }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: teamKeys.mine() }),
   });
 }

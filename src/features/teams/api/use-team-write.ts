@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { teamKeys } from './team-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 export const teamPath = (teamId: string) => `/api/teams/${encodeURIComponent(teamId)}`;
 
@@ -18,8 +19,8 @@ export function useTeamWrite<TInput, TResult>(
   // The list of teams too: a captain may have made themselves a member.
   const refresh = () =>
     Promise.all([
-      queryClient.invalidateQueries({ queryKey: teamKeys.ofTeam(teamId) }),
-      queryClient.invalidateQueries({ queryKey: teamKeys.mine() }),
+      refreshAfterWrite(queryClient, { queryKey: teamKeys.ofTeam(teamId) }),
+      refreshAfterWrite(queryClient, { queryKey: teamKeys.mine() }),
     ]);
   return useMutation({
     mutationFn: write,

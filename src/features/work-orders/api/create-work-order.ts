@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateWorkOrderInput, WorkOrder } from '@shared/service/work-order.schema';
 import { api } from '@/lib/api-client';
 import { workOrderKeys } from './work-order-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 /** Always sent with an id made on the device, so sending twice never opens two visits. */
 export type CreateWorkOrderBody = CreateWorkOrderInput & { id: string };
@@ -17,6 +18,6 @@ export function useCreateWorkOrder(carId: string) {
     mutationFn: (body: CreateWorkOrderBody) => createWorkOrder(carId, body),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: workOrderKeys.all }),
+    onSuccess: () => refreshAfterWrite(queryClient, { queryKey: workOrderKeys.all }),
   });
 }

@@ -9,6 +9,7 @@ import type {
 } from '@shared/service/work-order.schema';
 import { api } from '@/lib/api-client';
 import { workOrderKeys } from './work-order-keys';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 const base = (workOrderId: string) => `/api/work-orders/${encodeURIComponent(workOrderId)}`;
 
@@ -38,8 +39,8 @@ function useEdit<I>(workOrderId: string, send: (input: I) => Promise<WorkOrder>)
     onSuccess: (workOrder) => {
       queryClient.setQueryData(workOrderKeys.detail(workOrderId), workOrder);
       return Promise.all([
-        queryClient.invalidateQueries({ queryKey: [...workOrderKeys.all, 'car'] }),
-        queryClient.invalidateQueries({ queryKey: [...workOrderKeys.all, 'shop'] }),
+        refreshAfterWrite(queryClient, { queryKey: [...workOrderKeys.all, 'car'] }),
+        refreshAfterWrite(queryClient, { queryKey: [...workOrderKeys.all, 'shop'] }),
       ]);
     },
   });

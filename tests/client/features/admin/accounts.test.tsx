@@ -1,5 +1,5 @@
 // @vitest-environment jsdom
-import { screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import type { AdminAccount } from '../../../../shared/auth/admin.schema';
@@ -79,6 +79,38 @@ describe('the accounts page', () => {
     await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
     expect(requestsTo(fetchMock, `POST /api/admin/users/${TOMAS.id}/suspend`)[0]?.body).toEqual({ note: 'Asked by the club after the November event' });
     expect(await screen.findByRole('button', { name: 'Restore Tomas Reed' })).toBeTruthy();
+  });
+
+  it('when a search is still being read as the suspension is sent, then that answer from before it is not the one shown', async () => {
+    // A search sent before the suspension reached the database answers "not suspended" after the suspension is done.
+    let suspended = false;
+    let suspensionDone!: () => void;
+    const afterSuspension = new Promise<void>((resolve) => (suspensionDone = resolve));
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': () => page([TOMAS]),
+      'GET /api/admin/users?q=tom': async () => {
+        const answer = page([suspended ? SUSPENDED : TOMAS]);
+        await afterSuspension;
+        return answer;
+      },
+      [`POST /api/admin/users/${TOMAS.id}/suspend`]: () => {
+        suspended = true;
+        setTimeout(suspensionDone, 50);
+        return jsonResponse(200, SUSPENDED);
+      },
+    });
+    renderApp('/accounts');
+    const u = userEvent.setup();
+    await u.click(await screen.findByRole('button', { name: 'Suspend Tomas Reed' }));
+    await u.type(within(screen.getByRole('dialog')).getByLabelText('Why'), 'Asked by e-mail to be removed');
+    // The search is typed behind the question (as a quick hand does), and goes out once typing pauses.
+    fireEvent.change(screen.getByLabelText('Find an account', { selector: 'input' }), { target: { value: 'tom' } });
+    await waitFor(() => expect(requestsTo(fetchMock, 'GET /api/admin/users?q=tom')).toHaveLength(1), { timeout: 2000 });
+    await u.click(within(screen.getByRole('dialog')).getByRole('button', { name: 'Suspend account' }));
+
+    expect(await screen.findByRole('button', { name: 'Close for good Tomas Reed' }, { timeout: 3000 })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Restore Tomas Reed' })).toBeTruthy();
   });
 
   it('when the server refuses the suspension, then its words show in the dialog, which stays open', async () => {
