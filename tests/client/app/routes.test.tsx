@@ -55,6 +55,21 @@ describe('routes', () => {
     });
   });
 
+  it('when someone signs in on a phone that still holds answers from an earlier session, then those answers are dropped', async () => {
+    stubFetch({
+      'GET /api/auth/me': SIGNED_OUT,
+      'POST /api/auth/login': jsonResponse(200, { user: SAM }),
+    });
+    const { queryClient } = renderApp('/sign-in');
+    // A car page read by whoever used the phone before (a page Home does not read again).
+    queryClient.setQueryData(['cars', 'detail', 'c-earlier'], { id: 'c-earlier', name: 'Someone else’s car' });
+
+    await signIn('sam@example.test', 'correct horse battery');
+
+    expect(await screen.findByRole('heading', { name: 'Hi, Sam Okafor' }, { timeout: 5000 })).toBeTruthy();
+    expect(queryClient.getQueryData(['cars', 'detail', 'c-earlier'])).toBeUndefined();
+  }, 15_000);
+
   it('when the e-mail and password do not match (401), then the sign-in form shows the server message', async () => {
     stubFetch({
       'GET /api/auth/me': SIGNED_OUT,
