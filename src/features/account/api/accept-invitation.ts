@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AcceptedInvitation } from '@shared/collab/invitation.schema';
 import { api } from '@/lib/api-client';
+import { refreshAfterWrite } from '@/lib/refresh-after-write';
 import { invitationKey } from './get-invitation';
 
 export function acceptInvitation(token: string): Promise<AcceptedInvitation> {
@@ -21,7 +22,7 @@ export function useAcceptInvitation(token: string) {
     onSuccess: () =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: invitationKey(token), refetchType: 'none' }),
-        queryClient.invalidateQueries({ predicate: (query) => query.queryKey[0] !== invitationKey(token)[0] }),
+        refreshAfterWrite(queryClient, { predicate: (query) => query.queryKey[0] !== invitationKey(token)[0] }),
       ]),
   });
 }
