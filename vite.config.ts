@@ -184,6 +184,7 @@ export default defineConfig({
           include: ['tests/e2e/**/*.spec.ts'],
           environment: 'node',
           globalSetup: ['tests/e2e/global-setup.ts'],
+          setupFiles: ['tests/e2e/failure-report.ts'],
           testTimeout: 60_000,
           hookTimeout: 120_000,
           fileParallelism: false,

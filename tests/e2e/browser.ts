@@ -7,6 +7,37 @@ export const PHONE = { width: 390, height: 844 };
 export const DESKTOP = { width: 1280, height: 800 };
 export const SCREENSHOT_DIR = join(import.meta.dirname, '..', '..', 'test-results', 'e2e');
 
+const journals = new Map<Page, string[]>();
+
+/** The pages of every browser the tests have open now (for the report on a failed test). */
+export function openPages(): Page[] {
+  return [...journals.keys()].filter((page) => !page.isClosed());
+}
+
+/** What a page logged and asked for, oldest first: console lines, failed requests and every API answer with its time. */
+export function pageJournal(page: Page): string[] {
+  return journals.get(page) ?? [];
+}
+
+function keepJournal(page: Page) {
+  const journal: string[] = [];
+  journals.set(page, journal);
+  const started = Date.now();
+  const note = (line: string) => {
+    journal.push(`${((Date.now() - started) / 1000).toFixed(1)} s ${line}`);
+    if (journal.length > 200) journal.shift();
+  };
+  page.on('console', (m) => note(`console ${m.type()}: ${m.text().slice(0, 300)}`));
+  page.on('pageerror', (e) => note(`page error: ${e.message.slice(0, 300)}`));
+  page.on('requestfailed', (r) => note(`failed ${r.method()} ${r.url()}: ${r.failure()?.errorText ?? ''}`));
+  page.on('response', (r) => {
+    if (r.url().includes('/api/')) note(`${r.request().method()} ${new URL(r.url()).pathname} ${r.status()}`);
+  });
+  page.on('framenavigated', (f) => {
+    if (f === page.mainFrame()) note(`navigated to ${f.url()}`);
+  });
+}
+
 export interface OpenBrowser {
   context: BrowserContext;
   page: Page;
@@ -35,10 +66,12 @@ export async function openBrowser(size: 'phone' | 'desktop', { serviceWorkers = 
       '--disable-component-update', '--disable-sync'],
   });
   const page = context.pages()[0] ?? (await context.newPage());
+  keepJournal(page);
   return {
     context,
     page,
     async close() {
+      journals.delete(page);
       await context.close();
       rmSync(profile, { recursive: true, force: true });
     },
