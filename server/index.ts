@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
 import { createApp } from './app';
+import type { AuthLimits } from './auth/rate-limit';
 import { isProduction, loadConfig, type Config } from './config';
 import { createDataSource } from './db/data-source';
 import { seedDemoIfEmpty } from './db/seed';
@@ -36,7 +37,12 @@ export function localOrigin(host: string, port: number): string {
 const ROOT = join(fileURLToPath(import.meta.url), '..', '..');
 
 /** Connects, migrates, seeds an empty database, and listens. */
-export async function startServer(config: Config, clientDir = join(ROOT, 'dist')): Promise<RunningServer> {
+/** What only a test harness sets: the end-to-end suite signs in dozens of times from one address within one window. */
+export interface StartOptions {
+  authLimits?: Partial<AuthLimits>;
+}
+
+export async function startServer(config: Config, clientDir = join(ROOT, 'dist'), { authLimits }: StartOptions = {}): Promise<RunningServer> {
   const ds = createDataSource(config.DATABASE_URL);
   await ds.initialize();
   await ds.runMigrations({ transaction: 'each' });
@@ -79,6 +85,7 @@ export async function startServer(config: Config, clientDir = join(ROOT, 'dist')
     mailboxDir,
     payments,
     storage,
+    authLimits,
   });
 
   const server = await new Promise<Server>((resolve, reject) => {

@@ -38,6 +38,9 @@ export default async function setup(project: TestProject) {
       STRIPE_API_URL: payments.url,
     }),
     join(root, 'dist'),
+    // Every phone of the suite signs in and registers from 127.0.0.1 within one 15-minute window, far more often
+    // than one person would; the limits themselves are tested in tests/server/auth/rate-limit.test.ts.
+    { authLimits: { loginPerIp: 300, registerPerIp: 100 } },
   );
   payments.setWebhookUrl(`http://127.0.0.1:${running.port}/api/payments/webhook`);
   project.provide('baseUrl', `http://127.0.0.1:${running.port}`);
