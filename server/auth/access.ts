@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { Role, User } from '@shared/auth/auth.schema';
-import { AppError } from '../lib/app-error';
+import { AppError, HiddenRecord } from '../lib/app-error';
 import { allows, type ACCESS_MATRIX } from './access-matrix';
 
 /**
@@ -46,7 +46,8 @@ export type CarRelation = 'owner' | 'co_driver' | 'shop_staff';
  * see the car but not do this gets 403. Every car-scoped route goes through here.
  */
 export async function assertCarAccess(db: Queryable, user: User, carId: string, action: CarAction): Promise<CarRelation> {
-  return assertCarRelations(await carRelations(db, user.id, carId), action);
+  const row = await carRelationRow(db, user.id, carId);
+  return assertCarRelations(relationsOf(row), action, row !== undefined);
 }
 
 const CAR_REFUSALS: Record<CarAction, string> = {
@@ -73,10 +74,15 @@ type RelationRow = Record<CarRelation, boolean>;
 const CAR_RELATIONS = ['owner', 'co_driver', 'shop_staff'] as const satisfies readonly CarRelation[];
 const relationsOf = (row: RelationRow | undefined): CarRelation[] => (row ? CAR_RELATIONS.filter((r) => row[r]) : []);
 
+/** The user's relations to the car as one row; none when the car does not exist. */
+async function carRelationRow(db: Queryable, userId: string, carId: string): Promise<RelationRow | undefined> {
+  const rows: RelationRow[] = await db.query(`SELECT ${carRelationColumns('$2')} FROM cars c WHERE c.id = $1`, [carId, userId]);
+  return rows[0];
+}
+
 /** Every relation the user has to the car, strongest first (empty: none). */
 export async function carRelations(db: Queryable, userId: string, carId: string): Promise<CarRelation[]> {
-  const rows: RelationRow[] = await db.query(`SELECT ${carRelationColumns('$2')} FROM cars c WHERE c.id = $1`, [carId, userId]);
-  return relationsOf(rows[0]);
+  return relationsOf(await carRelationRow(db, userId, carId));
 }
 
 /**
@@ -105,14 +111,14 @@ export type RunWriteFactsRow = RelationRow & { event_visible: boolean; drives_ca
 
 /** Refuses a run's write from the facts of runWriteFactsSql, in order: the car (404, 403), the event (404), the driver. */
 export function assertRunWrite(row: RunWriteFactsRow | undefined, notTheDriver: () => AppError): asserts row is RunWriteFactsRow {
-  assertCarRelations(relationsOf(row), 'write');
+  assertCarRelations(relationsOf(row), 'write', row !== undefined);
   if (!row?.event_visible) throw new AppError('not_found', 'That event was not found.');
   if (!row.drives_car) throw notTheDriver();
 }
 
-/** Refuses as assertCarAccess does, from relations already read. */
-export function assertCarRelations(relations: CarRelation[], action: CarAction): CarRelation {
-  if (!relations.some((r) => allows('car', 'read', r))) throw new AppError('not_found', 'That car was not found.');
+/** Refuses as assertCarAccess does, from relations already read; `carExists` marks a car hidden from this user. */
+export function assertCarRelations(relations: CarRelation[], action: CarAction, carExists = false): CarRelation {
+  if (!relations.some((r) => allows('car', 'read', r))) throw carExists ? new HiddenRecord('That car') : new AppError('not_found', 'That car was not found.');
   const relation = relations.find((r) => allows('car', action, r));
   if (!relation) throw new AppError('forbidden', CAR_REFUSALS[action]);
   return relation;

@@ -20,6 +20,16 @@ export class AppError extends Error {
 
 export const notFound = (what = 'That record') => new AppError('not_found', `${what} was not found.`);
 
+/**
+ * A 404 for a record that exists but that the user may not see: the same answer as for one that does not exist,
+ * so nothing is disclosed, but logged as a refused access decision (OWASP ASVS 4.0.3 V7.2.2).
+ */
+export class HiddenRecord extends AppError {
+  constructor(what: string) {
+    super('not_found', `${what} was not found.`);
+  }
+}
+
 /** 409 for an edit based on an old version, carrying the current record so the client can merge. */
 export const staleVersion = (current: unknown) =>
   new AppError(

@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ApiErrorBody } from '@shared/api/api-error.schema';
-import { AppError } from './app-error';
+import { AppError, HiddenRecord } from './app-error';
+import { securityEvent } from './security-log';
 import { logger } from './logger';
 
 function send(res: Parameters<RequestHandler>[1], status: number, body: ApiErrorBody) {
@@ -37,6 +38,8 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
   if (res.headersSent) return next(err);
   const requestId = String(req.id ?? '');
   if (err instanceof AppError) {
+    // The same 404 as for a record that does not exist, but a refused access decision all the same.
+    if (err instanceof HiddenRecord) securityEvent(req, 'record-hidden', { path: req.originalUrl }, 'warn');
     for (const [name, value] of Object.entries(err.headers ?? {})) res.setHeader(name, value);
     return send(res, err.status, {
       error: {

@@ -7,7 +7,8 @@ import type { Request } from 'express';
  * `security: <event>`, the request's id (pino-http), the acting account's id and the client's address, and
  * never a password, token or cookie. An e-mail address is logged only as a digest (`accountKey`), so the logs
  * can tell repeated tries at one address apart without holding the address (V7.1.2).
- * Refused requests (403, 429) are logged at `warn` by pino-http itself (server/app.ts).
+ * Refused requests (403, 429) are logged at `warn` by pino-http itself (server/app.ts); a 404 for a car that exists
+ * but is not the user's to see is a `record-hidden` event at `warn` (server/lib/error-handler.ts).
  */
 
 export type SecurityEvent =
@@ -26,11 +27,12 @@ export type SecurityEvent =
   | 'account-suspended'
   | 'account-restored'
   | 'admin-role-changed'
-  | 'account-closed-by-admin';
+  | 'account-closed-by-admin'
+  | 'record-hidden';
 
 /** The first 16 hex digits of the SHA-256 of an address as typed, trimmed and in lower case. */
 export const accountKey = (email: string) => createHash('sha256').update(email.trim().toLowerCase()).digest('hex').slice(0, 16);
 
-export function securityEvent(req: Request, event: SecurityEvent, details: Record<string, unknown> = {}): void {
-  req.log.info({ security: event, userId: req.user?.id ?? null, ip: req.ip, ...details }, `security event: ${event}`);
+export function securityEvent(req: Request, event: SecurityEvent, details: Record<string, unknown> = {}, level: 'info' | 'warn' = 'info'): void {
+  req.log[level]({ security: event, userId: req.user?.id ?? null, ip: req.ip, ...details }, `security event: ${event}`);
 }

@@ -18,6 +18,7 @@ interface Line {
   reason?: string;
   for?: string;
   target?: string;
+  path?: string;
   res?: { statusCode: number };
   req?: { url: string; headers?: Record<string, string> };
 }
@@ -73,6 +74,21 @@ describe('the security log', () => {
     const other = client(t.app);
     for (let i = 0; i < 4; i++) await other.post('/api/auth/login', { email, password: `guess ${i} of many` });
     expect(lines.some((l) => l.res?.statusCode === 429 && l.req?.url === '/api/auth/login' && l.level === WARN)).toBe(true);
+  });
+
+  it('when someone asks for a car that is not theirs, then the 404 is the same as for no car, but only theirs is logged at warn as a hidden record', async () => {
+    const owner = await signedInClient(t);
+    const car = (await owner.c.post('/api/cars', { name: 'Not yours', classCode: 'SS' })).body as { id: string };
+    const stranger = await signedInClient(t);
+    const hidden = await stranger.c.get(`/api/cars/${car.id}`);
+    const missing = await stranger.c.get('/api/cars/00000000-0000-4000-8000-000000000000');
+
+    expect(hidden.status).toBe(404);
+    expect(hidden.body).toEqual(missing.body);
+    const logged = events('record-hidden').filter((l) => l.userId === stranger.user.id);
+    expect(logged).toHaveLength(1);
+    expect(logged[0]).toMatchObject({ level: WARN, path: `/api/cars/${car.id}` });
+    expect(events('record-hidden').some((l) => l.userId === owner.user.id)).toBe(false);
   });
 
   it('when the password is changed, mistyped at a change, or the account closed, then each is an event of that account', async () => {
