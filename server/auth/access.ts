@@ -177,7 +177,8 @@ export async function assertWorkOrderAccess(
   const relations: WorkOrderRelation[] = row
     ? [...(row.owner ? (['owner'] as const) : []), ...(row.co_driver ? (['co_driver'] as const) : []), ...(row.staff ? (['shop_staff'] as const) : [])]
     : [];
-  if (!row || !relations.some((r) => allows('work_order', 'read', r))) throw new AppError('not_found', 'That work order was not found.');
+  if (!row) throw new AppError('not_found', 'That work order was not found.');
+  if (!relations.some((r) => allows('work_order', 'read', r))) throw new HiddenRecord('That work order');
   const relation = relations.find((r) => allows('work_order', action, r));
   if (!relation) throw new AppError('forbidden', 'Only the shop that did the work can change this work order; the drivers read it and pay.');
   if (relation === 'shop_staff' && action !== 'read' && action !== 'comment' && !row.granted) {

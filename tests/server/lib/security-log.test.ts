@@ -3,6 +3,7 @@ import { Writable } from 'node:stream';
 import { pino } from 'pino';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { client, makeTestApp, signedInClient, TEST_PASSWORD, type TestApp } from '../test-app';
+import { visit } from '../service/invoice-fixtures';
 
 /**
  * Security events in the log (OWASP ASVS 4.0.3 V7.1.3: successful and failed authentication and access-control
@@ -76,7 +77,7 @@ describe('the security log', () => {
     expect(lines.some((l) => l.res?.statusCode === 429 && l.req?.url === '/api/auth/login' && l.level === WARN)).toBe(true);
   });
 
-  it('when someone asks for a car that is not theirs, then the 404 is the same as for no car, but only theirs is logged at warn as a hidden record', async () => {
+  it('when someone asks for a car or a work order that is not theirs, then the 404 is the same as for none, but only theirs is logged at warn as a hidden record', async () => {
     const owner = await signedInClient(t);
     const car = (await owner.c.post('/api/cars', { name: 'Not yours', classCode: 'SS' })).body as { id: string };
     const stranger = await signedInClient(t);
@@ -89,6 +90,17 @@ describe('the security log', () => {
     expect(logged).toHaveLength(1);
     expect(logged[0]).toMatchObject({ level: WARN, path: `/api/cars/${car.id}` });
     expect(events('record-hidden').some((l) => l.userId === owner.user.id)).toBe(false);
+
+    // A shop's work order on that car, asked for by the same stranger: hidden too; one that does not exist is not.
+    const staff = await signedInClient(t);
+    const shop = (await staff.c.post('/api/shops', { name: 'Hidden Hollow Garage' })).body as { id: string };
+    const workOrderId = await visit(t, { shopId: shop.id, carId: car.id, staffId: staff.user.id });
+    expect((await stranger.c.get(`/api/work-orders/${workOrderId}`)).status).toBe(404);
+    expect((await stranger.c.get('/api/work-orders/00000000-0000-4000-8000-000000000000')).status).toBe(404);
+    expect(events('record-hidden').filter((l) => l.userId === stranger.user.id).map((l) => l.path)).toEqual([
+      `/api/cars/${car.id}`,
+      `/api/work-orders/${workOrderId}`,
+    ]);
   });
 
   it('when the password is changed, mistyped at a change, or the account closed, then each is an event of that account', async () => {
