@@ -250,6 +250,7 @@ export async function assertCarChildAccess(
   try {
     await assertCarAccess(db, user, carId, action);
   } catch (err) {
+    if (err instanceof HiddenRecord) throw new HiddenRecord(what);
     if (err instanceof AppError && err.code === 'not_found') throw new AppError('not_found', `${what} was not found.`);
     throw err;
   }
