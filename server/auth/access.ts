@@ -231,8 +231,9 @@ const eventVisibleSql = (user: string) => `(e.created_by = ${user}
                                 OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = e.created_by))))`;
 
 export async function assertEventAccess(db: Queryable, user: User, eventId: string): Promise<void> {
-  const rows = await db.query(`SELECT 1 FROM events e WHERE e.id = $1 AND ${eventVisibleSql('$2')}`, [eventId, user.id]);
+  const rows: { visible: boolean }[] = await db.query(`SELECT ${eventVisibleSql('$2')} AS visible FROM events e WHERE e.id = $1`, [eventId, user.id]);
   if (rows.length === 0) throw new AppError('not_found', 'That event was not found.');
+  if (!rows[0]!.visible) throw new HiddenRecord('That event');
 }
 
 /** Finds the car a child record belongs to, then checks access to that car. */

@@ -77,7 +77,7 @@ describe('the security log', () => {
     expect(lines.some((l) => l.res?.statusCode === 429 && l.req?.url === '/api/auth/login' && l.level === WARN)).toBe(true);
   });
 
-  it('when someone asks for a car, a tyre set or a work order that is not theirs, then the 404 is the same as for none, but only theirs is logged at warn as a hidden record', async () => {
+  it('when someone asks for a car, an event, a tyre set or a work order that is not theirs, then the 404 is the same as for none, but only theirs is logged at warn as a hidden record', async () => {
     const owner = await signedInClient(t);
     const car = (await owner.c.post('/api/cars', { name: 'Not yours', classCode: 'SS' })).body as { id: string };
     const stranger = await signedInClient(t);
@@ -91,7 +91,10 @@ describe('the security log', () => {
     expect(logged[0]).toMatchObject({ level: WARN, path: `/api/cars/${car.id}` });
     expect(events('record-hidden').some((l) => l.userId === owner.user.id)).toBe(false);
 
-    // A tyre set of that car, and a shop's work order on it, asked for by the same stranger: hidden too; ones that do not exist are not.
+    // The owner's event, a tyre set of that car, and a shop's work order on it, asked for by the same stranger: hidden too; ones that do not exist are not.
+    const event = (await owner.c.post('/api/events', { name: 'Quarry test day', date: '2026-05-03', venue: 'Old quarry lot', conePenaltySec: 2 })).body as { id: string };
+    expect((await stranger.c.get(`/api/events/${event.id}`)).status).toBe(404);
+    expect((await stranger.c.get('/api/events/00000000-0000-4000-8000-000000000000')).status).toBe(404);
     const tyreSet = (await owner.c.post(`/api/cars/${car.id}/tyre-sets`, { label: 'Set A', boughtOn: '2026-03-01', startTreadMm: 7 })).body as { id: string };
     expect((await stranger.c.get(`/api/tyre-sets/${tyreSet.id}/readings`)).status).toBe(404);
     expect((await stranger.c.get('/api/tyre-sets/00000000-0000-4000-8000-000000000000/readings')).status).toBe(404);
@@ -102,6 +105,7 @@ describe('the security log', () => {
     expect((await stranger.c.get('/api/work-orders/00000000-0000-4000-8000-000000000000')).status).toBe(404);
     expect(events('record-hidden').filter((l) => l.userId === stranger.user.id).map((l) => l.path)).toEqual([
       `/api/cars/${car.id}`,
+      `/api/events/${event.id}`,
       `/api/tyre-sets/${tyreSet.id}/readings`,
       `/api/work-orders/${workOrderId}`,
     ]);
