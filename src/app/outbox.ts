@@ -3,6 +3,8 @@ import { api, isApiError } from '@/lib/api-client';
 import { deviceStorage, Outbox, type NewOutboxEntry, type OutboxEntry, type SendFailure } from '@/lib/outbox';
 import { outboxMutationKey } from '@/lib/outbox-context';
 import { refreshAfterWrite } from '@/lib/refresh-after-write';
+import type { User } from '@shared/auth/auth.schema';
+import { authKeys } from '@/features/auth/api/auth-keys';
 
 /** The kinds of change made at the car; each is a mutation registered with setMutationDefaults. */
 export const OUTBOX_KINDS = [
@@ -55,8 +57,10 @@ export const eventWaitingIn = (outbox: Outbox) => (eventId: string) =>
 
 export function createAppOutbox(queryClient: QueryClient): Outbox {
   let current: OutboxEntry | null = null;
+  const owner = () => queryClient.getQueryData<User | null>(authKeys.me())?.id;
   const outbox = new Outbox({
     storage: deviceStorage(),
+    owner,
     send: (entry) => {
       current = entry;
       return send(entry);
@@ -73,6 +77,13 @@ export function createAppOutbox(queryClient: QueryClient): Outbox {
       networkMode: 'always',
     });
   }
+  // Someone signed in (or the kept answer says who): their entries show, and go at once.
+  let signedIn = owner();
+  queryClient.getQueryCache().subscribe(() => {
+    if (owner() === signedIn) return;
+    signedIn = owner();
+    void outbox.retryNow();
+  });
   if (typeof window !== 'undefined') {
     window.addEventListener('online', () => void outbox.retryNow());
     void outbox.ready().then(() => outbox.flush());

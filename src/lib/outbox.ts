@@ -40,6 +40,8 @@ export interface OutboxEntry {
   state: OutboxState;
   /** Set when the server refused the entry; it stays until fixed or discarded. */
   error?: OutboxError;
+  /** The account that made it (none on entries stored before accounts were recorded: anyone's). */
+  owner?: string;
 }
 
 export type NewOutboxEntry = Pick<OutboxEntry, 'recordId' | 'kind' | 'method' | 'path' | 'body' | 'label' | 'scope'> & {
@@ -71,6 +73,12 @@ export interface OutboxOptions {
   /** Classifies a send error: try again later, refused for good, or already gone (a delete of a deleted record). */
   classify: (error: unknown) => SendFailure;
   onDelivered?: (entry: OutboxEntry, result: unknown) => void;
+  /**
+   * Who is signed in now. An entry is shown, sent and cleared only while the account that made it is:
+   * after a session the server ended, the next person to sign in on the phone must not upload the
+   * last one's runs as their own.
+   */
+  owner?: () => string | null | undefined;
   now?: () => number;
   newKey?: () => string;
   /** Backoff after the n-th failed try, ms. */
@@ -112,6 +120,7 @@ export class Outbox {
       setTimer: (fn, ms) => setTimeout(fn, ms),
       clearTimer: (h) => clearTimeout(h as ReturnType<typeof setTimeout>),
       lock: defaultLock,
+      owner: () => undefined,
       ...options,
     };
     this.loaded = this.change();
@@ -171,6 +180,7 @@ export class Outbox {
         attempts: 0,
         nextAttemptAt: now,
         state: 'waiting',
+        owner: this.o.owner() ?? undefined,
       };
       return { put: [added] };
     });
@@ -217,12 +227,12 @@ export class Outbox {
     await this.change(() => ({ remove: [key] }));
   }
 
-  /** Removes everything on the device (sign-out). */
+  /** Removes the signed-in account's entries from the device (sign-out); another account's stay for it. */
   async clear(): Promise<void> {
     await this.loaded;
     if (this.timer !== null) this.o.clearTimer(this.timer);
     this.timer = null;
-    await this.change((stored) => ({ remove: stored.map((e) => e.key) }));
+    await this.change((stored) => ({ remove: stored.filter(this.mine).map((e) => e.key) }));
   }
 
   /**
@@ -235,7 +245,7 @@ export class Outbox {
       let next: OutboxEntry | undefined;
       // Marked as sending on the device, so no tab folds an edit into it while it is on its way.
       await this.change((stored) => {
-        next = head(stored);
+        next = head(stored.filter(this.mine));
         if (!next || next.nextAttemptAt > this.o.now()) return (next = undefined);
         this.sendingKey = next.key;
         return { put: [{ ...next, state: 'sending' }] };
@@ -295,9 +305,11 @@ export class Outbox {
   private async change(fn?: (stored: OutboxEntry[]) => OutboxChange | undefined) {
     const stored = await this.o.storage.change(fn && ((s) => fn(byAge(s))));
     // An entry marked as sending by a page that died is simply waiting again; the server's idempotency makes a resend safe.
-    this.entries = byAge(stored).map((e) => (e.state === 'sending' && e.key !== this.sendingKey ? { ...e, state: 'waiting' } : e));
+    this.entries = byAge(stored).filter(this.mine).map((e) => (e.state === 'sending' && e.key !== this.sendingKey ? { ...e, state: 'waiting' } : e));
     this.emit();
   }
+
+  private mine = (e: OutboxEntry) => e.owner === undefined || e.owner === this.o.owner();
 
   private emit() {
     for (const l of this.listeners) l();

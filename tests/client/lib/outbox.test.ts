@@ -8,7 +8,7 @@ class Refused extends Error {
   }
 }
 
-function setup(opts: { initial?: OutboxEntry[]; send?: (e: OutboxEntry) => Promise<unknown> } = {}) {
+function setup(opts: { initial?: OutboxEntry[]; send?: (e: OutboxEntry) => Promise<unknown>; owner?: () => string | null } = {}) {
   let clock = 1_000_000;
   let key = 0;
   const storage = memoryStorage(opts.initial);
@@ -34,6 +34,7 @@ function setup(opts: { initial?: OutboxEntry[]; send?: (e: OutboxEntry) => Promi
       return { kind: 'retry', reason: 'No connection' };
     },
     onDelivered: (e) => delivered.push(e.key),
+    ...(opts.owner ? { owner: opts.owner } : {}),
     setTimer: (fn, ms) => {
       const t = { fn, at: clock + ms };
       timers.push(t);
@@ -190,6 +191,63 @@ describe('the outbox', () => {
     await t.outbox.clear();
     expect(t.outbox.getSnapshot()).toHaveLength(0);
     expect(t.storage.saved).toHaveLength(0);
+  });
+
+  describe('whose entries', () => {
+    it('when the session of the account that queued runs ends and another account signs in on the phone, then that account neither sees, sends nor clears them, and they go once their own account is back', async () => {
+      let signedIn: string | null = 'ana';
+      const t = setup({ owner: () => signedIn });
+      t.setOnline(false);
+      await t.outbox.add(run('r1', 'Ana run 1'));
+      await t.outbox.add(run('r2', 'Ana run 2'));
+      expect(t.storage.saved.map((e) => e.owner)).toEqual(['ana', 'ana']);
+
+      // The server ended Ana's session; Ben signs in on the same phone, with signal.
+      signedIn = null;
+      await t.outbox.retryNow();
+      expect(t.outbox.getSnapshot()).toEqual([]);
+      signedIn = 'ben';
+      t.setOnline(true);
+      await t.outbox.retryNow();
+      await t.outbox.add(run('r3', 'Ben run 1'));
+      await t.outbox.flush();
+      expect(t.sent.map((e) => e.recordId)).toEqual(['r3']);
+      expect(t.outbox.getSnapshot()).toEqual([]);
+      expect(t.outbox.retryReason()).toBeNull();
+
+      // Ben signs out: his entries would go, Ana's stay for her.
+      await t.outbox.clear();
+      expect(t.storage.saved.map((e) => e.recordId)).toEqual(['r1', 'r2']);
+
+      signedIn = 'ana';
+      await t.outbox.retryNow();
+      expect(t.sent.map((e) => e.recordId)).toEqual(['r3', 'r1', 'r2']);
+      expect(t.storage.saved).toEqual([]);
+    });
+
+    it('when entries were stored before accounts were recorded, then whoever signs in sends them, as before', async () => {
+      const legacy: OutboxEntry = { key: 'a', recordId: 'r1', kind: 'run.create', method: 'POST', path: '/api/runs', body: {}, label: 'Run 1', scope: {}, createdAt: 1, attempts: 0, nextAttemptAt: 0, state: 'waiting' };
+      const t = setup({ initial: [legacy], owner: () => 'ana' });
+      await t.outbox.ready();
+      expect(t.outbox.getSnapshot().map((e) => e.key)).toEqual(['a']);
+      await t.outbox.flush();
+      expect(t.sent.map((e) => e.key)).toEqual(['a']);
+    });
+
+    it('when nobody is signed in, then an entry of an account waits, unseen', async () => {
+      let signedIn: string | null = 'ana';
+      const t = setup({ owner: () => signedIn });
+      t.setOnline(false);
+      await t.outbox.add(run('r1'));
+      await t.outbox.flush();
+      signedIn = null;
+      t.setOnline(true);
+      await t.outbox.retryNow();
+      expect(t.sent).toEqual([]);
+      expect(t.outbox.getSnapshot()).toEqual([]);
+      expect(t.timers).toEqual([]);
+      expect(t.storage.saved.map((e) => e.recordId)).toEqual(['r1']);
+    });
   });
 
   it('when an entry is added while another is being sent, then it is sent in the same flush, without waiting for a timer', async () => {

@@ -8,12 +8,13 @@ import { createStore, entries } from 'idb-keyval';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { createAppOutbox } from '@/app/outbox';
 import { login } from '@/features/auth/api/login';
+import { authKeys } from '@/features/auth/api/auth-keys';
 import { dropCsrfToken } from '@/lib/api-client';
 import { createRunEntry, type CreateRunBody } from '@/features/runs/api/create-run';
 import { outboxMutationKey } from '@/lib/outbox-context';
 import type { Outbox, OutboxEntry } from '@/lib/outbox';
 import { makeTestApp, TEST_PASSWORD, type TestApp } from '../test-app';
-import { countOf, driverWithCarAndEvent, runBody, type Driver } from '../season/season-fixtures';
+import { addCoDriver, countOf, driverWithCarAndEvent, runBody, type Driver } from '../season/season-fixtures';
 
 /**
  * A run logged on the phone reaches the server exactly once, through the app's own outbox, API
@@ -205,6 +206,42 @@ describe('a run queued on the phone arrives exactly once', () => {
     expect(statuses.every((s) => s === 201 || s === 200)).toBe(true);
     expect(net.postsOf(run.id).filter((e) => e.lost)).toHaveLength(1);
     expect(await runCounts(d, run.id)).toEqual({ withId: 1, ofCar: 1 });
+    expect(await storedOnDevice()).toEqual([]);
+  });
+
+  it('when the session of the driver who queued a run ends and her co-driver signs in on the same phone, then the run waits for her, unseen by him, and goes once, in her session, when she signs in again', async () => {
+    const { d, net } = await signedInBrowser();
+    const co = await addCoDriver(t, d);
+    const tab = openTab();
+    // Signed in as the app does it: the sign-in's answer is who is signed in.
+    const signIn = async (email: string) => {
+      dropCsrfToken();
+      tab.queryClient.setQueryData(authKeys.me(), await login({ email, password: TEST_PASSWORD }));
+    };
+    await signIn(d.email);
+    net.offline = true;
+    const run = newRun(d, 4);
+    await tab.logRun(run);
+    await expect.poll(() => tab.outbox.getSnapshot()[0]?.attempts ?? 0).toBeGreaterThan(0);
+
+    // Her session ends on the server (the app marks nobody signed in); with signal again, he signs in.
+    tab.queryClient.setQueryData(authKeys.me(), null);
+    net.offline = false;
+    await signIn(co.email);
+    await tab.outbox.retryNow();
+    expect(tab.outbox.getSnapshot()).toEqual([]);
+    // He signs out: what is his goes, hers stays.
+    await tab.outbox.clear();
+    expect(await storedOnDevice()).toHaveLength(1);
+    expect(net.postsOf(run.id)).toEqual([]);
+
+    // She signs in again: the run goes at once, without waiting for the outbox's backoff.
+    await signIn(d.email);
+    await expect.poll(() => net.postsOf(run.id).map((e) => e.status), { timeout: 5_000 }).toEqual([201]);
+    await expect.poll(() => tab.outbox.getSnapshot().length).toBe(0);
+    expect(await runCounts(d, run.id)).toEqual({ withId: 1, ofCar: 1 });
+    // Sent after her last sign-in, so in her session.
+    expect(net.log.findLastIndex((e) => e.path === '/api/auth/login')).toBeLessThan(net.log.findIndex((e) => e.method === 'POST' && e.path === '/api/runs' && e.status === 201));
     expect(await storedOnDevice()).toEqual([]);
   });
 });
