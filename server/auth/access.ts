@@ -97,21 +97,23 @@ export const carActionAllowedSql = (alias: string, action: CarAction) => {
 
 /**
  * What writing a run needs to know, as one row (none when the car does not exist): the user's relations
- * to the car, whether the user may see the event (event_visible), and whether the driver drives the car
- * (drives_car, its owner or a co-driver). The answers are the same as carRelations and assertEventAccess
- * give one query each; a write can join this row and happen only where it allows.
+ * to the car, whether the user may see the event (event_visible: null when there is no such event, false
+ * when it is not the user's to see), and whether the driver drives the car (drives_car, its owner or a
+ * co-driver). The answers are the same as carRelations and assertEventAccess give one query each; a write
+ * can join this row and happen only where it allows.
  */
 export const runWriteFactsSql = (p: { user: string; car: string; event: string; driver: string }) =>
   `SELECT ${carRelationColumns(p.user)},
-          EXISTS (SELECT 1 FROM events e WHERE e.id = ${p.event} AND ${eventVisibleSql(p.user)}) AS event_visible,
+          (SELECT ${eventVisibleSql(p.user)} FROM events e WHERE e.id = ${p.event}) AS event_visible,
           ${drivesCarSql(p.driver)} AS drives_car
      FROM cars c WHERE c.id = ${p.car}`;
 
-export type RunWriteFactsRow = RelationRow & { event_visible: boolean; drives_car: boolean };
+export type RunWriteFactsRow = RelationRow & { event_visible: boolean | null; drives_car: boolean };
 
 /** Refuses a run's write from the facts of runWriteFactsSql, in order: the car (404, 403), the event (404), the driver. */
 export function assertRunWrite(row: RunWriteFactsRow | undefined, notTheDriver: () => AppError): asserts row is RunWriteFactsRow {
   assertCarRelations(relationsOf(row), 'write', row !== undefined);
+  if (row?.event_visible === false) throw new HiddenRecord('That event');
   if (!row?.event_visible) throw new AppError('not_found', 'That event was not found.');
   if (!row.drives_car) throw notTheDriver();
 }
@@ -194,11 +196,13 @@ export type TeamAction = keyof (typeof ACCESS_MATRIX)['team'];
 
 /** Staff of the shop may read it; its shop admins manage staff. Others get 404. */
 export async function assertShopAccess(db: Queryable, user: User, shopId: string, action: ShopAction): Promise<'shop_staff' | 'shop_admin'> {
-  const rows: { is_shop_admin: boolean }[] = await db.query(
-    'SELECT is_shop_admin FROM shop_members WHERE shop_id = $1 AND user_id = $2',
+  // null when the shop exists but the user is not on its staff.
+  const rows: { is_shop_admin: boolean | null }[] = await db.query(
+    'SELECT (SELECT is_shop_admin FROM shop_members WHERE shop_id = s.id AND user_id = $2) AS is_shop_admin FROM shops s WHERE s.id = $1',
     [shopId, user.id],
   );
   if (!rows[0]) throw new AppError('not_found', 'That shop was not found.');
+  if (rows[0].is_shop_admin === null) throw new HiddenRecord('That shop');
   const relations = rows[0].is_shop_admin ? (['shop_admin', 'shop_staff'] as const) : (['shop_staff'] as const);
   const relation = relations.find((r) => allows('shop', action, r));
   if (!relation) throw new AppError('forbidden', 'Only the shop\'s admins can do this.');
@@ -207,11 +211,13 @@ export async function assertShopAccess(db: Queryable, user: User, shopId: string
 
 /** Members read the team and enter their cars; captains manage it. Others get 404. */
 export async function assertTeamAccess(db: Queryable, user: User, teamId: string, action: TeamAction): Promise<'team_member' | 'team_captain'> {
-  const rows: { is_captain: boolean }[] = await db.query(
-    'SELECT is_captain FROM team_members WHERE team_id = $1 AND user_id = $2',
+  // null when the team exists but the user is not on it.
+  const rows: { is_captain: boolean | null }[] = await db.query(
+    'SELECT (SELECT is_captain FROM team_members WHERE team_id = t.id AND user_id = $2) AS is_captain FROM teams t WHERE t.id = $1',
     [teamId, user.id],
   );
   if (!rows[0]) throw new AppError('not_found', 'That team was not found.');
+  if (rows[0].is_captain === null) throw new HiddenRecord('That team');
   const relations = rows[0].is_captain ? (['team_captain', 'team_member'] as const) : (['team_member'] as const);
   const relation = relations.find((r) => allows('team', action, r));
   if (!relation) throw new AppError('forbidden', 'Only the team\'s captains can do this.');

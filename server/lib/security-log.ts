@@ -8,7 +8,7 @@ import type { Request } from 'express';
  * never a password, token or cookie. An e-mail address is logged only as a digest (`accountKey`), so the logs
  * can tell repeated tries at one address apart without holding the address (V7.1.2).
  * Refused requests (403, 429) are logged at `warn` by pino-http itself (server/app.ts); a 404 for a record that
- * exists but is not the user's to see (a car, what hangs off it, an event, a work order: `HiddenRecord`) is a
+ * exists but is not the user's to see (a car, what hangs off it, an event, a work order, a shop, a team: `HiddenRecord`) is a
  * `record-hidden` event at `warn` (server/lib/error-handler.ts).
  */
 

@@ -111,6 +111,38 @@ describe('the security log', () => {
     ]);
   });
 
+  it('when someone logs a run into an event, or asks for a shop or a team, that is not theirs, then the 404 is the same as for none, and only theirs is logged as a hidden record', async () => {
+    const owner = await signedInClient(t);
+    const event = (await owner.c.post('/api/events', { name: 'Closed club day', date: '2026-05-10', venue: 'Back lot', conePenaltySec: 2 })).body as { id: string };
+    const shop = (await owner.c.post('/api/shops', { name: 'Private Bench Garage' })).body as { id: string };
+    const team = (await owner.c.post('/api/teams', { name: 'Closed Door Racing' })).body as { id: string };
+    const stranger = await signedInClient(t);
+    const car = (await stranger.c.post('/api/cars', { name: 'Own car', classCode: 'SS' })).body as { id: string };
+    const none = '00000000-0000-4000-8000-000000000000';
+    const runInto = (eventId: string) =>
+      stranger.c.post('/api/runs', { id: crypto.randomUUID(), carId: car.id, eventId, runNumber: 1, rawTimeSec: 45.6, cones: 0, status: 'finished', recordedAt: '2026-05-10T10:00:00Z' });
+
+    const pairs = [
+      [await runInto(event.id), await runInto(none)],
+      [await stranger.c.get(`/api/shops/${shop.id}`), await stranger.c.get(`/api/shops/${none}`)],
+      [await stranger.c.get(`/api/teams/${team.id}`), await stranger.c.get(`/api/teams/${none}`)],
+    ];
+    for (const [hidden, missing] of pairs) {
+      expect(hidden!.status).toBe(404);
+      expect(hidden!.body).toEqual(missing!.body);
+    }
+    expect(events('record-hidden').filter((l) => l.userId === stranger.user.id).map((l) => [l.level, l.path])).toEqual([
+      [WARN, '/api/runs'],
+      [WARN, `/api/shops/${shop.id}`],
+      [WARN, `/api/teams/${team.id}`],
+    ]);
+    expect(await t.ds.query('SELECT 1 FROM runs WHERE car_id = $1', [car.id])).toEqual([]);
+    // Their own shop and team are theirs: nothing is logged for the owner.
+    expect((await owner.c.get(`/api/shops/${shop.id}`)).status).toBe(200);
+    expect((await owner.c.get(`/api/teams/${team.id}`)).status).toBe(200);
+    expect(events('record-hidden').some((l) => l.userId === owner.user.id)).toBe(false);
+  });
+
   it('when the password is changed, mistyped at a change, or the account closed, then each is an event of that account', async () => {
     const { c, user } = await signedInClient(t);
     await c.post('/api/auth/me/password', { currentPassword: 'not the current one at all', newPassword: 'a brand new long password' });
