@@ -9,6 +9,7 @@ import { toast } from '@/lib/toast-store';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useCar } from '@/features/cars/api/get-car';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
+import { TreadDisplay } from '@/features/tyres/components/tread-display';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
 import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
 
@@ -20,7 +21,8 @@ export function TreadPage() {
   const car = useCar(carId);
   // Sets made on this phone count too: a reading of one waits behind the set's own upload.
   const sets = useTyreSetViews(carId);
-  // Each set's latest saved reading carries a thread (the shop and the drivers talk about the wear).
+  // Each set's latest saved reading in full (the form shows it only faintly, and only until a box is typed in),
+  // with its photos and its thread (the shop and the drivers talk about the wear).
   const readings = sets.sets.flatMap((set) => (set.latestReading ? [{ set, reading: set.latestReading }] : []));
   const onUploaded = useCallback(() => {
     toast({ tone: 'success', title: 'Tread reading saved' });
@@ -54,6 +56,7 @@ export function TreadPage() {
                   <span className="font-bold">{set.label}</span>{' '}
                   <span className="tabular-figures text-sm text-ink-muted">· {formatDateTime(reading.takenAt)}</span>
                 </p>
+                <TreadDisplay corners={reading.corners} />
                 <AttachmentToggle target={{ targetType: 'tread_reading', targetId: reading.id }} what={`the ${set.label} reading`} defaultOpen />
                 <CommentToggle target={{ type: 'tread_reading', id: reading.id }} what={`the ${set.label} reading`} />
               </li>

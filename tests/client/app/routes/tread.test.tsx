@@ -1,5 +1,5 @@
 // @vitest-environment jsdom
-import { screen, waitFor } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
@@ -84,5 +84,20 @@ describe('tread entry', () => {
 
     expect(await screen.findByText(/Right rear: enter all three/)).toBeTruthy();
     expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+
+  it('when the page opens, then the last reading of each set is listed in full, even after a box of the form is typed in', async () => {
+    stub(METRIC_PREFERENCES);
+    renderApp(`/cars/${IDS.car}/tread`);
+    const u = userEvent.setup();
+
+    const latest = await screen.findByRole('list', { name: 'Latest reading of each set' });
+    await u.type(screen.getByLabelText('Left front inner'), '5.2');
+    const lf = within(latest).getByRole('group', { name: /Left front/ });
+    expect(lf.textContent).toContain('inner 6.0 mm');
+    expect(lf.textContent).toContain('outer 6.6 mm');
+    expect(within(latest).getByRole('group', { name: /Right front/ }).textContent).toContain('middle 6.4 mm');
+    // The rear was not measured at that reading.
+    expect(within(latest).getByRole('group', { name: /Left rear/ }).textContent).toContain('Not measured');
   });
 });
