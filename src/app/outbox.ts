@@ -50,6 +50,27 @@ export function classifySendError(entry: OutboxEntry | null, error: unknown): Se
   };
 }
 
+/** Who is signed in, as the query cache knows it: the owner of the changes made now. */
+export const signedInAccount = (queryClient: QueryClient) => () => queryClient.getQueryData<User | null>(authKeys.me())?.id;
+
+/**
+ * Shows and sends the entries of whoever is signed in. Someone signing in after a session ended gets
+ * theirs sent at once; the first answer of a page load (kept on the device or from the server) lets
+ * them wait out their backoff, as they would have.
+ */
+export function followSignIn(queryClient: QueryClient, outbox: Outbox): void {
+  const owner = signedInAccount(queryClient);
+  let signedIn = owner();
+  queryClient.getQueryCache().subscribe(() => {
+    const now = owner();
+    if (now === signedIn) return;
+    const again = signedIn !== undefined;
+    signedIn = now;
+    // Nobody signed in: nothing is sent (see Outbox), and the sign-in page shows none of it.
+    if (now) void (again ? outbox.retryNow() : outbox.flush());
+  });
+}
+
 /** The app's one outbox, wired to the API and the query cache. */
 /** Is this event still only on the phone, its creation waiting in the outbox? The server cannot know it yet. */
 export const eventWaitingIn = (outbox: Outbox) => (eventId: string) =>
@@ -57,7 +78,7 @@ export const eventWaitingIn = (outbox: Outbox) => (eventId: string) =>
 
 export function createAppOutbox(queryClient: QueryClient): Outbox {
   let current: OutboxEntry | null = null;
-  const owner = () => queryClient.getQueryData<User | null>(authKeys.me())?.id;
+  const owner = signedInAccount(queryClient);
   const outbox = new Outbox({
     storage: deviceStorage(),
     owner,
@@ -77,13 +98,7 @@ export function createAppOutbox(queryClient: QueryClient): Outbox {
       networkMode: 'always',
     });
   }
-  // Someone signed in (or the kept answer says who): their entries show, and go at once.
-  let signedIn = owner();
-  queryClient.getQueryCache().subscribe(() => {
-    if (owner() === signedIn) return;
-    signedIn = owner();
-    void outbox.retryNow();
-  });
+  followSignIn(queryClient, outbox);
   if (typeof window !== 'undefined') {
     window.addEventListener('online', () => void outbox.retryNow());
     void outbox.ready().then(() => outbox.flush());

@@ -227,12 +227,16 @@ export class Outbox {
     await this.change(() => ({ remove: [key] }));
   }
 
-  /** Removes the signed-in account's entries from the device (sign-out); another account's stay for it. */
-  async clear(): Promise<void> {
+  /**
+   * Removes an account's entries from the device (sign-out): by default the signed-in account's, but a
+   * sign-out names the account it began for, as a read refused meanwhile may already have marked nobody
+   * signed in. Another account's entries stay for it.
+   */
+  async clear(owner = this.o.owner()): Promise<void> {
     await this.loaded;
     if (this.timer !== null) this.o.clearTimer(this.timer);
     this.timer = null;
-    await this.change((stored) => ({ remove: stored.filter(this.mine).map((e) => e.key) }));
+    await this.change((stored) => ({ remove: stored.filter((e) => ownedBy(e, owner)).map((e) => e.key) }));
   }
 
   /**
@@ -309,7 +313,7 @@ export class Outbox {
     this.emit();
   }
 
-  private mine = (e: OutboxEntry) => e.owner === undefined || e.owner === this.o.owner();
+  private mine = (e: OutboxEntry) => ownedBy(e, this.o.owner());
 
   private emit() {
     for (const l of this.listeners) l();
@@ -321,6 +325,9 @@ function head(entries: readonly OutboxEntry[]): OutboxEntry | undefined {
   const blocked = new Set(entries.filter((e) => e.state === 'failed').map((e) => e.recordId));
   return entries.find((e) => e.state !== 'failed' && !blocked.has(e.recordId));
 }
+
+/** An entry stored before owners were recorded is anyone's. */
+const ownedBy = (e: OutboxEntry, owner: string | null | undefined) => e.owner === undefined || e.owner === owner;
 
 const byAge = (entries: OutboxEntry[]) => [...entries].sort((a, b) => a.createdAt - b.createdAt);
 

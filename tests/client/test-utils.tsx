@@ -2,7 +2,7 @@ import { memoryStorage, Outbox, type OutboxEntry } from '../../src/lib/outbox';
 import { outboxMutationKey } from '@/lib/outbox-context';
 import { api, dropCsrfToken } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
-import { classifySendError, eventWaitingIn, OUTBOX_KINDS } from '@/app/outbox';
+import { classifySendError, eventWaitingIn, followSignIn, OUTBOX_KINDS, signedInAccount } from '@/app/outbox';
 import { cleanup, configure, render } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
@@ -153,8 +153,10 @@ export function renderApp(path: string, { outboxEntries = [], deviceRead = Promi
   const { routes, discover } = createRoutes(queryClient, { eventWaiting: (id) => eventWaitingIn(outbox)(id), read: Promise.all([deviceRead, Promise.resolve().then(() => outbox.ready())]) });
   const router = createMemoryRouter(routes, { initialEntries: [path], patchRoutesOnNavigation: discover });
   let current: OutboxEntry | null = null;
+  // What the device holds, whoever is signed in (the outbox shows only their entries).
+  const storage = memoryStorage(outboxEntries);
   const outbox = new Outbox({
-    storage: memoryStorage(outboxEntries),
+    storage,
     send: (entry) => {
       current = entry;
       if (entry.method === 'POST') return api.post(entry.path, entry.body);
@@ -163,9 +165,11 @@ export function renderApp(path: string, { outboxEntries = [], deviceRead = Promi
     },
     classify: (error) => classifySendError(current, error),
     onDelivered: () => void queryClient.invalidateQueries(),
+    owner: signedInAccount(queryClient),
     backoffMs: () => 60_000,
   });
   liveOutboxes.add(outbox);
+  followSignIn(queryClient, outbox);
   for (const kind of OUTBOX_KINDS) {
     queryClient.setMutationDefaults(outboxMutationKey(kind), {
       mutationFn: (entry: Parameters<Outbox['add']>[0]) => outbox.add(entry),
@@ -173,7 +177,7 @@ export function renderApp(path: string, { outboxEntries = [], deviceRead = Promi
     });
   }
   const result = render(<AppProvider queryClient={queryClient} router={router} outbox={outbox} />);
-  return { ...result, router, queryClient, outbox };
+  return { ...result, router, queryClient, outbox, storage };
 }
 
 /** A stored outbox entry, as the outbox keeps it (for `outboxEntries`). */

@@ -4,6 +4,7 @@ import { paths } from '@/config/paths';
 import { api, dropCsrfToken } from '@/lib/api-client';
 import { useOutbox } from '@/lib/outbox-context';
 import { clearToasts } from '@/lib/toast-store';
+import { signedInAccount } from '@/app/outbox';
 import { authKeys } from './auth-keys';
 
 export async function logout(): Promise<void> {
@@ -19,8 +20,8 @@ export function useLeaveDevice() {
   const queryClient = useQueryClient();
   const outbox = useOutbox();
   const navigate = useNavigate();
-  return async (state?: object) => {
-    await outbox.clear();
+  return async (state?: object, owner?: string) => {
+    await outbox.clear(owner);
     queryClient.clear();
     // Marked signed out after the clear, so that the sign-in page does not send us straight back.
     queryClient.setQueryData(authKeys.me(), null);
@@ -29,8 +30,17 @@ export function useLeaveDevice() {
   };
 }
 
-/** Signs out (see useLeaveDevice). Screens warn first when entries are still waiting (see AccountMenu). */
+/**
+ * Signs out (see useLeaveDevice). Screens warn first when entries are still waiting (see AccountMenu).
+ * Whose entries go is read at the tap, while signed in: once the server has ended the session, a read
+ * it refuses may mark nobody signed in before the sign-out's own answer arrives.
+ */
 export function useLogout() {
   const leave = useLeaveDevice();
-  return useMutation({ mutationFn: logout, onSuccess: () => leave() });
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: logout,
+    onMutate: signedInAccount(queryClient),
+    onSuccess: (_data, _input, owner) => leave(undefined, owner),
+  });
 }

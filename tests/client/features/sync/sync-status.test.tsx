@@ -122,6 +122,30 @@ describe('signing out with work on the phone', () => {
     expect(queryClient.getQueryData(['auth', 'me'])).toBeNull();
   });
 
+  it('when a read refused by the ended session marks nobody signed in before the sign-out answers, then her waiting runs are still deleted, and another account’s stay', async () => {
+    const hers = [waitingRun(1), waitingRun(2)].map((e) => ({ ...e, owner: IDS.maren }));
+    const someoneElses = { ...waitingRun(3), owner: 'c0000000-0000-4000-8000-000000000077' };
+    let signOutRefused: () => void = () => undefined;
+    stubHome({
+      'POST /api/auth/logout': () => {
+        // The server has ended the session; a read refused with 401 lands first.
+        signOutRefused();
+        return jsonResponse(204);
+      },
+    });
+    const { queryClient, router, storage } = renderApp('/', { outboxEntries: [...hers, someoneElses] });
+    signOutRefused = () => queryClient.setQueryData(['auth', 'me'], null);
+    const u = userEvent.setup();
+
+    await openSignOut(u);
+    const dialog = await screen.findByRole('dialog', { name: 'Not everything is uploaded' });
+    expect(dialog.textContent).toContain('2 runs are still on this phone only');
+    await u.click(within(dialog).getByRole('button', { name: 'Sign out anyway' }));
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
+    expect(storage.saved.map((e) => e.key)).toEqual([someoneElses.key]);
+  });
+
   it('when Upload now is pressed in the warning, then the runs are sent and it offers a plain sign-out', async () => {
     const fetchMock = stubHome({ 'POST /api/auth/logout': jsonResponse(204) });
     const { outbox } = renderApp('/', { outboxEntries: [waitingRun(1)] });
