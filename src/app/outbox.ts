@@ -71,17 +71,16 @@ export function followSignIn(queryClient: QueryClient, outbox: Outbox): void {
   });
 }
 
-/** The app's one outbox, wired to the API and the query cache. */
 /** Is this event still only on the phone, its creation waiting in the outbox? The server cannot know it yet. */
 export const eventWaitingIn = (outbox: Outbox) => (eventId: string) =>
   outbox.getSnapshot().some((e) => e.kind === 'event.create' && e.recordId === eventId);
 
+/** The app's one outbox, wired to the API and the query cache. */
 export function createAppOutbox(queryClient: QueryClient): Outbox {
   let current: OutboxEntry | null = null;
-  const owner = signedInAccount(queryClient);
   const outbox = new Outbox({
     storage: deviceStorage(),
-    owner,
+    owner: signedInAccount(queryClient),
     send: (entry) => {
       current = entry;
       return send(entry);
