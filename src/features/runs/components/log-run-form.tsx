@@ -13,6 +13,7 @@ import { unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { createRunEntry, useCreateRun, type CreateRunBody } from '../api/create-run';
 import { nextRunNumber, type RunRow } from '../utils/merge-runs';
+import { readRunNumber } from '../utils/run-number';
 import { emptyCornerText, readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import { runLabel, STATUS_WORDS } from '../utils/run-words';
 import { HotPressureGrid } from './hot-pressure-grid';
@@ -96,8 +97,10 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
     }
     let runNumber = next;
     if (runNumberText.trim()) {
-      runNumber = Number(runNumberText);
-      if (!Number.isInteger(runNumber) || runNumber < 1 || runNumber > 999) found.runNumber = 'Run numbers are whole numbers from 1';
+      // Read as the run editor reads it.
+      const read = readRunNumber(runNumberText);
+      if (read.ok) runNumber = read.value;
+      else found.runNumber = read.error;
     }
     if (!found.runNumber && rows.some((r) => r.driver.id === driver.id && r.runNumber === runNumber)) {
       found.runNumber = `Run ${runNumber} is already logged for ${driver.displayName}; the next is ${next}`;

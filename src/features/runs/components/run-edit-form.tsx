@@ -10,6 +10,7 @@ import { toInputText, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import type { RunRow } from '../utils/merge-runs';
+import { readRunNumber } from '../utils/run-number';
 import { STATUS_WORDS } from '../utils/run-words';
 import { HotPressureGrid } from './hot-pressure-grid';
 
@@ -40,18 +41,6 @@ interface RunEditFormProps {
   onCancel: () => void;
   /** Absent when the run cannot be deleted from here (a refused upload is discarded instead). */
   onDelete?: () => void;
-}
-
-/**
- * The run number as typed. A minus sign (hyphen or "−"), a decimal point or a letter is refused with a message,
- * never dropped: "-3" must not turn into run 3.
- */
-function readRunNumber(text: string): { ok: true; value: number } | { ok: false; error: string } {
-  const s = text.trim();
-  if (/^[-−–]/.test(s)) return { ok: false, error: 'Run numbers start at 1' };
-  const value = Number(s);
-  if (!/^\d{1,3}$/.test(s) || value < 1) return { ok: false, error: 'A whole number from 1 to 999' };
-  return { ok: true, value };
 }
 
 /** Fixing a run after the fact: time, cones, result, number, hot pressures, note. */

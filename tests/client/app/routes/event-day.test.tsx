@@ -233,7 +233,14 @@ describe('event day', () => {
     expect(outbox.getSnapshot()).toHaveLength(0);
   });
 
-  it.each(['-3', '−3', '2.5'])('when the run number is typed as %s, then it stays as typed and is refused at its field, and nothing is saved', async (typed) => {
+  it.each([
+    ['-3', 'Run numbers start at 1'],
+    ['−3', 'Run numbers start at 1'],
+    ['2.5', 'A whole number from 1 to 999'],
+    // Number() would read these as 100 and 16.
+    ['1e2', 'A whole number from 1 to 999'],
+    ['0x10', 'A whole number from 1 to 999'],
+  ])('when the run number is typed as %s, then it stays as typed and is refused at its field as the run editor refuses it, and nothing is saved', async (typed, message) => {
     stubWithRuns([]);
     const { outbox } = renderApp(PATH);
     const u = userEvent.setup();
@@ -244,7 +251,8 @@ describe('event day', () => {
     expect((screen.getByLabelText('Run number') as HTMLInputElement).value).toBe(typed);
     await u.click(screen.getByRole('button', { name: `Save run ${typed}` }));
 
-    expect(await screen.findByText('Run numbers are whole numbers from 1')).toBeTruthy();
+    expect(await screen.findByText(message)).toBeTruthy();
+    expect(screen.getByLabelText('Run number').getAttribute('aria-invalid')).toBe('true');
     expect(outbox.getSnapshot()).toHaveLength(0);
   });
 
