@@ -222,8 +222,16 @@ export function createAppRouter(queryClient: QueryClient, device: DeviceState): 
  */
 export function sendToSignIn(router: AppRouter, queryClient: QueryClient): void {
   queryClient.setQueryData(authKeys.me(), null);
-  // While the first page loads, its own loader decides.
-  if (!router.state.initialized) return;
+  // While the first page loads, its own loader decides; but it may have decided on the answer kept on the
+  // device just before this one came, so the page is looked at again once it is in.
+  if (!router.state.initialized) {
+    const stop = router.subscribe(({ initialized }) => {
+      if (!initialized) return;
+      stop();
+      sendToSignIn(router, queryClient);
+    });
+    return;
+  }
   const location = router.state.navigation.location ?? router.state.location;
   const matches = matchRoutes(router.routes, location) ?? [];
   if (!matches.some((match) => match.route.id === SIGNED_IN_ROUTE_ID)) return;

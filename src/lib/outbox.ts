@@ -40,8 +40,8 @@ export interface OutboxEntry {
   state: OutboxState;
   /** Set when the server refused the entry; it stays until fixed or discarded. */
   error?: OutboxError;
-  /** The account that made it (none on entries stored before accounts were recorded: anyone's). */
-  owner?: string;
+  /** The account that made it; none (entries stored before accounts were recorded) or null (made while nobody was signed in) is anyone's. */
+  owner?: string | null;
 }
 
 export type NewOutboxEntry = Pick<OutboxEntry, 'recordId' | 'kind' | 'method' | 'path' | 'body' | 'label' | 'scope'> & {
@@ -180,7 +180,7 @@ export class Outbox {
         attempts: 0,
         nextAttemptAt: now,
         state: 'waiting',
-        owner: this.o.owner() ?? undefined,
+        owner: this.o.owner(),
       };
       return { put: [added] };
     });
@@ -326,8 +326,8 @@ function head(entries: readonly OutboxEntry[]): OutboxEntry | undefined {
   return entries.find((e) => e.state !== 'failed' && !blocked.has(e.recordId));
 }
 
-/** An entry stored before owners were recorded is anyone's. */
-const ownedBy = (e: OutboxEntry, owner: string | null | undefined) => e.owner === undefined || e.owner === owner;
+/** An entry with no owner is anyone's. */
+const ownedBy = (e: OutboxEntry, owner: string | null | undefined) => e.owner == null || e.owner === owner;
 
 const byAge = (entries: OutboxEntry[]) => [...entries].sort((a, b) => a.createdAt - b.createdAt);
 

@@ -3,6 +3,9 @@ import { METRIC_PREFERENCES } from '../../../shared/calc/units.calc';
 import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { createMemoryRouter } from 'react-router-dom';
+import { SIGNED_IN_ROUTE_ID, sendToSignIn } from '@/app/router';
+import { createQueryClient } from '@/app/query-client';
 import { api, dropCsrfToken, NETWORK_MESSAGE } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
 import { errorResponse, jsonResponse, renderApp, requestsTo, SIGNED_OUT, stubFetch } from '../test-utils';
@@ -150,6 +153,29 @@ describe('routes', () => {
 
     await screen.findByRole('heading', { name: 'Sign in' });
     expect(router.state.location.pathname + router.state.location.search).toBe('/sign-in?next=%2F%3Fview%3Dweek');
+  });
+
+  it('when the server says nobody is signed in after the first page’s loader went by the answer kept on the phone, but before that page is in, then the page still ends at sign-in, keeping the address', async () => {
+    let decide: (v: null) => void = () => undefined;
+    const router = createMemoryRouter(
+      [
+        // The first page's sign-in check, still settling: it has gone by the kept answer ("signed in").
+        { id: SIGNED_IN_ROUTE_ID, path: '/', loader: () => new Promise<null>((resolve) => (decide = resolve)), element: <p>Home</p> },
+        { path: '/sign-in', element: <p>Sign in</p> },
+      ],
+      { initialEntries: ['/?view=week'] },
+    );
+    const queryClient = createQueryClient({ retry: false });
+    queryClient.setQueryData(['auth', 'me'], SAM);
+
+    // The server's answer (401) lands now; without a fix the page would stay at "One moment…" for good.
+    sendToSignIn(router, queryClient);
+    expect(queryClient.getQueryData(['auth', 'me'])).toBeNull();
+    expect(router.state.initialized).toBe(false);
+    decide(null);
+
+    await waitFor(() => expect(router.state.location.pathname + router.state.location.search).toBe('/sign-in?next=%2F%3Fview%3Dweek'));
+    router.dispose();
   });
 
   it('when the user signs out from the account menu, then the session ends and the sign-in page opens', async () => {
