@@ -2,6 +2,7 @@ import { useRef, useState, type FormEvent } from 'react';
 import { ChevronDown, ChevronUp } from 'lucide-react';
 import { adjustedTimeSec } from '@shared/calc/scoring.calc';
 import type { Person } from '@shared/season/car.schema';
+import type { Corner } from '@shared/season/corners';
 import { createRunInputSchema, RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
 import { formatRunTime, parseRunTime } from '@shared/season/run-time';
 import { Button } from '@/components/ui/button';
@@ -14,20 +15,13 @@ import { useUnits } from '@/lib/units-context';
 import { createRunEntry, useCreateRun, type CreateRunBody } from '../api/create-run';
 import { nextRunNumber, type RunRow } from '../utils/merge-runs';
 import { readRunNumber } from '../utils/run-number';
-import { emptyCornerText, readPressures, type CornerTextMap } from '../utils/hot-pressures';
+import { emptyCornerText, hotField, readPressures, type CornerTextMap } from '../utils/hot-pressures';
+import { anyRefused, showFirstRefused, type RunFormErrors } from '../utils/run-form';
 import { runLabel, STATUS_WORDS } from '../utils/run-words';
 import { HotPressureGrid } from './hot-pressure-grid';
 import { TimeKeypad } from './time-keypad';
 
 const STATUS_OPTIONS = RUN_STATUSES.map((s) => ({ value: s, label: STATUS_WORDS[s] }));
-
-interface Errors {
-  time?: string;
-  runNumber?: string;
-  cones?: string;
-  hot?: Partial<Record<keyof CornerTextMap, string>>;
-  form?: string;
-}
 
 interface LogRunFormProps {
   carId: string;
@@ -39,6 +33,12 @@ interface LogRunFormProps {
   /** Today's runs of this car, saved and waiting: for the next run number and to refuse a number twice. */
   rows: readonly RunRow[];
 }
+
+/**
+ * The fields this form marks itself, each corner's hot pressure among them; a refusal of any other part of the
+ * run is shown over the Save bar.
+ */
+const SHOWN = /^(rawTimeSec|runNumber|cones|hot)/;
 
 const coneWords = (n: number) => `${n} ${n === 1 ? 'cone' : 'cones'}`;
 
@@ -57,7 +57,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
   const [extras, setExtras] = useState(false);
   const [hot, setHot] = useState<CornerTextMap>(emptyCornerText);
   const [notes, setNotes] = useState('');
-  const [errors, setErrors] = useState<Errors>({});
+  const [errors, setErrors] = useState<RunFormErrors>({});
   const [saved, setSaved] = useState<string | null>(null);
   const formRef = useRef<HTMLFormElement>(null);
 
@@ -74,26 +74,26 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
   const changeTime = (text: string) => {
     setTimeText(text);
     setSaved(null);
-    if (errors.time) setErrors((e) => ({ ...e, time: undefined }));
+    if (errors.rawTimeSec) setErrors((e) => ({ ...e, rawTimeSec: undefined }));
   };
 
   const pasteTime = (text: string) => {
     setTimeText(text);
     setSaved(null);
     const result = parseRunTime(text);
-    setErrors((e) => ({ ...e, time: result.ok ? undefined : result.error }));
+    setErrors((e) => ({ ...e, rawTimeSec: result.ok ? undefined : result.error }));
   };
 
   const onSubmit = async (event: FormEvent) => {
     event.preventDefault();
-    const found: Errors = {};
+    const found: RunFormErrors = {};
     let rawTimeSec: number | null = null;
     if (timeText.trim()) {
       const result = parseRunTime(timeText);
       if (result.ok) rawTimeSec = result.seconds;
-      else found.time = result.error;
+      else found.rawTimeSec = result.error;
     } else if (status === 'finished') {
-      found.time = 'Enter the time, or choose DNF or Off course. Type it as 45.678 or 1:05.432';
+      found.rawTimeSec = 'Enter the time, or choose DNF or Off course. Type it as 45.678 or 1:05.432';
     }
     let runNumber = next;
     if (runNumberText.trim()) {
@@ -106,7 +106,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
       found.runNumber = `Run ${runNumber} is already logged for ${driver.displayName}; the next is ${next}`;
     }
     const pressures = readPressures(hot, units);
-    if (Object.keys(pressures.errors).length) found.hot = pressures.errors;
+    for (const [corner, message] of Object.entries(pressures.errors)) found[hotField(corner as Corner)] = message;
 
     const body: CreateRunBody = {
       id: crypto.randomUUID(),
@@ -121,28 +121,18 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
       ...(pressures.kpa ? { hotPressuresKpa: pressures.kpa } : {}),
       ...(notes.trim() ? { notes: notes.trim() } : {}),
     };
-    if (!found.time && !found.runNumber && !found.hot) {
-      const checked = createRunInputSchema.safeParse(body);
-      if (!checked.success) {
-        for (const issue of checked.error.issues) {
-          const [head] = issue.path;
-          if (head === 'rawTimeSec') found.time ??= issue.message;
-          else if (head === 'runNumber') found.runNumber ??= issue.message;
-          else if (head === 'cones') found.cones ??= issue.message;
-          else found.form ??= issue.message;
-        }
+    if (!anyRefused(found)) {
+      // What the server would refuse, under the field it would name; what the form has no field for, over the Save bar.
+      for (const issue of createRunInputSchema.safeParse(body).error?.issues ?? []) {
+        const field = issue.path.join('.');
+        found[SHOWN.test(field) ? field : '_'] ??= issue.message;
       }
     }
-    if (Object.values(found).some(Boolean)) {
+    if (anyRefused(found)) {
       // Nothing typed is cleared: fix the marked part and save again.
       setErrors(found);
-      if (found.hot) setExtras(true);
-      // The first marked field comes into view with the focus: on a phone it may sit under the Save bar.
-      requestAnimationFrame(() => {
-        const first = formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]');
-        first?.focus();
-        first?.scrollIntoView?.({ block: 'center' });
-      });
+      if (Object.keys(found).some((f) => f.startsWith('hot'))) setExtras(true);
+      showFirstRefused(formRef.current);
       return;
     }
     await write.mutateAsync(createRunEntry(body));
@@ -158,7 +148,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
   };
 
   const pressureUnit = unitSymbol('pressure', units);
-  const refused = Boolean(errors.time || errors.runNumber || errors.cones || errors.form || Object.values(errors.hot ?? {}).some(Boolean));
+  const refused = anyRefused(errors);
   return (
     <form ref={formRef} onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Log a run" className="flex flex-col gap-3">
       <TimeKeypad
@@ -166,7 +156,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
         onChange={changeTime}
         onPaste={pasteTime}
         preview={preview}
-        error={errors.time ?? null}
+        error={errors.rawTimeSec ?? null}
         label={`Raw time · ${driver.displayName}`}
         aside={
           <label className="flex shrink-0 items-center gap-2">
@@ -217,10 +207,10 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
             <HotPressureGrid
               unit={pressureUnit}
               values={hot}
-              errorOf={(corner) => errors.hot?.[corner]}
+              errors={errors}
               onChange={(corner, text) => {
                 setHot((h) => ({ ...h, [corner]: text }));
-                setErrors((er) => ({ ...er, hot: er.hot ? { ...er.hot, [corner]: undefined } : undefined }));
+                setErrors((er) => ({ ...er, [hotField(corner)]: undefined }));
               }}
             />
             <label className="flex flex-col gap-1">
@@ -237,7 +227,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
         ) : null}
       </div>
 
-      <FormAlert message={errors.form} />
+      <FormAlert message={errors._} />
       {/* On a phone the Save button stays in thumb reach above the bottom bar while the form is in view. */}
       <div className="sticky bottom-[calc(3.5rem+1px+env(safe-area-inset-bottom))] z-10 -mx-3 -mb-3 flex flex-col gap-1 rounded-b-lg border-t border-line bg-surface px-3 py-2 md:static">
         <p aria-live="polite" className={`text-sm font-semibold empty:hidden ${refused ? 'text-warning' : 'text-ink'}`}>

@@ -8,8 +8,9 @@ import { Stepper } from '@/components/ui/stepper';
 import { TextField } from '@/components/ui/text-field';
 import { toInputText, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { readPressures, type CornerTextMap } from '../utils/hot-pressures';
+import { hotField, readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import type { RunRow } from '../utils/merge-runs';
+import { anyRefused, showFirstRefused, type RunFormErrors } from '../utils/run-form';
 import { readRunNumber } from '../utils/run-number';
 import { STATUS_WORDS } from '../utils/run-words';
 import { HotPressureGrid } from './hot-pressure-grid';
@@ -26,9 +27,6 @@ export interface RunChanges {
    */
   hotPressuresKpa?: PerCorner<number> | null;
 }
-
-/** A corner's field, named as the server names it in its fieldErrors, so a refusal lands on the corner. */
-const hotField = (corner: Corner) => `hotPressuresKpa.${corner}`;
 
 interface RunEditFormProps {
   row: RunRow;
@@ -57,13 +55,13 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
     () => Object.fromEntries(CORNERS.map((c) => [c, toInputText(row.hotPressuresKpa?.[c], 'pressure', units)])) as CornerTextMap,
   );
   const [hot, setHot] = useState(savedHot);
-  const [errors, setErrors] = useState<Record<string, string | undefined>>(() =>
+  const [errors, setErrors] = useState<RunFormErrors>(() =>
     Object.fromEntries(Object.entries(serverErrors ?? {}).map(([k, v]) => [k, v.join(' ')])),
   );
 
   const submit = async (event: FormEvent) => {
     event.preventDefault();
-    const found: Record<string, string> = {};
+    const found: RunFormErrors = {};
     let rawTimeSec: number | null = null;
     if (time.trim()) {
       const parsed = parseRunTime(time);
@@ -88,14 +86,10 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
       hotPressuresKpa = Object.keys(kpa).length ? kpa : null;
     }
 
-    if (!read.ok || Object.keys(found).length) {
-      // Nothing typed is cleared: the first marked field gets the focus, in view above the buttons.
+    if (!read.ok || anyRefused(found)) {
+      // Nothing typed is cleared: fix the marked part and save again.
       setErrors(found);
-      requestAnimationFrame(() => {
-        const first = formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]');
-        first?.focus();
-        first?.scrollIntoView?.({ block: 'center' });
-      });
+      showFirstRefused(formRef.current);
       return;
     }
     await onSubmit({
@@ -152,7 +146,7 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
         <HotPressureGrid
           unit={pressureUnit}
           values={hot}
-          errorOf={(corner) => errors[hotField(corner)]}
+          errors={errors}
           onChange={(corner, text) => {
             setHot((h) => ({ ...h, [corner]: text }));
             setErrors((er) => ({ ...er, [hotField(corner)]: undefined }));

@@ -6,6 +6,9 @@ import { inputToSi, typeANumber } from '@/lib/numbers';
 export type CornerTextMap = Record<Corner, string>;
 export const emptyCornerText = (): CornerTextMap => ({ lf: '', rf: '', lr: '', rr: '' });
 
+/** A corner's field, named as the server names it in its fieldErrors, so a refusal lands on the corner. */
+export const hotField = (corner: Corner) => `hotPressuresKpa.${corner}`;
+
 /** A plausible hot pressure for the example in an error, shown in the user's unit (224 kPa ≈ 32.5 psi). */
 const EXAMPLE_HOT_KPA = 224;
 
