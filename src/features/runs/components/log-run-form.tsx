@@ -151,6 +151,12 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
   const refused = anyRefused(errors);
   return (
     <form ref={formRef} onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Log a run" className="flex flex-col gap-3">
+      {/* Over the number's field: under the keypad it would read as the time's. */}
+      {errors.runNumber ? (
+        <p id="run-number-note" className="-mb-2 text-sm font-semibold text-warning">
+          {errors.runNumber}
+        </p>
+      ) : null}
       <TimeKeypad
         value={timeText}
         onChange={changeTime}
@@ -174,12 +180,12 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
                 setErrors((er) => ({ ...er, runNumber: undefined }));
               }}
               aria-invalid={errors.runNumber ? true : undefined}
+              aria-describedby="run-number-note"
               className="tabular-figures min-h-tap w-16 rounded border border-line-strong bg-surface px-2 text-center text-xl font-bold placeholder:text-ink aria-[invalid=true]:border-2 aria-[invalid=true]:border-warning"
             />
           </label>
         }
       />
-      {errors.runNumber ? <p className="text-sm font-semibold text-warning">{errors.runNumber}</p> : null}
 
       <div className="flex flex-col gap-1">
         <span className="text-sm font-semibold">

@@ -3,7 +3,11 @@ import { Delete } from 'lucide-react';
 import { cn } from '@/lib/cn';
 
 const MAX_LENGTH = 9;
-const KEYS = ['1', '2', '3', '4', '5', '6', '7', '8', '9'] as const;
+const BACKSPACE = '⌫';
+/** The keys, row by row as drawn (four to a row; "0" spans three); "Clear" ends the last row. */
+const KEYS = [...'123', BACKSPACE, ...'456:789.0'];
+/** What a screen reader says for the keys that are not digits. */
+const KEY_NAMES: Partial<Record<string, string>> = { [BACKSPACE]: 'Backspace', ':': 'Colon', '.': 'Point' };
 
 /** Keeps what a time can hold: digits, one colon, a decimal point (or comma). */
 export function cleanTimeText(text: string): string {
@@ -68,33 +72,17 @@ export function TimeKeypad({ value, onChange, onPaste, preview, error, label = '
         {error ?? preview ?? 'Type or paste: 45.678 or 1:05.432'}
       </p>
       <div className="grid grid-cols-4 gap-2" role="group" aria-label="Time keypad">
-        {KEYS.slice(0, 3).map((k) => (
-          <button key={k} type="button" className={key} onClick={() => press(k)}>
-            {k}
+        {KEYS.map((k) => (
+          <button
+            key={k}
+            type="button"
+            className={cn(key, k === '0' && 'col-span-3')}
+            aria-label={KEY_NAMES[k]}
+            onClick={() => (k === BACKSPACE ? onChange(value.slice(0, -1)) : press(k))}
+          >
+            {k === BACKSPACE ? <Delete aria-hidden="true" className="size-7" /> : k}
           </button>
         ))}
-        <button type="button" className={key} aria-label="Backspace" onClick={() => onChange(value.slice(0, -1))}>
-          <Delete aria-hidden="true" className="size-7" />
-        </button>
-        {KEYS.slice(3, 6).map((k) => (
-          <button key={k} type="button" className={key} onClick={() => press(k)}>
-            {k}
-          </button>
-        ))}
-        <button type="button" className={key} aria-label="Colon" onClick={() => press(':')}>
-          :
-        </button>
-        {KEYS.slice(6, 9).map((k) => (
-          <button key={k} type="button" className={key} onClick={() => press(k)}>
-            {k}
-          </button>
-        ))}
-        <button type="button" className={key} aria-label="Point" onClick={() => press('.')}>
-          .
-        </button>
-        <button type="button" className={cn(key, 'col-span-3')} onClick={() => press('0')}>
-          0
-        </button>
         <button type="button" className={cn(key, 'text-base')} onClick={() => onChange('')}>
           Clear
         </button>

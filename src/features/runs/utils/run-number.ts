@@ -6,6 +6,6 @@ export function readRunNumber(text: string): { ok: true; value: number } | { ok:
   const s = text.trim();
   if (/^[-−–]/.test(s)) return { ok: false, error: 'Run numbers start at 1' };
   const value = Number(s);
-  if (!/^\d{1,3}$/.test(s) || value < 1) return { ok: false, error: 'A whole number from 1 to 999' };
+  if (!/^\d{1,3}$/.test(s) || value < 1) return { ok: false, error: 'Run numbers are whole numbers from 1 to 999' };
   return { ok: true, value };
 }

@@ -236,11 +236,11 @@ describe('event day', () => {
   it.each([
     ['-3', 'Run numbers start at 1'],
     ['−3', 'Run numbers start at 1'],
-    ['2.5', 'A whole number from 1 to 999'],
+    ['2.5', 'Run numbers are whole numbers from 1 to 999'],
     // Number() would read these as 100 and 16.
-    ['1e2', 'A whole number from 1 to 999'],
-    ['0x10', 'A whole number from 1 to 999'],
-  ])('when the run number is typed as %s, then it stays as typed and is refused at its field as the run editor refuses it, and nothing is saved', async (typed, message) => {
+    ['1e2', 'Run numbers are whole numbers from 1 to 999'],
+    ['0x10', 'Run numbers are whole numbers from 1 to 999'],
+  ])('when the run number is typed as %s, then it stays as typed and is refused at its field, above the keypad, as the run editor refuses it, and nothing is saved', async (typed, message) => {
     stubWithRuns([]);
     const { outbox } = renderApp(PATH);
     const u = userEvent.setup();
@@ -251,8 +251,12 @@ describe('event day', () => {
     expect((screen.getByLabelText('Run number') as HTMLInputElement).value).toBe(typed);
     await u.click(screen.getByRole('button', { name: `Save run ${typed}` }));
 
-    expect(await screen.findByText(message)).toBeTruthy();
-    expect(screen.getByLabelText('Run number').getAttribute('aria-invalid')).toBe('true');
+    const note = await screen.findByText(message);
+    const field = screen.getByLabelText('Run number');
+    expect(field.getAttribute('aria-invalid')).toBe('true');
+    // The message is the field's own, read with it, and drawn over the row it is typed in, not under the keypad.
+    expect(document.getElementById(field.getAttribute('aria-describedby')!)).toBe(note);
+    expect(note.compareDocumentPosition(screen.getByRole('group', { name: 'Time keypad' })) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
     expect(outbox.getSnapshot()).toHaveLength(0);
   });
 

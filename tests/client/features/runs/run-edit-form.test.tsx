@@ -46,8 +46,8 @@ describe('run edit form: run number', () => {
   it('when the run number is 0, has a decimal point or is already taken, then each is refused at the field', async () => {
     const { onSubmit, u } = renderForm(rowOf());
     for (const [typed, message] of [
-      ['0', 'A whole number from 1 to 999'],
-      ['2.5', 'A whole number from 1 to 999'],
+      ['0', 'Run numbers are whole numbers from 1 to 999'],
+      ['2.5', 'Run numbers are whole numbers from 1 to 999'],
       ['1', 'Run 1 is already logged for Maren Holt'],
     ]) {
       await u.clear(field('Run number'));
