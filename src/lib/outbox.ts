@@ -133,6 +133,11 @@ export class Outbox {
 
   getSnapshot = (): readonly OutboxEntry[] => this.entries;
 
+  /** Every entry on the device, whoever made it: the sign-in page counts those waiting for their account. */
+  stored(): Promise<OutboxEntry[]> {
+    return this.o.storage.change();
+  }
+
   subscribe = (listener: () => void): (() => void) => {
     this.listeners.add(listener);
     return () => this.listeners.delete(listener);

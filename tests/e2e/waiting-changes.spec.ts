@@ -22,7 +22,7 @@ async function api<T>(page: Page, method: string, path: string, body?: unknown):
 }
 
 describe('whose waiting changes', () => {
-  it('when a run waits on the phone, her session ends and her co-driver signs in there, then he neither uploads nor deletes it, and it uploads once she is back', async () => {
+  it('when a run waits on the phone, her session ends and her co-driver signs in there, then he neither uploads nor deletes it, the sign-in page says it waits, and it uploads once she is back', async () => {
     const phone = await openPhone();
     try {
       const { page, context } = phone;
@@ -55,6 +55,8 @@ describe('whose waiting changes', () => {
       await page.getByRole('button', { name: /Account: Teo Varga/ }).click();
       await page.getByRole('menuitem', { name: 'Sign out' }).click();
       await page.waitForURL(/\/sign-in/);
+      // The sign-in page says her run is still there, waiting for her.
+      await page.getByRole('status').filter({ hasText: '1 run is still on this phone only. It uploads once the account that made it signs in here again.' }).waitFor();
 
       await signIn(page, baseUrl, 'maren@example.com', 'Maren Holloway');
       await expect.poll(async () => (await runsAtEvent()).map((r) => r.rawTimeSec), { timeout: 20_000 }).toEqual([47.123]);

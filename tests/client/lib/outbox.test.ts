@@ -247,6 +247,8 @@ describe('the outbox', () => {
       expect(t.outbox.getSnapshot()).toEqual([]);
       expect(t.timers).toEqual([]);
       expect(t.storage.saved.map((e) => e.recordId)).toEqual(['r1']);
+      // Unseen, but counted: what the device holds, whoever made it (the sign-in page says so).
+      expect((await t.outbox.stored()).map((e) => [e.recordId, e.owner])).toEqual([['r1', 'ana']]);
     });
   });
 

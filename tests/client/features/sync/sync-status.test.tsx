@@ -4,7 +4,7 @@ import userEvent from '@testing-library/user-event';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 import type { OutboxEntry } from '@/lib/outbox';
-import { jsonResponse, renderApp, requestsTo, setUpAppTests, storedEntry, stubFetch } from '../../test-utils';
+import { jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, storedEntry, stubFetch } from '../../test-utils';
 import { IDS, user } from '../../fixtures/season';
 
 beforeAll(() => {
@@ -160,5 +160,36 @@ describe('signing out with work on the phone', () => {
     expect(requestsTo(fetchMock, 'POST /api/runs')).toHaveLength(1);
     expect(await screen.findByRole('dialog', { name: 'Everything is uploaded' })).toBeTruthy();
     expect(requestsTo(fetchMock, 'POST /api/auth/logout')).toHaveLength(0);
+  });
+});
+
+describe('the sign-in page with work on the phone', () => {
+  const signedOut = (extra: Parameters<typeof stubFetch>[0] = {}) => stubFetch({ 'GET /api/auth/me': SIGNED_OUT, ...extra });
+
+  it('when an ended session left two runs on the phone, then the sign-in page says they are on it only and wait for their account, and sends none', async () => {
+    const fetchMock = signedOut();
+    renderApp('/sign-in', { outboxEntries: [waitingRun(1), waitingRun(2)].map((e) => ({ ...e, owner: IDS.maren })) });
+
+    const note = await screen.findByText('2 runs are still on this phone only.');
+    expect(note.closest('[role="status"]')?.textContent).toBe('2 runs are still on this phone only. They upload once the account that made them signs in here again.');
+    expect(requestsTo(fetchMock, 'POST /api/runs')).toHaveLength(0);
+  });
+
+  it('when one change is left, then it is told in the singular', async () => {
+    signedOut();
+    renderApp('/sign-in', { outboxEntries: [{ ...refused, owner: IDS.maren }] });
+
+    const note = await screen.findByText('1 setup is still on this phone only.');
+    expect(note.closest('[role="status"]')?.textContent).toContain('It uploads once the account that made it signs in here again.');
+  });
+
+  it('when nothing is left on the phone, then the sign-in page says nothing of it', async () => {
+    signedOut();
+    renderApp('/sign-in');
+
+    await screen.findByRole('button', { name: 'Sign in' });
+    // The device is read after the first draw; give it the same turn the note above appears in.
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    expect(screen.queryByText(/still on this phone only/)).toBeNull();
   });
 });
