@@ -56,7 +56,7 @@ describe('whose waiting changes', () => {
       await page.getByRole('menuitem', { name: 'Sign out' }).click();
       await page.waitForURL(/\/sign-in/);
       // The sign-in page says her run is still there, waiting for her.
-      await page.getByRole('status').filter({ hasText: '1 run is still on this phone only. It uploads once the account that made it signs in here again.' }).waitFor();
+      await page.getByRole('status').filter({ hasText: '1 run is still on this phone only. It waits for the account that made it to sign in here again.' }).waitFor();
 
       await signIn(page, baseUrl, 'maren@example.com', 'Maren Holloway');
       await expect.poll(async () => (await runsAtEvent()).map((r) => r.rawTimeSec), { timeout: 20_000 }).toEqual([47.123]);

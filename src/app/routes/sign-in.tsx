@@ -62,8 +62,9 @@ export function SignInPage() {
       ) : null}
       {waiting.length ? (
         <p role="status" className="rounded border border-line-strong bg-surface p-3">
-          <span className="font-semibold">{onDeviceOnlyText(waiting)}.</span> {one ? 'It uploads' : 'They upload'} once the
-          account that made {one ? 'it' : 'them'} signs in here again.
+          {/* "Wait", not "upload": one the server refused needs its account to fix it first. */}
+          <span className="font-semibold">{onDeviceOnlyText(waiting)}.</span> {one ? 'It waits' : 'They wait'} for the
+          account that made {one ? 'it' : 'them'} to sign in here again.
         </p>
       ) : null}
       <LoginForm onSuccess={() => void navigate(next, { replace: true })} />

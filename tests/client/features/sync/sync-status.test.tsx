@@ -171,7 +171,7 @@ describe('the sign-in page with work on the phone', () => {
     renderApp('/sign-in', { outboxEntries: [waitingRun(1), waitingRun(2)].map((e) => ({ ...e, owner: IDS.maren })) });
 
     const note = await screen.findByText('2 runs are still on this phone only.');
-    expect(note.closest('[role="status"]')?.textContent).toBe('2 runs are still on this phone only. They upload once the account that made them signs in here again.');
+    expect(note.closest('[role="status"]')?.textContent).toBe('2 runs are still on this phone only. They wait for the account that made them to sign in here again.');
     expect(requestsTo(fetchMock, 'POST /api/runs')).toHaveLength(0);
   });
 
@@ -180,7 +180,7 @@ describe('the sign-in page with work on the phone', () => {
     renderApp('/sign-in', { outboxEntries: [{ ...refused, owner: IDS.maren }] });
 
     const note = await screen.findByText('1 setup is still on this phone only.');
-    expect(note.closest('[role="status"]')?.textContent).toContain('It uploads once the account that made it signs in here again.');
+    expect(note.closest('[role="status"]')?.textContent).toContain('It waits for the account that made it to sign in here again.');
   });
 
   it('when nothing is left on the phone, then the sign-in page says nothing of it', async () => {
