@@ -106,7 +106,7 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
 
   return (
     <form ref={formRef} onSubmit={(e) => void submit(e)} noValidate aria-label={`Edit run ${row.runNumber}`} className="flex flex-col gap-3 border-t border-line pt-3">
-      <div className="grid grid-cols-[1fr_6rem] gap-3">
+      <div className="grid grid-cols-[1fr_8rem] gap-3">
         <TextField
           label="Raw time"
           inputMode="decimal"
