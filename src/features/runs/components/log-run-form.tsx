@@ -62,6 +62,8 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
   const formRef = useRef<HTMLFormElement>(null);
 
   const next = nextRunNumber(rows, driver.id);
+  // The number the Save button names: the next one, or the one typed, once it reads as a run number.
+  const typed = runNumberText.trim() ? readRunNumber(runNumberText) : { ok: true as const, value: next };
   const parsed = timeText.trim() ? parseRunTime(timeText) : null;
   const preview = (() => {
     if (!parsed?.ok) return null;
@@ -240,7 +242,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
           {refused ? 'Not saved: fix what is marked.' : saved}
         </p>
         <Button type="submit" className="min-h-tap-lg w-full text-xl" isPending={write.isPending} pendingLabel="Saving…">
-          Save run {runNumberText.trim() || next}
+          {typed.ok ? `Save run ${typed.value}` : 'Save run'}
         </Button>
       </div>
     </form>
