@@ -9,7 +9,8 @@ export function EventFacts({ event }: { event: SeasonEvent }) {
     <p className="tabular-figures text-sm text-ink-muted">
       {formatLongDay(event.date)}
       {event.venue ? ` · ${event.venue}` : ''} · {KIND_WORDS[event.kind]}
-      {event.kind === 'autocross' ? ` · ${event.conePenaltySec} s a cone` : ''}
+      {/* A no-break space between the number and its unit keeps "2 s" on one line. */}
+      {event.kind === 'autocross' ? ` · ${event.conePenaltySec}\u00a0s a cone` : ''}
     </p>
   );
 }

@@ -51,7 +51,9 @@ describe('new event', () => {
     await waitFor(() => expect(router.state.location.pathname).toBe(`/events/${body.id as string}`));
     expect(await screen.findByRole('heading', { level: 1, name: 'Marsh Lane practice day' })).toBeTruthy();
     expect(screen.getByText('Waiting to upload')).toBeTruthy();
-    expect(screen.getByText(/Marsh Lane car park · Autocross · 2 s a cone/)).toBeTruthy();
+    const facts = screen.getByText(/Marsh Lane car park · Autocross · 2 s a cone/);
+    // The penalty and its unit never part at a line's end: a no-break space (common typographic practice).
+    expect(facts.textContent).toContain('2\u00a0s a cone');
     expect(await screen.findByRole('form', { name: 'Car and driver' })).toBeTruthy();
     expect(fetchMock.mock.calls.some(([url]) => String(url).startsWith(`/api/events/`))).toBe(false);
     expect(requestsTo(fetchMock, 'POST /api/events')[0]?.body).toEqual(body);
