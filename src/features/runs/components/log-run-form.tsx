@@ -2,7 +2,6 @@ import { useRef, useState, type FormEvent } from 'react';
 import { ChevronDown, ChevronUp } from 'lucide-react';
 import { adjustedTimeSec } from '@shared/calc/scoring.calc';
 import type { Person } from '@shared/season/car.schema';
-import type { Corner } from '@shared/season/corners';
 import { createRunInputSchema, RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
 import { formatRunTime, parseRunTime } from '@shared/season/run-time';
 import { Button } from '@/components/ui/button';
@@ -15,7 +14,7 @@ import { useUnits } from '@/lib/units-context';
 import { createRunEntry, useCreateRun, type CreateRunBody } from '../api/create-run';
 import { nextRunNumber, type RunRow } from '../utils/merge-runs';
 import { readRunNumber } from '../utils/run-number';
-import { emptyCornerText, hotField, readPressures, type CornerTextMap } from '../utils/hot-pressures';
+import { emptyCornerText, hotField, hotFieldErrors, readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import { anyRefused, showFirstRefused, type RunFormErrors } from '../utils/run-form';
 import { runLabel, STATUS_WORDS } from '../utils/run-words';
 import { HotPressureGrid } from './hot-pressure-grid';
@@ -62,7 +61,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
   const formRef = useRef<HTMLFormElement>(null);
 
   const next = nextRunNumber(rows, driver.id);
-  // The number the Save button names: the next one, or the one typed, once it reads as a run number.
+  // The run number as typed, or the next one: the Save button names it once it reads as a run number.
   const typed = runNumberText.trim() ? readRunNumber(runNumberText) : { ok: true as const, value: next };
   const parsed = timeText.trim() ? parseRunTime(timeText) : null;
   const preview = (() => {
@@ -97,18 +96,14 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
     } else if (status === 'finished') {
       found.rawTimeSec = 'Enter the time, or choose DNF or Off course. Type it as 45.678 or 1:05.432';
     }
-    let runNumber = next;
-    if (runNumberText.trim()) {
-      // Read as the run editor reads it.
-      const read = readRunNumber(runNumberText);
-      if (read.ok) runNumber = read.value;
-      else found.runNumber = read.error;
-    }
+    // Read as the run editor reads it (see typed above).
+    const runNumber = typed.ok ? typed.value : next;
+    if (!typed.ok) found.runNumber = typed.error;
     if (!found.runNumber && rows.some((r) => r.driver.id === driver.id && r.runNumber === runNumber)) {
       found.runNumber = `Run ${runNumber} is already logged for ${driver.displayName}; the next is ${next}`;
     }
     const pressures = readPressures(hot, units);
-    for (const [corner, message] of Object.entries(pressures.errors)) found[hotField(corner as Corner)] = message;
+    Object.assign(found, hotFieldErrors(pressures.errors));
 
     const body: CreateRunBody = {
       id: crypto.randomUUID(),

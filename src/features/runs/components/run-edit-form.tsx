@@ -1,5 +1,5 @@
 import { useRef, useState, type FormEvent } from 'react';
-import { CORNERS, type Corner, type PerCorner } from '@shared/season/corners';
+import { CORNERS, type PerCorner } from '@shared/season/corners';
 import { RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
 import { formatRunTime, parseRunTime } from '@shared/season/run-time';
 import { Button } from '@/components/ui/button';
@@ -8,7 +8,7 @@ import { Stepper } from '@/components/ui/stepper';
 import { TextField } from '@/components/ui/text-field';
 import { toInputText, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { hotField, readPressures, type CornerTextMap } from '../utils/hot-pressures';
+import { hotField, hotFieldErrors, readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import type { RunRow } from '../utils/merge-runs';
 import { anyRefused, showFirstRefused, type RunFormErrors } from '../utils/run-form';
 import { readRunNumber } from '../utils/run-number';
@@ -77,7 +77,7 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
     let hotPressuresKpa: PerCorner<number> | null | undefined;
     if (CORNERS.some((c) => hot[c] !== savedHot[c])) {
       const typed = readPressures(hot, units);
-      for (const [corner, message] of Object.entries(typed.errors)) found[hotField(corner as Corner)] = message;
+      Object.assign(found, hotFieldErrors(typed.errors));
       const kpa: PerCorner<number> = {};
       for (const c of CORNERS) {
         const value = hot[c] === savedHot[c] ? row.hotPressuresKpa?.[c] : typed.kpa?.[c];

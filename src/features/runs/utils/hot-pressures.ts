@@ -9,6 +9,10 @@ export const emptyCornerText = (): CornerTextMap => ({ lf: '', rf: '', lr: '', r
 /** A corner's field, named as the server names it in its fieldErrors, so a refusal lands on the corner. */
 export const hotField = (corner: Corner) => `hotPressuresKpa.${corner}`;
 
+/** readPressures' messages by corner, under the corners' field names (a run form's messages, see RunFormErrors). */
+export const hotFieldErrors = (errors: Partial<Record<Corner, string>>): Partial<Record<string, string>> =>
+  Object.fromEntries(Object.entries(errors).map(([corner, message]) => [hotField(corner as Corner), message]));
+
 /** A plausible hot pressure for the example in an error, shown in the user's unit (224 kPa ≈ 32.5 psi). */
 const EXAMPLE_HOT_KPA = 224;
 
