@@ -257,7 +257,8 @@ export function EventDayPage() {
               : 'You have no cars to log runs for. Add yours (it works with no signal); a car you co-drive shows here once its owner adds you.'
           }
         >
-          <Link to={NEW_CAR_PATH} className={buttonClasses('primary', 'self-start')}>
+          {/* The event goes with it, so saving the car comes back here with it chosen. */}
+          <Link to={NEW_CAR_PATH} state={eventId} className={buttonClasses('primary', 'self-start')}>
             <Plus aria-hidden="true" className="size-5" /> Add a car
           </Link>
         </EmptyState>

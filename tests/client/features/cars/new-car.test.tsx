@@ -1,14 +1,16 @@
 // @vitest-environment jsdom
-import { screen, waitFor, within } from '@testing-library/react';
+import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import type { OutboxEntry } from '@/lib/outbox';
 import { jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
-import { list, user, UUID } from '../../fixtures/season';
+import { EVENT, IDS, list, user, UUID } from '../../fixtures/season';
 
 const offline = () => Promise.reject(new TypeError('Failed to fetch'));
 
-setUpAppTests([() => import('@/app/routes/cars/cars'), () => import('@/app/routes/home')]);
+setUpAppTests([() => import('@/app/routes/cars/cars'), () => import('@/app/routes/home'), () => import('@/app/routes/events/event-day')], {
+  clearLocalStorage: true,
+});
 
 function stubNoCars() {
   return stubFetch({
@@ -78,5 +80,48 @@ describe('new car', () => {
 
     const link = await screen.findByRole('link', { name: 'Add a car' });
     expect(link.getAttribute('href')).toBe('/cars?new=1');
+  });
+
+  it('when a driver at an event with no car adds one, then saving it goes back to that event with the new car and them chosen, ready to log a run', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/cars': list([]),
+      [`GET /api/events/${IDS.event}`]: jsonResponse(200, EVENT),
+      'POST /api/cars': offline,
+    });
+    const { outbox, router } = renderApp(`/events/${IDS.event}`);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('link', { name: 'Add a car' }));
+    // Its way back names the event, not the car list.
+    expect((await screen.findByRole('link', { name: 'Back to the event' })).getAttribute('href')).toBe(`/events/${IDS.event}`);
+    await u.type(await screen.findByLabelText(/^Name/), 'Blue hatch');
+    await u.type(screen.getByLabelText('Class'), 'hs');
+    await u.click(screen.getByRole('button', { name: 'Save car' }));
+
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(1));
+    const carId = (outbox.getSnapshot()[0]!.body as { id: string }).id;
+    await waitFor(() => expect(router.state.location.pathname).toBe(`/events/${IDS.event}`));
+    expect(Object.fromEntries(new URLSearchParams(router.state.location.search))).toEqual({ carId, driverId: user().id });
+    // No picker in between: the board is open on the car still waiting to upload.
+    expect(await screen.findByRole('region', { name: 'Log a run' })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Change car or driver' })).toBeTruthy();
+    // Going back from the event is not back into the form.
+    expect(screen.queryByRole('button', { name: 'Save car' })).toBeNull();
+  });
+
+  it('when the new-car page is opened with something other than an event id in its state, then saving goes to the car list', async () => {
+    stubNoCars();
+    const { router } = renderApp('/');
+    await screen.findByRole('link', { name: 'Add a car' });
+    await act(() => router.navigate('/cars?new=1', { state: '//elsewhere.example/x' }));
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText(/^Name/), 'Blue hatch');
+    expect(screen.queryByRole('link', { name: 'Back to the event' })).toBeNull();
+    await u.type(screen.getByLabelText('Class'), 'hs');
+    await u.click(screen.getByRole('button', { name: 'Save car' }));
+
+    await waitFor(() => expect(router.state.location.pathname + router.state.location.search).toBe('/cars'));
   });
 });
