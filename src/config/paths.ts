@@ -22,30 +22,16 @@ export const paths = {
   devMailbox: '/dev/mailbox',
 } as const;
 
-/** Addresses of one record's pages. */
+/**
+ * Addresses of one record's pages that the event-day page or Home link to. Everything here comes with the
+ * first download; the pages only reached from a desk are in `record-paths.ts`, loaded with them.
+ */
 export const pathTo = {
   car: (carId: string) => `/cars/${carId}`,
-  review: (carId: string) => `/cars/${carId}/review`,
   newSetup: (carId: string, fromSetupId?: string | null) =>
     `/cars/${carId}/setups/new${fromSetupId ? `?from=${encodeURIComponent(fromSetupId)}` : ''}`,
-  /** Fix a setup the server refused: the editor reopens the stored entry. */
-  fixSetup: (carId: string, entryKey: string) => `/cars/${carId}/setups/new?fix=${encodeURIComponent(entryKey)}`,
-  tread: (carId: string, tyreSetId?: string | null) =>
-    `/cars/${carId}/tread${tyreSetId ? `?set=${encodeURIComponent(tyreSetId)}` : ''}`,
-  shopCustomer: (carId: string) => `/shop/customers/${carId}`,
-  newSuggestion: (carId: string, baseSetupId?: string | null) =>
-    `/cars/${carId}/suggestions/new${baseSetupId ? `?from=${encodeURIComponent(baseSetupId)}` : ''}`,
-  suggestion: (suggestionId: string) => `/suggestions/${suggestionId}`,
-  workOrder: (workOrderId: string) => `/work-orders/${workOrderId}`,
-  team: (teamId: string) => `/teams/${teamId}`,
-  classBoard: (teamId: string) => `/teams/${teamId}/board`,
   event: (eventId: string, carId?: string | null) =>
     `/events/${eventId}${carId ? `?carId=${encodeURIComponent(carId)}` : ''}`,
-  /** Timing-sheet import for one car, optionally at a chosen event. */
-  importResults: (carId: string, eventId?: string | null) =>
-    `/cars/${carId}/import${eventId ? `?eventId=${encodeURIComponent(eventId)}` : ''}`,
-  /** Season export: one setup snapshot as a printable sheet. */
-  setupSheet: (setupId: string) => `/setups/${setupId}/sheet`,
 };
 
 export const NEXT_PARAM = 'next';

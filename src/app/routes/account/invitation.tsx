@@ -1,6 +1,7 @@
 import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
 import type { AcceptedInvitation } from '@shared/collab/invitation.schema';
-import { paths, pathTo } from '@/config/paths';
+import { paths } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { AuthLayout } from '@/components/layouts/auth-layout';
 import { FormAlert } from '@/components/ui/form-alert';
 import { isApiError } from '@/lib/api-client';
@@ -9,7 +10,7 @@ import { useInvitation } from '@/features/account/api/get-invitation';
 import { InvitationView } from '@/features/account/components/invitation-view';
 
 /** Where a new member lands: their shop's page, or the team's. */
-const destination = (accepted: AcceptedInvitation) => (accepted.kind === 'shop' ? paths.shop : pathTo.team(accepted.id));
+const destination = (accepted: AcceptedInvitation) => (accepted.kind === 'shop' ? paths.shop : recordPath.team(accepted.id));
 
 /** An invitation link: works signed in or out (signed out, it offers sign-in or registration first). */
 export function InvitationPage() {

@@ -3,6 +3,7 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { ChartScatter, FileUp, Plus, Ruler } from 'lucide-react';
 import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { PageMessage } from '@/components/ui/page-message';
 import { SectionCard } from '@/components/ui/section-card';
@@ -142,13 +143,13 @@ export function CarPage() {
         <Link to={pathTo.newSetup(carId)} className={buttonClasses('primary')}>
           <Plus aria-hidden="true" className="size-5" /> New setup
         </Link>
-        <Link to={pathTo.tread(carId)} className={buttonClasses('secondary')}>
+        <Link to={recordPath.tread(carId)} className={buttonClasses('secondary')}>
           <Ruler aria-hidden="true" className="size-5" /> Enter tread
         </Link>
-        <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
+        <Link to={recordPath.review(carId)} className={buttonClasses('secondary')}>
           <ChartScatter aria-hidden="true" className="size-5" /> Season review
         </Link>
-        <Link to={pathTo.importResults(carId)} className={buttonClasses('secondary')}>
+        <Link to={recordPath.importResults(carId)} className={buttonClasses('secondary')}>
           <FileUp aria-hidden="true" className="size-5" /> Import results
         </Link>
       </CarHeader>

@@ -3,7 +3,8 @@ import { Link, useParams } from 'react-router-dom';
 import { ChartScatter, ChevronDown, ChevronRight } from 'lucide-react';
 import type { SeasonResult } from '@shared/analysis/analysis.schema';
 import { formatRunTime } from '@shared/season/run-time';
-import { paths, pathTo } from '@/config/paths';
+import { paths } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { SectionCard } from '@/components/ui/section-card';
@@ -122,7 +123,7 @@ function Setups({ carId }: { carId: string }) {
       setups={data.items.map((s) => ({ ...s, pending: null }))}
       renderExtras={(setup) => (
         <>
-          <Link to={pathTo.newSuggestion(carId, setup.id)} className={buttonClasses('secondary', 'self-start')}>
+          <Link to={recordPath.newSuggestion(carId, setup.id)} className={buttonClasses('secondary', 'self-start')}>
             Suggest a change
           </Link>
           <AttachmentToggle target={{ targetType: 'setup', targetId: setup.id }} what={`“${setup.label}”`} />
@@ -154,7 +155,7 @@ export function CustomerPage() {
         )}
         errorText="This car could not be loaded. Its owner may have taken your shop’s access away."
       >
-        <Link to={pathTo.review(carId)} className={buttonClasses('secondary')}>
+        <Link to={recordPath.review(carId)} className={buttonClasses('secondary')}>
           <ChartScatter aria-hidden="true" className="size-5" /> Season review
         </Link>
       </CarHeader>

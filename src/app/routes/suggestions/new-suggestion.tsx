@@ -1,6 +1,6 @@
 import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { ArrowLeft } from 'lucide-react';
-import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import { useCar } from '@/features/cars/api/get-car';
 import { useSetups } from '@/features/setups/api/get-setups';
@@ -22,7 +22,7 @@ export function NewSuggestionPage() {
     <div className="flex flex-col gap-6">
       <title>Suggest a change · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.shopCustomer(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={recordPath.shopCustomer(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
           <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
         </Link>
         <h1 className="text-3xl font-extrabold">Suggest a setup change</h1>
@@ -44,13 +44,13 @@ export function NewSuggestionPage() {
               : 'This car has no setup recorded yet. A suggestion changes a recorded setup, so the drivers need to record one first.'
           }
         >
-          <Link to={pathTo.shopCustomer(carId)} className="font-semibold text-link underline">
+          <Link to={recordPath.shopCustomer(carId)} className="font-semibold text-link underline">
             Back to the car
           </Link>
         </EmptyState>
       ) : (
         <div className="max-w-2xl">
-          <SuggestionForm carId={carId} base={base} onCreated={({ id }) => void navigate(pathTo.suggestion(id))} />
+          <SuggestionForm carId={carId} base={base} onCreated={({ id }) => void navigate(recordPath.suggestion(id))} />
         </div>
       )}
     </div>

@@ -3,6 +3,7 @@ import { Link, useParams } from 'react-router-dom';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { ArrowLeft } from 'lucide-react';
 import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { Caution } from '@/components/ui/caution';
 import { PageMessage } from '@/components/ui/page-message';
 import { SectionCard } from '@/components/ui/section-card';
@@ -38,7 +39,7 @@ export function SuggestionPage() {
   }
 
   const isDriver = Boolean(me && car.data && (car.data.owner.id === me.id || car.data.coDrivers.some((p) => p.id === me.id)));
-  const back = isDriver ? pathTo.car(suggestion.carId) : pathTo.shopCustomer(suggestion.carId);
+  const back = isDriver ? pathTo.car(suggestion.carId) : recordPath.shopCustomer(suggestion.carId);
 
   return (
     <div className="flex max-w-2xl flex-col gap-6">

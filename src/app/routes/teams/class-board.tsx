@@ -1,6 +1,6 @@
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { ArrowLeft } from 'lucide-react';
-import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { useBoard } from '@/features/teams/api/get-board';
 import { ClassBoardView } from '@/features/teams/components/class-board';
 import { SeasonPicker } from '@/features/teams/components/season-picker';
@@ -22,7 +22,7 @@ export function ClassBoardPage() {
     <div className="flex min-w-0 flex-col gap-6">
       <title>{`Class board · ${board.team.name} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.team(teamId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={recordPath.team(teamId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
           <ArrowLeft aria-hidden="true" className="size-4" /> {board.team.name}
         </Link>
         <h1 className="text-3xl font-extrabold">Class board</h1>

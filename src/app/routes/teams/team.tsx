@@ -2,7 +2,8 @@ import { useMemo } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { ArrowLeft, Trophy } from 'lucide-react';
 import type { Team } from '@shared/collab/team.schema';
-import { paths, pathTo } from '@/config/paths';
+import { paths } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { buttonClasses } from '@/components/ui/button';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
@@ -50,7 +51,7 @@ export function TeamPage() {
           <h1 className="min-w-0 text-3xl font-extrabold break-words">{team.name}</h1>
           {team.isCaptain ? <CaptainMarker /> : null}
         </div>
-        <Link to={pathTo.classBoard(team.id)} className={buttonClasses('primary', 'self-start')}>
+        <Link to={recordPath.classBoard(team.id)} className={buttonClasses('primary', 'self-start')}>
           <Trophy aria-hidden="true" className="size-5" /> Class board
         </Link>
       </div>

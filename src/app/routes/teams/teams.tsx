@@ -1,5 +1,5 @@
 import { useNavigate } from 'react-router-dom';
-import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { CreateTeamForm } from '@/features/teams/components/create-team-form';
@@ -19,7 +19,7 @@ export function TeamsPage() {
         <TeamList />
       </SectionBoundary>
       <SectionCard title="Start a team">
-        <CreateTeamForm onCreated={(team) => void navigate(pathTo.team(team.id))} />
+        <CreateTeamForm onCreated={(team) => void navigate(recordPath.team(team.id))} />
       </SectionCard>
     </div>
   );

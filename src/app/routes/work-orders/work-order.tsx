@@ -1,6 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { ArrowLeft, Printer } from 'lucide-react';
 import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { PageMessage } from '@/components/ui/page-message';
 import { SectionCard } from '@/components/ui/section-card';
@@ -35,7 +36,7 @@ export function WorkOrderPage() {
 
   const canEdit = isStaff && workOrder.status === 'open';
   const currency = workOrder.shop.currency;
-  const back = isStaff ? pathTo.shopCustomer(workOrder.carId) : pathTo.car(workOrder.carId);
+  const back = isStaff ? recordPath.shopCustomer(workOrder.carId) : pathTo.car(workOrder.carId);
 
   return (
     <div className="handover-sheet flex max-w-3xl flex-col gap-6 print:max-w-none print:gap-1">

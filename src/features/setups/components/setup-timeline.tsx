@@ -3,6 +3,7 @@ import { Link, useLocation } from 'react-router-dom';
 import { Lightbulb, Wrench } from 'lucide-react';
 import { diffSetups } from '@shared/season/setup-diff';
 import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { buttonClasses } from '@/components/ui/button';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -26,7 +27,7 @@ function PendingProblem({ setup, carId }: { setup: SetupView; carId: string }) {
       </p>
       <div className="flex flex-wrap gap-2">
         {pending.kind === 'setup.create' ? (
-          <Link to={pathTo.fixSetup(carId, pending.entryKey)} className={buttonClasses('secondary')}>
+          <Link to={recordPath.fixSetup(carId, pending.entryKey)} className={buttonClasses('secondary')}>
             Fix it
           </Link>
         ) : (
@@ -45,9 +46,9 @@ function PendingProblem({ setup, carId }: { setup: SetupView; carId: string }) {
 /** Where a snapshot came from, when a shop made it: its suggestion or its work order, linked. */
 function OriginBadge({ setup }: { setup: SetupView }) {
   const origin = setup.suggestion
-    ? { to: pathTo.suggestion(setup.suggestion.id), Icon: Lightbulb, text: `from ${setup.suggestion.shopName}: ${setup.suggestion.title}` }
+    ? { to: recordPath.suggestion(setup.suggestion.id), Icon: Lightbulb, text: `from ${setup.suggestion.shopName}: ${setup.suggestion.title}` }
     : setup.workOrder
-      ? { to: pathTo.workOrder(setup.workOrder.id), Icon: Wrench, text: `handed back by ${setup.workOrder.shopName}: the work order` }
+      ? { to: recordPath.workOrder(setup.workOrder.id), Icon: Wrench, text: `handed back by ${setup.workOrder.shopName}: the work order` }
       : null;
   if (!origin) return null;
   return (
@@ -136,7 +137,7 @@ export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }:
                 )}
                 {/* Season export: a snapshot still on this phone is not on the server to print yet. */}
                 {setup.pending ? null : (
-                  <Link to={pathTo.setupSheet(setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
+                  <Link to={recordPath.setupSheet(setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
                     Print a setup sheet
                   </Link>
                 )}

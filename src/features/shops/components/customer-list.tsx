@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { ChevronRight } from 'lucide-react';
 import type { Customer } from '@shared/collab/shop.schema';
-import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import { RelativeTime } from '@/lib/relative-time';
 import { useCustomers } from '../api/get-customers';
@@ -17,7 +17,7 @@ function CustomerItem({ customer }: { customer: Customer }) {
   const { car, owner, latestActivity, openSuggestions } = customer;
   return (
     <li>
-      <Link to={pathTo.shopCustomer(car.id)} className="flex min-h-tap-lg items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
+      <Link to={recordPath.shopCustomer(car.id)} className="flex min-h-tap-lg items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
         <span className="flex min-w-0 flex-1 flex-col gap-0.5">
           <span className="font-bold break-words">
             {car.name}

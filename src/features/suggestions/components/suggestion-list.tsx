@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { ChevronRight } from 'lucide-react';
 import type { Suggestion, SuggestionStatus } from '@shared/collab/suggestion.schema';
-import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { cn } from '@/lib/cn';
 import { formatDay } from '@/lib/dates';
 import { useSuggestions } from '../api/get-suggestions';
@@ -36,7 +36,7 @@ export function SuggestionList({ carId, emptyText }: { carId: string; emptyText:
     <ul className="flex flex-col gap-2" aria-label="Suggestions">
       {data.items.map((s) => (
         <li key={s.id}>
-          <Link to={pathTo.suggestion(s.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
+          <Link to={recordPath.suggestion(s.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
             <span className="flex min-w-0 flex-1 flex-col gap-0.5">
               <span className="font-bold break-words">{s.title}</span>
               <span className="text-sm text-ink-muted">

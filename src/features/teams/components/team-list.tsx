@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import { ChevronRight, Crown, Trophy } from 'lucide-react';
-import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import { useMyTeams } from '../api/get-my-teams';
 
@@ -28,7 +28,7 @@ export function TeamList() {
       {teams.map((team) => (
         <li key={team.id} className="flex flex-col gap-1 rounded border border-line bg-surface p-2 sm:flex-row sm:items-center">
           <Link
-            to={pathTo.team(team.id)}
+            to={recordPath.team(team.id)}
             className="flex min-h-tap min-w-0 flex-1 items-center gap-2 rounded px-2 font-bold hover:bg-surface-raised"
           >
             <span className="min-w-0 break-words">{team.name}</span>
@@ -36,7 +36,7 @@ export function TeamList() {
             <ChevronRight aria-hidden="true" className="ml-auto size-5 shrink-0 text-ink-muted" />
           </Link>
           <Link
-            to={pathTo.classBoard(team.id)}
+            to={recordPath.classBoard(team.id)}
             className="inline-flex min-h-tap items-center gap-2 rounded px-2 font-semibold text-link hover:bg-accent-soft"
           >
             <Trophy aria-hidden="true" className="size-5" />

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { RotateCw } from 'lucide-react';
 import { formatQuantity } from '@shared/calc/units.calc';
-import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
@@ -72,7 +72,7 @@ export function TyreSetList({ carId, sets, entries }: { carId: string; sets: rea
               <RotationForm carId={carId} set={set} onSaved={() => setRotating(null)} onCancel={() => setRotating(null)} />
             ) : (
               <div className="flex flex-wrap gap-2">
-                <Link to={pathTo.tread(carId, set.id)} className={buttonClasses('secondary')}>
+                <Link to={recordPath.tread(carId, set.id)} className={buttonClasses('secondary')}>
                   Enter tread for this set
                 </Link>
                 <Button variant="secondary" onClick={() => setRotating(set.id)}>

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { pathTo } from '@/config/paths';
+import { recordPath } from '@/config/record-paths';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { FormAlert } from '@/components/ui/form-alert';
@@ -23,7 +23,7 @@ export function CarVisits({ carId }: { carId: string }) {
     <ol className="flex flex-col gap-2" aria-label="Shop visits">
       {data.items.map((visit) => (
         <li key={visit.id} className="flex flex-col gap-1 rounded border border-line p-3">
-          <Link to={pathTo.workOrder(visit.id)} className="font-bold break-words text-link">
+          <Link to={recordPath.workOrder(visit.id)} className="font-bold break-words text-link">
             {visit.shop.name} · {formatDay(visit.visitDate)}
           </Link>
           <p className="text-sm break-words">{visit.requestedWork}</p>
@@ -54,7 +54,7 @@ export function ShopBoard({ shopId }: { shopId: string }) {
     <ol className="flex flex-col gap-2" aria-label="Open work orders">
       {data.items.map((row) => (
         <li key={row.id} className="flex flex-col gap-1 rounded border border-line p-3">
-          <Link to={pathTo.workOrder(row.id)} className="font-bold break-words text-link">
+          <Link to={recordPath.workOrder(row.id)} className="font-bold break-words text-link">
             {row.car.name} · {formatDay(row.visitDate)}
           </Link>
           <p className="text-sm text-ink-muted">{row.owner.displayName}</p>
@@ -80,7 +80,7 @@ export function OpenWorkOrderForm({ carId }: { carId: string }) {
       className="flex flex-col gap-3"
       onSubmit={(e) => {
         e.preventDefault();
-        create.mutate({ id, visitDate, requestedWork }, { onSuccess: (wo) => navigate(pathTo.workOrder(wo.id)) });
+        create.mutate({ id, visitDate, requestedWork }, { onSuccess: (wo) => navigate(recordPath.workOrder(wo.id)) });
       }}
     >
       <TextField label="Visit date" type="date" value={visitDate} error={fieldError('visitDate')} onChange={(e) => setVisitDate(e.target.value)} />
