@@ -11,7 +11,7 @@ import { createAppRouter, sendToSignIn } from './app/router';
 import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
 import { persistQueryClient } from '@tanstack/react-query-persist-client';
 import { queryCacheStorage } from './lib/device-store';
-import { createAppOutbox, eventWaitingIn } from './app/outbox';
+import { createAppOutbox, waitingIn } from './app/outbox';
 import { registerServiceWorker } from './app/service-worker';
 
 // The server's Content-Security-Policy allows a <style> element only with this response's nonce.
@@ -36,7 +36,7 @@ const [, restored] = persistQueryClient({
 });
 // A device that cannot read its storage (a private window in some browsers) still opens the app.
 const deviceRead = Promise.all([restored, outbox.ready()]).catch(() => undefined);
-const router = createAppRouter(queryClient, { eventWaiting: eventWaitingIn(outbox), read: deviceRead });
+const router = createAppRouter(queryClient, { waiting: waitingIn(outbox), read: deviceRead });
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html has no #root element');

@@ -71,9 +71,9 @@ export function followSignIn(queryClient: QueryClient, outbox: Outbox): void {
   });
 }
 
-/** Is this event still only on the phone, its creation waiting in the outbox? The server cannot know it yet. */
-export const eventWaitingIn = (outbox: Outbox) => (eventId: string) =>
-  outbox.getSnapshot().some((e) => e.kind === 'event.create' && e.recordId === eventId);
+/** Is this record (an event, a car) still only on the phone, its creation waiting in the outbox? The server cannot know it yet. */
+export const waitingIn = (outbox: Outbox) => (id: string) =>
+  outbox.getSnapshot().some((e) => e.recordId === id && e.kind.endsWith('.create'));
 
 /** The app's one outbox, wired to the API and the query cache. */
 export function createAppOutbox(queryClient: QueryClient): Outbox {

@@ -34,8 +34,8 @@ function pathOf(url: URL): string {
 }
 
 export interface DeviceState {
-  /** Is this event still only on the phone (its creation waiting in the outbox)? The server cannot know it yet. */
-  eventWaiting: (eventId: string) => boolean;
+  /** Is this event or car still only on the phone (its creation waiting in the outbox)? The server cannot know it yet. */
+  waiting: (id: string) => boolean;
   /**
    * Settles once what the device keeps is read: the last answers of the server and the outbox. The router
    * starts before that (opening IndexedDB on a phone's first visit takes a few hundred ms), so the first

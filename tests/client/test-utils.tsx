@@ -2,7 +2,7 @@ import { memoryStorage, Outbox, type OutboxEntry } from '../../src/lib/outbox';
 import { outboxMutationKey } from '@/lib/outbox-context';
 import { api, dropCsrfToken } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
-import { classifySendError, eventWaitingIn, followSignIn, OUTBOX_KINDS, signedInAccount } from '@/app/outbox';
+import { classifySendError, followSignIn, OUTBOX_KINDS, signedInAccount, waitingIn } from '@/app/outbox';
 import { cleanup, configure, render } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
@@ -150,7 +150,7 @@ export function setUpAppTests(pages: readonly (() => Promise<unknown>)[] = [], {
 export function renderApp(path: string, { outboxEntries = [], deviceRead = Promise.resolve() }: RenderAppOptions = {}) {
   const queryClient = createQueryClient({ retry: false, onUnauthenticated: () => sendToSignIn(router, queryClient) });
   // As main.tsx does: an event whose creation waits in this outbox (made below, so read after this turn) is not asked of the server.
-  const { routes, discover } = createRoutes(queryClient, { eventWaiting: (id) => eventWaitingIn(outbox)(id), read: Promise.all([deviceRead, Promise.resolve().then(() => outbox.ready())]) });
+  const { routes, discover } = createRoutes(queryClient, { waiting: (id) => waitingIn(outbox)(id), read: Promise.all([deviceRead, Promise.resolve().then(() => outbox.ready())]) });
   const router = createMemoryRouter(routes, { initialEntries: [path], patchRoutesOnNavigation: discover });
   let current: OutboxEntry | null = null;
   // What the device holds, whoever is signed in (the outbox shows only their entries).

@@ -12,7 +12,7 @@ const ROOT = join(import.meta.dirname, '..', '..', '..');
 // route moved to another module or address, it would preload the wrong file and the page would
 // wait for its own again.
 describe('the chunks the server names for a page', () => {
-  const { routes } = createRoutes(new QueryClient(), { eventWaiting: () => false, read: Promise.resolve() });
+  const { routes } = createRoutes(new QueryClient(), { waiting: () => false, read: Promise.resolve() });
 
   it.each(PAGE_MODULES.map((p) => [p.example, p.module, p.pattern] as const))(
     'when %s is opened, then the client router loads its page from %s',

@@ -16,7 +16,7 @@ function addresses(routes: readonly RouteObject[], parent = ''): string[] {
 
 describe('pages added on demand', () => {
   const more = moreRoutes({ signedOutOnly: () => null, loading: null });
-  const { routes } = createRoutes(new QueryClient(), { eventWaiting: () => false, read: Promise.resolve() });
+  const { routes } = createRoutes(new QueryClient(), { waiting: () => false, read: Promise.resolve() });
 
   it('when an address of a page in more-routes.tsx is opened, then the router is told to fetch that list', () => {
     const wanted = addresses([...more.root, ...more.signedIn]);

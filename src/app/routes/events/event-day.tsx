@@ -1,9 +1,9 @@
 import { lazy, Suspense, useDeferredValue, useState } from 'react';
 import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
-import type { QueryClient } from '@tanstack/react-query';
+import { useQuery, type QueryClient } from '@tanstack/react-query';
 import type { DeviceState } from '@/app/router';
 import { Plus, Trophy } from 'lucide-react';
-import type { Car, Person } from '@shared/season/car.schema';
+import type { Person } from '@shared/season/car.schema';
 import { formatRunTime } from '@shared/season/run-time';
 import { paths, pathTo } from '@/config/paths';
 import { Button, buttonClasses } from '@/components/ui/button';
@@ -17,6 +17,7 @@ import { formatDay, isOnDate, prepareDateFormats, runMoment } from '@/lib/dates'
 import { useMe } from '@/features/auth/api/get-me';
 import { CarDriverPicker, driversOf } from '@/features/cars/components/car-driver-picker';
 import { useCarViews } from '@/features/cars/hooks/use-car-views';
+import type { CarView } from '@/features/cars/utils/pending-cars';
 import { CommentsButton } from '@/features/comments/components/comments-button';
 import { NEW_CAR_PATH } from '@/features/cars/utils/new-car-path';
 import { EventFacts } from '@/features/events/components/event-facts';
@@ -24,11 +25,11 @@ import { useDayEvent } from '@/features/events/hooks/use-event-views';
 import { eventQueryOptions } from '@/features/events/api/get-event';
 import { carsQueryOptions } from '@/features/cars/api/get-cars';
 import type { EventView } from '@/features/events/utils/pending-events';
-import { runsQueryOptions, useRuns } from '@/features/runs/api/get-runs';
+import { runsQueryOptions } from '@/features/runs/api/get-runs';
 import { LogRunForm } from '@/features/runs/components/log-run-form';
 import { RunList } from '@/features/runs/components/run-list';
 import { mergeRuns, type RunRow } from '@/features/runs/utils/merge-runs';
-import { setupsQueryOptions, useSetups } from '@/features/setups/api/get-setups';
+import { setupsQueryOptions } from '@/features/setups/api/get-setups';
 import { CurrentSetup } from '@/features/setups/components/current-setup';
 import { mergePendingSetups, setupInForce } from '@/features/setups/utils/setup-views';
 
@@ -59,11 +60,11 @@ export const eventDayLoader =
     // overlaps the wait for the device and the network instead of delaying the first drawing.
     prepareDateFormats();
     await device.read;
-    // An event still on the phone: the server cannot know it or its runs yet.
-    if (device.eventWaiting(eventId)) return null;
+    // An event or a car still on the phone: the server cannot know it or its runs yet.
+    if (device.waiting(eventId)) return null;
     const carId = new URL(request.url).searchParams.get('carId') ?? readStoredChoice<Choice>(choiceKey(eventId))?.carId;
     void queryClient.prefetchQuery(eventQueryOptions(eventId));
-    if (carId) {
+    if (carId && !device.waiting(carId)) {
       void queryClient.prefetchQuery(setupsQueryOptions(carId));
       void queryClient.prefetchQuery(runsQueryOptions({ carId, eventId }));
     }
@@ -71,10 +72,13 @@ export const eventDayLoader =
   };
 
 /** Everything under the header once the car and the driver are known. */
-function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car; driver: Person; me: Person }) {
+function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarView; driver: Person; me: Person }) {
   const entries = useOutboxEntriesFor({ carId: car.id });
-  const setupsQuery = useSetups(car.id);
-  const runsQuery = useRuns({ carId: car.id, eventId: event.id });
+  // A car or an event still on the phone is not on the server yet: its reads wait for the upload, not a refusal.
+  const carSaved = !car.pending;
+  const onServer = carSaved && !event.pending;
+  const setupsQuery = useQuery({ ...setupsQueryOptions(car.id), enabled: carSaved });
+  const runsQuery = useQuery({ ...runsQueryOptions({ carId: car.id, eventId: event.id }), enabled: onServer });
   const [quickChange, setQuickChange] = useState(false);
 
   // Just uploaded, but not in the data yet: kept in view until the refresh lands, so nothing blinks out.
@@ -126,7 +130,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
     <>
       <section aria-label="Setup" className="flex flex-col gap-3 rounded-lg border border-line bg-surface px-3 py-2">
         <div className="flex items-center justify-between gap-3">
-          <CurrentSetup setup={current} loading={setupsQuery.data === undefined && setups.length === 0} day={event.date} dayOver={moment.dayOver} />
+          <CurrentSetup setup={current} loading={carSaved && setupsQuery.data === undefined && setups.length === 0} day={event.date} dayOver={moment.dayOver} />
           {/* A quick change starts now; one made on a past day is entered, with its time, in the setup editor. */}
           {moment.dayOver ? (
             <Link to={pathTo.newSetup(car.id, current?.id)} className={buttonClasses('secondary', 'shrink-0 px-3')}>
@@ -165,7 +169,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: Car;
           {runsQuery.isError && !runsQuery.data ? (
             <p className="text-sm text-ink-muted">Saved runs could not be loaded (no connection?). Runs you log now are kept on this phone.</p>
           ) : null}
-          {(runsQuery.isPending && rows.length === 0) || !listDrawn ? (
+          {(onServer && runsQuery.isPending && rows.length === 0) || !listDrawn ? (
             <p className="text-ink-muted">Loading runs…</p>
           ) : (
             <RunList label={heading} rows={rows} setupLabelOf={setupLabelOf} renderExtras={runComments} />

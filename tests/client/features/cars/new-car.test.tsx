@@ -1,10 +1,10 @@
 // @vitest-environment jsdom
 import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import type { OutboxEntry } from '@/lib/outbox';
-import { jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
-import { EVENT, IDS, list, user, UUID } from '../../fixtures/season';
+import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
+import { CAR, EVENT, IDS, list, user, UUID } from '../../fixtures/season';
 
 const offline = () => Promise.reject(new TypeError('Failed to fetch'));
 
@@ -108,6 +108,53 @@ describe('new car', () => {
     expect(screen.getByRole('button', { name: 'Change car or driver' })).toBeTruthy();
     // Going back from the event is not back into the form.
     expect(screen.queryByRole('button', { name: 'Save car' })).toBeNull();
+  });
+
+  it('when the new car is still uploading as its event opens on it, then its setups and runs are asked for only once the server has it, and no "not found" shows', async () => {
+    const NEW = 'c9999999-9999-4999-8999-999999999999';
+    vi.spyOn(crypto, 'randomUUID').mockReturnValueOnce(NEW);
+    const me = user();
+    const saved = { ...CAR, id: NEW, name: 'Blue hatch', classCode: 'hs', owner: { id: me.id, displayName: me.displayName }, coDrivers: [] };
+    let landed = false;
+    let land: () => void = () => undefined;
+    // As the server answers: the car's reads are refused until its creation has landed.
+    const notYet = (body: unknown) => () => (landed ? list(body as never[]) : errorResponse(404, 'not_found', 'That car was not found.'));
+    const SETUPS = `GET /api/cars/${NEW}/setups`;
+    const RUNS = `GET /api/runs?carId=${NEW}&eventId=${IDS.event}`;
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: me }),
+      'GET /api/cars': () => list(landed ? [saved] : []),
+      [`GET /api/events/${IDS.event}`]: jsonResponse(200, EVENT),
+      'POST /api/cars': () =>
+        new Promise<Response>((resolve) => {
+          land = () => {
+            landed = true;
+            resolve(jsonResponse(201, saved));
+          };
+        }),
+      [SETUPS]: notYet([]),
+      [RUNS]: notYet([]),
+    });
+    renderApp(`/events/${IDS.event}`);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('link', { name: 'Add a car' }));
+    await u.type(await screen.findByLabelText(/^Name/), 'Blue hatch');
+    await u.type(screen.getByLabelText('Class'), 'hs');
+    await u.click(screen.getByRole('button', { name: 'Save car' }));
+    expect(await screen.findByRole('region', { name: 'Log a run' })).toBeTruthy();
+    await waitFor(() => expect(requestsTo(fetchMock, 'POST /api/cars')).toHaveLength(1));
+    // The upload is on its way: nothing about the car is asked of a server that does not have it yet.
+    await new Promise((r) => setTimeout(r, 50));
+    expect(requestsTo(fetchMock, SETUPS)).toHaveLength(0);
+    expect(requestsTo(fetchMock, RUNS)).toHaveLength(0);
+    expect(screen.queryByText('Loading runs…')).toBeNull();
+
+    await act(async () => land());
+    await waitFor(() => expect(requestsTo(fetchMock, SETUPS)).toHaveLength(1));
+    await waitFor(() => expect(requestsTo(fetchMock, RUNS)).toHaveLength(1));
+    expect(screen.queryByText('That car was not found.')).toBeNull();
+    expect(screen.getByRole('region', { name: 'Log a run' })).toBeTruthy();
   });
 
   it('when the new-car page is opened with something other than an event id in its state, then saving goes to the car list', async () => {
