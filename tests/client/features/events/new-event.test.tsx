@@ -54,6 +54,8 @@ describe('new event', () => {
     const facts = screen.getByText(/Marsh Lane car park · Autocross · 2 s a cone/);
     // The penalty and its unit never part at a line's end: a no-break space (common typographic practice).
     expect(facts.textContent).toContain('2\u00a0s a cone');
+    // Nor does a wrapped line start with a separating dot: each is held to the words before it.
+    expect(facts.textContent).toContain('car park\u00a0· Autocross\u00a0· 2');
     expect(await screen.findByRole('form', { name: 'Car and driver' })).toBeTruthy();
     expect(fetchMock.mock.calls.some(([url]) => String(url).startsWith(`/api/events/`))).toBe(false);
     expect(requestsTo(fetchMock, 'POST /api/events')[0]?.body).toEqual(body);
