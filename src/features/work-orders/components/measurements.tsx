@@ -33,6 +33,9 @@ function Balance({ stage }: { stage: WorkOrderStage }) {
   );
 }
 
+/** A reading and its unit (or a change and its arrow) on one line: each space becomes a no-break space. */
+const heldTogether = (text: string) => text.replaceAll(' ', '\u00a0');
+
 /** Before and after side by side, each corner showing after's change from before. */
 export function MeasurementsView({ workOrder }: { workOrder: WorkOrder }) {
   const units = useUnits();
@@ -46,9 +49,10 @@ export function MeasurementsView({ workOrder }: { workOrder: WorkOrder }) {
     return (
       <div key={field} className="tabular-figures flex flex-wrap justify-between gap-x-2 text-sm">
         <span className="text-ink-muted">{info.label}</span>
+        {/* A narrow corner wraps only between whole readings: never inside "122.0 mm" nor before the arrow. */}
         <span>
-          {formatQuantity(b, info.quantity, units)} → {formatQuantity(a, info.quantity, units)}
-          {d !== null ? <span className="ml-1 font-semibold">{formatDelta(d, info.quantity, units)}</span> : null}
+          {`${heldTogether(formatQuantity(b, info.quantity, units))}\u00a0→ ${heldTogether(formatQuantity(a, info.quantity, units))}`}
+          {d !== null ? <span className="font-semibold"> {heldTogether(formatDelta(d, info.quantity, units))}</span> : null}
         </span>
       </div>
     );

@@ -194,6 +194,27 @@ describe('the measurement forms', () => {
   });
 });
 
+describe('the before and after comparison', () => {
+  it('when a corner was measured twice, then each reading keeps its unit and the change keeps its arrow on one line', async () => {
+    const diff = workOrder().diff;
+    stubStaff(METRIC_PREFERENCES, {
+      [`GET ${WO}`]: jsonResponse(
+        200,
+        workOrder({
+          stages: { before: stage({ lf: { rideHeightMm: 127 } }), after: stage({ lf: { rideHeightMm: 121.5 } }) },
+          diff: { ...diff, lf: { ...diff.lf, rideHeightMm: -5.5 } },
+        }),
+      ),
+    });
+    renderApp(PATH);
+    const grid = await screen.findByRole('group', { name: 'Before → after, per corner' });
+    const lf = within(grid).getByRole('group', { name: 'Left front' });
+    const ride = within(lf).getByText('Ride height').parentElement!;
+    // Text wraps only at ordinary spaces; a no-break space holds a number to its unit (common typographic practice).
+    expect(ride.textContent).toBe('Ride height127.0\u00a0mm\u00a0→ 121.5\u00a0mm ▼\u00a05.5\u00a0mm');
+  });
+});
+
 describe('the invoice for shop staff', () => {
   it('when staff make the invoice for a closed visit, then it is posted and its lines, totals and status appear', async () => {
     const fetchMock = stubStaff(METRIC_PREFERENCES, {
