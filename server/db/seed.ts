@@ -5,6 +5,9 @@ import { ShopEntity, ShopMemberEntity } from '../features/shops/shop.entity';
 import { TeamEntity, TeamMemberEntity } from '../features/teams/team.entity';
 import { DEMO_ACCOUNTS, DEMO_CLASS_FACTORS, DEMO_PASSWORD, DEMO_SEASON_YEAR, DEMO_SHOP, DEMO_SHOP_TAX_RATE_PCT, DEMO_TEAM } from './demo-accounts';
 import { DEMO_CAMBER_ARMS_DATE, seedDemoSeason } from './demo-season';
+import { findUserById } from '../features/users/user.service';
+import { createComment } from '../features/comments/comment.service';
+import { createSuggestion } from '../features/suggestions/suggestion.service';
 
 /** Fills an empty database with the demo scenario; does nothing when any account exists. */
 export async function seedDemoIfEmpty(ds: DataSource): Promise<boolean> {
@@ -16,7 +19,7 @@ export async function seedDemoIfEmpty(ds: DataSource): Promise<boolean> {
 
 export async function seedDemo(ds: DataSource): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
-  await ds.transaction(async (m) => {
+  const ids = await ds.transaction(async (m) => {
     const users = m.getRepository(UserEntity);
     const ids = {} as Record<keyof typeof DEMO_ACCOUNTS, string>;
     for (const [key, account] of Object.entries(DEMO_ACCOUNTS) as [keyof typeof DEMO_ACCOUNTS, (typeof DEMO_ACCOUNTS)[keyof typeof DEMO_ACCOUNTS]][]) {
@@ -45,7 +48,9 @@ export async function seedDemo(ds: DataSource): Promise<void> {
     });
     await seedDemoCollaboration(m, ids, shop.id, team.id);
     await seedDemoServiceVisits(m, ids, shop.id);
+    return ids;
   });
+  await seedDemoReview(ds, ids);
 }
 
 /**
@@ -155,4 +160,40 @@ async function seedDemoServiceVisits(m: EntityManager, ids: Record<keyof typeof 
             ($1, 'lr', 470, 330, 350, 110, NULL, 50, NULL, NULL, NULL, NULL, NULL, NULL, NULL, 268, NULL, NULL)`,
     [open!.id],
   );
+}
+
+/**
+ * The shop's read of the finished season, written through the same services as the app, so
+ * each leaves the notifications it would (no e-mail is sent while seeding): a comment on
+ * Maren's quickest run at the last round with her answer, and one open suggestion for next
+ * spring against the setup in force now. Invented words.
+ */
+async function seedDemoReview(ds: DataSource, ids: Record<keyof typeof DEMO_ACCOUNTS, string>): Promise<void> {
+  const [dusty, maren] = await Promise.all([findUserById(ds, ids.shopStaff), findUserById(ds, ids.driver)]);
+  const [best]: { id: string; car_id: string }[] = await ds.query(
+    `SELECT r.id, r.car_id FROM runs r JOIN events e ON e.id = r.event_id
+      WHERE r.driver_id = $1 AND r.status = 'finished' ORDER BY e.date DESC, r.raw_time_sec + r.cones * e.cone_penalty_sec LIMIT 1`,
+    [ids.driver],
+  );
+  const target = { type: 'run' as const, id: best!.id };
+  await createComment(ds, undefined, dusty!, {
+    target,
+    body: 'Tidiest run of your day. The fronts’ inner edges have worn far less since the camber arms went on, so leave the camber where it is over the winter.',
+  });
+  await createComment(ds, undefined, maren!, {
+    target,
+    body: 'Thanks. It turned in much better through the slalom after the arms, too.',
+  });
+  const [current]: { id: string }[] = await ds.query(
+    'SELECT id FROM setup_snapshots WHERE car_id = $1 ORDER BY effective_from DESC LIMIT 1',
+    [best!.car_id],
+  );
+  await createSuggestion(ds, undefined, dusty!, best!.car_id, {
+    baseSetupId: current!.id,
+    title: 'One more rear click for the first spring round',
+    rationale:
+      'The rear took every click you gave it this season without stepping out, and the rear tread is wearing evenly. ' +
+      'One more click at the rear should help the car rotate in the slaloms. Try it on your first two runs and keep it only if the times say so.',
+    changes: [{ field: 'damperClicks', corners: ['lr', 'rr'], delta: 1 }],
+  });
 }

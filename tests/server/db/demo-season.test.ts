@@ -125,6 +125,38 @@ describe('the demo season', () => {
     expect(afterRate).toBeLessThan(beforeRate * 0.7);
   });
 
+  it('when seeded, then the shop has reviewed the season: a run comment with the driver\'s answer, an open suggestion on the setup in force, and their notifications', async () => {
+    const thread = await q<{ email: string; shop: string | null; event: string; run_id: string }>(a.ds, `
+      SELECT u.email, s.name AS shop, e.name AS event, c.run_id FROM comments c JOIN users u ON u.id = c.author_id
+        LEFT JOIN shops s ON s.id = c.shop_id JOIN runs r ON r.id = c.run_id JOIN events e ON e.id = r.event_id
+       ORDER BY c.created_at, c.id`);
+    expect(thread.map((c) => c.email)).toEqual([DEMO_ACCOUNTS.shopStaff.email, DEMO_ACCOUNTS.driver.email]);
+    // Staff who do not drive the car sign with the shop; both comments are on one run of the season's last round.
+    expect(thread[0]!.shop).not.toBeNull();
+    expect(thread[1]!.shop).toBeNull();
+    expect(thread[1]!.run_id).toBe(thread[0]!.run_id);
+    const [last] = await q<{ name: string }>(a.ds, 'SELECT name FROM events ORDER BY date DESC LIMIT 1');
+    expect(thread[0]!.event).toBe(last!.name);
+
+    const suggestions = await q<{ status: string; base: string; current: string; changes: unknown }>(a.ds, `
+      SELECT g.status, g.base_setup_id AS base, g.changes,
+             (SELECT id FROM setup_snapshots WHERE car_id = g.car_id ORDER BY effective_from DESC LIMIT 1) AS current
+        FROM setup_suggestions g`);
+    expect(suggestions).toHaveLength(1);
+    expect(suggestions[0]!.status).toBe('open');
+    expect(suggestions[0]!.base).toBe(suggestions[0]!.current);
+
+    // Each hears of what the others wrote, never of their own: the co-driver of all three, the driver of the
+    // shop's two, the shop of the driver's answer.
+    const unread = await q<{ email: string; n: number }>(a.ds, `
+      SELECT u.email, count(*)::int AS n FROM notifications n JOIN users u ON u.id = n.user_id WHERE n.read_at IS NULL GROUP BY u.email`);
+    expect(Object.fromEntries(unread.map((r) => [r.email, r.n]))).toEqual({
+      [DEMO_ACCOUNTS.coDriver.email]: 3,
+      [DEMO_ACCOUNTS.driver.email]: 2,
+      [DEMO_ACCOUNTS.shopStaff.email]: 1,
+    });
+  });
+
   it('when pressures are read, then each event has cold readings and many runs have hot ones above the cold', async () => {
     const cold = await q<{ n: number }>(a.ds, `SELECT count(*)::int AS n FROM pressure_readings WHERE kind = 'cold'`);
     expect(cold[0]!.n).toBe(16);
