@@ -33,13 +33,20 @@ interface ResolvedTarget {
   type: CommentTargetType;
   id: string;
   carId: string;
-  /** The page a driver opens for this record. */
-  driverLink: string;
+  /** The page a driver opens for this record, or how to make it for one driver. */
+  driverLink: string | ((driverId: string) => string);
   /** "run 3 at Harbour Lot Sprint" */
   description: string;
   /** A work-order thread: the visit's shop, which its staff sign with even after the car's grant is withdrawn. */
   shop?: { id: string; name: string };
 }
+
+/**
+ * The event's board for the car, opened with the reader as its driver, so it goes straight to the day's runs
+ * (each with its thread) instead of asking which car and who is driving.
+ */
+const eventBoardFor = (eventId: string, carId: string) => (driverId: string) =>
+  `/events/${eventId}?carId=${carId}&driverId=${driverId}`;
 
 /**
  * Finds the target's car and checks the user may `action` it (404 when the record or
@@ -59,7 +66,7 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
       if (!r) throw missing();
       resolved = {
         type: 'run', id: target.id, carId: r.car_id,
-        driverLink: `/events/${r.event_id}?carId=${r.car_id}`,
+        driverLink: eventBoardFor(r.event_id, r.car_id),
         description: `run ${r.run_number} at ${r.event_name}`,
       };
       break;
@@ -109,7 +116,7 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
       if (!e) throw missing();
       resolved = {
         type: 'event', id: target.id, carId: target.carId,
-        driverLink: `/events/${target.id}?carId=${target.carId}`, description: e.name,
+        driverLink: eventBoardFor(target.id, target.carId), description: e.name,
       };
       await checkCar(db, user, resolved, action, missing);
       if (!e.car_ran) {

@@ -122,11 +122,11 @@ export async function carAudience(db: Queryable, carId: string): Promise<CarAudi
   return { carId, carName: row?.name ?? '', drivers: row?.drivers ?? [], staff: row?.staff ?? [] };
 }
 
-/** The car's drivers, each sent to `link`. */
-export function driverRecipients(audience: CarAudience, link: string): NotificationRecipient[] {
+/** The car's drivers, each sent to `link`, or to the page `link` makes for them. */
+export function driverRecipients(audience: CarAudience, link: string | ((driverId: string) => string)): NotificationRecipient[] {
   return audience.drivers.map((userId) => ({
     userId,
-    link,
+    link: typeof link === 'string' ? link : link(userId),
     reason: `You get this e-mail because you drive ${audience.carName} in Scrubline.`,
   }));
 }

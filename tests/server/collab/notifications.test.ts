@@ -40,7 +40,7 @@ async function crew() {
 }
 
 describe('who hears about a comment', () => {
-  it('when shop staff comment on a run, then the owner and co-driver get a link to the event and the other staff to the customer page; not the author', async () => {
+  it('when shop staff comment on a run, then the owner and co-driver each get a link to the event\'s board as its driver and the other staff to the customer page; not the author', async () => {
     const { driver, co, staff, wren } = await crew();
     const run = await postRun(driver.c, driver.carId, driver.eventId, { runNumber: 3 });
     const before = (await notes(staff.c)).count;
@@ -56,7 +56,8 @@ describe('who hears about a comment', () => {
         carId: driver.carId,
         actor: { id: staff.user.id, displayName: 'Dusty Okonjo' },
         summary,
-        link: `/events/${driver.eventId}?carId=${driver.carId}`,
+        // Straight to the day's runs with the reader as the driver, not to the page asking which car and who drives.
+        link: `/events/${driver.eventId}?carId=${driver.carId}&driverId=${person.user.id}`,
         readAt: null,
         createdAt: expect.any(String),
       });
@@ -94,7 +95,9 @@ describe('who hears about a comment', () => {
     const run = await postRun(driver.c, driver.carId, driver.eventId);
     await staff.c.post('/api/comments', { target: { type: 'run', id: run.id }, body: 'Tyres look scrubbed in.' });
     const list = await notes(mechanic.c);
-    expect(list.items.filter((n) => n.kind === 'comment').map((n) => n.link)).toEqual([`/events/${driver.eventId}?carId=${driver.carId}`]);
+    expect(list.items.filter((n) => n.kind === 'comment').map((n) => n.link)).toEqual([
+      `/events/${driver.eventId}?carId=${driver.carId}&driverId=${mechanic.user.id}`,
+    ]);
   });
 });
 
@@ -195,7 +198,7 @@ describe('notification e-mails', () => {
 
     const [token] = (await t.ds.query('SELECT unsubscribe_token FROM users WHERE id = $1', [driver.user.id])) as { unsubscribe_token: string }[];
     const unsubscribeUrl = `http://scrubline.test/unsubscribe/${token!.unsubscribe_token}`;
-    const pageUrl = `http://scrubline.test/events/${driver.eventId}?carId=${driver.carId}`;
+    const pageUrl = `http://scrubline.test/events/${driver.eventId}?carId=${driver.carId}&driverId=${driver.user.id}`;
     const sent = mailTo(driver.email);
     expect(sent).toHaveLength(1);
     const message = sent[0]!;
@@ -206,7 +209,8 @@ describe('notification e-mails', () => {
     expect(message.text).toContain(pageUrl);
     expect(message.text).toContain('because you drive Blue roadster');
     expect(message.text).toContain(unsubscribeUrl);
-    expect(message.html).toContain(`href="${pageUrl}"`);
+    // In HTML the address's "&" is written "&amp;" (HTML Living Standard, 13.1.2.3 attribute values).
+    expect(message.html).toContain(`href="${pageUrl.replaceAll('&', '&amp;')}"`);
     expect(message.html).toContain('Two clicks softer &lt;front&gt;.');
     expect(message.html).toContain(`href="${unsubscribeUrl}"`);
     expect(message.html).toContain('because you drive Blue roadster');
