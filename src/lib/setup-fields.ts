@@ -29,7 +29,8 @@ export const FIELD_INFO: Record<SetupCornerField, FieldInfo> = {
   cornerWeightKg: { label: 'Corner weight', quantity: 'mass', signed: false, limits: LIMITS.cornerWeightKg },
 };
 
-const clicks = (n: number) => `${n} ${Math.abs(n) === 1 ? 'click' : 'clicks'}`;
+/** "1 click", "6 clicks". */
+export const clicks = (n: number) => `${n} ${Math.abs(n) === 1 ? 'click' : 'clicks'}`;
 
 /** A stored (SI) value in the user's units: "−1.20°", "31.9 psi", "12 clicks"; "—" when not recorded. */
 export function formatFieldValue(field: SetupCornerField, si: number | null | undefined, units: UnitPreferences): string {

@@ -60,7 +60,7 @@ function describeLine(line: ChangeLine, amount: number, units: UnitPreferences):
   const { label, quantity } = FIELD_INFO[line.field];
   const text =
     line.mode === 'value'
-      ? `= ${quantity ? formatFieldValue(line.field, toSi(amount, quantity, units), units) : `${amount} clicks`}`
+      ? `= ${formatFieldValue(line.field, quantity ? toSi(amount, quantity, units) : amount, units)}`
       : quantity
         ? formatSigned(amount, quantity, units)
         : `${amount > 0 ? '+' : '−'}${Math.abs(amount)}`;

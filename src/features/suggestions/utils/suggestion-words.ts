@@ -2,7 +2,7 @@ import type { UnitPreferences } from '@shared/calc/units.calc';
 import type { SuggestionChange } from '@shared/collab/suggestion.schema';
 import { CORNERS } from '@shared/season/corners';
 import { formatSigned } from '@/lib/numbers';
-import { FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
+import { clicks, FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
 import { toDisplay } from '@shared/calc/units.calc';
 import { CORNER_SETS, FIELD_LABELS } from './change-rows';
 
@@ -21,6 +21,6 @@ export function describeChange(change: SuggestionChange, units: UnitPreferences)
   const what = `${cornerWords(change.corners)} ${FIELD_LABELS[change.field].toLowerCase()}`;
   if (change.value !== undefined) return `${what}: set to ${formatFieldValue(change.field, change.value, units)}`;
   const delta = change.delta ?? 0;
-  const amount = quantity ? formatSigned(toDisplay(delta, quantity, units), quantity, units) : `${delta > 0 ? '+' : '−'}${Math.abs(delta)} clicks`;
+  const amount = quantity ? formatSigned(toDisplay(delta, quantity, units), quantity, units) : `${delta > 0 ? '+' : '−'}${clicks(Math.abs(delta))}`;
   return `${what}: change by ${amount}`;
 }

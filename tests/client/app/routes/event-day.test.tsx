@@ -516,6 +516,24 @@ describe('event day', () => {
     expect(within(shown.getByRole('group', { name: 'Right rear' })).getByText('—')).toBeTruthy();
   });
 
+  it('when a quick change sets the rear to one click, then its label reads "1 click", not "1 clicks"', async () => {
+    stubWithRuns([], { extra: TODAY_EVENT() });
+    const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+    await u.click(within(form).getByRole('button', { name: 'Rear' }));
+    await u.click(within(form).getByRole('button', { name: 'Set to' }));
+    await u.type(within(form).getByLabelText(/^Set clicks to/), '1');
+    await u.click(within(form).getByRole('button', { name: 'Save quick change' }));
+
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(2));
+    const body = outbox.getSnapshot()[1]!.body as { label: string; changes: unknown[] };
+    expect(body.changes).toEqual([{ field: 'damperClicks', corners: ['lr', 'rr'], value: 1 }]);
+    expect(body.label).toBe('Quick change: rear clicks = 1 click');
+  });
+
   it('when a quick change is made in psi, then its body carries the change in kPa, the device time, a client id, and the next run shows the new setup', async () => {
     const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES, extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });

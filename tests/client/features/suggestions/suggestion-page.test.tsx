@@ -41,6 +41,21 @@ describe('a suggestion', () => {
     expect(within(grid).getByRole('group', { name: 'Left rear' }).textContent).toContain('unchanged');
   });
 
+  it('when it changes clicks by one, then the change reads in the singular ("+1 click"), and by more in the plural', async () => {
+    stub(user(), () =>
+      suggestion({
+        changes: [
+          { field: 'damperClicks', corners: ['lr', 'rr'], delta: 1 },
+          { field: 'damperReboundClicks', corners: ['lf', 'rf'], delta: -2 },
+        ],
+        preview: [],
+      }),
+    );
+    renderApp(PAGE);
+    expect(await screen.findByText('Rear pair bump clicks: change by +1 click')).toBeTruthy();
+    expect(screen.getByText('Front pair rebound clicks: change by −2 clicks')).toBeTruthy();
+  });
+
   it('when a driver accepts it with a time and a label, then the server gets a device-made setup id, and the new setup is one tap away', async () => {
     let current = suggestion();
     const fetchMock = stub(user(), () => current, {
