@@ -35,6 +35,8 @@ interface ResolvedTarget {
   carId: string;
   /** The page a driver opens for this record, or how to make it for one driver. */
   driverLink: string | ((driverId: string) => string);
+  /** The shop's page for the car with this thread open, when the page shows it. */
+  staffLink?: string;
   /** "run 3 at Harbour Lot Sprint" */
   description: string;
   /** A work-order thread: the visit's shop, which its staff sign with even after the car's grant is withdrawn. */
@@ -47,6 +49,10 @@ interface ResolvedTarget {
  */
 const eventBoardFor = (eventId: string, carId: string) => (driverId: string) =>
   `/events/${eventId}?carId=${carId}&driverId=${driverId}`;
+
+/** The shop's page for the car, with one thread (a run's, a day's or a setup's) open and, for a run or a day, its event. */
+const customerPageAt = (carId: string, threadId: string, eventId?: string) =>
+  `/shop/customers/${carId}?${eventId ? `event=${eventId}&` : ''}comments=${threadId}`;
 
 /**
  * Finds the target's car and checks the user may `action` it (404 when the record or
@@ -67,6 +73,7 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
       resolved = {
         type: 'run', id: target.id, carId: r.car_id,
         driverLink: eventBoardFor(r.event_id, r.car_id),
+        staffLink: customerPageAt(r.car_id, target.id, r.event_id),
         description: `run ${r.run_number} at ${r.event_name}`,
       };
       break;
@@ -75,7 +82,10 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
       const rows: { car_id: string; label: string }[] = await db.query('SELECT car_id, label FROM setup_snapshots WHERE id = $1', [target.id]);
       const s = rows[0];
       if (!s) throw missing();
-      resolved = { type: 'setup', id: target.id, carId: s.car_id, driverLink: `/cars/${s.car_id}`, description: `the setup "${s.label}"` };
+      resolved = {
+        type: 'setup', id: target.id, carId: s.car_id,
+        driverLink: `/cars/${s.car_id}`, staffLink: customerPageAt(s.car_id, target.id), description: `the setup "${s.label}"`,
+      };
       break;
     }
     case 'tread_reading': {
@@ -116,7 +126,9 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
       if (!e) throw missing();
       resolved = {
         type: 'event', id: target.id, carId: target.carId,
-        driverLink: eventBoardFor(target.id, target.carId), description: e.name,
+        driverLink: eventBoardFor(target.id, target.carId),
+        staffLink: customerPageAt(target.carId, target.id, target.id),
+        description: e.name,
       };
       await checkCar(db, user, resolved, action, missing);
       if (!e.car_ran) {
@@ -235,7 +247,7 @@ export async function createComment(
       commentId: newId!,
       summary: `${actorLabel(user.displayName, shop?.name)} commented on ${target.description}`,
       detail: `“${input.body}”`,
-      recipients: [...driverRecipients(audience, target.driverLink), ...staffRecipients(audience)],
+      recipients: [...driverRecipients(audience, target.driverLink), ...staffRecipients(audience, { link: target.staffLink })],
     });
     return { id: newId!, created: true, outbox };
   });

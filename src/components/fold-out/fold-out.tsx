@@ -1,4 +1,4 @@
-import { Suspense, useId, useState, type ComponentType, type ReactNode } from 'react';
+import { Suspense, useEffect, useId, useRef, useState, type ComponentType, type ReactNode } from 'react';
 import { ChevronDown, ChevronRight } from 'lucide-react';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
 
@@ -13,17 +13,27 @@ interface FoldOutProps {
   loadingText: string;
   failedText: string;
   defaultOpen?: boolean;
+  /** The page was opened for this section (a notification's link): open from the start, and scrolled to once. */
+  revealed?: boolean;
   /** Rendered only once opened, so a long list asks for nothing up front; usually a lazy component. */
   children: ReactNode;
 }
 
 /** A section folded away under its button: comments, photos. Its content loads and renders on first open. */
-export function FoldOut({ icon: Icon, label, what, loadingText, failedText, defaultOpen = false, children }: FoldOutProps) {
-  const [open, setOpen] = useState(defaultOpen);
+export function FoldOut({ icon: Icon, label, what, loadingText, failedText, defaultOpen = false, revealed = false, children }: FoldOutProps) {
+  const [open, setOpen] = useState(defaultOpen || revealed);
   const panelId = useId();
+  const ref = useRef<HTMLDivElement>(null);
+  const scrolled = useRef(false);
+  // Once, to the middle of the screen, so what the section is about (a run's times) shows above it.
+  useEffect(() => {
+    if (!revealed || scrolled.current) return;
+    scrolled.current = true;
+    ref.current?.scrollIntoView?.({ block: 'center' });
+  }, [revealed]);
   const Chevron = open ? ChevronDown : ChevronRight;
   return (
-    <div className="flex flex-col gap-2">
+    <div ref={ref} className="flex flex-col gap-2">
       <button
         type="button"
         aria-expanded={open}

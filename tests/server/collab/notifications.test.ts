@@ -63,7 +63,10 @@ describe('who hears about a comment', () => {
       });
     }
     const forWren = (await notes(wren.c)).items[0]!;
-    expect([forWren.kind, forWren.summary, forWren.link]).toEqual(['comment', summary, `/shop/customers/${driver.carId}`]);
+    // The shop's page for the car with that event's runs out and the run's thread open.
+    expect([forWren.kind, forWren.summary, forWren.link]).toEqual([
+      'comment', summary, `/shop/customers/${driver.carId}?event=${driver.eventId}&comments=${run.id}`,
+    ]);
     expect((await notes(staff.c)).count).toBe(before);
   });
 
@@ -83,9 +86,19 @@ describe('who hears about a comment', () => {
 
     for (const shopStaff of [staff, second.admin]) {
       const list = await notes(shopStaff.c);
-      expect(list.items.slice(0, 2).map((n) => n.link)).toEqual([`/shop/customers/${driver.carId}`, `/shop/customers/${driver.carId}`]);
+      // Newest first: the tread reading's (the shop's page does not show tread), then the setup's, its thread open.
+      expect(list.items.slice(0, 2).map((n) => n.link)).toEqual([`/shop/customers/${driver.carId}`, `/shop/customers/${driver.carId}?comments=${setup.id}`]);
     }
     expect((await notes(driver.c)).count).toBe(0);
+  });
+
+  it('when the owner comments on the day at an event, then the co-driver is sent to its board and the shop to that event with the day\'s thread open', async () => {
+    const { driver, co, staff } = await crew();
+    await postRun(driver.c, driver.carId, driver.eventId);
+    const res = await driver.c.post('/api/comments', { target: { type: 'event', id: driver.eventId, carId: driver.carId }, body: 'Wet until noon.' });
+    expect(res.status).toBe(201);
+    expect((await notes(co.c)).items[0]!.link).toBe(`/events/${driver.eventId}?carId=${driver.carId}&driverId=${co.user.id}`);
+    expect((await notes(staff.c)).items[0]!.link).toBe(`/shop/customers/${driver.carId}?event=${driver.eventId}&comments=${driver.eventId}`);
   });
 
   it('when a person both drives the car and works at its shop, then they get one notification, with the driver\'s link', async () => {
@@ -216,7 +229,7 @@ describe('notification e-mails', () => {
     expect(message.html).toContain('because you drive Blue roadster');
 
     const toWren = mailTo(wren.email).find((m) => m.subject === 'New comment on Blue roadster')!;
-    expect(toWren.text).toContain(`http://scrubline.test/shop/customers/${driver.carId}`);
+    expect(toWren.text).toContain(`http://scrubline.test/shop/customers/${driver.carId}?event=${driver.eventId}&comments=${run.id}`);
     expect(toWren.text).toContain(`because ${SHOP_NAME} looks after Blue roadster`);
     expect(mailTo(staff.email).filter((m) => m.subject === 'New comment on Blue roadster')).toEqual([]);
   });

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { ChartScatter, ChevronDown, ChevronRight } from 'lucide-react';
 import type { SeasonResult } from '@shared/analysis/analysis.schema';
 import { formatRunTime } from '@shared/season/run-time';
@@ -24,14 +24,23 @@ import { OpenWorkOrderForm } from '@/features/work-orders/components/work-order-
 
 type SeasonEventRow = SeasonResult['events'][number];
 
+/**
+ * The thread the page was opened for (a notification's link): `?event=…&comments=…` for a run's or a day's,
+ * whose event then starts with its runs out; `?comments=…` for a setup's.
+ */
+function useThreadInAddress() {
+  const [params] = useSearchParams();
+  return { eventId: params.get('event'), threadId: params.get('comments') };
+}
+
 /** One event's runs for this car, read-only, each with its thread; and the thread on the car's day. */
-function EventRuns({ carId, event }: { carId: string; event: SeasonEventRow }) {
+function EventRuns({ carId, event, threadId }: { carId: string; event: SeasonEventRow; threadId: string | null }) {
   const { data, isPending, isError } = useRuns({ carId, eventId: event.eventId });
   const { data: setups } = useSetups(carId);
   const labelOf = (setupId: string | null) => setups?.items.find((s) => s.id === setupId)?.label ?? 'none recorded';
   return (
     <div className="flex flex-col gap-3 pt-2">
-      <CommentToggle target={{ type: 'event', id: event.eventId, carId }} what={`the day at ${event.name}`} />
+      <CommentToggle target={{ type: 'event', id: event.eventId, carId }} what={`the day at ${event.name}`} revealed={threadId === event.eventId} />
       <AttachmentToggle target={{ targetType: 'event', targetId: event.eventId }} what={event.name} />
       {isPending ? (
         <p className="text-ink-muted">Loading runs…</p>
@@ -57,7 +66,12 @@ function EventRuns({ carId, event }: { carId: string; event: SeasonEventRow }) {
               </p>
               <p className="text-sm text-ink-muted">Setup: {labelOf(run.setupId)}</p>
               {run.notes ? <p className="text-sm">{run.notes}</p> : null}
-              <CommentToggle target={{ type: 'run', id: run.id }} what={`run ${run.runNumber}`} count={run.commentCount} />
+              <CommentToggle
+                target={{ type: 'run', id: run.id }}
+                what={`run ${run.runNumber}`}
+                count={run.commentCount}
+                revealed={threadId === run.id}
+              />
               <AttachmentToggle target={{ targetType: 'run', targetId: run.id }} what={`run ${run.runNumber}`} />
             </li>
           ))}
@@ -67,8 +81,8 @@ function EventRuns({ carId, event }: { carId: string; event: SeasonEventRow }) {
   );
 }
 
-function EventItem({ carId, event }: { carId: string; event: SeasonEventRow }) {
-  const [open, setOpen] = useState(false);
+function EventItem({ carId, event, threadId = null }: { carId: string; event: SeasonEventRow; threadId?: string | null }) {
+  const [open, setOpen] = useState(threadId !== null);
   const Chevron = open ? ChevronDown : ChevronRight;
   return (
     <li className="flex flex-col gap-1 rounded border border-line p-3">
@@ -93,20 +107,21 @@ function EventItem({ carId, event }: { carId: string; event: SeasonEventRow }) {
       >
         <Chevron aria-hidden="true" className="size-4" /> Runs and comments
       </button>
-      {open ? <EventRuns carId={carId} event={event} /> : null}
+      {open ? <EventRuns carId={carId} event={event} threadId={threadId} /> : null}
     </li>
   );
 }
 
 function Events({ carId }: { carId: string }) {
   const { data, isPending, isError } = useSeason(carId, DEFAULT_MIN_DEPTH_MM);
+  const wanted = useThreadInAddress();
   if (isPending) return <p className="text-ink-muted">Loading the season…</p>;
   if (isError) return <EmptyState message="The season could not be loaded. Try again shortly." />;
   if (data.events.length === 0) return <EmptyState message="No events with runs yet this season." />;
   return (
     <ol className="flex flex-col gap-3" aria-label="Events, newest first">
       {[...data.events].reverse().map((event) => (
-        <EventItem key={event.eventId} carId={carId} event={event} />
+        <EventItem key={event.eventId} carId={carId} event={event} threadId={event.eventId === wanted.eventId ? wanted.threadId : null} />
       ))}
     </ol>
   );
@@ -114,6 +129,7 @@ function Events({ carId }: { carId: string }) {
 
 function Setups({ carId }: { carId: string }) {
   const { data, isPending, isError } = useSetups(carId);
+  const { eventId, threadId } = useThreadInAddress();
   if (isPending) return <p className="text-ink-muted">Loading the setup history…</p>;
   if (isError) return <p className="text-ink-muted">The setup history could not be loaded. Try again shortly.</p>;
   return (
@@ -127,7 +143,7 @@ function Setups({ carId }: { carId: string }) {
             Suggest a change
           </Link>
           <AttachmentToggle target={{ targetType: 'setup', targetId: setup.id }} what={`“${setup.label}”`} />
-          <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} />
+          <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} revealed={!eventId && threadId === setup.id} />
         </>
       )}
     />

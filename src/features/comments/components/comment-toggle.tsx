@@ -12,12 +12,15 @@ interface CommentToggleProps {
   what: string;
   /** How many comments the thread holds, when the list already knows. */
   count?: number;
+  /** The page was opened for this thread: it is open and scrolled to. */
+  revealed?: boolean;
 }
 
 /** A thread folded away under its button; fetched only when opened, so a long list asks for nothing up front. */
-export function CommentToggle({ target, what, count }: CommentToggleProps) {
+export function CommentToggle({ target, what, count, revealed }: CommentToggleProps) {
   return (
     <FoldOut
+      revealed={revealed}
       icon={MessageSquare}
       label={`Comments${count !== undefined ? ` (${count})` : ''}`}
       what={what}

@@ -1,11 +1,11 @@
 // @vitest-environment jsdom
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { SeasonResult } from '../../../../shared/analysis/analysis.schema';
 import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, EVENT, IDS, list, RUNS_URL, savedRun } from '../../fixtures/season';
-import { staffUser, suggestion } from '../../fixtures/collab';
+import { comment, staffUser, suggestion } from '../../fixtures/collab';
 
 const PAGE = `/shop/customers/${IDS.car}`;
 
@@ -74,5 +74,50 @@ describe('a customer’s car, for the shop', () => {
 
     await u.click(within(first!).getByRole('button', { name: 'Comments (1) on run 1' }));
     await waitFor(() => expect(requestsTo(fetchMock, `GET /api/comments?type=run&id=${IDS.run1}`).length).toBeGreaterThan(0));
+  });
+});
+
+describe('the customer page opened for one thread (a notification\'s link)', () => {
+  afterEach(() => {
+    vi.restoreAllMocks();
+  });
+  const scrolls = () => vi.spyOn(Element.prototype, 'scrollIntoView').mockImplementation(() => {});
+  // jsdom draws nothing, so it has no scrollIntoView of its own to spy on.
+  Element.prototype.scrollIntoView ??= () => {};
+
+  it('when it names a run at an event, then that event\'s runs are out and the run\'s thread is open, read and scrolled to', async () => {
+    const scrolled = scrolls();
+    stubCustomer({
+      [`GET /api/comments?type=run&id=${IDS.run1}`]: list([comment({ id: IDS.run2, body: 'Fronts still going off on the outer shoulder.' })]),
+    });
+    renderApp(`${PAGE}?event=${IDS.event}&comments=${IDS.run1}`);
+
+    const runs = await screen.findByRole('list', { name: `Runs at ${EVENT.name}` });
+    const [first, second] = within(runs).getAllByRole('listitem');
+    expect(within(first!).getByRole('button', { name: 'Comments (1) on run 1' }).getAttribute('aria-expanded')).toBe('true');
+    expect(await within(first!).findByText('Fronts still going off on the outer shoulder.')).toBeTruthy();
+    // Only that run's: the others and the day's stay folded.
+    expect(within(second!).getByRole('button', { name: /^Comments.* on run 2$/ }).getAttribute('aria-expanded')).toBe('false');
+    expect(screen.getByRole('button', { name: `Comments on the day at ${EVENT.name}` }).getAttribute('aria-expanded')).toBe('false');
+    expect(scrolled).toHaveBeenCalledTimes(1);
+    expect(scrolled.mock.contexts[0]).toBe(within(first!).getByRole('button', { name: 'Comments (1) on run 1' }).parentElement);
+  });
+
+  it('when it names the day at an event, then the day\'s thread is open; when it names a setup, that setup\'s thread is', async () => {
+    scrolls();
+    stubCustomer({
+      [`GET /api/comments?type=event&id=${IDS.event}&carId=${IDS.car}`]: list([]),
+      [`GET /api/comments?type=setup&id=${IDS.setupBase}`]: list([]),
+    });
+    const day = renderApp(`${PAGE}?event=${IDS.event}&comments=${IDS.event}`);
+    const dayThread = await screen.findByRole('button', { name: `Comments on the day at ${EVENT.name}` });
+    expect(dayThread.getAttribute('aria-expanded')).toBe('true');
+    day.unmount();
+
+    renderApp(`${PAGE}?comments=${IDS.setupBase}`);
+    const history = await screen.findByRole('list', { name: 'Setup history, newest first' });
+    expect(within(history).getByRole('button', { name: 'Comments on “Spring baseline”' }).getAttribute('aria-expanded')).toBe('true');
+    // No event named: every event stays folded.
+    expect(screen.getByRole('button', { name: 'Runs and comments' }).getAttribute('aria-expanded')).toBe('false');
   });
 });
