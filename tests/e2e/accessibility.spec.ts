@@ -210,3 +210,61 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
     expect((await postElsewhere('/api/auth/login', { email, password: 'long-enough-to-leave-with' })).status).toBe(401);
   });
 });
+
+/**
+ * WCAG 2.2 SC 1.4.10 Reflow: at 320 CSS px wide nothing needs scrolling sideways, except content that needs two
+ * dimensions to be read (the class board's table, which scrolls inside its own box). And the bottom bar's tabs keep
+ * their words on one line, so no icon is pushed out of line with the others.
+ */
+describe('reflow at 320 CSS px wide, the narrowest phone in common use', () => {
+  /** For each page, how far it scrolls sideways and whether the bottom bar's tabs are all one height. */
+  async function reflow(page: Page, paths: [name: string, path: string][]): Promise<string[]> {
+    await page.setViewportSize({ width: 320, height: 640 });
+    const found: string[] = [];
+    for (const [name, path] of paths) {
+      await page.goto(`${baseUrl}${path}`);
+      await page.locator('main h1').first().waitFor({ timeout: 20_000 });
+      await page.waitForLoadState('networkidle');
+      const { sideways, tabHeights, tabsSpilling } = await page.evaluate(() => {
+        // The bar drawn at this width (the one along the top is hidden on phones).
+        const tabs = [...document.querySelectorAll('nav[aria-label="Main"] a')].filter((a) => a.getBoundingClientRect().height > 0);
+        return {
+          sideways: document.documentElement.scrollWidth - document.documentElement.clientWidth,
+          tabHeights: tabs.map((a) => Math.round(a.getBoundingClientRect().height)),
+          tabsSpilling: tabs.filter((a) => a.scrollWidth > a.clientWidth).map((a) => a.textContent),
+        };
+      });
+      if (sideways > 0) found.push(`${name}: scrolls ${sideways} px sideways`);
+      if (new Set(tabHeights).size > 1) found.push(`${name}: bottom bar tabs of heights ${tabHeights.join(', ')}`);
+      if (tabsSpilling.length) found.push(`${name}: tab words wider than their tab: ${tabsSpilling.join(', ')}`);
+    }
+    return found;
+  }
+
+  it('when the driver, the shop and the captain go through their screens, then none scrolls sideways and the bottom bar stays level', async () => {
+    let page = await signInAs('maren@example.com', 'Maren Holloway');
+    const cars = (await page.evaluate(async () => (await fetch('/api/cars')).json())) as { items: { id: string; name: string }[] };
+    const carId = cars.items.find((c) => c.name === 'Pebble')!.id;
+    const eventId = await firstId(page, '/api/events');
+    const me = ((await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { user: { id: string } }).user.id;
+    const found = await reflow(page, [
+      ['home', '/'],
+      ['events', '/events'],
+      ['event day', `/events/${eventId}?carId=${carId}&driverId=${me}`],
+      ['car', `/cars/${carId}`],
+      ['new setup', `/cars/${carId}/setups/new`],
+      ['tread', `/cars/${carId}/tread`],
+      ['season review', `/cars/${carId}/review`],
+      ['calculators', '/calculators'],
+      ['settings', '/settings'],
+    ]);
+
+    page = await signInAs('dusty@example.com', 'Dusty Okonjo');
+    found.push(...(await reflow(page, [['shop', '/shop'], ['customer', `/shop/customers/${carId}`]])));
+
+    page = await signInAs('ines@example.com', 'Ines Brandvold');
+    const teamId = await firstId(page, '/api/teams/mine');
+    found.push(...(await reflow(page, [['team', `/teams/${teamId}`], ['class board', `/teams/${teamId}/board`]])));
+    expect(found).toEqual([]);
+  });
+});

@@ -22,7 +22,8 @@ export function BottomNav({ items }: { items: readonly NavItem[] }) {
               }}
             >
               <Icon aria-hidden="true" className="size-6" />
-              {label}
+              {/* One line each, a little smaller on the narrowest phones (320 px), so the icons stay level. */}
+              <span className="text-[min(0.875rem,3.6vw)] whitespace-nowrap">{label}</span>
             </NavLink>
           </li>
         ))}

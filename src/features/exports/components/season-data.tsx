@@ -98,7 +98,7 @@ export function SeasonData({ carId, onImported }: SeasonDataProps) {
           aria-describedby={hintId}
           disabled={importing.isPending}
           onChange={(e) => void onFile(e)}
-          className="min-h-tap text-sm file:mr-3 file:min-h-tap file:rounded file:border file:border-line-strong file:bg-surface file:px-4 file:font-bold"
+          className="min-h-tap w-full min-w-0 text-sm file:mr-3 file:min-h-tap file:rounded file:border file:border-line-strong file:bg-surface file:px-4 file:font-bold"
         />
         <p id={hintId} className="text-sm text-ink-muted">
           {importing.isPending ? 'Bringing the car in…' : 'The file becomes a new car of yours, with its own copy of every record.'}
