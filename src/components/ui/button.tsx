@@ -10,10 +10,16 @@ const VARIANTS: Record<Variant, string> = {
 };
 
 const BUTTON_BASE =
-  'inline-flex min-h-tap items-center justify-center gap-2 rounded px-5 font-bold select-none disabled:cursor-not-allowed disabled:opacity-60';
+  'inline-flex min-h-tap items-center justify-center rounded font-bold select-none disabled:cursor-not-allowed disabled:opacity-60';
+
+/**
+ * The base's padding and gap give way to the caller's: of two classes setting one property, the stylesheet's
+ * order decides, not the class list's, so `px-5 px-3` would keep 5.
+ */
+const unless = (className: string | undefined, prefix: string, base: string) => (className?.split(' ').some((c) => c.startsWith(prefix)) ? null : base);
 
 export function buttonClasses(variant: Variant = 'primary', className?: string): string {
-  return cn(BUTTON_BASE, VARIANTS[variant], className);
+  return cn(BUTTON_BASE, unless(className, 'px-', 'px-5'), unless(className, 'gap-', 'gap-2'), VARIANTS[variant], className);
 }
 
 type ButtonProps = ComponentProps<'button'> & {
