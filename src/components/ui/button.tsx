@@ -16,7 +16,7 @@ const BUTTON_BASE =
  * The base's padding and gap give way to the caller's: of two classes setting one property, the stylesheet's
  * order decides, not the class list's, so `px-5 px-3` would keep 5.
  */
-const unless = (className: string | undefined, prefix: string, base: string) => (className?.split(' ').some((c) => c.startsWith(prefix)) ? null : base);
+const unless = (className = '', prefix: string, base: string) => (` ${className}`.includes(` ${prefix}`) ? null : base);
 
 export function buttonClasses(variant: Variant = 'primary', className?: string): string {
   return cn(BUTTON_BASE, unless(className, 'px-', 'px-5'), unless(className, 'gap-', 'gap-2'), VARIANTS[variant], className);

@@ -1,6 +1,6 @@
 import { useEffect, type ReactNode } from 'react';
 import { Link, useLocation } from 'react-router-dom';
-import { Lightbulb, Wrench } from 'lucide-react';
+import { ChevronRight, Lightbulb, Wrench } from 'lucide-react';
 import { diffSetups } from '@shared/season/setup-diff';
 import { pathTo } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
@@ -123,7 +123,11 @@ export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }:
             {setup.notes ? <p className="text-sm">{setup.notes}</p> : null}
             <PendingProblem setup={setup} carId={carId} />
             <details className="group">
-              <summary className="inline-flex min-h-tap cursor-pointer items-center font-semibold text-link">All values</summary>
+              {/* A chevron like the other fold-outs' (Comments, Photos and files), turned down while open. */}
+              <summary className="inline-flex min-h-tap cursor-pointer items-center gap-1 font-semibold text-link">
+                <ChevronRight aria-hidden="true" className="size-4 group-open:rotate-90" />
+                All values
+              </summary>
               <div className="pt-2">
                 <SetupValues setup={setup} />
               </div>
