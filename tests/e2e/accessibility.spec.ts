@@ -67,6 +67,15 @@ async function auditAll(page: Page, paths: [name: string, path: string][]): Prom
 
 const firstId = async (page: Page, url: string) => ((await page.evaluate(async (u) => (await fetch(u)).json(), url)) as { items: { id: string }[] }).items[0]!.id;
 
+/** The demo driver's car (Pebble) and the newest event, with its board as she drives it, read as the signed-in driver. */
+async function driverRecords(page: Page) {
+  const cars = (await page.evaluate(async () => (await fetch('/api/cars')).json())) as { items: { id: string; name: string }[] };
+  const carId = cars.items.find((c) => c.name === 'Pebble')!.id;
+  const eventId = await firstId(page, '/api/events');
+  const me = ((await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { user: { id: string } }).user.id;
+  return { carId, board: `/events/${eventId}?carId=${carId}&driverId=${me}` };
+}
+
 describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen at 390×844', () => {
   it('when someone not signed in opens the sign-in, registration and password-reset screens, then none breaks a rule', async () => {
     const page = await phones.fresh();
@@ -85,11 +94,7 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
 
   it('when the driver goes through their screens, then none breaks a rule', async () => {
     const page = await signInAs('maren@example.com', 'Maren Holloway');
-    const cars = (await page.evaluate(async () => (await fetch('/api/cars')).json())) as { items: { id: string; name: string }[] };
-    const carId = cars.items.find((c) => c.name === 'Pebble')!.id;
-    const eventId = await firstId(page, '/api/events');
-    const me = ((await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { user: { id: string } }).user.id;
-    const board = `/events/${eventId}?carId=${carId}&driverId=${me}`;
+    const { carId, board } = await driverRecords(page);
     const found = await auditAll(page, [
       ['home', '/'],
       ['events', '/events'],
@@ -125,13 +130,10 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
     const page = await signInAs('maren@example.com', 'Maren Holloway');
     await page.emulateMedia({ colorScheme: 'dark' });
     expect(await page.evaluate(() => matchMedia('(prefers-color-scheme: dark)').matches)).toBe(true);
-    const cars = (await page.evaluate(async () => (await fetch('/api/cars')).json())) as { items: { id: string; name: string }[] };
-    const carId = cars.items.find((c) => c.name === 'Pebble')!.id;
-    const me = ((await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { user: { id: string } }).user.id;
-    const eventId = await firstId(page, '/api/events');
+    const { carId, board } = await driverRecords(page);
     const found = await auditAll(page, [
       ['home, dark', '/'],
-      ['event day, dark', `/events/${eventId}?carId=${carId}&driverId=${me}`],
+      ['event day, dark', board],
       ['car, dark', `/cars/${carId}`],
       ['tread, dark', `/cars/${carId}/tread`],
       ['season review, dark', `/cars/${carId}/review`],
@@ -243,14 +245,11 @@ describe('reflow at 320 CSS px wide, the narrowest phone in common use', () => {
 
   it('when the driver, the shop and the captain go through their screens, then none scrolls sideways and the bottom bar stays level', async () => {
     let page = await signInAs('maren@example.com', 'Maren Holloway');
-    const cars = (await page.evaluate(async () => (await fetch('/api/cars')).json())) as { items: { id: string; name: string }[] };
-    const carId = cars.items.find((c) => c.name === 'Pebble')!.id;
-    const eventId = await firstId(page, '/api/events');
-    const me = ((await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { user: { id: string } }).user.id;
+    const { carId, board } = await driverRecords(page);
     const found = await reflow(page, [
       ['home', '/'],
       ['events', '/events'],
-      ['event day', `/events/${eventId}?carId=${carId}&driverId=${me}`],
+      ['event day', board],
       ['car', `/cars/${carId}`],
       ['new setup', `/cars/${carId}/setups/new`],
       ['tread', `/cars/${carId}/tread`],
