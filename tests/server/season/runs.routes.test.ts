@@ -105,6 +105,13 @@ describe('POST /api/runs', () => {
     expect(await runsOf(d.carId)).toBe(0);
   });
 
+  it('when a field has no message of its own, then its error says the limit in plain words', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const errors = expectFieldErrors(await post(d, { runNumber: 1000, notes: 'x'.repeat(2001) }), ['runNumber', 'notes']);
+    expect(errors).toEqual({ runNumber: ['At most 999'], notes: ['At most 2000 characters'] });
+    expect(await runsOf(d.carId)).toBe(0);
+  });
+
   it('when a field is unknown, at the top or in the hot pressures, then 400 "Unknown field"', async () => {
     const d = await driverWithCarAndEvent(t);
     const errors = expectFieldErrors(await post(d, { setupId: randomUUID(), hotPressuresKpa: { lf: 250, spare: 200 } }), [
