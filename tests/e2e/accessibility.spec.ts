@@ -76,6 +76,21 @@ async function driverRecords(page: Page) {
   return { carId, board: `/events/${eventId}?carId=${carId}&driverId=${me}` };
 }
 
+/** The screens a driver goes through most, for the checks every driver's screen has to pass. */
+function driverMainScreens({ carId, board }: { carId: string; board: string }): [name: string, path: string][] {
+  return [
+    ['home', '/'],
+    ['events', '/events'],
+    ['event day', board],
+    ['car', `/cars/${carId}`],
+    ['new setup', `/cars/${carId}/setups/new`],
+    ['tread', `/cars/${carId}/tread`],
+    ['season review', `/cars/${carId}/review`],
+    ['calculators', '/calculators'],
+    ['settings', '/settings'],
+  ];
+}
+
 describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen at 390×844', () => {
   it('when someone not signed in opens the sign-in, registration and password-reset screens, then none breaks a rule', async () => {
     const page = await phones.fresh();
@@ -94,18 +109,11 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
 
   it('when the driver goes through their screens, then none breaks a rule', async () => {
     const page = await signInAs('maren@example.com', 'Maren Holloway');
-    const { carId, board } = await driverRecords(page);
+    const records = await driverRecords(page);
+    const { carId, board } = records;
     const found = await auditAll(page, [
-      ['home', '/'],
-      ['events', '/events'],
-      ['event day', board],
-      ['car', `/cars/${carId}`],
-      ['new setup', `/cars/${carId}/setups/new`],
-      ['tread', `/cars/${carId}/tread`],
-      ['season review', `/cars/${carId}/review`],
-      ['calculators', '/calculators'],
+      ...driverMainScreens(records),
       ['notifications', '/notifications'],
-      ['settings', '/settings'],
       ['teams', '/teams'],
       ['import results', `/cars/${carId}/import`],
       ['setup sheet', `/setups/${await firstId(page, `/api/cars/${carId}/setups`)}/sheet`],
@@ -245,18 +253,9 @@ describe('reflow at 320 CSS px wide, the narrowest phone in common use', () => {
 
   it('when the driver, the shop and the captain go through their screens, then none scrolls sideways and the bottom bar stays level', async () => {
     let page = await signInAs('maren@example.com', 'Maren Holloway');
-    const { carId, board } = await driverRecords(page);
-    const found = await reflow(page, [
-      ['home', '/'],
-      ['events', '/events'],
-      ['event day', board],
-      ['car', `/cars/${carId}`],
-      ['new setup', `/cars/${carId}/setups/new`],
-      ['tread', `/cars/${carId}/tread`],
-      ['season review', `/cars/${carId}/review`],
-      ['calculators', '/calculators'],
-      ['settings', '/settings'],
-    ]);
+    const records = await driverRecords(page);
+    const { carId } = records;
+    const found = await reflow(page, driverMainScreens(records));
 
     page = await signInAs('dusty@example.com', 'Dusty Okonjo');
     found.push(...(await reflow(page, [['shop', '/shop'], ['customer', `/shop/customers/${carId}`]])));
