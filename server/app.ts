@@ -13,7 +13,7 @@ import { csrfSync } from 'csrf-sync';
 import type { Logger } from 'pino';
 import { logger } from './lib/logger';
 import { apiNotFound, errorHandler } from './lib/error-handler';
-import { pagePreloader } from './lib/page-preload';
+import { pagePreloader, pageReadTags } from './lib/page-preload';
 import { absoluteTimeout, sessionMiddleware, type SessionSettings } from './auth/session';
 import { createPassport } from './auth/passport';
 import { createAuthRateLimits, DEFAULT_AUTH_LIMITS, type AuthLimits } from './auth/rate-limit';
@@ -222,12 +222,16 @@ export function createApp(opts: AppOptions) {
       }),
     );
     // index.html is the only page; it carries the response's style nonce for the client to use.
-    // It also names the chunks of the page asked for, so they come beside the main chunk.
+    // It also names the chunks of the page asked for, so they come beside the main chunk, and the API reads
+    // the page makes first, so they go out while the scripts download.
     const indexHtml = readFileSync(join(clientDir, 'index.html'), 'utf8');
     const preloads = pagePreloader(clientDir);
     app.get('/{*splat}', (req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
-      const html = indexHtml.replace(CSP_NONCE_PLACEHOLDER, res.locals.cspNonce as string).replace('</head>', `${preloads(req.path)}</head>`);
+      const search = new URL(req.originalUrl, 'http://localhost').searchParams;
+      const html = indexHtml
+        .replace(CSP_NONCE_PLACEHOLDER, res.locals.cspNonce as string)
+        .replace('</head>', `${preloads(req.path)}${pageReadTags(req.path, search)}</head>`);
       res.type('html').send(html);
     });
   }

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openPhone, screenshot } from './browser';
+import { openBrowser, openPhone, screenshot, signIn } from './browser';
 
 let phone: Awaited<ReturnType<typeof openPhone>>;
 let page: Page;
@@ -102,6 +102,31 @@ describe('trackside on a phone (390×844)', () => {
     const drawnWith = fetched.filter((p) => /\/(app|rolldown-runtime|event-day|trackside|ui)-/.test(p));
     expect(drawnWith.length).toBeGreaterThanOrEqual(5);
     for (const p of drawnWith) expect(named, p).toContain(p);
+  });
+
+  it('when the page is opened from the server, then its event, setups and runs are asked for by the document, once each, and the page uses those answers', async () => {
+    // A phone with no service worker, so the document comes from the server each time (as on a first visit).
+    const own = await openBrowser('phone', { serviceWorkers: 'block' });
+    try {
+      await signIn(own.page, baseUrl, 'maren@example.com', 'Maren Holloway');
+      const me = await own.page.evaluate(async () => ((await (await fetch('/api/auth/me')).json()) as { user: { id: string } }).user.id);
+      const cdp = await own.context.newCDPSession(own.page);
+      await cdp.send('Network.enable');
+      const asked: { path: string; by: string }[] = [];
+      cdp.on('Network.requestWillBeSent', (e) => {
+        const url = new URL(e.request.url);
+        if (url.pathname.startsWith('/api/')) asked.push({ path: url.pathname + url.search, by: e.initiator.type });
+      });
+      await own.page.goto(`${baseUrl}/events/${eventId}?carId=${carId}&driverId=${me}`);
+      await own.page.getByRole('group', { name: 'Time keypad' }).waitFor();
+      await own.page.getByText('No runs yet').waitFor();
+      const reads = [`/api/events/${eventId}`, `/api/cars/${carId}/setups`, `/api/runs?carId=${carId}&eventId=${eventId}`];
+      // "parser": named in the document; a second request of the same address would mean the page's own fetch
+      // did not take the answer already on its way.
+      for (const path of reads) expect(asked.filter((a) => a.path === path), path).toEqual([{ path, by: 'parser' }]);
+    } finally {
+      await own.close();
+    }
   });
 
   it('when the driver logs a clean run, a run with 2 cones and a DNF, then adjusted times and the best show on screen', async () => {

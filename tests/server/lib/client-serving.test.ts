@@ -16,6 +16,9 @@ const MANIFEST = {
   '_ui-e.js': { file: 'assets/ui-e.js' },
 };
 const APP_JS = Buffer.from(`export const app = ${JSON.stringify('scrubline '.repeat(400))};\n`);
+/** The API reads a document names, with its `&amp;` read back as the browser reads it. */
+const readsIn = (html: string) =>
+  [...html.matchAll(/<link rel="preload" as="fetch" crossorigin href="([^"]+)">/g)].map((m) => m[1]!.replaceAll('&amp;', '&'));
 const preloadsIn = (html: string) => [...html.matchAll(/<link rel="modulepreload" crossorigin href="([^"]+)">/g)].map((m) => m[1]);
 
 let t: TestApp;
@@ -71,6 +74,33 @@ describe('serving the client', () => {
     const res = await request(app).get('/events/some-day?carId=x');
     expect(preloadsIn(res.text).sort()).toEqual(['/assets/event-day-c.js', '/assets/trackside-d.js', '/assets/ui-e.js']);
     expect(res.text.indexOf('modulepreload')).toBeLessThan(res.text.indexOf('</head>'));
+  });
+
+  it('when the trackside page is opened with its car, then its document names the reads the page makes first, at the addresses the client asks for', async () => {
+    const eventId = '2fbc14dd-8584-48aa-b5b5-cc414c6101e8';
+    const carId = '0953b2ca-f177-4ae5-9077-4787850bcc56';
+    const res = await request(app).get(`/events/${eventId}?carId=${carId}&driverId=someone`);
+    expect(readsIn(res.text)).toEqual([
+      '/api/auth/me',
+      '/api/cars',
+      `/api/events/${eventId}`,
+      `/api/cars/${carId}/setups`,
+      // The query as the client writes it (URLSearchParams of { carId, eventId }), or the browser would ask again.
+      `/api/runs?${new URLSearchParams({ carId, eventId }).toString()}`,
+    ]);
+    expect(res.text.indexOf('as="fetch"')).toBeLessThan(res.text.indexOf('</head>'));
+    // Without the car in the address, the car is the one the phone remembers: only the event is named.
+    expect(readsIn((await request(app).get(`/events/${eventId}`)).text)).toEqual(['/api/auth/me', '/api/cars', `/api/events/${eventId}`]);
+  });
+
+  it('when the address holds something other than ids, then none of it reaches the document', async () => {
+    const res = await request(app).get('/events/%22%3E%3Cscript%3E?carId=%22%3E%3Cimg%20src%3Dx%3E');
+    expect(readsIn(res.text)).toEqual(['/api/auth/me']);
+    expect(res.text).not.toContain('<script>');
+    expect(res.text).not.toContain('<img');
+    const car = await request(app).get('/events/2fbc14dd-8584-48aa-b5b5-cc414c6101e8?carId=x');
+    expect(readsIn(car.text)).toEqual(['/api/auth/me', '/api/cars', '/api/events/2fbc14dd-8584-48aa-b5b5-cc414c6101e8']);
+    expect(readsIn((await request(app).get('/settings')).text)).toEqual(['/api/auth/me']);
   });
 
   it('when a page of no listed chunk is opened, then the document names none', async () => {
