@@ -5,7 +5,7 @@ import type { LucideIcon } from 'lucide-react';
 import type * as z from '@shared/zod';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { TextField } from '@/components/ui/text-field';
+import { EMAIL_INPUT, TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 
@@ -85,12 +85,8 @@ export function EmailInviteForm<TInput extends { email: string }, TResult>({
       <TextField
         label={emailLabel}
         hint={emailHint}
-        type="email"
-        inputMode="email"
+        {...EMAIL_INPUT}
         autoComplete="off"
-        autoCapitalize="none"
-        autoCorrect="off"
-        spellCheck={false}
         error={formState.errors.email?.message}
         {...register('email', { onChange: () => setDone(null) })}
       />

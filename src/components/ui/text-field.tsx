@@ -13,6 +13,12 @@ type TextFieldProps = Omit<ComponentProps<'input'>, 'id'> & {
 const INPUT_CLASSES =
   'min-h-tap w-full rounded border border-line-strong bg-surface px-3 text-base text-ink placeholder:text-ink-muted aria-[invalid=true]:border-warning aria-[invalid=true]:border-2';
 
+/**
+ * What every e-mail address field takes: the phone's keyboard with @ on it, and no capital letter, correction
+ * or spelling marks put on an address. Spread into a `TextField`, with its own `autoComplete`.
+ */
+export const EMAIL_INPUT = { type: 'email', inputMode: 'email', autoCapitalize: 'none', autoCorrect: 'off', spellCheck: false } as const;
+
 /** A labelled input whose hint and error are announced with it (aria-describedby). */
 export function TextField({ label, hint, error, trailing, className, ...inputProps }: TextFieldProps) {
   const id = useId();

@@ -6,7 +6,7 @@ import { changeEmailInputSchema, EMAIL_LINK_PARAM, type ChangeEmailInput } from 
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';
-import { TextField } from '@/components/ui/text-field';
+import { EMAIL_INPUT, TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/dates';
 import { applyServerErrors } from '@/lib/form-errors';
@@ -41,8 +41,7 @@ function ChangeEmailForm({ email, onSent, onCancel }: { email: string; onSent: (
       <input type="text" name="username" autoComplete="username" value={email} readOnly hidden />
       <TextField
         label="New address"
-        type="email"
-        inputMode="email"
+        {...EMAIL_INPUT}
         autoComplete="email"
         hint="We send a link to it. Your address changes when you open the link, signed in; until then you sign in with the old one."
         error={formState.errors.newEmail?.message}

@@ -10,7 +10,7 @@ import {
 } from '@shared/collab/invitation.schema';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { TextField } from '@/components/ui/text-field';
+import { EMAIL_INPUT, TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useRequestPasswordReset } from '../api/request-password-reset';
@@ -55,12 +55,8 @@ export function ForgotPasswordForm() {
       <TextField
         label="E-mail"
         hint="The address you sign in with."
-        type="email"
-        inputMode="email"
+        {...EMAIL_INPUT}
         autoComplete="email"
-        autoCapitalize="none"
-        autoCorrect="off"
-        spellCheck={false}
         error={formState.errors.email?.message}
         {...register('email')}
       />

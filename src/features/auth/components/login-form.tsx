@@ -7,7 +7,7 @@ import { loginInputSchema, type LoginInput } from '@shared/auth/credentials.sche
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';
-import { TextField } from '@/components/ui/text-field';
+import { EMAIL_INPUT, TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useLogin } from '../api/login';
 
@@ -40,12 +40,8 @@ export function LoginForm({ onSuccess }: { onSuccess: (user: User) => void }) {
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5" aria-label="Sign in">
       <TextField
         label="E-mail"
-        type="email"
-        inputMode="email"
+        {...EMAIL_INPUT}
         autoComplete="email"
-        autoCapitalize="none"
-        autoCorrect="off"
-        spellCheck={false}
         error={errors.email?.message}
         {...register('email')}
       />

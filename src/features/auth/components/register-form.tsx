@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PasswordField } from '@/components/ui/password-field';
 import { PasswordStrength } from '@/components/ui/password-strength';
-import { TextField } from '@/components/ui/text-field';
+import { EMAIL_INPUT, TextField } from '@/components/ui/text-field';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useRegister } from '../api/register';
 
@@ -52,12 +52,8 @@ export function RegisterForm({ onSuccess }: { onSuccess: (user: User) => void })
       />
       <TextField
         label="E-mail"
-        type="email"
-        inputMode="email"
+        {...EMAIL_INPUT}
         autoComplete="email"
-        autoCapitalize="none"
-        autoCorrect="off"
-        spellCheck={false}
         error={errors.email?.message}
         {...register('email')}
       />

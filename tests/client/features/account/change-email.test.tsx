@@ -34,6 +34,18 @@ describe('the sign-in address in settings', () => {
     expect((await (await section()).findByText(/A link was sent to/)).textContent).toMatch(new RegExp(`sent to ${NEW}\\. Open it .* before .*2026`));
   });
 
+  it('when the form opens, then the new address is typed on the e-mail keyboard with no capital, correction or spelling marks put on it', async () => {
+    const { u } = open();
+    await u.click(await (await section()).findByRole('button', { name: 'Change address' }));
+    const field = within(screen.getByRole('form', { name: 'Change sign-in address' })).getByLabelText('New address');
+    expect(field.getAttribute('type')).toBe('email');
+    expect(field.getAttribute('inputmode')).toBe('email');
+    expect(field.getAttribute('autocomplete')).toBe('email');
+    expect(field.getAttribute('autocapitalize')).toBe('none');
+    expect(field.getAttribute('autocorrect')).toBe('off');
+    expect(field.getAttribute('spellcheck')).toBe('false');
+  });
+
   it('when the form is sent empty, then each field says what it needs and nothing is sent', async () => {
     const { fetchMock, u } = open();
     await u.click(await (await section()).findByRole('button', { name: 'Change address' }));
