@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
+import { firstReads } from '@shared/api/first-reads';
 import { readBuildManifest, staticClosure } from './build-manifest';
 
 /**
@@ -46,8 +47,8 @@ export function pagePreloader(clientDir: string): (path: string) => string {
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
- * The API reads a page makes before it can draw, by the addresses its client asks for them
- * (src/features/…/api): "who is signed in?" on every page, and on the trackside page the car list,
+ * The API reads a page makes before it can draw, at the addresses its client asks for them
+ * (`firstReads`): "who is signed in?" on every page, and on the trackside page the car list,
  * the event and, when the address names the car, its setups and the runs. Named in the document
  * (`<link rel="preload" as="fetch">`), they go out while the scripts download instead of after they
  * have run, and the client's own requests take the answers already on their way: two round trips
@@ -55,12 +56,12 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
  * the address reaches the document unless it is one.
  */
 export function pageReads(path: string, search: URLSearchParams): string[] {
-  const reads = ['/api/auth/me'];
+  const reads: string[] = [firstReads.me];
   const eventId = /^\/events\/([^/]+)\/?$/.exec(path)?.[1];
   if (eventId && UUID.test(eventId)) {
-    reads.push('/api/cars', `/api/events/${eventId}`);
+    reads.push(firstReads.cars, firstReads.event(eventId));
     const carId = search.get('carId');
-    if (carId && UUID.test(carId)) reads.push(`/api/cars/${carId}/setups`, `/api/runs?${new URLSearchParams({ carId, eventId }).toString()}`);
+    if (carId && UUID.test(carId)) reads.push(firstReads.setups(carId), firstReads.runs({ carId, eventId }));
   }
   return reads;
 }

@@ -2,11 +2,12 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { userResponseSchema, type User } from '@shared/auth/auth.schema';
 import { api, isApiError } from '@/lib/api-client';
 import { authKeys } from './auth-keys';
+import { firstReads } from '@shared/api/first-reads';
 
 /** The signed-in user, or null when nobody is signed in (the server answers 401). */
 export async function getMe({ signal }: { signal?: AbortSignal } = {}): Promise<User | null> {
   try {
-    const { user } = await api.get('/api/auth/me', { schema: userResponseSchema, signal });
+    const { user } = await api.get(firstReads.me, { schema: userResponseSchema, signal });
     return user;
   } catch (error) {
     if (isApiError(error) && error.status === 401) return null;

@@ -2,9 +2,10 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { SeasonEvent } from '@shared/season/event.schema';
 import { api } from '@/lib/api-client';
 import { eventKeys } from './event-keys';
+import { firstReads } from '@shared/api/first-reads';
 
 export function getEvent(eventId: string, { signal }: { signal?: AbortSignal } = {}): Promise<SeasonEvent> {
-  return api.get(`/api/events/${encodeURIComponent(eventId)}`, { signal });
+  return api.get(firstReads.event(eventId), { signal });
 }
 
 export function eventQueryOptions(eventId: string) {

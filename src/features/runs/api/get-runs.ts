@@ -2,11 +2,11 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Run } from '@shared/season/run.schema';
 import { api } from '@/lib/api-client';
 import { runKeys } from './run-keys';
+import { firstReads } from '@shared/api/first-reads';
 
 /** One car's runs at one event, every driver, scored by the server. */
 export function getRuns(filter: { carId: string; eventId: string }, { signal }: { signal?: AbortSignal } = {}): Promise<{ items: Run[]; count: number }> {
-  const query = new URLSearchParams(filter).toString();
-  return api.get(`/api/runs?${query}`, { signal });
+  return api.get(firstReads.runs(filter), { signal });
 }
 
 export function runsQueryOptions(filter: { carId: string; eventId: string }) {
