@@ -23,8 +23,14 @@ const KINDS: Record<string, string> = {
   object: 'a set of fields',
 };
 
-/** What a size counts, for the checks on a length or a count. */
-const UNITS: Record<string, string> = { string: 'characters', array: 'items', set: 'items', map: 'entries', file: 'bytes' };
+/** What a size counts, for the checks on a length or a count: one, and more than one. */
+const UNITS: Record<string, [string, string]> = {
+  string: ['character', 'characters'],
+  array: ['item', 'items'],
+  set: ['item', 'items'],
+  map: ['entry', 'entries'],
+  file: ['byte', 'bytes'],
+};
 
 const FORMATS: Record<string, string> = {
   email: 'Enter an e-mail address',
@@ -49,7 +55,7 @@ export const plainMessage: $ZodErrorMap = (issue) => {
       if (!big && issue.origin === 'string' && Number(limit) === 1 && !issue.exact) return 'Required';
       if (issue.origin === 'date') return big ? 'Too late' : 'Too early';
       const words = issue.exact ? 'Exactly' : big ? (issue.inclusive ? 'At most' : 'Less than') : issue.inclusive ? 'At least' : 'More than';
-      const unit = UNITS[issue.origin];
+      const unit = UNITS[issue.origin]?.[Number(limit) === 1 ? 0 : 1];
       return `${words} ${String(limit)}${unit ? ` ${unit}` : ''}`;
     }
     case 'invalid_format':

@@ -69,6 +69,8 @@ describe('every kind of check, in plain words', () => {
     ['a number at an exclusive bottom', z.number().check(z.gt(0)), 0, 'More than 0'],
     ['a number under its floor', z.number().check(z.gte(-5)), -6, 'At least -5'],
     ['a list with too many items', z.array(z.number()).check(z.maxLength(2)), [1, 2, 3], 'At most 2 items'],
+    ['an empty list that needs one item', z.array(z.number()).check(z.minLength(1)), [], 'At least 1 item'],
+    ['a text over one character', z.string().check(z.maxLength(1)), 'ab', 'At most 1 character'],
     ['a number off its step', z.number().check(z.multipleOf(0.5)), 0.3, 'In steps of 0.5'],
     ['a value that must be one thing', z.literal('kPa'), 'psi', 'Must be kPa'],
     ['an e-mail address without its @', z.email(), 'maren.example.com', 'Enter an e-mail address'],
