@@ -40,7 +40,7 @@ const FORMATS: Record<string, string> = {
   time: 'Enter a time as HH:MM',
 };
 
-const list = (values: readonly unknown[]) => values.map((v) => (typeof v === 'string' ? v : String(v))).join(', ');
+const list = (values: readonly unknown[]) => values.map(String).join(', ');
 
 export const plainMessage: $ZodErrorMap = (issue) => {
   switch (issue.code) {
