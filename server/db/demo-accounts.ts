@@ -8,6 +8,7 @@ export const DEMO_ACCOUNTS = {
   driver: { email: 'maren@example.com', displayName: 'Maren Holloway', note: 'driver' },
   coDriver: { email: 'teo@example.com', displayName: 'Teo Varga', note: 'co-driver of Maren\'s roadster' },
   secondDriver: { email: 'priya@example.com', displayName: 'Priya Castellan', note: 'second driver' },
+  classRival: { email: 'wren@example.com', displayName: 'Wren Tolliver', note: 'drives the team\'s other SR car' },
   shopStaff: { email: 'dusty@example.com', displayName: 'Dusty Okonjo', note: 'staff at Kettle Lane Chassis Works' },
   captain: { email: 'ines@example.com', displayName: 'Ines Brandvold', note: 'captain of the Gravel Pit Irregulars' },
   admin: { email: 'admin@example.com', displayName: 'Scrubline Admin', note: 'admin' },

@@ -13,13 +13,15 @@ import { TreadReadingCornerEntity, TreadReadingEntity, TyreMountingEntity, TyreS
 
 /**
  * The demo season: an invented club (Tallow Creek Motor Club), invented venues and
- * people, two cars, eight autocross events from April to September 2026. Built
- * from a seeded generator, so every run of the seed gives the same season.
+ * people, three cars, eight autocross events from April to September 2026. Built
+ * from seeded generators, so every run of the seed gives the same season.
  *
  * The story in the numbers: Maren's roadster starts the season at −1.2° front
  * camber, all the stock arms allow, with a little toe-out to help it turn in; its
  * front tyres scrub their inner edges. On 12 June the shop fits adjustable camber
  * arms and aligns it at −2.4° with zero toe, and the front inner-edge wear drops.
+ * Wren's roadster, the other SR car in the team, is the quicker of the two in the
+ * spring; from the summer Pebble is, which the captain's class board shows.
  */
 export const DEMO_SEED = 'tallow-creek-2026';
 export const DEMO_CAMBER_ARMS_DATE = '2026-06-12';
@@ -28,6 +30,7 @@ export interface DemoPeople {
   driver: string;
   coDriver: string;
   secondDriver: string;
+  classRival: string;
   shopStaff: string;
   teamId: string;
 }
@@ -60,13 +63,23 @@ const at = (date: string, time: string) => new Date(`${date}T${time}:00Z`);
 const round = (n: number, step: number) => Math.round(n / step) * step;
 const fix = (n: number, digits: number) => Number(n.toFixed(digits));
 
-export async function seedDemoSeason(m: EntityManager, people: DemoPeople): Promise<void> {
-  const rng = seedrandom(DEMO_SEED);
-  const noise = (spread: number) => (rng() + rng() + rng() - 1.5) * (spread / 0.5); // ~normal, sd ≈ spread/1.7
-  const uuid = () => {
+/** Roughly normal noise from a seeded generator (the sum of three uniforms), sd ≈ spread / 1.7. */
+function noiseFrom(rng: () => number): (spread: number) => number {
+  return (spread) => (rng() + rng() + rng() - 1.5) * (spread / 0.5);
+}
+
+/** Version-4-shaped ids from a seeded generator, so a run's id is the same on every seed. */
+function uuidFrom(rng: () => number): () => string {
+  return () => {
     const hex = Array.from({ length: 32 }, () => Math.floor(rng() * 16).toString(16)).join('');
     return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-4${hex.slice(13, 16)}-${'89ab'[Math.floor(rng() * 4)]}${hex.slice(17, 20)}-${hex.slice(20, 32)}`;
   };
+}
+
+export async function seedDemoSeason(m: EntityManager, people: DemoPeople): Promise<void> {
+  const rng = seedrandom(DEMO_SEED);
+  const noise = noiseFrom(rng);
+  const uuid = uuidFrom(rng);
 
   // ---------- cars ----------
   const roadster = await m.getRepository(CarEntity).save({
@@ -180,6 +193,7 @@ export async function seedDemoSeason(m: EntityManager, people: DemoPeople): Prom
     { label: 'rear cold pressure −7 kPa', apply: (v) => { v.lr.coldPressureKpa! -= 7; v.rr.coldPressureKpa! -= 7; } },
   ];
 
+  const eventIds: string[] = [];
   for (const [i, day] of EVENTS.entries()) {
     // The camber arms go on between the fourth and fifth events.
     if (i === 4) {
@@ -210,6 +224,7 @@ export async function seedDemoSeason(m: EntityManager, people: DemoPeople): Prom
       createdBy: people.driver, name: day.name, date: day.date, venue: day.venue, kind: 'autocross', conePenaltySec: 2,
       surface: day.surface, airTempC: day.airTempC, trackTempC: day.trackTempC, notes: null, teamId: people.teamId,
     } as EventEntity);
+    eventIds.push(event.id);
 
     // Morning cold pressures, as set in the paddock.
     for (const [carId, values, by] of [[roadster.id, roadsterValues, people.driver], [hatch.id, hatchValues, people.secondDriver]] as const) {
@@ -293,5 +308,55 @@ export async function seedDemoSeason(m: EntityManager, people: DemoPeople): Prom
     }
     await treadReading(roadsterSet.id, at(day.date, '17:00'), event.id, roadsterPositions, roadsterTread, people.driver);
     await treadReading(hatchSet.id, at(day.date, '17:10'), event.id, hatchPositions, hatchTread, people.secondDriver);
+  }
+
+  await seedClassRival(m, people, eventIds, snapshot);
+}
+
+/**
+ * Wren's roadster, the team's other SR car: a baseline setup and six runs at each event,
+ * from a generator of its own so the rest of the season stays as it was. Quicker than
+ * Pebble by about 0.4 s a course in the spring, slower by about the same from the summer.
+ */
+async function seedClassRival(
+  m: EntityManager,
+  people: DemoPeople,
+  eventIds: string[],
+  snapshot: (carId: string, label: string, effectiveFrom: Date, values: Values, opts: { createdBy: string; derivedFromId: string | null; notes?: string; arb: [string, string] }) => Promise<string>,
+): Promise<void> {
+  const rng = seedrandom(`${DEMO_SEED}/class-rival`);
+  const noise = noiseFrom(rng);
+  const uuid = uuidFrom(rng);
+  const car = await m.getRepository(CarEntity).save({
+    ownerId: people.classRival,
+    name: 'Gooseberry',
+    classCode: 'SR',
+    carNumber: '88',
+    tyreSize: '195/50R15',
+    frontDamperPositions: null,
+    frontDamperCountFrom: null,
+    rearDamperPositions: null,
+    rearDamperCountFrom: null,
+    frontMotionRatio: null,
+    rearMotionRatio: null,
+    notes: 'Small rear-drive roadster on fixed dampers.',
+  } as CarEntity);
+  const front: SetupCorner = { camberDeg: -1.8, toeMm: 0, casterDeg: 5.2, springRateNPerMm: 32, rideHeightMm: 125, damperClicks: null, damperReboundClicks: null, coldPressureKpa: 207, cornerWeightKg: 252 };
+  const rear: SetupCorner = { camberDeg: -1.5, toeMm: 1.2, casterDeg: null, springRateNPerMm: 26, rideHeightMm: 130, damperClicks: null, damperReboundClicks: null, coldPressureKpa: 200, cornerWeightKg: 262 };
+  await snapshot(car.id, 'Season baseline', at('2026-04-02', '18:00'), { lf: front, rf: { ...front }, lr: rear, rr: { ...rear } }, {
+    createdBy: people.classRival, derivedFromId: null, arb: ['stock', 'stock'],
+  });
+  for (const [i, day] of EVENTS.entries()) {
+    const pace = day.baseSec + (i < 4 ? -0.4 : 0.4);
+    for (let k = 0; k < 6; k++) {
+      const runNumber = k + 1;
+      const cones = rng() < 0.14 ? 1 : 0;
+      const learning = -0.7 * (1 - Math.exp(-runNumber / 2));
+      await m.getRepository(RunEntity).save({
+        id: uuid(), carId: car.id, eventId: eventIds[i], driverId: people.classRival, runNumber,
+        rawTimeSec: fix(pace + learning + noise(0.3), 3), cones, status: 'finished',
+        recordedAt: new Date(at(day.date, '09:30').getTime() + k * 22 * 60_000), notes: null,
+      } as RunEntity);
+    }
   }
 }

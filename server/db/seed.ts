@@ -38,11 +38,13 @@ export async function seedDemo(ds: DataSource): Promise<void> {
       { teamId: team.id, userId: ids.captain, isCaptain: true },
       { teamId: team.id, userId: ids.driver, isCaptain: false },
       { teamId: team.id, userId: ids.secondDriver, isCaptain: false },
+      { teamId: team.id, userId: ids.classRival, isCaptain: false },
     ]);
     await seedDemoSeason(m, {
       driver: ids.driver,
       coDriver: ids.coDriver,
       secondDriver: ids.secondDriver,
+      classRival: ids.classRival,
       shopStaff: ids.shopStaff,
       teamId: team.id,
     });
@@ -54,8 +56,8 @@ export async function seedDemo(ds: DataSource): Promise<void> {
 }
 
 /**
- * Who shares what in the demo: Maren lets the shop see Pebble; both demo cars are entered
- * in the team, Pebble with its setup shared. The captain has entered this season's class
+ * Who shares what in the demo: Maren lets the shop see Pebble; the three demo cars are entered
+ * in the team, Pebble with its setup shared, the others with their results only. The captain has entered this season's class
  * factors for the team's own reckoning (invented numbers, as the app ships none).
  */
 async function seedDemoCollaboration(
@@ -66,7 +68,7 @@ async function seedDemoCollaboration(
 ): Promise<void> {
   const cars: { id: string; owner_id: string; class_code: string }[] = await m.query(
     'SELECT id, owner_id, class_code FROM cars WHERE owner_id = ANY($1) ORDER BY created_at',
-    [[ids.driver, ids.secondDriver]],
+    [[ids.driver, ids.secondDriver, ids.classRival]],
   );
   const pebble = cars.find((c) => c.owner_id === ids.driver)!;
   await m.query('INSERT INTO shop_grants (car_id, shop_id, granted_by) VALUES ($1, $2, $3)', [pebble.id, shopId, ids.driver]);

@@ -106,7 +106,7 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
     await screenshot(page, 'dev-mailbox');
   });
 
-  it('when the captain opens the class board, then both demo cars are there, each in its class', async () => {
+  it('when the captain opens the class board, then the three demo cars are there, each in its class', async () => {
     const page = await signInAs('ines@example.com', 'Ines Brandvold');
     await page.goto(`${baseUrl}/teams`);
     await page.getByRole('link', { name: /board/i }).first().click();
@@ -114,8 +114,9 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
     const sr = page.getByRole('region', { name: 'Class SR' });
     const sh = page.getByRole('region', { name: 'Class SH' });
     await sr.getByText('Pebble').first().waitFor({ timeout: 20_000 });
+    await sr.getByText('Gooseberry').first().waitFor();
     await sh.getByText('Biscuit Tin').first().waitFor();
-    // Pebble shares its setup; Biscuit Tin shares results only.
+    // Pebble shares its setup; Gooseberry and Biscuit Tin share results only.
     await sr.getByRole('table', { name: 'Setup of Pebble' }).waitFor();
     await sh.getByText(/setup not shared/i).first().waitFor();
     const sideways = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);

@@ -310,7 +310,7 @@ describe('the demo team\'s board', () => {
     await demo?.drop();
   });
 
-  it('when the captain reads 2026, then Pebble (SR) and Biscuit Tin (SH) have results, and only Pebble\'s setup is shown', async () => {
+  it('when the captain reads 2026, then Gooseberry and Pebble (SR) and Biscuit Tin (SH) have results, and only Pebble\'s setup is shown', async () => {
     const c = client(app.app);
     expect((await c.post('/api/auth/login', { email: DEMO_ACCOUNTS.captain.email, password: DEMO_PASSWORD })).status).toBe(200);
     const teams = await c.get('/api/teams/mine');
@@ -320,14 +320,28 @@ describe('the demo team\'s board', () => {
     const b = res.body as ClassBoard;
     expect(b.classes.map((x) => [x.classCode, x.factor, x.cars.map((car) => [car.car.name, car.sharing])])).toEqual([
       ['SH', 0.815, [['Biscuit Tin', 'results']]],
-      ['SR', 0.842, [['Pebble', 'results_and_setup']]],
+      ['SR', 0.842, [['Gooseberry', 'results'], ['Pebble', 'results_and_setup']]],
     ]);
-    const [biscuit, pebble] = b.classes.map((x) => x.cars[0]!);
+    const biscuit = entered(b, b.classes[0]!.cars[0]!.car.id);
+    const [gooseberry, pebble] = b.classes[1]!.cars;
     // Eight events: Pebble has Maren and Teo each time, Biscuit Tin has Priya.
     expect(pebble!.results).toHaveLength(16);
     expect(biscuit!.results).toHaveLength(8);
     expect(pebble!.setup).toMatchObject({ frontCamberDeg: -2.4 }); // the camber arms are on by the last event
     expect(biscuit!.setup).toBeNull();
+    expect(gooseberry!.setup).toBeNull();
+
+    // Two cars in SR: at each event one of them is the class's fastest (rank 1, 0 % off) and the other is off it.
+    // Gooseberry leads the spring, Pebble the rounds after its camber arms (12 June).
+    const leaders = [...new Set(pebble!.results.map((r) => r.date))].map((date) => {
+      const lines = [...pebble!.results, ...gooseberry!.results].filter((r) => r.date === date);
+      const first = lines.filter((r) => r.rankInClass === 1);
+      expect(first, date).toHaveLength(1);
+      expect(first[0]!.pctOffClassFastest).toBe(0);
+      for (const r of lines) if (r !== first[0]) expect(r.pctOffClassFastest!, date).toBeGreaterThan(0);
+      return gooseberry!.results.includes(first[0]!) ? 'Gooseberry' : 'Pebble';
+    });
+    expect(leaders).toEqual([...Array(4).fill('Gooseberry'), ...Array(4).fill('Pebble')]);
 
     // One line checked against the stored runs: Maren's best adjusted at the first event, 2 s a cone.
     const rows: { raw_time_sec: number; cones: number }[] = await app.ds.query(

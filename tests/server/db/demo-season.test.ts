@@ -60,7 +60,7 @@ describe('the demo season', () => {
     expect(await q<{ n: number }>(a.ds, 'SELECT count(*)::int AS n FROM runs')).toEqual(before);
   });
 
-  it('when seeded, then the six demo accounts exist with the documented password and roles', async () => {
+  it('when seeded, then every demo account exists with the documented password and roles', async () => {
     const users = await q<{ email: string; password_hash: string; is_admin: boolean }>(a.ds, 'SELECT email, password_hash, is_admin FROM users');
     expect(users.map((u) => u.email).sort()).toEqual(Object.values(DEMO_ACCOUNTS).map((x) => x.email).sort());
     const maren = users.find((u) => u.email === DEMO_ACCOUNTS.driver.email)!;
@@ -72,13 +72,17 @@ describe('the demo season', () => {
     expect(captain).toHaveLength(1);
     const coDriver = await q(a.ds, 'SELECT 1 FROM car_co_drivers d JOIN users u ON u.id = d.user_id WHERE u.email = $1', [DEMO_ACCOUNTS.coDriver.email]);
     expect(coDriver).toHaveLength(1);
+    const members = await q<{ email: string }>(a.ds, 'SELECT u.email FROM team_members m JOIN users u ON u.id = m.user_id WHERE NOT m.is_captain');
+    expect(members.map((m) => m.email).sort()).toEqual(
+      [DEMO_ACCOUNTS.driver.email, DEMO_ACCOUNTS.secondDriver.email, DEMO_ACCOUNTS.classRival.email].sort(),
+    );
   });
 
-  it('when counted, then 2 cars and 8 events with 6 to 8 runs per car, including cones, a DNF and an off-course', async () => {
-    expect(await q(a.ds, 'SELECT id FROM cars')).toHaveLength(2);
+  it('when counted, then 3 cars and 8 events with 6 to 8 runs per car, including cones, a DNF and an off-course', async () => {
+    expect(await q(a.ds, 'SELECT id FROM cars')).toHaveLength(3);
     expect(await q(a.ds, 'SELECT id FROM events')).toHaveLength(8);
     const perCar = await q<{ n: number }>(a.ds, 'SELECT count(*)::int AS n FROM runs GROUP BY event_id, car_id');
-    expect(perCar).toHaveLength(16);
+    expect(perCar).toHaveLength(24);
     for (const { n } of perCar) {
       expect(n).toBeGreaterThanOrEqual(6);
       expect(n).toBeLessThanOrEqual(8);
@@ -108,6 +112,23 @@ describe('the demo season', () => {
     expect(Math.max(...after)).toBeLessThan(-2);
     const changes = await q(a.ds, `SELECT 1 FROM change_log WHERE changed_on = $1 AND what ILIKE '%camber arms%'`, [DEMO_CAMBER_ARMS_DATE]);
     expect(changes).toHaveLength(1);
+  });
+
+  it('when the two SR cars are compared, then Gooseberry is the quicker in the spring and Pebble once its camber arms are on', async () => {
+    // Best adjusted time per car and event: raw + 2 s a cone (the demo events' penalty; "time plus penalties",
+    // common practice in club autocross).
+    const bests = await q<{ date: string; name: string; best: number }>(a.ds, `
+      SELECT e.date::text AS date, c.name, min(r.raw_time_sec + r.cones * e.cone_penalty_sec) AS best
+        FROM runs r JOIN cars c ON c.id = r.car_id JOIN events e ON e.id = r.event_id
+       WHERE c.class_code = 'SR' AND r.status = 'finished' GROUP BY e.date, c.name ORDER BY e.date`);
+    const dates = [...new Set(bests.map((b) => b.date))];
+    expect(dates).toHaveLength(8);
+    const quicker = dates.map((d) => {
+      const [x, y] = bests.filter((b) => b.date === d);
+      return { before: d < DEMO_CAMBER_ARMS_DATE, name: x!.best < y!.best ? x!.name : y!.name };
+    });
+    expect(quicker.filter((q) => q.before).map((q) => q.name)).toEqual(Array(4).fill('Gooseberry'));
+    expect(quicker.filter((q) => !q.before).map((q) => q.name)).toEqual(Array(4).fill('Pebble'));
   });
 
   it('when front tread is read after each event, then inner-edge wear per run drops after the camber arms', async () => {
