@@ -134,7 +134,7 @@ export async function listCustomers(ds: DataSource, user: User, shopId: string):
              WHERE ts.car_id = c.id ORDER BY 1 DESC LIMIT 1)
            UNION ALL
            (SELECT k.created_at, 'comment',
-                   a.display_name || ': ' || CASE WHEN length(k.body) > 80 THEN left(k.body, 79) || '…' ELSE k.body END
+                   a.display_name || ' commented: “' || CASE WHEN length(k.body) > 80 THEN left(k.body, 79) || '…' ELSE k.body END || '”'
               FROM comments k JOIN users a ON a.id = k.author_id
              WHERE k.car_id = c.id ORDER BY k.created_at DESC LIMIT 1)
          ) x ORDER BY x.at DESC LIMIT 1

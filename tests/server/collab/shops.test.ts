@@ -150,7 +150,7 @@ describe('GET /api/shops/:shopId/customers', () => {
     expect((await latest()).latestActivity).toEqual({
       at: comment.body.createdAt,
       kind: 'comment',
-      summary: 'Nell Ashdown: Front felt lazy on turn-in all morning.',
+      summary: 'Nell Ashdown commented: “Front felt lazy on turn-in all morning.”',
     });
 
     const suggest = (title: string) =>

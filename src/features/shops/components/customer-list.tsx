@@ -6,13 +6,6 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { RelativeTime } from '@/lib/relative-time';
 import { useCustomers } from '../api/get-customers';
 
-const KIND_WORDS: Record<NonNullable<Customer['latestActivity']>['kind'], string> = {
-  run: 'Run',
-  setup: 'Setup',
-  tread_reading: 'Tread',
-  comment: 'Comment',
-};
-
 function CustomerItem({ customer }: { customer: Customer }) {
   const { car, owner, latestActivity, openSuggestions } = customer;
   return (
@@ -28,7 +21,7 @@ function CustomerItem({ customer }: { customer: Customer }) {
           </span>
           {latestActivity ? (
             <span className="text-sm">
-              <span className="font-semibold">{KIND_WORDS[latestActivity.kind]}:</span> {latestActivity.summary} ·{' '}
+              {latestActivity.summary} ·{' '}
               <RelativeTime iso={latestActivity.at} className="tabular-figures text-ink-muted" />
             </span>
           ) : (

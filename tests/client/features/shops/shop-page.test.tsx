@@ -54,7 +54,9 @@ describe('the shop page', () => {
     expect(link.getAttribute('href')).toBe(`/shop/customers/${IDS.car}`);
     expect(link.textContent).toContain('Grey roadster');
     expect(link.textContent).toContain('Maren Holt');
-    expect(link.textContent).toContain('Run: Run 4 at Harrow Flats — Round 4, 45.912');
+    // The summary names what happened itself; nothing is put in front of it ("Run: Run 4 …" read twice).
+    const lines = [...link.querySelectorAll('span')].map((span) => span.textContent);
+    expect(lines).toContain('Run 4 at Harrow Flats — Round 4, 45.912 · about 2 hours ago');
     // date-fns formatDistance wording for 2 h (its documented table: 1.5 h to 23.5 h reads "about N hours").
     expect(link.textContent).toContain('about 2 hours ago');
     expect(link.textContent).toContain('1 open suggestion');
