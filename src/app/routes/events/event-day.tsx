@@ -196,11 +196,13 @@ export function EventDayPage() {
   const [picking, setPicking] = useState(false);
 
   const cars = carsQuery.cars;
-  const carId = params.get('carId') ?? stored?.carId ?? null;
+  // One car that only its owner drives leaves nothing to choose: the board opens straight away.
+  const only = cars.length === 1 && driversOf(cars[0]!).length === 1 ? { carId: cars[0]!.id, driverId: cars[0]!.owner.id } : null;
+  const carId = params.get('carId') ?? stored?.carId ?? only?.carId ?? null;
   const car = cars.find((c) => c.id === carId) ?? null;
   const drivers = car ? driversOf(car) : [];
   // The address holds both, so a reload, Back or a shared link opens the same board; this phone remembers them too.
-  const driverId = params.get('driverId') ?? (stored?.carId === carId ? stored.driverId : null);
+  const driverId = params.get('driverId') ?? (stored?.carId === carId ? stored.driverId : null) ?? (only?.carId === carId ? only.driverId : null);
   const driver = drivers.find((d) => d.id === driverId) ?? null;
 
   const choose = (choice: Choice) => {
@@ -237,10 +239,12 @@ export function EventDayPage() {
               {car.name}
               {car.carNumber ? <span className="tabular-figures text-ink-muted"> #{car.carNumber}</span> : null} · {driver.displayName}
             </span>
-            <button type="button" className="inline-flex min-h-tap items-center text-link underline" onClick={() => setPicking(true)}>
-              Change
-              <span className="sr-only"> car or driver</span>
-            </button>
+            {only ? null : (
+              <button type="button" className="inline-flex min-h-tap items-center text-link underline" onClick={() => setPicking(true)}>
+                Change
+                <span className="sr-only"> car or driver</span>
+              </button>
+            )}
           </p>
         ) : null}
       </header>

@@ -636,6 +636,26 @@ describe('event day', () => {
     expect([search.get('carId'), search.get('driverId')]).toEqual([IDS.car, IDS.tomas]);
   });
 
+  it('when the driver has one car that nobody else drives, then the board opens without asking, and there is nothing to change', async () => {
+    localStorage.clear();
+    stubWithRuns([], { extra: { 'GET /api/cars': list([{ ...CAR, coDrivers: [] }]) } });
+    renderApp(`/events/${IDS.event}`);
+
+    const form = await screen.findByRole('form', { name: 'Log a run' });
+    expect(form.textContent).toContain(CAR.owner.displayName);
+    expect(screen.queryByRole('button', { name: 'Start logging' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Change car or driver' })).toBeNull();
+  });
+
+  it('when the driver has two cars, each driven by its owner alone, then which car is still asked', async () => {
+    localStorage.clear();
+    stubWithRuns([], { extra: { 'GET /api/cars': list([{ ...CAR, coDrivers: [] }, { ...CAR, id: 'c2222222-2222-4222-8222-222222222222', name: 'Blue hatch', coDrivers: [] }]) } });
+    renderApp(`/events/${IDS.event}`);
+
+    expect(await screen.findByRole('button', { name: 'Start logging' })).toBeTruthy();
+    expect(screen.queryByRole('form', { name: 'Log a run' })).toBeNull();
+  });
+
   it('when the page is opened from an address with the car and the driver, then it goes straight to logging for them, even on a phone that never chose them', async () => {
     localStorage.clear();
     stubWithRuns([]);
