@@ -48,6 +48,8 @@ export interface ChartAxis {
   format: (value: number) => string;
   min?: number;
   max?: number;
+  /** Where the ticks go; without them, Chart.js's own round steps. */
+  ticks?: readonly number[];
 }
 
 interface AnalysisChartProps {
@@ -135,28 +137,26 @@ export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
 
   const lines = (item: TooltipItem<'scatter'>) => series[item.datasetIndex]?.points[item.dataIndex]?.lines ?? [];
 
+  // Ticks at round steps only: with a set min and max, Chart.js would also label the two ends (e.g. 42.645 and 54.358).
+  const axis = (a: ChartAxis) => ({
+    type: 'linear' as const,
+    min: a.min,
+    max: a.max,
+    title: { display: true, text: a.title, color: ink },
+    ticks: { color: muted, includeBounds: false, callback: (value: number | string) => a.format(Number(value)) },
+    grid: { color: grid },
+    afterBuildTicks: a.ticks
+      ? (scale: { ticks: { value: number }[] }) => {
+          scale.ticks = a.ticks!.map((value) => ({ value }));
+        }
+      : undefined,
+  });
+
   const options: ChartOptions<'scatter'> = {
     animation: false,
     maintainAspectRatio: false,
     interaction: { mode: 'nearest', intersect: true },
-    scales: {
-      x: {
-        type: 'linear',
-        min: x.min,
-        max: x.max,
-        title: { display: true, text: x.title, color: ink },
-        ticks: { color: muted, callback: (value) => x.format(Number(value)) },
-        grid: { color: grid },
-      },
-      y: {
-        type: 'linear',
-        min: y.min,
-        max: y.max,
-        title: { display: true, text: y.title, color: ink },
-        ticks: { color: muted, callback: (value) => y.format(Number(value)) },
-        grid: { color: grid },
-      },
-    },
+    scales: { x: axis(x), y: axis(y) },
     plugins: {
       tooltip: {
         filter: (item) => !series[item.datasetIndex]?.hidePoints,

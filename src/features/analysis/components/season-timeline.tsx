@@ -7,6 +7,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { formatDateTime, formatDay } from '@/lib/dates';
 import { LOCATION_WORDS } from '../utils/analysis-format';
 import { seriesStyle, type SeriesStyle } from '../utils/series-styles';
+import { timeTickLabel, timeTicks } from '../utils/time-ticks';
 import type { ChartSeries } from './analysis-chart';
 import { ChartLoading } from './chart-loading';
 import { ShowTableToggle, TableLoading } from './show-table-toggle';
@@ -73,6 +74,7 @@ function TimelineChart({ season, drivers }: { season: SeasonResult; drivers: Dri
   const first = Math.min(...xs);
   const last = Math.max(...xs);
   const xPad = Math.max(2 * DAY_MS, (last - first) * 0.04);
+  const xTicks = timeTicks(first - xPad, last + xPad);
 
   const series: ChartSeries[] = [
     ...drivers.map((d) => ({ label: d.name, color: d.style.color, shape: d.style.shape, glyph: d.style.glyph, line: 'solid' as const, points: d.points })),
@@ -88,7 +90,7 @@ function TimelineChart({ season, drivers }: { season: SeasonResult; drivers: Dri
     <Suspense fallback={<ChartLoading series={series} />}>
       <AnalysisChart
         series={series}
-        x={{ title: 'Date', format: (v) => formatDay(new Date(v)), min: first - xPad, max: last + xPad }}
+        x={{ title: 'Date', format: timeTickLabel(xTicks), min: first - xPad, max: last + xPad, ticks: xTicks }}
         y={{ title: 'Best adjusted time (s)', format: (v) => formatRunTime(Math.max(0, v)), min: yMin, max: yMax }}
         summary={`Best adjusted time per event for ${drivers.map((d) => d.name).join(' and ')}, with ${setupMarks.length} setup changes and ${logMarks.length} change-log entries marked. Use "Show as table" for the values.`}
       />
