@@ -58,7 +58,7 @@ describe('the season timeline\'s axes, as Chart.js lays them out', () => {
     expect(x.ticks.map((t) => new Date(t.value).toDateString())).toEqual(
       [5, 6, 7, 8, 9].map((m) => new Date(2026, m - 1, 1).toDateString()),
     );
-    const label = x.options.ticks.callback as (value: number) => string;
+    const label = (x.options as unknown as { ticks: { callback: (value: number) => string } }).ticks.callback;
     expect(x.ticks.map((t) => label(t.value))).toEqual(['May', 'Jun', 'Jul', 'Aug', 'Sep']);
     chart.destroy();
   });
