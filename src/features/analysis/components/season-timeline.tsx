@@ -18,6 +18,9 @@ const EventsTable = lazy(() => import('./events-table').then((m) => ({ default: 
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
+/** An axis tick in seconds with no trailing zeros ("54", "44.5"): the ticks are round steps, not run times. */
+const axisSeconds = (value: number) => String(Number(Math.max(0, value).toFixed(3)));
+
 export interface DriverSeries {
   id: string;
   name: string;
@@ -91,7 +94,7 @@ function TimelineChart({ season, drivers }: { season: SeasonResult; drivers: Dri
       <AnalysisChart
         series={series}
         x={{ title: 'Date', format: timeTickLabel(xTicks), min: first - xPad, max: last + xPad, ticks: xTicks }}
-        y={{ title: 'Best adjusted time (s)', format: (v) => formatRunTime(Math.max(0, v)), min: yMin, max: yMax }}
+        y={{ title: 'Best adjusted time (s)', format: axisSeconds, min: yMin, max: yMax }}
         summary={`Best adjusted time per event for ${drivers.map((d) => d.name).join(' and ')}, with ${setupMarks.length} setup changes and ${logMarks.length} change-log entries marked. Use "Show as table" for the values.`}
       />
     </Suspense>

@@ -77,6 +77,9 @@ describe('the season timeline\'s axes, as Chart.js lays them out', () => {
     for (const v of values) expect(Math.abs(v / step - Math.round(v / step))).toBeLessThan(1e-9);
     expect(values).not.toContain(y.min);
     expect(values).not.toContain(y.max);
+    // Labelled as the round numbers they are, not as run times to the thousandth ("46", not "46.000").
+    const label = (y.options as unknown as { ticks: { callback: (value: number) => string } }).ticks.callback;
+    expect(values.map(label)).toEqual(values.map((v) => String(v)));
     chart.destroy();
   });
 });
