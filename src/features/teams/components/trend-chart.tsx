@@ -40,8 +40,11 @@ export function TrendChart({ points, summary }: { points: TrendPoint[]; summary:
         min: 0.5,
         max: points.length + 0.5,
         title: { display: true, text: 'Event', color: ink },
-        // Events are whole numbers: no ticks at the padding either side.
-        ticks: { stepSize: 1, color: muted, callback: (value) => (Number.isInteger(Number(value)) ? String(value) : '') },
+        // One tick per event, numbered. Left to itself, Chart.js steps from the padded end (0.5, 1.5, …).
+        afterBuildTicks: (scale) => {
+          scale.ticks = points.map((_, i) => ({ value: i + 1 }));
+        },
+        ticks: { color: muted, callback: (value) => String(value) },
         grid: { display: false },
       },
       y: {

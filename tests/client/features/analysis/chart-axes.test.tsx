@@ -1,38 +1,20 @@
 // @vitest-environment jsdom
 import { cleanup, render, screen } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { BasicPlatform, Chart, type ChartConfiguration } from 'chart.js';
 import type { SeasonResult } from '@shared/analysis/analysis.schema';
 import { SeasonTimeline } from '@/features/analysis/components/season-timeline';
+import { layOutChart, tickLabels, type ScatterProps } from '../../chart-layout';
 
 // What the page hands react-chartjs-2, so the test can give the same data and options to Chart.js itself.
-const given = vi.hoisted(() => ({ config: null as null | Pick<ChartConfiguration<'scatter'>, 'data' | 'options'> }));
+const given = vi.hoisted(() => ({ config: null as null | ScatterProps }));
 vi.mock('react-chartjs-2', () => ({
-  Scatter: (props: Pick<ChartConfiguration<'scatter'>, 'data' | 'options'> & { 'aria-label'?: string }) => {
+  Scatter: (props: ScatterProps & { 'aria-label'?: string }) => {
     given.config = { data: props.data, options: props.options };
     return <div role="img" aria-label={props['aria-label']} />;
   },
 }));
 
 afterEach(cleanup);
-
-/**
- * Chart.js 4 lays out its axes with no real canvas: BasicPlatform, and a 2D context whose methods do nothing
- * and whose text is 10 px wide. The scales' ticks are then Chart.js's own, computed from the page's options.
- */
-function chartFrom(config: Pick<ChartConfiguration<'scatter'>, 'data' | 'options'>) {
-  const canvas: Record<string, unknown> = { width: 390, height: 320, style: {}, addEventListener() {}, removeEventListener() {} };
-  const context = new Proxy({ canvas } as Record<string | symbol, unknown>, {
-    get: (target, key) => (key in target ? target[key] : key === 'measureText' ? () => ({ width: 10 }) : () => undefined),
-  });
-  canvas.getContext = () => context;
-  return new Chart(canvas as unknown as HTMLCanvasElement, {
-    type: 'scatter',
-    platform: BasicPlatform,
-    data: config.data,
-    options: { ...config.options, responsive: false },
-  });
-}
 
 const driver = { id: 'a1111111-1111-4111-8111-111111111111', displayName: 'Maren Holt' };
 // Five events from 12 April to 20 September. The chart pads each axis past its data: the dates by 4 % of the span
@@ -53,20 +35,19 @@ describe('the season timeline\'s axes, as Chart.js lays them out', () => {
   it('when the season runs 12 April to 20 September, then the date axis is ticked on the first of each month within it, labelled by month', async () => {
     render(<SeasonTimeline season={SEASON} renderChanges={() => null} />);
     await screen.findByRole('img', { name: /Best adjusted time per event/ });
-    const chart = chartFrom(given.config!);
+    const chart = layOutChart(given.config!);
     const x = chart.scales.x!;
     expect(x.ticks.map((t) => new Date(t.value).toDateString())).toEqual(
       [5, 6, 7, 8, 9].map((m) => new Date(2026, m - 1, 1).toDateString()),
     );
-    const label = (x.options as unknown as { ticks: { callback: (value: number) => string } }).ticks.callback;
-    expect(x.ticks.map((t) => label(t.value))).toEqual(['May', 'Jun', 'Jul', 'Aug', 'Sep']);
+    expect(tickLabels(chart, 'x')).toEqual(['May', 'Jun', 'Jul', 'Aug', 'Sep']);
     chart.destroy();
   });
 
   it('when the time axis is padded past the data, then its ticks are whole steps only, not the padded ends', async () => {
     render(<SeasonTimeline season={SEASON} renderChanges={() => null} />);
     await screen.findByRole('img', { name: /Best adjusted time per event/ });
-    const chart = chartFrom(given.config!);
+    const chart = layOutChart(given.config!);
     const y = chart.scales.y!;
     // The ends: 44.301 − 0.8886 and 53.187 + 0.8886 (a tenth of the range), neither a round number.
     expect(y.min).toBeCloseTo(44.301 - (53.187 - 44.301) * 0.1, 9);
@@ -78,8 +59,7 @@ describe('the season timeline\'s axes, as Chart.js lays them out', () => {
     expect(values).not.toContain(y.min);
     expect(values).not.toContain(y.max);
     // Labelled as the round numbers they are, not as run times to the thousandth ("46", not "46.000").
-    const label = (y.options as unknown as { ticks: { callback: (value: number) => string } }).ticks.callback;
-    expect(values.map(label)).toEqual(values.map((v) => String(v)));
+    expect(tickLabels(chart, 'y')).toEqual(values.map((v) => String(v)));
     chart.destroy();
   });
 });
