@@ -16,7 +16,7 @@ import { formatDay } from '@/lib/dates';
 import { useUnits } from '@/lib/units-context';
 import { useScatter } from '../api/get-scatter';
 import { axisTick, METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxis, type Axis } from '../utils/analysis-format';
-import { buildScatterPlot, type ScatterPlot } from '../utils/scatter-plot';
+import { buildScatterPlot, wholeStepAxis, type ScatterPlot } from '../utils/scatter-plot';
 import type { ChartSeries } from './analysis-chart';
 import { ChartLoading } from './chart-loading';
 import type { PointRow } from './points-table';
@@ -136,7 +136,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
           <Suspense fallback={<ChartLoading series={series} />}>
             <AnalysisChart
               series={series}
-              x={{ title: x.title, format: axisTick }}
+              x={{ title: x.title, format: axisTick, ...(x.whole ? wholeStepAxis(plot) : null) }}
               y={{ title: y.title, format: axisTick }}
               summary={`Scatter plot of ${x.title} against ${y.title}, ${result.n} points. Use "Show as table" for the values.`}
             />

@@ -74,6 +74,8 @@ export interface Axis {
   format: (p: ScatterPoint) => string;
   /** An SI value on this axis (for the fitted line), in the plotted unit. */
   fromSi: (si: number) => number;
+  /** Only whole values exist on it (clicks): ticked at whole numbers, with half a step of room at each end. */
+  whole?: boolean;
 }
 
 /**
@@ -92,7 +94,7 @@ export function xAxis(result: Pick<ScatterResult, 'x'>, units: UnitPreferences, 
     };
   }
   if (quantity === null) {
-    return { title: `${label} (clicks)`, short: `${label} (clicks)`, value: (p) => p.x, format: (p) => clicksText(p.x), fromSi: (si) => si };
+    return { title: 'Damper clicks', short: 'Clicks', value: (p) => p.x, format: (p) => clicksText(p.x), fromSi: (si) => si, whole: true };
   }
   if (result.x.unit !== UNIT_SYMBOLS[SI_UNITS[quantity]]) {
     return {

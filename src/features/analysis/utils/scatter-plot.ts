@@ -66,3 +66,16 @@ export function buildScatterPlot(result: ScatterResult, x: Axis, y: Axis): Scatt
   }
   return { series, fit };
 }
+
+/**
+ * An axis on which only whole values exist (clicks): from half a step below the lowest plotted value to half a
+ * step above the highest, ticked at each whole value between, so no tick reads "6.4 clicks" and no point sits on
+ * the plot's edge.
+ */
+export function wholeStepAxis(plot: ScatterPlot): { min: number; max: number; ticks: number[] } | null {
+  const xs = plot.series.flatMap((s) => s.points.map((p) => p.x));
+  if (xs.length === 0) return null;
+  const low = Math.floor(Math.min(...xs));
+  const high = Math.ceil(Math.max(...xs));
+  return { min: low - 0.5, max: high + 0.5, ticks: Array.from({ length: high - low + 1 }, (_, i) => low + i) };
+}

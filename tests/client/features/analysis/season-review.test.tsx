@@ -13,14 +13,20 @@ import { UnitsProvider } from '@/lib/units-context';
 import { SeasonReviewPage } from '@/app/routes/analysis/season-review';
 import { createTestQueryClient, jsonResponse, requestsTo, stubFetch } from '../../test-utils';
 import { CAR, IDS, list } from '../../fixtures/season';
+import { layOutChart, tickLabels, type ScatterProps } from '../../chart-layout';
 
-// A canvas draws nothing in jsdom: stand in for the chart with the datasets it was given.
+// A canvas draws nothing in jsdom: stand in for the chart with the datasets it was given, and keep what it was
+// given so a test can hand the same to Chart.js itself.
+const given = vi.hoisted(() => ({ config: null as null | ScatterProps }));
 vi.mock('react-chartjs-2', () => ({
-  Scatter: (props: { 'aria-label'?: string; data: { datasets: { label?: string; data: unknown[] }[] } }) => (
-    <div role="img" aria-label={props['aria-label']}>
-      {props.data.datasets.map((d) => `${d.label}: ${d.data.length}`).join('; ')}
-    </div>
-  ),
+  Scatter: (props: ScatterProps & { 'aria-label'?: string; data: { datasets: { label?: string; data: unknown[] }[] } }) => {
+    given.config = { data: props.data, options: props.options };
+    return (
+      <div role="img" aria-label={props['aria-label']}>
+        {props.data.datasets.map((d) => `${d.label}: ${d.data.length}`).join('; ')}
+      </div>
+    );
+  },
 }));
 
 beforeEach(() => dropCsrfToken());
@@ -260,6 +266,28 @@ describe('season review: setup against time and wear', () => {
     expect(within(rows[1]!).getByText('6 runs')).toBeTruthy();
     expect(within(rows[1]!).getByText('LF')).toBeTruthy();
   });
+  it('when clicks are plotted as counted, then the axis is ticked at whole clicks only, with room either side of the end points', async () => {
+    const clicks: ScatterResult = {
+      ...CAMBER_TIME,
+      x: { param: 'damperClicks', corner: 'front', unit: 'clicks' },
+      points: [point({ x: 6, xNormalized: 0.5, y: 1.1 }), point({ x: 7, xNormalized: 0.583, y: 0.9 }), point({ x: 7, xNormalized: 0.583, y: 0.4, ...EVENT_B })],
+      fit: { slope: -0.45, intercept: 3.8, r2: 0.5 },
+    };
+    stub({ [scatterPath('damperClicks', 'time')]: jsonResponse(200, clicks) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot of Camber/ });
+
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'damperClicks');
+    await scatter.findByRole('img', { name: /Scatter plot of Damper clicks against/ });
+    const chart = layOutChart(given.config!);
+    // Left to Chart.js, 6 to 7 clicks was ticked 6, 6.2, 6.4, … 7 with the points on the plot's edges.
+    expect(chart.scales.x!.ticks.map((t) => t.value)).toEqual([6, 7]);
+    expect(tickLabels(chart, 'x')).toEqual(['6', '7']);
+    expect([chart.scales.x!.min, chart.scales.x!.max]).toEqual([5.5, 7.5]);
+    chart.destroy();
+  });
+
   it('when clicks are plotted as a share of the range, then the table shows 0 = softest values beside the clicks', async () => {
     const clicks: ScatterResult = {
       ...CAMBER_TIME,
