@@ -50,6 +50,8 @@ export interface ChartAxis {
   max?: number;
   /** Where the ticks go; without them, Chart.js's own round steps. */
   ticks?: readonly number[];
+  /** Room beyond the data at each end when min and max are not given, e.g. "5%" of the range. */
+  grace?: string;
 }
 
 interface AnalysisChartProps {
@@ -142,6 +144,7 @@ export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
     type: 'linear' as const,
     min: a.min,
     max: a.max,
+    grace: a.grace,
     title: { display: true, text: a.title, color: ink },
     ticks: { color: muted, includeBounds: false, callback: (value: number | string) => a.format(Number(value)) },
     grid: { color: grid },

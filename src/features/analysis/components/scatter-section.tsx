@@ -136,7 +136,8 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
           <Suspense fallback={<ChartLoading series={series} />}>
             <AnalysisChart
               series={series}
-              x={{ title: x.title, format: axisTick, ...(x.whole ? wholeStepAxis(plot) : null) }}
+              // Room either side, so the lowest and highest settings are not drawn on the plot's edges.
+              x={{ title: x.title, format: axisTick, grace: '5%', ...(x.whole ? wholeStepAxis(plot) : null) }}
               y={{ title: y.title, format: axisTick }}
               summary={`Scatter plot of ${x.title} against ${y.title}, ${result.n} points. Use "Show as table" for the values.`}
             />

@@ -17,10 +17,12 @@ import { layOutChart, tickLabels, type ScatterProps } from '../../chart-layout';
 
 // A canvas draws nothing in jsdom: stand in for the chart with the datasets it was given, and keep what it was
 // given so a test can hand the same to Chart.js itself.
-const given = vi.hoisted(() => ({ config: null as null | ScatterProps }));
+const given = vi.hoisted(() => ({ configs: new Map<string, ScatterProps>() }));
+/** What the chart whose description starts so was last given. */
+const chartGiven = (start: string) => [...given.configs].find(([label]) => label.startsWith(start))![1];
 vi.mock('react-chartjs-2', () => ({
   Scatter: (props: ScatterProps & { 'aria-label'?: string; data: { datasets: { label?: string; data: unknown[] }[] } }) => {
-    given.config = { data: props.data, options: props.options };
+    given.configs.set(props['aria-label'] ?? '', { data: props.data, options: props.options });
     return (
       <div role="img" aria-label={props['aria-label']}>
         {props.data.datasets.map((d) => `${d.label}: ${d.data.length}`).join('; ')}
@@ -266,6 +268,18 @@ describe('season review: setup against time and wear', () => {
     expect(within(rows[1]!).getByText('6 runs')).toBeTruthy();
     expect(within(rows[1]!).getByText('LF')).toBeTruthy();
   });
+  it('when a setting is plotted, then the lowest and highest values are inside the plot, not on its edges', async () => {
+    stub();
+    renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot of Camber/ });
+    const chart = layOutChart(chartGiven('Scatter plot of Camber'));
+    // Camber runs from −2.0° to −1.5°: left to Chart.js, the axis ended on those two values exactly.
+    expect(chart.scales.x!.min).toBeLessThan(-2);
+    expect(chart.scales.x!.max).toBeGreaterThan(-1.5);
+    chart.destroy();
+  });
+
   it('when clicks are plotted as counted, then the axis is ticked at whole clicks only, with room either side of the end points', async () => {
     const clicks: ScatterResult = {
       ...CAMBER_TIME,
@@ -280,7 +294,7 @@ describe('season review: setup against time and wear', () => {
 
     await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'damperClicks');
     await scatter.findByRole('img', { name: /Scatter plot of Damper clicks against/ });
-    const chart = layOutChart(given.config!);
+    const chart = layOutChart(chartGiven('Scatter plot of Damper clicks'));
     // Left to Chart.js, 6 to 7 clicks was ticked 6, 6.2, 6.4, … 7 with the points on the plot's edges.
     expect(chart.scales.x!.ticks.map((t) => t.value)).toEqual([6, 7]);
     expect(tickLabels(chart, 'x')).toEqual(['6', '7']);
