@@ -118,6 +118,21 @@ describe.each(['phone', 'desktop'] as const)('a service visit, staff then driver
     }
     await sheet.getByRole('button', { name: 'Save the build sheet' }).click();
     await sheet.getByRole('status').getByText('Saved.').waitFor({ timeout: 15_000 });
+    if (size === 'phone') {
+      // Read at the car, one corner at a time: each value sits under its label, over the corner's width, so none
+      // is squeezed into a column a word wide ("38 mm of thread below the lock ring" took six lines beside its label).
+      const grid = page.getByRole('group', { name: 'Build sheet, per corner' });
+      await grid.getByRole('group', { name: 'Left front' }).getByText('Preload').waitFor({ timeout: 15_000 });
+      const layout = await grid.evaluate(`[...document.querySelectorAll('[aria-label="Build sheet, per corner"] dd')].map((dd) => {
+        const dt = dd.previousElementSibling.getBoundingClientRect(), box = dd.getBoundingClientRect();
+        return { below: box.top >= dt.bottom - 1, lines: Math.round(box.height / parseFloat(getComputedStyle(dd).lineHeight)) };
+      })`) as { below: boolean; lines: number }[];
+      expect(layout.length).toBeGreaterThan(40);
+      for (const dd of layout) {
+        expect(dd.below).toBe(true);
+        expect(dd.lines).toBeLessThanOrEqual(3);
+      }
+    }
 
     // Before: as the car came in, driver in the seat.
     const before = page.getByRole('form', { name: 'Before measurements' });

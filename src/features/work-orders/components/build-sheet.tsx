@@ -185,11 +185,12 @@ function BuildSheetGrid({ workOrder }: { workOrder: WorkOrder }) {
         if (!sheet) return <p className="text-sm text-ink-muted">Not filled in.</p>;
         return (
           <div className="flex flex-col gap-2">
-            <dl className="tabular-figures grid grid-cols-[1fr_auto] gap-x-2 text-sm">
+            {/* Each value under its label: side by side, half a phone's width left each a column a word wide. */}
+            <dl className="tabular-figures flex flex-col gap-1.5 text-sm">
               {BUILD_SHEET_FIELDS.filter((f) => sheet[f] !== null).map((f) => (
-                <div key={f} className="contents">
+                <div key={f}>
                   <dt className="text-ink-muted">{FIELD_INFO[f].label}</dt>
-                  <dd className="text-right break-words">{valueText(f, sheet[f], units)}</dd>
+                  <dd className="font-semibold break-words">{valueText(f, sheet[f], units)}</dd>
                 </div>
               ))}
             </dl>
