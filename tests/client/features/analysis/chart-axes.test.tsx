@@ -3,16 +3,9 @@ import { cleanup, render, screen } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { SeasonResult } from '@shared/analysis/analysis.schema';
 import { SeasonTimeline } from '@/features/analysis/components/season-timeline';
-import { layOutChart, tickLabels, type ScatterProps } from '../../chart-layout';
+import { chartGiven, layOutChart, tickLabels } from '../../chart-layout';
 
-// What the page hands react-chartjs-2, so the test can give the same data and options to Chart.js itself.
-const given = vi.hoisted(() => ({ config: null as null | ScatterProps }));
-vi.mock('react-chartjs-2', () => ({
-  Scatter: (props: ScatterProps & { 'aria-label'?: string }) => {
-    given.config = { data: props.data, options: props.options };
-    return <div role="img" aria-label={props['aria-label']} />;
-  },
-}));
+vi.mock('react-chartjs-2', async () => (await import('../../chart-layout')).chartStandIn);
 
 afterEach(cleanup);
 
@@ -35,7 +28,7 @@ describe('the season timeline\'s axes, as Chart.js lays them out', () => {
   it('when the season runs 12 April to 20 September, then the date axis is ticked on the first of each month within it, labelled by month', async () => {
     render(<SeasonTimeline season={SEASON} renderChanges={() => null} />);
     await screen.findByRole('img', { name: /Best adjusted time per event/ });
-    const chart = layOutChart(given.config!);
+    const chart = layOutChart(chartGiven('Best adjusted time per event'));
     const x = chart.scales.x!;
     expect(x.ticks.map((t) => new Date(t.value).toDateString())).toEqual(
       [5, 6, 7, 8, 9].map((m) => new Date(2026, m - 1, 1).toDateString()),
@@ -47,7 +40,7 @@ describe('the season timeline\'s axes, as Chart.js lays them out', () => {
   it('when the time axis is padded past the data, then its ticks are whole steps only, not the padded ends', async () => {
     render(<SeasonTimeline season={SEASON} renderChanges={() => null} />);
     await screen.findByRole('img', { name: /Best adjusted time per event/ });
-    const chart = layOutChart(given.config!);
+    const chart = layOutChart(chartGiven('Best adjusted time per event'));
     const y = chart.scales.y!;
     // The ends: 44.301 − 0.8886 and 53.187 + 0.8886 (a tenth of the range), neither a round number.
     expect(y.min).toBeCloseTo(44.301 - (53.187 - 44.301) * 0.1, 9);

@@ -13,23 +13,11 @@ import { UnitsProvider } from '@/lib/units-context';
 import { SeasonReviewPage } from '@/app/routes/analysis/season-review';
 import { createTestQueryClient, jsonResponse, requestsTo, stubFetch } from '../../test-utils';
 import { CAR, IDS, list } from '../../fixtures/season';
-import { layOutChart, tickLabels, type ScatterProps } from '../../chart-layout';
+import { chartGiven, layOutChart, tickLabels } from '../../chart-layout';
 
 // A canvas draws nothing in jsdom: stand in for the chart with the datasets it was given, and keep what it was
 // given so a test can hand the same to Chart.js itself.
-const given = vi.hoisted(() => ({ configs: new Map<string, ScatterProps>() }));
-/** What the chart whose description starts so was last given. */
-const chartGiven = (start: string) => [...given.configs].find(([label]) => label.startsWith(start))![1];
-vi.mock('react-chartjs-2', () => ({
-  Scatter: (props: ScatterProps & { 'aria-label'?: string; data: { datasets: { label?: string; data: unknown[] }[] } }) => {
-    given.configs.set(props['aria-label'] ?? '', { data: props.data, options: props.options });
-    return (
-      <div role="img" aria-label={props['aria-label']}>
-        {props.data.datasets.map((d) => `${d.label}: ${d.data.length}`).join('; ')}
-      </div>
-    );
-  },
-}));
+vi.mock('react-chartjs-2', async () => (await import('../../chart-layout')).chartStandIn);
 
 beforeEach(() => dropCsrfToken());
 afterEach(() => {

@@ -2,16 +2,9 @@
 import { cleanup, render, screen } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { TrendChart } from '@/features/teams/components/trend-chart';
-import { layOutChart, tickLabels, type ScatterProps } from '../../chart-layout';
+import { chartGiven, layOutChart, tickLabels } from '../../chart-layout';
 
-// What the board hands react-chartjs-2, so the test can give the same data and options to Chart.js itself.
-const given = vi.hoisted(() => ({ config: null as null | ScatterProps }));
-vi.mock('react-chartjs-2', () => ({
-  Scatter: (props: ScatterProps & { 'aria-label'?: string }) => {
-    given.config = { data: props.data, options: props.options };
-    return <div role="img" aria-label={props['aria-label']} />;
-  },
-}));
+vi.mock('react-chartjs-2', async () => (await import('../../chart-layout')).chartStandIn);
 
 afterEach(cleanup);
 
@@ -21,7 +14,7 @@ describe('the class board\'s trend line, as Chart.js lays it out', () => {
   it('when a car has eight events, then the event axis is numbered 1 to 8, one tick per event and none at the padding', () => {
     render(<TrendChart points={PCT_OFF.map((y, i) => ({ x: i + 1, y, label: `Event ${i + 1}` }))} summary="Trend" />);
     screen.getByRole('img', { name: 'Trend' });
-    const chart = layOutChart(given.config!, { width: 384, height: 128 });
+    const chart = layOutChart(chartGiven('Trend'), { width: 384, height: 128 });
     expect(chart.scales.x!.ticks.map((t) => t.value)).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
     expect(tickLabels(chart, 'x')).toEqual(['1', '2', '3', '4', '5', '6', '7', '8']);
     chart.destroy();
@@ -29,7 +22,7 @@ describe('the class board\'s trend line, as Chart.js lays it out', () => {
 
   it('when a car has one event, then that event alone is ticked', () => {
     render(<TrendChart points={[{ x: 1, y: 0.4, label: 'Event 1' }]} summary="Trend" />);
-    const chart = layOutChart(given.config!, { width: 384, height: 128 });
+    const chart = layOutChart(chartGiven('Trend'), { width: 384, height: 128 });
     expect(tickLabels(chart, 'x')).toEqual(['1']);
     chart.destroy();
   });

@@ -28,3 +28,28 @@ export function tickLabels(chart: Chart<'scatter'>, axis: 'x' | 'y'): string[] {
   const callback = (scale.options as unknown as { ticks: { callback: (this: unknown, value: number, index: number, ticks: unknown[]) => string } }).ticks.callback;
   return scale.ticks.map((t, i) => String(callback.call(scale, t.value, i, scale.ticks)));
 }
+
+/** What each chart on the page was last given, by its description (`aria-label`). */
+export const chartsGiven = new Map<string, ScatterProps>();
+
+/** What the chart whose description starts so was last given. */
+export function chartGiven(start = ''): ScatterProps {
+  const found = [...chartsGiven].find(([label]) => label.startsWith(start));
+  if (!found) throw new Error(`No chart described as "${start}…" was drawn`);
+  return found[1];
+}
+
+/**
+ * Stands in for react-chartjs-2 (a canvas draws nothing in jsdom): shows each dataset's label and number of points,
+ * and keeps what the chart was given. Use as `vi.mock('react-chartjs-2', async () => (await import('…/chart-layout')).chartStandIn)`.
+ */
+export const chartStandIn = {
+  Scatter: (props: ScatterProps & { 'aria-label'?: string }) => {
+    chartsGiven.set(props['aria-label'] ?? '', { data: props.data, options: props.options });
+    return (
+      <div role="img" aria-label={props['aria-label']}>
+        {props.data.datasets.map((d) => `${d.label}: ${d.data.length}`).join('; ')}
+      </div>
+    );
+  },
+};
