@@ -126,7 +126,7 @@ export async function listCustomers(ds: DataSource, user: User, shopId: string):
               FROM runs r JOIN events e ON e.id = r.event_id
              WHERE r.car_id = c.id ORDER BY 1 DESC LIMIT 1)
            UNION ALL
-           (SELECT LEAST(s.effective_from, s.created_at), 'setup', 'Setup: ' || s.label
+           (SELECT LEAST(s.effective_from, s.created_at), 'setup', 'New setup “' || s.label || '”'
               FROM setup_snapshots s WHERE s.car_id = c.id ORDER BY 1 DESC LIMIT 1)
            UNION ALL
            (SELECT LEAST(t.taken_at, t.created_at), 'tread_reading', 'Tread reading on ' || ts.label

@@ -133,7 +133,7 @@ describe('GET /api/shops/:shopId/customers', () => {
     const latest = async () => (await staff.c.get(`/api/shops/${shopId}/customers`)).body.items[0];
 
     const base = await postSetup(driver.c, driver.carId, { label: 'Spring baseline', effectiveFrom: '2026-04-01T00:00:00Z' });
-    expect((await latest()).latestActivity).toEqual({ at: '2026-04-01T00:00:00.000Z', kind: 'setup', summary: 'Setup: Spring baseline' });
+    expect((await latest()).latestActivity).toEqual({ at: '2026-04-01T00:00:00.000Z', kind: 'setup', summary: 'New setup “Spring baseline”' });
 
     await postRun(driver.c, driver.carId, driver.eventId, { runNumber: 3, recordedAt: '2026-04-12T10:00:00Z' });
     expect((await latest()).latestActivity).toEqual({ at: '2026-04-12T10:00:00.000Z', kind: 'run', summary: 'Run 3 at Spring points round 1' });
