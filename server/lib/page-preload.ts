@@ -12,8 +12,11 @@ import { readBuildManifest, staticClosure } from './build-manifest';
  * The address patterns follow the client's routes (src/app/router.tsx); tests/client/app/page-preload-routes.test.tsx
  * checks that each one still leads the client router to the module named here.
  */
+/** The trackside page's address; its one group is the event's id, which `pageReads` reads. */
+const EVENT_DAY = /^\/events\/([^/]+)\/?$/;
+
 export const PAGE_MODULES: readonly { pattern: RegExp; module: string; example: string }[] = [
-  { pattern: /^\/events\/[^/]+\/?$/, module: 'src/app/routes/events/event-day.tsx', example: '/events/e1' },
+  { pattern: EVENT_DAY, module: 'src/app/routes/events/event-day.tsx', example: '/events/e1' },
   { pattern: /^\/events\/?$/, module: 'src/app/routes/events/events.tsx', example: '/events' },
   { pattern: /^\/cars\/[^/]+\/?$/, module: 'src/app/routes/cars/car.tsx', example: '/cars/c1' },
   { pattern: /^\/cars\/?$/, module: 'src/app/routes/cars/cars.tsx', example: '/cars' },
@@ -57,7 +60,7 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
  */
 export function pageReads(path: string, search: URLSearchParams): string[] {
   const reads: string[] = [firstReads.me];
-  const eventId = /^\/events\/([^/]+)\/?$/.exec(path)?.[1];
+  const eventId = EVENT_DAY.exec(path)?.[1];
   if (eventId && UUID.test(eventId)) {
     reads.push(firstReads.cars, firstReads.event(eventId));
     const carId = search.get('carId');
