@@ -105,7 +105,9 @@ describe('new car', () => {
     expect(Object.fromEntries(new URLSearchParams(router.state.location.search))).toEqual({ carId, driverId: user().id });
     // No picker in between: the board is open on the car still waiting to upload.
     expect(await screen.findByRole('region', { name: 'Log a run' })).toBeTruthy();
-    expect(screen.getByRole('button', { name: 'Change car or driver' })).toBeTruthy();
+    expect(screen.getByRole('region', { name: 'Log a run' }).textContent).toContain(user().displayName);
+    // Their only car, which only they drive: there is nothing else to change to.
+    expect(screen.queryByRole('button', { name: 'Change car or driver' })).toBeNull();
     // Going back from the event is not back into the form.
     expect(screen.queryByRole('button', { name: 'Save car' })).toBeNull();
   });
