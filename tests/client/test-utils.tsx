@@ -60,6 +60,8 @@ export function stubFetch(routes: StubRoutes): Mock<typeof fetch> {
     'GET /api/auth/csrf': () => jsonResponse(200, { token: CSRF_TOKEN }),
     // The bell in the top bar asks on every signed-in page.
     'GET /api/notifications/unread-count': () => jsonResponse(200, { unread: 0 }),
+    // So does Home, for the links to each team's class board.
+    'GET /api/teams/mine': () => jsonResponse(200, { items: [], count: 0 }),
     ...routes,
   };
   const mock = vi.fn<typeof fetch>(async (input, init) => {

@@ -108,8 +108,9 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
 
   it('when the captain opens the class board, then the three demo cars are there, each in its class', async () => {
     const page = await signInAs('ines@example.com', 'Ines Brandvold');
-    await page.goto(`${baseUrl}/teams`);
-    await page.getByRole('link', { name: /board/i }).first().click();
+    // From Home, one tap: the team's board is listed there for its captain.
+    await page.goto(baseUrl);
+    await page.getByRole('link', { name: /^Gravel Pit Irregulars: class board/ }).click();
     await page.getByRole('heading', { name: 'Class board' }).waitFor({ timeout: 20_000 });
     const sr = page.getByRole('region', { name: 'Class SR' });
     const sh = page.getByRole('region', { name: 'Class SH' });

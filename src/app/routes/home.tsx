@@ -9,6 +9,8 @@ import { describeRoles } from '@/features/auth/utils/describe-roles';
 import { SyncStatus } from '@/features/sync/components/sync-status';
 import { CarList } from '@/features/cars/components/car-list';
 import { CurrentEventCard } from '@/features/events/components/current-event-card';
+import { useMyTeams } from '@/features/teams/api/get-my-teams';
+import { recordPath } from '@/config/record-paths';
 
 function HomeLink({ to, title, children }: { to: string; title: string; children: ReactNode }) {
   return (
@@ -24,13 +26,43 @@ function HomeLink({ to, title, children }: { to: string; title: string; children
 
 export function HomePage() {
   const { data: user } = useMe();
+  // Each team's class board one tap from here; offline or not yet answered, the Teams link still leads to them.
+  const { data: teams } = useMyTeams();
   if (!user) return null;
   const roles = describeRoles(user.roles);
   const staff = user.roles.includes('shop_staff');
   const admin = user.roles.includes('admin');
+  const captain = user.roles.includes('team_captain');
   // "Teams", "Shop and teams", "Teams and accounts", "Shop, teams, and accounts".
   const links = new Intl.ListFormat('en', { type: 'conjunction' }).format([...(staff ? ['shop'] : []), 'teams', ...(admin ? ['accounts'] : [])]);
   const linksTitle = links[0]!.toUpperCase() + links.slice(1);
+
+  const linksCard = (
+    <SectionCard title={linksTitle}>
+      <nav aria-label={linksTitle} className="flex flex-col gap-2">
+        {staff ? (
+          <HomeLink to={paths.shop} title="Your shop">
+            Customers’ cars, suggestions and staff
+          </HomeLink>
+        ) : null}
+        {teams?.items.map((team) => (
+          <HomeLink key={team.id} to={recordPath.classBoard(team.id)} title={`${team.name}: class board`}>
+            Each team car’s best times against its class
+          </HomeLink>
+        ))}
+        <HomeLink to={paths.teams} title="Teams">
+          Your teams and their class boards
+        </HomeLink>
+        {admin ? (
+          <HomeLink to={paths.accounts} title="Accounts">
+            Find an account; suspend or restore its sign-in
+          </HomeLink>
+        ) : null}
+      </nav>
+    </SectionCard>
+  );
+  // A captain or the shop's staff come here for the board or the customers more than for a car of their own.
+  const linksFirst = captain || staff;
 
   return (
     <div className="flex flex-col gap-6">
@@ -45,6 +77,7 @@ export function HomePage() {
             <CurrentEventCard />
           </SectionCard>
         </SectionBoundary>
+        {linksFirst ? linksCard : null}
         <SectionBoundary title="Sync">
           <SectionCard title="Sync">
             <SyncStatus />
@@ -55,23 +88,7 @@ export function HomePage() {
             <CarList currentUserId={user.id} />
           </SectionCard>
         </SectionBoundary>
-        <SectionCard title={linksTitle}>
-          <nav aria-label={linksTitle} className="flex flex-col gap-2">
-            {staff ? (
-              <HomeLink to={paths.shop} title="Your shop">
-                Customers’ cars, suggestions and staff
-              </HomeLink>
-            ) : null}
-            <HomeLink to={paths.teams} title="Teams">
-              Your teams and their class boards
-            </HomeLink>
-            {admin ? (
-              <HomeLink to={paths.accounts} title="Accounts">
-                Find an account; suspend or restore its sign-in
-              </HomeLink>
-            ) : null}
-          </nav>
-        </SectionCard>
+        {linksFirst ? null : linksCard}
       </div>
     </div>
   );

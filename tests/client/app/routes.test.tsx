@@ -131,6 +131,23 @@ describe('routes', () => {
     expect(screen.getByRole('status').textContent).toContain('All saved');
   });
 
+  it('when a captain opens Home, then each of their teams\' class boards is one tap away, above their cars', async () => {
+    const teamId = 'd1111111-1111-4111-8111-111111111111';
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
+      'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
+      'GET /api/teams/mine': jsonResponse(200, { items: [{ id: teamId, name: 'Late Brakers', isCaptain: true }], count: 1 }),
+    });
+    renderApp('/');
+
+    const board = await screen.findByRole('link', { name: /^Late Brakers: class board/ });
+    expect(board.getAttribute('href')).toBe(`/teams/${teamId}/board`);
+    const names = screen.getAllByRole('region').map((r) => within(r).getByRole('heading').textContent);
+    expect(names.indexOf('Teams')).toBeGreaterThan(-1);
+    expect(names.indexOf('Teams')).toBeLessThan(names.indexOf('Your cars'));
+  });
+
   it('when a signed-in user opens the sign-in page, then they go straight to Home', async () => {
     stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: SAM }) });
     const { router } = renderApp('/sign-in');
