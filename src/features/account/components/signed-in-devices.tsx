@@ -74,52 +74,59 @@ export function SignedInDevices() {
     setTarget(next);
   };
 
+  const confirm = (t: Target) => (
+    <ConfirmSignOut
+      key={t.kind === 'one' ? t.device.id : 'others'}
+      target={t}
+      onCancel={() => setTarget(null)}
+      onDone={(n) => {
+        setTarget(null);
+        setEnded(n);
+      }}
+    />
+  );
+
   return (
     <div className="flex flex-col gap-3">
       <p className="text-sm text-ink-muted">
         Where this account is signed in now. Sign out a phone you lost or a computer you shared; it will need the password to sign in again.
       </p>
-      <ul className="flex flex-col gap-2" aria-label="Signed-in devices">
-        {devices.data.map((d) => (
-          <li key={d.id} className="flex flex-wrap items-center justify-between gap-2 rounded border border-line p-3">
-            <div className="flex min-w-0 flex-col">
-              <p className="font-semibold">
-                {nameOf(d)}
-                {d.current ? <span className="ml-2 rounded bg-accent-soft px-2 py-0.5 text-sm font-bold">This device</span> : null}
-              </p>
-              <p className="tabular-figures text-sm text-ink-muted">
-                {d.signedInAt ? `Signed in ${formatDay(d.signedInAt)} · ` : ''}last active {formatDateTime(d.lastActiveAt)}
-              </p>
-            </div>
-            {d.current ? null : (
-              <Button variant="secondary" className="px-3" onClick={() => choose({ kind: 'one', device: d })}>
-                Sign out<span className="sr-only"> {nameOf(d)}</span>
-              </Button>
-            )}
-          </li>
-        ))}
-      </ul>
-      {others.length > 1 ? (
-        <Button variant="secondary" className="self-start" onClick={() => choose({ kind: 'others', count: others.length })}>
-          Sign out all other devices
-        </Button>
-      ) : null}
-      {target ? (
-        <ConfirmSignOut
-          key={target.kind === 'one' ? target.device.id : 'others'}
-          target={target}
-          onCancel={() => setTarget(null)}
-          onDone={(n) => {
-            setTarget(null);
-            setEnded(n);
-          }}
-        />
-      ) : null}
       {ended !== null ? (
         <p role="status" className="rounded border border-line bg-success-surface p-3 font-semibold text-success">
           Signed out: {ended === 1 ? '1 device' : `${ended} devices`}.
         </p>
       ) : null}
+      {/* Above the list, which can be long: the way out for every other device is not at its far end. */}
+      {others.length > 1 ? (
+        <Button variant="secondary" className="self-start" onClick={() => choose({ kind: 'others', count: others.length })}>
+          Sign out all other devices
+        </Button>
+      ) : null}
+      {target?.kind === 'others' ? confirm(target) : null}
+      <ul className="flex flex-col gap-2" aria-label="Signed-in devices">
+        {devices.data.map((d) => (
+          <li key={d.id} className="flex flex-col gap-3 rounded border border-line p-3">
+            <div className="flex flex-wrap items-center justify-between gap-2">
+              <div className="flex min-w-0 flex-col">
+                <p className="font-semibold">
+                  {nameOf(d)}
+                  {d.current ? <span className="ml-2 rounded bg-accent-soft px-2 py-0.5 text-sm font-bold">This device</span> : null}
+                </p>
+                <p className="tabular-figures text-sm text-ink-muted">
+                  {d.signedInAt ? `Signed in ${formatDay(d.signedInAt)} · ` : ''}last active {formatDateTime(d.lastActiveAt)}
+                </p>
+              </div>
+              {d.current ? null : (
+                <Button variant="secondary" className="px-3" onClick={() => choose({ kind: 'one', device: d })}>
+                  Sign out<span className="sr-only"> {nameOf(d)}</span>
+                </Button>
+              )}
+            </div>
+            {/* The question opens under the device it is about. */}
+            {target?.kind === 'one' && target.device.id === d.id ? confirm(target) : null}
+          </li>
+        ))}
+      </ul>
     </div>
   );
 }

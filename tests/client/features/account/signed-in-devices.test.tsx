@@ -46,9 +46,12 @@ describe('signed-in devices in settings', () => {
 
   it('when one device is signed out with the password, then only its id and the password are sent, the list is read again and the page says how many', async () => {
     const { fetchMock, u } = open(jsonResponse(200, { ended: 1 }));
-    await u.click(await screen.findByRole('button', { name: 'Sign out Safari on iOS' }));
+    const button = await screen.findByRole('button', { name: 'Sign out Safari on iOS' });
+    await u.click(button);
     const confirm = within(screen.getByRole('form', { name: 'Confirm signing out' }));
     expect(confirm.getByText(/Sign out Safari on iOS\?/)).toBeTruthy();
+    // The question opens under the device it is about, not after the whole list.
+    expect(within(button.closest('li')!).getByRole('form', { name: 'Confirm signing out' })).toBeTruthy();
     expect(document.activeElement).toBe(confirm.getByLabelText('Your password'));
     await u.type(confirm.getByLabelText('Your password'), 'cold tyres warm coffee');
     await u.click(confirm.getByRole('button', { name: 'Sign out' }));
@@ -63,9 +66,14 @@ describe('signed-in devices in settings', () => {
 
   it('when all other devices are signed out, then no device is named in the request', async () => {
     const { fetchMock, u } = open(jsonResponse(200, { ended: 2 }));
-    await u.click(await screen.findByRole('button', { name: 'Sign out all other devices' }));
+    const all = await screen.findByRole('button', { name: 'Sign out all other devices' });
+    // Above the list, which can be long, with its question.
+    const list = screen.getByRole('list', { name: 'Signed-in devices' });
+    expect(all.compareDocumentPosition(list) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    await u.click(all);
     const confirm = within(screen.getByRole('form', { name: 'Confirm signing out' }));
     expect(confirm.getByText(/Sign out all 2 other devices\?/)).toBeTruthy();
+    expect(screen.getByRole('form', { name: 'Confirm signing out' }).compareDocumentPosition(list) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
     await u.type(confirm.getByLabelText('Your password'), 'cold tyres warm coffee');
     await u.click(confirm.getByRole('button', { name: 'Sign out' }));
     expect((await section().findByRole('status')).textContent).toBe('Signed out: 2 devices.');
