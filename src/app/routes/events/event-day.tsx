@@ -144,7 +144,12 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarV
         </div>
         {quickChange && !moment.dayOver ? (
           <Suspense fallback={<p className="text-ink-muted">Opening…</p>}>
-            <QuickChangePanel carId={car.id} setups={setups} onDone={() => setQuickChange(false)} />
+            <QuickChangePanel
+              carId={car.id}
+              dampers={{ front: car.damperAdjusters.front !== null, rear: car.damperAdjusters.rear !== null }}
+              setups={setups}
+              onDone={() => setQuickChange(false)}
+            />
           </Suspense>
         ) : null}
       </section>

@@ -47,6 +47,7 @@ function toSi(value: number, quantity: Quantity | null, units: UnitPreferences):
 }
 
 const FIELD_OPTIONS = QUICK_CHANGE_FIELDS.map((f) => ({ value: f, label: FIELD_INFO[f].label }));
+const CLICK_FIELDS: readonly QuickField[] = ['damperClicks', 'damperReboundClicks'];
 
 function whereWords(corners: Corner[]): string {
   const preset = PRESETS.find((p) => p.corners.length === corners.length && p.corners.every((c) => corners.includes(c)));
@@ -67,11 +68,27 @@ function describeLine(line: ChangeLine, amount: number, units: UnitPreferences):
   return `${whereWords(line.corners)} ${label.toLowerCase()} ${text}`;
 }
 
+/** Which axles have adjustable dampers: the car's own count of clicks, left empty where they are fixed. */
+export type AdjustableDampers = { front: boolean; rear: boolean };
+
+/**
+ * The first thing offered: clicks on the axles whose dampers adjust (the commonest change between heats), or,
+ * on a car with fixed dampers, cold pressures all round.
+ */
+function firstChange(dampers: AdjustableDampers): Pick<ChangeLine, 'field' | 'corners'> {
+  if (dampers.front && dampers.rear) return { field: 'damperClicks', corners: ['lf', 'rf', 'lr', 'rr'] };
+  if (dampers.front) return { field: 'damperClicks', corners: ['lf', 'rf'] };
+  if (dampers.rear) return { field: 'damperClicks', corners: ['lr', 'rr'] };
+  return { field: 'coldPressureKpa', corners: ['lf', 'rf', 'lr', 'rr'] };
+}
+
 let nextLineId = 1;
-const newLine = (): ChangeLine => ({ id: nextLineId++, field: 'damperClicks', corners: ['lf', 'rf', 'lr', 'rr'], mode: 'delta', amount: '' });
+const newLine = (dampers: AdjustableDampers): ChangeLine => ({ id: nextLineId++, ...firstChange(dampers), mode: 'delta', amount: '' });
 
 interface QuickChangePanelProps {
   carId: string;
+  /** Clicks are offered only where they exist; a car with none starts on pressures. */
+  dampers: AdjustableDampers;
   /** Saved and pending snapshots of the car, newest first. */
   setups: readonly SetupView[];
   onDone: () => void;
@@ -81,14 +98,18 @@ interface QuickChangePanelProps {
  * A small change between runs — clicks, pressures, camber — saved as a new snapshot derived from
  * the one in force, through the outbox, stamped with the time of the tap.
  */
-export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProps) {
+export function QuickChangePanel({ carId, dampers, setups, onDone }: QuickChangePanelProps) {
   const units = useUnits();
   const write = useQuickChange();
-  const [lines, setLines] = useState<ChangeLine[]>(() => [newLine()]);
+  const [lines, setLines] = useState<ChangeLine[]>(() => [newLine(dampers)]);
   const [notes, setNotes] = useState('');
   const [errors, setErrors] = useState<Record<number, string>>({});
   const [formError, setFormError] = useState<string | null>(null);
   const base = setupInForce(setups, new Date().toISOString());
+  // Fixed dampers have no clicks to change, unless the setup in force records some all the same.
+  const hasClicks =
+    dampers.front || dampers.rear || CORNERS.some((c) => CLICK_FIELDS.some((f) => base?.corners[c]?.[f] !== null && base?.corners[c]?.[f] !== undefined));
+  const fieldOptions = hasClicks ? FIELD_OPTIONS : FIELD_OPTIONS.filter((o) => !CLICK_FIELDS.includes(o.value));
 
   const update = (id: number, patch: Partial<ChangeLine>) => {
     setLines((ls) => ls.map((l) => (l.id === id ? { ...l, ...patch } : l)));
@@ -147,7 +168,7 @@ export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProp
     }
     await write.mutateAsync(quickChangeEntry(carId, body));
     toast({ tone: 'success', title: 'Quick change saved', description: body.label });
-    setLines([newLine()]);
+    setLines([newLine(dampers)]);
     setNotes('');
     onDone();
   };
@@ -180,7 +201,7 @@ export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProp
                 className="flex-1"
                 label="What"
                 value={line.field}
-                options={FIELD_OPTIONS}
+                options={fieldOptions}
                 onChange={(e) => update(line.id, { field: e.target.value as QuickField, amount: '' })}
               />
               {lines.length > 1 ? (
@@ -305,7 +326,7 @@ export function QuickChangePanel({ carId, setups, onDone }: QuickChangePanelProp
         );
       })}
       <div>
-        <Button variant="quiet" onClick={() => setLines((ls) => [...ls, newLine()])}>
+        <Button variant="quiet" onClick={() => setLines((ls) => [...ls, newLine(dampers)])}>
           <Plus aria-hidden="true" className="size-5" /> Another change
         </Button>
       </div>

@@ -516,6 +516,37 @@ describe('event day', () => {
     expect(within(shown.getByRole('group', { name: 'Right rear' })).getByText('—')).toBeTruthy();
   });
 
+  it('when the car\'s dampers are fixed, then a quick change starts on cold pressures all round and offers no clicks', async () => {
+    const fixed = { ...CAR, damperAdjusters: { front: null, rear: null } };
+    const noClicks = { ...BASE_SETUP, corners: Object.fromEntries(Object.entries(BASE_SETUP.corners).map(([c, v]) => [c, { ...v, damperClicks: null, damperReboundClicks: null }])) };
+    stubWithRuns([], { setups: [noClicks as typeof BASE_SETUP], extra: { ...TODAY_EVENT(), 'GET /api/cars': list([fixed]) } });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+
+    const what = within(form).getByLabelText('What') as HTMLSelectElement;
+    expect(what.value).toBe('coldPressureKpa');
+    expect([...what.options].map((o) => o.value)).not.toContain('damperClicks');
+    expect([...what.options].map((o) => o.value)).not.toContain('damperReboundClicks');
+    expect(within(form).getByRole('button', { name: 'All four' }).getAttribute('aria-pressed')).toBe('true');
+  });
+
+  it('when only the front dampers adjust, then a quick change starts on front clicks', async () => {
+    const frontOnly = { ...CAR, damperAdjusters: { front: CAR.damperAdjusters.front, rear: null } };
+    stubWithRuns([], { extra: { ...TODAY_EVENT(), 'GET /api/cars': list([frontOnly]) } });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+
+    expect((within(form).getByLabelText('What') as HTMLSelectElement).value).toBe('damperClicks');
+    expect(within(form).getByRole('button', { name: 'Front' }).getAttribute('aria-pressed')).toBe('true');
+    expect(within(form).getByRole('button', { name: 'All four' }).getAttribute('aria-pressed')).toBe('false');
+  });
+
   it('when a quick change sets the rear to one click, then its label reads "1 click", not "1 clicks"', async () => {
     stubWithRuns([], { extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
