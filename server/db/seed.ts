@@ -57,8 +57,9 @@ export async function seedDemo(ds: DataSource): Promise<void> {
 
 /**
  * Who shares what in the demo: Maren lets the shop see Pebble; the three demo cars are entered
- * in the team, Pebble with its setup shared, the others with their results only. The captain has entered this season's class
- * factors for the team's own reckoning (invented numbers, as the app ships none).
+ * in the team, Pebble with its setup shared, the others with their results only. The captain
+ * has entered this season's class factors for the team's own reckoning (invented numbers, as
+ * the app ships none).
  */
 async function seedDemoCollaboration(
   m: EntityManager,
