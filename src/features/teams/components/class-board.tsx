@@ -35,20 +35,21 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
   const num = 'tabular-figures px-2 py-2 text-right whitespace-nowrap';
   return (
     // On a phone the event column stays put while the numbers scroll past it.
-    <SideScroll label={`Results of ${car.car.name}`} more="adjusted times, index times and rank">
+    <SideScroll label={`Results of ${car.car.name}`} more="raw times and index times">
       <table className="w-full min-w-[36rem] border-collapse text-left text-sm">
         <thead>
           <tr className="border-b border-line text-ink-muted">
             <th scope="col" className="sticky left-0 bg-surface py-2 pr-2 font-semibold">
               Event, date, driver
             </th>
-            <th scope="col" className={head}>Best raw (s)</th>
+            {/* What the class is compared on comes first, on a phone's first screen; raw and index follow. */}
             <th scope="col" className={head}>
               Best adjusted (s)<span className="block text-xs font-normal">cones counted</span>
             </th>
-            <th scope="col" className={head}>Index (s)</th>
             <th scope="col" className={head}>Off class fastest</th>
             <th scope="col" className={head}>Rank</th>
+            <th scope="col" className={head}>Best raw (s)</th>
+            <th scope="col" className={head}>Index (s)</th>
           </tr>
         </thead>
         <tbody>
@@ -60,11 +61,11 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
                   {formatDay(r.date)} · {r.driver.displayName}
                 </span>
               </th>
-              <td className={num}>{boardTime(r.bestRawSec)}</td>
               <td className={`${num} font-bold`}>{boardTime(r.bestAdjustedSec)}</td>
-              <td className={num}>{hasFactor ? boardTime(r.indexSec) : '—'}</td>
               <td className={num}>{r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}</td>
               <td className={num}>{r.rankInClass ?? '—'}</td>
+              <td className={num}>{boardTime(r.bestRawSec)}</td>
+              <td className={num}>{hasFactor ? boardTime(r.indexSec) : '—'}</td>
             </tr>
           ))}
         </tbody>

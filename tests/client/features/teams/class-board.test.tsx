@@ -41,15 +41,17 @@ describe('class board', () => {
     expect(within(classSection('SM')).getByText('No factor entered for 2026')).toBeTruthy();
     const [round3, round4] = rowsOf('Grey roadster');
     expect(rowHeader(round3!)).toMatch(/^Harrow Flats — Round 3.+ · Maren Holt$/);
-    expect(cells(round3!)).toEqual(['45.600', '47.600', '—', '+1.20 %', '2']);
-    expect(cells(round4!).slice(0, 3)).toEqual(['44.900', '44.900', '—']);
+    // Adjusted, off the class's fastest and rank first (what the class is compared on), then raw and index.
+    expect(cells(round3!)).toEqual(['47.600', '+1.20 %', '2', '45.600', '—']);
+    const r4 = cells(round4!);
+    expect([r4[0], r4[3], r4[4]]).toEqual(['44.900', '44.900', '—']);
 
     // STR has a factor of 0.853: the server's index time is shown; past 60 s times read as minutes.
     expect(within(classSection('STR')).getByText('Factor 0.853')).toBeTruthy();
     const [ines] = rowsOf('White roadster');
-    expect(cells(ines!)).toEqual(['1:01.250', '1:03.250', '53.952', '0.00 %', '1']);
-    // On a phone the columns after the raw time are off to the right: each table says so.
-    expect(screen.getAllByText('Swipe the table sideways for adjusted times, index times and rank.')).toHaveLength(screen.getAllByRole('region', { name: /^Results of / }).length);
+    expect(cells(ines!)).toEqual(['1:03.250', '0.00 %', '1', '1:01.250', '53.952']);
+    // On a phone the raw and index columns are off to the right: each table says so.
+    expect(screen.getAllByText('Swipe the table sideways for raw times and index times.')).toHaveLength(screen.getAllByRole('region', { name: /^Results of / }).length);
   });
 
   it('when a car shares results only, then its setup is hidden; when it shares its setup, then the values show in the user’s units', async () => {
