@@ -31,7 +31,7 @@ function trendPoints(results: readonly BoardResult[]): TrendPoint[] {
 
 function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean }) {
   const results = [...car.results].sort(byDate);
-  const head = 'px-2 py-2 text-right font-semibold whitespace-nowrap';
+  const head = 'px-2 py-2 text-right align-bottom font-semibold';
   const num = 'tabular-figures px-2 py-2 text-right whitespace-nowrap';
   return (
     // On a phone the event column stays put while the numbers scroll past it.
@@ -44,9 +44,11 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
             </th>
             {/* What the class is compared on comes first, on a phone's first screen; raw and index follow. */}
             <th scope="col" className={head}>
-              Best adjusted (s)<span className="block text-xs font-normal">cones counted</span>
+              Adjusted (s)<span className="block text-xs font-normal">best, cones counted</span>
             </th>
-            <th scope="col" className={head}>Off class fastest</th>
+            <th scope="col" className={head}>
+              Off fastest<span className="block text-xs font-normal">in class</span>
+            </th>
             <th scope="col" className={head}>Rank</th>
             <th scope="col" className={head}>Best raw (s)</th>
             <th scope="col" className={head}>Index (s)</th>
@@ -55,7 +57,7 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
         <tbody>
           {results.map((r) => (
             <tr key={`${r.eventId}-${r.driver.id}`} className="border-b border-line align-top">
-              <th scope="row" className="sticky left-0 max-w-44 min-w-36 bg-surface py-2 pr-2 text-left font-normal">
+              <th scope="row" className="sticky left-0 max-w-40 min-w-32 bg-surface py-2 pr-2 text-left font-normal">
                 <span className="block font-semibold break-words">{r.eventName}</span>
                 <span className="block text-xs text-ink-muted">
                   {formatDay(r.date)} · {r.driver.displayName}
