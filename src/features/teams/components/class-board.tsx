@@ -36,7 +36,7 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
   return (
     // On a phone the event column stays put while the numbers scroll past it.
     <SideScroll label={`Results of ${car.car.name}`} more="raw times and index times">
-      <table className="w-full min-w-[36rem] border-collapse text-left text-sm">
+      <table className="w-full border-collapse text-left text-sm">
         <thead>
           <tr className="border-b border-line text-ink-muted">
             <th scope="col" className="sticky left-0 bg-surface py-2 pr-2 font-semibold">
