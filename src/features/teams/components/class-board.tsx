@@ -44,10 +44,12 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
             </th>
             {/* What the class is compared on comes first, on a phone's first screen; raw and index follow. */}
             <th scope="col" className={head}>
-              Adjusted (s)<span className="block text-xs font-normal">best, cones counted</span>
+              <span className="whitespace-nowrap">Adjusted (s)</span>
+              <span className="block text-xs font-normal">best, cones in</span>
             </th>
             <th scope="col" className={head}>
-              Off fastest<span className="block text-xs font-normal">in class</span>
+              <span className="whitespace-nowrap">Off fastest</span>
+              <span className="block text-xs font-normal">in class</span>
             </th>
             <th scope="col" className={head}>Rank</th>
             <th scope="col" className={head}>Best raw (s)</th>
@@ -57,7 +59,7 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
         <tbody>
           {results.map((r) => (
             <tr key={`${r.eventId}-${r.driver.id}`} className="border-b border-line align-top">
-              <th scope="row" className="sticky left-0 max-w-40 min-w-32 bg-surface py-2 pr-2 text-left font-normal">
+              <th scope="row" className="sticky left-0 max-w-40 min-w-28 bg-surface py-2 pr-2 text-left font-normal">
                 <span className="block font-semibold break-words">{r.eventName}</span>
                 <span className="block text-xs text-ink-muted">
                   {formatDay(r.date)} · {r.driver.displayName}
