@@ -31,8 +31,8 @@ function trendPoints(results: readonly BoardResult[]): TrendPoint[] {
 
 function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean }) {
   const results = [...car.results].sort(byDate);
-  const head = 'px-2 py-2 text-right align-bottom font-semibold';
-  const num = 'tabular-figures px-2 py-2 text-right whitespace-nowrap';
+  const head = 'px-1.5 py-2 text-right align-bottom font-semibold';
+  const num = 'tabular-figures px-1.5 py-2 text-right whitespace-nowrap';
   return (
     // On a phone the event column stays put while the numbers scroll past it.
     <SideScroll label={`Results of ${car.car.name}`} more="raw times and index times">
@@ -59,7 +59,7 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
         <tbody>
           {results.map((r) => (
             <tr key={`${r.eventId}-${r.driver.id}`} className="border-b border-line align-top">
-              <th scope="row" className="sticky left-0 max-w-40 min-w-28 bg-surface py-2 pr-2 text-left font-normal">
+              <th scope="row" className="sticky left-0 max-w-40 min-w-32 bg-surface py-2 pr-2 text-left font-normal">
                 <span className="block font-semibold break-words">{r.eventName}</span>
                 <span className="block text-xs text-ink-muted">
                   {formatDay(r.date)} · {r.driver.displayName}
