@@ -45,7 +45,7 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
             {/* What the class is compared on comes first, on a phone's first screen; raw and index follow. */}
             <th scope="col" className={head}>
               <span className="whitespace-nowrap">Adjusted (s)</span>
-              <span className="block text-xs font-normal">best, cones in</span>
+              <span className="block text-xs font-normal">best, with cones</span>
             </th>
             <th scope="col" className={head}>
               <span className="whitespace-nowrap">Off fastest</span>
