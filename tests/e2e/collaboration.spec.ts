@@ -119,6 +119,14 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
     await sh.getByText('Biscuit Tin').first().waitFor();
     // Pebble shares its setup; Gooseberry and Biscuit Tin share results only.
     await sr.getByRole('table', { name: 'Setup of Pebble' }).waitFor();
+    // On the phone's first screen, beside each event: the adjusted time and its gap to the class's fastest, what the
+    // class is compared on; raw and index times are a swipe away.
+    const results = sr.getByRole('region', { name: 'Results of Pebble' });
+    const box = (await results.boundingBox())!;
+    for (const head of [/^Adjusted \(s\)/, /^Off fastest/]) {
+      const cell = (await results.getByRole('columnheader', { name: head }).boundingBox())!;
+      expect(cell.x + cell.width, String(head)).toBeLessThanOrEqual(box.x + box.width + 1);
+    }
     await sh.getByText(/setup not shared/i).first().waitFor();
     const sideways = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(sideways).toBeLessThanOrEqual(0);
