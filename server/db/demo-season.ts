@@ -63,6 +63,20 @@ const at = (date: string, time: string) => new Date(`${date}T${time}:00Z`);
 const round = (n: number, step: number) => Math.round(n / step) * step;
 const fix = (n: number, digits: number) => Number(n.toFixed(digits));
 
+/** A setup snapshot with its four corners; its id. */
+async function saveSnapshot(m: EntityManager, carId: string, label: string, effectiveFrom: Date, values: Values, opts: {
+  createdBy: string; derivedFromId: string | null; notes?: string; arb: [string, string];
+}): Promise<string> {
+  const s = await m.getRepository(SetupSnapshotEntity).save({
+    carId, label, effectiveFrom, createdBy: opts.createdBy, derivedFromId: opts.derivedFromId,
+    notes: opts.notes ?? null, frontAntiRollBar: opts.arb[0], rearAntiRollBar: opts.arb[1],
+  } as SetupSnapshotEntity);
+  for (const corner of CORNERS) {
+    await m.getRepository(SetupCornerEntity).save({ setupId: s.id, corner, ...values[corner] } as SetupCornerEntity);
+  }
+  return s.id;
+}
+
 /** Roughly normal noise from a seeded generator (the sum of three uniforms), sd ≈ spread / 1.7. */
 function noiseFrom(rng: () => number): (spread: number) => number {
   return (spread) => (rng() + rng() + rng() - 1.5) * (spread / 0.5);
@@ -113,18 +127,7 @@ export async function seedDemoSeason(m: EntityManager, people: DemoPeople): Prom
   } as CarEntity);
 
   // ---------- setups ----------
-  async function snapshot(carId: string, label: string, effectiveFrom: Date, values: Values, opts: {
-    createdBy: string; derivedFromId: string | null; notes?: string; arb: [string, string];
-  }) {
-    const s = await m.getRepository(SetupSnapshotEntity).save({
-      carId, label, effectiveFrom, createdBy: opts.createdBy, derivedFromId: opts.derivedFromId,
-      notes: opts.notes ?? null, frontAntiRollBar: opts.arb[0], rearAntiRollBar: opts.arb[1],
-    } as SetupSnapshotEntity);
-    for (const corner of CORNERS) {
-      await m.getRepository(SetupCornerEntity).save({ setupId: s.id, corner, ...values[corner] } as SetupCornerEntity);
-    }
-    return s.id;
-  }
+  const snapshot = saveSnapshot.bind(null, m);
   const clone = (v: Values): Values => structuredClone(v);
 
   let roadsterValues: Values = {
@@ -310,7 +313,7 @@ export async function seedDemoSeason(m: EntityManager, people: DemoPeople): Prom
     await treadReading(hatchSet.id, at(day.date, '17:10'), event.id, hatchPositions, hatchTread, people.secondDriver);
   }
 
-  await seedClassRival(m, people, eventIds, snapshot);
+  await seedClassRival(m, people, eventIds);
 }
 
 /**
@@ -322,7 +325,6 @@ async function seedClassRival(
   m: EntityManager,
   people: DemoPeople,
   eventIds: string[],
-  snapshot: (carId: string, label: string, effectiveFrom: Date, values: Values, opts: { createdBy: string; derivedFromId: string | null; notes?: string; arb: [string, string] }) => Promise<string>,
 ): Promise<void> {
   const rng = seedrandom(`${DEMO_SEED}/class-rival`);
   const noise = noiseFrom(rng);
@@ -343,7 +345,7 @@ async function seedClassRival(
   } as CarEntity);
   const front: SetupCorner = { camberDeg: -1.8, toeMm: 0, casterDeg: 5.2, springRateNPerMm: 32, rideHeightMm: 125, damperClicks: null, damperReboundClicks: null, coldPressureKpa: 207, cornerWeightKg: 252 };
   const rear: SetupCorner = { camberDeg: -1.5, toeMm: 1.2, casterDeg: null, springRateNPerMm: 26, rideHeightMm: 130, damperClicks: null, damperReboundClicks: null, coldPressureKpa: 200, cornerWeightKg: 262 };
-  await snapshot(car.id, 'Season baseline', at('2026-04-02', '18:00'), { lf: front, rf: { ...front }, lr: rear, rr: { ...rear } }, {
+  await saveSnapshot(m, car.id, 'Season baseline', at('2026-04-02', '18:00'), { lf: front, rf: { ...front }, lr: rear, rr: { ...rear } }, {
     createdBy: people.classRival, derivedFromId: null, arb: ['stock', 'stock'],
   });
   for (const [i, day] of EVENTS.entries()) {
