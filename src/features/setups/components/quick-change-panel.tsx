@@ -108,7 +108,7 @@ export function QuickChangePanel({ carId, dampers, setups, onDone }: QuickChange
   const base = setupInForce(setups, new Date().toISOString());
   // Fixed dampers have no clicks to change, unless the setup in force records some all the same.
   const hasClicks =
-    dampers.front || dampers.rear || CORNERS.some((c) => CLICK_FIELDS.some((f) => base?.corners[c]?.[f] !== null && base?.corners[c]?.[f] !== undefined));
+    dampers.front || dampers.rear || CORNERS.some((c) => CLICK_FIELDS.some((f) => (base?.corners[c]?.[f] ?? null) !== null));
   const fieldOptions = hasClicks ? FIELD_OPTIONS : FIELD_OPTIONS.filter((o) => !CLICK_FIELDS.includes(o.value));
 
   const update = (id: number, patch: Partial<ChangeLine>) => {
