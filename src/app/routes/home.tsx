@@ -61,7 +61,8 @@ export function HomePage() {
       </nav>
     </SectionCard>
   );
-  // A captain or the shop's staff come here for the board or the customers more than for a car of their own.
+  // A captain or the shop's staff come here for the board or the customers more than for a car of their own,
+  // so their links come first, above today's event.
   const linksFirst = captain || staff;
 
   return (
@@ -72,12 +73,12 @@ export function HomePage() {
         <p className="text-ink-muted">{roles ? `Your roles: ${roles}.` : 'Your account has no roles yet.'}</p>
       </div>
       <div className="grid gap-4 md:grid-cols-2">
+        {linksFirst ? linksCard : null}
         <SectionBoundary title="Event day">
           <SectionCard title="Event day">
             <CurrentEventCard />
           </SectionCard>
         </SectionBoundary>
-        {linksFirst ? linksCard : null}
         <SectionBoundary title="Sync">
           <SectionCard title="Sync">
             <SyncStatus />

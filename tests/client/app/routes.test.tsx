@@ -131,7 +131,7 @@ describe('routes', () => {
     expect(screen.getByRole('status').textContent).toContain('All saved');
   });
 
-  it('when a captain opens Home, then each of their teams\' class boards is one tap away, above their cars', async () => {
+  it('when a captain opens Home, then each of their teams\' class boards is one tap away, above the event and their cars', async () => {
     const teamId = 'd1111111-1111-4111-8111-111111111111';
     stubFetch({
       'GET /api/auth/me': jsonResponse(200, { user: SAM }),
@@ -145,6 +145,8 @@ describe('routes', () => {
     expect(board.getAttribute('href')).toBe(`/teams/${teamId}/board`);
     const names = screen.getAllByRole('region').map((r) => within(r).getByRole('heading').textContent);
     expect(names.indexOf('Teams')).toBeGreaterThan(-1);
+    expect(names.indexOf('Teams')).toBe(0);
+    expect(names.indexOf('Teams')).toBeLessThan(names.indexOf('Event day'));
     expect(names.indexOf('Teams')).toBeLessThan(names.indexOf('Your cars'));
   });
 
