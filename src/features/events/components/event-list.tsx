@@ -1,6 +1,6 @@
 import { ChevronRight } from 'lucide-react';
 import { Link } from 'react-router-dom';
-import { pathTo } from '@/config/paths';
+import { paths, pathTo } from '@/config/paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
 import { useEventViews } from '../hooks/use-event-views';
@@ -11,7 +11,16 @@ export function EventList() {
   const { events, isPending, isError } = useEventViews();
   if (isPending) return <p className="text-ink-muted">Loading events…</p>;
   if (isError) return <p className="text-ink-muted">Events could not be loaded. Try again shortly.</p>;
-  if (events.length === 0) return <EmptyState message="No events yet." />;
+  if (events.length === 0) {
+    // A captain without a car of their own sees the team's events on its class board, not here.
+    return (
+      <EmptyState message="No events yet. An event shows here once you or a co-driver enter it, or a car you can read runs at it.">
+        <Link to={paths.teams} className="inline-flex min-h-tap items-center self-start font-bold text-link underline">
+          Team results are on each class board
+        </Link>
+      </EmptyState>
+    );
+  }
   return (
     <ul className="flex flex-col gap-2">
       {events.map((event) => (
