@@ -61,9 +61,9 @@ export function HomePage() {
       </nav>
     </SectionCard>
   );
-  // A captain or the shop's staff come here for the board or the customers more than for a car of their own,
-  // so their links come first, above today's event.
-  const linksFirst = captain || staff;
+  // A captain, the shop's staff or an admin come here for the board, the customers or the accounts more than
+  // for a car of their own, so their links come first, above today's event.
+  const linksFirst = captain || staff || admin;
 
   return (
     <div className="flex flex-col gap-6">

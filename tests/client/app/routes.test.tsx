@@ -150,6 +150,30 @@ describe('routes', () => {
     expect(names.indexOf('Teams')).toBeLessThan(names.indexOf('Your cars'));
   });
 
+  it('when an admin opens Home, then the accounts are one tap away, above the event and their cars; a driver\'s links come after them', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: { ...SAM, roles: ['driver', 'admin'] } }),
+      'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
+      'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
+    });
+    const { unmount } = renderApp('/');
+
+    const accounts = await screen.findByRole('link', { name: /^Accounts/ });
+    expect(accounts.getAttribute('href')).toBe('/accounts');
+    const regions = () => screen.getAllByRole('region').map((r) => within(r).getByRole('heading').textContent);
+    expect(regions()[0]).toBe('Teams and accounts');
+    unmount();
+
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: { ...SAM, roles: ['driver'] } }),
+      'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
+      'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
+    });
+    renderApp('/');
+    await screen.findByRole('heading', { name: 'Hi, Sam Okafor' });
+    expect(regions()).toEqual(['Event day', 'Sync', 'Your cars', 'Teams']);
+  });
+
   it('when a signed-in user opens the sign-in page, then they go straight to Home', async () => {
     stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: SAM }) });
     const { router } = renderApp('/sign-in');
