@@ -1,29 +1,28 @@
-import { NavLink, useLocation } from 'react-router-dom';
+import { NavLink } from 'react-router-dom';
 import { cn } from '@/lib/cn';
-import type { NavItem } from './nav-items';
+import { type NavItem, useIsCurrent } from './nav-items';
 
 /** Phone navigation: a bar at the bottom, in thumb reach, with large targets. Hidden from 768 px. */
 export function BottomNav({ items }: { items: readonly NavItem[] }) {
-  const { pathname } = useLocation();
+  const isCurrent = useIsCurrent();
   return (
     <nav aria-label="Main" className="pb-safe fixed inset-x-0 bottom-0 z-40 border-t border-line bg-surface md:hidden print:hidden">
       <ul className="mx-auto flex max-w-page">
-        {items.map(({ to, label, icon: Icon, end, alsoActiveUnder }) => (
-          <li key={to} className="flex-1">
+        {items.map((item) => (
+          <li key={item.to} className="flex-1">
             <NavLink
-              to={to}
-              end={end}
-              className={({ isActive: exact }) => {
-                const isActive = exact || (alsoActiveUnder !== undefined && pathname.startsWith(alsoActiveUnder));
-                return cn(
+              to={item.to}
+              end={item.end}
+              className={({ isActive }) =>
+                cn(
                   'flex min-h-tap-lg flex-col items-center justify-center gap-0.5 text-sm font-semibold',
-                  isActive ? 'text-link' : 'text-ink-muted hover:text-ink',
-                );
-              }}
+                  isCurrent(item, isActive) ? 'text-link' : 'text-ink-muted hover:text-ink',
+                )
+              }
             >
-              <Icon aria-hidden="true" className="size-6" />
+              <item.icon aria-hidden="true" className="size-6" />
               {/* One line each, a little smaller on the narrowest phones (320 px), so the icons stay level. */}
-              <span className="text-[min(0.875rem,3.6vw)] whitespace-nowrap">{label}</span>
+              <span className="text-[min(0.875rem,3.6vw)] whitespace-nowrap">{item.label}</span>
             </NavLink>
           </li>
         ))}

@@ -1,4 +1,5 @@
 import type { LucideIcon } from 'lucide-react';
+import { useLocation } from 'react-router-dom';
 
 export interface NavItem {
   to: string;
@@ -8,4 +9,10 @@ export interface NavItem {
   end?: boolean;
   /** Also "current" on addresses under this one (Event day opens /events/…). */
   alsoActiveUnder?: string;
+}
+
+/** Whether an item is the current page: NavLink's own match (`exact`), or an address under `alsoActiveUnder`. */
+export function useIsCurrent(): (item: NavItem, exact: boolean) => boolean {
+  const { pathname } = useLocation();
+  return (item, exact) => exact || (item.alsoActiveUnder !== undefined && pathname.startsWith(item.alsoActiveUnder));
 }

@@ -1,27 +1,26 @@
-import { NavLink, useLocation } from 'react-router-dom';
+import { NavLink } from 'react-router-dom';
 import { cn } from '@/lib/cn';
-import type { NavItem } from './nav-items';
+import { type NavItem, useIsCurrent } from './nav-items';
 
 /** Desktop navigation in the top bar (768 px and wider). */
 export function TopNav({ items }: { items: readonly NavItem[] }) {
-  const { pathname } = useLocation();
+  const isCurrent = useIsCurrent();
   return (
     <nav aria-label="Main" className="hidden md:block">
       <ul className="flex items-center gap-1">
-        {items.map(({ to, label, end, alsoActiveUnder }) => (
-          <li key={to}>
+        {items.map((item) => (
+          <li key={item.to}>
             <NavLink
-              to={to}
-              end={end}
-              className={({ isActive: exact }) => {
-                const isActive = exact || (alsoActiveUnder !== undefined && pathname.startsWith(alsoActiveUnder));
-                return cn(
+              to={item.to}
+              end={item.end}
+              className={({ isActive }) =>
+                cn(
                   'inline-flex min-h-tap items-center rounded px-3 font-semibold',
-                  isActive ? 'bg-accent-soft text-link' : 'text-ink-muted hover:bg-surface-raised hover:text-ink',
-                );
-              }}
+                  isCurrent(item, isActive) ? 'bg-accent-soft text-link' : 'text-ink-muted hover:bg-surface-raised hover:text-ink',
+                )
+              }
             >
-              {label}
+              {item.label}
             </NavLink>
           </li>
         ))}

@@ -6,7 +6,7 @@ import { jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-ut
 import { user } from '../../fixtures/season';
 import { staffUser } from '../../fixtures/collab';
 
-setUpAppTests([() => import('@/app/routes/settings'), () => import('@/features/auth/components/account-dropdown')]);
+setUpAppTests([() => import('@/app/routes/settings'), () => import('@/app/routes/events/events'), () => import('@/features/auth/components/account-dropdown')]);
 
 async function openAccountMenu(name: string) {
   const u = userEvent.setup();
@@ -48,5 +48,18 @@ describe('reaching the shop and teams', () => {
     await screen.findByRole('button', { name: 'Account: Dusty Okonjo' });
     const bars = screen.getAllByRole('navigation', { name: 'Main' });
     for (const bar of bars) expect(within(bar).getAllByRole('link')).toHaveLength(5);
+  });
+
+  it('when an event\'s pages are open, then both bars mark Event day as the current place, and only it', async () => {
+    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), 'GET /api/events': jsonResponse(200, { items: [], count: 0 }) });
+    renderApp('/events');
+    await screen.findByRole('heading', { name: 'Events' });
+    for (const bar of screen.getAllByRole('navigation', { name: 'Main' })) {
+      // The current place is drawn in the link colour; the others are muted.
+      const marked = within(bar)
+        .getAllByRole('link')
+        .filter((link) => link.className.split(' ').includes('text-link'));
+      expect(marked.map((link) => link.textContent)).toEqual(['Event day']);
+    }
   });
 });
