@@ -1,13 +1,11 @@
-import { CalendarDays, ChevronRight, Plus } from 'lucide-react';
+import { CalendarDays, Plus } from 'lucide-react';
 import { Link } from 'react-router-dom';
-import { pathTo } from '@/config/paths';
 import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
-import { PendingBadge } from '@/components/ui/pending-badge';
 import { useEventViews } from '../hooks/use-event-views';
 import { currentEvent } from '../utils/current-event';
 import { NEW_EVENT_PATH } from '../utils/new-event-path';
-import { EventFacts } from './event-facts';
+import { EventRow } from './event-row';
 
 function StartTodayLink() {
   return (
@@ -33,18 +31,11 @@ export function CurrentEventCard() {
   const { event, isToday } = current;
   return (
     <div className="flex flex-col gap-3">
-      <Link to={pathTo.event(event.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
-        <CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />
-        <div className="flex min-w-0 flex-1 flex-col">
-          <span className="text-sm font-bold text-ink-muted">{isToday ? 'Today' : 'Latest event'}</span>
-          <span className="flex flex-wrap items-center gap-2">
-            <span className="font-bold break-words">{event.name}</span>
-            {event.pending ? <PendingBadge state={event.pending.state} /> : null}
-          </span>
-          <EventFacts event={event} />
-        </div>
-        <ChevronRight aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
-      </Link>
+      <EventRow
+        event={event}
+        caption={isToday ? 'Today' : 'Latest event'}
+        before={<CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />}
+      />
       {isToday ? null : <StartTodayLink />}
     </div>
   );

@@ -1,10 +1,8 @@
-import { ChevronRight } from 'lucide-react';
 import { Link } from 'react-router-dom';
-import { paths, pathTo } from '@/config/paths';
+import { paths } from '@/config/paths';
 import { EmptyState } from '@/components/ui/empty-state';
-import { PendingBadge } from '@/components/ui/pending-badge';
 import { useEventViews } from '../hooks/use-event-views';
-import { EventFacts } from './event-facts';
+import { EventRow } from './event-row';
 
 /** Every event the user can see, newest first, each opening its event-day screen; new ones still on this phone are marked. */
 export function EventList() {
@@ -25,16 +23,7 @@ export function EventList() {
     <ul className="flex flex-col gap-2">
       {events.map((event) => (
         <li key={event.id}>
-          <Link to={pathTo.event(event.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
-            <div className="flex min-w-0 flex-1 flex-col">
-              <span className="flex flex-wrap items-center gap-2">
-                <span className="font-bold break-words">{event.name}</span>
-                {event.pending ? <PendingBadge state={event.pending.state} /> : null}
-              </span>
-              <EventFacts event={event} />
-            </div>
-            <ChevronRight aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
-          </Link>
+          <EventRow event={event} />
         </li>
       ))}
     </ul>
