@@ -1,4 +1,5 @@
 import { useState, type ReactNode } from 'react';
+import type { LucideIcon } from 'lucide-react';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { FormAlert } from '@/components/ui/form-alert';
@@ -71,5 +72,37 @@ export function ConfirmButton({
         </div>
       </Dialog>
     </>
+  );
+}
+
+/** Removes one person from a car, a team or a shop, after asking; the button names them to screen readers. */
+export function RemovePersonButton({
+  person,
+  description,
+  confirmLabel,
+  remove,
+  failureText,
+  icon: Icon,
+}: {
+  person: { id: string; displayName: string };
+  description: string;
+  confirmLabel: string;
+  remove: { isPending: boolean; mutate: (personId: string, handlers: { onSuccess: () => void; onError: (error: unknown) => void }) => void };
+  failureText: (error: unknown) => string;
+  icon: LucideIcon;
+}) {
+  return (
+    <ConfirmButton
+      title={`Remove ${person.displayName}?`}
+      description={description}
+      confirmLabel={confirmLabel}
+      pendingLabel="Removing…"
+      keepLabel="Keep"
+      isPending={remove.isPending}
+      onConfirm={(handlers) => remove.mutate(person.id, handlers)}
+      failureText={failureText}
+    >
+      <Icon aria-hidden="true" className="size-5" /> Remove<span className="sr-only"> {person.displayName}</span>
+    </ConfirmButton>
   );
 }

@@ -1,6 +1,6 @@
 import { UserMinus, UserPlus } from 'lucide-react';
 import { addCoDriverInputSchema, type Car, type Person } from '@shared/season/car.schema';
-import { ConfirmButton } from '@/components/dialogs/confirm-button';
+import { RemovePersonButton } from '@/components/dialogs/confirm-button';
 import { EmailInviteForm } from '@/components/forms/email-invite-form';
 import { useOnlineStatus } from '@/hooks/use-online-status';
 import { isApiError } from '@/lib/api-client';
@@ -41,20 +41,15 @@ function AddCoDriverForm({ carId, knownIds }: { carId: string; knownIds: readonl
 }
 
 function RemoveCoDriver({ carId, person }: { carId: string; person: Person }) {
-  const remove = useRemoveCoDriver(carId);
   return (
-    <ConfirmButton
-      title={`Remove ${person.displayName}?`}
+    <RemovePersonButton
+      person={person}
       description="They will no longer see this car or log runs in it. You can add them again later."
       confirmLabel="Remove co-driver"
-      pendingLabel="Removing…"
-      keepLabel="Keep"
-      isPending={remove.isPending}
-      onConfirm={(handlers) => remove.mutate(person.id, handlers)}
+      remove={useRemoveCoDriver(carId)}
       failureText={failureText}
-    >
-      <UserMinus aria-hidden="true" className="size-5" /> Remove<span className="sr-only"> {person.displayName}</span>
-    </ConfirmButton>
+      icon={UserMinus}
+    />
   );
 }
 

@@ -1,6 +1,6 @@
 import { MailPlus, UserMinus } from 'lucide-react';
 import { inviteInputSchema, type Shop, type StaffMember } from '@shared/collab/shop.schema';
-import { ConfirmButton } from '@/components/dialogs/confirm-button';
+import { RemovePersonButton } from '@/components/dialogs/confirm-button';
 import { EmailInviteForm } from '@/components/forms/email-invite-form';
 import { isApiError } from '@/lib/api-client';
 import { formatDay } from '@/lib/dates';
@@ -39,20 +39,15 @@ function InviteForm({ shopId }: { shopId: string }) {
 }
 
 function RemoveStaff({ shopId, person }: { shopId: string; person: StaffMember }) {
-  const remove = useRemoveStaff(shopId);
   return (
-    <ConfirmButton
-      title={`Remove ${person.displayName}?`}
+    <RemovePersonButton
+      person={person}
       description="They will no longer see the shop’s customers. Their comments and suggestions stay. You can invite them again later."
       confirmLabel="Remove from staff"
-      pendingLabel="Removing…"
-      keepLabel="Keep"
-      isPending={remove.isPending}
-      onConfirm={(handlers) => remove.mutate(person.id, handlers)}
+      remove={useRemoveStaff(shopId)}
       failureText={(e) => (isApiError(e) ? (e.code === 'network' ? NEEDS_SIGNAL : e.message) : 'Something went wrong; try again.')}
-    >
-      <UserMinus aria-hidden="true" className="size-5" /> Remove<span className="sr-only"> {person.displayName}</span>
-    </ConfirmButton>
+      icon={UserMinus}
+    />
   );
 }
 

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { DoorOpen, UserX } from 'lucide-react';
 import type { Team } from '@shared/collab/team.schema';
-import { ConfirmButton } from '@/components/dialogs/confirm-button';
+import { ConfirmButton, RemovePersonButton } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { useLeaveTeam } from '../api/leave-team';
@@ -31,19 +31,15 @@ function CaptainToggle({ teamId, member }: { teamId: string; member: Member }) {
 }
 
 function RemoveMember({ teamId, member }: { teamId: string; member: Member }) {
-  const remove = useRemoveMember(teamId);
   return (
-    <ConfirmButton
-      title={`Remove ${member.displayName}?`}
+    <RemovePersonButton
+      person={member}
       description="They leave the team: their cars come off the class board and they no longer see it. You can invite them again later."
       confirmLabel="Remove from team"
-      pendingLabel="Removing…"
-      isPending={remove.isPending}
-      onConfirm={(handlers) => remove.mutate(member.id, handlers)}
+      remove={useRemoveMember(teamId)}
       failureText={failureMessage}
-    >
-      <UserX aria-hidden="true" className="size-5" /> Remove<span className="sr-only"> {member.displayName}</span>
-    </ConfirmButton>
+      icon={UserX}
+    />
   );
 }
 

@@ -111,6 +111,8 @@ describe('team page: who sees what', () => {
     await u.click(await screen.findByRole('button', { name: 'Remove Ines Okafor' }));
     const dialog = await screen.findByRole('dialog', { name: 'Remove Ines Okafor?' });
     expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/members/${TEAM_IDS.ines}`)).toHaveLength(0);
+    // The way out reads as it does when removing a co-driver or a member of the shop's staff.
+    expect(within(dialog).getByRole('button', { name: 'Keep' })).toBeTruthy();
     await u.click(within(dialog).getByRole('button', { name: 'Remove from team' }));
 
     await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
