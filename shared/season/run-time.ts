@@ -4,6 +4,7 @@
  * the resolution timing gear reports.
  */
 import { LIMITS } from './limits';
+import type { RunStatus } from './run.schema';
 
 export type RunTimeParseResult = { ok: true; seconds: number } | { ok: false; error: string };
 
@@ -55,6 +56,17 @@ export function parseRunTime(text: string): RunTimeParseResult {
   if (ms === 0) return fail('The time must be above 0');
   if (!(ms < MAX_SEC * 1000)) return fail('The time must be under 30 min (1800 s)');
   return { ok: true, seconds: ms / 1000 };
+}
+
+
+/**
+ * A run's time box as a form reads it with the run's status: left empty, a DNF or an off-course run has no
+ * time (null) and a finished one is refused; anything typed must read as a time.
+ */
+export function readRunTimeBox(text: string, status: RunStatus): { ok: true; seconds: number | null } | { ok: false; error: string } {
+  if (text.trim()) return parseRunTime(text);
+  if (status === 'finished') return fail(`Enter the time, or choose DNF or Off course. ${EXAMPLE}`);
+  return { ok: true, seconds: null };
 }
 
 /**

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { formatRunTime, parseRunTime } from '../../../shared/season/run-time';
+import { formatRunTime, parseRunTime, readRunTimeBox } from '../../../shared/season/run-time';
 
 // Times are to the millisecond because timing gear reports thousandths (common practice).
 // Minutes:seconds with two-digit seconds is the usual way lap and stage times are written (common practice).
@@ -146,6 +146,23 @@ describe('parseRunTime / formatRunTime: properties', () => {
         const result = parseRunTime(`${whole}.${String(frac).padStart(3, '0')}`);
         expect(result.ok).toBe(true);
         if (result.ok) expect(Math.round(result.seconds * 1000) / 1000).toBe(result.seconds);
+      }),
+    );
+  });
+});
+
+describe('readRunTimeBox: the time box read with the run status', () => {
+  it('when the box is empty, then a DNF or an off-course run has no time and a finished run is refused with the way out', () => {
+    expect(readRunTimeBox('', 'dnf')).toEqual({ ok: true, seconds: null });
+    expect(readRunTimeBox('   ', 'off_course')).toEqual({ ok: true, seconds: null });
+    expect(readRunTimeBox(' ', 'finished')).toEqual({ ok: false, error: 'Enter the time, or choose DNF or Off course. Type the time as 45.678 or 1:05.432' });
+  });
+
+  it('when a time is typed, then it is read as parseRunTime reads it, whatever the status', () => {
+    fc.assert(
+      fc.property(fc.string({ maxLength: 12 }), fc.constantFrom('finished' as const, 'dnf' as const, 'off_course' as const), (text, status) => {
+        fc.pre(text.trim() !== '');
+        expect(readRunTimeBox(text, status)).toEqual(parseRunTime(text));
       }),
     );
   });

@@ -3,7 +3,7 @@ import { ChevronDown, ChevronUp } from 'lucide-react';
 import { adjustedTimeSec } from '@shared/calc/scoring.calc';
 import type { Person } from '@shared/season/car.schema';
 import { createRunInputSchema, RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
-import { formatRunTime, parseRunTime } from '@shared/season/run-time';
+import { formatRunTime, parseRunTime, readRunTimeBox } from '@shared/season/run-time';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SegmentedControl } from '@/components/ui/segmented-control';
@@ -88,14 +88,9 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
   const onSubmit = async (event: FormEvent) => {
     event.preventDefault();
     const found: RunFormErrors = {};
-    let rawTimeSec: number | null = null;
-    if (timeText.trim()) {
-      const result = parseRunTime(timeText);
-      if (result.ok) rawTimeSec = result.seconds;
-      else found.rawTimeSec = result.error;
-    } else if (status === 'finished') {
-      found.rawTimeSec = 'Enter the time, or choose DNF or Off course. Type it as 45.678 or 1:05.432';
-    }
+    const time = readRunTimeBox(timeText, status);
+    if (!time.ok) found.rawTimeSec = time.error;
+    const rawTimeSec = time.ok ? time.seconds : null;
     // Read as the run editor reads it (see typed above).
     const runNumber = typed.ok ? typed.value : next;
     if (!typed.ok) found.runNumber = typed.error;

@@ -1,7 +1,7 @@
 import { useRef, useState, type FormEvent } from 'react';
 import { CORNERS, type PerCorner } from '@shared/season/corners';
 import { RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
-import { formatRunTime, parseRunTime } from '@shared/season/run-time';
+import { formatRunTime, readRunTimeBox } from '@shared/season/run-time';
 import { Button } from '@/components/ui/button';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { Stepper } from '@/components/ui/stepper';
@@ -62,12 +62,9 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
   const submit = async (event: FormEvent) => {
     event.preventDefault();
     const found: RunFormErrors = {};
-    let rawTimeSec: number | null = null;
-    if (time.trim()) {
-      const parsed = parseRunTime(time);
-      if (parsed.ok) rawTimeSec = parsed.seconds;
-      else found.rawTimeSec = parsed.error;
-    } else if (status === 'finished') found.rawTimeSec = 'A finished run needs its time';
+    const timeRead = readRunTimeBox(time, status);
+    if (!timeRead.ok) found.rawTimeSec = timeRead.error;
+    const rawTimeSec = timeRead.ok ? timeRead.seconds : null;
     const read = readRunNumber(number);
     if (!read.ok) found.runNumber = read.error;
     else if (takenNumbers.includes(read.value)) found.runNumber = `Run ${read.value} is already logged for ${row.driver.displayName}`;

@@ -70,6 +70,18 @@ describe('run edit form: run number', () => {
     expect(onSubmit).not.toHaveBeenCalled();
   });
 
+  it('when the time is emptied, then a finished run is refused with the way out, and as a DNF it saves with no time', async () => {
+    const { onSubmit, u } = renderForm(rowOf());
+    await u.clear(field('Raw time'));
+    await u.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(screen.getByText('Enter the time, or choose DNF or Off course. Type the time as 45.678 or 1:05.432')).toBeTruthy();
+    expect(onSubmit).not.toHaveBeenCalled();
+
+    await u.click(screen.getByRole('radio', { name: 'DNF' }));
+    await u.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(onSubmit).toHaveBeenCalledWith(expect.objectContaining({ rawTimeSec: null, status: 'dnf' }));
+  });
+
   it('when a new run number is typed, then it is saved with every other field as it was', async () => {
     const { onSubmit, u } = renderForm(rowOf({ cones: 1, notes: 'Late turn-in' }));
     await u.clear(field('Run number'));
