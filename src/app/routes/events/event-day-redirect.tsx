@@ -1,10 +1,9 @@
 import { Link, Navigate } from 'react-router-dom';
-import { CalendarDays, ChevronRight, Plus } from 'lucide-react';
+import { CalendarDays, Plus } from 'lucide-react';
 import { paths, pathTo } from '@/config/paths';
 import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
-import { PendingBadge } from '@/components/ui/pending-badge';
-import { EventFacts } from '@/features/events/components/event-facts';
+import { EventRow } from '@/features/events/components/event-row';
 import { useEventViews } from '@/features/events/hooks/use-event-views';
 import { currentEvent } from '@/features/events/utils/current-event';
 import { NEW_EVENT_PATH } from '@/features/events/utils/new-event-path';
@@ -28,18 +27,11 @@ export function EventDayRedirect() {
         }
       />
       {latest ? (
-        <Link to={pathTo.event(latest.id)} className="flex min-h-tap items-center gap-3 rounded border border-line bg-surface p-3 hover:bg-surface-raised">
-          <CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />
-          <div className="flex min-w-0 flex-1 flex-col">
-            <span className="text-sm font-bold text-ink-muted">Latest event</span>
-            <span className="flex flex-wrap items-center gap-2">
-              <span className="font-bold break-words">{latest.name}</span>
-              {latest.pending ? <PendingBadge state={latest.pending.state} /> : null}
-            </span>
-            <EventFacts event={latest} />
-          </div>
-          <ChevronRight aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
-        </Link>
+        <EventRow
+          event={latest}
+          caption="Latest event"
+          before={<CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />}
+        />
       ) : null}
       <Link to={NEW_EVENT_PATH} className={buttonClasses('primary', 'min-h-tap-lg w-full text-lg')}>
         <Plus aria-hidden="true" className="size-5" /> Start today’s event

@@ -6,10 +6,10 @@ import { PendingBadge } from '@/components/ui/pending-badge';
 import type { EventView } from '../utils/pending-events';
 import { EventFacts } from './event-facts';
 
-/** One event as a link to its event-day screen: its name (marked while still on this phone) and its facts. */
+/** One event as a link to its event-day screen: its name (marked while still on this phone) and its facts; on a card or on the page. */
 export function EventRow({ event, before, caption }: { event: EventView; before?: ReactNode; caption?: string }) {
   return (
-    <Link to={pathTo.event(event.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
+    <Link to={pathTo.event(event.id)} className="flex min-h-tap items-center gap-3 rounded border border-line bg-surface p-3 hover:bg-surface-raised">
       {before}
       <div className="flex min-w-0 flex-1 flex-col">
         {caption ? <span className="text-sm font-bold text-ink-muted">{caption}</span> : null}
