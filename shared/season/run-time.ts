@@ -58,7 +58,6 @@ export function parseRunTime(text: string): RunTimeParseResult {
   return { ok: true, seconds: ms / 1000 };
 }
 
-
 /**
  * A run's time box as a form reads it with the run's status: left empty, a DNF or an off-course run has no
  * time (null) and a finished one is refused; anything typed must read as a time.
