@@ -1,7 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { Minus, Plus, Trash2 } from 'lucide-react';
 import { fromDisplay, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
-import { CORNERS, type Corner } from '@shared/season/corners';
+import { axleOf, CORNERS, type Corner } from '@shared/season/corners';
 import { QUICK_CHANGE_FIELDS, quickChangeInputSchema, type QuickChangeInput } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
@@ -76,10 +76,8 @@ export type AdjustableDampers = { front: boolean; rear: boolean };
  * on a car with fixed dampers, cold pressures all round.
  */
 function firstChange(dampers: AdjustableDampers): Pick<ChangeLine, 'field' | 'corners'> {
-  if (dampers.front && dampers.rear) return { field: 'damperClicks', corners: ['lf', 'rf', 'lr', 'rr'] };
-  if (dampers.front) return { field: 'damperClicks', corners: ['lf', 'rf'] };
-  if (dampers.rear) return { field: 'damperClicks', corners: ['lr', 'rr'] };
-  return { field: 'coldPressureKpa', corners: ['lf', 'rf', 'lr', 'rr'] };
+  const adjustable = CORNERS.filter((c) => dampers[axleOf(c)]);
+  return adjustable.length > 0 ? { field: 'damperClicks', corners: adjustable } : { field: 'coldPressureKpa', corners: [...CORNERS] };
 }
 
 let nextLineId = 1;

@@ -533,9 +533,12 @@ describe('event day', () => {
     expect(within(form).getByRole('button', { name: 'All four' }).getAttribute('aria-pressed')).toBe('true');
   });
 
-  it('when only the front dampers adjust, then a quick change starts on front clicks', async () => {
-    const frontOnly = { ...CAR, damperAdjusters: { front: CAR.damperAdjusters.front, rear: null } };
-    stubWithRuns([], { extra: { ...TODAY_EVENT(), 'GET /api/cars': list([frontOnly]) } });
+  it.each([
+    ['front', 'Front', { front: CAR.damperAdjusters.front, rear: null }],
+    ['rear', 'Rear', { front: null, rear: CAR.damperAdjusters.rear }],
+  ])('when only the %s dampers adjust, then a quick change starts on those clicks', async (_axle, preset, damperAdjusters) => {
+    const oneAxle = { ...CAR, damperAdjusters };
+    stubWithRuns([], { extra: { ...TODAY_EVENT(), 'GET /api/cars': list([oneAxle]) } });
     renderApp(PATH);
     const u = userEvent.setup();
     await screen.findByRole('form', { name: 'Log a run' });
@@ -543,7 +546,7 @@ describe('event day', () => {
     const form = await screen.findByRole('form', { name: 'Quick change' });
 
     expect((within(form).getByLabelText('What') as HTMLSelectElement).value).toBe('damperClicks');
-    expect(within(form).getByRole('button', { name: 'Front' }).getAttribute('aria-pressed')).toBe('true');
+    expect(within(form).getByRole('button', { name: preset }).getAttribute('aria-pressed')).toBe('true');
     expect(within(form).getByRole('button', { name: 'All four' }).getAttribute('aria-pressed')).toBe('false');
   });
 
