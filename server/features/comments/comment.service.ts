@@ -84,7 +84,7 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
       if (!s) throw missing();
       resolved = {
         type: 'setup', id: target.id, carId: s.car_id,
-        driverLink: `/cars/${s.car_id}`, staffLink: customerPageAt(s.car_id, target.id), description: `the setup "${s.label}"`,
+        driverLink: `/cars/${s.car_id}?comments=${target.id}`, staffLink: customerPageAt(s.car_id, target.id), description: `the setup "${s.label}"`,
       };
       break;
     }

@@ -70,7 +70,7 @@ describe('who hears about a comment', () => {
     expect((await notes(staff.c)).count).toBe(before);
   });
 
-  it('when the owner comments on a setup and a tread reading, then co-drivers are sent to the car and its tread page, and every granted shop\'s staff hear', async () => {
+  it('when the owner comments on a setup and a tread reading, then co-drivers are sent to the setup\'s thread and the tread page, and every granted shop\'s staff hear', async () => {
     const { driver, co, staff } = await crew();
     const second = await shopWithAdmin(t, 'Upland Motorsport', 'Ola Brandt');
     await driver.c.post(`/api/cars/${driver.carId}/shop-grants`, { shopId: second.shopId });
@@ -79,7 +79,7 @@ describe('who hears about a comment', () => {
 
     await driver.c.post('/api/comments', { target: { type: 'setup', id: setup.id }, body: 'Felt lazy on turn-in.' });
     let latest = (await notes(co.c)).items[0]!;
-    expect([latest.summary, latest.link]).toEqual(['Nell Ashdown commented on the setup "Spring baseline"', `/cars/${driver.carId}`]);
+    expect([latest.summary, latest.link]).toEqual(['Nell Ashdown commented on the setup "Spring baseline"', `/cars/${driver.carId}?comments=${setup.id}`]);
     await driver.c.post('/api/comments', { target: { type: 'tread_reading', id: reading }, body: 'Inside edges going fast.' });
     latest = (await notes(co.c)).items[0]!;
     expect([latest.summary, latest.link]).toEqual(['Nell Ashdown commented on a tread reading of Set A', `/cars/${driver.carId}/tread`]);

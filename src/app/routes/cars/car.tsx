@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { Link, useNavigate, useParams } from 'react-router-dom';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { ChartScatter, FileUp, Plus, Ruler } from 'lucide-react';
 import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
@@ -33,7 +33,10 @@ import { carKeys } from '@/features/cars/api/car-keys';
 import { SeasonData } from '@/features/exports/components/season-data';
 import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
+/** A setup's thread the page was opened for (a notification's link, `?comments=<setup id>`): open, and scrolled to. */
 function SetupSection({ carId }: { carId: string }) {
+  const [params] = useSearchParams();
+  const threadId = params.get('comments');
   const { data: me } = useMe();
   const { data, isPending, isError } = useSetups(carId);
   const entries = useOutboxEntriesFor({ carId });
@@ -47,12 +50,13 @@ function SetupSection({ carId }: { carId: string }) {
     <SetupTimeline
       carId={carId}
       setups={setups}
+      revealedId={threadId}
       // A snapshot still on this phone has no thread (nor photos) on the server yet.
       renderExtras={(setup) =>
         setup.pending ? null : (
           <>
             <AttachmentToggle target={{ targetType: 'setup', targetId: setup.id }} what={`“${setup.label}”`} />
-            <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} />
+            <CommentToggle target={{ type: 'setup', id: setup.id }} what={`“${setup.label}”`} revealed={threadId === setup.id} />
           </>
         )
       }

@@ -137,6 +137,7 @@ function Setups({ carId }: { carId: string }) {
       carId={carId}
       readOnly
       setups={data.items.map((s) => ({ ...s, pending: null }))}
+      revealedId={eventId ? null : threadId}
       renderExtras={(setup) => (
         <>
           <Link to={recordPath.newSuggestion(carId, setup.id)} className={buttonClasses('secondary', 'self-start')}>

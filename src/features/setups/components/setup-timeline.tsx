@@ -1,6 +1,6 @@
-import { useEffect, type ReactNode } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { Link, useLocation } from 'react-router-dom';
-import { ChevronRight, Lightbulb, Wrench } from 'lucide-react';
+import { ChevronDown, ChevronRight, Lightbulb, Wrench } from 'lucide-react';
 import { diffSetups } from '@shared/season/setup-diff';
 import { pathTo } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
@@ -8,7 +8,7 @@ import { buttonClasses } from '@/components/ui/button';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
-import { formatDateTime } from '@/lib/dates';
+import { formatDateTime, formatDay } from '@/lib/dates';
 import { useOutbox } from '@/lib/outbox-context';
 import type { SetupView } from '../utils/setup-views';
 import { SetupChangeList } from './setup-change-list';
@@ -63,18 +63,42 @@ function OriginBadge({ setup }: { setup: SetupView }) {
 }
 
 /**
+ * How many snapshots show in full before the rest fold away. A season of quick changes runs to a dozen or more;
+ * the newest few are the ones compared at the car, and each older one is a tap away.
+ */
+export const SNAPSHOTS_SHOWN = 3;
+
+/** The snapshot a link such as /cars/…#setup-<id> names, if any. */
+function useSnapshotInAddress(): string | null {
+  const { hash } = useLocation();
+  return hash.startsWith('#setup-') ? decodeURIComponent(hash.slice('#setup-'.length)) : null;
+}
+
+/**
  * A link such as /cars/…#setup-<id> lands on one snapshot. The list arrives after the page has
  * drawn, so the browser's own jump to the anchor has nothing to find; do it once the item exists.
  */
-function useScrollToSnapshot(count: number) {
-  const { hash } = useLocation();
+function useScrollToSnapshot(id: string | null, shown: number) {
   useEffect(() => {
-    if (!hash.startsWith('#setup-')) return;
-    const target = document.getElementById(decodeURIComponent(hash.slice(1)));
+    if (!id) return;
+    const target = document.getElementById(`setup-${id}`);
     if (!target) return;
     target.scrollIntoView({ block: 'start' });
     target.focus({ preventScroll: true });
-  }, [hash, count]);
+  }, [id, shown]);
+}
+
+/**
+ * How many of the snapshots to draw: the newest few, every one still on this phone (a refused one needs its
+ * driver), and down to the one the page was opened for.
+ */
+function foldedFrom(setups: readonly SetupView[], opened: readonly (string | null)[]): number {
+  let shown = Math.max(SNAPSHOTS_SHOWN, setups.findLastIndex((s) => s.pending) + 1);
+  for (const id of opened) {
+    const at = id ? setups.findIndex((s) => s.id === id) : -1;
+    if (at >= 0) shown = Math.max(shown, at + 1);
+  }
+  return Math.min(shown, setups.length);
 }
 
 interface SetupTimelineProps {
@@ -84,73 +108,102 @@ interface SetupTimelineProps {
   readOnly?: boolean;
   /** More under each snapshot: its comments, a shop's "Suggest a change". */
   renderExtras?: (setup: SetupView) => ReactNode;
+  /** The snapshot the page was opened for (a notification's link): drawn even when it is an old one. */
+  revealedId?: string | null;
+}
+
+interface SnapshotItemProps extends Pick<SetupTimelineProps, 'carId' | 'readOnly' | 'renderExtras'> {
+  setup: SetupView;
+  /** The snapshot before it, whose values its changes are read against. */
+  before: SetupView | undefined;
+}
+
+/** One snapshot of the history: when and by whom, what changed from the one before, its values and links. */
+function SnapshotItem({ carId, setup, before, readOnly, renderExtras }: SnapshotItemProps) {
+  return (
+    // The id lets a link land on one snapshot (the suggestion page's "Open the new setup").
+    <li
+      id={`setup-${setup.id}`}
+      tabIndex={-1}
+      className="flex scroll-mt-4 flex-col gap-2 rounded border border-line p-3 focus:ring-2 focus:ring-accent focus:outline-none"
+    >
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h3 className="font-bold">{setup.label}</h3>
+        {setup.pending ? <PendingBadge state={setup.pending.state} /> : null}
+      </div>
+      <p className="tabular-figures text-sm text-ink-muted">
+        From {formatDateTime(setup.effectiveFrom)} · by {setup.createdBy.displayName || 'someone'}
+      </p>
+      <OriginBadge setup={setup} />
+      {before ? (
+        <div className="flex flex-col gap-1">
+          <p className="text-sm text-ink-muted">Changes from “{before.label}”:</p>
+          <SetupChangeList changes={diffSetups(before, setup)} />
+        </div>
+      ) : (
+        <p className="text-sm text-ink-muted">The first snapshot on record.</p>
+      )}
+      {setup.notes ? <p className="text-sm">{setup.notes}</p> : null}
+      <PendingProblem setup={setup} carId={carId} />
+      <details className="group">
+        {/* A chevron like the other fold-outs' (Comments, Photos and files), turned down while open. */}
+        <summary className="inline-flex min-h-tap cursor-pointer items-center gap-1 font-semibold text-link">
+          <ChevronRight aria-hidden="true" className="size-4 group-open:rotate-90" />
+          All values
+        </summary>
+        <div className="pt-2">
+          <SetupValues setup={setup} />
+        </div>
+      </details>
+      {readOnly && setup.pending ? null : (
+        <div className="flex flex-wrap gap-x-4">
+          {readOnly ? null : (
+            <Link to={pathTo.newSetup(carId, setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
+              Start a new setup from this one
+            </Link>
+          )}
+          {/* Season export: a snapshot still on this phone is not on the server to print yet. */}
+          {setup.pending ? null : (
+            <Link to={recordPath.setupSheet(setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
+              Print a setup sheet
+            </Link>
+          )}
+        </div>
+      )}
+      {renderExtras?.(setup)}
+    </li>
+  );
 }
 
 /** A car's setup history, newest first: each snapshot with what changed from the one before it. */
-export function SetupTimeline({ carId, setups, readOnly = false, renderExtras }: SetupTimelineProps) {
-  useScrollToSnapshot(setups.length);
+export function SetupTimeline({ carId, setups, readOnly = false, renderExtras, revealedId = null }: SetupTimelineProps) {
+  const anchored = useSnapshotInAddress();
+  // Unfolding moves the reader to the first snapshot it brought out; the button they pressed is gone.
+  const [unfoldedAt, setUnfoldedAt] = useState<string | null>(null);
+  const shown = unfoldedAt ? setups.length : foldedFrom(setups, [anchored, revealedId]);
+  useScrollToSnapshot(anchored, shown);
+  useEffect(() => {
+    if (unfoldedAt) document.getElementById(`setup-${unfoldedAt}`)?.focus();
+  }, [unfoldedAt]);
   if (setups.length === 0) {
     return <EmptyState message="No setup recorded yet. Record the car as it is now to compare later changes against it." />;
   }
+  const firstFolded = setups[shown];
+  const oldest = setups[setups.length - 1]!;
+  const folded = setups.length - shown;
   return (
-    <ol className="flex flex-col gap-3" aria-label="Setup history, newest first">
-      {setups.map((setup, i) => {
-        const before = setups[i + 1];
-        return (
-          // The id lets a link land on one snapshot (the suggestion page's "Open the new setup").
-          <li
-            key={setup.id}
-            id={`setup-${setup.id}`}
-            tabIndex={-1}
-            className="flex scroll-mt-4 flex-col gap-2 rounded border border-line p-3 focus:ring-2 focus:ring-accent focus:outline-none"
-          >
-            <div className="flex flex-wrap items-baseline justify-between gap-2">
-              <h3 className="font-bold">{setup.label}</h3>
-              {setup.pending ? <PendingBadge state={setup.pending.state} /> : null}
-            </div>
-            <p className="tabular-figures text-sm text-ink-muted">
-              From {formatDateTime(setup.effectiveFrom)} · by {setup.createdBy.displayName || 'someone'}
-            </p>
-            <OriginBadge setup={setup} />
-            {before ? (
-              <div className="flex flex-col gap-1">
-                <p className="text-sm text-ink-muted">Changes from “{before.label}”:</p>
-                <SetupChangeList changes={diffSetups(before, setup)} />
-              </div>
-            ) : (
-              <p className="text-sm text-ink-muted">The first snapshot on record.</p>
-            )}
-            {setup.notes ? <p className="text-sm">{setup.notes}</p> : null}
-            <PendingProblem setup={setup} carId={carId} />
-            <details className="group">
-              {/* A chevron like the other fold-outs' (Comments, Photos and files), turned down while open. */}
-              <summary className="inline-flex min-h-tap cursor-pointer items-center gap-1 font-semibold text-link">
-                <ChevronRight aria-hidden="true" className="size-4 group-open:rotate-90" />
-                All values
-              </summary>
-              <div className="pt-2">
-                <SetupValues setup={setup} />
-              </div>
-            </details>
-            {readOnly && setup.pending ? null : (
-              <div className="flex flex-wrap gap-x-4">
-                {readOnly ? null : (
-                  <Link to={pathTo.newSetup(carId, setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
-                    Start a new setup from this one
-                  </Link>
-                )}
-                {/* Season export: a snapshot still on this phone is not on the server to print yet. */}
-                {setup.pending ? null : (
-                  <Link to={recordPath.setupSheet(setup.id)} className="inline-flex min-h-tap items-center font-semibold text-link underline">
-                    Print a setup sheet
-                  </Link>
-                )}
-              </div>
-            )}
-            {renderExtras?.(setup)}
-          </li>
-        );
-      })}
-    </ol>
+    <div className="flex flex-col gap-3">
+      <ol className="flex flex-col gap-3" aria-label="Setup history, newest first">
+        {setups.slice(0, shown).map((setup, i) => (
+          <SnapshotItem key={setup.id} carId={carId} setup={setup} before={setups[i + 1]} readOnly={readOnly} renderExtras={renderExtras} />
+        ))}
+      </ol>
+      {firstFolded ? (
+        <Button variant="secondary" className="self-start" onClick={() => setUnfoldedAt(firstFolded.id)}>
+          <ChevronDown aria-hidden="true" className="size-5" />
+          {`Show ${folded} older ${folded === 1 ? 'setup' : 'setups'}, back to ${formatDay(oldest.effectiveFrom)}`}
+        </Button>
+      ) : null}
+    </div>
   );
 }
