@@ -1,4 +1,4 @@
-import { useEffect, useState, type ReactNode } from 'react';
+import { useEffect, useId, useState, type ReactNode } from 'react';
 import { Link, useLocation } from 'react-router-dom';
 import { ChevronDown, ChevronRight, Lightbulb, Wrench } from 'lucide-react';
 import { diffSetups } from '@shared/season/setup-diff';
@@ -178,6 +178,7 @@ function SnapshotItem({ carId, setup, before, readOnly, renderExtras }: Snapshot
 /** A car's setup history, newest first: each snapshot with what changed from the one before it. */
 export function SetupTimeline({ carId, setups, readOnly = false, renderExtras, revealedId = null }: SetupTimelineProps) {
   const anchored = useSnapshotInAddress();
+  const listId = useId();
   // Unfolding moves the reader to the first snapshot it brought out; the button they pressed is gone.
   const [unfoldedAt, setUnfoldedAt] = useState<string | null>(null);
   const shown = unfoldedAt ? setups.length : foldedFrom(setups, [anchored, revealedId]);
@@ -199,10 +200,15 @@ export function SetupTimeline({ carId, setups, readOnly = false, renderExtras, r
         ))}
       </ol>
       {firstFolded ? (
-        <Button variant="secondary" className="self-start" onClick={() => setUnfoldedAt(firstFolded.id)}>
-          <ChevronDown aria-hidden="true" className="size-5" />
-          {`Show ${folded} older ${folded === 1 ? 'setup' : 'setups'}, back to ${formatDay(oldest.effectiveFrom)}`}
-        </Button>
+        <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
+          <Button variant="secondary" aria-describedby={`${listId}-oldest`} onClick={() => setUnfoldedAt(firstFolded.id)}>
+            <ChevronDown aria-hidden="true" className="size-5" />
+            {`Show ${folded} older ${folded === 1 ? 'setup' : 'setups'}`}
+          </Button>
+          <span id={`${listId}-oldest`} className="tabular-figures text-sm text-ink-muted">
+            back to {formatDay(oldest.effectiveFrom)}
+          </span>
+        </div>
       ) : null}
     </div>
   );

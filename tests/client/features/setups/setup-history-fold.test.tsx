@@ -46,7 +46,9 @@ describe('the setup history folds all but the newest snapshots away', () => {
       'Changes from “Change 3”:',
       'Changes from “Change 2”:',
     ]);
-    const more = screen.getByRole('button', { name: `Show 3 older setups, back to ${formatDay(BASE_SETUP.effectiveFrom)}` });
+    const more = screen.getByRole('button', { name: 'Show 3 older setups' });
+    expect(more.getAttribute('aria-describedby')).toBeTruthy();
+    expect(document.getElementById(more.getAttribute('aria-describedby')!)!.textContent).toBe(`back to ${formatDay(BASE_SETUP.effectiveFrom)}`);
 
     await u.click(more);
     expect(labels(shown)).toEqual(['Change 5', 'Change 4', 'Change 3', 'Change 2', 'Change 1', 'Spring baseline']);
@@ -70,7 +72,7 @@ describe('the setup history folds all but the newest snapshots away', () => {
 
     const shown = await history();
     expect(labels(shown)).toEqual(['Change 5', 'Change 4', 'Change 3', 'Change 2', 'Change 1']);
-    expect(screen.getByRole('button', { name: /^Show 1 older setup, back to / })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Show 1 older setup' })).toBeTruthy();
     await waitFor(() => expect(scrolled.mock.contexts).toContain(document.getElementById(`setup-${setups[4]!.id}`)));
     scrolled.mockRestore();
   });
