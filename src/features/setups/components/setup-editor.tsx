@@ -193,14 +193,17 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
         {SETUP_CORNER_FIELDS.map((name) => {
           const info = FIELD_INFO[name];
           const unit = info.quantity ? unitSymbol(info.quantity, units) : 'clicks';
+          // "Clicks (clicks)" says the word twice: a count names its own unit.
+          const heading = info.label.toLowerCase().endsWith(unit) ? null : unit;
           const adjuster = name === 'damperClicks' || name === 'damperReboundClicks' ? car.damperAdjusters : null;
           return (
             <section key={name} className="flex flex-col gap-1" aria-label={info.label}>
               <CornerGrid
-                label={`${info.label} (${unit})`}
+                label={heading ? `${info.label} (${heading})` : info.label}
                 title={
                   <span>
-                    {info.label} <span className="font-normal text-ink-muted">({unit})</span>
+                    {info.label}
+                    {heading ? <span className="font-normal text-ink-muted"> ({heading})</span> : null}
                   </span>
                 }
                 cornerInvalid={(corner) => Boolean(errors.corners?.[corner]?.[name])}

@@ -108,3 +108,16 @@ describe('setup editor', () => {
     expect(within(diff).getByText('Nothing changed yet.')).toBeTruthy();
   });
 });
+
+describe('setup editor headings', () => {
+  it('names each grid’s unit in the user’s units, and a count of clicks only once', async () => {
+    stub(jsonResponse(201, BASE_SETUP));
+    renderApp(`/cars/${IDS.car}/setups/new`);
+
+    await screen.findByLabelText('Left front cold pressure');
+    const grids = screen.getAllByRole('group').map((g) => g.getAttribute('aria-label')).filter((name) => !/^(Left|Right) /.test(name ?? ''));
+    expect(grids).toEqual(expect.arrayContaining(['Cold pressure (psi)', 'Ride height (in)', 'Clicks', 'Rebound clicks']));
+    expect(grids.filter((name) => /\(clicks\)/.test(name ?? ''))).toEqual([]);
+    expect(screen.queryByText('(clicks)')).toBeNull();
+  });
+});
