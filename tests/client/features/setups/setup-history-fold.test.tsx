@@ -4,9 +4,9 @@ import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
 import type { Setup } from '../../../../shared/season/setup.schema';
 import { formatDay } from '@/lib/dates';
-import { jsonResponse, renderApp, setUpAppTests, storedEntry } from '../../test-utils';
+import { jsonResponse, renderApp, setUpAppTests, storedEntry, stubFetch } from '../../test-utils';
 import { stubCarPage } from '../../fixtures/car-page';
-import { BASE_SETUP, IDS, list, user } from '../../fixtures/season';
+import { BASE_SETUP, CAR, IDS, list, user } from '../../fixtures/season';
 import { staffUser } from '../../fixtures/collab';
 
 setUpAppTests([
@@ -95,7 +95,10 @@ describe('the setup history folds all but the newest snapshots away', () => {
 
   it('when the shop opens a customer’s old setup thread, then that snapshot shows with its thread open', async () => {
     const setups = season(5);
-    stubCarPage(staffUser(), {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+      [`GET /api/cars/${IDS.car}/suggestions`]: list([]),
       [`GET /api/cars/${IDS.car}/setups`]: list(setups),
       [`GET /api/cars/${IDS.car}/season?minDepthMm=1.6`]: jsonResponse(200, { carId: IDS.car, events: [], setupChanges: [], changeLog: [], tyreLife: [] }),
       [`GET /api/comments?type=setup&id=${IDS.setupBase}`]: list([]),
