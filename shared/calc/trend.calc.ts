@@ -25,3 +25,32 @@ export function leastSquaresSlope(points: readonly (readonly [number, number])[]
   if (sxx === 0) return null;
   return sxy / sxx;
 }
+
+export interface StraightLine {
+  slope: number;
+  intercept: number;
+  /** r² = 1 − SS_res / SS_tot, the share of the spread in y the line explains, 0–1. */
+  r2: number;
+}
+
+/**
+ * The least-squares line y = slope·x + intercept through [x, y] points, with its r² (same sources as above).
+ * Null with fewer than 2 points or when every x is the same. When every y is the same the flat line fits them
+ * exactly: SS_tot is 0, the formula's 0/0 has no value, and r² is taken as 1.
+ */
+export function straightLineFit(points: readonly (readonly [number, number])[]): StraightLine | null {
+  const slope = leastSquaresSlope(points);
+  if (slope === null) return null;
+  const meanX = points.reduce((sum, [x]) => sum + x, 0) / points.length;
+  const meanY = points.reduce((sum, [, y]) => sum + y, 0) / points.length;
+  const intercept = meanY - slope * meanX;
+  let ssRes = 0;
+  let ssTot = 0;
+  for (const [x, y] of points) {
+    ssRes += (y - (slope * x + intercept)) ** 2;
+    ssTot += (y - meanY) ** 2;
+  }
+  // Every y the same, compared as given: their mean can differ from each in the last bit, leaving 0/0 as noise.
+  const flat = points.every(([, y]) => y === points[0]![1]);
+  return { slope, intercept, r2: flat || ssTot === 0 ? 1 : Math.max(0, 1 - ssRes / ssTot) };
+}

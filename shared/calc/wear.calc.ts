@@ -8,8 +8,8 @@
  * makers' service text): centre worn → over-inflation; both shoulders → under-inflation; inner edge → too much
  * negative camber (or toe-out); outer edge → positive camber or roll.
  */
-import { linearRegression, rSquared } from 'simple-statistics';
 import { requireFinite, requireNonNegative, noNegativeZero } from './input-checks.calc';
+import { straightLineFit } from './trend.calc';
 
 /** Legal minimum / wear-bar depth, mm: 2/32 in = 1.5875 mm in the US (FMVSS 109/119 wear indicators); EU 1.6 mm (from memory). */
 export const MINIMUM_TREAD_MM = 1.6;
@@ -31,15 +31,9 @@ export interface WearRate {
  * run count (no line can be fitted).
  */
 export function wearRateMmPerRun(points: readonly { runs: number; depthMm: number }[]): WearRate | null {
-  const data = points.map((p, i) => [requireFinite(`Reading ${i + 1} runs`, p.runs), requireNonNegative(`Reading ${i + 1} depth`, p.depthMm)]);
-  if (data.length < 2) return null;
-  const first = data[0]![0]!;
-  if (data.every(([runs]) => runs === first)) return null;
-  const { m, b } = linearRegression(data);
-  const fitted = rSquared(data, (x) => m * x + b);
-  // Every depth the same: the flat line fits exactly (0/0 in the formula).
-  const r2 = Number.isFinite(fitted) ? fitted : 1;
-  return { mmPerRun: noNegativeZero(-m), intercept: b, r2, n: data.length };
+  const data = points.map((p, i) => [requireFinite(`Reading ${i + 1} runs`, p.runs), requireNonNegative(`Reading ${i + 1} depth`, p.depthMm)] as const);
+  const line = straightLineFit(data);
+  return line && { mmPerRun: noNegativeZero(-line.slope), intercept: line.intercept, r2: line.r2, n: data.length };
 }
 
 /**

@@ -1,11 +1,10 @@
 import type { DataSource } from 'typeorm';
-import { linearRegression, linearRegressionLine, rSquared } from 'simple-statistics';
 import type { User } from '@shared/auth/auth.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import type { Setup, SetupCorner } from '@shared/season/setup.schema';
 import type { Run } from '@shared/season/run.schema';
 import { diffSetups } from '@shared/season/setup-diff';
-import { compareSamples, runsLeft, verdict, wearRateMmPerRun } from '@shared/calc/index';
+import { compareSamples, runsLeft, straightLineFit, verdict, wearRateMmPerRun } from '@shared/calc/index';
 import type {
   CompareQuery, CompareResult, Comparison, CornerOrAxle, ScatterPoint, ScatterQuery, ScatterResult, SeasonResult,
 } from '@shared/analysis/analysis.schema';
@@ -161,11 +160,9 @@ async function loadSeason(ds: DataSource, carId: string) {
   return { car, setups, runs, sets, events, setupById: new Map(setups.map((s) => [s.id, s])), eventById: new Map(events.map((e) => [e.id, e])) };
 }
 
+/** The straight line through the points, from three on (two always fit exactly and say nothing). */
 function fitLine(points: { x: number; y: number }[]): ScatterResult['fit'] {
-  if (points.length < 3 || new Set(points.map((p) => p.x)).size < 2) return null;
-  const pairs = points.map((p) => [p.x, p.y]);
-  const line = linearRegression(pairs);
-  return { slope: line.m, intercept: line.b, r2: rSquared(pairs, linearRegressionLine(line)) };
+  return points.length < 3 ? null : straightLineFit(points.map((p) => [p.x, p.y]));
 }
 
 const inRange = (date: string | null, q: { from?: string; to?: string }) =>

@@ -3,11 +3,16 @@ import { client, makeTestApp, type TestApp } from '../test-app';
 import { seededDatabaseUrl } from '../support-seeded';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/db/demo-accounts';
 import { DEMO_CAMBER_ARMS_DATE } from '../../../server/db/demo-season';
+import { driverWithCarAndEvent, postRun, postSetup } from '../season/season-fixtures';
 
 let db: Awaited<ReturnType<typeof seededDatabaseUrl>>;
 let t: TestApp;
 let maren: ReturnType<typeof client>;
 let carId: string;
+const setupCorners = {
+  lr: { camberDeg: -1.0, toeMm: 1, damperClicks: 6, coldPressureKpa: 210 },
+  rr: { camberDeg: -1.0, toeMm: 1, damperClicks: 6, coldPressureKpa: 210 },
+};
 
 beforeAll(async () => {
   db = await seededDatabaseUrl();
@@ -46,6 +51,27 @@ describe('GET /api/cars/:carId/analysis/scatter', () => {
     // The demo roadster counts clicks from full soft, 12 positions.
     expect(p.xNormalized).toBeCloseTo(p.x / 12, 12);
     expect(res.body.y.unit).toBe('%');
+  });
+
+  it('when every run is its day’s best (0 % off each time), then the flat line fits exactly: r² is 1, a number, not null', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const events = [d.eventId];
+    for (const date of ['2026-05-03', '2026-05-24']) {
+      events.push((await d.c.post('/api/events', { name: `Round on ${date}`, date, conePenaltySec: 2 })).body.id);
+    }
+    // One setup before each event.
+    for (const [camber, from] of [[-1.2, '2026-04-01'], [-1.8, '2026-05-01'], [-2.4, '2026-05-20']] as const) {
+      const front = { camberDeg: camber, toeMm: 0, damperClicks: 4, coldPressureKpa: 220 };
+      await postSetup(d.c, d.carId, { label: `Camber ${camber}`, effectiveFrom: `${from}T00:00:00Z`, corners: { ...setupCorners, lf: front, rf: front } });
+    }
+    await postRun(d.c, d.carId, events[0]!, { recordedAt: '2026-04-12T10:00:00Z' });
+    await postRun(d.c, d.carId, events[1]!, { recordedAt: '2026-05-03T10:00:00Z' });
+    await postRun(d.c, d.carId, events[2]!, { recordedAt: '2026-05-24T10:00:00Z' });
+
+    const res = await d.c.get(`/api/cars/${d.carId}/analysis/scatter?x=camber&y=time&corner=front`);
+    expect(res.status).toBe(200);
+    expect(res.body.points.map((p: { x: number; y: number }) => [p.x, p.y])).toEqual([[-1.2, 0], [-1.8, 0], [-2.4, 0]]);
+    expect(res.body.fit).toEqual({ slope: 0, intercept: 0, r2: 1 });
   });
 
   it('when x or y is not one of the choices, then 400 with a field error', async () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { linearRegression } from 'simple-statistics';
-import { leastSquaresSlope } from '../../../shared/calc/trend.calc';
+import { linearRegression, linearRegressionLine, rSquared } from 'simple-statistics';
+import { leastSquaresSlope, straightLineFit } from '../../../shared/calc/trend.calc';
 import { expectClose } from './expect-digits';
 
 describe('leastSquaresSlope', () => {
@@ -49,6 +49,47 @@ describe('leastSquaresSlope', () => {
           expectClose(leastSquaresSlope(shifted)!, leastSquaresSlope(points)!, 1e-9, 1e-9);
         },
       ),
+    );
+  });
+});
+
+describe('straightLineFit', () => {
+  it('when given Anscombe’s first data set, then the line is y = 3.00 + 0.500x with r² = 0.67 (Anscombe 1973, The American Statistician 27(1), from memory)', () => {
+    const x = [10, 8, 13, 9, 11, 14, 6, 4, 12, 7, 5];
+    const y = [8.04, 6.95, 7.58, 8.81, 8.33, 9.96, 7.24, 4.26, 10.84, 4.82, 5.68];
+    const line = straightLineFit(x.map((xi, i) => [xi, y[i]!]))!;
+    expect(line.slope).toBeCloseTo(0.5, 3);
+    expect(line.intercept).toBeCloseTo(3.0, 2);
+    expect(line.r2).toBeCloseTo(0.67, 2);
+  });
+
+  it('when every y is the same, then the flat line fits exactly: r² is 1, not the formula’s 0/0', () => {
+    // Three events, one run each: each run is its day's best, 0 % off.
+    expect(straightLineFit([[-1.2, 0], [-1.8, 0], [-2.4, 0]])).toEqual({ slope: 0, intercept: 0, r2: 1 });
+    // A mean of 0.1s that is not exactly 0.1 in binary must not turn the exact fit into noise.
+    expect(straightLineFit([[1, 0.1], [2, 0.1], [3, 0.1], [4, 0.1], [5, 0.1]])!.r2).toBe(1);
+    // simple-statistics answers NaN here, which JSON would send as null.
+    expect(rSquared([[1, 0], [2, 0], [3, 0]], linearRegressionLine(linearRegression([[1, 0], [2, 0], [3, 0]])))).toBeNaN();
+  });
+
+  it('when there are fewer than 2 points or every x is the same, then there is no line', () => {
+    expect(straightLineFit([])).toBeNull();
+    expect(straightLineFit([[1, 5]])).toBeNull();
+    expect(straightLineFit([[2, 1], [2, 3]])).toBeNull();
+  });
+
+  it('when compared with simple-statistics on random points, then slope, intercept and r² agree (independent library)', () => {
+    const point = fc.tuple(fc.integer({ min: 1, max: 30 }), fc.integer({ min: -5000, max: 5000 }).map((v) => v / 100));
+    fc.assert(
+      fc.property(fc.array(point, { minLength: 3, maxLength: 20 }), (points) => {
+        fc.pre(new Set(points.map(([x]) => x)).size >= 2 && new Set(points.map(([, y]) => y)).size >= 2);
+        const ours = straightLineFit(points)!;
+        const pairs = points.map(([x, y]) => [x, y]);
+        const theirs = linearRegression(pairs);
+        expectClose(ours.slope, theirs.m, 1e-9, 1e-9);
+        expectClose(ours.intercept, theirs.b, 1e-9, 1e-9);
+        expectClose(ours.r2, rSquared(pairs, linearRegressionLine(theirs)), 1e-9, 1e-9);
+      }),
     );
   });
 });
