@@ -7,7 +7,7 @@ import { insertUnlessPresent } from '../../lib/insert';
 import { allows } from '../../auth/access-matrix';
 import { assertCarAccess, assertEventAccess, assertWorkOrderAccess, carRelations, grantedShopOf, type CarAction, type Queryable } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
-import { actorLabel, carAudience, driverRecipients, notify, sendOutbox, staffRecipients } from '../notifications/notify';
+import { actorLabel, carAudience, driverRecipients, notify, sendOutbox, shopStaffRecipients, staffRecipients } from '../notifications/notify';
 import { workOrderTarget } from '../work-orders/work-order.service';
 import { CommentEntity } from './comment.entity';
 
@@ -41,6 +41,11 @@ interface ResolvedTarget {
   description: string;
   /** A work-order thread: the visit's shop, which its staff sign with even after the car's grant is withdrawn. */
   shop?: { id: string; name: string };
+  /**
+   * A work-order thread is the drivers' and the visit's shop's alone: only that shop's staff hear of it (granted
+   * still or not), never another shop the car is granted to.
+   */
+  visitShopId?: string;
 }
 
 /**
@@ -110,7 +115,8 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
         relation === 'shop_staff' ? await db.query('SELECT s.id, s.name FROM work_orders w JOIN shops s ON s.id = w.shop_id WHERE w.id = $1', [target.id]) : [];
       return {
         type: 'work_order', id: target.id, carId: visit.carId,
-        driverLink: `/work-orders/${target.id}`, description: visit.description,
+        driverLink: `/work-orders/${target.id}`, staffLink: `/work-orders/${target.id}`, description: visit.description,
+        visitShopId: visit.shopId,
         ...(shopRows[0] ? { shop: shopRows[0] } : {}),
       };
     }
@@ -247,7 +253,12 @@ export async function createComment(
       commentId: newId!,
       summary: `${actorLabel(user.displayName, shop?.name)} commented on ${target.description}`,
       detail: `“${input.body}”`,
-      recipients: [...driverRecipients(audience, target.driverLink), ...staffRecipients(audience, { link: target.staffLink })],
+      recipients: [
+        ...driverRecipients(audience, target.driverLink),
+        ...(target.visitShopId
+          ? await shopStaffRecipients(m, audience, target.visitShopId, target.staffLink)
+          : staffRecipients(audience, { link: target.staffLink })),
+      ],
     });
     return { id: newId!, created: true, outbox };
   });

@@ -142,6 +142,22 @@ export function staffRecipients(audience: CarAudience, opts: { shopId?: string; 
     }));
 }
 
+/**
+ * The staff of one shop, whether or not the car is still granted to it: the shop of a service visit keeps the
+ * visit's thread after a grant is withdrawn.
+ */
+export async function shopStaffRecipients(db: Queryable, audience: CarAudience, shopId: string, link?: string): Promise<NotificationRecipient[]> {
+  const rows: { user_id: string; shop_name: string }[] = await db.query(
+    'SELECT m.user_id, s.name AS shop_name FROM shop_members m JOIN shops s ON s.id = m.shop_id WHERE m.shop_id = $1 ORDER BY m.created_at',
+    [shopId],
+  );
+  return rows.map((r) => ({
+    userId: r.user_id,
+    link: link ?? `/shop/customers/${audience.carId}`,
+    reason: `You get this e-mail because ${r.shop_name} worked on ${audience.carName} in Scrubline.`,
+  }));
+}
+
 /** "Dusty Okonjo (Kettle Lane Chassis Works)" for shop staff, the bare name for drivers. */
 export function actorLabel(displayName: string, shopName: string | null | undefined): string {
   return shopName ? `${displayName} (${shopName})` : displayName;

@@ -136,7 +136,10 @@ export async function listCustomers(ds: DataSource, user: User, shopId: string):
            (SELECT k.created_at, 'comment',
                    a.display_name || ' commented: “' || CASE WHEN length(k.body) > 80 THEN left(k.body, 79) || '…' ELSE k.body END || '”'
               FROM comments k JOIN users a ON a.id = k.author_id
-             WHERE k.car_id = c.id ORDER BY k.created_at DESC LIMIT 1)
+             -- Another shop's service visit is not this shop's to read, nor its thread.
+             WHERE k.car_id = c.id
+               AND (k.work_order_id IS NULL OR EXISTS (SELECT 1 FROM work_orders w WHERE w.id = k.work_order_id AND w.shop_id = g.shop_id))
+             ORDER BY k.created_at DESC LIMIT 1)
          ) x ORDER BY x.at DESC LIMIT 1
        ) la ON true
       WHERE g.shop_id = $1

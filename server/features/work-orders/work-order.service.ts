@@ -402,11 +402,11 @@ export async function closeWorkOrder(
 }
 
 /** Used by the comments feature: the visit's car and how a thread on it is described. */
-export async function workOrderTarget(db: Queryable, workOrderId: string): Promise<{ carId: string; description: string } | null> {
-  const rows: { car_id: string; requested_work: string; shop_name: string }[] = await db.query(
-    'SELECT w.car_id, w.requested_work, s.name AS shop_name FROM work_orders w JOIN shops s ON s.id = w.shop_id WHERE w.id = $1',
+export async function workOrderTarget(db: Queryable, workOrderId: string): Promise<{ carId: string; shopId: string; description: string } | null> {
+  const rows: { car_id: string; shop_id: string; requested_work: string; shop_name: string }[] = await db.query(
+    'SELECT w.car_id, w.shop_id, w.requested_work, s.name AS shop_name FROM work_orders w JOIN shops s ON s.id = w.shop_id WHERE w.id = $1',
     [workOrderId],
   );
   const r = rows[0];
-  return r ? { carId: r.car_id, description: `the ${r.shop_name} visit "${trimTo(r.requested_work, 60)}"` } : null;
+  return r ? { carId: r.car_id, shopId: r.shop_id, description: `the ${r.shop_name} visit "${trimTo(r.requested_work, 60)}"` } : null;
 }

@@ -409,6 +409,39 @@ describe('comments on a visit', () => {
   });
 });
 
+describe('who hears of a comment on a visit', () => {
+  const notices = async (c: { get: (path: string) => Promise<{ body: { items: { summary: string; link: string }[] } }> }) =>
+    (await c.get('/api/notifications')).body.items.filter((n) => n.summary.includes('commented on the'));
+
+  it('when the car is also granted to another shop, then only the visit\'s shop hears, and the other shop\'s customer list does not quote it', async () => {
+    const { driver, staff, shopId, workOrder } = await openVisit();
+    const other = await shopWithAdmin(t, 'Upland Motorsport', 'Ola Brandt');
+    expect((await driver.c.post(`/api/cars/${driver.carId}/shop-grants`, { shopId: other.shopId })).status).toBe(201);
+
+    const res = await driver.c.post('/api/comments', { target: { type: 'work_order', id: workOrder.id }, body: 'Their quote was 900 for the arms.' });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+
+    expect((await notices(staff.c)).map((n) => n.link)).toEqual([`/work-orders/${workOrder.id}`]);
+    expect(await notices(other.admin.c)).toEqual([]);
+    const theirs = (await other.admin.c.get(`/api/shops/${other.shopId}/customers`)).body.items as { latestActivity: { summary: string } | null }[];
+    expect(theirs.map((c) => c.latestActivity?.summary ?? '').join(' ')).not.toContain('900');
+    const ours = (await staff.c.get(`/api/shops/${shopId}/customers`)).body.items as { latestActivity: { summary: string } | null }[];
+    expect(ours[0]!.latestActivity!.summary).toContain('Their quote was 900');
+
+    // A thread on the car itself is every granted shop's to hear of.
+    await driver.c.post('/api/comments', { target: { type: 'setup', id: (await postSetup(driver.c, driver.carId, { label: 'After the arms' })).id }, body: 'Feels sharper.' });
+    expect(await notices(other.admin.c)).toHaveLength(1);
+  });
+
+  it('when the owner has withdrawn the visit\'s shop\'s access, then its staff still hear of comments on their visit', async () => {
+    const { driver, staff, shopId, workOrder } = await openVisit();
+    expect((await driver.c.delete(`/api/cars/${driver.carId}/shop-grants/${shopId}`)).status).toBe(204);
+
+    await driver.c.post('/api/comments', { target: { type: 'work_order', id: workOrder.id }, body: 'Is the invoice final?' });
+    expect((await notices(staff.c)).map((n) => n.link)).toEqual([`/work-orders/${workOrder.id}`]);
+  });
+});
+
 describe('the demo visits', () => {
   it('when the demo is seeded, then Pebble has the closed camber-arm visit tied to its snapshot and changes, and an open coilover visit with a part-built sheet', async () => {
     const db = await seededDatabaseUrl();
