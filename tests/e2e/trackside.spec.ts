@@ -35,7 +35,8 @@ async function logRun(time: string | null, opts: { cones?: number; status?: 'DNF
     }
   }
   for (let i = 0; i < (opts.cones ?? 0); i++) await page.getByRole('button', { name: 'More: Cones' }).click();
-  if (opts.status) await page.getByRole('radio', { name: opts.status }).check({ force: true });
+  // A tap on the choice as drawn (its label), scrolled clear of the Save bar as a thumb would.
+  if (opts.status) await page.locator('label').filter({ has: page.getByRole('radio', { name: opts.status }) }).click();
   await page.getByRole('button', { name: /^Save run/ }).click();
   await page.getByText(/saved on this phone/).waitFor();
 }
@@ -136,15 +137,27 @@ describe('trackside on a phone (390×844)', () => {
     await screenshot(page, 'trackside-empty');
 
     // The whole keypad is on the first screen, above the Save bar that stays at the bottom: "0" and
-    // "Clear" are not under it.
-    await page.evaluate(() => window.scrollTo(0, 0));
-    const saveBar = (await page.getByRole('button', { name: /^Save run/ }).locator('..').boundingBox())!;
-    for (const name of ['0', 'Clear']) {
-      const key = (await page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name, exact: true }).boundingBox())!;
-      expect(key.y + key.height, `the "${name}" key's bottom`).toBeLessThanOrEqual(saveBar.y);
-    }
+    // "Clear" are not under it. The cones' − and + sit in the bar, so a tap on them lands on them, not on
+    // something drawn over them; and the bar keeps its height once a run is saved.
+    const firstScreen = async (when: string) => {
+      await page.evaluate(() => window.scrollTo(0, 0));
+      const saveBar = (await page.locator('form[aria-label="Log a run"] > .sticky').boundingBox())!;
+      for (const name of ['0', 'Clear']) {
+        const key = (await page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name, exact: true }).boundingBox())!;
+        expect(key.y + key.height, `${when}: the "${name}" key's bottom`).toBeLessThanOrEqual(saveBar.y);
+      }
+      for (const name of ['Less: Cones', 'More: Cones']) {
+        const tapped = await page.getByRole('button', { name }).evaluate((button) => {
+          const box = button.getBoundingClientRect();
+          return button.contains(document.elementFromPoint(box.x + box.width / 2, box.y + box.height / 2)) && box.bottom <= window.innerHeight;
+        });
+        expect(tapped, `${when}: a tap on "${name}"`).toBe(true);
+      }
+    };
+    await firstScreen('before a run');
 
     await logRun('47.210');
+    await firstScreen('after a run is saved');
     await logRun('46.905', { cones: 2 });
     await logRun(null, { status: 'DNF' });
     await page.waitForFunction(() => !document.body.textContent?.includes('Waiting'), null, { timeout: 15_000 }).catch(() => {});

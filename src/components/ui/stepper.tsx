@@ -12,10 +12,12 @@ interface StepperProps {
   format?: (value: number) => string;
   /** Large (56 px) buttons for gloved hands at the car. */
   size?: 'lg' | 'md';
+  /** A word under the number ("cones"), for a narrow stepper beside another control. */
+  caption?: string;
 }
 
 /** A whole number (or a fixed step) changed with − and + buttons: big targets, no keyboard needed. */
-export function Stepper({ label, value, onChange, min = -Infinity, max = Infinity, step = 1, format, size = 'lg' }: StepperProps) {
+export function Stepper({ label, value, onChange, min = -Infinity, max = Infinity, step = 1, format, size = 'lg', caption }: StepperProps) {
   const round = (n: number) => Math.round(n * 1e6) / 1e6;
   const button = cn(
     'inline-flex shrink-0 items-center justify-center rounded border border-line-strong bg-surface text-ink hover:bg-surface-raised disabled:opacity-50',
@@ -32,8 +34,12 @@ export function Stepper({ label, value, onChange, min = -Infinity, max = Infinit
       >
         <Minus aria-hidden="true" className="size-6" />
       </button>
-      <output className="tabular-figures min-w-16 flex-1 text-center text-2xl font-bold" aria-live="polite">
+      <output
+        className={cn('tabular-figures text-center text-2xl font-bold', caption ? 'flex w-12 flex-col leading-none' : 'min-w-16 flex-1')}
+        aria-live="polite"
+      >
         {format ? format(value) : value}
+        {caption ? <span className="text-xs font-semibold text-ink-muted"> {caption}</span> : null}
       </output>
       <button
         type="button"

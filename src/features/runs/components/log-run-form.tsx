@@ -156,6 +156,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
         preview={preview}
         error={errors.rawTimeSec ?? null}
         label={`Raw time · ${driver.displayName}`}
+        idleNote={saved}
         aside={
           <label className="flex shrink-0 items-center gap-2">
             {/* "Run" alone keeps the time's label on one line, so the keypad fits above the Save bar. */}
@@ -178,14 +179,6 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
           </label>
         }
       />
-
-      <div className="flex flex-col gap-1">
-        <span className="text-sm font-semibold">
-          Cones <span className="font-normal text-ink-muted">({conePenaltySec} s each)</span>
-        </span>
-        <Stepper label="Cones" value={cones} min={0} max={50} onChange={setCones} format={coneWords} />
-        {errors.cones ? <p className="text-sm font-semibold text-warning">{errors.cones}</p> : null}
-      </div>
 
       <SegmentedControl label="Result" options={STATUS_OPTIONS} value={status} onChange={setStatus} name="run-status" />
       {status !== 'finished' ? <p className="text-sm text-ink-muted">No time needed; type one if the timer gave one.</p> : null}
@@ -227,13 +220,22 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
 
       <FormAlert message={errors._} />
       {/* On a phone the Save button stays in thumb reach above the bottom bar while the form is in view. */}
+      {/*
+        On a phone the cones and the Save button stay in thumb reach above the bottom bar while the form is in view:
+        the two taps after every run, never under the bar. The confirmation sits under the time, so the bar keeps
+        its height.
+      */}
       <div className="sticky bottom-[calc(3.5rem+1px+env(safe-area-inset-bottom))] z-10 -mx-3 -mb-3 flex flex-col gap-1 rounded-b-lg border-t border-line bg-surface px-3 py-2 md:static">
-        <p aria-live="polite" className={`text-sm font-semibold empty:hidden ${refused ? 'text-warning' : 'text-ink'}`}>
-          {refused ? 'Not saved: fix what is marked.' : saved}
+        <p role="alert" className="text-sm font-semibold text-warning empty:hidden">
+          {refused ? 'Not saved: fix what is marked.' : null}
         </p>
-        <Button type="submit" className="min-h-tap-lg w-full text-xl" isPending={write.isPending} pendingLabel="Saving…">
-          {typed.ok ? `Save run ${typed.value}` : 'Save run'}
-        </Button>
+        {errors.cones ? <p className="text-sm font-semibold text-warning">{errors.cones}</p> : null}
+        <div className="flex flex-wrap items-center gap-2">
+          <Stepper label="Cones" value={cones} min={0} max={50} onChange={setCones} caption={cones === 1 ? 'cone' : 'cones'} />
+          <Button type="submit" className="min-h-tap-lg min-w-32 flex-1 px-3 text-lg" isPending={write.isPending} pendingLabel="Saving…">
+            {typed.ok ? `Save run ${typed.value}` : 'Save run'}
+          </Button>
+        </div>
       </div>
     </form>
   );

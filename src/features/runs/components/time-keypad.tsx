@@ -25,6 +25,8 @@ interface TimeKeypadProps {
   label?: string;
   /** Drawn at the end of the label's row (the run number). */
   aside?: ReactNode;
+  /** What the note under the time says while there is nothing else to say (the last run saved); else how to type. */
+  idleNote?: string | null;
 }
 
 /**
@@ -32,7 +34,7 @@ interface TimeKeypadProps {
  * backspace). The display is a real input, so a keyboard or a paste from a timing sheet works too;
  * it opens no on-screen keyboard of its own on a phone.
  */
-export function TimeKeypad({ value, onChange, onPaste, preview, error, label = 'Raw time', aside }: TimeKeypadProps) {
+export function TimeKeypad({ value, onChange, onPaste, preview, error, label = 'Raw time', aside, idleNote }: TimeKeypadProps) {
   const id = useId();
   const press = (key: string) => onChange(cleanTimeText(value + key));
   const key = 'inline-flex min-h-tap-lg items-center justify-center rounded border border-line-strong bg-surface text-2xl font-bold text-ink select-none hover:bg-surface-raised active:bg-accent-soft';
@@ -68,8 +70,14 @@ export function TimeKeypad({ value, onChange, onPaste, preview, error, label = '
         />
         <span className="pl-2 text-lg font-semibold text-ink-muted">s</span>
       </div>
-      <p id={`${id}-note`} role={error ? 'alert' : undefined} className={cn('tabular-figures min-h-6 text-sm font-semibold', error ? 'text-warning' : 'text-ink-muted')}>
-        {error ?? preview ?? 'Type or paste: 45.678 or 1:05.432'}
+      {/* Polite: a saved run, or what the typed time reads as, is heard once it changes; an error at once. */}
+      <p
+        id={`${id}-note`}
+        role={error ? 'alert' : undefined}
+        aria-live="polite"
+        className={cn('tabular-figures min-h-6 text-sm font-semibold', error ? 'text-warning' : !preview && idleNote ? 'text-ink' : 'text-ink-muted')}
+      >
+        {error ?? preview ?? idleNote ?? 'Type or paste: 45.678 or 1:05.432'}
       </p>
       <div className="grid grid-cols-4 gap-2" role="group" aria-label="Time keypad">
         {KEYS.map((k) => (
