@@ -164,7 +164,8 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
               )}
             </div>
             <p className="tabular-figures flex flex-wrap gap-x-3 text-sm">
-              <span>{row.cones ? `+${coneWords(row.cones)}` : 'Clean'}</span>
+              {/* "Clean" is a finished run's word: a DNF with no cone was not a clean run. */}
+              {row.cones || row.status === 'finished' ? <span>{row.cones ? `+${coneWords(row.cones)}` : 'Clean'}</span> : null}
               {row.pctOffBest !== null && !row.isBest ? <span>{`${formatPercent(row.pctOffBest)} off ${whose}`}</span> : null}
               <span className="text-ink-muted">Setup: {setup ?? 'none recorded'}</span>
             </p>

@@ -29,6 +29,7 @@ beforeEach(() => localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.s
 // The runs URL is a GET; stubFetch keys are "METHOD path".
 const RUNS = `GET ${RUNS_URL}`;
 const UUID_TOMAS_RUN = 'b3333333-3333-4333-8333-333333333333';
+const UUID_FOURTH_RUN = 'b4444444-4444-4444-8444-444444444444';
 
 interface StubOptions {
   units?: UnitPreferences;
@@ -309,6 +310,23 @@ describe('event day', () => {
     expect(screen.queryByText('Best')).toBeNull();
     // (47.0 − 46.5) / 46.5 = 1.08 %, off Maren's own best, not the car's (45.9, which would be 2.40 %).
     expect(within(screen.getByRole('listitem', { name: 'Run 2, Maren Holt' })).getByText('+1.08 % off Maren’s best')).toBeTruthy();
+  });
+
+  it('when a run is clean, coned, a DNF or a DNF after a cone, then only the finished clean one says “Clean”', async () => {
+    stubWithRuns([
+      savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 46.5, adjustedTimeSec: 46.5 }),
+      savedRun({ id: IDS.run2, runNumber: 2, rawTimeSec: 46.1, cones: 1, adjustedTimeSec: 48.1, isBest: false, recordedAt: '2026-06-07T10:00:00.000Z' }),
+      savedRun({ id: UUID_TOMAS_RUN, runNumber: 3, rawTimeSec: null, status: 'dnf', adjustedTimeSec: null, isBest: false, pctOffBest: null, recordedAt: '2026-06-07T10:10:00.000Z' }),
+      savedRun({ id: UUID_FOURTH_RUN, runNumber: 4, rawTimeSec: null, status: 'dnf', cones: 2, adjustedTimeSec: null, isBest: false, pctOffBest: null, recordedAt: '2026-06-07T10:20:00.000Z' }),
+    ]);
+    renderApp(PATH);
+
+    const run = async (n: number) => within(await screen.findByRole('listitem', { name: new RegExp(`^Run ${n}, Maren Holt`) }));
+    expect((await run(1)).getByText('Clean')).toBeTruthy();
+    expect((await run(2)).getByText('+1 cone')).toBeTruthy();
+    expect((await run(3)).queryByText('Clean')).toBeNull();
+    expect((await run(3)).getByText('DNF')).toBeTruthy();
+    expect((await run(4)).getByText('+2 cones')).toBeTruthy();
   });
 
   it('when a co-driver has closed their account, then their runs say “Closed account’s best”, not a first name that is not one', async () => {
