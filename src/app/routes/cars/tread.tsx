@@ -9,6 +9,7 @@ import { toast } from '@/lib/toast-store';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useCar } from '@/features/cars/api/get-car';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
+import { NewTyreSetForm } from '@/features/tyres/components/new-tyre-set-form';
 import { TreadDisplay } from '@/features/tyres/components/tread-display';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
 import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
@@ -43,7 +44,10 @@ export function TreadPage() {
       ) : sets.isError ? (
         <EmptyState message="Tyre sets could not be loaded. Try again when you have signal." />
       ) : sets.sets.length === 0 ? (
-        <EmptyState message="This car has no tyre sets recorded yet. Add one on the car’s page." />
+        // No dead end: the set is added here, and the tread form takes its place once it is.
+        <EmptyState message="This car has no tyre set yet. Add the set on the car; its tread goes in next.">
+          <NewTyreSetForm carId={carId} defaultSize={car.data?.tyreSize ?? null} onSaved={() => undefined} />
+        </EmptyState>
       ) : (
         <TreadEntryForm carId={carId} sets={sets.sets} initialSetId={params.get('set')} onUploaded={onUploaded} />
       )}

@@ -16,7 +16,8 @@ interface NewTyreSetFormProps {
   /** The car's tyre size, offered as the set's. */
   defaultSize: string | null;
   onSaved: () => void;
-  onCancel: () => void;
+  /** Where there is something else to go back to; without it, no Cancel button. */
+  onCancel?: () => void;
 }
 
 /** A new tyre set: label, size, when bought and its depth when new, in the user's tread unit; saved through the outbox. */
@@ -59,9 +60,11 @@ export function NewTyreSetForm({ carId, defaultSize, onSaved, onCancel }: NewTyr
         <Button type="submit" isPending={write.isPending || formState.isSubmitting} pendingLabel="Saving…">
           Save tyre set
         </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
+        {onCancel ? (
+          <Button variant="secondary" onClick={onCancel}>
+            Cancel
+          </Button>
+        ) : null}
       </div>
     </form>
   );

@@ -101,3 +101,26 @@ describe('tread entry', () => {
     expect(within(latest).getByRole('group', { name: /Left rear/ }).textContent).toContain('Not measured');
   });
 });
+
+describe('tread entry for a car with no tyre set', () => {
+  it('when the car has no set, then the page offers to add one there, and its tread boxes follow once it is saved on the phone', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+      [`GET /api/cars/${IDS.car}/tyre-sets`]: list([]),
+    });
+    const { outbox } = renderApp(`/cars/${IDS.car}/tread`, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+
+    const form = await screen.findByRole('form', { name: 'New tyre set' });
+    expect(screen.getByText(/no tyre set yet/)).toBeTruthy();
+    // Nothing to go back to on this page but the car link above.
+    expect(within(form).queryByRole('button', { name: 'Cancel' })).toBeNull();
+    await u.type(within(form).getByLabelText('Label'), 'Set A (2026)');
+    await u.click(within(form).getByRole('button', { name: 'Save tyre set' }));
+
+    expect(await screen.findByLabelText('Left front inner')).toBeTruthy();
+    expect(screen.queryByRole('form', { name: 'New tyre set' })).toBeNull();
+    expect(outbox.getSnapshot().map((e) => e.kind)).toContain('tyreSet.create');
+  });
+});
