@@ -10,6 +10,25 @@ interface Schemas {
 }
 
 /**
+ * Where a request carries the character U+0000, by field ("corners.lf.notes"). PostgreSQL's text cannot hold it,
+ * so a value with one would fail at the database, after the schema passed it; no one types it on purpose.
+ */
+export function nulCharacterFields(value: unknown, path = ''): Record<string, string[]> {
+  const found: Record<string, string[]> = {};
+  const walk = (v: unknown, at: string) => {
+    if (typeof v === 'string') {
+      if (v.includes('\u0000')) found[at || '_'] = ['Contains a null character (U+0000), which cannot be stored: remove it'];
+    } else if (Array.isArray(v)) {
+      v.forEach((item, i) => walk(item, at ? `${at}.${i}` : String(i)));
+    } else if (v && typeof v === 'object') {
+      for (const [key, item] of Object.entries(v)) walk(item, at ? `${at}.${key}` : key);
+    }
+  };
+  walk(value, path);
+  return found;
+}
+
+/**
  * Parses body, params and query with the shared schemas at the edge. Handlers read
  * the parsed values from `res.locals.body|params|query`; a failure is a 400 with
  * field errors.
@@ -20,10 +39,11 @@ export function validate(schemas: Schemas): RequestHandler {
       const schema = schemas[part];
       if (!schema) continue;
       const result = z.safeParse(schema, req[part] ?? {});
-      if (!result.success) {
+      const nul = part === 'params' ? {} : nulCharacterFields(req[part]);
+      if (!result.success || Object.keys(nul).length > 0) {
         // A malformed id names no record: that is "not found", like an id that does not exist.
         if (part === 'params') throw new AppError('not_found', 'That record was not found.');
-        throw new AppError('validation_failed', 'Some fields need attention.', toFieldErrors(result.error));
+        throw new AppError('validation_failed', 'Some fields need attention.', { ...(result.success ? {} : toFieldErrors(result.error)), ...nul });
       }
       res.locals[part] = result.data;
     }

@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { isoDate, isoDateTime } from '../api/dates.schema';
 import type { Corner } from '../season/corners';
 import type { SetupChange } from '../season/setup.schema';
 
@@ -10,20 +11,19 @@ export type ScatterParam = (typeof SCATTER_PARAMS)[number];
 export type ScatterMetric = (typeof SCATTER_METRICS)[number];
 export type CornerOrAxle = (typeof CORNER_OR_AXLE)[number];
 
-const isoDate = z.iso.date({ error: 'Use a date such as 2026-06-12' });
 
 export const scatterQuerySchema = z.strictObject({
   x: z.enum(SCATTER_PARAMS, { error: `Pick x from ${SCATTER_PARAMS.join(', ')}` }),
   y: z.enum(SCATTER_METRICS, { error: `Pick y from ${SCATTER_METRICS.join(', ')}` }),
   /** A corner, or an axle (the mean of its two corners). Defaults to the front axle. */
   corner: z._default(z.enum(CORNER_OR_AXLE), 'front'),
-  from: z.optional(isoDate),
-  to: z.optional(isoDate),
+  from: z.optional(isoDate()),
+  to: z.optional(isoDate()),
 });
 export type ScatterQuery = z.infer<typeof scatterQuerySchema>;
 
 export const compareQuerySchema = z
-  .strictObject({ changeId: z.optional(z.uuid()), at: z.optional(z.union([z.iso.datetime({ offset: true }), isoDate])) })
+  .strictObject({ changeId: z.optional(z.uuid()), at: z.optional(z.union([isoDateTime(), isoDate()])) })
   .check(
     z.refine((q) => (q.changeId === undefined) !== (q.at === undefined), {
       message: 'Give either a change from the log (changeId) or a date (at)',

@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { isoDateTime } from '../api/dates.schema';
 import { CORNERS, type Corner } from '../season/corners';
 import { SETUP_CORNER_FIELDS, type Setup, type SetupCornerField } from '../season/setup.schema';
 
@@ -33,12 +34,11 @@ export const createSuggestionInputSchema = z.strictObject({
 });
 export type CreateSuggestionInput = z.infer<typeof createSuggestionInputSchema>;
 
-const isoDateTime = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T09:30:00Z' });
 
 export const acceptSuggestionInputSchema = z.strictObject({
   /** Client-made id for the new snapshot, so a resend never makes two. */
   setupId: z.optional(z.uuid()),
-  effectiveFrom: isoDateTime,
+  effectiveFrom: isoDateTime(),
   label: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(80, 'Use at most 80 characters'))),
 });
 export type AcceptSuggestionInput = z.infer<typeof acceptSuggestionInputSchema>;

@@ -9,6 +9,7 @@
  * and links to a shop's suggestions or work orders.
  */
 import * as z from '../zod';
+import { isoDateTime } from '../api/dates.schema';
 import { createCarInputSchema } from '../season/car.schema';
 import { createChangeInputSchema } from '../season/change-log.schema';
 import { perCorner } from '../season/corners';
@@ -23,7 +24,6 @@ export { SEASON_FILE_FORMAT, SEASON_FILE_MAX_BYTES, SEASON_FILE_VERSION, type Se
 
 /** An id inside the file: only compared with the file's other ids, never looked up. */
 const ref = z.string().check(z.minLength(1, 'Give the record an id'), z.maxLength(100, 'Use an id of at most 100 characters'));
-const isoDateTime = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T09:30:00Z' });
 const optionalText = (max: number) => z.optional(z.nullable(z.string().check(z.trim(), z.maxLength(max))));
 /** Who recorded a record where the file was made; shown for reference, not imported (the importer becomes the recorder). */
 const personName = optionalText(80);
@@ -35,7 +35,7 @@ export const exportedCarSchema = z.extend(z.omit(createCarInputSchema, { id: tru
 export const exportedSetupSchema = z.strictObject({
   id: ref,
   label: z.string().check(z.trim(), z.minLength(1, 'Give the setup a label'), z.maxLength(80, 'Use at most 80 characters')),
-  effectiveFrom: isoDateTime,
+  effectiveFrom: isoDateTime(),
   recordedBy: personName,
   derivedFromId: z._default(z.nullable(ref), null),
   notes: optionalText(2000),
@@ -60,7 +60,7 @@ export const exportedRunSchema = z
     rawTimeSec: z.nullable(rawTimeSecSchema),
     cones: z._default(conesSchema, 0),
     status: z._default(runStatusSchema, 'finished'),
-    recordedAt: isoDateTime,
+    recordedAt: isoDateTime(),
     driverName: personName,
     notes: optionalText(2000),
   })
@@ -90,7 +90,7 @@ export const exportedTyreSetSchema = z.extend(z.omit(createTyreSetInputSchema, {
 export const seasonExportSchema = z.strictObject({
   format: z.literal(SEASON_FILE_FORMAT, { error: 'This is not a Scrubline season file' }),
   version: z.literal(SEASON_FILE_VERSION, { error: `Scrubline reads season files of version ${SEASON_FILE_VERSION}` }),
-  exportedAt: z.optional(isoDateTime),
+  exportedAt: z.optional(isoDateTime()),
   car: exportedCarSchema,
   setups: many(exportedSetupSchema, 5000, 'setups'),
   changes: many(exportedChangeSchema, 5000, 'change-log entries'),

@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { isoDateTime } from '../api/dates.schema';
 import { conesSchema, rawTimeSecSchema } from '../season/run.schema';
 
 /** The most runs one import may carry (a full season of one car at one event is far fewer). */
@@ -42,7 +43,7 @@ export const importResultsInputSchema = z.strictObject({
    * When run 1 is taken to have started (the event's date at noon where the driver is);
    * each later run one minute on. Defaults to noon UTC on the event's date.
    */
-  firstRunAt: z.optional(z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T12:00:00+02:00' })),
+  firstRunAt: z.optional(isoDateTime('Use a date and time such as 2026-06-12T12:00:00+02:00')),
   runs: z
     .array(importRunItemSchema)
     .check(z.minLength(1, 'Choose at least one run to import'), z.maxLength(MAX_IMPORT_RUNS, `Import at most ${MAX_IMPORT_RUNS} runs at a time`)),

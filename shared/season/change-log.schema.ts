@@ -1,10 +1,11 @@
 import * as z from '../zod';
+import { isoDate } from '../api/dates.schema';
 
 export const CHANGE_LOCATIONS = ['lf', 'rf', 'lr', 'rr', 'front', 'rear', 'car'] as const;
 
 export const createChangeInputSchema = z.strictObject({
   id: z.optional(z.uuid()),
-  changedOn: z.iso.date({ error: 'Use a date such as 2026-06-12' }),
+  changedOn: isoDate(),
   what: z.string().check(z.trim(), z.minLength(1, 'Say what was changed'), z.maxLength(200, 'Use at most 200 characters')),
   location: z._default(z.enum(CHANGE_LOCATIONS), 'car'),
   notes: z.optional(z.nullable(z.string().check(z.trim(), z.maxLength(2000)))),

@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { isoDate } from '../api/dates.schema';
 import { LIMITS } from './limits';
 
 export const EVENT_KINDS = ['autocross', 'track_day'] as const;
@@ -11,7 +12,7 @@ export const createEventInputSchema = z.strictObject({
   /** Client-made id, so an event created with no signal is not made twice on replay. */
   id: z.optional(z.uuid()),
   name: z.string().check(z.trim(), z.minLength(1, 'Give the event a name'), z.maxLength(120, 'Use at most 120 characters')),
-  date: z.iso.date({ error: 'Use a date such as 2026-06-12' }),
+  date: isoDate(),
   venue: optionalText(120),
   kind: z._default(z.enum(EVENT_KINDS), 'autocross'),
   /** Seconds added per cone; 2 s is common practice in autocross. */

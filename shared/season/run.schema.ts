@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { isoDateTime } from '../api/dates.schema';
 import { perCorner, type PerCorner } from './corners';
 import { LIMITS } from './limits';
 import { pressureKpaSchema } from './setup.schema';
@@ -29,7 +30,7 @@ const runFields = {
   rawTimeSec: z.nullable(rawTimeSecSchema),
   cones: z._default(conesSchema, 0),
   status: z._default(runStatusSchema, 'finished'),
-  recordedAt: z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T09:30:00Z' }),
+  recordedAt: isoDateTime(),
   driverId: z.optional(z.uuid()),
   hotPressuresKpa: z.optional(z.nullable(perCorner(pressureKpaSchema))),
   notes: z.optional(z.nullable(z.string().check(z.trim(), z.maxLength(2000)))),

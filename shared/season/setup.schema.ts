@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { isoDateTime } from '../api/dates.schema';
 import { CORNERS, perCorner, type Corner } from './corners';
 import { LIMITS } from './limits';
 import { versionSchema } from './car.schema';
@@ -50,13 +51,12 @@ export const setupAxleSchema = z.strictObject({
   antiRollBar: clearable(text(40, 'Use at most 40 characters')),
 });
 
-const isoDateTime = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T09:30:00Z' });
 
 export const createSetupInputSchema = z.strictObject({
   /** Client-made id, so an offline replay never makes a second snapshot. */
   id: z.optional(z.uuid()),
   label: z.string().check(z.trim(), z.minLength(1, 'Give the setup a label'), z.maxLength(80, 'Use at most 80 characters')),
-  effectiveFrom: isoDateTime,
+  effectiveFrom: isoDateTime(),
   corners: z._default(perCorner(setupCornerSchema), {}),
   axles: z._default(z.strictObject({ front: z.optional(setupAxleSchema), rear: z.optional(setupAxleSchema) }), {}),
   derivedFromId: clearable(z.uuid()),
@@ -72,7 +72,7 @@ export const QUICK_CHANGE_FIELDS = ['damperClicks', 'damperReboundClicks', 'cold
 export const quickChangeInputSchema = z.strictObject({
   id: z.optional(z.uuid()),
   label: z.optional(z.string().check(z.trim(), z.minLength(1), z.maxLength(80))),
-  effectiveFrom: z.optional(isoDateTime),
+  effectiveFrom: z.optional(isoDateTime()),
   changes: z
     .array(
       z

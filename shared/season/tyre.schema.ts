@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { isoDate, isoDateTime } from '../api/dates.schema';
 import { CORNERS, perCorner, type Corner } from './corners';
 import { LIMITS } from './limits';
 
@@ -22,7 +23,7 @@ export const createTyreSetInputSchema = z.strictObject({
   id: z.optional(z.uuid()),
   label: z.string().check(z.trim(), z.minLength(1, 'Give the set a label'), z.maxLength(80)),
   size: clearable(text(40)),
-  boughtOn: clearable(z.iso.date()),
+  boughtOn: clearable(isoDate()),
   startTreadMm: clearable(depth('Starting')),
   notes: clearable(text(2000)),
 });
@@ -32,7 +33,7 @@ export type CreateTyreSetInput = z.infer<typeof createTyreSetInputSchema>;
 export const createMountingInputSchema = z.strictObject({
   /** Client-made id, so a rotation sent twice is recorded once. */
   id: z.optional(z.uuid()),
-  mountedAt: z.iso.datetime({ offset: true }),
+  mountedAt: isoDateTime(),
   positions: z
     .strictObject({ lf: tyreNumber(), rf: tyreNumber(), lr: tyreNumber(), rr: tyreNumber() })
     .check(z.refine((p) => new Set(Object.values(p)).size === 4, { message: 'Each tyre can be on one corner only' })),
@@ -50,7 +51,7 @@ export type TreadCorner = z.infer<typeof treadCornerSchema>;
 
 export const createTreadReadingInputSchema = z.strictObject({
   id: z.optional(z.uuid()),
-  takenAt: z.iso.datetime({ offset: true }),
+  takenAt: isoDateTime(),
   corners: perCorner(treadCornerSchema).check(atLeastOneCorner()),
   eventId: clearable(z.uuid()),
   notes: clearable(text(2000)),
@@ -60,7 +61,7 @@ export type CreateTreadReadingInput = z.infer<typeof createTreadReadingInputSche
 export const createPressureReadingInputSchema = z.strictObject({
   id: z.optional(z.uuid()),
   kind: z.enum(['cold', 'hot']),
-  takenAt: z.iso.datetime({ offset: true }),
+  takenAt: isoDateTime(),
   runId: clearable(z.uuid()),
   corners: perCorner(
     z.number().check(

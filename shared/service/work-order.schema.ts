@@ -1,4 +1,5 @@
 import * as z from '../zod';
+import { isoDate, isoDateTime } from '../api/dates.schema';
 import { perCorner, type Corner } from '../season/corners';
 import { LIMITS } from '../season/limits';
 import { versionSchema } from '../season/car.schema';
@@ -15,8 +16,6 @@ const range = (name: string, unit: string, min: number, max: number) =>
     .check(z.gte(min, `${name} must be between ${min} and ${max} ${unit}`), z.lte(max, `${name} must be between ${min} and ${max} ${unit}`));
 const clearable = <T extends z.ZodMiniType>(schema: T) => z.optional(z.nullable(schema));
 const text = (max: number) => z.string().check(z.trim(), z.maxLength(max, `Use at most ${max} characters`));
-const isoDate = z.iso.date({ error: 'Use a date such as 2026-06-12' });
-const isoDateTime = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-06-12T16:30:00Z' });
 const requestedWork = z
   .string({ error: 'Say what the customer asked for' })
   .check(z.trim(), z.minLength(1, 'Say what the customer asked for'), z.maxLength(2000, 'Use at most 2000 characters'));
@@ -34,14 +33,14 @@ export const createWorkOrderInputSchema = z.strictObject({
   id: z.optional(z.uuid()),
   /** Which of the caller's shops; defaults to the (first) one holding a grant on the car. */
   shopId: z.optional(z.uuid()),
-  visitDate: isoDate,
+  visitDate: isoDate(),
   requestedWork,
   notes: clearable(text(4000)),
 });
 export type CreateWorkOrderInput = z.infer<typeof createWorkOrderInputSchema>;
 
 export const updateWorkOrderInputSchema = z.strictObject({
-  visitDate: z.optional(isoDate),
+  visitDate: z.optional(isoDate()),
   requestedWork: z.optional(requestedWork),
   notes: clearable(text(4000)),
   version: versionSchema,
@@ -91,7 +90,7 @@ export type MeasurementCorner = z.infer<typeof measurementCornerSchema>;
 /** PUT …/measurements/:stage replaces that stage: how the car sat, and each corner's readings. */
 export const measurementsInputSchema = z
   .strictObject({
-    measuredAt: clearable(isoDateTime),
+    measuredAt: clearable(isoDateTime('Use a date and time such as 2026-06-12T16:30:00Z')),
     driverInCar: z.boolean({ error: 'Say whether the driver was in the car' }),
     driverWeightKg: clearable(range('Driver weight', 'kg', 20, 250)),
     fuelLevelPct: clearable(range('Fuel level', '%', 0, 100)),
@@ -149,7 +148,7 @@ export const buildSheetInputSchema = z.strictObject({ corners: perCorner(buildSh
 export type BuildSheetInput = z.infer<typeof buildSheetInputSchema>;
 
 export const closeWorkOrderInputSchema = z.strictObject({
-  handoverAt: isoDateTime,
+  handoverAt: isoDateTime('Use a date and time such as 2026-06-12T16:30:00Z'),
   /** The new setup's label; by default "<shop>: <requested work>". */
   label: z.optional(z.string().check(z.trim(), z.minLength(1, 'Give the setup a label'), z.maxLength(80, 'Use at most 80 characters'))),
 });

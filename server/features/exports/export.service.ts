@@ -10,6 +10,7 @@ import {
 } from '@shared/export/season-export.schema';
 import * as z from '@shared/zod';
 import { AppError } from '../../lib/app-error';
+import { nulCharacterFields } from '../../lib/validate';
 import { assertCarAccess } from '../../auth/access';
 import { loadCarEntity } from '../cars/car.service';
 import { setupsOfCar } from '../setups/setup.service';
@@ -290,7 +291,10 @@ export async function importSeason(ds: DataSource, user: User, body: unknown): P
   const header = seasonFileHeaderProblem(body);
   if (header) throw invalid({ [header.field]: [header.message] }, header.message);
   const result = z.safeParse(seasonExportSchema, body);
-  if (!result.success) throw invalid(toFieldErrors(result.error), 'This season file has values Scrubline cannot read.');
+  const nul = nulCharacterFields(body);
+  if (!result.success || Object.keys(nul).length > 0) {
+    throw invalid({ ...(result.success ? {} : toFieldErrors(result.error)), ...nul }, 'This season file has values Scrubline cannot read.');
+  }
   const file = result.data;
   const refErrors = checkReferences(file);
   if (Object.keys(refErrors).length) throw invalid(refErrors, 'This season file has records that point at nothing.');

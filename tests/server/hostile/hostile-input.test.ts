@@ -121,3 +121,42 @@ describe('hostile input on every POST, PUT and PATCH route', () => {
     expect(await totalRows()).toBe(before);
   });
 });
+
+/**
+ * Values the schemas' formats let through but PostgreSQL cannot store: found at the edge, each a 400 at its field,
+ * never a 500 from the database (PostgreSQL's text has no U+0000; its dates have no year 0).
+ */
+describe('values PostgreSQL cannot store', () => {
+  it('when a text carries U+0000, in a body, deep in one or in the query, then 400 names the field and nothing is written', async () => {
+    const before = await totalRows();
+    const team = await d.c.post('/api/teams', { name: 'Gravel\u0000Pit' });
+    expect(team.status).toBe(400);
+    expect(team.body.error.fieldErrors.name).toEqual(['Contains a null character (U+0000), which cannot be stored: remove it']);
+
+    const setup = await d.c.post(`/api/cars/${d.carId}/setups`, {
+      label: 'Baseline', effectiveFrom: '2026-04-01T00:00:00Z', corners: {}, notes: 'ok', axles: { front: { antiRollBar: 'hole\u00002' } },
+    });
+    expect(setup.status).toBe(400);
+    expect(Object.keys(setup.body.error.fieldErrors)).toEqual(['axles.front.antiRollBar']);
+
+    const search = await d.c.get('/api/shops?q=Kettle%00Lane');
+    expect(search.status).toBe(400);
+    expect(search.body.error.fieldErrors.q).toBeDefined();
+    expect(await totalRows()).toBe(before);
+  });
+
+  it('when a date or a moment is in year 0000 or out of the years a season can have, then 400 at that field and nothing is written', async () => {
+    const before = await totalRows();
+    for (const date of ['0000-01-01', '0026-06-12', '2200-01-01']) {
+      const res = await d.c.post('/api/events', { name: 'Typo round', date, conePenaltySec: 2 });
+      expect(res.status, date).toBe(400);
+      expect(res.body.error.fieldErrors.date).toEqual(['Use a year from 1900 to 2199']);
+    }
+    const run = await d.c.post('/api/runs', { id: '3f1c2b4a-5d6e-4f70-8a9b-0c1d2e3f4a5b', carId: d.carId, eventId: d.eventId, runNumber: 1, rawTimeSec: 45.6, cones: 0, status: 'finished', recordedAt: '0000-04-12T10:00:00Z' });
+    expect(run.status).toBe(400);
+    expect(run.body.error.fieldErrors.recordedAt).toEqual(['Use a year from 1900 to 2199']);
+    expect(await totalRows()).toBe(before);
+    // The edges themselves are dates.
+    expect((await d.c.post('/api/events', { name: 'Old round', date: '1900-01-01', conePenaltySec: 2 })).status).toBe(201);
+  });
+});
