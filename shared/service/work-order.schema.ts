@@ -105,7 +105,8 @@ export const measurementsInputSchema = z
 export type MeasurementsInput = z.infer<typeof measurementsInputSchema>;
 
 const length = (name: string) => clearable(range(name, 'mm', 0, 2000));
-const rate = (name: string) => clearable(range(name, 'N/mm', 0, LIMITS.springRateNPerMm.max));
+/** A spring's rate, in the range a setup takes: the main spring's goes into the setup handed over. */
+const rate = (name: string) => clearable(range(name, 'N/mm', LIMITS.springRateNPerMm.min, LIMITS.springRateNPerMm.max));
 const clicks = clearable(
   z
     .number({ error: 'Clicks must be a whole number' })

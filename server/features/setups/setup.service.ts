@@ -105,6 +105,21 @@ async function checkClicks(db: Db, carId: string, corners: Partial<Record<Corner
 }
 
 /**
+ * A whole snapshot's corners, made on the server (a visit's handover) rather than typed: each corner in the
+ * setup's ranges and the clicks within the car's adjusters, or a 400 naming each field (`corners.lf.damperClicks`).
+ */
+export async function checkSnapshotCorners(db: Db, carId: string, corners: Record<Corner, SetupCorner>) {
+  const errors: FieldErrors = {};
+  for (const corner of CORNERS) {
+    const result = setupCornerSchema.safeParse(corners[corner]);
+    if (result.success) continue;
+    for (const [key, messages] of Object.entries(toFieldErrors(result.error))) (errors[`corners.${corner}.${key}`] ??= []).push(...messages);
+  }
+  if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
+  await checkClicks(db, carId, corners);
+}
+
+/**
  * Writes the corners given. A field left out keeps its stored value (an edit of one
  * value must not wipe the rest); null clears it.
  */
@@ -232,7 +247,8 @@ export async function deleteSetup(ds: DataSource, user: User, setupId: string): 
   await ds.getRepository(SetupSnapshotEntity).delete({ id: setupId });
 }
 
-const FIELD_WORDS: Record<SetupCornerField, string> = {
+/** A corner field in words, as messages name it. */
+export const FIELD_WORDS: Record<SetupCornerField, string> = {
   camberDeg: 'camber', toeMm: 'toe', casterDeg: 'caster', springRateNPerMm: 'spring rate', rideHeightMm: 'ride height',
   damperClicks: 'clicks', damperReboundClicks: 'rebound clicks', coldPressureKpa: 'cold pressure', cornerWeightKg: 'corner weight',
 };

@@ -13,7 +13,7 @@ import { invoiceLineCents } from '@shared/calc/invoice.calc';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { assertCarAccess, assertShopAccess, assertWorkOrderAccess, carRelations, grantedShopOf, type Queryable } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
-import { activeSetupAt, insertSnapshot } from '../setups/setup.service';
+import { activeSetupAt, checkSnapshotCorners, FIELD_WORDS, insertSnapshot } from '../setups/setup.service';
 import { carAudience, driverRecipients, notify, sendOutbox } from '../notifications/notify';
 
 
@@ -359,6 +359,19 @@ export async function closeWorkOrder(
       if (sheet?.reboundClicks !== null && sheet?.reboundClicks !== undefined) values.damperReboundClicks = sheet.reboundClicks;
       corners[corner] = values;
     }
+    // What is handed over must be a setup the driver can work from: in range, clicks within the adjusters.
+    await checkSnapshotCorners(m, w.car_id, corners).catch((err: unknown) => {
+      if (!(err instanceof AppError) || !err.fieldErrors) throw err;
+      const problems = Object.entries(err.fieldErrors).map(([key, messages]) => {
+        const [, corner, field] = key.split('.');
+        return `${corner!.toUpperCase()} ${FIELD_WORDS[field as keyof typeof FIELD_WORDS] ?? field}: ${messages.join('; ')}`;
+      });
+      throw new AppError(
+        'validation_failed',
+        `The setup this visit hands over would not be valid (${problems.join('. ')}). Correct the build sheet or the after measurements, then close it.`,
+        err.fieldErrors,
+      );
+    });
     const snapshot: CreateSetupInput = {
       label: input.label ?? trimTo(`${w.shop_name}: ${w.requested_work.replace(/\s+/g, ' ')}`, 80),
       effectiveFrom: handoverAt.toISOString(),

@@ -284,6 +284,37 @@ describe('POST /api/work-orders/:workOrderId/close', () => {
     t.ds.query('SELECT s.*, (SELECT json_agg(c ORDER BY c.corner) FROM setup_corners c WHERE c.setup_id = s.id) AS corners FROM setup_snapshots s WHERE car_id = $1 ORDER BY s.id', [carId]);
   const runsOf = (carId: string) => t.ds.query('SELECT * FROM runs WHERE car_id = $1 ORDER BY id', [carId]);
 
+  it('when the build sheet has more clicks than the car\'s adjuster, then closing is refused with what to correct, the visit stays open and no snapshot is written; corrected, it closes', async () => {
+    const { driver, staff, url } = await readyVisit();
+    const sheet = { corners: { lf: { ...SHEET.corners.lf, bumpClicks: 20 } } };
+    expect((await staff.c.put(`${url}/build-sheet`, sheet)).status).toBe(200);
+    const snapshotsBefore = await snapshotsOf(driver.carId);
+
+    const res = await staff.c.post(`${url}/close`, { handoverAt: '2026-06-12T16:30:00Z' });
+    expect(res.status).toBe(400);
+    // The car's front adjuster has 12 positions (the fixture's).
+    expect(res.body.error.fieldErrors['corners.lf.damperClicks']).toEqual(['This adjuster has 12 clicks; use 0 to 12']);
+    expect(res.body.error.message).toContain('LF clicks: This adjuster has 12 clicks');
+    expect(res.body.error.message).toContain('Correct the build sheet or the after measurements');
+    expect((await staff.c.get(url)).body.status).toBe('open');
+    expect(await snapshotsOf(driver.carId)).toEqual(snapshotsBefore);
+
+    // The quick change that a bad handover would have blocked still works on the setup in force.
+    expect((await staff.c.put(`${url}/build-sheet`, SHEET)).status).toBe(200);
+    expect((await staff.c.post(`${url}/close`, { handoverAt: '2026-06-12T16:30:00Z' })).status).toBe(200);
+    const quick = await driver.c.post(`/api/cars/${driver.carId}/setups/quick-change`, {
+      id: randomUUID(), label: 'Rear pressure down', changes: [{ field: 'coldPressureKpa', corners: ['rr'], delta: -7 }],
+    });
+    expect(quick.status, JSON.stringify(quick.body)).toBe(201);
+  });
+
+  it('when a main spring rate below what a setup takes is put on the build sheet, then 400 at that field', async () => {
+    const { staff, url } = await readyVisit();
+    const res = await staff.c.put(`${url}/build-sheet`, { corners: { lf: { mainSpringRateNPerMm: 0.5 } } });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fieldErrors)).toEqual(['corners.lf.mainSpringRateNPerMm']);
+  });
+
   it('when staff close the visit, then one new snapshot (after-measurements and sheet over the setup in force), a change per part, the visit closed, the drivers notified; old snapshots and runs unchanged', async () => {
     const { driver, co, staff, setup, workOrder, url } = await readyVisit();
     const snapshotsBefore = await snapshotsOf(driver.carId);
