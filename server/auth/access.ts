@@ -227,14 +227,20 @@ export async function assertTeamAccess(db: Queryable, user: User, teamId: string
 /**
  * An event is visible to its creator, to anyone sharing a car with the creator
  * (so co-drivers log into the same event), and to anyone who may read a car that ran at it.
- * A condition on `events e`.
+ * A car's owner chose its co-drivers, so the owner's events are theirs to see; a co-driver was added
+ * without being asked, so only the events they made since they were added are shared through the car,
+ * never the ones from before. A condition on `events e`.
  */
 const eventVisibleSql = (user: string) => `(e.created_by = ${user}
              OR EXISTS (SELECT 1 FROM runs r WHERE r.event_id = e.id AND r.car_id IN ${readableCarIdsSql(user)})
-             OR EXISTS (SELECT 1 FROM cars c
+             OR ${eventSharedThroughCarSql(user)})`;
+
+/** The part of the rule above that shares an event among a car's drivers; the events list uses it too. */
+export const eventSharedThroughCarSql = (user: string) => `EXISTS (SELECT 1 FROM cars c
                          WHERE c.id IN ${accessibleCarIdsSql(user)}
                            AND (c.owner_id = e.created_by
-                                OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = e.created_by))))`;
+                                OR EXISTS (SELECT 1 FROM car_co_drivers d
+                                            WHERE d.car_id = c.id AND d.user_id = e.created_by AND d.created_at <= e.created_at)))`;
 
 export async function assertEventAccess(db: Queryable, user: User, eventId: string): Promise<void> {
   const rows: { visible: boolean }[] = await db.query(`SELECT ${eventVisibleSql('$2')} AS visible FROM events e WHERE e.id = $1`, [eventId, user.id]);

@@ -4,7 +4,7 @@ import type { CreateEventInput, SeasonEvent } from '@shared/season/event.schema'
 import type { Run } from '@shared/season/run.schema';
 import { bestRun } from '@shared/calc/scoring.calc';
 import { AppError } from '../../lib/app-error';
-import { accessibleCarIdsSql, assertCarAccess, assertEventAccess } from '../../auth/access';
+import { accessibleCarIdsSql, assertCarAccess, assertEventAccess, eventSharedThroughCarSql } from '../../auth/access';
 import { loadRuns } from '../runs/run.service';
 import { insertUnlessPresent } from '../../lib/insert';
 import { EventEntity } from './event.entity';
@@ -47,10 +47,7 @@ export async function listEvents(ds: DataSource, user: User): Promise<SeasonEven
     `SELECT e.id FROM events e
       WHERE e.created_by = $1
          OR EXISTS (SELECT 1 FROM runs r WHERE r.event_id = e.id AND r.car_id IN ${accessibleCarIdsSql('$1')})
-         OR EXISTS (SELECT 1 FROM cars c
-                     WHERE c.id IN ${accessibleCarIdsSql('$1')}
-                       AND (c.owner_id = e.created_by
-                            OR EXISTS (SELECT 1 FROM car_co_drivers d WHERE d.car_id = c.id AND d.user_id = e.created_by)))`,
+         OR ${eventSharedThroughCarSql('$1')}`,
     [user.id],
   );
   if (ids.length === 0) return [];

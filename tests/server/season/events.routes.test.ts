@@ -102,6 +102,25 @@ describe('GET /api/events and /api/events/:eventId', () => {
     expect((await co.c.get('/api/events')).body.items.map((e: { id: string }) => e.id)).toEqual([d.eventId]);
   });
 
+  it('when someone is added as a co-driver, then the car\'s drivers see the events they make from then on, never the ones they made before', async () => {
+    const owner = await driverWithCarAndEvent(t);
+    const other = await signedInClient(t, { displayName: 'Nell Kirby' });
+    const before = await other.c.post('/api/events', event({ name: 'Their own club round' }));
+    expect(before.status).toBe(201);
+    // Added without being asked: what they had is not opened up by it.
+    const res = await owner.c.post(`/api/cars/${owner.carId}/co-drivers`, { email: other.email });
+    expect(res.status).toBe(201);
+    expectError(await owner.c.get(`/api/events/${before.body.id}`), 404, 'not_found');
+    expect((await owner.c.get('/api/events')).body.items.map((e: { id: string }) => e.id)).not.toContain(before.body.id);
+
+    // At the next event the co-driver enters it first; the owner logs into the same one.
+    const after = await other.c.post('/api/events', event({ name: 'Shared round', date: '2026-05-03' }));
+    expect((await owner.c.get(`/api/events/${after.body.id}`)).status).toBe(200);
+    expect((await owner.c.get('/api/events')).body.items.map((e: { id: string }) => e.id)).toContain(after.body.id);
+    // And the co-driver sees the owner's events, old ones included: the owner chose to share the car.
+    expect((await other.c.get(`/api/events/${owner.eventId}`)).status).toBe(200);
+  });
+
   it('when the event id is unknown or malformed, then 404', async () => {
     const { c } = await signedInClient(t);
     expectError(await c.get(`/api/events/${randomUUID()}`), 404, 'not_found');
