@@ -47,6 +47,11 @@ export function parseRunTime(text: string): RunTimeParseResult {
   if (fraction !== undefined && fraction.length > 3) {
     return fail('Use at most 3 decimals: timing gear reports thousandths of a second');
   }
+  // Four digits or more and no point or colon: a point missed on the keypad (45678 for 45.678), not a
+  // run of a quarter of an hour; with five or more, the last three are the thousandths timing gear gives.
+  if (minutesText === null && fraction === undefined && whole.length >= 4) {
+    return fail(whole.length >= 5 ? `No decimal point: for ${whole.slice(0, -3)}.${whole.slice(-3)}, type the point` : `No decimal point. ${EXAMPLE}`);
+  }
   if (minutesText !== null && Number(whole) >= 60) {
     return fail('The seconds must be under 60 when minutes are given, e.g. 1:05.432');
   }

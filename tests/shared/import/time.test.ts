@@ -50,7 +50,8 @@ describe('parseTimeCell: refused, with a reason', () => {
     ['45.678+2.5', /whole number/],
     ['45.678+51', /at most 50 cones/],
     ['45.1234', /3 decimals/],
-    ['1800', /30 min/],
+    ['1800.0', /30 min/],
+    ['45678', /No decimal point: for 45\.678/],
     ['0', /above 0/],
   ])('when the cell is "%s", then it is invalid (%s)', (text, reason) => {
     const cell = parseTimeCell(text);
