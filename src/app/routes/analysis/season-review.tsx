@@ -32,6 +32,7 @@ function SeasonSections({ carId }: { carId: string }) {
   const units = useUnits();
   const [minDepthMm, setMinDepthMm] = useState(() => defaultMinDepthMm(units));
   const season = useSeason(carId, minDepthMm);
+  const { data: car } = useCar(carId);
   const body = (render: (data: NonNullable<typeof season.data>) => ReactNode) =>
     season.isPending ? (
       <p className="text-ink-muted">Loading the season…</p>
@@ -46,7 +47,7 @@ function SeasonSections({ carId }: { carId: string }) {
       <SectionBoundary title="Season timeline">
         <SectionCard title="Season timeline">
           {body((data) => (
-            <SeasonTimeline season={data} renderChanges={(changes) => <SetupChangeList changes={changes} />} />
+            <SeasonTimeline season={data} renderChanges={(changes) => <SetupChangeList changes={changes} adjusters={car?.damperAdjusters} />} />
           ))}
         </SectionCard>
       </SectionBoundary>

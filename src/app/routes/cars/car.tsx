@@ -38,6 +38,7 @@ function SetupSection({ carId }: { carId: string }) {
   const [params] = useSearchParams();
   const threadId = params.get('comments');
   const { data: me } = useMe();
+  const { data: car } = useCar(carId);
   const { data, isPending, isError } = useSetups(carId);
   const entries = useOutboxEntriesFor({ carId });
   const setups = useMemo(
@@ -51,6 +52,7 @@ function SetupSection({ carId }: { carId: string }) {
       carId={carId}
       setups={setups}
       revealedId={threadId}
+      adjusters={car?.damperAdjusters}
       // A snapshot still on this phone has no thread (nor photos) on the server yet.
       renderExtras={(setup) =>
         setup.pending ? null : (

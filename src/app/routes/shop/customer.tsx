@@ -129,6 +129,7 @@ function Events({ carId }: { carId: string }) {
 
 function Setups({ carId }: { carId: string }) {
   const { data, isPending, isError } = useSetups(carId);
+  const { data: car } = useCar(carId);
   const { eventId, threadId } = useThreadInAddress();
   if (isPending) return <p className="text-ink-muted">Loading the setup history…</p>;
   if (isError) return <p className="text-ink-muted">The setup history could not be loaded. Try again shortly.</p>;
@@ -138,6 +139,7 @@ function Setups({ carId }: { carId: string }) {
       readOnly
       setups={data.items.map((s) => ({ ...s, pending: null }))}
       revealedId={eventId ? null : threadId}
+      adjusters={car?.damperAdjusters}
       renderExtras={(setup) => (
         <>
           <Link to={recordPath.newSuggestion(carId, setup.id)} className={buttonClasses('secondary', 'self-start')}>

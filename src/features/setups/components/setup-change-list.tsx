@@ -1,3 +1,5 @@
+import type { Car } from '@shared/season/car.schema';
+import { clickDirection } from '@shared/season/damper-clicks';
 import type { SetupChange, SetupCornerField } from '@shared/season/setup.schema';
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { useUnits } from '@/lib/units-context';
@@ -14,8 +16,15 @@ function valueText(group: ChangeGroup, value: number | string | null, units: Uni
   return formatFieldValue(group.field, value, units);
 }
 
+interface SetupChangeListProps {
+  changes: readonly SetupChange[];
+  emptyText?: string;
+  /** The car's adjusters: a change of clicks then says whether it went stiffer or softer. */
+  adjusters?: Car['damperAdjusters'] | undefined;
+}
+
 /** What changed from one snapshot to the next, one line per field and amount, in the user's units. */
-export function SetupChangeList({ changes, emptyText = 'No values changed.' }: { changes: readonly SetupChange[]; emptyText?: string }) {
+export function SetupChangeList({ changes, emptyText = 'No values changed.', adjusters }: SetupChangeListProps) {
   const units = useUnits();
   const groups = groupChanges(changes);
   if (groups.length === 0) return <p className="text-sm text-ink-muted">{emptyText}</p>;
@@ -29,6 +38,9 @@ export function SetupChangeList({ changes, emptyText = 'No values changed.' }: {
           {g.delta !== null && g.field !== 'antiRollBar' ? (
             <>
               <span className="font-bold">{formatFieldDelta(g.field, g.delta, units)}</span>
+              {(g.field === 'damperClicks' || g.field === 'damperReboundClicks') && adjusters ? (
+                <span className="font-semibold">{clickDirection(adjusters, g.corners, g.delta)}</span>
+              ) : null}
               {g.sameEnds ? (
                 <span className="text-sm text-ink-muted">
                   ({valueText(g, g.from, units)} → {valueText(g, g.to, units)})

@@ -269,7 +269,7 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
 
       <section aria-label="Changes from the starting setup" className="flex flex-col gap-2 rounded-lg border border-line bg-surface p-4">
         <h3 className="font-bold">{base ? `Changes from “${base.label}”` : 'Values entered'}</h3>
-        <SetupChangeList changes={changes} emptyText="Nothing changed yet." />
+        <SetupChangeList changes={changes} emptyText="Nothing changed yet." adjusters={car.damperAdjusters} />
       </section>
 
       <div className="sticky bottom-[calc(3.5rem+env(safe-area-inset-bottom))] z-10 -mx-4 flex flex-col gap-2 border-t border-line bg-canvas px-4 py-3 md:bottom-0">

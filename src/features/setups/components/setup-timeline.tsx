@@ -1,6 +1,7 @@
 import { useEffect, useId, useState, type ReactNode } from 'react';
 import { Link, useLocation } from 'react-router-dom';
 import { ChevronDown, ChevronRight, Lightbulb, Wrench } from 'lucide-react';
+import type { Car } from '@shared/season/car.schema';
 import { diffSetups } from '@shared/season/setup-diff';
 import { pathTo } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
@@ -110,16 +111,18 @@ interface SetupTimelineProps {
   renderExtras?: (setup: SetupView) => ReactNode;
   /** The snapshot the page was opened for (a notification's link): drawn even when it is an old one. */
   revealedId?: string | null;
+  /** The car's damper adjusters, so a change of clicks says stiffer or softer. */
+  adjusters?: Car['damperAdjusters'] | undefined;
 }
 
-interface SnapshotItemProps extends Pick<SetupTimelineProps, 'carId' | 'readOnly' | 'renderExtras'> {
+interface SnapshotItemProps extends Pick<SetupTimelineProps, 'carId' | 'readOnly' | 'renderExtras' | 'adjusters'> {
   setup: SetupView;
   /** The snapshot before it, whose values its changes are read against. */
   before: SetupView | undefined;
 }
 
 /** One snapshot of the history: when and by whom, what changed from the one before, its values and links. */
-function SnapshotItem({ carId, setup, before, readOnly, renderExtras }: SnapshotItemProps) {
+function SnapshotItem({ carId, setup, before, readOnly, renderExtras, adjusters }: SnapshotItemProps) {
   return (
     // The id lets a link land on one snapshot (the suggestion page's "Open the new setup").
     <li
@@ -138,7 +141,7 @@ function SnapshotItem({ carId, setup, before, readOnly, renderExtras }: Snapshot
       {before ? (
         <div className="flex flex-col gap-1">
           <p className="text-sm text-ink-muted">Changes from “{before.label}”:</p>
-          <SetupChangeList changes={diffSetups(before, setup)} />
+          <SetupChangeList changes={diffSetups(before, setup)} adjusters={adjusters} />
         </div>
       ) : (
         <p className="text-sm text-ink-muted">The first snapshot on record.</p>
@@ -176,7 +179,7 @@ function SnapshotItem({ carId, setup, before, readOnly, renderExtras }: Snapshot
 }
 
 /** A car's setup history, newest first: each snapshot with what changed from the one before it. */
-export function SetupTimeline({ carId, setups, readOnly = false, renderExtras, revealedId = null }: SetupTimelineProps) {
+export function SetupTimeline({ carId, setups, readOnly = false, renderExtras, revealedId = null, adjusters }: SetupTimelineProps) {
   const anchored = useSnapshotInAddress();
   const listId = useId();
   // Unfolding moves the reader to the first snapshot it brought out; the button they pressed is gone.
@@ -196,7 +199,15 @@ export function SetupTimeline({ carId, setups, readOnly = false, renderExtras, r
     <div className="flex flex-col gap-3">
       <ol className="flex flex-col gap-3" aria-label="Setup history, newest first">
         {setups.slice(0, shown).map((setup, i) => (
-          <SnapshotItem key={setup.id} carId={carId} setup={setup} before={setups[i + 1]} readOnly={readOnly} renderExtras={renderExtras} />
+          <SnapshotItem
+            key={setup.id}
+            carId={carId}
+            setup={setup}
+            before={setups[i + 1]}
+            readOnly={readOnly}
+            renderExtras={renderExtras}
+            adjusters={adjusters}
+          />
         ))}
       </ol>
       {firstFolded ? (

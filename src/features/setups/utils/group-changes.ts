@@ -6,6 +6,8 @@ export interface ChangeGroup {
   key: string;
   /** "All four", "Front", "Rear", "LF", "LF + RR"; for axle values "Front" or "Rear". */
   where: string;
+  /** The corners it covers; none for an axle's value. */
+  corners: Corner[];
   field: SetupCornerField | 'antiRollBar';
   delta: number | null;
   /** The values before and after, when every corner of the group had the same ones. */
@@ -40,6 +42,7 @@ export function groupChanges(changes: readonly SetupChange[]): ChangeGroup[] {
     out.push({
       key,
       where: describeCorners(group.items.map((c) => c.corner!)),
+      corners: group.items.map((c) => c.corner!),
       field: group.field,
       delta: group.delta,
       from: sameEnds ? first.from : null,
@@ -52,6 +55,7 @@ export function groupChanges(changes: readonly SetupChange[]): ChangeGroup[] {
     out.push({
       key: change.path,
       where: change.axle === 'front' ? 'Front' : 'Rear',
+      corners: [],
       field: 'antiRollBar',
       delta: null,
       from: change.from,

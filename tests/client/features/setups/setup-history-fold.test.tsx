@@ -135,3 +135,33 @@ describe('the setup history folds all but the newest snapshots away', () => {
     expect(screen.queryByRole('button', { name: /^Show .* older/ })).toBeNull();
   });
 });
+
+describe('a change of clicks in the setup history', () => {
+  it('when the car counts clicks from full soft and the rear goes up two, then the line says stiffer; down one at the front, softer', async () => {
+    // The fixture's car counts both axles from full soft: more clicks are stiffer (common practice).
+    const before = { ...BASE_SETUP };
+    const after: Setup = {
+      ...BASE_SETUP,
+      id: '59999999-2222-4222-8222-222222222222',
+      label: 'Firmer rear',
+      effectiveFrom: '2026-05-01T08:00:00.000Z',
+      corners: {
+        lf: { ...BASE_SETUP.corners.lf, damperClicks: 7 },
+        rf: { ...BASE_SETUP.corners.rf, damperClicks: 7 },
+        lr: { ...BASE_SETUP.corners.lr, damperClicks: 12 },
+        rr: { ...BASE_SETUP.corners.rr, damperClicks: 12 },
+      },
+    };
+    stubCarPage(user(), { [`GET /api/cars/${IDS.car}/setups`]: list([after, before]) });
+    renderApp(`/cars/${IDS.car}`);
+
+    await history();
+    const lines = await waitFor(() => {
+      const found = within(document.getElementById(`setup-${after.id}`)!).getAllByRole('listitem').map((li) => li.textContent ?? '');
+      expect(found.join(' ')).toMatch(/stiffer|softer/);
+      return found;
+    });
+    expect(lines.find((l) => l.startsWith('Rear clicks'))).toMatch(/▲ 2 clicks\s*stiffer/);
+    expect(lines.find((l) => l.startsWith('Front clicks'))).toMatch(/▼ 1 click\s*softer/);
+  });
+});
