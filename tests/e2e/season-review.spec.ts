@@ -47,8 +47,8 @@ describe("the demo driver's season review (390×844)", () => {
 
   it('when the camber-arm change is compared, then the front inner edges wore less after it', async () => {
     const section = page.getByRole('region', { name: 'Before and after a change' });
-    await section.getByLabel('Change from the log').waitFor();
-    const picked = await section.getByLabel('Change from the log').evaluate((el) => (el as HTMLSelectElement).selectedOptions[0]?.textContent ?? '');
+    await section.getByLabel('Change to compare across').waitFor();
+    const picked = await section.getByLabel('Change to compare across').evaluate((el) => (el as HTMLSelectElement).selectedOptions[0]?.textContent ?? '');
     // The default is the latest log entry about camber: one of the three written when the arms went on.
     expect(picked).toMatch(/2026.*camber/i);
     await section.getByText(/LF inner-edge wear fell/i).waitFor({ timeout: 20_000 });

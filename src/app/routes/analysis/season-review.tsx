@@ -12,6 +12,7 @@ import { useChanges } from '@/features/changes/api/get-changes';
 import { SetupChangeList } from '@/features/setups/components/setup-change-list';
 import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-season';
 import { CompareSection } from '@/features/analysis/components/compare-section';
+import { useSetups } from '@/features/setups/api/get-setups';
 import { ScatterSection } from '@/features/analysis/components/scatter-section';
 import { SeasonTimeline } from '@/features/analysis/components/season-timeline';
 import { TyreLife } from '@/features/analysis/components/tyre-life';
@@ -23,9 +24,10 @@ function defaultMinDepthMm(units: UnitPreferences): number {
 
 function ChangesCompare({ carId }: { carId: string }) {
   const changes = useChanges(carId);
-  if (changes.isPending) return <p className="text-ink-muted">Loading the change log…</p>;
-  if (changes.isError) return <EmptyState message="The change log could not be loaded. Try again shortly." />;
-  return <CompareSection carId={carId} changes={changes.data.items} />;
+  const setups = useSetups(carId);
+  if (changes.isPending || setups.isPending) return <p className="text-ink-muted">Loading the changes…</p>;
+  if (changes.isError || setups.isError) return <EmptyState message="The changes could not be loaded. Try again shortly." />;
+  return <CompareSection carId={carId} changes={changes.data.items} setups={setups.data.items} />;
 }
 
 function SeasonSections({ carId }: { carId: string }) {

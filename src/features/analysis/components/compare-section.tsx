@@ -3,13 +3,14 @@ import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
 import { formatFixed, formatP } from '@shared/calc/display';
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
+import type { Setup } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { EmptyState } from '@/components/ui/empty-state';
 import { SelectField } from '@/components/ui/select-field';
 import { formatDateTime, formatDay } from '@/lib/dates';
 import { cn } from '@/lib/cn';
 import { useUnits } from '@/lib/units-context';
-import { useCompare } from '../api/get-compare';
+import { useCompare, type CompareSplit } from '../api/get-compare';
 import { useMediaQuery } from '../hooks/use-media-query';
 import { LOCATION_WORDS, wearRateNumber, wearRateSuffix } from '../utils/analysis-format';
 import { byDay, defaultChangeId, type ChangeOption } from '../utils/pick-change';
@@ -121,10 +122,10 @@ function StackedCorners({ label, renderCorner }: { label: string; renderCorner: 
 /** Wide enough for the car's four corners side by side with each still comfortably readable. */
 const CORNERS_SIDE_BY_SIDE = '(min-width: 48rem)';
 
-function CompareResultView({ carId, changeId }: { carId: string; changeId: string }) {
+function CompareResultView({ carId, split }: { carId: string; split: CompareSplit }) {
   const units = useUnits();
   const sideBySide = useMediaQuery(CORNERS_SIDE_BY_SIDE);
-  const compare = useCompare(carId, changeId);
+  const compare = useCompare(carId, split);
   if (compare.isPending) return <p className="text-ink-muted">Comparing before and after…</p>;
   if (compare.isError) return <EmptyState message="The comparison could not be loaded. Try again shortly." />;
   const result = compare.data;
@@ -155,21 +156,55 @@ function CompareResultView({ carId, changeId }: { carId: string; changeId: strin
   );
 }
 
-/** Wear and time before and after one change from the log. */
-export function CompareSection({ carId, changes }: { carId: string; changes: readonly ChangeOption[] }) {
+/** What the picker needs of a setup snapshot: each one after the first is a change to compare across. */
+export type SetupOption = Pick<Setup, 'id' | 'label' | 'effectiveFrom'>;
+
+interface SplitOption {
+  value: string;
+  label: string;
+  /** For ordering: the log entry's day, or the setup's start. */
+  when: string;
+  split: CompareSplit;
+}
+
+const SETUP_VALUE = 'setup:';
+
+/** The log's entries and the setups that followed another, newest first, in one list. */
+function splitOptions(changes: readonly ChangeOption[], setups: readonly SetupOption[]): SplitOption[] {
+  const fromLog = byDay(changes).map((c) => ({ value: c.id, label: changeLabel(c), when: c.changedOn, split: { changeId: c.id } }));
+  const fromSetups = [...setups]
+    .sort((a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom))
+    .slice(1)
+    .map((s) => ({ value: `${SETUP_VALUE}${s.id}`, label: `${formatDay(s.effectiveFrom)} · Setup: ${s.label}`, when: s.effectiveFrom, split: { at: s.effectiveFrom } }));
+  // Stable: a day's log entries keep the log's order, newest day first.
+  return [...fromLog, ...fromSetups].map((o, i) => ({ o, i })).sort((a, b) => b.o.when.localeCompare(a.o.when) || b.i - a.i).map(({ o }) => o);
+}
+
+/**
+ * Wear and time before and after one change: an entry of the change log (a part fitted, an alignment), or a new
+ * setup (a quick change between heats, a shop's handover).
+ */
+export function CompareSection({ carId, changes, setups }: { carId: string; changes: readonly ChangeOption[]; setups: readonly SetupOption[] }) {
   const [picked, setPicked] = useState<string | null>(null);
-  const fallback = defaultChangeId(changes);
-  const changeId = picked !== null && changes.some((c) => c.id === picked) ? picked : fallback;
-  if (changeId === null) {
-    return <EmptyState message="The change log is empty. Log a change (new camber, pressures, springs) to compare before and after it." />;
+  const options = splitOptions(changes, setups);
+  // First the latest log entry about camber or the front, else the newest change of any kind.
+  const fallback = defaultChangeId(changes) ?? options[0]?.value ?? null;
+  const value = picked !== null && options.some((o) => o.value === picked) ? picked : fallback;
+  const chosen = options.find((o) => o.value === value);
+  if (!chosen) {
+    return (
+      <EmptyState message="Nothing to compare yet: the change log is empty and the car has one setup at most. Log a change (new camber, springs) or record a new setup to compare before and after it." />
+    );
   }
-  const options = byDay(changes)
-    .reverse()
-    .map((c) => ({ value: c.id, label: changeLabel(c) }));
   return (
     <div className="flex flex-col gap-4">
-      <SelectField label="Change from the log" options={options} value={changeId} onChange={(e) => setPicked(e.target.value)} />
-      <CompareResultView carId={carId} changeId={changeId} />
+      <SelectField
+        label="Change to compare across"
+        options={options.map(({ value: v, label }) => ({ value: v, label }))}
+        value={chosen.value}
+        onChange={(e) => setPicked(e.target.value)}
+      />
+      <CompareResultView carId={carId} split={chosen.split} />
     </div>
   );
 }

@@ -12,7 +12,7 @@ import { clearToasts } from '@/lib/toast-store';
 import { UnitsProvider } from '@/lib/units-context';
 import { SeasonReviewPage } from '@/app/routes/analysis/season-review';
 import { createTestQueryClient, jsonResponse, requestsTo, stubFetch } from '../../test-utils';
-import { CAR, IDS, list } from '../../fixtures/season';
+import { BASE_SETUP, CAR, IDS, list } from '../../fixtures/season';
 import { chartGiven, layOutChart, tickLabels } from '../../chart-layout';
 
 // A canvas draws nothing in jsdom: stand in for the chart with the datasets it was given, and keep what it was
@@ -31,6 +31,8 @@ const EVENT_A = { eventId: 'e1111111-1111-4111-8111-111111111111', eventName: 'H
 const EVENT_B = { eventId: 'e2222222-2222-4222-8222-222222222222', eventName: 'Harrow Flats — Round 4', eventDate: '2026-06-07' };
 const CHANGE_CAMBER = { id: 'd1111111-1111-4111-8111-111111111111', changedOn: '2026-05-20', what: 'Front camber −1.5° → −2.0°', location: 'front' };
 const CHANGE_FLUID = { id: 'd2222222-2222-4222-8222-222222222222', changedOn: '2026-06-01', what: 'Fresh brake fluid', location: 'car' };
+/** A quick change between heats: a setup, not a log entry. */
+const QUICK_CHANGE = { ...BASE_SETUP, id: '5aaaaaaa-2222-4222-8222-222222222222', label: 'Quick change: rear clicks +2', effectiveFrom: '2026-06-07T10:42:00.000Z' };
 
 function point(partial: Partial<ScatterPoint> & Pick<ScatterPoint, 'x' | 'y'>): ScatterPoint {
   return {
@@ -170,6 +172,7 @@ function stub(extra: Parameters<typeof stubFetch>[0] = {}, minDepth = '1.6') {
     [`GET ${CAR_PATH}`]: jsonResponse(200, CAR),
     [scatterPath('camber', 'time')]: jsonResponse(200, CAMBER_TIME),
     [`GET ${CAR_PATH}/changes`]: list([CHANGE_CAMBER, CHANGE_FLUID]),
+    [`GET ${CAR_PATH}/setups`]: list([QUICK_CHANGE, BASE_SETUP]),
     [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_CAMBER.id}`]: jsonResponse(200, compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber')),
     [`GET ${CAR_PATH}/season?minDepthMm=${minDepth}`]: jsonResponse(200, season(Number(minDepth), 32)),
     ...extra,
@@ -320,7 +323,7 @@ describe('season review: before and after a change', () => {
     const compare = section('Before and after a change');
 
     await compare.findByText('Camber: LF inner-edge wear fell by 0.015 mm per run, give or take 0.007.');
-    expect((compare.getByLabelText('Change from the log') as HTMLSelectElement).value).toBe(CHANGE_CAMBER.id);
+    expect((compare.getByLabelText('Change to compare across') as HTMLSelectElement).value).toBe(CHANGE_CAMBER.id);
     for (const c of ['lf', 'rf', 'lr', 'rr'] as const) {
       const name = { lf: 'Left front', rf: 'Right front', lr: 'Left rear', rr: 'Right rear' }[c];
       const corner = within(compare.getByRole('group', { name }));
@@ -378,8 +381,35 @@ describe('season review: before and after a change', () => {
     const compare = section('Before and after a change');
     await compare.findByText('Camber: RR wear barely moved.');
 
-    await u.selectOptions(compare.getByLabelText('Change from the log'), CHANGE_FLUID.id);
+    await u.selectOptions(compare.getByLabelText('Change to compare across'), CHANGE_FLUID.id);
     expect(await compare.findByText('Fluid: RR wear barely moved.')).toBeTruthy();
+  });
+});
+
+describe('season review: before and after a new setup', () => {
+  it('when the list is opened, then the log’s changes and each new setup are offered newest first, and a quick change is compared at the moment it took effect', async () => {
+    const at = `GET ${CAR_PATH}/analysis/compare?at=${encodeURIComponent(QUICK_CHANGE.effectiveFrom)}`;
+    const fetchMock = stub({ [at]: jsonResponse(200, compareAnswer(QUICK_CHANGE.id, QUICK_CHANGE.label, 'Clicks')) });
+    const u = renderPage();
+    const compare = section('Before and after a change');
+    await compare.findByText('Camber: RR wear barely moved.');
+
+    const picker = compare.getByLabelText('Change to compare across') as HTMLSelectElement;
+    // The first snapshot is what the season started on, not a change.
+    expect([...picker.options].map((o) => o.textContent)).toEqual([
+      expect.stringMatching(/· Setup: Quick change: rear clicks \+2$/),
+      expect.stringMatching(/· Fresh brake fluid \(/),
+      expect.stringMatching(/· Front camber −1\.5° → −2\.0° \(/),
+    ]);
+    await u.selectOptions(picker, `setup:${QUICK_CHANGE.id}`);
+    expect(await compare.findByText('Clicks: RR wear barely moved.')).toBeTruthy();
+    expect(requestsTo(fetchMock, at)).toHaveLength(1);
+  });
+
+  it('when the log is empty and the car has one setup, then it says what to do for a comparison', async () => {
+    stub({ [`GET ${CAR_PATH}/changes`]: list([]), [`GET ${CAR_PATH}/setups`]: list([BASE_SETUP]) });
+    renderPage();
+    expect(await section('Before and after a change').findByText(/Nothing to compare yet/)).toBeTruthy();
   });
 });
 
