@@ -187,7 +187,7 @@ export function CarPage() {
           ) : null}
           <SectionBoundary title="Suggestions from shops">
             <SectionCard title="Suggestions from shops">
-              <SuggestionList carId={carId} emptyText="No suggestions yet. A shop you let in can suggest setup changes here." />
+              <SuggestionList carId={carId} emptyText="No suggestions yet. A shop you let in can suggest setup changes here." forDriver />
             </SectionCard>
           </SectionBoundary>
           <SectionBoundary title="Shop visits">

@@ -13,7 +13,11 @@ const STATUS_WORDS: Record<SuggestionStatus, string> = {
   withdrawn: 'Withdrawn',
 };
 
-export function StatusBadge({ status }: { status: Suggestion['status'] }) {
+/**
+ * A suggestion's state. `forDriver`: read by the car's drivers, whose answer it waits for, so an open one says so
+ * to them rather than naming them in the third person.
+ */
+export function StatusBadge({ status, forDriver = false }: { status: Suggestion['status']; forDriver?: boolean }) {
   return (
     <span
       className={cn(
@@ -21,13 +25,13 @@ export function StatusBadge({ status }: { status: Suggestion['status'] }) {
         status === 'open' ? 'bg-accent text-accent-ink' : status === 'accepted' ? 'bg-success-surface text-success' : 'bg-surface-raised text-ink-muted',
       )}
     >
-      {STATUS_WORDS[status]}
+      {status === 'open' && forDriver ? 'Waiting for you: accept or decline' : STATUS_WORDS[status]}
     </span>
   );
 }
 
 /** A car's suggestions from its shops, newest first; each opens its own page. */
-export function SuggestionList({ carId, emptyText }: { carId: string; emptyText: string }) {
+export function SuggestionList({ carId, emptyText, forDriver = false }: { carId: string; emptyText: string; forDriver?: boolean }) {
   const { data, isPending, isError } = useSuggestions(carId);
   if (isPending) return <p className="text-ink-muted">Loading suggestions…</p>;
   if (isError) return <p className="text-ink-muted">Suggestions could not be loaded. Try again shortly.</p>;
@@ -42,7 +46,7 @@ export function SuggestionList({ carId, emptyText }: { carId: string; emptyText:
               <span className="text-sm text-ink-muted">
                 {s.shop.name} · {s.author.displayName} · {formatDay(s.createdAt)}
               </span>
-              <StatusBadge status={s.status} />
+              <StatusBadge status={s.status} forDriver={forDriver} />
             </span>
             <ChevronRight aria-hidden="true" className="size-5 shrink-0 text-ink-muted" />
           </Link>

@@ -32,9 +32,10 @@ export function CarVisits({ carId }: { carId: string }) {
             {visit.setupId ? (
               <>
                 {' · '}
-                <a href={`#setup-${visit.setupId}`} className="font-semibold text-link">
+                {/* A finger-sized target; the history unfolds down to the snapshot when it is an old one. */}
+                <Link to={{ hash: `#setup-${visit.setupId}` }} className="inline-flex min-h-tap items-center font-semibold text-link">
                   Setup it wrote
-                </a>
+                </Link>
               </>
             ) : null}
           </p>

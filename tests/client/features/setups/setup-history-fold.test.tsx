@@ -7,7 +7,7 @@ import { formatDay } from '@/lib/dates';
 import { jsonResponse, renderApp, setUpAppTests, storedEntry, stubFetch } from '../../test-utils';
 import { stubCarPage } from '../../fixtures/car-page';
 import { BASE_SETUP, CAR, IDS, list, user } from '../../fixtures/season';
-import { staffUser } from '../../fixtures/collab';
+import { staffUser, suggestion } from '../../fixtures/collab';
 
 setUpAppTests([
   () => import('@/app/routes/cars/car'),
@@ -163,5 +163,44 @@ describe('a change of clicks in the setup history', () => {
     });
     expect(lines.find((l) => l.startsWith('Rear clicks'))).toMatch(/▲ 2 clicks\s*stiffer/);
     expect(lines.find((l) => l.startsWith('Front clicks'))).toMatch(/▼ 1 click\s*softer/);
+  });
+});
+
+describe('links into the setup history from the same page', () => {
+  it('when a shop visit’s "Setup it wrote" names a folded snapshot, then a tap unfolds the history down to it', async () => {
+    const setups = season(6);
+    stubCarPage(user(), {
+      [`GET /api/cars/${IDS.car}/setups`]: list(setups),
+      [`GET /api/cars/${IDS.car}/work-orders`]: list([
+        {
+          id: 'c1111111-1111-4111-8111-111111111111',
+          shop: { id: 'c2222222-2222-4222-8222-222222222222', name: 'Kettle Lane Chassis Works' },
+          visitDate: '2026-04-01',
+          requestedWork: 'Corner weights',
+          status: 'closed',
+          handoverAt: '2026-04-01T16:30:00.000Z',
+          setupId: IDS.setupBase,
+        },
+      ]),
+    });
+    renderApp(`/cars/${IDS.car}`);
+    const u = userEvent.setup();
+
+    const shown = await history();
+    expect(labels(shown)).not.toContain('Spring baseline');
+    await u.click(await screen.findByRole('link', { name: 'Setup it wrote' }));
+    await waitFor(() => expect(labels(shown)).toContain('Spring baseline'));
+  });
+});
+
+describe('suggestions as the driver reads them', () => {
+  it('when a shop’s suggestion waits for an answer, then the car page says it waits for the driver reading it', async () => {
+    stubCarPage(user(), {
+      [`GET /api/cars/${IDS.car}/suggestions`]: list([suggestion({ status: 'open' })]),
+    });
+    renderApp(`/cars/${IDS.car}`);
+    const item = await screen.findByRole('link', { name: /More front camber/ });
+    expect(item.textContent).toContain('Waiting for you: accept or decline');
+    expect(item.textContent).not.toContain('Waiting for the driver');
   });
 });

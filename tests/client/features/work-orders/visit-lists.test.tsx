@@ -34,7 +34,7 @@ describe('shop visits on the car page', () => {
     const link = within(visits).getByRole('link', { name: new RegExp(SHOP_NAME) });
     expect(link.getAttribute('href')).toBe(`/work-orders/${SERVICE_IDS.workOrder}`);
     expect(within(visits).getByText('Four-wheel alignment and corner weights')).toBeTruthy();
-    expect(within(visits).getByRole('link', { name: 'Setup it wrote' }).getAttribute('href')).toBe(`#setup-${SERVICE_IDS.newSetup}`);
+    expect(within(visits).getByRole('link', { name: 'Setup it wrote' }).getAttribute('href')).toBe(`/cars/${IDS.car}#setup-${SERVICE_IDS.newSetup}`);
   });
 });
 
