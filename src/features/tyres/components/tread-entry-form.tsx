@@ -13,6 +13,7 @@ import { PendingBadge } from '@/components/ui/pending-badge';
 import { TextField } from '@/components/ui/text-field';
 import { pathTo } from '@/config/paths';
 import { cn } from '@/lib/cn';
+import { showFirstRefused } from '@/lib/show-first-refused';
 import { formatDateTime, fromLocalInputValue, toLocalInputValue } from '@/lib/dates';
 import { formatDelta, inputToSi, typeANumber, unitSymbol } from '@/lib/numbers';
 import type { OutboxEntry } from '@/lib/outbox';
@@ -49,6 +50,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
   const [takenAt, setTakenAt] = useState(() => toLocalInputValue(new Date()));
   const [notes, setNotes] = useState('');
   const [errors, setErrors] = useState<Record<string, string>>({});
+  const formRef = useRef<HTMLFormElement>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const [recordId, setRecordId] = useState(() => crypto.randomUUID());
   const [entryKey, setEntryKey] = useState<string | null>(null);
@@ -97,7 +99,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
         const path = `corners.${corner}.${pos}`;
         if (si === 'invalid' || si === null) found[path] = typeANumber();
         else if (si < LIMITS.treadMm.min || si > LIMITS.treadMm.max) {
-          found[path] = `Between ${formatQuantity(LIMITS.treadMm.min, 'treadDepth', units)} and ${formatQuantity(LIMITS.treadMm.max, 'treadDepth', units)}`;
+          found[path] = `${texts[corner][pos].trim()} is out of range: enter ${formatQuantity(LIMITS.treadMm.min, 'treadDepth', units)} to ${formatQuantity(LIMITS.treadMm.max, 'treadDepth', units)}`;
         } else if (pos === 'middleMm' && set.startTreadMm !== null && si > set.startTreadMm + LIMITS.treadAboveStartMm) {
           found[path] = `Deeper than this set was new (${formatQuantity(set.startTreadMm, 'treadDepth', units)}); check the reading`;
         } else values[pos] = si;
@@ -112,6 +114,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
     if (Object.keys(found).length) {
       setErrors(found);
       setFormError(found._ ?? 'Some readings need attention; they are marked above.');
+      showFirstRefused(formRef.current);
       return;
     }
     const body: CreateTreadReadingBody = {
@@ -146,7 +149,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
   );
 
   return (
-    <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Tread reading" className="flex flex-col gap-5">
+    <form ref={formRef} onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Tread reading" className="flex flex-col gap-5">
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-2 font-bold">Tyre set</legend>
         {sets.map((s) => (

@@ -124,3 +124,22 @@ describe('tread entry for a car with no tyre set', () => {
     expect(outbox.getSnapshot().map((e) => e.kind)).toContain('tyreSet.create');
   });
 });
+
+describe('a tread depth out of range', () => {
+  it('when 66 is typed for 6.6 and the reading saved, then that box is named with the range, takes the focus, and nothing is stored', async () => {
+    stub(METRIC_PREFERENCES);
+    const { outbox } = renderApp(`/cars/${IDS.car}/tread?set=${IDS.tyreSet}`, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    // jsdom has no layout: the focus follows a frame later.
+    Element.prototype.scrollIntoView ??= () => {};
+
+    await u.type(await screen.findByLabelText('Right rear inner'), '6.5');
+    await u.type(screen.getByLabelText('Right rear middle'), '6.7');
+    await u.type(screen.getByLabelText('Right rear outer'), '66');
+    await u.click(screen.getByRole('button', { name: 'Save tread reading' }));
+
+    expect(await screen.findByText('outer: 66 is out of range: enter 0.0 mm to 20.0 mm')).toBeTruthy();
+    await waitFor(() => expect(document.activeElement).toBe(screen.getByLabelText('Right rear outer')));
+    expect(outbox.getSnapshot().map((e) => e.kind)).toEqual(['change.create']);
+  });
+});
