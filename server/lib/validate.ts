@@ -13,7 +13,7 @@ interface Schemas {
  * Where a request carries the character U+0000, by field ("corners.lf.notes"). PostgreSQL's text cannot hold it,
  * so a value with one would fail at the database, after the schema passed it; no one types it on purpose.
  */
-export function nulCharacterFields(value: unknown, path = ''): Record<string, string[]> {
+export function nulCharacterFields(value: unknown): Record<string, string[]> {
   const found: Record<string, string[]> = {};
   const walk = (v: unknown, at: string) => {
     if (typeof v === 'string') {
@@ -24,7 +24,7 @@ export function nulCharacterFields(value: unknown, path = ''): Record<string, st
       for (const [key, item] of Object.entries(v)) walk(item, at ? `${at}.${key}` : key);
     }
   };
-  walk(value, path);
+  walk(value, '');
   return found;
 }
 

@@ -11,7 +11,6 @@ export type ScatterParam = (typeof SCATTER_PARAMS)[number];
 export type ScatterMetric = (typeof SCATTER_METRICS)[number];
 export type CornerOrAxle = (typeof CORNER_OR_AXLE)[number];
 
-
 export const scatterQuerySchema = z.strictObject({
   x: z.enum(SCATTER_PARAMS, { error: `Pick x from ${SCATTER_PARAMS.join(', ')}` }),
   y: z.enum(SCATTER_METRICS, { error: `Pick y from ${SCATTER_METRICS.join(', ')}` }),
