@@ -1,7 +1,7 @@
 import * as z from '../zod';
 import { isoDate, isoDateTime } from '../api/dates.schema';
 import type { Corner } from '../season/corners';
-import type { SetupChange } from '../season/setup.schema';
+import type { SetupChange, SetupCorner } from '../season/setup.schema';
 
 export const SCATTER_PARAMS = ['camber', 'springRate', 'damperClicks', 'coldPressure', 'rideHeight'] as const;
 export const SCATTER_METRICS = ['time', 'wear', 'wearSkew'] as const;
@@ -10,6 +10,15 @@ export const CORNER_OR_AXLE = ['lf', 'rf', 'lr', 'rr', 'front', 'rear'] as const
 export type ScatterParam = (typeof SCATTER_PARAMS)[number];
 export type ScatterMetric = (typeof SCATTER_METRICS)[number];
 export type CornerOrAxle = (typeof CORNER_OR_AXLE)[number];
+
+/** The setup field each setting on the x axis reads, corner by corner. */
+export const SCATTER_PARAM_FIELD = {
+  camber: 'camberDeg',
+  springRate: 'springRateNPerMm',
+  damperClicks: 'damperClicks',
+  coldPressure: 'coldPressureKpa',
+  rideHeight: 'rideHeightMm',
+} as const satisfies Record<ScatterParam, keyof SetupCorner>;
 
 export const scatterQuerySchema = z.strictObject({
   x: z.enum(SCATTER_PARAMS, { error: `Pick x from ${SCATTER_PARAMS.join(', ')}` }),

@@ -5,8 +5,10 @@ import type { Setup, SetupCorner } from '@shared/season/setup.schema';
 import type { Run } from '@shared/season/run.schema';
 import { diffSetups } from '@shared/season/setup-diff';
 import { compareSamples, runsLeft, straightLineFit, verdict, wearRateMmPerRun } from '@shared/calc/index';
-import type {
-  CompareQuery, CompareResult, Comparison, CornerOrAxle, ScatterPoint, ScatterQuery, ScatterResult, SeasonResult,
+import {
+  SCATTER_PARAM_FIELD,
+  type CompareQuery, type CompareResult, type Comparison, type CornerOrAxle, type ScatterParam, type ScatterPoint, type ScatterQuery,
+  type ScatterResult, type SeasonResult,
 } from '@shared/analysis/analysis.schema';
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess } from '../../auth/access';
@@ -22,13 +24,7 @@ import type { CarEntity } from '../cars/car.entity';
  * number comes from the shared calculations, so the screens and the API agree.
  */
 
-const PARAM_FIELD = {
-  camber: { field: 'camberDeg', unit: '°' },
-  springRate: { field: 'springRateNPerMm', unit: 'N/mm' },
-  damperClicks: { field: 'damperClicks', unit: 'clicks' },
-  coldPressure: { field: 'coldPressureKpa', unit: 'kPa' },
-  rideHeight: { field: 'rideHeightMm', unit: 'mm' },
-} as const satisfies Record<string, { field: keyof SetupCorner; unit: string }>;
+const PARAM_UNIT: Record<ScatterParam, string> = { camber: '°', springRate: 'N/mm', damperClicks: 'clicks', coldPressure: 'kPa', rideHeight: 'mm' };
 
 const cornersOf = (c: CornerOrAxle): Corner[] => (c === 'front' ? ['lf', 'rf'] : c === 'rear' ? ['lr', 'rr'] : [c]);
 
@@ -171,7 +167,8 @@ const inRange = (date: string | null, q: { from?: string; to?: string }) =>
 export async function scatter(ds: DataSource, user: User, carId: string, q: ScatterQuery): Promise<ScatterResult> {
   await assertCarAccess(ds, user, carId, 'read');
   const season = await loadSeason(ds, carId);
-  const { field, unit } = PARAM_FIELD[q.x];
+  const field = SCATTER_PARAM_FIELD[q.x];
+  const unit = PARAM_UNIT[q.x];
   const points: ScatterPoint[] = [];
   const base = (setupId: string | null, eventId: string | null) => {
     const setup = setupId ? season.setupById.get(setupId) : undefined;

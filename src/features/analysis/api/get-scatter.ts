@@ -17,7 +17,7 @@ export function scatterQueryOptions(carId: string, request: ScatterRequest) {
   });
 }
 
-/** Keeps the last plot on screen while a new choice loads. */
-export function useScatter(carId: string, request: ScatterRequest) {
-  return useQuery({ ...scatterQueryOptions(carId, request), placeholderData: keepPreviousData });
+/** Keeps the last plot on screen while a new choice loads; `enabled: false` waits without asking. */
+export function useScatter(carId: string, request: ScatterRequest, { enabled = true }: { enabled?: boolean } = {}) {
+  return useQuery({ ...scatterQueryOptions(carId, request), placeholderData: keepPreviousData, enabled });
 }

@@ -1,4 +1,4 @@
-import { lazy, Suspense, useId, useState } from 'react';
+import { lazy, Suspense, useId, useMemo, useState } from 'react';
 import {
   CORNER_OR_AXLE,
   SCATTER_METRICS,
@@ -14,7 +14,9 @@ import { SegmentedControl } from '@/components/ui/segmented-control';
 import { SelectField } from '@/components/ui/select-field';
 import { formatDay } from '@/lib/dates';
 import { useUnits } from '@/lib/units-context';
+import { useSetups } from '@/features/setups/api/get-setups';
 import { useScatter } from '../api/get-scatter';
+import { firstVariedSetting } from '../utils/pick-setting';
 import { axisTick, METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxis, type Axis } from '../utils/analysis-format';
 import { buildScatterPlot, wholeStepAxis, type ScatterPlot } from '../utils/scatter-plot';
 import type { ChartSeries } from './analysis-chart';
@@ -165,11 +167,16 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
 /** A setup value (x) against time or tyre wear (y) over the season, one colour and shape per event. */
 export function ScatterSection({ carId }: { carId: string }) {
   const units = useUnits();
-  const [param, setParam] = useState<ScatterParam>('camber');
-  const [corner, setCorner] = useState<CornerOrAxle>('front');
+  const setups = useSetups(carId);
+  // Until the reader picks, the plot opens on a setting that changed over the season (once the setups are in).
+  const opening = useMemo(() => firstVariedSetting(setups.data?.items ?? []), [setups.data]);
+  const [pickedParam, setParam] = useState<ScatterParam | null>(null);
+  const [pickedCorner, setCorner] = useState<CornerOrAxle | null>(null);
+  const param = pickedParam ?? opening.param;
+  const corner = pickedCorner ?? opening.corner;
   const [metric, setMetric] = useState<ScatterMetric>('time');
   const [clicksAs, setClicksAs] = useState<ClicksAs>('count');
-  const scatter = useScatter(carId, { x: param, y: metric, corner });
+  const scatter = useScatter(carId, { x: param, y: metric, corner }, { enabled: !setups.isPending });
   const result = scatter.data;
   // The answer on screen may still be the last one while a new choice loads; only offer the clicks toggle for clicks.
   const clicksShown = param === 'damperClicks' && result?.x.param === 'damperClicks';

@@ -386,6 +386,32 @@ describe('season review: before and after a change', () => {
   });
 });
 
+describe('season review: the setting plotted first', () => {
+  it('when only the rear clicks changed over the season, then the plot opens on rear clicks and never asks for camber', async () => {
+    const clicks: ScatterResult = {
+      ...CAMBER_TIME,
+      x: { param: 'damperClicks', corner: 'rear', unit: 'clicks' },
+      points: [point({ x: 10, xNormalized: 0.42, y: 1.1 }), point({ x: 12, xNormalized: 0.5, y: 0.4, ...EVENT_B })],
+      fit: null,
+    };
+    const rearClicks = {
+      ...QUICK_CHANGE,
+      corners: { ...BASE_SETUP.corners, lr: { ...BASE_SETUP.corners.lr, damperClicks: 12 }, rr: { ...BASE_SETUP.corners.rr, damperClicks: 12 } },
+    };
+    const fetchMock = stub({
+      [`GET ${CAR_PATH}/setups`]: list([rearClicks, BASE_SETUP]),
+      [scatterPath('damperClicks', 'time', 'rear')]: jsonResponse(200, clicks),
+    });
+    renderPage();
+    const scatter = section('Setup against time and wear');
+
+    await scatter.findByRole('img', { name: /Scatter plot of Damper clicks against/ });
+    expect((scatter.getByLabelText('Setting (x)') as HTMLSelectElement).value).toBe('damperClicks');
+    expect((scatter.getByLabelText('Where') as HTMLSelectElement).value).toBe('rear');
+    expect(requestsTo(fetchMock, scatterPath('camber', 'time'))).toHaveLength(0);
+  });
+});
+
 describe('season review: before and after a new setup', () => {
   it('when the list is opened, then the log’s changes and each new setup are offered newest first, and a quick change is compared at the moment it took effect', async () => {
     const at = `GET ${CAR_PATH}/analysis/compare?at=${encodeURIComponent(QUICK_CHANGE.effectiveFrom)}`;
