@@ -156,6 +156,13 @@ async function loadSeason(ds: DataSource, carId: string) {
   return { car, setups, runs, sets, events, setupById: new Map(setups.map((s) => [s.id, s])), eventById: new Map(events.map((e) => [e.id, e])) };
 }
 
+/**
+ * The runs whose time speaks for the setup: finished (a time, scored against the day's best) and clean. A cone's
+ * penalty is a driver's error, not the car's, and would read as a slower setup (common practice: runs with
+ * driver errors are set aside when comparing setups).
+ */
+const timesTheSetup = (run: Run): run is Run & { pctOffBest: number } => run.pctOffBest !== null && run.cones === 0;
+
 /** The straight line through the points, from three on (two always fit exactly and say nothing). */
 function fitLine(points: { x: number; y: number }[]): ScatterResult['fit'] {
   return points.length < 3 ? null : straightLineFit(points.map((p) => [p.x, p.y]));
@@ -187,8 +194,7 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
   };
 
   if (q.y === 'time') {
-    for (const run of season.runs) {
-      if (run.pctOffBest === null) continue;
+    for (const run of season.runs.filter(timesTheSetup)) {
       const b = base(run.setupId, run.eventId);
       if (b) points.push({ ...b, y: run.pctOffBest, runId: run.id, runs: null, corner: null });
     }
@@ -203,7 +209,8 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
     }
   }
   const descriptions = {
-    time: "% off that driver's best at the same event. Raw times from different courses can't be compared, so each run is measured against its own day.",
+    time:
+      "% off that driver's best at the same event. Raw times from different courses can't be compared, so each run is measured against its own day. Runs with a cone are left out: the penalty is the driver's, not the setup's.",
     wear: 'Tread lost per run between two readings, mean of inner, middle and outer.',
     wearSkew: 'Inner-edge wear minus outer-edge wear per run: above 0, the inner edge wears faster.',
   } as const;
@@ -261,10 +268,10 @@ export async function compare(ds: DataSource, user: User, carId: string, q: Comp
       }),
     };
   }
-  const timed = season.runs.filter((r) => r.pctOffBest !== null);
+  const timed = season.runs.filter(timesTheSetup);
   const time = comparison(
-    timed.filter((r) => r.recordedAt < split).map((r) => r.pctOffBest!),
-    timed.filter((r) => r.recordedAt >= split).map((r) => r.pctOffBest!),
+    timed.filter((r) => r.recordedAt < split).map((r) => r.pctOffBest),
+    timed.filter((r) => r.recordedAt >= split).map((r) => r.pctOffBest),
     { what: "% off the day's best", unit: '%', betterWhen: 'lower' },
   );
   return { splitAt: split, change, corners, time };

@@ -45,7 +45,12 @@ describe('GET /api/cars/:carId/analysis/scatter', () => {
   it('when clicks are plotted against time, then each run is a point with its run, event and setup, and clicks are normalised soft = 0', async () => {
     const res = await maren.get(`/api/cars/${carId}/analysis/scatter?x=damperClicks&y=time&corner=rear`);
     expect(res.status).toBe(200);
-    expect(res.body.n).toBeGreaterThan(50);
+    // Every finished run without a cone, and no other: a cone's penalty is the driver's, not the setup's.
+    const runs = (await maren.get(`/api/runs?carId=${carId}`)).body.items as { id: string; cones: number; status: string }[];
+    const clean = runs.filter((r) => r.status === 'finished' && r.cones === 0);
+    expect(runs.some((r) => r.status === 'finished' && r.cones > 0)).toBe(true);
+    expect(res.body.n).toBe(clean.length);
+    expect(new Set(res.body.points.map((pt: { runId: string }) => pt.runId))).toEqual(new Set(clean.map((r) => r.id)));
     const p = res.body.points[0];
     expect(p).toMatchObject({ runId: expect.any(String), eventId: expect.any(String), setupId: expect.any(String) });
     // The demo roadster counts clicks from full soft, 12 positions.
@@ -96,7 +101,9 @@ describe('GET /api/cars/:carId/analysis/compare', () => {
       expect(inner.pValue).toBeLessThan(0.05);
       expect(inner.verdict).toMatch(/inner-edge wear/i);
     }
-    expect(res.body.time.before.n + res.body.time.after.n).toBeGreaterThan(50);
+    // Time: the clean finished runs, each on one side of the change.
+    const runs = (await maren.get(`/api/runs?carId=${carId}`)).body.items as { cones: number; status: string }[];
+    expect(res.body.time.before.n + res.body.time.after.n).toBe(runs.filter((r) => r.status === 'finished' && r.cones === 0).length);
   });
 
   it('when neither a change nor a date is given, then 400', async () => {
