@@ -177,7 +177,7 @@ export function createApp(opts: AppOptions) {
   mount('/api/cars/:carId', carTyreRoutes(opts.ds));
   mount('/api/cars/:carId', analysisRoutes(opts.ds));
   mount('/api/cars', exportRoutes(opts.ds)); // season export and re-import
-  mount('/api/cars', carRoutes(opts.ds));
+  mount('/api/cars', carRoutes(opts.ds, opts.mail));
   mount('/api/setups', setupRoutes(opts.ds));
   mount('/api/events/:eventId/imports', eventImportRoutes(opts.ds)); // timing-sheet import
   mount('/api/events', eventRoutes(opts.ds));

@@ -23,6 +23,7 @@ import { SessionAccountIndex1765238400000 } from './migrations/1765238400000-ses
 import { AccountSuspension1765324800000 } from './migrations/1765324800000-account-suspension';
 import { EmailChanges1765411200000 } from './migrations/1765411200000-email-changes';
 import { ClosedAccounts1765497600000 } from './migrations/1765497600000-closed-accounts';
+import { CoDriverNotice1765584000000 } from './migrations/1765584000000-co-driver-notice';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -35,6 +36,7 @@ export const migrations = [
   ServiceVisits1764979200000, Attachments1765065600000, StoredFileRemovals1765152000000,
   SessionAccountIndex1765238400000, AccountSuspension1765324800000, EmailChanges1765411200000,
   ClosedAccounts1765497600000,
+  CoDriverNotice1765584000000,
 ];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */

@@ -1,6 +1,6 @@
 import * as z from '../zod';
 
-export const NOTIFICATION_KINDS = ['comment', 'suggestion', 'suggestion_decided', 'shop_grant', 'work_order_closed', 'invoice_paid'] as const;
+export const NOTIFICATION_KINDS = ['comment', 'suggestion', 'suggestion_decided', 'shop_grant', 'work_order_closed', 'invoice_paid', 'co_driver_added'] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 
 export interface AppNotification {

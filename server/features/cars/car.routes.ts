@@ -1,12 +1,13 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
+import type { MailSettings } from '../../mail/mailer';
 import { addCoDriverInputSchema, createCarInputSchema, updateCarInputSchema, type CreateCarInput, type UpdateCarInput } from '@shared/season/car.schema';
 import { currentUser, requireAuth } from '../../auth/access';
 import { parsed, validate } from '../../lib/validate';
 import { idParam, list } from '../../lib/http';
 import { addCoDriver, createCar, deleteCar, getCar, listCars, removeCoDriver, updateCar } from './car.service';
 
-export function carRoutes(ds: DataSource) {
+export function carRoutes(ds: DataSource, mail?: MailSettings) {
   const router = Router();
   router.use(requireAuth);
   const carParam = validate({ params: idParam('carId') });
@@ -36,7 +37,7 @@ export function carRoutes(ds: DataSource) {
 
   router.post('/:carId/co-drivers', validate({ params: idParam('carId'), body: addCoDriverInputSchema }), async (req, res) => {
     const { carId } = parsed<{ carId: string }>(res, 'params');
-    res.status(201).json(await addCoDriver(ds, currentUser(req), carId, parsed<{ email: string }>(res, 'body').email));
+    res.status(201).json(await addCoDriver(ds, mail, currentUser(req), carId, parsed<{ email: string }>(res, 'body').email));
   });
 
   router.delete('/:carId/co-drivers/:userId', validate({ params: idParam('carId', 'userId') }), async (req, res) => {

@@ -4,6 +4,8 @@ import type { Car, CreateCarInput, Person, UpdateCarInput } from '@shared/season
 import { AppError, staleVersion } from '../../lib/app-error';
 import { accessibleCarIdsSql, assertCarAccess } from '../../auth/access';
 import { insertUnlessPresent } from '../../lib/insert';
+import type { MailSettings } from '../../mail/mailer';
+import { notify, sendOutbox } from '../notifications/notify';
 import { CarCoDriverEntity, CarEntity } from './car.entity';
 
 type Db = DataSource | EntityManager;
@@ -134,7 +136,11 @@ export async function deleteCar(ds: DataSource, user: User, carId: string): Prom
   await ds.getRepository(CarEntity).delete({ id: carId });
 }
 
-export async function addCoDriver(ds: DataSource, user: User, carId: string, email: string): Promise<Car> {
+/**
+ * The owner adds a co-driver by e-mail. They are not asked first, so they are told: a notification (and an e-mail)
+ * names who added them, and their own page for the car lets them take themselves off it.
+ */
+export async function addCoDriver(ds: DataSource, mail: MailSettings | undefined, user: User, carId: string, email: string): Promise<Car> {
   await assertCarAccess(ds, user, carId, 'manage');
   const found: { id: string }[] = await ds.query('SELECT id FROM users WHERE email = $1 AND closed_at IS NULL', [email.trim().toLowerCase()]);
   const coDriverId = found[0]?.id;
@@ -145,7 +151,22 @@ export async function addCoDriver(ds: DataSource, user: User, carId: string, ema
   if (car.ownerId === coDriverId) {
     throw new AppError('validation_failed', 'The owner already drives this car.', { email: ['That is the car\'s owner'] });
   }
-  await ds.createQueryBuilder().insert().into(CarCoDriverEntity).values({ carId, userId: coDriverId }).orIgnore().execute();
+  const outbox = await ds.transaction(async (m) => {
+    const inserted: unknown[] = await m.query(
+      'INSERT INTO car_co_drivers (car_id, user_id) VALUES ($1, $2) ON CONFLICT DO NOTHING RETURNING car_id',
+      [carId, coDriverId],
+    );
+    if (inserted.length === 0) return [];
+    return notify(m, mail, {
+      kind: 'co_driver_added',
+      actorId: user.id,
+      carId,
+      summary: `${user.displayName} added you as a co-driver of ${car.name}`,
+      detail: 'You can log runs, setups and tread readings for it, and see its season. If this is a mistake, take yourself off it under Drivers on the car\'s page.',
+      recipients: [{ userId: coDriverId, link: `/cars/${carId}`, reason: `You get this e-mail because ${user.displayName} added you to a car in Scrubline.` }],
+    });
+  });
+  sendOutbox(mail, outbox);
   return loadCar(ds, carId);
 }
 

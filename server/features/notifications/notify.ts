@@ -43,6 +43,7 @@ const SUBJECTS: Record<NotificationKind, (car: string) => string> = {
   shop_grant: (car) => `${car} is now shared with your shop`,
   work_order_closed: (car) => `The shop has finished work on ${car}`,
   invoice_paid: (car) => `An invoice for ${car} was paid`,
+  co_driver_added: (car) => `You were added as a co-driver of ${car}`,
 };
 
 const ACTIONS: Record<NotificationKind, string> = {
@@ -52,6 +53,7 @@ const ACTIONS: Record<NotificationKind, string> = {
   shop_grant: 'Open the car',
   work_order_closed: 'Open the car',
   invoice_paid: 'Open the invoice',
+  co_driver_added: 'Open the car',
 };
 
 /**

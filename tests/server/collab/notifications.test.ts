@@ -31,10 +31,11 @@ const notes = async (c: Client) => {
 const unread = async (c: Client) => ((await c.get('/api/notifications/unread-count')).body as { unread: number }).unread;
 const mailTo = (email: string) => mail.sent.filter((m) => m.to === email);
 
-/** A granted car with a co-driver and a second member of the shop's staff. */
+/** A granted car with a co-driver and a second member of the shop's staff; the co-driver has read that they were added. */
 async function crew() {
   const g = await grantedCar(t);
   const co = await addCoDriver(t, g.driver, 'Teo Marsh');
+  expect((await co.c.post('/api/notifications/read', { all: true })).body).toEqual({ updated: 1, unread: 0 });
   const wren = await addStaff(t, g.shopId, 'Wren Iyer');
   return { ...g, co, wren };
 }
@@ -68,6 +69,28 @@ describe('who hears about a comment', () => {
       'comment', summary, `/shop/customers/${driver.carId}?event=${driver.eventId}&comments=${run.id}`,
     ]);
     expect((await notes(staff.c)).count).toBe(before);
+  });
+
+  it('when the owner adds a co-driver, then the co-driver is told who added them, linked to the car, with an e-mail; adding again tells them nothing more', async () => {
+    const g = await grantedCar(t);
+    const co = await signedInClient(t, { displayName: 'Teo Marsh' });
+    expect((await g.driver.c.post(`/api/cars/${g.driver.carId}/co-drivers`, { email: co.email })).status).toBe(201);
+
+    const list = await notes(co.c);
+    expect(list.items.map((n) => [n.kind, n.summary, n.link, n.actor?.displayName])).toEqual([
+      ['co_driver_added', 'Nell Ashdown added you as a co-driver of Blue roadster', `/cars/${g.driver.carId}`, 'Nell Ashdown'],
+    ]);
+    const sent = mailTo(co.email);
+    expect(sent).toHaveLength(1);
+    expect(sent[0]!.subject).toBe('You were added as a co-driver of Blue roadster');
+    expect(sent[0]!.text).toContain('take yourself off it under Drivers');
+    // Nobody else hears: not the owner who acted, not the shop.
+    expect((await notes(g.driver.c)).items.filter((n) => n.kind === 'co_driver_added')).toEqual([]);
+    expect((await notes(g.staff.c)).items.filter((n) => n.kind === 'co_driver_added')).toEqual([]);
+
+    expect((await g.driver.c.post(`/api/cars/${g.driver.carId}/co-drivers`, { email: co.email })).status).toBe(201);
+    expect((await notes(co.c)).count).toBe(1);
+    expect(mailTo(co.email)).toHaveLength(1);
   });
 
   it('when the owner comments on a setup and a tread reading, then co-drivers are sent to the setup\'s thread and the tread page, and every granted shop\'s staff hear', async () => {
@@ -237,10 +260,11 @@ describe('notification e-mails', () => {
   it('when a recipient has turned notification e-mails off, then they get the notification in the app but no e-mail', async () => {
     const { driver, co, staff } = await crew();
     await t.ds.query('UPDATE users SET email_notifications = false WHERE id = $1', [co.user.id]);
+    const mailsBefore = mailTo(co.email).length;
     const run = await postRun(driver.c, driver.carId, driver.eventId);
     await staff.c.post('/api/comments', { target: { type: 'run', id: run.id }, body: 'Check the rear pressures.' });
     expect((await notes(co.c)).unread).toBe(1);
-    expect(mailTo(co.email)).toEqual([]);
+    expect(mailTo(co.email)).toHaveLength(mailsBefore);
     expect(mailTo(driver.email)).toHaveLength(1);
   });
 
