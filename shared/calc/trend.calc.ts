@@ -4,26 +4,29 @@
  * e-Handbook of Statistical Methods, "Linear least squares regression", from memory).
  */
 
-/** The least-squares slope through [x, y] points; null with fewer than 2 points or when every x is the same. */
-export function leastSquaresSlope(points: readonly (readonly [number, number])[]): number | null {
-  if (points.length < 2) return null;
+type Points = readonly (readonly [number, number])[];
+
+/** The means and the sums of squares and products about them that a least-squares line is made of. */
+function centred(points: Points) {
   const n = points.length;
-  let sumX = 0;
-  let sumY = 0;
-  for (const [x, y] of points) {
-    sumX += x;
-    sumY += y;
-  }
-  const meanX = sumX / n;
-  const meanY = sumY / n;
+  const meanX = points.reduce((sum, [x]) => sum + x, 0) / n;
+  const meanY = points.reduce((sum, [, y]) => sum + y, 0) / n;
   let sxy = 0;
   let sxx = 0;
+  let syy = 0;
   for (const [x, y] of points) {
     sxy += (x - meanX) * (y - meanY);
     sxx += (x - meanX) ** 2;
+    syy += (y - meanY) ** 2;
   }
-  if (sxx === 0) return null;
-  return sxy / sxx;
+  return { meanX, meanY, sxy, sxx, syy };
+}
+
+/** The least-squares slope through [x, y] points; null with fewer than 2 points or when every x is the same. */
+export function leastSquaresSlope(points: Points): number | null {
+  if (points.length < 2) return null;
+  const { sxy, sxx } = centred(points);
+  return sxx === 0 ? null : sxy / sxx;
 }
 
 export interface StraightLine {
@@ -38,19 +41,15 @@ export interface StraightLine {
  * Null with fewer than 2 points or when every x is the same. When every y is the same the flat line fits them
  * exactly: SS_tot is 0, the formula's 0/0 has no value, and r² is taken as 1.
  */
-export function straightLineFit(points: readonly (readonly [number, number])[]): StraightLine | null {
-  const slope = leastSquaresSlope(points);
-  if (slope === null) return null;
-  const meanX = points.reduce((sum, [x]) => sum + x, 0) / points.length;
-  const meanY = points.reduce((sum, [, y]) => sum + y, 0) / points.length;
+export function straightLineFit(points: Points): StraightLine | null {
+  if (points.length < 2) return null;
+  const { meanX, meanY, sxy, sxx, syy } = centred(points);
+  if (sxx === 0) return null;
+  const slope = sxy / sxx;
   const intercept = meanY - slope * meanX;
   let ssRes = 0;
-  let ssTot = 0;
-  for (const [x, y] of points) {
-    ssRes += (y - (slope * x + intercept)) ** 2;
-    ssTot += (y - meanY) ** 2;
-  }
+  for (const [x, y] of points) ssRes += (y - (slope * x + intercept)) ** 2;
   // Every y the same, compared as given: their mean can differ from each in the last bit, leaving 0/0 as noise.
   const flat = points.every(([, y]) => y === points[0]![1]);
-  return { slope, intercept, r2: flat || ssTot === 0 ? 1 : Math.max(0, 1 - ssRes / ssTot) };
+  return { slope, intercept, r2: flat || syy === 0 ? 1 : Math.max(0, 1 - ssRes / syy) };
 }
