@@ -113,9 +113,10 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarV
     return saved ? <CommentsButton target={{ type: 'run', id: row.id }} what={`run ${row.runNumber}`} count={saved.commentCount} /> : null;
   };
 
-  // The run list is most of the page's elements. It is drawn just after the rest (a deferred render that
-  // React may interrupt), so the setup line and the keypad are on screen and answer a tap sooner.
-  const listDrawn = useDeferredValue(true, false);
+  // The run list is most of the page's elements. On the day it is drawn just after the rest (a deferred render
+  // that React may interrupt), so the setup line and the keypad are on screen and answer a tap sooner. After
+  // the day the list comes first, above the keypad, and is drawn at once so the keypad does not jump down.
+  const listDrawn = useDeferredValue(true, moment.dayOver);
 
   // How tall the setup line is depends on the setup's name: the board waits while the car's setups are on
   // their way, so the keypad never moves under a thumb when they land. With no signal they are not coming.
@@ -125,6 +126,37 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarV
   const best = own.find((r) => r.isBest);
   // Opened after the day (to tidy up the runs, or to read them), the list is not today's.
   const heading = isOnDate(new Date(), event.date) ? 'Today’s runs' : `Runs on ${formatDay(event.date)}`;
+
+  const logRun = (
+    <section key="log" aria-label="Log a run" className="rounded-lg border border-line bg-surface p-3 md:sticky md:top-20 md:order-2">
+      {moment.dayOver ? <h2 className="mb-2 text-lg font-bold">Add a run from that day</h2> : null}
+      <LogRunForm carId={car.id} eventId={event.id} eventDate={event.date} driver={driver} conePenaltySec={event.conePenaltySec} rows={rows} />
+    </section>
+  );
+  const runList = (
+    <section key="runs" aria-labelledby="runs" className="flex flex-col gap-3 md:order-1">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h2 id="runs" className="text-xl font-bold">
+          {heading}
+        </h2>
+        {event.pending ? null : <CommentsButton target={{ type: 'event', id: event.id, carId: car.id }} what={`${car.name} at ${event.name}`} />}
+        {best?.adjustedTimeSec != null ? (
+          <p className="tabular-figures inline-flex items-center gap-1 font-semibold">
+            <Trophy aria-hidden="true" className="size-4" />
+            {driver.displayName}’s best: <span className="text-time">{formatRunTime(best.adjustedTimeSec)}</span> (run {best.runNumber})
+          </p>
+        ) : null}
+      </div>
+      {runsQuery.isError && !runsQuery.data ? (
+        <p className="text-sm text-ink-muted">Saved runs could not be loaded (no connection?). Runs you log now are kept on this phone.</p>
+      ) : null}
+      {(onServer && runsQuery.isPending && rows.length === 0) || !listDrawn ? (
+        <p className="text-ink-muted">Loading runs…</p>
+      ) : (
+        <RunList label={heading} rows={rows} setupLabelOf={setupLabelOf} renderExtras={runComments} />
+      )}
+    </section>
+  );
 
   return (
     <>
@@ -155,31 +187,8 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarV
       </section>
 
       <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_24rem] md:items-start">
-        <section aria-label="Log a run" className="rounded-lg border border-line bg-surface p-3 md:sticky md:top-20 md:order-2">
-          <LogRunForm carId={car.id} eventId={event.id} eventDate={event.date} driver={driver} conePenaltySec={event.conePenaltySec} rows={rows} />
-        </section>
-        <section aria-labelledby="runs" className="flex flex-col gap-3 md:order-1">
-          <div className="flex flex-wrap items-baseline justify-between gap-2">
-            <h2 id="runs" className="text-xl font-bold">
-              {heading}
-            </h2>
-            {event.pending ? null : <CommentsButton target={{ type: 'event', id: event.id, carId: car.id }} what={`${car.name} at ${event.name}`} />}
-            {best?.adjustedTimeSec != null ? (
-              <p className="tabular-figures inline-flex items-center gap-1 font-semibold">
-                <Trophy aria-hidden="true" className="size-4" />
-                {driver.displayName}’s best: <span className="text-time">{formatRunTime(best.adjustedTimeSec)}</span> (run {best.runNumber})
-              </p>
-            ) : null}
-          </div>
-          {runsQuery.isError && !runsQuery.data ? (
-            <p className="text-sm text-ink-muted">Saved runs could not be loaded (no connection?). Runs you log now are kept on this phone.</p>
-          ) : null}
-          {(onServer && runsQuery.isPending && rows.length === 0) || !listDrawn ? (
-            <p className="text-ink-muted">Loading runs…</p>
-          ) : (
-            <RunList label={heading} rows={rows} setupLabelOf={setupLabelOf} renderExtras={runComments} />
-          )}
-        </section>
+        {/* On the day the keypad comes first; opened afterwards, the day's results do, with the keypad below them. */}
+        {moment.dayOver ? [runList, logRun] : [logRun, runList]}
       </div>
     </>
   );

@@ -91,8 +91,8 @@ describe('event day', () => {
     expect(requestsTo(fetchMock, 'GET /api/auth/me')).toHaveLength(1);
   });
 
-  it('when the page first draws with its runs known, then the keypad goes on screen before the run list, which follows in a later drawing', async () => {
-    stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })]);
+  it('when the page first draws on the event\'s day with its runs known, then the keypad goes on screen before the run list, which follows in a later drawing', async () => {
+    stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })], { extra: TODAY_EVENT() });
     // Which insertion into the document brought each part, judged when the insertion is reported: one
     // insertion bringing both would mean the list held the keypad back.
     const FORM = 'form[aria-label="Log a run"]';
@@ -113,6 +113,43 @@ describe('event day', () => {
     const list = insertions.findIndex((i) => i.list);
     expect(form).toBeGreaterThanOrEqual(0);
     expect(list).toBeGreaterThan(form);
+  });
+
+  it('when the event is opened on its day, then the keypad comes before the runs, with no heading of its own', async () => {
+    stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 })], { extra: TODAY_EVENT() });
+    renderApp(PATH);
+    const list = await screen.findByRole('list', { name: 'Today’s runs, newest first' });
+    const form = screen.getByRole('form', { name: 'Log a run' });
+
+    expect(form.compareDocumentPosition(list) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(screen.queryByRole('heading', { name: 'Add a run from that day' })).toBeNull();
+  });
+
+  it('when a past event is opened, then its runs come first and the keypad follows under a heading of its own, both in one drawing', async () => {
+    stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })]);
+    // Drawn later than the keypad, a list above it would push the keypad down under the thumb.
+    const FORM = 'form[aria-label="Log a run"]';
+    const LIST = 'ol[aria-label$="newest first"]';
+    const brought = (nodes: Node[], selector: string) => nodes.some((n) => n instanceof Element && (n.matches(selector) || n.querySelector(selector) !== null));
+    const insertions: { form: boolean; list: boolean }[] = [];
+    const observer = new MutationObserver((records) => {
+      for (const r of records) {
+        const nodes = [...r.addedNodes];
+        if (nodes.length) insertions.push({ form: brought(nodes, FORM), list: brought(nodes, LIST) });
+      }
+    });
+    observer.observe(document.body, { childList: true, subtree: true });
+    renderApp(PATH);
+    await screen.findByRole('listitem', { name: /^Run 2,/ });
+    observer.disconnect();
+
+    const list = screen.getByRole('list', { name: `Runs on ${formatDay(EVENT.date)}, newest first` });
+    const form = screen.getByRole('form', { name: 'Log a run' });
+    expect(list.compareDocumentPosition(form) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    const heading = screen.getByRole('heading', { name: 'Add a run from that day' });
+    expect(heading.compareDocumentPosition(form) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(list.compareDocumentPosition(heading) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(insertions.findIndex((i) => i.list)).toBeLessThanOrEqual(insertions.findIndex((i) => i.form));
   });
 
   it('when the car\'s setups are still on their way, then the keypad waits for them, so it does not move when the setup line fills in, and "none recorded" is never shown', async () => {
