@@ -75,18 +75,18 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: Shop; onSaved?: () =
         submit();
       }}
     >
-      <div className="grid grid-cols-2 gap-2">
-        <UnitInput label="Tax rate" unit="%" value={tax} error={errorOf('taxRatePct')} onChange={(e) => setTax(e.target.value)} />
-        <TextField
-          label="Currency"
-          hint="Three letters, e.g. USD"
-          value={currency}
-          maxLength={3}
-          autoCapitalize="characters"
-          error={errorOf('currency')}
-          onChange={(e) => setCurrency(e.target.value.toUpperCase())}
-        />
-      </div>
+      {/* One under the other: side by side, the currency's hint above its box set the two boxes at different heights. */}
+      <UnitInput label="Tax rate" unit="%" className="max-w-40" value={tax} error={errorOf('taxRatePct')} onChange={(e) => setTax(e.target.value)} />
+      <TextField
+        label="Currency"
+        hint="Three letters, e.g. USD"
+        className="max-w-60"
+        value={currency}
+        maxLength={3}
+        autoCapitalize="characters"
+        error={errorOf('currency')}
+        onChange={(e) => setCurrency(e.target.value.toUpperCase())}
+      />
       <UnitInput
         label="Compressed-length tolerance"
         unit={unitSymbol('length', units)}
