@@ -178,7 +178,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarV
           <Suspense fallback={<p className="text-ink-muted">Opening…</p>}>
             <QuickChangePanel
               carId={car.id}
-              dampers={{ front: car.damperAdjusters.front !== null, rear: car.damperAdjusters.rear !== null }}
+              adjusters={car.damperAdjusters}
               setups={setups}
               onDone={() => setQuickChange(false)}
             />

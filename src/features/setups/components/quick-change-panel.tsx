@@ -2,6 +2,8 @@ import { useState, type FormEvent } from 'react';
 import { Minus, Plus, Trash2 } from 'lucide-react';
 import { fromDisplay, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { axleOf, CORNERS, type Corner } from '@shared/season/corners';
+import type { Car } from '@shared/season/car.schema';
+import { clickDirection } from '@shared/season/damper-clicks';
 import { QUICK_CHANGE_FIELDS, quickChangeInputSchema, type QuickChangeInput } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
@@ -69,7 +71,22 @@ function describeLine(line: ChangeLine, amount: number, units: UnitPreferences):
 }
 
 /** Which axles have adjustable dampers: the car's own count of clicks, left empty where they are fixed. */
-export type AdjustableDampers = { front: boolean; rear: boolean };
+type AdjustableDampers = { front: boolean; rear: boolean };
+
+/**
+ * Which way a line moves the clicks: "stiffer" or "softer" when every chosen corner goes the same way on an adjuster
+ * the car describes, null when a corner's clicks are not known before or after, or the corners go different ways.
+ */
+function clicksWay(adjusters: Car['damperAdjusters'], line: ChangeLine, before: SetupView | null, after: ReturnType<typeof applyQuickChange> | null) {
+  if (!CLICK_FIELDS.includes(line.field) || !after || after.problems.length > 0) return null;
+  const moves = line.corners.map((c) => {
+    const from = before?.corners[c]?.[line.field] ?? null;
+    const to = after.corners[c][line.field] ?? null;
+    return from === null || to === null ? Number.NaN : Math.sign(to - from);
+  });
+  const [move = 0] = moves;
+  return moves.every((m) => m === move) ? clickDirection(adjusters, line.corners, move) : null;
+}
 
 /**
  * The first thing offered: clicks on the axles whose dampers adjust (the commonest change between heats), or,
@@ -85,8 +102,8 @@ const newLine = (dampers: AdjustableDampers): ChangeLine => ({ id: nextLineId++,
 
 interface QuickChangePanelProps {
   carId: string;
-  /** Clicks are offered only where they exist; a car with none starts on pressures. */
-  dampers: AdjustableDampers;
+  /** The car's damper adjusters: clicks are offered only where they exist (a car with none starts on pressures), and say which way they go. */
+  adjusters: Car['damperAdjusters'];
   /** Saved and pending snapshots of the car, newest first. */
   setups: readonly SetupView[];
   onDone: () => void;
@@ -96,8 +113,9 @@ interface QuickChangePanelProps {
  * A small change between runs — clicks, pressures, camber — saved as a new snapshot derived from
  * the one in force, through the outbox, stamped with the time of the tap.
  */
-export function QuickChangePanel({ carId, dampers, setups, onDone }: QuickChangePanelProps) {
+export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChangePanelProps) {
   const units = useUnits();
+  const dampers: AdjustableDampers = { front: adjusters.front !== null, rear: adjusters.rear !== null };
   const write = useQuickChange();
   const [lines, setLines] = useState<ChangeLine[]>(() => [newLine(dampers)]);
   const [notes, setNotes] = useState('');
@@ -191,6 +209,7 @@ export function QuickChangePanel({ carId, dampers, setups, onDone }: QuickChange
         const preview = amount !== null ? applyQuickChange(base, [{ field: line.field, corners: line.corners, ...(line.mode === 'delta' ? { delta: toSi(amount, quantity, units) } : { value: toSi(amount, quantity, units) }) }]) : null;
         // What this change would leave out of range is said as it is typed, not only on Save.
         const lineError = errors[line.id] || (preview?.problems.length ? preview.problems.join('. ') : '');
+        const way = clicksWay(adjusters, line, base, preview);
         return (
           <fieldset key={line.id} className="flex flex-col gap-3 rounded border border-line p-3" aria-describedby={lineError ? errorId : undefined}>
             <legend className="px-1 font-bold">Change {index + 1}</legend>
@@ -314,6 +333,11 @@ export function QuickChangePanel({ carId, dampers, setups, onDone }: QuickChange
                   </button>
                 ) : null}
               </div>
+              {way ? (
+                <p className="text-sm font-semibold" aria-live="polite">
+                  {way === 'stiffer' ? 'Stiffer' : 'Softer'} (clicks count from {adjusters[axleOf(line.corners[0]!)]?.countFrom === 'full_soft' ? 'full soft' : 'full stiff'})
+                </p>
+              ) : null}
               {lineError ? (
                 <p id={errorId} className="text-sm font-semibold text-warning">
                   {lineError}

@@ -605,6 +605,36 @@ describe('event day', () => {
     expect(within(form).getByRole('button', { name: 'All four' }).getAttribute('aria-pressed')).toBe('false');
   });
 
+  it('when a quick change moves clicks, then it says stiffer or softer from the end the car\'s adjusters count from, and nothing when the chosen corners count from different ends', async () => {
+    // Clicks counted from full soft grow stiffer, from full stiff softer (common practice; the damper maker's manual says which end).
+    const car = { ...CAR, damperAdjusters: { front: { positions: 24, countFrom: 'full_soft' as const }, rear: { positions: 24, countFrom: 'full_stiff' as const } } };
+    stubWithRuns([], { extra: { ...TODAY_EVENT(), 'GET /api/cars': list([car]) } });
+    renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+
+    await u.click(within(form).getByRole('button', { name: 'Front' }));
+    await u.click(within(form).getByRole('button', { name: 'More clicks' }));
+    expect(within(form).getByText('Stiffer (clicks count from full soft)')).toBeTruthy();
+    await u.click(within(form).getByRole('button', { name: 'Less clicks' }));
+    await u.click(within(form).getByRole('button', { name: 'Less clicks' }));
+    expect(within(form).getByText('Softer (clicks count from full soft)')).toBeTruthy();
+
+    await u.click(within(form).getByRole('button', { name: 'Rear' }));
+    await u.click(within(form).getByRole('button', { name: 'More clicks' }));
+    await u.click(within(form).getByRole('button', { name: 'More clicks' }));
+    expect(within(form).getByText('Softer (clicks count from full stiff)')).toBeTruthy();
+    // Set to 12 from 10 at the rear: two clicks more, softer again.
+    await u.click(within(form).getByRole('button', { name: 'Set to' }));
+    await u.type(within(form).getByLabelText(/^Set clicks to/), '12');
+    expect(within(form).getByText('Softer (clicks count from full stiff)')).toBeTruthy();
+
+    await u.click(within(form).getByRole('button', { name: 'All four' }));
+    expect(within(form).queryByText(/^(Stiffer|Softer) \(/)).toBeNull();
+  });
+
   it('when a quick change sets the rear to one click, then its label reads "1 click", not "1 clicks"', async () => {
     stubWithRuns([], { extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
