@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import * as z from '@shared/zod';
-import { toFieldErrors } from '@shared/api/api-error.schema';
+import { toFieldErrors, type FieldErrors } from '@shared/api/api-error.schema';
 import { AppError } from './app-error';
 
 interface Schemas {
@@ -9,22 +9,28 @@ interface Schemas {
   query?: z.core.$ZodType;
 }
 
+/** Deeper than any body of ours nests (a season file's runs' corners are five levels down). */
+const MAX_DEPTH = 32;
+
 /**
- * Where a request carries the character U+0000, by field ("corners.lf.notes"). PostgreSQL's text cannot hold it,
- * so a value with one would fail at the database, after the schema passed it; no one types it on purpose.
+ * Where a request carries what cannot be stored, by field ("corners.lf.notes"): the character U+0000, which
+ * PostgreSQL's text cannot hold (a value with one would fail at the database, after the schema passed it; no one
+ * types it on purpose), and values nested deeper than `MAX_DEPTH`. The walk keeps its own list rather than
+ * recursing, so a body nested thousands deep is an answer, not a stack overflow.
  */
-export function nulCharacterFields(value: unknown): Record<string, string[]> {
-  const found: Record<string, string[]> = {};
-  const walk = (v: unknown, at: string) => {
+export function unstorableFields(value: unknown): FieldErrors {
+  // No prototype: a field named "__proto__" or "constructor" is a key like any other.
+  const found: FieldErrors = Object.create(null);
+  const pending: [unknown, string, number][] = [[value, '', 0]];
+  for (let next = pending.pop(); next; next = pending.pop()) {
+    const [v, at, depth] = next;
     if (typeof v === 'string') {
       if (v.includes('\u0000')) found[at || '_'] = ['Contains a null character (U+0000), which cannot be stored: remove it'];
-    } else if (Array.isArray(v)) {
-      v.forEach((item, i) => walk(item, at ? `${at}.${i}` : String(i)));
     } else if (v && typeof v === 'object') {
-      for (const [key, item] of Object.entries(v)) walk(item, at ? `${at}.${key}` : key);
+      if (depth === MAX_DEPTH) found[at || '_'] = [`Nested too deeply: nothing here is more than ${MAX_DEPTH} levels down`];
+      else for (const [key, item] of Object.entries(v)) pending.push([item, at ? `${at}.${key}` : key, depth + 1]);
     }
-  };
-  walk(value, '');
+  }
   return found;
 }
 
@@ -39,11 +45,11 @@ export function validate(schemas: Schemas): RequestHandler {
       const schema = schemas[part];
       if (!schema) continue;
       const result = z.safeParse(schema, req[part] ?? {});
-      const nul = part === 'params' ? {} : nulCharacterFields(req[part]);
-      if (!result.success || Object.keys(nul).length > 0) {
+      const unstorable = part === 'params' ? {} : unstorableFields(req[part]);
+      if (!result.success || Object.keys(unstorable).length > 0) {
         // A malformed id names no record: that is "not found", like an id that does not exist.
         if (part === 'params') throw new AppError('not_found', 'That record was not found.');
-        throw new AppError('validation_failed', 'Some fields need attention.', { ...(result.success ? {} : toFieldErrors(result.error)), ...nul });
+        throw new AppError('validation_failed', 'Some fields need attention.', { ...(result.success ? {} : toFieldErrors(result.error)), ...unstorable });
       }
       res.locals[part] = result.data;
     }

@@ -38,7 +38,8 @@ export type ApiErrorBody = z.infer<typeof apiErrorSchema>;
 
 /** Flattens a zod error into `{ "path.to.field": ["message"] }`. */
 export function toFieldErrors(error: z.core.$ZodError): FieldErrors {
-  const out: FieldErrors = {};
+  // No prototype: an unknown field named "constructor" or "__proto__" gets its message like any other.
+  const out: FieldErrors = Object.create(null);
   for (const issue of error.issues) {
     const key = issue.path.map(String).join('.');
     if (issue.code === 'unrecognized_keys') {

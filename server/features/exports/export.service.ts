@@ -10,7 +10,7 @@ import {
 } from '@shared/export/season-export.schema';
 import * as z from '@shared/zod';
 import { AppError } from '../../lib/app-error';
-import { nulCharacterFields } from '../../lib/validate';
+import { unstorableFields } from '../../lib/validate';
 import { assertCarAccess } from '../../auth/access';
 import { loadCarEntity } from '../cars/car.service';
 import { setupsOfCar } from '../setups/setup.service';
@@ -291,9 +291,9 @@ export async function importSeason(ds: DataSource, user: User, body: unknown): P
   const header = seasonFileHeaderProblem(body);
   if (header) throw invalid({ [header.field]: [header.message] }, header.message);
   const result = z.safeParse(seasonExportSchema, body);
-  const nul = nulCharacterFields(body);
-  if (!result.success || Object.keys(nul).length > 0) {
-    throw invalid({ ...(result.success ? {} : toFieldErrors(result.error)), ...nul }, 'This season file has values Scrubline cannot read.');
+  const unstorable = unstorableFields(body);
+  if (!result.success || Object.keys(unstorable).length > 0) {
+    throw invalid({ ...(result.success ? {} : toFieldErrors(result.error)), ...unstorable }, 'This season file has values Scrubline cannot read.');
   }
   const file = result.data;
   const refErrors = checkReferences(file);

@@ -1,5 +1,6 @@
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SEASON_FILE_FORMAT, SEASON_FILE_VERSION } from '../../../shared/export/season-export.schema';
 import { listRoutes, type Mount } from '../../../server/lib/routes';
 import { makeTestApp, signedInClient, type TestApp } from '../test-app';
 import { driverWithCarAndEvent, type Driver } from '../season/season-fixtures';
@@ -158,5 +159,66 @@ describe('values PostgreSQL cannot store', () => {
     expect(await totalRows()).toBe(before);
     // The edges themselves are dates.
     expect((await d.c.post('/api/events', { name: 'Old round', date: '1900-01-01', conePenaltySec: 2 })).status).toBe(201);
+  });
+});
+
+/**
+ * Bodies and queries shaped to trip the server's own code rather than the schemas: field names that are also the
+ * names of every JavaScript object's built-in properties, and JSON nested far deeper than any form of ours.
+ */
+describe('field names and nesting that trip JavaScript itself', () => {
+  /** Each of these names a property every plain object inherits, or its prototype; JSON.parse makes them own keys. */
+  const INHERITED = ['constructor', '__proto__', 'toString', 'hasOwnProperty', 'valueOf'];
+  const routes = () => listRoutes(t.app.locals.mounts as Mount[]);
+
+  it('when a body carries fields named like built-in properties, on every POST, PUT and PATCH route, then no answer is a 500 and each name is reported as an unknown field', async () => {
+    const before = await totalRows();
+    const tokens = { driver: await d.c.csrf(), admin: await admin.c.csrf() };
+    const payload = `{${INHERITED.map((k) => `"${k}":1`).join(',')}}`;
+    let named = 0;
+    for (const route of routes().filter((r) => /^(POST|PUT|PATCH) /.test(r) && !SKIP.has(r))) {
+      const [method] = route.split(' ') as ['POST' | 'PUT' | 'PATCH'];
+      const path = pathFor(route);
+      const who = path.startsWith('/api/admin/') ? 'admin' : 'driver';
+      const res = await (who === 'admin' ? admin.c : d.c).agent[method.toLowerCase() as 'post' | 'put' | 'patch'](path)
+        .set('X-CSRF-Token', tokens[who])
+        .set('Content-Type', 'application/json')
+        .send(payload);
+      expect(res.status, `${route} → ${JSON.stringify(res.body)}`).toBeLessThan(500);
+      if (res.body.error?.fieldErrors?.constructor !== undefined && Array.isArray(res.body.error.fieldErrors.constructor)) {
+        named++;
+        for (const k of INHERITED) expect(Object.getOwnPropertyDescriptor(res.body.error.fieldErrors, k)?.value, `${route} ${k}`).toEqual(['Unknown field']);
+      }
+    }
+    // A route whose schema refuses unknown fields says which: most of them do.
+    expect(named).toBeGreaterThan(20);
+    expect(await totalRows()).toBe(before);
+  }, 120_000);
+
+  it('when a query carries parameters named like built-in properties, on every GET route, then no answer is a 500', async () => {
+    const query = INHERITED.filter((k) => k !== '__proto__').map((k) => `${k}=1`).join('&');
+    for (const route of routes().filter((r) => r.startsWith('GET ') && !r.includes('/file'))) {
+      const path = pathFor(route);
+      const res = await (path.startsWith('/api/admin/') ? admin.c : d.c).get(`${path}?targetType=run&targetId=${d.eventId}&${query}`);
+      expect(res.status, `${route} → ${JSON.stringify(res.body)}`).toBeLessThan(500);
+    }
+    const list = await d.c.get(`/api/attachments?targetType=event&targetId=${d.eventId}&constructor=1`);
+    expect(list.status).toBe(400);
+    expect(list.body.error.fieldErrors.constructor).toEqual(['Unknown field']);
+  }, 120_000);
+
+  it('when a body is nested thousands of levels deep, in a form or in a season file, then 400 says where it goes too deep and nothing is written', async () => {
+    const before = await totalRows();
+    const deep = `${'['.repeat(20_000)}${']'.repeat(20_000)}`;
+    const token = await d.c.csrf();
+    const bodies = { '/api/teams': `{"name":${deep}}`, '/api/cars/import': `{"format":"${SEASON_FILE_FORMAT}","version":${SEASON_FILE_VERSION},"name":${deep}}` };
+    for (const [path, body] of Object.entries(bodies)) {
+      const res = await d.c.agent.post(path).set('X-CSRF-Token', token).set('Content-Type', 'application/json').send(body);
+      expect(res.status, path).toBe(400);
+      const [where, messages] = Object.entries(res.body.error.fieldErrors as Record<string, string[]>).find(([, m]) => m[0]!.startsWith('Nested too deeply'))!;
+      expect(where, path).toBe(['name', ...Array(31).fill('0')].join('.'));
+      expect(messages, path).toEqual(['Nested too deeply: nothing here is more than 32 levels down']);
+    }
+    expect(await totalRows()).toBe(before);
   });
 });
