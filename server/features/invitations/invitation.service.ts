@@ -82,6 +82,15 @@ export async function createInvitation(
   return { email, asAdmin: invite.asAdmin, expiresAt: expiresAt.toISOString() };
 }
 
+/**
+ * Withdraws the open invitations someone sent to a shop or team they no longer manage (removed, or no longer its
+ * admin or captain): the standing they handed on was theirs to give only while they held it. Run in the
+ * transaction that takes it from them.
+ */
+export async function withdrawInvitationsBy(m: EntityManager, kind: Kind, targetId: string, senderId: string): Promise<void> {
+  await m.query(`DELETE FROM invitations WHERE ${TARGETS[kind].column} = $1 AND invited_by = $2 AND used_at IS NULL`, [targetId, senderId]);
+}
+
 interface InvitationRow {
   id: string;
   shop_id: string | null;
@@ -91,12 +100,13 @@ interface InvitationRow {
   expires_at: Date;
   used_at: Date | null;
   name: string;
+  invited_by: string;
   invited_by_name: string;
   expired: boolean;
 }
 
 const SELECT_INVITATION = `
-  SELECT i.id, i.shop_id, i.team_id, i.email, i.as_admin, i.expires_at, i.used_at,
+  SELECT i.id, i.shop_id, i.team_id, i.email, i.as_admin, i.expires_at, i.used_at, i.invited_by,
          COALESCE(s.name, t.name) AS name, u.display_name AS invited_by_name, i.expires_at <= now() AS expired
   FROM invitations i
   LEFT JOIN shops s ON s.id = i.shop_id
@@ -126,7 +136,8 @@ export async function previewInvitation(ds: DataSource, token: string): Promise<
  * Joins the signed-in user to the shop or team, as staff/member or as admin/captain.
  * Works once, before it expires, and only for the account with the invited address.
  * Membership and "used" are written in one transaction; an existing member keeps
- * the higher standing.
+ * the higher standing. Only an invitation whose sender still manages the shop or team
+ * stands: one sent by someone since removed or demoted is refused.
  */
 export async function acceptInvitation(ds: DataSource, user: User, token: string): Promise<AcceptedInvitation> {
   return ds.transaction(async (m) => {
@@ -141,6 +152,18 @@ export async function acceptInvitation(ds: DataSource, user: User, token: string
     const kind = kindOf(row);
     const target = TARGETS[kind];
     const targetId = (row.shop_id ?? row.team_id)!;
+    // The shop or team first, as its own changes of staff lock it, then the sender's standing, held until this commits.
+    await m.query(`SELECT 1 FROM ${target.table} WHERE id = $1 FOR UPDATE`, [targetId]);
+    const sender: unknown[] = await m.query(
+      `SELECT 1 FROM ${target.members} WHERE ${target.column} = $1 AND user_id = $2 AND ${target.adminColumn} FOR SHARE`,
+      [targetId, row.invited_by],
+    );
+    if (sender.length === 0) {
+      throw new AppError(
+        'gone',
+        `This invitation no longer stands: ${row.invited_by_name} is no longer ${kind === 'shop' ? 'an admin of' : 'a captain of'} ${row.name}. Ask one of its ${kind === 'shop' ? 'admins' : 'captains'} for a new one.`,
+      );
+    }
     await m.query(
       `INSERT INTO ${target.members} (${target.column}, user_id, ${target.adminColumn}) VALUES ($1, $2, $3)
        ON CONFLICT (${target.column}, user_id) DO UPDATE SET ${target.adminColumn} = ${target.members}.${target.adminColumn} OR EXCLUDED.${target.adminColumn}`,

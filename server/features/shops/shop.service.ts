@@ -6,7 +6,7 @@ import type {
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess, assertShopAccess, type Queryable } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
-import { createInvitation } from '../invitations/invitation.service';
+import { createInvitation, withdrawInvitationsBy } from '../invitations/invitation.service';
 import { actorLabel, carAudience, notify, sendOutbox, staffRecipients } from '../notifications/notify';
 
 /** How many shops the picker lists at most; the name filter narrows it. */
@@ -195,6 +195,7 @@ export async function removeStaff(ds: DataSource, user: User, shopId: string, st
       );
     }
     await m.query('DELETE FROM shop_members WHERE shop_id = $1 AND user_id = $2', [shopId, staffId]);
+    await withdrawInvitationsBy(m, 'shop', shopId, staffId);
   });
 }
 

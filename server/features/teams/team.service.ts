@@ -6,7 +6,7 @@ import type {
 } from '@shared/collab/team.schema';
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess, assertTeamAccess, type TeamAction } from '../../auth/access';
-import { createInvitation } from '../invitations/invitation.service';
+import { createInvitation, withdrawInvitationsBy } from '../invitations/invitation.service';
 import type { MailSettings } from '../../mail/mailer';
 import { TeamEntity, TeamMemberEntity } from './team.entity';
 
@@ -154,6 +154,7 @@ export async function updateMember(ds: DataSource, user: User, teamId: string, m
       throw new AppError('conflict', ONE_CAPTAIN);
     }
     await m.query('UPDATE team_members SET is_captain = $3 WHERE team_id = $1 AND user_id = $2', [teamId, memberId, isCaptain]);
+    if (!isCaptain) await withdrawInvitationsBy(m, 'team', teamId, memberId);
   });
   return getTeam(ds, user, teamId);
 }
@@ -176,6 +177,7 @@ export async function removeMember(ds: DataSource, user: User, teamId: string, m
       [teamId, memberId],
     );
     await m.query('DELETE FROM team_members WHERE team_id = $1 AND user_id = $2', [teamId, memberId]);
+    await withdrawInvitationsBy(m, 'team', teamId, memberId);
   });
 }
 

@@ -230,3 +230,67 @@ describe('POST /api/invitations/:token/accept', () => {
     expect((await someone.c.post(`/api/invitations/${'B'.repeat(43)}/accept`)).status).toBe(404);
   });
 });
+
+describe('an invitation from someone who no longer manages the shop or team', () => {
+  /** A team with two captains, the second of whom invites `invitee` as captain through the API. */
+  async function secondCaptainInvites() {
+    const { captain, teamId } = await teamWithCaptain('Apex Hunters');
+    const second = await signedInClient(t, { displayName: 'Rafe Oduya' });
+    await sql(`INSERT INTO team_members (team_id, user_id, is_captain) VALUES ($1, $2, true)`, [teamId, second.user.id]);
+    const invitee = await signedInClient(t, { displayName: 'Lark Penhale' });
+    expect((await second.c.post(`/api/teams/${teamId}/invitations`, { email: invitee.email, asAdmin: true })).status).toBe(201);
+    return { captain, second, teamId, invitee, token: mailTo(invitee.email).token };
+  }
+
+  const onTeam = (teamId: string, userId: string) => sql(`SELECT is_captain FROM team_members WHERE team_id = $1 AND user_id = $2`, [teamId, userId]);
+
+  it('when the captain who sent it is made a plain member, then the link is withdrawn and accepting it adds no one', async () => {
+    const { captain, second, teamId, invitee, token } = await secondCaptainInvites();
+    expect((await captain.c.patch(`/api/teams/${teamId}/members/${second.user.id}`, { isCaptain: false })).status).toBe(200);
+
+    expect((await client(t.app).get(`/api/invitations/${token}`)).status).toBe(404);
+    expect((await invitee.c.post(`/api/invitations/${token}/accept`)).status).toBe(404);
+    expect(await onTeam(teamId, invitee.user.id)).toEqual([]);
+  });
+
+  it('when the captain who sent it is taken off the team, then the link is withdrawn, and the other captain\'s own invitations stand', async () => {
+    const { captain, second, teamId, invitee, token } = await secondCaptainInvites();
+    const other = await signedInClient(t, { displayName: 'Noor Fenwick' });
+    expect((await captain.c.post(`/api/teams/${teamId}/invitations`, { email: other.email })).status).toBe(201);
+    const othersToken = mailTo(other.email).token;
+    expect((await captain.c.delete(`/api/teams/${teamId}/members/${second.user.id}`)).status).toBe(204);
+
+    expect((await invitee.c.post(`/api/invitations/${token}/accept`)).status).toBe(404);
+    expect(await onTeam(teamId, invitee.user.id)).toEqual([]);
+    expect((await other.c.post(`/api/invitations/${othersToken}/accept`)).status).toBe(200);
+    expect(await onTeam(teamId, other.user.id)).toEqual([{ is_captain: false }]);
+  });
+
+  it('when the shop admin who sent it is taken off the staff, then the link is withdrawn and accepting it adds no one', async () => {
+    const { admin, shopId } = await shopWithAdmin('Bump Steer Bench');
+    const second = await signedInClient(t, { displayName: 'Cass Whitlow' });
+    await sql(`INSERT INTO shop_members (shop_id, user_id, is_shop_admin) VALUES ($1, $2, true)`, [shopId, second.user.id]);
+    const invitee = await signedInClient(t, { displayName: 'Ode Marsh' });
+    expect((await second.c.post(`/api/shops/${shopId}/invitations`, { email: invitee.email, asAdmin: true })).status).toBe(201);
+    const { token } = mailTo(invitee.email);
+    expect((await admin.c.delete(`/api/shops/${shopId}/staff/${second.user.id}`)).status).toBe(204);
+
+    expect((await invitee.c.post(`/api/invitations/${token}/accept`)).status).toBe(404);
+    expect(await sql(`SELECT 1 FROM shop_members WHERE shop_id = $1 AND user_id = $2`, [shopId, invitee.user.id])).toEqual([]);
+  });
+
+  it('when the sender lost the standing some other way and the link is still there, then accepting it is 410 naming who and what, and adds no one', async () => {
+    const { second, teamId, invitee, token } = await secondCaptainInvites();
+    // As a database from before invitations were withdrawn with the standing would hold it.
+    await sql(`UPDATE team_members SET is_captain = false WHERE team_id = $1 AND user_id = $2`, [teamId, second.user.id]);
+
+    const res = await invitee.c.post(`/api/invitations/${token}/accept`);
+    expect(res.status).toBe(410);
+    expect(res.body.error).toEqual({
+      code: 'gone',
+      message: 'This invitation no longer stands: Rafe Oduya is no longer a captain of Apex Hunters. Ask one of its captains for a new one.',
+    });
+    expect(await onTeam(teamId, invitee.user.id)).toEqual([]);
+    expect((await client(t.app).get(`/api/invitations/${token}`)).body.state).toBe('open');
+  });
+});
