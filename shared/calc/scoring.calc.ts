@@ -71,7 +71,8 @@ export function scoreRuns<T extends ScorableRun>(runs: readonly T[], conePenalty
     return {
       run,
       adjustedTimeSec: t,
-      pctOffBest: t !== null && bestTime !== null ? pctOffBest(t, bestTime) : null,
+      // A best of 0 s (a time under half a millisecond, stored before times had to be 0.001 s or more) has no % off.
+      pctOffBest: t !== null && bestTime !== null && bestTime > 0 ? pctOffBest(t, bestTime) : null,
       isBest: run === best,
     };
   });

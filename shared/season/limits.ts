@@ -11,7 +11,8 @@ export const LIMITS = {
   damperClicks: { min: 0, max: 100 },
   pressureKpa: { min: 50, max: 450 },
   cornerWeightKg: { min: 0, max: 2000 },
-  rawTimeSec: { minExclusive: 0, maxExclusive: 1800 },
+  /** Times are kept to the millisecond: anything shorter would be scored as 0 s. */
+  rawTimeSec: { min: 0.001, maxExclusive: 1800 },
   cones: { min: 0, max: 50 },
   treadMm: { min: 0, max: 20 },
   /** A middle reading may exceed the set's starting depth by at most this much (gauge tolerance). */

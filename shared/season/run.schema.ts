@@ -12,7 +12,7 @@ export type RunStatus = z.infer<typeof runStatusSchema>;
 export const rawTimeSecSchema = z
   .number({ error: 'Enter the time in seconds' })
   .check(
-    z.gt(LIMITS.rawTimeSec.minExclusive, 'The time must be above 0 s'),
+    z.gte(LIMITS.rawTimeSec.min, 'The time must be at least 0.001 s'),
     z.lt(LIMITS.rawTimeSec.maxExclusive, 'The time must be under 1800 s (30 min)'),
   );
 

@@ -156,7 +156,8 @@ export async function classBoard(ds: DataSource, user: User, teamId: string, sea
     for (const d of group) {
       const t = d.result.bestAdjustedSec;
       if (t === null) continue;
-      d.result.pctOffClassFastest = pctOffBest(t, fastest);
+      // A fastest of 0 s (see scoreRuns) has no % off it.
+      if (fastest > 0) d.result.pctOffClassFastest = pctOffBest(t, fastest);
       d.result.rankInClass = times.filter((other) => other < t).length + 1;
     }
   }

@@ -356,3 +356,17 @@ describe('the demo team\'s board', () => {
     expect(first.indexSec).toBeCloseTo(Math.round(expected * 0.842 * 1000) / 1000, 9);
   });
 });
+
+describe('a time stored before times had to be 0.001 s or more', () => {
+  it('when a car\'s best at an event rounds to 0 s, then the board still loads, that line ranks first, and nobody has a % off a fastest of 0 s', async () => {
+    const e = await event(s.ann, 'Winter test', '2024-02-04', 2);
+    await runs(s.alpha, e, s.ann, '2024-02-04', [[1e-300, 0]]);
+    await runs(s.bravo, e, s.ben, '2024-02-04', [[50, 0]]);
+
+    const res = await s.captain.c.get(`/api/teams/${s.teamId}/board?season=2024`);
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    const b = res.body as ClassBoard;
+    expect(at(entered(b, s.alpha), e, s.ann.user.id)).toMatchObject({ bestAdjustedSec: 0, pctOffClassFastest: null, rankInClass: 1 });
+    expect(at(entered(b, s.bravo), e, s.ben.user.id)).toMatchObject({ bestAdjustedSec: 50, pctOffClassFastest: null, rankInClass: 2 });
+  });
+});

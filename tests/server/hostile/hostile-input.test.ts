@@ -43,7 +43,7 @@ const FIELD = fc.constantFrom(
 const HOSTILE_TEXT = fc.constantFrom(
   '<img src=x onerror=alert(1)>', "'; DROP TABLE runs; --", '\u0000', '\uFFFF'.repeat(3), '🏁'.repeat(50), '-1e309', 'NaN', '__proto__',
 );
-const value = fc.oneof(fc.jsonValue({ maxDepth: 3 }), HOSTILE_TEXT, fc.constantFrom(-1, 0, 1e308, -0, 2 ** 53 + 1));
+const value = fc.oneof(fc.jsonValue({ maxDepth: 3 }), HOSTILE_TEXT, fc.constantFrom(-1, 0, 1e308, -0, 2 ** 53 + 1, 1e-300));
 const body = fc.oneof(
   { weight: 3, arbitrary: fc.dictionary(FIELD, value, { maxKeys: 6 }) },
   { weight: 1, arbitrary: fc.jsonValue({ maxDepth: 3 }) },

@@ -58,12 +58,27 @@ describe('POST /api/runs', () => {
     expect(off.status).toBe(201);
   });
 
-  it('when the raw time is 0, negative, 1800 s or more, then 400 on rawTimeSec and nothing is written', async () => {
+  it('when the raw time is 0, under a millisecond, negative, 1800 s or more, then 400 on rawTimeSec and nothing is written', async () => {
     const d = await driverWithCarAndEvent(t);
-    for (const rawTimeSec of [0, -1, 1800, 1800.001, '45.6']) {
+    for (const rawTimeSec of [0, 1e-300, 0.0009, -1, 1800, 1800.001, '45.6']) {
       expectFieldErrors(await post(d, { rawTimeSec }), ['rawTimeSec']);
     }
+    expect((await post(d, { rawTimeSec: 0.0009 })).body.error.fieldErrors.rawTimeSec).toEqual(['The time must be at least 0.001 s']);
     expect(await runsOf(d.carId)).toBe(0);
+  });
+
+  it('when a run under a millisecond was stored before such times were refused, then the car\'s runs and season still load, with no % off a best of 0 s', async () => {
+    const d = await driverWithCarAndEvent(t);
+    expect((await post(d, { runNumber: 1, rawTimeSec: 47.5 })).status).toBe(201);
+    expect((await post(d, { id: '0e0e0e0e-0000-4000-8000-000000000077', runNumber: 2, rawTimeSec: 48 })).status).toBe(201);
+    await t.ds.query(`UPDATE runs SET raw_time_sec = 1e-300 WHERE id = '0e0e0e0e-0000-4000-8000-000000000077'`);
+
+    const runs = await d.c.get(`/api/runs?carId=${d.carId}&eventId=${d.eventId}`);
+    expect(runs.status, JSON.stringify(runs.body)).toBe(200);
+    expect(runs.body.items.map((r: { adjustedTimeSec: number; pctOffBest: number | null; isBest: boolean }) => [r.adjustedTimeSec, r.pctOffBest, r.isBest])).toEqual(
+      expect.arrayContaining([[0, null, true], [47.5, null, false]]),
+    );
+    expect((await d.c.get(`/api/cars/${d.carId}/season`)).status).toBe(200);
   });
 
   it('when the raw time is just above 0 or just under 1800 s, then it is accepted', async () => {

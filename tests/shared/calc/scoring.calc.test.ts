@@ -80,4 +80,11 @@ describe('scoreRuns', () => {
     expect(scored[0]!.pctOffBest).toBeCloseTo(((49.678 - 48.1) / 48.1) * 100, 9);
     expect(scored[2]).toMatchObject({ isBest: false, pctOffBest: null });
   });
+
+  it('when the best time rounds to 0 s (a time under half a millisecond), then it is still the best and no run has a % off it, rather than an error', () => {
+    const scored = scoreRuns([fin(47.5), fin(1e-300)], 2);
+    expect(scored.map((s) => s.adjustedTimeSec)).toEqual([47.5, 0]);
+    expect(scored.map((s) => s.isBest)).toEqual([false, true]);
+    expect(scored.map((s) => s.pctOffBest)).toEqual([null, null]);
+  });
 });

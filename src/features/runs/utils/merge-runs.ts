@@ -147,7 +147,8 @@ export function mergeRuns({ saved, delivered = [], entries, people, conePenaltyS
     for (const s of results) scored.set(s.run.id, { adjustedTimeSec: s.adjustedTimeSec, pctOffBest: s.pctOffBest, isBest: s.isBest });
     for (const r of own.filter((x) => !counts(x))) {
       const t = adjustedTimeSec(r, conePenaltySec);
-      scored.set(r.id, { adjustedTimeSec: t, pctOffBest: t !== null && best !== null ? pctOffBest(t, best) : null, isBest: false });
+      // No best, or one of 0 s (see scoreRuns): no % off.
+      scored.set(r.id, { adjustedTimeSec: t, pctOffBest: t !== null && best ? pctOffBest(t, best) : null, isBest: false });
     }
   }
 
