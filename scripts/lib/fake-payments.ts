@@ -14,7 +14,7 @@ export interface FakeCheckoutSession {
   id: string;
   object: 'checkout.session';
   mode: string;
-  status: 'open' | 'complete';
+  status: 'open' | 'complete' | 'expired';
   payment_status: 'unpaid' | 'paid';
   amount_subtotal: number;
   amount_total: number;
@@ -231,10 +231,17 @@ export async function startFakePayments(opts: { webhookUrl?: string; host?: stri
         const created = createSession(parseFormBody(await readBody(req)));
         return typeof created === 'string' ? apiError(res, 400, created, 'parameter_invalid') : json(res, 200, created);
       }
-      const found = /^\/v1\/checkout\/sessions\/([A-Za-z0-9_]+)$/.exec(url.pathname);
-      if (method === 'GET' && found) {
-        const session = sessions.get(found[1]!);
-        return session ? json(res, 200, session) : apiError(res, 404, `No such checkout.session: '${found[1]}'`, 'resource_missing');
+      const found = /^\/v1\/checkout\/sessions\/([A-Za-z0-9_]+)(\/expire)?$/.exec(url.pathname);
+      const session = found ? sessions.get(found[1]!) : undefined;
+      if (found && !session) return apiError(res, 404, `No such checkout.session: '${found[1]}'`, 'resource_missing');
+      if (method === 'GET' && session && !found![2]) return json(res, 200, session);
+      // Closing a checkout nobody has paid: its page stops taking payment. One already paid cannot be closed.
+      if (method === 'POST' && session && found![2]) {
+        await readBody(req);
+        if (session.status !== 'open') return apiError(res, 400, `Only checkout sessions that are open can be expired; this one is ${session.status}.`);
+        session.status = 'expired';
+        session.url = null;
+        return json(res, 200, session);
       }
       return apiError(res, 404, `Unrecognized request URL (${method}: ${url.pathname}). The local fake answers only checkout sessions.`);
     }
@@ -243,6 +250,7 @@ export async function startFakePayments(opts: { webhookUrl?: string; host?: stri
     const session = pay ? sessions.get(pay[1]!) : undefined;
     if (!pay || !session) return page(res, 404, 'Not found', '<h1>No such checkout</h1>');
 
+    if (session.status === 'expired') return page(res, 410, 'Closed', '<h1>This checkout is closed</h1><p>Nothing was paid here.</p>');
     if (method === 'GET') {
       if (session.status === 'complete') {
         return page(res, 200, 'Paid', `<h1>Already paid</h1><p><a href="${escapeHtml(session.success_url ?? '/')}">Back to Scrubline</a></p>`);

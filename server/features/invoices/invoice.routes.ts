@@ -33,7 +33,7 @@ export function invoiceRoutes(ds: DataSource, payments?: PaymentSettings) {
     res.json(await startCheckout(ds, payments, currentUser(req), parsed<{ invoiceId: string }>(res, 'params').invoiceId));
   });
   router.post('/:invoiceId/mark-paid', validate({ params: idParam('invoiceId'), body: markPaidInputSchema }), async (req, res) => {
-    res.json(await markPaidInCash(ds, currentUser(req), parsed<{ invoiceId: string }>(res, 'params').invoiceId));
+    res.json(await markPaidInCash(ds, payments, currentUser(req), parsed<{ invoiceId: string }>(res, 'params').invoiceId));
   });
   return router;
 }

@@ -160,13 +160,13 @@ export async function startCheckout(
   if (invoice.status !== 'open') throw new AppError('conflict', 'This invoice is already paid.');
   if (invoice.total_cents <= 0) throw new AppError('conflict', 'There is nothing to pay on this invoice.');
 
-  try {
+  const session = await askPayments(invoiceId, async () => {
     if (invoice.checkout_session_id) {
       const previous = await payments.stripe.checkout.sessions.retrieve(invoice.checkout_session_id);
-      if (previous.status === 'open' && previous.url) return { url: previous.url };
+      if (previous.status === 'open' && previous.url) return { id: previous.id, url: previous.url, reused: true };
     }
     const back = `${payments.publicUrl}/work-orders/${workOrderId}`;
-    const session = await payments.stripe.checkout.sessions.create({
+    const made = await payments.stripe.checkout.sessions.create({
       mode: 'payment',
       line_items: [
         {
@@ -183,27 +183,61 @@ export async function startCheckout(
       success_url: `${back}?paid=1`,
       cancel_url: back,
     });
-    if (!session.url) throw new Error('The checkout session came back without a payment page address');
-    await ds.query(`UPDATE invoices SET checkout_session_id = $2 WHERE id = $1 AND status = 'open'`, [invoiceId, session.id]);
-    return { url: session.url };
+    if (!made.url) throw new Error('The checkout session came back without a payment page address');
+    return { id: made.id, url: made.url, reused: false };
+  });
+  if (session.reused) return { url: session.url };
+  const kept: { id: string }[] = await ds.query(
+    `WITH kept AS (UPDATE invoices SET checkout_session_id = $2 WHERE id = $1 AND status = 'open' RETURNING id) SELECT id FROM kept`,
+    [invoiceId, session.id],
+  );
+  if (kept[0]) return { url: session.url };
+  // Marked paid while the checkout was being made: it is closed again before anyone can pay on it.
+  await askPayments(invoiceId, () => payments.stripe.checkout.sessions.expire(session.id));
+  throw new AppError('conflict', 'This invoice is already paid.');
+}
+
+/** A call to the payment service; when it fails, a 503 that says so. */
+async function askPayments<T>(invoiceId: string, call: () => Promise<T>): Promise<T> {
+  try {
+    return await call();
   } catch (err) {
-    logger.error({ err, invoiceId }, 'starting a checkout failed');
+    logger.error({ err, invoiceId }, 'a call to the payment service failed');
     throw new AppError('unavailable', 'The payment service did not answer; try again in a minute.');
   }
 }
 
-/** The shop took cash for an open invoice. */
-export async function markPaidInCash(ds: DataSource, user: User, invoiceId: string): Promise<Invoice> {
+/**
+ * The shop took cash (or any payment outside Scrubline) for an open invoice. A card checkout the driver opened for it
+ * is closed first on the payment service, so the same invoice cannot also be paid there; one the driver has already
+ * paid is a 409, and the card payment marks the invoice paid when its event arrives. The invoice is locked meanwhile,
+ * so that event waits for this decision. When the payment service cannot be reached nothing changes (503).
+ */
+export async function markPaidInCash(ds: DataSource, payments: PaymentSettings | undefined, user: User, invoiceId: string): Promise<Invoice> {
   await assertInvoiceAccess(ds, user, invoiceId, 'mark_paid');
-  // Wrapped in a SELECT: TypeORM answers a bare UPDATE with [rows, count] rather than the rows.
-  const rows: { id: string }[] = await ds.query(
-    `WITH paid AS (
-       UPDATE invoices SET status = 'paid', paid_at = now(), paid_method = 'cash' WHERE id = $1 AND status = 'open' RETURNING id
-     ) SELECT id FROM paid`,
-    [invoiceId],
-  );
-  if (!rows[0]) throw new AppError('conflict', 'This invoice is already paid.');
+  await ds.transaction(async (m) => {
+    const rows: Pick<InvoiceRow, 'status' | 'checkout_session_id'>[] = await m.query(
+      'SELECT status, checkout_session_id FROM invoices WHERE id = $1 FOR UPDATE',
+      [invoiceId],
+    );
+    const invoice = rows[0];
+    if (!invoice) throw invoiceNotFound();
+    if (invoice.status !== 'open') throw new AppError('conflict', 'This invoice is already paid.');
+    if (invoice.checkout_session_id && payments) await closeCheckout(payments, invoiceId, invoice.checkout_session_id);
+    await m.query(`UPDATE invoices SET status = 'paid', paid_at = now(), paid_method = 'cash' WHERE id = $1`, [invoiceId]);
+  });
   return (await loadInvoice(ds, { id: invoiceId }))!;
+}
+
+/** Closes an invoice's card checkout if it is still open; refuses if it was paid. */
+async function closeCheckout(payments: PaymentSettings, invoiceId: string, sessionId: string): Promise<void> {
+  const status = await askPayments(invoiceId, async () => {
+    const found = await payments.stripe.checkout.sessions.retrieve(sessionId);
+    return found.status === 'open' ? (await payments.stripe.checkout.sessions.expire(sessionId)).status : found.status;
+  });
+  if (status === 'complete') {
+    throw new AppError('conflict', 'The driver has already paid this invoice by card; it shows as paid as soon as the payment service confirms it.');
+  }
 }
 
 export interface CardPayment {

@@ -198,6 +198,51 @@ describe('the round trip through the local fake', () => {
   });
 });
 
+describe('cash while a card checkout is open', () => {
+  const sessionOf = (url: string) => fake.sessions.get(/\/pay\/([A-Za-z0-9_]+)$/.exec(url)![1]!)!;
+
+  it('when the shop marks an invoice paid in cash while the driver\'s checkout is open, then that checkout is closed and takes no payment, and the invoice stays paid in cash', async () => {
+    const g = await openInvoice();
+    const url = (await g.driver.c.post(`/api/invoices/${g.invoice.id}/checkout`)).body.url as string;
+    const sent = fake.deliveries.length;
+
+    const cash = await g.staff.c.post(`/api/invoices/${g.invoice.id}/mark-paid`, { method: 'cash' });
+    expect(cash.status, JSON.stringify(cash.body)).toBe(200);
+    expect(cash.body).toMatchObject({ status: 'paid', paidMethod: 'cash' });
+    expect(sessionOf(url).status).toBe('expired');
+
+    const late = await fetch(url, { method: 'POST', redirect: 'manual' });
+    expect(late.status).toBe(410);
+    expect(fake.deliveries).toHaveLength(sent);
+    expect(sessionOf(url).payment_status).toBe('unpaid');
+    expect((await invoiceRow(g.invoice.id)).paid_method).toBe('cash');
+    // And no new checkout is opened for it.
+    expect((await g.driver.c.post(`/api/invoices/${g.invoice.id}/checkout`)).status).toBe(409);
+  });
+
+  it('when the driver has paid by card and the payment\'s event has not arrived yet, then cash is refused with 409 and the card payment marks it paid when the event comes', async () => {
+    const g = await openInvoice();
+    const url = (await g.driver.c.post(`/api/invoices/${g.invoice.id}/checkout`)).body.url as string;
+    const webhook = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/payments/webhook`;
+    fake.setWebhookUrl('http://127.0.0.1:9/api/payments/webhook');
+    try {
+      expect((await fetch(url, { method: 'POST', redirect: 'manual' })).status).toBe(303);
+    } finally {
+      fake.setWebhookUrl(webhook);
+    }
+    expect(fake.deliveries.at(-1)!.status).toBe(0);
+
+    const cash = await g.staff.c.post(`/api/invoices/${g.invoice.id}/mark-paid`, { method: 'cash' });
+    expect(cash.status).toBe(409);
+    expect(cash.body.error.message).toBe('The driver has already paid this invoice by card; it shows as paid as soon as the payment service confirms it.');
+    expect((await invoiceRow(g.invoice.id)).status).toBe('open');
+
+    const payload = JSON.stringify(completedEvent(g.invoice, { id: sessionOf(url).id }));
+    expect((await postEvent(payload, sign(payload))).status).toBe(200);
+    expect(await invoiceRow(g.invoice.id)).toMatchObject({ status: 'paid', paid_method: 'card' });
+  });
+});
+
 describe('payment configuration', () => {
   const BASE = { DATABASE_URL: 'postgres://x@127.0.0.1/x', SESSION_SECRET: 's'.repeat(32) };
   const PROD = { ...BASE, NODE_ENV: 'production', SMTP_URL: 'smtp://u:p@mail.example.org:587', PUBLIC_URL: 'https://scrubline.example.org' };
