@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
+import { Link, Navigate, useLocation, useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { ChartScatter, FileUp, Plus, Ruler } from 'lucide-react';
 import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
@@ -15,6 +15,7 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useCar } from '@/features/cars/api/get-car';
 import { CarHeader } from '@/features/cars/components/car-header';
 import { CoDrivers } from '@/features/cars/components/co-drivers';
+import { drivesCar } from '@/features/cars/utils/car-page-path';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupTimeline } from '@/features/setups/components/setup-timeline';
 import { mergePendingSetups } from '@/features/setups/utils/setup-views';
@@ -119,6 +120,10 @@ export function CarPage() {
   const { carId = '' } = useParams();
   const { data: car, isPending, isError, error } = useCar(carId);
   const { data: me } = useMe();
+  const location = useLocation();
+  // Shop staff reading a customer's car (a link to a setup, a comment, an old address) get the shop's page of it,
+  // where nothing offers them a driver's change they may not make; the thread or setup asked for comes with it.
+  if (car && me && !drivesCar(car, me.id)) return <Navigate to={`${recordPath.shopCustomer(carId)}${location.search}${location.hash}`} replace />;
   // A car that is gone or not shared with this account: one clear message, not a page of empty sections.
   if (!car && isApiError(error) && (error.status === 404 || error.status === 403)) {
     return (

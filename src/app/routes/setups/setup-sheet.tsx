@@ -1,11 +1,12 @@
 import { Link, useParams } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { ArrowLeft, Printer } from 'lucide-react';
-import { pathTo } from '@/config/paths';
 import { Button } from '@/components/ui/button';
 import { PageMessage } from '@/components/ui/page-message';
 import { isApiError } from '@/lib/api-client';
+import { useMe } from '@/features/auth/api/get-me';
 import { carQueryOptions } from '@/features/cars/api/get-car';
+import { carPagePath } from '@/features/cars/utils/car-page-path';
 import { useSetupForSheet } from '@/features/exports/api/get-setup-for-sheet';
 import { SetupSheet } from '@/features/exports/components/setup-sheet';
 
@@ -15,6 +16,7 @@ export function SetupSheetPage() {
   const setup = useSetupForSheet(setupId);
   const carId = setup.data?.carId ?? '';
   const car = useQuery({ ...carQueryOptions(carId), enabled: carId !== '' });
+  const { data: me } = useMe();
 
   if (setup.isError || car.isError) {
     const missing = [setup.error, car.error].some((e) => isApiError(e) && e.status === 404);
@@ -24,13 +26,13 @@ export function SetupSheetPage() {
       </PageMessage>
     );
   }
-  if (!setup.data || !car.data) return <p className="text-ink-muted">Loading the setup…</p>;
+  if (!setup.data || !car.data || !me) return <p className="text-ink-muted">Loading the setup…</p>;
 
   return (
     <div className="setup-sheet mx-auto flex w-full max-w-3xl flex-col gap-4 print:max-w-none">
       <title>{`${setup.data.label} · ${car.data.name} · Scrubline`}</title>
       <div className="flex flex-wrap items-center gap-3 print:hidden">
-        <Link to={`${pathTo.car(carId)}#setup-${setupId}`} className="inline-flex min-h-tap items-center gap-1 font-semibold text-link">
+        <Link to={`${carPagePath(car.data, me.id)}#setup-${setupId}`} className="inline-flex min-h-tap items-center gap-1 font-semibold text-link">
           <ArrowLeft aria-hidden="true" className="size-5" /> {car.data.name}
         </Link>
         <Button variant="primary" onClick={() => window.print()}>

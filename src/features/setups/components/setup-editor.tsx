@@ -100,7 +100,8 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
         focus = false;
       } else leftOver.push(messages.join(' '));
     }
-    setFormError(leftOver.length ? leftOver.join(' ') : refusal.fieldErrors ? 'The server refused some values; they are marked above.' : refusal.message);
+    // `focus` is spent once a message went on an input; a refusal with none there (a 403) says its own reason.
+    setFormError(leftOver.length ? leftOver.join(' ') : !focus ? 'The server refused some values; they are marked above.' : refusal.message);
   }, [refusal, setError]);
 
   const uploaded = watched.status === 'delivered';

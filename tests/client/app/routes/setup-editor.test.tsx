@@ -86,6 +86,19 @@ describe('setup editor', () => {
     expect(screen.getByRole('button', { name: 'Fix and send again' })).toBeTruthy();
   });
 
+  it('when the server refuses the setup as a whole (403), then its own reason shows, not a pointer to marked fields that are not there', async () => {
+    stub(errorResponse(403, 'forbidden', 'Only the car’s drivers can record its setups.'));
+    renderApp(`/cars/${IDS.car}/setups/new`);
+    const u = userEvent.setup();
+
+    await screen.findByLabelText('Left front camber');
+    await u.type(screen.getByLabelText('Label'), 'From the shop');
+    await u.click(screen.getByRole('button', { name: 'Save as new setup' }));
+
+    expect(await screen.findByText('Only the car’s drivers can record its setups.')).toBeTruthy();
+    expect(screen.queryByText(/marked above/)).toBeNull();
+  });
+
   it('when a value is out of range in the user’s unit, then the form says so in that unit and sends nothing', async () => {
     const fetchMock = stub(jsonResponse(201, BASE_SETUP));
     renderApp(`/cars/${IDS.car}/setups/new`);
