@@ -3,14 +3,14 @@ import { screen, waitFor } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 import { jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
-import { BASE_SETUP, CAR, IDS, list, user } from '../../fixtures/season';
+import { BASE_SETUP, CAR, IDS, list, user, type SignedInUser } from '../../fixtures/season';
 
 setUpAppTests([() => import('@/app/routes/cars/car'), () => import('@/app/routes/setups/setup-sheet')]);
 
 /** Staff of a shop the car was shared with: they may read it, but not drive it. */
 const STAFF = { ...user(METRIC_PREFERENCES), id: '5a5a5a5a-0000-4000-8000-00000000005a', email: 'bench@example.test', displayName: 'Bench Hand', roles: ['driver', 'shop_staff'] };
 
-function stub(me: ReturnType<typeof user>) {
+function stub(me: SignedInUser) {
   return stubFetch({
     'GET /api/auth/me': jsonResponse(200, { user: me }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
