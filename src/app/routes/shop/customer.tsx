@@ -20,7 +20,7 @@ import { STATUS_WORDS } from '@/features/runs/utils/run-words';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupTimeline } from '@/features/setups/components/setup-timeline';
 import { SuggestionList } from '@/features/suggestions/components/suggestion-list';
-import { OpenWorkOrderForm } from '@/features/work-orders/components/work-order-lists';
+import { CarVisits, OpenWorkOrderForm } from '@/features/work-orders/components/work-order-lists';
 
 type SeasonEventRow = SeasonResult['events'][number];
 
@@ -183,6 +183,11 @@ export function CustomerPage() {
           <SectionBoundary title="Open a work order">
             <SectionCard title="Open a work order">
               <OpenWorkOrderForm carId={carId} />
+            </SectionCard>
+          </SectionBoundary>
+          <SectionBoundary title="Visits">
+            <SectionCard title="Visits">
+              <CarVisits carId={carId} />
             </SectionCard>
           </SectionBoundary>
           <SectionBoundary title="Suggestions">

@@ -90,6 +90,11 @@ export function ShopPage() {
             <CustomerList shopId={shop.id} />
           </SectionCard>
         </SectionBoundary>
+        <SectionBoundary title="Closed visits">
+          <SectionCard title="Closed visits">
+            <ShopBoard shopId={shop.id} status="closed" />
+          </SectionCard>
+        </SectionBoundary>
         <SectionBoundary title="Staff">
           <SectionCard title="Staff">
             <StaffCard shopId={shop.id} currentUserId={me.id} />

@@ -10,6 +10,7 @@ import { formatDay, todayIsoDate } from '@/lib/dates';
 import { useCreateWorkOrder } from '../api/create-work-order';
 import { useCarWorkOrders } from '../api/get-car-work-orders';
 import { useShopWorkOrders } from '../api/get-shop-work-orders';
+import type { WorkOrderStatus } from '@shared/service/work-order.schema';
 
 const STATUS_WORDS = { open: 'Open', closed: 'Closed' } as const;
 
@@ -21,7 +22,8 @@ export function CarVisits({ carId }: { carId: string }) {
   if (data.items.length === 0) return <EmptyState message="No shop visits yet." />;
   return (
     <ol className="flex flex-col gap-2" aria-label="Shop visits">
-      {data.items.map((visit) => (
+      {/* The server lists them oldest first; the latest visit is the one asked about. */}
+      {[...data.items].reverse().map((visit) => (
         <li key={visit.id} className="flex flex-col gap-1 rounded border border-line p-3">
           <Link to={recordPath.workOrder(visit.id)} className="font-bold break-words text-link">
             {visit.shop.name} · {formatDay(visit.visitDate)}
@@ -45,24 +47,50 @@ export function CarVisits({ carId }: { carId: string }) {
   );
 }
 
-/** The shop's open work orders. */
-export function ShopBoard({ shopId }: { shopId: string }) {
-  const { data, isPending, isError } = useShopWorkOrders(shopId, 'open');
-  if (isPending) return <p className="text-ink-muted">Loading open work orders…</p>;
-  if (isError) return <p className="text-ink-muted">The open work orders could not be loaded. Try again shortly.</p>;
-  if (data.items.length === 0) return <EmptyState message="No open work orders. Open one from a customer’s car." />;
+const BOARD_WORDS = {
+  open: { list: 'Open work orders', loading: 'Loading open work orders…', failed: 'The open work orders could not be loaded. Try again shortly.', none: 'No open work orders. Open one from a customer’s car.' },
+  closed: { list: 'Closed visits', loading: 'Loading closed visits…', failed: 'The closed visits could not be loaded. Try again shortly.', none: 'No closed visits yet. A work order shows here once it is handed over.' },
+} as const;
+
+/** How many closed visits show before "Show all": the latest, which are the ones asked about. */
+export const CLOSED_SHOWN = 8;
+
+/**
+ * The shop's work orders, newest visit first: the open ones it is working on, or the closed ones, whose build sheets
+ * and invoices stay a tap away. Each is one finger-sized card.
+ */
+export function ShopBoard({ shopId, status = 'open' }: { shopId: string; status?: WorkOrderStatus }) {
+  const { data, isPending, isError } = useShopWorkOrders(shopId, status);
+  const [all, setAll] = useState(false);
+  const words = BOARD_WORDS[status];
+  if (isPending) return <p className="text-ink-muted">{words.loading}</p>;
+  if (isError) return <p className="text-ink-muted">{words.failed}</p>;
+  if (data.items.length === 0) return <EmptyState message={words.none} />;
+  const shown = status === 'closed' && !all ? data.items.slice(0, CLOSED_SHOWN) : data.items;
   return (
-    <ol className="flex flex-col gap-2" aria-label="Open work orders">
-      {data.items.map((row) => (
-        <li key={row.id} className="flex flex-col gap-1 rounded border border-line p-3">
-          <Link to={recordPath.workOrder(row.id)} className="font-bold break-words text-link">
-            {row.car.name} · {formatDay(row.visitDate)}
-          </Link>
-          <p className="text-sm text-ink-muted">{row.owner.displayName}</p>
-          <p className="text-sm break-words">{row.requestedWork}</p>
-        </li>
-      ))}
-    </ol>
+    <div className="flex flex-col gap-2">
+      <ol className="flex flex-col gap-2" aria-label={words.list}>
+        {shown.map((row) => (
+          <li key={row.id}>
+            <Link to={recordPath.workOrder(row.id)} className="flex min-h-tap-lg flex-col gap-1 rounded border border-line p-3 hover:bg-surface-raised">
+              <span className="font-bold break-words text-link">
+                {row.car.name} · {formatDay(row.visitDate)}
+              </span>
+              <span className="text-sm text-ink-muted">
+                {row.owner.displayName}
+                {row.handoverAt ? ` · handed over ${formatDay(row.handoverAt)}` : ''}
+              </span>
+              <span className="text-sm break-words">{row.requestedWork}</span>
+            </Link>
+          </li>
+        ))}
+      </ol>
+      {shown.length < data.items.length ? (
+        <Button variant="quiet" className="self-start" onClick={() => setAll(true)}>
+          Show all {data.items.length} closed visits
+        </Button>
+      ) : null}
+    </div>
   );
 }
 

@@ -6,6 +6,7 @@ import type { CarWorkOrderSummary, ShopWorkOrderRow } from '../../../../shared/s
 import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { stubCarPage } from '../../fixtures/car-page';
 import { CAR, IDS, list, UUID } from '../../fixtures/season';
+import { formatDay } from '@/lib/dates';
 import { COLLAB_IDS, SHOP, SHOP_NAME, staffUser } from '../../fixtures/collab';
 import { SERVICE_IDS, workOrder } from './service-fixtures';
 
@@ -60,6 +61,63 @@ describe('the shop’s board', () => {
     const board = await screen.findByRole('list', { name: 'Open work orders' });
     expect(within(board).getByRole('link', { name: /Grey roadster/ }).getAttribute('href')).toBe(`/work-orders/${SERVICE_IDS.workOrder}`);
     expect(within(board).getByText('Maren Holt')).toBeTruthy();
+  });
+});
+
+describe('finding a visit again once it is closed', () => {
+  const closedRow = (n: number): ShopWorkOrderRow => ({
+    id: `0c0c0c0c-0000-4000-8000-${String(n).padStart(12, '0')}`,
+    car: { id: IDS.car, name: CAR.name },
+    owner: { id: IDS.maren, displayName: 'Maren Holt' },
+    visitDate: `2026-05-${String(30 - n).padStart(2, '0')}`,
+    requestedWork: `Visit ${n}`,
+    status: 'closed',
+    handoverAt: `2026-05-${String(30 - n).padStart(2, '0')}T16:00:00.000Z`,
+  });
+
+  it('when the shop has closed visits, then its page lists the latest eight, newest first, each one card-sized link with its handover day, and shows the rest on request', async () => {
+    const rows = Array.from({ length: 10 }, (_, i) => closedRow(i + 1));
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      'GET /api/shops/mine': list([{ id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 }]),
+      [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
+      [`GET /api/shops/${COLLAB_IDS.shop}/customers`]: list([]),
+      [`GET /api/shops/${COLLAB_IDS.shop}/work-orders?status=open`]: list([]),
+      [`GET /api/shops/${COLLAB_IDS.shop}/work-orders?status=closed`]: list(rows),
+    });
+    renderApp('/shop');
+    const u = userEvent.setup();
+
+    const closed = await screen.findByRole('list', { name: 'Closed visits' });
+    const links = within(closed).getAllByRole('link');
+    expect(links.map((l) => l.getAttribute('href'))).toEqual(rows.slice(0, 8).map((r) => `/work-orders/${r.id}`));
+    // The whole card is the link, with the day it was handed over.
+    expect(links[0]!.textContent).toContain('Visit 1');
+    expect(links[0]!.textContent).toContain(`handed over ${formatDay(rows[0]!.handoverAt!)}`);
+    expect(screen.getByText('No open work orders. Open one from a customer’s car.')).toBeTruthy();
+
+    await u.click(screen.getByRole('button', { name: 'Show all 10 closed visits' }));
+    expect(within(closed).getAllByRole('link')).toHaveLength(10);
+    expect(screen.queryByRole('button', { name: /Show all/ })).toBeNull();
+  });
+
+  it('when staff open a customer\'s car, then its visits to the shop are listed, newest first, each linking to its work order', async () => {
+    const older: CarWorkOrderSummary = { ...VISIT, id: '0c0c0c0c-0000-4000-8000-0000000000aa', visitDate: '2026-03-02', requestedWork: 'Coilovers fitted', setupId: null };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+      [`GET /api/cars/${IDS.car}/setups`]: list([]),
+      [`GET /api/cars/${IDS.car}/season?minDepthMm=1.6`]: jsonResponse(200, { carId: IDS.car, events: [], setupChanges: [], changeLog: [], tyreLife: [] }),
+      [`GET /api/cars/${IDS.car}/suggestions`]: list([]),
+      [`GET /api/cars/${IDS.car}/work-orders`]: list([older, VISIT]),
+      'GET /api/shops/mine': list([{ id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 }]),
+    });
+    renderApp(`/shop/customers/${IDS.car}`);
+
+    const visits = await screen.findByRole('list', { name: 'Shop visits' });
+    const items = within(visits).getAllByRole('listitem');
+    expect(items.map((li) => within(li).getByText(/Four-wheel|Coilovers/).textContent)).toEqual(['Four-wheel alignment and corner weights', 'Coilovers fitted']);
+    expect(within(items[1]!).getByRole('link', { name: new RegExp(SHOP_NAME) }).getAttribute('href')).toBe(`/work-orders/${older.id}`);
   });
 });
 
