@@ -59,8 +59,9 @@ function EventRuns({ carId, event, threadId }: { carId: string; event: SeasonEve
                   Raw {run.rawTimeSec === null ? '—' : formatRunTime(run.rawTimeSec)}
                   {run.cones ? ` +${run.cones} cone${run.cones === 1 ? '' : 's'}` : ''}
                 </span>
+                {/* Labelled as on the driver's run list: the raw time, then the one that counts, cones added. */}
                 <span className="font-bold">
-                  {run.status === 'finished' && run.adjustedTimeSec !== null ? formatRunTime(run.adjustedTimeSec) : STATUS_WORDS[run.status]}
+                  {run.status === 'finished' && run.adjustedTimeSec !== null ? `Adjusted ${formatRunTime(run.adjustedTimeSec)}` : STATUS_WORDS[run.status]}
                 </span>
                 {run.isBest ? <span className="text-sm font-bold">Best</span> : null}
               </p>

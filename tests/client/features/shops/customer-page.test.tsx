@@ -70,6 +70,9 @@ describe('a customer’s car, for the shop', () => {
     expect(first!.textContent).toContain('Setup: Spring baseline');
     expect(second!.textContent).toContain('+1 cone');
     expect(second!.textContent).toContain('48.100');
+    // Each time says which it is, as on the driver's list.
+    expect(within(first!).getByText('Adjusted 45.500')).toBeTruthy();
+    expect(within(second!).getByText('Adjusted 48.100')).toBeTruthy();
     expect(screen.getByRole('button', { name: `Comments on the day at ${EVENT.name}` })).toBeTruthy();
 
     await u.click(within(first!).getByRole('button', { name: 'Comments (1) on run 1' }));
