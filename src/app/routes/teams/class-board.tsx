@@ -12,11 +12,11 @@ export function ClassBoardPage() {
   const { teamId = '' } = useParams();
   const [params, setParams] = useSearchParams();
   const asked = parseSeason(params.get('season'));
-  const { data: board, isPending, isPlaceholderData, error } = useBoard(teamId, asked);
+  const { data: board, isPending, isPlaceholderData, error, refetch } = useBoard(teamId, asked);
   const season = asked ?? board?.season ?? currentSeason();
 
   if (isPending) return <p className="text-ink-muted">Loading the class board…</p>;
-  if (!board) return <TeamUnavailable error={error} failedTitle="The class board did not load" />;
+  if (!board) return <TeamUnavailable error={error} failedTitle="The class board did not load" onRetry={() => void refetch()} />;
 
   return (
     <div className="flex min-w-0 flex-col gap-6">

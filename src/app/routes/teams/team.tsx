@@ -33,11 +33,11 @@ export function TeamPage() {
   const { teamId = '' } = useParams();
   const navigate = useNavigate();
   const { data: me } = useMe();
-  const { data: team, isPending, error } = useTeam(teamId);
+  const { data: team, isPending, error, refetch } = useTeam(teamId);
 
   if (!me) return null;
   if (isPending) return <p className="text-ink-muted">Loading the team…</p>;
-  if (!team) return <TeamUnavailable error={error} failedTitle="The team did not load" />;
+  if (!team) return <TeamUnavailable error={error} failedTitle="The team did not load" onRetry={() => void refetch()} />;
 
   const entryClasses = [...new Set(team.entries.map((e) => e.classCode))];
   return (

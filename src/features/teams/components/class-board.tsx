@@ -180,7 +180,7 @@ export function ClassBoardView({ board }: { board: ClassBoard }) {
             </p>
           </div>
           {group.factor === null ? (
-            <p className="text-sm text-ink-muted">Index times show — until a captain enters this class’s factor on the team page.</p>
+            <p className="text-sm text-ink-muted">No index times for this class yet: a captain enters its factor on the team page.</p>
           ) : null}
           {group.cars.map((car) => (
             <BoardCarCard key={car.car.id} car={car} hasFactor={group.factor !== null} />

@@ -107,3 +107,36 @@ describe('class board', () => {
     await waitFor(() => expect(router.state.location.search).toBe('?season=2027'));
   });
 });
+
+describe('a class board that does not come', () => {
+  it('when it fails to load, then "Try again" asks for it again and the board shows once it comes; a factor missing says what to do in words', async () => {
+    let down = true;
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: () =>
+        down ? jsonResponse(503, { error: { code: 'unavailable', message: 'Scrubline cannot reach its database just now.' } }) : jsonResponse(200, BOARD),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+    const u = userEvent.setup();
+
+    expect(await screen.findByRole('heading', { name: 'The class board did not load' })).toBeTruthy();
+    const before = requestsTo(fetchMock, `GET ${BOARD_API}?season=2026`).length;
+    down = false;
+    await u.click(screen.getByRole('button', { name: 'Try again' }));
+    await screen.findByRole('heading', { level: 1, name: 'Class board' });
+    expect(requestsTo(fetchMock, `GET ${BOARD_API}?season=2026`).length).toBeGreaterThan(before);
+    expect(within(classSection('SM')).getByText('No index times for this class yet: a captain enters its factor on the team page.')).toBeTruthy();
+  });
+
+  it('when the team is not one of the user\'s, then no "Try again" is offered, only the way back', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(404, { error: { code: 'not_found', message: 'That team was not found.' } }),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    expect(await screen.findByRole('heading', { name: 'Team not found' })).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Try again' })).toBeNull();
+    expect(screen.getByRole('link', { name: 'Your teams' })).toBeTruthy();
+  });
+});
