@@ -18,7 +18,7 @@ import { UnitInput } from '@/components/ui/unit-input';
 import { inputToSi, parseDecimal, toInputText, typeANumber, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { usePutBuildSheet } from '../api/edit-work-order';
-import { splitErrors } from '../utils/field-errors';
+import { attentionMessage, splitErrors, useShowRefused } from '../utils/field-errors';
 
 type FieldKind = { kind: 'quantity'; quantity: Quantity } | { kind: 'clicks' } | { kind: 'text'; max: number };
 
@@ -225,6 +225,7 @@ export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
   const save = usePutBuildSheet(workOrder.id);
   const server = splitErrors(save.error);
   const errorOf = (c: Corner, f: BuildSheetField) => localErrors[`corners.${c}.${f}`] ?? server.fields[`corners.${c}.${f}`];
+  const { formRef, refused } = useShowRefused();
 
   const submit = () => {
     const errors: Record<string, string> = {};
@@ -251,6 +252,7 @@ export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
     const first = CORNERS.find((c) => BUILD_SHEET_FIELDS.some((f) => errors[`corners.${c}.${f}`]));
     if (first) {
       setCorner(first);
+      refused();
       return;
     }
     save.mutate(
@@ -258,9 +260,10 @@ export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
       {
         // The server refused a value: turn to the first corner it names, which may not be the one on screen.
         onError: (error) => {
-          const refused = splitErrors(error).fields;
-          const at = CORNERS.find((c) => BUILD_SHEET_FIELDS.some((f) => refused[`corners.${c}.${f}`]));
+          const marked = splitErrors(error).fields;
+          const at = CORNERS.find((c) => BUILD_SHEET_FIELDS.some((f) => marked[`corners.${c}.${f}`]));
           if (at) setCorner(at);
+          refused();
         },
       },
     );
@@ -270,6 +273,7 @@ export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
     <div className="flex flex-col gap-3">
       <BuildSheetView workOrder={workOrder} />
       <form
+        ref={formRef}
         aria-label="Edit the build sheet"
         className="flex flex-col gap-3 print:hidden"
         onSubmit={(e) => {
@@ -283,7 +287,8 @@ export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
           value={corner}
           onChange={setCorner}
         />
-        <fieldset className="grid grid-cols-2 gap-2" aria-label={CORNER_NAMES[corner]}>
+        {/* Boxes on one line line up at the bottom, even when one label wraps and its neighbour's does not. */}
+        <fieldset className="grid grid-cols-2 items-end gap-2" aria-label={CORNER_NAMES[corner]}>
           <legend className="col-span-2 font-bold">{CORNER_NAMES[corner]}</legend>
           {BUILD_SHEET_FIELDS.map((f) => {
             const info = FIELD_INFO[f];
@@ -306,7 +311,7 @@ export function BuildSheetEditor({ workOrder }: { workOrder: WorkOrder }) {
             );
           })}
         </fieldset>
-        <FormAlert message={server.form} />
+        <FormAlert message={attentionMessage(server.form, Object.keys({ ...server.fields, ...localErrors }).length)} />
         <Button type="submit" isPending={save.isPending} pendingLabel="Saving…" className="self-start">
           Save the build sheet
         </Button>

@@ -9,7 +9,7 @@ import { UnitInput } from '@/components/ui/unit-input';
 import { formatDelta, inputToSi, parseDecimal, toInputText, typeANumber, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { usePutMeasurements } from '../api/edit-work-order';
-import { splitErrors } from '../utils/field-errors';
+import { attentionMessage, splitErrors, useShowRefused } from '../utils/field-errors';
 import { MEASUREMENT_INFO, STAGE_WORDS } from '../utils/measurement-fields';
 
 function Balance({ stage }: { stage: WorkOrderStage }) {
@@ -102,6 +102,7 @@ export function MeasurementsForm({ workOrder, stage }: { workOrder: WorkOrder; s
   const save = usePutMeasurements(workOrder.id, stage);
   const server = splitErrors(save.error);
   const errorOf = (key: string) => localErrors[key] ?? server.fields[key];
+  const { formRef, refused } = useShowRefused();
 
   const submit = () => {
     const errors: Record<string, string> = {};
@@ -122,18 +123,25 @@ export function MeasurementsForm({ workOrder, stage }: { workOrder: WorkOrder; s
     const fuelParsed = parseDecimal(fuel);
     if (fuelParsed.kind === 'invalid') errors.fuelLevelPct = typeANumber();
     setLocalErrors(errors);
-    if (Object.keys(errors).length > 0) return;
-    save.mutate({
-      driverInCar,
-      driverWeightKg: weight === 'invalid' ? null : weight,
-      fuelLevelPct: fuelParsed.kind === 'number' ? fuelParsed.value : null,
-      corners,
-    });
+    if (Object.keys(errors).length > 0) {
+      refused();
+      return;
+    }
+    save.mutate(
+      {
+        driverInCar,
+        driverWeightKg: weight === 'invalid' ? null : weight,
+        fuelLevelPct: fuelParsed.kind === 'number' ? fuelParsed.value : null,
+        corners,
+      },
+      { onError: refused },
+    );
   };
 
   const words = STAGE_WORDS[stage];
   return (
     <form
+      ref={formRef}
       aria-label={`${words} measurements`}
       className="flex flex-col gap-3"
       onSubmit={(e) => {
@@ -180,7 +188,7 @@ export function MeasurementsForm({ workOrder, stage }: { workOrder: WorkOrder; s
         />
         <UnitInput label="Fuel level" unit="%" value={fuel} error={errorOf('fuelLevelPct')} onChange={(e) => setFuel(e.target.value)} />
       </div>
-      <FormAlert message={server.form} />
+      <FormAlert message={attentionMessage(server.form, Object.keys({ ...server.fields, ...localErrors }).length)} />
       <Button type="submit" isPending={save.isPending} pendingLabel="Saving…" className="self-start">
         Save {words.toLowerCase()} measurements
       </Button>

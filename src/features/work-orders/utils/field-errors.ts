@@ -1,4 +1,6 @@
+import { useEffect, useRef, useState } from 'react';
 import { isApiError } from '@/lib/api-client';
+import { showFirstRefused } from '@/lib/show-first-refused';
 
 const FALLBACK = 'Something went wrong. Nothing you typed was lost; try again.';
 
@@ -8,4 +10,24 @@ export function splitErrors(error: unknown): { fields: Record<string, string>; f
   if (!isApiError(error)) return { fields: {}, form: FALLBACK };
   const fields = Object.fromEntries(Object.entries(error.fieldErrors).map(([k, v]) => [k, v.join(' ')]));
   return { fields, form: error.hasFieldErrors ? null : error.message || FALLBACK };
+}
+
+/** What to say by the Save button: the form's own message, or, when fields are marked, how many and where. */
+export function attentionMessage(form: string | null, fields: number): string | null {
+  if (form) return form;
+  if (fields === 0) return null;
+  return fields === 1 ? 'One value needs attention; it is marked above.' : `${fields} values need attention; they are marked above.`;
+}
+
+/**
+ * A form whose marked fields may sit far above its Save button (a corner grid on a phone): `refused()` brings the
+ * first one into view and gives it the focus, once the marks are drawn.
+ */
+export function useShowRefused() {
+  const formRef = useRef<HTMLFormElement>(null);
+  const [times, setTimes] = useState(0);
+  useEffect(() => {
+    if (times > 0) showFirstRefused(formRef.current);
+  }, [times]);
+  return { formRef, refused: () => setTimes((n) => n + 1) };
 }

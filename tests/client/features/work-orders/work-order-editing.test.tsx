@@ -157,6 +157,9 @@ describe('the build sheet editor', () => {
     const rr = await waitFor(() => cornerFields(form, 'Right rear'));
     await waitFor(() => expect(rr.getByLabelText('Stroke').getAttribute('aria-invalid')).toBe('true'));
     expect(rr.getByText(message)).toBeTruthy();
+    // The refused field takes the focus, and the Save button says there is something above to fix.
+    await waitFor(() => expect(document.activeElement).toBe(rr.getByLabelText('Stroke')));
+    expect(within(form).getByRole('alert').textContent).toBe('One value needs attention; it is marked above.');
   });
 });
 
@@ -191,6 +194,44 @@ describe('the measurement forms', () => {
     expect((within(afterLfNow).getByLabelText('Camber') as HTMLInputElement).value).toBe('-2.1');
     expect((within(afterNow).getByLabelText('Fuel level') as HTMLInputElement).value).toBe('40');
     expect(requestsTo(fetchMock, `PUT ${WO}/measurements/after`)).toHaveLength(0);
+  });
+});
+
+describe('a measurement the form or the server refuses', () => {
+  it('when the server refuses a ride height, then by the Save button the form says how many values need attention, and the first refused one takes the focus', async () => {
+    const PUT_BEFORE = `PUT ${WO}/measurements/before`;
+    stubStaff(METRIC_PREFERENCES, {
+      [PUT_BEFORE]: errorResponse(400, 'validation_failed', 'Some fields need attention.', {
+        'corners.lf.rideHeightMm': ['Ride height must be between 0 and 1000 mm'],
+        'corners.rr.rideHeightMm': ['Ride height must be between 0 and 1000 mm'],
+      }),
+    });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    const before = await screen.findByRole('form', { name: 'Before measurements' });
+    const corner = (name: string) => within(within(before).getByRole('group', { name: 'Before: per corner' })).getByRole('group', { name });
+    await u.type(within(corner('Left front')).getByLabelText('Ride height'), '9999');
+    await u.type(within(corner('Right rear')).getByLabelText('Ride height'), '9999');
+    await u.click(within(before).getByRole('button', { name: 'Save before measurements' }));
+
+    const lf = within(corner('Left front')).getByLabelText('Ride height');
+    await waitFor(() => expect(document.activeElement).toBe(lf));
+    expect(lf.getAttribute('aria-invalid')).toBe('true');
+    expect(within(before).getByRole('alert').textContent).toBe('2 values need attention; they are marked above.');
+  });
+
+  it('when a value is not a number, then nothing is sent, the field takes the focus and the Save button says so', async () => {
+    const PUT_BEFORE = `PUT ${WO}/measurements/before`;
+    const fetchMock = stubStaff(METRIC_PREFERENCES, { [PUT_BEFORE]: jsonResponse(200, workOrder({ version: 2 })) });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    const before = await screen.findByRole('form', { name: 'Before measurements' });
+    await u.type(within(before).getByLabelText('Fuel level'), 'half');
+    await u.click(within(before).getByRole('button', { name: 'Save before measurements' }));
+
+    await waitFor(() => expect(document.activeElement).toBe(within(before).getByLabelText('Fuel level')));
+    expect(within(before).getByRole('alert').textContent).toBe('One value needs attention; it is marked above.');
+    expect(requestsTo(fetchMock, PUT_BEFORE)).toHaveLength(0);
   });
 });
 
