@@ -160,7 +160,8 @@ describe.each(['phone', 'desktop'] as const)('a service visit, staff then driver
     await screenshot(page, `service-${size}-measured`);
 
     const close = page.getByRole('form', { name: 'Close and hand over' });
-    await close.getByRole('button', { name: 'Close and hand over' }).click();
+    await close.getByRole('button', { name: 'Close and hand over…' }).click();
+    await close.getByRole('button', { name: 'Yes, close and hand over' }).click();
     await page.getByLabel('Status').getByText(/^Closed — handed over/).waitFor({ timeout: 15_000 });
     // Nothing is editable any more.
     expect(await page.getByRole('form', { name: 'After measurements' }).count()).toBe(0);

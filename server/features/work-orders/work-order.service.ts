@@ -2,6 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import type { CreateSetupInput, SetupCorner } from '@shared/season/setup.schema';
+import { handoverLabel } from '@shared/service/handover-label';
 import {
   BUILD_SHEET_FIELDS, MEASUREMENT_FIELDS,
   type BuildSheetCorner, type BuildSheetInput, type CarWorkOrderSummary, type CloseWorkOrderInput, type CreateWorkOrderInput,
@@ -373,7 +374,7 @@ export async function closeWorkOrder(
       );
     });
     const snapshot: CreateSetupInput = {
-      label: input.label ?? trimTo(`${w.shop_name}: ${w.requested_work.replace(/\s+/g, ' ')}`, 80),
+      label: input.label ?? handoverLabel(w.shop_name, w.requested_work),
       effectiveFrom: handoverAt.toISOString(),
       corners,
       axles: {

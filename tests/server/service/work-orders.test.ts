@@ -5,6 +5,7 @@
  * technician (spring compressors, car on stands, clearances checked with the spring out).
  */
 import { randomUUID } from 'node:crypto';
+import { handoverLabel } from '../../../shared/service/handover-label';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { captureMail, makeTestApp, signedInClient, type TestApp } from '../test-app';
 import { addCoDriver, countOf, expectError, expectFieldErrors, postRun, postSetup } from '../season/season-fixtures';
@@ -283,6 +284,22 @@ describe('POST /api/work-orders/:workOrderId/close', () => {
   const snapshotsOf = (carId: string) =>
     t.ds.query('SELECT s.*, (SELECT json_agg(c ORDER BY c.corner) FROM setup_corners c WHERE c.setup_id = s.id) AS corners FROM setup_snapshots s WHERE car_id = $1 ORDER BY s.id', [carId]);
   const runsOf = (carId: string) => t.ds.query('SELECT * FROM runs WHERE car_id = $1 ORDER BY id', [carId]);
+
+  it('when staff close a visit whose requested work is long and give no label, then the setup\'s label is "<shop>: <work>" cut at a word\'s end, as the close form says beforehand', async () => {
+    const { driver, staff, url } = await readyVisit();
+    const work = 'Fit adjustable-body coilovers, set ride height and corner weights with the driver in, then align to the sheet';
+    const { version } = (await staff.c.get(url)).body as { version: number };
+    expect((await staff.c.patch(url, { requestedWork: work, version })).status).toBe(200);
+    const res = await staff.c.post(`${url}/close`, { handoverAt: '2026-06-12T16:30:00Z' });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+
+    const { label } = (await driver.c.get(`/api/setups/${res.body.setupId}`)).body as { label: string };
+    expect(label).toBe(handoverLabel(SHOP_NAME, work));
+    expect(label.length).toBeLessThanOrEqual(80);
+    // Ends on a whole word of the text, then the ellipsis.
+    expect(`${SHOP_NAME}: ${work} `.startsWith(`${label.slice(0, -1)} `)).toBe(true);
+    expect(label.endsWith('…')).toBe(true);
+  });
 
   it('when the build sheet has more clicks than the car\'s adjuster, then closing is refused with what to correct, the visit stays open and no snapshot is written; corrected, it closes', async () => {
     const { driver, staff, url } = await readyVisit();

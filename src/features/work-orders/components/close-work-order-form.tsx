@@ -1,19 +1,30 @@
 import { useState } from 'react';
 import type { WorkOrder } from '@shared/service/work-order.schema';
+import { handoverLabel, SETUP_LABEL_MAX } from '@shared/service/handover-label';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { TextField } from '@/components/ui/text-field';
-import { fromLocalInputValue, toLocalInputValue } from '@/lib/dates';
+import { formatDateTime, fromLocalInputValue, toLocalInputValue } from '@/lib/dates';
+import { useSetups } from '@/features/setups/api/get-setups';
 import { useCloseWorkOrder } from '../api/edit-work-order';
 import { splitErrors } from '../utils/field-errors';
 
-/** Staff hand the car back: the visit closes and a new setup snapshot is written on the car. */
+/**
+ * Staff hand the car back: the visit closes and a new setup snapshot is written on the car. Closing cannot be undone,
+ * so it is asked twice; a handover dated before setups the driver has recorded since is pointed out before it is made.
+ */
 export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
   const [handover, setHandover] = useState(() => toLocalInputValue(new Date()));
   const [label, setLabel] = useState('');
   const [localError, setLocalError] = useState<string | null>(null);
+  const [asking, setAsking] = useState<string | null>(null);
   const close = useCloseWorkOrder(workOrder.id);
+  const { data: setups } = useSetups(workOrder.carId);
   const server = splitErrors(close.error);
+  const byDefault = handoverLabel(workOrder.shop.name, workOrder.requestedWork);
+  // Setups starting after the handover keep their own values; the one written now slots in before them.
+  const later = asking ? (setups?.items ?? []).filter((s) => s.effectiveFrom > asking) : [];
+
   return (
     <form
       aria-label="Close and hand over"
@@ -23,7 +34,11 @@ export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
         const handoverAt = fromLocalInputValue(handover);
         setLocalError(handoverAt ? null : 'Enter the handover date and time');
         if (!handoverAt) return;
-        close.mutate({ handoverAt, ...(label.trim() ? { label: label.trim() } : {}) });
+        if (asking !== handoverAt) {
+          setAsking(handoverAt);
+          return;
+        }
+        close.mutate({ handoverAt, ...(label.trim() ? { label: label.trim() } : {}) }, { onSettled: () => setAsking(null) });
       }}
     >
       <p className="text-sm text-ink-muted">
@@ -35,20 +50,46 @@ export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
         type="datetime-local"
         value={handover}
         error={localError ?? server.fields.handoverAt}
-        onChange={(e) => setHandover(e.target.value)}
+        onChange={(e) => {
+          setHandover(e.target.value);
+          setAsking(null);
+        }}
       />
       <TextField
         label="Setup label (optional)"
-        hint={`By default “${workOrder.shop.name}: ${workOrder.requestedWork.slice(0, 40)}”`}
+        hint={`By default “${byDefault}”`}
         value={label}
-        maxLength={80}
+        maxLength={SETUP_LABEL_MAX}
         error={server.fields.label}
         onChange={(e) => setLabel(e.target.value)}
       />
       <FormAlert message={server.form} />
-      <Button type="submit" isPending={close.isPending} pendingLabel="Closing…" className="self-start">
-        Close and hand over
-      </Button>
+      {asking ? (
+        <div role="group" aria-label="Confirm the handover" className="flex flex-col gap-3 rounded border-2 border-accent p-3">
+          <p className="font-semibold">
+            Close this visit for good? “{label.trim() || byDefault}” becomes {workOrder.carName}’s setup from {formatDateTime(asking)}.
+          </p>
+          {later.length > 0 ? (
+            <p className="text-sm font-semibold text-warning">
+              {later.length === 1 ? 'One setup on the car starts' : `${later.length} setups on the car start`} later (the latest “{later[0]!.label}”, from{' '}
+              {formatDateTime(later[0]!.effectiveFrom)}). The handover slots in before{' '}
+              {later.length === 1 ? 'it, and that setup' : 'them, and they'} will read as changed from the handover. Check the date before you close.
+            </p>
+          ) : null}
+          <div className="flex flex-wrap gap-2">
+            <Button type="submit" isPending={close.isPending} pendingLabel="Closing…">
+              Yes, close and hand over
+            </Button>
+            <Button variant="secondary" onClick={() => setAsking(null)}>
+              Not yet
+            </Button>
+          </div>
+        </div>
+      ) : (
+        <Button type="submit" className="self-start">
+          Close and hand over…
+        </Button>
+      )}
     </form>
   );
 }

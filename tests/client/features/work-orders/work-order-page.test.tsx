@@ -5,7 +5,8 @@ import { describe, expect, it, vi } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 import type { MeasurementsInput, ReplaceLinesInput } from '../../../../shared/service/work-order.schema';
 import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests } from '../../test-utils';
-import { CAR } from '../../fixtures/season';
+import { BASE_SETUP, CAR, list } from '../../fixtures/season';
+import { SHOP_NAME } from '../../fixtures/collab';
 import { checkoutNavigation } from '@/features/invoices/api/pay-invoice';
 import { invoice, SERVICE_IDS, stubDriver, stubStaff, WO, WORK_ORDER_PATH, workOrder } from './service-fixtures';
 
@@ -103,7 +104,11 @@ describe('the work order page for shop staff', () => {
     const handover = within(form).getByLabelText('Handover');
     await u.clear(handover);
     await u.type(handover, '2026-06-10T18:30');
-    await u.click(within(form).getByRole('button', { name: 'Close and hand over' }));
+    await u.click(within(form).getByRole('button', { name: 'Close and hand over…' }));
+    // Asked once more: closing cannot be undone.
+    const confirm = within(form).getByRole('group', { name: 'Confirm the handover' });
+    expect(requestsTo(fetchMock, POST)).toHaveLength(0);
+    await u.click(within(confirm).getByRole('button', { name: 'Yes, close and hand over' }));
 
     await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(1));
     const body = requestsTo(fetchMock, POST)[0]!.body as { handoverAt: string; label?: string };
@@ -113,6 +118,41 @@ describe('the work order page for shop staff', () => {
     expect(link.getAttribute('href')).toBe(`/shop/customers/${CAR.id}#setup-${SERVICE_IDS.newSetup}`);
     expect(screen.queryByRole('form', { name: 'Close and hand over' })).toBeNull();
     expect(screen.getByRole('button', { name: 'Make the invoice' })).toBeTruthy();
+  });
+});
+
+describe('closing a visit, asked twice', () => {
+  it('when the handover is dated before a setup the driver recorded since, then the question says so, "Not yet" sends nothing, and the default label ends on a whole word', async () => {
+    const POST = `POST ${WO}/close`;
+    const requestedWork = 'Fit adjustable-body coilovers, set ride height and corner weights with the driver in, then align to the sheet';
+    const since = { ...BASE_SETUP, id: '5e7e7e7e-0000-4000-8000-0000000000b1', label: 'Softer rear for the wet', effectiveFrom: '2026-06-20T09:00:00.000Z' };
+    const fetchMock = stubStaff(METRIC_PREFERENCES, {
+      [`GET ${WO}`]: jsonResponse(200, workOrder({ requestedWork })),
+      [`GET /api/cars/${CAR.id}/setups`]: list([since, BASE_SETUP]),
+    });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    const form = await screen.findByRole('form', { name: 'Close and hand over' });
+
+    // The label the server will write, "<shop>: <work>" shortened to 80 characters at a word's end.
+    const hint = within(form).getByText(/^By default/).textContent!;
+    const label = /“(.+)”/.exec(hint)![1]!;
+    expect(label.length).toBeLessThanOrEqual(80);
+    expect(label.endsWith('…')).toBe(true);
+    expect(`${SHOP_NAME}: ${requestedWork}`.startsWith(label.slice(0, -1))).toBe(true);
+    expect(`${SHOP_NAME}: ${requestedWork}`[label.length - 1]).toBe(' ');
+
+    const handover = within(form).getByLabelText('Handover');
+    await u.clear(handover);
+    await u.type(handover, '2026-06-10T18:30');
+    await u.click(within(form).getByRole('button', { name: 'Close and hand over…' }));
+    const confirm = within(form).getByRole('group', { name: 'Confirm the handover' });
+    expect(confirm.textContent).toContain(`“${label}” becomes Grey roadster’s setup from`);
+    expect(await within(confirm).findByText(/One setup on the car starts later \(the latest “Softer rear for the wet”/)).toBeTruthy();
+
+    await u.click(within(confirm).getByRole('button', { name: 'Not yet' }));
+    expect(within(form).queryByRole('group', { name: 'Confirm the handover' })).toBeNull();
+    expect(requestsTo(fetchMock, POST)).toHaveLength(0);
   });
 });
 
