@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { LIMITS } from '../../../shared/season/limits';
 import { setupCornerSchema } from '../../../shared/season/setup.schema';
 import { cornerProblems } from '@/lib/setup-corner-problems';
-import { applyQuickChange } from '@/features/setups/utils/setup-views';
+import { checkedQuickChange } from '@/features/setups/utils/checked-quick-change';
 import { outOfRange, previewChanges } from '@/features/suggestions/utils/change-rows';
 
 // The messages are the server's own (the shared schema's), so the server is the reference for each case.
@@ -33,7 +33,7 @@ describe('cornerProblems', () => {
 describe('the quick change and a suggested change say a value out of range the same way', () => {
   it('when both take the left front camber past its limit, then both say it in the same words', () => {
     const base = { corners: { lf: { camberDeg: -2 }, rf: { camberDeg: -2 }, lr: {}, rr: {} } };
-    const quick = applyQuickChange(base, [{ field: 'camberDeg', corners: ['lf'], delta: -9 }]).problems;
+    const quick = checkedQuickChange(base, [{ field: 'camberDeg', corners: ['lf'], delta: -9 }]).problems;
     const suggested = outOfRange(previewChanges(base, [{ field: 'camberDeg', corners: ['lf'], delta: -9 }]));
     expect(quick).toEqual(cornerProblems('lf', { camberDeg: -11 }));
     expect(suggested).toEqual(quick);

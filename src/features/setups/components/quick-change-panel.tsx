@@ -16,7 +16,8 @@ import { toast } from '@/lib/toast-store';
 import { useUnits } from '@/lib/units-context';
 import { quickChangeEntry, useQuickChange, type QuickChangeBody } from '../api/quick-change';
 import { FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
-import { applyQuickChange, setupInForce, type SetupView } from '../utils/setup-views';
+import { setupInForce, type AppliedQuickChange, type SetupView } from '../utils/setup-views';
+import { checkedQuickChange } from '../utils/checked-quick-change';
 
 type QuickField = (typeof QUICK_CHANGE_FIELDS)[number];
 
@@ -77,7 +78,7 @@ type AdjustableDampers = { front: boolean; rear: boolean };
  * Which way a line moves the clicks: "stiffer" or "softer" when every chosen corner goes the same way on an adjuster
  * the car describes, null when a corner's clicks are not known before or after, or the corners go different ways.
  */
-function clicksWay(adjusters: Car['damperAdjusters'], line: ChangeLine, before: SetupView | null, after: ReturnType<typeof applyQuickChange> | null) {
+function clicksWay(adjusters: Car['damperAdjusters'], line: ChangeLine, before: SetupView | null, after: AppliedQuickChange | null) {
   if (!CLICK_FIELDS.includes(line.field) || !after || after.problems.length > 0) return null;
   const moves = line.corners.map((c) => {
     const from = before?.corners[c]?.[line.field] ?? null;
@@ -163,7 +164,7 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
     setFormError(null);
     const built = toChanges();
     if (!built) return;
-    const { problems } = applyQuickChange(base, built.changes);
+    const { problems } = checkedQuickChange(base, built.changes);
     if (problems.length) {
       setFormError(problems.join('. '));
       return;
@@ -206,7 +207,7 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
         const amount = amountOf(line);
         const step = stepOf(line.field, units);
         const errorId = `qc-${line.id}-error`;
-        const preview = amount !== null ? applyQuickChange(base, [{ field: line.field, corners: line.corners, ...(line.mode === 'delta' ? { delta: toSi(amount, quantity, units) } : { value: toSi(amount, quantity, units) }) }]) : null;
+        const preview = amount !== null ? checkedQuickChange(base, [{ field: line.field, corners: line.corners, ...(line.mode === 'delta' ? { delta: toSi(amount, quantity, units) } : { value: toSi(amount, quantity, units) }) }]) : null;
         // What this change would leave out of range is said as it is typed, not only on Save.
         const lineError = errors[line.id] || (preview?.problems.length ? preview.problems.join('. ') : '');
         const way = clicksWay(adjusters, line, base, preview);

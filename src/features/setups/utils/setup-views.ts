@@ -3,7 +3,6 @@ import { CORNERS, type Corner } from '@shared/season/corners';
 import { SETUP_CORNER_FIELDS, type QuickChangeInput, type Setup, type SetupCorner } from '@shared/season/setup.schema';
 import { CORNER_NAMES } from '@/components/corner-grid/corner-grid';
 import type { OutboxEntry, OutboxError } from '@/lib/outbox';
-import { cornerProblems } from '@/lib/setup-corner-problems';
 import type { CreateSetupBody } from '../api/create-setup';
 import type { QuickChangeBody } from '../api/quick-change';
 
@@ -45,7 +44,11 @@ const FIELD_WORDS: Record<QuickChangeInput['changes'][number]['field'], string> 
   rideHeightMm: 'ride height',
 };
 
-/** A quick change applied to the snapshot in force, as the server will apply it. */
+/**
+ * A quick change applied to the snapshot in force, as the server will apply it. `problems` here are only the values
+ * a change by an amount has nothing to start from; whether the results are in range is `checkedQuickChange`'s
+ * question, asked where a quick change is made, so the range rules stay out of the trackside page's first download.
+ */
 export function applyQuickChange(base: Pick<Setup, 'corners'> | null, changes: QuickChangeInput['changes']): AppliedQuickChange {
   const corners = Object.fromEntries(CORNERS.map((c) => [c, { ...emptyCorner(), ...(base?.corners[c] ?? {}) }])) as Record<
     Corner,
@@ -61,7 +64,6 @@ export function applyQuickChange(base: Pick<Setup, 'corners'> | null, changes: Q
       } else corners[corner][change.field] = Math.round((current + (change.delta ?? 0)) * 1e6) / 1e6;
     }
   }
-  for (const corner of CORNERS) problems.push(...cornerProblems(corner, corners[corner]));
   return { corners, problems };
 }
 
