@@ -1,6 +1,6 @@
 import { lazy, Suspense } from 'react';
 import { Outlet } from 'react-router-dom';
-import { Calculator, Car, Flag, House, Settings } from 'lucide-react';
+import { Calculator, Car, Flag, House, Settings, Wrench } from 'lucide-react';
 import { paths } from '@/config/paths';
 import { AppShell } from '@/components/layouts/app-shell';
 import type { NavItem } from '@/components/layouts/nav-items';
@@ -18,6 +18,8 @@ const NAV_ITEMS: readonly NavItem[] = [
   { to: paths.calculators, label: 'Calculators', icon: Calculator },
   { to: paths.settings, label: 'Settings', icon: Settings },
 ];
+// Shop staff spend their days on the shop's page: it takes Settings' place, which the account menu also holds.
+const STAFF_NAV_ITEMS: readonly NavItem[] = [...NAV_ITEMS.slice(0, 4), { to: paths.shop, label: 'Shop', icon: Wrench }];
 
 // The bell and the comments host load just after the page: no page waits for them (see shell-extras.tsx).
 const ShellExtras = lazy(async () => ({ default: (await import('../shell-extras')).ShellExtras }));
@@ -31,7 +33,7 @@ export function SignedInLayout() {
   return (
     <UnitsProvider units={user.preferences.units}>
       <AppShell
-        navItems={NAV_ITEMS}
+        navItems={user.roles.includes('shop_staff') ? STAFF_NAV_ITEMS : NAV_ITEMS}
         status={
           <>
             <ErrorBoundary fallback={() => null}>

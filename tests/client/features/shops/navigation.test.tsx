@@ -50,6 +50,25 @@ describe('reaching the shop and teams', () => {
     for (const bar of bars) expect(within(bar).getAllByRole('link')).toHaveLength(5);
   });
 
+  it('when the user works for a shop, then the bars offer the shop where a driver has Settings (which stays in the account menu)', async () => {
+    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: staffUser() }) });
+    renderApp('/settings');
+    await screen.findByRole('button', { name: 'Account: Dusty Okonjo' });
+    for (const bar of screen.getAllByRole('navigation', { name: 'Main' })) {
+      expect(within(bar).getAllByRole('link').map((l) => l.textContent)).toEqual(['Home', 'Event day', 'Cars', 'Calculators', 'Shop']);
+      expect(within(bar).getByRole('link', { name: 'Shop' }).getAttribute('href')).toBe('/shop');
+    }
+  });
+
+  it('when the user is a driver only, then the bars end with Settings and offer no shop', async () => {
+    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }) });
+    renderApp('/settings');
+    await screen.findByRole('button', { name: 'Account: Maren Holt' });
+    for (const bar of screen.getAllByRole('navigation', { name: 'Main' })) {
+      expect(within(bar).getAllByRole('link').map((l) => l.textContent)).toEqual(['Home', 'Event day', 'Cars', 'Calculators', 'Settings']);
+    }
+  });
+
   it('when an event\'s pages are open, then both bars mark Event day as the current place, and only it', async () => {
     stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), 'GET /api/events': jsonResponse(200, { items: [], count: 0 }) });
     renderApp('/events');
