@@ -58,14 +58,14 @@ export async function createInvitation(
   const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
 
   const name = await db.transaction(async (m) => {
-    const found: { name: string }[] = await m.query(`SELECT name FROM ${target.table} WHERE id = $1`, [targetId]);
-    if (!found[0]) throw notFound(kind === 'shop' ? 'That shop' : 'That team');
+    const found = await lockTarget(m, kind, targetId);
+    if (!found) throw notFound(kind === 'shop' ? 'That shop' : 'That team');
     await m.query(`DELETE FROM invitations WHERE ${target.column} = $1 AND email = $2 AND used_at IS NULL`, [targetId, email]);
     await m.query(
       `INSERT INTO invitations (token_hash, ${target.column}, email, as_admin, invited_by, expires_at) VALUES ($1, $2, $3, $4, $5, $6)`,
       [hash, targetId, email, invite.asAdmin, invite.invitedBy.id, expiresAt],
     );
-    return found[0].name;
+    return found.name;
   });
 
   if (mail) {
@@ -80,6 +80,16 @@ export async function createInvitation(
     sendInBackground(mail, { to: email, ...content });
   }
   return { email, asAdmin: invite.asAdmin, expiresAt: expiresAt.toISOString() };
+}
+
+/**
+ * Locks a shop's or team's row for a change of its people: adding someone (an invitation, an acceptance), removing or
+ * demoting someone. Every such change takes this lock first and the invitations' rows after it, so two of them never
+ * wait on each other in opposite orders.
+ */
+export async function lockTarget(m: EntityManager, kind: Kind, targetId: string): Promise<{ name: string } | undefined> {
+  const rows: { name: string }[] = await m.query(`SELECT name FROM ${TARGETS[kind].table} WHERE id = $1 FOR UPDATE`, [targetId]);
+  return rows[0];
 }
 
 /**
@@ -140,8 +150,15 @@ export async function previewInvitation(ds: DataSource, token: string): Promise<
  * stands: one sent by someone since removed or demoted is refused.
  */
 export async function acceptInvitation(ds: DataSource, user: User, token: string): Promise<AcceptedInvitation> {
+  const hash = hashSecretToken(token);
   return ds.transaction(async (m) => {
-    const rows: InvitationRow[] = await m.query(`${SELECT_INVITATION} FOR UPDATE OF i`, [hashSecretToken(token)]);
+    // Locks in the order every change of a shop's or team's people takes them (see lockTarget): the shop or team
+    // first, then the invitation, read again under its lock. The other order can deadlock with taking the sender off.
+    const found: Pick<InvitationRow, 'shop_id' | 'team_id'>[] = await m.query('SELECT shop_id, team_id FROM invitations WHERE token_hash = $1', [hash]);
+    if (!found[0]) throw notFound('That invitation');
+    const targetKind = kindOf(found[0] as InvitationRow);
+    await lockTarget(m, targetKind, (found[0].shop_id ?? found[0].team_id)!);
+    const rows: InvitationRow[] = await m.query(`${SELECT_INVITATION} FOR UPDATE OF i`, [hash]);
     const row = rows[0];
     if (!row) throw notFound('That invitation');
     if (row.used_at) throw new AppError('conflict', 'This invitation has already been used. Ask for a new one if you still need to join.');
@@ -152,10 +169,9 @@ export async function acceptInvitation(ds: DataSource, user: User, token: string
     const kind = kindOf(row);
     const target = TARGETS[kind];
     const targetId = (row.shop_id ?? row.team_id)!;
-    // The shop or team first, as its own changes of staff lock it, then the sender's standing, held until this commits.
-    await m.query(`SELECT 1 FROM ${target.table} WHERE id = $1 FOR UPDATE`, [targetId]);
+    // The sender's standing, as it is with the shop or team locked.
     const sender: unknown[] = await m.query(
-      `SELECT 1 FROM ${target.members} WHERE ${target.column} = $1 AND user_id = $2 AND ${target.adminColumn} FOR SHARE`,
+      `SELECT 1 FROM ${target.members} WHERE ${target.column} = $1 AND user_id = $2 AND ${target.adminColumn}`,
       [targetId, row.invited_by],
     );
     if (sender.length === 0) {

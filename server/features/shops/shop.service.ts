@@ -6,7 +6,7 @@ import type {
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess, assertShopAccess, type Queryable } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
-import { createInvitation, withdrawInvitationsBy } from '../invitations/invitation.service';
+import { createInvitation, lockTarget, withdrawInvitationsBy } from '../invitations/invitation.service';
 import { actorLabel, carAudience, notify, sendOutbox, staffRecipients } from '../notifications/notify';
 
 /** How many shops the picker lists at most; the name filter narrows it. */
@@ -179,7 +179,9 @@ export async function inviteStaff(ds: DataSource, mail: MailSettings | undefined
 export async function removeStaff(ds: DataSource, user: User, shopId: string, staffId: string): Promise<void> {
   await assertShopAccess(ds, user, shopId, staffId === user.id ? 'read' : 'manage');
   await ds.transaction(async (m) => {
-    // Lock the shop's staff so two admins removing each other cannot leave it with none.
+    // The shop first, as every change of its people locks it (lockTarget), then its staff, so two admins removing
+    // each other cannot leave it with none.
+    await lockTarget(m, 'shop', shopId);
     const members: { user_id: string; is_shop_admin: boolean }[] = await m.query(
       'SELECT user_id, is_shop_admin FROM shop_members WHERE shop_id = $1 FOR UPDATE',
       [shopId],

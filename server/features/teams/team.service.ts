@@ -6,7 +6,7 @@ import type {
 } from '@shared/collab/team.schema';
 import { AppError } from '../../lib/app-error';
 import { assertCarAccess, assertTeamAccess, type TeamAction } from '../../auth/access';
-import { createInvitation, withdrawInvitationsBy } from '../invitations/invitation.service';
+import { createInvitation, lockTarget, withdrawInvitationsBy } from '../invitations/invitation.service';
 import type { MailSettings } from '../../mail/mailer';
 import { TeamEntity, TeamMemberEntity } from './team.entity';
 
@@ -136,7 +136,7 @@ export async function inviteMember(
 
 /** Locks the team (so two changes to its captains cannot both pass the check) and reads its members. */
 async function lockedMembers(m: EntityManager, teamId: string) {
-  await m.query('SELECT id FROM teams WHERE id = $1 FOR UPDATE', [teamId]);
+  await lockTarget(m, 'team', teamId);
   const rows: { user_id: string; is_captain: boolean }[] = await m.query(
     'SELECT user_id, is_captain FROM team_members WHERE team_id = $1',
     [teamId],

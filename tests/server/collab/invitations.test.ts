@@ -294,3 +294,44 @@ describe('an invitation from someone who no longer manages the shop or team', ()
     expect((await client(t.app).get(`/api/invitations/${token}`)).body.state).toBe('open');
   });
 });
+
+describe('accepting while the sender is being taken off', () => {
+  /** Waits until some other connection is waiting for a row lock (the request under test has reached it). */
+  async function someoneWaitsForALock() {
+    for (let i = 0; i < 100; i++) {
+      const [row] = await sql<{ n: string }>(`SELECT count(*) AS n FROM pg_stat_activity WHERE wait_event_type = 'Lock' AND datname = current_database()`);
+      if (Number(row!.n) > 0) return;
+      await new Promise((r) => setTimeout(r, 50));
+    }
+    throw new Error('no request came to wait for the lock');
+  }
+
+  it('when an acceptance comes while a removal holds the team and then withdraws the invitation, then neither deadlocks: the removal goes through and the acceptance finds no invitation', async () => {
+    const { teamId } = await teamWithCaptain('Late Apex Club');
+    const second = await signedInClient(t, { displayName: 'Rafe Oduya' });
+    await sql(`INSERT INTO team_members (team_id, user_id, is_captain) VALUES ($1, $2, true)`, [teamId, second.user.id]);
+    const invitee = await signedInClient(t, { displayName: 'Lark Penhale' });
+    expect((await second.c.post(`/api/teams/${teamId}/invitations`, { email: invitee.email })).status).toBe(201);
+    const { token } = mailTo(invitee.email);
+
+    // The removal, step by step as removeMember takes its locks: the team's row, then the sender's invitations.
+    const removal = t.ds.createQueryRunner();
+    await removal.connect();
+    await removal.startTransaction();
+    try {
+      await removal.query('SELECT id FROM teams WHERE id = $1 FOR UPDATE', [teamId]);
+      const accepting = invitee.c.post(`/api/invitations/${token}/accept`);
+      await someoneWaitsForALock();
+      await removal.query('DELETE FROM team_members WHERE team_id = $1 AND user_id = $2', [teamId, second.user.id]);
+      await removal.query('DELETE FROM invitations WHERE team_id = $1 AND invited_by = $2 AND used_at IS NULL', [teamId, second.user.id]);
+      await removal.commitTransaction();
+
+      const res = await accepting;
+      expect(res.status, JSON.stringify(res.body)).toBe(404);
+    } finally {
+      if (removal.isTransactionActive) await removal.rollbackTransaction();
+      await removal.release();
+    }
+    expect(await sql(`SELECT 1 FROM team_members WHERE team_id = $1 AND user_id = $2`, [teamId, invitee.user.id])).toEqual([]);
+  });
+});
