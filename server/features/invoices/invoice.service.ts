@@ -1,3 +1,4 @@
+import type Stripe from 'stripe';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
 import type { CheckoutRedirect, Invoice, InvoiceLine, InvoiceStatus, PaymentMethod } from '@shared/service/invoice.schema';
@@ -187,14 +188,23 @@ export async function startCheckout(
     return { id: made.id, url: made.url, reused: false };
   });
   if (session.reused) return { url: session.url };
+  // Kept only if nobody else stored a checkout meanwhile (a co-driver pressing Pay at the same moment) and the invoice
+  // is still open: an invoice never has two checkouts that can take its money.
   const kept: { id: string }[] = await ds.query(
-    `WITH kept AS (UPDATE invoices SET checkout_session_id = $2 WHERE id = $1 AND status = 'open' RETURNING id) SELECT id FROM kept`,
-    [invoiceId, session.id],
+    `WITH kept AS (
+       UPDATE invoices SET checkout_session_id = $2
+        WHERE id = $1 AND status = 'open' AND checkout_session_id IS NOT DISTINCT FROM $3 RETURNING id
+     ) SELECT id FROM kept`,
+    [invoiceId, session.id, invoice.checkout_session_id],
   );
   if (kept[0]) return { url: session.url };
-  // Marked paid while the checkout was being made: it is closed again before anyone can pay on it.
   await askPayments(invoiceId, () => payments.stripe.checkout.sessions.expire(session.id));
-  throw new AppError('conflict', 'This invoice is already paid.');
+  const now: Pick<InvoiceRow, 'status' | 'checkout_session_id'>[] = await ds.query('SELECT status, checkout_session_id FROM invoices WHERE id = $1', [invoiceId]);
+  if (now[0]?.status !== 'open') throw new AppError('conflict', 'This invoice is already paid.');
+  // The other checkout won: the driver is sent to that one.
+  const winner = now[0].checkout_session_id ? await askPayments(invoiceId, () => payments.stripe.checkout.sessions.retrieve(now[0]!.checkout_session_id!)) : null;
+  if (winner?.status === 'open' && winner.url) return { url: winner.url };
+  throw new AppError('conflict', 'A checkout for this invoice was opened on another device just now; try again.');
 }
 
 /** A call to the payment service; when it fails, a 503 that says so. */
@@ -209,35 +219,63 @@ async function askPayments<T>(invoiceId: string, call: () => Promise<T>): Promis
 
 /**
  * The shop took cash (or any payment outside Scrubline) for an open invoice. A card checkout the driver opened for it
- * is closed first on the payment service, so the same invoice cannot also be paid there; one the driver has already
- * paid is a 409, and the card payment marks the invoice paid when its event arrives. The invoice is locked meanwhile,
- * so that event waits for this decision. When the payment service cannot be reached nothing changes (503).
+ * is closed first on the payment service, so the same invoice cannot also be paid there. That call is made outside
+ * any transaction (the service may be slow; a closed checkout cannot open again); then, with the invoice locked, the
+ * cash is recorded only if no other checkout was stored meanwhile, else the round is made again. A checkout the driver
+ * has already paid marks the invoice paid by card instead, and the answer is a 409 that says so. When the payment
+ * service cannot be reached nothing changes (503).
  */
 export async function markPaidInCash(ds: DataSource, payments: PaymentSettings | undefined, user: User, invoiceId: string): Promise<Invoice> {
   await assertInvoiceAccess(ds, user, invoiceId, 'mark_paid');
-  await ds.transaction(async (m) => {
-    const rows: Pick<InvoiceRow, 'status' | 'checkout_session_id'>[] = await m.query(
-      'SELECT status, checkout_session_id FROM invoices WHERE id = $1 FOR UPDATE',
-      [invoiceId],
-    );
-    const invoice = rows[0];
-    if (!invoice) throw invoiceNotFound();
-    if (invoice.status !== 'open') throw new AppError('conflict', 'This invoice is already paid.');
-    if (invoice.checkout_session_id && payments) await closeCheckout(payments, invoiceId, invoice.checkout_session_id);
-    await m.query(`UPDATE invoices SET status = 'paid', paid_at = now(), paid_method = 'cash' WHERE id = $1`, [invoiceId]);
-  });
-  return (await loadInvoice(ds, { id: invoiceId }))!;
+  for (let round = 0; round < 3; round++) {
+    const rows: Pick<InvoiceRow, 'status' | 'checkout_session_id'>[] = await ds.query('SELECT status, checkout_session_id FROM invoices WHERE id = $1', [invoiceId]);
+    const seen = rows[0];
+    if (!seen) throw invoiceNotFound();
+    if (seen.status !== 'open') throw new AppError('conflict', 'This invoice is already paid.');
+    const paidByCard = seen.checkout_session_id && payments ? await closeCheckout(payments, invoiceId, seen.checkout_session_id) : null;
+
+    const outcome = await ds.transaction(async (m): Promise<'cash' | 'card' | 'card_mismatch' | 'paid' | 'again'> => {
+      const locked: Pick<InvoiceRow, 'status' | 'checkout_session_id'>[] = await m.query(
+        'SELECT status, checkout_session_id FROM invoices WHERE id = $1 FOR UPDATE',
+        [invoiceId],
+      );
+      if (locked[0]!.status !== 'open') return 'paid';
+      if (locked[0]!.checkout_session_id !== seen.checkout_session_id) return 'again';
+      if (paidByCard) return (await markPaidByCard(m, { invoiceId, amountCents: paidByCard.amount_total, currency: paidByCard.currency })) ? 'card' : 'card_mismatch';
+      await m.query(`UPDATE invoices SET status = 'paid', paid_at = now(), paid_method = 'cash' WHERE id = $1`, [invoiceId]);
+      return 'cash';
+    });
+    if (outcome === 'cash') return (await loadInvoice(ds, { id: invoiceId }))!;
+    if (outcome === 'paid') throw new AppError('conflict', 'This invoice is already paid.');
+    if (outcome === 'card') throw new AppError('conflict', 'The driver has already paid this invoice by card; it is now marked paid by card. Take no cash for it.');
+    if (outcome === 'card_mismatch') {
+      throw new AppError('conflict', 'The driver paid by card an amount that does not match this invoice. Check the payment on the payment service before taking cash.');
+    }
+  }
+  throw new AppError('conflict', 'A card checkout for this invoice keeps being opened; try again in a moment.');
 }
 
-/** Closes an invoice's card checkout if it is still open; refuses if it was paid. */
-async function closeCheckout(payments: PaymentSettings, invoiceId: string, sessionId: string): Promise<void> {
-  const status = await askPayments(invoiceId, async () => {
-    const found = await payments.stripe.checkout.sessions.retrieve(sessionId);
-    return found.status === 'open' ? (await payments.stripe.checkout.sessions.expire(sessionId)).status : found.status;
-  });
-  if (status === 'complete') {
-    throw new AppError('conflict', 'The driver has already paid this invoice by card; it shows as paid as soon as the payment service confirms it.');
+/**
+ * Closes an invoice's card checkout if it is still open. Answers the checkout when the driver has paid it (nothing to
+ * close), null when it is closed; 409 while a paid checkout's money is still on its way.
+ */
+async function closeCheckout(payments: PaymentSettings, invoiceId: string, sessionId: string): Promise<Stripe.Checkout.Session | null> {
+  let session = await askPayments(invoiceId, () => payments.stripe.checkout.sessions.retrieve(sessionId));
+  if (session.status === 'open') {
+    try {
+      session = await payments.stripe.checkout.sessions.expire(sessionId);
+    } catch (err) {
+      // Paid between the two calls, the checkout cannot be closed: read it again to say which.
+      logger.warn({ err, invoiceId }, 'closing a checkout failed; reading it again');
+      session = await askPayments(invoiceId, () => payments.stripe.checkout.sessions.retrieve(sessionId));
+      if (session.status === 'open') throw new AppError('unavailable', 'The payment service did not answer; try again in a minute.');
+    }
   }
+  if (session.status !== 'complete') return null;
+  if (session.payment_status !== 'paid') {
+    throw new AppError('conflict', 'The driver has paid this invoice by a method that is still settling; it shows as paid when the money arrives.');
+  }
+  return session;
 }
 
 export interface CardPayment {

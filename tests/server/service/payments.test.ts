@@ -15,6 +15,8 @@ import { expectError } from '../season/season-fixtures';
 import { addStaff, grantedCar } from '../collab/shop-fixtures';
 import { startFakePayments, type FakePayments } from '../../../scripts/lib/fake-payments';
 import { fakeSettings, visit } from './invoice-fixtures';
+import { startCheckout } from '../../../server/features/invoices/invoice.service';
+import type { PaymentSettings } from '../../../server/features/payments/payment-settings';
 
 let t: TestApp;
 let fake: FakePayments;
@@ -220,7 +222,7 @@ describe('cash while a card checkout is open', () => {
     expect((await g.driver.c.post(`/api/invoices/${g.invoice.id}/checkout`)).status).toBe(409);
   });
 
-  it('when the driver has paid by card and the payment\'s event has not arrived yet, then cash is refused with 409 and the card payment marks it paid when the event comes', async () => {
+  it('when the driver has paid by card and the payment\'s event has not arrived yet, then cash is refused with 409, the invoice is marked paid by card from the checkout itself, and the late event changes nothing', async () => {
     const g = await openInvoice();
     const url = (await g.driver.c.post(`/api/invoices/${g.invoice.id}/checkout`)).body.url as string;
     const webhook = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/payments/webhook`;
@@ -234,12 +236,50 @@ describe('cash while a card checkout is open', () => {
 
     const cash = await g.staff.c.post(`/api/invoices/${g.invoice.id}/mark-paid`, { method: 'cash' });
     expect(cash.status).toBe(409);
-    expect(cash.body.error.message).toBe('The driver has already paid this invoice by card; it shows as paid as soon as the payment service confirms it.');
-    expect((await invoiceRow(g.invoice.id)).status).toBe('open');
+    expect(cash.body.error.message).toBe('The driver has already paid this invoice by card; it is now marked paid by card. Take no cash for it.');
+    const paid = await invoiceRow(g.invoice.id);
+    expect(paid).toMatchObject({ status: 'paid', paid_method: 'card' });
 
     const payload = JSON.stringify(completedEvent(g.invoice, { id: sessionOf(url).id }));
     expect((await postEvent(payload, sign(payload))).status).toBe(200);
-    expect(await invoiceRow(g.invoice.id)).toMatchObject({ status: 'paid', paid_method: 'card' });
+    expect(await invoiceRow(g.invoice.id)).toEqual(paid);
+  });
+
+  it('when the owner and a co-driver press Pay at the same moment, then both are sent to one checkout, and the other one made is closed', async () => {
+    const g = await openInvoice();
+    const real = fakeSettings(fake);
+    // Both requests read the invoice (no checkout yet) before either checkout is made.
+    let made = 0;
+    let release!: () => void;
+    const gate = new Promise<void>((resolve) => (release = resolve));
+    const sessions = real.stripe.checkout.sessions;
+    const slowed = {
+      ...real,
+      stripe: {
+        checkout: {
+          sessions: {
+            retrieve: sessions.retrieve.bind(sessions),
+            expire: sessions.expire.bind(sessions),
+            create: async (...args: Parameters<typeof sessions.create>) => {
+              made++;
+              await gate;
+              return sessions.create(...args);
+            },
+          },
+        },
+      },
+    } as unknown as PaymentSettings;
+    const asking = [startCheckout(t.ds, slowed, g.driver.user, g.invoice.id), startCheckout(t.ds, slowed, g.driver.user, g.invoice.id)];
+    await expect.poll(() => made).toBe(2);
+    release();
+    const [a, b] = await Promise.all(asking);
+
+    expect(a!.url).toBe(b!.url);
+    const open = [...fake.sessions.values()].filter((x) => x.metadata.invoiceId === g.invoice.id);
+    expect(open.map((x) => x.status).sort()).toEqual(['expired', 'open']);
+    expect(open.find((x) => x.status === 'open')!.url).toBe(a!.url);
+    const [row] = await t.ds.query('SELECT checkout_session_id FROM invoices WHERE id = $1', [g.invoice.id]);
+    expect(row.checkout_session_id).toBe(open.find((x) => x.status === 'open')!.id);
   });
 });
 
