@@ -334,11 +334,12 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
                   </button>
                 ) : null}
               </div>
-              {way ? (
-                <p className="text-sm font-semibold" aria-live="polite">
-                  {way === 'stiffer' ? 'Stiffer' : 'Softer'} (clicks count from {adjusters[axleOf(line.corners[0]!)]?.countFrom === 'full_soft' ? 'full soft' : 'full stiff'})
-                </p>
-              ) : null}
+              {/* Always there, so a screen reader hears the words change; out of the layout while it has none. */}
+              <p className={way ? 'text-sm font-semibold' : 'sr-only'} aria-live="polite">
+                {way
+                  ? `${way === 'stiffer' ? 'Stiffer' : 'Softer'} (clicks count from ${adjusters[axleOf(line.corners[0]!)]?.countFrom === 'full_soft' ? 'full soft' : 'full stiff'})`
+                  : ''}
+              </p>
               {lineError ? (
                 <p id={errorId} className="text-sm font-semibold text-warning">
                   {lineError}

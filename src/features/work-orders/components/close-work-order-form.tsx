@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { WorkOrder } from '@shared/service/work-order.schema';
 import { handoverLabel, SETUP_LABEL_MAX } from '@shared/service/handover-label';
 import { Button } from '@/components/ui/button';
@@ -18,6 +18,15 @@ export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
   const [label, setLabel] = useState('');
   const [localError, setLocalError] = useState<string | null>(null);
   const [asking, setAsking] = useState<string | null>(null);
+  // The question replaces the button that asked it: the focus goes to its answer, and back when it is put away.
+  const yesRef = useRef<HTMLButtonElement>(null);
+  const askRef = useRef<HTMLButtonElement>(null);
+  const asked = useRef(false);
+  useEffect(() => {
+    if (asking) yesRef.current?.focus();
+    else if (asked.current) askRef.current?.focus();
+    asked.current = asking !== null;
+  }, [asking]);
   const close = useCloseWorkOrder(workOrder.id);
   const { data: setups } = useSetups(workOrder.carId);
   const server = splitErrors(close.error);
@@ -77,7 +86,7 @@ export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
             </p>
           ) : null}
           <div className="flex flex-wrap gap-2">
-            <Button type="submit" isPending={close.isPending} pendingLabel="Closing…">
+            <Button ref={yesRef} type="submit" isPending={close.isPending} pendingLabel="Closing…">
               Yes, close and hand over
             </Button>
             <Button variant="secondary" onClick={() => setAsking(null)}>
@@ -86,7 +95,7 @@ export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
           </div>
         </div>
       ) : (
-        <Button type="submit" className="self-start">
+        <Button ref={askRef} type="submit" className="self-start">
           Close and hand over…
         </Button>
       )}

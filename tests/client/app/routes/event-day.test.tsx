@@ -149,6 +149,7 @@ describe('event day', () => {
     const heading = screen.getByRole('heading', { name: 'Add a run from that day' });
     expect(heading.compareDocumentPosition(form) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
     expect(list.compareDocumentPosition(heading) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(insertions.findIndex((i) => i.list)).toBeGreaterThanOrEqual(0);
     expect(insertions.findIndex((i) => i.list)).toBeLessThanOrEqual(insertions.findIndex((i) => i.form));
   });
 
@@ -616,8 +617,11 @@ describe('event day', () => {
     const form = await screen.findByRole('form', { name: 'Quick change' });
 
     await u.click(within(form).getByRole('button', { name: 'Front' }));
+    // The words go into a live region that is there before them, so a screen reader announces them.
+    const live = form.querySelector('[aria-live="polite"]');
+    expect(live?.textContent).toBe('');
     await u.click(within(form).getByRole('button', { name: 'More clicks' }));
-    expect(within(form).getByText('Stiffer (clicks count from full soft)')).toBeTruthy();
+    expect(within(form).getByText('Stiffer (clicks count from full soft)')).toBe(live);
     await u.click(within(form).getByRole('button', { name: 'Less clicks' }));
     await u.click(within(form).getByRole('button', { name: 'Less clicks' }));
     expect(within(form).getByText('Softer (clicks count from full soft)')).toBeTruthy();

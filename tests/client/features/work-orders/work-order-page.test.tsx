@@ -147,11 +147,14 @@ describe('closing a visit, asked twice', () => {
     await u.type(handover, '2026-06-10T18:30');
     await u.click(within(form).getByRole('button', { name: 'Close and hand over…' }));
     const confirm = within(form).getByRole('group', { name: 'Confirm the handover' });
+    // The focus goes with the question, to its answer.
+    await waitFor(() => expect(document.activeElement).toBe(within(confirm).getByRole('button', { name: 'Yes, close and hand over' })));
     expect(confirm.textContent).toContain(`“${label}” becomes Grey roadster’s setup from`);
     expect(await within(confirm).findByText(/One setup on the car starts later \(the latest “Softer rear for the wet”/)).toBeTruthy();
 
     await u.click(within(confirm).getByRole('button', { name: 'Not yet' }));
     expect(within(form).queryByRole('group', { name: 'Confirm the handover' })).toBeNull();
+    await waitFor(() => expect(document.activeElement).toBe(within(form).getByRole('button', { name: 'Close and hand over…' })));
     expect(requestsTo(fetchMock, POST)).toHaveLength(0);
   });
 });
