@@ -61,9 +61,12 @@ async function loadAccount(ds: DataSource, id: string): Promise<AdminAccount> {
 export async function suspendAccount(ds: DataSource, admin: User, id: string, input: SuspendAccountInput): Promise<AdminAccount> {
   if (id === admin.id) throw new AppError('conflict', 'You cannot suspend your own account.');
   await ds.transaction(async (m) => {
+    // Wrapped in a SELECT: TypeORM answers a bare UPDATE … RETURNING with [rows, count], whose first item is always there.
     const rows: { id: string }[] = await m.query(
-      `UPDATE users SET suspended_at = coalesce(suspended_at, now()), suspended_by = $2, suspension_note = $3, updated_at = now()
-        WHERE id = $1 AND closed_at IS NULL RETURNING id`,
+      `WITH done AS (
+         UPDATE users SET suspended_at = coalesce(suspended_at, now()), suspended_by = $2, suspension_note = $3, updated_at = now()
+          WHERE id = $1 AND closed_at IS NULL RETURNING id
+       ) SELECT id FROM done`,
       [id, admin.id, input.note],
     );
     if (!rows[0]) throw notFound('That account');
@@ -88,7 +91,10 @@ export async function restoreAccount(ds: DataSource, id: string): Promise<AdminA
  */
 export async function setAdmin(ds: DataSource, admin: User, id: string, isAdmin: boolean): Promise<AdminAccount> {
   if (id === admin.id && !isAdmin) throw new AppError('conflict', 'You cannot take the admin role from yourself; ask another admin.');
-  const rows: { id: string }[] = await ds.query('UPDATE users SET is_admin = $2, updated_at = now() WHERE id = $1 AND closed_at IS NULL RETURNING id', [id, isAdmin]);
+  const rows: { id: string }[] = await ds.query(
+    'WITH done AS (UPDATE users SET is_admin = $2, updated_at = now() WHERE id = $1 AND closed_at IS NULL RETURNING id) SELECT id FROM done',
+    [id, isAdmin],
+  );
   if (!rows[0]) throw notFound('That account');
   return loadAccount(ds, id);
 }
