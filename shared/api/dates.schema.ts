@@ -11,13 +11,14 @@ export const DATE_YEARS = { min: 1900, max: 2199 } as const;
 const yearOf = (iso: string) => Number(iso.slice(0, 4));
 const inYears = (iso: string) => yearOf(iso) >= DATE_YEARS.min && yearOf(iso) <= DATE_YEARS.max;
 const YEAR_MESSAGE = `Use a year from ${DATE_YEARS.min} to ${DATE_YEARS.max}`;
+/** A value that is not a date stops at the format's example (`abort`): only a date has its year judged. */
 
 /** A calendar date, "2026-06-12". */
 export function isoDate(error = 'Use a date such as 2026-06-12') {
-  return z.iso.date({ error }).check(z.refine(inYears, YEAR_MESSAGE));
+  return z.iso.date({ error, abort: true }).check(z.refine(inYears, YEAR_MESSAGE));
 }
 
 /** A moment with its offset, "2026-06-12T09:30:00Z" or "…+02:00". */
 export function isoDateTime(error = 'Use a date and time such as 2026-06-12T09:30:00Z') {
-  return z.iso.datetime({ offset: true, error }).check(z.refine(inYears, YEAR_MESSAGE));
+  return z.iso.datetime({ offset: true, error, abort: true }).check(z.refine(inYears, YEAR_MESSAGE));
 }

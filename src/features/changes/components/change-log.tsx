@@ -66,7 +66,10 @@ export function ChangeLog({ carId, saved, entries }: { carId: string; saved: rea
     };
     const checked = createChangeInputSchema.safeParse(body);
     if (!checked.success) {
-      setErrors(Object.fromEntries(checked.error.issues.map((i) => [i.path.map(String).join('.'), i.message])));
+      const found: Record<string, string> = Object.fromEntries(checked.error.issues.map((i) => [i.path.map(String).join('.'), i.message]));
+      // The date picker left empty: asked for plainly, not with the API's ISO example.
+      if (!changedOn) found.changedOn = 'Pick a date';
+      setErrors(found);
       return;
     }
     setErrors({});

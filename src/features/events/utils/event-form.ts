@@ -73,6 +73,11 @@ export function eventFormSchema(units: UnitPreferences) {
         }
         return celsius;
       };
+      // The date picker left empty: asked for plainly, not with the API's ISO example.
+      if (!v.date.trim()) {
+        local.add('date');
+        addIssue(ctx, ['date'], 'Pick a date');
+      }
       let conePenaltySec = DEFAULT_CONE_PENALTY_SEC;
       const cone = parseDecimal(v.conePenaltySec);
       if (cone.kind === 'number') conePenaltySec = cone.value;

@@ -113,3 +113,22 @@ describe('new event', () => {
     expect(outbox.getSnapshot()).toHaveLength(0);
   });
 });
+
+describe('new event: the date left empty', () => {
+  it('when the date picker is cleared, then the date field says "Pick a date", alone, and nothing is queued', async () => {
+    stub(METRIC_PREFERENCES);
+    const { outbox } = renderApp('/events?new=1');
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText('Event name'), 'Marsh Lane practice day');
+    await u.clear(screen.getByLabelText('Date'));
+    await u.click(screen.getByRole('button', { name: 'Save and open event day' }));
+
+    const date = screen.getByLabelText('Date');
+    await waitFor(() => expect(date.getAttribute('aria-invalid')).toBe('true'));
+    const described = (date.getAttribute('aria-describedby') ?? '').split(' ').map((id) => document.getElementById(id)?.textContent);
+    expect(described).toContain('Pick a date');
+    expect(described.join(' ')).not.toMatch(/year|2026-06-12/);
+    expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+});
