@@ -7,7 +7,11 @@ import { FormAlert } from '@/components/ui/form-alert';
 import { TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
 import { fromLocalInputValue, toLocalInputValue } from '@/lib/dates';
+import { useSetups } from '@/features/setups/api/get-setups';
+import { setupInForce } from '@/features/setups/utils/setup-views';
 import { useAcceptSuggestion, useDeclineSuggestion } from '../api/decide-suggestion';
+import { previewChanges } from '../utils/change-rows';
+import { ChangePreview } from './change-preview';
 import { setupOnCarPage } from './suggestion-details';
 import { TextArea } from './text-area';
 
@@ -40,6 +44,11 @@ function AcceptForm({ suggestion, onCancel, onAccepted }: { suggestion: Suggesti
   const [when, setWhen] = useState(() => toLocalInputValue(new Date()));
   const [label, setLabel] = useState('');
   const { errors, setErrors, formError, setFormError, showFailure } = useProblems();
+  // The changes apply to the setup in force when they take effect, as the server applies them: when that is no
+  // longer the one the shop wrote them against, the driver sees what they would really record.
+  const { data: setups } = useSetups(suggestion.carId);
+  const start = setupInForce(setups?.items ?? [], fromLocalInputValue(when) ?? new Date().toISOString());
+  const moved = start && start.id !== suggestion.baseSetup.id ? start : null;
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -67,6 +76,15 @@ function AcceptForm({ suggestion, onCancel, onAccepted }: { suggestion: Suggesti
         error={errors.effectiveFrom}
         onChange={(e) => setWhen(e.target.value)}
       />
+      {moved ? (
+        <section aria-label="What accepting records now" className="flex flex-col gap-2 rounded border-2 border-warning p-3">
+          <p className="text-sm font-semibold">
+            The car’s setup has changed since the shop wrote this: it was written against “{suggestion.baseSetup.label}”, and at that
+            time the car has “{moved.label}”. Accepting applies the changes to “{moved.label}”, which records:
+          </p>
+          <ChangePreview cells={previewChanges(moved, suggestion.changes)} />
+        </section>
+      ) : null}
       <TextField
         label="Label for the new setup (optional)"
         placeholder={suggestion.title}

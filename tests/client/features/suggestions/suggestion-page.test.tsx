@@ -88,6 +88,29 @@ describe('a suggestion', () => {
     await waitFor(() => expect(within(decision()).queryByRole('button', { name: 'Accept' })).toBeNull());
   });
 
+  it('when the car\'s setup changed after the shop wrote it, then accepting shows what it will really record, worked on the setup in force then; with the base still in force, no such notice', async () => {
+    // The driver took 0.3° more camber on both fronts after the shop wrote its change against the spring baseline.
+    const since = { ...BASE_SETUP, id: '5e7e7e7e-0000-4000-8000-0000000000c1', label: 'More camber at the track', effectiveFrom: '2026-06-01T10:00:00.000Z',
+      corners: { ...BASE_SETUP.corners, lf: { ...BASE_SETUP.corners.lf, camberDeg: -1.5 }, rf: { ...BASE_SETUP.corners.rf, camberDeg: -1.5 } } };
+    stub(user(), () => suggestion(), { [`GET /api/cars/${IDS.car}/setups`]: list([since, BASE_SETUP]) });
+    renderApp(PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await within(await screen.findByRole('region', { name: 'Decision' })).findByRole('button', { name: 'Accept' }));
+    const notice = await screen.findByRole('region', { name: 'What accepting records now' });
+    expect(notice.textContent).toContain('written against “Spring baseline”, and at that time the car has “More camber at the track”');
+    // −1.5° − 0.5° = −2.0°, not the −1.7° the shop's page shows against the baseline.
+    const lf = within(within(notice).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
+    expect(lf.textContent).toContain('\u22121.50°');
+    expect(lf.textContent).toContain('→ \u22122.00°');
+
+    // Taking effect before the driver's change, the base is in force then: nothing to point out.
+    const when = screen.getByLabelText('Takes effect from');
+    await u.clear(when);
+    await u.type(when, '2026-05-20T09:30');
+    expect(screen.queryByRole('region', { name: 'What accepting records now' })).toBeNull();
+  });
+
   it('when a driver declines without a note, then nothing is sent and the note is asked for; with one, the shop gets it', async () => {
     let current = suggestion();
     const fetchMock = stub(user(), () => current, {
