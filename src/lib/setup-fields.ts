@@ -1,6 +1,6 @@
 /* How each per-corner setup value is named, measured and shown: the setup screens and the suggestions from shops share it. */
 import type { Quantity, UnitPreferences } from '@shared/calc/units.calc';
-import { formatQuantity } from '@shared/calc/units.calc';
+import { formatQuantity, fromDisplay, toDisplay, UNIT_DECIMALS, unitFor } from '@shared/calc/units.calc';
 import { LIMITS } from '@shared/season/limits';
 import type { SetupCornerField } from '@shared/season/setup.schema';
 import { formatDelta } from '@/lib/numbers';
@@ -45,4 +45,16 @@ export function formatFieldDelta(field: SetupCornerField, deltaSi: number, units
   if (quantity) return formatDelta(deltaSi, quantity, units);
   if (deltaSi === 0) return `± ${clicks(0)}`;
   return `${deltaSi > 0 ? '▲' : '▼'} ${clicks(Math.abs(deltaSi))}`;
+}
+
+/**
+ * The change between two stored values as the pair is shown: each is rounded in the user's unit first, so the change
+ * adds up with the two numbers beside it ("29.0 → 27.6 psi, ▼ 1.4 psi"; −10 kPa on its own would read ▼ 1.5 psi).
+ */
+export function formatFieldChange(field: SetupCornerField, fromSi: number, toSi: number, units: UnitPreferences): string {
+  const { quantity } = FIELD_INFO[field];
+  if (!quantity) return formatFieldDelta(field, toSi - fromSi, units);
+  const decimals = UNIT_DECIMALS[unitFor(quantity, units)];
+  const shown = (si: number) => Number(toDisplay(si, quantity, units).toFixed(decimals));
+  return formatFieldDelta(field, fromDisplay(shown(toSi) - shown(fromSi), quantity, units), units);
 }

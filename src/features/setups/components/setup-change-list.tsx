@@ -4,7 +4,7 @@ import type { SetupChange, SetupCornerField } from '@shared/season/setup.schema'
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { useUnits } from '@/lib/units-context';
 import { groupChanges, type ChangeGroup } from '../utils/group-changes';
-import { FIELD_INFO, formatFieldDelta, formatFieldValue } from '@/lib/setup-fields';
+import { FIELD_INFO, formatFieldChange, formatFieldDelta, formatFieldValue } from '@/lib/setup-fields';
 
 function fieldWords(field: SetupCornerField | 'antiRollBar') {
   return field === 'antiRollBar' ? 'anti-roll bar' : FIELD_INFO[field].label.toLowerCase();
@@ -37,7 +37,12 @@ export function SetupChangeList({ changes, emptyText = 'No values changed.', adj
           </span>
           {g.delta !== null && g.field !== 'antiRollBar' ? (
             <>
-              <span className="font-bold">{formatFieldDelta(g.field, g.delta, units)}</span>
+              {/* With its two ends shown, the change is the one between them as shown (each rounded in the user's unit). */}
+              <span className="font-bold">
+                {g.sameEnds && typeof g.from === 'number' && typeof g.to === 'number'
+                  ? formatFieldChange(g.field, g.from, g.to, units)
+                  : formatFieldDelta(g.field, g.delta, units)}
+              </span>
               {(g.field === 'damperClicks' || g.field === 'damperReboundClicks') && adjusters ? (
                 <span className="font-semibold">{clickDirection(adjusters, g.corners, g.delta)}</span>
               ) : null}

@@ -19,7 +19,7 @@ import { useOutbox } from '@/lib/outbox-context';
 import { useUnits } from '@/lib/units-context';
 import { useWatchedEntry } from '@/lib/use-outbox-entry';
 import { createSetupEntry, useCreateSetup, type CreateSetupBody } from '../api/create-setup';
-import { FIELD_INFO, formatFieldDelta } from '@/lib/setup-fields';
+import { FIELD_INFO, formatFieldChange } from '@/lib/setup-fields';
 import { compactCorners, cornersToTexts, maxClicks, textsToSi, type SetupFormValues } from '../utils/setup-form';
 import { setupInForce, type SetupView } from '../utils/setup-views';
 import { SetupChangeList } from './setup-change-list';
@@ -213,7 +213,7 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
                   const now = draft.corners[corner]?.[name] ?? null;
                   const hint =
                     before !== null && now !== null && now !== before
-                      ? formatFieldDelta(name, now - before, units)
+                      ? formatFieldChange(name, before, now, units)
                       : before === null && now !== null && base
                         ? 'new'
                         : before !== null && now === null && !draft.errors[`corners.${corner}.${name}`]

@@ -1,6 +1,6 @@
 import type { SetupCornerField } from '@shared/season/setup.schema';
 import { CornerGrid } from '@/components/corner-grid/corner-grid';
-import { formatFieldDelta, formatFieldValue } from '@/lib/setup-fields';
+import { formatFieldChange, formatFieldValue } from '@/lib/setup-fields';
 import { useUnits } from '@/lib/units-context';
 import { FIELD_LABELS, type PreviewCell } from '../utils/change-rows';
 
@@ -12,7 +12,7 @@ export function FromTo({ cell }: { cell: Pick<PreviewCell, 'field' | 'from' | 't
     <span className="tabular-figures flex flex-col text-right">
       <span className="text-sm text-ink-muted">{formatFieldValue(field, from, units)}</span>
       <span className="font-bold">→ {formatFieldValue(field, to, units)}</span>
-      {from !== null && to !== null ? <span className="text-xs text-ink-muted">{formatFieldDelta(field, to - from, units)}</span> : null}
+      {from !== null && to !== null ? <span className="text-xs text-ink-muted">{formatFieldChange(field, from, to, units)}</span> : null}
       {from === null ? <span className="text-xs text-ink-muted">not recorded before</span> : null}
     </span>
   );
