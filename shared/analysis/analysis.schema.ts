@@ -90,7 +90,10 @@ export interface Comparison {
   degreesOfFreedom: number | null;
   pValue: number | null;
   enough: boolean;
+  /** The verdict in words, in the API's units (mm, %). */
   verdict: string;
+  /** What was measured and which way is better: enough for a client to say the verdict again in the user's units. */
+  about?: { what: string; betterWhen: 'lower' | 'higher' };
 }
 
 export interface CompareResult {

@@ -225,7 +225,7 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
 
 function comparison(before: number[], after: number[], words: { what: string; unit: string; betterWhen: 'lower' | 'higher' }): Comparison {
   const c = compareSamples(before, after);
-  return { ...c, verdict: verdict(c, words) };
+  return { ...c, verdict: verdict(c, words), about: { what: words.what, betterWhen: words.betterWhen } };
 }
 
 export async function compare(ds: DataSource, user: User, carId: string, q: CompareQuery): Promise<CompareResult> {

@@ -1,7 +1,8 @@
 import { useId, useState, type ReactNode } from 'react';
 import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
 import { formatFixed, formatP } from '@shared/calc/display';
-import type { UnitPreferences } from '@shared/calc/units.calc';
+import { unitFor, type UnitPreferences } from '@shared/calc/units.calc';
+import { verdict } from '@shared/calc/comparison.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import type { Setup } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
@@ -12,17 +13,37 @@ import { cn } from '@/lib/cn';
 import { useUnits } from '@/lib/units-context';
 import { useCompare, type CompareSplit } from '../api/get-compare';
 import { useMediaQuery } from '../hooks/use-media-query';
-import { LOCATION_WORDS, wearRateNumber, wearRateSuffix } from '../utils/analysis-format';
+import { LOCATION_WORDS, wearRateInUnit, wearRateNumber, wearRateSuffix } from '../utils/analysis-format';
 import { byDay, defaultChangeId, type ChangeOption } from '../utils/pick-change';
 
-/** How one measurement's numbers are written: the number alone, and the unit after it. */
+/**
+ * How one measurement's numbers are written: the number alone, and the unit after it. `inUnit` and `unitWords`, when
+ * the user's unit is not the API's: the value converted, and the unit as the verdict's sentence names it.
+ */
 interface Scale {
   number: (v: number) => string;
   suffix: string;
+  inUnit?: (v: number) => number;
+  unitWords?: string;
 }
 
 function wearScale(units: UnitPreferences): Scale {
-  return { number: (v) => wearRateNumber(v, units), suffix: wearRateSuffix(units) };
+  const scale: Scale = { number: (v) => wearRateNumber(v, units), suffix: wearRateSuffix(units) };
+  return unitFor('treadDepth', units) === 'mm' ? scale : { ...scale, inUnit: (v) => wearRateInUnit(v, units), unitWords: wearRateSuffix(units).trim() };
+}
+
+/** The verdict in the user's units: said again from the numbers, converted, when they are not the API's. */
+function verdictText(c: Comparison, scale: Scale): string {
+  if (!scale.inUnit || !c.about) return c.verdict;
+  const to = scale.inUnit;
+  const at = (v: number | null) => (v === null ? null : to(v));
+  const converted = {
+    ...c,
+    before: { ...c.before, mean: at(c.before.mean), sd: at(c.before.sd) },
+    after: { ...c.after, mean: at(c.after.mean), sd: at(c.after.sd) },
+    difference: at(c.difference),
+  };
+  return verdict(converted, { ...c.about, unit: scale.unitWords ?? '' });
 }
 
 const PERCENT_SCALE: Scale = { number: (v) => formatFixed(v, 2), suffix: ' %' };
@@ -44,7 +65,7 @@ function differenceText(c: Comparison, scale: Scale): string | null {
   return parts.join(' · ');
 }
 
-/** Before → after for one measurement: n, mean ± sd on each side, the change, and the server's verdict as written. */
+/** Before → after for one measurement: n, mean ± sd on each side, the change, and the verdict in the user's units. */
 function Measure({ title, comparison, scale, emphasis = false }: { title: string; comparison: Comparison; scale: Scale; emphasis?: boolean }) {
   const difference = differenceText(comparison, scale);
   return (
@@ -61,7 +82,7 @@ function Measure({ title, comparison, scale, emphasis = false }: { title: string
         </dd>
       </dl>
       {difference ? <p className="tabular-figures text-xs text-ink-muted">{difference}</p> : null}
-      <p className={cn('text-sm', comparison.enough ? 'font-semibold' : 'text-ink-muted')}>{comparison.verdict}</p>
+      <p className={cn('text-sm', comparison.enough ? 'font-semibold' : 'text-ink-muted')}>{verdictText(comparison, scale)}</p>
     </div>
   );
 }

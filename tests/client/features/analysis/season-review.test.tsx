@@ -316,6 +316,24 @@ describe('season review: setup against time and wear', () => {
   });
 });
 
+describe('season review: before and after a change, read in 1/32 in', () => {
+  it('when the user reads tread in 1/32 in, then each wear verdict is said again in 1/32 in, never in mm beside numbers in 1/32 in', async () => {
+    const answer = compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber');
+    answer.corners.lf.innerWear = { ...answer.corners.lf.innerWear, about: { what: 'LF inner-edge wear', betterWhen: 'lower' } };
+    stub({ [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_CAMBER.id}`]: jsonResponse(200, answer) });
+    renderPage(IMPERIAL_PREFERENCES);
+    const compare = section('Before and after a change');
+    const lf = within(await compare.findByRole('group', { name: 'Left front' }));
+
+    // 1/32 in = 0.79375 mm (25.4 mm per inch, by definition): 0.060 mm = 0.0756/32 in and 0.045 mm = 0.0567/32 in,
+    // written to two significant figures of the change (0.019), as the server writes its own.
+    expect(lf.getByText("LF inner-edge wear fell from 0.076 to 0.057 /32 in per run (n = 5 and 4; p = 0.0055): a clear change. That's an improvement.")).toBeTruthy();
+    expect(lf.queryByText(/inner-edge wear.*mm per run/)).toBeNull();
+    // A measurement the server sent without its words keeps the server's sentence.
+    expect(lf.getByText('Camber: LF wear barely moved.')).toBeTruthy();
+  });
+});
+
 describe('season review: before and after a change', () => {
   it('when the page opens, then the latest camber change is compared and each corner shows n, mean ± sd and its verdict as written', async () => {
     stub();
