@@ -14,14 +14,20 @@ import { currentPositions, positionsText, type TyreSetView } from '../utils/tyre
 import { RotationForm } from './rotation-form';
 import { TreadDisplay } from './tread-display';
 
-/** Where the set's tyres sit now, and since when. */
-function PositionsLine({ set }: { set: TyreSetView }) {
+/** When a set was last fitted: its latest rotation, or, fitted as it came, when it was recorded. */
+const fittedAt = (set: TyreSetView) => Date.parse(currentPositions(set).mountedAt ?? set.createdAt);
+
+/**
+ * Where the set's tyres sit, and since when. One set is on the car at a time: the one fitted last; the others are off
+ * it, with the places their tyres had.
+ */
+function PositionsLine({ set, onCar }: { set: TyreSetView; onCar: boolean }) {
   const now = currentPositions(set);
   return (
     <p className="tabular-figures flex flex-wrap items-center gap-2 text-sm text-ink-muted">
       <span>
-        Tyres on the car: {positionsText(now.positions)}
-        {now.mountedAt ? ` · since ${formatDateTime(now.mountedAt)}` : ''}
+        {onCar ? 'On the car' : 'Off the car; last fitted'}: {positionsText(now.positions)}
+        {now.mountedAt ? ` · ${onCar ? 'since' : 'from'} ${formatDateTime(now.mountedAt)}` : ''}
       </span>
       {now.pending ? <PendingBadge state={now.pending.state} /> : null}
     </p>
@@ -36,6 +42,7 @@ export function TyreSetList({ carId, sets, entries }: { carId: string; sets: rea
   const units = useUnits();
   const [rotating, setRotating] = useState<string | null>(null);
   if (sets.length === 0) return <EmptyState message="No tyre sets recorded for this car yet." />;
+  const onCar = sets.reduce((last, set) => (fittedAt(set) > fittedAt(last) ? set : last)).id;
   return (
     <ul className="flex flex-col gap-4">
       {sets.map((set) => {
@@ -56,7 +63,7 @@ export function TyreSetList({ carId, sets, entries }: { carId: string; sets: rea
             {set.pending?.state === 'failed' ? (
               <p className="text-sm font-semibold text-warning">Refused: {set.pending.error?.message ?? 'the server did not accept it'}</p>
             ) : null}
-            <PositionsLine set={set} />
+            <PositionsLine set={set} onCar={set.id === onCar} />
             {latest ? (
               <>
                 <p className="tabular-figures flex flex-wrap items-center gap-2 text-sm text-ink-muted">
@@ -75,8 +82,10 @@ export function TyreSetList({ carId, sets, entries }: { carId: string; sets: rea
                 <Link to={recordPath.tread(carId, set.id)} className={buttonClasses('secondary')}>
                   Enter tread for this set
                 </Link>
+                {/* Fitting a set that is off the car is recorded as its tyres' places from then on. */}
                 <Button variant="secondary" onClick={() => setRotating(set.id)}>
-                  <RotateCw aria-hidden="true" className="size-5" /> Rotate tyres<span className="sr-only"> of {set.label}</span>
+                  <RotateCw aria-hidden="true" className="size-5" /> {set.id === onCar ? 'Rotate tyres' : 'Fit to the car'}
+                  <span className="sr-only"> of {set.label}</span>
                 </Button>
               </div>
             )}

@@ -103,7 +103,36 @@ describe('tyre rotation', () => {
     // From 1 LF, 2 RF, 3 LR, 4 RR: RR's tyre to LF, LR's to RF, LF's straight back to LR, RF's to RR (common practice).
     expect(body.positions).toEqual({ lf: 4, rf: 3, lr: 1, rr: 2 });
     expect(Number.isNaN(Date.parse(body.mountedAt))).toBe(false);
-    const line = await screen.findByText(/Tyres on the car: LF 4 · RF 3 · LR 1 · RR 2/);
+    const line = await screen.findByText(/On the car: LF 4 · RF 3 · LR 1 · RR 2/);
     expect(within(line.closest('p')!).getByText('Waiting to upload')).toBeTruthy();
+  });
+});
+
+describe('which set is on the car', () => {
+  it('when a second set is fitted after the first, then only the second reads as on the car; the first is off it with its last places, and offers to be fitted again', async () => {
+    const summer = {
+      ...TYRE_SET,
+      id: 'e2e2e2e2-0000-4000-8000-0000000000a2',
+      label: 'Summer set',
+      latestReading: null,
+      mountings: [{ id: 'e3e3e3e3-0000-4000-8000-0000000000a3', tyreSetId: 'e2e2e2e2-0000-4000-8000-0000000000a2', mountedAt: '2026-06-02T08:00:00.000Z', positions: { lf: 1, rf: 2, lr: 3, rr: 4 }, createdAt: '2026-06-02T08:00:00.000Z' }],
+      createdAt: '2026-06-02T08:00:00.000Z',
+    };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+      [`GET /api/cars/${IDS.car}/setups`]: list([]),
+      [`GET /api/cars/${IDS.car}/tyre-sets`]: list([summer, TYRE_SET]),
+      [`GET /api/cars/${IDS.car}/changes`]: list([]),
+    });
+    renderApp(CAR_PAGE);
+
+    const onCar = await screen.findAllByText(/^On the car: /);
+    expect(onCar).toHaveLength(1);
+    expect(onCar[0]!.closest('li')!.textContent).toContain('Summer set');
+    const off = screen.getByText(/^Off the car; last fitted: LF 1 · RF 2 · LR 3 · RR 4/);
+    expect(off.closest('li')!.textContent).toContain(TYRE_SET.label);
+    expect(screen.getByRole('button', { name: `Fit to the car of ${TYRE_SET.label}` })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Rotate tyres of Summer set' })).toBeTruthy();
   });
 });
