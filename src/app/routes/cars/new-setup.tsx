@@ -31,10 +31,14 @@ export function NewSetupPage() {
     () => mergePendingSetups(setups.data?.items ?? [], entries, { id: me?.id ?? '', displayName: me?.displayName ?? 'You' }),
     [setups.data, entries, me],
   );
-  const onUploaded = useCallback(() => {
-    toast({ tone: 'success', title: 'Setup saved' });
-    void navigate(pathTo.car(carId));
-  }, [navigate, carId]);
+  // Back on the car page at the new setup, not where the editor was scrolled to (the history scrolls to it).
+  const onUploaded = useCallback(
+    (setupId: string) => {
+      toast({ tone: 'success', title: 'Setup saved' });
+      void navigate(`${pathTo.car(carId)}#setup-${setupId}`);
+    },
+    [navigate, carId],
+  );
 
   const loading = car.isPending || (setups.isPending && !setups.isError);
   return (

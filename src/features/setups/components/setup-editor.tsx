@@ -35,7 +35,8 @@ interface SetupEditorProps {
   /** A refused entry being fixed (?fix=…): its values and the server's errors are loaded. */
   fixEntry?: OutboxEntry | null;
   /** Called once the server has the snapshot. */
-  onUploaded: () => void;
+  /** The new snapshot reached the server; its id, for the page to open at. */
+  onUploaded: (setupId: string) => void;
 }
 
 const SERVER_FIELDS = new Set<string>([
@@ -109,8 +110,8 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
   useEffect(() => {
     if (!uploaded || told.current) return;
     told.current = true;
-    onUploaded();
-  }, [uploaded, onUploaded]);
+    onUploaded(recordId);
+  }, [uploaded, onUploaded, recordId]);
 
   // Every value, live, for the diff (the defaults fill every field, so nothing is missing).
   const values = useWatch({ control }) as SetupFormValues;

@@ -22,7 +22,7 @@ function stub(answer: Parameters<typeof stubFetch>[0][string]) {
 describe('setup editor', () => {
   it('when values are typed in psi and inches, then the snapshot is sent in kPa and mm, untouched values keep their stored numbers, and the diff shows the change in psi', async () => {
     const fetchMock = stub(jsonResponse(201, { ...BASE_SETUP, id: IDS.setupBase }));
-    const { outbox } = renderApp(`/cars/${IDS.car}/setups/new`);
+    const { outbox, router } = renderApp(`/cars/${IDS.car}/setups/new`);
     const u = userEvent.setup();
 
     const pressure = (await screen.findByLabelText('Left front cold pressure')) as HTMLInputElement;
@@ -59,6 +59,8 @@ describe('setup editor', () => {
     expect(body.corners.lf!.camberDeg).toBe(-1.2);
     expect(body.corners.lf!.damperClicks).toBe(8);
     await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(0));
+    // Saved: back on the car page at the new setup, not at the editor's scroll position.
+    await waitFor(() => expect(`${router.state.location.pathname}${router.state.location.hash}`).toBe(`/cars/${IDS.car}#setup-${body.id}`));
   });
 
   it('when the server refuses a value, then its message sits on that input and everything typed stays', async () => {
