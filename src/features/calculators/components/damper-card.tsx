@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { formatQuantity } from '@shared/calc/units.calc';
 import { bumpTravelAtWheelMm, compressedLengthCheck, droopCheck, STANDARD_GRAVITY } from '@shared/calc/index';
 import { UnitInput } from '@/components/ui/unit-input';
 import { toInputText, unitSymbol } from '@/lib/numbers';
@@ -158,7 +159,7 @@ export function DamperCard() {
           onChange={(e) => setTolerance(e.target.value)}
           error={length.errors.tolerance}
           placeholder={toInputText(DEFAULT_TOLERANCE_MM, 'length', units)}
-          hint="Blank: about 13 mm (common practice: 13–16 mm at most)"
+          hint={`Blank: about ${formatQuantity(DEFAULT_TOLERANCE_MM, 'length', units)} (common practice: ${formatQuantity(13, 'length', units)} to ${formatQuantity(16, 'length', units)} at most)`}
         />
       </div>
       <Results label="Compressed length">

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { coldPressureKpa, hotPressureKpa, tyreDimensions, type TyreDimensions } from '@shared/calc/index';
-import { formatQuantity } from '@shared/calc/units.calc';
+import { formatQuantity, MM_PER_INCH } from '@shared/calc/units.calc';
 import { LIMITS } from '@shared/season/limits';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { TextField } from '@/components/ui/text-field';
@@ -95,8 +95,9 @@ export function TyreCard() {
         )}
       </Results>
       <p className="text-sm text-ink-muted">
-        Nominal design values. A real tyre differs with its rim, brand, inflation and wear (about 12.7 mm less diameter from
-        10/32 to 2/32 in of tread), and rolls on a smaller circumference under load.
+        Nominal design values. A real tyre differs with its rim, brand, inflation and wear (about{' '}
+        {formatQuantity(2 * 8 * (MM_PER_INCH / 32), 'length', units)} less diameter from 10/32 to 2/32 in of tread, 8/32 in off each
+        side), and rolls on a smaller circumference under load.
       </p>
 
       <CalcHeading>Cold and hot pressure</CalcHeading>
@@ -155,7 +156,7 @@ export function TyreCard() {
         )}
       </Results>
       <p className="text-sm text-ink-muted">
-        Gauge pressures at constant volume and a standard atmosphere (101.325 kPa); real tyres rise a little less as the carcass
+        Gauge pressures at constant volume and a standard atmosphere ({units.pressure === 'kPa' ? '101.325 kPa' : formatQuantity(101.325, 'pressure', units)}); real tyres rise a little less as the carcass
         stretches. Placard pressures are cold pressures.
       </p>
     </CalculatorCard>

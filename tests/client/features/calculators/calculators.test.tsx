@@ -291,3 +291,23 @@ describe('the example in a field that is not a number', () => {
     expect(c.getByText(message)).toBeTruthy();
   });
 });
+
+describe('the notes on each card, in the user\'s units', () => {
+  it('when the user reads inches and psi, then the damper\'s tolerance hint, the tyre\'s wear note and the atmosphere are in inches and psi, and no mm or kPa is left', () => {
+    renderPage(IMPERIAL_PREFERENCES);
+    // 13 mm = 0.51 in and 16 mm = 0.63 in (25.4 mm per inch, by definition).
+    expect(screen.getByText('Blank: about 0.51 in (common practice: 0.51 in to 0.63 in at most)')).toBeTruthy();
+    // 8/32 in off each side of the diameter: 16/32 in = 0.50 in.
+    expect(screen.getByText(/about 0\.50 in less diameter from 10\/32 to 2\/32 in of tread/)).toBeTruthy();
+    // 101.325 kPa = 14.7 psi (1 psi = 6.894 757 kPa, NIST SP 811; from memory).
+    expect(screen.getByText(/a standard atmosphere \(14\.7 psi\)/)).toBeTruthy();
+    expect(screen.queryByText(/\d mm\b|kPa/)).toBeNull();
+  });
+
+  it('when the user reads mm and kPa, then the same notes are in mm and kPa, the atmosphere to its defined value', () => {
+    renderPage(METRIC_PREFERENCES);
+    expect(screen.getByText('Blank: about 13.0 mm (common practice: 13.0 mm to 16.0 mm at most)')).toBeTruthy();
+    expect(screen.getByText(/about 12\.7 mm less diameter/)).toBeTruthy();
+    expect(screen.getByText(/a standard atmosphere \(101\.325 kPa\)/)).toBeTruthy();
+  });
+});
