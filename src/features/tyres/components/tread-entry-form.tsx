@@ -39,6 +39,11 @@ interface TreadEntryFormProps {
  * Tread depth across each tyre — outer, middle, inner as they sit on the car — in the user's
  * unit, with the change since the set's last reading beside each; saved through the outbox.
  */
+const NEED_ATTENTION = 'Some readings need attention; they are marked above.';
+const REFUSED_MARKED = 'The server refused some readings; they are marked above.';
+const MARKED_ABOVE = new Set([NEED_ATTENTION, REFUSED_MARKED]);
+const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
 export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadEntryFormProps) {
   const units = useUnits();
   const outbox = useOutbox();
@@ -66,7 +71,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
     if (!refusal || shown.current === refusal) return;
     shown.current = refusal;
     setErrors(Object.fromEntries(Object.entries(refusal.fieldErrors ?? {}).map(([k, v]) => [k, v.join(' ')])));
-    setFormError(refusal.fieldErrors ? 'The server refused some readings; they are marked above.' : refusal.message);
+    setFormError(refusal.fieldErrors ? REFUSED_MARKED : refusal.message);
   }, [refusal]);
   const uploaded = watched.status === 'delivered';
   const told = useRef(false);
@@ -113,7 +118,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
     if (Object.keys(found).length === 0 && Object.keys(corners).length === 0) found._ = 'Enter at least one corner: outer, middle and inner.';
     if (Object.keys(found).length) {
       setErrors(found);
-      setFormError(found._ ?? 'Some readings need attention; they are marked above.');
+      setFormError(found._ ?? NEED_ATTENTION);
       showFirstRefused(formRef.current);
       return;
     }
@@ -208,7 +213,8 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
                   const path = `corners.${corner}.${pos}`;
                   const si = inputToSi(texts[corner][pos], 'treadDepth', units);
                   const before = last?.corners[corner]?.[pos];
-                  const change = typeof si === 'number' && before !== undefined ? formatDelta(si - before, 'treadDepth', units) : null;
+                  // No change is worked out from a reading that is refused (out of range, deeper than new).
+                  const change = typeof si === 'number' && before !== undefined && !errors[path] ? formatDelta(si - before, 'treadDepth', units) : null;
                   const low = typeof si === 'number' && si <= WEAR_BAR_MM;
                   return (
                     <div key={pos} className="flex min-w-0 flex-col items-stretch gap-0.5 text-center">
@@ -239,11 +245,14 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
                 })}
               </div>
               {errors[`corners.${corner}`] || positionsAcross(corner).some((p) => errors[`corners.${corner}.${p}`]) ? (
-                <p className="text-xs font-semibold text-warning">
-                  {[errors[`corners.${corner}`], ...positionsAcross(corner).map((p) => errors[`corners.${corner}.${p}`] && `${POSITION_WORDS[p]}: ${errors[`corners.${corner}.${p}`]}`)]
+                // One line per message, each reading's named: "Middle: 40 is out of range…".
+                <ul className="flex flex-col gap-0.5 text-xs font-semibold text-warning">
+                  {[errors[`corners.${corner}`], ...positionsAcross(corner).map((p) => errors[`corners.${corner}.${p}`] && `${capitalise(POSITION_WORDS[p])}: ${errors[`corners.${corner}.${p}`]}`)]
                     .filter(Boolean)
-                    .join(' ')}
-                </p>
+                    .map((message) => (
+                      <li key={message}>{message}</li>
+                    ))}
+                </ul>
               ) : null}
             </div>
           )}
@@ -271,7 +280,8 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
       </Caution>
 
       <div className="sticky bottom-[calc(3.5rem+env(safe-area-inset-bottom))] z-10 -mx-4 flex flex-col gap-2 border-t border-line bg-canvas px-4 py-3 md:bottom-0">
-        <FormAlert message={formError} />
+        {/* A message that points at marked readings goes once none is marked any more. */}
+        <FormAlert message={formError && (!MARKED_ABOVE.has(formError) || Object.values(errors).some(Boolean)) ? formError : null} />
         {waiting ? (
           <p className="text-sm font-semibold">
             Saved on this phone. {reason ? `Waiting to upload (${reason}) — it goes by itself; you can leave this page.` : 'Uploading…'}{' '}

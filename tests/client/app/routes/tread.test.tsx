@@ -138,8 +138,38 @@ describe('a tread depth out of range', () => {
     await u.type(screen.getByLabelText('Right rear outer'), '66');
     await u.click(screen.getByRole('button', { name: 'Save tread reading' }));
 
-    expect(await screen.findByText('outer: 66 is out of range: enter 0.0 mm to 20.0 mm')).toBeTruthy();
+    expect(await screen.findByText('Outer: 66 is out of range: enter 0.0 mm to 20.0 mm')).toBeTruthy();
     await waitFor(() => expect(document.activeElement).toBe(screen.getByLabelText('Right rear outer')));
     expect(outbox.getSnapshot().map((e) => e.kind)).toEqual(['change.create']);
+  });
+
+  it('when two readings of a corner are wrong, then each message has a line of its own, no change is shown under a refused one, and the banner goes once both are fixed', async () => {
+    stub(METRIC_PREFERENCES);
+    renderApp(`/cars/${IDS.car}/tread?set=${IDS.tyreSet}`, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    Element.prototype.scrollIntoView ??= () => {};
+
+    await u.type(await screen.findByLabelText('Left front outer'), 'abc');
+    await u.type(screen.getByLabelText('Left front middle'), '40');
+    await u.type(screen.getByLabelText('Left front inner'), '6.1');
+    await u.click(screen.getByRole('button', { name: 'Save tread reading' }));
+
+    const outer = await screen.findByText('Outer: Type a number');
+    const middle = screen.getByText('Middle: 40 is out of range: enter 0.0 mm to 20.0 mm');
+    expect(outer.tagName).toBe('LI');
+    expect(middle.tagName).toBe('LI');
+    expect(outer).not.toBe(middle);
+    // The refused 40 has no "▲ 33.6 mm" under it.
+    const middleBox = screen.getByLabelText('Left front middle');
+    const changeUnder = document.getElementById(middleBox.getAttribute('aria-describedby')!.split(' ')[1]!)!;
+    expect(changeUnder.textContent?.trim()).toBe('');
+    expect(screen.getByText('Some readings need attention; they are marked above.')).toBeTruthy();
+
+    await u.clear(screen.getByLabelText('Left front outer'));
+    await u.type(screen.getByLabelText('Left front outer'), '6.6');
+    expect(screen.getByText('Some readings need attention; they are marked above.')).toBeTruthy();
+    await u.clear(middleBox);
+    await u.type(middleBox, '6.4');
+    expect(screen.queryByText('Some readings need attention; they are marked above.')).toBeNull();
   });
 });
