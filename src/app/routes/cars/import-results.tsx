@@ -56,12 +56,17 @@ export function ImportResultsPage() {
     setFileName(file.name);
     try {
       const parsed = parseSheet(await readFileText(file));
+      const guessed = guessMapping(parsed.header, parsed.shape);
       setSheet(parsed);
-      setMapping(guessMapping(parsed.header, parsed.shape));
+      setMapping(guessed);
       setFileError(parsed.rows.length === 0 ? 'The file has column names but no result rows.' : null);
       setUnticked(new Set());
-      // The car's number finds its rows best; without one, the driver's name.
-      setFilter(car?.carNumber ? { carNumber: car.carNumber, driverName: '' } : { carNumber: '', driverName: me?.displayName ?? '' });
+      // The car's number finds its rows best, when the sheet has car numbers; without, the driver's name.
+      setFilter(
+        car?.carNumber && guessed.columns.carNumber !== null
+          ? { carNumber: car.carNumber, driverName: '' }
+          : { carNumber: '', driverName: me?.displayName ?? '' },
+      );
     } catch (error) {
       setSheet(null);
       setMapping(null);

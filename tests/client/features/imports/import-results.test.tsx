@@ -129,3 +129,20 @@ describe('the results import page', { timeout: 15_000 }, () => {
     expect(screen.queryByRole('region', { name: 'File preview' })).toBeNull();
   });
 });
+
+describe('a sheet with no car numbers', { timeout: 15_000 }, () => {
+  it('when the file has driver, run, time and cones columns only, then the rows are found by the driver\'s name, not filtered out by the car\'s number', async () => {
+    stubImport();
+    renderApp(`/cars/${IDS.car}/import`);
+    await chooseFile(['Driver,Run,Time,Cones', 'Maren Holt,1,45.6,0', 'Juno Brack,1,44.9,0', 'Maren Holt,2,45.2,1'].join('\n'));
+    await screen.findByRole('region', { name: 'File preview' });
+
+    expect((screen.getByLabelText('Your car number') as HTMLInputElement).value).toBe('');
+    expect((screen.getByLabelText('Your name as the sheet spells it') as HTMLInputElement).value).toBe('Maren Holt');
+    const chosen = screen.getByRole('list', { name: 'Rows that match' });
+    expect(within(chosen).getAllByRole('checkbox').map((c) => c.closest('li')!.textContent)).toEqual([
+      expect.stringContaining('Maren Holt'),
+      expect.stringContaining('Maren Holt'),
+    ]);
+  });
+});
