@@ -5,16 +5,16 @@ import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { EventRow } from '@/features/events/components/event-row';
 import { useEventViews } from '@/features/events/hooks/use-event-views';
-import { currentEvent } from '@/features/events/utils/current-event';
+import { currentEvent, currentEventCaption } from '@/features/events/utils/current-event';
 import { NEW_EVENT_PATH } from '@/features/events/utils/new-event-path';
 
-/** "Event day" in the navigation: straight to today's event; with none today, start one or open the latest. */
+/** "Event day" in the navigation: straight to today's event; with none today, start one or open the next planned or the latest. */
 export function EventDayRedirect() {
   const { events, isPending, isError } = useEventViews();
   if (isPending) return <p className="text-ink-muted">Finding today’s event…</p>;
   const current = isError ? null : currentEvent(events);
   if (current?.isToday) return <Navigate to={pathTo.event(current.event.id)} replace />;
-  const latest = current?.event ?? null;
+  const shown = current?.event ?? null;
   return (
     <div className="flex flex-col gap-5">
       <title>Event day · Scrubline</title>
@@ -26,10 +26,10 @@ export function EventDayRedirect() {
             : 'Nothing entered for today yet.'
         }
       />
-      {latest ? (
+      {shown ? (
         <EventRow
-          event={latest}
-          caption="Latest event"
+          event={shown}
+          caption={currentEventCaption(current!)}
           before={<CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />}
         />
       ) : null}

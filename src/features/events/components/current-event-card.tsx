@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { useEventViews } from '../hooks/use-event-views';
-import { currentEvent } from '../utils/current-event';
+import { currentEvent, currentEventCaption } from '../utils/current-event';
 import { NEW_EVENT_PATH } from '../utils/new-event-path';
 import { EventRow } from './event-row';
 
@@ -15,7 +15,7 @@ function StartTodayLink() {
   );
 }
 
-/** Today's event (or the latest one), one tap from its event-day screen; with none today, a way to start one. */
+/** Today's event (or the next planned, or the latest), one tap from its event-day screen; with none today, a way to start one. */
 export function CurrentEventCard() {
   const { events, isPending, isError } = useEventViews();
   if (isPending) return <p className="text-ink-muted">Loading events…</p>;
@@ -33,7 +33,7 @@ export function CurrentEventCard() {
     <div className="flex flex-col gap-3">
       <EventRow
         event={event}
-        caption={isToday ? 'Today' : 'Latest event'}
+        caption={currentEventCaption(current)}
         before={<CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />}
       />
       {isToday ? null : <StartTodayLink />}

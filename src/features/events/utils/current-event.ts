@@ -1,10 +1,19 @@
 import type { SeasonEvent } from '@shared/season/event.schema';
-import { isTodayDate } from '@/lib/dates';
+import { isTodayDate, todayIsoDate } from '@/lib/dates';
 
-/** Today's event if there is one, else the latest (the list comes newest first). */
-export function currentEvent<T extends Pick<SeasonEvent, 'date'>>(events: readonly T[]): { event: T; isToday: boolean } | null {
+/**
+ * Today's event if there is one; else the next one planned (the soonest after today); else the latest one before
+ * today (the list comes newest first). `upcoming` says it is a planned one, not one that has been.
+ */
+export function currentEvent<T extends Pick<SeasonEvent, 'date'>>(events: readonly T[]): { event: T; isToday: boolean; upcoming: boolean } | null {
   const today = events.find((e) => isTodayDate(e.date));
-  if (today) return { event: today, isToday: true };
+  if (today) return { event: today, isToday: true, upcoming: false };
+  const now = todayIsoDate();
+  const next = events.filter((e) => e.date > now).at(-1);
+  if (next) return { event: next, isToday: false, upcoming: true };
   const latest = events[0];
-  return latest ? { event: latest, isToday: false } : null;
+  return latest ? { event: latest, isToday: false, upcoming: false } : null;
 }
+
+/** The words above the event on Home and on Event day. */
+export const currentEventCaption = (c: { isToday: boolean; upcoming: boolean }) => (c.isToday ? 'Today' : c.upcoming ? 'Next event' : 'Latest event');

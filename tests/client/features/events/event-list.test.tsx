@@ -1,6 +1,7 @@
 // @vitest-environment jsdom
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import { addDays, format } from 'date-fns';
 import { describe, expect, it } from 'vitest';
 import { jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
 import { EVENT, list, user } from '../../fixtures/season';
@@ -39,5 +40,21 @@ describe('events list', () => {
     if (caption) expect(row.textContent!.startsWith(caption)).toBe(true);
     await userEvent.setup().click(row);
     await waitFor(() => expect(router.state.location.pathname).toBe(`/events/${EVENT.id}`));
+  });
+
+  it.each([
+    ['Home', '/'],
+    ['Event day with nothing today', '/event-day'],
+  ])('when %s has a planned event ahead and one that has been, then it shows the soonest one ahead, captioned "Next event", not "Latest event"', async (_where, path) => {
+    const ahead = (days: number) => format(addDays(new Date(), days), 'yyyy-MM-dd');
+    const soon = { ...EVENT, id: 'e1e1e1e1-0000-4000-8000-0000000000f1', name: 'Harrow Flats — Round 5', date: ahead(9) };
+    const later = { ...EVENT, id: 'e1e1e1e1-0000-4000-8000-0000000000f2', name: 'Harrow Flats — Round 6', date: ahead(40) };
+    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), 'GET /api/events': list([later, soon, EVENT]), 'GET /api/cars': list([]) });
+    renderApp(path);
+
+    const row = await screen.findByRole('link', { name: /Round 5/ });
+    expect(row.textContent!.startsWith('Next event')).toBe(true);
+    expect(screen.queryByText('Latest event')).toBeNull();
+    expect(screen.queryByRole('link', { name: /Round 6/ })).toBeNull();
   });
 });
