@@ -1,5 +1,5 @@
 import type { SeasonEvent } from '@shared/season/event.schema';
-import { isTodayDate, todayIsoDate } from '@/lib/dates';
+import { isTodayDate } from '@/lib/dates';
 
 /**
  * Today's event if there is one; else the next one planned (the soonest after today); else the latest one before
@@ -8,7 +8,9 @@ import { isTodayDate, todayIsoDate } from '@/lib/dates';
 export function currentEvent<T extends Pick<SeasonEvent, 'date'>>(events: readonly T[]): { event: T; isToday: boolean; upcoming: boolean } | null {
   const today = events.find((e) => isTodayDate(e.date));
   if (today) return { event: today, isToday: true, upcoming: false };
-  const now = todayIsoDate();
+  const d = new Date();
+  // This device's calendar date, as the events' dates are written ("2026-06-12").
+  const now = `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
   const next = events.filter((e) => e.date > now).at(-1);
   if (next) return { event: next, isToday: false, upcoming: true };
   const latest = events[0];
