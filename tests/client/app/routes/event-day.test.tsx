@@ -61,6 +61,28 @@ const TODAY_EVENT = () => ({ [`GET /api/events/${IDS.event}`]: jsonResponse(200,
 
 const runItem = (n: number) => screen.getByRole('listitem', { name: new RegExp(`^Run ${n},`) });
 
+/**
+ * Renders the page and records, for each insertion into the document (judged when it is reported), whether it
+ * brought the keypad's form and the run list; until run 2 is on screen.
+ */
+async function drawingOrder(): Promise<{ form: boolean; list: boolean }[]> {
+  const FORM = 'form[aria-label="Log a run"]';
+  const LIST = 'ol[aria-label$="newest first"]';
+  const brought = (nodes: Node[], selector: string) => nodes.some((n) => n instanceof Element && (n.matches(selector) || n.querySelector(selector) !== null));
+  const insertions: { form: boolean; list: boolean }[] = [];
+  const observer = new MutationObserver((records) => {
+    for (const r of records) {
+      const nodes = [...r.addedNodes];
+      if (nodes.length) insertions.push({ form: brought(nodes, FORM), list: brought(nodes, LIST) });
+    }
+  });
+  observer.observe(document.body, { childList: true, subtree: true });
+  renderApp(PATH);
+  await screen.findByRole('listitem', { name: /^Run 2,/ });
+  observer.disconnect();
+  return insertions;
+}
+
 describe('event day', () => {
   it('when the page opens, then the car\'s setups and runs are asked for at once, without waiting for the event and the car to arrive', async () => {
     const never = () => new Promise<Response>(() => undefined);
@@ -93,22 +115,8 @@ describe('event day', () => {
 
   it('when the page first draws on the event\'s day with its runs known, then the keypad goes on screen before the run list, which follows in a later drawing', async () => {
     stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })], { extra: TODAY_EVENT() });
-    // Which insertion into the document brought each part, judged when the insertion is reported: one
-    // insertion bringing both would mean the list held the keypad back.
-    const FORM = 'form[aria-label="Log a run"]';
-    const LIST = 'ol[aria-label$="newest first"]';
-    const brought = (nodes: Node[], selector: string) => nodes.some((n) => n instanceof Element && (n.matches(selector) || n.querySelector(selector) !== null));
-    const insertions: { form: boolean; list: boolean }[] = [];
-    const observer = new MutationObserver((records) => {
-      for (const r of records) {
-        const nodes = [...r.addedNodes];
-        if (nodes.length) insertions.push({ form: brought(nodes, FORM), list: brought(nodes, LIST) });
-      }
-    });
-    observer.observe(document.body, { childList: true, subtree: true });
-    renderApp(PATH);
-    await screen.findByRole('listitem', { name: /^Run 2,/ });
-    observer.disconnect();
+    // One insertion bringing both would mean the list held the keypad back.
+    const insertions = await drawingOrder();
     const form = insertions.findIndex((i) => i.form);
     const list = insertions.findIndex((i) => i.list);
     expect(form).toBeGreaterThanOrEqual(0);
@@ -128,20 +136,7 @@ describe('event day', () => {
   it('when a past event is opened, then its runs come first and the keypad follows under a heading of its own, both in one drawing', async () => {
     stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })]);
     // Drawn later than the keypad, a list above it would push the keypad down under the thumb.
-    const FORM = 'form[aria-label="Log a run"]';
-    const LIST = 'ol[aria-label$="newest first"]';
-    const brought = (nodes: Node[], selector: string) => nodes.some((n) => n instanceof Element && (n.matches(selector) || n.querySelector(selector) !== null));
-    const insertions: { form: boolean; list: boolean }[] = [];
-    const observer = new MutationObserver((records) => {
-      for (const r of records) {
-        const nodes = [...r.addedNodes];
-        if (nodes.length) insertions.push({ form: brought(nodes, FORM), list: brought(nodes, LIST) });
-      }
-    });
-    observer.observe(document.body, { childList: true, subtree: true });
-    renderApp(PATH);
-    await screen.findByRole('listitem', { name: /^Run 2,/ });
-    observer.disconnect();
+    const insertions = await drawingOrder();
 
     const list = screen.getByRole('list', { name: `Runs on ${formatDay(EVENT.date)}, newest first` });
     const form = screen.getByRole('form', { name: 'Log a run' });
