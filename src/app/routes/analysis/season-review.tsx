@@ -8,6 +8,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { SectionCard } from '@/components/ui/section-card';
 import { useUnits } from '@/lib/units-context';
 import { useCar } from '@/features/cars/api/get-car';
+import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
 import { useChanges } from '@/features/changes/api/get-changes';
 import { SetupChangeList } from '@/features/setups/components/setup-change-list';
 import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-season';
@@ -77,6 +78,8 @@ export function SeasonReviewPage() {
   const { carId = '' } = useParams();
   const car = useCar(carId);
   const name = car.data?.name ?? 'Car';
+  // Gone or not shared: said once, rather than each section failing to load.
+  if (!car.data && carIsHidden(car.error)) return <CarNotFound />;
   return (
     <div className="flex flex-col gap-6">
       <title>{`Season review · ${name} · Scrubline`}</title>

@@ -5,9 +5,7 @@ import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
 import { Button, buttonClasses } from '@/components/ui/button';
-import { PageMessage } from '@/components/ui/page-message';
 import { SectionCard } from '@/components/ui/section-card';
-import { isApiError } from '@/lib/api-client';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
@@ -16,6 +14,7 @@ import { useCar } from '@/features/cars/api/get-car';
 import { CarHeader } from '@/features/cars/components/car-header';
 import { CoDrivers } from '@/features/cars/components/co-drivers';
 import { drivesCar } from '@/features/cars/utils/car-page-path';
+import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupTimeline } from '@/features/setups/components/setup-timeline';
 import { mergePendingSetups } from '@/features/setups/utils/setup-views';
@@ -124,22 +123,7 @@ export function CarPage() {
   // Shop staff reading a customer's car (a link to a setup, a comment, an old address) get the shop's page of it,
   // where nothing offers them a driver's change they may not make; the thread or setup asked for comes with it.
   if (car && me && !drivesCar(car, me.id)) return <Navigate to={`${recordPath.shopCustomer(carId)}${location.search}${location.hash}`} replace />;
-  // A car that is gone or not shared with this account: one clear message, not a page of empty sections.
-  if (!car && isApiError(error) && (error.status === 404 || error.status === 403)) {
-    return (
-      <PageMessage
-        variant="in-shell"
-        title="Car not found"
-        actions={
-          <Link to={paths.cars} className={buttonClasses('secondary')}>
-            Back to your cars
-          </Link>
-        }
-      >
-        <p>It may have been deleted, or its driver has not shared it with you.</p>
-      </PageMessage>
-    );
-  }
+  if (!car && carIsHidden(error)) return <CarNotFound />;
   return (
     <div className="flex flex-col gap-6">
       <title>{`${car?.name ?? 'Car'} · Scrubline`}</title>

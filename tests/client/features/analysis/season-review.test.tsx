@@ -538,3 +538,15 @@ describe('season review: timeline', () => {
     expect([...maren.children].map((line) => line.textContent)).toEqual(['48.100 s', '4 runs, 1 cone']);
   });
 });
+
+describe('season review of a car that is not there', () => {
+  it.each([404, 403])('when the car answers %i (gone, or not shared), then the page says once that the car was not found and offers the way back, not a section that failed', async (status) => {
+    stub({ [`GET ${CAR_PATH}`]: jsonResponse(status, { error: { code: status === 404 ? 'not_found' : 'forbidden', message: 'That car was not found.' } }) });
+    renderPage();
+
+    expect(await screen.findByRole('heading', { name: 'Car not found' })).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Back to your cars' }).getAttribute('href')).toBe('/cars');
+    expect(screen.queryByRole('heading', { name: 'Season review' })).toBeNull();
+    expect(screen.queryByText(/could not be loaded/)).toBeNull();
+  });
+});

@@ -1,0 +1,25 @@
+import { Link } from 'react-router-dom';
+import { paths } from '@/config/paths';
+import { buttonClasses } from '@/components/ui/button';
+import { PageMessage } from '@/components/ui/page-message';
+import { isApiError } from '@/lib/api-client';
+
+/** Whether a car's read failed because the car is gone or not shared with this account (404 or 403). */
+export const carIsHidden = (error: unknown) => isApiError(error) && (error.status === 404 || error.status === 403);
+
+/** A car that is gone or not shared with this account: one clear message, not a page of empty sections. */
+export function CarNotFound() {
+  return (
+    <PageMessage
+      variant="in-shell"
+      title="Car not found"
+      actions={
+        <Link to={paths.cars} className={buttonClasses('secondary')}>
+          Back to your cars
+        </Link>
+      }
+    >
+      <p>It may have been deleted, or its driver has not shared it with you.</p>
+    </PageMessage>
+  );
+}
