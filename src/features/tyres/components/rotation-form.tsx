@@ -77,16 +77,19 @@ export function RotationForm({ carId, set, onSaved, onCancel }: RotationFormProp
       </div>
       <CornerGrid
         label="Which tyre is on each corner"
-        cornerNote={(c) => `was ${now[c]}`}
         cornerInvalid={(c) => Boolean(cornerError(c))}
         renderCorner={(corner) => (
-          <SelectField
-            label={`${CORNER_NAMES[corner]} tyre`}
-            hideLabel
-            options={TYRE_OPTIONS}
-            error={cornerError(corner)}
-            {...register(`positions.${corner}`, { onChange: () => clearErrors('positions') })}
-          />
+          // Where the tyre was goes under the choice, on a line of its own: beside a name that wraps it was cut short.
+          <div className="flex flex-col gap-1">
+            <SelectField
+              label={`${CORNER_NAMES[corner]} tyre`}
+              hideLabel
+              options={TYRE_OPTIONS}
+              error={cornerError(corner)}
+              {...register(`positions.${corner}`, { onChange: () => clearErrors('positions') })}
+            />
+            <p className="text-xs text-ink-muted">Was tyre {now[corner]}</p>
+          </div>
         )}
       />
       <TextField label="When the tyres were moved" type="datetime-local" error={errors.mountedAt?.message} {...register('mountedAt')} />

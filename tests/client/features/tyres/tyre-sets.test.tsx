@@ -87,6 +87,11 @@ describe('tyre rotation', () => {
     const u = userEvent.setup();
 
     await u.click(await screen.findByRole('button', { name: `Rotate tyres of ${TYRE_SET.label}` }));
+    // Where each tyre was, in words on a line of its own under the choice (beside a wrapped name it was cut to "wa…").
+    const grid = screen.getByRole('group', { name: 'Which tyre is on each corner' });
+    for (const [name, was] of [['Left front', 1], ['Right front', 2], ['Left rear', 3], ['Right rear', 4]] as const) {
+      expect(within(within(grid).getByRole('group', { name })).getByText(`Was tyre ${was}`).tagName).toBe('P');
+    }
     await u.click(screen.getByRole('button', { name: 'Cross rear to front' }));
     await u.click(screen.getByRole('button', { name: 'Save rotation' }));
 
