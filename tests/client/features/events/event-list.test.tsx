@@ -4,6 +4,7 @@ import userEvent from '@testing-library/user-event';
 import { addDays, format } from 'date-fns';
 import { describe, expect, it } from 'vitest';
 import { jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
+import { IMPERIAL_PREFERENCES } from '../../../../shared/calc/units.calc';
 import { EVENT, list, user } from '../../fixtures/season';
 
 setUpAppTests(
@@ -56,5 +57,19 @@ describe('events list', () => {
     expect(row.textContent!.startsWith('Next event')).toBe(true);
     expect(screen.queryByText('Latest event')).toBeNull();
     expect(screen.queryByRole('link', { name: /Round 6/ })).toBeNull();
+  });
+
+  it('when an event has its conditions written down, then its row says them in the user\'s units: surface, air and track', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+      'GET /api/events': list([{ ...EVENT, surface: 'old concrete', airTempC: 22, trackTempC: 35 }]),
+      'GET /api/cars': list([]),
+    });
+    renderApp('/events');
+
+    const row = await screen.findByRole('link', { name: new RegExp(EVENT.name) });
+    // °F = °C × 9/5 + 32 (common practice): 22 °C = 71.6 °F, shown to the whole degree as 72 °F; 35 °C = 95 °F.
+    // (Each dot holds on to the words before it with a no-break space; the text is read here with spaces made plain.)
+    expect(within(row).getByText('old concrete · air 72 °F · track 95 °F')).toBeTruthy();
   });
 });
