@@ -53,7 +53,7 @@ const BOARD_WORDS = {
 } as const;
 
 /** How many closed visits show before "Show all": the latest, which are the ones asked about. */
-export const CLOSED_SHOWN = 8;
+const CLOSED_SHOWN = 8;
 
 /**
  * The shop's work orders, newest visit first: the open ones it is working on, or the closed ones, whose build sheets
