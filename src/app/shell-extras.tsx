@@ -2,6 +2,7 @@ import type { CommentTarget } from '@shared/collab/comment.schema';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { CommentsHost } from '@/features/comments/components/comments-host';
 import { NotificationBell } from '@/features/notifications/components/notification-bell';
+import { useNewPageAtTop } from '@/hooks/use-new-page-at-top';
 
 /** A run's or an event's photos, in the dialog the trackside "Comments" buttons open (the strip loads when unfolded). */
 function photosOf(target: CommentTarget) {
@@ -12,9 +13,11 @@ function photosOf(target: CommentTarget) {
 /**
  * The parts of the signed-in shell no page waits for: the notification bell (a count the server
  * sends anyway) and the host that opens comment threads over the trackside screen, with the record's
- * photos. One small file, loaded just after the page (see signed-in-layout.tsx).
+ * photos; and each new page opened at its top. One small file, loaded just after the page (see
+ * signed-in-layout.tsx), so the first page's script carries none of it.
  */
 export function ShellExtras() {
+  useNewPageAtTop();
   return (
     <>
       <NotificationBell />
