@@ -51,7 +51,8 @@ export function tyreSetRoutes(ds: DataSource) {
   });
   router.post('/:tyreSetId/mountings', validate({ params: setParam, body: createMountingInputSchema }), async (req, res) => {
     const { tyreSetId } = parsed<{ tyreSetId: string }>(res, 'params');
-    res.status(201).json(await addMounting(ds, currentUser(req), tyreSetId, parsed<CreateMountingInput>(res, 'body')));
+    const { mounting, created } = await addMounting(ds, currentUser(req), tyreSetId, parsed<CreateMountingInput>(res, 'body'));
+    res.status(created ? 201 : 200).json(mounting);
   });
   return router;
 }

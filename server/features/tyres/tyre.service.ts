@@ -127,16 +127,19 @@ export async function listTyreSets(ds: DataSource, user: User, carId: string): P
   return toTyreSets(ds, sets);
 }
 
-export async function addMounting(ds: DataSource, user: User, tyreSetId: string, input: CreateMountingInput): Promise<TyreMounting> {
+/** `created` is false when this id was already saved (a phone sending its queued rotation again). */
+export async function addMounting(
+  ds: DataSource, user: User, tyreSetId: string, input: CreateMountingInput,
+): Promise<{ mounting: TyreMounting; created: boolean }> {
   await assertCarChildAccess(ds, user, 'tyre_sets', tyreSetId, 'write', 'That tyre set');
   const p = input.positions;
-  const { id } = await insertUnlessPresent(ds.manager, TyreMountingEntity, {
+  const { id, inserted } = await insertUnlessPresent(ds.manager, TyreMountingEntity, {
     ...(input.id ? { id: input.id } : {}),
     tyreSetId, mountedAt: new Date(input.mountedAt), lfTyre: p.lf, rfTyre: p.rf, lrTyre: p.lr, rrTyre: p.rr,
   });
   const saved = await ds.getRepository(TyreMountingEntity).findOneBy({ id: id ?? input.id! });
   if (!saved || saved.tyreSetId !== tyreSetId) throw new AppError('conflict', 'That rotation id is already in use.');
-  return toMounting(saved);
+  return { mounting: toMounting(saved), created: inserted };
 }
 
 /**
