@@ -10,7 +10,7 @@ import type { Role } from './auth.schema';
 export const ACCOUNT_LIST_LIMIT = 100;
 export const SUSPENSION_NOTE_MAX = 500;
 
-export const accountListQuerySchema = z.object({
+export const accountListQuerySchema = z.strictObject({
   q: z.optional(z.string().check(z.trim(), z.maxLength(80, 'Use at most 80 characters'))),
 });
 export type AccountListQuery = z.infer<typeof accountListQuerySchema>;

@@ -29,7 +29,7 @@ export const updateCommentInputSchema = z.strictObject({ body, version: versionS
 export type UpdateCommentInput = z.infer<typeof updateCommentInputSchema>;
 
 /** GET /api/comments?type=run&id=… (&carId=… for an event) */
-export const commentThreadQuerySchema = z.object({
+export const commentThreadQuerySchema = z.strictObject({
   type: z.enum(COMMENT_TARGETS),
   id: z.uuid(),
   carId: z.optional(z.uuid()),

@@ -47,7 +47,7 @@ export const setFactorInputSchema = z.strictObject({
 });
 export type SetFactorInput = z.infer<typeof setFactorInputSchema>;
 
-export const seasonQuerySchema = z.object({ season: z.optional(seasonSchema) });
+export const seasonQuerySchema = z.strictObject({ season: z.optional(seasonSchema) });
 export type SeasonQuery = z.infer<typeof seasonQuerySchema>;
 
 export interface TeamSummary {

@@ -47,7 +47,7 @@ export const updateWorkOrderInputSchema = z.strictObject({
 });
 export type UpdateWorkOrderInput = z.infer<typeof updateWorkOrderInputSchema>;
 
-export const workOrderListQuerySchema = z.object({ status: z.optional(z.enum(WORK_ORDER_STATUSES)) });
+export const workOrderListQuerySchema = z.strictObject({ status: z.optional(z.enum(WORK_ORDER_STATUSES)) });
 
 /** A part (quantity × unit price) or labour (hours × hourly rate). */
 export const workOrderLineSchema = z.strictObject({

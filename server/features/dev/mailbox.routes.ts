@@ -6,7 +6,7 @@ import type { MailboxFile, MailboxMessage } from '@shared/collab/mailbox.schema'
 import { list } from '../../lib/http';
 import { parsed, validate } from '../../lib/validate';
 
-const querySchema = z.object({
+const querySchema = z.strictObject({
   to: z.optional(z.string().check(z.trim(), z.toLowerCase(), z.maxLength(254, 'An e-mail address has at most 254 characters'))),
 });
 

@@ -10,7 +10,7 @@ import { unsubscribeByToken } from '../users/user.service';
 import { acceptInvitation, previewInvitation } from './invitation.service';
 
 /** A link token is base64url; anything else names no invitation (404). */
-const tokenParam = z.object({
+const tokenParam = z.strictObject({
   token: z.string().check(z.minLength(20), z.maxLength(200), z.regex(/^[A-Za-z0-9_-]+$/)),
 });
 type TokenParam = z.infer<typeof tokenParam>;

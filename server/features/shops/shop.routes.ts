@@ -14,7 +14,7 @@ import {
   updateShopSettings,
 } from './shop.service';
 
-const shopListQuery = z.object({ q: z.optional(z.string().check(z.maxLength(80, 'Use at most 80 characters'))) });
+const shopListQuery = z.strictObject({ q: z.optional(z.string().check(z.maxLength(80, 'Use at most 80 characters'))) });
 
 /** Routes under /api/shops. */
 export function shopRoutes(ds: DataSource, mail?: MailSettings) {

@@ -63,7 +63,7 @@ export function workOrderRoutes(ds: DataSource, mail?: MailSettings) {
   });
   router.put(
     '/:workOrderId/measurements/:stage',
-    validate({ params: z.object({ workOrderId: z.uuid(), stage: stageSchema }), body: measurementsInputSchema }),
+    validate({ params: z.strictObject({ workOrderId: z.uuid(), stage: stageSchema }), body: measurementsInputSchema }),
     async (req, res) => {
       const { workOrderId, stage } = parsed<{ workOrderId: string; stage: Stage }>(res, 'params');
       res.json(await putMeasurements(ds, currentUser(req), workOrderId, stage, parsed<MeasurementsInput>(res, 'body')));

@@ -207,6 +207,28 @@ describe('field names and nesting that trip JavaScript itself', () => {
     expect(list.body.error.fieldErrors.constructor).toEqual(['Unknown field']);
   }, 120_000);
 
+  it('when a GET route that reads a query is sent a parameter it does not know, then 400 names that parameter', async () => {
+    const someId = '00000000-0000-4000-8000-000000000000';
+    const paths = [
+      '/api/admin/users?q=a',
+      `/api/teams/${someId}/factors?season=2026`,
+      `/api/teams/${someId}/board?season=2026`,
+      '/api/shops?q=a',
+      `/api/attachments?targetType=event&targetId=${d.eventId}`,
+      `/api/comments?type=event&id=${d.eventId}`,
+      `/api/runs?eventId=${d.eventId}`,
+      `/api/shops/${someId}/work-orders?status=open`,
+      `/api/cars/${d.carId}/season?minDepthMm=2`,
+      `/api/cars/${d.carId}/analysis/scatter?x=damperClicks&y=time`,
+      `/api/events/${d.eventId}/summary`,
+    ];
+    for (const path of paths) {
+      const res = await (path.startsWith('/api/admin/') ? admin.c : d.c).get(`${path}${path.includes('?') ? '&' : '?'}sortBy=time`);
+      expect(res.status, `${path} → ${JSON.stringify(res.body)}`).toBe(400);
+      expect(res.body.error.fieldErrors, path).toEqual({ sortBy: ['Unknown field'] });
+    }
+  });
+
   it('when a body is nested thousands of levels deep, in a form or in a season file, then 400 says where it goes too deep and nothing is written', async () => {
     const before = await totalRows();
     const deep = `${'['.repeat(20_000)}${']'.repeat(20_000)}`;
