@@ -73,7 +73,7 @@ function sendFile(res: Response, file: FileBytes) {
 
 /**
  * Routes under /api/attachments: photos and PDFs on tread readings, runs, setups and events.
- * Without a storage (not configured) they answer 503.
+ * Without a storage (not configured) uploading, reading a file and deleting answer 503; the list still answers.
  */
 export function attachmentRoutes(ds: DataSource, storage: FileStorage | undefined, limits: Pick<AuthRateLimits, 'beforeUpload'>) {
   const router = Router();
