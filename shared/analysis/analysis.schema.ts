@@ -92,8 +92,11 @@ export interface Comparison {
   enough: boolean;
   /** The verdict in words, in the API's units (mm, %). */
   verdict: string;
-  /** What was measured and which way is better: enough for a client to say the verdict again in the user's units. */
-  about?: { what: string; betterWhen: 'lower' | 'higher' };
+  /**
+   * What was measured, which way is better and what each group counts (runs, or intervals between two tread
+   * readings): enough for a client to say the verdict again in the user's units.
+   */
+  about?: { what: string; betterWhen: 'lower' | 'higher'; counted: string };
 }
 
 export interface CompareResult {

@@ -11,7 +11,7 @@
  */
 import { gammaln, mean, sampleVariance } from 'simple-statistics';
 import { requireFinite, requirePositive } from './input-checks.calc';
-import { formatFixed, formatP } from './display';
+import { formatFixed } from './display';
 
 export interface SampleSummary {
   n: number;
@@ -159,18 +159,20 @@ function autoDecimals(before: number, after: number): number {
 
 /**
  * One plain sentence on a before/after comparison, e.g.
- * "Inner-edge wear fell from 0.088 to 0.046 mm per run (n = 4 and 4; p = 0.01): a clear change. That's an improvement."
- * p < 0.05 → "a clear change"; 0.05–0.2 → "a hint, not yet sure"; above → "could be chance". With fewer than 3
- * readings in a group: "Not enough data yet: 2 readings before and 1 after." `decimals` overrides the automatic
- * number of decimals (two significant figures of the change).
+ * "Inner-edge wear fell from 0.088 to 0.046 mm per run: a clear change. That's an improvement."
+ * p < 0.05 → "a clear change"; 0.05–0.2 → "a hint, not yet sure"; above → "could be chance". The counts and p are
+ * shown beside it, not in it. With fewer than 3 in a group: "Not enough data yet: 2 readings before and 1 after."
+ * `counted` names what each group holds (one reading, run or interval; "reading" when not given); `decimals`
+ * overrides the automatic number of decimals (two significant figures of the change).
  */
 export function verdict(
   comparison: SampleComparison,
-  options: { betterWhen: 'lower' | 'higher'; what: string; unit: string; decimals?: number },
+  options: { betterWhen: 'lower' | 'higher'; what: string; unit: string; counted?: string; decimals?: number },
 ): string {
   const { before, after, difference, pValue } = comparison;
+  const counted = options.counted ?? 'reading';
   if (!comparison.enough || before.mean === null || after.mean === null || difference === null) {
-    return `Not enough data yet: ${plural(before.n, 'reading')} before and ${after.n} after.`;
+    return `Not enough data yet: ${plural(before.n, counted)} before and ${after.n} after.`;
   }
   const what = options.what.trim();
   const subject = what.charAt(0).toUpperCase() + what.slice(1);
@@ -178,7 +180,6 @@ export function verdict(
   const decimals = options.decimals ?? autoDecimals(before.mean, after.mean);
   const from = formatFixed(before.mean, decimals);
   const to = formatFixed(after.mean, decimals);
-  const counts = `n = ${before.n} and ${after.n}`;
 
   const same = difference === 0 || from === to;
   const change = same
@@ -186,15 +187,15 @@ export function verdict(
     : `${subject} ${difference < 0 ? 'fell' : 'rose'} from ${from} to ${to}${unit}`;
 
   if (pValue === null) {
-    return `${change} (${counts}): every reading within each group was the same, so chance cannot be judged.`;
+    return `${change}, but each side's ${counted}s were all the same, so chance cannot be judged.`;
   }
   const better = (options.betterWhen === 'lower') === difference < 0;
   const direction = same ? '' : better ? "that's an improvement." : "that's a step back.";
   if (pValue < CLEAR_P) {
-    return `${change} (${counts}; ${formatP(pValue)}): a clear change.${direction ? ` ${direction.charAt(0).toUpperCase()}${direction.slice(1)}` : ''}`;
+    return `${change}: a clear change.${direction ? ` ${direction.charAt(0).toUpperCase()}${direction.slice(1)}` : ''}`;
   }
   if (pValue <= HINT_P) {
-    return `${change} (${counts}; ${formatP(pValue)}): a hint, not yet sure.${direction ? ` If it holds, ${direction}` : ''}`;
+    return `${change}: a hint, not yet sure.${direction ? ` If it holds, ${direction}` : ''}`;
   }
-  return `${change} (${counts}; ${formatP(pValue)}): could be chance.`;
+  return `${change}: could be chance.`;
 }

@@ -223,9 +223,11 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
   };
 }
 
-function comparison(before: number[], after: number[], words: { what: string; unit: string; betterWhen: 'lower' | 'higher' }): Comparison {
+function comparison(
+  before: number[], after: number[], words: { what: string; unit: string; betterWhen: 'lower' | 'higher'; counted: string },
+): Comparison {
   const c = compareSamples(before, after);
-  return { ...c, verdict: verdict(c, words), about: { what: words.what, betterWhen: words.betterWhen } };
+  return { ...c, verdict: verdict(c, words), about: { what: words.what, betterWhen: words.betterWhen, counted: words.counted } };
 }
 
 export async function compare(ds: DataSource, user: User, carId: string, q: CompareQuery): Promise<CompareResult> {
@@ -258,13 +260,13 @@ export async function compare(ds: DataSource, user: User, carId: string, q: Comp
     const label = corner.toUpperCase();
     corners[corner] = {
       wear: comparison(before.map((w) => (w.inner + w.middle + w.outer) / 3), after.map((w) => (w.inner + w.middle + w.outer) / 3), {
-        what: `${label} wear`, unit: 'mm per run', betterWhen: 'lower',
+        what: `${label} wear`, unit: 'mm per run', betterWhen: 'lower', counted: 'interval',
       }),
       innerWear: comparison(before.map((w) => w.inner), after.map((w) => w.inner), {
-        what: `${label} inner-edge wear`, unit: 'mm per run', betterWhen: 'lower',
+        what: `${label} inner-edge wear`, unit: 'mm per run', betterWhen: 'lower', counted: 'interval',
       }),
       skew: comparison(before.map((w) => w.inner - w.outer), after.map((w) => w.inner - w.outer), {
-        what: `${label} inner-minus-outer wear`, unit: 'mm per run', betterWhen: 'lower',
+        what: `${label} inner-minus-outer wear`, unit: 'mm per run', betterWhen: 'lower', counted: 'interval',
       }),
     };
   }
@@ -272,7 +274,7 @@ export async function compare(ds: DataSource, user: User, carId: string, q: Comp
   const time = comparison(
     timed.filter((r) => r.recordedAt < split).map((r) => r.pctOffBest),
     timed.filter((r) => r.recordedAt >= split).map((r) => r.pctOffBest),
-    { what: "% off the day's best", unit: '%', betterWhen: 'lower' },
+    { what: "% off the day's best", unit: '%', betterWhen: 'lower', counted: 'run' },
   );
   return { splitAt: split, change, corners, time };
 }

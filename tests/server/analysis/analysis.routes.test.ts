@@ -101,9 +101,9 @@ describe('GET /api/cars/:carId/analysis/compare', () => {
       expect(inner.pValue).toBeLessThan(0.05);
       expect(inner.verdict).toMatch(/inner-edge wear/i);
       // With what it measured and which way is better, so a client can say it again in its user's units.
-      expect(inner.about).toEqual({ what: `${corner.toUpperCase()} inner-edge wear`, betterWhen: 'lower' });
+      expect(inner.about).toEqual({ what: `${corner.toUpperCase()} inner-edge wear`, betterWhen: 'lower', counted: 'interval' });
     }
-    expect(res.body.time.about).toEqual({ what: "% off the day's best", betterWhen: 'lower' });
+    expect(res.body.time.about).toEqual({ what: "% off the day's best", betterWhen: 'lower', counted: 'run' });
     // Time: the clean finished runs, each on one side of the change.
     const runs = (await maren.get(`/api/runs?carId=${carId}`)).body.items as { cones: number; status: string }[];
     expect(res.body.time.before.n + res.body.time.after.n).toBe(runs.filter((r) => r.status === 'finished' && r.cones === 0).length);

@@ -211,30 +211,30 @@ describe('verdict', () => {
   const wear = { betterWhen: 'lower' as const, what: 'inner-edge wear', unit: 'mm per run' };
 
   it.each([
-    [0.01, 'Inner-edge wear fell from 0.088 to 0.046 mm per run (n = 4 and 4; p = 0.01): a clear change. That\'s an improvement.'],
-    [0.1, 'Inner-edge wear fell from 0.088 to 0.046 mm per run (n = 4 and 4; p = 0.1): a hint, not yet sure. If it holds, that\'s an improvement.'],
-    [0.4, 'Inner-edge wear fell from 0.088 to 0.046 mm per run (n = 4 and 4; p = 0.4): could be chance.'],
+    [0.01, 'Inner-edge wear fell from 0.088 to 0.046 mm per run: a clear change. That\'s an improvement.'],
+    [0.1, 'Inner-edge wear fell from 0.088 to 0.046 mm per run: a hint, not yet sure. If it holds, that\'s an improvement.'],
+    [0.4, 'Inner-edge wear fell from 0.088 to 0.046 mm per run: could be chance.'],
   ])('when p = %s, then "%s" (our wording: < 0.05 clear, 0.05–0.2 a hint, else chance)', (p, sentence) => {
     expect(verdict(comparison(p, 0.088, 0.046), wear)).toBe(sentence);
   });
 
   it('when the change goes the wrong way, then the sentence says it is a step back', () => {
     expect(verdict(comparison(0.003, 0.046, 0.088), wear)).toBe(
-      'Inner-edge wear rose from 0.046 to 0.088 mm per run (n = 4 and 4; p = 0.003): a clear change. That\'s a step back.',
+      'Inner-edge wear rose from 0.046 to 0.088 mm per run: a clear change. That\'s a step back.',
     );
-    expect(verdict(comparison(0.003, 45.2, 44.1), { betterWhen: 'higher', what: 'grip', unit: 'g' })).toMatch(/fell from 45\.2 to 44\.1 g .*step back/);
+    expect(verdict(comparison(0.003, 45.2, 44.1), { betterWhen: 'higher', what: 'grip', unit: 'g' })).toMatch(/fell from 45\.2 to 44\.1 g: .*step back/);
   });
 
   it('when a mean is below zero, then it is written with a true minus (U+2212), and a mean that rounds to zero with none', () => {
     const skew = { betterWhen: 'lower' as const, what: 'inner-minus-outer wear', unit: 'mm per run' };
     expect(verdict(comparison(0.11, 0.016, -0.003), skew)).toBe(
-      'Inner-minus-outer wear fell from 0.016 to \u22120.003 mm per run (n = 4 and 4; p = 0.11): a hint, not yet sure. If it holds, that\'s an improvement.',
+      'Inner-minus-outer wear fell from 0.016 to \u22120.003 mm per run: a hint, not yet sure. If it holds, that\'s an improvement.',
     );
     expect(verdict(comparison(0.11, 0.016, -0.0001), { ...skew, decimals: 3 })).toMatch(/ to 0\.000 mm per run/);
   });
 
   it('when the means are equal, then it says so and claims neither better nor worse', () => {
-    expect(verdict(comparison(0.9, 0.05, 0.05), wear)).toBe('Inner-edge wear was 0.0500 mm per run before and after (n = 4 and 4; p = 0.9): could be chance.');
+    expect(verdict(comparison(0.9, 0.05, 0.05), wear)).toBe('Inner-edge wear was 0.0500 mm per run before and after: could be chance.');
   });
 
   it('when decimals are given, then the means are shown with that many', () => {
@@ -244,17 +244,19 @@ describe('verdict', () => {
   it('when there are too few readings, then "Not enough data yet: 2 readings before and 1 after."', () => {
     expect(verdict(compareSamples([0.08, 0.09], [0.05]), wear)).toBe('Not enough data yet: 2 readings before and 1 after.');
     expect(verdict(compareSamples([0.08], [0.05, 0.06, 0.05]), wear)).toBe('Not enough data yet: 1 reading before and 3 after.');
+    expect(verdict(compareSamples([0.08], [0.05]), { ...wear, counted: 'interval' })).toBe('Not enough data yet: 1 interval before and 1 after.');
   });
 
-  it('when p is tiny, then "p < 0.001"; when the readings are real, then the sentence is built from compareSamples', () => {
+  it('when p is tiny, then the sentence is built from compareSamples and calls it clear, with no statistics in its words', () => {
     const r = compareSamples([0.085, 0.09, 0.088, 0.089], [0.044, 0.048, 0.046, 0.046]);
-    expect(verdict(r, wear)).toBe('Inner-edge wear fell from 0.088 to 0.046 mm per run (n = 4 and 4; p < 0.001): a clear change. That\'s an improvement.');
+    expect(verdict(r, wear)).toBe('Inner-edge wear fell from 0.088 to 0.046 mm per run: a clear change. That\'s an improvement.');
   });
 
   it('when each group has no spread at all, then the verdict says chance cannot be judged instead of claiming a change', () => {
     expect(verdict(compareSamples([2, 2, 2], [3, 3, 3]), { betterWhen: 'lower', what: 'cones', unit: '' })).toBe(
-      'Cones rose from 2.0 to 3.0 (n = 3 and 3): every reading within each group was the same, so chance cannot be judged.',
+      "Cones rose from 2.0 to 3.0, but each side's readings were all the same, so chance cannot be judged.",
     );
+    expect(verdict(compareSamples([2, 2, 2], [3, 3, 3]), { betterWhen: 'lower', what: 'cones', unit: '', counted: 'run' })).toMatch(/each side's runs were all the same/);
   });
 
   it('when any comparison is described, then it claims "clear" only below p = 0.05, and never judges better/worse when it could be chance (property)', () => {
@@ -264,7 +266,8 @@ describe('verdict', () => {
         expect(text.includes('a clear change')).toBe(p < 0.05);
         expect(text.includes('a hint, not yet sure')).toBe(p >= 0.05 && p <= 0.2);
         if (p > 0.2) expect(text).not.toMatch(/improvement|step back/);
-        expect(text).toMatch(/\(n = 4 and 4; p [=<] /);
+        // The counts and p are shown beside the sentence (compare-section.tsx), not in it.
+        expect(text).not.toMatch(/\bn = |\bp [=<] /);
       }),
     );
   });

@@ -2,7 +2,7 @@ import { useId, useState, type ReactNode } from 'react';
 import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
 import { formatFixed, formatP } from '@shared/calc/display';
 import { unitFor, type UnitPreferences } from '@shared/calc/units.calc';
-import { verdict } from '@shared/calc/comparison.calc';
+import { CLEAR_P, HINT_P, verdict } from '@shared/calc/comparison.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import type { Setup } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
@@ -58,15 +58,15 @@ function differenceText(c: Comparison, scale: Scale): string | null {
   if (c.difference === null) return null;
   const arrow = c.difference > 0 ? '▲' : c.difference < 0 ? '▼' : '±';
   const parts = [`Change ${arrow} ${scale.number(Math.abs(c.difference))}${scale.suffix}`];
-  if (c.pValue !== null) {
-    const df = c.degreesOfFreedom === null ? '' : `, df ${c.degreesOfFreedom.toFixed(1)}`;
-    parts.push(`${formatP(c.pValue)} (Welch's t-test${df})`);
-  }
+  if (c.pValue !== null) parts.push(formatP(c.pValue));
   return parts.join(' · ');
 }
 
-/** Before → after for one measurement: n, mean ± sd on each side, the change, and the verdict in the user's units. */
-function Measure({ title, comparison, scale, emphasis = false }: { title: string; comparison: Comparison; scale: Scale; emphasis?: boolean }) {
+/** "5 intervals", "1 run": how many each side's average is taken over. */
+const countOf = (n: number, counted: string) => `${n} ${counted}${n === 1 ? '' : 's'}`;
+
+/** Before → after for one measurement: the average ± spread and its count on each side, the change, and the verdict in the user's units. */
+function Measure({ title, comparison, scale, counted, emphasis = false }: { title: string; comparison: Comparison; scale: Scale; counted: string; emphasis?: boolean }) {
   const difference = differenceText(comparison, scale);
   return (
     <div className={cn('flex flex-col gap-1', emphasis && 'rounded bg-surface-raised p-2')}>
@@ -74,11 +74,11 @@ function Measure({ title, comparison, scale, emphasis = false }: { title: string
       <dl className="tabular-figures grid grid-cols-[auto_1fr] gap-x-2 gap-y-0.5 text-sm">
         <dt className="font-semibold">Before</dt>
         <dd>
-          {statsText(comparison.before, scale)} <span className="text-ink-muted">(n = {comparison.before.n})</span>
+          {statsText(comparison.before, scale)} <span className="text-ink-muted">({countOf(comparison.before.n, counted)})</span>
         </dd>
         <dt className="font-semibold">After</dt>
         <dd>
-          {statsText(comparison.after, scale)} <span className="text-ink-muted">(n = {comparison.after.n})</span>
+          {statsText(comparison.after, scale)} <span className="text-ink-muted">({countOf(comparison.after.n, counted)})</span>
         </dd>
       </dl>
       {difference ? <p className="tabular-figures text-xs text-ink-muted">{difference}</p> : null}
@@ -156,9 +156,9 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
     const c = result.corners[corner];
     return (
       <div className="flex flex-col gap-3">
-        <Measure title="Inner-edge wear" comparison={c.innerWear} scale={wear} emphasis />
-        <Measure title="Overall wear" comparison={c.wear} scale={wear} />
-        <Measure title="Inner minus outer" comparison={c.skew} scale={wear} />
+        <Measure title="Inner-edge wear" comparison={c.innerWear} scale={wear} counted="interval" emphasis />
+        <Measure title="Overall wear" comparison={c.wear} scale={wear} counted="interval" />
+        <Measure title="Inner minus outer" comparison={c.skew} scale={wear} counted="interval" />
       </div>
     );
   };
@@ -166,12 +166,14 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
     <div className="flex flex-col gap-4">
       <p className="text-sm text-ink-muted">
         Split at <span className="tabular-figures font-semibold text-ink">{formatDateTime(result.splitAt)}</span>. Wear is
-        measured between two tread readings; an interval whose runs straddle the change counts on neither side. ± is one
-        standard deviation; n is the number of intervals (or runs, for time).
+        measured over each interval between two tread readings; an interval whose runs straddle the change counts on
+        neither side. Each side shows its average ± the usual spread (one standard deviation). p is how often a change this
+        large would turn up by chance alone, with nothing changed on the car (Welch&apos;s t-test): under {CLEAR_P} is called a
+        clear change, up to {HINT_P} a hint.
       </p>
       {sideBySide ? <CornerGrid label={label} renderCorner={renderCorner} /> : <StackedCorners label={label} renderCorner={renderCorner} />}
       <div className="flex flex-col gap-1 rounded border border-line p-3">
-        <Measure title="Time: % off the day's best, per run" comparison={result.time} scale={PERCENT_SCALE} />
+        <Measure title="Time: % off the day's best, per run" comparison={result.time} scale={PERCENT_SCALE} counted="run" />
       </div>
     </div>
   );

@@ -85,11 +85,12 @@ function pointRows(result: ScatterResult, plot: ScatterPlot, x: Axis, y: Axis): 
 }
 
 function Caption({ result }: { result: ScatterResult }) {
-  const what = result.y.metric === 'time' ? 'runs' : 'wear intervals (between two tread readings)';
+  const s = result.n === 1 ? '' : 's';
+  const what = result.y.metric === 'time' ? `run${s}` : `wear interval${s} (between two tread readings)`;
   return (
     <p className="tabular-figures text-sm">
       <span className="font-semibold">
-        n = {result.n} {what}
+        {result.n} {what}
       </span>
       {' · '}
       {result.fit ? (

@@ -58,7 +58,7 @@ function TyreSetLife({ entry }: { entry: TyreLifeEntry }) {
           {runsLeft}
         </Row>
         <Row term="Fit">
-          n = {entry.n} {entry.n === 1 ? 'reading' : 'readings'}
+          {entry.n} {entry.n === 1 ? 'reading' : 'readings'}
           {entry.r2 === null ? '' : `, r² = ${entry.r2.toFixed(2)}`}
           {entry.n === 2 ? <span className="text-ink-muted"> (two readings always fit a line exactly)</span> : null}
         </Row>

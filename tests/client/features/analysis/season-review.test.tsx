@@ -198,7 +198,7 @@ function renderPage(units: UnitPreferences = METRIC_PREFERENCES) {
 const section = (name: string) => within(screen.getByRole('region', { name }));
 
 describe('season review: setup against time and wear', () => {
-  it('when "Show as table" is pressed, then the same points are listed in a table with units, and the caption gives n and r²', async () => {
+  it('when "Show as table" is pressed, then the same points are listed in a table with units, and the caption gives the count and r²', async () => {
     stub();
     const u = renderPage();
     const scatter = section('Setup against time and wear');
@@ -206,7 +206,7 @@ describe('season review: setup against time and wear', () => {
     // The chart (lazily loaded) gets one dataset per event and the fitted line as another.
     const chart = await scatter.findByRole('img', { name: /Scatter plot of Camber/ });
     expect(chart.textContent).toMatch(/^Harrow Flats — Round 3 \(.+\): 2; Harrow Flats — Round 4 \(.+\): 1; Fitted line: 2$/);
-    expect(scatter.getByText(/n = 3 runs/).closest('p')?.textContent).toMatch(/n = 3 runs · fitted straight line, r² = 0\.52/);
+    expect(scatter.getByText(/3 runs/).closest('p')?.textContent).toMatch(/^3 runs · fitted straight line, r² = 0\.52/);
     expect(scatter.getByText("% off that driver's best at the same event.")).toBeTruthy();
     expect(scatter.queryByRole('table')).toBeNull();
 
@@ -248,7 +248,7 @@ describe('season review: setup against time and wear', () => {
     await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
     await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
     await waitFor(() => expect(scatter.getByText(/not enough data yet for a fitted line/)).toBeTruthy());
-    expect(scatter.getByText(/n = 2 wear intervals/)).toBeTruthy();
+    expect(scatter.getByText(/^2 wear intervals/)).toBeTruthy();
     expect(requestsTo(fetch, scatterPath('coldPressure', 'wear'))).toHaveLength(1);
 
     await u.click(scatter.getByRole('button', { name: 'Show as table' }));
@@ -319,7 +319,7 @@ describe('season review: setup against time and wear', () => {
 describe('season review: before and after a change, read in 1/32 in', () => {
   it('when the user reads tread in 1/32 in, then each wear verdict is said again in 1/32 in, never in mm beside numbers in 1/32 in', async () => {
     const answer = compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber');
-    answer.corners.lf.innerWear = { ...answer.corners.lf.innerWear, about: { what: 'LF inner-edge wear', betterWhen: 'lower' } };
+    answer.corners.lf.innerWear = { ...answer.corners.lf.innerWear, about: { what: 'LF inner-edge wear', betterWhen: 'lower', counted: 'interval' } };
     stub({ [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_CAMBER.id}`]: jsonResponse(200, answer) });
     renderPage(IMPERIAL_PREFERENCES);
     const compare = section('Before and after a change');
@@ -327,7 +327,7 @@ describe('season review: before and after a change, read in 1/32 in', () => {
 
     // 1/32 in = 0.79375 mm (25.4 mm per inch, by definition): 0.060 mm = 0.0756/32 in and 0.045 mm = 0.0567/32 in,
     // written to two significant figures of the change (0.019), as the server writes its own.
-    expect(lf.getByText("LF inner-edge wear fell from 0.076 to 0.057 /32 in per run (n = 5 and 4; p = 0.0055): a clear change. That's an improvement.")).toBeTruthy();
+    expect(lf.getByText("LF inner-edge wear fell from 0.076 to 0.057 /32 in per run: a clear change. That's an improvement.")).toBeTruthy();
     expect(lf.queryByText(/inner-edge wear.*mm per run/)).toBeNull();
     // A measurement the server sent without its words keeps the server's sentence.
     expect(lf.getByText('Camber: LF wear barely moved.')).toBeTruthy();
@@ -335,7 +335,7 @@ describe('season review: before and after a change, read in 1/32 in', () => {
 });
 
 describe('season review: before and after a change', () => {
-  it('when the page opens, then the latest camber change is compared and each corner shows n, mean ± sd and its verdict as written', async () => {
+  it('when the page opens, then the latest camber change is compared and each corner shows its counts, average ± spread, p and its verdict as written', async () => {
     stub();
     renderPage();
     const compare = section('Before and after a change');
@@ -349,19 +349,22 @@ describe('season review: before and after a change', () => {
       expect(corner.getByText(`Camber: ${label} inner-edge wear fell by 0.015 mm per run, give or take 0.007.`)).toBeTruthy();
       expect(corner.getByText(`Camber: ${label} wear barely moved.`)).toBeTruthy();
       expect(corner.getByText(`Camber: ${label} inner-minus-outer wear fell.`)).toBeTruthy();
-      expect(corner.getAllByText(`(n = ${CORNER_N[c][0]})`).length).toBe(3);
-      expect(corner.getAllByText(`(n = ${CORNER_N[c][1]})`).length).toBe(3);
+      const intervals = (n: number) => `(${n} interval${n === 1 ? '' : 's'})`;
+      expect(corner.getAllByText(intervals(CORNER_N[c][0])).length).toBe(3);
+      expect(corner.getAllByText(intervals(CORNER_N[c][1])).length).toBe(3);
     }
     // Mean ± sd, in mm per run, before and after.
     const lf = within(compare.getByRole('group', { name: 'Left front' }));
     expect(lf.getByText('0.060 ± 0.010 mm per run', { exact: false })).toBeTruthy();
     expect(lf.getByText('0.045 ± 0.008 mm per run', { exact: false })).toBeTruthy();
-    // p as the server's sentences write it (two significant figures, formatP), not to three decimals (0.005).
-    expect(lf.getAllByText(/· p = 0\.0055 \(Welch's t-test, df 6\.4\)/).length).toBe(3);
+    // p to two significant figures (formatP), not to three decimals (0.005), and said once what it means.
+    expect(lf.getAllByText(/· p = 0\.0055$/).length).toBe(3);
+    expect(compare.getByText(/p is how often a change this large would turn up by chance alone/).textContent).toMatch(/under 0\.05 is called a clear change, up to 0\.2 a hint/);
+    expect(compare.queryByText(/\bdf\b|\(n = /)).toBeNull();
     // The time comparison below, with its uncertainty.
     expect(compare.getByText("Camber: % off the day's best fell by 0.51 %, not enough to rule out chance.")).toBeTruthy();
     expect(compare.getByText(/2\.31 ± 1\.10 %/)).toBeTruthy();
-    expect(compare.getByText('(n = 24)')).toBeTruthy();
+    expect(compare.getByText('(24 runs)')).toBeTruthy();
   });
 
   it('when the screen is narrow, then the corners come one under another, front first, each headed by its name', async () => {
@@ -468,7 +471,7 @@ describe('season review: tyre life', () => {
     expect(setA.getByText('0.050 mm per run')).toBeTruthy();
     expect(setA.getByText('Runs left to 1.6 mm:')).toBeTruthy();
     expect(setA.getByText('about 32 runs (a straight-line estimate)')).toBeTruthy();
-    expect(setA.getByText(/n = 4 readings, r² = 0\.97/)).toBeTruthy();
+    expect(setA.getByText(/^4 readings, r² = 0\.97/)).toBeTruthy();
 
     const setB = within(life.getByRole('article', { name: 'Set B — fresh' }));
     expect(setB.getAllByText('not enough readings yet')).toHaveLength(2);
