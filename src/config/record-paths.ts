@@ -2,8 +2,13 @@
  * Addresses of one record's pages that only other pages (not the event day nor Home) link to, kept out of
  * the first download; the rest are `pathTo` in `paths.ts`.
  */
+/** On a car's page: show its edit page instead. */
+export const EDIT_PARAM = 'edit';
+
 export const recordPath = {
   review: (carId: string) => `/cars/${carId}/review`,
+  /** The car's own details (name, class, adjusters), and deleting it: its owner only. */
+  editCar: (carId: string) => `/cars/${carId}?${EDIT_PARAM}=1`,
   /** Fix a setup the server refused: the editor reopens the stored entry. */
   fixSetup: (carId: string, entryKey: string) => `/cars/${carId}/setups/new?fix=${encodeURIComponent(entryKey)}`,
   tread: (carId: string, tyreSetId?: string | null) =>

@@ -133,7 +133,11 @@ export function setUpAppTests(pages: readonly (() => Promise<unknown>)[] = [], {
       for (const load of pages) await load();
     }, 30_000);
   }
-  beforeEach(() => dropCsrfToken());
+  beforeEach(() => {
+    dropCsrfToken();
+    // jsdom draws nothing and has no scrolling; a page opened by a link asks for its top (use-new-page-at-top.ts).
+    vi.stubGlobal('scrollTo', () => {});
+  });
   afterEach(async () => {
     await clearTestOutboxes();
     cleanup();

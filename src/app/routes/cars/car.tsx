@@ -1,9 +1,9 @@
-import { useMemo, useState } from 'react';
+import { lazy, Suspense, useMemo, useState } from 'react';
 import { Link, Navigate, useLocation, useNavigate, useParams, useSearchParams } from 'react-router-dom';
-import { ChartScatter, FileUp, Plus, Ruler } from 'lucide-react';
+import { ChartScatter, FileUp, Plus, Ruler, Settings } from 'lucide-react';
 import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
-import { recordPath } from '@/config/record-paths';
+import { EDIT_PARAM, recordPath } from '@/config/record-paths';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
@@ -115,15 +115,26 @@ function DataSection({ carId }: { carId: string }) {
 }
 
 /** One car: its setup history, its tyres, its drivers, and its change log. */
+// The car's own details and deleting it (`?edit=1`), loaded only when asked for.
+const EditCarPage = lazy(async () => ({ default: (await import('./car-details-pages')).EditCarPage }));
+
 export function CarPage() {
   const { carId = '' } = useParams();
   const { data: car, isPending, isError, error } = useCar(carId);
   const { data: me } = useMe();
   const location = useLocation();
+  const [params] = useSearchParams();
   // Shop staff reading a customer's car (a link to a setup, a comment, an old address) get the shop's page of it,
   // where nothing offers them a driver's change they may not make; the thread or setup asked for comes with it.
   if (car && me && !drivesCar(car, me.id)) return <Navigate to={`${recordPath.shopCustomer(carId)}${location.search}${location.hash}`} replace />;
   if (!car && carIsHidden(error)) return <CarNotFound />;
+  if (params.has(EDIT_PARAM)) {
+    return (
+      <Suspense fallback={<p className="text-ink-muted">Loading…</p>}>
+        <EditCarPage />
+      </Suspense>
+    );
+  }
   return (
     <div className="flex flex-col gap-6">
       <title>{`${car?.name ?? 'Car'} · Scrubline`}</title>
@@ -147,6 +158,11 @@ export function CarPage() {
         <Link to={recordPath.importResults(carId)} className={buttonClasses('secondary')}>
           <FileUp aria-hidden="true" className="size-5" /> Import results
         </Link>
+        {car && me && car.owner.id === me.id ? (
+          <Link to={recordPath.editCar(carId)} className={buttonClasses('secondary')}>
+            <Settings aria-hidden="true" className="size-5" /> Edit car
+          </Link>
+        ) : null}
       </CarHeader>
       <div className="grid gap-4 lg:grid-cols-2">
         <SectionBoundary title="Setup history">

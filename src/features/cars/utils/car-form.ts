@@ -1,6 +1,6 @@
 import * as z from '@shared/zod';
 import { AXLES, type Axle } from '@shared/season/corners';
-import { createCarInputSchema, DAMPER_COUNT_FROM, type CreateCarInput, type DamperAdjuster } from '@shared/season/car.schema';
+import { createCarInputSchema, DAMPER_COUNT_FROM, type Car, type CreateCarInput, type DamperAdjuster } from '@shared/season/car.schema';
 import { LIMITS } from '@shared/season/limits';
 import { parseDecimal, typeANumber } from '@/lib/numbers';
 import { addIssue } from '@/lib/form-schema';
@@ -30,6 +30,25 @@ export function emptyCarForm(): CarFormValues {
     damperAdjusters: { front: { positions: '', countFrom: 'full_stiff' }, rear: { positions: '', countFrom: 'full_stiff' } },
     motionRatios: { front: '', rear: '' },
     notes: '',
+  };
+}
+
+/** A saved car as the form shows it, to be edited: an axle with no adjuster has its clicks left empty. */
+export function carToForm(car: Car): CarFormValues {
+  const empty = emptyCarForm();
+  const adjuster = (axle: Axle) => {
+    const a = car.damperAdjusters[axle];
+    return a ? { positions: String(a.positions), countFrom: a.countFrom } : empty.damperAdjusters[axle];
+  };
+  const ratio = (axle: Axle) => (car.motionRatios[axle] === null ? '' : String(car.motionRatios[axle]));
+  return {
+    name: car.name,
+    classCode: car.classCode,
+    carNumber: car.carNumber ?? '',
+    tyreSize: car.tyreSize ?? '',
+    damperAdjusters: { front: adjuster('front'), rear: adjuster('rear') },
+    motionRatios: { front: ratio('front'), rear: ratio('rear') },
+    notes: car.notes ?? '',
   };
 }
 

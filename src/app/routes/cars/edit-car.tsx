@@ -1,0 +1,55 @@
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { ArrowLeft } from 'lucide-react';
+import { paths, pathTo } from '@/config/paths';
+import { PageMessage } from '@/components/ui/page-message';
+import { buttonClasses } from '@/components/ui/button';
+import { useMe } from '@/features/auth/api/get-me';
+import { useCar } from '@/features/cars/api/get-car';
+import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
+import { DeleteCar } from '@/features/cars/components/delete-car';
+import { EditCarForm } from '@/features/cars/components/edit-car-form';
+
+/** The car's own details and deleting it: its owner's page. A co-driver is told who can change it. */
+export function EditCarPage() {
+  const carId = useParams().carId!;
+  const navigate = useNavigate();
+  const { data: car, isPending, error } = useCar(carId);
+  const { data: me } = useMe();
+  if (!car && carIsHidden(error)) return <CarNotFound />;
+  if (car && me && car.owner.id !== me.id) {
+    return (
+      <PageMessage
+        variant="in-shell"
+        title={`Only ${car.owner.displayName} can change this car`}
+        actions={
+          <Link to={pathTo.car(carId)} className={buttonClasses('secondary')}>
+            Back to {car.name}
+          </Link>
+        }
+      >
+        <p>A car&rsquo;s details belong to its owner; ask them if something here is wrong.</p>
+      </PageMessage>
+    );
+  }
+  return (
+    <div className="flex flex-col gap-6">
+      <title>{`Edit ${car?.name ?? 'car'} · Scrubline`}</title>
+      <div className="flex flex-col gap-2">
+        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+          <ArrowLeft aria-hidden="true" className="size-4" /> {car?.name ?? 'Car'}
+        </Link>
+        <h1 className="text-3xl font-extrabold">Edit {car?.name ?? 'car'}</h1>
+      </div>
+      {car ? (
+        <>
+          <EditCarForm car={car} onSaved={() => void navigate(pathTo.car(carId))} />
+          <DeleteCar car={car} onDeleted={() => void navigate(paths.cars, { replace: true })} />
+        </>
+      ) : isPending ? (
+        <p className="text-ink-muted">Loading…</p>
+      ) : (
+        <p className="text-ink-muted">This car could not be loaded. Try again when you have signal.</p>
+      )}
+    </div>
+  );
+}
