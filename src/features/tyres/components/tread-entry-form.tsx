@@ -145,11 +145,14 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
   const reason = outbox.retryReason();
   const toUnit = (mm: number) => convert(mm, SI_UNITS.treadDepth, unitFor('treadDepth', units));
 
+  // At or below the wear bars: a depth that can be real (0 or more) and is not refused; a refused one (−2) has its
+  // own message and is no tyre's wear.
+  const atWearBars = (si: unknown, path: string): si is number => typeof si === 'number' && si >= 0 && si <= WEAR_BAR_MM && !errors[path];
   // Every position typed at or below the wear bars, in words: said in text, not by colour alone.
   const worn = CORNERS.flatMap((corner) =>
     positionsAcross(corner).flatMap((pos) => {
       const si = inputToSi(texts[corner][pos], 'treadDepth', units);
-      return typeof si === 'number' && si <= WEAR_BAR_MM ? [`${CORNER_NAMES[corner].toLowerCase()} ${POSITION_WORDS[pos]} (${formatQuantity(si, 'treadDepth', units)})`] : [];
+      return atWearBars(si, `corners.${corner}.${pos}`) ? [`${CORNER_NAMES[corner].toLowerCase()} ${POSITION_WORDS[pos]} (${formatQuantity(si, 'treadDepth', units)})`] : [];
     }),
   );
 
@@ -215,7 +218,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
                   const before = last?.corners[corner]?.[pos];
                   // No change is worked out from a reading that is refused (out of range, deeper than new).
                   const change = typeof si === 'number' && before !== undefined && !errors[path] ? formatDelta(si - before, 'treadDepth', units) : null;
-                  const low = typeof si === 'number' && si <= WEAR_BAR_MM;
+                  const low = atWearBars(si, path);
                   return (
                     <div key={pos} className="flex min-w-0 flex-col items-stretch gap-0.5 text-center">
                       <span className="text-xs font-semibold text-ink-muted" aria-hidden="true">

@@ -52,6 +52,22 @@ describe('tread entry', () => {
     expect(status.textContent).toContain('left rear outer (1.2 mm)');
   });
 
+  it('when a depth below zero is typed, then it is refused with the range alone, never called worn to the wear bars', async () => {
+    stub(METRIC_PREFERENCES);
+    renderApp(`/cars/${IDS.car}/tread?set=${IDS.tyreSet}`, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    Element.prototype.scrollIntoView ??= () => {};
+
+    await u.type(await screen.findByLabelText('Left front inner'), '-2');
+    expect(screen.queryByText(/At or below the wear bars/)).toBeNull();
+    await u.type(screen.getByLabelText('Left front middle'), '6');
+    await u.type(screen.getByLabelText('Left front outer'), '6');
+    await u.click(screen.getByRole('button', { name: 'Save tread reading' }));
+
+    expect(await screen.findByText(/Inner: -2 is out of range/)).toBeTruthy();
+    expect(screen.queryByText(/At or below the wear bars/)).toBeNull();
+  });
+
   it('when the reading is saved in 1/32 in, then the outbox holds it in mm with a device-made id', async () => {
     stub(IMPERIAL_PREFERENCES);
     const { outbox } = renderApp(`/cars/${IDS.car}/tread`, { outboxEntries: [blockingEntry()] });
