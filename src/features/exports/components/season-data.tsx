@@ -21,11 +21,42 @@ function readText(file: File): Promise<string> {
   });
 }
 
-/** A refusal in words: the server's message and the first few fields it named. */
+/** The file's lists, as one record of each is called; a record's place in its list is counted from 1. */
+const RECORD_WORDS: Record<string, string> = {
+  setups: 'Setup',
+  changes: 'Change-log entry',
+  events: 'Event',
+  runs: 'Run',
+  pressures: 'Pressure reading',
+  tyreSets: 'Tyre set',
+  mountings: 'rotation',
+  readings: 'tread reading',
+};
+
+/** A field's place in the file in words: `runs.3.rawTimeSec` → "Run 4, raw time sec". */
+function placeInFile(path: string): string {
+  const parts = path.split('.');
+  const words: string[] = [];
+  for (let i = 0; i < parts.length; i++) {
+    const part = parts[i]!;
+    const next = parts[i + 1];
+    if (RECORD_WORDS[part] && next !== undefined && /^\d+$/.test(next)) {
+      words.push(`${RECORD_WORDS[part]} ${Number(next) + 1}`);
+      i++;
+    } else {
+      words.push(part.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase());
+    }
+  }
+  const text = words.join(', ');
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+/** A refusal in words: the server's message and the first few places it named, each said once. */
 function describeError(error: unknown): string {
   if (!isApiError(error)) return 'The file could not be sent. Try again.';
-  const fields = Object.entries(error.fieldErrors).slice(0, 4).map(([path, messages]) => `${path}: ${messages.join('; ')}`);
-  const more = Object.keys(error.fieldErrors).length - fields.length;
+  const named = Object.entries(error.fieldErrors).filter(([, messages]) => messages.join(' ') !== error.message);
+  const fields = named.slice(0, 4).map(([path, messages]) => `${placeInFile(path)}: ${messages.join('; ')}`);
+  const more = named.length - fields.length;
   return [error.message, ...fields, ...(more > 0 ? [`and ${more} more`] : [])].join(' · ');
 }
 

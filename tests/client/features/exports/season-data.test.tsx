@@ -58,7 +58,29 @@ describe('your data, on the car page', () => {
     });
     const { router } = renderApp(CAR_PAGE);
     await userEvent.setup().upload(await screen.findByLabelText('Bring a car in from a Scrubline file'), jsonFile(FILE));
-    expect(await screen.findByText('This season file has records that point at nothing. · runs.0.eventId: No event in the file has this id')).toBeTruthy();
+    expect(await screen.findByText('This season file has records that point at nothing. · Run 1, event id: No event in the file has this id')).toBeTruthy();
     expect(router.state.location.pathname).toBe(CAR_PAGE);
+  });
+
+  it('when the server names the same problem as a field and as a whole, then it is said once; places deep in the file are counted from 1', SLOW, async () => {
+    const notOurs = 'This is not a Scrubline season file (its "format" should be "scrubline-season").';
+    stubCarPage(user(), {
+      'POST /api/cars/import': [
+        errorResponse(400, 'validation_failed', notOurs, { format: [notOurs] }),
+        errorResponse(400, 'validation_failed', 'This season file has values Scrubline cannot read.', {
+          'tyreSets.0.readings.11.takenAt': ['Use a date and time'],
+        }),
+      ],
+    });
+    renderApp(CAR_PAGE);
+    const u = userEvent.setup();
+    const picker = await screen.findByLabelText('Bring a car in from a Scrubline file');
+
+    await u.upload(picker, jsonFile(FILE));
+    expect((await screen.findByText(/is not a Scrubline season file/)).textContent).toBe(notOurs);
+    await u.upload(picker, jsonFile(FILE, 'again.json'));
+    expect(
+      await screen.findByText('This season file has values Scrubline cannot read. · Tyre set 1, tread reading 12, taken at: Use a date and time'),
+    ).toBeTruthy();
   });
 });
