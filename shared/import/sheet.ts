@@ -61,12 +61,29 @@ const filled = (row: readonly string[]) => row.filter((c) => c !== '').length;
 export class SheetError extends Error {}
 
 /**
+ * A file that is not text, read as text: a workbook saved as .xlsx or .ods is a zip archive, whose first
+ * bytes are "PK\x03\x04" (the ZIP local file header, PKWARE APPNOTE 4.3.7); an older .xls, a picture or a
+ * PDF holds NUL bytes, or bytes that are not UTF-8 and come out as U+FFFD.
+ */
+function notTextProblem(text: string): string | null {
+  if (text.startsWith('PK\u0003\u0004')) {
+    return 'This is a spreadsheet workbook (such as .xlsx or .ods), not text. Open it in your spreadsheet app, save it as CSV, and pick that file.';
+  }
+  // eslint-disable-next-line no-control-regex -- matching NUL is the point
+  const unreadable = (text.slice(0, 4096).match(/[\u0000\uFFFD]/g) ?? []).length;
+  if (unreadable > 4) return 'This file is not text: it may be an older workbook (.xls), a PDF or a picture. Save the results as CSV and pick that file.';
+  return null;
+}
+
+/**
  * Parses the text of a CSV/TSV file. Separator: comma, semicolon or tab, whichever the file
  * uses consistently. A byte-order mark is dropped. Quoted fields may hold separators.
- * @throws SheetError when no header line (two or more named columns) is found.
+ * @throws SheetError when the file is not text (a workbook) or no header line (two or more named columns) is found.
  */
 export function parseSheet(text: string): Sheet {
   const clean = text.replace(/^\uFEFF/, '');
+  const notText = notTextProblem(clean);
+  if (notText) throw new SheetError(notText);
   const result = Papa.parse<string[]>(clean, { delimitersToGuess: [',', ';', '\t'], skipEmptyLines: false });
   const delimiter = (([',', ';', '\t'] as const).find((d) => d === result.meta.delimiter) ?? ',') satisfies Delimiter;
   const records = result.data.map((r) => r.map((c) => String(c ?? '').replace(/\u00a0/g, ' ').trim()));

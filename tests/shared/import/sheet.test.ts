@@ -95,6 +95,17 @@ describe('parseSheet: lines that are not results', () => {
     expect(sheet.rows).toHaveLength(2);
   });
 
+  it('when the file is a workbook or other binary read as text, then a SheetError says to save it as CSV, before any row is guessed at', () => {
+    // An .xlsx or .ods is a zip archive: it starts with the local file header signature 50 4B 03 04 (PKWARE APPNOTE 4.3.7).
+    const xlsx = new TextDecoder().decode(Uint8Array.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0x00, 0x06, 0x00, 0x08, 0x00, 0x00, 0x00, 0x21, 0x00, 0x62, 0xee, 0x9d, 0x68]));
+    expect(() => parseSheet(`${xlsx}[Content_Types].xml,a,b\n1,2,3`)).toThrow(/spreadsheet workbook .*save it as CSV/);
+    // An old .xls (an OLE compound file, D0 CF 11 E0 A1 B1 1A E1, from memory) decodes to U+FFFD and NULs.
+    const xls = new TextDecoder().decode(Uint8Array.from([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1, 0, 0, 0, 0, 0, 0, 0, 0, 0x3e, 0x00, 0x03, 0x00]));
+    expect(() => parseSheet(`${xls},Driver,Car\n`)).toThrow(/not text.*Save the results as CSV/);
+    // A text file with a stray odd character or two is still read.
+    expect(parseSheet('Driver,Car,Run 1\nAda L\uFFFDvelace,12,45.1\n').rows).toHaveLength(1);
+  });
+
   it('when no line names two or more columns, then a SheetError says what the first line should hold', () => {
     expect(() => parseSheet('just one thing\n\n')).toThrow(SheetError);
     expect(() => parseSheet('')).toThrow(/name the columns/);
