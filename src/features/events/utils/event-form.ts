@@ -1,5 +1,5 @@
 import * as z from '@shared/zod';
-import { formatQuantity, fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
+import { formatQuantity, fromDisplay, toDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import { createEventInputSchema, EVENT_KINDS, type CreateEventInput } from '@shared/season/event.schema';
 import { LIMITS } from '@shared/season/limits';
 import { parseDecimal, tidy, typeANumber } from '@/lib/numbers';
@@ -63,7 +63,8 @@ export function eventFormSchema(units: UnitPreferences) {
         if (parsed.kind === 'empty') return null;
         if (parsed.kind === 'invalid') {
           local.add(field);
-          addIssue(ctx, [field], typeANumber('21'));
+          // A mild day, 21 °C, in the user's unit (70 in °F).
+          addIssue(ctx, [field], typeANumber(String(Math.round(toDisplay(21, 'temperature', units)))));
           return null;
         }
         const celsius = tidy(fromDisplay(parsed.value, 'temperature', units));

@@ -1,4 +1,4 @@
-import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
+import { formatQuantity, toDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import type { Car } from '@shared/season/car.schema';
 import { axleOf, CORNERS, type Corner } from '@shared/season/corners';
 import { SETUP_CORNER_FIELDS, type SetupCorner, type SetupCornerField } from '@shared/season/setup.schema';
@@ -17,6 +17,18 @@ export interface SetupFormValues {
 }
 
 export type SiCorners = Record<Corner, SetupCorner>;
+
+/** A plausible value of each measured field (SI), offered in the user's units when a box holds no number. */
+const EXAMPLE_SI: Partial<Record<SetupCornerField, number>> = {
+  camberDeg: -1.5, toeMm: 1.5, casterDeg: 6, springRateNPerMm: 70, rideHeightMm: 120, coldPressureKpa: 200, cornerWeightKg: 300,
+};
+
+/** "Type a number, e.g. 29" for a pressure in psi, "e.g. 200" in kPa: two significant figures in the user's unit. */
+function typeANumberOf(field: SetupCornerField, units: UnitPreferences): string {
+  const si = EXAMPLE_SI[field];
+  const quantity = FIELD_INFO[field].quantity;
+  return si === undefined || !quantity ? typeANumber() : typeANumber(String(Number(toDisplay(si, quantity, units).toPrecision(2))));
+}
 
 /** A snapshot's SI values as text in the user's units. */
 export function cornersToTexts(corners: Partial<Record<Corner, SetupCorner>> | undefined, units: UnitPreferences): Record<Corner, CornerTexts> {
@@ -88,7 +100,7 @@ export function textsToSi(
       }
       const si = inputToSi(text, info.quantity, units);
       if (si === 'invalid') {
-        refuse(typeANumber('1.5'));
+        refuse(typeANumberOf(field, units));
         continue;
       }
       if (si !== null && (si < info.limits.min || si > info.limits.max)) {

@@ -122,6 +122,27 @@ describe('setup editor', () => {
     expect(within(diff).queryByText(/cleared/)).toBeNull();
     expect(within(diff).getByText('Nothing changed yet.')).toBeTruthy();
   });
+
+  it('when words are typed where a number goes, then the example offered is one in the user’s unit for that box', async () => {
+    const fetchMock = stub(jsonResponse(201, BASE_SETUP));
+    renderApp(`/cars/${IDS.car}/setups/new`);
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText('Label'), 'Typo');
+    for (const box of ['Right rear cold pressure', 'Right rear spring rate', 'Right rear ride height']) {
+      await u.clear(screen.getByLabelText(box));
+      await u.type(screen.getByLabelText(box), 'thirty');
+    }
+    await u.click(screen.getByRole('button', { name: 'Save as new setup' }));
+
+    // 200 kPa = 29.0 psi (1 psi = 6.894 757 kPa); 70 N/mm = 399.7 lb/in (1 lbf/in = 0.175 127 N/mm);
+    // 120 mm = 4.72 in (1 in = 25.4 mm): NIST SP 811, appendix B, each to two significant figures.
+    expect(await screen.findByText('Type a number, e.g. 29')).toBeTruthy();
+    expect(screen.getByText('Type a number, e.g. 400')).toBeTruthy();
+    expect(screen.getByText('Type a number, e.g. 4.7')).toBeTruthy();
+    expect(screen.queryByText('Type a number, e.g. 1.5')).toBeNull();
+    expect(requestsTo(fetchMock, SETUPS)).toHaveLength(0);
+  });
 });
 
 describe('setup editor headings', () => {

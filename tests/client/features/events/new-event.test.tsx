@@ -112,6 +112,19 @@ describe('new event', () => {
     expect(screen.getByLabelText('Air temperature').getAttribute('aria-invalid')).toBe('true');
     expect(outbox.getSnapshot()).toHaveLength(0);
   });
+
+  it('when the user reads temperatures in °F and types words, then the example is a °F one', async () => {
+    stub(IMPERIAL_PREFERENCES);
+    renderApp('/events?new=1');
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText('Track temperature'), 'hot');
+    await u.click(screen.getByRole('button', { name: 'Save and open event day' }));
+
+    // 21 °C = 69.8 °F (°F = °C × 9/5 + 32, NIST SP 811 appendix B), offered as 70: 21 °F is below freezing.
+    expect(await screen.findByText('Type a number, e.g. 70')).toBeTruthy();
+    expect(screen.queryByText('Type a number, e.g. 21')).toBeNull();
+  });
 });
 
 describe('new event: the date left empty', () => {
