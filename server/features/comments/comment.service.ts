@@ -52,8 +52,9 @@ interface ResolvedTarget {
  * The event's board for the car, opened with the reader as its driver, so it goes straight to the day's runs
  * (each with its thread) instead of asking which car and who is driving.
  */
-const eventBoardFor = (eventId: string, carId: string) => (driverId: string) =>
-  `/events/${eventId}?carId=${carId}&driverId=${driverId}`;
+/** The day's board with the reader as its driver, and the thread (a run's, or the day's own) opened over it. */
+const eventBoardFor = (eventId: string, carId: string, threadId: string) => (driverId: string) =>
+  `/events/${eventId}?carId=${carId}&driverId=${driverId}&comments=${threadId}`;
 
 /** The shop's page for the car, with one thread (a run's, a day's or a setup's) open and, for a run or a day, its event. */
 const customerPageAt = (carId: string, threadId: string, eventId?: string) =>
@@ -77,7 +78,7 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
       if (!r) throw missing();
       resolved = {
         type: 'run', id: target.id, carId: r.car_id,
-        driverLink: eventBoardFor(r.event_id, r.car_id),
+        driverLink: eventBoardFor(r.event_id, r.car_id, target.id),
         staffLink: customerPageAt(r.car_id, target.id, r.event_id),
         description: `run ${r.run_number} at ${r.event_name}`,
       };
@@ -132,7 +133,7 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
       if (!e) throw missing();
       resolved = {
         type: 'event', id: target.id, carId: target.carId,
-        driverLink: eventBoardFor(target.id, target.carId),
+        driverLink: eventBoardFor(target.id, target.carId, target.id),
         staffLink: customerPageAt(target.carId, target.id, target.id),
         description: e.name,
       };

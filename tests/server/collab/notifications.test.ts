@@ -57,8 +57,9 @@ describe('who hears about a comment', () => {
         carId: driver.carId,
         actor: { id: staff.user.id, displayName: 'Dusty Okonjo' },
         summary,
-        // Straight to the day's runs with the reader as the driver, not to the page asking which car and who drives.
-        link: `/events/${driver.eventId}?carId=${driver.carId}&driverId=${person.user.id}`,
+        // Straight to the day's runs with the reader as the driver, not to the page asking which car and who drives,
+        // with the run's thread opened over them.
+        link: `/events/${driver.eventId}?carId=${driver.carId}&driverId=${person.user.id}&comments=${run.id}`,
         readAt: null,
         createdAt: expect.any(String),
       });
@@ -120,7 +121,7 @@ describe('who hears about a comment', () => {
     await postRun(driver.c, driver.carId, driver.eventId);
     const res = await driver.c.post('/api/comments', { target: { type: 'event', id: driver.eventId, carId: driver.carId }, body: 'Wet until noon.' });
     expect(res.status).toBe(201);
-    expect((await notes(co.c)).items[0]!.link).toBe(`/events/${driver.eventId}?carId=${driver.carId}&driverId=${co.user.id}`);
+    expect((await notes(co.c)).items[0]!.link).toBe(`/events/${driver.eventId}?carId=${driver.carId}&driverId=${co.user.id}&comments=${driver.eventId}`);
     expect((await notes(staff.c)).items[0]!.link).toBe(`/shop/customers/${driver.carId}?event=${driver.eventId}&comments=${driver.eventId}`);
   });
 
@@ -132,7 +133,7 @@ describe('who hears about a comment', () => {
     await staff.c.post('/api/comments', { target: { type: 'run', id: run.id }, body: 'Tyres look scrubbed in.' });
     const list = await notes(mechanic.c);
     expect(list.items.filter((n) => n.kind === 'comment').map((n) => n.link)).toEqual([
-      `/events/${driver.eventId}?carId=${driver.carId}&driverId=${mechanic.user.id}`,
+      `/events/${driver.eventId}?carId=${driver.carId}&driverId=${mechanic.user.id}&comments=${run.id}`,
     ]);
   });
 });
@@ -234,7 +235,7 @@ describe('notification e-mails', () => {
 
     const [token] = (await t.ds.query('SELECT unsubscribe_token FROM users WHERE id = $1', [driver.user.id])) as { unsubscribe_token: string }[];
     const unsubscribeUrl = `http://scrubline.test/unsubscribe/${token!.unsubscribe_token}`;
-    const pageUrl = `http://scrubline.test/events/${driver.eventId}?carId=${driver.carId}&driverId=${driver.user.id}`;
+    const pageUrl = `http://scrubline.test/events/${driver.eventId}?carId=${driver.carId}&driverId=${driver.user.id}&comments=${run.id}`;
     const sent = mailTo(driver.email);
     expect(sent).toHaveLength(1);
     const message = sent[0]!;

@@ -1,4 +1,5 @@
 import { lazy, Suspense, useEffect, useState, type ReactNode } from 'react';
+import { useLocation, useNavigate } from 'react-router-dom';
 import type { CommentTarget } from '@shared/collab/comment.schema';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
 import { toast } from '@/lib/toast-store';
@@ -20,9 +21,23 @@ function CouldNotOpen({ onShown }: { onShown: () => void }) {
 }
 
 /**
- * Opens a comment thread over whatever page asked (the trackside "Comments" buttons): the app shell
- * mounts this once, and the thread's code is fetched on the first request. `renderExtras` adds more
- * about the same record above the thread (the shell passes the record's photos).
+ * The thread a day's board was opened for (a notification's link): `?comments=` names a run, or the day itself
+ * (the event's own id, with `carId`, for the car's day).
+ */
+function threadAsked(pathname: string, search: string): OpenCommentsDetail | null {
+  const eventId = /^\/events\/([^/]+)$/.exec(pathname)?.[1];
+  const params = new URLSearchParams(search);
+  const id = params.get('comments');
+  const carId = params.get('carId');
+  if (!eventId || !id) return null;
+  if (id !== eventId) return { target: { type: 'run', id }, what: 'this run' };
+  return carId ? { target: { type: 'event', id, carId }, what: 'this day' } : null;
+}
+
+/**
+ * Opens a comment thread over whatever page asked (the trackside "Comments" buttons, or a day's board opened
+ * from a notification): the app shell mounts this once, and the thread's code is fetched on the first request.
+ * `renderExtras` adds more about the same record above the thread (the shell passes the record's photos).
  */
 export function CommentsHost({ renderExtras }: { renderExtras?: (target: CommentTarget) => ReactNode } = {}) {
   const [request, setRequest] = useState<OpenCommentsDetail | null>(null);
@@ -33,6 +48,22 @@ export function CommentsHost({ renderExtras }: { renderExtras?: (target: Comment
     window.addEventListener(OPEN_COMMENTS_EVENT, onOpen);
     return () => window.removeEventListener(OPEN_COMMENTS_EVENT, onOpen);
   }, []);
+  const { pathname, search, hash } = useLocation();
+  const navigate = useNavigate();
+  const asked = threadAsked(pathname, search);
+  const askedAt = asked ? pathname + search : null;
+  const [opened, setOpened] = useState<string | null>(null);
+  if (asked && askedAt !== opened) {
+    setOpened(askedAt);
+    setRequest(asked);
+  }
+  useEffect(() => {
+    if (!askedAt) return;
+    // Opened once: the address drops it, so closing the thread, or a reload, leaves the board as it is.
+    const params = new URLSearchParams(search);
+    params.delete('comments');
+    void navigate({ pathname, search: `?${params.toString()}`, hash }, { replace: true });
+  }, [askedAt, pathname, search, hash, navigate]);
   if (!request) return null;
   return (
     <ErrorBoundary

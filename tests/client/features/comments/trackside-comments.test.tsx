@@ -54,6 +54,33 @@ describe('comments at the track', () => {
     expect(within(dialog).getByLabelText('Add a comment')).toBeTruthy();
   });
 
+  it('when the board is opened from a notification about a run, then that run’s thread opens over it, once', async () => {
+    stubDay({
+      [`GET /api/comments?type=run&id=${IDS.run2}`]: list([
+        comment({ id: COLLAB_IDS.commentDusty, body: 'Rear looks loose on run 2.', author: { id: COLLAB_IDS.dusty, displayName: 'Dusty Okonjo' } }),
+      ]),
+    });
+    const { router } = renderApp(`${PATH}&driverId=${IDS.maren}&comments=${IDS.run2}`);
+    const u = userEvent.setup();
+
+    const dialog = await screen.findByRole('dialog', { name: 'Comments on this run' });
+    expect(await within(dialog).findByText('Rear looks loose on run 2.')).toBeTruthy();
+    // The board stays for the same car and driver; the address no longer asks for the thread.
+    expect(router.state.location.search).toBe(`?carId=${IDS.car}&driverId=${IDS.maren}`);
+    await u.keyboard('{Escape}');
+    expect(screen.queryByRole('dialog')).toBeNull();
+    expect(await screen.findByRole('listitem', { name: /^Run 2,/ })).toBeTruthy();
+  });
+
+  it('when the board is opened from a notification about the day, then the car’s day thread opens', async () => {
+    const url = `GET /api/comments?type=event&id=${IDS.event}&carId=${IDS.car}`;
+    stubDay({ [url]: list([comment({ id: COLLAB_IDS.commentMaren, body: 'Cold start, grip came at heat 2.', mine: true })]) });
+    renderApp(`${PATH}&comments=${IDS.event}`);
+
+    const dialog = await screen.findByRole('dialog', { name: 'Comments on this day' });
+    expect(await within(dialog).findByText('Cold start, grip came at heat 2.')).toBeTruthy();
+  });
+
   it('when the car’s day is discussed, then the thread asks for this event and this car', async () => {
     const url = `GET /api/comments?type=event&id=${IDS.event}&carId=${IDS.car}`;
     const fetchMock = stubDay({ [url]: list([]) });
