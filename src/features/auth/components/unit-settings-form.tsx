@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { isApiError } from '@/lib/api-client';
+import { cn } from '@/lib/cn';
 import { useUpdatePreferences } from '../api/update-preferences';
 
 /** The quantities a user may choose a unit for (angles are always degrees, times always seconds). */
@@ -47,6 +48,7 @@ export function UnitSettingsForm({ user }: { user: User }) {
   const [error, setError] = useState<string | null>(null);
   const update = useUpdatePreferences();
   const full: UnitPreferences = { ...user.preferences.units, ...draft };
+  const unsaved = !same(draft, saved);
 
   const setPreset = (preset: UnitPreferences) => {
     setDraft(pick(preset));
@@ -109,9 +111,20 @@ export function UnitSettingsForm({ user }: { user: User }) {
       <p aria-live="polite" className="font-semibold text-success">
         {message}
       </p>
-      <Button type="submit" isPending={update.isPending} pendingLabel="Saving…" disabled={same(draft, saved) && !error} className="w-full md:w-auto">
-        Save units
-      </Button>
+      {/* A choice not yet saved keeps Save in reach above the bottom bar, and says it: leaving the page drops it. */}
+      <div
+        className={cn(
+          'flex flex-col gap-2',
+          unsaved && 'sticky bottom-[calc(3.5rem+env(safe-area-inset-bottom))] z-10 -mx-4 border-t border-line bg-canvas px-4 py-3 md:bottom-0',
+        )}
+      >
+        <p aria-live="polite" className="text-sm font-semibold">
+          {unsaved && !update.isPending ? 'Not saved yet: the app keeps showing your old units until you save.' : null}
+        </p>
+        <Button type="submit" isPending={update.isPending} pendingLabel="Saving…" disabled={!unsaved && !error} className="w-full md:w-auto">
+          Save units
+        </Button>
+      </div>
     </form>
   );
 }

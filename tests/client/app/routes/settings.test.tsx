@@ -18,11 +18,16 @@ describe('unit settings', () => {
     const { queryClient } = renderApp('/settings');
     const u = userEvent.setup();
 
-    await u.click(await screen.findByRole('button', { name: 'Imperial' }));
+    expect(await screen.findByRole('button', { name: 'Imperial' })).toBeTruthy();
+    expect(screen.queryByText(/Not saved yet/)).toBeNull();
+    await u.click(screen.getByRole('button', { name: 'Imperial' }));
     expect(screen.getByText('For example: 31.9 psi')).toBeTruthy();
+    // Chosen is not saved: the form says so beside the button, until it is.
+    expect(screen.getByText('Not saved yet: the app keeps showing your old units until you save.')).toBeTruthy();
     await u.click(screen.getByRole('button', { name: 'Save units' }));
 
     expect(await screen.findByText(/Units saved/)).toBeTruthy();
+    expect(screen.queryByText(/Not saved yet/)).toBeNull();
     expect(requestsTo(fetchMock, 'PATCH /api/auth/me/preferences')[0]?.body).toEqual({
       units: { pressure: 'psi', length: 'in', treadDepth: 'in32', springRate: 'lbf/in', mass: 'lb', temperature: 'degF' },
     });
