@@ -8,6 +8,15 @@ import { DamperCard } from '@/features/calculators/components/damper-card';
 import { SpringsCard } from '@/features/calculators/components/springs-card';
 import { TyreCard } from '@/features/calculators/components/tyre-card';
 
+/** The calculators in page order, each with the anchor its link jumps to. */
+const CALCULATORS = [
+  { id: 'corner-balance', name: 'Corner balance', Card: CornerBalanceCard },
+  { id: 'springs', name: 'Springs', Card: SpringsCard },
+  { id: 'tyres', name: 'Tyre size and pressure', Card: TyreCard },
+  { id: 'alignment', name: 'Toe and camber', Card: AlignmentCard },
+  { id: 'dampers', name: 'Damper length', Card: DamperCard },
+] as const;
+
 /**
  * The shop calculators: corner balance and wedge, springs, tyre size and pressure, toe and camber, damper length and
  * droop. Typed in the user's units, worked out by the shared calculations in SI. Meant for /calculators.
@@ -29,13 +38,26 @@ export function CalculatorsPage() {
           </Link>
           .
         </p>
+        {/* The page is long on a phone: each calculator is a tap away, not a scroll past the others' cautions. */}
+        <nav aria-label="Jump to a calculator">
+          <ul className="flex flex-wrap gap-2">
+            {CALCULATORS.map(({ id, name }) => (
+              <li key={id}>
+                <a href={`#${id}`} className="inline-flex min-h-tap items-center rounded-full border border-line-strong bg-surface px-4 font-semibold text-link">
+                  {name}
+                </a>
+              </li>
+            ))}
+          </ul>
+        </nav>
       </div>
       <div className="grid items-start gap-4 lg:grid-cols-2">
-        <CornerBalanceCard />
-        <SpringsCard />
-        <TyreCard />
-        <AlignmentCard />
-        <DamperCard />
+        {CALCULATORS.map(({ id, Card }) => (
+          // Clear of the sticky top bar when jumped to.
+          <div key={id} id={id} className="scroll-mt-20">
+            <Card />
+          </div>
+        ))}
       </div>
     </div>
   );

@@ -311,3 +311,18 @@ describe('the notes on each card, in the user\'s units', () => {
     expect(screen.getByText(/a standard atmosphere \(101\.325 kPa\)/)).toBeTruthy();
   });
 });
+
+describe('the calculators page', () => {
+  it('when it opens, then a link to each calculator leads to the block that holds it, in page order', () => {
+    renderPage(METRIC_PREFERENCES);
+    const links = within(screen.getByRole('navigation', { name: 'Jump to a calculator' })).getAllByRole('link');
+    const cards = ['Corner balance and wedge', 'Springs', 'Tyre size and pressure', 'Toe and camber', 'Damper length and droop'];
+
+    expect(links).toHaveLength(cards.length);
+    links.forEach((link, i) => {
+      const target = document.getElementById(link.getAttribute('href')!.slice(1));
+      expect(target, link.textContent ?? '').not.toBeNull();
+      expect(within(target!).getByRole('region', { name: cards[i] })).toBeTruthy();
+    });
+  });
+});
