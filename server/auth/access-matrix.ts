@@ -128,6 +128,7 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
 
   'POST /api/cars/:carId/changes': 'car.write',
   'GET /api/cars/:carId/changes': 'car.read',
+  'DELETE /api/cars/:carId/changes/:changeId': 'car.write',
 
   'GET /api/cars/:carId/tyre-sets': 'car.read',
   'POST /api/cars/:carId/tyre-sets': 'car.write',
@@ -135,6 +136,7 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'POST /api/cars/:carId/pressures': 'car.write',
   'GET /api/tyre-sets/:tyreSetId/readings': 'car.read',
   'POST /api/tyre-sets/:tyreSetId/readings': 'car.write',
+  'DELETE /api/tyre-sets/:tyreSetId/readings/:readingId': 'car.write',
   'POST /api/tyre-sets/:tyreSetId/mountings': 'car.write',
 
   'GET /api/cars/:carId/analysis/scatter': 'car.read',

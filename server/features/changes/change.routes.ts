@@ -4,7 +4,7 @@ import { createChangeInputSchema, type CreateChangeInput } from '@shared/season/
 import { currentUser, requireAuth } from '../../auth/access';
 import { parsed, validate } from '../../lib/validate';
 import { idParam, list } from '../../lib/http';
-import { createChange, listChanges } from './change.service';
+import { createChange, deleteChange, listChanges } from './change.service';
 
 /** The change log, under /api/cars/:carId/changes. */
 export function changeRoutes(ds: DataSource) {
@@ -17,6 +17,11 @@ export function changeRoutes(ds: DataSource) {
   });
   router.get('/', validate({ params: idParam('carId') }), async (req, res) => {
     res.json(list(await listChanges(ds, currentUser(req), parsed<{ carId: string }>(res, 'params').carId)));
+  });
+  router.delete('/:changeId', validate({ params: idParam('carId', 'changeId') }), async (req, res) => {
+    const { carId, changeId } = parsed<{ carId: string; changeId: string }>(res, 'params');
+    await deleteChange(ds, currentUser(req), carId, changeId);
+    res.status(204).end();
   });
   return router;
 }

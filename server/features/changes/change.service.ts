@@ -54,3 +54,22 @@ export async function listChanges(ds: DataSource, user: User, carId: string): Pr
   const rows = await ds.getRepository(ChangeLogEntity).find({ where: { carId }, order: { changedOn: 'ASC', createdAt: 'ASC' } });
   return toEntries(ds, rows);
 }
+
+/**
+ * Deletes one entry of the car's change log (a mistaken one); its setup, if it named one, stays. Drivers of the
+ * car only. An entry a shop wrote when it handed the car back belongs with that visit's record and stays (409).
+ */
+export async function deleteChange(ds: DataSource, user: User, carId: string, changeId: string): Promise<void> {
+  await assertCarAccess(ds, user, carId, 'write');
+  const rows: { from_visit: boolean; deleted: boolean }[] = await ds.query(
+    `WITH gone AS (DELETE FROM change_log WHERE id = $1 AND car_id = $2 AND work_order_id IS NULL RETURNING id)
+     SELECT c.work_order_id IS NOT NULL AS from_visit, EXISTS (SELECT 1 FROM gone) AS deleted
+       FROM change_log c WHERE c.id = $1 AND c.car_id = $2`,
+    [changeId, carId],
+  );
+  // The CTE's snapshot still sees a row it deletes: `deleted` tells the two apart.
+  const row = rows[0];
+  if (!row) throw new AppError('not_found', 'That change-log entry was not found.');
+  if (row.deleted) return;
+  throw new AppError('conflict', 'This entry was written by a shop when it handed the car back; it stays with that visit.');
+}

@@ -8,7 +8,7 @@ import { currentUser, requireAuth } from '../../auth/access';
 import { parsed, validate } from '../../lib/validate';
 import { idParam, list } from '../../lib/http';
 import { createPressureReading, listPressureReadings } from '../pressures/pressure.service';
-import { addMounting, createTreadReading, createTyreSet, listTreadReadings, listTyreSets } from './tyre.service';
+import { addMounting, createTreadReading, createTyreSet, deleteTreadReading, listTreadReadings, listTyreSets } from './tyre.service';
 
 /** Routes under /api/cars/:carId: tyre sets and pressure readings of one car. */
 export function carTyreRoutes(ds: DataSource) {
@@ -45,6 +45,11 @@ export function tyreSetRoutes(ds: DataSource) {
     const { tyreSetId } = parsed<{ tyreSetId: string }>(res, 'params');
     const { reading, created } = await createTreadReading(ds, currentUser(req), tyreSetId, parsed<CreateTreadReadingInput>(res, 'body'));
     res.status(created ? 201 : 200).json(reading);
+  });
+  router.delete('/:tyreSetId/readings/:readingId', validate({ params: idParam('tyreSetId', 'readingId') }), async (req, res) => {
+    const { tyreSetId, readingId } = parsed<{ tyreSetId: string; readingId: string }>(res, 'params');
+    await deleteTreadReading(ds, currentUser(req), tyreSetId, readingId);
+    res.status(204).end();
   });
   router.get('/:tyreSetId/readings', validate({ params: setParam }), async (req, res) => {
     res.json(list(await listTreadReadings(ds, currentUser(req), parsed<{ tyreSetId: string }>(res, 'params').tyreSetId)));

@@ -186,3 +186,16 @@ export async function listTreadReadings(ds: DataSource, user: User, tyreSetId: s
   await assertCarChildAccess(ds, user, 'tyre_sets', tyreSetId, 'read', 'That tyre set');
   return readingsOf(ds, [tyreSetId], false);
 }
+
+/**
+ * Deletes one tread reading of the set (a mistyped one), with its corners, comments and photos (the database
+ * cascades). Drivers of the car only; a reading of another set is not found.
+ */
+export async function deleteTreadReading(ds: DataSource, user: User, tyreSetId: string, readingId: string): Promise<void> {
+  await assertCarChildAccess(ds, user, 'tyre_sets', tyreSetId, 'write', 'That tyre set');
+  const [{ n }] = (await ds.query(
+    'WITH gone AS (DELETE FROM tread_readings WHERE id = $1 AND tyre_set_id = $2 RETURNING id) SELECT count(*)::int AS n FROM gone',
+    [readingId, tyreSetId],
+  )) as [{ n: number }];
+  if (n === 0) throw new AppError('not_found', 'That tread reading was not found.');
+}

@@ -95,6 +95,14 @@ async function newRun(car: string, event: string) {
   );
 }
 
+async function newReading(tyreSet: string) {
+  return one(`INSERT INTO tread_readings (tyre_set_id, taken_at, created_by) VALUES ($1, '2026-05-10T13:00:00Z', $2) RETURNING id`, [tyreSet, people.owner.id]);
+}
+
+async function newChange(car: string) {
+  return one(`INSERT INTO change_log (car_id, changed_on, what, location, created_by) VALUES ($1, '2026-05-01', 'New arms', 'front', $2) RETURNING id`, [car, people.owner.id]);
+}
+
 async function newSuggestion(car: string, setup: string, shop: string) {
   return one(
     `INSERT INTO setup_suggestions (id, car_id, base_setup_id, shop_id, author_id, title, rationale, changes)
@@ -266,6 +274,7 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
 
   'POST /api/cars/:carId/changes': { call: () => ({ path: `/api/cars/${f.car}/changes`, body: { changedOn: '2026-05-01', what: 'New arms' } }), expect: carWrite(201) },
   'GET /api/cars/:carId/changes': { call: () => ({ path: `/api/cars/${f.car}/changes` }), expect: CAR_READ },
+  'DELETE /api/cars/:carId/changes/:changeId': { call: async () => ({ path: `/api/cars/${f.car}/changes/${await newChange(f.car)}` }), expect: carWrite(204) },
 
   'GET /api/cars/:carId/tyre-sets': { call: () => ({ path: `/api/cars/${f.car}/tyre-sets` }), expect: CAR_READ },
   'POST /api/cars/:carId/tyre-sets': { call: () => ({ path: `/api/cars/${f.car}/tyre-sets`, body: { label: 'Set B' } }), expect: carWrite(201) },
@@ -275,6 +284,10 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     expect: carWrite(201),
   },
   'GET /api/tyre-sets/:tyreSetId/readings': { call: () => ({ path: `/api/tyre-sets/${f.tyreSet}/readings` }), expect: CAR_READ },
+  'DELETE /api/tyre-sets/:tyreSetId/readings/:readingId': {
+    call: async () => ({ path: `/api/tyre-sets/${f.tyreSet}/readings/${await newReading(f.tyreSet)}` }),
+    expect: carWrite(204),
+  },
   'POST /api/tyre-sets/:tyreSetId/readings': {
     call: () => ({ path: `/api/tyre-sets/${f.tyreSet}/readings`, body: { takenAt: '2026-05-10T13:00:00Z', corners: { lf: { innerMm: 5, middleMm: 5.5, outerMm: 6 } } } }),
     expect: carWrite(201),

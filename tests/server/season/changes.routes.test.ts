@@ -70,3 +70,45 @@ describe('GET /api/cars/:carId/changes', () => {
     expect(await changesOf(d.carId)).toBe(0);
   });
 });
+
+describe('DELETE /api/cars/:carId/changes/:changeId', () => {
+  it('when a mistaken entry is deleted, then 204 and the log no longer lists it; the setup it named stays', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const setup = await postSetup(d.c, d.carId);
+    const keep = await d.c.post(`/api/cars/${d.carId}/changes`, { changedOn: '2026-03-28', what: 'Camber arms fitted', location: 'front' });
+    const wrong = await d.c.post(`/api/cars/${d.carId}/changes`, { changedOn: '2026-03-29', what: 'Wrong car', setupId: setup.id });
+
+    expect((await d.c.delete(`/api/cars/${d.carId}/changes/${wrong.body.id}`)).status).toBe(204);
+
+    const log = await d.c.get(`/api/cars/${d.carId}/changes`);
+    expect(log.body.items.map((e: { id: string }) => e.id)).toEqual([keep.body.id]);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM setup_snapshots WHERE id = $1', [setup.id])).toBe(1);
+    expectError(await d.c.delete(`/api/cars/${d.carId}/changes/${wrong.body.id}`), 404, 'not_found');
+  });
+
+  it('when the entry is another car’s, then 404 and it stays', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const other = await driverWithCarAndEvent(t);
+    const entry = await d.c.post(`/api/cars/${d.carId}/changes`, { changedOn: '2026-03-28', what: 'Camber arms fitted' });
+
+    expectError(await other.c.delete(`/api/cars/${other.carId}/changes/${entry.body.id}`), 404, 'not_found');
+    expect(await changesOf(d.carId)).toBe(1);
+  });
+
+  it('when the entry was written by a shop at a handover, then 409 and it stays with the visit', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const entry = await d.c.post(`/api/cars/${d.carId}/changes`, { changedOn: '2026-03-28', what: 'Aligned, corner-balanced' });
+    // As the handover writes it: the entry points at the visit (server/features/work-orders).
+    const [shop] = (await t.ds.query(`INSERT INTO shops (name) VALUES ('Test bench') RETURNING id`)) as { id: string }[];
+    const [visit] = (await t.ds.query(
+      `INSERT INTO work_orders (id, car_id, shop_id, opened_by, visit_date, requested_work) VALUES (gen_random_uuid(), $1, $2, $3, '2026-03-28', 'Alignment') RETURNING id`,
+      [d.carId, shop!.id, d.user.id],
+    )) as { id: string }[];
+    await t.ds.query('UPDATE change_log SET work_order_id = $1 WHERE id = $2', [visit!.id, entry.body.id]);
+
+    const res = await d.c.delete(`/api/cars/${d.carId}/changes/${entry.body.id}`);
+    expectError(res, 409, 'conflict');
+    expect(res.body.error.message).toMatch(/handed the car back/);
+    expect(await changesOf(d.carId)).toBe(1);
+  });
+});

@@ -210,3 +210,36 @@ describe('POST /api/tyre-sets/:tyreSetId/mountings (rotations)', () => {
     expect(await mountingsOf(set.id)).toBe(2);
   });
 });
+
+describe('DELETE /api/tyre-sets/:tyreSetId/readings/:readingId', () => {
+  it('when a mistyped reading is deleted, then 204, the set’s latest reading is the one before it, and its comments go with it', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const set = await newSet(d);
+    const good = await d.c.post(`/api/tyre-sets/${set.id}/readings`, { takenAt: '2026-04-12T16:00:00Z', corners: { lf: depth(6, 6.2, 6.4) } });
+    const typo = await d.c.post(`/api/tyre-sets/${set.id}/readings`, { takenAt: '2026-05-10T16:00:00Z', corners: { lf: depth(4.5, 5.4, 6.2) } });
+    expect((await d.c.post('/api/comments', { target: { type: 'tread_reading', id: typo.body.id }, body: '5.4 in the middle?' })).status).toBe(201);
+
+    expect((await d.c.delete(`/api/tyre-sets/${set.id}/readings/${typo.body.id}`)).status).toBe(204);
+
+    expect(await readingsOf(set.id)).toBe(1);
+    const sets = await d.c.get(`/api/cars/${d.carId}/tyre-sets`);
+    expect(sets.body.items[0].latestReading.id).toBe(good.body.id);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM comments WHERE tread_reading_id = $1', [typo.body.id])).toBe(0);
+    // Gone is gone: a second delete finds nothing.
+    expectError(await d.c.delete(`/api/tyre-sets/${set.id}/readings/${typo.body.id}`), 404, 'not_found');
+  });
+
+  it('when the reading belongs to another set, or to another driver’s car, then 404 and it stays', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const other = await driverWithCarAndEvent(t);
+    const setA = await newSet(d);
+    const setB = await newSet(d, { label: 'Set B' });
+    const theirSet = await newSet(other);
+    const reading = await d.c.post(`/api/tyre-sets/${setA.id}/readings`, { takenAt: '2026-04-12T16:00:00Z', corners: { lf: depth(6, 6, 6) } });
+
+    expectError(await d.c.delete(`/api/tyre-sets/${setB.id}/readings/${reading.body.id}`), 404, 'not_found');
+    expectError(await other.c.delete(`/api/tyre-sets/${setA.id}/readings/${reading.body.id}`), 404, 'not_found');
+    expectError(await other.c.delete(`/api/tyre-sets/${theirSet.id}/readings/${reading.body.id}`), 404, 'not_found');
+    expect(await readingsOf(setA.id)).toBe(1);
+  });
+});
