@@ -9,6 +9,7 @@ import { toast } from '@/lib/toast-store';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useCar } from '@/features/cars/api/get-car';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
+import { DeleteReadingButton } from '@/features/tyres/components/delete-reading-button';
 import { NewTyreSetForm } from '@/features/tyres/components/new-tyre-set-form';
 import { TreadDisplay } from '@/features/tyres/components/tread-display';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
@@ -63,6 +64,9 @@ export function TreadPage() {
                 <TreadDisplay corners={reading.corners} />
                 <AttachmentToggle target={{ targetType: 'tread_reading', targetId: reading.id }} what={`the ${set.label} reading`} defaultOpen />
                 <CommentToggle target={{ type: 'tread_reading', id: reading.id }} what={`the ${set.label} reading`} />
+                <div>
+                  <DeleteReadingButton tyreSetId={set.id} readingId={reading.id} setLabel={set.label} takenAt={reading.takenAt} />
+                </div>
               </li>
             ))}
           </ul>

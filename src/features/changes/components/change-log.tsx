@@ -1,5 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { CHANGE_LOCATIONS, createChangeInputSchema, type ChangeLogEntry } from '@shared/season/change-log.schema';
+import { ConfirmButton } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
@@ -7,8 +8,10 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { formatDay, todayIsoDate } from '@/lib/dates';
 import type { OutboxEntry } from '@/lib/outbox';
+import { isApiError } from '@/lib/api-client';
 import { useOutbox } from '@/lib/outbox-context';
 import { createChangeEntry, useCreateChange, type CreateChangeBody } from '../api/create-change';
+import { useDeleteChange } from '../api/delete-change';
 
 const LOCATION_WORDS: Record<(typeof CHANGE_LOCATIONS)[number], string> = {
   car: 'Whole car',
@@ -42,6 +45,25 @@ function mergeRows(saved: readonly ChangeLogEntry[], entries: readonly OutboxEnt
   }
   // Newest first to read; the server keeps them oldest first.
   return rows.sort((a, b) => b.changedOn.localeCompare(a.changedOn));
+}
+
+/** Deletes a saved entry logged by mistake, after asking; one a shop wrote at a handover is refused with the reason. */
+function DeleteChangeButton({ carId, changeId, what }: { carId: string; changeId: string; what: string }) {
+  const remove = useDeleteChange(carId);
+  return (
+    <ConfirmButton
+      title={`Delete “${what}” from the log?`}
+      description="Comparisons made across this entry go with it; a setup it named stays. It cannot be undone."
+      confirmLabel="Delete entry"
+      pendingLabel="Deleting…"
+      keepLabel="Keep"
+      isPending={remove.isPending}
+      onConfirm={(handlers) => remove.mutate(changeId, handlers)}
+      failureText={(e) => (isApiError(e) && e.code !== 'network' ? e.message : 'This needs a connection. Try again when you have signal.')}
+    >
+      Delete<span className="sr-only"> “{what}”</span>
+    </ConfirmButton>
+  );
 }
 
 /** The car's change log — parts fitted, alignments, repairs — newest first, with a form to add one. */
@@ -88,7 +110,7 @@ export function ChangeLog({ carId, saved, entries }: { carId: string; saved: rea
             <li key={row.id} className="flex flex-col gap-1 rounded border border-line p-3">
               <div className="flex flex-wrap items-baseline justify-between gap-2">
                 <span className="font-bold">{row.what}</span>
-                {row.pending ? <PendingBadge state={row.pending.state} /> : null}
+                {row.pending ? <PendingBadge state={row.pending.state} /> : <DeleteChangeButton carId={carId} changeId={row.id} what={row.what} />}
               </div>
               <p className="tabular-figures text-sm text-ink-muted">
                 {formatDay(row.changedOn)} · {LOCATION_WORDS[row.location]}

@@ -3,7 +3,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
-import { blockingEntry, jsonResponse, renderApp, setUpAppTests, stubFetch } from '../../test-utils';
+import { blockingEntry, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { CAR, IDS, list, TYRE_SET, user, UUID } from '../../fixtures/season';
 
 setUpAppTests([() => import('@/app/routes/cars/tread')]);
@@ -115,6 +115,31 @@ describe('tread entry', () => {
     expect(within(latest).getByRole('group', { name: /Right front/ }).textContent).toContain('middle 6.4 mm');
     // The rear was not measured at that reading.
     expect(within(latest).getByRole('group', { name: /Left rear/ }).textContent).toContain('Not measured');
+  });
+});
+
+describe('deleting a reading', () => {
+  it('when the latest reading is deleted and the question confirmed, then the server is asked and the reading leaves the list', async () => {
+    const readingId = TYRE_SET.latestReading!.id;
+    let deleted = false;
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+      [`GET /api/cars/${IDS.car}/tyre-sets`]: () => list([deleted ? { ...TYRE_SET, latestReading: null } : TYRE_SET]),
+      [`DELETE /api/tyre-sets/${IDS.tyreSet}/readings/${readingId}`]: () => {
+        deleted = true;
+        return new Response(null, { status: 204 });
+      },
+    });
+    renderApp(`/cars/${IDS.car}/tread`);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Delete this reading of Set B (2026)' }));
+    const dialog = await screen.findByRole('dialog', { name: /^Delete the Set B \(2026\) reading of / });
+    await u.click(within(dialog).getByRole('button', { name: 'Delete reading' }));
+
+    await waitFor(() => expect(screen.queryByRole('list', { name: 'Latest reading of each set' })).toBeNull());
+    expect(requestsTo(fetchMock, `DELETE /api/tyre-sets/${IDS.tyreSet}/readings/${readingId}`)).toHaveLength(1);
   });
 });
 
