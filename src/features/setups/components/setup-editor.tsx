@@ -130,9 +130,11 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
     setFormError(null);
     const converted = textsToSi(v.corners, start.texts, start.sourceCorners, units, car);
     const effectiveFrom = fromLocalInputValue(v.effectiveFrom);
-    const local: Record<string, string> = { ...converted.errors };
+    // In the page's order, so the focus goes to the first one on screen: the label and the date sit above the grid.
+    const local: Record<string, string> = {};
     if (!v.label.trim()) local.label = 'Give the setup a label, e.g. “After alignment”';
     if (!effectiveFrom) local.effectiveFrom = 'Pick the date and time this setup went on the car';
+    Object.assign(local, converted.errors);
     const body: CreateSetupBody = {
       id: recordId,
       label: v.label.trim(),

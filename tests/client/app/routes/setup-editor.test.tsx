@@ -123,6 +123,23 @@ describe('setup editor', () => {
     expect(within(diff).getByText('Nothing changed yet.')).toBeTruthy();
   });
 
+  it('when the label is missing and a value is out of range, then the focus goes to the label, the first marked box on the page', async () => {
+    const fetchMock = stub(jsonResponse(201, BASE_SETUP));
+    renderApp(`/cars/${IDS.car}/setups/new`);
+    const u = userEvent.setup();
+
+    const pressure = await screen.findByLabelText('Right rear cold pressure');
+    await u.clear(pressure);
+    await u.type(pressure, '210');
+    await u.click(screen.getByRole('button', { name: 'Save as new setup' }));
+
+    const label = screen.getByLabelText('Label');
+    await waitFor(() => expect(document.activeElement).toBe(label));
+    expect(label.getAttribute('aria-invalid')).toBe('true');
+    expect(pressure.getAttribute('aria-invalid')).toBe('true');
+    expect(requestsTo(fetchMock, SETUPS)).toHaveLength(0);
+  });
+
   it('when words are typed where a number goes, then the example offered is one in the user’s unit for that box', async () => {
     const fetchMock = stub(jsonResponse(201, BASE_SETUP));
     renderApp(`/cars/${IDS.car}/setups/new`);
