@@ -235,7 +235,7 @@ describe('trackside on a phone (390×844)', () => {
     await page.getByRole('radio', { name: /Pebble/ }).check({ force: true });
     // Not the one signed in, so a choice that was forgotten would show: the picker offers Maren first.
     await page.getByRole('radio', { name: /Teo Varga/ }).check({ force: true });
-    await page.getByRole('button', { name: 'Start logging' }).click();
+    await page.getByRole('button', { name: 'Open that day’s runs' }).click();
 
     const onTheEvent = async () => {
       await page.getByRole('heading', { level: 1, name: 'Spring practice at Harrow Flats' }).waitFor({ timeout: 20_000 });

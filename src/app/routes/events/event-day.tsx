@@ -292,6 +292,7 @@ export function EventDayPage() {
             initialCarId={carId}
             initialDriverId={driverId}
             onChoose={choose}
+            action={runMoment(event.date).dayOver ? 'Open that day’s runs' : 'Start logging'}
           />
         </section>
       ) : (

@@ -14,10 +14,12 @@ interface CarDriverPickerProps {
   initialCarId?: string | null;
   initialDriverId?: string | null;
   onChoose: (choice: { carId: string; driverId: string }) => void;
+  /** The button's words: what choosing leads to ("Start logging", or a past day's runs). */
+  action: string;
 }
 
 /** Which car, and who drives it, for the rest of the event: asked once, then remembered on this phone. */
-export function CarDriverPicker({ cars, currentUserId, initialCarId, initialDriverId, onChoose }: CarDriverPickerProps) {
+export function CarDriverPicker({ cars, currentUserId, initialCarId, initialDriverId, onChoose, action }: CarDriverPickerProps) {
   const [carId, setCarId] = useState<string | null>(initialCarId ?? (cars.length === 1 ? cars[0]!.id : null));
   const car = cars.find((c) => c.id === carId) ?? null;
   const drivers = car ? driversOf(car) : [];
@@ -73,7 +75,7 @@ export function CarDriverPicker({ cars, currentUserId, initialCarId, initialDriv
         </fieldset>
       ) : null}
       <Button type="submit" disabled={!carId || !driverId} className="min-h-tap-lg w-full text-lg">
-        Start logging
+        {action}
       </Button>
     </form>
   );

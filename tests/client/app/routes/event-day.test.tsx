@@ -738,7 +738,7 @@ describe('event day', () => {
 
   it('when the car and driver have not been chosen at this event, then they are asked once and remembered', async () => {
     localStorage.clear();
-    stubWithRuns([]);
+    stubWithRuns([], { extra: TODAY_EVENT() });
     const { router } = renderApp(`/events/${IDS.event}`);
     const u = userEvent.setup();
 
@@ -770,7 +770,9 @@ describe('event day', () => {
     stubWithRuns([], { extra: { 'GET /api/cars': list([{ ...CAR, coDrivers: [] }, { ...CAR, id: 'c2222222-2222-4222-8222-222222222222', name: 'Blue hatch', coDrivers: [] }]) } });
     renderApp(`/events/${IDS.event}`);
 
-    expect(await screen.findByRole('button', { name: 'Start logging' })).toBeTruthy();
+    // The event was on an earlier day: choosing leads to that day's runs, not to logging now.
+    expect(await screen.findByRole('button', { name: 'Open that day’s runs' })).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Start logging' })).toBeNull();
     expect(screen.queryByRole('form', { name: 'Log a run' })).toBeNull();
   });
 
@@ -789,7 +791,7 @@ describe('event day', () => {
     stubWithRuns([]);
     renderApp(`/events/${IDS.event}?carId=${IDS.car}&driverId=${IDS.event}`);
 
-    expect(await screen.findByRole('button', { name: 'Start logging' })).toBeTruthy();
+    expect(await screen.findByRole('button', { name: 'Open that day’s runs' })).toBeTruthy();
     expect(screen.queryByRole('form', { name: 'Log a run' })).toBeNull();
   });
 
