@@ -62,16 +62,18 @@ export class SheetError extends Error {}
 
 /**
  * A file that is not text, read as text: a workbook saved as .xlsx or .ods is a zip archive, whose first
- * bytes are "PK\x03\x04" (the ZIP local file header, PKWARE APPNOTE 4.3.7); an older .xls, a picture or a
- * PDF holds NUL bytes, or bytes that are not UTF-8 and come out as U+FFFD.
+ * bytes are "PK\x03\x04" (the ZIP local file header, PKWARE APPNOTE 4.3.7); a PDF starts "%PDF-"; an older
+ * .xls or a picture holds NUL bytes, which no text file does (accented letters in another encoding are not a
+ * sign: a CSV saved as Windows-1252 is text).
  */
 function notTextProblem(text: string): string | null {
   if (text.startsWith('PK\u0003\u0004')) {
     return 'This is a spreadsheet workbook (such as .xlsx or .ods), not text. Open it in your spreadsheet app, save it as CSV, and pick that file.';
   }
   // eslint-disable-next-line no-control-regex -- matching NUL is the point
-  const unreadable = (text.slice(0, 4096).match(/[\u0000\uFFFD]/g) ?? []).length;
-  if (unreadable > 4) return 'This file is not text: it may be an older workbook (.xls), a PDF or a picture. Save the results as CSV and pick that file.';
+  if (text.startsWith('%PDF-') || (text.slice(0, 4096).match(/\u0000/g) ?? []).length > 4) {
+    return 'This file is not text: it may be an older workbook (.xls), a PDF or a picture. Save the results as CSV and pick that file.';
+  }
   return null;
 }
 

@@ -102,8 +102,9 @@ describe('parseSheet: lines that are not results', () => {
     // An old .xls (an OLE compound file, D0 CF 11 E0 A1 B1 1A E1, from memory) decodes to U+FFFD and NULs.
     const xls = new TextDecoder().decode(Uint8Array.from([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1, 0, 0, 0, 0, 0, 0, 0, 0, 0x3e, 0x00, 0x03, 0x00]));
     expect(() => parseSheet(`${xls},Driver,Car\n`)).toThrow(/not text.*Save the results as CSV/);
-    // A text file with a stray odd character or two is still read.
-    expect(parseSheet('Driver,Car,Run 1\nAda L\uFFFDvelace,12,45.1\n').rows).toHaveLength(1);
+    expect(() => parseSheet('%PDF-1.7\n%\u00e2\u00e3\n1 0 obj')).toThrow(/not text/);
+    // A text file whose accented letters came out wrong (another encoding) is still text.
+    expect(parseSheet('Driver,Car,Run 1\nJos\uFFFD Pe\uFFFDa,12,45.1\nRen\uFFFDe M\uFFFDller,7,46.0\nL\uFFFDa \uFFFD,3,47\n').rows).toHaveLength(3);
   });
 
   it('when no line names two or more columns, then a SheetError says what the first line should hold', () => {

@@ -31,7 +31,9 @@ export function FileDrop({ onFile, fileName, error }: { onFile: (file: File) => 
       >
         <FileUp aria-hidden="true" className="size-7" />
         <span className="font-bold">Results file (CSV or TSV)</span>
-        <span className="text-sm text-ink-muted">{fileName ? `Reading “${fileName}” · choose another` : 'Tap to choose, or drop the file here'}</span>
+        <span className="text-sm text-ink-muted">
+          {!fileName ? 'Tap to choose, or drop the file here' : error ? `“${fileName}” could not be used · choose another` : `Reading “${fileName}” · choose another`}
+        </span>
       </label>
       <input
         id={id}

@@ -59,12 +59,26 @@ export function localNoon(date: string): string | undefined {
   return Number.isNaN(at.getTime()) ? undefined : at.toISOString();
 }
 
-/** The file's text (UTF-8), through FileReader, which every browser we support has. */
+/**
+ * The file's text: UTF-8 (or UTF-16 with its byte-order mark) when it is that, else Windows-1252, what a
+ * spreadsheet on Windows saves a CSV in ("José" as one byte E9). Read through FileReader, which every browser we
+ * support has.
+ */
 export function readFileText(file: Blob): Promise<string> {
   return new Promise((resolve, reject) => {
     const reader = new FileReader();
-    reader.onload = () => resolve(String(reader.result ?? ''));
+    reader.onload = () => resolve(decodeSheet(new Uint8Array(reader.result as ArrayBuffer)));
     reader.onerror = () => reject(reader.error ?? new Error('The file could not be read'));
-    reader.readAsText(file);
+    reader.readAsArrayBuffer(file);
   });
+}
+
+function decodeSheet(bytes: Uint8Array): string {
+  if (bytes[0] === 0xff && bytes[1] === 0xfe) return new TextDecoder('utf-16le').decode(bytes);
+  if (bytes[0] === 0xfe && bytes[1] === 0xff) return new TextDecoder('utf-16be').decode(bytes);
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    return new TextDecoder('windows-1252').decode(bytes);
+  }
 }

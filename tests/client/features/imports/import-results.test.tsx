@@ -20,7 +20,7 @@ function stubImport(extra: StubRoutes = {}) {
   });
 }
 
-async function chooseFile(text: string, name = 'round-4.csv') {
+async function chooseFile(text: string | Uint8Array<ArrayBuffer>, name = 'round-4.csv') {
   const u = userEvent.setup();
   const input = await screen.findByLabelText(/Results file/);
   await u.upload(input, new File([text], name, { type: 'text/csv' }));
@@ -127,6 +127,28 @@ describe('the results import page', { timeout: 15_000 }, () => {
     await chooseFile('only one thing\n');
     expect(await screen.findByText(/No line with column names was found/)).toBeTruthy();
     expect(screen.queryByRole('region', { name: 'File preview' })).toBeNull();
+  });
+
+  it('when the CSV was saved as Windows-1252 (as a spreadsheet on Windows does), then its accented names read right', async () => {
+    stubImport();
+    renderApp(PATH);
+    // "José Peña" and "Renée Müller" in Windows-1252: é = E9, ñ = F1, ü = FC (one byte each; not valid UTF-8).
+    const latin = (s: string) => Uint8Array.from([...s].map((c) => c.charCodeAt(0)));
+    await chooseFile(latin('Driver,Car #,Run,Time\nJos\u00e9 Pe\u00f1a,12,1,45.100\nRen\u00e9e M\u00fcller,7,1,46.020\n'));
+
+    const preview = await screen.findByRole('region', { name: 'File preview' });
+    expect(within(preview).getByText('José Peña')).toBeTruthy();
+    expect(within(preview).getByText('Renée Müller')).toBeTruthy();
+  });
+
+  it('when a workbook is chosen, then the message says to save it as CSV, and the box no longer says it is reading it', async () => {
+    stubImport();
+    renderApp(PATH);
+    await chooseFile(Uint8Array.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0x00, 0x06, 0x00, 0x08, 0x00]), 'results.xlsx');
+
+    expect(await screen.findByText(/spreadsheet workbook .*save it as CSV/)).toBeTruthy();
+    expect(screen.getByText('“results.xlsx” could not be used · choose another')).toBeTruthy();
+    expect(screen.queryByText(/Reading “results.xlsx”/)).toBeNull();
   });
 });
 
