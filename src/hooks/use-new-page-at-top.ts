@@ -1,29 +1,71 @@
 import { useEffect, useLayoutEffect, useRef } from 'react';
 import { useLocation } from 'react-router-dom';
 
+/** Where the reader left each page of this tab's history, by the history entry's key. */
+const leftAt = new Map<string, number>();
+
+/** How long a page drawn bit by bit (its data arriving) is given to grow back to where the reader was. */
+const RESTORE_FOR_MS = 1500;
+
+/**
+ * Puts the page back where the reader left it once it is tall enough again: on going back, the page is drawn
+ * afresh and may be short for a moment, and a position set then would be cut short. Stops as soon as the reader
+ * touches or scrolls the page.
+ */
+function scrollBackTo(y: number): () => void {
+  const until = performance.now() + RESTORE_FOR_MS;
+  let frame = 0;
+  const stop = () => {
+    cancelAnimationFrame(frame);
+    window.removeEventListener('touchstart', stop);
+    window.removeEventListener('wheel', stop);
+  };
+  const step = () => {
+    window.scrollTo(0, y);
+    if (Math.abs(window.scrollY - y) <= 1 || performance.now() > until) stop();
+    else frame = requestAnimationFrame(step);
+  };
+  window.addEventListener('touchstart', stop, { passive: true });
+  window.addEventListener('wheel', stop, { passive: true });
+  step();
+  return stop;
+}
+
 /**
  * A page opened by a link or a redirect starts at its top, as one the browser loads itself does; without this,
  * a phone kept the last page's scroll and opened the next page half-way down it. Going back or forward (the
- * browser's `popstate`) is left to the browser, which puts the page where it was, and an address with a
- * `#target` to the page, which scrolls to its target. Runs before the page's own effects, so it never undoes a
- * scroll they make.
+ * browser's `popstate` to the entry now shown) returns the page to where the reader left it, and an address
+ * with a `#target` is left to the page, which scrolls to its target. Runs before the page's own effects, so it
+ * never undoes a scroll they make.
  */
 export function useNewPageAtTop() {
   const location = useLocation();
   const shown = useRef(location.pathname);
-  const travelled = useRef(false);
+  const current = useRef(location.key);
+  /** The address a `popstate` (back, forward) went to; a link's navigation has none. */
+  const travelledTo = useRef<string | null>(null);
 
   useEffect(() => {
-    const onTravel = () => void (travelled.current = true);
+    // The browser's own restoring comes before the page is drawn again, and lands short on a long page.
+    window.history.scrollRestoration = 'manual';
+    const onTravel = () => void (travelledTo.current = window.location.pathname + window.location.search + window.location.hash);
+    const onScroll = () => void leftAt.set(current.current, window.scrollY);
     window.addEventListener('popstate', onTravel);
-    return () => window.removeEventListener('popstate', onTravel);
+    window.addEventListener('scroll', onScroll, { passive: true });
+    return () => {
+      window.removeEventListener('popstate', onTravel);
+      window.removeEventListener('scroll', onScroll);
+    };
   }, []);
 
   useLayoutEffect(() => {
-    const back = travelled.current;
-    travelled.current = false;
+    const here = location.pathname + location.search + location.hash;
+    const back = travelledTo.current === here;
+    travelledTo.current = null;
+    current.current = location.key;
     if (shown.current === location.pathname) return;
     shown.current = location.pathname;
-    if (!back && !location.hash) window.scrollTo(0, 0);
+    if (back) return scrollBackTo(leftAt.get(location.key) ?? 0);
+    if (!location.hash) window.scrollTo(0, 0);
   }, [location]);
 }

@@ -32,9 +32,47 @@ describe('moving between pages (390×844)', () => {
     expect(await page.evaluate(() => window.scrollY)).toBe(0);
     await screenshot(page, 'navigation-new-page-at-top', { fullPage: false });
 
-    // Back to the car: the browser puts it where the driver left it, not at its top.
+    // Back to the car: it returns where the driver left it, not at its top.
+    const leftAt = await page.evaluate(() => document.documentElement.scrollHeight - window.innerHeight);
     await page.goBack();
     await page.getByRole('heading', { name: 'Pebble', level: 1 }).waitFor();
     await page.waitForFunction(() => window.scrollY > 100, undefined, { timeout: 5_000 });
+    expect(leftAt).toBeGreaterThan(100);
+  });
+
+  it('when the driver leaves a long page from far down for a short one and goes back, then the long page returns to that place, not cut short', async () => {
+    const page = browser!.page;
+    await page.getByRole('navigation').getByRole('link', { name: 'Cars' }).last().click();
+    await page.getByRole('link', { name: /Pebble/ }).first().click();
+    await page.getByRole('heading', { name: 'Pebble', level: 1 }).waitFor();
+    await page.getByRole('heading', { name: 'Change log' }).waitFor();
+    await page.evaluate(() => window.scrollTo(0, 2500));
+    const at = await page.evaluate(() => window.scrollY);
+    expect(at).toBeGreaterThan(1500);
+
+    // Event day is far shorter than the car page from where the driver was.
+    await page.getByRole('navigation').getByRole('link', { name: 'Event day' }).last().click();
+    await page.getByRole('heading', { level: 1 }).first().waitFor();
+    await page.goBack();
+    await page.getByRole('heading', { name: 'Pebble', level: 1 }).waitFor();
+    await page.waitForFunction((y) => Math.abs(window.scrollY - y) <= 2, at, { timeout: 5_000 });
+  });
+
+  it('when a calculator is jumped to from the links at the top, then it is scrolled to, clear of the top bar; the next page from the bottom bar still starts at its top', async () => {
+    const page = browser!.page;
+    await page.getByRole('navigation').getByRole('link', { name: 'Calculators' }).last().click();
+    await page.getByRole('heading', { name: 'Calculators', level: 1 }).waitFor();
+    await page.getByRole('navigation', { name: 'Jump to a calculator' }).getByRole('link', { name: 'Toe and camber' }).click();
+    const heading = page.getByRole('heading', { name: 'Toe and camber', level: 2 });
+    await page.waitForFunction(() => window.scrollY > 500);
+    const headerBottom = await page.locator('header').first().evaluate((h) => h.getBoundingClientRect().bottom);
+    const top = await heading.evaluate((h) => h.getBoundingClientRect().top);
+    expect(top).toBeGreaterThanOrEqual(headerBottom);
+    expect(top).toBeLessThan(300);
+    await screenshot(page, 'calculators-jumped', { fullPage: false });
+
+    await page.getByRole('navigation').getByRole('link', { name: 'Settings' }).last().click();
+    await page.getByRole('heading', { name: 'Settings', level: 1 }).waitFor();
+    expect(await page.evaluate(() => window.scrollY)).toBe(0);
   });
 });

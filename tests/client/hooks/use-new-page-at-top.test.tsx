@@ -1,5 +1,5 @@
 // @vitest-environment jsdom
-import { act, render } from '@testing-library/react';
+import { act, cleanup, render } from '@testing-library/react';
 import { createBrowserRouter, RouterProvider, type NavigateFunction, type NavigateOptions, useNavigate } from 'react-router-dom';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { useNewPageAtTop } from '@/hooks/use-new-page-at-top';
@@ -28,13 +28,23 @@ const back = () =>
     await new Promise((resolve) => setTimeout(resolve, 0));
   });
 
+/** The reader scrolls the page to `y` (jsdom draws nothing: the position is only a number here). */
+function scrollBy(y: number) {
+  window.scrollY = y;
+  window.dispatchEvent(new Event('scroll'));
+}
+
 describe('useNewPageAtTop', () => {
-  let scrollTo: ReturnType<typeof vi.fn>;
+  let scrollTo: ReturnType<typeof vi.fn<(x: number, y: number) => void>>;
   beforeEach(() => {
-    scrollTo = vi.fn();
+    scrollTo = vi.fn((_x: number, y: number) => void (window.scrollY = y));
     vi.stubGlobal('scrollTo', scrollTo);
+    window.scrollY = 0;
   });
-  afterEach(() => vi.unstubAllGlobals());
+  afterEach(() => {
+    cleanup();
+    vi.unstubAllGlobals();
+  });
 
   it('when the shell first shows a page, then it leaves the scroll alone (the driver may already have scrolled)', () => {
     renderAt('/cars/one');
@@ -58,15 +68,34 @@ describe('useNewPageAtTop', () => {
     expect(scrollTo).toHaveBeenCalledExactlyOnceWith(0, 0);
   });
 
-  it('when the driver goes back, then the browser is left to put the page where it was', async () => {
+  it('when the driver goes back, then the page returns to where the driver left it, not to its top', async () => {
     renderAt('/cars/one');
+    scrollBy(2500);
     await go('/events');
-    scrollTo.mockClear();
+    expect(window.scrollY).toBe(0);
+    scrollBy(300);
 
     await back();
 
     expect(window.location.pathname).toBe('/cars/one');
-    expect(scrollTo).not.toHaveBeenCalled();
+    expect(scrollTo).toHaveBeenLastCalledWith(0, 2500);
+    expect(window.scrollY).toBe(2500);
+  });
+
+  it('when the page went to a #target on itself and the driver then taps a link, then the new page still starts at its top', async () => {
+    renderAt('/calculators');
+    // As a plain <a href="#springs"> does: the browser moves history and fires popstate.
+    await act(async () => {
+      window.history.pushState(null, '', '/calculators#springs');
+      window.dispatchEvent(new PopStateEvent('popstate'));
+      await new Promise((resolve) => setTimeout(resolve, 0));
+    });
+    scrollBy(1800);
+    scrollTo.mockClear();
+
+    await go('/settings');
+
+    expect(scrollTo).toHaveBeenCalledExactlyOnceWith(0, 0);
   });
 
   it('when the driver goes back and then taps a link, then the linked page starts at its top', async () => {

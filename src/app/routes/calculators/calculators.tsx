@@ -43,7 +43,15 @@ export function CalculatorsPage() {
           <ul className="flex flex-wrap gap-2">
             {CALCULATORS.map(({ id, name }) => (
               <li key={id}>
-                <a href={`#${id}`} className="inline-flex min-h-tap items-center rounded-full border border-line-strong bg-surface px-4 font-semibold text-link">
+                <a
+                  href={`#${id}`}
+                  // Scrolled to in place: the address and the history stay as they are, so Back leaves the page.
+                  onClick={(e) => {
+                    e.preventDefault();
+                    document.getElementById(id)?.scrollIntoView({ block: 'start' });
+                  }}
+                  className="inline-flex min-h-tap items-center rounded-full border border-line-strong bg-surface px-4 font-semibold text-link"
+                >
                   {name}
                 </a>
               </li>

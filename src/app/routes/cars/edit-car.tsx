@@ -3,6 +3,7 @@ import { ArrowLeft } from 'lucide-react';
 import { paths, pathTo } from '@/config/paths';
 import { PageMessage } from '@/components/ui/page-message';
 import { buttonClasses } from '@/components/ui/button';
+import { toast } from '@/lib/toast-store';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCar } from '@/features/cars/api/get-car';
 import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
@@ -42,7 +43,15 @@ export function EditCarPage() {
       </div>
       {car ? (
         <>
-          <EditCarForm car={car} onSaved={() => void navigate(pathTo.car(carId))} />
+          <EditCarForm
+            car={car}
+            onSaved={() => {
+              toast({ tone: 'success', title: 'Car saved' });
+              // The car's page in this one's place (Back leads on past it), from its top, where the changes show.
+              void navigate(pathTo.car(carId), { replace: true });
+              window.scrollTo(0, 0);
+            }}
+          />
           <DeleteCar car={car} onDeleted={() => void navigate(paths.cars, { replace: true })} />
         </>
       ) : isPending ? (

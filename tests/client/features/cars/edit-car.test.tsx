@@ -55,6 +55,10 @@ describe('editing a car', () => {
     await u.click(screen.getByRole('button', { name: 'Save changes' }));
 
     await waitFor(() => expect(router.state.location.pathname).toBe(`/cars/${IDS.car}`));
+    // In the edit page's place, so Back does not reopen the form; and said.
+    expect(router.state.historyAction).toBe('REPLACE');
+    expect(router.state.location.search).toBe('');
+    expect(await screen.findByText('Car saved')).toBeTruthy();
     const [patch] = requestsTo(fetch, `PATCH ${CAR_PATH}`);
     expect(patch!.body).toEqual({
       name: 'Grey roadster II',
