@@ -2,6 +2,7 @@ import * as z from '../zod';
 import { isoDate, isoDateTime } from '../api/dates.schema';
 import type { Corner } from '../season/corners';
 import type { SetupChange, SetupCorner } from '../season/setup.schema';
+import type { BetterWhen } from '../calc/comparison.calc';
 
 export const SCATTER_PARAMS = ['camber', 'springRate', 'damperClicks', 'coldPressure', 'rideHeight'] as const;
 export const SCATTER_METRICS = ['time', 'wear', 'wearSkew'] as const;
@@ -96,7 +97,7 @@ export interface Comparison {
    * What was measured, which way is better and what each group counts (runs, or intervals between two tread
    * readings): enough for a client to say the verdict again in the user's units.
    */
-  about?: { what: string; betterWhen: 'lower' | 'higher'; counted: string };
+  about?: { what: string; betterWhen: BetterWhen; counted: string };
 }
 
 export interface CompareResult {

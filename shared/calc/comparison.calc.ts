@@ -157,17 +157,22 @@ function autoDecimals(before: number, after: number): number {
 }
 
 
+/** Which way a measurement is better: smaller, larger, or closer to zero (a balance). */
+export type BetterWhen = 'lower' | 'higher' | 'nearZero';
+
 /**
  * One plain sentence on a before/after comparison, e.g.
  * "Inner-edge wear fell from 0.088 to 0.046 mm per run: a clear change. That's an improvement."
  * p < 0.05 → "a clear change"; 0.05–0.2 → "a hint, not yet sure"; above → "could be chance". The counts and p are
  * shown beside it, not in it. With fewer than 3 in a group: "Not enough data yet: 2 readings before and 1 after."
  * `counted` names what each group holds (one reading, run or interval; "reading" when not given); `decimals`
- * overrides the automatic number of decimals (two significant figures of the change).
+ * writes the means as the page beside it does, unless both would then read the same (the automatic number, two
+ * significant figures of the change, takes over). `betterWhen: 'nearZero'` is for a balance such as inner minus
+ * outer wear, where even (0) is the aim and a swing past it is no gain.
  */
 export function verdict(
   comparison: SampleComparison,
-  options: { betterWhen: 'lower' | 'higher'; what: string; unit: string; counted?: string; decimals?: number },
+  options: { betterWhen: BetterWhen; what: string; unit: string; counted?: string; decimals?: number },
 ): string {
   const { before, after, difference, pValue } = comparison;
   const counted = options.counted ?? 'reading';
@@ -177,7 +182,9 @@ export function verdict(
   const what = options.what.trim();
   const subject = what.charAt(0).toUpperCase() + what.slice(1);
   const unit = options.unit.trim() ? ` ${options.unit.trim()}` : '';
-  const decimals = options.decimals ?? autoDecimals(before.mean, after.mean);
+  const fixed = options.decimals;
+  const decimals =
+    fixed !== undefined && formatFixed(before.mean, fixed) !== formatFixed(after.mean, fixed) ? fixed : autoDecimals(before.mean, after.mean);
   const from = formatFixed(before.mean, decimals);
   const to = formatFixed(after.mean, decimals);
 
@@ -189,8 +196,10 @@ export function verdict(
   if (pValue === null) {
     return `${change}, but each side's ${counted}s were all the same, so chance cannot be judged.`;
   }
-  const better = (options.betterWhen === 'lower') === difference < 0;
-  const direction = same ? '' : better ? "that's an improvement." : "that's a step back.";
+  const better =
+    options.betterWhen === 'nearZero' ? Math.abs(after.mean) < Math.abs(before.mean) : (options.betterWhen === 'lower') === difference < 0;
+  const level = options.betterWhen === 'nearZero' && Math.abs(after.mean) === Math.abs(before.mean);
+  const direction = same || level ? '' : better ? "that's an improvement." : "that's a step back.";
   if (pValue < CLEAR_P) {
     return `${change}: a clear change.${direction ? ` ${direction.charAt(0).toUpperCase()}${direction.slice(1)}` : ''}`;
   }

@@ -4,7 +4,7 @@ import { CORNERS, type Corner } from '@shared/season/corners';
 import type { Setup, SetupCorner } from '@shared/season/setup.schema';
 import type { Run } from '@shared/season/run.schema';
 import { diffSetups } from '@shared/season/setup-diff';
-import { compareSamples, runsLeft, straightLineFit, verdict, wearRateMmPerRun } from '@shared/calc/index';
+import { compareSamples, runsLeft, straightLineFit, verdict, wearRateMmPerRun, type BetterWhen } from '@shared/calc/index';
 import {
   SCATTER_PARAM_FIELD,
   type CompareQuery, type CompareResult, type Comparison, type CornerOrAxle, type ScatterParam, type ScatterPoint, type ScatterQuery,
@@ -223,8 +223,11 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
   };
 }
 
+/** Wear rates are shown to 3 decimals (mm per run, and /32 in per run): the verdict writes them the same way. */
+const WEAR_DECIMALS = 3;
+
 function comparison(
-  before: number[], after: number[], words: { what: string; unit: string; betterWhen: 'lower' | 'higher'; counted: string },
+  before: number[], after: number[], words: { what: string; unit: string; betterWhen: BetterWhen; counted: string; decimals: number },
 ): Comparison {
   const c = compareSamples(before, after);
   return { ...c, verdict: verdict(c, words), about: { what: words.what, betterWhen: words.betterWhen, counted: words.counted } };
@@ -260,13 +263,14 @@ export async function compare(ds: DataSource, user: User, carId: string, q: Comp
     const label = corner.toUpperCase();
     corners[corner] = {
       wear: comparison(before.map((w) => (w.inner + w.middle + w.outer) / 3), after.map((w) => (w.inner + w.middle + w.outer) / 3), {
-        what: `${label} wear`, unit: 'mm per run', betterWhen: 'lower', counted: 'interval',
+        what: `${label} wear`, unit: 'mm per run', betterWhen: 'lower', counted: 'interval', decimals: WEAR_DECIMALS,
       }),
       innerWear: comparison(before.map((w) => w.inner), after.map((w) => w.inner), {
-        what: `${label} inner-edge wear`, unit: 'mm per run', betterWhen: 'lower', counted: 'interval',
+        what: `${label} inner-edge wear`, unit: 'mm per run', betterWhen: 'lower', counted: 'interval', decimals: WEAR_DECIMALS,
       }),
       skew: comparison(before.map((w) => w.inner - w.outer), after.map((w) => w.inner - w.outer), {
-        what: `${label} inner-minus-outer wear`, unit: 'mm per run', betterWhen: 'lower', counted: 'interval',
+        // Even wear across the tread (0) is the aim (common practice): a swing to the outer edge is no gain.
+        what: `${label} inner-minus-outer wear`, unit: 'mm per run', betterWhen: 'nearZero', counted: 'interval', decimals: WEAR_DECIMALS,
       }),
     };
   }
@@ -274,7 +278,7 @@ export async function compare(ds: DataSource, user: User, carId: string, q: Comp
   const time = comparison(
     timed.filter((r) => r.recordedAt < split).map((r) => r.pctOffBest),
     timed.filter((r) => r.recordedAt >= split).map((r) => r.pctOffBest),
-    { what: "% off the day's best", unit: '%', betterWhen: 'lower', counted: 'run' },
+    { what: "time off the day's best", unit: '%', betterWhen: 'lower', counted: 'run', decimals: 2 },
   );
   return { splitAt: split, change, corners, time };
 }

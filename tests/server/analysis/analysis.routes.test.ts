@@ -103,7 +103,9 @@ describe('GET /api/cars/:carId/analysis/compare', () => {
       // With what it measured and which way is better, so a client can say it again in its user's units.
       expect(inner.about).toEqual({ what: `${corner.toUpperCase()} inner-edge wear`, betterWhen: 'lower', counted: 'interval' });
     }
-    expect(res.body.time.about).toEqual({ what: "% off the day's best", betterWhen: 'lower', counted: 'run' });
+    expect(res.body.time.about).toEqual({ what: "time off the day's best", betterWhen: 'lower', counted: 'run' });
+    // Inner minus outer is a balance: even (0) is the aim.
+    expect(res.body.corners.lf.skew.about.betterWhen).toBe('nearZero');
     // Time: the clean finished runs, each on one side of the change.
     const runs = (await maren.get(`/api/runs?carId=${carId}`)).body.items as { cones: number; status: string }[];
     expect(res.body.time.before.n + res.body.time.after.n).toBe(runs.filter((r) => r.status === 'finished' && r.cones === 0).length);

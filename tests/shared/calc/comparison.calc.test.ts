@@ -237,6 +237,19 @@ describe('verdict', () => {
     expect(verdict(comparison(0.9, 0.05, 0.05), wear)).toBe('Inner-edge wear was 0.0500 mm per run before and after: could be chance.');
   });
 
+  it('when a balance (inner minus outer) moves toward even, then it is an improvement; past even to the other side by more, a step back (common practice: even wear across the tread is the aim)', () => {
+    const skew = { betterWhen: 'nearZero' as const, what: 'inner-minus-outer wear', unit: 'mm per run', decimals: 3 };
+    expect(verdict(comparison(0.01, 0.02, -0.004), skew)).toBe("Inner-minus-outer wear fell from 0.020 to \u22120.004 mm per run: a clear change. That's an improvement.");
+    expect(verdict(comparison(0.01, 0, -0.03), skew)).toBe("Inner-minus-outer wear fell from 0.000 to \u22120.030 mm per run: a clear change. That's a step back.");
+    // As far from even on the other side: neither.
+    expect(verdict(comparison(0.01, 0.02, -0.02), skew)).toBe('Inner-minus-outer wear fell from 0.020 to \u22120.020 mm per run: a clear change.');
+  });
+
+  it('when decimals are given and the means differ at that many, then they are written so; when they would read the same, then enough to tell them apart', () => {
+    expect(verdict(comparison(0.01, 0.0339, 0.0366), { ...wear, decimals: 3 })).toMatch(/^Inner-edge wear rose from 0\.034 to 0\.037 mm per run/);
+    expect(verdict(comparison(0.01, 0.0339, 0.0342), { ...wear, decimals: 3 })).toMatch(/^Inner-edge wear rose from 0\.03390 to 0\.03420 mm per run/);
+  });
+
   it('when decimals are given, then the means are shown with that many', () => {
     expect(verdict(comparison(0.01, 0.088, 0.046), { ...wear, decimals: 2 })).toMatch(/^Inner-edge wear fell from 0\.09 to 0\.05 mm per run/);
   });

@@ -2,7 +2,7 @@ import { useId, useState, type ReactNode } from 'react';
 import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
 import { formatFixed, formatP } from '@shared/calc/display';
 import { unitFor, type UnitPreferences } from '@shared/calc/units.calc';
-import { CLEAR_P, HINT_P, verdict } from '@shared/calc/comparison.calc';
+import { CLEAR_P, HINT_P, MINIMUM_READINGS_PER_GROUP as MIN_INTERVALS, verdict } from '@shared/calc/comparison.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import type { Setup } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
@@ -43,7 +43,8 @@ function verdictText(c: Comparison, scale: Scale): string {
     after: { ...c.after, mean: at(c.after.mean), sd: at(c.after.sd) },
     difference: at(c.difference),
   };
-  return verdict(converted, { ...c.about, unit: scale.unitWords ?? '' });
+  // Written to 3 decimals, as the numbers beside it (wearRateNumber).
+  return verdict(converted, { ...c.about, unit: scale.unitWords ?? '', decimals: 3 });
 }
 
 const PERCENT_SCALE: Scale = { number: (v) => formatFixed(v, 2), suffix: ' %' };
@@ -151,6 +152,10 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
   if (compare.isError) return <EmptyState message="The comparison could not be loaded. Try again shortly." />;
   const result = compare.data;
   const wear = wearScale(units);
+  const wearComparisons = CORNERS.flatMap((c) => [result.corners[c].innerWear, result.corners[c].wear, result.corners[c].skew]);
+  const wearToCompare = wearComparisons.some((c) => c.enough);
+  const mostBefore = Math.max(...wearComparisons.map((c) => c.before.n));
+  const mostAfter = Math.max(...wearComparisons.map((c) => c.after.n));
   const label = 'Tyre wear per run, before and after';
   const renderCorner = (corner: Corner) => {
     const c = result.corners[corner];
@@ -167,11 +172,24 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
       <p className="text-sm text-ink-muted">
         Split at <span className="tabular-figures font-semibold text-ink">{formatDateTime(result.splitAt)}</span>. Wear is
         measured over each interval between two tread readings; an interval whose runs straddle the change counts on
-        neither side. Each side shows its average ± the usual spread (one standard deviation). p is how often a change this
-        large would turn up by chance alone, with nothing changed on the car (Welch&apos;s t-test): under {CLEAR_P} is called a
-        clear change, up to {HINT_P} a hint.
+        neither side. Each side shows its average ± the usual spread (one standard deviation). p is how often a change at
+        least this large would turn up by chance alone, with nothing changed on the car (Welch&apos;s t-test): under {CLEAR_P} is
+        called a clear change, up to {HINT_P} a hint. With a dozen rows below, one may read &ldquo;clear&rdquo; by chance alone:
+        trust a change that shows at more than one corner, or that holds over the next events.
       </p>
-      {sideBySide ? <CornerGrid label={label} renderCorner={renderCorner} /> : <StackedCorners label={label} renderCorner={renderCorner} />}
+      {wearToCompare ? (
+        sideBySide ? (
+          <CornerGrid label={label} renderCorner={renderCorner} />
+        ) : (
+          <StackedCorners label={label} renderCorner={renderCorner} />
+        )
+      ) : (
+        // Said once, not twelve times over.
+        <p className="rounded border border-line p-3 text-sm">
+          Not enough tread readings yet to compare wear across this change: a corner needs {MIN_INTERVALS} intervals on each side, and
+          the most any has is {mostBefore} before and {mostAfter} after.
+        </p>
+      )}
       <div className="flex flex-col gap-1 rounded border border-line p-3">
         <Measure title="Time: % off the day's best, per run" comparison={result.time} scale={PERCENT_SCALE} counted="run" />
       </div>

@@ -334,6 +334,29 @@ describe('season review: before and after a change, read in 1/32 in', () => {
   });
 });
 
+describe('season review: a change with too few tread readings after it', () => {
+  it('when no corner has enough intervals on both sides, then one line says so, with the counts, instead of twelve', async () => {
+    const answer = compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber');
+    for (const c of ['lf', 'rf', 'lr', 'rr'] as const) {
+      const few = comparison([c === 'lf' ? 7 : 5, 0.05, 0.01], [c === 'rr' ? 2 : 0, 0.04, 0.01], 'Not enough data yet: 7 intervals before and 0 after.', false);
+      answer.corners[c] = { innerWear: few, wear: few, skew: few };
+    }
+    stub({ [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_CAMBER.id}`]: jsonResponse(200, answer) });
+    renderPage();
+    const compare = section('Before and after a change');
+
+    expect(
+      await compare.findByText(
+        'Not enough tread readings yet to compare wear across this change: a corner needs 3 intervals on each side, and the most any has is 7 before and 2 after.',
+      ),
+    ).toBeTruthy();
+    expect(compare.queryByText(/^Not enough data yet/)).toBeNull();
+    expect(compare.queryByRole('group', { name: 'Left front' })).toBeNull();
+    // The time comparison still shows.
+    expect(compare.getByText('(24 runs)')).toBeTruthy();
+  });
+});
+
 describe('season review: before and after a change', () => {
   it('when the page opens, then the latest camber change is compared and each corner shows its counts, average ± spread, p and its verdict as written', async () => {
     stub();
@@ -359,7 +382,9 @@ describe('season review: before and after a change', () => {
     expect(lf.getByText('0.045 ± 0.008 mm per run', { exact: false })).toBeTruthy();
     // p to two significant figures (formatP), not to three decimals (0.005), and said once what it means.
     expect(lf.getAllByText(/· p = 0\.0055$/).length).toBe(3);
-    expect(compare.getByText(/p is how often a change this large would turn up by chance alone/).textContent).toMatch(/under 0\.05 is called a clear change, up to 0\.2 a hint/);
+    const note = compare.getByText(/p is how often a change at least this large would turn up by chance alone/).textContent;
+    expect(note).toMatch(/under 0\.05 is\s+called a clear change, up to 0\.2 a hint/);
+    expect(note).toMatch(/one may read “clear” by chance alone/);
     expect(compare.queryByText(/\bdf\b|\(n = /)).toBeNull();
     // The time comparison below, with its uncertainty.
     expect(compare.getByText("Camber: % off the day's best fell by 0.51 %, not enough to rule out chance.")).toBeTruthy();
