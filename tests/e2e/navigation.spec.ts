@@ -75,4 +75,21 @@ describe('moving between pages (390×844)', () => {
     await page.getByRole('heading', { name: 'Settings', level: 1 }).waitFor();
     expect(await page.evaluate(() => window.scrollY)).toBe(0);
   });
+
+  it('when units are chosen and not yet saved, then Save sits right on top of the bottom bar, not under its edge', async () => {
+    const page = browser!.page;
+    await page.getByRole('navigation').getByRole('link', { name: 'Settings' }).last().click();
+    const units = page.getByRole('form', { name: 'Units' });
+    await units.getByRole('button', { name: 'Imperial' }).click();
+    await units.getByText('Not saved yet', { exact: false }).waitFor();
+    await page.evaluate(() => window.scrollTo(0, 0));
+
+    const save = units.getByRole('button', { name: 'Save units' });
+    const bar = await save.evaluate((b) => b.parentElement!.getBoundingClientRect());
+    const nav = await page.getByRole('navigation', { name: 'Main' }).evaluate((n) => n.getBoundingClientRect());
+    expect(Math.abs(bar.bottom - nav.top)).toBeLessThanOrEqual(0.5);
+    await screenshot(page, 'settings-units-unsaved', { fullPage: false });
+    // Nothing was saved: the choice goes back to what it was.
+    await units.getByRole('button', { name: 'Metric' }).click();
+  });
 });

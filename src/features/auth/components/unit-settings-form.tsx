@@ -11,7 +11,7 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { isApiError } from '@/lib/api-client';
-import { cn } from '@/lib/cn';
+import { SAVE_BAR_CLASSES } from '@/components/layouts/save-bar';
 import { useUpdatePreferences } from '../api/update-preferences';
 
 /** The quantities a user may choose a unit for (angles are always degrees, times always seconds). */
@@ -108,17 +108,13 @@ export function UnitSettingsForm({ user }: { user: User }) {
       ))}
 
       <FormAlert message={error} />
-      <p aria-live="polite" className="font-semibold text-success">
+      {/* Live regions stay in the page to be heard, but take no room while they have nothing to say. */}
+      <p aria-live="polite" className="font-semibold text-success empty:sr-only">
         {message}
       </p>
       {/* A choice not yet saved keeps Save in reach above the bottom bar, and says it: leaving the page drops it. */}
-      <div
-        className={cn(
-          'flex flex-col gap-2',
-          unsaved && 'sticky bottom-[calc(3.5rem+env(safe-area-inset-bottom))] z-10 -mx-4 border-t border-line bg-canvas px-4 py-3 md:bottom-0',
-        )}
-      >
-        <p aria-live="polite" className="text-sm font-semibold">
+      <div className={unsaved ? SAVE_BAR_CLASSES : 'flex flex-col gap-2'}>
+        <p aria-live="polite" className="text-sm font-semibold empty:sr-only">
           {unsaved && !update.isPending ? 'Not saved yet: the app keeps showing your old units until you save.' : null}
         </p>
         <Button type="submit" isPending={update.isPending} pendingLabel="Saving…" disabled={!unsaved && !error} className="w-full md:w-auto">

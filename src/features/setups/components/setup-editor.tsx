@@ -23,6 +23,7 @@ import { FIELD_INFO, formatFieldChange } from '@/lib/setup-fields';
 import { compactCorners, cornersToTexts, maxClicks, textsToSi, type SetupFormValues } from '../utils/setup-form';
 import { setupInForce, type SetupView } from '../utils/setup-views';
 import { SetupChangeList } from './setup-change-list';
+import { SAVE_BAR_CLASSES } from '@/components/layouts/save-bar';
 
 const emptyAxles = { front: { antiRollBar: null }, rear: { antiRollBar: null } };
 
@@ -276,7 +277,7 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
         <SetupChangeList changes={changes} emptyText="Nothing changed yet." adjusters={car.damperAdjusters} />
       </section>
 
-      <div className="sticky bottom-[calc(3.5rem+env(safe-area-inset-bottom))] z-10 -mx-4 flex flex-col gap-2 border-t border-line bg-canvas px-4 py-3 md:bottom-0">
+      <div className={SAVE_BAR_CLASSES}>
         <FormAlert message={formError} />
         {waiting ? (
           <p role="status" className="text-sm font-semibold">

@@ -22,6 +22,7 @@ import { useUnits } from '@/lib/units-context';
 import { useWatchedEntry } from '@/lib/use-outbox-entry';
 import { createTreadReadingEntry, useCreateTreadReading, type CreateTreadReadingBody } from '../api/create-tread-reading';
 import { latestReading, POSITION_SHORT, POSITION_WORDS, positionsAcross, WEAR_BAR_MM, type TreadPosition } from '../utils/tread';
+import { SAVE_BAR_CLASSES } from '@/components/layouts/save-bar';
 
 type Texts = Record<Corner, Record<TreadPosition, string>>;
 const emptyTexts = (): Texts =>
@@ -282,7 +283,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
         </p>
       </Caution>
 
-      <div className="sticky bottom-[calc(3.5rem+env(safe-area-inset-bottom))] z-10 -mx-4 flex flex-col gap-2 border-t border-line bg-canvas px-4 py-3 md:bottom-0">
+      <div className={SAVE_BAR_CLASSES}>
         {/* A message that points at marked readings goes once none is marked any more. */}
         <FormAlert message={formError && (!MARKED_ABOVE.has(formError) || Object.values(errors).some(Boolean)) ? formError : null} />
         {waiting ? (
