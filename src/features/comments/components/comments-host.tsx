@@ -1,4 +1,5 @@
-import { lazy, Suspense, useEffect, useState, type ReactNode } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useState, useSyncExternalStore, type ReactNode } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { useLocation, useNavigate } from 'react-router-dom';
 import type { CommentTarget } from '@shared/collab/comment.schema';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
@@ -20,6 +21,31 @@ function CouldNotOpen({ onShown }: { onShown: () => void }) {
   return null;
 }
 
+/** A run's thread opened from a link, before the board's runs say which run it is. */
+const THIS_RUN = 'this run';
+
+/** Must match `runKeys.all` in features/runs (importing it would tie this chunk, on every page, to the trackside one). */
+const RUNS_KEY = ['runs'];
+
+/**
+ * "run 4, Teo Marsh": a run as the day's board has read it, for the title of its thread opened from a link (which
+ * names only its id); null until the board's runs are in.
+ */
+function useRunWords(runId: string | null): string | null {
+  const queryClient = useQueryClient();
+  const subscribe = useCallback((onChange: () => void) => queryClient.getQueryCache().subscribe(onChange), [queryClient]);
+  const words = useCallback(() => {
+    if (!runId) return null;
+    for (const query of queryClient.getQueryCache().findAll({ queryKey: RUNS_KEY })) {
+      const items = (query.state.data as { items?: { id: string; runNumber: number; driver?: { displayName: string } }[] } | undefined)?.items;
+      const run = items?.find((r) => r.id === runId);
+      if (run) return `run ${run.runNumber}${run.driver ? `, ${run.driver.displayName}` : ''}`;
+    }
+    return null;
+  }, [queryClient, runId]);
+  return useSyncExternalStore(subscribe, words);
+}
+
 /**
  * The thread a day's board was opened for (a notification's link): `?comments=` names a run, or the day itself
  * (the event's own id, with `carId`, for the car's day).
@@ -30,7 +56,7 @@ function threadAsked(pathname: string, search: string): OpenCommentsDetail | nul
   const id = params.get('comments');
   const carId = params.get('carId');
   if (!eventId || !id) return null;
-  if (id !== eventId) return { target: { type: 'run', id }, what: 'this run' };
+  if (id !== eventId) return { target: { type: 'run', id }, what: THIS_RUN };
   return carId ? { target: { type: 'event', id, carId }, what: 'this day' } : null;
 }
 
@@ -64,6 +90,7 @@ export function CommentsHost({ renderExtras }: { renderExtras?: (target: Comment
     params.delete('comments');
     void navigate({ pathname, search: `?${params.toString()}`, hash }, { replace: true });
   }, [askedAt, pathname, search, hash, navigate]);
+  const runWords = useRunWords(request?.what === THIS_RUN ? request.target.id : null);
   if (!request) return null;
   return (
     <ErrorBoundary
@@ -80,7 +107,7 @@ export function CommentsHost({ renderExtras }: { renderExtras?: (target: Comment
       <Suspense fallback={null}>
         <CommentDialog
           target={request.target}
-          title={`Comments on ${request.what}`}
+          title={`Comments on ${runWords ?? request.what}`}
           open
           onOpenChange={(open) => {
             if (!open) setRequest(null);

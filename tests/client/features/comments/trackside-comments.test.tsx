@@ -54,7 +54,7 @@ describe('comments at the track', () => {
     expect(within(dialog).getByLabelText('Add a comment')).toBeTruthy();
   });
 
-  it('when the board is opened from a notification about a run, then that run’s thread opens over it, once', async () => {
+  it('when the board is opened from a notification about a run, then that run’s thread opens over it, once, named by its number and driver', async () => {
     stubDay({
       [`GET /api/comments?type=run&id=${IDS.run2}`]: list([
         comment({ id: COLLAB_IDS.commentDusty, body: 'Rear looks loose on run 2.', author: { id: COLLAB_IDS.dusty, displayName: 'Dusty Okonjo' } }),
@@ -63,7 +63,8 @@ describe('comments at the track', () => {
     const { router } = renderApp(`${PATH}&driverId=${IDS.maren}&comments=${IDS.run2}`);
     const u = userEvent.setup();
 
-    const dialog = await screen.findByRole('dialog', { name: 'Comments on this run' });
+    // Named as the board names the run, once its runs are in: which run, and whose.
+    const dialog = await screen.findByRole('dialog', { name: 'Comments on run 2, Maren Holt' });
     expect(await within(dialog).findByText('Rear looks loose on run 2.')).toBeTruthy();
     // The board stays for the same car and driver; the address no longer asks for the thread.
     expect(router.state.location.search).toBe(`?carId=${IDS.car}&driverId=${IDS.maren}`);
