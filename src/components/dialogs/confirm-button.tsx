@@ -3,8 +3,17 @@ import type { LucideIcon } from 'lucide-react';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { FormAlert } from '@/components/ui/form-alert';
+import { isApiError } from '@/lib/api-client';
 
 // Not in components/ui: the build bundles ui/ into one file the trackside page loads, and this one brings the dialog with it.
+
+/** Why an online action was refused, in words: no signal, the fields the server named, or its message. */
+export function refusalText(error: unknown): string {
+  if (!isApiError(error)) return 'Something went wrong; try again.';
+  if (error.code === 'network') return 'This needs a connection. Try again when you have signal.';
+  const fields = Object.values(error.fieldErrors).flat();
+  return fields.length ? fields.join(' ') : error.message;
+}
 
 export interface ConfirmButtonProps {
   /** The button that opens the question. */

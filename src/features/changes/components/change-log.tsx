@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { CHANGE_LOCATIONS, createChangeInputSchema, type ChangeLogEntry } from '@shared/season/change-log.schema';
-import { ConfirmButton } from '@/components/dialogs/confirm-button';
+import { ConfirmButton, refusalText } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
@@ -8,7 +8,6 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { formatDay, todayIsoDate } from '@/lib/dates';
 import type { OutboxEntry } from '@/lib/outbox';
-import { isApiError } from '@/lib/api-client';
 import { useOutbox } from '@/lib/outbox-context';
 import { createChangeEntry, useCreateChange, type CreateChangeBody } from '../api/create-change';
 import { useDeleteChange } from '../api/delete-change';
@@ -59,7 +58,7 @@ function DeleteChangeButton({ carId, changeId, what }: { carId: string; changeId
       keepLabel="Keep"
       isPending={remove.isPending}
       onConfirm={(handlers) => remove.mutate(changeId, handlers)}
-      failureText={(e) => (isApiError(e) && e.code !== 'network' ? e.message : 'This needs a connection. Try again when you have signal.')}
+      failureText={refusalText}
     >
       Delete<span className="sr-only"> “{what}”</span>
     </ConfirmButton>

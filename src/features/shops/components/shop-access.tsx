@@ -1,24 +1,15 @@
 import { useId, useState } from 'react';
 import { Search } from 'lucide-react';
 import type { ShopGrant, ShopSummary } from '@shared/collab/shop.schema';
-import { ConfirmButton } from '@/components/dialogs/confirm-button';
+import { ConfirmButton, refusalText } from '@/components/dialogs/confirm-button';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { isApiError } from '@/lib/api-client';
 import { formatDay } from '@/lib/dates';
 import { useShopGrants } from '../api/get-shop-grants';
 import { useGrantShop } from '../api/grant-shop';
 import { useRevokeShop } from '../api/revoke-shop';
 import { useShopSearch } from '../api/search-shops';
 
-const NEEDS_SIGNAL = 'This needs a connection. Try again when you have signal.';
-
-function failureText(error: unknown): string {
-  if (!isApiError(error)) return 'Something went wrong; try again.';
-  if (error.code === 'network') return NEEDS_SIGNAL;
-  const fields = Object.values(error.fieldErrors).flat();
-  return fields.length ? fields.join(' ') : error.message;
-}
 
 function RevokeShop({ carId, shop }: { carId: string; shop: ShopSummary }) {
   const revoke = useRevokeShop(carId);
@@ -31,7 +22,7 @@ function RevokeShop({ carId, shop }: { carId: string; shop: ShopSummary }) {
       keepLabel="Keep"
       isPending={revoke.isPending}
       onConfirm={(handlers) => revoke.mutate(shop.id, handlers)}
-      failureText={failureText}
+      failureText={refusalText}
     >
       Revoke<span className="sr-only"> {shop.name}</span>
     </ConfirmButton>
@@ -71,7 +62,7 @@ function GrantShopForm({ carId, granted }: { carId: string; granted: readonly st
       </div>
       {typed ? (
         search.isError ? (
-          <p className="text-sm text-ink-muted">{failureText(search.error)}</p>
+          <p className="text-sm text-ink-muted">{refusalText(search.error)}</p>
         ) : search.isPending ? (
           <p className="text-sm text-ink-muted">Searching…</p>
         ) : results.length === 0 ? (
@@ -94,7 +85,7 @@ function GrantShopForm({ carId, granted }: { carId: string; granted: readonly st
                           setDone(`${shop.name} can now see this car’s season.`);
                           setQ('');
                         },
-                        onError: (e) => setError(failureText(e)),
+                        onError: (e) => setError(refusalText(e)),
                       },
                     );
                   }}

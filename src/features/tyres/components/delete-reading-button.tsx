@@ -1,5 +1,4 @@
-import { ConfirmButton } from '@/components/dialogs/confirm-button';
-import { isApiError } from '@/lib/api-client';
+import { ConfirmButton, refusalText } from '@/components/dialogs/confirm-button';
 import { formatDateTime } from '@/lib/dates';
 import { useDeleteTreadReading } from '../api/delete-tread-reading';
 
@@ -15,7 +14,7 @@ export function DeleteReadingButton({ tyreSetId, readingId, setLabel, takenAt }:
       keepLabel="Keep"
       isPending={remove.isPending}
       onConfirm={(handlers) => remove.mutate(readingId, handlers)}
-      failureText={(e) => (isApiError(e) && e.code !== 'network' ? e.message : 'This needs a connection. Try again when you have signal.')}
+      failureText={refusalText}
     >
       Delete this reading<span className="sr-only"> of {setLabel}</span>
     </ConfirmButton>
