@@ -79,9 +79,10 @@ export function CommentsHost({ renderExtras }: { renderExtras?: (target: Comment
   const asked = threadAsked(pathname, search);
   const askedAt = asked ? pathname + search : null;
   const [opened, setOpened] = useState<string | null>(null);
-  if (asked && askedAt !== opened) {
+  if (askedAt !== opened && (asked || opened !== null)) {
+    // Forgotten once the address drops it, so the same link followed again opens the thread again.
     setOpened(askedAt);
-    setRequest(asked);
+    if (asked) setRequest(asked);
   }
   useEffect(() => {
     if (!askedAt) return;

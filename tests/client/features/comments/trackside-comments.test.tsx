@@ -1,5 +1,5 @@
 // @vitest-environment jsdom
-import { screen, within } from '@testing-library/react';
+import { act, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { blockingEntry, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
@@ -71,6 +71,10 @@ describe('comments at the track', () => {
     await u.keyboard('{Escape}');
     expect(screen.queryByRole('dialog')).toBeNull();
     expect(await screen.findByRole('listitem', { name: /^Run 2,/ })).toBeTruthy();
+
+    // The same notification followed again opens the thread again.
+    await act(async () => void (await router.navigate(`${PATH}&driverId=${IDS.maren}&comments=${IDS.run2}`)));
+    expect(await screen.findByRole('dialog', { name: 'Comments on run 2, Maren Holt' })).toBeTruthy();
   });
 
   it('when the board is opened from a notification about the day, then the car’s day thread opens', async () => {
