@@ -21,6 +21,8 @@ export interface ChangeLogEntry {
   location: (typeof CHANGE_LOCATIONS)[number];
   notes: string | null;
   setupId: string | null;
+  /** Written by a shop when it handed the car back: it stays with that visit and cannot be deleted. */
+  fromVisit: boolean;
   createdBy: { id: string; displayName: string };
   createdAt: string;
 }

@@ -9,6 +9,8 @@ export class ChangeLogEntity {
   @Column({ type: 'text' }) location!: 'lf' | 'rf' | 'lr' | 'rr' | 'front' | 'rear' | 'car';
   @Column({ type: 'text', nullable: true }) notes!: string | null;
   @Column({ name: 'setup_id', type: 'uuid', nullable: true }) setupId!: string | null;
+  /** The shop visit whose handover wrote this entry, if one did. */
+  @Column({ name: 'work_order_id', type: 'uuid', nullable: true }) workOrderId!: string | null;
   @Column({ name: 'created_by', type: 'uuid' }) createdBy!: string;
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt!: Date;
 }

@@ -20,6 +20,7 @@ async function toEntries(ds: DataSource, rows: ChangeLogEntity[]): Promise<Chang
     location: r.location,
     notes: r.notes,
     setupId: r.setupId,
+    fromVisit: r.workOrderId !== null,
     createdBy: { id: r.createdBy, displayName: nameOf.get(r.createdBy) ?? '' },
     createdAt: r.createdAt.toISOString(),
   }));
@@ -69,7 +70,8 @@ export async function deleteChange(ds: DataSource, user: User, carId: string, ch
   );
   // The CTE's snapshot still sees a row it deletes: `deleted` tells the two apart.
   const row = rows[0];
-  if (!row) throw new AppError('not_found', 'That change-log entry was not found.');
-  if (row.deleted) return;
-  throw new AppError('conflict', 'This entry was written by a shop when it handed the car back; it stays with that visit.');
+  if (row?.deleted) return;
+  if (row?.from_visit) throw new AppError('conflict', 'This entry was written by a shop when it handed the car back; it stays with that visit.');
+  // Not there, or deleted by another request a moment ago.
+  throw new AppError('not_found', 'That change-log entry was not found.');
 }

@@ -26,6 +26,7 @@ describe('POST /api/cars/:carId/changes', () => {
       location: 'car',
       notes: 'Shop visit',
       setupId: setup.id,
+      fromVisit: false,
       createdBy: { id: d.user.id, displayName: 'Nell Ashdown' },
       createdAt: expect.any(String),
     });
@@ -105,6 +106,8 @@ describe('DELETE /api/cars/:carId/changes/:changeId', () => {
       [d.carId, shop!.id, d.user.id],
     )) as { id: string }[];
     await t.ds.query('UPDATE change_log SET work_order_id = $1 WHERE id = $2', [visit!.id, entry.body.id]);
+    // Listed as such, so the page offers no Delete for it.
+    expect((await d.c.get(`/api/cars/${d.carId}/changes`)).body.items[0].fromVisit).toBe(true);
 
     const res = await d.c.delete(`/api/cars/${d.carId}/changes/${entry.body.id}`);
     expectError(res, 409, 'conflict');

@@ -22,7 +22,7 @@ const LOCATION_WORDS: Record<(typeof CHANGE_LOCATIONS)[number], string> = {
   rr: 'Right rear',
 };
 
-interface Row extends Pick<ChangeLogEntry, 'id' | 'changedOn' | 'what' | 'location' | 'notes'> {
+interface Row extends Pick<ChangeLogEntry, 'id' | 'changedOn' | 'what' | 'location' | 'notes' | 'fromVisit'> {
   by: string | null;
   pending: null | { state: 'waiting' | 'failed'; key: string; message?: string };
 }
@@ -38,6 +38,7 @@ function mergeRows(saved: readonly ChangeLogEntry[], entries: readonly OutboxEnt
       what: body.what,
       location: body.location,
       notes: body.notes ?? null,
+      fromVisit: false,
       by: null,
       pending: { state: entry.state === 'failed' ? 'failed' : 'waiting', key: entry.key, message: entry.error?.message },
     });
@@ -109,7 +110,13 @@ export function ChangeLog({ carId, saved, entries }: { carId: string; saved: rea
             <li key={row.id} className="flex flex-col gap-1 rounded border border-line p-3">
               <div className="flex flex-wrap items-baseline justify-between gap-2">
                 <span className="font-bold">{row.what}</span>
-                {row.pending ? <PendingBadge state={row.pending.state} /> : <DeleteChangeButton carId={carId} changeId={row.id} what={row.what} />}
+                {row.pending ? (
+                  <PendingBadge state={row.pending.state} />
+                ) : row.fromVisit ? (
+                  <span className="text-sm text-ink-muted">From a shop visit</span>
+                ) : (
+                  <DeleteChangeButton carId={carId} changeId={row.id} what={row.what} />
+                )}
               </div>
               <p className="tabular-figures text-sm text-ink-muted">
                 {formatDay(row.changedOn)} · {LOCATION_WORDS[row.location]}

@@ -3,7 +3,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import type { ChangeLogEntry } from '@shared/season/change-log.schema';
-import { errorResponse, renderApp, requestsTo, setUpAppTests } from '../../test-utils';
+import { renderApp, requestsTo, setUpAppTests } from '../../test-utils';
 import { stubCarPage } from '../../fixtures/car-page';
 import { IDS, list, user } from '../../fixtures/season';
 
@@ -29,7 +29,7 @@ describe('the change log', () => {
 
   it('when a saved entry is deleted and the question confirmed, then the server is asked and the log no longer lists it', async () => {
     const entry = (id: string, what: string): ChangeLogEntry => ({
-      id, carId: IDS.car, changedOn: '2026-05-01', what, location: 'front', notes: null, setupId: null,
+      id, carId: IDS.car, changedOn: '2026-05-01', what, location: 'front', notes: null, setupId: null, fromVisit: false,
       createdBy: { id: IDS.maren, displayName: 'Maren Holt' }, createdAt: '2026-05-01T10:00:00.000Z',
     });
     const arms = entry('d1111111-1111-4111-8111-111111111111', 'Fitted camber arms');
@@ -54,24 +54,16 @@ describe('the change log', () => {
     expect(requestsTo(fetchMock, `DELETE /api/cars/${IDS.car}/changes/${typo.id}`)).toHaveLength(1);
   });
 
-  it('when the entry came with a shop’s handover, then the question shows the server’s reason and the entry stays', async () => {
+  it('when the entry came with a shop’s handover, then it offers no Delete and says where it came from', async () => {
     const handover: ChangeLogEntry = {
       id: 'd3333333-3333-4333-8333-333333333333', carId: IDS.car, changedOn: '2026-05-01', what: 'Aligned and corner-balanced', location: 'car',
-      notes: null, setupId: null, createdBy: { id: IDS.maren, displayName: 'Dusty Okonjo' }, createdAt: '2026-05-01T10:00:00.000Z',
+      notes: null, setupId: null, fromVisit: true, createdBy: { id: IDS.maren, displayName: 'Dusty Okonjo' }, createdAt: '2026-05-01T10:00:00.000Z',
     };
-    const reason = 'This entry was written by a shop when it handed the car back; it stays with that visit.';
-    stubCarPage(user(), {
-      [`GET /api/cars/${IDS.car}/changes`]: list([handover]),
-      [`DELETE /api/cars/${IDS.car}/changes/${handover.id}`]: errorResponse(409, 'conflict', reason),
-    });
+    stubCarPage(user(), { [`GET /api/cars/${IDS.car}/changes`]: list([handover]) });
     renderApp(`/cars/${IDS.car}`);
-    const u = userEvent.setup();
 
-    await u.click(await screen.findByRole('button', { name: /^Delete “Aligned/ }));
-    const dialog = await screen.findByRole('dialog');
-    await u.click(within(dialog).getByRole('button', { name: 'Delete entry' }));
-
-    expect(await within(dialog).findByText(reason)).toBeTruthy();
-    expect(screen.getAllByText('Aligned and corner-balanced').length).toBeGreaterThan(0);
+    const row = (await screen.findByText('Aligned and corner-balanced')).closest('li')!;
+    expect(within(row).getByText('From a shop visit')).toBeTruthy();
+    expect(within(row).queryByRole('button', { name: /Delete/ })).toBeNull();
   });
 });
