@@ -7,26 +7,27 @@ const leftAt = new Map<string, number>();
 /** How long a page drawn bit by bit (its data arriving) is given to grow back to where the reader was. */
 const RESTORE_FOR_MS = 1500;
 
+/** What the reader does to scroll by hand: any of them ends a restore in progress. */
+const READER_MOVES = ['touchstart', 'wheel', 'keydown', 'pointerdown'] as const;
+
 /**
  * Puts the page back where the reader left it once it is tall enough again: on going back, the page is drawn
  * afresh and may be short for a moment, and a position set then would be cut short. Stops as soon as the reader
- * touches or scrolls the page.
+ * touches, scrolls or presses a key.
  */
 function scrollBackTo(y: number): () => void {
   const until = performance.now() + RESTORE_FOR_MS;
   let frame = 0;
   const stop = () => {
     cancelAnimationFrame(frame);
-    window.removeEventListener('touchstart', stop);
-    window.removeEventListener('wheel', stop);
+    for (const move of READER_MOVES) window.removeEventListener(move, stop);
   };
   const step = () => {
     window.scrollTo(0, y);
     if (Math.abs(window.scrollY - y) <= 1 || performance.now() > until) stop();
     else frame = requestAnimationFrame(step);
   };
-  window.addEventListener('touchstart', stop, { passive: true });
-  window.addEventListener('wheel', stop, { passive: true });
+  for (const move of READER_MOVES) window.addEventListener(move, stop, { passive: true });
   step();
   return stop;
 }
@@ -34,7 +35,8 @@ function scrollBackTo(y: number): () => void {
 /**
  * A page opened by a link or a redirect starts at its top, as one the browser loads itself does; without this,
  * a phone kept the last page's scroll and opened the next page half-way down it. Going back or forward (the
- * browser's `popstate` to the entry now shown) returns the page to where the reader left it, and an address
+ * browser's `popstate` to the entry now shown) returns the page to where the reader left it, kept for this tab
+ * while it is open (after a reload, Back starts at the top), and an address
  * with a `#target` is left to the page, which scrolls to its target. Runs before the page's own effects, so it
  * never undoes a scroll they make.
  */
@@ -63,9 +65,12 @@ export function useNewPageAtTop() {
     const back = travelledTo.current === here;
     travelledTo.current = null;
     current.current = location.key;
-    if (shown.current === location.pathname) return;
+    const pageChanged = shown.current !== location.pathname;
     shown.current = location.pathname;
-    if (back) return scrollBackTo(leftAt.get(location.key) ?? 0);
-    if (!location.hash) window.scrollTo(0, 0);
+    // Back to an entry whose place is known, the same page in another state (?edit=1) included; an entry never
+    // scrolled here (a #target the browser jumped to) is left to the browser.
+    const left = back ? leftAt.get(location.key) : undefined;
+    if (left !== undefined) return scrollBackTo(left);
+    if (pageChanged && !back && !location.hash) window.scrollTo(0, 0);
   }, [location]);
 }

@@ -82,6 +82,42 @@ describe('useNewPageAtTop', () => {
     expect(window.scrollY).toBe(2500);
   });
 
+  it('when the driver goes back from another state of the same page (?edit=1), then it returns to where the page was left', async () => {
+    renderAt('/cars/one');
+    scrollBy(1800);
+    await go('/cars/one?edit=1');
+    scrollBy(900);
+
+    await back();
+
+    expect(window.location.search).toBe('');
+    expect(window.scrollY).toBe(1800);
+  });
+
+  it('when the page is still short as the driver goes back, then it is put back once it has grown, unless the driver scrolls first', async () => {
+    renderAt('/cars/one');
+    scrollBy(2500);
+    await go('/events');
+    // The car's page comes back short (its data still arriving): the browser stops at 600 at first.
+    let height = 600;
+    scrollTo.mockImplementation((_x: number, y: number) => void (window.scrollY = Math.min(y, height)));
+
+    await back();
+    expect(window.scrollY).toBe(600);
+    height = 4000;
+    await act(() => new Promise((resolve) => setTimeout(resolve, 100)));
+    expect(window.scrollY).toBe(2500);
+
+    // Again, but a key is pressed while the page is still short: the driver's own scrolling wins.
+    await go('/events');
+    height = 600;
+    await back();
+    window.dispatchEvent(new KeyboardEvent('keydown', { key: 'PageUp' }));
+    height = 4000;
+    await act(() => new Promise((resolve) => setTimeout(resolve, 100)));
+    expect(window.scrollY).toBe(600);
+  });
+
   it('when the page went to a #target on itself and the driver then taps a link, then the new page still starts at its top', async () => {
     renderAt('/calculators');
     // As a plain <a href="#springs"> does: the browser moves history and fires popstate.
