@@ -196,9 +196,11 @@ export function verdict(
   if (pValue === null) {
     return `${change}, but each side's ${counted}s were all the same, so chance cannot be judged.`;
   }
+  // Judged on the numbers as written: 0.0201 → −0.0199, shown as 0.020 → −0.020, is no nearer even.
+  const shown = (v: number) => Math.abs(Number(v.toFixed(decimals)));
   const better =
-    options.betterWhen === 'nearZero' ? Math.abs(after.mean) < Math.abs(before.mean) : (options.betterWhen === 'lower') === difference < 0;
-  const level = options.betterWhen === 'nearZero' && Math.abs(after.mean) === Math.abs(before.mean);
+    options.betterWhen === 'nearZero' ? shown(after.mean) < shown(before.mean) : (options.betterWhen === 'lower') === difference < 0;
+  const level = options.betterWhen === 'nearZero' && shown(after.mean) === shown(before.mean);
   const direction = same || level ? '' : better ? "that's an improvement." : "that's a step back.";
   if (pValue < CLEAR_P) {
     return `${change}: a clear change.${direction ? ` ${direction.charAt(0).toUpperCase()}${direction.slice(1)}` : ''}`;

@@ -241,8 +241,9 @@ describe('verdict', () => {
     const skew = { betterWhen: 'nearZero' as const, what: 'inner-minus-outer wear', unit: 'mm per run', decimals: 3 };
     expect(verdict(comparison(0.01, 0.02, -0.004), skew)).toBe("Inner-minus-outer wear fell from 0.020 to \u22120.004 mm per run: a clear change. That's an improvement.");
     expect(verdict(comparison(0.01, 0, -0.03), skew)).toBe("Inner-minus-outer wear fell from 0.000 to \u22120.030 mm per run: a clear change. That's a step back.");
-    // As far from even on the other side: neither.
+    // As far from even on the other side: neither; judged on the numbers as written (0.0201 and −0.0199 both read 0.020).
     expect(verdict(comparison(0.01, 0.02, -0.02), skew)).toBe('Inner-minus-outer wear fell from 0.020 to \u22120.020 mm per run: a clear change.');
+    expect(verdict(comparison(0.01, 0.0201, -0.0199), skew)).toBe('Inner-minus-outer wear fell from 0.020 to \u22120.020 mm per run: a clear change.');
   });
 
   it('when decimals are given and the means differ at that many, then they are written so; when they would read the same, then enough to tell them apart', () => {

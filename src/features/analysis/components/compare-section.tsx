@@ -49,9 +49,9 @@ function verdictText(c: Comparison, scale: Scale): string {
 
 const PERCENT_SCALE: Scale = { number: (v) => formatFixed(v, 2), suffix: ' %' };
 
-function statsText(s: SampleStats, scale: Scale): string {
-  if (s.n === 0 || s.mean === null) return 'no readings';
-  if (s.sd === null) return `${scale.number(s.mean)}${scale.suffix} (one reading: no spread to show)`;
+function statsText(s: SampleStats, scale: Scale, counted: string): string {
+  if (s.n === 0 || s.mean === null) return `no ${counted}s yet`;
+  if (s.sd === null) return `${scale.number(s.mean)}${scale.suffix} (one ${counted}: no spread to show)`;
   return `${scale.number(s.mean)} ± ${scale.number(s.sd)}${scale.suffix}`;
 }
 
@@ -75,11 +75,11 @@ function Measure({ title, comparison, scale, counted, emphasis = false }: { titl
       <dl className="tabular-figures grid grid-cols-[auto_1fr] gap-x-2 gap-y-0.5 text-sm">
         <dt className="font-semibold">Before</dt>
         <dd>
-          {statsText(comparison.before, scale)} <span className="text-ink-muted">({countOf(comparison.before.n, counted)})</span>
+          {statsText(comparison.before, scale, counted)} <span className="text-ink-muted">({countOf(comparison.before.n, counted)})</span>
         </dd>
         <dt className="font-semibold">After</dt>
         <dd>
-          {statsText(comparison.after, scale)} <span className="text-ink-muted">({countOf(comparison.after.n, counted)})</span>
+          {statsText(comparison.after, scale, counted)} <span className="text-ink-muted">({countOf(comparison.after.n, counted)})</span>
         </dd>
       </dl>
       {difference ? <p className="tabular-figures text-xs text-ink-muted">{difference}</p> : null}
@@ -154,8 +154,9 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
   const wear = wearScale(units);
   const wearComparisons = CORNERS.flatMap((c) => [result.corners[c].innerWear, result.corners[c].wear, result.corners[c].skew]);
   const wearToCompare = wearComparisons.some((c) => c.enough);
-  const mostBefore = Math.max(...wearComparisons.map((c) => c.before.n));
-  const mostAfter = Math.max(...wearComparisons.map((c) => c.after.n));
+  // The corner nearest to enough: the most intervals on its thinner side.
+  const nearest = wearComparisons.reduce((best, c) => (Math.min(c.before.n, c.after.n) > Math.min(best.before.n, best.after.n) ? c : best));
+  const [mostBefore, mostAfter] = [nearest.before.n, nearest.after.n];
   const label = 'Tyre wear per run, before and after';
   const renderCorner = (corner: Corner) => {
     const c = result.corners[corner];
@@ -187,7 +188,7 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
         // Said once, not twelve times over.
         <p className="rounded border border-line p-3 text-sm">
           Not enough tread readings yet to compare wear across this change: a corner needs {MIN_INTERVALS} intervals on each side, and
-          the most any has is {mostBefore} before and {mostAfter} after.
+          the nearest has {mostBefore} before and {mostAfter} after.
         </p>
       )}
       <div className="flex flex-col gap-1 rounded border border-line p-3">

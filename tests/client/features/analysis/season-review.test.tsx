@@ -338,6 +338,7 @@ describe('season review: a change with too few tread readings after it', () => {
   it('when no corner has enough intervals on both sides, then one line says so, with the counts, instead of twelve', async () => {
     const answer = compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber');
     for (const c of ['lf', 'rf', 'lr', 'rr'] as const) {
+      // LF has the most before but none after; RR is the nearest to enough (2 after).
       const few = comparison([c === 'lf' ? 7 : 5, 0.05, 0.01], [c === 'rr' ? 2 : 0, 0.04, 0.01], 'Not enough data yet: 7 intervals before and 0 after.', false);
       answer.corners[c] = { innerWear: few, wear: few, skew: few };
     }
@@ -347,7 +348,7 @@ describe('season review: a change with too few tread readings after it', () => {
 
     expect(
       await compare.findByText(
-        'Not enough tread readings yet to compare wear across this change: a corner needs 3 intervals on each side, and the most any has is 7 before and 2 after.',
+        'Not enough tread readings yet to compare wear across this change: a corner needs 3 intervals on each side, and the nearest has 5 before and 2 after.',
       ),
     ).toBeTruthy();
     expect(compare.queryByText(/^Not enough data yet/)).toBeNull();
