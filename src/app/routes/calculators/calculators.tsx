@@ -45,10 +45,14 @@ export function CalculatorsPage() {
               <li key={id}>
                 <a
                   href={`#${id}`}
-                  // Scrolled to in place: the address and the history stay as they are, so Back leaves the page.
+                  // Scrolled to in place, with the focus: the address and the history stay as they are, so Back
+                  // leaves the page. A click with a modifier key (a new tab) is the browser's.
                   onClick={(e) => {
+                    if (e.metaKey || e.ctrlKey || e.shiftKey || e.altKey) return;
                     e.preventDefault();
-                    document.getElementById(id)?.scrollIntoView({ block: 'start' });
+                    const target = document.getElementById(id);
+                    target?.scrollIntoView({ block: 'start' });
+                    target?.focus({ preventScroll: true });
                   }}
                   className="inline-flex min-h-tap items-center rounded-full border border-line-strong bg-surface px-4 font-semibold text-link"
                 >
@@ -62,7 +66,7 @@ export function CalculatorsPage() {
       <div className="grid items-start gap-4 lg:grid-cols-2">
         {CALCULATORS.map(({ id, Card }) => (
           // Clear of the sticky top bar when jumped to.
-          <div key={id} id={id} className="scroll-mt-20">
+          <div key={id} id={id} tabIndex={-1} className="scroll-mt-20 focus:outline-none">
             <Card />
           </div>
         ))}

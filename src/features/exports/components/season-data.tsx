@@ -33,7 +33,10 @@ const RECORD_WORDS: Record<string, string> = {
   readings: 'tread reading',
 };
 
-/** A field's place in the file in words: `runs.3.rawTimeSec` → "Run 4, raw time sec". */
+/** Field names whose words would read oddly spelled out. */
+const FIELD_WORDS: Record<string, string> = { rawTimeSec: 'time (seconds)', eventId: 'event', setupId: 'setup', runId: 'run', id: 'id' };
+
+/** A field's place in the file in words: `runs.3.rawTimeSec` → "Run 4, time (seconds)". */
 function placeInFile(path: string): string {
   const parts = path.split('.');
   const words: string[] = [];
@@ -44,7 +47,7 @@ function placeInFile(path: string): string {
       words.push(`${RECORD_WORDS[part]} ${Number(next) + 1}`);
       i++;
     } else {
-      words.push(part.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase());
+      words.push(FIELD_WORDS[part] ?? part.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase());
     }
   }
   const text = words.join(', ');

@@ -325,4 +325,13 @@ describe('the calculators page', () => {
       expect(within(target!).getByRole('region', { name: cards[i] })).toBeTruthy();
     });
   });
+
+  it('when a link is tapped, then the focus moves to that calculator, so a screen reader carries on from there', async () => {
+    const u = renderPage(METRIC_PREFERENCES);
+    Element.prototype.scrollIntoView ??= () => {};
+    await u.click(screen.getByRole('link', { name: 'Toe and camber' }));
+
+    expect(document.activeElement?.id).toBe('alignment');
+    expect(within(document.activeElement as HTMLElement).getByRole('region', { name: 'Toe and camber' })).toBeTruthy();
+  });
 });

@@ -58,7 +58,7 @@ describe('your data, on the car page', () => {
     });
     const { router } = renderApp(CAR_PAGE);
     await userEvent.setup().upload(await screen.findByLabelText('Bring a car in from a Scrubline file'), jsonFile(FILE));
-    expect(await screen.findByText('This season file has records that point at nothing. · Run 1, event id: No event in the file has this id')).toBeTruthy();
+    expect(await screen.findByText('This season file has records that point at nothing. · Run 1, event: No event in the file has this id')).toBeTruthy();
     expect(router.state.location.pathname).toBe(CAR_PAGE);
   });
 
