@@ -145,7 +145,8 @@ export const CLEAR_P = 0.05;
 /** Up to this p: "a hint, not yet sure"; above it: "could be chance". */
 export const HINT_P = 0.2;
 
-const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+/** "1 run", "5 intervals": a count and what it counts. */
+export const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 
 /** Decimals for showing two means: enough for 2 significant figures of their difference (or 3 of the mean). */
 function autoDecimals(before: number, after: number): number {

@@ -2,7 +2,7 @@ import { useId, useState, type ReactNode } from 'react';
 import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
 import { formatFixed, formatP } from '@shared/calc/display';
 import { unitFor, type UnitPreferences } from '@shared/calc/units.calc';
-import { CLEAR_P, HINT_P, MINIMUM_READINGS_PER_GROUP as MIN_INTERVALS, verdict } from '@shared/calc/comparison.calc';
+import { CLEAR_P, HINT_P, MINIMUM_READINGS_PER_GROUP as MIN_INTERVALS, plural, verdict } from '@shared/calc/comparison.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import type { Setup } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
@@ -63,9 +63,6 @@ function differenceText(c: Comparison, scale: Scale): string | null {
   return parts.join(' · ');
 }
 
-/** "5 intervals", "1 run": how many each side's average is taken over. */
-const countOf = (n: number, counted: string) => `${n} ${counted}${n === 1 ? '' : 's'}`;
-
 /** Before → after for one measurement: the average ± spread and its count on each side, the change, and the verdict in the user's units. */
 function Measure({ title, comparison, scale, counted, emphasis = false }: { title: string; comparison: Comparison; scale: Scale; counted: string; emphasis?: boolean }) {
   const difference = differenceText(comparison, scale);
@@ -75,11 +72,11 @@ function Measure({ title, comparison, scale, counted, emphasis = false }: { titl
       <dl className="tabular-figures grid grid-cols-[auto_1fr] gap-x-2 gap-y-0.5 text-sm">
         <dt className="font-semibold">Before</dt>
         <dd>
-          {statsText(comparison.before, scale, counted)} <span className="text-ink-muted">({countOf(comparison.before.n, counted)})</span>
+          {statsText(comparison.before, scale, counted)} <span className="text-ink-muted">({plural(comparison.before.n, counted)})</span>
         </dd>
         <dt className="font-semibold">After</dt>
         <dd>
-          {statsText(comparison.after, scale, counted)} <span className="text-ink-muted">({countOf(comparison.after.n, counted)})</span>
+          {statsText(comparison.after, scale, counted)} <span className="text-ink-muted">({plural(comparison.after.n, counted)})</span>
         </dd>
       </dl>
       {difference ? <p className="tabular-figures text-xs text-ink-muted">{difference}</p> : null}
