@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
+import { useOutbox } from '@/lib/outbox-context';
 import { useDeleteCar } from '../api/delete-car';
 
 /**
@@ -12,6 +13,7 @@ import { useDeleteCar } from '../api/delete-car';
  */
 export function DeleteCar({ car, onDeleted }: { car: Car; onDeleted: () => void }) {
   const remove = useDeleteCar(car.id);
+  const outbox = useOutbox();
   const [typed, setTyped] = useState('');
   const [error, setError] = useState<string | null>(null);
   const [fieldError, setFieldError] = useState<string | undefined>();
@@ -31,6 +33,8 @@ export function DeleteCar({ car, onDeleted }: { car: Car; onDeleted: () => void 
       setError(isApiError(e) ? e.message : 'The car could not be deleted. Nothing was removed; try again when you have signal.');
       return;
     }
+    // What this phone still holds for the car (runs, readings, setups not yet sent) has nowhere to go now.
+    for (const entry of await outbox.stored()) if (entry.scope.carId === car.id && entry.state !== 'sending') await outbox.discard(entry.key);
     onDeleted();
   };
 
@@ -46,8 +50,8 @@ export function DeleteCar({ car, onDeleted }: { car: Car; onDeleted: () => void 
       </h2>
       <p className="text-sm">
         This removes {car.name} and everything recorded on it, for you and every co-driver: its setups, runs, tyre
-        readings, change log, comments, shop visits and invoices. It cannot be undone. Download its season file first
-        (the car&rsquo;s page, Your data) to keep a copy.
+        readings, change log, comments, shop visits and invoices, and what this phone has not sent yet. It cannot be
+        undone. Download its season file first (the car&rsquo;s page, Your data) to keep a copy.
       </p>
       <TextField
         label={`Type ${car.name} to confirm`}

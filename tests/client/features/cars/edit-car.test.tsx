@@ -3,9 +3,9 @@ import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import type { Car } from '@shared/season/car.schema';
-import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
+import { blockingEntry, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { stubCarPage } from '../../fixtures/car-page';
-import { CAR, coDriverUser, IDS, list, user } from '../../fixtures/season';
+import { CAR, coDriverUser, IDS, list, runOnPhone, user } from '../../fixtures/season';
 
 setUpAppTests([() => import('@/app/routes/cars/car-details-pages'), () => import('@/app/routes/cars/cars'), () => import('@/app/routes/cars/car')]);
 
@@ -143,7 +143,7 @@ describe('deleting a car', () => {
       [`DELETE ${CAR_PATH}`]: () => new Response(null, { status: 204 }),
       'GET /api/cars': list([]),
     });
-    const { router } = renderApp(EDIT);
+    const { router, outbox } = renderApp(EDIT, { outboxEntries: [blockingEntry(), runOnPhone()] });
     const u = userEvent.setup();
     const confirm = await screen.findByLabelText('Type Grey roadster to confirm');
     const button = screen.getByRole('button', { name: 'Delete Grey roadster and its season' });
@@ -158,5 +158,7 @@ describe('deleting a car', () => {
     await u.click(button);
     await waitFor(() => expect(router.state.location.pathname).toBe('/cars'));
     expect(requestsTo(fetch, `DELETE ${CAR_PATH}`)).toHaveLength(1);
+    // The run still waiting on the phone for this car has nowhere to go; another car's change stays.
+    expect(outbox.getSnapshot().map((e) => e.scope.carId)).toEqual(['elsewhere']);
   });
 });
