@@ -1,8 +1,31 @@
 import { useEffect, useLayoutEffect, useRef } from 'react';
 import { useLocation } from 'react-router-dom';
 
+/** Where the places are kept over a reload of the tab (sessionStorage lasts as long as the tab). */
+const STORE_KEY = 'scrubline.scroll-places';
+
+/** The newest places kept; a long session's older entries are let go. */
+const KEPT = 50;
+
+function readPlaces(): Map<string, number> {
+  try {
+    const stored: unknown = JSON.parse(sessionStorage.getItem(STORE_KEY) ?? '[]');
+    return new Map(Array.isArray(stored) ? stored.filter((e): e is [string, number] => typeof e?.[0] === 'string' && typeof e?.[1] === 'number') : []);
+  } catch {
+    return new Map();
+  }
+}
+
 /** Where the reader left each page of this tab's history, by the history entry's key. */
-const leftAt = new Map<string, number>();
+const leftAt = readPlaces();
+
+function keepPlaces() {
+  try {
+    sessionStorage.setItem(STORE_KEY, JSON.stringify([...leftAt].slice(-KEPT)));
+  } catch {
+    // Storage full or refused: the places last until the tab reloads.
+  }
+}
 
 /** How long a page drawn bit by bit (its data arriving) is given to grow back to where the reader was. */
 const RESTORE_FOR_MS = 1500;
@@ -36,7 +59,7 @@ function scrollBackTo(y: number): () => void {
  * A page opened by a link or a redirect starts at its top, as one the browser loads itself does; without this,
  * a phone kept the last page's scroll and opened the next page half-way down it. Going back or forward (the
  * browser's `popstate` to the entry now shown) returns the page to where the reader left it, kept for this tab
- * while it is open (after a reload, Back starts at the top), and an address
+ * over a reload too, and an address
  * with a `#target` is left to the page, which scrolls to its target. Runs before the page's own effects, so it
  * never undoes a scroll they make.
  */
@@ -51,12 +74,18 @@ export function useNewPageAtTop() {
     // The browser's own restoring comes before the page is drawn again, and lands short on a long page.
     window.history.scrollRestoration = 'manual';
     const onTravel = () => void (travelledTo.current = window.location.pathname + window.location.search + window.location.hash);
-    const onScroll = () => void leftAt.set(current.current, window.scrollY);
+    const onScroll = () => {
+      leftAt.delete(current.current);
+      leftAt.set(current.current, window.scrollY);
+    };
     window.addEventListener('popstate', onTravel);
     window.addEventListener('scroll', onScroll, { passive: true });
+    // A reload (or the tab put away) keeps the places for Back afterwards.
+    window.addEventListener('pagehide', keepPlaces);
     return () => {
       window.removeEventListener('popstate', onTravel);
       window.removeEventListener('scroll', onScroll);
+      window.removeEventListener('pagehide', keepPlaces);
     };
   }, []);
 

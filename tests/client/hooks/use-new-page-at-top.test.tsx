@@ -162,4 +162,26 @@ describe('useNewPageAtTop', () => {
 
     expect(scrollTo).not.toHaveBeenCalled();
   });
+
+  it('when the tab is reloaded and the driver then goes back, then the page before still returns to its place', async () => {
+    renderAt('/cars/one');
+    scrollBy(2200);
+    await go('/events');
+    // The reload: the page is put away, and the app starts again with nothing in memory.
+    window.dispatchEvent(new Event('pagehide'));
+    cleanup();
+    vi.resetModules();
+    const fresh = await import('@/hooks/use-new-page-at-top');
+    function FreshShell() {
+      fresh.useNewPageAtTop();
+      return null;
+    }
+    render(<RouterProvider router={createBrowserRouter([{ path: '*', element: <FreshShell /> }])} />);
+    window.scrollY = 0;
+
+    await back();
+
+    expect(window.location.pathname).toBe('/cars/one');
+    expect(window.scrollY).toBe(2200);
+  });
 });
