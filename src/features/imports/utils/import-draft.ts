@@ -60,7 +60,7 @@ export function localNoon(date: string): string | undefined {
 }
 
 /**
- * The file's text: UTF-8 (or UTF-16 with its byte-order mark) when it is that, else Windows-1252, what a
+ * The file's text: UTF-8 (or UTF-16, with its byte-order mark or without) when it is that, else Windows-1252, what a
  * spreadsheet on Windows saves a CSV in ("José" as one byte E9). Read through FileReader, which every browser we
  * support has.
  */
@@ -73,9 +73,30 @@ export function readFileText(file: Blob): Promise<string> {
   });
 }
 
+/**
+ * UTF-16 with no byte-order mark: text that is mostly ASCII has a zero in every other byte, the high byte of each
+ * character (after it in little-endian, before it in big-endian).
+ */
+function utf16Without(bytes: Uint8Array): 'utf-16le' | 'utf-16be' | null {
+  const n = Math.min(bytes.length, 1024) & ~1;
+  if (n < 4) return null;
+  let evenZeros = 0;
+  let oddZeros = 0;
+  for (let i = 0; i < n; i += 2) {
+    if (bytes[i] === 0) evenZeros++;
+    if (bytes[i + 1] === 0) oddZeros++;
+  }
+  const pairs = n / 2;
+  if (oddZeros > pairs * 0.8 && evenZeros < pairs * 0.1) return 'utf-16le';
+  if (evenZeros > pairs * 0.8 && oddZeros < pairs * 0.1) return 'utf-16be';
+  return null;
+}
+
 function decodeSheet(bytes: Uint8Array): string {
   if (bytes[0] === 0xff && bytes[1] === 0xfe) return new TextDecoder('utf-16le').decode(bytes);
   if (bytes[0] === 0xfe && bytes[1] === 0xff) return new TextDecoder('utf-16be').decode(bytes);
+  const wide = utf16Without(bytes);
+  if (wide) return new TextDecoder(wide).decode(bytes);
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
   } catch {

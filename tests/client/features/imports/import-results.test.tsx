@@ -141,6 +141,19 @@ describe('the results import page', { timeout: 15_000 }, () => {
     expect(within(preview).getByText('Renée Müller')).toBeTruthy();
   });
 
+  it('when the CSV was saved as UTF-16 without a byte-order mark, then it is read as text, not taken for a workbook', async () => {
+    stubImport();
+    renderApp(PATH);
+    const text = 'Driver,Car #,Run,Time\nJosé Peña,12,1,45.100\nRenée Müller,7,1,46.020\n';
+    // UTF-16LE: each character's low byte, then its high byte (0 for all of these), no FF FE in front.
+    const bytes = Uint8Array.from([...text].flatMap((c) => [c.charCodeAt(0) & 0xff, c.charCodeAt(0) >> 8]));
+    await chooseFile(bytes);
+
+    const preview = await screen.findByRole('region', { name: 'File preview' });
+    expect(within(preview).getByText('José Peña')).toBeTruthy();
+    expect(screen.queryByText(/not text/)).toBeNull();
+  });
+
   it('when a workbook is chosen, then the message says to save it as CSV, and the box no longer says it is reading it', async () => {
     stubImport();
     renderApp(PATH);
