@@ -19,9 +19,19 @@ function readPlaces(): Map<string, number> {
 /** Where the reader left each page of this tab's history, by the history entry's key. */
 const leftAt = readPlaces();
 
+/** The reader is at `y` on the entry `key`: the newest place goes last, and the oldest beyond KEPT are let go. */
+function rememberPlace(key: string, y: number) {
+  leftAt.delete(key);
+  leftAt.set(key, y);
+  for (const oldest of leftAt.keys()) {
+    if (leftAt.size <= KEPT) break;
+    leftAt.delete(oldest);
+  }
+}
+
 function keepPlaces() {
   try {
-    sessionStorage.setItem(STORE_KEY, JSON.stringify([...leftAt].slice(-KEPT)));
+    sessionStorage.setItem(STORE_KEY, JSON.stringify([...leftAt]));
   } catch {
     // Storage full or refused: the places last until the tab reloads.
   }
@@ -74,10 +84,7 @@ export function useNewPageAtTop() {
     // The browser's own restoring comes before the page is drawn again, and lands short on a long page.
     window.history.scrollRestoration = 'manual';
     const onTravel = () => void (travelledTo.current = window.location.pathname + window.location.search + window.location.hash);
-    const onScroll = () => {
-      leftAt.delete(current.current);
-      leftAt.set(current.current, window.scrollY);
-    };
+    const onScroll = () => rememberPlace(current.current, window.scrollY);
     window.addEventListener('popstate', onTravel);
     window.addEventListener('scroll', onScroll, { passive: true });
     // A reload (or the tab put away) keeps the places for Back afterwards.

@@ -228,8 +228,11 @@ export class Outbox {
     await this.flush();
   }
 
-  async discard(key: string): Promise<void> {
-    await this.change(() => ({ remove: [key] }));
+  /** Drops one entry by its key, or every entry a test picks (one that is on its way stays), in one write. */
+  async discard(which: string | ((entry: OutboxEntry) => boolean)): Promise<void> {
+    await this.change((stored) => ({
+      remove: typeof which === 'string' ? [which] : stored.filter((e) => e.state !== 'sending' && which(e)).map((e) => e.key),
+    }));
   }
 
   /**

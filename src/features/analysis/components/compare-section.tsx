@@ -153,7 +153,6 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
   const wearToCompare = wearComparisons.some((c) => c.enough);
   // The corner nearest to enough: the most intervals on its thinner side.
   const nearest = wearComparisons.reduce((best, c) => (Math.min(c.before.n, c.after.n) > Math.min(best.before.n, best.after.n) ? c : best));
-  const [mostBefore, mostAfter] = [nearest.before.n, nearest.after.n];
   const label = 'Tyre wear per run, before and after';
   const renderCorner = (corner: Corner) => {
     const c = result.corners[corner];
@@ -185,7 +184,7 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
         // Said once, not twelve times over.
         <p className="rounded border border-line p-3 text-sm">
           Not enough tread readings yet to compare wear across this change: a corner needs {MIN_INTERVALS} intervals on each side, and
-          the nearest has {mostBefore} before and {mostAfter} after.
+          the nearest has {nearest.before.n} before and {nearest.after.n} after.
         </p>
       )}
       <div className="flex flex-col gap-1 rounded border border-line p-3">

@@ -34,7 +34,7 @@ export function DeleteCar({ car, onDeleted }: { car: Car; onDeleted: () => void 
       return;
     }
     // What this phone still holds for the car (runs, readings, setups not yet sent) has nowhere to go now.
-    for (const entry of await outbox.stored()) if (entry.scope.carId === car.id && entry.state !== 'sending') await outbox.discard(entry.key);
+    await outbox.discard((entry) => entry.scope.carId === car.id);
     onDeleted();
   };
 

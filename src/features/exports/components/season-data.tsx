@@ -34,7 +34,7 @@ const RECORD_WORDS: Record<string, string> = {
 };
 
 /** Field names whose words would read oddly spelled out. */
-const FIELD_WORDS: Record<string, string> = { rawTimeSec: 'time (seconds)', eventId: 'event', setupId: 'setup', runId: 'run', id: 'id' };
+const FIELD_WORDS: Record<string, string> = { rawTimeSec: 'time (seconds)', eventId: 'event', setupId: 'setup', runId: 'run' };
 
 /** A field's place in the file in words: `runs.3.rawTimeSec` → "Run 4, time (seconds)". */
 function placeInFile(path: string): string {
