@@ -70,7 +70,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
     await limits.beforeLogin(req.ip ?? 'unknown', user.email);
     try {
       const result = await act(user);
-      await limits.loginSucceeded(user.email);
+      await limits.loginSucceeded(user.email, req.ip ?? 'unknown');
       securityEvent(req, event);
       return result;
     } catch (err) {
@@ -113,7 +113,7 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
       securityEvent(req, 'sign-in-refused', { account: accountKey(input.email), reason: 'no match' });
       throw new AppError('unauthenticated', INVALID_LOGIN);
     }
-    await limits.loginSucceeded(input.email);
+    await limits.loginSucceeded(input.email, req.ip ?? 'unknown');
     await signIn(req, user);
     securityEvent(req, 'signed-in');
     res.json({ user });

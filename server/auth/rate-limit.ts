@@ -5,7 +5,7 @@ import { AppError } from '../lib/app-error';
 export interface AuthLimits {
   /** Failed sign-ins allowed per account in the window. */
   loginPerAccount: number;
-  /** Sign-in attempts allowed per IP address in the window. */
+  /** Failed sign-ins allowed per IP address in the window (a club's drivers may share one address). */
   loginPerIp: number;
   /** Registrations allowed per IP address in the window. */
   registerPerIp: number;
@@ -33,8 +33,9 @@ export const DEFAULT_AUTH_LIMITS: AuthLimits = {
 
 /**
  * Sign-in, registration, password-reset and upload counters kept in PostgreSQL (table auth_rate_limits),
- * so a restart does not reset them. Per IP, every attempt counts; per account, only
- * failures count and a success clears them.
+ * so a restart does not reset them. Per IP and per account only failures count: an attempt takes a point
+ * from its IP before the password is checked (so a burst of parallel guesses is held back too), and a success
+ * hands it back. A success also clears the account's failures.
  */
 export function createAuthRateLimits(pool: Pool, limits: AuthLimits) {
   const make = (name: string, points: number) =>
@@ -79,8 +80,10 @@ export function createAuthRateLimits(pool: Pool, limits: AuthLimits) {
     async loginFailed(email: string) {
       await loginAccount.penalty(email, 1);
     },
-    async loginSucceeded(email: string) {
+    /** `ip` is the address whose point `beforeLogin` took; left out where no attempt was counted (a reset). */
+    async loginSucceeded(email: string, ip?: string) {
       await loginAccount.delete(email);
+      if (ip !== undefined) await loginIp.reward(ip, 1);
     },
     async beforeRegister(ip: string) {
       await consume(registerIp, ip);

@@ -43,6 +43,16 @@ describe('sign-in rate limit', () => {
     expect((await login(t, uniqueEmail(), 'wrong-password-xyz')).status).toBe(429);
   });
 
+  it('when drivers behind one address sign in rightly, then only the failures count against it', async () => {
+    // OWASP ASVS 4.0.3 2.2.1: the limit is on failed attempts; a club's paddock Wi-Fi puts many drivers behind one address.
+    const t = await app({ loginPerIp: 3, keyPrefix: `rl-${randomUUID()}` });
+    const email = uniqueEmail();
+    await createUser(t.ds, { email, password: TEST_PASSWORD, displayName: 'Paddock' });
+    for (let i = 0; i < 6; i++) expect((await login(t, email, TEST_PASSWORD)).status).toBe(200);
+    for (let i = 0; i < 3; i++) expect((await login(t, uniqueEmail(), 'wrong-password-xyz')).status).toBe(401);
+    expect((await login(t, email, TEST_PASSWORD)).status).toBe(429);
+  });
+
   it('when the server restarts, then the counters are still there (kept in PostgreSQL)', async () => {
     const keyPrefix = `rl-${randomUUID()}`;
     const first = await app({ loginPerAccount: 2, keyPrefix });
