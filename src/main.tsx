@@ -6,7 +6,7 @@ import '@fontsource/nunito-sans/700.css';
 import '@fontsource/nunito-sans/800.css';
 import './styles/index.css';
 import { AppProvider } from './app/provider';
-import { CACHE_MAX_AGE_MS, createQueryClient, keptOnDevice } from './app/query-client';
+import { CACHE_MAX_AGE_MS, createQueryClient, keptOnDevice, lastAnswers } from './app/query-client';
 import { createAppRouter, sendToSignIn } from './app/router';
 import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
 import { persistQueryClient } from '@tanstack/react-query-persist-client';
@@ -26,7 +26,12 @@ registerServiceWorker();
 // The last data the server sent is restored from the device while the router starts: the first page's
 // code and the reads that need nothing kept go out at once, and its loaders wait for what is kept
 // before they ask "who is signed in?" (with no signal only the kept answer can reply).
-const persister = createAsyncStoragePersister({ storage: queryCacheStorage, key: 'scrubline-cache', throttleTime: 1000 });
+const persister = createAsyncStoragePersister({
+  storage: queryCacheStorage,
+  key: 'scrubline-cache',
+  throttleTime: 1000,
+  serialize: (client) => JSON.stringify(lastAnswers(client)),
+});
 const [, restored] = persistQueryClient({
   queryClient,
   persister,

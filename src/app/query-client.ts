@@ -1,4 +1,5 @@
-import { defaultShouldDehydrateQuery, MutationCache, QueryCache, type Query, QueryClient } from '@tanstack/react-query';
+import { MutationCache, QueryCache, type Query, QueryClient } from '@tanstack/react-query';
+import type { PersistedClient } from '@tanstack/react-query-persist-client';
 import { isApiError } from '@/lib/api-client';
 import { toast } from '@/lib/toast-store';
 
@@ -13,15 +14,32 @@ export interface QueryClientOptions {
 export const CACHE_MAX_AGE_MS = 7 * 24 * 60 * 60 * 1000;
 
 /**
- * Which answers are written to the device for the next page load. Not "nobody is signed in" (a copy written just
+ * Which answers are written to the device for the next page load: those the server gave, kept too when asking
+ * again failed for want of an answer (see `unanswered`). Not "nobody is signed in" (a copy written just
  * before a sign-in would send the next load back to the sign-in form), and not a query marked
  * `meta.notKeptOnDevice`: other people's accounts, read at a desk, that must not outlive the page on a shared
  * computer nor come back from it stale after a suspension.
  */
 export function keptOnDevice(query: Query): boolean {
-  if (!defaultShouldDehydrateQuery(query) || query.meta?.notKeptOnDevice) return false;
-  return !(query.queryKey[0] === 'auth' && query.state.data == null);
+  const { status, data, error } = query.state;
+  if (query.meta?.notKeptOnDevice || (status !== 'success' && (data === undefined || !unanswered(error)))) return false;
+  return data != null || query.queryKey[0] !== 'auth';
 }
+
+/**
+ * No answer came (no signal), or the server could not give one: the answer kept before still stands. A refusal
+ * (403, 404: the car was deleted or unshared) does not.
+ */
+const unanswered = (error: unknown) => isApiError(error) && (!error.status || error.status > 499);
+
+/**
+ * What is written to the device: a read whose refresh failed for want of signal is kept as its last answer, not
+ * as a failure, so that the next page load with no signal opens on it as on any other.
+ */
+export const lastAnswers = (client: PersistedClient): PersistedClient => {
+  for (const q of client.clientState.queries) if (q.state.status === 'error') q.state = { ...q.state, status: 'success', error: null };
+  return client;
+};
 
 const FALLBACK_MESSAGE = 'Something went wrong. Your saved data is safe; try again.';
 

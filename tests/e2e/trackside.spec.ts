@@ -187,6 +187,21 @@ describe('trackside on a phone (390×844)', () => {
     await screenshot(page, 'trackside-offline-waiting');
   });
 
+  it('when the page is reloaded offline a second time, after its reads have failed for want of signal, then it still opens with the same runs', async () => {
+    // Reads asked again with no signal fail; the copy on the device must keep their last answers all the same.
+    await page.goto(`${baseUrl}/`).catch(() => undefined);
+    await page.getByRole('heading', { name: 'Hi, Maren Holloway' }).waitFor({ timeout: 20_000 });
+    await page.waitForTimeout(6000); // retries given up, and the cache written again (at most once a second)
+    await page.goto(`${baseUrl}/events/${eventId}?carId=${carId}`).catch(() => undefined);
+    await page.getByRole('heading', { name: 'Practice at Harrow Flats' }).waitFor({ timeout: 20_000 });
+    await expect.poll(() => runRows().count(), { timeout: 15_000 }).toBe(5);
+    await page.waitForTimeout(6000);
+    await page.reload();
+    await page.getByRole('heading', { name: 'Practice at Harrow Flats' }).waitFor({ timeout: 20_000 });
+    await expect.poll(() => runRows().count(), { timeout: 15_000 }).toBe(5);
+    expect(await page.getByRole('listitem', { name: /Run 5, Maren Holloway/ }).getByText(/waiting/i).count()).toBeGreaterThan(0);
+  });
+
   it('when the signal comes back, then the waiting runs upload exactly once', async () => {
     await phone.context.setOffline(false);
     await page.evaluate(() => window.dispatchEvent(new Event('online')));

@@ -5,7 +5,7 @@ import { afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { ApiError } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
 import { ToastProvider } from '@/components/ui/toaster';
-import { createQueryClient, keptOnDevice } from '@/app/query-client';
+import { createQueryClient, keptOnDevice, lastAnswers } from '@/app/query-client';
 import { accountsQueryOptions } from '@/features/admin/api/accounts';
 
 // The toasts' layer is loaded on first use; load it before the clock of the first test starts,
@@ -103,5 +103,28 @@ describe('what is written to the device for the next page load', () => {
 
     queryClient.setQueryData(['auth', 'me'], null);
     expect(kept(queryClient)).toEqual(['["cars","list"]']);
+  });
+
+  it('when asking again fails for want of an answer, then the last answer is kept as an answer; when it is refused, it is dropped', async () => {
+    const queryClient = createQueryClient({ retry: false });
+    const failOnRefresh = async (key: string, error: ApiError) => {
+      queryClient.setQueryData([key], { id: key });
+      await queryClient.fetchQuery({ queryKey: [key], queryFn: () => Promise.reject(error), staleTime: 0 }).catch(() => undefined);
+    };
+    await failOnRefresh('no-signal', new ApiError({ status: 0, code: 'network', message: 'No connection' }));
+    await failOnRefresh('server-down', new ApiError({ status: 503, code: 'unavailable', message: 'Down' }));
+    await failOnRefresh('deleted', new ApiError({ status: 404, code: 'not_found', message: 'Gone' }));
+    // Never answered at all: nothing to keep.
+    await queryClient.fetchQuery({ queryKey: ['never'], queryFn: () => Promise.reject(new ApiError({ status: 0, code: 'network', message: 'x' })) }).catch(() => undefined);
+    expect(queryClient.getQueryState(['no-signal'])?.status).toBe('error');
+
+    const written = lastAnswers({ timestamp: 0, buster: '', clientState: dehydrate(queryClient, { shouldDehydrateQuery: keptOnDevice }) });
+    const queries = written.clientState.queries;
+    expect(queries.map((q) => q.queryKey[0])).toEqual(['no-signal', 'server-down']);
+    for (const q of queries) {
+      expect(q.state).toMatchObject({ status: 'success', error: null, data: { id: q.queryKey[0] } });
+    }
+    // The cache in memory still knows the refresh failed.
+    expect(queryClient.getQueryState(['no-signal'])?.status).toBe('error');
   });
 });

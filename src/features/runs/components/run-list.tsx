@@ -1,5 +1,5 @@
 import { lazy, Suspense, useState, type ReactNode } from 'react';
-import { Pencil, Trophy } from 'lucide-react';
+import { Trophy } from 'lucide-react';
 import { shortName } from '@shared/auth/person-name';
 import type { Corner } from '@shared/season/corners';
 import { formatRunTime } from '@shared/season/run-time';
@@ -220,7 +220,7 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
             ) : failed ? null : (
               <div className="flex flex-wrap gap-1">
                 <Button variant="quiet" className="px-2" onClick={() => setEditing(row.id)} aria-label={`Edit run ${row.runNumber}`}>
-                  <Pencil aria-hidden="true" className="size-4" /> Edit
+                  Edit
                 </Button>
                 {renderExtras?.(row)}
               </div>
