@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { TriangleAlert } from 'lucide-react';
 import { formatQuantity, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import {
@@ -18,6 +19,7 @@ import { UnitInput } from '@/components/ui/unit-input';
 import { inputToSi, parseDecimal, toInputText, typeANumber, unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { usePutBuildSheet } from '../api/edit-work-order';
+import { checkLines, isBlankCorner } from '../utils/build-sheet-checks';
 import { attentionMessage, splitErrors, useShowRefused } from '../utils/field-errors';
 
 type FieldKind = { kind: 'quantity'; quantity: Quantity } | { kind: 'clicks' } | { kind: 'text'; max: number };
@@ -50,44 +52,29 @@ function valueText(field: BuildSheetField, value: string | number | null, units:
   return String(value);
 }
 
-/** The server's checks for one corner, in plain words. */
+/**
+ * The server's checks for one corner, in plain words. A failed check reads as a warning, by eye (colour and icon)
+ * and by ear (it begins "Warning:"); on paper the word is printed too, for a printer without colour.
+ */
 export function CornerChecks({ checks, toleranceMm }: { checks: BuildSheetCornerChecks | null; toleranceMm: number }) {
   const units = useUnits();
-  if (!checks) return null;
-  const mm = (v: number) => formatQuantity(v, 'length', units);
-  const lines: string[] = [];
-  if (checks.compressedLength) {
-    const d = checks.compressedLength.differenceMm;
-    const how = d === 0 ? 'the same as the reference' : `${mm(Math.abs(d))} ${d < 0 ? 'shorter' : 'longer'} than the reference`;
-    lines.push(
-      `Compressed length: ${how} — ${
-        checks.compressedLength.withinTolerance
-          ? `within the shop’s ${mm(toleranceMm)} tolerance.`
-          : d > 0
-            ? 'longer than the reference: the damper could bottom out before the original bump stop.'
-            : `more than ${mm(toleranceMm)} shorter: the wheel could travel into the body. Check clearances.`
-      }`,
-    );
-  }
-  if (checks.droop) {
-    lines.push(
-      checks.droop.seated
-        ? `Main spring stays seated at full droop (compressed ${mm(checks.droop.staticCompressionMm)} at ride height, extends ${mm(checks.droop.droopAtSpringMm)}).`
-        : `Main spring comes off its seat at full droop: a helper spring needs ${mm(checks.droop.shortfallMm)} of travel, or limit the droop.`,
-    );
-  }
-  if (checks.bumpTravelAtWheelMm !== null) lines.push(`Bump travel left at the wheel: ${mm(checks.bumpTravelAtWheelMm)}.`);
-  if (lines.length === 0 && checks.problems.length === 0) return null;
+  const lines = checkLines(checks, toleranceMm, units);
+  if (lines.length === 0) return null;
   return (
     <ul className="flex flex-col gap-1 text-sm" aria-label="Checks">
-      {lines.map((l) => (
-        <li key={l}>{l}</li>
-      ))}
-      {checks.problems.map((p) => (
-        <li key={p} className="font-semibold text-warning">
-          {p}
-        </li>
-      ))}
+      {lines.map((l) =>
+        l.failed ? (
+          <li key={l.text} className="flex items-start gap-1 font-semibold text-warning">
+            <TriangleAlert aria-hidden="true" className="mt-0.5 size-4 shrink-0" />
+            <span>
+              <span className="sr-only print:not-sr-only">Warning: </span>
+              {l.text}
+            </span>
+          </li>
+        ) : (
+          <li key={l.text}>{l.text}</li>
+        ),
+      )}
     </ul>
   );
 }
@@ -109,7 +96,7 @@ export function BuildSheetCautions() {
 /** The build sheet as everyone reads it: each corner's values and checks. */
 export function BuildSheetView({ workOrder }: { workOrder: WorkOrder }) {
   const { corners } = workOrder.buildSheet;
-  if (CORNERS.every((c) => corners[c] === null)) return <p className="text-ink-muted">No build sheet for this visit.</p>;
+  if (CORNERS.every((c) => isBlankCorner(corners[c]))) return <p className="text-ink-muted">No build sheet for this visit.</p>;
   return (
     <>
       {/* A phone reads one corner at a time; a wider screen and paper compare the corners across a row. */}
@@ -130,6 +117,7 @@ export function BuildSheetView({ workOrder }: { workOrder: WorkOrder }) {
 function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
   const units = useUnits();
   const { corners, checks } = workOrder.buildSheet;
+  const tolerance = workOrder.shop.compressedLengthToleranceMm;
   const fields = BUILD_SHEET_FIELDS.filter((f) => CORNERS.some((c) => (corners[c]?.[f] ?? null) !== null));
   return (
     <div className="flex flex-col gap-1">
@@ -162,14 +150,17 @@ function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
           ))}
         </tbody>
       </table>
-      {CORNERS.map((c) =>
-        checks[c] ? (
+      {CORNERS.map((c) => {
+        const blank = isBlankCorner(corners[c]);
+        // A corner with no checks to show has no line: a corner name with nothing after it reads as a mistake.
+        if (!blank && checkLines(checks[c], tolerance, units).length === 0) return null;
+        return (
           <div key={c} className="flex gap-1 text-sm">
             <span className="shrink-0 font-bold">{CORNER_NAMES[c]}:</span>
-            <CornerChecks checks={checks[c]} toleranceMm={workOrder.shop.compressedLengthToleranceMm} />
+            {blank ? <span className="text-ink-muted">Not filled in.</span> : <CornerChecks checks={checks[c]} toleranceMm={tolerance} />}
           </div>
-        ) : null,
-      )}
+        );
+      })}
     </div>
   );
 }
@@ -182,7 +173,7 @@ function BuildSheetGrid({ workOrder }: { workOrder: WorkOrder }) {
       label="Build sheet, per corner"
       renderCorner={(corner) => {
         const sheet = corners[corner];
-        if (!sheet) return <p className="text-sm text-ink-muted">Not filled in.</p>;
+        if (!sheet || isBlankCorner(sheet)) return <p className="text-sm text-ink-muted">Not filled in.</p>;
         return (
           <div className="flex flex-col gap-2">
             {/* Each value under its label: side by side, half a phone's width left each a column a word wide. */}
