@@ -48,16 +48,19 @@ export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSu
   const [time, setTime] = useState(row.rawTimeSec !== null ? formatRunTime(row.rawTimeSec) : '');
   const [cones, setCones] = useState(row.cones);
   const [status, setStatus] = useState<RunStatus>(row.status);
-  const [number, setNumber] = useState(String(row.runNumber));
+  // The server found the number taken (logged on another phone, or in another tab): the next one free here is offered.
+  const nextFree = serverErrors?.runNumber ? Math.max(row.runNumber, ...takenNumbers) + 1 : null;
+  const [number, setNumber] = useState(String(nextFree ?? row.runNumber));
   const [notes, setNotes] = useState(row.notes ?? '');
   // The saved hot pressures as the driver types them (rounded to the unit's decimals), to tell what was changed.
   const [savedHot] = useState(
     () => Object.fromEntries(CORNERS.map((c) => [c, toInputText(row.hotPressuresKpa?.[c], 'pressure', units)])) as CornerTextMap,
   );
   const [hot, setHot] = useState(savedHot);
-  const [errors, setErrors] = useState<RunFormErrors>(() =>
-    Object.fromEntries(Object.entries(serverErrors ?? {}).map(([k, v]) => [k, v.join(' ')])),
-  );
+  const [errors, setErrors] = useState<RunFormErrors>(() => ({
+    ...Object.fromEntries(Object.entries(serverErrors ?? {}).map(([k, v]) => [k, v.join(' ')])),
+    ...(nextFree ? { runNumber: `Run ${row.runNumber} was already logged, so run ${nextFree} is filled in: the next number free here. Check it, then send again.` } : {}),
+  }));
 
   const submit = async (event: FormEvent) => {
     event.preventDefault();

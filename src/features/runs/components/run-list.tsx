@@ -23,6 +23,8 @@ import type { RunChanges } from './run-edit-form';
 
 // Loaded on the first "Edit" or "Fix", so logging runs stays a small download (the service worker keeps it for offline).
 const RunEditForm = lazy(async () => ({ default: (await import('./run-edit-form')).RunEditForm }));
+// Loaded when the server has refused something; a rare screen.
+const RefusedRun = lazy(async () => ({ default: (await import('./refused-run')).RefusedRun }));
 
 interface RunListProps {
   /** What the list is: "Today’s runs", or the runs of an earlier day. */
@@ -183,27 +185,9 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
               </details>
             ) : null}
             {failed ? (
-              <div role="alert" className="flex flex-col gap-2 rounded border border-warning-line bg-warning-surface p-2 text-sm">
-                <p className="font-semibold text-warning">
-                  {failed.action === 'delete' ? 'Could not delete: ' : 'Not accepted: '}
-                  {failed.error?.message ?? 'the server refused it'}
-                  {failed.error?.fieldErrors ? ` — ${Object.values(failed.error.fieldErrors).flat().join(' ')}` : ''}
-                </p>
-                <div className="flex flex-wrap gap-2">
-                  {failed.action === 'delete' ? (
-                    <Button variant="secondary" onClick={() => void outbox.retry(failed.entryKey)}>
-                      Try again
-                    </Button>
-                  ) : (
-                    <Button variant="secondary" onClick={() => setEditing(row.id)}>
-                      Fix
-                    </Button>
-                  )}
-                  <Button variant="quiet" onClick={() => void outbox.discard(failed.entryKey)}>
-                    {failed.action === 'create' ? 'Discard this run' : 'Discard the change'}
-                  </Button>
-                </div>
-              </div>
+              <Suspense fallback={<p role="alert">Not accepted by the server…</p>}>
+                <RefusedRun row={row} failed={failed} onFix={() => setEditing(row.id)} />
+              </Suspense>
             ) : null}
             {editing === row.id ? (
               <Suspense fallback={<p className="text-ink-muted">Opening the run…</p>}>

@@ -817,10 +817,16 @@ describe('event day', () => {
 
     const row = await screen.findByRole('listitem', { name: /^Run 1,/ });
     expect(within(row).getByText('Needs attention')).toBeTruthy();
-    expect(within(row).getByText(/Run 1 is already logged for this driver/)).toBeTruthy();
+    // Said once: the field's message, not the summary and then the same again.
+    expect((await within(row).findAllByText(/Run 1 is already logged/)).map((p) => p.textContent)).toEqual([
+      'Not accepted: Run 1 is already logged; use the next number',
+    ]);
 
     await u.click(within(row).getByRole('button', { name: 'Fix' }));
     const number = await within(row).findByLabelText('Run number');
+    // The next number free on this phone is offered, and said to be.
+    expect((number as HTMLInputElement).value).toBe('2');
+    expect(within(row).getByText(/run 2 is filled in: the next number free here/)).toBeTruthy();
     await u.clear(number);
     await u.type(number, '3');
     await u.click(within(row).getByRole('button', { name: 'Fix and send again' }));
@@ -828,5 +834,38 @@ describe('event day', () => {
     await waitFor(() => expect(requestsTo(fetchMock, 'POST /api/runs')).toHaveLength(1));
     expect((requestsTo(fetchMock, 'POST /api/runs')[0]?.body as { runNumber: number }).runNumber).toBe(3);
     expect(outbox.getSnapshot()[0]?.state).toBe('waiting');
+  });
+
+  it('when a refused run is discarded, then it leaves the list and the outbox, and Undo puts it back in line to be judged again', async () => {
+    const refused = storedEntry({
+      key: 'refused-run',
+      recordId: IDS.run2,
+      kind: 'run.create',
+      method: 'POST',
+      path: '/api/runs',
+      label: 'Run 1 · 43.333',
+      scope: { carId: IDS.car, eventId: IDS.event },
+      state: 'failed',
+      attempts: 1,
+      error: { status: 409, code: 'conflict', message: 'Run 1 is already logged for this driver and car at this event.' },
+      body: {
+        id: IDS.run2, carId: IDS.car, eventId: IDS.event, driverId: IDS.maren, runNumber: 1,
+        rawTimeSec: 43.333, cones: 0, status: 'finished', recordedAt: '2026-06-07T10:05:00.000Z',
+      },
+    });
+    stubWithRuns([], { extra: { 'POST /api/runs': offline } });
+    const { outbox } = renderApp(PATH, { outboxEntries: [refused] });
+    const u = userEvent.setup();
+
+    const row = await screen.findByRole('listitem', { name: /^Run 1,/ });
+    await u.click(await within(row).findByRole('button', { name: 'Discard this run' }));
+    await waitFor(() => expect(screen.queryByRole('listitem', { name: /^Run 1,/ })).toBeNull());
+    expect(outbox.getSnapshot()).toHaveLength(0);
+    expect(await screen.findByText('Run 1 discarded')).toBeTruthy();
+
+    await u.click(screen.getByRole('button', { name: 'Undo' }));
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(1));
+    expect(outbox.getSnapshot()[0]).toMatchObject({ recordId: IDS.run2, method: 'POST', body: { runNumber: 1, rawTimeSec: 43.333 } });
+    expect(await screen.findByRole('listitem', { name: /^Run 1,/ })).toBeTruthy();
   });
 });
