@@ -83,7 +83,12 @@ export interface BoardResult {
   eventName: string;
   date: string;
   driver: { id: string; displayName: string };
+  /** How the driver's runs that day ended: a day without a time is one whose runs were all DNF or off course. */
+  runs: { finished: number; dnf: number; offCourse: number };
+  /** The fastest clock time, cones not added; it may come from another run than the best adjusted time. */
   bestRawSec: number | null;
+  /** The cones hit on the run of the best raw time (0 for a clean run); null without a time. */
+  bestRawCones: number | null;
   bestAdjustedSec: number | null;
   /** Adjusted × the class factor; null when the captain has entered none. */
   indexSec: number | null;

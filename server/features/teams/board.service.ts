@@ -121,7 +121,14 @@ export async function classBoard(ds: DataSource, user: User, teamId: string, sea
     const first = group[0]!;
     const classCode = entryOf.get(first.car_id)!.class_code;
     const runsScored = group.map((r) => ({ rawTimeSec: r.raw_time_sec, cones: r.cones, status: r.status }));
-    const finishedRaw = runsScored.filter((r) => r.status === 'finished' && r.rawTimeSec !== null).map((r) => r.rawTimeSec!);
+    // The fastest clock time, cones not added; of equal times, the one with fewer cones.
+    let bestRaw: { rawTimeSec: number; cones: number } | null = null;
+    for (const r of runsScored) {
+      if (r.status !== 'finished' || r.rawTimeSec === null) continue;
+      if (!bestRaw || r.rawTimeSec < bestRaw.rawTimeSec || (r.rawTimeSec === bestRaw.rawTimeSec && r.cones < bestRaw.cones)) {
+        bestRaw = { rawTimeSec: r.rawTimeSec, cones: r.cones };
+      }
+    }
     const best = bestRun(runsScored, first.cone_penalty_sec);
     const bestAdjustedSec = best ? adjustedTimeSec(best, first.cone_penalty_sec) : null;
     const factor = factorOf.get(classCode);
@@ -134,7 +141,13 @@ export async function classBoard(ds: DataSource, user: User, teamId: string, sea
         eventName: first.event_name,
         date: first.date,
         driver: { id: first.driver_id, displayName: first.driver_name },
-        bestRawSec: finishedRaw.length > 0 ? Math.min(...finishedRaw) : null,
+        runs: {
+          finished: runsScored.filter((r) => r.status === 'finished').length,
+          dnf: runsScored.filter((r) => r.status === 'dnf').length,
+          offCourse: runsScored.filter((r) => r.status === 'off_course').length,
+        },
+        bestRawSec: bestRaw?.rawTimeSec ?? null,
+        bestRawCones: bestRaw?.cones ?? null,
         bestAdjustedSec,
         indexSec: bestAdjustedSec !== null && factor !== undefined ? indexTimeSec(bestAdjustedSec, factor) : null,
         pctOffClassFastest: null,

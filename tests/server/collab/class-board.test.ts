@@ -168,6 +168,28 @@ describe('GET /api/teams/:teamId/board', () => {
     expect(at(alpha, s.e3, s.ann.user.id)).toMatchObject({ bestRawSec: 47.2, bestAdjustedSec: 48.2 });
   });
 
+  it('when the best raw time had cones, then the line carries its cone count, so it reads apart from the adjusted time\'s run', () => {
+    // Round 1: Alpha's best raw 49.500 had 2 cones (adjusted 51.000 came from the clean 51.000); Bravo's 49.900 had 1.
+    expect(at(entered(board, s.alpha), s.e1, s.ann.user.id)).toMatchObject({ bestRawSec: 49.5, bestRawCones: 2 });
+    expect(at(entered(board, s.bravo), s.e1, s.ben.user.id)).toMatchObject({ bestRawSec: 49.9, bestRawCones: 1 });
+    // A clean best raw has 0 cones.
+    expect(at(entered(board, s.delta), s.e1, s.dee.user.id)).toMatchObject({ bestRawSec: 55, bestRawCones: 0 });
+    // The runs of each line, by how they ended: Bravo's DNF at Round 1, Eve's off course at Round 2.
+    expect(at(entered(board, s.bravo), s.e1, s.ben.user.id).runs).toEqual({ finished: 2, dnf: 1, offCourse: 0 });
+    expect(at(entered(board, s.alpha), s.e2, s.eve.user.id).runs).toEqual({ finished: 1, dnf: 0, offCourse: 1 });
+  });
+
+  it('when every run of a day was DNF or off course, then the line has no times and says how its runs ended', async () => {
+    const e = await event(s.dee, 'Wet round', '2023-05-07', 2);
+    await runs(s.delta, e, s.dee, '2023-05-07', [[null, 0, 'dnf'], [null, 0, 'dnf']]);
+    await runs(s.alpha, e, s.ann, '2023-05-07', [[null, 0, 'dnf'], [null, 0, 'off_course']]);
+    const b = (await s.captain.c.get(`/api/teams/${s.teamId}/board?season=2023`)).body as ClassBoard;
+    expect(at(entered(b, s.delta), e, s.dee.user.id)).toMatchObject({
+      runs: { finished: 0, dnf: 2, offCourse: 0 }, bestRawSec: null, bestRawCones: null, bestAdjustedSec: null, rankInClass: null,
+    });
+    expect(at(entered(b, s.alpha), e, s.ann.user.id)).toMatchObject({ runs: { finished: 0, dnf: 1, offCourse: 1 }, bestAdjustedSec: null });
+  });
+
   it('when a class has a factor, then index = adjusted × factor; without one, index is null', () => {
     // 51.000 × 0.842 = 42.942; 50.200 × 0.842 = 42.2684 → 42.268 (to the millisecond).
     expect(at(entered(board, s.alpha), s.e1, s.ann.user.id).indexSec).toBeCloseTo(42.942, 9);

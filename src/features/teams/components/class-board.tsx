@@ -7,7 +7,7 @@ import { SideScroll } from '@/components/side-scroll/side-scroll';
 import { formatDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { boardTime, setupLines, trendWords } from '../utils/board-format';
+import { boardTime, noTimeWords, rawConesWords, setupLines, trendWords } from '../utils/board-format';
 import type { TrendPoint } from './trend-chart';
 
 const TrendChart = lazy(() => import('./trend-chart').then((m) => ({ default: m.TrendChart })));
@@ -52,7 +52,10 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
               <span className="block text-xs font-normal">in class</span>
             </th>
             <th scope="col" className={head}>Rank</th>
-            <th scope="col" className={head}>Best raw (s)</th>
+            <th scope="col" className={head}>
+              <span className="whitespace-nowrap">Best raw (s)</span>
+              <span className="block text-xs font-normal">cones not added</span>
+            </th>
             <th scope="col" className={head}>Index (s)</th>
           </tr>
         </thead>
@@ -65,10 +68,15 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
                   {formatDay(r.date)} · {r.driver.displayName}
                 </span>
               </th>
-              <td className={`${num} font-bold`}>{boardTime(r.bestAdjustedSec)}</td>
+              <td className={`${num} font-bold`}>{noTimeWords(r) ?? boardTime(r.bestAdjustedSec)}</td>
               <td className={num}>{r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}</td>
               <td className={num}>{r.rankInClass ?? '—'}</td>
-              <td className={num}>{boardTime(r.bestRawSec)}</td>
+              <td className={num}>
+                {boardTime(r.bestRawSec)}
+                {/* The best raw time may come from a run with cones, slower once they are added than the adjusted time's run. */}
+                {rawConesWords(r.bestRawCones) ? ' ' : null}
+                {rawConesWords(r.bestRawCones) ? <span className="block text-xs font-normal text-ink-muted">{rawConesWords(r.bestRawCones)}</span> : null}
+              </td>
               <td className={num}>{hasFactor ? boardTime(r.indexSec) : '—'}</td>
             </tr>
           ))}

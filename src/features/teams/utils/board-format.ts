@@ -1,10 +1,30 @@
-import type { BoardCar } from '@shared/collab/team.schema';
+import type { BoardCar, BoardResult } from '@shared/collab/team.schema';
 import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { formatRunTime } from '@shared/season/run-time';
 
 /** A time on the board to the thousandth ("45.678", "1:05.432"), or "—" when there is none. */
 export function boardTime(seconds: number | null): string {
   return seconds === null ? '—' : formatRunTime(seconds);
+}
+
+const runsWord = (n: number) => `${n} ${n === 1 ? 'run' : 'runs'}`;
+
+/**
+ * A day that ended without a time, in the trade's words: "DNF (2 runs)", "Off course (1 run)", or
+ * "No time: 1 DNF, 1 off course". Null when the day has a time, or no runs at all.
+ */
+export function noTimeWords(result: Pick<BoardResult, 'bestAdjustedSec' | 'runs'>): string | null {
+  const { finished, dnf, offCourse } = result.runs;
+  if (result.bestAdjustedSec !== null || finished > 0 || dnf + offCourse === 0) return null;
+  if (offCourse === 0) return `DNF (${runsWord(dnf)})`;
+  if (dnf === 0) return `Off course (${runsWord(offCourse)})`;
+  return `No time: ${dnf} DNF, ${offCourse} off course`;
+}
+
+/** The cones on the run of a best raw time, added to it in words ("+1 cone"); null for a clean run. */
+export function rawConesWords(cones: number | null): string | null {
+  if (!cones) return null;
+  return `+${cones} ${cones === 1 ? 'cone' : 'cones'}`;
 }
 
 /** Below this a slope is shown as holding steady: the board's percentages are rounded to 0.1. */

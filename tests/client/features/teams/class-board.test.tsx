@@ -5,7 +5,8 @@ import { describe, expect, it, vi } from 'vitest';
 import { IMPERIAL_PREFERENCES } from '../../../../shared/calc/units.calc';
 import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { user } from '../../fixtures/season';
-import { BOARD, TEAM_IDS } from './team-fixtures';
+import type { BoardCar } from '../../../../shared/collab/team.schema';
+import { BOARD, MAREN_BOARD_CAR, TEAM_IDS } from './team-fixtures';
 
 // A canvas draws nothing in jsdom: stand in for the trend line with the points it was given.
 vi.mock('react-chartjs-2', () => ({
@@ -42,16 +43,56 @@ describe('class board', () => {
     const [round3, round4] = rowsOf('Grey roadster');
     expect(rowHeader(round3!)).toMatch(/^Harrow Flats — Round 3.+ · Maren Holt$/);
     // Adjusted, off the class's fastest and rank first (what the class is compared on), then raw and index.
-    expect(cells(round3!)).toEqual(['47.600', '+1.20 %', '2', '45.600', '—']);
+    expect(cells(round3!)).toEqual(['47.600', '+1.20 %', '2', '45.600 +1 cone', '—']);
     const r4 = cells(round4!);
     expect([r4[0], r4[3], r4[4]]).toEqual(['44.900', '44.900', '—']);
 
     // STR has a factor of 0.853: the server's index time is shown; past 60 s times read as minutes.
     expect(within(classSection('STR')).getByText('Factor 0.853')).toBeTruthy();
     const [ines] = rowsOf('White roadster');
-    expect(cells(ines!)).toEqual(['1:03.250', '0.00 %', '1', '1:01.250', '53.952']);
+    expect(cells(ines!)).toEqual(['1:03.250', '0.00 %', '1', '1:01.250 +1 cone', '53.952']);
     // On a phone the raw and index columns are off to the right: each table says so.
     expect(screen.getAllByText('Swipe the table sideways for raw times and index times.')).toHaveLength(screen.getAllByRole('region', { name: /^Results of / }).length);
+  });
+
+  it('when a day’s runs were all DNF or off course, then the line says so with the number of runs, not only dashes', async () => {
+    const noTime = { bestRawSec: null, bestRawCones: null, bestAdjustedSec: null, indexSec: null, pctOffClassFastest: null, rankInClass: null };
+    const [round3, round4] = MAREN_BOARD_CAR.results;
+    const wet = { ...round4!, eventId: 'e5555555-5555-4555-8555-555555555555', eventName: 'Harrow Flats — Round 5', date: '2026-06-21' };
+    const car: BoardCar = {
+      ...MAREN_BOARD_CAR,
+      results: [
+        { ...round3!, ...noTime, runs: { finished: 0, dnf: 2, offCourse: 0 } },
+        { ...round4!, ...noTime, runs: { finished: 0, dnf: 1, offCourse: 2 } },
+        { ...wet, ...noTime, runs: { finished: 0, dnf: 0, offCourse: 1 } },
+      ],
+      trendPctPerEvent: null,
+    };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, { ...BOARD, classes: [{ classCode: 'SM', factor: null, cars: [car] }] }),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    await screen.findByRole('region', { name: 'Class SM' });
+    expect(rowsOf('Grey roadster').map(cells)).toEqual([
+      ['DNF (2 runs)', '—', '—', '—', '—'],
+      ['No time: 1 DNF, 2 off course', '—', '—', '—', '—'],
+      ['Off course (1 run)', '—', '—', '—', '—'],
+    ]);
+  });
+
+  it('when a best raw time came from a run with cones, then the cones show beside it; a clean one shows none', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    await screen.findByRole('region', { name: 'Class SM' });
+    // Round 3: the best raw 45.600 had a cone; Round 4's best raw 44.900 was clean.
+    expect(rowsOf('Grey roadster').map((row) => cells(row)[3])).toEqual(['45.600 +1 cone', '44.900']);
+    expect(screen.getAllByText('cones not added').length).toBeGreaterThan(0);
   });
 
   it('when a car shares results only, then its setup is hidden; when it shares its setup, then the values show in the user’s units', async () => {

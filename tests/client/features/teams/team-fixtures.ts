@@ -76,8 +76,14 @@ export const MAREN_BOARD_CAR: BoardCar = {
   owner: MAREN,
   sharing: 'results',
   results: [
-    { ...EVENT_3, driver: MAREN, bestRawSec: 45.6, bestAdjustedSec: 47.6, indexSec: null, pctOffClassFastest: 1.2, rankInClass: 2 },
-    { ...EVENT_4, driver: MAREN, bestRawSec: 44.9, bestAdjustedSec: 44.9, indexSec: null, pctOffClassFastest: 0.8, rankInClass: 1 },
+    {
+      ...EVENT_3, driver: MAREN, runs: { finished: 3, dnf: 0, offCourse: 0 },
+      bestRawSec: 45.6, bestRawCones: 1, bestAdjustedSec: 47.6, indexSec: null, pctOffClassFastest: 1.2, rankInClass: 2,
+    },
+    {
+      ...EVENT_4, driver: MAREN, runs: { finished: 2, dnf: 1, offCourse: 0 },
+      bestRawSec: 44.9, bestRawCones: 0, bestAdjustedSec: 44.9, indexSec: null, pctOffClassFastest: 0.8, rankInClass: 1,
+    },
   ],
   trendPctPerEvent: -0.4,
   setup: null,
@@ -89,7 +95,10 @@ export const INES_BOARD_CAR: BoardCar = {
   owner: INES,
   sharing: 'results_and_setup',
   results: [
-    { ...EVENT_4, driver: INES, bestRawSec: 61.25, bestAdjustedSec: 63.25, indexSec: 53.952, pctOffClassFastest: 0, rankInClass: 1 },
+    {
+      ...EVENT_4, driver: INES, runs: { finished: 2, dnf: 0, offCourse: 0 },
+      bestRawSec: 61.25, bestRawCones: 1, bestAdjustedSec: 63.25, indexSec: 53.952, pctOffClassFastest: 0, rankInClass: 1,
+    },
   ],
   trendPctPerEvent: null,
   setup: {
