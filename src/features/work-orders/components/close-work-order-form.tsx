@@ -1,17 +1,23 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
+import { TriangleAlert } from 'lucide-react';
 import type { WorkOrder } from '@shared/service/work-order.schema';
 import { handoverLabel, SETUP_LABEL_MAX } from '@shared/service/handover-label';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { TextField } from '@/components/ui/text-field';
 import { formatDateTime, fromLocalInputValue, toLocalInputValue } from '@/lib/dates';
+import { useUnits } from '@/lib/units-context';
+import { CORNER_NAMES } from '@/components/corner-grid/corner-grid';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { useCloseWorkOrder } from '../api/edit-work-order';
+import { buildSheetAttention } from '../utils/build-sheet-checks';
 import { splitErrors } from '../utils/field-errors';
 
 /**
  * Staff hand the car back: the visit closes and a new setup snapshot is written on the car. Closing cannot be undone,
- * so it is asked twice; a handover dated before setups the driver has recorded since is pointed out before it is made.
+ * so it is asked twice. The question lists first what may need another look (failed build-sheet checks, corners of the
+ * sheet left empty), and a handover dated before setups the driver has recorded since; closing is still allowed, since a
+ * visit may be for one corner only.
  */
 export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
   const [handover, setHandover] = useState(() => toLocalInputValue(new Date()));
@@ -27,11 +33,14 @@ export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
     else if (asked.current) askRef.current?.focus();
     asked.current = asking !== null;
   }, [asking]);
+  const units = useUnits();
+  const attentionId = useId();
   const close = useCloseWorkOrder(workOrder.id);
   const { data: setups } = useSetups(workOrder.carId);
   const server = splitErrors(close.error);
   const byDefault = handoverLabel(workOrder.shop.name, workOrder.requestedWork);
   // Setups starting after the handover keep their own values; the one written now slots in before them.
+  const attention = asking ? buildSheetAttention(workOrder, units) : [];
   const later = asking ? (setups?.items ?? []).filter((s) => s.effectiveFrom > asking) : [];
 
   return (
@@ -74,7 +83,27 @@ export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
       />
       <FormAlert message={server.form} />
       {asking ? (
-        <div role="group" aria-label="Confirm the handover" className="flex flex-col gap-3 rounded border-2 border-accent p-3">
+        <div
+          role="group"
+          aria-label="Confirm the handover"
+          aria-describedby={attention.length > 0 ? attentionId : undefined}
+          className="flex flex-col gap-3 rounded border-2 border-accent p-3">
+          {attention.length > 0 ? (
+            <div id={attentionId} className="flex items-start gap-2 text-sm text-warning">
+              <TriangleAlert aria-hidden="true" className="mt-0.5 size-5 shrink-0" />
+              <div className="flex flex-col gap-1">
+                <p className="font-bold">Check the build sheet first:</p>
+                <ul className="list-disc pl-4 font-semibold">
+                  {attention.map((a) => (
+                    <li key={`${a.corner}-${a.text}`}>
+                      {CORNER_NAMES[a.corner]}: {a.text}
+                    </li>
+                  ))}
+                </ul>
+                <p className="text-ink">Choose “Not yet” to go back, or close anyway if the work was on some corners only.</p>
+              </div>
+            </div>
+          ) : null}
           <p className="font-semibold">
             Close this visit for good? “{label.trim() || byDefault}” becomes {workOrder.carName}’s setup from {formatDateTime(asking)}.
           </p>

@@ -3,7 +3,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
-import type { MeasurementsInput, ReplaceLinesInput } from '../../../../shared/service/work-order.schema';
+import { BUILD_SHEET_FIELDS, type BuildSheetCorner, type MeasurementsInput, type ReplaceLinesInput } from '../../../../shared/service/work-order.schema';
 import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests } from '../../test-utils';
 import { BASE_SETUP, CAR, list } from '../../fixtures/season';
 import { SHOP_NAME } from '../../fixtures/collab';
@@ -156,6 +156,69 @@ describe('closing a visit, asked twice', () => {
     expect(within(form).queryByRole('group', { name: 'Confirm the handover' })).toBeNull();
     await waitFor(() => expect(document.activeElement).toBe(within(form).getByRole('button', { name: 'Close and hand over…' })));
     expect(requestsTo(fetchMock, POST)).toHaveLength(0);
+  });
+  it('when the build sheet has a failed check and an empty corner, then the question lists them by corner first, and closing is still allowed', async () => {
+    const POST = `POST ${WO}/close`;
+    const visit = workOrder();
+    const empty = Object.fromEntries(BUILD_SHEET_FIELDS.map((f) => [f, null])) as BuildSheetCorner;
+    const checked = { compressedLength: null, droop: null, bumpTravelAtWheelMm: null, problems: [] };
+    const fetchMock = stubStaff(METRIC_PREFERENCES, {
+      [`GET ${WO}`]: jsonResponse(
+        200,
+        workOrder({
+          shop: { ...visit.shop, compressedLengthToleranceMm: 15 },
+          buildSheet: {
+            motionRatio: { front: 0.9, rear: 0.7 },
+            // Invented: the left front 20 mm shorter than the reference, its spring lifting at full droop; the left rear
+            // saved with nothing in it, the right front never saved; the right rear passes.
+            corners: { lf: { ...empty, strokeMm: 100 }, rf: null, lr: empty, rr: { ...empty, strokeMm: 100 } },
+            checks: {
+              lf: {
+                ...checked,
+                compressedLength: { differenceMm: -20, withinTolerance: false },
+                droop: { staticCompressionMm: 30, droopAtSpringMm: 42, seated: false, shortfallMm: 12 },
+              },
+              rf: null,
+              lr: checked,
+              rr: { ...checked, compressedLength: { differenceMm: -5, withinTolerance: true } },
+            },
+          },
+        }),
+      ),
+      [POST]: jsonResponse(200, workOrder({ status: 'closed', handoverAt: '2026-06-10T16:30:00.000Z', setupId: SERVICE_IDS.newSetup, version: 3 })),
+      [`GET ${WO}/invoice`]: errorResponse(404, 'not_found', 'There is no invoice for this work order yet.'),
+    });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    const form = await screen.findByRole('form', { name: 'Close and hand over' });
+    await u.click(within(form).getByRole('button', { name: 'Close and hand over…' }));
+
+    const confirm = within(form).getByRole('group', { name: 'Confirm the handover' });
+    expect(within(confirm).getAllByRole('listitem').map((li) => li.textContent)).toEqual([
+      'Left front: compressed length 20.0 mm shorter than the reference (tolerance 15.0 mm)',
+      'Left front: main spring comes off its seat at full droop',
+      'Right front: not filled in',
+      'Left rear: not filled in',
+    ]);
+    // Read out with the question, and said before it.
+    const list = within(confirm).getByRole('list');
+    const describedBy = confirm.getAttribute('aria-describedby')!;
+    expect(document.getElementById(describedBy)!.contains(list)).toBe(true);
+    expect(confirm.textContent!.indexOf('Left front:')).toBeLessThan(confirm.textContent!.indexOf('Close this visit for good?'));
+
+    await u.click(within(confirm).getByRole('button', { name: 'Yes, close and hand over' }));
+    await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(1));
+  });
+
+  it('when the visit has no build sheet at all, then the question lists nothing to check', async () => {
+    stubStaff(METRIC_PREFERENCES);
+    renderApp(PATH);
+    const u = userEvent.setup();
+    const form = await screen.findByRole('form', { name: 'Close and hand over' });
+    await u.click(within(form).getByRole('button', { name: 'Close and hand over…' }));
+    const confirm = within(form).getByRole('group', { name: 'Confirm the handover' });
+    expect(within(confirm).queryByRole('list')).toBeNull();
+    expect(confirm.getAttribute('aria-describedby')).toBeNull();
   });
 });
 
