@@ -3,6 +3,7 @@ import { AttachmentToggle } from '@/features/attachments/components/attachment-t
 import { CommentsHost } from '@/features/comments/components/comments-host';
 import { NotificationBell } from '@/features/notifications/components/notification-bell';
 import { useNewPageAtTop } from '@/hooks/use-new-page-at-top';
+import { useOtherTabs } from '@/features/sync/hooks/use-other-tabs';
 
 /** A run's or an event's photos, in the dialog the trackside "Comments" buttons open (the strip loads when unfolded). */
 function photosOf(target: CommentTarget) {
@@ -13,11 +14,12 @@ function photosOf(target: CommentTarget) {
 /**
  * The parts of the signed-in shell no page waits for: the notification bell (a count the server
  * sends anyway) and the host that opens comment threads over the trackside screen, with the record's
- * photos; and each new page opened at its top. One small file, loaded just after the page (see
+ * photos; each new page opened at its top; and what other tabs put in the outbox. One small file, loaded just after the page (see
  * signed-in-layout.tsx), so the first page's script carries none of it.
  */
 export function ShellExtras() {
   useNewPageAtTop();
+  useOtherTabs();
   return (
     <>
       <NotificationBell />

@@ -133,6 +133,11 @@ export class Outbox {
 
   getSnapshot = (): readonly OutboxEntry[] => this.entries;
 
+  /** Reads the device again, for what another tab has changed there. */
+  reload(): Promise<void> {
+    return this.change();
+  }
+
   /** Every entry on the device, whoever made it: the sign-in page counts those waiting for their account. */
   stored(): Promise<OutboxEntry[]> {
     return this.o.storage.change();
