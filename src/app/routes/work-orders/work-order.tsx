@@ -13,6 +13,7 @@ import { useWorkOrder } from '@/features/work-orders/api/get-work-order';
 import { BuildSheetEditor, BuildSheetView, BuildSheetCautions } from '@/features/work-orders/components/build-sheet';
 import { CloseWorkOrderForm } from '@/features/work-orders/components/close-work-order-form';
 import { MeasurementsForm, MeasurementsView } from '@/features/work-orders/components/measurements';
+import { HandoverCautions, MeasurementCautions } from '@/features/work-orders/components/work-cautions';
 import { LinesEditor, LinesTable } from '@/features/work-orders/components/work-order-lines';
 import { WorkOrderHeader } from '@/features/work-orders/components/work-order-header';
 import { InvoiceSection } from '@/features/invoices/components/invoice-section';
@@ -58,6 +59,10 @@ export function WorkOrderPage() {
 
       <SectionBoundary title="Measurements">
         <SectionCard title="Measurements">
+          {/* The handover's own caution below is what the customer's sheet carries; this one is for the work. */}
+          <div className="print:hidden">
+            <MeasurementCautions />
+          </div>
           <MeasurementsView workOrder={workOrder} />
           {/* Each form keeps what is typed in it: saving one section must not wipe another's unsaved values. */}
           {canEdit ? (
@@ -92,6 +97,8 @@ export function WorkOrderPage() {
           )}
         </SectionCard>
       </SectionBoundary>
+
+      <HandoverCautions />
 
       {canEdit ? (
         <div className="print:hidden">
