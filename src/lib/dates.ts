@@ -34,6 +34,11 @@ export function formatDay(value: string | Date): string {
   return intlFormat(toDate(value), { day: 'numeric', month: 'short', year: 'numeric' });
 }
 
+/** "12 Jun": a day within a season already named, as on a chart's axis. */
+export function formatShortDay(value: string | Date): string {
+  return intlFormat(toDate(value), { day: 'numeric', month: 'short' });
+}
+
 /** "Sat, 12 Jun 2026" */
 export function formatLongDay(value: string | Date): string {
   return intlFormat(toDate(value), { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' });

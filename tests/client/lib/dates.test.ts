@@ -1,6 +1,6 @@
 import { endOfDay, intlFormat, isSameDay, isToday, parseISO } from 'date-fns';
 import { describe, expect, it } from 'vitest';
-import { formatClock, formatDateTime, formatDay, formatLongDay, isDayEnd, isOnDate, isTodayDate, parseIsoDate, runMoment, toLocalInputValue } from '@/lib/dates';
+import { formatClock, formatDateTime, formatDay, formatLongDay, formatShortDay, isDayEnd, isOnDate, isTodayDate, parseIsoDate, runMoment, toLocalInputValue } from '@/lib/dates';
 
 // The app reads and shows dates without date-fns (a few KB less on every page); date-fns, an
 // independent library from npm, is the reference each case is checked against.
@@ -27,6 +27,7 @@ describe('formatting', () => {
   it.each([...DATES, ...TIMESTAMPS])('when %j is shown, then it reads as date-fns intlFormat shows it', (value) => {
     const d = parseISO(value);
     expect(formatDay(value)).toBe(intlFormat(d, { day: 'numeric', month: 'short', year: 'numeric' }));
+    expect(formatShortDay(value)).toBe(intlFormat(d, { day: 'numeric', month: 'short' }));
     expect(formatLongDay(value)).toBe(intlFormat(d, { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' }));
     expect(formatDateTime(value)).toBe(intlFormat(d, { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' }));
     expect(formatClock(value)).toBe(intlFormat(d, { hour: '2-digit', minute: '2-digit' }));

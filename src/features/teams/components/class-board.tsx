@@ -4,10 +4,10 @@ import { Caution } from '@/components/ui/caution';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
 import { SideScroll } from '@/components/side-scroll/side-scroll';
-import { formatDay } from '@/lib/dates';
+import { formatDay, formatShortDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { boardTime, noTimeWords, rawConesWords, setupLines, trendWords } from '../utils/board-format';
+import { aloneWords, boardTime, noTimeWords, rawConesWords, setupLines, trendWords } from '../utils/board-format';
 import type { TrendPoint } from './trend-chart';
 
 const TrendChart = lazy(() => import('./trend-chart').then((m) => ({ default: m.TrendChart })));
@@ -25,6 +25,7 @@ function trendPoints(results: readonly BoardResult[]): TrendPoint[] {
   return [...best.values()].map((r, i) => ({
     x: i + 1,
     y: r.pctOffClassFastest ?? 0,
+    tick: formatShortDay(r.date),
     label: `${r.eventName}, ${formatDay(r.date)}: ${formatPercent(r.pctOffClassFastest ?? 0)}`,
   }));
 }
@@ -125,13 +126,17 @@ function SetupSummary({ car }: { car: BoardCar }) {
   );
 }
 
-function Trend({ car }: { car: BoardCar }) {
+/**
+ * The car's trend against its class's fastest. A car with no classmate that has a time this season is
+ * only ever compared with itself, so it gets no trend, only that sentence.
+ */
+function Trend({ car, classCode, alone }: { car: BoardCar; classCode: string; alone: boolean }) {
   const points = trendPoints(car.results);
-  const words = trendWords(car.trendPctPerEvent, points.length);
+  const words = alone ? aloneWords(classCode) : trendWords(car.trendPctPerEvent, points.length);
   return (
     <div className="flex flex-col gap-1">
       <p className="text-sm font-semibold">{words}</p>
-      {points.length >= 2 ? (
+      {!alone && points.length >= 2 ? (
         <ErrorBoundary fallback={() => <p className="text-sm text-ink-muted">The trend line could not be drawn; the table above has the same numbers.</p>}>
           <Suspense fallback={<div className="h-32 max-w-sm rounded border border-dashed border-line-strong" aria-hidden="true" />}>
             <TrendChart
@@ -145,7 +150,7 @@ function Trend({ car }: { car: BoardCar }) {
   );
 }
 
-function BoardCarCard({ car, hasFactor }: { car: BoardCar; hasFactor: boolean }) {
+function BoardCarCard({ car, classCode, hasFactor, alone }: { car: BoardCar; classCode: string; hasFactor: boolean; alone: boolean }) {
   const headingId = useId();
   return (
     <article aria-labelledby={headingId} className="flex min-w-0 flex-col gap-3 rounded border border-line p-3">
@@ -157,7 +162,7 @@ function BoardCarCard({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
         <span className="text-sm text-ink-muted">{car.owner.displayName}’s car</span>
       </div>
       {car.results.length === 0 ? <p className="text-sm text-ink-muted">No results this season yet.</p> : <ResultsTable car={car} hasFactor={hasFactor} />}
-      {car.results.length > 0 ? <Trend car={car} /> : null}
+      {car.results.length > 0 ? <Trend car={car} classCode={classCode} alone={alone} /> : null}
       <SetupSummary car={car} />
     </article>
   );
@@ -191,7 +196,13 @@ export function ClassBoardView({ board }: { board: ClassBoard }) {
             <p className="text-sm text-ink-muted">No index times for this class yet: a captain enters its factor on the team page.</p>
           ) : null}
           {group.cars.map((car) => (
-            <BoardCarCard key={car.car.id} car={car} hasFactor={group.factor !== null} />
+            <BoardCarCard
+              key={car.car.id}
+              car={car}
+              classCode={group.classCode}
+              hasFactor={group.factor !== null}
+              alone={!group.cars.some((other) => other !== car && other.results.some((r) => r.bestAdjustedSec !== null))}
+            />
           ))}
         </section>
       ))}

@@ -18,6 +18,8 @@ export interface TrendPoint {
   x: number;
   /** % off the class's fastest adjusted time that day. */
   y: number;
+  /** The event's day on the axis ("12 Jun"). */
+  tick: string;
   label: string;
 }
 
@@ -40,11 +42,11 @@ export function TrendChart({ points, summary }: { points: TrendPoint[]; summary:
         min: 0.5,
         max: points.length + 0.5,
         title: { display: true, text: 'Event', color: ink },
-        // One tick per event, numbered. Left to itself, Chart.js steps from the padded end (0.5, 1.5, …).
+        // One tick per event, named by its day. Left to itself, Chart.js steps from the padded end (0.5, 1.5, …).
         afterBuildTicks: (scale) => {
           scale.ticks = points.map((_, i) => ({ value: i + 1 }));
         },
-        ticks: { color: muted, callback: (value) => String(value) },
+        ticks: { color: muted, callback: (value) => points[Number(value) - 1]?.tick ?? '' },
         grid: { display: false },
       },
       y: {

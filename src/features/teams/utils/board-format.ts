@@ -27,8 +27,8 @@ export function rawConesWords(cones: number | null): string | null {
   return `+${cones} ${cones === 1 ? 'cone' : 'cones'}`;
 }
 
-/** Below this a slope is shown as holding steady: the board's percentages are rounded to 0.1. */
-const STEADY_PCT_PER_EVENT = 0.05;
+/** Below this a slope is shown as holding steady: it would read "0.00 %", as the board's percentages are to 0.01. */
+const STEADY_PCT_PER_EVENT = 0.005;
 
 /**
  * The season's trend in words. The slope is the change in % off the class's fastest per event:
@@ -37,9 +37,15 @@ const STEADY_PCT_PER_EVENT = 0.05;
 export function trendWords(slopePctPerEvent: number | null, events: number): string {
   if (slopePctPerEvent === null) return 'Not enough events yet for a trend.';
   const over = `over ${events} ${events === 1 ? 'event' : 'events'}`;
-  const size = Math.abs(slopePctPerEvent).toFixed(1);
+  // To two decimals, as every other percentage on the board.
+  const size = Math.abs(slopePctPerEvent).toFixed(2);
   if (Math.abs(slopePctPerEvent) < STEADY_PCT_PER_EVENT) return `Holding steady against the class’s fastest ${over}.`;
   return slopePctPerEvent < 0 ? `Closing in by ${size} % per event ${over}.` : `Falling back by ${size} % per event ${over}.`;
+}
+
+/** The trend sentence of a car no other car in its class has a time beside: there is no class fastest but itself. */
+export function aloneWords(classCode: string): string {
+  return `The only car in class ${classCode} with times this season: there is no one in the class to compare it with yet.`;
 }
 
 export interface SetupLine {

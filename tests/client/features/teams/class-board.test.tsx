@@ -1,21 +1,17 @@
 // @vitest-environment jsdom
 import { screen, waitFor, within } from '@testing-library/react';
+import { intlFormat, parseISO } from 'date-fns';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
 import { IMPERIAL_PREFERENCES } from '../../../../shared/calc/units.calc';
 import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { user } from '../../fixtures/season';
 import type { BoardCar } from '../../../../shared/collab/team.schema';
-import { BOARD, MAREN_BOARD_CAR, TEAM_IDS } from './team-fixtures';
+import { chartGiven, layOutChart, tickLabels } from '../../chart-layout';
+import { BOARD, INES_BOARD_CAR, MAREN_BOARD_CAR, SILVER_BOARD_CAR, TEAM_IDS } from './team-fixtures';
 
-// A canvas draws nothing in jsdom: stand in for the trend line with the points it was given.
-vi.mock('react-chartjs-2', () => ({
-  Scatter: (props: { 'aria-label'?: string; data: { datasets: { data: { x: number; y: number }[] }[] } }) => (
-    <div role="img" aria-label={props['aria-label']}>
-      {props.data.datasets[0]?.data.map((p) => `${p.x}:${p.y}`).join(' ')}
-    </div>
-  ),
-}));
+// A canvas draws nothing in jsdom: stand in for the trend line, keeping what it was given.
+vi.mock('react-chartjs-2', async () => (await import('../../chart-layout')).chartStandIn);
 
 const BOARD_API = `/api/teams/${TEAM_IDS.team}/board`;
 
@@ -117,7 +113,7 @@ describe('class board', () => {
     expect(screen.getByRole('complementary', { name: 'Setups are starting points' })).toBeTruthy();
   });
 
-  it('when a car has a trend, then it is drawn from the % off the class’s fastest and said in words; with too few events, it says so', async () => {
+  it('when a car has a trend, then it is drawn from the % off the class’s fastest over the events’ dates and said to the board’s two decimals', async () => {
     stubFetch({
       'GET /api/auth/me': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
@@ -125,11 +121,39 @@ describe('class board', () => {
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
 
     const sm = await screen.findByRole('region', { name: 'Class SM' });
-    expect(within(sm).getByText('Closing in by 0.4 % per event over 2 events.')).toBeTruthy();
-    const chart = await within(sm).findByRole('img', { name: /Grey roadster: percent off the class’s fastest over 2 events/ });
-    expect(chart.textContent).toBe('1:1.2 2:0.8');
-    expect(within(classSection('STR')).getByText('Not enough events yet for a trend.')).toBeTruthy();
-    expect(within(classSection('STR')).queryByRole('img')).toBeNull();
+    // −0.4 % per event reads as the table's "+1.20 %" and "+0.80 %" do: to the hundredth.
+    expect(within(sm).getByText('Closing in by 0.40 % per event over 2 events.')).toBeTruthy();
+    await within(sm).findByRole('img', { name: /^Grey roadster: percent off the class’s fastest over 2 events/ });
+    const given = chartGiven('Grey roadster');
+    expect(given.data.datasets[0]!.data).toEqual([{ x: 1, y: 1.2 }, { x: 2, y: 0.8 }]);
+    // The axis names each event by its day (date-fns, an independent library, is the reference), not "1" and "2".
+    const chart = layOutChart(given, { width: 384, height: 128 });
+    expect(tickLabels(chart, 'x')).toEqual([intlFormat(parseISO('2026-05-17'), { day: 'numeric', month: 'short' }), intlFormat(parseISO('2026-06-07'), { day: 'numeric', month: 'short' })]);
+    chart.destroy();
+  });
+
+  it('when a car is the only one in its class with times, then it says so instead of a trend against itself, and no line is drawn', async () => {
+    const ALONE_EVENTS = ['2026-04-12', '2026-05-17', '2026-06-07'];
+    const alone: BoardCar = {
+      ...INES_BOARD_CAR,
+      results: ALONE_EVENTS.map((date, i) => ({
+        ...INES_BOARD_CAR.results[0]!, eventId: `e${i}${i}${i}${i}${i}${i}${i}${i}-5555-4555-8555-555555555555`, eventName: `Round ${i + 1}`, date,
+      })),
+      // Alone, the car is its own class's fastest every time: 0 % off, a flat line of no meaning.
+      trendPctPerEvent: 0,
+    };
+    // A classmate entered but without a time this season leaves it just as alone.
+    const idle: BoardCar = { ...SILVER_BOARD_CAR, results: [], trendPctPerEvent: null };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, { ...BOARD, classes: [{ classCode: 'STR', factor: 0.853, cars: [alone, idle] }] }),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    const str = await screen.findByRole('region', { name: 'Class STR' });
+    expect(within(str).getByText('The only car in class STR with times this season: there is no one in the class to compare it with yet.')).toBeTruthy();
+    expect(within(str).queryByText(/Holding steady/)).toBeNull();
+    expect(within(str).queryByRole('img')).toBeNull();
   });
 
   it('when the next season is picked, then the board for that season is asked for and the address keeps it', async () => {

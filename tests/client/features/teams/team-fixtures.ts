@@ -82,14 +82,34 @@ export const MAREN_BOARD_CAR: BoardCar = {
     },
     {
       ...EVENT_4, driver: MAREN, runs: { finished: 2, dnf: 1, offCourse: 0 },
-      bestRawSec: 44.9, bestRawCones: 0, bestAdjustedSec: 44.9, indexSec: null, pctOffClassFastest: 0.8, rankInClass: 1,
+      bestRawSec: 44.9, bestRawCones: 0, bestAdjustedSec: 44.9, indexSec: null, pctOffClassFastest: 0.8, rankInClass: 2,
     },
   ],
   trendPctPerEvent: -0.4,
   setup: null,
 };
 
-/** Ines's roadster in STR (factor 0.853), sharing its setup. */
+/** Ines's second car, Maren's classmate in SM and its fastest at both rounds; its setup shared but none recorded. */
+export const SILVER_BOARD_CAR: BoardCar = {
+  car: { id: 'c5555555-5555-4555-8555-555555555555', name: 'Silver roadster', carNumber: '8' },
+  owner: INES,
+  sharing: 'results_and_setup',
+  results: [
+    // 47.036 × 1.012 = 47.600 (Maren, +1.20 %); 44.544 × 1.008 = 44.900 (Maren, +0.80 %), to the thousandth.
+    {
+      ...EVENT_3, driver: INES, runs: { finished: 3, dnf: 0, offCourse: 0 },
+      bestRawSec: 47.036, bestRawCones: 0, bestAdjustedSec: 47.036, indexSec: null, pctOffClassFastest: 0, rankInClass: 1,
+    },
+    {
+      ...EVENT_4, driver: INES, runs: { finished: 3, dnf: 0, offCourse: 0 },
+      bestRawSec: 44.544, bestRawCones: 0, bestAdjustedSec: 44.544, indexSec: null, pctOffClassFastest: 0, rankInClass: 1,
+    },
+  ],
+  trendPctPerEvent: 0,
+  setup: null,
+};
+
+/** Ines's roadster in STR (factor 0.853), sharing its setup; the only car in its class. */
 export const INES_BOARD_CAR: BoardCar = {
   car: { id: TEAM_IDS.inesCar, name: 'White roadster', carNumber: '3' },
   owner: INES,
@@ -119,7 +139,7 @@ export const BOARD: ClassBoard = {
   team: { id: TEAM_IDS.team, name: 'Harrow Flats Sprint Club', isCaptain: false },
   season: 2026,
   classes: [
-    { classCode: 'SM', factor: null, cars: [MAREN_BOARD_CAR] },
+    { classCode: 'SM', factor: null, cars: [MAREN_BOARD_CAR, SILVER_BOARD_CAR] },
     { classCode: 'STR', factor: 0.853, cars: [INES_BOARD_CAR] },
   ],
 };
