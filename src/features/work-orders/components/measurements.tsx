@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import { MEASUREMENT_FIELDS, type MeasurementField, type Stage, type WorkOrder, type WorkOrderStage } from '@shared/service/work-order.schema';
 import { formatQuantity } from '@shared/calc/units.calc';
-import { CornerGrid } from '@/components/corner-grid/corner-grid';
+import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { UnitInput } from '@/components/ui/unit-input';
@@ -160,6 +160,8 @@ export function MeasurementsForm({ workOrder, stage }: { workOrder: WorkOrder; s
                 <UnitInput
                   key={f}
                   label={info.label}
+                  // Eight inputs per stage share the short label drawn in each corner; the name read out says which one.
+                  aria-label={`${CORNER_NAMES[corner]} ${info.label.toLowerCase()}, ${stage}`}
                   unit={unitSymbol(info.quantity, units)}
                   signed={info.signed}
                   value={texts[corner][f]}

@@ -195,6 +195,30 @@ describe('the measurement forms', () => {
     expect((within(afterNow).getByLabelText('Fuel level') as HTMLInputElement).value).toBe('40');
     expect(requestsTo(fetchMock, `PUT ${WO}/measurements/after`)).toHaveLength(0);
   });
+  it('when a screen reader moves through the readings, then each input names its corner and stage while the grid still shows the short label', async () => {
+    stubStaff(METRIC_PREFERENCES);
+    renderApp(PATH);
+    const before = await screen.findByRole('form', { name: 'Before measurements' });
+    const after = screen.getByRole('form', { name: 'After measurements' });
+    // Each reading found by its full name, once only (getByRole refuses a name two inputs share).
+    const corners = { lf: 'Left front', rf: 'Right front', lr: 'Left rear', rr: 'Right rear' } as const;
+    const fields = ['camber', 'toe (in +)', 'caster', 'ride height', 'corner weight'];
+    for (const [stageName, form] of [['before', before], ['after', after]] as const) {
+      const grid = within(form).getByRole('group', { name: /per corner/ });
+      expect(within(grid).getAllByRole('textbox')).toHaveLength(4 * fields.length);
+      for (const corner of CORNERS) {
+        for (const field of fields) {
+          const input = within(grid).getByRole('textbox', { name: `${corners[corner]} ${field}, ${stageName}` });
+          expect(within(grid).getByRole('group', { name: corners[corner] }).contains(input)).toBe(true);
+        }
+      }
+    }
+
+    const rf = within(within(after).getByRole('group', { name: 'After: per corner' })).getByRole('group', { name: 'Right front' });
+    const camber = within(rf).getByRole('textbox', { name: 'Right front camber, after' });
+    // The label drawn beside it stays one word.
+    expect(within(rf).getByText('Camber', { selector: 'label' }).getAttribute('for')).toBe(camber.id);
+  });
 });
 
 describe('a measurement the form or the server refuses', () => {
