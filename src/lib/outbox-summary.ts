@@ -16,12 +16,19 @@ function nounOf(kind: string): string {
   return kind.split('.')[0] ?? kind;
 }
 
-/** "3 runs", "1 setup", "4 changes" (mixed kinds). */
+/**
+ * "3 runs", "1 setup", "2 runs and 1 change", "4 changes": new records of one kind by that kind (a quick change
+ * makes a setup), and edits, deletions and rotations as changes, so an edit of a run is not another run.
+ */
 export function countWords(entries: readonly OutboxEntry[]): string {
-  const n = entries.length;
-  const kinds = new Set(entries.map((e) => nounOf(e.kind)));
-  const [one, many] = kinds.size === 1 ? (NOUNS[[...kinds][0]!] ?? ['change', 'changes']) : ['change', 'changes'];
-  return `${n} ${n === 1 ? one : many}`;
+  const made = entries.filter((e) => /\.(create|quickChange)$/.test(e.kind));
+  const kinds = new Set(made.map((e) => nounOf(e.kind)));
+  const nouns = kinds.size === 1 ? NOUNS[[...kinds][0]!] : undefined;
+  const count = (n: number, [one, many]: [string, string]) => `${n} ${n === 1 ? one : many}`;
+  const changes: [string, string] = ['change', 'changes'];
+  if (!nouns) return count(entries.length, changes);
+  const changed = entries.length - made.length;
+  return changed ? `${count(made.length, nouns)} and ${count(changed, changes)}` : count(made.length, nouns);
 }
 
 export interface OutboxSummary {
