@@ -37,11 +37,14 @@ function send(entry: OutboxEntry) {
   }
 }
 
+/** Why uploads wait when the server no longer knows the session (it expired, or was signed out elsewhere). */
+export const SIGNED_OUT_REASON = 'Sign in again to upload';
+
 /** Network trouble and server trouble wait and retry; a refusal stays visible until fixed; a deleted record is done. */
 export function classifySendError(entry: OutboxEntry | null, error: unknown): SendFailure {
   if (!isApiError(error)) return { kind: 'retry', reason: 'Could not reach Scrubline' };
   if (error.code === 'network') return { kind: 'retry', reason: 'No connection' };
-  if (error.status === 401) return { kind: 'retry', reason: 'Sign in again to upload' };
+  if (error.status === 401) return { kind: 'retry', reason: SIGNED_OUT_REASON };
   if (error.status === 408 || error.status === 429 || error.status >= 500) return { kind: 'retry', reason: 'Scrubline is busy' };
   if (error.status === 404 && entry?.method === 'DELETE') return { kind: 'gone' };
   return {

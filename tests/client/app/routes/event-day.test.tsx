@@ -9,7 +9,7 @@ import type { Run } from '../../../../shared/season/run.schema';
 import type { Setup } from '../../../../shared/season/setup.schema';
 import { formatDay, todayIsoDate } from '@/lib/dates';
 import type { OutboxEntry } from '@/lib/outbox';
-import { blockingEntry, jsonResponse, renderApp, requestsTo, setUpAppTests, storedEntry, stubFetch } from '../../test-utils';
+import { blockingEntry, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, storedEntry, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, EVENT, IDS, list, runOnPhone, RUNS_URL, savedRun, user, UUID } from '../../fixtures/season';
 
 const PATH = `/events/${IDS.event}?carId=${IDS.car}`;
@@ -867,5 +867,20 @@ describe('event day', () => {
     await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(1));
     expect(outbox.getSnapshot()[0]).toMatchObject({ recordId: IDS.run2, method: 'POST', body: { runNumber: 1, rawTimeSec: 43.333 } });
     expect(await screen.findByRole('listitem', { name: /^Run 1,/ })).toBeTruthy();
+  });
+
+  it('when an upload finds the session over, then the page goes to sign in, and the run stays on the phone for the driver', async () => {
+    stubWithRuns([], {
+      extra: { 'GET /api/auth/me': [jsonResponse(200, { user: user(METRIC_PREFERENCES) }), SIGNED_OUT], 'POST /api/runs': SIGNED_OUT },
+    });
+    const { router, storage } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+
+    await keypad(u, '47.2');
+    await u.click(screen.getByRole('button', { name: /^Save run/ }));
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'), { timeout: 5000 });
+    expect(storage.saved.map((e) => [e.kind, e.owner])).toEqual([['run.create', IDS.maren]]);
   });
 });
