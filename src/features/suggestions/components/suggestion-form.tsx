@@ -18,6 +18,7 @@ import { FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
 import { useUnits } from '@/lib/units-context';
 import { useCreateSuggestion, type CreateSuggestionBody } from '../api/create-suggestion';
 import { CORNER_SETS, FIELD_LABELS, newChangeRow, outOfRange, previewChanges, rowToChange, type ChangeRow } from '../utils/change-rows';
+import { deltaHint, examplePlaceholder } from '../utils/delta-hint';
 import { FromTo } from './change-preview';
 import { TextArea } from './text-area';
 
@@ -142,9 +143,9 @@ function RowEditor({ row, index, count, base, before, errors, onChange, onRemove
         unit={unit}
         signed={signed || row.mode === 'delta'}
         value={row.amount}
-        placeholder={row.mode === 'delta' ? 'e.g. -0.5' : ''}
+        placeholder={row.mode === 'delta' ? examplePlaceholder(row.field, units) : ''}
         onChange={(e) => onChange({ amount: e.target.value })}
-        hint={row.mode === 'delta' ? 'Added to each corner’s value: −0.5 takes −2.4 to −2.9, +0.5 takes it to −1.9.' : undefined}
+        hint={row.mode === 'delta' ? deltaHint(row.field, base, row.corners, units) : undefined}
         error={amountError}
       />
     </fieldset>

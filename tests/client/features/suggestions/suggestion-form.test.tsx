@@ -175,6 +175,49 @@ describe('suggesting a setup change', () => {
     expect(within(change(1)).queryByText(/Camber must be between/)).toBeNull();
   });
 
+  // BASE_SETUP: 200 kPa front, 190 kPa rear; ride height 120 mm front, 125 mm rear; camber −1.2° front.
+  // 1 psi = 6.894 757 kPa and 1 in = 25.4 mm (NIST SP 811, 2008, Appendix B.8): 190 kPa = 27.56 psi, shown 27.6 psi;
+  // 125 mm = 4.921 in, shown 4.92 in.
+  it.each([
+    {
+      units: METRIC_PREFERENCES,
+      what: 'Cold pressure',
+      corners: 'Rear pair',
+      hint: 'Added to each corner’s value: −10 kPa takes LR’s 190 kPa to 180 kPa, +10 kPa takes it to 200 kPa.',
+    },
+    {
+      units: IMPERIAL_PREFERENCES,
+      what: 'Cold pressure',
+      corners: 'Rear pair',
+      hint: 'Added to each corner’s value: −1.0 psi takes LR’s 27.6 psi to 26.6 psi, +1.0 psi takes it to 28.6 psi.',
+    },
+    {
+      units: IMPERIAL_PREFERENCES,
+      what: 'Ride height',
+      corners: 'Rear pair',
+      hint: 'Added to each corner’s value: −0.25 in takes LR’s 4.92 in to 4.67 in, +0.25 in takes it to 5.17 in.',
+    },
+    {
+      units: METRIC_PREFERENCES,
+      what: 'Camber',
+      corners: 'Front pair',
+      hint: 'Added to each corner’s value: −0.50° takes LF’s \u22121.20° to \u22121.70°, +0.50° takes it to \u22120.70°.',
+    },
+    // No caster recorded on any corner: the example says which way each sign goes, with no made-up reading.
+    { units: METRIC_PREFERENCES, what: 'Caster', corners: 'All four', hint: 'Added to each corner’s value: −0.50° lowers it, +0.50° raises it.' },
+  ])('when $what is changed by an amount on the $corners ($units.pressure, $units.length), then the example under the amount uses that value, its unit and the car’s own reading', async ({ units, what, corners, hint }) => {
+    stub(units);
+    renderApp(PATH);
+    const u = userEvent.setup();
+    const row = within(await screen.findByRole('group', { name: 'Change 1' }));
+    await u.selectOptions(row.getByLabelText('What'), what);
+    await u.click(row.getByRole('button', { name: corners }));
+    const amount = row.getByLabelText(`Change ${what.toLowerCase()} by`);
+    await u.type(amount, '7');
+    const hintId = amount.getAttribute('aria-describedby')!.split(' ').find((id) => id.endsWith('-hint'))!;
+    expect(document.getElementById(hintId)!.textContent).toBe(hint);
+  });
+
   it('shows the caution that such changes follow the maker’s data and are made by someone competent', async () => {
     stub(METRIC_PREFERENCES);
     renderApp(PATH);
