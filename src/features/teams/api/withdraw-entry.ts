@@ -5,7 +5,7 @@ export function withdrawEntry(teamId: string, carId: string): Promise<void> {
   return api.delete(`${teamPath(teamId)}/entries/${encodeURIComponent(carId)}`);
 }
 
-/** Takes one of the user's cars off the team (its runs and setups stay with the car). */
+/** Takes a car off the team: the owner their own, a captain any (its runs and setups stay with the car). */
 export function useWithdrawEntry(teamId: string) {
   return useTeamWrite(teamId, (carId: string) => withdrawEntry(teamId, carId));
 }

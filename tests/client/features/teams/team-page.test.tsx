@@ -135,6 +135,43 @@ describe('team page: who sees what', () => {
     expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/members/${IDS.maren}`)).toHaveLength(1);
   });
 
+  it('when a captain withdraws another member’s car, then it is asked first, only that entry is withdrawn, and a toast confirms it', async () => {
+    let withdrawn = false;
+    const withoutInes = () => ({ ...team(true), entries: team(true).entries.filter((e) => e.car.id !== TEAM_IDS.inesCar) });
+    const fetchMock = stubTeamPage(true, {
+      [`GET ${TEAM_API}`]: () => jsonResponse(200, withdrawn ? withoutInes() : team(true)),
+      [`DELETE ${TEAM_API}/entries/${TEAM_IDS.inesCar}`]: () => {
+        withdrawn = true;
+        return jsonResponse(204);
+      },
+    });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    // A captain may withdraw every entry, their own and others'.
+    const entries = await screen.findByRole('list', { name: 'Entered cars' });
+    expect(within(entries).getAllByRole('button', { name: /^Withdraw/ })).toHaveLength(2);
+    await u.click(within(entries).getByRole('button', { name: 'Withdraw White roadster #3' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Withdraw White roadster #3?' });
+    expect(within(dialog).getByText(/Ines Okafor’s car comes off the team’s class board/)).toBeTruthy();
+    expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/entries/${TEAM_IDS.inesCar}`)).toHaveLength(0);
+    await u.click(within(dialog).getByRole('button', { name: 'Withdraw the car' }));
+
+    expect(await screen.findByText('White roadster #3 is withdrawn from Harrow Flats Sprint Club')).toBeTruthy();
+    expect(screen.queryByRole('dialog')).toBeNull();
+    expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/entries/${TEAM_IDS.inesCar}`)).toHaveLength(1);
+    expect(within(screen.getByRole('list', { name: 'Entered cars' })).queryByText('White roadster #3')).toBeNull();
+  });
+
+  it('when a member who is not a captain looks at the entries, then only their own car offers Withdraw', async () => {
+    stubTeamPage(false);
+    renderApp(TEAM_PAGE);
+
+    const entries = await screen.findByRole('list', { name: 'Entered cars' });
+    expect(within(entries).getAllByRole('button', { name: /^Withdraw/ })).toHaveLength(1);
+    expect(within(entries).getByRole('button', { name: 'Withdraw Grey roadster #47' })).toBeTruthy();
+  });
+
   it('when a member changes their entry to share the setup, then the class and sharing are sent for that car', async () => {
     const fetchMock = stubTeamPage(false, { [`PATCH ${TEAM_API}/entries/${IDS.car}`]: jsonResponse(200, {}) });
     renderApp(TEAM_PAGE);
