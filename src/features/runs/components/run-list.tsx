@@ -18,7 +18,7 @@ import { createRunEntry, useCreateRun, type CreateRunBody } from '../api/create-
 import { deleteRunEntry, useDeleteRun } from '../api/delete-run';
 import { updateRunEntry, useUpdateRun } from '../api/update-run';
 import type { RunRow } from '../utils/merge-runs';
-import { STATUS_WORDS } from '../utils/run-words';
+import { coneWords, STATUS_WORDS } from '../utils/run-words';
 import type { RunChanges } from './run-edit-form';
 
 // Loaded on the first "Edit" or "Fix", so logging runs stays a small download (the service worker keeps it for offline).
@@ -52,8 +52,6 @@ function recreateBody(row: RunRow): CreateRunBody {
     ...(row.notes ? { notes: row.notes } : {}),
   };
 }
-
-const coneWords = (n: number) => `${n} ${n === 1 ? 'cone' : 'cones'}`;
 
 function Time({ label, seconds, strong }: { label: string; seconds: number | null; strong?: boolean }) {
   return (

@@ -199,6 +199,9 @@ describe('event day', () => {
     await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(1));
     const [entry] = outbox.getSnapshot() as OutboxEntry[];
     expect(entry).toMatchObject({ kind: 'run.create', method: 'POST', path: '/api/runs', scope: { carId: IDS.car, eventId: IDS.event } });
+    // The cone in words, here and in the sync list.
+    expect(entry!.label).toBe('Run 1 · 45.678 +1 cone');
+    expect(screen.getByText('Run 1 · 45.678 +1 cone saved on this phone.')).toBeTruthy();
     const body = entry!.body as Record<string, unknown>;
     expect(body.id).toMatch(UUID);
     expect(entry!.recordId).toBe(body.id);
