@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { DoorOpen, UserX } from 'lucide-react';
 import type { Team } from '@shared/collab/team.schema';
 import { ConfirmButton, RemovePersonButton } from '@/components/dialogs/confirm-button';
@@ -12,19 +12,36 @@ import { CaptainMarker } from './team-list';
 
 type Member = Team['members'][number];
 
-function CaptainToggle({ teamId, member }: { teamId: string; member: Member }) {
+/** Said beside the last captain's "Make member", which the team cannot do without. */
+const LAST_CAPTAIN = 'A team needs at least one captain: make another member captain first.';
+
+function CaptainToggle({ teamId, member, isLastCaptain }: { teamId: string; member: Member; isLastCaptain: boolean }) {
   const setCaptain = useSetCaptain(teamId);
   const [error, setError] = useState<string | null>(null);
+  const whyId = useId();
   const toggle = () => {
     setError(null);
     setCaptain.mutate({ userId: member.id, isCaptain: !member.isCaptain }, { onError: (e) => setError(failureMessage(e)) });
   };
   return (
     <div className="flex flex-col gap-1">
-      <Button variant="secondary" className="shrink-0" onClick={toggle} isPending={setCaptain.isPending} pendingLabel="Saving…">
+      <Button
+        variant="secondary"
+        className="shrink-0"
+        onClick={toggle}
+        isPending={setCaptain.isPending}
+        pendingLabel="Saving…"
+        disabled={isLastCaptain}
+        aria-describedby={isLastCaptain ? whyId : undefined}
+      >
         {member.isCaptain ? 'Make member' : 'Make captain'}
         <span className="sr-only"> {member.displayName}</span>
       </Button>
+      {isLastCaptain ? (
+        <p id={whyId} className="max-w-56 text-sm text-ink-muted">
+          {LAST_CAPTAIN}
+        </p>
+      ) : null}
       <FormAlert message={error} />
     </div>
   );
@@ -45,6 +62,7 @@ function RemoveMember({ teamId, member }: { teamId: string; member: Member }) {
 
 /** The team's people; captains may change who captains and remove members. */
 export function MemberList({ team, currentUserId }: { team: Team; currentUserId: string }) {
+  const captains = team.members.filter((m) => m.isCaptain).length;
   return (
     <ul className="flex flex-col gap-2" aria-label="Members">
       {team.members.map((member) => {
@@ -58,7 +76,7 @@ export function MemberList({ team, currentUserId }: { team: Team; currentUserId:
             {member.isCaptain ? <CaptainMarker /> : null}
             {team.isCaptain ? (
               <span className="ml-auto flex flex-wrap items-start gap-2">
-                <CaptainToggle teamId={team.id} member={member} />
+                <CaptainToggle teamId={team.id} member={member} isLastCaptain={member.isCaptain && captains === 1} />
                 {isMe ? null : <RemoveMember teamId={team.id} member={member} />}
               </span>
             ) : null}

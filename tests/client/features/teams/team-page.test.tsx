@@ -1,5 +1,5 @@
 // @vitest-environment jsdom
-import { screen, waitFor, within } from '@testing-library/react';
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
@@ -85,6 +85,28 @@ describe('team page: who sees what', () => {
     expect(screen.getByRole('button', { name: 'Remove Ines Okafor' })).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Remove Maren Holt' })).toBeNull();
     expect(within(screen.getByRole('list', { name: 'Invitations waiting' })).getByText('dara@example.test')).toBeTruthy();
+  });
+
+  it('when the user is the team’s only captain, then their Make member is disabled with the reason beside it; with two captains it is not', async () => {
+    const alone = team(true);
+    alone.members = alone.members.map((m) => ({ ...m, isCaptain: m.id === IDS.maren }));
+    const fetchMock = stubTeamPage(true, { [`GET ${TEAM_API}`]: jsonResponse(200, alone) });
+    renderApp(TEAM_PAGE);
+
+    const members = await screen.findByRole('list', { name: 'Members' });
+    const makeMember = within(members).getByRole('button', { name: 'Make member Maren Holt' }) as HTMLButtonElement;
+    expect(makeMember.disabled).toBe(true);
+    const why = document.getElementById(makeMember.getAttribute('aria-describedby') ?? '');
+    expect(why?.textContent).toBe('A team needs at least one captain: make another member captain first.');
+    expect((within(members).getByRole('button', { name: 'Make captain Ines Okafor' }) as HTMLButtonElement).disabled).toBe(false);
+    expect(requestsTo(fetchMock, `PATCH ${TEAM_API}/members/${IDS.maren}`)).toHaveLength(0);
+    cleanup();
+
+    stubTeamPage(true);
+    renderApp(TEAM_PAGE);
+    const both = await screen.findByRole('list', { name: 'Members' });
+    expect((within(both).getByRole('button', { name: 'Make member Maren Holt' }) as HTMLButtonElement).disabled).toBe(false);
+    expect(within(both).queryByText(/at least one captain/)).toBeNull();
   });
 
   it('when a captain invites someone as captain, then the e-mail and the role are sent', async () => {
