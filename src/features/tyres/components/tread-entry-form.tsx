@@ -232,16 +232,16 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
                         aria-label={`${CORNER_NAMES[corner]} ${POSITION_WORDS[pos]}`}
                         aria-describedby={`${unitId} ${path}-change`}
                         aria-invalid={errors[path] ? true : undefined}
-                        placeholder={before !== undefined ? toUnit(before).toFixed(1) : ''}
                         value={texts[corner][pos]}
                         onChange={(e) => setText(corner, pos, e.target.value)}
                         className={cn(
-                          'tabular-figures min-h-tap w-full min-w-0 rounded border bg-surface px-0.5 text-center text-base text-ink placeholder:text-ink-muted/60',
+                          'tabular-figures min-h-tap w-full min-w-0 rounded border bg-surface px-0.5 text-center text-base text-ink',
                           errors[path] ? 'border-2 border-warning' : 'border-line-strong',
                         )}
                       />
                       <span id={`${path}-change`} className={cn('tabular-figures text-xs', low ? 'font-bold text-warning' : 'text-ink-muted')}>
-                        {change ?? '\u00a0'}
+                        {/* Before anything is typed, the last reading, in full ink-muted (readable in sun, and never taken for a typed value). */}
+                        {change ?? (before !== undefined && !texts[corner][pos].trim() ? `was ${toUnit(before).toFixed(1)}` : '\u00a0')}
                         {low ? <span className="sr-only"> (at or below the wear bars)</span> : null}
                       </span>
                     </div>
@@ -261,7 +261,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
             </div>
           )}
         />
-        <p className="text-xs text-ink-muted">The faint number in each box is the last reading; ▲/▼ under it is the change since then.</p>
+        <p className="text-xs text-ink-muted">Under each box: the last reading (“was”) until you type, then ▲/▼, the change since it.</p>
         {worn.length > 0 ? (
           <p role="status" className="mt-1 flex items-start gap-2 rounded border-2 border-warning-line bg-warning-surface px-3 py-2 text-sm font-semibold text-warning">
             <TriangleAlert aria-hidden="true" className="mt-0.5 size-5 shrink-0" />

@@ -25,6 +25,9 @@ describe('tread entry', () => {
     const u = userEvent.setup();
 
     const inner = await screen.findByLabelText('Left front inner');
+    // Before typing: the last reading under the box, in words, not as faint text inside it.
+    expect(changeUnder(inner)).toBe('was 6.0');
+    expect(inner.getAttribute('placeholder')).toBeNull();
     await u.type(inner, '5.2');
     await u.type(screen.getByLabelText('Left front outer'), '6.6');
 
