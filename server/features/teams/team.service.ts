@@ -117,14 +117,13 @@ export async function inviteMember(
   input: InviteMemberInput,
 ): Promise<{ email: string; asAdmin: boolean; expiresAt: string }> {
   await assertTeamAccess(ds, user, teamId, 'manage');
-  const already = await ds.query(
-    'SELECT 1 FROM team_members m JOIN users u ON u.id = m.user_id WHERE m.team_id = $1 AND u.email = $2',
+  const already: { display_name: string; is_captain: boolean }[] = await ds.query(
+    'SELECT u.display_name, m.is_captain FROM team_members m JOIN users u ON u.id = m.user_id WHERE m.team_id = $1 AND u.email = $2',
     [teamId, input.email],
   );
-  if (already.length > 0) {
-    throw new AppError('validation_failed', 'They are already on the team.', {
-      email: ['They are already on the team; make them captain from the member list instead'],
-    });
+  if (already[0]) {
+    const message = alreadyOnTeam(already[0].display_name, already[0].is_captain, input.asAdmin);
+    throw new AppError('validation_failed', message, { email: [message] });
   }
   return createInvitation(ds, mail, {
     teamId,
@@ -132,6 +131,18 @@ export async function inviteMember(
     asAdmin: input.asAdmin,
     invitedBy: { id: user.id, displayName: user.displayName },
   });
+}
+
+/**
+ * Why someone on the team is not invited again, for the role they hold and the one they were invited to:
+ * the same role needs nothing; another one is changed in the member list.
+ */
+function alreadyOnTeam(name: string, isCaptain: boolean, asCaptain: boolean): string {
+  const role = isCaptain ? 'a captain' : 'a member';
+  if (isCaptain === asCaptain) return `${name} is already on the team as ${role}.`;
+  return isCaptain
+    ? `${name} is already on the team as a captain. To make them a member, use Make member in the member list.`
+    : `${name} is already on the team as a member. To make them a captain, use Make captain in the member list.`;
 }
 
 /** Locks the team (so two changes to its captains cannot both pass the check) and reads its members. */

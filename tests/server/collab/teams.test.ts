@@ -152,11 +152,19 @@ describe('POST /api/teams/:teamId/invitations (refusals)', () => {
     expectFieldErrors(await captain.c.post(`/api/teams/${teamId}/invitations`, { email: 'a@example.com', asAdmin: 'yes' }), ['asAdmin']);
   });
 
-  it('when the captain invites someone already on the team, then 400 on email', async () => {
+  it.each([
+    { role: 'member', asAdmin: false, says: 'Mo Member is already on the team as a member.' },
+    { role: 'member', asAdmin: true, says: 'Mo Member is already on the team as a member. To make them a captain, use Make captain in the member list.' },
+    { role: 'captain', asAdmin: true, says: 'Mo Member is already on the team as a captain.' },
+    { role: 'captain', asAdmin: false, says: 'Mo Member is already on the team as a captain. To make them a member, use Make member in the member list.' },
+  ])('when the captain invites a $role already on the team with asAdmin $asAdmin, then 400 on email naming them, their role and, for another role, where to change it; nothing is sent', async ({ role, asAdmin, says }) => {
     const { captain, teamId } = await newTeam();
     const mo = await member(teamId);
-    const errors = expectFieldErrors(await captain.c.post(`/api/teams/${teamId}/invitations`, { email: mo.email.toUpperCase() }), ['email']);
-    expect(errors.email![0]).toMatch(/already on the team/);
+    if (role === 'captain') await t.ds.query('UPDATE team_members SET is_captain = true WHERE team_id = $1 AND user_id = $2', [teamId, mo.user.id]);
+    const res = await captain.c.post(`/api/teams/${teamId}/invitations`, { email: mo.email.toUpperCase(), asAdmin });
+    expect(expectFieldErrors(res, ['email']).email).toEqual([says]);
+    expect(res.body.error.message).toBe(says);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM invitations WHERE team_id = $1', [teamId])).toBe(0);
   });
 });
 
