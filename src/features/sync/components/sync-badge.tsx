@@ -30,7 +30,8 @@ export function SyncStatusBadge() {
         {summary.short}
       </span>
       <span className="sr-only md:not-sr-only md:truncate">{summary.text}</span>
-      {!online ? <span className="sr-only"> (offline)</span> : null}
+      {/* Said in words: "2 waiting" alone does not tell no signal from a slow upload. */}
+      {!online ? <span className="shrink-0"> · offline</span> : null}
     </p>
   );
 }

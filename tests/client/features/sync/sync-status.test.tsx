@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
-import { screen, waitFor, within } from '@testing-library/react';
+import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 import type { OutboxEntry } from '@/lib/outbox';
 import { jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, storedEntry, stubFetch } from '../../test-utils';
@@ -191,5 +191,20 @@ describe('the sign-in page with work on the phone', () => {
     // The device is read after the first draw; give it the same turn the note above appears in.
     await new Promise((resolve) => setTimeout(resolve, 50));
     expect(screen.queryByText(/still on this phone only/)).toBeNull();
+  });
+
+  it('when the phone has no signal, then the top bar says "offline" on screen beside what waits, and stops saying it when the signal is back', async () => {
+    stubHome();
+    const onLine = vi.spyOn(navigator, 'onLine', 'get').mockReturnValue(false);
+    renderApp('/', { outboxEntries: [waitingRun(1)] });
+    await screen.findByRole('heading', { name: 'Hi, Maren Holt' });
+    const badge = screen.getByRole('status');
+    const shown = () => [...badge.querySelectorAll('span')].filter((s) => !s.classList.contains('sr-only')).map((s) => s.textContent).join('');
+    expect(shown()).toBe('1 waiting · offline');
+
+    onLine.mockReturnValue(true);
+    act(() => void window.dispatchEvent(new Event('online')));
+    await waitFor(() => expect(shown()).not.toContain('offline'));
+    onLine.mockRestore();
   });
 });
