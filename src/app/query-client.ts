@@ -67,7 +67,8 @@ function shouldRetry(failureCount: number, error: unknown): boolean {
  * Builds a QueryClient; the app makes exactly one (see main.tsx), tests make one each.
  * Every query and mutation error passes through here: a 401 sends the user to sign in, field
  * errors stay on their form, a screen that shows its own errors (`meta.errorsShownInline`)
- * is left alone, and everything else becomes a toast.
+ * is left alone, so is a read that failed for want of an answer while its last one is on screen,
+ * and everything else becomes a toast.
  */
 export function createQueryClient({ onUnauthenticated, retry = true }: QueryClientOptions = {}): QueryClient {
   return new QueryClient({
@@ -80,7 +81,8 @@ export function createQueryClient({ onUnauthenticated, retry = true }: QueryClie
           onUnauthenticated?.();
           return;
         }
-        if (query.meta?.errorsShownInline || isFieldValidationError(error)) return;
+        // A page that has its last answer keeps showing it with no signal; the top bar says "offline".
+        if (query.meta?.errorsShownInline || isFieldValidationError(error) || (query.state.data !== undefined && unanswered(error))) return;
         toastError(error);
       },
     }),

@@ -76,6 +76,25 @@ describe('query client error handling', () => {
     expect(screen.queryByText('No connection')).toBeNull();
   });
 
+  it('when a read with an answer on screen fails for want of signal, then nothing is toasted; a first read that fails is', async () => {
+    const queryClient = createQueryClient({ retry: false });
+    render(
+      <QueryClientProvider client={queryClient}>
+        <ToastProvider>
+          <span />
+        </ToastProvider>
+      </QueryClientProvider>,
+    );
+    const noSignal = () => Promise.reject(new ApiError({ status: 0, code: 'network', message: 'No connection' }));
+    queryClient.setQueryData(['cars'], []);
+    await act(() => queryClient.fetchQuery({ queryKey: ['cars'], queryFn: noSignal, staleTime: 0 }).catch(() => undefined));
+    await act(() => new Promise((r) => setTimeout(r, 50)));
+    expect(screen.queryByText('No connection')).toBeNull();
+
+    await act(() => queryClient.fetchQuery({ queryKey: ['events'], queryFn: noSignal }).catch(() => undefined));
+    expect(await screen.findByText('No connection')).toBeTruthy();
+  });
+
   it('when a mutation answers 401, then the app is told the session ended', async () => {
     const onUnauthenticated = vi.fn();
     renderFailing(new ApiError({ status: 401, code: 'unauthenticated', message: 'Sign in to continue.' }), {
