@@ -4,20 +4,31 @@ import type { OutboxEntry } from '@/lib/outbox';
 import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
 import { summariseOutbox } from '@/lib/outbox-summary';
 import { useOnlineStatus } from '@/hooks/use-online-status';
-import { Button } from '@/components/ui/button';
+import { Link } from 'react-router-dom';
+import { Button, buttonClasses } from '@/components/ui/button';
+import { pathTo } from '@/config/paths';
 import { cn } from '@/lib/cn';
 import { TONE } from './sync-badge';
+
+/** Where a refused run can be fixed: its event's page, for its car and driver, where "Fix" opens it. */
+function fixPlace(entry: OutboxEntry): string | null {
+  const { eventId, carId } = entry.scope;
+  if (!entry.kind.startsWith('run.') || !eventId) return null;
+  const driverId = (entry.body as { driverId?: unknown } | undefined)?.driverId;
+  return `${pathTo.event(eventId, carId)}${typeof driverId === 'string' && carId ? `&driverId=${encodeURIComponent(driverId)}` : ''}`;
+}
 
 function FailedEntry({ entry }: { entry: OutboxEntry }) {
   const outbox = useOutbox();
   const [confirming, setConfirming] = useState(false);
-  const fieldMessages = Object.entries(entry.error?.fieldErrors ?? {}).flatMap(([, messages]) => messages);
+  const fieldMessages = Object.values(entry.error?.fieldErrors ?? {}).flat();
+  const fixAt = fixPlace(entry);
   return (
     <li className="flex flex-col gap-2 rounded border border-warning-line bg-warning-surface p-3">
       <p className="font-bold text-ink">{entry.label}</p>
       <p className="text-sm text-warning">
-        Refused: {entry.error?.message ?? 'the server did not accept it'}
-        {fieldMessages.length ? ` — ${fieldMessages.join(' ')}` : ''}
+        {/* The field messages say what the summary says, more exactly: one or the other, not both. */}
+        Refused: {fieldMessages.length ? fieldMessages.join(' ') : (entry.error?.message ?? 'the server did not accept it')}
       </p>
       <div className="flex flex-wrap gap-2">
         {confirming ? (
@@ -31,9 +42,15 @@ function FailedEntry({ entry }: { entry: OutboxEntry }) {
           </>
         ) : (
           <>
-            <Button variant="secondary" onClick={() => void outbox.retry(entry.key)}>
-              Try again
-            </Button>
+            {fixAt ? (
+              <Link to={fixAt} className={buttonClasses('secondary')}>
+                Open it to fix
+              </Link>
+            ) : (
+              <Button variant="secondary" onClick={() => void outbox.retry(entry.key)}>
+                Try again
+              </Button>
+            )}
             <Button variant="quiet" onClick={() => setConfirming(true)}>
               Discard…
             </Button>

@@ -207,4 +207,29 @@ describe('the sign-in page with work on the phone', () => {
     await waitFor(() => expect(shown()).not.toContain('offline'));
     onLine.mockRestore();
   });
+
+  it('when a run was refused, then Home says why once and links to its event, car and driver to fix it there', async () => {
+    stubHome();
+    const refusedRun = storedEntry({
+      key: 'refused-run',
+      recordId: 'b0000002-0000-4000-8000-000000000000',
+      kind: 'run.create',
+      method: 'POST',
+      path: '/api/runs',
+      label: 'Run 2 · 46.120',
+      scope: { carId: IDS.car, eventId: IDS.event },
+      body: { carId: IDS.car, eventId: IDS.event, driverId: IDS.maren, runNumber: 2 },
+      state: 'failed',
+      attempts: 1,
+      error: { status: 409, code: 'conflict', message: 'Run 2 is already logged for this driver and car at this event.', fieldErrors: { runNumber: ['Run 2 is already logged; use the next number'] } },
+    });
+    renderApp('/', { outboxEntries: [refusedRun] });
+
+    const problem = await screen.findByRole('list', { name: 'Needs attention' });
+    expect(within(problem).getByText(/^Refused:/).textContent).toBe('Refused: Run 2 is already logged; use the next number');
+    expect(within(problem).getByRole('link', { name: 'Open it to fix' }).getAttribute('href')).toBe(
+      `/events/${IDS.event}?carId=${IDS.car}&driverId=${IDS.maren}`,
+    );
+    expect(within(problem).queryByRole('button', { name: 'Try again' })).toBeNull();
+  });
 });
