@@ -33,14 +33,17 @@ function toAccount(r: AccountRow): AdminAccount {
   };
 }
 
-/** Accounts whose name or e-mail holds `q` (all when none), suspended ones first, then by name; closed ones never. */
+/**
+ * Accounts whose name or e-mail holds `q` (all when none), by name; closed ones never. The order does not
+ * depend on suspension, so suspending or restoring an account leaves it where it was in the list.
+ */
 export async function listAccounts(ds: DataSource, q: string | undefined): Promise<AdminAccountList> {
   const like = q ? `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
   const rows: AccountRow[] = await ds.query(
     `SELECT ${ACCOUNT_COLUMNS}, count(*) OVER ()::int AS total
        FROM users u
       WHERE u.closed_at IS NULL AND ($1::text IS NULL OR u.email ILIKE $1 OR u.display_name ILIKE $1)
-      ORDER BY u.suspended_at IS NULL, lower(u.display_name), u.email
+      ORDER BY lower(u.display_name), u.email, u.id
       LIMIT ${ACCOUNT_LIST_LIMIT}`,
     [like],
   );

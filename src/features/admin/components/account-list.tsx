@@ -64,9 +64,11 @@ function ConfirmWithField({
   );
 }
 
+type Suspend = ReturnType<typeof useSuspendAccount>;
+type Restore = ReturnType<typeof useRestoreAccount>;
+
 /** Asks for a reason, then suspends: the account is signed out everywhere and cannot sign in until restored. */
-function SuspendAccount({ account }: { account: AdminAccount }) {
-  const suspend = useSuspendAccount();
+function SuspendAccount({ account, suspend }: { account: AdminAccount; suspend: Suspend }) {
   return (
     <ConfirmWithField
       variant="secondary"
@@ -88,7 +90,18 @@ function SuspendAccount({ account }: { account: AdminAccount }) {
           maxLength={SUSPENSION_NOTE_MAX}
         />
       )}
-      send={(note, handlers) => suspend.mutate({ userId: account.id, note }, handlers)}
+      send={(note, { onSuccess, onError }) =>
+        suspend.mutate(
+          { userId: account.id, note },
+          {
+            onSuccess: () => {
+              onSuccess();
+              toast({ tone: 'success', title: `${account.displayName} is suspended`, description: 'Signed out everywhere until an admin restores the account.' });
+            },
+            onError,
+          },
+        )
+      }
     >
       <Ban aria-hidden="true" className="size-5" /> Suspend<span className="sr-only"> {account.displayName}</span>
     </ConfirmWithField>
@@ -139,8 +152,7 @@ function CloseSuspendedAccount({ account }: { account: AdminAccount }) {
   );
 }
 
-function RestoreAccount({ account }: { account: AdminAccount }) {
-  const restore = useRestoreAccount();
+function RestoreAccount({ account, restore }: { account: AdminAccount; restore: Restore }) {
   return (
     <ConfirmButton
       variant="secondary"
@@ -149,7 +161,15 @@ function RestoreAccount({ account }: { account: AdminAccount }) {
       confirmLabel="Restore account"
       pendingLabel="Restoring…"
       isPending={restore.isPending}
-      onConfirm={(handlers) => restore.mutate(account.id, handlers)}
+      onConfirm={({ onSuccess, onError }) =>
+        restore.mutate(account.id, {
+          onSuccess: () => {
+            onSuccess();
+            toast({ tone: 'success', title: `${account.displayName} can sign in again` });
+          },
+          onError,
+        })
+      }
       failureText={failureMessage}
     >
       <RotateCcw aria-hidden="true" className="size-5" /> Restore<span className="sr-only"> {account.displayName}</span>
@@ -182,7 +202,11 @@ function AdminRole({ account }: { account: AdminAccount }) {
 }
 
 function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean }) {
+  // Here, not in the buttons: suspending swaps Suspend for Restore, and the toast after it must still come.
+  const suspend = useSuspendAccount();
+  const restore = useRestoreAccount();
   const devices = account.signedInDevices;
+  const isAdmin = account.roles.includes('admin');
   return (
     <li className="flex flex-col gap-2 rounded border border-line p-3">
       <div className="flex flex-wrap items-start gap-x-3 gap-y-2">
@@ -193,7 +217,7 @@ function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean })
           </span>
           <span className="text-sm break-all text-ink-muted">{account.email}</span>
         </div>
-        {isMe ? null : account.suspendedAt ? <RestoreAccount account={account} /> : <SuspendAccount account={account} />}
+        {isMe ? null : account.suspendedAt ? <RestoreAccount account={account} restore={restore} /> : <SuspendAccount account={account} suspend={suspend} />}
       </div>
       <p className="text-sm text-ink-muted">
         {describeRoles(account.roles)} · joined {formatDay(account.createdAt)} ·{' '}
@@ -201,7 +225,8 @@ function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean })
       </p>
       {isMe ? null : (
         <div className="-ml-3 flex flex-wrap gap-x-2">
-          <AdminRole account={account} />
+          {/* A suspended account cannot sign in: it is not made an admin, though a role it has can be taken. */}
+          {account.suspendedAt && !isAdmin ? null : <AdminRole account={account} />}
           {account.suspendedAt ? <CloseSuspendedAccount account={account} /> : null}
         </div>
       )}
@@ -225,7 +250,7 @@ function useSettled(value: string, ms = 300) {
   return settled;
 }
 
-/** Every account, or those whose name or e-mail holds what is typed; suspended ones first. */
+/** Every account, or those whose name or e-mail holds what is typed, by name: suspending one does not move it. */
 export function AccountList({ currentUserId }: { currentUserId: string }) {
   const [typed, setTyped] = useState('');
   const q = useSettled(typed);

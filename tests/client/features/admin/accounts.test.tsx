@@ -81,6 +81,50 @@ describe('the accounts page', () => {
     expect(await screen.findByRole('button', { name: 'Restore Tomas Reed' })).toBeTruthy();
   });
 
+  it('when an account is suspended and then restored, then a toast says so each time, the card stays where it was, and a suspended one is not offered Make admin', async () => {
+    const ANA: AdminAccount = { ...TOMAS, id: '5a333333-3333-4333-8333-333333333333', email: 'ana@example.test', displayName: 'Ana Brook' };
+    const ZED: AdminAccount = { ...TOMAS, id: '5a444444-4444-4444-8444-444444444444', email: 'zed@example.test', displayName: 'Zed Moss' };
+    let suspended = false;
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': () => page([ANA, suspended ? SUSPENDED : TOMAS, ZED]),
+      [`POST /api/admin/users/${TOMAS.id}/suspend`]: () => {
+        suspended = true;
+        return jsonResponse(200, SUSPENDED);
+      },
+      [`POST /api/admin/users/${TOMAS.id}/restore`]: () => {
+        suspended = false;
+        return jsonResponse(200, TOMAS);
+      },
+    });
+    renderApp('/accounts');
+    const u = userEvent.setup();
+    const names = () => within(screen.getByRole('list', { name: 'Accounts' })).getAllByRole('listitem').map((i) => i.querySelector('.font-bold')?.textContent);
+
+    await u.click(await screen.findByRole('button', { name: 'Suspend Tomas Reed' }));
+    await u.type(within(screen.getByRole('dialog')).getByLabelText('Why'), 'Asked by the club');
+    await u.click(within(screen.getByRole('dialog')).getByRole('button', { name: 'Suspend account' }));
+    expect(await screen.findByText('Tomas Reed is suspended')).toBeTruthy();
+    await screen.findByRole('button', { name: 'Restore Tomas Reed' });
+    expect(names()).toEqual(['Ana Brook', 'Tomas Reed', 'Zed Moss']);
+    expect(screen.queryByRole('button', { name: 'Make admin Tomas Reed' })).toBeNull();
+    expect(screen.getByRole('button', { name: 'Make admin Ana Brook' })).toBeTruthy();
+
+    await u.click(screen.getByRole('button', { name: 'Restore Tomas Reed' }));
+    await u.click(within(screen.getByRole('dialog', { name: 'Restore Tomas Reed?' })).getByRole('button', { name: 'Restore account' }));
+    expect(await screen.findByText('Tomas Reed can sign in again')).toBeTruthy();
+    expect(await screen.findByRole('button', { name: 'Make admin Tomas Reed' })).toBeTruthy();
+  });
+
+  it('when a suspended account is an admin, then its admin role can still be taken', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/admin/users': page([{ ...SUSPENDED, roles: ['driver', 'admin'] }]),
+    });
+    renderApp('/accounts');
+    expect(await screen.findByRole('button', { name: 'Take admin role Tomas Reed' })).toBeTruthy();
+  });
+
   it('when a search is still being read as the suspension is sent, then that answer from before it is not the one shown', async () => {
     // A search sent before the suspension reached the database answers "not suspended" after the suspension is done.
     let suspended = false;
