@@ -51,17 +51,42 @@ export type DeclineSuggestionInput = z.infer<typeof declineSuggestionInputSchema
 export const SUGGESTION_STATUSES = ['open', 'accepted', 'declined', 'withdrawn'] as const;
 export type SuggestionStatus = (typeof SUGGESTION_STATUSES)[number];
 
+/** One corner's value before and after a change. */
+export interface SuggestionPreviewCell {
+  field: SetupCornerField;
+  corner: Corner;
+  from: number | null;
+  to: number | null;
+}
+
+/** A setup snapshot as a suggestion names it. */
+export interface SuggestionSetupRef {
+  id: string;
+  label: string;
+  effectiveFrom: string;
+}
+
 export interface Suggestion {
   id: string;
   carId: string;
-  baseSetup: { id: string; label: string; effectiveFrom: string };
+  baseSetup: SuggestionSetupRef;
   shop: { id: string; name: string };
   author: { id: string; displayName: string };
   title: string;
   rationale: string;
   changes: SuggestionChange[];
   /** Each change worked out against the base snapshot: from → to per corner. */
-  preview: { field: SetupCornerField; corner: Corner; from: number | null; to: number | null }[];
+  preview: SuggestionPreviewCell[];
+  /**
+   * While open, when the setup in force now is no longer the base: that setup, and the changes worked out against
+   * it (what accepting now would record). Otherwise null.
+   */
+  now: { setup: SuggestionSetupRef; preview: SuggestionPreviewCell[] } | null;
+  /**
+   * Once accepted: the setup accepting recorded, the one it was made from, and each change as recorded (from the
+   * setup it was made from to the recorded setup). Null otherwise, or when that setup has since been deleted.
+   */
+  recorded: { setup: SuggestionSetupRef; from: SuggestionSetupRef; preview: SuggestionPreviewCell[] } | null;
   status: SuggestionStatus;
   decidedBy: { id: string; displayName: string } | null;
   decidedAt: string | null;

@@ -2,7 +2,8 @@ import { randomUUID } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
 import type {
-  AcceptSuggestionInput, CreateSuggestionInput, DeclineSuggestionInput, Suggestion, SuggestionChange, SuggestionStatus,
+  AcceptSuggestionInput, CreateSuggestionInput, DeclineSuggestionInput, Suggestion, SuggestionChange, SuggestionPreviewCell,
+  SuggestionSetupRef, SuggestionStatus,
 } from '@shared/collab/suggestion.schema';
 import type { Setup } from '@shared/season/setup.schema';
 import { AppError } from '../../lib/app-error';
@@ -48,18 +49,47 @@ const SELECT_SUGGESTIONS = `
     JOIN users a ON a.id = g.author_id
     LEFT JOIN users d ON d.id = g.decided_by`;
 
-/** The suggestion as the app shows it, with each change worked out against its base snapshot. */
-function toSuggestion(r: SuggestionRow, base: Setup): Suggestion {
+const refOf = (s: Setup): SuggestionSetupRef => ({ id: s.id, label: s.label, effectiveFrom: s.effectiveFrom });
+
+/** The setups a suggestion is read against: its base, the one in force now, and the one accepting recorded (and its start). */
+interface SuggestionSetups {
+  byId: Map<string, Setup>;
+  inForceNow: Setup | null;
+}
+
+/** Each change as the recorded setup holds it: from the setup it was made from, to the recorded value. */
+function recordedPreview(start: Setup, recorded: Setup, changes: SuggestionChange[]): SuggestionPreviewCell[] {
+  const steps = applyCornerChanges(start.corners, changes).steps;
+  return steps.map((step, i) => {
+    const last = !steps.slice(i + 1).some((later) => later.field === step.field && later.corner === step.corner);
+    return last ? { ...step, to: recorded.corners[step.corner][step.field] ?? null } : step;
+  });
+}
+
+/** The suggestion as the app shows it, with each change worked out against its base snapshot, and against today's setup. */
+function toSuggestion(r: SuggestionRow, setups: SuggestionSetups): Suggestion {
+  const base = setups.byId.get(r.base_setup_id)!;
+  const { inForceNow } = setups;
+  const accepted = r.status === 'accepted' && r.accepted_setup_id ? setups.byId.get(r.accepted_setup_id) : undefined;
+  const acceptedFrom = accepted ? ((accepted.derivedFromId && setups.byId.get(accepted.derivedFromId)) || base) : undefined;
   return {
     id: r.id,
     carId: r.car_id,
-    baseSetup: { id: base.id, label: base.label, effectiveFrom: base.effectiveFrom },
+    baseSetup: refOf(base),
     shop: { id: r.shop_id, name: r.shop_name },
     author: { id: r.author_id, displayName: r.author_name },
     title: r.title,
     rationale: r.rationale,
     changes: r.changes,
     preview: applyCornerChanges(base.corners, r.changes).steps,
+    now:
+      r.status === 'open' && inForceNow && inForceNow.id !== base.id
+        ? { setup: refOf(inForceNow), preview: applyCornerChanges(inForceNow.corners, r.changes).steps }
+        : null,
+    recorded:
+      accepted && acceptedFrom
+        ? { setup: refOf(accepted), from: refOf(acceptedFrom), preview: recordedPreview(acceptedFrom, accepted, r.changes) }
+        : null,
     status: r.status,
     decidedBy: r.decided_by ? { id: r.decided_by, displayName: r.decided_by_name ?? '' } : null,
     decidedAt: r.decided_at?.toISOString() ?? null,
@@ -69,11 +99,19 @@ function toSuggestion(r: SuggestionRow, base: Setup): Suggestion {
   };
 }
 
+/** The car's setups by id and the one in force now (the latest to take effect, as accepting now would start from). */
+async function suggestionSetups(db: Db, carId: string): Promise<SuggestionSetups> {
+  const all = await setupsOfCar(db, carId); // oldest to take effect first
+  const now = Date.now();
+  const inForceNow = all.findLast((s) => Date.parse(s.effectiveFrom) <= now) ?? null;
+  return { byId: new Map(all.map((s) => [s.id, s])), inForceNow };
+}
+
 async function loadSuggestion(db: Db, id: string): Promise<Suggestion> {
   const rows: SuggestionRow[] = await db.query(`${SELECT_SUGGESTIONS} WHERE g.id = $1`, [id]);
   const row = rows[0];
   if (!row) throw new AppError('not_found', 'That suggestion was not found.');
-  return toSuggestion(row, await loadSetup(db, row.base_setup_id));
+  return toSuggestion(row, await suggestionSetups(db, row.car_id));
 }
 
 /**
@@ -97,8 +135,8 @@ export async function listSuggestions(ds: DataSource, user: User, carId: string)
   await assertCarAccess(ds, user, carId, 'read');
   const rows: SuggestionRow[] = await ds.query(`${SELECT_SUGGESTIONS} WHERE g.car_id = $1 ORDER BY g.created_at DESC, g.id DESC`, [carId]);
   if (rows.length === 0) return [];
-  const setups = new Map((await setupsOfCar(ds, carId)).map((s) => [s.id, s]));
-  return rows.map((r) => toSuggestion(r, setups.get(r.base_setup_id)!));
+  const setups = await suggestionSetups(ds, carId);
+  return rows.map((r) => toSuggestion(r, setups));
 }
 
 export async function getSuggestion(ds: DataSource, user: User, id: string): Promise<Suggestion> {

@@ -60,6 +60,9 @@ describe('POST /api/cars/:carId/suggestions', () => {
         { field: 'damperClicks', corner: 'lr', from: base.corners.lr.damperClicks, to: 8 },
         { field: 'damperClicks', corner: 'rr', from: base.corners.rr.damperClicks, to: 8 },
       ],
+      // The base is the setup in force now, so there is nothing newer to work the changes out against.
+      now: null,
+      recorded: null,
       status: 'open',
       decidedBy: null,
       decidedAt: null,
@@ -157,6 +160,46 @@ describe('GET /api/cars/:carId/suggestions', () => {
     const other = await signedInClient(t);
     expectError(await other.c.get(url), 404, 'not_found');
     expectError(await other.c.get(`/api/suggestions/${suggestion.id}`), 404, 'not_found');
+  });
+});
+
+describe('a suggestion read after the car\'s setup changed', () => {
+  it('when a newer setup is in force, then the suggestion names it and works the changes out against it; once accepted, it shows the setup recorded', async () => {
+    const { driver, staff, setup, suggestion } = await carWithSuggestion();
+    // A visit hands the car back with −1.8° front camber, in force from 1 May (before today).
+    const handedBack = await postSetup(driver.c, driver.carId, {
+      label: 'As handed back',
+      effectiveFrom: '2026-05-01T00:00:00Z',
+      corners: { ...base.corners, lf: { ...base.corners.lf, camberDeg: -1.8 }, rf: { ...base.corners.rf, camberDeg: -1.8 } },
+    });
+    const open = (await staff.c.get(`/api/suggestions/${suggestion.id}`)).body;
+    // What was suggested stays as it was: −1.5° − 0.5° = −2.0° on the base.
+    expect(open.preview[0]).toEqual({ field: 'camberDeg', corner: 'lf', from: -1.5, to: -2 });
+    // What accepting now records: −1.8° − 0.5° = −2.3° (plain arithmetic on the setup in force).
+    expect(open.now).toEqual({
+      setup: { id: handedBack.id, label: 'As handed back', effectiveFrom: '2026-05-01T00:00:00.000Z' },
+      preview: [
+        { field: 'camberDeg', corner: 'lf', from: -1.8, to: -2.3 },
+        { field: 'camberDeg', corner: 'rf', from: -1.8, to: -2.3 },
+        { field: 'damperClicks', corner: 'lr', from: base.corners.lr.damperClicks, to: 8 },
+        { field: 'damperClicks', corner: 'rr', from: base.corners.rr.damperClicks, to: 8 },
+      ],
+    });
+    expect(open.recorded).toBeNull();
+    const listed = (await driver.c.get(`/api/cars/${driver.carId}/suggestions`)).body.items[0];
+    expect(listed.now).toEqual(open.now);
+
+    const setupId = randomUUID();
+    const res = await driver.c.post(`/api/suggestions/${suggestion.id}/accept`, { setupId, effectiveFrom: '2026-05-10T08:00:00Z' });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const accepted = (await staff.c.get(`/api/suggestions/${suggestion.id}`)).body;
+    expect(accepted.now).toBeNull();
+    expect(accepted.recorded).toEqual({
+      setup: { id: setupId, label: `From ${SHOP_NAME}: ${SUGGESTION.title}`, effectiveFrom: '2026-05-10T08:00:00.000Z' },
+      from: { id: handedBack.id, label: 'As handed back', effectiveFrom: '2026-05-01T00:00:00.000Z' },
+      preview: open.now.preview,
+    });
+    expect(accepted.baseSetup.id).toBe(setup.id);
   });
 });
 

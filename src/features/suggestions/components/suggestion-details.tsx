@@ -40,7 +40,67 @@ export function DecisionStatus({ suggestion, hideSetupLink = false }: { suggesti
   );
 }
 
-/** What the shop proposes and why, with each corner's from → to against the base snapshot. */
+/** "“Sep 20 setup” (in force from Sep 20, 2026, 09:00)". */
+function SetupName({ setup }: { setup: Suggestion['baseSetup'] }) {
+  return (
+    <>
+      “<span className="font-semibold text-ink">{setup.label}</span>” (in force from {formatDateTime(setup.effectiveFrom)})
+    </>
+  );
+}
+
+/**
+ * What the changes do to each corner. While open, when the car's setup has moved on since the shop wrote them, what
+ * accepting now would record comes first, beside what was suggested; once accepted, what was recorded.
+ */
+function ChangedValues({ suggestion }: { suggestion: Suggestion }) {
+  const { now, recorded, baseSetup, preview } = suggestion;
+  if (recorded) {
+    const sameStart = recorded.from.id === baseSetup.id;
+    return (
+      <div className="flex flex-col gap-3">
+        <section aria-label="What accepting recorded" className="flex flex-col gap-2">
+          <p className="text-sm">
+            Recorded as “<span className="font-semibold">{recorded.setup.label}</span>”, in force from {formatDateTime(recorded.setup.effectiveFrom)}
+            {sameStart ? '' : <>, made from <SetupName setup={recorded.from} /></>}:
+          </p>
+          <ChangePreview cells={recorded.preview} />
+        </section>
+        {sameStart ? null : (
+          <section aria-label="What the shop suggested" className="flex flex-col gap-2">
+            <p className="text-sm text-ink-muted">
+              As the shop suggested it, on <SetupName setup={baseSetup} />:
+            </p>
+            <ChangePreview cells={preview} />
+          </section>
+        )}
+      </div>
+    );
+  }
+  if (now) {
+    return (
+      <div className="flex flex-col gap-3">
+        <section aria-label="What accepting would record now" className="flex flex-col gap-2 rounded border-2 border-warning p-3">
+          <p className="font-semibold">The car’s setup has changed since the shop suggested this.</p>
+          <p className="text-sm">
+            The shop wrote these changes for <SetupName setup={baseSetup} />. The car now runs <SetupName setup={now.setup} />. Accepting
+            now applies the changes to that setup and records:
+          </p>
+          <ChangePreview cells={now.preview} />
+        </section>
+        <section aria-label="What the shop suggested" className="flex flex-col gap-2">
+          <p className="text-sm text-ink-muted">
+            As the shop suggested it, on <SetupName setup={baseSetup} />:
+          </p>
+          <ChangePreview cells={preview} />
+        </section>
+      </div>
+    );
+  }
+  return <ChangePreview cells={preview} />;
+}
+
+/** What the shop proposes and why, with each corner's from → to against the setup it applies to. */
 export function SuggestionDetails({ suggestion }: { suggestion: Suggestion }) {
   const units = useUnits();
   return (
@@ -50,8 +110,7 @@ export function SuggestionDetails({ suggestion }: { suggestion: Suggestion }) {
         {formatDateTime(suggestion.createdAt)}
       </p>
       <p className="text-sm text-ink-muted">
-        Changes to <span className="font-semibold text-ink">{suggestion.baseSetup.label}</span> (in force from{' '}
-        {formatDateTime(suggestion.baseSetup.effectiveFrom)}).
+        Suggested for the setup <SetupName setup={suggestion.baseSetup} />.
       </p>
       <section aria-labelledby="why" className="flex flex-col gap-1">
         <h2 id="why" className="text-xl font-bold">
@@ -68,7 +127,7 @@ export function SuggestionDetails({ suggestion }: { suggestion: Suggestion }) {
             <li key={i}>{describeChange(change, units)}</li>
           ))}
         </ul>
-        <ChangePreview cells={suggestion.preview} />
+        <ChangedValues suggestion={suggestion} />
       </section>
     </div>
   );

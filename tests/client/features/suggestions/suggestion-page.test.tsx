@@ -98,7 +98,8 @@ describe('a suggestion', () => {
 
     await u.click(await within(await screen.findByRole('region', { name: 'Decision' })).findByRole('button', { name: 'Accept' }));
     const notice = await screen.findByRole('region', { name: 'What accepting records now' });
-    expect(notice.textContent).toContain('written against “Spring baseline”, and at that time the car has “More camber at the track”');
+    expect(notice.textContent).toContain('The shop wrote it for “Spring baseline”; from the time you chose, the car runs on “More camber at the track”.');
+    expect(notice.textContent).not.toContain('at that time the car has');
     // −1.5° − 0.5° = −2.0°, not the −1.7° the shop's page shows against the baseline.
     const lf = within(within(notice).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
     expect(lf.textContent).toContain('\u22121.50°');
@@ -109,6 +110,64 @@ describe('a suggestion', () => {
     await u.clear(when);
     await u.type(when, '2026-05-20T09:30');
     expect(screen.queryByRole('region', { name: 'What accepting records now' })).toBeNull();
+  });
+
+  it('when the car runs on a newer setup than the one the shop wrote for, then the page says so on first view and shows what accepting now records beside what was suggested', async () => {
+    // Suggested on the spring baseline (LF −1.20° → −1.70°); the car was since handed back with −1.80°: −1.80° − 0.50° = −2.30°.
+    const handedBack = { id: '5e7e7e7e-0000-4000-8000-0000000000c2', label: 'As handed back', effectiveFrom: '2026-06-20T10:00:00.000Z' };
+    stub(staffUser(), () =>
+      suggestion({
+        now: {
+          setup: handedBack,
+          preview: [
+            { field: 'camberDeg', corner: 'lf', from: -1.8, to: -2.3 },
+            { field: 'camberDeg', corner: 'rf', from: -1.8, to: -2.3 },
+          ],
+        },
+      }),
+    );
+    renderApp(PAGE);
+
+    const notice = await screen.findByRole('region', { name: 'What accepting would record now' });
+    expect(notice.textContent).toContain('The car’s setup has changed since the shop suggested this.');
+    expect(notice.textContent).toContain('The car now runs “As handed back”');
+    const now = within(within(notice).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
+    expect(now.textContent).toContain('\u22121.80°');
+    expect(now.textContent).toContain('→ \u22122.30°');
+    const suggested = screen.getByRole('region', { name: 'What the shop suggested' });
+    expect(suggested.textContent).toContain('As the shop suggested it, on “Spring baseline”');
+    const then = within(within(suggested).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
+    expect(then.textContent).toContain('→ \u22121.70°');
+  });
+
+  it('when a suggestion was accepted on a newer setup, then the page shows the values recorded, not only those suggested', async () => {
+    const handedBack = { id: '5e7e7e7e-0000-4000-8000-0000000000c2', label: 'As handed back', effectiveFrom: '2026-06-20T10:00:00.000Z' };
+    const recorded = { id: '5e7e7e7e-0000-4000-8000-0000000000c3', label: 'Shop camber', effectiveFrom: '2026-06-21T08:00:00.000Z' };
+    stub(user(), () =>
+      suggestion({
+        status: 'accepted',
+        acceptedSetupId: recorded.id,
+        decidedBy: { id: IDS.maren, displayName: 'Maren Holt' },
+        decidedAt: '2026-06-21T08:00:00.000Z',
+        recorded: {
+          setup: recorded,
+          from: handedBack,
+          preview: [
+            { field: 'camberDeg', corner: 'lf', from: -1.8, to: -2.3 },
+            { field: 'camberDeg', corner: 'rf', from: -1.8, to: -2.3 },
+          ],
+        },
+      }),
+    );
+    renderApp(PAGE);
+
+    const done = await screen.findByRole('region', { name: 'What accepting recorded' });
+    expect(done.textContent).toContain('Recorded as “Shop camber”');
+    expect(done.textContent).toContain('made from “As handed back”');
+    const lf = within(within(done).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
+    expect(lf.textContent).toContain('\u22121.80°');
+    expect(lf.textContent).toContain('→ \u22122.30°');
+    expect(screen.queryByRole('region', { name: 'What accepting would record now' })).toBeNull();
   });
 
   it('when a driver declines without a note, then nothing is sent and the note is asked for; with one, the shop gets it', async () => {
