@@ -36,13 +36,26 @@ export type InviteMemberInput = z.infer<typeof inviteMemberInputSchema>;
 
 export const seasonSchema = z.coerce.number({ error: 'Enter a year' }).check(z.int('Enter a year'), z.gte(1950, 'Enter a year from 1950'), z.lte(2200, 'Enter a year up to 2200'));
 
-/** The captain enters each class's index factor for a season; none ship with the app. */
+/** The most decimals a class factor keeps: published factors have three or four (0.853, 0.8535). */
+export const FACTOR_DECIMALS = 4;
+
+/** Whether a number has at most `places` decimals (within the float error of writing it in binary). */
+const hasAtMostDecimals = (value: number, places: number) => {
+  const scaled = value * 10 ** places;
+  return Math.abs(scaled - Math.round(scaled)) < 1e-6;
+};
+
+/** The captain enters each class's index factor for a season; none ship with the app. Stored as entered, never rounded. */
 export const setFactorInputSchema = z.strictObject({
   season: seasonSchema,
   classCode,
   /** null removes the factor. */
   factor: z.nullable(
-    z.number({ error: 'The factor must be a number' }).check(z.gt(0, 'The factor must be above 0'), z.lte(2, 'The factor must be at most 2')),
+    z.number({ error: 'The factor must be a number' }).check(
+      z.gt(0, 'The factor must be above 0'),
+      z.lte(2, 'The factor must be at most 2'),
+      z.refine((v) => hasAtMostDecimals(v, FACTOR_DECIMALS), `Use at most ${FACTOR_DECIMALS} decimals, as in 0.8535`),
+    ),
   ),
 });
 export type SetFactorInput = z.infer<typeof setFactorInputSchema>;

@@ -358,6 +358,14 @@ describe('class index factors', () => {
     expect(await countOf(t, 'SELECT count(*) AS n FROM team_class_factors WHERE team_id = $1', [teamId])).toBe(2);
   });
 
+  it('when the captain sets a factor with four decimals, then it is stored and read back as entered, not rounded', async () => {
+    const { captain, teamId } = await newTeam();
+    const put = await captain.c.put(`/api/teams/${teamId}/factors`, { season: 2026, classCode: 'SR', factor: 0.8535 });
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+    expect(put.body.items).toEqual([{ season: 2026, classCode: 'SR', factor: 0.8535 }]);
+    expect((await captain.c.get(`/api/teams/${teamId}/factors?season=2026`)).body.items).toEqual([{ season: 2026, classCode: 'SR', factor: 0.8535 }]);
+  });
+
   it('when a new team is read, then it has no factors: none ship with the app', async () => {
     const { captain, teamId } = await newTeam();
     expect((await captain.c.get(`/api/teams/${teamId}/factors`)).body).toEqual({ items: [], count: 0 });
@@ -378,6 +386,7 @@ describe('class index factors', () => {
     { body: { season: 2025, classCode: 'SR', factor: 0 }, fields: ['factor'] },
     { body: { season: 2025, classCode: 'SR', factor: -0.5 }, fields: ['factor'] },
     { body: { season: 2025, classCode: 'SR', factor: 2.01 }, fields: ['factor'] },
+    { body: { season: 2025, classCode: 'SR', factor: 0.85351 }, fields: ['factor'] },
     { body: { season: 2025, classCode: 'SR', factor: 'fast' }, fields: ['factor'] },
     { body: { season: 2025, classCode: 'SR' }, fields: ['factor'] },
     { body: { season: 1800, classCode: 'SR', factor: 0.9 }, fields: ['season'] },

@@ -7,7 +7,7 @@ import { SideScroll } from '@/components/side-scroll/side-scroll';
 import { formatDay, formatShortDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { aloneWords, boardTime, noTimeWords, rawConesWords, setupLines, trendWords } from '../utils/board-format';
+import { aloneWords, boardTime, formatFactor, noTimeWords, rawConesWords, setupLines, trendWords } from '../utils/board-format';
 import type { TrendPoint } from './trend-chart';
 
 const TrendChart = lazy(() => import('./trend-chart').then((m) => ({ default: m.TrendChart })));
@@ -189,7 +189,7 @@ export function ClassBoardView({ board }: { board: ClassBoard }) {
           <div className="flex flex-wrap items-baseline justify-between gap-2">
             <h2 className="text-xl font-bold">Class {group.classCode}</h2>
             <p className="tabular-figures text-sm text-ink-muted">
-              {group.factor === null ? `No factor entered for ${board.season}` : `Factor ${group.factor.toFixed(3)}`}
+              {group.factor === null ? `No factor entered for ${board.season}` : `Factor ${formatFactor(group.factor)}`}
             </p>
           </div>
           {group.factor === null ? (

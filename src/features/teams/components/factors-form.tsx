@@ -8,10 +8,11 @@ import { parseDecimal, typeANumber } from '@/lib/numbers';
 import { useFactors } from '../api/get-factors';
 import { FactorSaveError, useSetFactors } from '../api/set-factor';
 import { failureMessage } from '../utils/online-failure';
+import { formatFactor } from '../utils/board-format';
 import { SeasonPicker } from './season-picker';
 
-/** A factor as typed and shown: three decimals. */
-const factorText = (factor: number | undefined) => (factor === undefined ? '' : factor.toFixed(3));
+/** A factor as shown: three decimals, or four when it has them. */
+const factorText = (factor: number | undefined) => (factor === undefined ? '' : formatFactor(factor));
 
 /** The rows: every class a car is entered in, and every class that already has a factor this season. */
 function classRows(entryClasses: readonly string[], factors: readonly ClassFactor[]): string[] {
@@ -36,7 +37,8 @@ function changedRows(
       errors[classCode] = typeANumber('0.853');
       continue;
     }
-    const factor = parsed.kind === 'empty' ? null : Math.round(parsed.value * 1000) / 1000;
+    // Sent as typed: a fifth decimal is refused beside the field by the shared rules, never rounded away.
+    const factor = parsed.kind === 'empty' ? null : parsed.value;
     const before = saved.get(classCode) ?? null;
     if (factor === before) continue;
     const checked = z.safeParse(setFactorInputSchema, { season, classCode, factor });
@@ -132,7 +134,8 @@ function FactorsTable({ teamId, season, entryClasses }: { teamId: string; season
                     }}
                     onBlur={(e) => {
                       const parsed = parseDecimal(e.target.value);
-                      if (parsed.kind === 'number') setDrafts((d) => ({ ...d, [classCode]: parsed.value.toFixed(3) }));
+                      // Tidied to the shown form, which pads to three decimals but never drops a digit typed.
+                      if (parsed.kind === 'number') setDrafts((d) => ({ ...d, [classCode]: formatFactor(parsed.value) }));
                     }}
                   />
                   {errors[classCode] ? (
@@ -169,7 +172,7 @@ export function FactorsEditor({ teamId, entryClasses, initialSeason }: { teamId:
     <div className="flex flex-col gap-4">
       <p className="text-ink-muted">
         Enter your own class factors here: Scrubline ships with none. Use the figures your club or series publishes for the season. Each
-        factor multiplies a car’s adjusted time into its index time, to three decimals (for example 0.853). Leave a row empty to remove its
+        factor multiplies a car’s adjusted time into its index time; it keeps up to four decimals (for example 0.853 or 0.8535). Leave a row empty to remove its
         factor; that class then shows no index times.
       </p>
       <SeasonPicker season={season} onChange={setSeason} label="Season for the factors" />

@@ -2,6 +2,12 @@ import type { BoardCar, BoardResult } from '@shared/collab/team.schema';
 import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { formatRunTime } from '@shared/season/run-time';
 
+/** A class factor as entered: at least three decimals ("0.850", "0.853"), and the fourth when it has one ("0.8535"). */
+export function formatFactor(factor: number): string {
+  const decimals = String(factor).split('.')[1]?.length ?? 0;
+  return decimals <= 3 ? factor.toFixed(3) : String(factor);
+}
+
 /** A time on the board to the thousandth ("45.678", "1:05.432"), or "—" when there is none. */
 export function boardTime(seconds: number | null): string {
   return seconds === null ? '—' : formatRunTime(seconds);

@@ -91,6 +91,16 @@ describe('class board', () => {
     expect(screen.getAllByText('cones not added').length).toBeGreaterThan(0);
   });
 
+  it('when a class factor has four decimals, then the board shows all four', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, { ...BOARD, classes: [{ classCode: 'STR', factor: 0.8535, cars: [INES_BOARD_CAR] }] }),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    expect(await within(await screen.findByRole('region', { name: 'Class STR' })).findByText('Factor 0.8535')).toBeTruthy();
+  });
+
   it('when a car shares results only, then its setup is hidden; when it shares its setup, then the values show in the user’s units', async () => {
     stubFetch({
       'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),

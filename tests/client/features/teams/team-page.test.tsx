@@ -222,16 +222,40 @@ describe('team page: class factors', () => {
     expect(sm.value).toBe('');
     expect(str.value).toBe('0.853');
 
-    // A comma works as the decimal point, as phones in many countries type it.
+    // A comma works as the decimal point, as phones in many countries type it; a fourth decimal is kept, not rounded.
     await u.type(sm, '0,8125');
     await u.clear(str);
     await u.click(within(form).getByRole('button', { name: 'Save factors' }));
 
     expect(await within(form).findByText(`Factors for ${SEASON} saved. The class board uses them now.`)).toBeTruthy();
     expect(requestsTo(fetchMock, `PUT ${TEAM_API}/factors`).map((r) => r.body)).toEqual([
-      { season: SEASON, classCode: 'SM', factor: 0.813 },
+      { season: SEASON, classCode: 'SM', factor: 0.8125 },
       { season: SEASON, classCode: 'STR', factor: null },
     ]);
+  });
+
+  it('when a factor has a fifth decimal, then the row says how many it keeps, the number stays as typed, and nothing is sent', async () => {
+    const fetchMock = stubTeamPage(true, { [`PUT ${TEAM_API}/factors`]: list([]) });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    const form = await screen.findByRole('form', { name: `Class factors for ${SEASON}` });
+    const sm = within(form).getByLabelText('Factor for class SM') as HTMLInputElement;
+    await u.type(sm, '0.85351');
+    await u.click(within(form).getByRole('button', { name: 'Save factors' }));
+
+    expect(await within(form).findByText('Use at most 4 decimals, as in 0.8535')).toBeTruthy();
+    expect(sm.getAttribute('aria-invalid')).toBe('true');
+    expect(sm.value).toBe('0.85351');
+    expect(requestsTo(fetchMock, `PUT ${TEAM_API}/factors`)).toHaveLength(0);
+  });
+
+  it('when a saved factor has four decimals, then the row shows all four', async () => {
+    stubTeamPage(true, { [`GET ${FACTORS_API}`]: list([{ season: SEASON, classCode: 'STR', factor: 0.8535 }]) });
+    renderApp(TEAM_PAGE);
+
+    const form = await screen.findByRole('form', { name: `Class factors for ${SEASON}` });
+    expect((within(form).getByLabelText('Factor for class STR') as HTMLInputElement).value).toBe('0.8535');
   });
 
   it('when a factor is out of range, then the row says why and nothing is sent', async () => {
