@@ -165,6 +165,7 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
 
   'GET /api/cars/:carId/suggestions': 'car.read',
   'POST /api/cars/:carId/suggestions': 'car.suggest',
+  'GET /api/suggestions/waiting': 'signed_in',
   'GET /api/suggestions/:suggestionId': 'car.read',
   'POST /api/suggestions/:suggestionId/accept': 'car.decide',
   'POST /api/suggestions/:suggestionId/decline': 'car.decide',

@@ -100,3 +100,12 @@ export interface AcceptedSuggestion {
   suggestion: Suggestion;
   setup: Setup;
 }
+
+/** GET /api/suggestions/waiting: an open suggestion on a car the caller drives, waiting for their decision. */
+export interface WaitingSuggestion {
+  id: string;
+  title: string;
+  car: { id: string; name: string };
+  shop: { id: string; name: string };
+  createdAt: string;
+}

@@ -62,6 +62,8 @@ export function stubFetch(routes: StubRoutes): Mock<typeof fetch> {
     'GET /api/notifications/unread-count': () => jsonResponse(200, { unread: 0 }),
     // So does Home, for the links to each team's class board.
     'GET /api/teams/mine': () => jsonResponse(200, { items: [], count: 0 }),
+    // And, for someone with a car, for the suggestions waiting for their answer.
+    'GET /api/suggestions/waiting': () => jsonResponse(200, { items: [], count: 0 }),
     ...routes,
   };
   const mock = vi.fn<typeof fetch>(async (input, init) => {

@@ -8,7 +8,7 @@ import { currentUser, requireAuth } from '../../auth/access';
 import { parsed, validate } from '../../lib/validate';
 import { idParam, list } from '../../lib/http';
 import type { MailSettings } from '../../mail/mailer';
-import { acceptSuggestion, createSuggestion, declineSuggestion, getSuggestion, listSuggestions } from './suggestion.service';
+import { acceptSuggestion, createSuggestion, declineSuggestion, getSuggestion, listSuggestions, listWaitingSuggestions } from './suggestion.service';
 
 /** Routes under /api/cars/:carId/suggestions. */
 export function carSuggestionRoutes(ds: DataSource, mail?: MailSettings) {
@@ -33,6 +33,10 @@ export function suggestionRoutes(ds: DataSource, mail?: MailSettings) {
   router.use(requireAuth);
   const suggestionParam = idParam('suggestionId');
 
+  // What waits for the caller's decision: open suggestions on the cars they drive.
+  router.get('/waiting', async (req, res) => {
+    res.json(list(await listWaitingSuggestions(ds, currentUser(req))));
+  });
   router.get('/:suggestionId', validate({ params: suggestionParam }), async (req, res) => {
     res.json(await getSuggestion(ds, currentUser(req), parsed<{ suggestionId: string }>(res, 'params').suggestionId));
   });

@@ -3,12 +3,12 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
 import type {
   AcceptSuggestionInput, CreateSuggestionInput, DeclineSuggestionInput, Suggestion, SuggestionChange, SuggestionPreviewCell,
-  SuggestionSetupRef, SuggestionStatus,
+  SuggestionSetupRef, SuggestionStatus, WaitingSuggestion,
 } from '@shared/collab/suggestion.schema';
 import type { Setup } from '@shared/season/setup.schema';
 import { AppError } from '../../lib/app-error';
 import { insertUnlessPresent } from '../../lib/insert';
-import { assertCarAccess, assertCarChildAccess, grantedShopOf } from '../../auth/access';
+import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, grantedShopOf } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
 import {
   activeSetupAt, applyCornerChanges, checkChangedClicks, insertSnapshot, loadSetup, setupsOfCar,
@@ -137,6 +137,26 @@ export async function listSuggestions(ds: DataSource, user: User, carId: string)
   if (rows.length === 0) return [];
   const setups = await suggestionSetups(ds, carId);
   return rows.map((r) => toSuggestion(r, setups));
+}
+
+/** The open suggestions on the cars the user drives (owns or co-drives), oldest first: what waits for their decision. */
+export async function listWaitingSuggestions(ds: DataSource, user: User): Promise<WaitingSuggestion[]> {
+  const rows: { id: string; title: string; car_id: string; car_name: string; shop_id: string; shop_name: string; created_at: Date }[] = await ds.query(
+    `SELECT g.id, g.title, g.car_id, c.name AS car_name, g.shop_id, s.name AS shop_name, g.created_at
+       FROM setup_suggestions g
+       JOIN cars c ON c.id = g.car_id
+       JOIN shops s ON s.id = g.shop_id
+      WHERE g.status = 'open' AND g.car_id IN ${accessibleCarIdsSql('$1')}
+      ORDER BY g.created_at, g.id`,
+    [user.id],
+  );
+  return rows.map((r) => ({
+    id: r.id,
+    title: r.title,
+    car: { id: r.car_id, name: r.car_name },
+    shop: { id: r.shop_id, name: r.shop_name },
+    createdAt: r.created_at.toISOString(),
+  }));
 }
 
 export async function getSuggestion(ds: DataSource, user: User, id: string): Promise<Suggestion> {

@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { lazy, Suspense, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ChevronRight } from 'lucide-react';
 import { paths } from '@/config/paths';
@@ -10,6 +10,7 @@ import { SyncStatus } from '@/features/sync/components/sync-status';
 import { CarList } from '@/features/cars/components/car-list';
 import { CurrentEventCard } from '@/features/events/components/current-event-card';
 import { useMyTeams } from '@/features/teams/api/get-my-teams';
+import { useCars } from '@/features/cars/api/get-cars';
 import { recordPath } from '@/config/record-paths';
 
 function HomeLink({ to, title, children }: { to: string; title: string; children: ReactNode }) {
@@ -24,11 +25,17 @@ function HomeLink({ to, title, children }: { to: string; title: string; children
   );
 }
 
+// Suggestions waiting for the driver's answer: loaded only for someone with a car, so Home stays as light for the rest.
+const WaitingSuggestions = lazy(async () => ({ default: (await import('@/features/suggestions/components/waiting-suggestions')).WaitingSuggestions }));
+
 export function HomePage() {
   const { data: user } = useMe();
   // Each team's class board one tap from here; offline or not yet answered, the Teams link still leads to them.
   const { data: teams } = useMyTeams();
+  // The same list "Your cars" shows (one request for both).
+  const { data: cars } = useCars();
   if (!user) return null;
+  const drivesACar = (cars?.items.length ?? 0) > 0;
   const roles = describeRoles(user.roles);
   const staff = user.roles.includes('shop_staff');
   const admin = user.roles.includes('admin');
@@ -72,6 +79,13 @@ export function HomePage() {
         <h1 className="text-3xl font-extrabold">Hi, {user.displayName}</h1>
         <p className="text-ink-muted">{roles ? `Your roles: ${roles}.` : 'Your account has no roles yet.'}</p>
       </div>
+      {drivesACar ? (
+        <SectionBoundary title="Waiting for you">
+          <Suspense fallback={null}>
+            <WaitingSuggestions />
+          </Suspense>
+        </SectionBoundary>
+      ) : null}
       <div className="grid gap-4 md:grid-cols-2">
         {linksFirst ? linksCard : null}
         <SectionBoundary title="Event day">

@@ -343,6 +343,7 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     // Only the granted shop's staff suggest; the drivers see the car but may not.
     expect: [403, 403, 404, 201, 404, 404, 404, 404, 401],
   },
+  'GET /api/suggestions/waiting': { call: () => ({ path: '/api/suggestions/waiting' }), expect: signedIn(200) },
   'GET /api/suggestions/:suggestionId': { call: () => ({ path: `/api/suggestions/${f.suggestion}` }), expect: CAR_READ },
   'POST /api/suggestions/:suggestionId/accept': {
     call: async () => ({

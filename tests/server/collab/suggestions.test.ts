@@ -203,6 +203,33 @@ describe('a suggestion read after the car\'s setup changed', () => {
   });
 });
 
+describe('GET /api/suggestions/waiting', () => {
+  it('when a driver has open suggestions on their cars, then they and the co-driver get those, oldest first; decided ones, other cars and shop staff get none', async () => {
+    const { driver, staff, co, setup, suggestion } = await carWithSuggestion();
+    const later = await staff.c.post(`/api/cars/${driver.carId}/suggestions`, { ...SUGGESTION, title: 'Softer rear', baseSetupId: setup.id });
+    const declined = await staff.c.post(`/api/cars/${driver.carId}/suggestions`, { ...SUGGESTION, title: 'Stiffer rear', baseSetupId: setup.id });
+    expect((await driver.c.post(`/api/suggestions/${declined.body.id}/decline`, { note: 'Not this season' })).status).toBe(200);
+    const elsewhere = await carWithSuggestion();
+
+    for (const c of [driver.c, co.c]) {
+      const res = await c.get('/api/suggestions/waiting');
+      expect(res.status).toBe(200);
+      expect(res.body.count).toBe(2);
+      expect(res.body.items.map((s: { id: string }) => s.id)).toEqual([suggestion.id, later.body.id]);
+      expect(res.body.items[0]).toEqual({
+        id: suggestion.id,
+        title: SUGGESTION.title,
+        car: { id: driver.carId, name: expect.any(String) },
+        shop: { id: expect.any(String), name: SHOP_NAME },
+        createdAt: suggestion.createdAt,
+      });
+    }
+    // Staff of the shop read the car but do not decide: nothing waits for them.
+    expect((await staff.c.get('/api/suggestions/waiting')).body).toEqual({ items: [], count: 0 });
+    expect((await elsewhere.driver.c.get('/api/suggestions/waiting')).body.items.map((s: { id: string }) => s.id)).toEqual([elsewhere.suggestion.id]);
+  });
+});
+
 describe('POST /api/suggestions/:id/accept', () => {
   it('when the owner accepts, then one new snapshot carries the setup in force then with the changes, linked back to the suggestion', async () => {
     const { driver, setup, suggestion } = await carWithSuggestion();

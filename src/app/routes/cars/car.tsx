@@ -25,7 +25,7 @@ import { useChanges } from '@/features/changes/api/get-changes';
 import { ChangeLog } from '@/features/changes/components/change-log';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { ShopAccess } from '@/features/shops/components/shop-access';
-import { SuggestionList } from '@/features/suggestions/components/suggestion-list';
+import { OpenSuggestions, SuggestionList } from '@/features/suggestions/components/suggestion-list';
 import { CarVisits } from '@/features/work-orders/components/work-order-lists';
 // Season export
 import { useQueryClient } from '@tanstack/react-query';
@@ -164,6 +164,10 @@ export function CarPage() {
           </Link>
         ) : null}
       </CarHeader>
+      {/* What waits for the driver's answer comes first, above the season's records. */}
+      <SectionBoundary title="Waiting for you">
+        <OpenSuggestions carId={carId} />
+      </SectionBoundary>
       <div className="grid gap-4 lg:grid-cols-2">
         <SectionBoundary title="Setup history">
           <SectionCard title="Setup history">

@@ -21,6 +21,7 @@ function useRefresh(suggestion: Pick<Suggestion, 'id' | 'carId'>) {
     Promise.all([
       refreshAfterWrite(queryClient, { queryKey: suggestionKeys.detail(suggestion.id) }),
       refreshAfterWrite(queryClient, { queryKey: suggestionKeys.ofCar(suggestion.carId) }),
+      refreshAfterWrite(queryClient, { queryKey: suggestionKeys.waiting() }),
     ]);
 }
 

@@ -4,6 +4,7 @@ import type { Suggestion, SuggestionStatus } from '@shared/collab/suggestion.sch
 import { recordPath } from '@/config/record-paths';
 import { cn } from '@/lib/cn';
 import { formatDay } from '@/lib/dates';
+import { SectionCard } from '@/components/ui/section-card';
 import { useSuggestions } from '../api/get-suggestions';
 
 const STATUS_WORDS: Record<SuggestionStatus, string> = {
@@ -30,15 +31,11 @@ export function StatusBadge({ status, forDriver = false }: { status: Suggestion[
   );
 }
 
-/** A car's suggestions from its shops, newest first; each opens its own page. */
-export function SuggestionList({ carId, emptyText, forDriver = false }: { carId: string; emptyText: string; forDriver?: boolean }) {
-  const { data, isPending, isError } = useSuggestions(carId);
-  if (isPending) return <p className="text-ink-muted">Loading suggestions…</p>;
-  if (isError) return <p className="text-ink-muted">Suggestions could not be loaded. Try again shortly.</p>;
-  if (data.items.length === 0) return <p className="text-sm text-ink-muted">{emptyText}</p>;
+/** Suggestions as links to their pages, each with its shop, author, day and state. */
+function SuggestionLinks({ items, label, forDriver }: { items: readonly Suggestion[]; label: string; forDriver: boolean }) {
   return (
-    <ul className="flex flex-col gap-2" aria-label="Suggestions">
-      {data.items.map((s) => (
+    <ul className="flex flex-col gap-2" aria-label={label}>
+      {items.map((s) => (
         <li key={s.id}>
           <Link to={recordPath.suggestion(s.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
             <span className="flex min-w-0 flex-1 flex-col gap-0.5">
@@ -53,5 +50,29 @@ export function SuggestionList({ carId, emptyText, forDriver = false }: { carId:
         </li>
       ))}
     </ul>
+  );
+}
+
+/** A car's suggestions from its shops, newest first; each opens its own page. */
+export function SuggestionList({ carId, emptyText, forDriver = false }: { carId: string; emptyText: string; forDriver?: boolean }) {
+  const { data, isPending, isError } = useSuggestions(carId);
+  if (isPending) return <p className="text-ink-muted">Loading suggestions…</p>;
+  if (isError) return <p className="text-ink-muted">Suggestions could not be loaded. Try again shortly.</p>;
+  if (data.items.length === 0) return <p className="text-sm text-ink-muted">{emptyText}</p>;
+  return <SuggestionLinks items={data.items} label="Suggestions" forDriver={forDriver} />;
+}
+
+/**
+ * For the car's drivers, near the top of its page: the suggestions still waiting for their answer, oldest first.
+ * Nothing while none is open (the full list further down says the rest).
+ */
+export function OpenSuggestions({ carId }: { carId: string }) {
+  const { data } = useSuggestions(carId);
+  const open = (data?.items ?? []).filter((s) => s.status === 'open').reverse();
+  if (open.length === 0) return null;
+  return (
+    <SectionCard title={`Waiting for you: ${open.length} setup suggestion${open.length === 1 ? '' : 's'}`}>
+      <SuggestionLinks items={open} label="Suggestions waiting for you" forDriver />
+    </SectionCard>
   );
 }
