@@ -2,7 +2,7 @@ import { lazy, Suspense, useDeferredValue, useState } from 'react';
 import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { useQuery, type QueryClient } from '@tanstack/react-query';
 import type { DeviceState } from '@/app/router';
-import { Plus, Trophy } from 'lucide-react';
+import { Plus } from 'lucide-react';
 import type { Person } from '@shared/season/car.schema';
 import { formatRunTime } from '@shared/season/run-time';
 import { paths, pathTo } from '@/config/paths';
@@ -13,6 +13,7 @@ import { SectionBoundary } from '@/components/errors/section-boundary';
 import { notYetFetched, useDeliveredEntries } from '@/lib/delivered-entries';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { readStoredChoice, writeStoredChoice } from '@/lib/stored-choice';
+import type { ApiError } from '@/lib/api-client';
 import { formatDay, isOnDate, prepareDateFormats, runMoment } from '@/lib/dates';
 import { useMe } from '@/features/auth/api/get-me';
 import { CarDriverPicker, driversOf } from '@/features/cars/components/car-driver-picker';
@@ -141,8 +142,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarV
         </h2>
         {event.pending ? null : <CommentsButton target={{ type: 'event', id: event.id, carId: car.id }} what={`${car.name} at ${event.name}`} />}
         {best?.adjustedTimeSec != null ? (
-          <p className="tabular-figures inline-flex items-center gap-1 font-semibold">
-            <Trophy aria-hidden="true" className="size-4" />
+          <p className="tabular-figures font-semibold">
             {driver.displayName}’s best: <span className="text-time">{formatRunTime(best.adjustedTimeSec)}</span> (run {best.runNumber})
           </p>
         ) : null}
@@ -264,7 +264,14 @@ export function EventDayPage() {
       </header>
 
       {eventQuery.isError && !event ? (
-        <EmptyState message="This event could not be loaded, and it is not kept on this phone yet. Open it once with signal to use it offline.">
+        <EmptyState
+          message={
+            // The server answered (not found, not allowed): saying "no signal" would send the driver looking for one.
+            (eventQuery.error as ApiError).status
+              ? 'This event was not found: it may have been deleted, or it is not one you can open.'
+              : 'This event is not on this phone yet. Open it once with signal to use it offline.'
+          }
+        >
           <Link to={paths.events} className="font-semibold text-link underline">
             All events
           </Link>

@@ -29,7 +29,7 @@ export function useEventViews() {
  * from the outbox — the server is not asked about it, since it cannot know it — and one just
  * uploaded stays in view until the server's copy arrives.
  */
-export function useDayEvent(eventId: string): { event: EventView | null; isPending: boolean; isError: boolean } {
+export function useDayEvent(eventId: string): { event: EventView | null; isPending: boolean; isError: boolean; error: Error | null } {
   const entries = useOutboxEntries();
   const delivered = useDeliveredEntries();
   const waiting = entries.find((e) => isEventCreate(e) && e.recordId === eventId) ?? null;
@@ -42,5 +42,5 @@ export function useDayEvent(eventId: string): { event: EventView | null; isPendi
       : landed
         ? eventFromEntry(landed, false)
         : null;
-  return { event, isPending: event === null && query.isPending && !query.isError, isError: event === null && query.isError };
+  return { event, isPending: event === null && query.isPending && !query.isError, isError: event === null && query.isError, error: query.error };
 }

@@ -16,7 +16,7 @@ import { nextRunNumber, type RunRow } from '../utils/merge-runs';
 import { readRunNumber } from '../utils/run-number';
 import { emptyCornerText, hotField, hotFieldErrors, readPressures, type CornerTextMap } from '../utils/hot-pressures';
 import { anyRefused, showFirstRefused, type RunFormErrors } from '../utils/run-form';
-import { runLabel, STATUS_WORDS } from '../utils/run-words';
+import { coneWords, runLabel, STATUS_WORDS } from '../utils/run-words';
 import { HotPressureGrid } from './hot-pressure-grid';
 import { TimeKeypad } from './time-keypad';
 
@@ -39,7 +39,6 @@ interface LogRunFormProps {
  */
 const SHOWN = /^(rawTimeSec|runNumber|cones|hot)/;
 
-const coneWords = (n: number) => `${n} ${n === 1 ? 'cone' : 'cones'}`;
 
 /**
  * Logging a run: type the time on the keypad and tap Save (cones and DNF/off course one tap

@@ -1,5 +1,4 @@
 import { lazy, Suspense, useState, type ReactNode } from 'react';
-import { Trophy } from 'lucide-react';
 import { shortName } from '@shared/auth/person-name';
 import type { Corner } from '@shared/season/corners';
 import { formatRunTime } from '@shared/season/run-time';
@@ -66,7 +65,7 @@ function Time({ label, seconds, strong }: { label: string; seconds: number | nul
 
 /**
  * The runs of one car at an event, newest first: raw and adjusted time, cones, % off the driver's best,
- * each driver's best marked with a trophy and whose it is, the setup each ran on, and what is still
+ * each driver's best marked (a bar down its side and a badge saying whose it is), the setup each ran on, and what is still
  * waiting or was refused.
  */
 export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProps) {
@@ -145,10 +144,7 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
               {/* A run typed in after its day has no known time of day. */}
               {isDayEnd(row.recordedAt) ? null : <span className="tabular-figures text-sm text-ink-muted">{formatClock(row.recordedAt)}</span>}
               {row.isBest ? (
-                <span className="inline-flex items-center gap-1 rounded bg-accent px-2 py-0.5 text-sm font-bold text-accent-ink">
-                  <Trophy aria-hidden="true" className="size-4" />
-                  {whose}
-                </span>
+                <span className="rounded bg-accent px-2 py-0.5 text-sm font-bold text-accent-ink">{whose}</span>
               ) : null}
               {row.pending ? <PendingBadge state={row.pending.state} /> : null}
             </div>

@@ -9,7 +9,7 @@ import type { Run } from '../../../../shared/season/run.schema';
 import type { Setup } from '../../../../shared/season/setup.schema';
 import { formatDay, todayIsoDate } from '@/lib/dates';
 import type { OutboxEntry } from '@/lib/outbox';
-import { blockingEntry, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, storedEntry, stubFetch } from '../../test-utils';
+import { blockingEntry, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, storedEntry, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, EVENT, IDS, list, runOnPhone, RUNS_URL, savedRun, user, UUID } from '../../fixtures/season';
 
 const PATH = `/events/${IDS.event}?carId=${IDS.car}`;
@@ -885,5 +885,17 @@ describe('event day', () => {
 
     await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'), { timeout: 5000 });
     expect(storage.saved.map((e) => [e.kind, e.owner])).toEqual([['run.create', IDS.maren]]);
+  });
+
+  it('when the server answers that the event is not there, then the page says so, not that it is waiting for signal; with no signal it says that', async () => {
+    stubWithRuns([], { extra: { [`GET /api/events/${IDS.event}`]: errorResponse(404, 'not_found', 'That event was not found.') } });
+    const first = renderApp(PATH);
+    expect(await screen.findByText('This event was not found: it may have been deleted, or it is not one you can open.')).toBeTruthy();
+    expect(screen.queryByText(/Open it once with signal/)).toBeNull();
+    first.unmount();
+
+    stubWithRuns([], { extra: { [`GET /api/events/${IDS.event}`]: offline } });
+    renderApp(PATH);
+    expect(await screen.findByText('This event is not on this phone yet. Open it once with signal to use it offline.')).toBeTruthy();
   });
 });
