@@ -56,5 +56,22 @@ export function formatFieldChange(field: SetupCornerField, fromSi: number, toSi:
   if (!quantity) return formatFieldDelta(field, toSi - fromSi, units);
   const decimals = UNIT_DECIMALS[unitFor(quantity, units)];
   const shown = (si: number) => Number(toDisplay(si, quantity, units).toFixed(decimals));
-  return formatFieldDelta(field, fromDisplay(shown(toSi) - shown(fromSi), quantity, units), units);
+  const deltaSi = fromDisplay(shown(toSi) - shown(fromSi), quantity, units);
+  if (field === 'camberDeg') return camberChangeWords(deltaSi, [fromSi, toSi], units);
+  return formatFieldDelta(field, deltaSi, units);
+}
+
+/**
+ * A camber change in words, since an arrow up for "less negative" reads to a racer as "more camber": "0.60° less
+ * negative" or "0.30° more negative" while the values stay negative, "more/less positive" while they stay positive,
+ * and "toward positive/negative" across zero or when the values are not known.
+ */
+export function camberChangeWords(deltaSi: number, valuesSi: readonly number[], units: UnitPreferences): string {
+  const amount = formatDelta(deltaSi, 'angle', units);
+  if (amount.startsWith('±')) return `${amount} (no change)`;
+  const size = amount.replace(/^[▲▼] /, '');
+  const up = deltaSi > 0;
+  if (valuesSi.length > 0 && valuesSi.every((v) => v <= 0)) return `${size} ${up ? 'less negative' : 'more negative'}`;
+  if (valuesSi.length > 0 && valuesSi.every((v) => v >= 0)) return `${size} ${up ? 'more positive' : 'less positive'}`;
+  return `${size} toward ${up ? 'positive' : 'negative'}`;
 }

@@ -4,7 +4,7 @@ import type { SetupChange, SetupCornerField } from '@shared/season/setup.schema'
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { useUnits } from '@/lib/units-context';
 import { groupChanges, type ChangeGroup } from '../utils/group-changes';
-import { FIELD_INFO, formatFieldChange, formatFieldDelta, formatFieldValue } from '@/lib/setup-fields';
+import { camberChangeWords, FIELD_INFO, formatFieldChange, formatFieldDelta, formatFieldValue } from '@/lib/setup-fields';
 
 function fieldWords(field: SetupCornerField | 'antiRollBar') {
   return field === 'antiRollBar' ? 'anti-roll bar' : FIELD_INFO[field].label.toLowerCase();
@@ -23,7 +23,7 @@ interface SetupChangeListProps {
   adjusters?: Car['damperAdjusters'] | undefined;
 }
 
-/** What changed from one snapshot to the next, one line per field and amount, in the user's units. */
+/** What changed from one snapshot to the next, one line per field, amount and natural set of corners, in the user's units. */
 export function SetupChangeList({ changes, emptyText = 'No values changed.', adjusters }: SetupChangeListProps) {
   const units = useUnits();
   const groups = groupChanges(changes);
@@ -41,7 +41,9 @@ export function SetupChangeList({ changes, emptyText = 'No values changed.', adj
               <span className="font-bold">
                 {g.sameEnds && typeof g.from === 'number' && typeof g.to === 'number'
                   ? formatFieldChange(g.field, g.from, g.to, units)
-                  : formatFieldDelta(g.field, g.delta, units)}
+                  : g.field === 'camberDeg'
+                    ? camberChangeWords(g.delta, g.ends.flatMap((e) => [e.from, e.to].filter((v): v is number => v !== null)), units)
+                    : formatFieldDelta(g.field, g.delta, units)}
               </span>
               {(g.field === 'damperClicks' || g.field === 'damperReboundClicks') && adjusters ? (
                 <span className="font-semibold">{clickDirection(adjusters, g.corners, g.delta)}</span>
@@ -50,7 +52,12 @@ export function SetupChangeList({ changes, emptyText = 'No values changed.', adj
                 <span className="text-sm text-ink-muted">
                   ({valueText(g, g.from, units)} → {valueText(g, g.to, units)})
                 </span>
-              ) : null}
+              ) : (
+                // Corners that started from different values: each with its own two ends.
+                <span className="text-sm text-ink-muted">
+                  ({g.ends.map((e) => `${e.corner.toUpperCase()} ${valueText(g, e.from, units)} → ${valueText(g, e.to, units)}`).join(', ')})
+                </span>
+              )}
             </>
           ) : g.from === null ? (
             <span>set to {valueText(g, g.to, units)}</span>

@@ -1,10 +1,20 @@
-import type { Corner } from '@shared/season/corners';
+import { CORNERS, type Corner } from '@shared/season/corners';
 import type { SetupChange, SetupCornerField } from '@shared/season/setup.schema';
 
-/** Changes of one field that moved the same way on several corners, read as one line ("Rear clicks ▲ 2"). */
+/** One corner's value before and after. */
+export interface CornerEnds {
+  corner: Corner;
+  from: number | null;
+  to: number | null;
+}
+
+/**
+ * Changes of one field that moved the same way on corners that belong together (an axle, a side, all four), read as
+ * one line ("Rear clicks ▲ 2"); any other corner is a line of its own.
+ */
 export interface ChangeGroup {
   key: string;
-  /** "All four", "Front", "Rear", "LF", "LF + RR"; for axle values "Front" or "Rear". */
+  /** "All four", "Front", "Rear", "Left side", "Right side" or one corner ("LF"); for axle values "Front" or "Rear". */
   where: string;
   /** The corners it covers; none for an axle's value. */
   corners: Corner[];
@@ -14,17 +24,34 @@ export interface ChangeGroup {
   from: number | string | null;
   to: number | string | null;
   sameEnds: boolean;
+  /** Each corner's own values, for a group whose corners started from different ones. */
+  ends: CornerEnds[];
 }
 
-function describeCorners(corners: Corner[]): string {
-  const set = new Set(corners);
-  if (set.size === 4) return 'All four';
-  if (set.size === 2 && set.has('lf') && set.has('rf')) return 'Front';
-  if (set.size === 2 && set.has('lr') && set.has('rr')) return 'Rear';
-  return corners.map((c) => c.toUpperCase()).join(' + ');
+/** Corners that belong together, in the order they are tried: both axles before either side. */
+const NATURAL_SETS: readonly { where: string; corners: readonly Corner[] }[] = [
+  { where: 'All four', corners: CORNERS },
+  { where: 'Front', corners: ['lf', 'rf'] },
+  { where: 'Rear', corners: ['lr', 'rr'] },
+  { where: 'Left side', corners: ['lf', 'lr'] },
+  { where: 'Right side', corners: ['rf', 'rr'] },
+];
+
+/** Splits corners into natural sets and single corners: LF + RR (a diagonal) stays two lines. */
+function naturalSets(corners: readonly Corner[]): { where: string; corners: Corner[] }[] {
+  const left = new Set(corners);
+  const out: { where: string; corners: Corner[] }[] = [];
+  for (const set of NATURAL_SETS) {
+    if (set.corners.every((c) => left.has(c))) {
+      out.push({ where: set.where, corners: [...set.corners] });
+      for (const c of set.corners) left.delete(c);
+    }
+  }
+  for (const c of CORNERS) if (left.has(c)) out.push({ where: c.toUpperCase(), corners: [c] });
+  return out;
 }
 
-/** Groups a diff's corner changes by field and amount; axle changes stay one line each. */
+/** Groups a diff's corner changes by field and amount, over natural sets of corners only; axle changes stay one line each. */
 export function groupChanges(changes: readonly SetupChange[]): ChangeGroup[] {
   const groups = new Map<string, { field: SetupCornerField; delta: number | null; items: SetupChange[] }>();
   const out: ChangeGroup[] = [];
@@ -37,18 +64,22 @@ export function groupChanges(changes: readonly SetupChange[]): ChangeGroup[] {
     groups.set(key, group);
   }
   for (const [key, group] of groups) {
-    const first = group.items[0]!;
-    const sameEnds = group.items.every((c) => c.from === first.from && c.to === first.to);
-    out.push({
-      key,
-      where: describeCorners(group.items.map((c) => c.corner!)),
-      corners: group.items.map((c) => c.corner!),
-      field: group.field,
-      delta: group.delta,
-      from: sameEnds ? first.from : null,
-      to: sameEnds ? first.to : null,
-      sameEnds,
-    });
+    for (const set of naturalSets(group.items.map((c) => c.corner!))) {
+      const items = set.corners.map((corner) => group.items.find((c) => c.corner === corner)!);
+      const first = items[0]!;
+      const sameEnds = items.every((c) => c.from === first.from && c.to === first.to);
+      out.push({
+        key: `${key}|${set.corners.join('+')}`,
+        where: set.where,
+        corners: set.corners,
+        field: group.field,
+        delta: group.delta,
+        from: sameEnds ? first.from : null,
+        to: sameEnds ? first.to : null,
+        sameEnds,
+        ends: items.map((c) => ({ corner: c.corner!, from: typeof c.from === 'number' ? c.from : null, to: typeof c.to === 'number' ? c.to : null })),
+      });
+    }
   }
   for (const change of changes) {
     if (change.axle === null) continue;
@@ -61,6 +92,7 @@ export function groupChanges(changes: readonly SetupChange[]): ChangeGroup[] {
       from: change.from,
       to: change.to,
       sameEnds: true,
+      ends: [],
     });
   }
   return out;

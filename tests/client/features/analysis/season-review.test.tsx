@@ -550,7 +550,7 @@ describe('season review: timeline', () => {
     const items = within(ordered).getAllByRole('listitem').filter((li) => li.parentElement === ordered);
     expect(items[0]!.textContent).toMatch(/Baseline.*the starting point/);
     expect(items[1]!.textContent).toMatch(/More camber/);
-    expect(within(items[1]!).getByText('▼ 0.50°')).toBeTruthy();
+    expect(within(items[1]!).getByText('0.50° more negative')).toBeTruthy();
   });
 
   it('when the timeline is shown as a table, then each time sits on its own line above its runs and cones, and a phone is told to swipe', async () => {

@@ -199,8 +199,12 @@ describe('suggestions as the driver reads them', () => {
       [`GET /api/cars/${IDS.car}/suggestions`]: list([suggestion({ status: 'open' })]),
     });
     renderApp(`/cars/${IDS.car}`);
-    const item = await screen.findByRole('link', { name: /More front camber/ });
-    expect(item.textContent).toContain('Waiting for you: accept or decline');
-    expect(item.textContent).not.toContain('Waiting for the driver');
+    // Listed at the top of the page, where it waits for an answer, and in the full list further down.
+    const items = await screen.findAllByRole('link', { name: /More front camber/ });
+    expect(items).toHaveLength(2);
+    for (const item of items) {
+      expect(item.textContent).toContain('Waiting for you: accept or decline');
+      expect(item.textContent).not.toContain('Waiting for the driver');
+    }
   });
 });

@@ -49,7 +49,7 @@ describe('suggesting a setup change', () => {
     // −1.20° now, −1.70° after, 0.50° less (the base snapshot has −1.2° on the front).
     expect(lf.textContent).toContain('\u22121.20°');
     expect(lf.textContent).toContain('→ \u22121.70°');
-    expect(lf.textContent).toContain('▼ 0.50°');
+    expect(lf.textContent).toContain('0.50° more negative');
     const lr = within(within(change(1)).getByRole('group', { name: 'Left rear' })).getByRole('button');
     expect(lr.getAttribute('aria-pressed')).toBe('false');
 
