@@ -104,7 +104,7 @@ export interface Setup {
   /** Set when the snapshot was made by accepting a shop's suggestion. */
   suggestion: { id: string; title: string; shopName: string } | null;
   /** Set when the snapshot was written by closing a shop's work order (the car as handed back). */
-  workOrder: { id: string; shopName: string } | null;
+  workOrder: { id: string; shopName: string; visitDate: string } | null;
   notes: string | null;
   corners: Record<Corner, SetupCorner>;
   axles: { front: { antiRollBar: string | null }; rear: { antiRollBar: string | null } };

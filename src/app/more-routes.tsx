@@ -1,4 +1,4 @@
-import type { LoaderFunction, RouteObject } from 'react-router-dom';
+import { redirect, type LoaderFunction, type RouteObject } from 'react-router-dom';
 import type { ReactNode } from 'react';
 import { paths } from '@/config/paths';
 
@@ -60,8 +60,13 @@ export function moreRoutes({ signedOutOnly, loading }: MoreRoutesShared): {
         lazy: async () => ({ Component: (await import('./routes/shop/customer')).CustomerPage }),
       },
       {
-        path: `${paths.cars}/:carId/suggestions/new`,
+        path: `${paths.shop}/customers/:carId/suggestions/new`,
         lazy: async () => ({ Component: (await import('./routes/suggestions/new-suggestion')).NewSuggestionPage }),
+      },
+      {
+        // The form's earlier address, kept for links already sent or bookmarked: on to the shop's.
+        path: `${paths.cars}/:carId/suggestions/new`,
+        loader: ({ params, request }) => redirect(`${paths.shop}/customers/${params.carId ?? ''}/suggestions/new${new URL(request.url).search}`),
       },
       {
         path: '/suggestions/:suggestionId',

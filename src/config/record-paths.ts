@@ -14,8 +14,9 @@ export const recordPath = {
   tread: (carId: string, tyreSetId?: string | null) =>
     `/cars/${carId}/tread${tyreSetId ? `?set=${encodeURIComponent(tyreSetId)}` : ''}`,
   shopCustomer: (carId: string) => `/shop/customers/${carId}`,
+  /** Under the shop's customer page: only shop staff suggest, and the shop's tab stays the current one. */
   newSuggestion: (carId: string, baseSetupId?: string | null) =>
-    `/cars/${carId}/suggestions/new${baseSetupId ? `?from=${encodeURIComponent(baseSetupId)}` : ''}`,
+    `/shop/customers/${carId}/suggestions/new${baseSetupId ? `?from=${encodeURIComponent(baseSetupId)}` : ''}`,
   suggestion: (suggestionId: string) => `/suggestions/${suggestionId}`,
   workOrder: (workOrderId: string) => `/work-orders/${workOrderId}`,
   team: (teamId: string) => `/teams/${teamId}`,

@@ -34,13 +34,13 @@ async function toSetups(db: Db, snapshots: SetupSnapshotEntity[]): Promise<Setup
   );
   const suggestionOf = new Map(links.map((l) => [l.setup_id, { id: l.id, title: l.title, shopName: l.shop_name }]));
   // Snapshots written by closing a shop's work order name the visit and the shop.
-  const visits: { setup_id: string; id: string; shop_name: string }[] = await db.query(
-    `SELECT s.id AS setup_id, w.id, sh.name AS shop_name
+  const visits: { setup_id: string; id: string; shop_name: string; visit_date: string }[] = await db.query(
+    `SELECT s.id AS setup_id, w.id, sh.name AS shop_name, w.visit_date::text AS visit_date
        FROM setup_snapshots s JOIN work_orders w ON w.id = s.work_order_id JOIN shops sh ON sh.id = w.shop_id
       WHERE s.id = ANY($1)`,
     [ids],
   );
-  const workOrderOf = new Map(visits.map((v) => [v.setup_id, { id: v.id, shopName: v.shop_name }]));
+  const workOrderOf = new Map(visits.map((v) => [v.setup_id, { id: v.id, shopName: v.shop_name, visitDate: v.visit_date }]));
   return snapshots.map((s) => {
     const byCorner = Object.fromEntries(CORNERS.map((c) => [c, emptyCorner()])) as Record<Corner, SetupCorner>;
     for (const c of corners.filter((x) => x.setupId === s.id)) {

@@ -348,7 +348,7 @@ describe('POST /api/work-orders/:workOrderId/close', () => {
       createdBy: { id: staff.user.id },
       derivedFromId: setup.id,
       // The snapshot names the visit and the shop, so the driver's timeline can link back to it.
-      workOrder: { id: workOrder.id, shopName: SHOP_NAME },
+      workOrder: { id: workOrder.id, shopName: SHOP_NAME, visitDate: VISIT.visitDate },
       suggestion: null,
       axles: { front: { antiRollBar: 'hole 2' }, rear: { antiRollBar: 'disconnected' } },
     });

@@ -49,7 +49,7 @@ function OriginBadge({ setup }: { setup: SetupView }) {
   const origin = setup.suggestion
     ? { to: recordPath.suggestion(setup.suggestion.id), Icon: Lightbulb, text: `from ${setup.suggestion.shopName}: ${setup.suggestion.title}` }
     : setup.workOrder
-      ? { to: recordPath.workOrder(setup.workOrder.id), Icon: Wrench, text: `handed back by ${setup.workOrder.shopName}: the work order` }
+      ? { to: recordPath.workOrder(setup.workOrder.id), Icon: Wrench, text: `handed back by ${setup.workOrder.shopName} after the visit of ${formatDay(setup.workOrder.visitDate)}` }
       : null;
   if (!origin) return null;
   return (

@@ -111,7 +111,7 @@ function GrantItem({ grant, carId, isOwner }: { grant: ShopGrant; carId: string;
       <span className="flex min-w-0 flex-col">
         <span className="font-semibold break-words">{grant.shop.name}</span>
         <span className="text-sm text-ink-muted">
-          Since {formatDay(grant.createdAt)}, by {grant.grantedBy.displayName}
+          Access given {formatDay(grant.createdAt)} by {grant.grantedBy.displayName}
         </span>
       </span>
       {isOwner ? <RevokeShop carId={carId} shop={grant.shop} /> : null}

@@ -240,7 +240,7 @@ export function SuggestionForm({ carId, base, onCreated }: SuggestionFormProps) 
   return (
     <form onSubmit={submit} noValidate aria-label="Suggest a setup change" className="flex flex-col gap-5">
       <p className="text-sm text-ink-muted">
-        Changes to <span className="font-semibold text-ink">{base.label}</span>, in force from {formatDateTime(base.effectiveFrom)}.
+        For the setup “<span className="font-semibold text-ink">{base.label}</span>”, in force from {formatDateTime(base.effectiveFrom)}.
         {errors.baseSetupId ? <span className="block font-semibold text-warning">{errors.baseSetupId}</span> : null}
       </p>
       <TextField

@@ -49,7 +49,7 @@ describe('a customer’s car, for the shop', () => {
 
     const history = await screen.findByRole('list', { name: 'Setup history, newest first' });
     const suggest = within(history).getByRole('link', { name: 'Suggest a change' });
-    expect(suggest.getAttribute('href')).toBe(`/cars/${IDS.car}/suggestions/new?from=${IDS.setupBase}`);
+    expect(suggest.getAttribute('href')).toBe(`/shop/customers/${IDS.car}/suggestions/new?from=${IDS.setupBase}`);
     expect(within(history).queryByRole('link', { name: /Start a new setup/ })).toBeNull();
     expect(screen.queryByRole('link', { name: /New setup/ })).toBeNull();
     expect(screen.getByRole('link', { name: 'Season review' }).getAttribute('href')).toBe(`/cars/${IDS.car}/review`);

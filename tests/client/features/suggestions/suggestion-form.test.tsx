@@ -7,7 +7,7 @@ import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stub
 import { BASE_SETUP, CAR, IDS, list, UUID } from '../../fixtures/season';
 import { COLLAB_IDS, staffUser, suggestion } from '../../fixtures/collab';
 
-const PATH = `/cars/${IDS.car}/suggestions/new?from=${IDS.setupBase}`;
+const PATH = `/shop/customers/${IDS.car}/suggestions/new?from=${IDS.setupBase}`;
 const POST = `POST /api/cars/${IDS.car}/suggestions`;
 
 setUpAppTests([() => import('@/app/routes/suggestions/new-suggestion')]);
