@@ -217,8 +217,11 @@ export interface WorkOrder {
   id: string;
   carId: string;
   carName: string;
-  /** `currency`: the shop's, for every amount on the visit (ISO 4217, lower case). */
-  shop: { id: string; name: string; compressedLengthToleranceMm: number; currency: string };
+  /**
+   * `currency`: the shop's, for every amount on the visit (ISO 4217, lower case); `taxRatePct`: the shop's tax rate
+   * now, for the estimate shown while the visit is open (the invoice keeps the rate it was made with).
+   */
+  shop: { id: string; name: string; compressedLengthToleranceMm: number; currency: string; taxRatePct: number };
   openedBy: { id: string; displayName: string };
   visitDate: string;
   requestedWork: string;

@@ -28,6 +28,7 @@ interface WorkOrderRow {
   shop_id: string;
   shop_name: string;
   shop_currency: string;
+  shop_tax_rate_pct: number;
   tolerance_mm: number;
   car_id: string;
   car_name: string;
@@ -50,7 +51,7 @@ interface WorkOrderRow {
 
 async function loadRow(db: Queryable, workOrderId: string): Promise<WorkOrderRow> {
   const rows: WorkOrderRow[] = await db.query(
-    `SELECT w.*, w.visit_date::text AS visit_date, s.name AS shop_name, s.compressed_length_tolerance_mm AS tolerance_mm, s.currency AS shop_currency,
+    `SELECT w.*, w.visit_date::text AS visit_date, s.name AS shop_name, s.compressed_length_tolerance_mm AS tolerance_mm, s.currency AS shop_currency, s.tax_rate_pct AS shop_tax_rate_pct,
             c.name AS car_name, c.front_motion_ratio, c.rear_motion_ratio,
             o.display_name AS opened_by_name, k.display_name AS closed_by_name
        FROM work_orders w JOIN shops s ON s.id = w.shop_id JOIN cars c ON c.id = w.car_id
@@ -121,7 +122,7 @@ export async function loadWorkOrder(db: Queryable, workOrderId: string): Promise
     id: w.id,
     carId: w.car_id,
     carName: w.car_name,
-    shop: { id: w.shop_id, name: w.shop_name, compressedLengthToleranceMm: w.tolerance_mm, currency: w.shop_currency },
+    shop: { id: w.shop_id, name: w.shop_name, compressedLengthToleranceMm: w.tolerance_mm, currency: w.shop_currency, taxRatePct: Number(w.shop_tax_rate_pct) },
     openedBy: { id: w.opened_by, displayName: w.opened_by_name },
     visitDate: dateOnly(w.visit_date),
     requestedWork: w.requested_work,

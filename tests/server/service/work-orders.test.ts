@@ -71,7 +71,7 @@ describe('POST /api/cars/:carId/work-orders', () => {
     const res = await g.staff.c.post(`/api/cars/${g.driver.carId}/work-orders`, { id, ...VISIT });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     expect(res.body).toMatchObject({
-      id, carId: g.driver.carId, shop: { id: g.shopId, name: SHOP_NAME }, visitDate: '2026-06-12', requestedWork: VISIT.requestedWork,
+      id, carId: g.driver.carId, shop: { id: g.shopId, name: SHOP_NAME, taxRatePct: 0 }, visitDate: '2026-06-12', requestedWork: VISIT.requestedWork,
       status: 'open', handoverAt: null, setupId: null, lines: [], stages: { before: null, after: null }, version: 1,
     });
     const again = await g.staff.c.post(`/api/cars/${g.driver.carId}/work-orders`, { id, ...VISIT });

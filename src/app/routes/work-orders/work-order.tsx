@@ -85,9 +85,8 @@ export function WorkOrderPage() {
         <SectionCard title="Parts and labour">
           {canEdit ? (
             <>
-              <div className="hidden print:block">
-                <LinesTable workOrder={workOrder} currency={currency} />
-              </div>
+              {/* The saved lines as a running estimate, above the form that edits them. */}
+              <LinesTable workOrder={workOrder} currency={currency} />
               <div className="print:hidden">
                 <LinesEditor key={currency} workOrder={workOrder} currency={currency} />
               </div>

@@ -9,12 +9,39 @@ import { parseDecimal } from '@/lib/numbers';
 import { useReplaceLines } from '../api/edit-work-order';
 import { splitErrors } from '../utils/field-errors';
 import { centsToMajorText, majorToCents } from '@/lib/money';
+import { invoiceTotals } from '@shared/calc/invoice.calc';
 import { LINE_KIND_WORDS, LineItemsTable } from '@/components/line-items/line-items-table';
 
-/** Parts and labour as everyone reads them, with the totals. */
+/** "8.25 %": the rate as the shop set it. */
+const percent = (rate: number) => `${new Intl.NumberFormat('en', { maximumFractionDigits: 4 }).format(rate)} %`;
+
+/**
+ * Parts and labour as everyone reads them, with the totals. While the visit is open, a running estimate: each line's
+ * amount, the subtotal, tax at the shop's rate and the total, worked out as the invoice will be (invoiceTotals).
+ */
 export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; currency: string }) {
   if (workOrder.lines.length === 0) return <p className="text-ink-muted">No parts or labour recorded yet.</p>;
-  const { partsCents, labourCents, subtotalCents } = workOrder.totals;
+  const { partsCents, labourCents } = workOrder.totals;
+  if (workOrder.status === 'open') {
+    const estimate = invoiceTotals(workOrder.lines, workOrder.shop.taxRatePct);
+    return (
+      <div className="flex flex-col gap-2">
+        <p className="text-sm font-semibold text-ink-muted">Estimate: the amounts are final once the work order is closed and invoiced.</p>
+        <LineItemsTable
+          caption="Parts and labour, estimate"
+          currency={currency}
+          lines={workOrder.lines.map((l, i) => ({ ...l, amountCents: estimate.lineCents[i]! }))}
+          totals={[
+            { label: 'Parts', cents: partsCents },
+            { label: 'Labour', cents: labourCents },
+            { label: 'Subtotal (estimate)', cents: estimate.subtotalCents, weight: 'strong' },
+            { label: `Tax at ${percent(workOrder.shop.taxRatePct)} (estimate)`, cents: estimate.taxCents },
+            { label: 'Estimated total', cents: estimate.totalCents, weight: 'total' },
+          ]}
+        />
+      </div>
+    );
+  }
   return (
     <LineItemsTable
       caption="Parts and labour"
@@ -23,7 +50,7 @@ export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; curr
       totals={[
         { label: 'Parts', cents: partsCents },
         { label: 'Labour', cents: labourCents },
-        { label: 'Subtotal', cents: subtotalCents, weight: 'strong' },
+        { label: 'Subtotal', cents: workOrder.totals.subtotalCents, weight: 'strong' },
       ]}
     />
   );

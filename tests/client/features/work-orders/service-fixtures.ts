@@ -20,7 +20,7 @@ export function workOrder(partial: Partial<WorkOrder> = {}): WorkOrder {
     id: SERVICE_IDS.workOrder,
     carId: IDS.car,
     carName: 'Grey roadster',
-    shop: { id: COLLAB_IDS.shop, name: SHOP_NAME, compressedLengthToleranceMm: 13, currency: 'usd' },
+    shop: { id: COLLAB_IDS.shop, name: SHOP_NAME, compressedLengthToleranceMm: 13, currency: 'usd', taxRatePct: 0 },
     openedBy: { id: COLLAB_IDS.dusty, displayName: 'Dusty Okonjo' },
     visitDate: '2026-06-10',
     requestedWork: 'Four-wheel alignment and corner weights',
