@@ -224,13 +224,13 @@ describe.each(['phone', 'desktop'] as const)('a service visit, staff then driver
     const visit = page.getByRole('list', { name: 'Shop visits' }).getByRole('listitem').filter({ hasText: requestedWork });
     await visit.getByRole('link', { name: 'Setup it wrote' }).click();
     const snapshot = page.locator(`#setup-${written[0]!.id}`);
-    await snapshot.getByRole('link', { name: `handed back by ${SHOP}: the work order` }).waitFor({ timeout: 15_000 });
+    await snapshot.getByRole('link', { name: /^handed back by .+ after the visit of / }).waitFor({ timeout: 15_000 });
     await expect(snapshot.evaluate((el) => el.getBoundingClientRect().top < window.innerHeight)).resolves.toBe(true);
     await noSidewaysScroll(page);
     await screenshot(page, `service-${size}-driver-snapshot`, { fullPage: false });
 
     // The work order, read only, and its invoice.
-    await snapshot.getByRole('link', { name: `handed back by ${SHOP}: the work order` }).click();
+    await snapshot.getByRole('link', { name: /^handed back by .+ after the visit of / }).click();
     await page.getByLabel('Invoice status').getByText('Not paid yet').waitFor({ timeout: 15_000 });
     expect(await page.getByRole('button', { name: 'Paid in cash' }).count()).toBe(0);
     await page.getByRole('button', { name: 'Pay online' }).click();
