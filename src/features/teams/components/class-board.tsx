@@ -1,4 +1,5 @@
 import { lazy, Suspense, useId } from 'react';
+import { Link } from 'react-router-dom';
 import type { BoardCar, BoardResult, ClassBoard } from '@shared/collab/team.schema';
 import { Caution } from '@/components/ui/caution';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -8,6 +9,7 @@ import { formatDay, formatShortDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
 import { aloneWords, boardTime, formatFactor, noTimeWords, rawConesWords, setupLines, trendWords } from '../utils/board-format';
+import { eventBoardPath } from '../utils/event-board';
 import type { TrendPoint } from './trend-chart';
 
 const TrendChart = lazy(() => import('./trend-chart').then((m) => ({ default: m.TrendChart })));
@@ -30,7 +32,13 @@ function trendPoints(results: readonly BoardResult[]): TrendPoint[] {
   }));
 }
 
-function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean }) {
+/** Where an event's name on the board leads: that event, every team driver in the class ranked in one list. */
+interface EventLinks {
+  teamId: string;
+  season: number;
+}
+
+function ResultsTable({ car, hasFactor, links }: { car: BoardCar; hasFactor: boolean; links: EventLinks }) {
   const results = [...car.results].sort(byDate);
   const head = 'px-1.5 py-2 text-right align-bottom font-semibold';
   const num = 'tabular-figures px-1.5 py-2 text-right whitespace-nowrap';
@@ -64,7 +72,12 @@ function ResultsTable({ car, hasFactor }: { car: BoardCar; hasFactor: boolean })
           {results.map((r) => (
             <tr key={`${r.eventId}-${r.driver.id}`} className="border-b border-line align-top">
               <th scope="row" className="sticky left-0 max-w-40 min-w-32 bg-surface py-2 pr-2 text-left font-normal">
-                <span className="block font-semibold break-words">{r.eventName}</span>
+                <Link
+                  to={eventBoardPath(links.teamId, links.season, r.eventId)}
+                  className="block py-0.5 font-semibold break-words text-link underline"
+                >
+                  {r.eventName}
+                </Link>
                 <span className="block text-xs text-ink-muted">
                   {formatDay(r.date)} · {r.driver.displayName}
                 </span>
@@ -150,7 +163,19 @@ function Trend({ car, classCode, alone }: { car: BoardCar; classCode: string; al
   );
 }
 
-function BoardCarCard({ car, classCode, hasFactor, alone }: { car: BoardCar; classCode: string; hasFactor: boolean; alone: boolean }) {
+function BoardCarCard({
+  car,
+  classCode,
+  hasFactor,
+  alone,
+  links,
+}: {
+  car: BoardCar;
+  classCode: string;
+  hasFactor: boolean;
+  alone: boolean;
+  links: EventLinks;
+}) {
   const headingId = useId();
   return (
     <article aria-labelledby={headingId} className="flex min-w-0 flex-col gap-3 rounded border border-line p-3">
@@ -161,7 +186,7 @@ function BoardCarCard({ car, classCode, hasFactor, alone }: { car: BoardCar; cla
         </h3>
         <span className="text-sm text-ink-muted">{car.owner.displayName}’s car</span>
       </div>
-      {car.results.length === 0 ? <p className="text-sm text-ink-muted">No results this season yet.</p> : <ResultsTable car={car} hasFactor={hasFactor} />}
+      {car.results.length === 0 ? <p className="text-sm text-ink-muted">No results this season yet.</p> : <ResultsTable car={car} hasFactor={hasFactor} links={links} />}
       {car.results.length > 0 ? <Trend car={car} classCode={classCode} alone={alone} /> : null}
       <SetupSummary car={car} />
     </article>
@@ -201,6 +226,7 @@ export function ClassBoardView({ board }: { board: ClassBoard }) {
               car={car}
               classCode={group.classCode}
               hasFactor={group.factor !== null}
+              links={{ teamId: board.team.id, season: board.season }}
               alone={!group.cars.some((other) => other !== car && other.results.some((r) => r.bestAdjustedSec !== null))}
             />
           ))}
