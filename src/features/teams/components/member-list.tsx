@@ -87,9 +87,34 @@ export function MemberList({ team, currentUserId }: { team: Team; currentUserId:
   );
 }
 
-/** Every member may leave; the page then goes back to the list of teams. */
+/** Why the last captain cannot leave yet: with teammates, one of them must captain first; alone, someone must join. */
+function lastCaptainLeaving(team: Team): string {
+  return team.members.length > 1
+    ? 'A team needs at least one captain: make another member captain first, then you can leave.'
+    : 'A team needs at least one captain: invite someone, make them captain, then you can leave.';
+}
+
+/**
+ * Every member may leave, but the last captain, whose button is disabled with why beside it; the page then goes
+ * back to the list of teams.
+ */
 export function LeaveTeam({ team, currentUserId, onLeft }: { team: Team; currentUserId: string; onLeft: () => void }) {
   const leave = useLeaveTeam(team.id, currentUserId);
+  const whyId = useId();
+  const me = team.members.find((m) => m.id === currentUserId);
+  const isLastCaptain = me?.isCaptain === true && team.members.filter((m) => m.isCaptain).length === 1;
+  if (isLastCaptain) {
+    return (
+      <div className="flex flex-col gap-1">
+        <Button variant="secondary" className="shrink-0 self-start" disabled aria-describedby={whyId}>
+          <DoorOpen aria-hidden="true" className="size-5" /> Leave team
+        </Button>
+        <p id={whyId} className="max-w-sm text-sm text-ink-muted">
+          {lastCaptainLeaving(team)}
+        </p>
+      </div>
+    );
+  }
   return (
     <ConfirmButton
       variant="secondary"

@@ -157,6 +157,43 @@ describe('team page: who sees what', () => {
     expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/members/${IDS.maren}`)).toHaveLength(1);
   });
 
+  it('when the user is the team’s only captain, then Leave team is disabled with the reason beside it and nothing is sent; with two captains it opens the question', async () => {
+    const alone = team(true);
+    alone.members = alone.members.map((m) => ({ ...m, isCaptain: m.id === IDS.maren }));
+    const fetchMock = stubTeamPage(true, { [`GET ${TEAM_API}`]: jsonResponse(200, alone) });
+    renderApp(TEAM_PAGE);
+    const u = userEvent.setup();
+
+    const leave = (await screen.findByRole('button', { name: 'Leave team' })) as HTMLButtonElement;
+    expect(leave.disabled).toBe(true);
+    const why = document.getElementById(leave.getAttribute('aria-describedby') ?? '');
+    expect(why?.textContent).toBe('A team needs at least one captain: make another member captain first, then you can leave.');
+    await u.click(leave);
+    expect(screen.queryByRole('dialog')).toBeNull();
+    expect(requestsTo(fetchMock, `DELETE ${TEAM_API}/members/${IDS.maren}`)).toHaveLength(0);
+    cleanup();
+
+    // Alone on the team, there is no one to make captain yet: the reason says to invite someone.
+    const solo = team(true);
+    solo.members = solo.members.filter((m) => m.id === IDS.maren);
+    stubTeamPage(true, { [`GET ${TEAM_API}`]: jsonResponse(200, solo) });
+    renderApp(TEAM_PAGE);
+    const soloLeave = (await screen.findByRole('button', { name: 'Leave team' })) as HTMLButtonElement;
+    expect(soloLeave.disabled).toBe(true);
+    expect(document.getElementById(soloLeave.getAttribute('aria-describedby') ?? '')?.textContent).toBe(
+      'A team needs at least one captain: invite someone, make them captain, then you can leave.',
+    );
+    cleanup();
+
+    stubTeamPage(true);
+    renderApp(TEAM_PAGE);
+    const both = (await screen.findByRole('button', { name: 'Leave team' })) as HTMLButtonElement;
+    expect(both.disabled).toBe(false);
+    expect(both.getAttribute('aria-describedby')).toBeNull();
+    await u.click(both);
+    expect(await screen.findByRole('dialog', { name: 'Leave Harrow Flats Sprint Club?' })).toBeTruthy();
+  });
+
   it('when a captain withdraws another member’s car, then it is asked first, only that entry is withdrawn, and a toast confirms it', async () => {
     let withdrawn = false;
     const withoutInes = () => ({ ...team(true), entries: team(true).entries.filter((e) => e.car.id !== TEAM_IDS.inesCar) });
