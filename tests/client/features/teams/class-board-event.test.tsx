@@ -122,6 +122,20 @@ describe('class board: one event', () => {
     await waitFor(() => expect(router.state.location.search).toBe('?season=2026'));
   });
 
+  it('when an event is opened from far down the board, then it starts at its top, as a new page would', async () => {
+    stubBoard();
+    renderApp(`${BOARD_PAGE}?season=2026`);
+    const u = userEvent.setup();
+    const grey = await screen.findByRole('region', { name: 'Results of Grey roadster' });
+    const scrollTo = vi.fn();
+    vi.stubGlobal('scrollTo', scrollTo);
+
+    await u.click(within(grey).getAllByRole('link', { name: 'Harrow Flats — Round 4' })[0]!);
+
+    await screen.findByRole('heading', { level: 1, name: 'Harrow Flats — Round 4' });
+    expect(scrollTo).toHaveBeenCalledWith(0, 0);
+  });
+
   it('when the event has no team result that season, then the page says so and leads back to the board', async () => {
     stubBoard();
     renderApp(`${BOARD_PAGE}?season=2026&event=e9999999-9999-4999-8999-999999999999`);
