@@ -79,13 +79,6 @@ export function HomePage() {
         <h1 className="text-3xl font-extrabold">Hi, {user.displayName}</h1>
         <p className="text-ink-muted">{roles ? `Your roles: ${roles}.` : 'Your account has no roles yet.'}</p>
       </div>
-      {drivesACar ? (
-        <SectionBoundary title="Waiting for you">
-          <Suspense fallback={null}>
-            <WaitingSuggestions />
-          </Suspense>
-        </SectionBoundary>
-      ) : null}
       <div className="grid gap-4 md:grid-cols-2">
         {linksFirst ? linksCard : null}
         <SectionBoundary title="Event day">
@@ -93,6 +86,14 @@ export function HomePage() {
             <CurrentEventCard />
           </SectionCard>
         </SectionBoundary>
+        {/* After the event: at the track, logging comes first; an answer to the shop can wait a heat. */}
+        {drivesACar ? (
+          <SectionBoundary title="Waiting for you">
+            <Suspense fallback={null}>
+              <WaitingSuggestions />
+            </Suspense>
+          </SectionBoundary>
+        ) : null}
         <SectionBoundary title="Sync">
           <SectionCard title="Sync">
             <SyncStatus />

@@ -32,7 +32,7 @@ function stub(cars: unknown[], items: WaitingSuggestion[]) {
 }
 
 describe('Home: suggestions waiting for the driver', () => {
-  it('when a shop has an open suggestion for the driver\'s car, then Home shows one line for it, linked to it, above the rest', async () => {
+  it('when a shop has an open suggestion for the driver\'s car, then Home shows one line for it, linked to it, after the event and before the rest', async () => {
     stub([CAR], [waiting]);
     renderApp('/');
 
@@ -40,9 +40,12 @@ describe('Home: suggestions waiting for the driver', () => {
     const link = within(card).getByRole('link', { name: /More front camber/ });
     expect(link.getAttribute('href')).toBe(`/suggestions/${COLLAB_IDS.suggestion}`);
     expect(link.textContent).toContain(`${CAR.name} · from ${SHOP_NAME} · accept or decline`);
-    // It comes before the event, sync and cars cards.
-    const yourCars = screen.getByRole('region', { name: 'Your cars' });
-    expect(card.compareDocumentPosition(yourCars) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    // At the track logging comes first: after the event card, before sync and the cars.
+    const eventDay = screen.getByRole('region', { name: 'Event day' });
+    expect(card.compareDocumentPosition(eventDay) & Node.DOCUMENT_POSITION_PRECEDING).toBeTruthy();
+    for (const later of ['Sync', 'Your cars']) {
+      expect(card.compareDocumentPosition(screen.getByRole('region', { name: later })) & Node.DOCUMENT_POSITION_FOLLOWING, later).toBeTruthy();
+    }
   });
 
   it('when nothing waits, then Home shows no such card', async () => {
