@@ -5,6 +5,7 @@ import { Caution } from '@/components/ui/caution';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorBoundary } from '@/components/errors/error-boundary';
 import { SideScroll } from '@/components/side-scroll/side-scroll';
+import { recordPath } from '@/config/record-paths';
 import { formatDay, formatShortDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
@@ -218,7 +219,13 @@ export function ClassBoardView({ board }: { board: ClassBoard }) {
             </p>
           </div>
           {group.factor === null ? (
-            <p className="text-sm text-ink-muted">No index times for this class yet: a captain enters its factor on the team page.</p>
+            <p className="text-sm text-ink-muted">
+              No index times for this class yet: a captain enters its {board.season} factor on{' '}
+              <Link to={recordPath.team(board.team.id)} className="font-semibold text-link underline">
+                the team page
+              </Link>
+              .
+            </p>
           ) : null}
           {group.cars.map((car) => (
             <BoardCarCard

@@ -200,7 +200,9 @@ describe('a class board that does not come', () => {
     await u.click(screen.getByRole('button', { name: 'Try again' }));
     await screen.findByRole('heading', { level: 1, name: 'Class board' });
     expect(requestsTo(fetchMock, `GET ${BOARD_API}?season=2026`).length).toBeGreaterThan(before);
-    expect(within(classSection('SM')).getByText('No index times for this class yet: a captain enters its factor on the team page.')).toBeTruthy();
+    const noFactor = within(classSection('SM')).getByText(/^No index times for this class yet/);
+    expect(noFactor.textContent).toBe('No index times for this class yet: a captain enters its 2026 factor on the team page.');
+    expect(within(noFactor).getByRole('link', { name: 'the team page' }).getAttribute('href')).toBe(`/teams/${TEAM_IDS.team}`);
   });
 
   it('when the team is not one of the user\'s, then no "Try again" is offered, only the way back', async () => {
