@@ -14,7 +14,7 @@ export const OUTBOX_KINDS = [
 ] as const;
 
 /** Which cached data an entry changes once it lands, by the first part of its kind. */
-const INVALIDATES: Record<string, string[][]> = {
+export const INVALIDATES: Record<string, string[][]> = {
   run: [['runs'], ['events'], ['setups']],
   setup: [['setups'], ['runs'], ['events']],
   // tyreSet.create and tyreSet.rotate (a rotation changes which tyre each reading and wear interval belongs to).

@@ -2,11 +2,15 @@ import { useEffect } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { OutboxEntry } from '@/lib/outbox';
 import { useOutbox } from '@/lib/outbox-context';
+import { INVALIDATES } from '@/app/outbox';
 
 const CHANNEL = 'scrubline-outbox';
 
-/** What a tab's list is, for telling whether it changed: each entry's key and state. */
-const signature = (entries: readonly OutboxEntry[]) => entries.map((e) => `${e.key}:${e.state}:${e.attempts}`).join();
+/**
+ * What a tab's list is, for telling whether it changed: each entry's key, state and what it sends (an edit of a
+ * run not sent yet is folded into the waiting entry, keeping its key).
+ */
+const signature = (entries: readonly OutboxEntry[]) => JSON.stringify(entries.map((e) => [e.key, e.state, e.attempts, e.body]));
 
 /**
  * Every tab of the app writes to the one outbox on the device, but each shows its own copy of it. Whenever a
@@ -32,7 +36,10 @@ export function useOtherTabs(): void {
       const before = outbox.getSnapshot();
       await outbox.reload();
       const after = outbox.getSnapshot();
-      if (before.some((e) => !after.some((a) => a.key === e.key))) void queryClient.invalidateQueries();
+      // Read again only what the vanished changes touched, letting reads already on their way finish.
+      const gone = before.filter((e) => !after.some((a) => a.key === e.key));
+      const keys = new Set(gone.flatMap((e) => INVALIDATES[e.kind.split('.')[0]!] ?? []).map((k) => k[0]!));
+      for (const key of keys) void queryClient.invalidateQueries({ queryKey: [key] }, { cancelRefetch: false });
     };
     return () => {
       unsubscribe();

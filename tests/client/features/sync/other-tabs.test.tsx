@@ -20,8 +20,12 @@ const run = (n: number) => ({
 });
 
 /** One tab: its own outbox copy and query cache over the one device store; sending fails (no signal) unless told. */
-function openTab(storage: ReturnType<typeof memoryStorage>, send: (e: OutboxEntry) => Promise<unknown> = () => Promise.reject(new Error('offline'))) {
-  const outbox = new Outbox({ storage, send, classify: () => ({ kind: 'retry', reason: 'No connection' }), backoffMs: () => 60_000 });
+function openTab(
+  storage: ReturnType<typeof memoryStorage>,
+  send: (e: OutboxEntry) => Promise<unknown> = () => Promise.reject(new Error('offline')),
+  lock?: (run: () => Promise<void>) => Promise<void>,
+) {
+  const outbox = new Outbox({ storage, send, classify: () => ({ kind: 'retry', reason: 'No connection' }), backoffMs: () => 60_000, ...(lock ? { lock } : {}) });
   const queryClient = new QueryClient();
   const wrapper = ({ children }: { children: ReactNode }) => (
     <QueryClientProvider client={queryClient}>
@@ -46,6 +50,20 @@ describe('two tabs of the app on one phone', () => {
     await waitFor(() => expect(a.outbox.getSnapshot().map((e) => e.recordId)).toEqual(['run-11', 'run-12']));
   });
 
+  it('when a run not sent yet is edited in one tab, then the other tab shows the edit (the entry keeps its key)', async () => {
+    const storage = memoryStorage();
+    // Unsent means not tried yet: here no tab ever gets its turn to send.
+    const noTurn = () => new Promise<void>(() => undefined);
+    const a = openTab(storage, undefined, noTurn);
+    const b = openTab(storage, undefined, noTurn);
+    await Promise.all([a.outbox.ready(), b.outbox.ready()]);
+    await b.outbox.add(run(5));
+    await waitFor(() => expect(a.outbox.getSnapshot()).toHaveLength(1));
+
+    await b.outbox.add({ ...run(5), kind: 'run.update', method: 'PATCH', body: { runNumber: 6, version: 1 }, label: 'Run 6' });
+    await waitFor(() => expect((a.outbox.getSnapshot()[0]?.body as { runNumber: number }).runNumber).toBe(6));
+  });
+
   it('when the other tab delivers a run, then it leaves this tab’s list and this tab reads its data again', async () => {
     const storage = memoryStorage();
     const delivered: string[] = [];
@@ -60,6 +78,9 @@ describe('two tabs of the app on one phone', () => {
     await sender.outbox.retryNow();
     expect(delivered).toEqual(['run-3']);
     await waitFor(() => expect(other.outbox.getSnapshot()).toHaveLength(0));
-    expect(refresh).toHaveBeenCalled();
+    // What a run changes, read again without cutting off reads on their way; nothing else.
+    const asked = refresh.mock.calls.map(([filters, options]) => [filters?.queryKey, options?.cancelRefetch]);
+    expect(asked).toEqual(expect.arrayContaining([[['runs'], false], [['events'], false], [['setups'], false]]));
+    expect(asked).toHaveLength(3);
   });
 });
