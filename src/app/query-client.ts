@@ -27,10 +27,11 @@ export function keptOnDevice(query: Query): boolean {
 }
 
 /**
- * No answer came (no signal), or the server could not give one: the answer kept before still stands. A refusal
- * (403, 404: the car was deleted or unshared) does not.
+ * No answer came (no signal), or the server could not give one (5xx, a timeout, too many requests: the answers
+ * the outbox waits out too): the answer kept before still stands. A refusal (403, 404: the car was deleted or
+ * unshared) does not.
  */
-const unanswered = (error: unknown) => isApiError(error) && (!error.status || error.status > 499);
+const unanswered = (error: unknown) => isApiError(error) && (!error.status || error.status > 499 || error.status === 408 || error.status === 429);
 
 /**
  * What is written to the device: a read whose refresh failed for want of signal is kept as its last answer, not

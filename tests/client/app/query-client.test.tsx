@@ -132,6 +132,7 @@ describe('what is written to the device for the next page load', () => {
     };
     await failOnRefresh('no-signal', new ApiError({ status: 0, code: 'network', message: 'No connection' }));
     await failOnRefresh('server-down', new ApiError({ status: 503, code: 'unavailable', message: 'Down' }));
+    await failOnRefresh('too-busy', new ApiError({ status: 429, code: 'rate_limited', message: 'Busy' }));
     await failOnRefresh('deleted', new ApiError({ status: 404, code: 'not_found', message: 'Gone' }));
     // Never answered at all: nothing to keep.
     await queryClient.fetchQuery({ queryKey: ['never'], queryFn: () => Promise.reject(new ApiError({ status: 0, code: 'network', message: 'x' })) }).catch(() => undefined);
@@ -139,7 +140,7 @@ describe('what is written to the device for the next page load', () => {
 
     const written = lastAnswers({ timestamp: 0, buster: '', clientState: dehydrate(queryClient, { shouldDehydrateQuery: keptOnDevice }) });
     const queries = written.clientState.queries;
-    expect(queries.map((q) => q.queryKey[0])).toEqual(['no-signal', 'server-down']);
+    expect(queries.map((q) => q.queryKey[0])).toEqual(['no-signal', 'server-down', 'too-busy']);
     for (const q of queries) {
       expect(q.state).toMatchObject({ status: 'success', error: null, data: { id: q.queryKey[0] } });
     }

@@ -204,6 +204,7 @@ export function EventDayPage() {
   const { data: me } = useMe();
   // An event made on this phone shows from the outbox until the server has it; runs logged into it queue behind it.
   const eventQuery = useDayEvent(eventId);
+  const eventError = eventQuery.error as ApiError;
   // So do cars made on this phone: a driver can start from nothing with no signal.
   const carsQuery = useCarViews({ id: me?.id ?? '', displayName: me?.displayName ?? 'You' });
   const [stored, setStored] = useState(() => readStoredChoice<Choice>(choiceKey(eventId)));
@@ -266,10 +267,12 @@ export function EventDayPage() {
       {eventQuery.isError && !event ? (
         <EmptyState
           message={
-            // The server answered (not found, not allowed): saying "no signal" would send the driver looking for one.
-            (eventQuery.error as ApiError).status
+            // What the server answered, if it did: "no signal" would send the driver looking for one.
+            eventError.status === 404 || eventError.status === 403
               ? 'This event was not found: it may have been deleted, or it is not one you can open.'
-              : 'This event is not on this phone yet. Open it once with signal to use it offline.'
+              : eventError.status
+                ? eventError.message
+                : 'This event is not on this phone yet. Open it once with signal to use it offline.'
           }
         >
           <Link to={paths.events} className="font-semibold text-link underline">

@@ -34,6 +34,8 @@ interface RunEditFormProps {
   takenNumbers: readonly number[];
   /** The server's messages by field, when it refused this run. */
   serverErrors?: Record<string, string[]>;
+  /** The server refused the run because its number was taken (a conflict): the next free one is offered. */
+  numberTaken?: boolean;
   submitLabel: string;
   onSubmit: (changes: RunChanges) => Promise<void> | void;
   onCancel: () => void;
@@ -42,14 +44,14 @@ interface RunEditFormProps {
 }
 
 /** Fixing a run after the fact: time, cones, result, number, hot pressures, note. */
-export function RunEditForm({ row, takenNumbers, serverErrors, submitLabel, onSubmit, onCancel, onDelete }: RunEditFormProps) {
+export function RunEditForm({ row, takenNumbers, serverErrors, numberTaken = false, submitLabel, onSubmit, onCancel, onDelete }: RunEditFormProps) {
   const units = useUnits();
   const formRef = useRef<HTMLFormElement>(null);
   const [time, setTime] = useState(row.rawTimeSec !== null ? formatRunTime(row.rawTimeSec) : '');
   const [cones, setCones] = useState(row.cones);
   const [status, setStatus] = useState<RunStatus>(row.status);
   // The server found the number taken (logged on another phone, or in another tab): the next one free here is offered.
-  const nextFree = serverErrors?.runNumber ? Math.max(row.runNumber, ...takenNumbers) + 1 : null;
+  const nextFree = numberTaken ? Math.max(row.runNumber, ...takenNumbers) + 1 : null;
   const [number, setNumber] = useState(String(nextFree ?? row.runNumber));
   const [notes, setNotes] = useState(row.notes ?? '');
   // The saved hot pressures as the driver types them (rounded to the unit's decimals), to tell what was changed.

@@ -189,6 +189,7 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
                   row={row}
                   takenNumbers={taken}
                   serverErrors={failed?.error?.fieldErrors}
+                  numberTaken={failed?.error?.status === 409 && !!failed.error.fieldErrors?.runNumber}
                   submitLabel={failed ? 'Fix and send again' : 'Save changes'}
                   onSubmit={(changes) => save(row, changes)}
                   onCancel={() => setEditing(null)}

@@ -895,7 +895,14 @@ describe('event day', () => {
     first.unmount();
 
     stubWithRuns([], { extra: { [`GET /api/events/${IDS.event}`]: offline } });
-    renderApp(PATH);
+    const second = renderApp(PATH);
     expect(await screen.findByText('This event is not on this phone yet. Open it once with signal to use it offline.')).toBeTruthy();
+    second.unmount();
+
+    // A server in trouble is not a missing event: its own words are shown.
+    stubWithRuns([], { extra: { [`GET /api/events/${IDS.event}`]: errorResponse(503, 'unavailable', 'Scrubline is restarting; try again in a minute.') } });
+    renderApp(PATH);
+    expect(await screen.findByText('Scrubline is restarting; try again in a minute.', { selector: 'p' })).toBeTruthy();
+    expect(screen.queryByText(/This event was not found/)).toBeNull();
   });
 });

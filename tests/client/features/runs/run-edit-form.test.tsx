@@ -14,11 +14,22 @@ afterEach(cleanup);
 const rowOf = (run: Partial<Run> = {}): RunRow => ({ ...savedRun({ id: IDS.run1, runNumber: 2, rawTimeSec: 45.5, ...run }), pending: null });
 
 /** The edit form of one saved run, in the driver's units; what it would save is caught. */
-function renderForm(row: RunRow, { units = METRIC_PREFERENCES, serverErrors }: { units?: UnitPreferences; serverErrors?: Record<string, string[]> } = {}) {
+function renderForm(
+  row: RunRow,
+  { units = METRIC_PREFERENCES, serverErrors, numberTaken }: { units?: UnitPreferences; serverErrors?: Record<string, string[]>; numberTaken?: boolean } = {},
+) {
   const onSubmit = vi.fn<(changes: RunChanges) => void>();
   render(
     <UnitsProvider units={units}>
-      <RunEditForm row={row} takenNumbers={[1]} serverErrors={serverErrors} submitLabel="Save changes" onSubmit={onSubmit} onCancel={() => undefined} />
+      <RunEditForm
+        row={row}
+        takenNumbers={[1]}
+        serverErrors={serverErrors}
+        numberTaken={numberTaken}
+        submitLabel="Save changes"
+        onSubmit={onSubmit}
+        onCancel={() => undefined}
+      />
     </UnitsProvider>,
   );
   return { onSubmit, u: userEvent.setup() };
@@ -40,6 +51,16 @@ describe('run edit form: run number', () => {
 
     expect(onSubmit).not.toHaveBeenCalled();
     expect(field('Run number').getAttribute('aria-invalid')).toBe('true');
+    expect(screen.getByText('Run numbers start at 1')).toBeTruthy();
+  });
+
+  it('when the server refused the number as taken, then the next free one is offered; refused for another reason, the number stays with the server’s words', async () => {
+    renderForm(rowOf(), { serverErrors: { runNumber: ['Run 2 is already logged; use the next number'] }, numberTaken: true });
+    expect(field('Run number').value).toBe('3');
+    cleanup();
+
+    renderForm(rowOf(), { serverErrors: { runNumber: ['Run numbers start at 1'] } });
+    expect(field('Run number').value).toBe('2');
     expect(screen.getByText('Run numbers start at 1')).toBeTruthy();
   });
 
