@@ -58,6 +58,12 @@ export function invoiceLineCents(line: InvoiceLineInput): number {
   return toNumber('Line amount', divideRounded(quantity * price, QUANTITY_SCALE));
 }
 
+/**
+ * A stored tax rate as invoices use it: to four decimals (rates are entered to at most three), so an odd stored
+ * value neither stops an invoice nor the estimate of an open visit.
+ */
+export const roundedTaxRate = (ratePct: number): number => Math.round(ratePct * 10_000) / 10_000;
+
 /** Line amounts, subtotal, tax at `taxRatePct` percent and total, all in cents. */
 export function invoiceTotals(lines: readonly InvoiceLineInput[], taxRatePct: number): InvoiceTotals {
   const rate = scaled('Tax rate', taxRatePct, RATE_SCALE, 'four decimals');

@@ -3,7 +3,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
 import type { CheckoutRedirect, Invoice, InvoiceLine, InvoiceStatus, PaymentMethod } from '@shared/service/invoice.schema';
 import type { LineKind } from '@shared/service/work-order.schema';
-import { invoiceLineCents, invoiceTotals } from '@shared/calc/invoice.calc';
+import { invoiceLineCents, invoiceTotals, roundedTaxRate } from '@shared/calc/invoice.calc';
 import { AppError } from '../../lib/app-error';
 import { logger } from '../../lib/logger';
 import { assertWorkOrderAccess, type Queryable, type WorkOrderAction } from '../../auth/access';
@@ -113,8 +113,7 @@ export async function createInvoice(ds: DataSource, user: User, workOrderId: str
     if (existing[0]) return { id: existing[0].id, created: false };
     if (order.status !== 'closed') throw new AppError('conflict', 'Close the work order first; the invoice is made from the finished visit.');
 
-    // Rates are entered to at most three decimals; rounding here keeps an odd stored value from stopping the invoice.
-    const taxRatePct = Math.round(order.tax_rate_pct * 10_000) / 10_000;
+    const taxRatePct = roundedTaxRate(order.tax_rate_pct);
     const totals = invoiceTotals(
       (await linesOf(m, workOrderId)).map((l) => ({ quantity: Number(l.quantity), unitPriceCents: l.unit_price_cents })),
       taxRatePct,

@@ -10,7 +10,7 @@ import {
   type UpdateWorkOrderInput, type WorkOrder, type WorkOrderStage, type WorkOrderStatus,
 } from '@shared/service/work-order.schema';
 import { balanceIfComplete, buildSheetChecks } from '@shared/calc/build-sheet.calc';
-import { invoiceLineCents } from '@shared/calc/invoice.calc';
+import { invoiceLineCents, roundedTaxRate } from '@shared/calc/invoice.calc';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { assertCarAccess, assertShopAccess, assertWorkOrderAccess, carRelations, grantedShopOf, type Queryable } from '../../auth/access';
 import type { MailSettings } from '../../mail/mailer';
@@ -122,7 +122,7 @@ export async function loadWorkOrder(db: Queryable, workOrderId: string): Promise
     id: w.id,
     carId: w.car_id,
     carName: w.car_name,
-    shop: { id: w.shop_id, name: w.shop_name, compressedLengthToleranceMm: w.tolerance_mm, currency: w.shop_currency, taxRatePct: Number(w.shop_tax_rate_pct) },
+    shop: { id: w.shop_id, name: w.shop_name, compressedLengthToleranceMm: w.tolerance_mm, currency: w.shop_currency, taxRatePct: roundedTaxRate(Number(w.shop_tax_rate_pct)) },
     openedBy: { id: w.opened_by, displayName: w.opened_by_name },
     visitDate: dateOnly(w.visit_date),
     requestedWork: w.requested_work,

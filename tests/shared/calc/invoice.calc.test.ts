@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { add, bignumber, divide, multiply, round, type BigNumber } from 'mathjs';
-import { invoiceLineCents, invoiceTotals } from '../../../shared/calc/invoice.calc';
+import { invoiceLineCents, invoiceTotals, roundedTaxRate } from '../../../shared/calc/invoice.calc';
 
 // Hand-worked examples: the arithmetic is written out beside each one (worked by hand, common practice:
 // money in whole cents, each line and the tax rounded to the cent, halves away from zero).
@@ -118,5 +118,17 @@ describe('invoiceTotals', () => {
         expect(Math.abs(r.taxCents - (r.subtotalCents * rate) / 100_000)).toBeLessThanOrEqual(0.5 + 1e-9);
       }),
     );
+  });
+});
+
+describe('roundedTaxRate', () => {
+  it('when a stored rate has more than four decimals, then the rounded one is worked with (to 4 decimals, halves up), where the raw one is refused', () => {
+    const lines = [{ quantity: 1, unitPriceCents: 10_000 }];
+    expect(() => invoiceTotals(lines, 8.123456)).toThrow(RangeError);
+    expect(roundedTaxRate(8.123456)).toBe(8.1235);
+    // mathjs, an independent decimal library: 10 000 cents × 8.1235 % = 812.35 → 812 cents.
+    const expected = Number(round(divide(multiply(bignumber(10_000), bignumber('8.1235')), bignumber(100)) as BigNumber, 0));
+    expect(invoiceTotals(lines, roundedTaxRate(8.123456)).taxCents).toBe(expected);
+    expect(roundedTaxRate(8.25)).toBe(8.25);
   });
 });

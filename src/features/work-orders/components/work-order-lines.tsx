@@ -35,7 +35,11 @@ export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; curr
             { label: 'Parts', cents: partsCents },
             { label: 'Labour', cents: labourCents },
             { label: 'Subtotal (estimate)', cents: estimate.subtotalCents, weight: 'strong' },
-            { label: `Tax at ${percent(workOrder.shop.taxRatePct)} (estimate)`, cents: estimate.taxCents },
+            {
+              // A shop that has set no rate is not said to charge 0 % tax.
+              label: workOrder.shop.taxRatePct ? `Tax at ${percent(workOrder.shop.taxRatePct)} (estimate)` : 'Tax: no rate set by the shop',
+              cents: estimate.taxCents,
+            },
             { label: 'Estimated total', cents: estimate.totalCents, weight: 'total' },
           ]}
         />

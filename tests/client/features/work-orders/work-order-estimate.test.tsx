@@ -35,4 +35,14 @@ describe('an open work order’s parts and labour', () => {
     // The form that edits the lines is still there.
     expect(screen.getByRole('button', { name: 'Save parts and labour' })).toBeTruthy();
   });
+
+  it('when the shop has set no tax rate, then the estimate says so instead of claiming 0 % tax, and the total is the subtotal', async () => {
+    stubStaff(METRIC_PREFERENCES, { [`GET ${WO}`]: jsonResponse(200, { ...OPEN, shop: { ...OPEN.shop, taxRatePct: 0 } }) });
+    renderApp(WORK_ORDER_PATH);
+
+    const table = await screen.findByRole('table', { name: 'Parts and labour, estimate' });
+    expect(within(table).getByRole('row', { name: /Tax: no rate set by the shop/ }).textContent).toContain('$0.00');
+    expect(within(table).queryByRole('row', { name: /Tax at 0 %/ })).toBeNull();
+    expect(within(table).getByRole('row', { name: /Estimated total/ }).textContent).toContain('$182.48');
+  });
 });
