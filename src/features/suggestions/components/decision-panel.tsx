@@ -79,8 +79,8 @@ function AcceptForm({ suggestion, onCancel, onAccepted }: { suggestion: Suggesti
       {moved ? (
         <section aria-label="What accepting records now" className="flex flex-col gap-2 rounded border-2 border-warning p-3">
           <p className="text-sm font-semibold">
-            The car’s setup has changed since the shop wrote this. The shop wrote it for “{suggestion.baseSetup.label}”; from the time
-            you chose, the car runs on “{moved.label}”. Accepting applies the changes to “{moved.label}” and records:
+            At the time you chose, the car runs on “{moved.label}”, not on “{suggestion.baseSetup.label}”, the setup the shop wrote this
+            for. Accepting applies the changes to “{moved.label}” and records:
           </p>
           <ChangePreview cells={previewChanges(moved, suggestion.changes)} />
         </section>

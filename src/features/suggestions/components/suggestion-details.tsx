@@ -81,7 +81,8 @@ function ChangedValues({ suggestion }: { suggestion: Suggestion }) {
     return (
       <div className="flex flex-col gap-3">
         <section aria-label="What accepting would record now" className="flex flex-col gap-2 rounded border-2 border-warning p-3">
-          <p className="font-semibold">The car’s setup has changed since the shop suggested this.</p>
+          {/* Not "has changed since": the shop may have written it for an older setup, or one still to come. */}
+          <p className="font-semibold">The car runs on another setup now than the one the shop wrote this for.</p>
           <p className="text-sm">
             The shop wrote these changes for <SetupName setup={baseSetup} />. The car now runs <SetupName setup={now.setup} />. Accepting
             now applies the changes to that setup and records:

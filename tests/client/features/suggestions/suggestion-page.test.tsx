@@ -98,7 +98,7 @@ describe('a suggestion', () => {
 
     await u.click(await within(await screen.findByRole('region', { name: 'Decision' })).findByRole('button', { name: 'Accept' }));
     const notice = await screen.findByRole('region', { name: 'What accepting records now' });
-    expect(notice.textContent).toContain('The shop wrote it for “Spring baseline”; from the time you chose, the car runs on “More camber at the track”.');
+    expect(notice.textContent).toContain('At the time you chose, the car runs on “More camber at the track”, not on “Spring baseline”, the setup the shop wrote this for.');
     expect(notice.textContent).not.toContain('at that time the car has');
     // −1.5° − 0.5° = −2.0°, not the −1.7° the shop's page shows against the baseline.
     const lf = within(within(notice).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
@@ -129,7 +129,7 @@ describe('a suggestion', () => {
     renderApp(PAGE);
 
     const notice = await screen.findByRole('region', { name: 'What accepting would record now' });
-    expect(notice.textContent).toContain('The car’s setup has changed since the shop suggested this.');
+    expect(notice.textContent).toContain('The car runs on another setup now than the one the shop wrote this for.');
     expect(notice.textContent).toContain('The car now runs “As handed back”');
     const now = within(within(notice).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
     expect(now.textContent).toContain('\u22121.80°');
