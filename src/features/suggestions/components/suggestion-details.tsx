@@ -61,8 +61,10 @@ function ChangedValues({ suggestion }: { suggestion: Suggestion }) {
       <div className="flex flex-col gap-3">
         <section aria-label="What accepting recorded" className="flex flex-col gap-2">
           <p className="text-sm">
-            Recorded as “<span className="font-semibold">{recorded.setup.label}</span>”, in force from {formatDateTime(recorded.setup.effectiveFrom)}
-            {sameStart ? '' : <>, made from <SetupName setup={recorded.from} /></>}:
+            {/* The setup's values as it holds them today: it may have been edited since it was accepted. */}
+            Accepted into “<span className="font-semibold">{recorded.setup.label}</span>”, in force from{' '}
+            {formatDateTime(recorded.setup.effectiveFrom)}
+            {sameStart ? '' : <>, made from <SetupName setup={recorded.from} /></>}. What it holds now:
           </p>
           <ChangePreview cells={recorded.preview} />
         </section>

@@ -162,7 +162,8 @@ describe('a suggestion', () => {
     renderApp(PAGE);
 
     const done = await screen.findByRole('region', { name: 'What accepting recorded' });
-    expect(done.textContent).toContain('Recorded as “Shop camber”');
+    expect(done.textContent).toContain('Accepted into “Shop camber”');
+    expect(done.textContent).toContain('What it holds now:');
     expect(done.textContent).toContain('made from “As handed back”');
     const lf = within(within(done).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
     expect(lf.textContent).toContain('\u22121.80°');
