@@ -79,9 +79,10 @@ export interface Suggestion {
   preview: SuggestionPreviewCell[];
   /**
    * While open, when the setup in force now is no longer the base: that setup, and the changes worked out against
-   * it (what accepting now would record). Otherwise null.
+   * it (what accepting now would record), with why that setup cannot take them, if it cannot (a value it lacks, a
+   * result out of range; the car's click range is checked on accepting). Otherwise null.
    */
-  now: { setup: SuggestionSetupRef; preview: SuggestionPreviewCell[] } | null;
+  now: { setup: SuggestionSetupRef; preview: SuggestionPreviewCell[]; problems: string[] } | null;
   /**
    * Once accepted: the setup accepting recorded, the one it was made from, and each change as recorded (from the
    * setup it was made from to the recorded setup). Null otherwise, or when that setup has since been deleted.

@@ -66,6 +66,12 @@ function recordedPreview(start: Setup, recorded: Setup, changes: SuggestionChang
   });
 }
 
+/** The changes worked out on the setup in force now, and why it cannot take them, if it cannot. */
+function nowOn(setup: Setup, changes: SuggestionChange[]): NonNullable<Suggestion['now']> {
+  const { steps, errors } = applyCornerChanges(setup.corners, changes);
+  return { setup: refOf(setup), preview: steps, problems: Object.values(errors).flat() };
+}
+
 /** The suggestion as the app shows it, with each change worked out against its base snapshot, and against today's setup. */
 function toSuggestion(r: SuggestionRow, setups: SuggestionSetups): Suggestion {
   const base = setups.byId.get(r.base_setup_id)!;
@@ -84,7 +90,7 @@ function toSuggestion(r: SuggestionRow, setups: SuggestionSetups): Suggestion {
     preview: applyCornerChanges(base.corners, r.changes).steps,
     now:
       r.status === 'open' && inForceNow && inForceNow.id !== base.id
-        ? { setup: refOf(inForceNow), preview: applyCornerChanges(inForceNow.corners, r.changes).steps }
+        ? nowOn(inForceNow, r.changes)
         : null,
     recorded:
       accepted && acceptedFrom

@@ -184,6 +184,7 @@ describe('a suggestion read after the car\'s setup changed', () => {
         { field: 'damperClicks', corner: 'lr', from: base.corners.lr.damperClicks, to: 8 },
         { field: 'damperClicks', corner: 'rr', from: base.corners.rr.damperClicks, to: 8 },
       ],
+      problems: [],
     });
     expect(open.recorded).toBeNull();
     const listed = (await driver.c.get(`/api/cars/${driver.carId}/suggestions`)).body.items[0];

@@ -86,10 +86,18 @@ function ChangedValues({ suggestion }: { suggestion: Suggestion }) {
           {/* Not "has changed since": the shop may have written it for an older setup, or one still to come. */}
           <p className="font-semibold">The car runs on another setup now than the one the shop wrote this for.</p>
           <p className="text-sm">
-            The shop wrote these changes for <SetupName setup={baseSetup} />. The car now runs <SetupName setup={now.setup} />. Accepting
-            now applies the changes to that setup and records:
+            The shop wrote these changes for <SetupName setup={baseSetup} />. The car now runs <SetupName setup={now.setup} />.{' '}
+            {now.problems.length ? 'That setup cannot take them as they are, so accepting now would be refused:' : 'Accepting now applies the changes to that setup and records:'}
           </p>
-          <ChangePreview cells={now.preview} />
+          {now.problems.length ? (
+            <ul className="list-disc pl-5 text-sm font-semibold text-warning">
+              {now.problems.map((problem) => (
+                <li key={problem}>{problem}</li>
+              ))}
+            </ul>
+          ) : (
+            <ChangePreview cells={now.preview} />
+          )}
         </section>
         <section aria-label="What the shop suggested" className="flex flex-col gap-2">
           <p className="text-sm text-ink-muted">

@@ -123,6 +123,7 @@ describe('a suggestion', () => {
             { field: 'camberDeg', corner: 'lf', from: -1.8, to: -2.3 },
             { field: 'camberDeg', corner: 'rf', from: -1.8, to: -2.3 },
           ],
+          problems: [],
         },
       }),
     );
@@ -138,6 +139,25 @@ describe('a suggestion', () => {
     expect(suggested.textContent).toContain('As the shop suggested it, on “Spring baseline”');
     const then = within(within(suggested).getByRole('group', { name: 'Camber' })).getByRole('group', { name: 'Left front' });
     expect(then.textContent).toContain('→ \u22121.70°');
+  });
+
+  it('when the setup the car runs on now cannot take the changes, then the page says accepting would be refused and why, instead of a preview', async () => {
+    const handedBack = { id: '5e7e7e7e-0000-4000-8000-0000000000c2', label: 'As handed back', effectiveFrom: '2026-06-20T10:00:00.000Z' };
+    stub(staffUser(), () =>
+      suggestion({
+        now: {
+          setup: handedBack,
+          preview: [{ field: 'toeMm', corner: 'lf', from: null, to: null }],
+          problems: ['No current toe on LF to change; give a value instead'],
+        },
+      }),
+    );
+    renderApp(PAGE);
+
+    const notice = await screen.findByRole('region', { name: 'What accepting would record now' });
+    expect(notice.textContent).toContain('That setup cannot take them as they are, so accepting now would be refused:');
+    expect(within(notice).getByRole('listitem').textContent).toBe('No current toe on LF to change; give a value instead');
+    expect(within(notice).queryByRole('group', { name: 'Toe' })).toBeNull();
   });
 
   it('when a suggestion was accepted on a newer setup, then the page shows the values recorded, not only those suggested', async () => {
