@@ -164,6 +164,21 @@ describe('GET /api/cars/:carId/suggestions', () => {
 });
 
 describe('a suggestion read after the car\'s setup changed', () => {
+  it('when the setup in force now lacks a value the changes step from, then `now` says why accepting would be refused', async () => {
+    const { driver, staff, suggestion } = await carWithSuggestion();
+    // Handed back with no front camber recorded: "−0.5° from nothing" cannot be worked out.
+    await postSetup(driver.c, driver.carId, {
+      label: 'No camber noted',
+      effectiveFrom: '2026-05-01T00:00:00Z',
+      corners: { ...base.corners, lf: { ...base.corners.lf, camberDeg: null }, rf: { ...base.corners.rf, camberDeg: null } },
+    });
+    const open = (await staff.c.get(`/api/suggestions/${suggestion.id}`)).body;
+    expect(open.now.problems).toEqual([
+      'No current camber on LF to change; give a value instead',
+      'No current camber on RF to change; give a value instead',
+    ]);
+  });
+
   it('when a newer setup is in force, then the suggestion names it and works the changes out against it; once accepted, it shows the setup recorded', async () => {
     const { driver, staff, setup, suggestion } = await carWithSuggestion();
     // A visit hands the car back with −1.8° front camber, in force from 1 May (before today).
