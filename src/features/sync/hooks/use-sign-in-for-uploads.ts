@@ -15,10 +15,13 @@ export function useSignInForUploads(): void {
   const queryClient = useQueryClient();
   useEffect(() => {
     let asked = false;
-    return outbox.subscribe(() => {
+    const check = () => {
       const signedOut = outbox.retryReason() === SIGNED_OUT_REASON;
       if (signedOut && !asked) void queryClient.invalidateQueries({ queryKey: authKeys.me() });
       asked = signedOut;
-    });
+    };
+    // This part of the shell loads after the page: a refusal that came before it is looked at at once.
+    check();
+    return outbox.subscribe(check);
   }, [outbox, queryClient]);
 }

@@ -9,7 +9,8 @@ setUpAppTests([() => import('@/app/routes/work-orders/work-order')]);
 
 // Worked by hand (common practice: money in whole cents, each line and the tax rounded to the cent, halves away from
 // zero): 2 × $19.99 = $39.98; 1.5 h × $95.00 = $142.50; subtotal $182.48; tax 8.25 % of $182.48 = $15.0546 → $15.05;
-// total $197.53.
+// total $197.53. The same arithmetic is checked against mathjs, an independent decimal library, in
+// tests/shared/calc/invoice.calc.test.ts.
 const OPEN = workOrder({
   shop: { ...workOrder().shop, taxRatePct: 8.25 },
   lines: [
