@@ -49,6 +49,18 @@ function SetupName({ setup }: { setup: Suggestion['baseSetup'] }) {
   );
 }
 
+/** The changes as the shop wrote them, on the setup it wrote them for, below what applies to the car today. */
+function AsSuggested({ base, cells }: { base: Suggestion['baseSetup']; cells: Suggestion['preview'] }) {
+  return (
+    <section aria-label="What the shop suggested" className="flex flex-col gap-2">
+      <p className="text-sm text-ink-muted">
+        As the shop suggested it, on <SetupName setup={base} />:
+      </p>
+      <ChangePreview cells={cells} />
+    </section>
+  );
+}
+
 /**
  * What the changes do to each corner. While open, when the car's setup has moved on since the shop wrote them, what
  * accepting now would record comes first, beside what was suggested; once accepted, what was recorded.
@@ -68,14 +80,7 @@ function ChangedValues({ suggestion }: { suggestion: Suggestion }) {
           </p>
           <ChangePreview cells={recorded.preview} />
         </section>
-        {sameStart ? null : (
-          <section aria-label="What the shop suggested" className="flex flex-col gap-2">
-            <p className="text-sm text-ink-muted">
-              As the shop suggested it, on <SetupName setup={baseSetup} />:
-            </p>
-            <ChangePreview cells={preview} />
-          </section>
-        )}
+        {sameStart ? null : <AsSuggested base={baseSetup} cells={preview} />}
       </div>
     );
   }
@@ -99,12 +104,7 @@ function ChangedValues({ suggestion }: { suggestion: Suggestion }) {
             <ChangePreview cells={now.preview} />
           )}
         </section>
-        <section aria-label="What the shop suggested" className="flex flex-col gap-2">
-          <p className="text-sm text-ink-muted">
-            As the shop suggested it, on <SetupName setup={baseSetup} />:
-          </p>
-          <ChangePreview cells={preview} />
-        </section>
+        <AsSuggested base={baseSetup} cells={preview} />
       </div>
     );
   }
