@@ -94,10 +94,18 @@ export async function restoreAccount(ds: DataSource, id: string): Promise<AdminA
  */
 export async function setAdmin(ds: DataSource, admin: User, id: string, isAdmin: boolean): Promise<AdminAccount> {
   if (id === admin.id && !isAdmin) throw new AppError('conflict', 'You cannot take the admin role from yourself; ask another admin.');
-  const rows: { id: string }[] = await ds.query(
-    'WITH done AS (UPDATE users SET is_admin = $2, updated_at = now() WHERE id = $1 AND closed_at IS NULL RETURNING id) SELECT id FROM done',
+  // The role is not given to a suspended account (it could not use it, and would have it on being restored); it
+  // can still be taken from one.
+  const rows: { id: string; suspended: boolean }[] = await ds.query(
+    `WITH done AS (
+       UPDATE users SET is_admin = $2, updated_at = now() WHERE id = $1 AND closed_at IS NULL AND (NOT $2 OR suspended_at IS NULL) RETURNING id
+     )
+     SELECT id, false AS suspended FROM done
+     UNION ALL
+     SELECT id, true FROM users WHERE id = $1 AND closed_at IS NULL AND suspended_at IS NOT NULL AND $2 AND NOT EXISTS (SELECT 1 FROM done)`,
     [id, isAdmin],
   );
+  if (rows[0]?.suspended) throw new AppError('conflict', 'This account is suspended: restore it before making it an admin.');
   if (!rows[0]) throw notFound('That account');
   return loadAccount(ds, id);
 }

@@ -184,6 +184,25 @@ describe('the admin role', () => {
     expect((await driver.c.get('/api/admin/users')).status).toBe(403);
   });
 
+  it('when the account is suspended, then the role is not given (409, nothing changes) but can still be taken', async () => {
+    const admin = await signedInClient(t, { isAdmin: true });
+    const driver = await signedInClient(t);
+    const other = await signedInClient(t, { isAdmin: true });
+    for (const who of [driver, other]) {
+      expect((await admin.c.post(`/api/admin/users/${who.user.id}/suspend`, { note: 'Shared a password' })).status).toBe(200);
+    }
+    const given = await admin.c.put(`/api/admin/users/${driver.user.id}/admin`, { isAdmin: true });
+    expect(given.status).toBe(409);
+    expect(given.body.error.code).toBe('conflict');
+    expect(given.body.error.message).toBe('This account is suspended: restore it before making it an admin.');
+    const rows = await t.ds.query('SELECT is_admin FROM users WHERE id = $1', [driver.user.id]);
+    expect(rows[0].is_admin).toBe(false);
+
+    const taken = await admin.c.put(`/api/admin/users/${other.user.id}/admin`, { isAdmin: false });
+    expect(taken.status).toBe(200);
+    expect(taken.body.roles).toEqual(['driver']);
+  });
+
   it('when an admin tries to take the role from themselves, then 409 and they stay an admin', async () => {
     const admin = await signedInClient(t, { isAdmin: true });
     const res = await admin.c.put(`/api/admin/users/${admin.user.id}/admin`, { isAdmin: false });
