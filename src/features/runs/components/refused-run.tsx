@@ -1,5 +1,6 @@
 import { Button } from '@/components/ui/button';
 import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
+import { refusalWords } from '@/lib/refusal-words';
 import { toast } from '@/lib/toast-store';
 import type { PendingState, RunRow } from '../utils/merge-runs';
 
@@ -7,15 +8,6 @@ interface RefusedRunProps {
   row: RunRow;
   failed: PendingState;
   onFix: () => void;
-}
-
-/**
- * Why the server refused a run not yet on it, or a change to one: its field messages when it gave any (they
- * say the same as its summary, more exactly), else the summary.
- */
-export function refusalWords(failed: PendingState): string {
-  const fields = Object.values(failed.error?.fieldErrors ?? {}).flat();
-  return fields.length ? fields.join(' ') : (failed.error?.message ?? 'the server refused it');
 }
 
 /**
@@ -47,7 +39,7 @@ export function RefusedRun({ row, failed, onFix }: RefusedRunProps) {
     <div role="alert" className="flex flex-col gap-2 rounded border border-warning-line bg-warning-surface p-2 text-sm">
       <p className="font-semibold text-warning">
         {failed.action === 'delete' ? 'Could not delete: ' : 'Not accepted: '}
-        {refusalWords(failed)}
+        {refusalWords(failed.error, 'the server refused it')}
       </p>
       <div className="flex flex-wrap gap-x-6 gap-y-2">
         {failed.action === 'delete' ? (

@@ -3,6 +3,7 @@ import { CloudUpload } from 'lucide-react';
 import type { OutboxEntry } from '@/lib/outbox';
 import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
 import { summariseOutbox } from '@/lib/outbox-summary';
+import { refusalWords } from '@/lib/refusal-words';
 import { useOnlineStatus } from '@/hooks/use-online-status';
 import { Link } from 'react-router-dom';
 import { Button, buttonClasses } from '@/components/ui/button';
@@ -21,14 +22,12 @@ function fixPlace(entry: OutboxEntry): string | null {
 function FailedEntry({ entry }: { entry: OutboxEntry }) {
   const outbox = useOutbox();
   const [confirming, setConfirming] = useState(false);
-  const fieldMessages = Object.values(entry.error?.fieldErrors ?? {}).flat();
   const fixAt = fixPlace(entry);
   return (
     <li className="flex flex-col gap-2 rounded border border-warning-line bg-warning-surface p-3">
       <p className="font-bold text-ink">{entry.label}</p>
       <p className="text-sm text-warning">
-        {/* The field messages say what the summary says, more exactly: one or the other, not both. */}
-        Refused: {fieldMessages.length ? fieldMessages.join(' ') : (entry.error?.message ?? 'the server did not accept it')}
+        Refused: {refusalWords(entry.error, 'the server did not accept it')}
       </p>
       <div className="flex flex-wrap gap-2">
         {confirming ? (
