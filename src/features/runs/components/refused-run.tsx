@@ -1,6 +1,6 @@
 import { Button } from '@/components/ui/button';
 import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
-import { refusalWords } from '@/lib/refusal-words';
+import { refusalWords } from '@/features/sync/utils/refusal-words';
 import { toast } from '@/lib/toast-store';
 import type { PendingState, RunRow } from '../utils/merge-runs';
 

@@ -3,7 +3,7 @@ import { CloudUpload } from 'lucide-react';
 import type { OutboxEntry } from '@/lib/outbox';
 import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
 import { summariseOutbox } from '@/lib/outbox-summary';
-import { refusalWords } from '@/lib/refusal-words';
+import { refusalWords } from '@/features/sync/utils/refusal-words';
 import { useOnlineStatus } from '@/hooks/use-online-status';
 import { Link } from 'react-router-dom';
 import { Button, buttonClasses } from '@/components/ui/button';

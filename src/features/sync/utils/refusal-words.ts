@@ -1,4 +1,4 @@
-import type { OutboxError } from './outbox';
+import type { OutboxError } from '@/lib/outbox';
 
 /**
  * Why the server refused a change waiting on the phone: its field messages when it gave any (they say what its
