@@ -1,10 +1,28 @@
 import { afterAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { openBrowser, screenshot, signIn, type OpenBrowser } from './browser';
 
 /** Moving between pages on a phone: each page a link opens starts at its top. */
 const baseUrl = inject('baseUrl');
 
 let browser: OpenBrowser | undefined;
+
+/**
+ * Scrolls to `y` (the foot of the page when left out) once the page has stopped growing, and gives where it
+ * settled. A page still drawing its later sections moves the reader's place with them (the browser keeps what
+ * is on screen in view), so a place read at once would not be the place the reader was left at.
+ */
+async function scrollOnceDrawn(page: Page, y?: number): Promise<number> {
+  await page.waitForFunction(
+    () =>
+      new Promise<boolean>((done) => {
+        const before = document.documentElement.scrollHeight;
+        setTimeout(() => done(document.documentElement.scrollHeight === before), 400);
+      }),
+  );
+  await page.evaluate((to) => window.scrollTo(0, to ?? document.documentElement.scrollHeight), y);
+  return page.evaluate(() => new Promise<number>((done) => requestAnimationFrame(() => requestAnimationFrame(() => done(window.scrollY)))));
+}
 
 afterAll(async () => {
   await browser?.close();
@@ -25,8 +43,7 @@ describe('moving between pages (390×844)', () => {
 
     await page.getByRole('link', { name: /Pebble/ }).first().click();
     await page.getByRole('heading', { name: 'Pebble', level: 1 }).waitFor();
-    await page.evaluate(() => window.scrollTo(0, document.documentElement.scrollHeight));
-    const carLeftAt = await page.evaluate(() => window.scrollY);
+    const carLeftAt = await scrollOnceDrawn(page);
     expect(carLeftAt).toBeGreaterThan(100);
     await page.getByRole('navigation').getByRole('link', { name: 'Calculators' }).last().click();
     await page.getByRole('heading', { name: 'Calculators', level: 1 }).waitFor();
@@ -42,16 +59,18 @@ describe('moving between pages (390×844)', () => {
   it('when the driver leaves a long page from far down for a short one and goes back, then the long page returns to that place, not cut short', async () => {
     const page = browser!.page;
     await page.getByRole('navigation').getByRole('link', { name: 'Cars' }).last().click();
+    // Wait for the list: a tap on the car page still showing would stand in place of it in the history.
+    await page.getByRole('heading', { name: 'Cars', level: 1 }).waitFor();
     await page.getByRole('link', { name: /Pebble/ }).first().click();
     await page.getByRole('heading', { name: 'Pebble', level: 1 }).waitFor();
     await page.getByRole('heading', { name: 'Change log' }).waitFor();
-    await page.evaluate(() => window.scrollTo(0, 2500));
-    const at = await page.evaluate(() => window.scrollY);
+    const at = await scrollOnceDrawn(page, 2500);
     expect(at).toBeGreaterThan(1500);
 
     // Event day is far shorter than the car page from where the driver was.
     await page.getByRole('navigation').getByRole('link', { name: 'Event day' }).last().click();
-    await page.getByRole('heading', { level: 1 }).first().waitFor();
+    await page.waitForURL((url) => !url.pathname.startsWith('/cars'));
+    await page.getByRole('heading', { name: 'Pebble', level: 1 }).waitFor({ state: 'detached' });
     await page.goBack();
     await page.getByRole('heading', { name: 'Pebble', level: 1 }).waitFor();
     await page.waitForFunction((y) => Math.abs(window.scrollY - y) <= 2, at, { timeout: 5_000 });
