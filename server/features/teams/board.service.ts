@@ -38,25 +38,31 @@ interface SetupRow {
   cold_pressure_kpa: number | null;
 }
 
-/** The latest season in which an entered car ran; the current year when none has. */
+/** The latest season in which a member ran an entered car; the current year when none has. */
 async function defaultSeason(ds: DataSource, teamId: string): Promise<number> {
   const rows: { season: number | null }[] = await ds.query(
     `SELECT max(extract(year FROM e.date))::int AS season
        FROM runs r
        JOIN team_entries te ON te.car_id = r.car_id AND te.team_id = $1
+       JOIN team_members tm ON tm.team_id = $1 AND tm.user_id = r.driver_id
        JOIN events e ON e.id = r.event_id`,
     [teamId],
   );
   return rows[0]?.season ?? new Date().getUTCFullYear();
 }
 
-/** Every run of every entered car at the season's events, each tied to its setup, in one query. */
+/**
+ * Every run driven by a member of the team in an entered car at the season's events, each tied to its setup, in
+ * one query. A co-driver who is not on the team is left out: entering the car shares its owner's results, and
+ * the co-driver's own are theirs to share by joining.
+ */
 function seasonRuns(ds: DataSource, teamId: string, season: number): Promise<BoardRunRow[]> {
   return ds.query(
     `SELECT r.car_id, r.driver_id, u.display_name AS driver_name, r.event_id, e.name AS event_name, e.date::text AS date,
             e.cone_penalty_sec, r.raw_time_sec, r.cones, r.status, r.setup_id
        FROM runs_with_setup r
        JOIN team_entries te ON te.car_id = r.car_id AND te.team_id = $1
+       JOIN team_members tm ON tm.team_id = $1 AND tm.user_id = r.driver_id
        JOIN events e ON e.id = r.event_id
        JOIN users u ON u.id = r.driver_id
       WHERE e.date >= make_date($2, 1, 1) AND e.date < make_date($2 + 1, 1, 1)

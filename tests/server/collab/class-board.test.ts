@@ -63,7 +63,8 @@ const at = (car: BoardCar, eventId: string, driverId: string): BoardResult => {
 
 /**
  * Team "Late Brakers", season 2025:
- *   Alpha (SR, Ann's, setup shared; Eve co-drives it), Bravo (SR, Ben's, results only), Delta (SH, Dee's, results only).
+ *   Alpha (SR, Ann's, setup shared; Eve, on the team, and Finn, not on it, co-drive it), Bravo (SR, Ben's, results
+ *   only), Delta (SH, Dee's, results only).
  *   The captain enters an SR factor of 0.842 and none for SH.
  */
 async function scenario() {
@@ -75,13 +76,15 @@ async function scenario() {
   const ben = await signedInClient(t, { displayName: 'Ben Braking' });
   const dee = await signedInClient(t, { displayName: 'Dee Drift' });
   const eve = await signedInClient(t, { displayName: 'Eve Early' });
-  for (const p of [ann, ben, dee]) {
+  const finn = await signedInClient(t, { displayName: 'Finn Outsider' });
+  for (const p of [ann, ben, dee, eve]) {
     await t.ds.query('INSERT INTO team_members (team_id, user_id) VALUES ($1, $2)', [teamId, p.user.id]);
   }
   const alpha = await carOf(ann.c, 'Alpha', 'SS');
   const bravo = await carOf(ben.c, 'Bravo', 'SS');
   const delta = await carOf(dee.c, 'Delta', 'SH');
   expect((await ann.c.post(`/api/cars/${alpha}/co-drivers`, { email: eve.email })).status).toBe(201);
+  expect((await ann.c.post(`/api/cars/${alpha}/co-drivers`, { email: finn.email })).status).toBe(201);
   // Entered in the team's own classes, which need not be the car's.
   for (const [p, carId, classCode, sharing] of [
     [ann, alpha, 'SR', 'results_and_setup'], [ben, bravo, 'SR', 'results'], [dee, delta, 'SH', 'results'],
@@ -128,6 +131,8 @@ async function scenario() {
   // Round 2, 2 s a cone. Alpha/Ann 48.000; Alpha/Eve 48.300; Bravo/Ben 48.600.
   await runs(alpha, e2, ann, '2025-05-04', [[48.0, 0]]);
   await runs(alpha, e2, eve, '2025-05-04', [[48.3, 0], [null, 0, 'off_course']]);
+  // Finn, who co-drives Alpha but is not on the team, is the quickest of the day: 47.700.
+  await runs(alpha, e2, finn, '2025-05-04', [[47.7, 0]]);
   await runs(bravo, e2, ben, '2025-05-04', [[48.6, 0]]);
   // Round 3, 1 s a cone. Alpha/Ann: 47.200+1 → 48.200 (with 2 s it would be 49.200, slower than the clean 48.500); 48.500.
   await runs(alpha, e3, ann, '2025-06-01', [[47.2, 1], [48.5, 0]]);
@@ -136,7 +141,7 @@ async function scenario() {
   // The season before: Delta only.
   await runs(delta, e0, dee, '2024-09-14', [[57.0, 0]]);
 
-  return { captain, teamId, ann, ben, dee, eve, alpha, bravo, delta, e0, e1, e2, e3 };
+  return { captain, teamId, ann, ben, dee, eve, finn, alpha, bravo, delta, e0, e1, e2, e3 };
 }
 
 let s: Awaited<ReturnType<typeof scenario>>;
@@ -218,6 +223,25 @@ describe('GET /api/teams/:teamId/board', () => {
     expect(alpha.results.map((r) => [r.eventName, r.driver.displayName])).toEqual([
       ['Round 1', 'Ann Apex'], ['Round 2', 'Ann Apex'], ['Round 2', 'Eve Early'], ['Round 3', 'Ann Apex'],
     ]);
+  });
+
+  it('when a car\'s co-driver is not on the team, then their runs are not on the board and count in no rank; once they join, they are', async () => {
+    const alpha = entered(board, s.alpha);
+    // Finn's 47.700 at Round 2 would have been the class's fastest; Ann's 48.000 stays first at 0 %.
+    expect(alpha.results.some((r) => r.driver.id === s.finn.user.id)).toBe(false);
+    expect(JSON.stringify(board)).not.toContain('Finn Outsider');
+    expect(at(alpha, s.e2, s.ann.user.id)).toMatchObject({ pctOffClassFastest: 0, rankInClass: 1 });
+
+    await t.ds.query('INSERT INTO team_members (team_id, user_id) VALUES ($1, $2)', [s.teamId, s.finn.user.id]);
+    try {
+      const joined = (await s.captain.c.get(`/api/teams/${s.teamId}/board?season=2025`)).body as ClassBoard;
+      const line = at(entered(joined, s.alpha), s.e2, s.finn.user.id);
+      expect(line).toMatchObject({ bestAdjustedSec: 47.7, pctOffClassFastest: 0, rankInClass: 1 });
+      // (48.000 − 47.700) / 47.700 × 100 = 0.62893 %: Ann is second now.
+      expect(at(entered(joined, s.alpha), s.e2, s.ann.user.id).pctOffClassFastest).toBeCloseTo((0.3 / 47.7) * 100, 9);
+    } finally {
+      await t.ds.query('DELETE FROM team_members WHERE team_id = $1 AND user_id = $2', [s.teamId, s.finn.user.id]);
+    }
   });
 
   it('when a car closes in or falls back, then its trend is the least-squares slope of its best % off per event', () => {
@@ -346,8 +370,9 @@ describe('the demo team\'s board', () => {
     ]);
     const biscuit = entered(b, b.classes[0]!.cars[0]!.car.id);
     const [gooseberry, pebble] = b.classes[1]!.cars;
-    // Eight events: Pebble has Maren and Teo each time, Biscuit Tin has Priya.
-    expect(pebble!.results).toHaveLength(16);
+    // Eight events: Pebble has Maren each time (Teo co-drives it but is not on the team), Biscuit Tin has Priya.
+    expect(pebble!.results).toHaveLength(8);
+    expect(pebble!.results.every((r) => r.driver.displayName === DEMO_ACCOUNTS.driver.displayName)).toBe(true);
     expect(biscuit!.results).toHaveLength(8);
     expect(pebble!.setup).toMatchObject({ frontCamberDeg: -2.4 }); // the camber arms are on by the last event
     expect(biscuit!.setup).toBeNull();
