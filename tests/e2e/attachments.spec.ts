@@ -29,7 +29,8 @@ describe('photos on a tread reading (phone)', () => {
     browser = await openBrowser('phone');
     const page = await signIn(browser.page, baseUrl, 'maren@example.com', 'Maren Holloway');
 
-    await page.getByRole('link', { name: /Pebble/ }).first().click();
+    // From "Your cars": a suggestion waiting on Pebble is a link that names the car too.
+    await page.getByRole('region', { name: 'Your cars' }).getByRole('link', { name: /Pebble/ }).first().click();
     await page.getByRole('link', { name: 'Enter tread', exact: true }).click();
     const readings = page.getByRole('list', { name: 'Latest reading of each set' });
     await readings.waitFor({ timeout: 20_000 });
