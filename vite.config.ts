@@ -102,7 +102,13 @@ export default defineConfig({
     }),
   ],
   resolve: {
-    alias: { '@': r('./src'), '@shared': r('./shared') },
+    alias: [
+      { find: '@', replacement: r('./src') },
+      { find: '@shared', replacement: r('./shared') },
+      // The router's own production build: its package names only the build with development warnings.
+      { find: /^react-router$/, replacement: r('./node_modules/react-router/dist/production/index.mjs') },
+      { find: /^react-router\/dom$/, replacement: r('./node_modules/react-router/dist/production/dom-export.mjs') },
+    ],
   },
   server: {
     port: 5173,
