@@ -14,8 +14,12 @@ import { previewChanges } from '../utils/change-rows';
 import { ChangePreview } from './change-preview';
 import { setupOnCarPage } from './suggestion-details';
 import { TextArea } from './text-area';
+import { UnusualValues, valuesBefore } from './unusual-values';
 
 type Errors = Record<string, string>;
+
+/** The values the changes would apply to if accepted now: the setup the car runs on now, when it can take them. */
+const valuesNow = ({ now, preview }: Suggestion) => valuesBefore(now && now.problems.length === 0 ? now.preview : preview);
 
 /** A failed decision as field messages and a message for the whole form. */
 function problemsOf(error: unknown): { fields: Errors; form: string | null } {
@@ -85,6 +89,7 @@ function AcceptForm({ suggestion, onCancel, onAccepted }: { suggestion: Suggesti
           <ChangePreview cells={previewChanges(moved, suggestion.changes)} />
         </section>
       ) : null}
+      <UnusualValues side="driver" changes={suggestion.changes} current={start ? start.corners : valuesNow(suggestion)} />
       <TextField
         label="Label for the new setup (optional)"
         placeholder={suggestion.title}
@@ -179,13 +184,16 @@ export function DecisionPanel({ suggestion, onAccepted }: { suggestion: Suggesti
   }
   if (choice === 'decline') return <DeclineForm suggestion={suggestion} onCancel={() => setChoice(null)} />;
   return (
-    <div className="flex flex-wrap gap-3">
-      <Button onClick={() => setChoice('accept')}>
-        <Check aria-hidden="true" className="size-5" /> Accept
-      </Button>
-      <Button variant="secondary" onClick={() => setChoice('decline')}>
-        Decline
-      </Button>
+    <div className="flex flex-col gap-3">
+      <UnusualValues side="driver" changes={suggestion.changes} current={valuesNow(suggestion)} />
+      <div className="flex flex-wrap gap-3">
+        <Button onClick={() => setChoice('accept')}>
+          <Check aria-hidden="true" className="size-5" /> Accept
+        </Button>
+        <Button variant="secondary" onClick={() => setChoice('decline')}>
+          Decline
+        </Button>
+      </div>
     </div>
   );
 }

@@ -21,6 +21,7 @@ import { CORNER_SETS, FIELD_LABELS, newChangeRow, outOfRange, previewChanges, ro
 import { deltaHint, examplePlaceholder } from '../utils/delta-hint';
 import { FromTo } from './change-preview';
 import { TextArea } from './text-area';
+import { UnusualValues } from './unusual-values';
 
 type Errors = Record<string, string>;
 
@@ -188,6 +189,7 @@ export function SuggestionForm({ carId, base, onCreated }: SuggestionFormProps) 
   // The changes that are complete so far, for each row's preview to build on.
   const built = rows.map((r) => rowToChange(r, units).change);
   const beforeRow = (index: number) => built.slice(0, index).filter((c): c is SuggestionChange => c !== null);
+  const complete = built.filter((c): c is SuggestionChange => c !== null);
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -289,6 +291,7 @@ export function SuggestionForm({ carId, base, onCreated }: SuggestionFormProps) 
           </Button>
         </div>
       ) : null}
+      <UnusualValues side="shop" changes={complete} current={base.corners} />
       <Caution>
         <p>
           Alignment, suspension and pressure changes must stay within the vehicle and tyre makers’ data and the event’s rules, and
