@@ -180,8 +180,9 @@ const groupKey = (n: number | null) => (n === null ? '-' : n.toFixed(6));
 
 /**
  * The cautions for a suggestion's changes, worked against the values on the car now (`current`: the setup the changes
- * apply to, or null when unknown). A value past the limits a setup may hold has no caution: it is refused. Several changes to the same value on a corner count as one step, from the value
- * now to where the last leaves it. Corners with the same finding and the same numbers share one caution.
+ * apply to, or null when unknown). Several changes to the same value on a corner count as one step, from the value now
+ * to where the last leaves it. Corners with the same finding and the same numbers share one caution. A value past the
+ * limits a setup may hold has none: it is refused as a typo.
  */
 export function suggestionCautions(changes: readonly SuggestionChange[], current: PerCorner<SetupCorner> | null | undefined): SuggestionCaution[] {
   const found = new Map<string, SuggestionCaution>();

@@ -52,12 +52,14 @@ describe('suggestionCautions: values far from the usual', () => {
     expect(rules([on('coldPressureKpa', ['rr'], { value: 44 * KPA_PER_PSI })])).toEqual([]);
   });
 
-  it('when a value is past the limits a setup may hold (camber −20°, 500 kPa), then it has no caution: it is refused as a typo elsewhere', () => {
+  it('when a value is past the limits a setup may hold (camber −20°, 500 kPa), then it has no caution, being refused as a typo elsewhere; just inside them (−9.9°, 450 kPa), then it has', () => {
     expect(rules([on('camberDeg', ['lf'], { value: -20 }), on('coldPressureKpa', ['lf'], { value: 500 })])).toEqual([]);
+    expect(rules([on('camberDeg', ['lf'], { value: -9.9 }), on('coldPressureKpa', ['lf'], { value: 450 })])).toEqual(['camber-negative', 'pressure-high']);
   });
 
-  it('when clicks or corner weights change by a lot, then there is no caution: their range depends on the damper and the car', () => {
-    expect(rules([on('damperClicks', ['lf'], { value: 30 }), on('cornerWeightKg', ['lf'], { delta: 200 })], car({ damperClicks: 2, cornerWeightKg: 300 }))).toEqual([]);
+  it('when clicks or corner weights change by a lot beside a large camber change, then only the camber is cautioned: their range depends on the damper and the car', () => {
+    const changes = [on('damperClicks', ['lf'], { value: 30 }), on('cornerWeightKg', ['lf'], { delta: 200 }), on('camberDeg', ['lf'], { delta: -5 })];
+    expect(rules(changes, car({ damperClicks: 2, cornerWeightKg: 300, camberDeg: -1 }))).toEqual(['camber-negative']);
   });
 });
 
@@ -75,8 +77,10 @@ describe('suggestionCautions: steps far larger than usual', () => {
     expect(rules([on('coldPressureKpa', ['lr', 'rr'], { value: 170 })], car({ coldPressureKpa: 210 }))).toEqual([]);
   });
 
-  it(`when a value is set with nothing recorded on the car, then its step is unknown and not cautioned (${STEP})`, () => {
-    expect(rules([on('coldPressureKpa', ['lf'], { value: 200 }), on('coldPressureKpa', ['lf'], { delta: 10 })], null)).toEqual([]);
+  it(`when a value is set with nothing recorded on the car, then its step is unknown and not cautioned; with 150 kPa recorded, then 150 → 210 kPa is (${STEP})`, () => {
+    const changes = [on('coldPressureKpa', ['lf'], { value: 200 }), on('coldPressureKpa', ['lf'], { delta: 10 })];
+    expect(rules(changes, null)).toEqual([]);
+    expect(suggestionCautions(changes, car({ coldPressureKpa: 150 }))).toMatchObject([{ rule: 'pressure-step', from: 150, to: 210, change: 60 }]);
   });
 
   it(`when two changes of −30 kPa each fall on the same corner, then they count as one −60 kPa step (${STEP})`, () => {
