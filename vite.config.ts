@@ -195,7 +195,9 @@ export default defineConfig({
           environment: 'node',
           globalSetup: ['tests/e2e/global-setup.ts'],
           setupFiles: ['tests/e2e/failure-report.ts'],
-          testTimeout: 60_000,
+          // A test walking through a dozen screens takes half a minute on two busy cores; each wait inside it
+          // still gives up on its own after 30 s, so a stuck page is reported there, not here.
+          testTimeout: 120_000,
           hookTimeout: 120_000,
           fileParallelism: false,
         },
