@@ -24,6 +24,7 @@ import { AccountSuspension1765324800000 } from './migrations/1765324800000-accou
 import { EmailChanges1765411200000 } from './migrations/1765411200000-email-changes';
 import { ClosedAccounts1765497600000 } from './migrations/1765497600000-closed-accounts';
 import { CoDriverNotice1765584000000 } from './migrations/1765584000000-co-driver-notice';
+import { UsedUpParts1765670400000 } from './migrations/1765670400000-used-up-parts';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -37,6 +38,7 @@ export const migrations = [
   SessionAccountIndex1765238400000, AccountSuspension1765324800000, EmailChanges1765411200000,
   ClosedAccounts1765497600000,
   CoDriverNotice1765584000000,
+  UsedUpParts1765670400000,
 ];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */

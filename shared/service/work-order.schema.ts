@@ -49,24 +49,37 @@ export type UpdateWorkOrderInput = z.infer<typeof updateWorkOrderInputSchema>;
 
 export const workOrderListQuerySchema = z.strictObject({ status: z.optional(z.enum(WORK_ORDER_STATUSES)) });
 
-/** A part (quantity × unit price) or labour (hours × hourly rate). */
-export const workOrderLineSchema = z.strictObject({
-  kind: z.enum(LINE_KINDS, { error: 'Pick part or labour' }),
-  description: z
-    .string({ error: 'Describe the line' })
-    .check(z.trim(), z.minLength(1, 'Describe the line'), z.maxLength(200, 'Use at most 200 characters')),
-  /** Pieces for a part, hours for labour; up to two decimals. */
-  quantity: z
-    .number({ error: 'Quantity must be a number' })
-    .check(
-      z.gt(0, 'Quantity must be above 0'),
-      z.lte(99999, 'Quantity must be at most 99999'),
-      z.refine((q) => Math.abs(q * 100 - Math.round(q * 100)) < 1e-6, 'Use at most two decimals'),
-    ),
-  unitPriceCents: z
-    .number({ error: 'Price must be a number of cents' })
-    .check(z.int('Price must be a whole number of cents'), z.gte(0, 'Price cannot be negative'), z.lte(100_000_000, 'Price is too large')),
-});
+/**
+ * A part (quantity × unit price) or labour (hours × hourly rate). A part either stays on the car (camber arms, springs)
+ * or is used up in the work (brake fluid, shop supplies, balancing weights): both are billed, only parts that stay
+ * become changes on the car. Labour is never used up.
+ */
+export const workOrderLineSchema = z
+  .strictObject({
+    kind: z.enum(LINE_KINDS, { error: 'Pick part or labour' }),
+    description: z
+      .string({ error: 'Describe the line' })
+      .check(z.trim(), z.minLength(1, 'Describe the line'), z.maxLength(200, 'Use at most 200 characters')),
+    /** Pieces for a part, hours for labour; up to two decimals. */
+    quantity: z
+      .number({ error: 'Quantity must be a number' })
+      .check(
+        z.gt(0, 'Quantity must be above 0'),
+        z.lte(99999, 'Quantity must be at most 99999'),
+        z.refine((q) => Math.abs(q * 100 - Math.round(q * 100)) < 1e-6, 'Use at most two decimals'),
+      ),
+    unitPriceCents: z
+      .number({ error: 'Price must be a number of cents' })
+      .check(z.int('Price must be a whole number of cents'), z.gte(0, 'Price cannot be negative'), z.lte(100_000_000, 'Price is too large')),
+    /** True for a part used up in the work; left out or false, the part stays on the car. */
+    usedUp: z.optional(z.boolean({ error: 'Say whether the part is used up: true or false' })),
+  })
+  .check(
+    z.refine((l) => !(l.kind === 'labour' && l.usedUp === true), {
+      message: 'Only a part can be used up, not labour',
+      path: ['usedUp'],
+    }),
+  );
 export type WorkOrderLineInput = z.infer<typeof workOrderLineSchema>;
 
 export const replaceLinesInputSchema = z.strictObject({
@@ -184,6 +197,8 @@ export interface WorkOrderLine {
   description: string;
   quantity: number;
   unitPriceCents: number;
+  /** A part used up in the work, billed but not fitted to the car; always false for labour. */
+  usedUp: boolean;
   /** quantity × unit price, rounded to the cent. */
   totalCents: number;
 }

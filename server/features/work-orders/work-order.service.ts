@@ -68,8 +68,8 @@ const emptyMeasured = (): MeasuredCorner => Object.fromEntries(MEASUREMENT_FIELD
 /** The whole visit, with the balance, the before→after diff and the build-sheet checks worked out. */
 export async function loadWorkOrder(db: Queryable, workOrderId: string): Promise<WorkOrder> {
   const w = await loadRow(db, workOrderId);
-  const lines: { kind: 'part' | 'labour'; description: string; quantity: string; unit_price_cents: number }[] = await db.query(
-    'SELECT kind, description, quantity, unit_price_cents FROM work_order_lines WHERE work_order_id = $1 ORDER BY position',
+  const lines: { kind: 'part' | 'labour'; description: string; quantity: string; unit_price_cents: number; used_up: boolean }[] = await db.query(
+    'SELECT kind, description, quantity, unit_price_cents, used_up FROM work_order_lines WHERE work_order_id = $1 ORDER BY position',
     [workOrderId],
   );
   const stageRows: { stage: Stage; measured_at: Date | null; driver_in_car: boolean; driver_weight_kg: number | null; fuel_level_pct: number | null }[] =
@@ -115,7 +115,14 @@ export async function loadWorkOrder(db: Queryable, workOrderId: string): Promise
 
   const outLines = lines.map((l) => {
     const quantity = Number(l.quantity);
-    return { kind: l.kind, description: l.description, quantity, unitPriceCents: l.unit_price_cents, totalCents: invoiceLineCents({ quantity, unitPriceCents: l.unit_price_cents }) };
+    return {
+      kind: l.kind,
+      description: l.description,
+      quantity,
+      unitPriceCents: l.unit_price_cents,
+      usedUp: l.used_up,
+      totalCents: invoiceLineCents({ quantity, unitPriceCents: l.unit_price_cents }),
+    };
   });
   const sum = (kind: string) => outLines.filter((l) => l.kind === kind).reduce((a, l) => a + l.totalCents, 0);
   return {
@@ -271,8 +278,9 @@ export async function replaceLines(ds: DataSource, user: User, workOrderId: stri
     await m.query('DELETE FROM work_order_lines WHERE work_order_id = $1', [workOrderId]);
     for (const [position, l] of input.lines.entries()) {
       await m.query(
-        'INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES ($1, $2, $3, $4, $5, $6)',
-        [workOrderId, l.kind, l.description, l.quantity, l.unitPriceCents, position],
+        'INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, used_up, position) VALUES ($1, $2, $3, $4, $5, $6, $7)',
+        // The schema refuses a used-up labour line; left out, a part stays on the car.
+        [workOrderId, l.kind, l.description, l.quantity, l.unitPriceCents, l.usedUp ?? false, position],
       );
     }
   });
@@ -328,7 +336,8 @@ const trimTo = (s: string, max: number) => (s.length <= max ? s : `${s.slice(0, 
 /**
  * Closes the visit in one transaction: a new setup snapshot on the car (the one in force at
  * handover with the after-measurements and the build sheet's springs and clicks laid over it),
- * one change-log entry per part fitted, the visit marked closed, and the drivers notified.
+ * one change-log entry per part fitted (not for parts used up in the work, which are only billed), the visit marked
+ * closed, and the drivers notified.
  * Existing snapshots and runs are never touched. E-mails go after the commit.
  */
 export async function closeWorkOrder(
@@ -388,7 +397,8 @@ export async function closeWorkOrder(
     const { id: setupId } = await insertSnapshot(m, user, w.car_id, snapshot);
     await m.query('UPDATE setup_snapshots SET work_order_id = $2 WHERE id = $1', [setupId, workOrderId]);
 
-    for (const line of visit.lines.filter((l) => l.kind === 'part')) {
+    // Only what stays on the car is a change to it: brake fluid or shop supplies used up in the work are billed, not fitted.
+    for (const line of visit.lines.filter((l) => l.kind === 'part' && !l.usedUp)) {
       await m.query(
         `INSERT INTO change_log (car_id, changed_on, what, location, setup_id, created_by, work_order_id)
          VALUES ($1, $2, $3, 'car', $4, $5, $6)`,

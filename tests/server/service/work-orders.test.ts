@@ -15,6 +15,7 @@ import { createDataSource } from '../../../server/db/data-source';
 import { DEMO_CAMBER_ARMS_DATE } from '../../../server/db/demo-season';
 import { DEMO_SHOP } from '../../../server/db/demo-accounts';
 import { loadWorkOrder } from '../../../server/features/work-orders/work-order.service';
+import { UsedUpParts1765670400000 } from '../../../server/db/migrations/1765670400000-used-up-parts';
 
 let t: TestApp;
 let mail: ReturnType<typeof captureMail>;
@@ -186,8 +187,8 @@ describe('editing a visit', () => {
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     // 2 × 189.50 = 379.00; 2.5 h × 95.00 = 237.50.
     expect(res.body.lines).toEqual([
-      { kind: 'part', description: 'Adjustable front camber arm', quantity: 2, unitPriceCents: 18950, totalCents: 37900 },
-      { kind: 'labour', description: 'Fit arms and four-wheel alignment', quantity: 2.5, unitPriceCents: 9500, totalCents: 23750 },
+      { kind: 'part', description: 'Adjustable front camber arm', quantity: 2, unitPriceCents: 18950, usedUp: false, totalCents: 37900 },
+      { kind: 'labour', description: 'Fit arms and four-wheel alignment', quantity: 2.5, unitPriceCents: 9500, usedUp: false, totalCents: 23750 },
     ]);
     expect(res.body.totals).toEqual({ partsCents: 37900, labourCents: 23750, subtotalCents: 61650 });
     expectFieldErrors(
@@ -195,6 +196,52 @@ describe('editing a visit', () => {
       ['lines.0.kind', 'lines.0.description', 'lines.0.quantity', 'lines.0.unitPriceCents'],
     );
     expect(await countOf(t, 'SELECT count(*) AS n FROM work_order_lines WHERE work_order_id = $1', [workOrder.id])).toBe(2);
+  });
+
+  it('when a part is marked used up, then it reads back used up; a part sent without the flag, and labour, stay on the car', async () => {
+    const { staff, workOrder } = await openVisit();
+    const res = await staff.c.put(`/api/work-orders/${workOrder.id}/lines`, {
+      lines: [
+        { kind: 'part', description: 'Brake fluid, 1 l', quantity: 1, unitPriceCents: 1800, usedUp: true },
+        { kind: 'part', description: 'Adjustable front camber arm', quantity: 2, unitPriceCents: 18950 },
+        { kind: 'part', description: 'Rear toe arm', quantity: 2, unitPriceCents: 9900, usedUp: false },
+        { kind: 'labour', description: 'Bleed brakes', quantity: 0.5, unitPriceCents: 9500, usedUp: false },
+      ],
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.lines.map((l: { description: string; usedUp: boolean }) => [l.description, l.usedUp])).toEqual([
+      ['Brake fluid, 1 l', true],
+      ['Adjustable front camber arm', false],
+      ['Rear toe arm', false],
+      ['Bleed brakes', false],
+    ]);
+    // Used up or not, a part is billed as a part.
+    expect(res.body.totals).toEqual({ partsCents: 1800 + 37900 + 19800, labourCents: 4750, subtotalCents: 1800 + 37900 + 19800 + 4750 });
+    const stored = await t.ds.query('SELECT description, used_up FROM work_order_lines WHERE work_order_id = $1 ORDER BY position', [workOrder.id]);
+    expect(stored.map((r: { used_up: boolean }) => r.used_up)).toEqual([true, false, false, false]);
+  });
+
+  it('when labour is marked used up, or the flag is not true or false, then 400 at that line\'s field and the lines stay as they were', async () => {
+    const { staff, workOrder } = await openVisit();
+    const url = `/api/work-orders/${workOrder.id}/lines`;
+    expect((await staff.c.put(url, LINES)).status).toBe(200);
+    const errors = expectFieldErrors(
+      await staff.c.put(url, {
+        lines: [
+          { kind: 'labour', description: 'Alignment', quantity: 1, unitPriceCents: 9000, usedUp: true },
+          { kind: 'part', description: 'Shop supplies', quantity: 1, unitPriceCents: 500, usedUp: 'yes' },
+          { kind: 'part', description: 'Cable ties', quantity: 1, unitPriceCents: 100, usedUp: null },
+        ],
+      }),
+      ['lines.0.usedUp', 'lines.1.usedUp', 'lines.2.usedUp'],
+    );
+    expect(errors['lines.0.usedUp']).toEqual(['Only a part can be used up, not labour']);
+    // The database refuses a used-up labour line too, whatever writes it.
+    await expect(
+      t.ds.query(`INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, used_up, position) VALUES ($1, 'labour', 'x', 1, 1, true, 9)`, [workOrder.id]),
+    ).rejects.toThrow(/work_order_lines_used_up_part_check/);
+    const lines = (await staff.c.get(`/api/work-orders/${workOrder.id}`)).body.lines as { description: string; usedUp: boolean }[];
+    expect(lines.map((l) => [l.description, l.usedUp])).toEqual([['Adjustable front camber arm', false], ['Fit arms and four-wheel alignment', false]]);
   });
 
   it('when a line lands on half a cent, then the work order rounds it as the invoice will (half away from zero)', async () => {
@@ -380,6 +427,36 @@ describe('POST /api/work-orders/:workOrderId/close', () => {
     await expect.poll(() => mail.sent.filter((m) => m.subject === 'The shop has finished work on Blue roadster' && m.text.includes(VISIT.requestedWork)).length).toBeGreaterThanOrEqual(2);
   });
 
+  it('when a visit with parts used up in the work is closed, then only the parts that stay on the car become changes; the used-up ones are still on the visit and its invoice', async () => {
+    const { driver, staff, url } = await readyVisit();
+    const lines = {
+      lines: [
+        ...LINES.lines,
+        { kind: 'part', description: 'Brake fluid, 1 l', quantity: 1, unitPriceCents: 1800, usedUp: true },
+        { kind: 'part', description: 'Wheel balancing weights', quantity: 8, unitPriceCents: 50, usedUp: true },
+        { kind: 'part', description: 'Rear toe arm', quantity: 2, unitPriceCents: 9900, usedUp: false },
+      ],
+    };
+    expect((await staff.c.put(`${url}/lines`, lines)).status).toBe(200);
+    const res = await staff.c.post(`${url}/close`, { handoverAt: '2026-06-12T16:30:00Z' });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+
+    const changes = await t.ds.query('SELECT what FROM change_log WHERE car_id = $1 ORDER BY id', [driver.carId]);
+    expect(changes.map((c: { what: string }) => c.what).sort()).toEqual(['Fitted: Adjustable front camber arm ×2', 'Fitted: Rear toe arm ×2']);
+    // The driver's own read of the car's changes says the same.
+    const read = await driver.c.get(`/api/cars/${driver.carId}/changes`);
+    expect(read.status, JSON.stringify(read.body)).toBe(200);
+    expect(JSON.stringify(read.body)).not.toMatch(/Brake fluid|balancing weights/);
+
+    const visit = (await driver.c.get(url)).body as { lines: { description: string; usedUp: boolean }[] };
+    expect(visit.lines.filter((l) => l.usedUp).map((l) => l.description)).toEqual(['Brake fluid, 1 l', 'Wheel balancing weights']);
+    const invoice = await staff.c.post(`${url}/invoice`);
+    expect(invoice.status, JSON.stringify(invoice.body)).toBe(201);
+    expect(invoice.body.lines.map((l: { description: string }) => l.description)).toEqual(lines.lines.map((l) => l.description));
+    // 379.00 + 237.50 + 18.00 + 8 × 0.50 + 2 × 99.00, no tax set.
+    expect(invoice.body.subtotalCents).toBe(37900 + 23750 + 1800 + 400 + 19800);
+  });
+
   it('when the visit is closed a second time, or edited after closing, then 409 and nothing more is written', async () => {
     const { driver, staff, url } = await readyVisit();
     expect((await staff.c.post(`${url}/close`, { handoverAt: '2026-06-12T16:30:00Z' })).status).toBe(200);
@@ -517,6 +594,40 @@ describe('the demo visits', () => {
       expect(open.buildSheet.checks.lf?.droop?.seated).toBe(false);
       // 330 − 350 = −20 mm: beyond the shop's default 15 mm.
       expect(open.buildSheet.checks.lr?.compressedLength).toEqual({ differenceMm: -20, withinTolerance: false });
+    } finally {
+      await ds.destroy();
+      await db.drop();
+    }
+  }, 60_000);
+
+  it('when lines were written before a part could be marked used up, then they stay on the car: the demo\'s, and those already stored when the column is added', async () => {
+    const db = await seededDatabaseUrl();
+    const ds = createDataSource(db.url, { poolSize: 1 });
+    await ds.initialize();
+    try {
+      const [closed, open] = (await ds.query('SELECT id FROM work_orders ORDER BY visit_date')) as { id: string }[];
+      // The demo writes its lines without the flag.
+      expect((await loadWorkOrder(ds, closed!.id)).lines.map((l) => [l.kind, l.usedUp])).toEqual([['part', false], ['labour', false]]);
+
+      // Back to the table as it was before the flag, a line written as the app wrote it then, and the column added again.
+      const migration = new UsedUpParts1765670400000();
+      const runner = ds.createQueryRunner();
+      try {
+        await migration.down(runner);
+        await runner.query(
+          `INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES ($1, 'part', 'Bump stop, 25 mm', 4, 1200, 3)`,
+          [open!.id],
+        );
+        await migration.up(runner);
+      } finally {
+        await runner.release();
+      }
+      expect((await loadWorkOrder(ds, open!.id)).lines.map((l) => [l.description, l.usedUp])).toEqual([
+        ['Main spring 70 N/mm, 178 mm free', false],
+        ['Helper spring 10 N/mm', false],
+        ['Coilover fit and build', false],
+        ['Bump stop, 25 mm', false],
+      ]);
     } finally {
       await ds.destroy();
       await db.drop();

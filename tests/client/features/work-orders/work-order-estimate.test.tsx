@@ -14,8 +14,8 @@ setUpAppTests([() => import('@/app/routes/work-orders/work-order')]);
 const OPEN = workOrder({
   shop: { ...workOrder().shop, taxRatePct: 8.25 },
   lines: [
-    { kind: 'part', description: 'Camber bolts', quantity: 2, unitPriceCents: 1999, totalCents: 3998 },
-    { kind: 'labour', description: 'Alignment', quantity: 1.5, unitPriceCents: 9500, totalCents: 14250 },
+    { kind: 'part', description: 'Camber bolts', quantity: 2, unitPriceCents: 1999, usedUp: false, totalCents: 3998 },
+    { kind: 'labour', description: 'Alignment', quantity: 1.5, unitPriceCents: 9500, usedUp: false, totalCents: 14250 },
   ],
   totals: { partsCents: 3998, labourCents: 14250, subtotalCents: 18248 },
 });

@@ -224,7 +224,7 @@ describe('closing a visit, asked twice', () => {
 
 describe('the work order page for the driver', () => {
   it('when the driver opens an open work order, then it reads without any edit controls and offers comments', async () => {
-    stubDriver({ [`GET ${WO}`]: jsonResponse(200, workOrder({ lines: [{ kind: 'part', description: 'Camber bolts', quantity: 2, unitPriceCents: 2435, totalCents: 4870 }], totals: { partsCents: 4870, labourCents: 0, subtotalCents: 4870 } })) });
+    stubDriver({ [`GET ${WO}`]: jsonResponse(200, workOrder({ lines: [{ kind: 'part', description: 'Camber bolts', quantity: 2, unitPriceCents: 2435, usedUp: false, totalCents: 4870 }], totals: { partsCents: 4870, labourCents: 0, subtotalCents: 4870 } })) });
     renderApp(PATH);
     expect(await screen.findByRole('heading', { name: 'Grey roadster' })).toBeTruthy();
     expect(screen.getByText('Camber bolts')).toBeTruthy();
