@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { Plus, Trash2 } from 'lucide-react';
 import type { LineKind, WorkOrder } from '@shared/service/work-order.schema';
 import { Button } from '@/components/ui/button';
@@ -11,9 +11,28 @@ import { splitErrors } from '../utils/field-errors';
 import { centsToMajorText, majorToCents } from '@/lib/money';
 import { invoiceTotals } from '@shared/calc/invoice.calc';
 import { LINE_KIND_WORDS, LineItemsTable } from '@/components/line-items/line-items-table';
+import { cn } from '@/lib/cn';
 
 /** "8.25 %": the rate as the shop set it. */
 const percent = (rate: number) => `${new Intl.NumberFormat('en', { maximumFractionDigits: 4 }).format(rate)} %`;
+
+/** How a used-up part reads on the sheet, so nobody takes it for something fitted to the car. */
+const USED_UP_MARK = ' (used up, not fitted)';
+
+/** The lines as the table shows them: a part used up in the work says so beside its description. */
+const shownLines = (workOrder: WorkOrder) =>
+  workOrder.lines.map((l) => (l.usedUp ? { ...l, description: `${l.description}${USED_UP_MARK}` } : l));
+
+/** Under the table when a part was used up: why it is billed but missing from the car's change log. */
+function UsedUpNote({ workOrder }: { workOrder: WorkOrder }) {
+  if (!workOrder.lines.some((l) => l.usedUp)) return null;
+  return (
+    <p className="text-sm text-ink-muted">
+      Parts marked “used up” were consumed in the work (fluids, supplies): they are billed, but they are not changes to the car,
+      so the car’s change log lists only the parts fitted.
+    </p>
+  );
+}
 
 /**
  * Parts and labour as everyone reads them, with the totals. While the visit is open, a running estimate: each line's
@@ -30,7 +49,7 @@ export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; curr
         <LineItemsTable
           caption="Parts and labour, estimate"
           currency={currency}
-          lines={workOrder.lines.map((l, i) => ({ ...l, amountCents: estimate.lineCents[i]! }))}
+          lines={shownLines(workOrder).map((l, i) => ({ ...l, amountCents: estimate.lineCents[i]! }))}
           totals={[
             { label: 'Parts', cents: partsCents },
             { label: 'Labour', cents: labourCents },
@@ -43,20 +62,81 @@ export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; curr
             { label: 'Estimated total', cents: estimate.totalCents, weight: 'total' },
           ]}
         />
+        <UsedUpNote workOrder={workOrder} />
       </div>
     );
   }
   return (
-    <LineItemsTable
-      caption="Parts and labour"
-      currency={currency}
-      lines={workOrder.lines.map((l) => ({ ...l, amountCents: l.totalCents }))}
-      totals={[
-        { label: 'Parts', cents: partsCents },
-        { label: 'Labour', cents: labourCents },
-        { label: 'Subtotal', cents: workOrder.totals.subtotalCents, weight: 'strong' },
-      ]}
-    />
+    <div className="flex flex-col gap-2">
+      <LineItemsTable
+        caption="Parts and labour"
+        currency={currency}
+        lines={shownLines(workOrder).map((l) => ({ ...l, amountCents: l.totalCents }))}
+        totals={[
+          { label: 'Parts', cents: partsCents },
+          { label: 'Labour', cents: labourCents },
+          { label: 'Subtotal', cents: workOrder.totals.subtotalCents, weight: 'strong' },
+        ]}
+      />
+      <UsedUpNote workOrder={workOrder} />
+    </div>
+  );
+}
+
+const PART_USES = [
+  { usedUp: false, label: 'Stays on the car', hint: 'Fitted, like arms or springs: it goes into the car’s change log.' },
+  { usedUp: true, label: 'Used up in the work', hint: 'Like fluid, shop supplies or balancing weights: billed only.' },
+] as const;
+
+/**
+ * Whether a part stays on the car or is used up in the work: two large radio buttons (48 px tall, the whole box
+ * tappable), each named by its short label and described by its example.
+ */
+function PartUseChoice({ usedUp, error, onChange }: { usedUp: boolean; error?: string; onChange: (usedUp: boolean) => void }) {
+  const id = useId();
+  return (
+    <fieldset className="flex min-w-0 flex-col gap-1" aria-describedby={error ? `${id}-error` : undefined}>
+      <legend className="mb-1 text-sm font-semibold">After the work, this part is</legend>
+      <div className="grid gap-2 sm:grid-cols-2">
+        {PART_USES.map((use) => {
+          const checked = use.usedUp === usedUp;
+          const key = use.usedUp ? 'used-up' : 'stays';
+          return (
+            <label
+              key={key}
+              className={cn(
+                // The same border width either way, so choosing moves nothing.
+                'flex min-h-12 cursor-pointer items-center gap-3 rounded border-2 px-3 py-2',
+                checked ? 'border-accent bg-accent-soft' : 'border-line-strong bg-surface',
+              )}
+            >
+              <input
+                type="radio"
+                name={id}
+                className="size-5 shrink-0"
+                checked={checked}
+                aria-labelledby={`${id}-${key}`}
+                aria-describedby={`${id}-${key}-hint`}
+                onChange={() => onChange(use.usedUp)}
+              />
+              <span className="flex flex-col">
+                <span id={`${id}-${key}`} className="font-semibold">
+                  {use.label}
+                </span>
+                <span id={`${id}-${key}-hint`} className="text-sm text-ink-muted">
+                  {use.hint}
+                </span>
+              </span>
+            </label>
+          );
+        })}
+      </div>
+      {error ? (
+        <p id={`${id}-error`} className="text-sm font-semibold text-warning">
+          {error}
+        </p>
+      ) : null}
+    </fieldset>
   );
 }
 
@@ -66,6 +146,8 @@ interface Row {
   description: string;
   quantity: string;
   price: string;
+  /** Parts only: used up in the work rather than fitted. */
+  usedUp: boolean;
 }
 
 /** Staff edit the lines: a part is description × quantity × price; labour is description × hours × rate. */
@@ -77,6 +159,7 @@ export function LinesEditor({ workOrder, currency }: { workOrder: WorkOrder; cur
       description: l.description,
       quantity: String(l.quantity),
       price: centsToMajorText(l.unitPriceCents, currency),
+      usedUp: l.kind === 'part' && l.usedUp,
     })),
   );
   const [localErrors, setLocalErrors] = useState<Record<string, string>>({});
@@ -86,7 +169,7 @@ export function LinesEditor({ workOrder, currency }: { workOrder: WorkOrder; cur
   const symbol = currency.toUpperCase();
 
   const update = (key: string, patch: Partial<Row>) => setRows((rs) => rs.map((r) => (r.key === key ? { ...r, ...patch } : r)));
-  const add = (kind: LineKind) => setRows((rs) => [...rs, { key: crypto.randomUUID(), kind, description: '', quantity: kind === 'part' ? '1' : '', price: '' }]);
+  const add = (kind: LineKind) => setRows((rs) => [...rs, { key: crypto.randomUUID(), kind, description: '', quantity: kind === 'part' ? '1' : '', price: '', usedUp: false }]);
 
   const submit = () => {
     const errors: Record<string, string> = {};
@@ -100,6 +183,8 @@ export function LinesEditor({ workOrder, currency }: { workOrder: WorkOrder; cur
         description: r.description,
         quantity: q.kind === 'number' ? q.value : 0,
         unitPriceCents: typeof cents === 'number' ? cents : 0,
+        // Labour is never used up, so it does not say.
+        ...(r.kind === 'part' ? { usedUp: r.usedUp } : {}),
       };
     });
     setLocalErrors(errors);
@@ -116,7 +201,7 @@ export function LinesEditor({ workOrder, currency }: { workOrder: WorkOrder; cur
         submit();
       }}
     >
-      {rows.length === 0 ? <p className="text-ink-muted">No lines yet. Add the parts fitted and the time spent.</p> : null}
+      {rows.length === 0 ? <p className="text-ink-muted">No lines yet. Add the parts and the time spent.</p> : null}
       <ol className="flex flex-col gap-3">
         {rows.map((row, i) => (
           <li key={row.key}>
@@ -147,6 +232,9 @@ export function LinesEditor({ workOrder, currency }: { workOrder: WorkOrder; cur
                   onChange={(e) => update(row.key, { price: e.target.value })}
                 />
               </div>
+              {row.kind === 'part' ? (
+                <PartUseChoice usedUp={row.usedUp} error={errorOf(i, 'usedUp')} onChange={(usedUp) => update(row.key, { usedUp })} />
+              ) : null}
               <Button variant="quiet" className="self-start" onClick={() => setRows((rs) => rs.filter((r) => r.key !== row.key))}>
                 <Trash2 aria-hidden="true" className="size-4" /> Remove line {i + 1}
               </Button>

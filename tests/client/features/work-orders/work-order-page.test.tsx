@@ -66,7 +66,7 @@ describe('the work order page for shop staff', () => {
     await waitFor(() => expect(requestsTo(fetchMock, PUT)).toHaveLength(1));
     expect((requestsTo(fetchMock, PUT)[0]!.body as ReplaceLinesInput).lines).toEqual([
       // 24.35 × 100 is 2434.9999… in binary floating point: the cents must still come out whole and right.
-      { kind: 'part', description: 'Camber bolts', quantity: 2, unitPriceCents: 2435 },
+      { kind: 'part', description: 'Camber bolts', quantity: 2, unitPriceCents: 2435, usedUp: false },
       { kind: 'labour', description: 'Alignment', quantity: 1.5, unitPriceCents: 9000 },
     ]);
   });
