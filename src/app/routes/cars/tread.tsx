@@ -11,6 +11,7 @@ import { useCar } from '@/features/cars/api/get-car';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { DeleteReadingButton } from '@/features/tyres/components/delete-reading-button';
 import { NewTyreSetForm } from '@/features/tyres/components/new-tyre-set-form';
+import { ReadingHistory } from '@/features/tyres/components/reading-history';
 import { TreadDisplay } from '@/features/tyres/components/tread-display';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
 import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
@@ -24,7 +25,8 @@ export function TreadPage() {
   // Sets made on this phone count too: a reading of one waits behind the set's own upload.
   const sets = useTyreSetViews(carId);
   // Each set's latest saved reading in full (the form shows it only faintly, and only until a box is typed in),
-  // with its photos and its thread (the shop and the drivers talk about the wear).
+  // with its photos and its thread (the shop and the drivers talk about the wear); the set's earlier readings,
+  // with their photos, are folded under it.
   const readings = sets.sets.flatMap((set) => (set.latestReading ? [{ set, reading: set.latestReading }] : []));
   const onUploaded = useCallback(() => {
     toast({ tone: 'success', title: 'Tread reading saved' });
@@ -67,6 +69,17 @@ export function TreadPage() {
                 <div>
                   <DeleteReadingButton tyreSetId={set.id} readingId={reading.id} setLabel={set.label} takenAt={reading.takenAt} />
                 </div>
+                <ReadingHistory
+                  tyreSetId={set.id}
+                  setLabel={set.label}
+                  latestReadingId={reading.id}
+                  renderReadingExtras={(earlier) => (
+                    <AttachmentToggle
+                      target={{ targetType: 'tread_reading', targetId: earlier.id }}
+                      what={`the ${set.label} reading of ${formatDateTime(earlier.takenAt)}`}
+                    />
+                  )}
+                />
               </li>
             ))}
           </ul>

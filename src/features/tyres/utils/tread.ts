@@ -34,3 +34,11 @@ export function latestReading(set: TyreSet, entries: readonly OutboxEntry[]): Re
   }
   return readings.sort((a, b) => new Date(b.takenAt).getTime() - new Date(a.takenAt).getTime())[0] ?? null;
 }
+
+/** A set's readings but one (the latest, shown on its own), newest first; two taken at the same time, the later saved first. */
+export function earlierReadings(readings: readonly TreadReading[], latestId: string): TreadReading[] {
+  const time = (at: string) => new Date(at).getTime();
+  return readings
+    .filter((r) => r.id !== latestId)
+    .sort((a, b) => time(b.takenAt) - time(a.takenAt) || time(b.createdAt) - time(a.createdAt));
+}
