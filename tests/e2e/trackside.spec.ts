@@ -35,8 +35,7 @@ async function logRun(time: string | null, opts: { cones?: number; status?: 'DNF
     }
   }
   for (let i = 0; i < (opts.cones ?? 0); i++) await page.getByRole('button', { name: 'More: Cones' }).click();
-  // A tap on the choice as drawn (its label), scrolled clear of the Save bar as a thumb would.
-  if (opts.status) await page.locator('label').filter({ has: page.getByRole('radio', { name: opts.status }) }).click();
+  if (opts.status) await page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name: opts.status }).click();
   await page.getByRole('button', { name: /^Save run/ }).click();
   await page.getByText(/saved on this phone/).waitFor();
 }
@@ -136,13 +135,13 @@ describe('trackside on a phone (390×844)', () => {
     await page.getByRole('button', { name: 'Start logging' }).click();
     await screenshot(page, 'trackside-empty');
 
-    // The whole keypad is on the first screen, above the Save bar that stays at the bottom: "0" and
-    // "Clear" are not under it. The cones' − and + sit in the bar, so a tap on them lands on them, not on
+    // The whole keypad is on the first screen, above the Save bar that stays at the bottom: "0", DNF, Off course
+    // and "Clear" are not under it. The cones' − and + sit in the bar, so a tap on them lands on them, not on
     // something drawn over them; and the bar keeps its height once a run is saved.
     const firstScreen = async (when: string) => {
       await page.evaluate(() => window.scrollTo(0, 0));
       const saveBar = (await page.locator('form[aria-label="Log a run"] > .sticky').boundingBox())!;
-      for (const name of ['0', 'Clear']) {
+      for (const name of ['0', 'DNF', 'Off course', 'Clear']) {
         const key = (await page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name, exact: true }).boundingBox())!;
         expect(key.y + key.height, `${when}: the "${name}" key's bottom`).toBeLessThanOrEqual(saveBar.y);
       }
@@ -169,6 +168,8 @@ describe('trackside on a phone (390×844)', () => {
     await page.getByRole('listitem', { name: 'Run 2, Maren Holloway' }).getByText('50.905').waitFor();
     expect(await best.getByText('47.210').count()).toBeGreaterThan(0);
     await page.getByRole('listitem', { name: 'Run 3, Maren Holloway' }).getByText('DNF').first().waitFor();
+    // Saved, the next run starts as finished again.
+    expect(await page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name: 'DNF' }).getAttribute('aria-pressed')).toBe('false');
     await screenshot(page, 'trackside-three-runs');
   });
 

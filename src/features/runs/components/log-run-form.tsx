@@ -2,11 +2,10 @@ import { useRef, useState, type FormEvent } from 'react';
 import { ChevronDown, ChevronUp } from 'lucide-react';
 import { adjustedTimeSec } from '@shared/calc/scoring.calc';
 import type { Person } from '@shared/season/car.schema';
-import { createRunInputSchema, RUN_STATUSES, type RunStatus } from '@shared/season/run.schema';
+import { createRunInputSchema, type RunStatus } from '@shared/season/run.schema';
 import { formatRunTime, parseRunTime, readRunTimeBox } from '@shared/season/run-time';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
-import { SegmentedControl } from '@/components/ui/segmented-control';
 import { Stepper } from '@/components/ui/stepper';
 import { runMoment } from '@/lib/dates';
 import { unitSymbol } from '@/lib/numbers';
@@ -19,8 +18,6 @@ import { anyRefused, showFirstRefused, type RunFormErrors } from '../utils/run-f
 import { coneWords, runLabel, STATUS_WORDS } from '../utils/run-words';
 import { HotPressureGrid } from './hot-pressure-grid';
 import { TimeKeypad } from './time-keypad';
-
-const STATUS_OPTIONS = RUN_STATUSES.map((s) => ({ value: s, label: STATUS_WORDS[s] }));
 
 interface LogRunFormProps {
   carId: string;
@@ -155,7 +152,8 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
         preview={preview}
         error={errors.rawTimeSec ?? null}
         label={`Raw time · ${driver.displayName}`}
-        idleNote={saved}
+        idleNote={status !== 'finished' ? `${STATUS_WORDS[status]}: no time needed; type one if the timer gave one.` : saved}
+        status={{ value: status, onChange: setStatus }}
         aside={
           <label className="flex shrink-0 items-center gap-2">
             {/* "Run" alone keeps the time's label on one line, so the keypad fits above the Save bar. */}
@@ -178,9 +176,6 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
           </label>
         }
       />
-
-      <SegmentedControl label="Result" options={STATUS_OPTIONS} value={status} onChange={setStatus} name="run-status" />
-      {status !== 'finished' ? <p className="text-sm text-ink-muted">No time needed; type one if the timer gave one.</p> : null}
 
       <div className="flex flex-col gap-3">
         <button

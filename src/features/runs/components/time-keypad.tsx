@@ -1,10 +1,12 @@
 import { useId, type ClipboardEvent, type ReactNode } from 'react';
 import { Delete } from 'lucide-react';
+import type { RunStatus } from '@shared/season/run.schema';
 import { cn } from '@/lib/cn';
+import { STATUS_WORDS } from '../utils/run-words';
 
 const MAX_LENGTH = 9;
 const BACKSPACE = '⌫';
-/** The keys, row by row as drawn (four to a row; "0" spans three); "Clear" ends the last row. */
+/** The keys, row by row as drawn (four to a row; "0" spans three, or one beside DNF and Off course); "Clear" ends the last row. */
 const KEYS = [...'123', BACKSPACE, ...'456:789.0'];
 /** What a screen reader says for the keys that are not digits. */
 const KEY_NAMES: Partial<Record<string, string>> = { [BACKSPACE]: 'Backspace', ':': 'Colon', '.': 'Point' };
@@ -27,6 +29,11 @@ interface TimeKeypadProps {
   aside?: ReactNode;
   /** What the note under the time says while there is nothing else to say (the last run saved); else how to type. */
   idleNote?: string | null;
+  /**
+   * How the run ended, chosen on the keypad's last row: DNF and Off course are keys held down once pressed (pressed
+   * again, the run is finished), so a run without a time is logged from the first screen, above the Save bar.
+   */
+  status?: { value: RunStatus; onChange: (status: RunStatus) => void };
 }
 
 /**
@@ -34,7 +41,7 @@ interface TimeKeypadProps {
  * backspace). The display is a real input, so a keyboard or a paste from a timing sheet works too;
  * it opens no on-screen keyboard of its own on a phone.
  */
-export function TimeKeypad({ value, onChange, onPaste, preview, error, label = 'Raw time', aside, idleNote }: TimeKeypadProps) {
+export function TimeKeypad({ value, onChange, onPaste, preview, error, label = 'Raw time', aside, idleNote, status }: TimeKeypadProps) {
   const id = useId();
   const press = (key: string) => onChange(cleanTimeText(value + key));
   const key = 'inline-flex min-h-tap-lg items-center justify-center rounded border border-line-strong bg-surface text-2xl font-bold text-ink select-none hover:bg-surface-raised active:bg-accent-soft';
@@ -84,13 +91,27 @@ export function TimeKeypad({ value, onChange, onPaste, preview, error, label = '
           <button
             key={k}
             type="button"
-            className={cn(key, k === '0' && 'col-span-3')}
+            className={cn(key, k === '0' && !status && 'col-span-3')}
             aria-label={KEY_NAMES[k]}
             onClick={() => (k === BACKSPACE ? onChange(value.slice(0, -1)) : press(k))}
           >
             {k === BACKSPACE ? <Delete aria-hidden="true" className="size-7" /> : k}
           </button>
         ))}
+        {status
+          ? (['dnf', 'off_course'] as const).map((s) => (
+              <button
+                key={s}
+                type="button"
+                aria-pressed={status.value === s}
+                className={cn(key, 'text-base leading-tight aria-pressed:border-accent aria-pressed:bg-accent aria-pressed:text-accent-ink')}
+                onClick={() => status.onChange(status.value === s ? 'finished' : s)}
+              >
+                {status.value === s ? <span aria-hidden="true">✓&nbsp;</span> : null}
+                {STATUS_WORDS[s]}
+              </button>
+            ))
+          : null}
         <button type="button" className={cn(key, 'text-base')} onClick={() => onChange('')}>
           Clear
         </button>

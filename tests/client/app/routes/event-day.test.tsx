@@ -219,6 +219,33 @@ describe('event day', () => {
     expect(screen.getByRole('button', { name: 'Save run 2' })).toBeTruthy();
   });
 
+  it('when DNF is pressed on the keypad, then it stays pressed, the note says no time is needed, Off course takes its place, a second press undoes it, and the run saved is a DNF', async () => {
+    stubWithRuns([]);
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    const pad = within(screen.getByRole('group', { name: 'Time keypad' }));
+    const dnf = pad.getByRole('button', { name: 'DNF' });
+    const off = pad.getByRole('button', { name: 'Off course' });
+    expect([dnf.getAttribute('aria-pressed'), off.getAttribute('aria-pressed')]).toEqual(['false', 'false']);
+
+    await u.click(off);
+    expect(screen.getByText('Off course: no time needed; type one if the timer gave one.')).toBeTruthy();
+    await u.click(dnf);
+    expect([dnf.getAttribute('aria-pressed'), off.getAttribute('aria-pressed')]).toEqual(['true', 'false']);
+    await u.click(dnf);
+    expect(dnf.getAttribute('aria-pressed')).toBe('false');
+    expect(screen.queryByText(/no time needed/)).toBeNull();
+
+    await u.click(dnf);
+    await u.click(screen.getByRole('button', { name: 'Save run 1' }));
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(1));
+    expect((outbox.getSnapshot()[0] as OutboxEntry).body).toMatchObject({ runNumber: 1, rawTimeSec: null, status: 'dnf' });
+    // Ready for the next run, which starts as finished.
+    expect(screen.getByText('Run 1 · DNF saved on this phone.')).toBeTruthy();
+    expect(dnf.getAttribute('aria-pressed')).toBe('false');
+  });
+
   it('when a run uploads before the list has refreshed, then it stays in view as saved, never blinking out', async () => {
     let posted: Record<string, unknown> | null = null;
     let releaseRefresh: () => void = () => undefined;
