@@ -14,7 +14,7 @@ export function EventFacts({ event }: { event: SeasonEvent }) {
       {event.venue ? DOT + event.venue : ''}
       {DOT + KIND_WORDS[event.kind]}
       {/* A no-break space between the number and its unit keeps "2 s" on one line. */}
-      {event.kind === 'autocross' ? `${DOT}${event.conePenaltySec}\u00a0s a cone` : ''}
+      {event.kind === 'autocross' ? `${DOT}${event.conePenaltySec}\u00a0s\u00a0a\u00a0cone` : ''}
     </p>
   );
 }

@@ -52,8 +52,8 @@ describe('new event', () => {
     expect(await screen.findByRole('heading', { level: 1, name: 'Marsh Lane practice day' })).toBeTruthy();
     expect(screen.getByText('Waiting to upload')).toBeTruthy();
     const facts = screen.getByText(/Marsh Lane car park · Autocross · 2 s a cone/);
-    // The penalty and its unit never part at a line's end: a no-break space (common typographic practice).
-    expect(facts.textContent).toContain('2\u00a0s a cone');
+    // The penalty, its unit and "a cone" never part at a line's end: no-break spaces (common typographic practice).
+    expect(facts.textContent).toContain('2\u00a0s\u00a0a\u00a0cone');
     // Nor does a wrapped line start with a separating dot: each is held to the words before it.
     expect(facts.textContent).toContain('car park\u00a0· Autocross\u00a0· 2');
     expect(await screen.findByRole('form', { name: 'Car and driver' })).toBeTruthy();
