@@ -35,8 +35,7 @@ describe('moving between pages (390×844)', () => {
     // Wait for the shell's later parts (the bell), which hold the rule, as a driver's phone would have them.
     await page.getByRole('link', { name: /notification/i }).waitFor();
 
-    await page.evaluate(() => window.scrollTo(0, document.documentElement.scrollHeight));
-    expect(await page.evaluate(() => window.scrollY)).toBeGreaterThan(100);
+    expect(await scrollOnceDrawn(page)).toBeGreaterThan(100);
     await page.getByRole('navigation').getByRole('link', { name: 'Cars' }).last().click();
     await page.getByRole('heading', { name: 'Cars', level: 1 }).waitFor();
     expect(await page.evaluate(() => window.scrollY)).toBe(0);
