@@ -11,6 +11,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
 import { formatDateTime, formatDay } from '@/lib/dates';
 import { useOutbox } from '@/lib/outbox-context';
+import { refusalWords } from '@/features/sync/utils/refusal-words';
 import type { SetupView } from '../utils/setup-views';
 import { SetupChangeList } from './setup-change-list';
 import { SetupValues } from './setup-values';
@@ -19,12 +20,10 @@ function PendingProblem({ setup, carId }: { setup: SetupView; carId: string }) {
   const outbox = useOutbox();
   const pending = setup.pending;
   if (!pending || pending.state !== 'failed') return null;
-  const fieldMessages = Object.values(pending.error?.fieldErrors ?? {}).flat();
   return (
     <div role="alert" className="flex flex-col gap-2 rounded border border-warning-line bg-warning-surface p-3 text-sm">
       <p className="font-semibold text-warning">
-        Refused: {pending.error?.message ?? 'the server did not accept it'}
-        {fieldMessages.length ? ` — ${fieldMessages.join(' ')}` : ''}
+        Refused: {refusalWords(pending.error, 'the server did not accept it')}
       </p>
       <div className="flex flex-wrap gap-2">
         {pending.kind === 'setup.create' ? (

@@ -133,6 +133,30 @@ describe('the setup history folds all but the newest snapshots away', () => {
     expect(labels(shown).at(-1)).toBe('Back-dated baseline');
     expect(within(shown).getByRole('link', { name: 'Fix it' })).toBeTruthy();
     expect(screen.queryByRole('button', { name: /^Show .* older/ })).toBeNull();
+    // No field named: the server's summary says why.
+    expect(within(shown).getByRole('alert').textContent).toContain('Refused: Some fields need attention.');
+  });
+
+  it('when the server named the field it refused, then the line says that once, not the summary as well', async () => {
+    const refused = storedEntry({
+      key: 'refused',
+      recordId: 'b0000009-0000-4000-8000-000000000000',
+      kind: 'setup.create',
+      method: 'POST',
+      path: `/api/cars/${IDS.car}/setups`,
+      body: { id: 'b0000009-0000-4000-8000-000000000000', label: 'Too much camber', effectiveFrom: '2026-03-01T08:00:00.000Z', corners: {} },
+      label: 'Setup · Too much camber',
+      scope: { carId: IDS.car },
+      state: 'failed',
+      attempts: 1,
+      error: { status: 400, code: 'validation_failed', message: 'Some fields need attention.', fieldErrors: { 'corners.lf.camberDeg': ['Camber must be between −10° and 5°'] } },
+    });
+    stubCarPage(user(), { [`GET /api/cars/${IDS.car}/setups`]: list(season(2)) });
+    renderApp(`/cars/${IDS.car}`, { outboxEntries: [refused] });
+
+    const alert = await within(await history()).findByRole('alert');
+    expect(alert.textContent).toContain('Refused: Camber must be between −10° and 5°');
+    expect(alert.textContent).not.toContain('Some fields need attention');
   });
 });
 
