@@ -151,40 +151,60 @@ describe("the demo driver's season review (390×844)", () => {
     await screenshot(page, 'review-chart-key', { fullPage: false });
   });
 
-  it('when the points are shown as a table on a phone, then each value keeps to one line and the table scrolls in its own box', async () => {
+  it('when the points are shown as a table on a phone, then each event heads its runs once, the plotted values are in view on one line each, and a swipe is asked for when the table is wider than its box', async () => {
     await page.goto(`${baseUrl}/cars/${carId}/review`);
     const card = page.getByRole('region', { name: 'Setup against time and wear' });
     await card.getByRole('img').waitFor({ timeout: 20_000 });
     await card.getByRole('button', { name: 'Show as table' }).click();
-    const table = card.getByRole('table');
+    const table = card.getByRole('table', { name: /against .* points$/ });
     await table.waitFor();
 
-    // Lines each cell's text is laid out on: Runs, the setting (x) and the measurement (y) one each; the event at most three.
-    const lines = await table.evaluate((t) => {
+    // Lines each cell's text is laid out on, and whether the measured value (y) ends inside the box unscrolled.
+    const shape = await table.evaluate((t) => {
       const count = (el: Element) => {
         const range = document.createRange();
         range.selectNodeContents(el);
         return new Set([...range.getClientRects()].filter((r) => r.width > 0).map((r) => Math.round(r.top))).size;
       };
-      return [...t.querySelectorAll('tbody tr')].map((row) => {
-        const cells = [...row.children];
-        return { event: count(cells[1]!), runs: count(cells[2]!), x: count(cells.at(-2)!), y: count(cells.at(-1)!) };
-      });
+      const boxRight = t.parentElement!.getBoundingClientRect().right;
+      const groups = [...t.querySelectorAll('tbody')];
+      return {
+        events: groups.map((g) => {
+          const heading = g.querySelector('th[scope="rowgroup"]')!;
+          return { name: heading.textContent ?? '', lines: count(heading) };
+        }),
+        rows: groups.flatMap((g) =>
+          [...g.querySelectorAll('tr')]
+            .filter((row) => row.firstElementChild?.getAttribute('scope') === 'row')
+            .map((row) => {
+              const [id, x, y] = [...row.children];
+              return { id: count(id!), x: count(x!), y: count(y!), yInView: y!.getBoundingClientRect().right <= boxRight + 1 };
+            }),
+        ),
+      };
     });
-    expect(lines.length).toBeGreaterThan(10);
-    for (const row of lines) expect(row).toEqual({ event: expect.any(Number), runs: 1, x: 1, y: 1 });
-    expect(Math.max(...lines.map((r) => r.event))).toBeLessThanOrEqual(3);
+    expect(shape.rows.length).toBeGreaterThan(10);
+    for (const row of shape.rows) expect(row).toEqual({ id: 1, x: 1, y: 1, yInView: true });
+    expect(shape.events.length).toBeGreaterThan(1);
+    expect(new Set(shape.events.map((e) => e.name)).size).toBe(shape.events.length);
+    for (const event of shape.events) expect(event.lines).toBeLessThanOrEqual(3);
 
-    // The table is wider than the phone: it scrolls inside its box, the page does not, and a line says so.
+    // It scrolls inside its box, the page does not, and a line above says what is a swipe away exactly when it is wider.
     const box = card.getByRole('region', { name: /against .* points$/ });
-    expect(await box.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+    const wider = await box.evaluate((el) => el.scrollWidth > el.clientWidth);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
-    expect(await card.getByText('Swipe the table sideways for the setup and the plotted values.').isVisible()).toBe(true);
+    const hint = await box.getAttribute('aria-describedby');
+    expect(hint !== null).toBe(wider);
+    if (hint) {
+      const line = page.locator(`[id="${hint}"]`);
+      expect(await line.isVisible()).toBe(true);
+      expect(await line.textContent()).toMatch(/^Swipe the table sideways for the setup/);
+    }
     await box.scrollIntoViewIfNeeded();
     await screenshot(page, 'review-points-table', { fullPage: false });
   });
 
-  it("when the timeline is shown as a table on a phone, then each date and each driver's time keep to one line", async () => {
+  it("when the timeline is shown as a table on a phone, then each date and each driver's time keep to one line, the first time in view", async () => {
     await page.goto(`${baseUrl}/cars/${carId}/review`);
     const card = page.getByRole('region', { name: 'Season timeline' });
     await card.getByRole('img').waitFor({ timeout: 20_000 });
@@ -198,18 +218,26 @@ describe("the demo driver's season review (390×844)", () => {
         range.selectNodeContents(el);
         return new Set([...range.getClientRects()].filter((r) => r.width > 0).map((r) => Math.round(r.top))).size;
       };
+      const boxRight = t.parentElement!.getBoundingClientRect().right;
       return [...t.querySelectorAll('tbody tr')].map((row) => {
-        const [date, , ...drivers] = [...row.children];
-        // A driver's cell: the time, then the runs and cones under it.
-        return { date: count(date!), times: drivers.map((d) => count(d.firstChild!)) };
+        // The date, each driver's cell (the time, then the runs and cones under it), then the event.
+        const [date, ...rest] = [...row.children];
+        const drivers = rest.slice(0, -1);
+        return {
+          date: count(date!),
+          times: drivers.map((d) => count(d.firstChild!)),
+          firstInView: drivers[0]!.getBoundingClientRect().right <= boxRight + 1,
+        };
       });
     });
     expect(lines.length).toBeGreaterThan(3);
-    for (const row of lines) expect(row).toEqual({ date: 1, times: row.times.map(() => 1) });
+    for (const row of lines) expect(row).toEqual({ date: 1, times: row.times.map(() => 1), firstInView: true });
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
-    expect(await card.getByText(/^Swipe the table sideways for/).isVisible()).toBe(true);
     const box = card.getByRole('region', { name: /^Best adjusted time per event/ });
     expect(await box.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+    const hint = page.locator(`[id="${await box.getAttribute('aria-describedby')}"]`);
+    expect(await hint.isVisible()).toBe(true);
+    expect(await hint.textContent()).toMatch(/^Swipe the table sideways for/);
     await box.scrollIntoViewIfNeeded();
     await screenshot(page, 'review-timeline-table', { fullPage: false });
   });

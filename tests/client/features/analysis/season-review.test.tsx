@@ -213,17 +213,17 @@ describe('season review: setup against time and wear', () => {
     await u.click(scatter.getByRole('button', { name: 'Show as table' }));
     const table = await scatter.findByRole('table');
     const rows = within(table).getAllByRole('row');
-    expect(rows).toHaveLength(4); // a heading row and three points
+    expect(rows).toHaveLength(6); // a heading row, then each event's name above its points (two, then one)
     expect(within(table).getByRole('columnheader', { name: 'Camber (°)' })).toBeTruthy();
-    const cells = within(rows[1]!).getAllByRole('cell').map((c) => c.textContent);
-    expect(cells[0]).toBe('●circle');
-    expect(cells[1]).toMatch(/^Harrow Flats — Round 3 \(.*2026\)$/);
-    expect(cells.slice(2)).toEqual(['1 run', 'Baseline', '\u22121.50°', '+1.23 %']);
-    expect(within(rows[3]!).getByText('More camber')).toBeTruthy();
+    expect(rows[1]!.textContent).toMatch(/^●circle Harrow Flats — Round 3 \(.*2026\)$/);
+    expect([...rows[2]!.children].map((c) => c.textContent)).toEqual(['1', '\u22121.50°', '+1.23 %', 'Baseline']);
+    // Every point is one run: said once, not in a column.
+    expect(scatter.getByText('Every row: 1 run.')).toBeTruthy();
+    expect(within(rows[5]!).getByText('More camber')).toBeTruthy();
     expect(scatter.getByRole('button', { name: 'Hide table' }).getAttribute('aria-expanded')).toBe('true');
   });
 
-  it('when the table is shown, then it scrolls sideways in a box of its own, and a phone is told so', async () => {
+  it('when the table is shown, then it scrolls sideways in a box of its own, which asks for no swipe while the table fits', async () => {
     stub();
     const u = renderPage();
     const scatter = section('Setup against time and wear');
@@ -233,7 +233,8 @@ describe('season review: setup against time and wear', () => {
     const box = await scatter.findByRole('region', { name: "Camber (°) against off the day's best (%), 3 points" });
     expect(box.getAttribute('tabindex')).toBe('0'); // keys scroll it too
     expect(within(box).getByRole('table', { name: "Camber (°) against off the day's best (%), 3 points" })).toBeTruthy();
-    expect(scatter.getByText('Swipe the table sideways for the setup and the plotted values.')).toBeTruthy();
+    // jsdom lays nothing out, so the table is no wider than its box.
+    expect(scatter.queryByText(/Swipe the table sideways/)).toBeNull();
   });
 
   it('when cold pressure against wear is picked in psi and 1/32 in, then the points convert and a fit-less plot says "not enough data yet"', async () => {
@@ -254,10 +255,11 @@ describe('season review: setup against time and wear', () => {
     await u.click(scatter.getByRole('button', { name: 'Show as table' }));
     const rows = within(await scatter.findByRole('table')).getAllByRole('row');
     // 220.632 kPa = 32.0 psi (NIST SP 811); 0.05 mm per run = 0.063/32 in per run.
-    expect(within(rows[1]!).getByText('32.0 psi')).toBeTruthy();
-    expect(within(rows[1]!).getByText('0.063/32 in per run')).toBeTruthy();
-    expect(within(rows[1]!).getByText('6 runs')).toBeTruthy();
-    expect(within(rows[1]!).getByText('LF')).toBeTruthy();
+    // rows[1] is the first event's name, above its point.
+    expect(within(rows[2]!).getByText('32.0 psi')).toBeTruthy();
+    expect(within(rows[2]!).getByText('0.063/32 in per run')).toBeTruthy();
+    expect(within(rows[2]!).getByText('6 runs')).toBeTruthy();
+    expect(within(rows[2]!).getByText('LF')).toBeTruthy();
   });
   it('when a setting is plotted, then the lowest and highest values are inside the plot, not on its edges', async () => {
     stub();
@@ -553,7 +555,7 @@ describe('season review: timeline', () => {
     expect(within(items[1]!).getByText('0.50° more negative')).toBeTruthy();
   });
 
-  it('when the timeline is shown as a table, then each time sits on its own line above its runs and cones, and a phone is told to swipe', async () => {
+  it('when the timeline is shown as a table, then each time sits on its own line above its runs and cones', async () => {
     stub();
     const u = renderPage();
     const timeline = section('Season timeline');
@@ -561,9 +563,8 @@ describe('season review: timeline', () => {
     await u.click(timeline.getByRole('button', { name: 'Show as table' }));
 
     const box = await timeline.findByRole('region', { name: 'Best adjusted time per event (courses differ between events)' });
-    expect(timeline.getByText("Swipe the table sideways for every driver's times.")).toBeTruthy();
     const round3 = within(box).getByRole('row', { name: /Harrow Flats — Round 3/ });
-    const maren = within(round3).getAllByRole('cell')[1]!;
+    const maren = within(round3).getAllByRole('cell')[0]!;
     expect([...maren.children].map((line) => line.textContent)).toEqual(['48.100 s', '4 runs, 1 cone']);
   });
 });
