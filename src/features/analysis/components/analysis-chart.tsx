@@ -12,9 +12,14 @@ import {
   Tooltip,
   type ChartData,
   type ChartOptions,
+  type ChartType,
+  type FontSpec,
   type Plugin,
   type TooltipItem,
+  type TooltipModel,
+  type TooltipPositionerFunction,
 } from 'chart.js';
+import { toFont } from 'chart.js/helpers';
 import { Scatter } from 'react-chartjs-2';
 import { isHollow, type MarkerShape } from '../utils/series-styles';
 import { ChartLegend } from './chart-legend';
@@ -23,6 +28,82 @@ import { ChartLegend } from './chart-legend';
 // linear axes, points, lines and the tooltip. The key is ours, in HTML below the canvas: Chart.js's own gives a
 // bottom legend at most half the chart's height and cuts the rest off on a narrow screen.
 ChartJS.register(ScatterController, LinearScale, PointElement, LineElement, Tooltip);
+
+declare module 'chart.js' {
+  interface TooltipPositionerMap {
+    aboveOrBelow: TooltipPositionerFunction<ChartType>;
+  }
+}
+
+/**
+ * The tooltip centred over its point, below it when the point is in the plot's upper half and above it otherwise.
+ * Chart.js's own choice puts a wide tooltip beside the point, or on top of it when there is no room beside it, as
+ * on a phone; centred, it is then kept inside the canvas (as long as it is narrower: see `wrapLine`).
+ */
+Tooltip.positioners.aboveOrBelow = function (items, eventPosition) {
+  const at = Tooltip.positioners.nearest.call(this, items, eventPosition);
+  if (!at) return false;
+  const { top, bottom } = this.chart.chartArea;
+  const y = at.y ?? (top + bottom) / 2;
+  return { x: at.x, y, xAlign: 'center', yAlign: y < (top + bottom) / 2 ? 'top' : 'bottom' };
+};
+
+/**
+ * A tooltip line in lines that each fit `fits`: broken after the first comma that leaves a first line short
+ * enough ("Tallow Creek MC — Spring Round 1," / "Apr 12, 2026"), else between words. A single word wider than
+ * the room stays whole.
+ */
+function wrapLine(text: string, fits: (line: string) => boolean): string[] {
+  const lines: string[] = [];
+  let rest = text;
+  while (!fits(rest)) {
+    let cut = -1;
+    for (let i = rest.indexOf(', '); i !== -1; i = rest.indexOf(', ', i + 1)) {
+      if (fits(rest.slice(0, i + 1))) {
+        cut = i + 1;
+        break;
+      }
+    }
+    if (cut === -1) {
+      for (let i = rest.lastIndexOf(' '); i > 0; i = rest.lastIndexOf(' ', i - 1)) {
+        if (fits(rest.slice(0, i))) {
+          cut = i;
+          break;
+        }
+      }
+    }
+    if (cut <= 0) break;
+    lines.push(rest.slice(0, cut).trimEnd());
+    rest = rest.slice(cut).trimStart();
+  }
+  lines.push(rest);
+  return lines;
+}
+
+/** The tooltip's box and type, set here so that the lines can be measured as Chart.js will draw them. */
+const TIP = {
+  padding: 8,
+  titleFont: { size: 13, weight: 'bold' as const },
+  bodyFont: { size: 13 },
+  /** The series' colour swatch before the first line of the body (Chart.js adds 2 px to it), and the gap after it. */
+  boxWidth: 12,
+  boxPadding: 4,
+};
+
+/** Tells whether a line of the tooltip, in the given font, fits the canvas's width less the tooltip's own room. */
+function fitsTooltip(tooltip: TooltipModel<'scatter'>, font: Partial<FontSpec>, besideText = 0) {
+  const { ctx, width } = tooltip.chart;
+  // A little short of the canvas's width, so the box never touches its edges.
+  const room = width - 2 * TIP.padding - besideText - 8;
+  const fontString = toFont(font).string;
+  return (line: string) => {
+    ctx.save();
+    ctx.font = fontString;
+    const measured = ctx.measureText(line).width;
+    ctx.restore();
+    return measured <= room;
+  };
+}
 
 export interface ChartSeries {
   label: string;
@@ -163,9 +244,25 @@ export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
     plugins: {
       tooltip: {
         filter: (item) => !series[item.datasetIndex]?.hidePoints,
+        position: 'aboveOrBelow',
+        padding: TIP.padding,
+        titleFont: TIP.titleFont,
+        bodyFont: TIP.bodyFont,
+        boxWidth: TIP.boxWidth,
+        boxHeight: TIP.boxWidth,
+        boxPadding: TIP.boxPadding,
         callbacks: {
-          title: (items) => (items[0] ? (lines(items[0])[0] ?? '') : ''),
-          label: (item) => lines(item).slice(1),
+          // Long lines wrap to the canvas's width, so the tooltip stays whole on a phone.
+          title(items) {
+            const title = items[0] ? (lines(items[0])[0] ?? '') : '';
+            return wrapLine(title, fitsTooltip(this, TIP.titleFont));
+          },
+          label(item) {
+            const fits = fitsTooltip(this, TIP.bodyFont, TIP.boxWidth + 2 + TIP.boxPadding);
+            return lines(item)
+              .slice(1)
+              .flatMap((line) => wrapLine(line, fits));
+          },
         },
       },
     },
