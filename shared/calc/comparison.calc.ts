@@ -9,7 +9,7 @@
  * simple-statistics offers only the equal-variance test and no t distribution, so both are computed here; the
  * incomplete beta uses the continued fraction of Numerical Recipes (Press et al., §6.4 "betacf", modified Lentz).
  */
-import { gammaln, mean, sampleVariance } from 'simple-statistics';
+import { gammaln, mean, sampleStandardDeviation, sampleVariance } from 'simple-statistics';
 import { requireFinite, requirePositive } from './input-checks.calc';
 import { formatFixed } from './display';
 
@@ -210,4 +210,88 @@ export function verdict(
     return `${change}: a hint, not yet sure.${direction ? ` If it holds, ${direction}` : ''}`;
   }
   return `${change}: could be chance.`;
+}
+
+// ── Per value of a setting ──────────────────────────────────────────────────
+
+/** One reading (a run's time measure) taken on one value of a setting, on one day, at one place in that day. */
+export interface SettingReading {
+  /** The setting's value the run was made on. */
+  value: number;
+  /** The run's time measure. */
+  y: number;
+  /** Which day (event) it was made on. */
+  day: string;
+  /** Its place in that day: any number that sorts the day's runs in the order they were made (e.g. ms since 1970). */
+  order: number;
+}
+
+export interface ValueSummary {
+  value: number;
+  /** Readings on this value. */
+  n: number;
+  /** Days (events) they came from. */
+  days: number;
+  mean: number;
+  /** Sample standard deviation (n − 1); null with one reading. */
+  sd: number | null;
+}
+
+/** The readings grouped by the setting's value, lowest value first: each value's count, days, mean and spread. */
+export function summariseByValue(readings: readonly Pick<SettingReading, 'value' | 'y' | 'day'>[]): ValueSummary[] {
+  const groups = new Map<number, { ys: number[]; days: Set<string> }>();
+  readings.forEach((r, i) => {
+    requireFinite(`Reading ${i + 1} value`, r.value);
+    requireFinite(`Reading ${i + 1}`, r.y);
+    const g = groups.get(r.value) ?? { ys: [], days: new Set<string>() };
+    g.ys.push(r.y);
+    g.days.add(r.day);
+    groups.set(r.value, g);
+  });
+  return [...groups.entries()]
+    .sort(([a], [b]) => a - b)
+    .map(([value, g]) => ({
+      value,
+      n: g.ys.length,
+      days: g.days.size,
+      mean: mean(g.ys),
+      sd: g.ys.length > 1 ? sampleStandardDeviation(g.ys) : null,
+    }));
+}
+
+export interface RunOrderCheck {
+  /** Days on which the readings were on more than one value of the setting. */
+  daysChanged: number;
+  /**
+   * Of those, the days on which each value's readings came in one unbroken run of the day's order (the setting
+   * was changed and not changed back and forth), so every reading on a later value came after every reading on
+   * an earlier one.
+   */
+  daysInBlocks: number;
+}
+
+/**
+ * Whether the values of a setting are tied to the order of the day's runs. Drivers usually get quicker through a
+ * day (they learn the course, the tyres come in), so a value tried only after another on the same day is helped
+ * by the order, not only by the setting (common practice: alternate the settings to be compared). This counts the
+ * days on which that happened; it does not correct for it.
+ */
+export function runOrderWithinDays(readings: readonly Pick<SettingReading, 'value' | 'day' | 'order'>[]): RunOrderCheck {
+  const byDay = new Map<string, { value: number; order: number }[]>();
+  readings.forEach((r, i) => {
+    requireFinite(`Reading ${i + 1} value`, r.value);
+    requireFinite(`Reading ${i + 1} place in the day`, r.order);
+    byDay.set(r.day, [...(byDay.get(r.day) ?? []), { value: r.value, order: r.order }]);
+  });
+  let daysChanged = 0;
+  let daysInBlocks = 0;
+  for (const day of byDay.values()) {
+    const values = new Set(day.map((r) => r.value));
+    if (values.size < 2) continue;
+    daysChanged++;
+    const inOrder = [...day].sort((a, b) => a.order - b.order);
+    const blocks = inOrder.filter((r, i) => i === 0 || r.value !== inOrder[i - 1]!.value).length;
+    if (blocks === values.size) daysInBlocks++;
+  }
+  return { daysChanged, daysInBlocks };
 }

@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { tTestTwoSample } from 'simple-statistics';
-import { compareSamples, regularizedIncompleteBeta, studentTTwoSidedP, verdict, type SampleComparison } from '../../../shared/calc/comparison.calc';
+import { mean as mathMean, std as mathStd } from 'mathjs';
+import {
+  compareSamples, regularizedIncompleteBeta, runOrderWithinDays, studentTTwoSidedP, summariseByValue, verdict, type SampleComparison,
+} from '../../../shared/calc/comparison.calc';
 import { expectClose } from './expect-digits';
 
 // Upper critical values of Student's t: NIST/SEMATECH e-Handbook of Statistical Methods §1.3.6.7.2
@@ -284,5 +287,66 @@ describe('verdict', () => {
         expect(text).not.toMatch(/\bn = |\bp [=<] /);
       }),
     );
+  });
+});
+
+describe('summariseByValue', () => {
+  it('when eight readings share one value, then the mean is 5 and the sample spread √(32/7) (worked example: 2, 4, 4, 4, 5, 5, 7, 9; population sd 2 — "Standard deviation", Wikipedia, from memory)', () => {
+    const ys = [2, 4, 4, 4, 5, 5, 7, 9];
+    const [only, ...rest] = summariseByValue(ys.map((y, i) => ({ value: 6, y, day: i < 4 ? 'a' : 'b' })));
+    expect(rest).toEqual([]);
+    expect(only).toMatchObject({ value: 6, n: 8, days: 2, mean: 5 });
+    expect(only!.sd).toBeCloseTo(Math.sqrt(32 / 7), 12);
+  });
+
+  it('when readings are on several values, then each value gets its own count, days, mean and sd, lowest value first, as mathjs computes them (property)', () => {
+    const reading = fc.record({
+      value: fc.constantFrom(179, 186, 193, 200),
+      y: fc.double({ min: 0, max: 8, noNaN: true }),
+      day: fc.constantFrom('e1', 'e2', 'e3'),
+    });
+    fc.assert(
+      fc.property(fc.array(reading, { minLength: 1, maxLength: 40 }), (readings) => {
+        const summary = summariseByValue(readings);
+        const values = [...new Set(readings.map((r) => r.value))].sort((a, b) => a - b);
+        expect(summary.map((s) => s.value)).toEqual(values);
+        for (const s of summary) {
+          const mine = readings.filter((r) => r.value === s.value);
+          const ys = mine.map((r) => r.y);
+          expect(s.n).toBe(mine.length);
+          expect(s.days).toBe(new Set(mine.map((r) => r.day)).size);
+          expectClose(s.mean, mathMean(ys), 1e-9, 1e-12);
+          // mathjs std divides by n − 1 by default ("unbiased").
+          if (ys.length === 1) expect(s.sd).toBeNull();
+          else expectClose(s.sd!, Number(mathStd(ys)), 1e-9, 1e-12);
+        }
+      }),
+    );
+  });
+
+  it('when there are no readings, then there are no values; when a reading is not a number, then it is refused', () => {
+    expect(summariseByValue([])).toEqual([]);
+    expect(() => summariseByValue([{ value: 5, y: Number.NaN, day: 'a' }])).toThrow(RangeError);
+  });
+});
+
+describe('runOrderWithinDays', () => {
+  const day = (id: string, values: number[]) => values.map((value, i) => ({ value, day: id, order: i }));
+
+  it('when a setting was changed once during a day, then that day counts as changed and in blocks: every run on the new value came later', () => {
+    expect(runOrderWithinDays(day('a', [5, 5, 5, 7, 7, 7, 7]))).toEqual({ daysChanged: 1, daysInBlocks: 1 });
+  });
+
+  it('when the values were alternated through a day, then the day counts as changed but not in blocks', () => {
+    expect(runOrderWithinDays(day('a', [5, 7, 5, 7, 5, 7]))).toEqual({ daysChanged: 1, daysInBlocks: 0 });
+    // Changed and changed back: 5 came both before and after 7.
+    expect(runOrderWithinDays(day('a', [5, 5, 7, 7, 5]))).toEqual({ daysChanged: 1, daysInBlocks: 0 });
+  });
+
+  it('when a day ran on one value, then it is not counted; days are judged in the order of their runs, not the order given', () => {
+    const shuffled = [{ value: 7, day: 'b', order: 40 }, { value: 5, day: 'b', order: 10 }, { value: 7, day: 'b', order: 30 }, { value: 5, day: 'b', order: 20 }];
+    expect(runOrderWithinDays([...day('a', [7, 7, 7]), ...shuffled])).toEqual({ daysChanged: 1, daysInBlocks: 1 });
+    expect(runOrderWithinDays([...day('a', [7, 7, 7]), ...day('c', [3, 4, 5])])).toEqual({ daysChanged: 1, daysInBlocks: 1 });
+    expect(runOrderWithinDays([])).toEqual({ daysChanged: 0, daysInBlocks: 0 });
   });
 });
