@@ -2,7 +2,7 @@ import * as z from '../zod';
 import { isoDate, isoDateTime } from '../api/dates.schema';
 import type { Corner } from '../season/corners';
 import type { SetupChange, SetupCorner } from '../season/setup.schema';
-import type { BetterWhen } from '../calc/comparison.calc';
+import type { BetterWhen, RunOrderCheck, ValueSummary } from '../calc/comparison.calc';
 
 export const SCATTER_PARAMS = ['camber', 'springRate', 'damperClicks', 'coldPressure', 'rideHeight'] as const;
 export const SCATTER_METRICS = ['time', 'wear', 'wearSkew'] as const;
@@ -75,6 +75,16 @@ export interface ScatterResult {
   n: number;
   /** Null with fewer than 3 points or no spread in x. */
   fit: LineFit | null;
+  /**
+   * Wear only (0 for time): the intervals between two tread readings left out because their runs were on more than
+   * one value of the setting, so the wear cannot be credited to one value. Absent from answers before it was added.
+   */
+  leftOut?: { mixedSetting: number };
+  /**
+   * Time only (null for wear): each value of the setting with its runs, events, and the mean and spread of y, lowest
+   * value first; and how many days the setting changed during the day with each value's runs in one block.
+   */
+  perValue?: { values: ValueSummary[]; runOrder: RunOrderCheck } | null;
 }
 
 export interface SampleStats {

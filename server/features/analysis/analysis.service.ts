@@ -4,7 +4,9 @@ import { CORNERS, type Corner } from '@shared/season/corners';
 import type { Setup, SetupCorner } from '@shared/season/setup.schema';
 import type { Run } from '@shared/season/run.schema';
 import { diffSetups } from '@shared/season/setup-diff';
-import { compareSamples, runsLeft, straightLineFit, verdict, wearRateMmPerRun, type BetterWhen } from '@shared/calc/index';
+import {
+  compareSamples, runOrderWithinDays, runsLeft, straightLineFit, summariseByValue, verdict, wearRateMmPerRun, type BetterWhen,
+} from '@shared/calc/index';
 import {
   SCATTER_PARAM_FIELD,
   type CompareQuery, type CompareResult, type Comparison, type CornerOrAxle, type ScatterParam, type ScatterPoint, type ScatterQuery,
@@ -62,6 +64,8 @@ interface WearInterval {
   outer: number;
   /** The snapshot most of those runs were on. */
   setupId: string | null;
+  /** Every snapshot those runs were on (null for a run before the car's first). */
+  setupIds: (string | null)[];
   eventId: string | null;
 }
 
@@ -76,6 +80,7 @@ interface WearRow {
   middle: number;
   outer: number;
   setup_id: string | null;
+  setup_ids: (string | null)[];
   event_id: string | null;
 }
 
@@ -113,11 +118,12 @@ async function wearIntervals(ds: DataSource, carId: string): Promise<WearInterva
             (p.prev_inner - p.inner_mm) / n.runs AS inner,
             (p.prev_middle - p.middle_mm) / n.runs AS middle,
             (p.prev_outer - p.outer_mm) / n.runs AS outer,
-            n.setup_id, COALESCE(p.event_id, n.last_event_id) AS event_id
+            n.setup_id, n.setup_ids, COALESCE(p.event_id, n.last_event_id) AS event_id
        FROM pairs p
        CROSS JOIN LATERAL (
          SELECT count(*)::int AS runs, min(r.recorded_at) AS first_run_at, max(r.recorded_at) AS last_run_at,
                 mode() WITHIN GROUP (ORDER BY r.setup_id) AS setup_id,
+                array_agg(DISTINCT r.setup_id::text) AS setup_ids,
                 (array_agg(r.event_id ORDER BY r.recorded_at DESC))[1] AS last_event_id
            FROM runs_with_setup r
           WHERE r.car_id = $1 AND r.recorded_at > p.prev_at AND r.recorded_at <= p.taken_at
@@ -137,6 +143,7 @@ async function wearIntervals(ds: DataSource, carId: string): Promise<WearInterva
     middle: r.middle,
     outer: r.outer,
     setupId: r.setup_id,
+    setupIds: r.setup_ids,
     eventId: r.event_id,
   }));
 }
@@ -171,41 +178,60 @@ function fitLine(points: { x: number; y: number }[]): ScatterResult['fit'] {
 const inRange = (date: string | null, q: { from?: string; to?: string }) =>
   !date || ((!q.from || date >= q.from) && (!q.to || date <= q.to));
 
+/**
+ * The one value of a setting that every run of a wear interval was on, or null when they were on more than one (a
+ * run on a snapshot without it recorded counts as another value) or it was never recorded.
+ */
+function intervalValue(setupIds: (string | null)[], valueOf: (setupId: string | null) => number | null): { x: number | null; mixed: boolean } {
+  const values = new Set(setupIds.map(valueOf));
+  if (values.size > 1) return { x: null, mixed: true };
+  const [only] = values;
+  return { x: only ?? null, mixed: false };
+}
+
 export async function scatter(ds: DataSource, user: User, carId: string, q: ScatterQuery): Promise<ScatterResult> {
   await assertCarAccess(ds, user, carId, 'read');
   const season = await loadSeason(ds, carId);
   const field = SCATTER_PARAM_FIELD[q.x];
   const unit = PARAM_UNIT[q.x];
   const points: ScatterPoint[] = [];
-  const base = (setupId: string | null, eventId: string | null) => {
-    const setup = setupId ? season.setupById.get(setupId) : undefined;
-    const event = eventId ? season.eventById.get(eventId) : undefined;
-    const x = setupValue(setup, q.corner, field);
-    if (x === null || !inRange(event?.date ?? null, q)) return null;
+  const valueOf = (setupId: string | null) => setupValue(setupId ? season.setupById.get(setupId) : undefined, q.corner, field);
+  const eventOf = (eventId: string | null) => (eventId ? season.eventById.get(eventId) : undefined);
+  const base = (x: number, setupId: string | null, eventId: string | null) => {
+    const event = eventOf(eventId);
     return {
       x,
       xNormalized: q.x === 'damperClicks' ? normalizedClicks(season.car, q.corner, x) : null,
       setupId,
-      setupLabel: setup?.label ?? null,
+      setupLabel: (setupId ? season.setupById.get(setupId)?.label : undefined) ?? null,
       eventId,
       eventName: event?.name ?? null,
       eventDate: event?.date ?? null,
     };
   };
 
+  let mixedSetting = 0;
+  let perValue: ScatterResult['perValue'] = null;
   if (q.y === 'time') {
+    const readings: { value: number; y: number; day: string; order: number }[] = [];
     for (const run of season.runs.filter(timesTheSetup)) {
-      const b = base(run.setupId, run.eventId);
-      if (b) points.push({ ...b, y: run.pctOffBest, runId: run.id, runs: null, corner: null });
+      const x = valueOf(run.setupId);
+      if (x === null || !inRange(eventOf(run.eventId)?.date ?? null, q)) continue;
+      points.push({ ...base(x, run.setupId, run.eventId), y: run.pctOffBest, runId: run.id, runs: null, corner: null });
+      readings.push({ value: x, y: run.pctOffBest, day: run.eventId, order: Date.parse(run.recordedAt) });
     }
+    perValue = { values: summariseByValue(readings), runOrder: runOrderWithinDays(readings) };
   } else {
     const wanted = new Set(cornersOf(q.corner));
     for (const w of await wearIntervals(ds, carId)) {
-      if (!wanted.has(w.corner)) continue;
-      const b = base(w.setupId, w.eventId);
-      if (!b) continue;
+      if (!wanted.has(w.corner) || !inRange(eventOf(w.eventId)?.date ?? null, q)) continue;
+      // The wear between two readings belongs to every value its runs were on: credited to one of them, it would
+      // read as that value's (and a trend could be another change's). Such an interval is left out, and counted.
+      const { x, mixed } = intervalValue(w.setupIds, valueOf);
+      if (mixed) mixedSetting++;
+      if (x === null) continue;
       const y = q.y === 'wear' ? (w.inner + w.middle + w.outer) / 3 : w.inner - w.outer;
-      points.push({ ...b, y, runId: null, runs: w.runs, corner: w.corner });
+      points.push({ ...base(x, w.setupId, w.eventId), y, runId: null, runs: w.runs, corner: w.corner });
     }
   }
   const descriptions = {
@@ -220,6 +246,8 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
     points,
     n: points.length,
     fit: fitLine(points),
+    leftOut: { mixedSetting },
+    perValue,
   };
 }
 

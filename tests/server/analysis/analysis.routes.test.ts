@@ -1,9 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mean as mathMean, std as mathStd } from 'mathjs';
 import { client, makeTestApp, type TestApp } from '../test-app';
 import { seededDatabaseUrl } from '../support-seeded';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/db/demo-accounts';
 import { DEMO_CAMBER_ARMS_DATE } from '../../../server/db/demo-season';
-import { driverWithCarAndEvent, postRun, postSetup } from '../season/season-fixtures';
+import { driverWithCarAndEvent, postRun, postSetup, type Driver } from '../season/season-fixtures';
 
 let db: Awaited<ReturnType<typeof seededDatabaseUrl>>;
 let t: TestApp;
@@ -26,6 +27,30 @@ afterAll(async () => {
   await db?.drop();
 });
 
+/** The clean times of the demo-free car below: 12 April (best 44.9 s) and 3 May (best 49.5 s). */
+const DAY_ONE = [46.0, 45.8, 45.6, 45.2, 45.0, 45.1, 44.9];
+const DAY_TWO = [50.0, 49.5, 49.8];
+
+/**
+ * A car of its own: rear clicks 5 from 1 April, changed to 7 between the third and fourth runs of 12 April, and
+ * a second event on 3 May run on 7 all day.
+ */
+async function rearClicksChangedMidDay(): Promise<Driver> {
+  const d = await driverWithCarAndEvent(t);
+  const rear = (clicks: number) => ({ camberDeg: -1.0, toeMm: 1, damperClicks: clicks, coldPressureKpa: 210 });
+  const front = { camberDeg: -1.5, toeMm: 0, damperClicks: 4, coldPressureKpa: 220 };
+  await postSetup(d.c, d.carId, { label: 'Baseline', effectiveFrom: '2026-04-01T00:00:00Z', corners: { lf: front, rf: front, lr: rear(5), rr: rear(5) } });
+  await postSetup(d.c, d.carId, { label: 'Rear clicks +2', effectiveFrom: '2026-04-12T10:25:00Z', corners: { lf: front, rf: front, lr: rear(7), rr: rear(7) } });
+  for (const [i, raw] of DAY_ONE.entries()) {
+    await postRun(d.c, d.carId, d.eventId, { runNumber: i + 1, rawTimeSec: raw, recordedAt: new Date(Date.UTC(2026, 3, 12, 10, i * 10)).toISOString() });
+  }
+  const second = await d.c.post('/api/events', { name: 'Spring points round 2', date: '2026-05-03', conePenaltySec: 2 });
+  for (const [i, raw] of DAY_TWO.entries()) {
+    await postRun(d.c, d.carId, second.body.id, { runNumber: i + 1, rawTimeSec: raw, recordedAt: new Date(Date.UTC(2026, 4, 3, 10, i * 10)).toISOString() });
+  }
+  return d;
+}
+
 describe('GET /api/cars/:carId/analysis/scatter', () => {
   it('when front camber is plotted against front wear skew, then every interval is a point and the fit says more negative camber skews less inward', async () => {
     const res = await maren.get(`/api/cars/${carId}/analysis/scatter?x=camber&y=wearSkew&corner=front`);
@@ -40,6 +65,21 @@ describe('GET /api/cars/:carId/analysis/scatter', () => {
     expect(res.body.fit.slope).toBeGreaterThan(0);
     expect(res.body.fit.r2).toBeGreaterThan(0.3);
     for (const p of res.body.points) expect(p).toMatchObject({ setupId: expect.any(String), eventId: expect.any(String), runs: expect.any(Number) });
+  });
+
+  it('when the demo car’s rear clicks are plotted against rear wear, then each event day the clicks changed mid-day is left out at both rear corners', async () => {
+    const res = await maren.get(`/api/cars/${carId}/analysis/scatter?x=damperClicks&y=wear&corner=rear`);
+    expect(res.status).toBe(200);
+    // Every setup after the first that changed the rear clicks was a quick change between runs of an event day.
+    const setups = ((await maren.get(`/api/cars/${carId}/setups`)).body.items as { effectiveFrom: string; corners: { lr: { damperClicks: number } } }[])
+      .sort((a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom));
+    const changes = setups.filter((s, i) => i > 0 && s.corners.lr.damperClicks !== setups[i - 1]!.corners.lr.damperClicks).length;
+    expect(changes).toBeGreaterThan(0);
+    expect(res.body.leftOut).toEqual({ mixedSetting: 2 * changes });
+    // Rear camber never changed, so its plot has every interval: the two plots' points and left-out add up to it.
+    const camber = await maren.get(`/api/cars/${carId}/analysis/scatter?x=camber&y=wear&corner=rear`);
+    expect(camber.body.leftOut).toEqual({ mixedSetting: 0 });
+    expect(res.body.n + res.body.leftOut.mixedSetting).toBe(camber.body.n);
   });
 
   it('when clicks are plotted against time, then each run is a point with its run, event and setup, and clicks are normalised soft = 0', async () => {
@@ -77,6 +117,57 @@ describe('GET /api/cars/:carId/analysis/scatter', () => {
     expect(res.status).toBe(200);
     expect(res.body.points.map((p: { x: number; y: number }) => [p.x, p.y])).toEqual([[-1.2, 0], [-1.8, 0], [-2.4, 0]]);
     expect(res.body.fit).toEqual({ slope: 0, intercept: 0, r2: 1 });
+  });
+
+  it('when the rear clicks were changed between two tread readings, then that interval is left out of clicks against wear and counted, not credited to the later value', async () => {
+    const d = await rearClicksChangedMidDay();
+    const set = await d.c.post(`/api/cars/${d.carId}/tyre-sets`, { label: 'Set A', size: '205/50R15', startTreadMm: 7 });
+    expect(set.status).toBe(201);
+    const rear = (mm: number) => ({ innerMm: mm, middleMm: mm, outerMm: mm });
+    for (const [takenAt, mm] of [['2026-04-01T09:30:00Z', 7], ['2026-04-12T17:00:00Z', 6.72], ['2026-05-03T17:00:00Z', 6.6]] as const) {
+      const reading = await d.c.post(`/api/tyre-sets/${set.body.id}/readings`, { takenAt, corners: { lr: rear(mm), rr: rear(mm) } });
+      expect(reading.status, JSON.stringify(reading.body)).toBe(201);
+    }
+
+    // 1 April → 12 April: 3 runs on 5 clicks and 4 on 7. 12 April → 3 May: 3 runs, all on 7.
+    const clicks = await d.c.get(`/api/cars/${d.carId}/analysis/scatter?x=damperClicks&y=wear&corner=rear`);
+    expect(clicks.status).toBe(200);
+    expect(clicks.body.points.map((p: { x: number; runs: number; corner: string }) => [p.corner, p.x, p.runs])).toEqual([['lr', 7, 3], ['rr', 7, 3]]);
+    // 0.12 mm over 3 runs.
+    for (const p of clicks.body.points) expect(p.y).toBeCloseTo(0.04, 12);
+    expect(clicks.body.n).toBe(2);
+    expect(clicks.body.leftOut).toEqual({ mixedSetting: 2 });
+
+    // Rear camber never changed: every interval is on one value, whichever setups its runs were on.
+    const camber = await d.c.get(`/api/cars/${d.carId}/analysis/scatter?x=camber&y=wear&corner=rear`);
+    expect(camber.body.n).toBe(4);
+    expect(camber.body.leftOut).toEqual({ mixedSetting: 0 });
+  });
+
+  it('when clicks are plotted against time, then each value has its runs, events, and mean and spread of % off the day’s best, and the change within a day is flagged as tied to run order', async () => {
+    const d = await rearClicksChangedMidDay();
+    const res = await d.c.get(`/api/cars/${d.carId}/analysis/scatter?x=damperClicks&y=time&corner=rear`);
+    expect(res.status).toBe(200);
+
+    // Independent: % off = (t − best)/best × 100 (SCCA Solo Rules scoring, common practice), each run against its
+    // day's best, then the mean and the sample standard deviation (n − 1) from mathjs.
+    const pct = (t: number, best: number) => ((t - best) / best) * 100;
+    const five = DAY_ONE.slice(0, 3).map((t) => pct(t, 44.9));
+    const seven = [...DAY_ONE.slice(3).map((t) => pct(t, 44.9)), ...DAY_TWO.map((t) => pct(t, 49.5))];
+    const [low, high] = res.body.perValue.values;
+    expect(res.body.perValue.values).toHaveLength(2);
+    expect(low).toMatchObject({ value: 5, n: 3, days: 1 });
+    expect(low.mean).toBeCloseTo(mathMean(five), 10);
+    expect(low.sd).toBeCloseTo(Number(mathStd(five)), 10);
+    expect(high).toMatchObject({ value: 7, n: 7, days: 2 });
+    expect(high.mean).toBeCloseTo(mathMean(seven), 10);
+    expect(high.sd).toBeCloseTo(Number(mathStd(seven)), 10);
+    // 12 April: 5 clicks for the first three runs, then 7; 3 May: 7 all day.
+    expect(res.body.perValue.runOrder).toEqual({ daysChanged: 1, daysInBlocks: 1 });
+    expect(res.body.leftOut).toEqual({ mixedSetting: 0 });
+
+    const wear = await d.c.get(`/api/cars/${d.carId}/analysis/scatter?x=damperClicks&y=wear&corner=rear`);
+    expect(wear.body.perValue).toBeNull();
   });
 
   it('when x or y is not one of the choices, then 400 with a field error', async () => {
