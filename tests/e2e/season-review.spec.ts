@@ -156,6 +156,7 @@ describe("the demo driver's season review (390×844)", () => {
     const card = page.getByRole('region', { name: 'Setup against time and wear' });
     await card.getByRole('img').waitFor({ timeout: 20_000 });
     await card.getByRole('button', { name: 'Show as table' }).click();
+    // The points' table, not the one under it with each value's average.
     const table = card.getByRole('table', { name: /against .* points$/ });
     await table.waitFor();
 

@@ -21,6 +21,7 @@ import { axisTick, METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxi
 import { buildScatterPlot, wholeStepAxis, type ScatterPlot } from '../utils/scatter-plot';
 import type { ChartSeries } from './analysis-chart';
 import { ChartLoading } from './chart-loading';
+import { PerValueSummary } from './per-value-summary';
 import type { PointRow } from './points-table';
 import { ShowTableToggle, TableLoading } from './show-table-toggle';
 
@@ -108,6 +109,22 @@ function Caption({ result }: { result: ScatterResult }) {
   );
 }
 
+/** Wear intervals the setting changed within: said, with why, so the plot's count is not taken for all of them. */
+function LeftOutNote({ result }: { result: ScatterResult }) {
+  const n = result.leftOut?.mixedSetting ?? 0;
+  if (n === 0) return null;
+  const [them, their] = n === 1 ? ['interval', 'its'] : ['intervals', 'their'];
+  return (
+    <p className="tabular-figures text-sm">
+      <span className="font-semibold">
+        {n} wear {them} left out:
+      </span>{' '}
+      this setting was changed between {their} two tread readings, so {their} runs were on more than one value and the
+      wear cannot be credited to any one of them.
+    </p>
+  );
+}
+
 function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: ClicksAs }) {
   const units = useUnits();
   const tableId = useId();
@@ -133,7 +150,10 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
     <div className="flex flex-col gap-3">
       <p className="text-sm text-ink-muted">{result.y.description}</p>
       {result.n === 0 ? (
-        <EmptyState message="Not enough data yet: no points with this setting recorded. Try another corner or setting." />
+        <>
+          <EmptyState message="Not enough data yet: no points with this setting recorded. Try another corner or setting." />
+          <LeftOutNote result={result} />
+        </>
       ) : (
         <>
           <Suspense fallback={<ChartLoading series={series} />}>
@@ -146,6 +166,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
             />
           </Suspense>
           <Caption result={result} />
+          <LeftOutNote result={result} />
           <ShowTableToggle shown={showTable} onToggle={() => setShowTable((v) => !v)} controls={tableId} />
           {showTable ? (
             <Suspense fallback={<TableLoading />}>
@@ -159,6 +180,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
               />
             </Suspense>
           ) : null}
+          <PerValueSummary result={result} />
         </>
       )}
     </div>

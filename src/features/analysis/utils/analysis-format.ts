@@ -79,6 +79,17 @@ export interface Axis {
 }
 
 /**
+ * A setting's value in words and the user's unit: "7 clicks", "−1.50°", "28.0 psi". When the server's unit is not the
+ * SI unit we expect, the number as sent, with its unit.
+ */
+export function settingText(x: Pick<ScatterResult['x'], 'param' | 'unit'>, value: number, units: UnitPreferences): string {
+  const { quantity } = PARAM_INFO[x.param];
+  if (quantity === null) return clicksText(value);
+  if (x.unit !== UNIT_SYMBOLS[SI_UNITS[quantity]]) return `${value} ${x.unit}`;
+  return formatQuantity(value, quantity, units);
+}
+
+/**
  * The x axis: the setup value in the user's unit, or for clicks optionally the share of the adjuster's range
  * (0 = softest). When the server's unit is not the SI unit we expect, the numbers are shown as sent, with its unit.
  */
@@ -93,24 +104,19 @@ export function xAxis(result: Pick<ScatterResult, 'x'>, units: UnitPreferences, 
       fromSi: (si) => si,
     };
   }
+  const format = (p: ScatterPoint) => settingText(result.x, p.x, units);
   if (quantity === null) {
-    return { title: 'Damper clicks', short: 'Clicks', value: (p) => p.x, format: (p) => clicksText(p.x), fromSi: (si) => si, whole: true };
+    return { title: 'Damper clicks', short: 'Clicks', value: (p) => p.x, format, fromSi: (si) => si, whole: true };
   }
   if (result.x.unit !== UNIT_SYMBOLS[SI_UNITS[quantity]]) {
-    return {
-      title: `${label} (${result.x.unit})`,
-      short: `${label} (${result.x.unit})`,
-      value: (p) => p.x,
-      format: (p) => `${p.x} ${result.x.unit}`,
-      fromSi: (si) => si,
-    };
+    return { title: `${label} (${result.x.unit})`, short: `${label} (${result.x.unit})`, value: (p) => p.x, format, fromSi: (si) => si };
   }
   const symbol = UNIT_SYMBOLS[unitFor(quantity, units)];
   return {
     title: `${label} (${symbol})`,
     short: `${label} (${symbol})`,
     value: (p) => toDisplay(p.x, quantity, units),
-    format: (p) => formatQuantity(p.x, quantity, units),
+    format,
     fromSi: (si) => toDisplay(si, quantity, units),
   };
 }

@@ -318,6 +318,127 @@ describe('season review: setup against time and wear', () => {
   });
 });
 
+describe('season review: wear intervals the setting changed within', () => {
+  it('when intervals were left out because the setting changed between their tread readings, then the plot says how many and why', async () => {
+    const wear: ScatterResult = { ...PRESSURE_WEAR, leftOut: { mixedSetting: 3 } };
+    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, PRESSURE_TIME), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, wear) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+    await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+    const note = await scatter.findByText(/^3 wear intervals left out:/);
+    expect(note.closest('p')?.textContent).toBe(
+      '3 wear intervals left out: this setting was changed between their two tread readings, so their runs were on more than one value and the wear cannot be credited to any one of them.',
+    );
+    expect(scatter.getByText(/^2 wear intervals/)).toBeTruthy();
+  });
+
+  it('when every interval was left out, then the empty plot still says how many were and why, in the singular for one', async () => {
+    const wear: ScatterResult = { ...PRESSURE_WEAR, points: [], n: 0, leftOut: { mixedSetting: 1 } };
+    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, PRESSURE_TIME), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, wear) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+    await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+    const note = await scatter.findByText(/^1 wear interval left out:/);
+    expect(note.closest('p')?.textContent).toMatch(/changed between its two tread readings, so its runs were on more than one value/);
+    expect(scatter.getByText(/Not enough data yet: no points/)).toBeTruthy();
+  });
+});
+
+describe('season review: time on each value of the setting', () => {
+  const pressureTime = (runOrder: { daysChanged: number; daysInBlocks: number }): ScatterResult => ({
+    ...CAMBER_TIME,
+    x: { param: 'coldPressure', corner: 'front', unit: 'kPa' },
+    points: [point({ x: 206.8428, y: 1.9 }), point({ x: 220.632, y: 0.6, ...EVENT_B }), point({ x: 220.632, y: 0.2, ...EVENT_B })],
+    fit: null,
+    leftOut: { mixedSetting: 0 },
+    perValue: {
+      values: [
+        { value: 206.8428, n: 1, days: 1, mean: 1.9, sd: null },
+        { value: 220.632, n: 14, days: 3, mean: 0.4125, sd: 0.2871 },
+      ],
+      runOrder,
+    },
+  });
+
+  it('when the time plot answers with a summary per value, then a table under it gives each value in the user’s unit with its runs, events and average ± spread', async () => {
+    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, pressureTime({ daysChanged: 2, daysInBlocks: 0 })) });
+    const u = renderPage(IMPERIAL_PREFERENCES);
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+
+    const table = await scatter.findByRole('table', { name: 'Time on each cold pressure value' });
+    const rows = within(table).getAllByRole('row');
+    expect(within(rows[0]!).getAllByRole('columnheader').map((c) => c.textContent)).toEqual(['Cold pressure', 'Runs', 'Events', "Off the day's best"]);
+    const cells = (row: HTMLElement) => [within(row).getByRole('rowheader'), ...within(row).getAllByRole('cell')].map((c) => c.textContent);
+    // 206.8428 kPa = 30.0 psi and 220.632 kPa = 32.0 psi (psi = 6894.757 Pa, NIST SP 811).
+    expect(cells(rows[1]!)).toEqual(['30.0 psi', '1', '1', '1.90 % (one run: no spread)']);
+    expect(cells(rows[2]!)).toEqual(['32.0 psi', '14', '3', '0.41 ± 0.29 %']);
+    // The values were alternated through the days they changed: no caution.
+    expect(scatter.queryByRole('complementary', { name: 'The values follow run order' })).toBeNull();
+  });
+
+  it('when every day the setting changed had its values in one block each, then a caution says the later value was run later in the day', async () => {
+    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, pressureTime({ daysChanged: 3, daysInBlocks: 3 })) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+
+    const caution = await scatter.findByRole('complementary', { name: 'The values follow run order' });
+    expect(caution.textContent).toMatch(
+      /On each of the 3 days this setting was changed between runs, every run on the later value came after every run on the earlier one\. Drivers usually get quicker through a day, so the later value can look quicker than it is/,
+    );
+  });
+
+  it('when only some of those days had the values in blocks, then the caution gives the count of them', async () => {
+    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, pressureTime({ daysChanged: 4, daysInBlocks: 1 })) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+
+    const caution = await scatter.findByRole('complementary', { name: 'The values follow run order' });
+    expect(caution.textContent).toMatch(/On 1 of the 4 days this setting was changed between runs, every run on the later value/);
+    expect(scatter.queryByRole('complementary', { name: 'Each value ran on other days' })).toBeNull();
+  });
+
+  it('when no day had runs on more than one value, then a caution says this measure cannot compare values run on different days', async () => {
+    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, pressureTime({ daysChanged: 0, daysInBlocks: 0 })) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+
+    const caution = await scatter.findByRole('complementary', { name: 'Each value ran on other days' });
+    expect(caution.textContent).toMatch(/No day had runs on more than one of these values.*a change made between events cannot show in these averages/);
+    expect(caution.textContent).toMatch(/class board/);
+    expect(scatter.queryByRole('complementary', { name: 'The values follow run order' })).toBeNull();
+  });
+
+  it('when wear is plotted, then there is no time table, and with none left out no left-out line', async () => {
+    const wear: ScatterResult = { ...PRESSURE_WEAR, leftOut: { mixedSetting: 0 }, perValue: null };
+    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, pressureTime({ daysChanged: 1, daysInBlocks: 1 })), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, wear) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+    await scatter.findByRole('table', { name: 'Time on each cold pressure value' });
+
+    await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+    await scatter.findByText(/^2 wear intervals/);
+    expect(scatter.queryByRole('table', { name: /Time on each/ })).toBeNull();
+    expect(scatter.queryByRole('complementary', { name: 'The values follow run order' })).toBeNull();
+    expect(scatter.queryByText(/left out:/)).toBeNull();
+  });
+});
+
 describe('season review: before and after a change, read in 1/32 in', () => {
   it('when the user reads tread in 1/32 in, then each wear verdict is said again in 1/32 in, never in mm beside numbers in 1/32 in', async () => {
     const answer = compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber');
