@@ -189,6 +189,11 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
       )}
       <div className="flex flex-col gap-1 rounded border border-line p-3">
         <Measure title="Time: % off the day's best, per run" comparison={result.time} scale={PERCENT_SCALE} counted="run" />
+        <p className="text-sm text-ink-muted">
+          Each run is measured against the same driver&apos;s best run that day, so this shows a change made during a day,
+          between runs. A change made between events moves the whole day, best run included, so it cannot show here: judge
+          it against another car on the same days, such as on the team&apos;s class board if this car is entered in a team.
+        </p>
       </div>
     </div>
   );

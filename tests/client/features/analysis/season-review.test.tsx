@@ -516,6 +516,20 @@ describe('season review: before and after a change', () => {
     expect(compare.getByText('(24 runs)')).toBeTruthy();
   });
 
+  it('when the time comparison shows, then it says plainly that it compares runs within a day, and where to judge a change made between events', async () => {
+    stub();
+    renderPage();
+    const compare = section('Before and after a change');
+    const verdict = await compare.findByText("Camber: % off the day's best fell by 0.51 %, not enough to rule out chance.");
+
+    const card = verdict.closest('div.rounded') as HTMLElement;
+    expect(within(card).getByText(/^Each run is measured against/).textContent).toBe(
+      "Each run is measured against the same driver's best run that day, so this shows a change made during a day, between runs. " +
+        "A change made between events moves the whole day, best run included, so it cannot show here: judge it against another car on the same days, " +
+        "such as on the team's class board if this car is entered in a team.",
+    );
+  });
+
   it('when the screen is narrow, then the corners come one under another, front first, each headed by its name', async () => {
     stub();
     renderPage();
