@@ -52,6 +52,9 @@ export interface ScatterPoint {
   xNormalized: number | null;
   y: number;
   runId: string | null;
+  /** Time points: the run's driver and number, so a point can be found on its event's page. */
+  driver: { id: string; displayName: string } | null;
+  runNumber: number | null;
   /** Wear points: the runs between the two readings. */
   runs: number | null;
   eventId: string | null;

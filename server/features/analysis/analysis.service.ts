@@ -217,7 +217,7 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
     for (const run of season.runs.filter(timesTheSetup)) {
       const x = valueOf(run.setupId);
       if (x === null || !inRange(eventOf(run.eventId)?.date ?? null, q)) continue;
-      points.push({ ...base(x, run.setupId, run.eventId), y: run.pctOffBest, runId: run.id, runs: null, corner: null });
+      points.push({ ...base(x, run.setupId, run.eventId), y: run.pctOffBest, runId: run.id, driver: run.driver, runNumber: run.runNumber, runs: null, corner: null });
       readings.push({ value: x, y: run.pctOffBest, day: run.eventId, order: Date.parse(run.recordedAt) });
     }
     perValue = { values: summariseByValue(readings), runOrder: runOrderWithinDays(readings) };
@@ -231,7 +231,7 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
       if (mixed) mixedSetting++;
       if (x === null) continue;
       const y = q.y === 'wear' ? (w.inner + w.middle + w.outer) / 3 : w.inner - w.outer;
-      points.push({ ...base(x, w.setupId, w.eventId), y, runId: null, runs: w.runs, corner: w.corner });
+      points.push({ ...base(x, w.setupId, w.eventId), y, runId: null, driver: null, runNumber: null, runs: w.runs, corner: w.corner });
     }
   }
   const descriptions = {

@@ -64,7 +64,7 @@ describe('GET /api/cars/:carId/analysis/scatter', () => {
     // Inner-minus-outer wear is higher at −1.2° (toe-out era) than at −2.4°: y falls as camber rises, so the slope is positive.
     expect(res.body.fit.slope).toBeGreaterThan(0);
     expect(res.body.fit.r2).toBeGreaterThan(0.3);
-    for (const p of res.body.points) expect(p).toMatchObject({ setupId: expect.any(String), eventId: expect.any(String), runs: expect.any(Number) });
+    for (const p of res.body.points) expect(p).toMatchObject({ setupId: expect.any(String), eventId: expect.any(String), runs: expect.any(Number), driver: null, runNumber: null });
   });
 
   it('when the demo car’s rear clicks are plotted against rear wear, then each event day the clicks changed mid-day is left out at both rear corners', async () => {
@@ -86,13 +86,18 @@ describe('GET /api/cars/:carId/analysis/scatter', () => {
     const res = await maren.get(`/api/cars/${carId}/analysis/scatter?x=damperClicks&y=time&corner=rear`);
     expect(res.status).toBe(200);
     // Every finished run without a cone, and no other: a cone's penalty is the driver's, not the setup's.
-    const runs = (await maren.get(`/api/runs?carId=${carId}`)).body.items as { id: string; cones: number; status: string }[];
+    const runs = (await maren.get(`/api/runs?carId=${carId}`)).body.items as { id: string; cones: number; status: string; runNumber: number; driver: { id: string; displayName: string } }[];
     const clean = runs.filter((r) => r.status === 'finished' && r.cones === 0);
     expect(runs.some((r) => r.status === 'finished' && r.cones > 0)).toBe(true);
     expect(res.body.n).toBe(clean.length);
     expect(new Set(res.body.points.map((pt: { runId: string }) => pt.runId))).toEqual(new Set(clean.map((r) => r.id)));
     const p = res.body.points[0];
     expect(p).toMatchObject({ runId: expect.any(String), eventId: expect.any(String), setupId: expect.any(String) });
+    // Each point names its run's driver and number, as the run list does.
+    for (const pt of res.body.points as { runId: string; driver: unknown; runNumber: number }[]) {
+      const run = clean.find((r) => r.id === pt.runId)!;
+      expect([pt.driver, pt.runNumber]).toEqual([run.driver, run.runNumber]);
+    }
     // The demo roadster counts clicks from full soft, 12 positions.
     expect(p.xNormalized).toBeCloseTo(p.x / 12, 12);
     expect(res.body.y.unit).toBe('%');

@@ -76,6 +76,8 @@ function pointRows(result: ScatterResult, plot: ScatterPlot, x: Axis, y: Axis): 
         marker: { glyph: s.style.glyph, color: s.style.color, name: s.style.shapeName },
         event: s.label,
         runs: runsText(p),
+        ...(p.driver ? { driver: p.driver.displayName } : {}),
+        ...(p.runNumber !== null ? { runNumber: p.runNumber } : {}),
         setup: p.setupLabel ?? '—',
         ...(wear ? { corner: p.corner?.toUpperCase() ?? '—' } : {}),
         x: x.format(p),

@@ -38,6 +38,8 @@ function point(partial: Partial<ScatterPoint> & Pick<ScatterPoint, 'x' | 'y'>): 
   return {
     xNormalized: null,
     runId: 'b1111111-1111-4111-8111-111111111111',
+    driver: { id: IDS.maren, displayName: 'Maren Holt' },
+    runNumber: 1,
     runs: null,
     ...EVENT_A,
     setupId: IDS.setupBase,
@@ -52,8 +54,8 @@ const CAMBER_TIME: ScatterResult = {
   y: { metric: 'time', unit: '%', description: "% off that driver's best at the same event." },
   points: [
     point({ x: -1.5, y: 1.23 }),
-    point({ x: -1.5, y: 2.4 }),
-    point({ x: -2, y: 0.5, ...EVENT_B, setupLabel: 'More camber' }),
+    point({ x: -1.5, y: 2.4, runNumber: 3 }),
+    point({ x: -2, y: 0.5, ...EVENT_B, setupLabel: 'More camber', driver: { id: IDS.tomas, displayName: 'Tomas Reyes' }, runNumber: 2 }),
   ],
   n: 3,
   fit: { slope: 2.2, intercept: 5, r2: 0.52 },
@@ -65,8 +67,8 @@ const PRESSURE_WEAR: ScatterResult = {
   x: { param: 'coldPressure', corner: 'front', unit: 'kPa' },
   y: { metric: 'wear', unit: 'mm/run', description: 'Tread lost per run between two readings, mean of inner, middle and outer.' },
   points: [
-    point({ x: 220.632, y: 0.05, runId: null, runs: 6, corner: 'lf' }),
-    point({ x: 206.8428, y: 0.04, runId: null, runs: 5, corner: 'rf', ...EVENT_B }),
+    point({ x: 220.632, y: 0.05, runId: null, driver: null, runNumber: null, runs: 6, corner: 'lf' }),
+    point({ x: 206.8428, y: 0.04, runId: null, driver: null, runNumber: null, runs: 5, corner: 'rf', ...EVENT_B }),
   ],
   n: 2,
   fit: null,
@@ -216,7 +218,11 @@ describe('season review: setup against time and wear', () => {
     expect(rows).toHaveLength(6); // a heading row, then each event's name above its points (two, then one)
     expect(within(table).getByRole('columnheader', { name: 'Camber (°)' })).toBeTruthy();
     expect(rows[1]!.textContent).toMatch(/^●circle Harrow Flats — Round 3 \(.*2026\)$/);
-    expect([...rows[2]!.children].map((c) => c.textContent)).toEqual(['1', '\u22121.50°', '+1.23 %', 'Baseline']);
+    // Each run named by its driver and number, as on its event's page.
+    expect(within(table).getByRole('columnheader', { name: 'Driver, run' })).toBeTruthy();
+    expect([...rows[2]!.children].map((c) => c.textContent)).toEqual(['Maren Holt · run 1', '\u22121.50°', '+1.23 %', 'Baseline']);
+    expect(rows[3]!.children[0]!.textContent).toBe('Maren Holt · run 3');
+    expect(rows[5]!.children[0]!.textContent).toBe('Tomas Reyes · run 2');
     // Every point is one run: said once, not in a column.
     expect(scatter.getByText('Every row: 1 run.')).toBeTruthy();
     expect(within(rows[5]!).getByText('More camber')).toBeTruthy();
