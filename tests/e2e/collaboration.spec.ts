@@ -85,7 +85,10 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
     }
     expect(made.corners.lr!.camberDeg).toBe(before.corners.lr!.camberDeg);
 
-    await page.goto(`${baseUrl}/cars/${carId}`);
+    // From the suggestion to that snapshot on the car's page: it is drawn there however many newer ones the
+    // other tests have made since (the history shows the newest few).
+    await page.getByRole('link', { name: 'Open the new setup on the car’s page' }).click();
+    await page.waitForURL(new RegExp(`/cars/${carId}#setup-${made.id}$`));
     const badge = page.getByRole('link', { name: `from Kettle Lane Chassis Works: ${TITLE}` });
     await badge.waitFor({ timeout: 15_000 });
     await badge.scrollIntoViewIfNeeded();
