@@ -21,7 +21,7 @@ import { useCarViews } from '@/features/cars/hooks/use-car-views';
 import type { CarView } from '@/features/cars/utils/pending-cars';
 import { CommentsButton } from '@/features/comments/components/comments-button';
 import { NEW_CAR_PATH } from '@/features/cars/utils/new-car-path';
-import { EventFacts } from '@/features/events/components/event-facts';
+import { EventConditions, EventFacts } from '@/features/events/components/event-facts';
 import { useDayEvent } from '@/features/events/hooks/use-event-views';
 import { eventQueryOptions } from '@/features/events/api/get-event';
 import { carsQueryOptions } from '@/features/cars/api/get-cars';
@@ -237,6 +237,8 @@ export function EventDayPage() {
       <header className="flex flex-col">
         <h1 className="line-clamp-2 text-xl font-extrabold">{event?.name ?? (eventQuery.isPending ? 'Loading the event…' : 'Event day')}</h1>
         {event ? <EventFacts event={event} /> : null}
+        {/* Read back after the day, the conditions it was run in; on the day they would push the keypad under the Save bar. */}
+        {event && runMoment(event.date).dayOver ? <EventConditions event={event} /> : null}
         {event?.pending ? (
           <p className="flex flex-wrap items-center gap-x-2 gap-y-1 text-sm">
             <PendingBadge state={event.pending.state} />

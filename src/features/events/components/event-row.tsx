@@ -3,21 +3,8 @@ import { ChevronRight } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import { pathTo } from '@/config/paths';
 import { PendingBadge } from '@/components/ui/pending-badge';
-import { formatQuantity } from '@shared/calc/units.calc';
-import { useUnits } from '@/lib/units-context';
 import type { EventView } from '../utils/pending-events';
-import { EventFacts } from './event-facts';
-
-/** The conditions written down for the day, in the user's units: surface, air and track temperature; nothing if none. */
-function EventConditions({ event }: { event: EventView }) {
-  const units = useUnits();
-  const parts = [
-    event.surface,
-    event.airTempC !== null ? `air ${formatQuantity(event.airTempC, 'temperature', units)}` : null,
-    event.trackTempC !== null ? `track ${formatQuantity(event.trackTempC, 'temperature', units)}` : null,
-  ].filter(Boolean);
-  return parts.length ? <p className="tabular-figures text-sm text-ink-muted">{parts.join('\u00a0· ')}</p> : null;
-}
+import { EventConditions, EventFacts } from './event-facts';
 
 /** One event as a link to its event-day screen: its name (marked while still on this phone) and its facts; on a card or on the page. */
 export function EventRow({ event, before, caption }: { event: EventView; before?: ReactNode; caption?: string }) {

@@ -474,6 +474,17 @@ describe('event day', () => {
     renderApp(PATH);
 
     expect((await screen.findByRole('heading', { level: 2, name: /runs/i })).textContent).toBe('Today’s runs');
+    // On the day, the conditions stay off the header, which would push the keypad under the Save bar.
+    expect(screen.queryByText(/old concrete/)).toBeNull();
+  });
+
+  it('when a past event is read back, then its header gives the conditions it was run in, in the reader\'s units', async () => {
+    stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 })], { units: IMPERIAL_PREFERENCES });
+    renderApp(PATH);
+
+    const header = (await screen.findByRole('heading', { level: 1, name: EVENT.name })).closest('header')!;
+    // 22 °C = 71.6 °F and 36 °C = 96.8 °F (°F = °C × 9/5 + 32, NIST SP 811).
+    expect(within(header).getByText(/old concrete/).textContent).toMatch(/^old concrete\u00a0· air 72\s°F\u00a0· track 97\s°F$/);
   });
 
   it('when a saved run is deleted and the deletion has not left the phone, then Undo cancels it and nothing is sent', async () => {
