@@ -110,6 +110,15 @@ export interface BoardResult {
   rankInClass: number | null;
 }
 
+/** One axle's latest complete tread reading (both of its corners), as means over those two corners. */
+export interface BoardAxleWear {
+  /** Mean of the inner, middle and outer depths of the two corners, mm. */
+  meanDepthMm: number;
+  /** Mean of inner minus outer depth, mm: below 0, the inner edges are the more worn. */
+  innerMinusOuterMm: number;
+  takenAt: string;
+}
+
 export interface BoardCar {
   car: { id: string; name: string; carNumber: string | null };
   owner: { id: string; displayName: string };
@@ -130,6 +139,8 @@ export interface BoardCar {
     frontColdKpa: number | null;
     rearColdKpa: number | null;
   } | null;
+  /** The latest tread reading per axle up to the season's end, when the member shares setups; null otherwise or without readings. */
+  wear: { front: BoardAxleWear | null; rear: BoardAxleWear | null } | null;
 }
 
 export interface ClassBoard {

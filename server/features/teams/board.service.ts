@@ -1,15 +1,15 @@
 import type { DataSource } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
-import type { BoardCar, BoardResult, ClassBoard, TeamSharing } from '@shared/collab/team.schema';
+import type { BoardAxleWear, BoardCar, BoardResult, ClassBoard, TeamSharing } from '@shared/collab/team.schema';
 import type { Corner } from '@shared/season/corners';
 import type { RunStatus } from '@shared/season/run.schema';
-import { adjustedTimeSec, bestRun, indexTimeSec, leastSquaresSlope, pctOffBest } from '@shared/calc/index';
+import { adjustedTimeSec, bestRun, indexTimeSec, innerOuterSkewMm, leastSquaresSlope, pctOffBest } from '@shared/calc/index';
 import { entriesOf, factorsOf, teamSummary } from './team.service';
 
 /*
  * The class board: every entered car's season, grouped by the class it is entered in.
  * Read in a fixed number of queries whatever the number of cars (access, team, entries,
- * factors, the season's runs of every entered car, and the shared setups), then scored
+ * factors, the season's runs of every entered car, the shared setups and their tread), then scored
  * with the shared calculations.
  */
 
@@ -94,6 +94,58 @@ function setupSummary(rows: SetupRow[]): NonNullable<BoardCar['setup']> {
     frontColdKpa: axleMean(rows, front, 'cold_pressure_kpa'),
     rearColdKpa: axleMean(rows, rear, 'cold_pressure_kpa'),
   };
+}
+
+interface TreadRow {
+  car_id: string;
+  axle: 'front' | 'rear';
+  taken_at: Date;
+  inner_mm: number;
+  middle_mm: number;
+  outer_mm: number;
+}
+
+/**
+ * For each car, per axle, the latest tread reading up to the season's end that has both of the axle's corners
+ * (a reading may leave corners out), in one query: one row per corner of those readings.
+ */
+function latestTread(ds: DataSource, carIds: string[], season: number): Promise<TreadRow[]> {
+  return ds.query(
+    `WITH axle_readings AS (
+       SELECT s.car_id, t.id, t.taken_at, t.created_at, CASE WHEN c.corner IN ('lf', 'rf') THEN 'front' ELSE 'rear' END AS axle
+         FROM tread_readings t
+         JOIN tyre_sets s ON s.id = t.tyre_set_id
+         JOIN tread_reading_corners c ON c.reading_id = t.id
+        WHERE s.car_id = ANY($1) AND t.taken_at < make_date($2 + 1, 1, 1)
+        GROUP BY s.car_id, t.id, axle
+       HAVING count(*) = 2
+     ), latest AS (
+       SELECT DISTINCT ON (car_id, axle) car_id, id, axle, taken_at
+         FROM axle_readings
+        ORDER BY car_id, axle, taken_at DESC, created_at DESC, id DESC
+     )
+     SELECT l.car_id, l.axle, l.taken_at, c.inner_mm, c.middle_mm, c.outer_mm
+       FROM latest l
+       JOIN tread_reading_corners c
+         ON c.reading_id = l.id AND (CASE WHEN c.corner IN ('lf', 'rf') THEN 'front' ELSE 'rear' END) = l.axle`,
+    [carIds, season],
+  );
+}
+
+/** An axle's two corners as means: depth over inner, middle and outer; inner minus outer (the shared skew). */
+function axleWear(rows: TreadRow[]): BoardAxleWear | null {
+  if (rows.length === 0) return null;
+  const mean = (values: number[]) => round6(values.reduce((a, b) => a + b, 0) / values.length);
+  return {
+    meanDepthMm: mean(rows.flatMap((r) => [r.inner_mm, r.middle_mm, r.outer_mm])),
+    innerMinusOuterMm: mean(rows.map((r) => innerOuterSkewMm({ innerMm: r.inner_mm, outerMm: r.outer_mm }))),
+    takenAt: rows[0]!.taken_at.toISOString(),
+  };
+}
+
+function wearSummary(rows: TreadRow[]): BoardCar['wear'] {
+  if (rows.length === 0) return null;
+  return { front: axleWear(rows.filter((r) => r.axle === 'front')), rear: axleWear(rows.filter((r) => r.axle === 'rear')) };
 }
 
 interface Day {
@@ -192,6 +244,10 @@ export async function classBoard(ds: DataSource, user: User, teamId: string, sea
     [setupIds],
   );
 
+  // The tread of every car that shares setups, in one query; none is read for a car that shares results only.
+  const sharingCarIds = entries.filter((e) => e.sharing === 'results_and_setup').map((e) => e.car_id);
+  const treadRows = sharingCarIds.length === 0 ? [] : await latestTread(ds, sharingCarIds, year);
+
   const classes = new Map<string, BoardCar[]>();
   for (const e of entries) {
     const own = days.filter((d) => d.carId === e.car_id).sort((a, b) => a.eventOrder - b.eventOrder
@@ -206,6 +262,7 @@ export async function classBoard(ds: DataSource, user: User, teamId: string, sea
       results: own.map((d) => d.result),
       trendPctPerEvent: trendOf(own),
       setup: rows.length > 0 ? setupSummary(rows) : null,
+      wear: sharing === 'results_and_setup' ? wearSummary(treadRows.filter((r) => r.car_id === e.car_id)) : null,
     }]);
   }
 

@@ -50,6 +50,27 @@ async function runs(carId: string, eventId: string, driver: Person, date: string
   }
 }
 
+type Depths = [inner: number, middle: number, outer: number];
+
+/** A tread reading on one of the car's tyre sets, straight into the tables (the tyres API is tested elsewhere). */
+async function tread(tyreSetId: string, by: Person, takenAt: string, corners: Partial<Record<'lf' | 'rf' | 'lr' | 'rr', Depths>>) {
+  const rows: { id: string }[] = await t.ds.query(
+    'INSERT INTO tread_readings (tyre_set_id, taken_at, created_by) VALUES ($1, $2, $3) RETURNING id',
+    [tyreSetId, takenAt, by.user.id],
+  );
+  for (const [corner, [inner, middle, outer]] of Object.entries(corners)) {
+    await t.ds.query(
+      'INSERT INTO tread_reading_corners (reading_id, corner, inner_mm, middle_mm, outer_mm) VALUES ($1, $2, $3, $4, $5)',
+      [rows[0]!.id, corner, inner, middle, outer],
+    );
+  }
+}
+
+async function tyreSet(carId: string, label: string) {
+  const rows: { id: string }[] = await t.ds.query('INSERT INTO tyre_sets (car_id, label) VALUES ($1, $2) RETURNING id', [carId, label]);
+  return rows[0]!.id;
+}
+
 const entered = (b: ClassBoard, carId: string): BoardCar => {
   const found = b.classes.flatMap((c) => c.cars).find((c) => c.car.id === carId);
   expect(found, `car ${carId} on the board`).toBeDefined();
@@ -140,6 +161,21 @@ async function scenario() {
   await runs(bravo, e3, ben, '2025-06-01', [[48.4, 0]]);
   // The season before: Delta only.
   await runs(delta, e0, dee, '2024-09-14', [[57.0, 0]]);
+
+  // Tread. Alpha: an older set read in April; the race set read in full on 1 June, its fronts alone on 30 August,
+  // and in full again the next February (after the 2025 season).
+  const alphaOld = await tyreSet(alpha, 'Alpha old set');
+  const alphaRace = await tyreSet(alpha, 'Alpha race set');
+  await tread(alphaOld, ann, '2025-04-06T12:00:00Z', { lf: [7, 7, 7], rf: [7, 7, 7], lr: [7, 7, 7], rr: [7, 7, 7] });
+  await tread(alphaRace, ann, '2025-06-01T15:00:00Z', {
+    lf: [6.5, 6.5, 6.5], rf: [6.5, 6.5, 6.5], lr: [6.0, 6.0, 6.0], rr: [6.2, 6.1, 6.0],
+  });
+  await tread(alphaRace, ann, '2025-08-30T16:00:00Z', { lf: [5.0, 5.4, 5.6], rf: [4.8, 5.2, 5.0] });
+  await tread(alphaRace, ann, '2026-02-01T12:00:00Z', { lf: [2, 2, 2], rf: [2, 2, 2], lr: [2, 2, 2], rr: [2, 2, 2] });
+  // Bravo's tread must never appear on the board.
+  await tread(await tyreSet(bravo, 'Bravo set'), ben, '2025-06-01T15:00:00Z', {
+    lf: [3.33, 3.33, 3.33], rf: [3.33, 3.33, 3.33], lr: [3.33, 3.33, 3.33], rr: [3.33, 3.33, 3.33],
+  });
 
   return { captain, teamId, ann, ben, dee, eve, finn, alpha, bravo, delta, e0, e1, e2, e3 };
 }
@@ -269,13 +305,37 @@ describe('GET /api/teams/:teamId/board', () => {
     });
   });
 
-  it('when a member shares results only, then the board carries none of their setup values', () => {
+  it('when a member shares setups, then the board shows each axle\'s latest tread reading of the season as means over its two corners', () => {
+    // Front: 30 August, the latest reading with both fronts (the February one is after the 2025 season).
+    //   depth (5.0 + 5.4 + 5.6 + 4.8 + 5.2 + 5.0) / 6 = 31 / 6 = 5.166667 mm; inner − outer ((5.0 − 5.6) + (4.8 − 5.0)) / 2 = −0.4 mm.
+    // Rear: 1 June, since the August reading has no rears.
+    //   depth (6.0 × 3 + 6.2 + 6.1 + 6.0) / 6 = 36.3 / 6 = 6.05 mm; inner − outer ((6.0 − 6.0) + (6.2 − 6.0)) / 2 = 0.1 mm.
+    const wear = entered(board, s.alpha).wear;
+    expect(wear?.front?.takenAt).toBe('2025-08-30T16:00:00.000Z');
+    expect(wear?.front?.meanDepthMm).toBeCloseTo(31 / 6, 6);
+    expect(wear?.front?.innerMinusOuterMm).toBeCloseTo(-0.4, 6);
+    expect(wear?.rear?.takenAt).toBe('2025-06-01T15:00:00.000Z');
+    expect(wear?.rear?.meanDepthMm).toBeCloseTo(6.05, 6);
+    expect(wear?.rear?.innerMinusOuterMm).toBeCloseTo(0.1, 6);
+  });
+
+  it('when the season asked for is over, then a later reading shows only on the later season\'s board', async () => {
+    const next = (await s.ann.c.get(`/api/teams/${s.teamId}/board?season=2026`)).body as ClassBoard;
+    expect(entered(next, s.alpha).wear).toEqual({
+      front: { meanDepthMm: 2, innerMinusOuterMm: 0, takenAt: '2026-02-01T12:00:00.000Z' },
+      rear: { meanDepthMm: 2, innerMinusOuterMm: 0, takenAt: '2026-02-01T12:00:00.000Z' },
+    });
+  });
+
+  it('when a member shares results only, then the board carries none of their setup values or tread', () => {
     const bravo = entered(board, s.bravo);
     expect(bravo.sharing).toBe('results');
     expect(bravo.setup).toBeNull();
+    expect(bravo.wear).toBeNull();
     const json = JSON.stringify(board);
-    for (const value of ['Secret sauce', '-3.33', '77.7', '211.1']) expect(json).not.toContain(value);
+    for (const value of ['Secret sauce', '-3.33', '77.7', '211.1', '3.33']) expect(json).not.toContain(value);
     expect(entered(board, s.delta).setup).toBeNull();
+    expect(entered(board, s.delta).wear).toBeNull();
   });
 
   it('when a member reads the board, then they see what the captain sees', async () => {
@@ -305,7 +365,7 @@ describe('GET /api/teams/:teamId/board', () => {
     expect(res.body).toEqual({
       team: { id: teamId, name: 'Fresh', isCaptain: true },
       season: new Date().getUTCFullYear(),
-      classes: [{ classCode: 'SR', factor: null, cars: [expect.objectContaining({ results: [], trendPctPerEvent: null, setup: null })] }],
+      classes: [{ classCode: 'SR', factor: null, cars: [expect.objectContaining({ results: [], trendPctPerEvent: null, setup: null, wear: null })] }],
     });
   });
 
@@ -337,10 +397,20 @@ describe('GET /api/teams/:teamId/board', () => {
     await postSetup(solo.c, carId, { effectiveFrom: '2025-01-01T00:00:00Z' });
     await runs(carId, await event(solo, 'Solo round', '2025-04-06', 2), solo, '2025-04-06', [[50, 0]]);
 
+    await tread(await tyreSet(carId, 'Solo set'), solo, '2025-04-06T12:00:00Z', { lf: [5, 5, 5], rf: [5, 5, 5] });
+    // A second car sharing its setup and tread on the three-car team: a query per sharing car would show.
+    const second = await carOf(s.ann.c, 'Alpha two', 'SH');
+    expect((await s.ann.c.post(`/api/teams/${s.teamId}/entries`, { carId: second, classCode: 'SH', sharing: 'results_and_setup' })).status).toBe(201);
+    await tread(await tyreSet(second, 'Second set'), s.ann, '2025-04-06T12:00:00Z', { lr: [4, 4, 4], rr: [4, 4, 4] });
+
     const one = await countQueries(solo.c, teamId);
-    const three = await countQueries(s.captain.c, s.teamId);
-    expect(three).toBe(one);
-    expect(three).toBeLessThanOrEqual(10);
+    const four = await countQueries(s.captain.c, s.teamId);
+    try {
+      expect(four).toBe(one);
+      expect(four).toBeLessThanOrEqual(11);
+    } finally {
+      await s.ann.c.delete(`/api/teams/${s.teamId}/entries/${second}`);
+    }
   });
 });
 

@@ -87,6 +87,7 @@ export const MAREN_BOARD_CAR: BoardCar = {
   ],
   trendPctPerEvent: -0.4,
   setup: null,
+  wear: null,
 };
 
 /** Ines's second car, Maren's classmate in SM and its fastest at both rounds; its setup shared but none recorded. */
@@ -107,6 +108,7 @@ export const SILVER_BOARD_CAR: BoardCar = {
   ],
   trendPctPerEvent: 0,
   setup: null,
+  wear: null,
 };
 
 /** Ines's roadster in STR (factor 0.853), sharing its setup; the only car in its class. */
@@ -132,6 +134,11 @@ export const INES_BOARD_CAR: BoardCar = {
     rearClicks: 6,
     frontColdKpa: 200,
     rearColdKpa: 190,
+  },
+  // Front: inner 0.4 mm below outer; rear: inner 0.2 mm above outer, read a week earlier.
+  wear: {
+    front: { meanDepthMm: 5.08, innerMinusOuterMm: -0.4, takenAt: '2026-06-07T16:00:00.000Z' },
+    rear: { meanDepthMm: 6.33, innerMinusOuterMm: 0.2, takenAt: '2026-05-31T16:00:00.000Z' },
   },
 };
 
