@@ -9,7 +9,7 @@ import { recordPath } from '@/config/record-paths';
 import { formatDay, formatShortDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { aloneWords, boardTime, formatFactor, noTimeWords, rawConesWords, setupLines, trendWords } from '../utils/board-format';
+import { aloneWords, boardTime, formatFactor, noTimeWords, rawConesWords, setupLines, trendWords, wearLine } from '../utils/board-format';
 import { eventBoardPath } from '../utils/event-board';
 import type { TrendPoint } from './trend-chart';
 
@@ -140,6 +140,22 @@ function SetupSummary({ car }: { car: BoardCar }) {
   );
 }
 
+/** The latest tread per axle, for a car that shares its setup; nothing for one that shares results only. */
+function WearSummary({ car }: { car: BoardCar }) {
+  const units = useUnits();
+  if (car.sharing !== 'results_and_setup') return null;
+  if (!car.wear) return <p className="text-sm text-ink-muted">No tread readings this season yet.</p>;
+  return (
+    <div className="flex flex-col gap-1">
+      <p className="text-sm font-semibold">Tread at the latest reading (mean of both tyres)</p>
+      <ul aria-label={`Tread of ${car.car.name}`} className="tabular-figures flex flex-col gap-0.5 text-sm break-words">
+        <li>{wearLine('Front', car.wear.front, units)}</li>
+        <li>{wearLine('Rear', car.wear.rear, units)}</li>
+      </ul>
+    </div>
+  );
+}
+
 /**
  * The car's trend against its class's fastest. A car with no classmate that has a time this season is
  * only ever compared with itself, so it gets no trend, only that sentence.
@@ -190,11 +206,12 @@ function BoardCarCard({
       {car.results.length === 0 ? <p className="text-sm text-ink-muted">No results this season yet.</p> : <ResultsTable car={car} hasFactor={hasFactor} links={links} />}
       {car.results.length > 0 ? <Trend car={car} classCode={classCode} alone={alone} /> : null}
       <SetupSummary car={car} />
+      <WearSummary car={car} />
     </article>
   );
 }
 
-/** The team's season, class by class: every entered car's results, its trend, and its setup when shared. */
+/** The team's season, class by class: every entered car's results, its trend, and its setup and tread when shared. */
 export function ClassBoardView({ board }: { board: ClassBoard }) {
   if (board.classes.length === 0) {
     return <EmptyState message={`No cars are entered in ${board.team.name} yet. Enter a car on the team page and it shows here.`} />;

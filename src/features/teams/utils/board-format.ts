@@ -1,6 +1,8 @@
-import type { BoardCar, BoardResult } from '@shared/collab/team.schema';
+import type { BoardAxleWear, BoardCar, BoardResult } from '@shared/collab/team.schema';
 import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { formatRunTime } from '@shared/season/run-time';
+import { formatShortDay } from '@/lib/dates';
+import { toInputText } from '@/lib/numbers';
 
 /** A class factor as entered: at least three decimals ("0.850", "0.853"), and the fourth when it has one ("0.8535"). */
 export function formatFactor(factor: number): string {
@@ -78,6 +80,23 @@ export function setupLines(setup: NonNullable<BoardCar['setup']>, units: UnitPre
       rear: formatQuantity(setup.rearColdKpa, 'pressure', units),
     },
   ];
+}
+
+/**
+ * One axle's latest tread in plain words and the user's units: "Front tread 5.1 mm, inner 0.4 mm lower than outer · 7 Jun".
+ * The lower edge is the more worn one; "inner and outer even" when the difference rounds to 0 in the unit shown.
+ */
+export function wearLine(axle: 'Front' | 'Rear', wear: BoardAxleWear | null, units: UnitPreferences): string {
+  if (!wear) return `${axle} tread: no reading of both ${axle.toLowerCase()} tyres this season`;
+  const skew = wear.innerMinusOuterMm;
+  const gap = formatQuantity(Math.abs(skew), 'treadDepth', units);
+  const edges =
+    Number(toInputText(Math.abs(skew), 'treadDepth', units)) === 0
+      ? 'inner and outer even'
+      : skew < 0
+        ? `inner ${gap} lower than outer`
+        : `outer ${gap} lower than inner`;
+  return `${axle} tread ${formatQuantity(wear.meanDepthMm, 'treadDepth', units)}, ${edges} · ${formatShortDay(wear.takenAt)}`;
 }
 
 /** The year on this device, the season most people mean. */

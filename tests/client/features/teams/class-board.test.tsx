@@ -8,6 +8,7 @@ import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '.
 import { user } from '../../fixtures/season';
 import type { BoardCar } from '../../../../shared/collab/team.schema';
 import { chartGiven, layOutChart, tickLabels } from '../../chart-layout';
+import { formatShortDay } from '@/lib/dates';
 import { BOARD, INES_BOARD_CAR, MAREN_BOARD_CAR, SILVER_BOARD_CAR, TEAM_IDS } from './team-fixtures';
 
 // A canvas draws nothing in jsdom: stand in for the trend line, keeping what it was given.
@@ -121,6 +122,52 @@ describe('class board', () => {
     expect(cells(row('Springs'))).toEqual(['400 lb/in', '300 lb/in']);
     expect(cells(row('Clicks'))).toEqual(['8 clicks', '6 clicks']);
     expect(screen.getByRole('complementary', { name: 'Setups are starting points' })).toBeTruthy();
+  });
+
+  it('when a car shares its setup, then each axle\'s latest tread shows in mm with its date and which edge is lower; a car sharing results only shows none', async () => {
+    // Even were tread sent for a car that shares results only, its card would not show it.
+    const leaked = {
+      ...BOARD,
+      classes: BOARD.classes.map((c) => ({
+        ...c,
+        cars: c.cars.map((car) => (car.car.id === MAREN_BOARD_CAR.car.id ? { ...car, wear: INES_BOARD_CAR.wear } : car)),
+      })),
+    };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, leaked),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    const tread = await within(await screen.findByRole('region', { name: 'Class STR' })).findByRole('list', { name: 'Tread of White roadster' });
+    // 5.08 mm to one decimal is 5.1 mm; inner − outer = −0.4 mm, so the inner edge is the lower one. The rear's +0.2 mm puts the outer lower.
+    expect(within(tread).getAllByRole('listitem').map((li) => li.textContent)).toEqual([
+      `Front tread 5.1 mm, inner 0.4 mm lower than outer · ${formatShortDay('2026-06-07T16:00:00.000Z')}`,
+      `Rear tread 6.3 mm, outer 0.2 mm lower than inner · ${formatShortDay('2026-05-31T16:00:00.000Z')}`,
+    ]);
+
+    // Maren shares results only: no tread at all on her card. Silver shares its setup but has no readings.
+    const sm = classSection('SM');
+    const maren = within(sm).getByRole('article', { name: /^Grey roadster/ });
+    expect(within(maren).queryByRole('list', { name: /^Tread of/ })).toBeNull();
+    expect(maren.textContent).not.toMatch(/tread/i);
+    expect(within(within(sm).getByRole('article', { name: /^Silver roadster/ })).getByText('No tread readings this season yet.')).toBeTruthy();
+  });
+
+  it('when the user reads tread in 1/32 in, then the board\'s tread shows in 1/32 in', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    const tread = await screen.findByRole('list', { name: 'Tread of White roadster' });
+    // 1/32 in = 0.79375 mm (1 in = 25.4 mm exactly, NIST Handbook 44 appendix C): 5.08 mm = 6.4/32 in, 0.4 mm = 0.504 → 0.5/32 in;
+    // 6.33 mm = 7.975 → 8.0/32 in, 0.2 mm = 0.252 → 0.3/32 in.
+    expect(within(tread).getAllByRole('listitem').map((li) => li.textContent)).toEqual([
+      `Front tread 6.4/32 in, inner 0.5/32 in lower than outer · ${formatShortDay('2026-06-07T16:00:00.000Z')}`,
+      `Rear tread 8.0/32 in, outer 0.3/32 in lower than inner · ${formatShortDay('2026-05-31T16:00:00.000Z')}`,
+    ]);
   });
 
   it('when a car has a trend, then it is drawn from the % off the class’s fastest over the events’ dates and said to the board’s two decimals', async () => {
