@@ -9,6 +9,8 @@ interface FoldOutProps {
   label: ReactNode;
   /** Read out after the label: what it is about, e.g. "run 3". */
   what: string;
+  /** The word joining the label to `what` when read out: "Comments (3) on run 3", "Earlier readings of Set B". */
+  joiner?: 'on' | 'of';
   /** Shown while the content's code loads, and when it cannot. */
   loadingText: string;
   failedText: string;
@@ -20,7 +22,7 @@ interface FoldOutProps {
 }
 
 /** A section folded away under its button: comments, photos. Its content loads and renders on first open. */
-export function FoldOut({ icon: Icon, label, what, loadingText, failedText, defaultOpen = false, revealed = false, children }: FoldOutProps) {
+export function FoldOut({ icon: Icon, label, what, joiner = 'on', loadingText, failedText, defaultOpen = false, revealed = false, children }: FoldOutProps) {
   const [open, setOpen] = useState(defaultOpen || revealed);
   const panelId = useId();
   const ref = useRef<HTMLDivElement>(null);
@@ -44,7 +46,7 @@ export function FoldOut({ icon: Icon, label, what, loadingText, failedText, defa
         <Chevron aria-hidden="true" className="size-4" />
         <Icon aria-hidden="true" className="size-4" />
         {label}
-        <span className="sr-only"> on {what}</span>
+        <span className="sr-only"> {joiner} {what}</span>
       </button>
       <div id={panelId} hidden={!open}>
         {open ? (

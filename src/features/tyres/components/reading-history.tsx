@@ -1,5 +1,6 @@
-import { useId, useState, type ReactNode } from 'react';
-import { ChevronDown, ChevronRight, History } from 'lucide-react';
+import type { ReactNode } from 'react';
+import { History } from 'lucide-react';
+import { FoldOut } from '@/components/fold-out/fold-out';
 import type { TreadReading } from '@shared/season/tyre.schema';
 import { formatDateTime } from '@/lib/dates';
 import { useTreadReadings } from '../api/get-tread-readings';
@@ -19,29 +20,11 @@ interface ReadingHistoryProps {
  * A set's earlier tread readings, newest first, each in the corner grid, so the wear over the season can be
  * followed. Folded under a button so the page stays short on a phone; the readings are asked for on first open.
  */
-export function ReadingHistory({ tyreSetId, setLabel, latestReadingId, renderReadingExtras }: ReadingHistoryProps) {
-  const [open, setOpen] = useState(false);
-  const panelId = useId();
-  const Chevron = open ? ChevronDown : ChevronRight;
+export function ReadingHistory(props: ReadingHistoryProps) {
   return (
-    <div className="flex flex-col gap-2">
-      <button
-        type="button"
-        aria-expanded={open}
-        aria-controls={panelId}
-        onClick={() => setOpen((v) => !v)}
-        className="inline-flex min-h-12 items-center gap-1 self-start font-semibold text-link"
-      >
-        <Chevron aria-hidden="true" className="size-4" />
-        <History aria-hidden="true" className="size-4" />
-        Earlier readings<span className="sr-only"> of {setLabel}</span>
-      </button>
-      <div id={panelId} hidden={!open}>
-        {open ? (
-          <EarlierReadings tyreSetId={tyreSetId} setLabel={setLabel} latestReadingId={latestReadingId} renderReadingExtras={renderReadingExtras} />
-        ) : null}
-      </div>
-    </div>
+    <FoldOut icon={History} label="Earlier readings" what={props.setLabel} joiner="of" loadingText="Loading earlier readings…" failedText="Earlier readings could not be shown.">
+      <EarlierReadings {...props} />
+    </FoldOut>
   );
 }
 
