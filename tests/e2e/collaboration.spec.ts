@@ -130,7 +130,7 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
       const cell = (await results.getByRole('columnheader', { name: head }).boundingBox())!;
       expect(cell.x + cell.width, String(head)).toBeLessThanOrEqual(box.x + box.width + 1);
     }
-    await sh.getByText(/setup not shared/i).first().waitFor();
+    await sh.getByText(/setup and tread not shared/i).first().waitFor();
     const sideways = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(sideways).toBeLessThanOrEqual(0);
     await screenshot(page, 'captain-class-board');

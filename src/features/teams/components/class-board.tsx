@@ -106,7 +106,7 @@ function SetupSummary({ car }: { car: BoardCar }) {
   if (!car.setup) {
     return (
       <p className="text-sm text-ink-muted">
-        {car.sharing === 'results' ? 'Results only — setup not shared.' : 'Setup shared, but none is recorded for this season yet.'}
+        {car.sharing === 'results' ? 'Results only — setup and tread not shared.' : 'Setup shared, but none is recorded for this season yet.'}
       </p>
     );
   }
