@@ -175,6 +175,9 @@ const RULE_ORDER: readonly SuggestionCautionRule[] = [
   'pressure-low', 'pressure-high', 'pressure-step', 'spring-step', 'ride-height-step',
 ];
 
+/** The rules about a step from the value now, whose words give where it starts. */
+const STEP_RULES: ReadonlySet<SuggestionCautionRule> = new Set(['pressure-step', 'spring-step', 'ride-height-step']);
+
 /** Rounded for grouping, so 310.2637… typed twice lands in one group. */
 const groupKey = (n: number | null) => (n === null ? '-' : n.toFixed(6));
 
@@ -191,7 +194,9 @@ export function suggestionCautions(changes: readonly SuggestionChange[], current
     for (const check of CHECKS[r.field] ?? []) {
       const hit = check(r);
       if (!hit) continue;
-      const key = [hit.rule, groupKey(r.from), groupKey(r.to), groupKey(r.change)].join('|');
+      // A value's caution names only the value, so corners reaching it from different values share one; a step's
+      // caution names where it starts and ends.
+      const key = (STEP_RULES.has(hit.rule) ? [hit.rule, groupKey(r.from), groupKey(r.to), groupKey(r.change)] : [hit.rule, groupKey(r.to)]).join('|');
       const existing = found.get(key);
       if (existing) existing.corners.push(r.corner);
       else found.set(key, { ...hit, field: r.field, corners: [r.corner], from: r.from, to: r.to, change: r.change });

@@ -123,6 +123,17 @@ describe('suggestionCautions: grouping', () => {
     expect(apart.map((c) => c.corners)).toEqual([['lf'], ['rf']]);
   });
 
+  it('when all four go to one unusual value from different values now, then the value\'s caution names all four; a step from each stays per axle', () => {
+    // Front at 220 kPa, rear at 200 kPa; all four set to 100 kPa.
+    const now = { lf: { coldPressureKpa: 220 }, rf: { coldPressureKpa: 220 }, lr: { coldPressureKpa: 200 }, rr: { coldPressureKpa: 200 } };
+    const found = suggestionCautions([on('coldPressureKpa', ['lf', 'rf', 'lr', 'rr'], { value: 100 })], now);
+    expect(found.map((c) => [c.rule, cornersInWords(c.corners)])).toEqual([
+      ['pressure-low', 'All four'],
+      ['pressure-step', 'Front pair'], // 120 kPa down
+      ['pressure-step', 'Rear pair'], // 100 kPa down
+    ]);
+  });
+
   it('when corners are named, then pairs and all four read as such and others by name', () => {
     expect(cornersInWords(['rf', 'lf'])).toBe('Front pair');
     expect(cornersInWords(['lr', 'rr'])).toBe('Rear pair');
