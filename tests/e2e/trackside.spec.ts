@@ -158,6 +158,12 @@ describe('trackside on a phone (390×844)', () => {
     await logRun('47.210');
     await firstScreen('after a run is saved');
     await logRun('46.905', { cones: 2 });
+    // Pressing DNF changes the note under the time, in one line: the keys stay where the thumb is.
+    const keyTop = () => page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name: '1', exact: true }).evaluate((k) => k.getBoundingClientRect().top);
+    const before = await keyTop();
+    await page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name: 'DNF' }).click();
+    expect(await keyTop()).toBe(before);
+    await page.getByRole('group', { name: 'Time keypad' }).getByRole('button', { name: 'DNF' }).click();
     await logRun(null, { status: 'DNF' });
     await page.waitForFunction(() => !document.body.textContent?.includes('Waiting'), null, { timeout: 15_000 }).catch(() => {});
 

@@ -152,7 +152,7 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
         preview={preview}
         error={errors.rawTimeSec ?? null}
         label={`Raw time · ${driver.displayName}`}
-        idleNote={status !== 'finished' ? `${STATUS_WORDS[status]}: no time needed; type one if the timer gave one.` : saved}
+        idleNote={status !== 'finished' ? `${STATUS_WORDS[status]}: a time is optional.` : saved}
         status={{ value: status, onChange: setStatus }}
         aside={
           <label className="flex shrink-0 items-center gap-2">

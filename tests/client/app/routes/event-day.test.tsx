@@ -219,7 +219,7 @@ describe('event day', () => {
     expect(screen.getByRole('button', { name: 'Save run 2' })).toBeTruthy();
   });
 
-  it('when DNF is pressed on the keypad, then it stays pressed, the note says no time is needed, Off course takes its place, a second press undoes it, and the run saved is a DNF', async () => {
+  it('when DNF is pressed on the keypad, then it stays pressed, the note says a time is optional, Off course takes its place, a second press undoes it, and the run saved is a DNF', async () => {
     stubWithRuns([]);
     const { outbox } = renderApp(PATH);
     const u = userEvent.setup();
@@ -230,12 +230,12 @@ describe('event day', () => {
     expect([dnf.getAttribute('aria-pressed'), off.getAttribute('aria-pressed')]).toEqual(['false', 'false']);
 
     await u.click(off);
-    expect(screen.getByText('Off course: no time needed; type one if the timer gave one.')).toBeTruthy();
+    expect(screen.getByText('Off course: a time is optional.')).toBeTruthy();
     await u.click(dnf);
     expect([dnf.getAttribute('aria-pressed'), off.getAttribute('aria-pressed')]).toEqual(['true', 'false']);
     await u.click(dnf);
     expect(dnf.getAttribute('aria-pressed')).toBe('false');
-    expect(screen.queryByText(/no time needed/)).toBeNull();
+    expect(screen.queryByText(/a time is optional/)).toBeNull();
 
     await u.click(dnf);
     await u.click(screen.getByRole('button', { name: 'Save run 1' }));
