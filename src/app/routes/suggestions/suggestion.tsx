@@ -53,7 +53,7 @@ export function SuggestionPage() {
       </div>
       <SuggestionDetails suggestion={suggestion} />
       <SectionCard title="Decision">
-        <DecisionStatus suggestion={suggestion} hideSetupLink={acceptedHere} />
+        <DecisionStatus suggestion={suggestion} hideSetupLink={acceptedHere} mine={isDriver} />
         {isDriver ? (
           <>
             {suggestion.status === 'open' ? (

@@ -10,14 +10,14 @@ import { StatusBadge } from './suggestion-list';
 /** The car page, scrolled to one snapshot (its setup timeline gives each snapshot the id `setup-<id>`). */
 export const setupOnCarPage = (carId: string, setupId: string) => `${pathTo.car(carId)}#setup-${setupId}`;
 
-/** Where the suggestion stands: waiting, or who decided what and when. */
-export function DecisionStatus({ suggestion, hideSetupLink = false }: { suggestion: Suggestion; hideSetupLink?: boolean }) {
+/** Where the suggestion stands: waiting (for the reader, when `mine`: a driver of the car), or who decided what and when. */
+export function DecisionStatus({ suggestion, hideSetupLink = false, mine = false }: { suggestion: Suggestion; hideSetupLink?: boolean; mine?: boolean }) {
   const { status, decidedBy, decidedAt, decisionNote, acceptedSetupId, carId } = suggestion;
   return (
     <div className="flex flex-col gap-2" aria-live="polite">
       <StatusBadge status={status} />
       {status === 'open' ? (
-        <p className="text-ink-muted">The car’s drivers have not decided yet.</p>
+        <p className="text-ink-muted">{mine ? 'Waiting for your answer: accept it or decline it below.' : 'The car’s drivers have not decided yet.'}</p>
       ) : (
         <p>
           {status === 'accepted' ? 'Accepted' : status === 'declined' ? 'Declined' : 'Withdrawn'}

@@ -242,6 +242,15 @@ describe('a suggestion', () => {
     expect(within(decision()).queryByRole('button', { name: /Accept|Decline/ })).toBeNull();
   });
 
+  it('when a driver of the car opens an open suggestion, then it says it waits for their answer, not for "the car\'s drivers"', async () => {
+    stub(user(), () => suggestion());
+    renderApp(PAGE);
+
+    await screen.findByRole('heading', { level: 1, name: 'More front camber' });
+    await waitFor(() => expect(within(decision()).getByText('Waiting for your answer: accept it or decline it below.')).toBeTruthy());
+    expect(within(decision()).queryByText(/drivers have not decided/)).toBeNull();
+  });
+
   it('when shop staff open an open suggestion, then it waits for the drivers and offers them nothing to press', async () => {
     stub(staffUser(), () => suggestion());
     renderApp(PAGE);
