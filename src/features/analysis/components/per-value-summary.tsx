@@ -4,7 +4,7 @@ import type { RunOrderCheck } from '@shared/calc/comparison.calc';
 import { formatFixed } from '@shared/calc/display';
 import { Caution } from '@/components/ui/caution';
 import { useUnits } from '@/lib/units-context';
-import { PARAM_INFO, settingText } from '../utils/analysis-format';
+import { LOCATION_WORDS, PARAM_INFO, settingText } from '../utils/analysis-format';
 
 /** The caution when a setting's values follow the order of a day's runs; null when no day had them in blocks. */
 export function runOrderCaution({ daysChanged, daysInBlocks }: RunOrderCheck): string | null {
@@ -33,7 +33,9 @@ export function PerValueSummary({ result }: { result: ScatterResult }) {
   const perValue = result.perValue;
   if (!perValue || perValue.values.length === 0) return null;
   const { label } = PARAM_INFO[result.x.param];
-  const heading = `Time on each ${label.toLowerCase()} value`;
+  // "Time for each value of rear damper clicks": the axle or corner too, as the plot above reads one.
+  const what = result.x.param === 'damperClicks' ? 'damper clicks' : label.toLowerCase();
+  const heading = `Time for each value of ${LOCATION_WORDS[result.x.corner] ?? result.x.corner} ${what}`;
   const caution = runOrderCaution(perValue.runOrder);
   const cell = 'py-1 pr-3';
   return (

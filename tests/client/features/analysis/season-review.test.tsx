@@ -379,7 +379,7 @@ describe('season review: time on each value of the setting', () => {
     await scatter.findByRole('img', { name: /Scatter plot/ });
     await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
 
-    const table = await scatter.findByRole('table', { name: 'Time on each cold pressure value' });
+    const table = await scatter.findByRole('table', { name: 'Time for each value of front cold pressure' });
     const rows = within(table).getAllByRole('row');
     expect(within(rows[0]!).getAllByRole('columnheader').map((c) => c.textContent)).toEqual(['Cold pressure', 'Runs', 'Events', "Off the day's best"]);
     const cells = (row: HTMLElement) => [within(row).getByRole('rowheader'), ...within(row).getAllByRole('cell')].map((c) => c.textContent);
@@ -435,11 +435,11 @@ describe('season review: time on each value of the setting', () => {
     const scatter = section('Setup against time and wear');
     await scatter.findByRole('img', { name: /Scatter plot/ });
     await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
-    await scatter.findByRole('table', { name: 'Time on each cold pressure value' });
+    await scatter.findByRole('table', { name: 'Time for each value of front cold pressure' });
 
     await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
     await scatter.findByText(/^2 wear intervals/);
-    expect(scatter.queryByRole('table', { name: /Time on each/ })).toBeNull();
+    expect(scatter.queryByRole('table', { name: /Time for each value/ })).toBeNull();
     expect(scatter.queryByRole('complementary', { name: 'The values follow run order' })).toBeNull();
     expect(scatter.queryByText(/left out:/)).toBeNull();
   });
