@@ -88,6 +88,11 @@ export interface ScatterResult {
    * value first; and how many days the setting changed during the day with each value's runs in one block.
    */
   perValue?: { values: ValueSummary[]; runOrder: RunOrderCheck } | null;
+  /**
+   * Every event the car ran at, oldest first, whether or not it has a point in this plot: an event is drawn in the
+   * same colour and shape in every plot. Absent from answers before it was added.
+   */
+  eventIds?: string[];
 }
 
 export interface SampleStats {

@@ -248,6 +248,7 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
     fit: fitLine(points),
     leftOut: { mixedSetting },
     perValue,
+    eventIds: season.events.map((e) => e.id),
   };
 }
 

@@ -98,6 +98,10 @@ describe('GET /api/cars/:carId/analysis/scatter', () => {
       const run = clean.find((r) => r.id === pt.runId)!;
       expect([pt.driver, pt.runNumber]).toEqual([run.driver, run.runNumber]);
     }
+    // Every event the car ran at, oldest first, for markers that stay with their event from plot to plot.
+    const events: { id: string; date: string }[] = (await maren.get(`/api/events`)).body.items;
+    const ran = new Set(runs.map((r) => (r as unknown as { eventId: string }).eventId));
+    expect(res.body.eventIds).toEqual(events.filter((e) => ran.has(e.id)).sort((a, b) => a.date.localeCompare(b.date)).map((e) => e.id));
     // The demo roadster counts clicks from full soft, 12 positions.
     expect(p.xNormalized).toBeCloseTo(p.x / 12, 12);
     expect(res.body.y.unit).toBe('%');

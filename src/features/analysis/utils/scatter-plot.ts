@@ -25,7 +25,8 @@ export interface ScatterPlot {
 }
 
 /**
- * Groups the points by event (oldest event first, so an event keeps its colour and shape as the season grows) and
+ * Groups the points by event (oldest event first, each in its season place's colour and shape, so an event keeps
+ * them in every plot and as the season grows) and
  * converts them to the plotted units. The fitted line is drawn between the lowest and highest setting: its ends are
  * the server's line evaluated there, converted like the points (every conversion here is proportional, and the
  * clicks share is a straight-line function of the clicks, so the line stays straight).
@@ -42,9 +43,12 @@ export function buildScatterPlot(result: ScatterResult, x: Axis, y: Axis): Scatt
     group.points.push({ x: px, y: py, index });
     groups.set(key, group);
   });
+  // The event's place in the car's season, not in this plot: a plot without some event's points (no clean run, an
+  // interval left out) would otherwise hand its marker to the next event.
+  const seasonOrder = result.eventIds ?? [];
   const series = [...groups.entries()]
     .sort(([, a], [, b]) => a.date.localeCompare(b.date))
-    .map(([key, g], i) => ({ key, label: g.label, style: seriesStyle(i), points: g.points }));
+    .map(([key, g], i) => ({ key, label: g.label, style: seriesStyle(seasonOrder.includes(key) ? seasonOrder.indexOf(key) : i), points: g.points }));
 
   let fit: ScatterPlot['fit'] = null;
   if (result.fit && result.points.length > 0) {
