@@ -57,7 +57,8 @@ function describePoint(result: ScatterResult, index: number, x: Axis, y: Axis): 
   const event = p.eventName ? `${p.eventName}${p.eventDate ? `, ${formatDay(p.eventDate)}` : ''}` : 'No event';
   return [
     event,
-    p.runs === null ? runsText(p) : `Over ${runsText(p)}`,
+    // A time point is one run: whose and which, as on its event's page; a wear point covers the runs between readings.
+    p.runs === null ? (p.driver && p.runNumber !== null ? `${p.driver.displayName} · run ${p.runNumber}` : runsText(p)) : `Over ${runsText(p)}`,
     `Setup: ${p.setupLabel ?? '—'}`,
     ...(p.corner ? [`Corner: ${p.corner.toUpperCase()}`] : []),
     `${x.short}: ${x.format(p)}`,

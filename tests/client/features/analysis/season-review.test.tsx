@@ -229,6 +229,20 @@ describe('season review: setup against time and wear', () => {
     expect(scatter.getByRole('button', { name: 'Hide table' }).getAttribute('aria-expanded')).toBe('true');
   });
 
+  it('when a run\'s point is tapped, then its tooltip names the driver and the run, as the table does', async () => {
+    stub();
+    renderPage();
+    await section('Setup against time and wear').findByRole('img', { name: /Scatter plot of Camber/ });
+    const chart = layOutChart(chartGiven('Scatter plot of Camber'));
+    const tip = (dataset: number, index: number) => {
+      const point = chart.getDatasetMeta(dataset).data[index]!;
+      chart.tooltip!.setActiveElements([{ datasetIndex: dataset, index }], { x: point.x, y: point.y });
+      return chart.tooltip!.body.flatMap((b) => b.lines).join(' ');
+    };
+    expect(tip(0, 1)).toMatch(/^Maren Holt · run 3 Setup: Baseline/);
+    expect(tip(1, 0)).toMatch(/^Tomas Reyes · run 2 /);
+  });
+
   it('when the table is shown, then it scrolls sideways in a box of its own, which asks for no swipe while the table fits', async () => {
     stub();
     const u = renderPage();
