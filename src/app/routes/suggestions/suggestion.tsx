@@ -13,6 +13,7 @@ import { carQueryOptions } from '@/features/cars/api/get-car';
 import { setupKeys } from '@/features/setups/api/setup-keys';
 import { useSuggestion } from '@/features/suggestions/api/get-suggestion';
 import { DecisionPanel } from '@/features/suggestions/components/decision-panel';
+import { UnusualValues, valuesBefore } from '@/features/suggestions/components/unusual-values';
 import { DecisionStatus, SuggestionDetails } from '@/features/suggestions/components/suggestion-details';
 import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
@@ -54,6 +55,10 @@ export function SuggestionPage() {
       <SuggestionDetails suggestion={suggestion} />
       <SectionCard title="Decision">
         <DecisionStatus suggestion={suggestion} hideSetupLink={acceptedHere} mine={isDriver} />
+        {/* The shop, back on what it sent: the same caution the driver reads before deciding. */}
+        {car.data && !isDriver && suggestion.status === 'open' ? (
+          <UnusualValues side="sent" changes={suggestion.changes} current={valuesBefore(suggestion.preview)} />
+        ) : null}
         {isDriver ? (
           <>
             {suggestion.status === 'open' ? (

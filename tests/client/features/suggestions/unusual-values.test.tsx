@@ -87,9 +87,42 @@ describe('unusual values on the shop’s suggestion form', () => {
   });
 });
 
-function stubPage(current: Suggestion, units: UnitPreferences = METRIC_PREFERENCES, setups = [BASE_SETUP]) {
+describe('unusual values for the shop reading back what it sent', () => {
+  it('when shop staff open their open suggestion of −7° front camber, then the caution the driver reads is there for them too, in their words', async () => {
+    stubPage(
+      suggestion({
+        title: 'Lots of camber',
+        changes: [{ field: 'camberDeg', corners: ['lf', 'rf'], value: -7 }],
+        preview: [
+          { field: 'camberDeg', corner: 'lf', from: -1.2, to: -7 },
+          { field: 'camberDeg', corner: 'rf', from: -1.2, to: -7 },
+        ],
+      }),
+      METRIC_PREFERENCES,
+      [BASE_SETUP],
+      staffUser(),
+    );
+    renderApp(PAGE);
+
+    const caution = await within(await decision()).findByRole('complementary', { name: 'Unusual values' });
+    expect(within(caution).getByRole('listitem').textContent).toMatch(/^Front pair camber \u22127\.00°: more negative than \u22125\.00°/);
+    expect(caution.textContent).toContain('The driver sees this caution before deciding');
+    expect(caution.textContent).not.toContain('Before you accept');
+    expect(within(await decision()).queryByRole('button', { name: /Accept|Decline/ })).toBeNull();
+  });
+
+  it('when shop staff open an ordinary suggestion, then there is no caution', async () => {
+    stubPage(suggestion(), METRIC_PREFERENCES, [BASE_SETUP], staffUser());
+    renderApp(PAGE);
+    await screen.findByRole('heading', { level: 1, name: 'More front camber' });
+    await within(await decision()).findByText('The car’s drivers have not decided yet.');
+    expect(screen.queryByRole('complementary', { name: 'Unusual values' })).toBeNull();
+  });
+});
+
+function stubPage(current: Suggestion, units: UnitPreferences = METRIC_PREFERENCES, setups = [BASE_SETUP], me: ReturnType<typeof user> | ReturnType<typeof staffUser> = user(units)) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(units) }),
+    'GET /api/auth/me': jsonResponse(200, { user: me }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/suggestions/${COLLAB_IDS.suggestion}`]: jsonResponse(200, current),
     [`GET /api/cars/${IDS.car}/setups`]: list(setups),
