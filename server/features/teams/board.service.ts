@@ -73,10 +73,13 @@ function seasonRuns(ds: DataSource, teamId: string, season: number): Promise<Boa
 
 const round6 = (n: number) => Math.round(n * 1e6) / 1e6;
 
+/** The mean, to 6 decimals (floating-point dust off). */
+const mean6 = (values: number[]) => round6(values.reduce((a, b) => a + b, 0) / values.length);
+
 /** Mean of an axle's two corners; null unless both are recorded. */
 function axleMean(rows: SetupRow[], corners: readonly Corner[], field: 'camber_deg' | 'spring_rate_n_per_mm' | 'damper_clicks' | 'cold_pressure_kpa') {
   const values = corners.map((c) => rows.find((r) => r.corner === c)?.[field]).filter((v): v is number => typeof v === 'number');
-  return values.length === corners.length ? round6(values.reduce((a, b) => a + b, 0) / values.length) : null;
+  return values.length === corners.length ? mean6(values) : null;
 }
 
 function setupSummary(rows: SetupRow[]): NonNullable<BoardCar['setup']> {
@@ -135,10 +138,9 @@ function latestTread(ds: DataSource, carIds: string[], season: number): Promise<
 /** An axle's two corners as means: depth over inner, middle and outer; inner minus outer (the shared skew). */
 function axleWear(rows: TreadRow[]): BoardAxleWear | null {
   if (rows.length === 0) return null;
-  const mean = (values: number[]) => round6(values.reduce((a, b) => a + b, 0) / values.length);
   return {
-    meanDepthMm: mean(rows.flatMap((r) => [r.inner_mm, r.middle_mm, r.outer_mm])),
-    innerMinusOuterMm: mean(rows.map((r) => innerOuterSkewMm({ innerMm: r.inner_mm, outerMm: r.outer_mm }))),
+    meanDepthMm: mean6(rows.flatMap((r) => [r.inner_mm, r.middle_mm, r.outer_mm])),
+    innerMinusOuterMm: mean6(rows.map((r) => innerOuterSkewMm({ innerMm: r.inner_mm, outerMm: r.outer_mm }))),
     takenAt: rows[0]!.taken_at.toISOString(),
   };
 }

@@ -13,7 +13,7 @@ import { cn } from '@/lib/cn';
 import { useUnits } from '@/lib/units-context';
 import { useCompare, type CompareSplit } from '../api/get-compare';
 import { useMediaQuery } from '../hooks/use-media-query';
-import { LOCATION_WORDS, wearRateInUnit, wearRateNumber, wearRateSuffix } from '../utils/analysis-format';
+import { BETWEEN_EVENTS_ADVICE, LOCATION_WORDS, wearRateInUnit, wearRateNumber, wearRateSuffix } from '../utils/analysis-format';
 import { byDay, defaultChangeId, type ChangeOption } from '../utils/pick-change';
 
 /**
@@ -192,7 +192,7 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
         <p className="text-sm text-ink-muted">
           Each run is measured against the same driver&apos;s best run that day, so this shows a change made during a day,
           between runs. A change made between events moves the whole day, best run included, so it cannot show here: judge
-          it against another car on the same days, such as on the team&apos;s class board if this car is entered in a team.
+          it {BETWEEN_EVENTS_ADVICE}
         </p>
       </div>
     </div>

@@ -4,7 +4,7 @@ import type { RunOrderCheck } from '@shared/calc/comparison.calc';
 import { formatFixed } from '@shared/calc/display';
 import { Caution } from '@/components/ui/caution';
 import { useUnits } from '@/lib/units-context';
-import { LOCATION_WORDS, PARAM_INFO, settingText } from '../utils/analysis-format';
+import { BETWEEN_EVENTS_ADVICE, LOCATION_WORDS, PARAM_INFO, settingText } from '../utils/analysis-format';
 
 /** The caution when a setting's values follow the order of a day's runs; null when no day had them in blocks. */
 export function runOrderCaution({ daysChanged, daysInBlocks }: RunOrderCheck): string | null {
@@ -84,8 +84,7 @@ export function PerValueSummary({ result }: { result: ScatterResult }) {
         <Caution title="Each value ran on other days">
           <p>
             No day had runs on more than one of these values, and each run is measured against the same driver&apos;s best
-            that day, so a change made between events cannot show in these averages. Judge it against another car on the
-            same days, such as on the team&apos;s class board if this car is entered in a team.
+            that day, so a change made between events cannot show in these averages. Judge it {BETWEEN_EVENTS_ADVICE}
           </p>
         </Caution>
       ) : null}

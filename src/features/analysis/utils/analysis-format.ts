@@ -153,3 +153,6 @@ export const LOCATION_WORDS: Record<string, string> = {
   rear: 'rear',
   car: 'whole car',
 };
+
+/** Where a change made between events can be judged ("judge it …"), as % off the day's best cannot show it. */
+export const BETWEEN_EVENTS_ADVICE = "against another car on the same days, such as on the team's class board if this car is entered in a team.";

@@ -5,20 +5,22 @@ import type { SetupCorner } from '@shared/season/setup.schema';
 import { Caution } from '@/components/ui/caution';
 import { useUnits } from '@/lib/units-context';
 
+/** The shop's advice, before sending and after. */
+const SHOP_ADVICE =
+  'The vehicle and tyre makers’ figures, the event’s rules and local law come first. Whoever makes the change should be qualified to do it, re-check wheel and suspension torque and the alignment afterwards, and set pressures cold.';
+
 /** What each side is told around the list: the shop before sending and after, the driver before accepting. */
 const WORDS = {
   shop: {
     intro:
       'Some of these values are far from what a road car on street or track tyres usually runs. Check each one before sending; if you mean it, say why above so the driver knows.',
-    advice:
-      'The vehicle and tyre makers’ figures, the event’s rules and local law come first. Whoever makes the change should be qualified to do it, re-check wheel and suspension torque and the alignment afterwards, and set pressures cold.',
+    advice: SHOP_ADVICE,
   },
   /** The shop reading its own suggestion after sending it, while the driver decides. */
   sent: {
     intro:
       'Some of these values are far from what a road car on street or track tyres usually runs. The driver sees this caution before deciding; if one is a slip, tell them in the comments.',
-    advice:
-      'The vehicle and tyre makers’ figures, the event’s rules and local law come first. Whoever makes the change should be qualified to do it, re-check wheel and suspension torque and the alignment afterwards, and set pressures cold.',
+    advice: SHOP_ADVICE,
   },
   driver: {
     intro: 'Some of these values are far from what a road car on street or track tyres usually runs. Before you accept, ask the shop to confirm them.',
