@@ -122,7 +122,12 @@ export interface CompareResult {
   splitAt: string;
   change: { id: string; what: string; changedOn: string } | null;
   corners: Record<Corner, { wear: Comparison; innerWear: Comparison; skew: Comparison }>;
+  /**
+   * Time is compared within the days a driver ran on both sides of the change: `days` is how many events had such
+   * a day, `leftOut` how many clean runs fell on days wholly before or after it.
+   */
   time: Comparison;
+  timeScope: { days: number; leftOut: number };
 }
 
 export interface SeasonResult {

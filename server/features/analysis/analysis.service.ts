@@ -262,6 +262,37 @@ function comparison(
   return { ...c, verdict: verdict(c, words), about: { what: words.what, betterWhen: words.betterWhen, counted: words.counted } };
 }
 
+/**
+ * The % off the day's best on each side of a change, from the days a driver ran on both sides of it only. Each run
+ * is measured against the same driver's best that day, so within one day both sides share one yardstick. A day
+ * wholly before or after the change has its own best, so its runs sit near 0 % whatever the car was: a change
+ * made between events would read as no change at all (or as the driver's consistency), and those runs are left
+ * out, and counted.
+ */
+function timeAcrossSplit(timed: (Run & { pctOffBest: number })[], split: string) {
+  const byDay = new Map<string, (Run & { pctOffBest: number })[]>();
+  for (const r of timed) {
+    const key = `${r.eventId}|${r.driver.id}`;
+    byDay.set(key, [...(byDay.get(key) ?? []), r]);
+  }
+  const before: number[] = [];
+  const after: number[] = [];
+  const events = new Set<string>();
+  let leftOut = 0;
+  for (const runs of byDay.values()) {
+    const early = runs.filter((r) => r.recordedAt < split);
+    const late = runs.filter((r) => r.recordedAt >= split);
+    if (early.length === 0 || late.length === 0) {
+      leftOut += runs.length;
+      continue;
+    }
+    before.push(...early.map((r) => r.pctOffBest));
+    after.push(...late.map((r) => r.pctOffBest));
+    events.add(runs[0]!.eventId);
+  }
+  return { before, after, days: events.size, leftOut };
+}
+
 export async function compare(ds: DataSource, user: User, carId: string, q: CompareQuery): Promise<CompareResult> {
   await assertCarAccess(ds, user, carId, 'read');
   let splitAt: Date;
@@ -303,13 +334,9 @@ export async function compare(ds: DataSource, user: User, carId: string, q: Comp
       }),
     };
   }
-  const timed = season.runs.filter(timesTheSetup);
-  const time = comparison(
-    timed.filter((r) => r.recordedAt < split).map((r) => r.pctOffBest),
-    timed.filter((r) => r.recordedAt >= split).map((r) => r.pctOffBest),
-    { what: "time off the day's best", unit: '%', betterWhen: 'lower', counted: 'run', decimals: 2 },
-  );
-  return { splitAt: split, change, corners, time };
+  const { before, after, days, leftOut } = timeAcrossSplit(season.runs.filter(timesTheSetup), split);
+  const time = comparison(before, after, { what: "time off the day's best", unit: '%', betterWhen: 'lower', counted: 'run', decimals: 2 });
+  return { splitAt: split, change, corners, time, timeScope: { days, leftOut } };
 }
 
 export async function seasonSummary(ds: DataSource, user: User, carId: string, minDepthMm: number): Promise<SeasonResult> {

@@ -206,9 +206,31 @@ describe('GET /api/cars/:carId/analysis/compare', () => {
     expect(res.body.time.about).toEqual({ what: "time off the day's best", betterWhen: 'lower', counted: 'run' });
     // Inner minus outer is a balance: even (0) is the aim.
     expect(res.body.corners.lf.skew.about.betterWhen).toBe('nearZero');
-    // Time: the clean finished runs, each on one side of the change.
+    // Time: the arms went on between events, so no day had runs on both sides; every clean finished run is left
+    // out rather than compared against a best of its own day on the same side.
     const runs = (await maren.get(`/api/runs?carId=${carId}`)).body.items as { cones: number; status: string }[];
-    expect(res.body.time.before.n + res.body.time.after.n).toBe(runs.filter((r) => r.status === 'finished' && r.cones === 0).length);
+    expect(res.body.time.before.n + res.body.time.after.n).toBe(0);
+    expect(res.body.time.enough).toBe(false);
+    expect(res.body.timeScope).toEqual({ days: 0, leftOut: runs.filter((r) => r.status === 'finished' && r.cones === 0).length });
+  });
+
+  it('when a change made between two runs of a day is compared, then time is compared within that day only, and a later day run on one side is left out', async () => {
+    const d = await rearClicksChangedMidDay();
+    const res = await d.c.get(`/api/cars/${d.carId}/analysis/compare?at=2026-04-12T10:25:00Z`);
+    expect(res.status).toBe(200);
+    // Independent: % off = (t − best)/best × 100 (SCCA Solo Rules scoring, common practice) against 12 April's best
+    // of 44.9 s, then the mean and the sample standard deviation (n − 1) from mathjs.
+    const pct = (t: number) => ((t - 44.9) / 44.9) * 100;
+    const before = DAY_ONE.slice(0, 3).map(pct);
+    const after = DAY_ONE.slice(3).map(pct);
+    expect(res.body.time.before.n).toBe(3);
+    expect(res.body.time.after.n).toBe(4);
+    expect(res.body.time.before.mean).toBeCloseTo(mathMean(before), 10);
+    expect(res.body.time.before.sd).toBeCloseTo(Number(mathStd(before)), 10);
+    expect(res.body.time.after.mean).toBeCloseTo(mathMean(after), 10);
+    expect(res.body.time.difference).toBeCloseTo(mathMean(after) - mathMean(before), 10);
+    // 3 May, all after the change, has its own best: its three runs are left out.
+    expect(res.body.timeScope).toEqual({ days: 1, leftOut: DAY_TWO.length });
   });
 
   it('when neither a change nor a date is given, then 400', async () => {

@@ -1,5 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
-import type { Comparison, SampleStats } from '@shared/analysis/analysis.schema';
+import type { CompareResult, Comparison, SampleStats } from '@shared/analysis/analysis.schema';
 import { formatFixed, formatP } from '@shared/calc/display';
 import { unitFor, type UnitPreferences } from '@shared/calc/units.calc';
 import { CLEAR_P, HINT_P, MINIMUM_READINGS_PER_GROUP as MIN_INTERVALS, plural, verdict } from '@shared/calc/comparison.calc';
@@ -138,6 +138,40 @@ function StackedCorners({ label, renderCorner }: { label: string; renderCorner: 
   );
 }
 
+/**
+ * Time across the change, from the days a driver ran on both sides of it. A change made between events has no
+ * such day, and its numbers would only say how consistent each day was: the card says so instead of showing them.
+ */
+function TimeAcross({ result }: { result: CompareResult }) {
+  const { days, leftOut } = result.timeScope;
+  const title = "Time: % off the day's best, per run";
+  if (days === 0) {
+    return (
+      <div className="flex flex-col gap-1 rounded border border-line p-3">
+        <p className="font-bold">{title}</p>
+        <p className="text-sm">
+          No event had runs on both sides of this change, so its effect on time cannot be measured here: each run is
+          measured against the same driver&apos;s best that day, and a change made between events moves the whole day,
+          best run included. Judge it {BETWEEN_EVENTS_ADVICE}
+        </p>
+      </div>
+    );
+  }
+  return (
+    <div className="flex flex-col gap-1 rounded border border-line p-3">
+      <Measure title={title} comparison={result.time} scale={PERCENT_SCALE} counted="run" />
+      <p className="text-sm text-ink-muted">
+        From {plural(days, 'event')} with runs on both sides of the change, each run against the same driver&apos;s best
+        run that day.{' '}
+        {leftOut > 0
+          ? `${plural(leftOut, 'clean run')} on days wholly before or after it ${leftOut === 1 ? 'is' : 'are'} left out: a change made between events moves the whole day, best run included. `
+          : null}
+        Judge a change between events {BETWEEN_EVENTS_ADVICE}
+      </p>
+    </div>
+  );
+}
+
 /** Wide enough for the car's four corners side by side with each still comfortably readable. */
 const CORNERS_SIDE_BY_SIDE = '(min-width: 48rem)';
 
@@ -187,14 +221,7 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
           the nearest has {nearest.before.n} before and {nearest.after.n} after.
         </p>
       )}
-      <div className="flex flex-col gap-1 rounded border border-line p-3">
-        <Measure title="Time: % off the day's best, per run" comparison={result.time} scale={PERCENT_SCALE} counted="run" />
-        <p className="text-sm text-ink-muted">
-          Each run is measured against the same driver&apos;s best run that day, so this shows a change made during a day,
-          between runs. A change made between events moves the whole day, best run included, so it cannot show here: judge
-          it {BETWEEN_EVENTS_ADVICE}
-        </p>
-      </div>
+      <TimeAcross result={result} />
     </div>
   );
 }

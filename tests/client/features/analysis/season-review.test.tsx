@@ -89,7 +89,7 @@ function comparison(before: [number, number, number], after: [number, number, nu
 
 const CORNER_N: Record<Corner, [number, number]> = { lf: [5, 4], rf: [6, 3], lr: [2, 5], rr: [3, 1] };
 
-function compareAnswer(changeId: string, what: string, tag: string): CompareResult {
+function compareAnswer(changeId: string, what: string, tag: string, timeScope: CompareResult['timeScope'] = { days: 2, leftOut: 30 }): CompareResult {
   const corners = {} as CompareResult['corners'];
   for (const c of ['lf', 'rf', 'lr', 'rr'] as const) {
     const [nb, na] = CORNER_N[c];
@@ -105,6 +105,7 @@ function compareAnswer(changeId: string, what: string, tag: string): CompareResu
     change: { id: changeId, what, changedOn: '2026-05-20' },
     corners,
     time: comparison([24, 2.31, 1.1], [18, 1.8, 0.9], `${tag}: % off the day's best fell by 0.51 %, not enough to rule out chance.`, false),
+    timeScope,
   };
 }
 
@@ -536,18 +537,37 @@ describe('season review: before and after a change', () => {
     expect(compare.getByText('(24 runs)')).toBeTruthy();
   });
 
-  it('when the time comparison shows, then it says plainly that it compares runs within a day, and where to judge a change made between events', async () => {
+  it('when the time comparison shows, then it says which days it comes from, how many runs were left out, and where to judge a change made between events', async () => {
     stub();
     renderPage();
     const compare = section('Before and after a change');
     const verdict = await compare.findByText("Camber: % off the day's best fell by 0.51 %, not enough to rule out chance.");
 
     const card = verdict.closest('div.rounded') as HTMLElement;
-    expect(within(card).getByText(/^Each run is measured against/).textContent).toBe(
-      "Each run is measured against the same driver's best run that day, so this shows a change made during a day, between runs. " +
-        "A change made between events moves the whole day, best run included, so it cannot show here: judge it against another car on the same days, " +
-        "such as on the team's class board if this car is entered in a team.",
+    expect(within(card).getByText(/^From 2 events/).textContent).toBe(
+      "From 2 events with runs on both sides of the change, each run against the same driver's best run that day. " +
+        '30 clean runs on days wholly before or after it are left out: a change made between events moves the whole day, best run included. ' +
+        "Judge a change between events against another car on the same days, such as on the team's class board if this car is entered in a team.",
     );
+  });
+
+  it('when no event had runs on both sides of the change, then the time card shows no numbers and says why, with where to judge it', async () => {
+    const answer = compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber', { days: 0, leftOut: 42 });
+    const none = { n: 0, mean: null, sd: null };
+    answer.time = { ...answer.time, before: none, after: none, difference: null, pValue: null, verdict: 'Not enough data yet: 0 runs before and 0 after.' };
+    stub({ [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_CAMBER.id}`]: jsonResponse(200, answer) });
+    renderPage();
+    const compare = section('Before and after a change');
+    await compare.findByText('Camber: LF inner-edge wear fell by 0.015 mm per run, give or take 0.007.');
+
+    const heading = compare.getByText("Time: % off the day's best, per run");
+    const card = heading.closest('div.rounded') as HTMLElement;
+    expect(card.textContent).toContain('No event had runs on both sides of this change, so its effect on time cannot be measured here');
+    expect(card.textContent).toContain("Judge it against another car on the same days, such as on the team's class board");
+    // No before and after, no count of runs, no verdict about nothing.
+    expect(within(card).queryByText('Before')).toBeNull();
+    expect(within(card).queryByText(/\(0 runs\)/)).toBeNull();
+    expect(within(card).queryByText(/Not enough data yet/)).toBeNull();
   });
 
   it('when the screen is narrow, then the corners come one under another, front first, each headed by its name', async () => {
