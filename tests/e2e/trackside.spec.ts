@@ -129,6 +129,42 @@ describe('trackside on a phone (390×844)', () => {
     }
   });
 
+  it('when the page opens on the narrowest, shortest phone in common use (320 × 640), then the whole keypad and the Save bar are in reach without scrolling', async () => {
+    const own = await openBrowser('phone');
+    try {
+      await own.page.setViewportSize({ width: 320, height: 640 });
+      await signIn(own.page, baseUrl, 'maren@example.com', 'Maren Holloway');
+      const me = await own.page.evaluate(async () => ((await (await fetch('/api/auth/me')).json()) as { user: { id: string } }).user.id);
+      await own.page.goto(`${baseUrl}/events/${eventId}?carId=${carId}&driverId=${me}`);
+      const keypad = own.page.getByRole('group', { name: 'Time keypad' });
+      await keypad.waitFor();
+      const saveBar = own.page.locator('form[aria-label="Log a run"] > .sticky');
+      // The page has moved up by itself once the form is drawn: wait for it to settle.
+      await expect.poll(() => own.page.evaluate(() => window.scrollY), { timeout: 5_000 }).toBeGreaterThan(0);
+      const bar = (await saveBar.boundingBox())!;
+      // The cones and Save share one row: a second row would cover the keypad's last keys.
+      expect(bar.height, 'the Save bar is one row').toBeLessThan(100);
+      for (const name of ['0', 'DNF', 'Off course', 'Clear']) {
+        const key = (await keypad.getByRole('button', { name, exact: true }).boundingBox())!;
+        expect(key.y + key.height, `the "${name}" key's bottom`).toBeLessThanOrEqual(bar.y);
+      }
+      // The time's own box is not under the page's header either.
+      const headerBottom = await own.page.evaluate(() => document.querySelector('header')!.getBoundingClientRect().bottom);
+      const timeBox = (await own.page.getByRole('textbox', { name: /Raw time/ }).boundingBox())!;
+      expect(timeBox.y).toBeGreaterThanOrEqual(headerBottom);
+      for (const name of ['Less: Cones', 'More: Cones', 'Save run 1']) {
+        const tapped = await own.page.getByRole('button', { name }).evaluate((button) => {
+          const box = button.getBoundingClientRect();
+          return button.contains(document.elementFromPoint(box.x + box.width / 2, box.y + box.height / 2)) && box.bottom <= window.innerHeight;
+        });
+        expect(tapped, `a tap on "${name}"`).toBe(true);
+      }
+      await screenshot(own.page, 'trackside-320x640', { fullPage: false });
+    } finally {
+      await own.close();
+    }
+  });
+
   it('when the driver logs a clean run, a run with 2 cones and a DNF, then adjusted times and the best show on screen', async () => {
     await page.goto(`${baseUrl}/events/${eventId}?carId=${carId}`);
     await page.getByRole('radio', { name: /Maren Holloway/ }).check({ force: true });

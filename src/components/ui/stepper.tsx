@@ -14,17 +14,20 @@ interface StepperProps {
   size?: 'lg' | 'md';
   /** A word under the number ("cones"), for a narrow stepper beside another control. */
   caption?: string;
+  /** On the narrowest phones (under 360 px) the buttons are narrower, not shorter, to share a row with another control. */
+  squeeze?: boolean;
 }
 
 /** A whole number (or a fixed step) changed with − and + buttons: big targets, no keyboard needed. */
-export function Stepper({ label, value, onChange, min = -Infinity, max = Infinity, step = 1, format, size = 'lg', caption }: StepperProps) {
+export function Stepper({ label, value, onChange, min = -Infinity, max = Infinity, step = 1, format, size = 'lg', caption, squeeze = false }: StepperProps) {
   const round = (n: number) => Math.round(n * 1e6) / 1e6;
   const button = cn(
     'inline-flex shrink-0 items-center justify-center rounded border border-line-strong bg-surface text-ink hover:bg-surface-raised disabled:opacity-50',
     size === 'lg' ? 'size-tap-lg' : 'size-tap',
+    squeeze && 'max-[359px]:w-12',
   );
   return (
-    <div role="group" aria-label={label} className="flex min-w-0 items-center gap-2">
+    <div role="group" aria-label={label} className={cn('flex min-w-0 items-center gap-2', squeeze && 'max-[359px]:gap-1')}>
       <button
         type="button"
         className={button}

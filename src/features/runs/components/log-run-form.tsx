@@ -1,4 +1,4 @@
-import { useRef, useState, type FormEvent } from 'react';
+import { useEffect, useRef, useState, type FormEvent } from 'react';
 import { ChevronDown, ChevronUp } from 'lucide-react';
 import { adjustedTimeSec } from '@shared/calc/scoring.calc';
 import type { Person } from '@shared/season/car.schema';
@@ -55,6 +55,23 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
   const [errors, setErrors] = useState<RunFormErrors>({});
   const [saved, setSaved] = useState<string | null>(null);
   const formRef = useRef<HTMLFormElement>(null);
+  const barRef = useRef<HTMLDivElement>(null);
+
+  // On a short phone (320 × 640) the page's header and the setup line push the keypad under the Save bar. When
+  // the form first shows at the top of today's page, the page moves up just enough to bring the last row of keys
+  // above the bar, never taking the form's own top under the header; later scrolling is the driver's own.
+  useEffect(() => {
+    if (runMoment(eventDate).dayOver) return;
+    const frame = requestAnimationFrame(() => {
+      const form = formRef.current;
+      const lastKey = form?.querySelector('[aria-label="Time keypad"] > :last-child');
+      if (!form || !lastKey || !barRef.current || window.scrollY > 0) return;
+      const under = lastKey.getBoundingClientRect().bottom - barRef.current.getBoundingClientRect().top;
+      const headerBottom = document.querySelector('header')?.getBoundingClientRect().bottom ?? 0;
+      if (under > 0) window.scrollBy(0, Math.min(under + 8, form.getBoundingClientRect().top - headerBottom - 8));
+    });
+    return () => cancelAnimationFrame(frame);
+  }, [eventDate]);
 
   const next = nextRunNumber(rows, driver.id);
   // The run number as typed, or the next one: the Save button names it once it reads as a run number.
@@ -213,20 +230,20 @@ export function LogRunForm({ carId, eventId, eventDate, driver, conePenaltySec, 
       </div>
 
       <FormAlert message={errors._} />
-      {/* On a phone the Save button stays in thumb reach above the bottom bar while the form is in view. */}
       {/*
         On a phone the cones and the Save button stay in thumb reach above the bottom bar while the form is in view:
         the two taps after every run, never under the bar. The confirmation sits under the time, so the bar keeps
         its height.
       */}
-      <div className="sticky bottom-[calc(3.5rem+1px+env(safe-area-inset-bottom))] z-10 -mx-3 -mb-3 flex flex-col gap-1 rounded-b-lg border-t border-line bg-surface px-3 py-2 md:static">
+      <div ref={barRef} className="sticky bottom-[calc(3.5rem+1px+env(safe-area-inset-bottom))] z-10 -mx-3 -mb-3 flex flex-col gap-1 rounded-b-lg border-t border-line bg-surface px-3 py-2 max-[359px]:px-2 md:static">
         <p role="alert" className="text-sm font-semibold text-warning empty:hidden">
           {refused ? 'Not saved: fix what is marked.' : null}
         </p>
         {errors.cones ? <p className="text-sm font-semibold text-warning">{errors.cones}</p> : null}
         <div className="flex flex-wrap items-center gap-2">
-          <Stepper label="Cones" value={cones} min={0} max={50} onChange={setCones} caption={cones === 1 ? 'cone' : 'cones'} />
-          <Button type="submit" className="min-h-tap-lg min-w-32 flex-1 px-3 text-lg" isPending={write.isPending} pendingLabel="Saving…">
+          {/* One row on the narrowest phones too (320 px): a second row would hide the keypad's last keys. */}
+          <Stepper label="Cones" value={cones} min={0} max={50} onChange={setCones} caption={cones === 1 ? 'cone' : 'cones'} squeeze />
+          <Button type="submit" className="min-h-tap-lg min-w-24 flex-1 px-3 text-lg max-[359px]:px-2 max-[359px]:text-base" isPending={write.isPending} pendingLabel="Saving…">
             {typed.ok ? `Save run ${typed.value}` : 'Save run'}
           </Button>
         </div>
