@@ -151,5 +151,10 @@ export interface SeasonResult {
     r2: number | null;
     n: number;
     runsLeft: number | null;
+    /**
+     * The latest change of camber, toe or caster at the worst spot's corner while this tyre was read: `since`, the
+     * line starts at the last reading before it; `whole`, too few readings since, so every reading is used.
+     */
+    alignmentChange: { at: string; label: string; fitted: 'since' | 'whole' } | null;
   }[];
 }

@@ -339,6 +339,19 @@ export async function compare(ds: DataSource, user: User, carId: string, q: Comp
   return { splitAt: split, change, corners, time, timeScope: { days, leftOut } };
 }
 
+/** The fields whose change re-sets a tyre's wear rate at a corner. */
+const ALIGNMENT_FIELDS = new Set(['camberDeg', 'toeMm', 'casterDeg']);
+
+/** The latest setup, after `after`, that changed camber, toe or caster at `corner`: when it took effect, and its label. */
+function latestAlignmentChange(setups: Setup[], corner: Corner, after: string): { at: string; label: string } | null {
+  for (let i = setups.length - 1; i > 0; i--) {
+    const s = setups[i]!;
+    if (s.effectiveFrom <= after) return null;
+    if (diffSetups(setups[i - 1]!, s).some((c) => c.corner === corner && ALIGNMENT_FIELDS.has(c.field))) return { at: s.effectiveFrom, label: s.label };
+  }
+  return null;
+}
+
 export async function seasonSummary(ds: DataSource, user: User, carId: string, minDepthMm: number): Promise<SeasonResult> {
   await assertCarAccess(ds, user, carId, 'read');
   const season = await loadSeason(ds, carId);
@@ -389,13 +402,17 @@ export async function seasonSummary(ds: DataSource, user: User, carId: string, m
       }
     }
     // The worst spot's depth against the car's cumulative runs at each reading of this tyre.
-    const points = worst
-      ? readings
-          .filter((r) => r.corners[worst!.corner]?.tyreNumber === latest!.corners[worst!.corner]!.tyreNumber)
-          .map((r) => ({ runs: season.runs.filter((x) => x.recordedAt <= r.takenAt).length, depthMm: r.corners[worst!.corner]![`${worst!.position}Mm`] }))
-      : [];
+    const ofTyre = worst ? readings.filter((r) => r.corners[worst!.corner]?.tyreNumber === latest!.corners[worst!.corner]!.tyreNumber) : [];
+    const toPoint = (r: (typeof readings)[number]) => ({ runs: season.runs.filter((x) => x.recordedAt <= r.takenAt).length, depthMm: r.corners[worst!.corner]![`${worst!.position}Mm`] });
+    // A new camber, toe or caster at that corner moves where and how fast the tread wears (common practice), so
+    // the line starts at the last reading before the latest such change, when two readings from there on allow one.
+    const change = worst && ofTyre.length ? latestAlignmentChange(season.setups, worst.corner, ofTyre[0]!.takenAt) : null;
+    const since = change ? ofTyre.slice(Math.max(0, ofTyre.findLastIndex((r) => r.takenAt <= change.at))) : [];
+    const fitted: 'since' | 'whole' = change && since.length >= 2 ? 'since' : 'whole';
+    const points = (fitted === 'since' ? since : ofTyre).map(toPoint);
     const rate = wearRateMmPerRun(points);
     return {
+      alignmentChange: change && { ...change, fitted },
       tyreSetId: set.id,
       label: set.label,
       minDepthMm,

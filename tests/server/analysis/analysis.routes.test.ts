@@ -267,6 +267,52 @@ describe('GET /api/cars/:carId/season', () => {
     expect(life.runsLeft).toBe(Math.floor((life.worst.depthMm - 1.6) / life.mmPerRun));
   });
 
+  it('when front camber changed part-way through a set, then tyre life fits the worst spot from the last reading before the change, and a later alignment change with too few readings after it uses every reading', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const front = (camberDeg: number, toeMm = 0, damperClicks = 4) => ({ camberDeg, toeMm, damperClicks, coldPressureKpa: 220 });
+    const rear = { camberDeg: -1.0, toeMm: 1, damperClicks: 6, coldPressureKpa: 210 };
+    await postSetup(d.c, d.carId, { label: 'Baseline', effectiveFrom: '2026-04-01T00:00:00Z', corners: { lf: front(-1), rf: front(-1), lr: rear, rr: rear } });
+    await postSetup(d.c, d.carId, { label: 'More front camber', effectiveFrom: '2026-06-01T00:00:00Z', corners: { lf: front(-2), rf: front(-2), lr: rear, rr: rear } });
+    // Damper clicks are not alignment: this change leaves the fit where it starts.
+    await postSetup(d.c, d.carId, { label: 'Front clicks +2', effectiveFrom: '2026-07-01T00:00:00Z', corners: { lf: front(-2, 0, 6), rf: front(-2, 0, 6), lr: rear, rr: rear } });
+    // Four events of 10 runs each: April, May, June, July.
+    const days = ['2026-04-12', '2026-05-10', '2026-06-14', '2026-07-12'];
+    for (const [n, date] of days.entries()) {
+      const event = n === 0 ? { body: { id: d.eventId } } : await d.c.post('/api/events', { name: `Points round ${n + 1}`, date, conePenaltySec: 2 });
+      for (let i = 0; i < 10; i++) await postRun(d.c, d.carId, event.body.id, { runNumber: i + 1, recordedAt: `${date}T10:${String(i * 5).padStart(2, '0')}:00Z` });
+    }
+    const set = await d.c.post(`/api/cars/${d.carId}/tyre-sets`, { label: 'Set A', size: '205/50R15', startTreadMm: 7 });
+    // Left-front inner edge: 0.1 mm a run before the camber change, 0.05 after; every other spot stays deeper.
+    const spots = (inner: number) => ({ innerMm: inner, middleMm: 6.9, outerMm: 6.9 });
+    const readings: [string, number][] = [['2026-04-01T09:00:00Z', 7], ['2026-04-12T18:00:00Z', 6], ['2026-05-10T18:00:00Z', 5], ['2026-06-14T18:00:00Z', 4.5], ['2026-07-12T18:00:00Z', 4]];
+    for (const [takenAt, mm] of readings) {
+      const r = await d.c.post(`/api/tyre-sets/${set.body.id}/readings`, { takenAt, corners: { lf: spots(mm), rf: spots(6.95) } });
+      expect(r.status, JSON.stringify(r.body)).toBe(201);
+    }
+
+    const life = (await d.c.get(`/api/cars/${d.carId}/season`)).body.tyreLife[0];
+    expect(life.worst).toEqual({ corner: 'lf', position: 'inner', depthMm: 4 });
+    // From 10 May (5.0 mm after 20 runs) on: 4.5 mm after 30 and 4.0 after 40 lie on one line, 0.05 mm a run
+    // (worked by hand), and runs left = floor((4.0 − 1.6) / 0.05) = 48 (common practice).
+    expect(life.alignmentChange).toEqual({ at: '2026-06-01T00:00:00.000Z', label: 'More front camber', fitted: 'since' });
+    expect(life.n).toBe(3);
+    expect(life.mmPerRun).toBeCloseTo(0.05, 12);
+    expect(life.runsLeft).toBe(48);
+
+    // Toe changed after the last reading: too few readings since, so every reading is used, and the slope is the
+    // least-squares one through all five (textbook formula: Σ(x − x̄)(y − ȳ) / Σ(x − x̄)²).
+    await postSetup(d.c, d.carId, { label: 'Toe out 1 mm', effectiveFrom: '2026-07-20T00:00:00Z', corners: { lf: front(-2, -1, 6), rf: front(-2, -1, 6), lr: rear, rr: rear } });
+    const after = (await d.c.get(`/api/cars/${d.carId}/season`)).body.tyreLife[0];
+    expect(after.alignmentChange).toEqual({ at: '2026-07-20T00:00:00.000Z', label: 'Toe out 1 mm', fitted: 'whole' });
+    const xs = [0, 10, 20, 30, 40];
+    const ys = readings.map(([, mm]) => mm);
+    const mx = mathMean(xs);
+    const my = mathMean(ys);
+    const slope = xs.reduce((sum, x, i) => sum + (x - mx) * (ys[i]! - my), 0) / xs.reduce((sum, x) => sum + (x - mx) ** 2, 0);
+    expect(after.n).toBe(5);
+    expect(after.mmPerRun).toBeCloseTo(-slope, 12);
+  });
+
   it('when a deeper minimum is asked for, then fewer runs are left', async () => {
     const a = (await maren.get(`/api/cars/${carId}/season`)).body.tyreLife[0].runsLeft;
     const b = (await maren.get(`/api/cars/${carId}/season?minDepthMm=3`)).body.tyreLife[0].runsLeft;

@@ -63,7 +63,22 @@ function TyreSetLife({ entry }: { entry: TyreLifeEntry }) {
           {entry.n === 2 ? <span className="text-ink-muted"> (two readings always fit a line exactly)</span> : null}
         </Row>
       </dl>
+      <AlignmentNote entry={entry} />
     </article>
+  );
+}
+
+/** Which readings the line goes through when the alignment at the worst spot's corner changed on this tyre. */
+function AlignmentNote({ entry }: { entry: TyreLifeEntry }) {
+  const change = entry.alignmentChange;
+  if (!change || !entry.worst) return null;
+  const what = `The alignment at the ${CORNER_NAMES[entry.worst.corner].toLowerCase()} changed on ${formatDay(change.at)} (${change.label})`;
+  return (
+    <p className="text-sm text-ink-muted">
+      {change.fitted === 'since'
+        ? `${what}: the line starts at the last reading before it, so the rate is the one since.`
+        : `${what}, and too few readings have been taken since: the line goes through every reading, so the rate may be the old one. Read the tread after the next event.`}
+    </p>
   );
 }
 

@@ -14,6 +14,7 @@ import { SeasonReviewPage } from '@/app/routes/analysis/season-review';
 import { createTestQueryClient, jsonResponse, requestsTo, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, IDS, list } from '../../fixtures/season';
 import { chartGiven, layOutChart, tickLabels } from '../../chart-layout';
+import { formatDay } from '@/lib/dates';
 
 // A canvas draws nothing in jsdom: stand in for the chart with the datasets it was given, and keep what it was
 // given so a test can hand the same to Chart.js itself.
@@ -118,6 +119,7 @@ function tyreLife(partial: Partial<SeasonResult['tyreLife'][number]> & Pick<Seas
     r2: 0.97,
     n: 4,
     runsLeft: 32,
+    alignmentChange: null,
     ...partial,
   };
 }
@@ -679,6 +681,26 @@ describe('season review: tyre life', () => {
     const setB = within(life.getByRole('article', { name: 'Set B — fresh' }));
     expect(setB.getAllByText('not enough readings yet')).toHaveLength(2);
     expect(life.getByRole('complementary', { name: 'Tread depth' }).textContent).toMatch(/1\.6 mm \(2\/32 in\)/);
+  });
+
+  it('when the alignment at the worst corner changed on a set, then the card says where its line starts, or that too few readings followed', async () => {
+    const answer = season(1.6, 32);
+    answer.tyreLife = [
+      tyreLife({ tyreSetId: IDS.tyreSet, label: 'Set A — 205/50R15', alignmentChange: { at: '2026-06-20T08:00:00.000Z', label: 'Camber arms', fitted: 'since' } }),
+      tyreLife({ tyreSetId: 'f2222222-2222-4222-8222-222222222222', label: 'Set B — fresh', alignmentChange: { at: '2026-07-04T08:00:00.000Z', label: 'Toe out 1 mm', fitted: 'whole' } }),
+      tyreLife({ tyreSetId: 'f3333333-3333-4333-8333-333333333333', label: 'Set C — spare', worst: null, mmPerRun: null, alignmentChange: null }),
+    ];
+    stub({ [`GET ${CAR_PATH}/season?minDepthMm=1.6`]: jsonResponse(200, answer) });
+    renderPage();
+    const life = section('Tyre life');
+
+    const setA = await life.findByRole('article', { name: 'Set A — 205/50R15' });
+    expect(within(setA).getByText(/^The alignment at the left front changed on/).textContent).toBe(
+      `The alignment at the left front changed on ${formatDay('2026-06-20T08:00:00.000Z')} (Camber arms): the line starts at the last reading before it, so the rate is the one since.`,
+    );
+    const setB = life.getByRole('article', { name: 'Set B — fresh' });
+    expect(within(setB).getByText(/^The alignment at the left front changed on/).textContent).toMatch(/too few readings have been taken since: the line goes through every reading/);
+    expect(within(life.getByRole('article', { name: 'Set C — spare' })).queryByText(/alignment/)).toBeNull();
   });
 
   it('when a new minimum depth is entered, then the season is fetched again with it and runs left follow', async () => {
