@@ -1,7 +1,7 @@
 import * as z from '../zod';
 import { isoDate, isoDateTime } from '../api/dates.schema';
 import type { Corner } from '../season/corners';
-import type { SetupChange, SetupCorner } from '../season/setup.schema';
+import type { SetupChange, SetupCorner, SetupCornerField } from '../season/setup.schema';
 import type { BetterWhen, RunOrderCheck, ValueSummary } from '../calc/comparison.calc';
 
 export const SCATTER_PARAMS = ['camber', 'springRate', 'damperClicks', 'coldPressure', 'rideHeight'] as const;
@@ -93,6 +93,11 @@ export interface ScatterResult {
    * same colour and shape in every plot. Absent from answers before it was added.
    */
   eventIds?: string[];
+  /**
+   * Other settings at the same corner or axle whose values moved with x across the points (|r| ≥ 0.7 between the
+   * two, strongest first): a trend in the plot may be theirs as much as x's. Absent from answers before it was added.
+   */
+  alsoMoved?: { field: SetupCornerField; r: number }[];
 }
 
 export interface SampleStats {

@@ -53,3 +53,35 @@ export function straightLineFit(points: Points): StraightLine | null {
   const flat = points.every(([, y]) => y === points[0]![1]);
   return { slope, intercept, r2: flat || syy === 0 ? 1 : Math.max(0, 1 - ssRes / syy) };
 }
+
+/**
+ * Pearson's correlation coefficient, r = Σ(x − x̄)(y − ȳ) / √(Σ(x − x̄)² · Σ(y − ȳ)²), −1 to 1 (same sources as
+ * above). Null with fewer than 3 points (two always line up exactly) or when either side never varies.
+ */
+export function correlation(points: Points): number | null {
+  if (points.length < 3) return null;
+  const { sxy, sxx, syy } = centred(points);
+  if (sxx === 0 || syy === 0) return null;
+  return Math.max(-1, Math.min(1, sxy / Math.sqrt(sxx * syy)));
+}
+
+/**
+ * How strongly another setting must follow the plotted one, as |r|, before a trend is said to be possibly its:
+ * 0.7 is the usual threshold for a strong correlation (from memory; a rule of thumb, not a test).
+ */
+export const MOVED_TOGETHER_R = 0.7;
+
+/**
+ * Of other settings, each given as [plotted value, its own value] at every point, those that moved with the
+ * plotted one (|r| ≥ MOVED_TOGETHER_R), strongest first. A point where a setting was not recorded is left out
+ * of that setting's pairs.
+ */
+export function movedTogether<K extends string>(others: Record<K, readonly (readonly [number, number | null])[]>): { field: K; r: number }[] {
+  const found: { field: K; r: number }[] = [];
+  for (const field of Object.keys(others) as K[]) {
+    const pairs = others[field].filter((p): p is readonly [number, number] => p[1] !== null);
+    const r = correlation(pairs);
+    if (r !== null && Math.abs(r) >= MOVED_TOGETHER_R) found.push({ field, r });
+  }
+  return found.sort((a, b) => Math.abs(b.r) - Math.abs(a.r));
+}

@@ -1,11 +1,11 @@
 import type { DataSource } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
-import type { Setup, SetupCorner } from '@shared/season/setup.schema';
+import { SETUP_CORNER_FIELDS, type Setup, type SetupCorner, type SetupCornerField } from '@shared/season/setup.schema';
 import type { Run } from '@shared/season/run.schema';
 import { diffSetups } from '@shared/season/setup-diff';
 import {
-  compareSamples, runOrderWithinDays, runsLeft, straightLineFit, summariseByValue, verdict, wearRateMmPerRun, type BetterWhen,
+  compareSamples, movedTogether, runOrderWithinDays, runsLeft, straightLineFit, summariseByValue, verdict, wearRateMmPerRun, type BetterWhen,
 } from '@shared/calc/index';
 import {
   SCATTER_PARAM_FIELD,
@@ -240,7 +240,12 @@ export async function scatter(ds: DataSource, user: User, carId: string, q: Scat
     wear: 'Tread lost per run between two readings, mean of inner, middle and outer.',
     wearSkew: 'Inner-edge wear minus outer-edge wear per run: above 0, the inner edge wears faster.',
   } as const;
+  // Every other setting at the plotted corner or axle, as [x, its value] at each point.
+  const others = Object.fromEntries(
+    SETUP_CORNER_FIELDS.filter((f) => f !== field).map((f) => [f, points.map((p) => [p.x, setupValue(p.setupId ? season.setupById.get(p.setupId) : undefined, q.corner, f)] as const)]),
+  ) as Record<SetupCornerField, (readonly [number, number | null])[]>;
   return {
+    alsoMoved: movedTogether(others),
     x: { param: q.x, corner: q.corner, unit },
     y: { metric: q.y, unit: q.y === 'time' ? '%' : 'mm/run', description: descriptions[q.y] },
     points,

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mean as mathMean, std as mathStd } from 'mathjs';
+import { corr, mean as mathMean, std as mathStd } from 'mathjs';
 import { client, makeTestApp, type TestApp } from '../test-app';
 import { seededDatabaseUrl } from '../support-seeded';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/db/demo-accounts';
@@ -174,9 +174,37 @@ describe('GET /api/cars/:carId/analysis/scatter', () => {
     // 12 April: 5 clicks for the first three runs, then 7; 3 May: 7 all day.
     expect(res.body.perValue.runOrder).toEqual({ daysChanged: 1, daysInBlocks: 1 });
     expect(res.body.leftOut).toEqual({ mixedSetting: 0 });
+    // Nothing else at the rear changed with the clicks.
+    expect(res.body.alsoMoved).toEqual([]);
 
     const wear = await d.c.get(`/api/cars/${d.carId}/analysis/scatter?x=damperClicks&y=wear&corner=rear`);
     expect(wear.body.perValue).toBeNull();
+  });
+
+  it('when front toe was changed together with front camber, then camber against time names toe as moved with it, with r as mathjs has it, and leaves out what did not', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const rear = { camberDeg: -1.0, toeMm: 1, damperClicks: 6, coldPressureKpa: 210 };
+    const front = (camberDeg: number, toeMm: number, coldPressureKpa: number) => ({ camberDeg, toeMm, damperClicks: 4, coldPressureKpa });
+    await postSetup(d.c, d.carId, { label: 'Baseline', effectiveFrom: '2026-04-01T00:00:00Z', corners: { lf: front(-1.5, 0, 220), rf: front(-1.5, 0, 220), lr: rear, rr: rear } });
+    await postSetup(d.c, d.carId, { label: 'Camber and toe', effectiveFrom: '2026-04-12T10:25:00Z', corners: { lf: front(-2.5, -1, 220), rf: front(-2.5, -1, 220), lr: rear, rr: rear } });
+    await postSetup(d.c, d.carId, { label: 'Front pressure up', effectiveFrom: '2026-04-12T10:45:00Z', corners: { lf: front(-2.5, -1, 230), rf: front(-2.5, -1, 230), lr: rear, rr: rear } });
+    for (const [i, raw] of DAY_ONE.entries()) {
+      await postRun(d.c, d.carId, d.eventId, { runNumber: i + 1, rawTimeSec: raw, recordedAt: new Date(Date.UTC(2026, 3, 12, 10, i * 10)).toISOString() });
+    }
+    const res = await d.c.get(`/api/cars/${d.carId}/analysis/scatter?x=camber&y=time&corner=front`);
+    expect(res.status).toBe(200);
+
+    // Independent: Pearson's r from mathjs over the same points, each point's front values read from its setup.
+    const setups = new Map(((await d.c.get(`/api/cars/${d.carId}/setups`)).body.items as { id: string; corners: Record<string, Record<string, number>> }[]).map((s) => [s.id, s]));
+    const points = res.body.points as { x: number; setupId: string }[];
+    const frontOf = (id: string, field: string) => (setups.get(id)!.corners.lf![field]! + setups.get(id)!.corners.rf![field]!) / 2;
+    const r = (field: string) => corr(points.map((p) => p.x), points.map((p) => frontOf(p.setupId, field))) as number;
+    expect(r('toeMm')).toBeCloseTo(1, 12);
+    // Pressure rose later in the day, on the new camber only: how strongly it follows camber is mathjs's to say.
+    const pressureR = r('coldPressureKpa');
+    const expected = [{ field: 'toeMm', r: r('toeMm') }, ...(Math.abs(pressureR) >= 0.7 ? [{ field: 'coldPressureKpa', r: pressureR }] : [])];
+    expect(res.body.alsoMoved.map((m: { field: string }) => m.field)).toEqual(expected.map((m) => m.field));
+    for (const [i, m] of expected.entries()) expect(res.body.alsoMoved[i].r).toBeCloseTo(m.r, 12);
   });
 
   it('when x or y is not one of the choices, then 400 with a field error', async () => {

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { linearRegression, linearRegressionLine, rSquared } from 'simple-statistics';
-import { leastSquaresSlope, straightLineFit } from '../../../shared/calc/trend.calc';
+import { corr } from 'mathjs';
+import { correlation, leastSquaresSlope, movedTogether, MOVED_TOGETHER_R, straightLineFit } from '../../../shared/calc/trend.calc';
 import { expectClose } from './expect-digits';
 
 describe('leastSquaresSlope', () => {
@@ -91,5 +92,56 @@ describe('straightLineFit', () => {
         expectClose(ours.r2, rSquared(pairs, linearRegressionLine(theirs)), 1e-9, 1e-9);
       }),
     );
+  });
+});
+
+describe('correlation', () => {
+  it('when the points are (1, 2), (2, 3), (3, 7), then r = 5 / √(2 · 14) (worked by hand)', () => {
+    // x̄ = 2, ȳ = 4; Σ(x − x̄)(y − ȳ) = 5; Σ(x − x̄)² = 2; Σ(y − ȳ)² = 4 + 1 + 9 = 14.
+    expect(correlation([[1, 2], [2, 3], [3, 7]])).toBeCloseTo(5 / Math.sqrt(28), 12);
+  });
+
+  it('when one side never varies, or there are fewer than three points, then there is no r', () => {
+    expect(correlation([[1, 2], [2, 2], [3, 2]])).toBeNull();
+    expect(correlation([[1, 2], [1, 3], [1, 4]])).toBeNull();
+    expect(correlation([[1, 2], [2, 3]])).toBeNull();
+  });
+
+  it('when compared with mathjs on random points, then r agrees (independent library)', () => {
+    const point = fc.tuple(fc.integer({ min: -30, max: 30 }).map((v) => v / 10), fc.integer({ min: -5000, max: 5000 }).map((v) => v / 100));
+    fc.assert(
+      fc.property(fc.array(point, { minLength: 3, maxLength: 20 }), (points) => {
+        fc.pre(new Set(points.map(([x]) => x)).size >= 2 && new Set(points.map(([, y]) => y)).size >= 2);
+        const theirs = corr(points.map(([x]) => x), points.map(([, y]) => y)) as number;
+        expectClose(correlation(points)!, theirs, 1e-9, 1e-9);
+      }),
+    );
+  });
+});
+
+describe('movedTogether', () => {
+  it('when toe followed camber exactly, pressure only loosely and clicks never changed, then toe alone is named, with its r from mathjs', () => {
+    const camber = [-1.5, -1.5, -1.5, -2.5, -2.5, -2.5, -2.5];
+    const toe = [0, 0, 0, -1, -1, -1, -1];
+    const pressure = [220, 230, 210, 220, 230, 210, 225];
+    const found = movedTogether({
+      toeMm: camber.map((x, i) => [x, toe[i]!] as const),
+      coldPressureKpa: camber.map((x, i) => [x, pressure[i]!] as const),
+      damperClicks: camber.map((x) => [x, 4] as const),
+    });
+    expect(found.map((f) => f.field)).toEqual(['toeMm']);
+    expect(found[0]!.r).toBeCloseTo(corr(camber, toe) as number, 12);
+    // The loose one is under the line, as mathjs has it.
+    expect(Math.abs(corr(camber, pressure) as number)).toBeLessThan(MOVED_TOGETHER_R);
+  });
+
+  it('when a setting was not recorded at some points, then those points are left out of its pairs, and the strongest comes first', () => {
+    const found = movedTogether({
+      rideHeightMm: [[1, 100], [2, null], [3, 120], [4, 131]] as const,
+      springRateNPerMm: [[1, 80], [2, 70], [3, 60], [4, 50]] as const,
+    });
+    expect(found.map((f) => f.field)).toEqual(['springRateNPerMm', 'rideHeightMm']);
+    expect(found[0]!.r).toBeCloseTo(-1, 12);
+    expect(found[1]!.r).toBeCloseTo(corr([1, 3, 4], [100, 120, 131]) as number, 12);
   });
 });

@@ -13,6 +13,8 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { SegmentedControl } from '@/components/ui/segmented-control';
 import { SelectField } from '@/components/ui/select-field';
 import { formatDay } from '@/lib/dates';
+import { formatFixed } from '@shared/calc/display';
+import { FIELD_INFO } from '@/lib/setup-fields';
 import { useUnits } from '@/lib/units-context';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { useScatter } from '../api/get-scatter';
@@ -128,6 +130,21 @@ function LeftOutNote({ result }: { result: ScatterResult }) {
   );
 }
 
+/** Other settings that moved with the plotted one: the trend may be theirs, said with how closely each followed. */
+function AlsoMovedNote({ result }: { result: ScatterResult }) {
+  const moved = result.alsoMoved ?? [];
+  if (moved.length === 0) return null;
+  const plotted = PARAM_INFO[result.x.param].label.toLowerCase();
+  const names = moved.map((m) => `${FIELD_INFO[m.field].label.toLowerCase()} (r = ${formatFixed(m.r, 2)})`);
+  const list = names.length === 1 ? names[0] : `${names.slice(0, -1).join(', ')} and ${names.at(-1)}`;
+  return (
+    <p className="text-sm">
+      <span className="font-semibold">Changed together:</span> across these points {list} moved with {plotted}, so a trend
+      here may be theirs as much as {plotted}&apos;s. To tell them apart, change one at a time.
+    </p>
+  );
+}
+
 function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: ClicksAs }) {
   const units = useUnits();
   const tableId = useId();
@@ -169,6 +186,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
             />
           </Suspense>
           <Caption result={result} />
+          <AlsoMovedNote result={result} />
           <LeftOutNote result={result} />
           <ShowTableToggle shown={showTable} onToggle={() => setShowTable((v) => !v)} controls={tableId} />
           {showTable ? (

@@ -373,6 +373,31 @@ describe('season review: wear intervals the setting changed within', () => {
   });
 });
 
+describe('season review: settings that changed together', () => {
+  it('when other settings moved with the plotted one, then the plot names each with its r, and says to change one at a time', async () => {
+    const wear: ScatterResult = { ...PRESSURE_WEAR, alsoMoved: [{ field: 'toeMm', r: -0.98 }, { field: 'camberDeg', r: 0.81 }] };
+    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, PRESSURE_TIME), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, wear) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+    await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+    const note = await scatter.findByText(/^Changed together:/);
+    expect(note.closest('p')?.textContent).toBe(
+      "Changed together: across these points toe (r = −0.98) and camber (r = 0.81) moved with cold pressure, so a trend here may be theirs as much as cold pressure's. To tell them apart, change one at a time.",
+    );
+  });
+
+  it('when nothing else moved with it, or the answer predates the field, then there is no such line', async () => {
+    stub({ [scatterPath('camber', 'time')]: jsonResponse(200, { ...CAMBER_TIME, alsoMoved: [] }) });
+    renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+    expect(scatter.queryByText(/Changed together/)).toBeNull();
+  });
+});
+
 describe('season review: time on each value of the setting', () => {
   const pressureTime = (runOrder: { daysChanged: number; daysInBlocks: number }): ScatterResult => ({
     ...CAMBER_TIME,
