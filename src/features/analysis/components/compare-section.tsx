@@ -150,9 +150,8 @@ function TimeAcross({ result }: { result: CompareResult }) {
       <div className="flex flex-col gap-1 rounded border border-line p-3">
         <p className="font-bold">{title}</p>
         <p className="text-sm">
-          No event had runs on both sides of this change, so its effect on time cannot be measured here: each run is
-          measured against the same driver&apos;s best that day, and a change made between events moves the whole day,
-          best run included. Judge it {BETWEEN_EVENTS_ADVICE}
+          No event had runs on both sides of this change, so its effect on time cannot be measured here: a change made
+          between events moves the whole day, best run included. Judge it {BETWEEN_EVENTS_ADVICE}
         </p>
       </div>
     );
