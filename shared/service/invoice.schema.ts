@@ -18,6 +18,8 @@ export interface InvoiceLine {
   /** Parts: how many; labour: hours. */
   quantity: number;
   unitPriceCents: number;
+  /** A part used up in the work, billed but not fitted to the car; always false for labour. */
+  usedUp: boolean;
   /** quantity × unit price, rounded to the cent. */
   amountCents: number;
 }

@@ -34,13 +34,14 @@ interface LineRow {
   description: string;
   quantity: string;
   unit_price_cents: number;
+  used_up: boolean;
 }
 
 const invoiceNotFound = () => new AppError('not_found', 'That invoice was not found.');
 
 async function linesOf(db: Queryable, workOrderId: string): Promise<LineRow[]> {
   return db.query(
-    'SELECT kind, description, quantity, unit_price_cents FROM work_order_lines WHERE work_order_id = $1 ORDER BY position, id',
+    'SELECT kind, description, quantity, unit_price_cents, used_up FROM work_order_lines WHERE work_order_id = $1 ORDER BY position, id',
     [workOrderId],
   );
 }
@@ -59,6 +60,7 @@ async function loadInvoice(db: Queryable, where: { id: string } | { workOrderId:
       description: l.description,
       quantity,
       unitPriceCents: l.unit_price_cents,
+      usedUp: l.used_up,
       amountCents: invoiceLineCents({ quantity, unitPriceCents: l.unit_price_cents }),
     };
   });

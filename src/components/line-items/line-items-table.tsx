@@ -8,6 +8,8 @@ export interface LineItem {
   description: string;
   quantity: number;
   unitPriceCents: number;
+  /** A part used up in the work (fluid, supplies): billed but not fitted to the car. */
+  usedUp: boolean;
   amountCents: number;
 }
 
@@ -19,6 +21,9 @@ export interface LineTotal {
 }
 
 export const LINE_KIND_WORDS: Record<LineKind, string> = { part: 'Part', labour: 'Labour' };
+
+/** How a used-up part reads beside its description, so nobody takes it for something fitted to the car. */
+const USED_UP_MARK = ' (used up, not fitted)';
 
 const WEIGHT_CLASSES = { normal: 'font-semibold', strong: 'font-bold', total: 'text-lg font-extrabold' } as const;
 
@@ -41,6 +46,7 @@ export function LineItemsTable({ caption, lines, totals, currency }: { caption: 
           <tr key={i} className="border-b border-line">
             <td className="py-1 pr-2 break-words">
               <span className="text-ink-muted">{LINE_KIND_WORDS[line.kind]}:</span> {line.description}
+              {line.usedUp ? USED_UP_MARK : ''}
             </td>
             <td className="py-1 pr-2 text-right">{line.kind === 'labour' ? `${line.quantity} h` : line.quantity}</td>
             <td className="py-1 pr-2 text-right">

@@ -8,6 +8,8 @@ export interface Line {
   description: string;
   quantity: number;
   unitPriceCents: number;
+  /** A part used up in the work rather than fitted; false when left out. */
+  usedUp?: boolean;
 }
 
 /** Two camber arms, two and a half hours of fitting and alignment, a third of a tin of grease (invented prices). */
@@ -35,8 +37,8 @@ export async function visit(
   );
   for (const [position, line] of (opts.lines ?? LINES).entries()) {
     await t.ds.query(
-      `INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES ($1, $2, $3, $4, $5, $6)`,
-      [id, line.kind, line.description, line.quantity, line.unitPriceCents, position],
+      `INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, used_up, position) VALUES ($1, $2, $3, $4, $5, $6, $7)`,
+      [id, line.kind, line.description, line.quantity, line.unitPriceCents, line.usedUp ?? false, position],
     );
   }
   return id;

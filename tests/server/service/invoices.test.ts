@@ -135,6 +135,28 @@ describe('GET /api/work-orders/:workOrderId/invoice', () => {
     const stranger = await signedInClient(t);
     expectError(await stranger.c.get(`/api/work-orders/${g.workOrderId}/invoice`), 404, 'not_found');
   });
+  it('when the visit used up a part, then that invoice line says usedUp and the fitted part and the labour do not', async () => {
+    const g = await grantedCar(t);
+    const workOrderId = await visit(
+      t,
+      { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id },
+      {
+        lines: [
+          { kind: 'part', description: 'Rear toe arm', quantity: 2, unitPriceCents: 9900 },
+          { kind: 'part', description: 'Brake fluid, 1 l', quantity: 1, unitPriceCents: 1800, usedUp: true },
+          { kind: 'labour', description: 'Bleed brakes', quantity: 0.5, unitPriceCents: 9500 },
+        ],
+      },
+    );
+    await g.staff.c.post(`/api/work-orders/${workOrderId}/invoice`);
+    const res = await g.driver.c.get(`/api/work-orders/${workOrderId}/invoice`);
+    expect(res.status).toBe(200);
+    expect(res.body.lines.map((l: { description: string; usedUp: boolean }) => [l.description, l.usedUp])).toEqual([
+      ['Rear toe arm', false],
+      ['Brake fluid, 1 l', true],
+      ['Bleed brakes', false],
+    ]);
+  });
 });
 
 describe('POST /api/invoices/:invoiceId/checkout', () => {

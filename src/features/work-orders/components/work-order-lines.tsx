@@ -16,13 +16,6 @@ import { cn } from '@/lib/cn';
 /** "8.25 %": the rate as the shop set it. */
 const percent = (rate: number) => `${new Intl.NumberFormat('en', { maximumFractionDigits: 4 }).format(rate)} %`;
 
-/** How a used-up part reads on the sheet, so nobody takes it for something fitted to the car. */
-const USED_UP_MARK = ' (used up, not fitted)';
-
-/** The lines as the table shows them: a part used up in the work says so beside its description. */
-const shownLines = (workOrder: WorkOrder) =>
-  workOrder.lines.map((l) => (l.usedUp ? { ...l, description: `${l.description}${USED_UP_MARK}` } : l));
-
 /** Under the table when a part was used up: why it is billed but missing from the car's change log. */
 function UsedUpNote({ workOrder }: { workOrder: WorkOrder }) {
   if (!workOrder.lines.some((l) => l.usedUp)) return null;
@@ -49,7 +42,7 @@ export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; curr
         <LineItemsTable
           caption="Parts and labour, estimate"
           currency={currency}
-          lines={shownLines(workOrder).map((l, i) => ({ ...l, amountCents: estimate.lineCents[i]! }))}
+          lines={workOrder.lines.map((l, i) => ({ ...l, amountCents: estimate.lineCents[i]! }))}
           totals={[
             { label: 'Parts', cents: partsCents },
             { label: 'Labour', cents: labourCents },
@@ -71,7 +64,7 @@ export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; curr
       <LineItemsTable
         caption="Parts and labour"
         currency={currency}
-        lines={shownLines(workOrder).map((l) => ({ ...l, amountCents: l.totalCents }))}
+        lines={workOrder.lines.map((l) => ({ ...l, amountCents: l.totalCents }))}
         totals={[
           { label: 'Parts', cents: partsCents },
           { label: 'Labour', cents: labourCents },

@@ -48,7 +48,7 @@ export function invoice(partial: Partial<Invoice> = {}): Invoice {
     shopId: COLLAB_IDS.shop,
     carId: IDS.car,
     currency: 'usd',
-    lines: [{ kind: 'labour', description: 'Alignment', quantity: 1.5, unitPriceCents: 9000, amountCents: 13500 }],
+    lines: [{ kind: 'labour', description: 'Alignment', quantity: 1.5, unitPriceCents: 9000, usedUp: false, amountCents: 13500 }],
     subtotalCents: 13500,
     taxRatePct: 8.875,
     taxCents: 1198,

@@ -381,4 +381,24 @@ describe('the invoice for the driver', () => {
     expect(screen.queryByRole('button', { name: 'Pay online' })).toBeNull();
     expect(requestsTo(fetchMock, MAKE_INVOICE)).toHaveLength(0);
   });
+  it('when the invoice bills a used-up part, then its line says so and the fitted part and the labour do not', async () => {
+    stubDriver({
+      [`GET ${WO}`]: jsonResponse(200, workOrder(CLOSED)),
+      [`GET ${WO}/invoice`]: jsonResponse(
+        200,
+        invoice({
+          lines: [
+            { kind: 'part', description: 'Rear toe arm', quantity: 2, unitPriceCents: 9900, usedUp: false, amountCents: 19800 },
+            { kind: 'part', description: 'Brake fluid, 1 l', quantity: 1, unitPriceCents: 1800, usedUp: true, amountCents: 1800 },
+            { kind: 'labour', description: 'Bleed brakes', quantity: 0.5, unitPriceCents: 9500, usedUp: false, amountCents: 4750 },
+          ],
+        }),
+      ),
+    });
+    renderApp(PATH);
+    const table = await screen.findByRole('table', { name: 'Invoice lines' });
+    expect(within(table).getByRole('cell', { name: 'Part: Brake fluid, 1 l (used up, not fitted)' })).toBeTruthy();
+    expect(within(table).getByRole('cell', { name: 'Part: Rear toe arm' })).toBeTruthy();
+    expect(within(table).getByRole('cell', { name: 'Labour: Bleed brakes' })).toBeTruthy();
+  });
 });
