@@ -32,10 +32,9 @@ export function PerValueSummary({ result }: { result: ScatterResult }) {
   const headingId = useId();
   const perValue = result.perValue;
   if (!perValue || perValue.values.length === 0) return null;
-  const { label } = PARAM_INFO[result.x.param];
+  const { label, inSentence } = PARAM_INFO[result.x.param];
   // "Time for each value of rear damper clicks": the axle or corner too, as the plot above reads one.
-  const what = result.x.param === 'damperClicks' ? 'damper clicks' : label.toLowerCase();
-  const heading = `Time for each value of ${LOCATION_WORDS[result.x.corner] ?? result.x.corner} ${what}`;
+  const heading = `Time for each value of ${LOCATION_WORDS[result.x.corner] ?? result.x.corner} ${inSentence}`;
   const caution = runOrderCaution(perValue.runOrder);
   const cell = 'py-1 pr-3';
   return (

@@ -16,12 +16,16 @@ import { formatPercent, tidy } from '@/lib/numbers';
  * converted with the shared unit functions before it is drawn or written.
  */
 
-export const PARAM_INFO: Record<ScatterParam, { label: string; quantity: Quantity | null }> = {
-  camber: { label: 'Camber', quantity: 'angle' },
-  springRate: { label: 'Spring rate', quantity: 'springRate' },
-  damperClicks: { label: 'Clicks', quantity: null },
-  coldPressure: { label: 'Cold pressure', quantity: 'pressure' },
-  rideHeight: { label: 'Ride height', quantity: 'length' },
+/**
+ * Each setting on the x axis: `label` heads a field or a column ("Clicks"); `inSentence` names it in a sentence after
+ * the axle or corner ("Time for each value of rear damper clicks").
+ */
+export const PARAM_INFO: Record<ScatterParam, { label: string; inSentence: string; quantity: Quantity | null }> = {
+  camber: { label: 'Camber', inSentence: 'camber', quantity: 'angle' },
+  springRate: { label: 'Spring rate', inSentence: 'spring rate', quantity: 'springRate' },
+  damperClicks: { label: 'Clicks', inSentence: 'damper clicks', quantity: null },
+  coldPressure: { label: 'Cold pressure', inSentence: 'cold pressure', quantity: 'pressure' },
+  rideHeight: { label: 'Ride height', inSentence: 'ride height', quantity: 'length' },
 };
 
 export const METRIC_INFO: Record<ScatterMetric, { label: string }> = {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { axisTick } from '@/features/analysis/utils/analysis-format';
+import { axisTick, PARAM_INFO } from '@/features/analysis/utils/analysis-format';
 
 describe('axisTick', () => {
   it.each([
@@ -12,5 +12,17 @@ describe('axisTick', () => {
     [-0.0001, '0'],
   ])('when a tick falls at %s, then it reads %j (a true minus, U+2212; at most three decimals, toFixed rounding per ECMA-262)', (v, text) => {
     expect(axisTick(v)).toBe(text);
+  });
+});
+
+describe('PARAM_INFO', () => {
+  it.each([
+    ['camber', 'camber'],
+    ['springRate', 'spring rate'],
+    ['damperClicks', 'damper clicks'],
+    ['coldPressure', 'cold pressure'],
+    ['rideHeight', 'ride height'],
+  ] as const)('when %s is named in a sentence, then it reads %j', (param, words) => {
+    expect(PARAM_INFO[param].inSentence).toBe(words);
   });
 });

@@ -432,6 +432,32 @@ describe('season review: time on each value of the setting', () => {
     expect(scatter.queryByRole('complementary', { name: 'The values follow run order' })).toBeNull();
   });
 
+  it('when damper clicks are plotted, then the table is headed "front damper clicks" and its values are counted in clicks', async () => {
+    const clicksTime: ScatterResult = {
+      ...pressureTime({ daysChanged: 2, daysInBlocks: 0 }),
+      x: { param: 'damperClicks', corner: 'front', unit: 'clicks' },
+      points: [point({ x: 6, xNormalized: 0.5, y: 1.1 }), point({ x: 7, xNormalized: 0.583, y: 0.9 })],
+      perValue: {
+        values: [
+          { value: 6, n: 1, days: 1, mean: 1.1, sd: null },
+          { value: 7, n: 1, days: 1, mean: 0.9, sd: null },
+        ],
+        runOrder: { daysChanged: 2, daysInBlocks: 0 },
+      },
+    };
+    stub({ [scatterPath('damperClicks', 'time')]: jsonResponse(200, clicksTime) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot/ });
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'damperClicks');
+
+    const table = await scatter.findByRole('table', { name: 'Time for each value of front damper clicks' });
+    expect(scatter.getByRole('heading', { name: 'Time for each value of front damper clicks' })).toBeTruthy();
+    const rows = within(table).getAllByRole('row');
+    expect(within(rows[0]!).getAllByRole('columnheader')[0]!.textContent).toBe('Clicks');
+    expect(rows.slice(1).map((r) => within(r).getByRole('rowheader').textContent)).toEqual(['6 clicks', '7 clicks']);
+  });
+
   it('when every day the setting changed had its values in one block each, then a caution says the later value was run later in the day', async () => {
     stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, pressureTime({ daysChanged: 3, daysInBlocks: 3 })) });
     const u = renderPage();
