@@ -25,6 +25,7 @@ import { EmailChanges1765411200000 } from './migrations/1765411200000-email-chan
 import { ClosedAccounts1765497600000 } from './migrations/1765497600000-closed-accounts';
 import { CoDriverNotice1765584000000 } from './migrations/1765584000000-co-driver-notice';
 import { UsedUpParts1765670400000 } from './migrations/1765670400000-used-up-parts';
+import { RunsOnTyreSets1765756800000 } from './migrations/1765756800000-runs-on-tyre-sets';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -39,6 +40,7 @@ export const migrations = [
   ClosedAccounts1765497600000,
   CoDriverNotice1765584000000,
   UsedUpParts1765670400000,
+  RunsOnTyreSets1765756800000,
 ];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */

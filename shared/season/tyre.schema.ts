@@ -88,6 +88,8 @@ export interface TyreSet {
   notes: string | null;
   mountings: TyreMounting[];
   latestReading: TreadReading | null;
+  /** Runs the car made while this set was the one fitted last. Absent from answers before it was added. */
+  runs?: number;
   createdAt: string;
 }
 

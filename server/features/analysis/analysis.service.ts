@@ -86,9 +86,11 @@ interface WearRow {
 
 /**
  * Wear between consecutive readings of each tyre set, per corner, over the car's
- * runs between them — worked out in PostgreSQL (a window over the readings and
- * an aggregate over the runs), so only the intervals leave the database. An
- * interval across a rotation (another tyre on the corner) is left out: the two
+ * runs between them on that set — worked out in PostgreSQL (a window over the
+ * readings and an aggregate over the runs), so only the intervals leave the
+ * database. A run made while another set was on the car is not this set's
+ * (`runs_with_tyre_set`); one made before any set was fitted counts for every set.
+ * An interval across a rotation (another tyre on the corner) is left out: the two
  * readings are of different tyres. Before the first recorded mounting, the set is
  * as first fitted.
  */
@@ -126,7 +128,9 @@ async function wearIntervals(ds: DataSource, carId: string): Promise<WearInterva
                 array_agg(DISTINCT r.setup_id::text) AS setup_ids,
                 (array_agg(r.event_id ORDER BY r.recorded_at DESC))[1] AS last_event_id
            FROM runs_with_setup r
+           JOIN runs_with_tyre_set rt ON rt.run_id = r.id AND rt.car_id = $1
           WHERE r.car_id = $1 AND r.recorded_at > p.prev_at AND r.recorded_at <= p.taken_at
+            AND (rt.tyre_set_id IS NULL OR rt.tyre_set_id = p.tyre_set_id)
        ) n
       WHERE p.prev_at IS NOT NULL AND p.prev_tyre IS NOT DISTINCT FROM p.tyre AND n.runs > 0
       ORDER BY p.taken_at, p.corner`,
@@ -395,7 +399,12 @@ export async function seasonSummary(ds: DataSource, user: User, carId: string, m
     )) as { id: string; changed_on: string; what: string; location: string; setup_id: string | null }[]
   ).map((c) => ({ id: c.id, changedOn: c.changed_on, what: c.what, location: c.location, setupId: c.setup_id }));
 
+  // The set each run was made on (null before any set was fitted: such a run counts for every set, as in wearIntervals).
+  const onSet = new Map(
+    ((await ds.query(`SELECT run_id, tyre_set_id FROM runs_with_tyre_set WHERE car_id = $1`, [carId])) as { run_id: string; tyre_set_id: string | null }[]).map((r) => [r.run_id, r.tyre_set_id]),
+  );
   const tyreLife = season.sets.map(({ set, readings }) => {
+    const runsOnSet = season.runs.filter((x) => (onSet.get(x.id) ?? set.id) === set.id);
     const latest = readings.at(-1) ?? null;
     let worst: NonNullable<SeasonResult['tyreLife'][number]['worst']> | null = null;
     for (const corner of CORNERS) {
@@ -406,9 +415,9 @@ export async function seasonSummary(ds: DataSource, user: User, carId: string, m
         if (!worst || depthMm < worst.depthMm) worst = { corner, position, depthMm };
       }
     }
-    // The worst spot's depth against the car's cumulative runs at each reading of this tyre.
+    // The worst spot's depth against the cumulative runs on this set at each reading of this tyre.
     const ofTyre = worst ? readings.filter((r) => r.corners[worst!.corner]?.tyreNumber === latest!.corners[worst!.corner]!.tyreNumber) : [];
-    const toPoint = (r: (typeof readings)[number]) => ({ runs: season.runs.filter((x) => x.recordedAt <= r.takenAt).length, depthMm: r.corners[worst!.corner]![`${worst!.position}Mm`] });
+    const toPoint = (r: (typeof readings)[number]) => ({ runs: runsOnSet.filter((x) => x.recordedAt <= r.takenAt).length, depthMm: r.corners[worst!.corner]![`${worst!.position}Mm`] });
     // A new camber, toe or caster at that corner moves where and how fast the tread wears (common practice), so
     // the line starts at the last reading before the latest such change, when two readings from there on allow one.
     const change = worst && ofTyre.length ? latestAlignmentChange(season.setups, worst.corner, ofTyre[0]!.takenAt) : null;

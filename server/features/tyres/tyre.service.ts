@@ -76,6 +76,17 @@ async function toTyreSets(db: Db, sets: TyreSetEntity[]): Promise<TyreSet[]> {
     ? await db.getRepository(TyreMountingEntity).createQueryBuilder('m').where('m.tyre_set_id IN (:...ids)', { ids }).orderBy('m.mounted_at', 'ASC').getMany()
     : [];
   const latest = await readingsOf(db, ids, true);
+  const runs = new Map(
+    ids.length
+      ? (
+          (await db.query(
+            // By car first: the view ties every run it reads to a set.
+            `SELECT tyre_set_id, count(*)::int AS n FROM runs_with_tyre_set WHERE car_id = ANY($1) AND tyre_set_id = ANY($2) GROUP BY tyre_set_id`,
+            [[...new Set(sets.map((s) => s.carId))], ids],
+          )) as { tyre_set_id: string; n: number }[]
+        ).map((r) => [r.tyre_set_id, r.n])
+      : [],
+  );
   return sets.map((s) => ({
     id: s.id,
     carId: s.carId,
@@ -86,6 +97,7 @@ async function toTyreSets(db: Db, sets: TyreSetEntity[]): Promise<TyreSet[]> {
     notes: s.notes,
     mountings: mountings.filter((m) => m.tyreSetId === s.id).map(toMounting),
     latestReading: latest.find((r) => r.tyreSetId === s.id) ?? null,
+    runs: runs.get(s.id) ?? 0,
     createdAt: s.createdAt.toISOString(),
   }));
 }

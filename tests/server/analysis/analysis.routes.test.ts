@@ -341,6 +341,35 @@ describe('GET /api/cars/:carId/season', () => {
     expect(after.mmPerRun).toBeCloseTo(-slope, 12);
   });
 
+  it('when another set was on the car for some runs between two readings of a set, then its wear and tyre life count only the runs made on it', async () => {
+    const d = await driverWithCarAndEvent(t);
+    await postSetup(d.c, d.carId, { label: 'Baseline', effectiveFrom: '2026-04-01T00:00:00Z' });
+    const fit = async (setId: string, at: string) =>
+      expect((await d.c.post(`/api/tyre-sets/${setId}/mountings`, { mountedAt: at, positions: { lf: 1, rf: 2, lr: 3, rr: 4 } })).status).toBe(201);
+    const a = (await d.c.post(`/api/cars/${d.carId}/tyre-sets`, { label: 'Set A', startTreadMm: 7 })).body.id as string;
+    const b = (await d.c.post(`/api/cars/${d.carId}/tyre-sets`, { label: 'Set B (wet)', startTreadMm: 7 })).body.id as string;
+    await fit(a, '2026-04-12T08:00:00Z');
+    await fit(b, '2026-04-12T11:00:00Z');
+    await fit(a, '2026-04-12T12:00:00Z');
+    // Set A: runs at 9:00 and 10:00, then 12:10; Set B: three runs from 11:10.
+    for (const [i, at] of ['09:00', '10:00', '11:10', '11:20', '11:30', '12:10'].entries()) {
+      await postRun(d.c, d.carId, d.eventId, { runNumber: i + 1, recordedAt: `2026-04-12T${at}:00Z` });
+    }
+    const lf = (innerMm: number) => ({ lf: { innerMm, middleMm: 6.9, outerMm: 6.9 } });
+    expect((await d.c.post(`/api/tyre-sets/${a}/readings`, { takenAt: '2026-04-12T08:50:00Z', corners: lf(7) })).status).toBe(201);
+    expect((await d.c.post(`/api/tyre-sets/${a}/readings`, { takenAt: '2026-04-12T12:30:00Z', corners: lf(6.7) })).status).toBe(201);
+
+    // 0.3 mm off the inner edge over Set A's 3 runs, not over the car's 6: 0.1 mm a run (worked by hand); the
+    // middle and outer lost nothing, and the plotted wear is the mean of the three.
+    const wear = await d.c.get(`/api/cars/${d.carId}/analysis/scatter?x=camber&y=wear&corner=lf`);
+    expect(wear.body.points.map((p: { runs: number }) => p.runs)).toEqual([3]);
+    expect(wear.body.points[0].y).toBeCloseTo((0.1 + 0 + 0) / 3, 12);
+    const life = (await d.c.get(`/api/cars/${d.carId}/season`)).body.tyreLife.find((l: { tyreSetId: string }) => l.tyreSetId === a);
+    expect(life.mmPerRun).toBeCloseTo(0.1, 12);
+    // Runs left = floor((6.7 − 1.6) / 0.1) = 51 (common practice).
+    expect(life.runsLeft).toBe(51);
+  });
+
   it('when a deeper minimum is asked for, then fewer runs are left', async () => {
     const a = (await maren.get(`/api/cars/${carId}/season`)).body.tyreLife[0].runsLeft;
     const b = (await maren.get(`/api/cars/${carId}/season?minDepthMm=3`)).body.tyreLife[0].runsLeft;

@@ -37,6 +37,7 @@ describe('POST /api/cars/:carId/tyre-sets', () => {
       notes: 'Scrubbed',
       mountings: [{ id: expect.any(String), mountedAt: '2026-03-01T00:00:00.000Z', positions: { lf: 1, rf: 2, lr: 3, rr: 4 } }],
       latestReading: null,
+      runs: 0,
       createdAt: expect.any(String),
     });
   });
@@ -74,6 +75,30 @@ describe('GET /api/cars/:carId/tyre-sets', () => {
     expect(list.body.items[0].latestReading).toEqual(newest.body);
     const third = await d.c.post(`/api/tyre-sets/${set.id}/readings`, { takenAt: '2026-06-01T16:00:00Z', corners: { rr: depth(4, 4.5, 4.9) } });
     expect((await d.c.get(`/api/cars/${d.carId}/tyre-sets`)).body.items[0].latestReading.id).toBe(third.body.id);
+  });
+});
+
+describe('runs on each set', () => {
+  it('when two sets take turns on the car, then each counts the runs made while it was the one fitted last, a rotation keeps the set on, and a run before any set was fitted is no set’s', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const run = (at: string, runNumber: number) => d.c.post('/api/runs', { id: randomUUID(), carId: d.carId, eventId: d.eventId, runNumber, rawTimeSec: 45.1, cones: 0, status: 'finished', recordedAt: at });
+    expect((await run('2026-04-12T08:30:00Z', 1)).status).toBe(201); // before any set
+    // With no day bought, a new set counts as fitted when it is recorded (today, after every run here).
+    const a = await d.c.post(`/api/cars/${d.carId}/tyre-sets`, { label: 'Set A' });
+    expect((await d.c.post(`/api/tyre-sets/${a.body.id}/mountings`, { mountedAt: '2026-04-12T08:45:00Z', positions: { lf: 1, rf: 2, lr: 3, rr: 4 } })).status).toBe(201);
+    expect((await run('2026-04-12T09:00:00Z', 2)).status).toBe(201); // A
+    const b = await newSet(d, { label: 'Set B', boughtOn: '2026-04-13' }); // fitted as bought, the next day
+    expect((await run('2026-04-12T10:00:00Z', 3)).status).toBe(201); // A
+    const toB = await d.c.post(`/api/tyre-sets/${b.id}/mountings`, { mountedAt: '2026-04-12T11:00:00Z', positions: { lf: 1, rf: 2, lr: 3, rr: 4 } });
+    expect(toB.status).toBe(201);
+    for (const [i, at] of ['2026-04-12T11:10:00Z', '2026-04-12T11:20:00Z', '2026-04-12T11:30:00Z'].entries()) expect((await run(at, 4 + i)).status).toBe(201); // B
+    // Set A back on, rotated front to back.
+    const backToA = await d.c.post(`/api/tyre-sets/${a.body.id}/mountings`, { mountedAt: '2026-04-12T12:00:00Z', positions: { lf: 3, rf: 4, lr: 1, rr: 2 } });
+    expect(backToA.status).toBe(201);
+    expect((await run('2026-04-12T12:10:00Z', 7)).status).toBe(201); // A
+
+    const sets = (await d.c.get(`/api/cars/${d.carId}/tyre-sets`)).body.items as { label: string; runs: number }[];
+    expect(sets.map((s) => [s.label, s.runs])).toEqual([['Set A', 3], ['Set B', 3]]);
   });
 });
 

@@ -64,6 +64,12 @@ export function TyreSetList({ carId, sets, entries }: { carId: string; sets: rea
               <p className="text-sm font-semibold text-warning">Refused: {set.pending.error?.message ?? 'the server did not accept it'}</p>
             ) : null}
             <PositionsLine set={set} onCar={set.id === onCar} />
+            {/* The server counts a run for the set fitted last before it; a set still on this phone has none yet. */}
+            {set.runs !== undefined ? (
+              <p className="tabular-figures text-sm text-ink-muted">
+                {set.runs === 1 ? '1 run' : `${set.runs} runs`} on this set
+              </p>
+            ) : null}
             {latest ? (
               <>
                 <p className="tabular-figures flex flex-wrap items-center gap-2 text-sm text-ink-muted">

@@ -140,4 +140,23 @@ describe('which set is on the car', () => {
     expect(screen.getByRole('button', { name: `Fit to the car of ${TYRE_SET.label}` })).toBeTruthy();
     expect(screen.getByRole('button', { name: 'Rotate tyres of Summer set' })).toBeTruthy();
   });
+
+  it('when the server counts the runs made on each set, then each set says how many, in the singular for one; a set without a count says nothing', async () => {
+    const spare = { ...TYRE_SET, id: 'e2e2e2e2-0000-4000-8000-0000000000b1', label: 'Spare set', latestReading: null, runs: 1 };
+    const old = { ...TYRE_SET, id: 'e2e2e2e2-0000-4000-8000-0000000000b2', label: 'Old set', latestReading: null, runs: undefined };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+      [`GET /api/cars/${IDS.car}/setups`]: list([]),
+      [`GET /api/cars/${IDS.car}/tyre-sets`]: list([{ ...TYRE_SET, runs: 42 }, spare, old]),
+      [`GET /api/cars/${IDS.car}/changes`]: list([]),
+    });
+    renderApp(CAR_PAGE);
+
+    const item = (label: string) => screen.getByRole('heading', { name: label }).closest('li')!;
+    await screen.findByRole('heading', { name: 'Spare set' });
+    expect(within(item(TYRE_SET.label)).getByText('42 runs on this set')).toBeTruthy();
+    expect(within(item('Spare set')).getByText('1 run on this set')).toBeTruthy();
+    expect(within(item('Old set')).queryByText(/on this set/)).toBeNull();
+  });
 });
