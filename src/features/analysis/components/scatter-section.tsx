@@ -18,6 +18,7 @@ import { FIELD_INFO } from '@/lib/setup-fields';
 import { useUnits } from '@/lib/units-context';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { useScatter } from '../api/get-scatter';
+import { useColourScheme } from '../hooks/use-colour-scheme';
 import { firstVariedSetting } from '../utils/pick-setting';
 import { axisTick, METRIC_INFO, PARAM_INFO, rateUnitWords, runsText, xAxis, yAxis, type Axis } from '../utils/analysis-format';
 import { buildScatterPlot, wholeStepAxis, type ScatterPlot } from '../utils/scatter-plot';
@@ -149,9 +150,10 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
   const units = useUnits();
   const tableId = useId();
   const [showTable, setShowTable] = useState(false);
+  const scheme = useColourScheme();
   const x = xAxis(result, units, clicksAs === 'share');
   const y = yAxis(result, units);
-  const plot = buildScatterPlot(result, x, y);
+  const plot = buildScatterPlot(result, x, y, scheme);
   const wear = result.y.metric !== 'time';
   const series: ChartSeries[] = [
     ...plot.series.map((s) => ({

@@ -6,7 +6,8 @@ import { formatRunTime } from '@shared/season/run-time';
 import { EmptyState } from '@/components/ui/empty-state';
 import { formatDateTime, formatDay } from '@/lib/dates';
 import { LOCATION_WORDS } from '../utils/analysis-format';
-import { seriesStyle, type SeriesStyle } from '../utils/series-styles';
+import { useColourScheme } from '../hooks/use-colour-scheme';
+import { seriesStyle, type ColourScheme, type SeriesStyle } from '../utils/series-styles';
 import { timeTickLabel, timeTicks } from '../utils/time-ticks';
 import type { ChartSeries } from './analysis-chart';
 import { ChartLoading } from './chart-loading';
@@ -28,8 +29,11 @@ export interface DriverSeries {
   points: { x: number; y: number; lines: string[] }[];
 }
 
-/** Each driver's best adjusted time per event, one colour and shape per driver, in the order they first ran. */
-function driverSeries(season: SeasonResult): DriverSeries[] {
+/**
+ * Each driver's best adjusted time per event, one colour and shape per driver, in the order they first ran; the
+ * colours are the ones for the page's colour scheme.
+ */
+function driverSeries(season: SeasonResult, scheme: ColourScheme): DriverSeries[] {
   const byId = new Map<string, DriverSeries>();
   const events = [...season.events].sort((a, b) => a.date.localeCompare(b.date));
   for (const event of events) {
@@ -37,7 +41,7 @@ function driverSeries(season: SeasonResult): DriverSeries[] {
       if (d.bestAdjustedSec === null) continue;
       let series = byId.get(d.driver.id);
       if (!series) {
-        series = { id: d.driver.id, name: d.driver.displayName, style: seriesStyle(byId.size), points: [] };
+        series = { id: d.driver.id, name: d.driver.displayName, style: seriesStyle(byId.size, scheme), points: [] };
         byId.set(d.driver.id, series);
       }
       series.points.push({
@@ -115,7 +119,8 @@ export function SeasonTimeline({
 }) {
   const tableId = useId();
   const [showTable, setShowTable] = useState(false);
-  const drivers = driverSeries(season);
+  const scheme = useColourScheme();
+  const drivers = driverSeries(season, scheme);
   const setupChanges = [...season.setupChanges].sort((a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom));
   const changeLog = [...season.changeLog].sort((a, b) => a.changedOn.localeCompare(b.changedOn));
 

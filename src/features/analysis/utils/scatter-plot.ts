@@ -1,7 +1,7 @@
 import type { ScatterResult } from '@shared/analysis/analysis.schema';
 import { formatDay } from '@/lib/dates';
 import type { Axis } from './analysis-format';
-import { seriesStyle, type SeriesStyle } from './series-styles';
+import { seriesStyle, type ColourScheme, type SeriesStyle } from './series-styles';
 
 /** One plotted point, in the plotted units; `index` points back into the answer's `points`. */
 export interface PlotPoint {
@@ -29,9 +29,10 @@ export interface ScatterPlot {
  * them in every plot and as the season grows) and
  * converts them to the plotted units. The fitted line is drawn between the lowest and highest setting: its ends are
  * the server's line evaluated there, converted like the points (every conversion here is proportional, and the
- * clicks share is a straight-line function of the clicks, so the line stays straight).
+ * clicks share is a straight-line function of the clicks, so the line stays straight). The colours are the ones for
+ * the page's colour scheme.
  */
-export function buildScatterPlot(result: ScatterResult, x: Axis, y: Axis): ScatterPlot {
+export function buildScatterPlot(result: ScatterResult, x: Axis, y: Axis, scheme: ColourScheme = 'light'): ScatterPlot {
   const groups = new Map<string, { label: string; date: string; points: PlotPoint[] }>();
   result.points.forEach((p, index) => {
     const px = x.value(p);
@@ -48,7 +49,7 @@ export function buildScatterPlot(result: ScatterResult, x: Axis, y: Axis): Scatt
   const seasonOrder = result.eventIds ?? [];
   const series = [...groups.entries()]
     .sort(([, a], [, b]) => a.date.localeCompare(b.date))
-    .map(([key, g], i) => ({ key, label: g.label, style: seriesStyle(seasonOrder.includes(key) ? seasonOrder.indexOf(key) : i), points: g.points }));
+    .map(([key, g], i) => ({ key, label: g.label, style: seriesStyle(seasonOrder.includes(key) ? seasonOrder.indexOf(key) : i, scheme), points: g.points }));
 
   let fit: ScatterPlot['fit'] = null;
   if (result.fit && result.points.length > 0) {

@@ -5,17 +5,24 @@
  */
 export type MarkerShape = 'circle' | 'triangle' | 'rect' | 'rectRot' | 'star' | 'crossRot' | 'rectRounded' | 'cross';
 
-/** Okabe–Ito, most distinct first; black last (it is swapped for the theme's ink, so it shows on the dark theme too). */
-export const OKABE_ITO = [
+/** The page's colour scheme: the light theme, or the dark one the system asks for (src/styles/index.css). */
+export type ColourScheme = 'light' | 'dark';
+
+/**
+ * Okabe–Ito, most distinct first; black last (it is swapped for the theme's ink, so it shows on the dark theme too).
+ * `onDark` is drawn instead on the dark theme, where Okabe–Ito's own colour is too dark to see well: their blue is
+ * only 3.3:1 against the dark surface, and it draws the open square, a thin outline. The lighter blue is 5.2:1 there.
+ */
+export const OKABE_ITO: readonly { name: string; hex: string; onDark?: string }[] = [
   { name: 'orange', hex: '#E69F00' },
   { name: 'sky blue', hex: '#56B4E9' },
   { name: 'bluish green', hex: '#009E73' },
   { name: 'vermillion', hex: '#D55E00' },
-  { name: 'blue', hex: '#0072B2' },
+  { name: 'blue', hex: '#0072B2', onDark: '#4C8CF5' },
   { name: 'reddish purple', hex: '#CC79A7' },
   { name: 'yellow', hex: '#F0E442' },
   { name: 'black', hex: '#000000' },
-] as const;
+];
 
 /**
  * In the order the colours above take them, so the first eight series pair them one to one: the marks drawn
@@ -40,7 +47,7 @@ const SHAPES: readonly { shape: MarkerShape; glyph: string; name: string }[] = [
 export const isHollow = (shape: MarkerShape | 'line') => shape === 'rectRounded';
 
 export interface SeriesStyle {
-  /** A hex colour; `null` means "the theme's ink colour" (Okabe–Ito black). */
+  /** A hex colour for the colour scheme asked for; `null` means "the theme's ink colour" (Okabe–Ito black). */
   color: string | null;
   colorName: string;
   shape: MarkerShape;
@@ -48,13 +55,16 @@ export interface SeriesStyle {
   shapeName: string;
 }
 
-/** The style of the i-th series: colour and shape both change, and the pair stays unique for 64 series. */
-export function seriesStyle(index: number): SeriesStyle {
+/**
+ * The style of the i-th series: colour and shape both change, and the pair stays unique for 64 series. On the dark
+ * scheme a colour may be drawn lighter (`onDark`); its name, shape and place stay the same.
+ */
+export function seriesStyle(index: number, scheme: ColourScheme = 'light'): SeriesStyle {
   const i = Math.max(0, Math.floor(index));
   const colour = OKABE_ITO[i % OKABE_ITO.length]!;
   const shape = SHAPES[(i + Math.floor(i / OKABE_ITO.length)) % SHAPES.length]!;
   return {
-    color: colour.name === 'black' ? null : colour.hex,
+    color: colour.name === 'black' ? null : scheme === 'dark' ? (colour.onDark ?? colour.hex) : colour.hex,
     colorName: colour.name,
     shape: shape.shape,
     glyph: shape.glyph,

@@ -663,6 +663,35 @@ describe('season review: before and after a change', () => {
   });
 });
 
+describe('season review: the dark theme', () => {
+  // One point, at the season's fifth event: the series that takes Okabe–Ito blue and the open square, a thin outline.
+  const FIFTH_EVENT: ScatterResult = {
+    ...CAMBER_TIME,
+    points: [point({ x: -1.5, y: 1.2, ...EVENT_B })],
+    n: 1,
+    fit: null,
+    eventIds: [1, 2, 3, 4].map((n) => `e000000${n}-1111-4111-8111-111111111111`).concat(EVENT_B.eventId),
+  };
+  const systemAsksForDark = (dark: boolean) =>
+    vi.stubGlobal('matchMedia', (query: string) => ({ matches: dark && query === '(prefers-color-scheme: dark)', addEventListener: () => {}, removeEventListener: () => {} }));
+
+  it.each([
+    ['dark', '#4C8CF5', 'rgb(76, 140, 245)'],
+    ['light', '#0072B2', 'rgb(0, 114, 178)'],
+  ])('when the system asks for the %s theme, then the blue open square is drawn in %s on the chart and in its key', async (theme, hex, cssColour) => {
+    systemAsksForDark(theme === 'dark');
+    stub({ [scatterPath('camber', 'time')]: jsonResponse(200, FIFTH_EVENT) });
+    renderPage();
+    const scatter = section('Setup against time and wear');
+    const chart = await scatter.findByRole('img', { name: /Scatter plot of Camber .*, 1 points/ });
+
+    const [dataset] = chartGiven(chart.getAttribute('aria-label')!).data.datasets;
+    expect([dataset!.pointStyle, dataset!.borderColor]).toEqual(['rectRounded', hex]);
+    const key = scatter.getByRole('list', { name: 'Series on the chart' });
+    expect((within(key).getByText('▢') as HTMLElement).style.color).toBe(cssColour);
+  });
+});
+
 describe('season review: the setting plotted first', () => {
   it('when only the rear clicks changed over the season, then the plot opens on rear clicks and never asks for camber', async () => {
     const clicks: ScatterResult = {
