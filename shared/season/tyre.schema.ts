@@ -99,6 +99,8 @@ export interface TreadReading {
   takenAt: string;
   eventId: string | null;
   corners: Partial<Record<Corner, TreadCorner & { tyreNumber: number | null }>>;
+  /** Runs the car made on this set up to the reading. Absent from answers before it was added. */
+  runsOnSet?: number;
   notes: string | null;
   createdAt: string;
 }

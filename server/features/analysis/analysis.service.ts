@@ -96,7 +96,10 @@ interface WearRow {
  */
 async function wearIntervals(ds: DataSource, carId: string): Promise<WearInterval[]> {
   const rows: WearRow[] = await ds.query(
-    `WITH corner_readings AS (
+    `WITH on_set AS MATERIALIZED (
+       -- Each run's set, looked up once, not once for every interval it could fall in.
+       SELECT run_id, tyre_set_id FROM runs_with_tyre_set WHERE car_id = $1
+     ), corner_readings AS (
        SELECT t.id, t.tyre_set_id, t.taken_at, t.event_id, c.corner, c.inner_mm, c.middle_mm, c.outer_mm,
               (SELECT CASE c.corner WHEN 'lf' THEN m.lf_tyre WHEN 'rf' THEN m.rf_tyre WHEN 'lr' THEN m.lr_tyre ELSE m.rr_tyre END
                  FROM tyre_mountings m
@@ -128,7 +131,7 @@ async function wearIntervals(ds: DataSource, carId: string): Promise<WearInterva
                 array_agg(DISTINCT r.setup_id::text) AS setup_ids,
                 (array_agg(r.event_id ORDER BY r.recorded_at DESC))[1] AS last_event_id
            FROM runs_with_setup r
-           JOIN runs_with_tyre_set rt ON rt.run_id = r.id AND rt.car_id = $1
+           JOIN on_set rt ON rt.run_id = r.id
           WHERE r.car_id = $1 AND r.recorded_at > p.prev_at AND r.recorded_at <= p.taken_at
             AND (rt.tyre_set_id IS NULL OR rt.tyre_set_id = p.tyre_set_id)
        ) n

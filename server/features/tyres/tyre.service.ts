@@ -51,6 +51,20 @@ async function readingsOf(db: Db, setIds: string[], latestOnly: boolean): Promis
     .createQueryBuilder('m')
     .where('m.tyre_set_id IN (:...setIds)', { setIds })
     .getMany();
+  // The runs made on the set up to each reading (see runs_with_tyre_set).
+  const runsBefore = new Map(
+    (
+      (await db.query(
+        `WITH on_set AS MATERIALIZED (
+           SELECT r.tyre_set_id, r.recorded_at FROM runs_with_tyre_set r
+            WHERE r.car_id IN (SELECT car_id FROM tyre_sets WHERE id = ANY($2)) AND r.tyre_set_id = ANY($2)
+         )
+         SELECT t.id, (SELECT count(*)::int FROM on_set o WHERE o.tyre_set_id = t.tyre_set_id AND o.recorded_at <= t.taken_at) AS n
+           FROM tread_readings t WHERE t.id = ANY($1)`,
+        [ids, setIds],
+      )) as { id: string; n: number }[]
+    ).map((r) => [r.id, r.n]),
+  );
   return readings.map((r) => {
     const takenAt = new Date(r.takenAt);
     const setMountings = mountings.filter((m) => m.tyreSetId === r.tyreSetId);
@@ -64,6 +78,7 @@ async function readingsOf(db: Db, setIds: string[], latestOnly: boolean): Promis
       takenAt: takenAt.toISOString(),
       eventId: r.eventId,
       corners: out,
+      runsOnSet: runsBefore.get(r.id) ?? 0,
       notes: r.notes,
       createdAt: new Date(r.createdAt).toISOString(),
     };

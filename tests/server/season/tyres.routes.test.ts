@@ -99,6 +99,14 @@ describe('runs on each set', () => {
 
     const sets = (await d.c.get(`/api/cars/${d.carId}/tyre-sets`)).body.items as { label: string; runs: number }[];
     expect(sets.map((s) => [s.label, s.runs])).toEqual([['Set A', 3], ['Set B', 3]]);
+
+    // Each reading of a set says how many runs the set had done by then.
+    const lf = { lf: depth(6, 6.2, 6.3) };
+    for (const takenAt of ['2026-04-12T08:40:00Z', '2026-04-12T11:05:00Z', '2026-04-12T12:30:00Z']) {
+      expect((await d.c.post(`/api/tyre-sets/${a.body.id}/readings`, { takenAt, corners: lf })).status).toBe(201);
+    }
+    const readings = (await d.c.get(`/api/tyre-sets/${a.body.id}/readings`)).body.items as { runsOnSet: number }[];
+    expect(readings.map((r) => r.runsOnSet)).toEqual([0, 2, 3]);
   });
 });
 
@@ -119,6 +127,7 @@ describe('tread readings', () => {
       takenAt: '2026-04-12T16:00:00.000Z',
       eventId: d.eventId,
       corners: { lf: { ...depth(6.1, 6.5, 6.6), tyreNumber: 1 }, rr: { ...depth(6.4, 6.6, 6.2), tyreNumber: 4 } },
+      runsOnSet: 0,
       notes: 'After round 1',
       createdAt: expect.any(String),
     });

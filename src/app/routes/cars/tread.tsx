@@ -15,6 +15,7 @@ import { ReadingHistory } from '@/features/tyres/components/reading-history';
 import { TreadDisplay } from '@/features/tyres/components/tread-display';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
 import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
+import { runsOnSetText } from '@/features/tyres/utils/tread';
 
 /** Tread depths of one tyre set (?set=<tyreSetId> to preselect it). */
 export function TreadPage() {
@@ -61,7 +62,9 @@ export function TreadPage() {
               <li key={set.id} className="flex flex-col gap-2 rounded border border-line p-3">
                 <p>
                   <span className="font-bold">{set.label}</span>{' '}
-                  <span className="tabular-figures text-sm text-ink-muted">· {formatDateTime(reading.takenAt)}</span>
+                  <span className="tabular-figures text-sm text-ink-muted">
+                    · {[formatDateTime(reading.takenAt), runsOnSetText(reading)].filter(Boolean).join(', ')}
+                  </span>
                 </p>
                 <TreadDisplay corners={reading.corners} />
                 <AttachmentToggle target={{ targetType: 'tread_reading', targetId: reading.id }} what={`the ${set.label} reading`} defaultOpen />

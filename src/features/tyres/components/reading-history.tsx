@@ -4,7 +4,7 @@ import { FoldOut } from '@/components/fold-out/fold-out';
 import type { TreadReading } from '@shared/season/tyre.schema';
 import { formatDateTime } from '@/lib/dates';
 import { useTreadReadings } from '../api/get-tread-readings';
-import { earlierReadings } from '../utils/tread';
+import { earlierReadings, runsOnSetText } from '../utils/tread';
 import { TreadDisplay } from './tread-display';
 
 interface ReadingHistoryProps {
@@ -43,7 +43,10 @@ function EarlierReadings({ tyreSetId, setLabel, latestReadingId, renderReadingEx
     <ul className="flex flex-col gap-3" aria-label={`Earlier readings of ${setLabel}`}>
       {readings.map((reading) => (
         <li key={reading.id} className="flex flex-col gap-2 border-t border-line pt-3">
-          <p className="tabular-figures text-sm font-semibold">{formatDateTime(reading.takenAt)}</p>
+          <p className="tabular-figures text-sm">
+            <span className="font-semibold">{formatDateTime(reading.takenAt)}</span>
+            {runsOnSetText(reading) ? <span className="text-ink-muted">, {runsOnSetText(reading)}</span> : null}
+          </p>
           <TreadDisplay corners={reading.corners} />
           {renderReadingExtras?.(reading)}
         </li>

@@ -42,3 +42,9 @@ export function earlierReadings(readings: readonly TreadReading[], latestId: str
     .filter((r) => r.id !== latestId)
     .sort((a, b) => time(b.takenAt) - time(a.takenAt) || time(b.createdAt) - time(a.createdAt));
 }
+
+/** "after 12 runs on this set", for a reading the server counted; null for one still on this phone. */
+export function runsOnSetText(reading: { runsOnSet?: number }): string | null {
+  if (reading.runsOnSet === undefined) return null;
+  return `after ${reading.runsOnSet} ${reading.runsOnSet === 1 ? 'run' : 'runs'} on this set`;
+}

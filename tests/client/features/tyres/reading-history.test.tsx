@@ -78,6 +78,28 @@ describe('reading history', () => {
     expect(document.getElementById(button.getAttribute('aria-controls')!)!.hidden).toBe(true);
   });
 
+  it('when the server counts the runs made on the set up to each reading, then the latest and each earlier reading say after how many', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
+      [`GET /api/cars/${IDS.car}/tyre-sets`]: list([{ ...TYRE_SET, latestReading: { ...LATEST, runsOnSet: 20 } }]),
+      [`GET /api/attachments?targetType=tread_reading&targetId=${LATEST.id}`]: list([]),
+      [READINGS_URL]: list([{ ...FIRST, runsOnSet: 1 }, { ...SECOND, runsOnSet: 12 }, { ...LATEST, runsOnSet: 20 }]),
+    });
+    renderApp(`/cars/${IDS.car}/tread`);
+    const u = userEvent.setup();
+
+    const latest = within(await screen.findByRole('list', { name: 'Latest reading of each set' }));
+    expect(latest.getByText(`· ${formatDateTime(LATEST.takenAt)}, after 20 runs on this set`)).toBeTruthy();
+    await u.click(await screen.findByRole('button', { name: HISTORY_BUTTON }));
+    const history = await screen.findByRole('list', { name: 'Earlier readings of Set B (2026)' });
+    const items = within(history).getAllByRole('listitem').filter((li) => li.parentElement === history);
+    expect(items.map((li) => li.querySelector('p')!.textContent)).toEqual([
+      `${formatDateTime(SECOND.takenAt)}, after 12 runs on this set`,
+      `${formatDateTime(FIRST.takenAt)}, after 1 run on this set`,
+    ]);
+  });
+
   it('when the driver reads tread in 1/32 in, then the earlier depths are shown in 1/32 in', async () => {
     stub(IMPERIAL_PREFERENCES);
     renderApp(`/cars/${IDS.car}/tread`);
