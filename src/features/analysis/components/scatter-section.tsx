@@ -135,7 +135,7 @@ function LeftOutNote({ result }: { result: ScatterResult }) {
 function AlsoMovedNote({ result }: { result: ScatterResult }) {
   const moved = result.alsoMoved ?? [];
   if (moved.length === 0) return null;
-  const plotted = PARAM_INFO[result.x.param].label.toLowerCase();
+  const plotted = PARAM_INFO[result.x.param].inSentence;
   const names = moved.map((m) => `${FIELD_INFO[m.field].label.toLowerCase()} (r = ${formatFixed(m.r, 2)})`);
   const list = names.length === 1 ? names[0] : `${names.slice(0, -1).join(', ')} and ${names.at(-1)}`;
   return (
@@ -184,7 +184,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
               // Room either side, so the lowest and highest settings are not drawn on the plot's edges.
               x={{ title: x.title, format: axisTick, grace: '5%', ...(x.whole ? wholeStepAxis(plot) : null) }}
               y={{ title: y.title, format: axisTick }}
-              summary={`Scatter plot of ${x.title} against ${y.title}, ${result.n} points. Use "Show as table" for the values.`}
+              summary={`Scatter plot of ${x.title} against ${y.title}, ${result.n} ${result.n === 1 ? 'point' : 'points'}. Use "Show as table" for the values.`}
             />
           </Suspense>
           <Caption result={result} />

@@ -389,6 +389,18 @@ describe('season review: settings that changed together', () => {
     );
   });
 
+  it('when damper clicks are plotted, then the line names them as damper clicks', async () => {
+    const clicks: ScatterResult = { ...CAMBER_TIME, x: { param: 'damperClicks', corner: 'front', unit: 'clicks' }, alsoMoved: [{ field: 'coldPressureKpa', r: 0.9 }] };
+    stub({ [scatterPath('damperClicks', 'time')]: jsonResponse(200, clicks) });
+    const u = renderPage();
+    const scatter = section('Setup against time and wear');
+    await scatter.findByRole('img', { name: /Scatter plot of Camber/ });
+
+    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'damperClicks');
+    const note = await scatter.findByText(/^Changed together:/);
+    expect(note.closest('p')?.textContent).toContain('cold pressure (r = 0.90) moved with damper clicks, so a trend here may be theirs as much as damper clicks');
+  });
+
   it('when nothing else moved with it, or the answer predates the field, then there is no such line', async () => {
     stub({ [scatterPath('camber', 'time')]: jsonResponse(200, { ...CAMBER_TIME, alsoMoved: [] }) });
     renderPage();
@@ -683,7 +695,7 @@ describe('season review: the dark theme', () => {
     stub({ [scatterPath('camber', 'time')]: jsonResponse(200, FIFTH_EVENT) });
     renderPage();
     const scatter = section('Setup against time and wear');
-    const chart = await scatter.findByRole('img', { name: /Scatter plot of Camber .*, 1 points/ });
+    const chart = await scatter.findByRole('img', { name: /Scatter plot of Camber .*, 1 point\./ });
 
     const [dataset] = chartGiven(chart.getAttribute('aria-label')!).data.datasets;
     expect([dataset!.pointStyle, dataset!.borderColor]).toEqual(['rectRounded', hex]);
