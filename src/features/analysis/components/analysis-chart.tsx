@@ -122,6 +122,8 @@ export interface ChartSeries {
   verticalLines?: 'dashed' | 'dotted';
   /** Turn the marker, e.g. 180 for a triangle pointing down. */
   rotation?: number;
+  /** Edge the marker in the theme's ink: a pale colour that would not stand out from the background alone. */
+  outlined?: boolean;
 }
 
 export interface ChartAxis {
@@ -202,6 +204,7 @@ export function AnalysisChart({ series, x, y, summary }: AnalysisChartProps) {
         backgroundColor: colour,
         pointBackgroundColor: isHollow(s.shape) ? 'transparent' : colour,
         borderColor: colour,
+        pointBorderColor: s.outlined ? ink : colour,
         pointStyle: s.shape === 'line' ? 'line' : s.shape,
         pointRotation: s.rotation ?? 0,
         pointRadius: s.hidePoints ? 0 : 6,

@@ -159,6 +159,7 @@ function ScatterBody({ result, clicksAs }: { result: ScatterResult; clicksAs: Cl
     ...plot.series.map((s) => ({
       label: s.label,
       color: s.style.color,
+      outlined: s.style.outlined,
       shape: s.style.shape,
       glyph: s.style.glyph,
       points: s.points.map((pt) => ({ x: pt.x, y: pt.y, lines: describePoint(result, pt.index, x, y) })),

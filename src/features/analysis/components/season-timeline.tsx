@@ -84,7 +84,7 @@ function TimelineChart({ season, drivers }: { season: SeasonResult; drivers: Dri
   const xTicks = timeTicks(first - xPad, last + xPad);
 
   const series: ChartSeries[] = [
-    ...drivers.map((d) => ({ label: d.name, color: d.style.color, shape: d.style.shape, glyph: d.style.glyph, line: 'solid' as const, points: d.points })),
+    ...drivers.map((d) => ({ label: d.name, color: d.style.color, outlined: d.style.outlined, shape: d.style.shape, glyph: d.style.glyph, line: 'solid' as const, points: d.points })),
     ...(setupMarks.length
       ? [{ label: 'Setup change', color: null, shape: 'triangle' as const, glyph: '▼', rotation: 180, verticalLines: 'dashed' as const, points: setupMarks }]
       : []),

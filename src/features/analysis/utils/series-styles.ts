@@ -12,15 +12,17 @@ export type ColourScheme = 'light' | 'dark';
  * Okabe–Ito, most distinct first; black last (it is swapped for the theme's ink, so it shows on the dark theme too).
  * `onDark` is drawn instead on the dark theme, where Okabe–Ito's own colour is too dark to see well: their blue is
  * only 3.3:1 against the dark surface, and it draws the open square, a thin outline. The lighter blue is 5.2:1 there.
+ * `paleOnLight`: under 3:1 against the light theme's white (WCAG 2.1 SC 1.4.11), so on the light theme its
+ * filled marker gets an outline in the theme's ink, keeping its hue.
  */
-export const OKABE_ITO: readonly { name: string; hex: string; onDark?: string }[] = [
-  { name: 'orange', hex: '#E69F00' },
-  { name: 'sky blue', hex: '#56B4E9' },
+export const OKABE_ITO: readonly { name: string; hex: string; onDark?: string; paleOnLight?: boolean }[] = [
+  { name: 'orange', hex: '#E69F00', paleOnLight: true },
+  { name: 'sky blue', hex: '#56B4E9', paleOnLight: true },
   { name: 'bluish green', hex: '#009E73' },
   { name: 'vermillion', hex: '#D55E00' },
   { name: 'blue', hex: '#0072B2', onDark: '#4C8CF5' },
   { name: 'reddish purple', hex: '#CC79A7' },
-  { name: 'yellow', hex: '#F0E442' },
+  { name: 'yellow', hex: '#F0E442', paleOnLight: true },
   { name: 'black', hex: '#000000' },
 ];
 
@@ -53,6 +55,8 @@ export interface SeriesStyle {
   shape: MarkerShape;
   glyph: string;
   shapeName: string;
+  /** Draw the marker's edge in the theme's ink: a pale colour on the light theme. */
+  outlined: boolean;
 }
 
 /**
@@ -69,5 +73,6 @@ export function seriesStyle(index: number, scheme: ColourScheme = 'light'): Seri
     shape: shape.shape,
     glyph: shape.glyph,
     shapeName: shape.name,
+    outlined: scheme === 'light' && colour.paleOnLight === true,
   };
 }

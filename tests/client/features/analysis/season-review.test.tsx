@@ -702,6 +702,19 @@ describe('season review: the dark theme', () => {
     const key = scatter.getByRole('list', { name: 'Series on the chart' });
     expect((within(key).getByText('▢') as HTMLElement).style.color).toBe(cssColour);
   });
+
+  it.each([
+    ['light', '#131a24'],
+    ['dark', '#E69F00'],
+  ])('when the %s theme is on, then the first event’s orange circle is edged in %s: the ink on white, where orange alone is pale', async (theme, edge) => {
+    systemAsksForDark(theme === 'dark');
+    stub();
+    renderPage();
+    const chart = await section('Setup against time and wear').findByRole('img', { name: /Scatter plot of Camber/ });
+
+    const [dataset] = chartGiven(chart.getAttribute('aria-label')!).data.datasets;
+    expect([dataset!.pointStyle, dataset!.pointBackgroundColor, dataset!.pointBorderColor]).toEqual(['circle', '#E69F00', edge]);
+  });
 });
 
 describe('season review: the setting plotted first', () => {

@@ -64,12 +64,17 @@ describe('each colour against the chart\'s background, light and dark', () => {
     for (const s of drawn('dark')) expect(s.ratio, `${s.name} on the dark theme`).toBeGreaterThanOrEqual(3);
   });
 
-  it('when the light theme is on, then every colour is at least 3:1 against white but orange, sky blue and yellow, which only fill solid marks', () => {
+  it('when the light theme is on, then every colour is at least 3:1 against white, or its filled mark is edged in the ink, which is', () => {
     const below = drawn('light').filter((s) => s.ratio < 3);
-    // Okabe–Ito's three palest colours: orange about 2.2:1, sky blue 2.3:1, yellow 1.3:1. Kept as they are on the light theme; the marks they
-    // draw are filled, and every mark also differs by shape.
+    // Okabe–Ito's three palest colours: orange about 2.2:1, sky blue 2.3:1, yellow 1.3:1. Their hue is kept on the light
+    // theme; the marks they draw are filled, and edged in the theme's ink, which carries the contrast.
     expect(below.map((s) => s.name)).toEqual(['orange', 'sky blue', 'yellow']);
     for (const s of below) expect(isHollow(s.shape) || STROKED.includes(s.shape), `${s.name} ${s.shape}`).toBe(false);
+    const outlined = (scheme: ColourScheme) => Array.from({ length: 8 }, (_, i) => seriesStyle(i, scheme)).filter((s) => s.outlined).map((s) => s.colorName);
+    expect(outlined('light')).toEqual(below.map((s) => s.name));
+    expect(contrast(THEMES.light.background, THEMES.light.ink)).toBeGreaterThanOrEqual(3);
+    // On the dark theme every colour stands out by itself: no edge.
+    expect(outlined('dark')).toEqual([]);
   });
 
   it('when the dark theme is on, then blue is drawn lighter and every other colour as on the light theme, which keeps Okabe–Ito\'s own', () => {
