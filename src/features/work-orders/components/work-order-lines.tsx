@@ -82,15 +82,16 @@ const PART_USES = [
 ] as const;
 
 /**
- * Whether a part stays on the car or is used up in the work: two large radio buttons (48 px tall, the whole box
- * tappable), each named by its short label and described by its example.
+ * Whether a part stays on the car or is used up in the work: two large radio buttons side by side (48 px tall, the
+ * whole box tappable), each named by its short label; the chosen one's example shows once under both, so the
+ * choice stays short on a phone. Each radio is still described by its own example, shown or not.
  */
 function PartUseChoice({ usedUp, error, onChange }: { usedUp: boolean; error?: string; onChange: (usedUp: boolean) => void }) {
   const id = useId();
   return (
     <fieldset className="flex min-w-0 flex-col gap-1" aria-describedby={error ? `${id}-error` : undefined}>
       <legend className="mb-1 text-sm font-semibold">After the work, this part is</legend>
-      <div className="grid gap-2 sm:grid-cols-2">
+      <div className="grid grid-cols-2 gap-2">
         {PART_USES.map((use) => {
           const checked = use.usedUp === usedUp;
           const key = use.usedUp ? 'used-up' : 'stays';
@@ -99,7 +100,7 @@ function PartUseChoice({ usedUp, error, onChange }: { usedUp: boolean; error?: s
               key={key}
               className={cn(
                 // The same border width either way, so choosing moves nothing.
-                'flex min-h-12 cursor-pointer items-center gap-3 rounded border-2 px-3 py-2',
+                'flex min-h-12 cursor-pointer items-center gap-2 rounded border-2 px-2 py-1',
                 checked ? 'border-accent bg-accent-soft' : 'border-line-strong bg-surface',
               )}
             >
@@ -112,18 +113,18 @@ function PartUseChoice({ usedUp, error, onChange }: { usedUp: boolean; error?: s
                 aria-describedby={`${id}-${key}-hint`}
                 onChange={() => onChange(use.usedUp)}
               />
-              <span className="flex flex-col">
-                <span id={`${id}-${key}`} className="font-semibold">
-                  {use.label}
-                </span>
-                <span id={`${id}-${key}-hint`} className="text-sm text-ink-muted">
-                  {use.hint}
-                </span>
+              <span id={`${id}-${key}`} className="text-sm font-semibold leading-tight">
+                {use.label}
               </span>
             </label>
           );
         })}
       </div>
+      {PART_USES.map((use) => (
+        <p key={String(use.usedUp)} id={`${id}-${use.usedUp ? 'used-up' : 'stays'}-hint`} hidden={use.usedUp !== usedUp} className="text-sm text-ink-muted">
+          {use.hint}
+        </p>
+      ))}
       {error ? (
         <p id={`${id}-error`} className="text-sm font-semibold text-warning">
           {error}

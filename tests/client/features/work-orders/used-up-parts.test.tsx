@@ -39,6 +39,13 @@ describe('whether a part stays on the car', () => {
     await u.keyboard(' ');
     expect((usedUp as HTMLInputElement).checked).toBe(true);
     expect((stays as HTMLInputElement).checked).toBe(false);
+    // One example under the two choices, the chosen one's, so the choice stays short on a phone.
+    const shown = () => [...partUse(fluid).querySelectorAll('p')].filter((p) => !p.hidden).map((p) => p.textContent);
+    expect(shown()).toEqual(['Like fluid, shop supplies or balancing weights: billed only.']);
+    await u.click(stays);
+    expect(shown()).toEqual(['Fitted, like arms or springs: it goes into the car’s change log.']);
+    usedUp.focus();
+    await u.keyboard(' ');
 
     await u.click(screen.getByRole('button', { name: 'Add a part' }));
     const arm = screen.getByRole('group', { name: 'Line 2' });
