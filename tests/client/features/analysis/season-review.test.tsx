@@ -341,16 +341,21 @@ describe('season review: setup against time and wear', () => {
   });
 });
 
+/** The season review with cold pressure against wear picked, answered with `wear`: the scatter section. */
+async function showPressureWear(wear: ScatterResult) {
+  stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, PRESSURE_TIME), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, wear) });
+  const u = renderPage();
+  const scatter = section('Setup against time and wear');
+  await scatter.findByRole('img', { name: /Scatter plot/ });
+  await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
+  await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+  return scatter;
+}
+
 describe('season review: wear intervals the setting changed within', () => {
   it('when intervals were left out because the setting changed between their tread readings, then the plot says how many and why', async () => {
     const wear: ScatterResult = { ...PRESSURE_WEAR, leftOut: { mixedSetting: 3 } };
-    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, PRESSURE_TIME), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, wear) });
-    const u = renderPage();
-    const scatter = section('Setup against time and wear');
-    await scatter.findByRole('img', { name: /Scatter plot/ });
-
-    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
-    await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+    const scatter = await showPressureWear(wear);
     const note = await scatter.findByText(/^3 wear intervals left out:/);
     expect(note.closest('p')?.textContent).toBe(
       '3 wear intervals left out: this setting was changed between their two tread readings, so their runs were on more than one value and the wear cannot be credited to any one of them.',
@@ -360,13 +365,7 @@ describe('season review: wear intervals the setting changed within', () => {
 
   it('when every interval was left out, then the empty plot still says how many were and why, in the singular for one', async () => {
     const wear: ScatterResult = { ...PRESSURE_WEAR, points: [], n: 0, leftOut: { mixedSetting: 1 } };
-    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, PRESSURE_TIME), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, wear) });
-    const u = renderPage();
-    const scatter = section('Setup against time and wear');
-    await scatter.findByRole('img', { name: /Scatter plot/ });
-
-    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
-    await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+    const scatter = await showPressureWear(wear);
     const note = await scatter.findByText(/^1 wear interval left out:/);
     expect(note.closest('p')?.textContent).toMatch(/changed between its two tread readings, so its runs were on more than one value/);
     expect(scatter.getByText(/Not enough data yet: no points/)).toBeTruthy();
@@ -376,13 +375,7 @@ describe('season review: wear intervals the setting changed within', () => {
 describe('season review: settings that changed together', () => {
   it('when other settings moved with the plotted one, then the plot names each with its r, and says to change one at a time', async () => {
     const wear: ScatterResult = { ...PRESSURE_WEAR, alsoMoved: [{ field: 'toeMm', r: -0.98 }, { field: 'camberDeg', r: 0.81 }] };
-    stub({ [scatterPath('coldPressure', 'time')]: jsonResponse(200, PRESSURE_TIME), [scatterPath('coldPressure', 'wear')]: jsonResponse(200, wear) });
-    const u = renderPage();
-    const scatter = section('Setup against time and wear');
-    await scatter.findByRole('img', { name: /Scatter plot/ });
-
-    await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
-    await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
+    const scatter = await showPressureWear(wear);
     const note = await scatter.findByText(/^Changed together:/);
     expect(note.closest('p')?.textContent).toBe(
       "Changed together: across these points toe (r = −0.98) and camber (r = 0.81) moved with cold pressure, so a trend here may be theirs as much as cold pressure's. To tell them apart, change one at a time.",
