@@ -28,12 +28,12 @@ export const SEASON_CSV_COLUMNS = [
   'event_date', 'event_name', 'venue', 'run_number', 'driver', 'status', 'raw_time_s', 'cones', 'cone_penalty_s', 'adjusted_time_s',
   'recorded_at', 'setup_label', 'setup_effective_from',
   ...CORNERS.flatMap((c) => CORNER_COLUMNS.map(([, name]) => `${c}_${name}`)),
-  'front_anti_roll_bar', 'rear_anti_roll_bar', 'run_notes',
+  'front_anti_roll_bar', 'rear_anti_roll_bar', 'run_notes', 'tyre_set',
 ] as const;
 
 type Cell = string | number | null;
 
-function rowOf(run: Run, event: EventRow, setup: Setup | undefined): Cell[] {
+function rowOf(run: Run, event: EventRow, setup: Setup | undefined, tyreSet: string | null): Cell[] {
   const values: Record<string, Cell> = {
     event_date: event.date,
     event_name: event.name,
@@ -52,6 +52,7 @@ function rowOf(run: Run, event: EventRow, setup: Setup | undefined): Cell[] {
     front_anti_roll_bar: setup?.axles.front.antiRollBar ?? null,
     rear_anti_roll_bar: setup?.axles.rear.antiRollBar ?? null,
     run_notes: run.notes,
+    tyre_set: tyreSet,
   };
   for (const c of CORNERS) for (const [field, name] of CORNER_COLUMNS) values[`${c}_${name}`] = setup?.corners[c]?.[field] ?? null;
   return SEASON_CSV_COLUMNS.map((col) => values[col] ?? null);
@@ -66,14 +67,15 @@ interface EventRow {
 }
 
 /**
- * One row per run with the setup in force when it was recorded (RFC 4180: CRLF line ends, quotes
- * doubled). A text cell that a spreadsheet would read as a formula (= + - @, tab, carriage return
- * first) gets a leading apostrophe (OWASP, "CSV Injection"); numbers stay numbers, negative camber too.
+ * One row per run with the setup in force when it was recorded and the tyre set then on the car, by
+ * run id (RFC 4180: CRLF line ends, quotes doubled). A text cell that a spreadsheet would read as a
+ * formula (= + - @, tab, carriage return first) gets a leading apostrophe (OWASP, "CSV Injection");
+ * numbers stay numbers, negative camber too.
  */
-export function seasonCsv(runs: readonly Run[], events: readonly EventRow[], setups: readonly Setup[]): string {
+export function seasonCsv(runs: readonly Run[], events: readonly EventRow[], setups: readonly Setup[], tyreSetOf: ReadonlyMap<string, string> = new Map()): string {
   const eventOf = new Map(events.map((e) => [e.id, e]));
   const setupOf = new Map(setups.map((s) => [s.id, s]));
-  const rows = runs.map((r) => rowOf(r, eventOf.get(r.eventId)!, r.setupId ? setupOf.get(r.setupId) : undefined));
+  const rows = runs.map((r) => rowOf(r, eventOf.get(r.eventId)!, r.setupId ? setupOf.get(r.setupId) : undefined, tyreSetOf.get(r.id) ?? null));
   // A byte-order mark, so spreadsheet programs read the file as UTF-8 (names with accents survive).
   return `\uFEFF${Papa.unparse({ fields: [...SEASON_CSV_COLUMNS], data: rows }, { escapeFormulae: true, newline: '\r\n' })}\r\n`;
 }
@@ -86,5 +88,10 @@ export async function exportSeasonCsv(ds: DataSource, user: User, carId: string)
   const events: EventRow[] = runs.length
     ? await ds.query('SELECT id, date::text AS date, name, venue, cone_penalty_sec FROM events WHERE id = ANY($1)', [[...new Set(runs.map((r) => r.eventId))]])
     : [];
-  return { csv: seasonCsv(runs, events, setups), fileName: `${seasonFileName(car.name, events.map((e) => e.date))}.csv` };
+  const onSet: { run_id: string; label: string }[] = await ds.query(
+    'SELECT r.run_id, s.label FROM runs_with_tyre_set r JOIN tyre_sets s ON s.id = r.tyre_set_id WHERE r.car_id = $1',
+    [carId],
+  );
+  const tyreSetOf = new Map(onSet.map((r) => [r.run_id, r.label]));
+  return { csv: seasonCsv(runs, events, setups, tyreSetOf), fileName: `${seasonFileName(car.name, events.map((e) => e.date))}.csv` };
 }

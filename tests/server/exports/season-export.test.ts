@@ -318,7 +318,8 @@ describe('GET /api/cars/:carId/export.csv', () => {
     expect(meta.fields).toContain('lf_camber_deg');
     expect(meta.fields).toContain('rr_spring_rate_n_per_mm');
     expect(meta.fields).toContain('lr_cold_pressure_kpa');
-    expect(meta.fields).toHaveLength(13 + 4 * 9 + 3);
+    expect(meta.fields).toHaveLength(13 + 4 * 9 + 4);
+    expect(meta.fields!.at(-1)).toBe('tyre_set');
     expect(data).toHaveLength(4);
     expect(res.text.split('\r\n').length).toBe(6); // header, 4 rows, and the final line end (RFC 4180 CRLF)
 
@@ -337,6 +338,8 @@ describe('GET /api/cars/:carId/export.csv', () => {
       front_anti_roll_bar: 'hole 2', rear_anti_roll_bar: 'disconnected',
     });
     expect(q.lf!.camberDeg).toBe(-1.8);
+    // Set A, fitted as bought on 1 March, was on the car for every run.
+    expect(new Set(data.map((r) => r.tyre_set))).toEqual(new Set(['Set A']));
     // Run 1 (10:00) was still on the base snapshot; the DNF has no time; round 2 sits on "Round 2 base".
     expect(data.find((r) => r.run_number === '1' && r.event_date === '2026-04-12')).toMatchObject({ setup_label: 'Baseline', lf_camber_deg: '-1.5' });
     expect(data.find((r) => r.run_number === '3')).toMatchObject({ status: 'dnf', raw_time_s: '', adjusted_time_s: '', run_notes: 'Spun at the slalom' });
@@ -361,6 +364,8 @@ describe('GET /api/cars/:carId/export.csv', () => {
       lf_camber_deg: '-1.5',
     });
     expect(row.run_notes).toBe('Tab first'); // notes are trimmed when saved, so the tab never reaches the file
+    // No tyre set recorded: the cell is empty, not a guess.
+    expect(row.tyre_set).toBe('');
     expect(res.text).toContain('"\'=HYPERLINK(""http://example.com"",""Results"")"');
     expect(res.text).toContain('"Lot ""B"", north"');
   });
