@@ -26,9 +26,17 @@ function defaultMinDepthMm(units: UnitPreferences): number {
 function ChangesCompare({ carId }: { carId: string }) {
   const changes = useChanges(carId);
   const setups = useSetups(carId);
+  const { data: car } = useCar(carId);
   if (changes.isPending || setups.isPending) return <p className="text-ink-muted">Loading the changes…</p>;
   if (changes.isError || setups.isError) return <EmptyState message="The changes could not be loaded. Try again shortly." />;
-  return <CompareSection carId={carId} changes={changes.data.items} setups={setups.data.items} />;
+  return (
+    <CompareSection
+      carId={carId}
+      changes={changes.data.items}
+      setups={setups.data.items}
+      renderChanges={(list) => <SetupChangeList changes={list} adjusters={car?.damperAdjusters} />}
+    />
+  );
 }
 
 function SeasonSections({ carId }: { carId: string }) {

@@ -4,13 +4,15 @@ import { formatFixed, formatP } from '@shared/calc/display';
 import { unitFor, type UnitPreferences } from '@shared/calc/units.calc';
 import { CLEAR_P, HINT_P, MINIMUM_READINGS_PER_GROUP as MIN_INTERVALS, plural, verdict } from '@shared/calc/comparison.calc';
 import { CORNERS, type Corner } from '@shared/season/corners';
-import type { Setup } from '@shared/season/setup.schema';
+import type { Setup, SetupChange } from '@shared/season/setup.schema';
+import { diffSetups } from '@shared/season/setup-diff';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { EmptyState } from '@/components/ui/empty-state';
 import { SelectField } from '@/components/ui/select-field';
 import { formatDateTime, formatDay } from '@/lib/dates';
 import { cn } from '@/lib/cn';
 import { useUnits } from '@/lib/units-context';
+import { setupInForce } from '@/features/setups/utils/setup-views';
 import { useCompare, type CompareSplit } from '../api/get-compare';
 import { useMediaQuery } from '../hooks/use-media-query';
 import { BETWEEN_EVENTS_ADVICE, LOCATION_WORDS, wearRateInUnit, wearRateNumber, wearRateSuffix } from '../utils/analysis-format';
@@ -142,6 +144,32 @@ function StackedCorners({ label, renderCorner }: { label: string; renderCorner: 
  * Time across the change, from the days a driver ran on both sides of it. A change made between events has no
  * such day, and its numbers would only say how consistent each day was: the card says so instead of showing them.
  */
+/**
+ * What else changed on the car at the split: every value of the setup in force from it against the one before,
+ * so a camber change that came with new toe says so. Both sides' wear and time carry all of them together.
+ */
+function ChangedAtSplit({ splitAt, setups, renderChanges }: { splitAt: string; setups: readonly SetupOption[]; renderChanges: (changes: SetupChange[]) => ReactNode }) {
+  const after = setupInForce(setups, splitAt);
+  const before = setupInForce(setups, new Date(Date.parse(splitAt) - 1).toISOString());
+  const changes = before && after && before.id !== after.id ? diffSetups(before, after) : [];
+  if (changes.length === 0) return null;
+  // Camber at two corners is one setting.
+  const settings = new Set(changes.map((c) => c.field)).size;
+  return (
+    <div className="flex flex-col gap-2 rounded border border-line p-3">
+      <p className="font-bold">
+        What changed on the car here <span className="font-normal text-ink-muted">({before!.label} → {after!.label})</span>
+      </p>
+      {renderChanges(changes)}
+      <p className="text-sm text-ink-muted">
+        {settings === 1
+          ? 'One setting changed, so the numbers below are about it alone.'
+          : `${settings} settings changed together: the numbers below are about all of them at once, not any one alone.`}
+      </p>
+    </div>
+  );
+}
+
 function TimeAcross({ result }: { result: CompareResult }) {
   const { days, leftOut } = result.timeScope;
   const title = "Time: % off the day's best, per run";
@@ -174,7 +202,7 @@ function TimeAcross({ result }: { result: CompareResult }) {
 /** Wide enough for the car's four corners side by side with each still comfortably readable. */
 const CORNERS_SIDE_BY_SIDE = '(min-width: 48rem)';
 
-function CompareResultView({ carId, split }: { carId: string; split: CompareSplit }) {
+function CompareResultView({ carId, split, setups, renderChanges }: { carId: string; split: CompareSplit; setups: readonly SetupOption[]; renderChanges: (changes: SetupChange[]) => ReactNode }) {
   const units = useUnits();
   const sideBySide = useMediaQuery(CORNERS_SIDE_BY_SIDE);
   const compare = useCompare(carId, split);
@@ -207,6 +235,7 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
         called a clear change, up to {HINT_P} a hint. With a dozen rows below, one may read &ldquo;clear&rdquo; by chance alone:
         trust a change that shows at more than one corner, or that holds over the next events.
       </p>
+      <ChangedAtSplit splitAt={result.splitAt} setups={setups} renderChanges={renderChanges} />
       {wearToCompare ? (
         sideBySide ? (
           <CornerGrid label={label} renderCorner={renderCorner} />
@@ -226,7 +255,7 @@ function CompareResultView({ carId, split }: { carId: string; split: CompareSpli
 }
 
 /** What the picker needs of a setup snapshot: each one after the first is a change to compare across. */
-export type SetupOption = Pick<Setup, 'id' | 'label' | 'effectiveFrom'>;
+export type SetupOption = Pick<Setup, 'id' | 'label' | 'effectiveFrom' | 'createdAt' | 'corners' | 'axles'>;
 
 interface SplitOption {
   value: string;
@@ -253,7 +282,18 @@ function splitOptions(changes: readonly ChangeOption[], setups: readonly SetupOp
  * Wear and time before and after one change: an entry of the change log (a part fitted, an alignment), or a new
  * setup (a quick change between heats, a shop's handover).
  */
-export function CompareSection({ carId, changes, setups }: { carId: string; changes: readonly ChangeOption[]; setups: readonly SetupOption[] }) {
+export function CompareSection({
+  carId,
+  changes,
+  setups,
+  renderChanges,
+}: {
+  carId: string;
+  changes: readonly ChangeOption[];
+  setups: readonly SetupOption[];
+  /** Draws a list of setup changes (the setups' own list, with the car's adjusters). */
+  renderChanges: (changes: SetupChange[]) => ReactNode;
+}) {
   const [picked, setPicked] = useState<string | null>(null);
   const options = splitOptions(changes, setups);
   // First the latest log entry about camber or the front, else the newest change of any kind.
@@ -273,7 +313,7 @@ export function CompareSection({ carId, changes, setups }: { carId: string; chan
         value={chosen.value}
         onChange={(e) => setPicked(e.target.value)}
       />
-      <CompareResultView carId={carId} split={chosen.split} />
+      <CompareResultView carId={carId} split={chosen.split} setups={setups} renderChanges={renderChanges} />
     </div>
   );
 }

@@ -595,6 +595,37 @@ describe('season review: before and after a change', () => {
     expect(compare.getByText('(24 runs)')).toBeTruthy();
   });
 
+  it('when the setup changed at the split, then the card lists what changed, and says the numbers are about all of it together', async () => {
+    const arms = {
+      ...BASE_SETUP,
+      id: '5aaaaaaa-3333-4333-8333-333333333333',
+      label: 'Camber arms',
+      effectiveFrom: '2026-05-20T00:00:00.000Z',
+      corners: { ...BASE_SETUP.corners, lf: { ...BASE_SETUP.corners.lf, camberDeg: -2.4, toeMm: 0 }, rf: { ...BASE_SETUP.corners.rf, camberDeg: -2.4, toeMm: 0 } },
+    };
+    stub({ [`GET ${CAR_PATH}/setups`]: list([QUICK_CHANGE, arms, BASE_SETUP]) });
+    renderPage();
+    const compare = section('Before and after a change');
+    const heading = await compare.findByText('What changed on the car here');
+    const card = heading.closest('div.rounded') as HTMLElement;
+    expect(heading.textContent).toBe('What changed on the car here (Spring baseline → Camber arms)');
+    // The setups' own list of changes: camber and toe at the front, nothing at the rear.
+    const lines = within(card).getAllByRole('listitem').map((li) => li.textContent);
+    expect(lines).toHaveLength(2);
+    expect(lines.find((l) => /camber/i.test(l!))).toMatch(/−1\.20° → −2\.40°/);
+    expect(lines.find((l) => /toe/i.test(l!))).toBe('Front toe▲ 0.5 mm(−0.5 mm → 0.0 mm)');
+    expect(card.textContent).not.toMatch(/clicks|cold pressure/i);
+    expect(within(card).getByText('2 settings changed together: the numbers below are about all of them at once, not any one alone.')).toBeTruthy();
+  });
+
+  it('when the setup did not change at the split, then there is no such card', async () => {
+    stub();
+    renderPage();
+    const compare = section('Before and after a change');
+    await compare.findByText('Camber: LF inner-edge wear fell by 0.015 mm per run, give or take 0.007.');
+    expect(compare.queryByText(/What changed on the car here/)).toBeNull();
+  });
+
   it('when the time comparison shows, then it says which days it comes from, how many runs were left out, and where to judge a change made between events', async () => {
     stub();
     renderPage();
