@@ -267,6 +267,17 @@ describe('trackside on a phone (390×844)', () => {
     await screenshot(page, 'trackside-quick-change');
     await form.getByRole('button', { name: 'Save quick change' }).click();
     await page.getByText(/Setup now:/).waitFor();
+    // The confirmation shows where it covers none of the next run's taps: the Save bar is free while it is up.
+    const toast = page.getByText('Quick change saved').first();
+    await toast.waitFor();
+    await page.evaluate(() => window.scrollTo(0, 0));
+    for (const name of [/^Save run/, 'More: Cones', 'Less: Cones']) {
+      const free = await page.getByRole('button', { name }).evaluate((button) => {
+        const box = button.getBoundingClientRect();
+        return button.contains(document.elementFromPoint(box.x + box.width / 2, box.y + box.height / 2));
+      });
+      expect(free, `a tap on ${String(name)} while the toast shows`).toBe(true);
+    }
     const label = (await page.getByText(/Setup now:/).locator('..').textContent()) ?? '';
     expect(label).toMatch(/rear/i);
     await logRun('46.400');

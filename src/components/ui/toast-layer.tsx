@@ -51,7 +51,11 @@ function ToastItem({ message }: { message: ToastMessage }) {
   );
 }
 
-/** Renders the toast store's messages. Sits above the phone's bottom bar. */
+/**
+ * Renders the toast store's messages. On a phone they sit under the header, away from the bottom third where the
+ * page's own actions are (a Save bar, the keypad): a confirmation never takes the next tap. On a wide screen, at
+ * the bottom right.
+ */
 function ToastList() {
   const toasts = useSyncExternalStore(subscribeToToasts, getToasts, getToasts);
   return toasts.map((message) => <ToastItem key={message.id} message={message} />);
@@ -60,9 +64,9 @@ function ToastList() {
 /** Radix Toast around the store's messages; loaded with the first toast (see toaster.tsx). */
 export function ToastLayer() {
   return (
-    <Toast.Provider swipeDirection="down" label="Notifications">
+    <Toast.Provider swipeDirection="right" label="Notifications">
       <ToastList />
-      <Toast.Viewport className="fixed inset-x-0 bottom-20 z-50 mx-auto flex max-w-form flex-col gap-2 px-4 outline-none md:bottom-6 md:right-6 md:left-auto md:mx-0 md:w-96 md:px-0" />
+      <Toast.Viewport className="fixed inset-x-0 top-[calc(3.5rem+env(safe-area-inset-top))] z-50 mx-auto flex max-w-form flex-col gap-2 px-4 pt-2 outline-none md:top-auto md:bottom-6 md:right-6 md:left-auto md:mx-0 md:w-96 md:px-0 md:pt-0" />
     </Toast.Provider>
   );
 }
