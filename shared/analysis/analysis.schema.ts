@@ -155,7 +155,10 @@ export interface SeasonResult {
     mmPerRun: number | null;
     r2: number | null;
     n: number;
+    /** Runs left now: those left at the latest reading, less the runs made on the set since it. */
     runsLeft: number | null;
+    /** Runs made on the set since its latest reading (0 without a reading). */
+    runsSinceReading: number;
     /**
      * The latest change of camber, toe or caster at the worst spot's corner while this tyre was read: `since`, the
      * line starts at the last reading before it; `whole`, too few readings since, so every reading is used.

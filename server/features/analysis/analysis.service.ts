@@ -428,6 +428,9 @@ export async function seasonSummary(ds: DataSource, user: User, carId: string, m
     const fitted: 'since' | 'whole' = change && since.length >= 2 ? 'since' : 'whole';
     const points = (fitted === 'since' ? since : ofTyre).map(toPoint);
     const rate = wearRateMmPerRun(points);
+    // Runs made on the set since its latest reading wear it further: each takes one run off what was left then.
+    const runsSinceReading = latest ? runsOnSet.filter((x) => x.recordedAt > latest.takenAt).length : 0;
+    const leftAtReading = rate && worst ? runsLeft({ depthNowMm: worst.depthMm, minimumDepthMm: minDepthMm, mmPerRun: rate.mmPerRun }) : null;
     return {
       alignmentChange: change && { ...change, fitted },
       tyreSetId: set.id,
@@ -438,7 +441,8 @@ export async function seasonSummary(ds: DataSource, user: User, carId: string, m
       mmPerRun: rate?.mmPerRun ?? null,
       r2: rate?.r2 ?? null,
       n: points.length,
-      runsLeft: rate && worst ? runsLeft({ depthNowMm: worst.depthMm, minimumDepthMm: minDepthMm, mmPerRun: rate.mmPerRun }) : null,
+      runsSinceReading,
+      runsLeft: leftAtReading === null ? null : Math.max(0, leftAtReading - runsSinceReading),
     };
   });
   return { carId, events, setupChanges, changeLog, tyreLife };

@@ -368,6 +368,17 @@ describe('GET /api/cars/:carId/season', () => {
     expect(life.mmPerRun).toBeCloseTo(0.1, 12);
     // Runs left = floor((6.7 − 1.6) / 0.1) = 51 (common practice).
     expect(life.runsLeft).toBe(51);
+    expect(life.runsSinceReading).toBe(0);
+
+    // Two more runs on Set A after its reading, then Set B on again for one: 51 − 2 = 49 left on A.
+    await postRun(d.c, d.carId, d.eventId, { runNumber: 7, recordedAt: '2026-04-12T12:40:00Z' });
+    await postRun(d.c, d.carId, d.eventId, { runNumber: 8, recordedAt: '2026-04-12T12:50:00Z' });
+    await fit(b, '2026-04-12T13:00:00Z');
+    await postRun(d.c, d.carId, d.eventId, { runNumber: 9, recordedAt: '2026-04-12T13:10:00Z' });
+    const later = (await d.c.get(`/api/cars/${d.carId}/season`)).body.tyreLife.find((l: { tyreSetId: string }) => l.tyreSetId === a);
+    expect(later.runsSinceReading).toBe(2);
+    expect(later.runsLeft).toBe(49);
+    expect(later.mmPerRun).toBeCloseTo(0.1, 12);
   });
 
   it('when a deeper minimum is asked for, then fewer runs are left', async () => {

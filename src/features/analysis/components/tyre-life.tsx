@@ -40,6 +40,7 @@ function TyreSetLife({ entry }: { entry: TyreLifeEntry }) {
   else if (entry.runsLeft === null) runsLeft = 'no wear measured between readings yet, so no estimate';
   else if (entry.runsLeft === 0) runsLeft = `none: the worst spot is at or below ${min}`;
   else runsLeft = `about ${entry.runsLeft} ${entry.runsLeft === 1 ? 'run' : 'runs'} (a straight-line estimate)`;
+  const since = entry.runsSinceReading ?? 0;
 
   return (
     <article aria-labelledby={headingId} className="flex flex-col gap-2 rounded border border-line p-3">
@@ -56,6 +57,12 @@ function TyreSetLife({ entry }: { entry: TyreLifeEntry }) {
         <Row term="Wear at that spot">{entry.mmPerRun === null ? NOT_ENOUGH : formatWearRate(entry.mmPerRun, units)}</Row>
         <Row term={`Runs left to ${min}`} warn={entry.runsLeft === 0}>
           {runsLeft}
+          {since > 0 && entry.runsLeft !== null ? (
+            <span className="text-ink-muted">
+              {' '}
+              — after the {since === 1 ? 'run' : `${since} runs`} made on this set since the reading. Read the tread again to check.
+            </span>
+          ) : null}
         </Row>
         <Row term="Fit">
           {entry.n} {entry.n === 1 ? 'reading' : 'readings'}
@@ -135,8 +142,9 @@ export function TyreLife({
     <div className="flex flex-col gap-4">
       <MinDepthForm minDepthMm={minDepthMm} onChange={onMinDepthChange} isUpdating={isUpdating} />
       <p className="text-sm text-ink-muted">
-        The worst spot&apos;s depth is fitted against the car&apos;s runs with a straight line; runs left = (depth now − the
-        depth above) ÷ wear per run. n is the number of readings, r² how well the line fits.
+        The worst spot&apos;s depth is fitted against the runs made on the set with a straight line; runs left = (depth at
+        the latest reading − the depth above) ÷ wear per run, less the runs made since. The fit gives the number of
+        readings and r², how well the line fits.
       </p>
       {tyreLife.length === 0 ? (
         <EmptyState message="No tyre sets recorded for this car yet." />

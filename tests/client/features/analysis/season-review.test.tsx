@@ -120,6 +120,7 @@ function tyreLife(partial: Partial<SeasonResult['tyreLife'][number]> & Pick<Seas
     n: 4,
     runsLeft: 32,
     alignmentChange: null,
+    runsSinceReading: 0,
     ...partial,
   };
 }
@@ -830,6 +831,17 @@ describe('season review: tyre life', () => {
     const setB = life.getByRole('article', { name: 'Set B — fresh' });
     expect(within(setB).getByText(/^The alignment at the left front changed on/).textContent).toMatch(/too few readings have been taken since: the line goes through every reading/);
     expect(within(life.getByRole('article', { name: 'Set C — spare' })).queryByText(/alignment/)).toBeNull();
+  });
+
+  it('when runs were made on a set since its latest reading, then runs left says how many it took off, and asks for a new reading', async () => {
+    const answer = season(1.6, 24);
+    answer.tyreLife = [tyreLife({ tyreSetId: IDS.tyreSet, label: 'Set A — 205/50R15', runsLeft: 24, runsSinceReading: 5 })];
+    stub({ [`GET ${CAR_PATH}/season?minDepthMm=1.6`]: jsonResponse(200, answer) });
+    renderPage();
+    const setA = within(await section('Tyre life').findByRole('article', { name: 'Set A — 205/50R15' }));
+    expect(setA.getByText(/^about 24 runs/).closest('dd')!.textContent).toBe(
+      'about 24 runs (a straight-line estimate) — after the 5 runs made on this set since the reading. Read the tread again to check.',
+    );
   });
 
   it('when a new minimum depth is entered, then the season is fetched again with it and runs left follow', async () => {
