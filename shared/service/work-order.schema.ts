@@ -51,7 +51,7 @@ export const workOrderListQuerySchema = z.strictObject({ status: z.optional(z.en
 
 /**
  * A part (quantity × unit price) or labour (hours × hourly rate). A part either stays on the car (camber arms, springs)
- * or is used up in the work (brake fluid, shop supplies, balancing weights): both are billed, only parts that stay
+ * or is used up in the work (brake fluid, thread locker, shop supplies): both are billed, only parts that stay
  * become changes on the car. Labour is never used up.
  */
 export const workOrderLineSchema = z

@@ -23,7 +23,7 @@ export interface LineTotal {
 export const LINE_KIND_WORDS: Record<LineKind, string> = { part: 'Part', labour: 'Labour' };
 
 /** How a used-up part reads beside its description, so nobody takes it for something fitted to the car. */
-const USED_UP_MARK = ' (used up, not fitted)';
+const USED_UP_MARK = ' (used up in the work)';
 
 const WEIGHT_CLASSES = { normal: 'font-semibold', strong: 'font-bold', total: 'text-lg font-extrabold' } as const;
 

@@ -53,7 +53,7 @@ const PERCENT_SCALE: Scale = { number: (v) => formatFixed(v, 2), suffix: ' %' };
 
 function statsText(s: SampleStats, scale: Scale, counted: string): string {
   if (s.n === 0 || s.mean === null) return `no ${counted}s yet`;
-  if (s.sd === null) return `${scale.number(s.mean)}${scale.suffix} (one ${counted}: no spread to show)`;
+  if (s.sd === null) return `${scale.number(s.mean)}${scale.suffix} — no spread with one ${counted}`;
   return `${scale.number(s.mean)} ± ${scale.number(s.sd)}${scale.suffix}`;
 }
 
@@ -61,7 +61,8 @@ function differenceText(c: Comparison, scale: Scale): string | null {
   if (c.difference === null) return null;
   const arrow = c.difference > 0 ? '▲' : c.difference < 0 ? '▼' : '±';
   const parts = [`Change ${arrow} ${scale.number(Math.abs(c.difference))}${scale.suffix}`];
-  if (c.pValue !== null) parts.push(formatP(c.pValue));
+  // p is only said beside a verdict that weighs it: with too few readings the verdict is "not enough data yet".
+  if (c.pValue !== null && c.enough) parts.push(formatP(c.pValue));
   return parts.join(' · ');
 }
 

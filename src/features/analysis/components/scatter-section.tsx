@@ -109,7 +109,7 @@ function Caption({ result }: { result: ScatterResult }) {
           </span>
         </>
       ) : (
-        <>not enough data yet for a fitted line (it needs at least 3 points and more than one setting)</>
+        <>not enough data yet for a fitted line (it needs at least 3 points and more than one value of the setting)</>
       )}
     </p>
   );

@@ -78,7 +78,7 @@ export function LinesTable({ workOrder, currency }: { workOrder: WorkOrder; curr
 
 const PART_USES = [
   { usedUp: false, label: 'Stays on the car', hint: 'Fitted, like arms or springs: it goes into the car’s change log.' },
-  { usedUp: true, label: 'Used up in the work', hint: 'Like fluid, shop supplies or balancing weights: billed only.' },
+  { usedUp: true, label: 'Used up in the work', hint: 'Like brake fluid, thread locker or shop supplies: billed only.' },
 ] as const;
 
 /**

@@ -619,6 +619,18 @@ describe('season review: before and after a change', () => {
     expect(within(card).getByText('2 settings changed together: the numbers below are about all of them at once, not any one alone.')).toBeTruthy();
   });
 
+  it('when a side has too few readings, then its change shows no p beside "not enough data yet", and one run says once that it has no spread', async () => {
+    const answer = compareAnswer(CHANGE_CAMBER.id, CHANGE_CAMBER.what, 'Camber');
+    answer.time = { ...comparison([2, 0.9, 0.2], [1, 0.7, 0], 'Not enough data yet: 2 runs before and 1 after.', false), after: { n: 1, mean: 0.7, sd: null }, pValue: 0.15 };
+    stub({ [`GET ${CAR_PATH}/analysis/compare?changeId=${CHANGE_CAMBER.id}`]: jsonResponse(200, answer) });
+    renderPage();
+    const compare = section('Before and after a change');
+    const verdict = await compare.findByText('Not enough data yet: 2 runs before and 1 after.');
+    const card = verdict.closest('div.rounded') as HTMLElement;
+    expect(card.textContent).not.toMatch(/p = /);
+    expect(within(card).getByText(/^0\.70 %/).closest('dd')!.textContent).toBe('0.70 % — no spread with one run (1 run)');
+  });
+
   it('when the setup did not change at the split, then there is no such card', async () => {
     stub();
     renderPage();

@@ -41,7 +41,7 @@ describe('whether a part stays on the car', () => {
     expect((stays as HTMLInputElement).checked).toBe(false);
     // One example under the two choices, the chosen one's, so the choice stays short on a phone.
     const shown = () => [...partUse(fluid).querySelectorAll('p')].filter((p) => !p.hidden).map((p) => p.textContent);
-    expect(shown()).toEqual(['Like fluid, shop supplies or balancing weights: billed only.']);
+    expect(shown()).toEqual(['Like brake fluid, thread locker or shop supplies: billed only.']);
     await u.click(stays);
     expect(shown()).toEqual(['Fitted, like arms or springs: it goes into the car’s change log.']);
     usedUp.focus();
@@ -88,7 +88,7 @@ describe('whether a part stays on the car', () => {
     stubDriver({ [`GET ${WO}`]: jsonResponse(200, workOrder({ ...WITH_FLUID, status: 'closed', handoverAt: '2026-06-10T16:30:00.000Z' })) });
     renderApp(WORK_ORDER_PATH);
     const table = await screen.findByRole('table', { name: 'Parts and labour' });
-    expect(within(table).getByRole('row', { name: /Brake fluid/ }).textContent).toContain('used up, not fitted');
+    expect(within(table).getByRole('row', { name: /Brake fluid/ }).textContent).toContain('used up in the work');
     expect(within(table).getByRole('row', { name: /Rear toe arm/ }).textContent).not.toContain('used up');
     expect(screen.getByText(/the car’s change log lists only the parts fitted/)).toBeTruthy();
   });

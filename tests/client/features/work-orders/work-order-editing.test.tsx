@@ -397,7 +397,7 @@ describe('the invoice for the driver', () => {
     });
     renderApp(PATH);
     const table = await screen.findByRole('table', { name: 'Invoice lines' });
-    expect(within(table).getByRole('cell', { name: 'Part: Brake fluid, 1 l (used up, not fitted)' })).toBeTruthy();
+    expect(within(table).getByRole('cell', { name: 'Part: Brake fluid, 1 l (used up in the work)' })).toBeTruthy();
     expect(within(table).getByRole('cell', { name: 'Part: Rear toe arm' })).toBeTruthy();
     expect(within(table).getByRole('cell', { name: 'Labour: Bleed brakes' })).toBeTruthy();
   });
