@@ -206,13 +206,13 @@ export async function seedDemoSeason(m: EntityManager, people: DemoPeople): Prom
       next.lf.cornerWeightKg = 256; next.rf.cornerWeightKg = 251; next.lr.cornerWeightKg = 268; next.rr.cornerWeightKg = 269;
       roadsterSetup = await snapshot(roadster.id, 'Camber arms fitted, aligned and corner-balanced', armsFitted, next, {
         createdBy: people.shopStaff, derivedFromId: roadsterSetup, arb: ['hole 2 of 3', 'hole 1 of 3'],
-        notes: 'Adjustable front camber arms; −2.4° front, zero front toe. Corner-balanced with driver in, half tank: cross 50.0 %.',
+        notes: 'Adjustable front camber arms; −2.4° front, zero front toe. Corner-balanced with driver in, half tank: cross 50.3 %.',
       });
       roadsterValues = next;
       for (const entry of [
         { what: 'Front adjustable camber arms fitted', location: 'front' as const, notes: 'Fitted by Kettle Lane Chassis Works.' },
         { what: 'Alignment: front camber −2.4°, front toe zero', location: 'front' as const, notes: null },
-        { what: 'Corner balance with driver in', location: 'car' as const, notes: 'Cross weight 50.0 %.' },
+        { what: 'Corner balance with driver in', location: 'car' as const, notes: 'Cross weight 50.3 %.' },
       ]) {
         await m.getRepository(ChangeLogEntity).save({ carId: roadster.id, changedOn: DEMO_CAMBER_ARMS_DATE, setupId: roadsterSetup, createdBy: people.shopStaff, ...entry } as ChangeLogEntity);
       }

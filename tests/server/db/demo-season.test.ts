@@ -114,6 +114,18 @@ describe('the demo season', () => {
     expect(changes).toHaveLength(1);
   });
 
+  it('when the corner balance is read, then the cross weight its notes give is the one its corner weights make', async () => {
+    const [balance] = await q<{ notes: string; setup_id: string }>(a.ds, `SELECT notes, setup_id FROM change_log WHERE what = 'Corner balance with driver in'`);
+    const kg = Object.fromEntries(
+      (await q<{ corner: string; kg: number }>(a.ds, 'SELECT corner, corner_weight_kg AS kg FROM setup_corners WHERE setup_id = $1', [balance!.setup_id])).map((c) => [c.corner, c.kg]),
+    );
+    // Cross weight = (LF + RR) / total × 100 (common practice), to the one decimal the notes give.
+    const cross = ((kg.lf! + kg.rr!) / (kg.lf! + kg.rf! + kg.lr! + kg.rr!)) * 100;
+    expect(balance!.notes).toBe(`Cross weight ${cross.toFixed(1)} %.`);
+    const [snapshot] = await q<{ notes: string }>(a.ds, 'SELECT notes FROM setup_snapshots WHERE id = $1', [balance!.setup_id]);
+    expect(snapshot!.notes).toContain(`cross ${cross.toFixed(1)} %`);
+  });
+
   it('when the two SR cars are compared, then Gooseberry is the quicker in the spring and Pebble once its camber arms are on', async () => {
     // Best adjusted time per car and event: raw + 2 s a cone (the demo events' penalty; "time plus penalties",
     // common practice in club autocross).
