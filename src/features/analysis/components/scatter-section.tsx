@@ -37,8 +37,8 @@ export const WHERE_LABELS: Record<CornerOrAxle, string> = {
   rf: 'Right front',
   lr: 'Left rear',
   rr: 'Right rear',
-  front: 'Front axle (mean of LF and RF)',
-  rear: 'Rear axle (mean of LR and RR)',
+  front: 'Front axle (LF and RF)',
+  rear: 'Rear axle (LR and RR)',
 };
 
 const PARAM_OPTIONS = SCATTER_PARAMS.map((p) => ({ value: p, label: PARAM_INFO[p].label }));
@@ -93,7 +93,9 @@ function pointRows(result: ScatterResult, plot: ScatterPlot, x: Axis, y: Axis): 
 
 function Caption({ result }: { result: ScatterResult }) {
   const s = result.n === 1 ? '' : 's';
-  const what = result.y.metric === 'time' ? `run${s}` : `wear interval${s} (between two tread readings)`;
+  // On an axle each corner's wear is its own point; the setting is the axle's (the mean of its two corners).
+  const axle = result.x.corner === 'front' || result.x.corner === 'rear';
+  const what = result.y.metric === 'time' ? `run${s}` : `wear interval${s} (between two tread readings${axle ? ', one point for each corner' : ''})`;
   return (
     <p className="tabular-figures text-sm">
       <span className="font-semibold">

@@ -273,7 +273,9 @@ describe('season review: setup against time and wear', () => {
     await u.selectOptions(scatter.getByLabelText('Setting (x)'), 'coldPressure');
     await u.selectOptions(scatter.getByLabelText('Measured (y)'), 'wear');
     await waitFor(() => expect(scatter.getByText(/not enough data yet for a fitted line/)).toBeTruthy());
-    expect(scatter.getByText(/^2 wear intervals/)).toBeTruthy();
+    // The front axle: one point for each corner's interval, said so.
+    expect(scatter.getByText(/^2 wear intervals/).textContent).toBe('2 wear intervals (between two tread readings, one point for each corner)');
+    expect((scatter.getByLabelText('Where') as HTMLSelectElement).selectedOptions[0]!.textContent).toBe('Front axle (LF and RF)');
     expect(requestsTo(fetch, scatterPath('coldPressure', 'wear'))).toHaveLength(1);
 
     await u.click(scatter.getByRole('button', { name: 'Show as table' }));
