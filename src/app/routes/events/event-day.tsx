@@ -235,7 +235,13 @@ export function EventDayPage() {
     <div className="-mt-3 flex flex-col gap-3">
       <title>{`${event?.name ?? 'Event day'} · Scrubline`}</title>
       <header className="flex flex-col">
-        <h1 className="line-clamp-2 text-xl font-extrabold">{event?.name ?? (eventQuery.isPending ? 'Loading the event…' : 'Event day')}</h1>
+        <div className="flex items-start justify-between gap-3">
+          <h1 className="line-clamp-2 text-xl font-extrabold">{event?.name ?? (eventQuery.isPending ? 'Loading the event…' : 'Event day')}</h1>
+          {/* The way to another event or a new one; its tap area overhangs the line, so the keypad stays where it is. */}
+          <Link to={paths.events} className="-my-2 inline-flex min-h-tap shrink-0 items-center text-sm font-semibold text-link underline">
+            All events
+          </Link>
+        </div>
         {event ? <EventFacts event={event} /> : null}
         {/* Read back after the day, the conditions it was run in; on the day they would push the keypad under the Save bar. */}
         {event && runMoment(event.date).dayOver ? <EventConditions event={event} /> : null}

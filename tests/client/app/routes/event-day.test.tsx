@@ -133,6 +133,15 @@ describe('event day', () => {
     expect(screen.queryByRole('heading', { name: 'Add a run from that day' })).toBeNull();
   });
 
+  it('when the event is opened, then its header links to all events, for another event or a new one', async () => {
+    stubWithRuns([], { extra: TODAY_EVENT() });
+    renderApp(PATH);
+    await screen.findByRole('form', { name: 'Log a run' });
+    const header = screen.getByRole('heading', { level: 1 }).closest('header')!;
+    const link = within(header).getByRole('link', { name: 'All events' });
+    expect(link.getAttribute('href')).toBe('/events');
+  });
+
   it('when a past event is opened, then its runs come first and the keypad follows under a heading of its own, both in one drawing', async () => {
     stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })]);
     // Drawn later than the keypad, a list above it would push the keypad down under the thumb.
