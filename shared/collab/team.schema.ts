@@ -105,9 +105,14 @@ export interface BoardResult {
   bestAdjustedSec: number | null;
   /** Adjusted × the class factor; null when the captain has entered none. */
   indexSec: number | null;
-  /** Against the class's fastest adjusted time at that event on the board. */
+  /**
+   * Against the class's fastest adjusted time at that event on the board; null, with the rank, when no other line in
+   * the class set a time there (`aloneInClass`): a day run alone is no comparison, and stays out of the trend.
+   */
   pctOffClassFastest: number | null;
   rankInClass: number | null;
+  /** The only time in the class at that event on the board. Absent from answers before it was added. */
+  aloneInClass?: boolean;
 }
 
 /** One axle's latest complete tread reading (both of its corners), as means over those two corners. */

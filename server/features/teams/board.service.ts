@@ -212,6 +212,7 @@ export async function classBoard(ds: DataSource, user: User, teamId: string, sea
         indexSec: bestAdjustedSec !== null && factor !== undefined ? indexTimeSec(bestAdjustedSec, factor) : null,
         pctOffClassFastest: null,
         rankInClass: null,
+        aloneInClass: false,
       },
     });
   }
@@ -225,6 +226,11 @@ export async function classBoard(ds: DataSource, user: User, teamId: string, sea
   for (const group of byClassEvent.values()) {
     const times = group.map((d) => d.result.bestAdjustedSec).filter((t): t is number => t !== null);
     if (times.length === 0) continue;
+    // One time alone is fastest and off nothing by itself: no rank, no % off, and no point on the trend.
+    if (times.length === 1) {
+      for (const d of group) if (d.result.bestAdjustedSec !== null) d.result.aloneInClass = true;
+      continue;
+    }
     const fastest = Math.min(...times);
     for (const d of group) {
       const t = d.result.bestAdjustedSec;

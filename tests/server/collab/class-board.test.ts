@@ -253,8 +253,9 @@ describe('GET /api/teams/:teamId/board', () => {
     expect(at(bravo, s.e2, s.ben.user.id).rankInClass).toBe(3);
     // Round 3, SR fastest 48.200 (Alpha): Bravo 0.200 / 48.2 × 100 = 0.41494 %.
     expect(at(bravo, s.e3, s.ben.user.id).pctOffClassFastest).toBeCloseTo((0.2 / 48.2) * 100, 9);
-    // Delta is alone in SH: fastest, 1st.
-    expect(at(entered(board, s.delta), s.e1, s.dee.user.id)).toMatchObject({ pctOffClassFastest: 0, rankInClass: 1 });
+    // Delta is alone in SH: a time with nothing to compare it with has no rank and no % off, and says why.
+    expect(at(entered(board, s.delta), s.e1, s.dee.user.id)).toMatchObject({ pctOffClassFastest: null, rankInClass: null, aloneInClass: true });
+    expect(at(bravo, s.e1, s.ben.user.id).aloneInClass).toBe(false);
     // Results run in event order, one line per driver.
     expect(alpha.results.map((r) => [r.eventName, r.driver.displayName])).toEqual([
       ['Round 1', 'Ann Apex'], ['Round 2', 'Ann Apex'], ['Round 2', 'Eve Early'], ['Round 3', 'Ann Apex'],
@@ -350,7 +351,7 @@ describe('GET /api/teams/:teamId/board', () => {
     const before = (await s.dee.c.get(`/api/teams/${s.teamId}/board?season=2024`)).body as ClassBoard;
     expect(before.classes.find((c) => c.classCode === 'SR')!.factor).toBeNull();
     expect(entered(before, s.delta).results).toEqual([
-      expect.objectContaining({ eventId: s.e0, bestAdjustedSec: 57, indexSec: null, pctOffClassFastest: 0, rankInClass: 1 }),
+      expect.objectContaining({ eventId: s.e0, bestAdjustedSec: 57, indexSec: null, pctOffClassFastest: null, rankInClass: null, aloneInClass: true }),
     ]);
     expect(entered(before, s.alpha).results).toEqual([]);
     expect(entered(before, s.alpha).setup).toBeNull();

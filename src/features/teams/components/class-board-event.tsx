@@ -28,7 +28,7 @@ function Line({ line, hasFactor }: { line: EventLine; hasFactor: boolean }) {
   const { car, result } = line;
   const noTime = noTimeWords(result);
   const cones = rawConesWords(result.bestRawCones);
-  const off = offFastestWords(result.pctOffClassFastest);
+  const off = result.aloneInClass ? 'No other time in class' : offFastestWords(result.pctOffClassFastest);
   return (
     <li className="flex items-start gap-3 border-b border-line py-3 last:border-b-0">
       <p className="tabular-figures w-8 shrink-0 text-center text-2xl font-extrabold">

@@ -84,7 +84,10 @@ function ResultsTable({ car, hasFactor, links }: { car: BoardCar; hasFactor: boo
                 </span>
               </th>
               <td className={`${num} font-bold`}>{noTimeWords(r) ?? boardTime(r.bestAdjustedSec)}</td>
-              <td className={num}>{r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}</td>
+              <td className={num}>
+                {r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}
+                {r.aloneInClass ? <span className="block text-xs font-normal text-ink-muted">no other time in class</span> : null}
+              </td>
               <td className={num}>{r.rankInClass ?? '—'}</td>
               <td className={num}>
                 {boardTime(r.bestRawSec)}

@@ -102,6 +102,17 @@ describe('class board: one event', () => {
     expect(within(screen.getByRole('region', { name: 'Class SM' })).getByText('No factor entered for 2026')).toBeTruthy();
   });
 
+  it('when a line was the only time in its class at the event, then it has no rank and says there was no other time, not "Fastest in class"', async () => {
+    const alone: BoardCar = { ...INES_BOARD_CAR, results: [{ ...INES_BOARD_CAR.results[0]!, pctOffClassFastest: null, rankInClass: null, aloneInClass: true }] };
+    stubBoard({ ...MEET, classes: [MEET.classes[0]!, { classCode: 'STR', factor: 0.853, cars: [alone] }] });
+    renderApp(`${BOARD_PAGE}?season=2026&event=${ROUND_4.eventId}`);
+
+    await screen.findByRole('heading', { level: 1, name: 'Harrow Flats — Round 4' });
+    expect(lines('STR')).toEqual([
+      'No rank | Ines Okafor | White roadster #3 | 2 runs | Adjusted 1:03.250 s | No other time in class | Index 53.952 s | Raw 1:01.250 s, +1 cone',
+    ]);
+  });
+
   it('when stepping through the season, then Previous and Next follow the events’ dates and the whole board comes back at the same season', async () => {
     stubBoard();
     const { router } = renderApp(`${BOARD_PAGE}?season=2026&event=${ROUND_3.eventId}`);

@@ -189,6 +189,21 @@ describe('class board', () => {
     chart.destroy();
   });
 
+  it('when a line was the only time in its class at an event, then its % off and rank are dashes, and it says why', async () => {
+    const alone: BoardCar = {
+      ...INES_BOARD_CAR,
+      results: [{ ...INES_BOARD_CAR.results[0]!, pctOffClassFastest: null, rankInClass: null, aloneInClass: true }],
+    };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, { ...BOARD, classes: [{ classCode: 'STR', factor: 0.853, cars: [alone] }] }),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+    await screen.findByRole('region', { name: 'Class STR' });
+    const [line] = rowsOf('White roadster');
+    expect(cells(line!).slice(0, 3)).toEqual(['1:03.250', '—no other time in class', '—']);
+  });
+
   it('when a car is the only one in its class with times, then it says so instead of a trend against itself, and no line is drawn', async () => {
     const ALONE_EVENTS = ['2026-04-12', '2026-05-17', '2026-06-07'];
     const alone: BoardCar = {
