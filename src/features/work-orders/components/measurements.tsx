@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { UnitInput } from '@/components/ui/unit-input';
 import { formatDelta, inputToSi, parseDecimal, toInputText, typeANumber, unitSymbol } from '@/lib/numbers';
+import { camberChangeWords } from '@/lib/setup-fields';
 import { useUnits } from '@/lib/units-context';
 import { usePutMeasurements } from '../api/edit-work-order';
 import { attentionMessage, splitErrors, useShowRefused } from '../utils/field-errors';
@@ -52,7 +53,13 @@ export function MeasurementsView({ workOrder }: { workOrder: WorkOrder }) {
         {/* A narrow corner wraps only between whole readings: never inside "122.0 mm" nor before the arrow. */}
         <span>
           {`${heldTogether(formatQuantity(b, info.quantity, units))}\u00a0→ ${heldTogether(formatQuantity(a, info.quantity, units))}`}
-          {d !== null ? <span className="font-semibold"> {heldTogether(formatDelta(d, info.quantity, units))}</span> : null}
+          {d !== null ? (
+            <span className="font-semibold">
+              {' '}
+              {/* Camber in the setups' own words ("1.20° more negative"): an arrow down is ambiguous on a negative angle. */}
+              {field === 'camberDeg' && a !== null && b !== null ? camberChangeWords(d, [b, a], units) : heldTogether(formatDelta(d, info.quantity, units))}
+            </span>
+          ) : null}
         </span>
       </div>
     );

@@ -278,6 +278,23 @@ describe('the before and after comparison', () => {
     // Text wraps only at ordinary spaces; a no-break space holds a number to its unit (common typographic practice).
     expect(ride.textContent).toBe('Ride height127.0\u00a0mm\u00a0→ 121.5\u00a0mm ▼\u00a05.5\u00a0mm');
   });
+
+  it('when camber was measured twice, then its change reads as the setups say it, "more negative", not an arrow', async () => {
+    const diff = workOrder().diff;
+    stubStaff(METRIC_PREFERENCES, {
+      [`GET ${WO}`]: jsonResponse(
+        200,
+        workOrder({
+          stages: { before: stage({ lf: { camberDeg: -1.1 } }), after: stage({ lf: { camberDeg: -2.4 } }) },
+          diff: { ...diff, lf: { ...diff.lf, camberDeg: -1.3 } },
+        }),
+      ),
+    });
+    renderApp(PATH);
+    const grid = await screen.findByRole('group', { name: 'Before → after, per corner' });
+    const camber = within(within(grid).getByRole('group', { name: 'Left front' })).getByText('Camber').parentElement!;
+    expect(camber.textContent).toMatch(/→ −2\.40° 1\.30° more negative$/);
+  });
 });
 
 describe('the invoice for shop staff', () => {
