@@ -4,6 +4,7 @@ import { formatQuantity, type Quantity, type UnitPreferences } from '@shared/cal
 import { CORNERS, type Corner } from '@shared/season/corners';
 import {
   BUILD_SHEET_FIELDS,
+  type BuildSheetCorner,
   type BuildSheetCornerChecks,
   type BuildSheetField,
   type BuildSheetInput,
@@ -52,13 +53,16 @@ function valueText(field: BuildSheetField, value: string | number | null, units:
   return String(value);
 }
 
+/** A helper spring is written on the corner's sheet. */
+const hasHelper = (sheet: BuildSheetCorner | null) => sheet !== null && (sheet.helperSpringRateNPerMm !== null || sheet.helperSpringFreeLengthMm !== null);
+
 /**
  * The server's checks for one corner, in plain words. A failed check reads as a warning, by eye (colour and icon)
  * and by ear (it begins "Warning:"); on paper the word is printed too, for a printer without colour.
  */
-export function CornerChecks({ checks, toleranceMm }: { checks: BuildSheetCornerChecks | null; toleranceMm: number }) {
+export function CornerChecks({ checks, toleranceMm, sheet }: { checks: BuildSheetCornerChecks | null; toleranceMm: number; sheet: BuildSheetCorner | null }) {
   const units = useUnits();
-  const lines = checkLines(checks, toleranceMm, units);
+  const lines = checkLines(checks, toleranceMm, units, hasHelper(sheet));
   if (lines.length === 0) return null;
   return (
     <ul className="flex flex-col gap-1 text-sm" aria-label="Checks">
@@ -153,11 +157,11 @@ function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
       {CORNERS.map((c) => {
         const blank = isBlankCorner(corners[c]);
         // A corner with no checks to show has no line: a corner name with nothing after it reads as a mistake.
-        if (!blank && checkLines(checks[c], tolerance, units).length === 0) return null;
+        if (!blank && checkLines(checks[c], tolerance, units, hasHelper(corners[c])).length === 0) return null;
         return (
           <div key={c} className="flex gap-1 text-sm">
             <span className="shrink-0 font-bold">{CORNER_NAMES[c]}:</span>
-            {blank ? <span className="text-ink-muted">Not filled in.</span> : <CornerChecks checks={checks[c]} toleranceMm={tolerance} />}
+            {blank ? <span className="text-ink-muted">Not filled in.</span> : <CornerChecks checks={checks[c]} toleranceMm={tolerance} sheet={corners[c]} />}
           </div>
         );
       })}
@@ -185,7 +189,7 @@ function BuildSheetGrid({ workOrder }: { workOrder: WorkOrder }) {
                 </div>
               ))}
             </dl>
-            <CornerChecks checks={checks[corner]} toleranceMm={workOrder.shop.compressedLengthToleranceMm} />
+            <CornerChecks checks={checks[corner]} toleranceMm={workOrder.shop.compressedLengthToleranceMm} sheet={sheet} />
           </div>
         );
       }}

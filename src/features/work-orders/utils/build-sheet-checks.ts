@@ -13,8 +13,11 @@ export function isBlankCorner(sheet: BuildSheetCorner | null): boolean {
   return sheet === null || BUILD_SHEET_FIELDS.every((f) => sheet[f] === null);
 }
 
-/** The server's checks for one corner, in plain words, in the user's units. */
-export function checkLines(checks: BuildSheetCornerChecks | null, toleranceMm: number, units: UnitPreferences): CheckLine[] {
+/**
+ * The server's checks for one corner, in plain words, in the user's units. `helperListed`: the corner's sheet has a
+ * helper spring, so a main spring that lifts off at full droop asks whether that helper's travel covers the gap.
+ */
+export function checkLines(checks: BuildSheetCornerChecks | null, toleranceMm: number, units: UnitPreferences, helperListed = false): CheckLine[] {
   if (!checks) return [];
   const mm = (v: number) => formatQuantity(v, 'length', units);
   const lines: CheckLine[] = [];
@@ -37,7 +40,9 @@ export function checkLines(checks: BuildSheetCornerChecks | null, toleranceMm: n
     lines.push({
       text: seated
         ? `Main spring stays seated at full droop (compressed ${mm(staticCompressionMm)} at ride height, extends ${mm(droopAtSpringMm)}).`
-        : `Main spring comes off its seat at full droop: a helper spring needs ${mm(shortfallMm)} of travel, or limit the droop.`,
+        : helperListed
+          ? `Main spring comes off its seat at full droop by ${mm(shortfallMm)}: the helper spring listed holds it only if it has at least ${mm(shortfallMm)} of travel (its maker's figure); else limit the droop.`
+          : `Main spring comes off its seat at full droop: a helper spring needs ${mm(shortfallMm)} of travel, or limit the droop.`,
       failed: !seated,
     });
   }

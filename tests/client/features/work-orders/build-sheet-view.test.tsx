@@ -52,6 +52,19 @@ function coiloverVisit(): WorkOrder {
 const hiddenInPrint = (el: Element) => Boolean(el.closest('.print\\:hidden'));
 
 describe('the build sheet checks', () => {
+  it('when the corner whose main spring lifts off has a helper spring written on it, then the warning asks whether that helper covers the gap', async () => {
+    const visit = coiloverVisit();
+    visit.buildSheet.corners.lf = { ...visit.buildSheet.corners.lf!, helperSpringRateNPerMm: 10, helperSpringFreeLengthMm: 60 };
+    stubDriver({ [`GET ${WO}`]: jsonResponse(200, visit) });
+    renderApp(WORK_ORDER_PATH);
+    const grid = await screen.findByRole('group', { name: 'Build sheet, per corner' });
+
+    const lfChecks = within(within(grid).getByRole('group', { name: 'Left front' })).getByRole('list', { name: 'Checks' });
+    expect(within(lfChecks).getAllByRole('listitem')[1]!.textContent).toBe(
+      "Warning: Main spring comes off its seat at full droop by 12.0 mm: the helper spring listed holds it only if it has at least 12.0 mm of travel (its maker's figure); else limit the droop.",
+    );
+  });
+
   it('when a corner fails its compressed-length and droop checks, then those lines read as warnings with an icon while a passing line stays plain', async () => {
     stubDriver({ [`GET ${WO}`]: jsonResponse(200, coiloverVisit()) });
     renderApp(WORK_ORDER_PATH);
