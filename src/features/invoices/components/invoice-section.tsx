@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SectionCard } from '@/components/ui/section-card';
 import { isApiError } from '@/lib/api-client';
-import { formatDateTime } from '@/lib/dates';
+import { formatDateTime, formatDay } from '@/lib/dates';
 import { useWorkOrderInvoice } from '../api/get-invoice';
 import { useMakeInvoice, useMarkPaidInCash, useStartCheckout } from '../api/pay-invoice';
 import { LineItemsTable } from '@/components/line-items/line-items-table';
@@ -16,9 +16,15 @@ const PAID_POLL_TRIES = 5;
 
 const errorText = (error: unknown) => (error ? (isApiError(error) ? error.message : 'Something went wrong; try again.') : null);
 
+/** A short reference to quote on the phone or on a bank transfer: the start of the invoice's id, in capitals. */
+const invoiceReference = (invoice: Pick<Invoice, 'id'>) => invoice.id.slice(0, 8).toUpperCase();
+
 function InvoiceDetails({ invoice }: { invoice: Invoice }) {
   return (
     <div className="flex flex-col gap-2">
+      <p className="tabular-figures text-sm">
+        Issued {formatDay(invoice.createdAt)} · reference <span className="font-semibold">{invoiceReference(invoice)}</span>
+      </p>
       <LineItemsTable
         caption="Invoice lines"
         currency={invoice.currency}

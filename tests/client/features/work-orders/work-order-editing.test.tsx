@@ -13,7 +13,7 @@ import {
   type WorkOrderStage,
 } from '../../../../shared/service/work-order.schema';
 import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests } from '../../test-utils';
-import { formatDateTime } from '@/lib/dates';
+import { formatDateTime, formatDay } from '@/lib/dates';
 import { invoice, SERVICE_IDS, stubDriver, stubStaff, WO, WORK_ORDER_PATH, workOrder } from './service-fixtures';
 
 const PATH = WORK_ORDER_PATH;
@@ -312,6 +312,8 @@ describe('the invoice for shop staff', () => {
 
     const table = await screen.findByRole('table', { name: 'Invoice lines' });
     expect(requestsTo(fetchMock, MAKE_INVOICE)).toHaveLength(1);
+    // When it was made, and a reference to quote: the start of its id, in capitals.
+    expect(screen.getByText(/^Issued /).textContent).toBe(`Issued ${formatDay('2026-06-10T17:00:00.000Z')} · reference 1A111111`);
     expect(within(table).getByRole('cell', { name: 'Labour: Alignment' })).toBeTruthy();
     expect(within(within(table).getByRole('row', { name: /^Subtotal/ })).getByText('$135.00')).toBeTruthy();
     expect(within(within(table).getByRole('row', { name: /^Tax \(8\.875 %\)/ })).getByText('$11.98')).toBeTruthy();
