@@ -86,7 +86,8 @@ function ResultsTable({ car, hasFactor, links }: { car: BoardCar; hasFactor: boo
               <td className={`${num} font-bold`}>{noTimeWords(r) ?? boardTime(r.bestAdjustedSec)}</td>
               <td className={num}>
                 {r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}
-                {r.aloneInClass ? <span className="block text-xs font-normal text-ink-muted">no other time in class</span> : null}
+                {/* Wrapped to the column's width: the column stays on the phone's first screen. */}
+                {r.aloneInClass ? <span className="block text-xs font-normal whitespace-normal text-ink-muted">no other time</span> : null}
               </td>
               <td className={num}>{r.rankInClass ?? '—'}</td>
               <td className={num}>

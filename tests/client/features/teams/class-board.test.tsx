@@ -201,7 +201,7 @@ describe('class board', () => {
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
     await screen.findByRole('region', { name: 'Class STR' });
     const [line] = rowsOf('White roadster');
-    expect(cells(line!).slice(0, 3)).toEqual(['1:03.250', '—no other time in class', '—']);
+    expect(cells(line!).slice(0, 3)).toEqual(['1:03.250', '—no other time', '—']);
   });
 
   it('when a car is the only one in its class with times, then it says so instead of a trend against itself, and no line is drawn', async () => {
