@@ -85,12 +85,23 @@ async function readingsOf(db: Db, setIds: string[], latestOnly: boolean): Promis
   });
 }
 
-async function toTyreSets(db: Db, sets: TyreSetEntity[]): Promise<TyreSet[]> {
+/** Each set's latest reading: taken last, and of two taken at once the one entered last (as `readingsOf` picks it). */
+function latestOfEach(readings: readonly TreadReading[]): TreadReading[] {
+  const latest = new Map<string, TreadReading>();
+  for (const r of readings) {
+    const seen = latest.get(r.tyreSetId);
+    if (!seen || r.takenAt > seen.takenAt || (r.takenAt === seen.takenAt && r.createdAt >= seen.createdAt)) latest.set(r.tyreSetId, r);
+  }
+  return [...latest.values()];
+}
+
+/** `allReadings`: every reading of these sets when the caller has them already; else the latest are read here. */
+async function toTyreSets(db: Db, sets: TyreSetEntity[], allReadings?: readonly TreadReading[]): Promise<TyreSet[]> {
   const ids = sets.map((s) => s.id);
   const mountings = ids.length
     ? await db.getRepository(TyreMountingEntity).createQueryBuilder('m').where('m.tyre_set_id IN (:...ids)', { ids }).orderBy('m.mounted_at', 'ASC').getMany()
     : [];
-  const latest = await readingsOf(db, ids, true);
+  const latest = allReadings ? latestOfEach(allReadings) : await readingsOf(db, ids, true);
   const runs = new Map(
     ids.length
       ? (
@@ -143,8 +154,9 @@ export async function createTyreSet(ds: DataSource, user: User, carId: string, i
 /** A car's tyre sets and all their readings, oldest first (callers have checked access). */
 export async function tyreSetsWithReadings(db: Db, carId: string): Promise<{ set: TyreSet; readings: TreadReading[] }[]> {
   const sets = await db.getRepository(TyreSetEntity).find({ where: { carId }, order: { createdAt: 'ASC' } });
-  const dtos = await toTyreSets(db, sets);
+  // Read once: the sets' latest readings come from the same list.
   const readings = await readingsOf(db, sets.map((s) => s.id), false);
+  const dtos = await toTyreSets(db, sets, readings);
   return dtos.map((set) => ({ set, readings: readings.filter((r) => r.tyreSetId === set.id) }));
 }
 
