@@ -260,39 +260,31 @@ describe('a measurement the form or the server refuses', () => {
 });
 
 describe('the before and after comparison', () => {
-  it('when a corner was measured twice, then each reading keeps its unit and the change keeps its arrow on one line', async () => {
+  /** The visit with one left-front value measured before and after, and the server's change: that value's line. */
+  async function leftFrontLine(field: 'rideHeightMm' | 'camberDeg', before: number, after: number, label: string) {
     const diff = workOrder().diff;
     stubStaff(METRIC_PREFERENCES, {
       [`GET ${WO}`]: jsonResponse(
         200,
         workOrder({
-          stages: { before: stage({ lf: { rideHeightMm: 127 } }), after: stage({ lf: { rideHeightMm: 121.5 } }) },
-          diff: { ...diff, lf: { ...diff.lf, rideHeightMm: -5.5 } },
+          stages: { before: stage({ lf: { [field]: before } }), after: stage({ lf: { [field]: after } }) },
+          diff: { ...diff, lf: { ...diff.lf, [field]: Math.round((after - before) * 1e6) / 1e6 } },
         }),
       ),
     });
     renderApp(PATH);
     const grid = await screen.findByRole('group', { name: 'Before → after, per corner' });
-    const lf = within(grid).getByRole('group', { name: 'Left front' });
-    const ride = within(lf).getByText('Ride height').parentElement!;
+    return within(within(grid).getByRole('group', { name: 'Left front' })).getByText(label).parentElement!;
+  }
+
+  it('when a corner was measured twice, then each reading keeps its unit and the change keeps its arrow on one line', async () => {
+    const ride = await leftFrontLine('rideHeightMm', 127, 121.5, 'Ride height');
     // Text wraps only at ordinary spaces; a no-break space holds a number to its unit (common typographic practice).
     expect(ride.textContent).toBe('Ride height127.0\u00a0mm\u00a0→ 121.5\u00a0mm ▼\u00a05.5\u00a0mm');
   });
 
   it('when camber was measured twice, then its change reads as the setups say it, "more negative", not an arrow', async () => {
-    const diff = workOrder().diff;
-    stubStaff(METRIC_PREFERENCES, {
-      [`GET ${WO}`]: jsonResponse(
-        200,
-        workOrder({
-          stages: { before: stage({ lf: { camberDeg: -1.1 } }), after: stage({ lf: { camberDeg: -2.4 } }) },
-          diff: { ...diff, lf: { ...diff.lf, camberDeg: -1.3 } },
-        }),
-      ),
-    });
-    renderApp(PATH);
-    const grid = await screen.findByRole('group', { name: 'Before → after, per corner' });
-    const camber = within(within(grid).getByRole('group', { name: 'Left front' })).getByText('Camber').parentElement!;
+    const camber = await leftFrontLine('camberDeg', -1.1, -2.4, 'Camber');
     expect(camber.textContent).toMatch(/→ −2\.40° 1\.30° more negative$/);
   });
 });
