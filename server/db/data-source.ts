@@ -26,6 +26,7 @@ import { ClosedAccounts1765497600000 } from './migrations/1765497600000-closed-a
 import { CoDriverNotice1765584000000 } from './migrations/1765584000000-co-driver-notice';
 import { UsedUpParts1765670400000 } from './migrations/1765670400000-used-up-parts';
 import { RunsOnTyreSets1765756800000 } from './migrations/1765756800000-runs-on-tyre-sets';
+import { InvoiceNumbers1765843200000 } from './migrations/1765843200000-invoice-numbers';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -41,6 +42,7 @@ export const migrations = [
   CoDriverNotice1765584000000,
   UsedUpParts1765670400000,
   RunsOnTyreSets1765756800000,
+  InvoiceNumbers1765843200000,
 ];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */

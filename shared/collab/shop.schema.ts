@@ -17,6 +17,9 @@ export const inviteInputSchema = z.strictObject({
 });
 export type InviteInput = z.infer<typeof inviteInputSchema>;
 
+export const INVOICE_DETAILS_MAX = 500;
+export const INVOICE_DETAILS_MAX_LINES = 8;
+
 /** What a shop sets for its own bench: invoice tax and currency, and the build sheet's compressed-length tolerance. */
 export const updateShopSettingsInputSchema = z.strictObject({
   taxRatePct: z.optional(
@@ -35,6 +38,14 @@ export const updateShopSettingsInputSchema = z.strictObject({
       z.lte(100, 'The tolerance must be between 0 and 100 mm'),
     ),
   ),
+  /** The lines printed under the shop's name on its invoices: address, telephone, tax number. */
+  invoiceDetails: z.optional(
+    z.string({ error: 'Enter the lines as text' }).check(
+      z.trim(),
+      z.maxLength(INVOICE_DETAILS_MAX, `Use at most ${INVOICE_DETAILS_MAX} characters`),
+      z.refine((v) => v.split('\n').length <= INVOICE_DETAILS_MAX_LINES, `Use at most ${INVOICE_DETAILS_MAX_LINES} lines`),
+    ),
+  ),
 });
 export type UpdateShopSettingsInput = z.infer<typeof updateShopSettingsInputSchema>;
 
@@ -45,6 +56,8 @@ export interface ShopSettings {
   currency: string;
   /** How much shorter than the reference a damper's compressed length may be before the build sheet warns, mm. */
   compressedLengthToleranceMm: number;
+  /** Printed under the shop's name on invoices made from now on; '' for none. */
+  invoiceDetails: string;
 }
 
 export interface ShopSummary {

@@ -24,8 +24,18 @@ export interface InvoiceLine {
   amountCents: number;
 }
 
-export interface Invoice {
+/** Who issued an invoice, to whom and for which car, as they stood when it was made. */
+export interface InvoiceParties {
+  issuer: { name: string; /** The shop's own lines: address, telephone, tax number; '' for none. */ details: string };
+  /** The car's owner. */
+  billTo: string;
+  car: { name: string; carNumber: string | null; classCode: string };
+}
+
+export interface Invoice extends InvoiceParties {
   id: string;
+  /** The shop's own sequence: 1, 2, 3 … in the order its invoices were made, with no gaps. */
+  number: number;
   workOrderId: string;
   shopId: string;
   carId: string;

@@ -27,6 +27,13 @@ interface InvoiceRow {
   paid_method: PaymentMethod | null;
   checkout_session_id: string | null;
   created_at: Date;
+  number: number;
+  issuer_name: string;
+  issuer_details: string;
+  bill_to: string;
+  car_name: string;
+  car_number: string | null;
+  car_class_code: string;
 }
 
 interface LineRow {
@@ -66,6 +73,7 @@ async function loadInvoice(db: Queryable, where: { id: string } | { workOrderId:
   });
   return {
     id: r.id,
+    number: r.number,
     workOrderId: r.work_order_id,
     shopId: r.shop_id,
     carId: r.car_id,
@@ -80,6 +88,9 @@ async function loadInvoice(db: Queryable, where: { id: string } | { workOrderId:
     paidMethod: r.paid_method,
     checkoutStarted: r.checkout_session_id !== null,
     createdAt: r.created_at.toISOString(),
+    issuer: { name: r.issuer_name, details: r.issuer_details },
+    billTo: r.bill_to,
+    car: { name: r.car_name, carNumber: r.car_number, classCode: r.car_class_code },
   };
 }
 
@@ -98,15 +109,16 @@ async function assertInvoiceAccess(db: Queryable, user: User, invoiceId: string,
 }
 
 /**
- * The shop invoices a closed visit: parts and labour from its lines, tax at the shop's rate,
- * totals kept as issued. Asking again answers the invoice already made.
+ * The shop invoices a closed visit: parts and labour from its lines, tax at the shop's rate, totals kept as issued,
+ * and the shop's next number. The shop's row is locked while the number is taken, so two invoices made at once get
+ * consecutive numbers and a failed one leaves no gap. The shop's name and lines, the owner's name and the car are
+ * copied onto the invoice. Asking again answers the invoice already made.
  */
 export async function createInvoice(ds: DataSource, user: User, workOrderId: string): Promise<{ invoice: Invoice; created: boolean }> {
   await assertWorkOrderAccess(ds, user, workOrderId, 'mark_paid');
   const { id, created } = await ds.transaction(async (m) => {
-    const orders: { status: string; shop_id: string; car_id: string; tax_rate_pct: number; currency: string }[] = await m.query(
-      `SELECT w.status, w.shop_id, w.car_id, s.tax_rate_pct, s.currency
-         FROM work_orders w JOIN shops s ON s.id = w.shop_id WHERE w.id = $1 FOR UPDATE OF w`,
+    const orders: { status: string; shop_id: string; car_id: string }[] = await m.query(
+      'SELECT status, shop_id, car_id FROM work_orders WHERE id = $1 FOR UPDATE',
       [workOrderId],
     );
     const order = orders[0];
@@ -115,16 +127,30 @@ export async function createInvoice(ds: DataSource, user: User, workOrderId: str
     if (existing[0]) return { id: existing[0].id, created: false };
     if (order.status !== 'closed') throw new AppError('conflict', 'Close the work order first; the invoice is made from the finished visit.');
 
-    const taxRatePct = roundedTaxRate(order.tax_rate_pct);
+    // The shop's row first, then its last number: read after the lock, in a statement of its own, the number sees
+    // every invoice committed by whoever held the lock before (a subquery in the locking statement would not).
+    const shops: { name: string; invoice_details: string; tax_rate_pct: number; currency: string }[] = await m.query(
+      'SELECT name, invoice_details, tax_rate_pct, currency FROM shops WHERE id = $1 FOR NO KEY UPDATE',
+      [order.shop_id],
+    );
+    const last: { number: number | null }[] = await m.query('SELECT max(number) AS number FROM invoices WHERE shop_id = $1', [order.shop_id]);
+    const shop = shops[0]!;
+    const taxRatePct = roundedTaxRate(shop.tax_rate_pct);
     const totals = invoiceTotals(
       (await linesOf(m, workOrderId)).map((l) => ({ quantity: Number(l.quantity), unitPriceCents: l.unit_price_cents })),
       taxRatePct,
     );
     if (totals.totalCents > MAX_CENTS) throw new AppError('conflict', 'This invoice would be too large to keep; split the work into smaller orders.');
     const rows: { id: string }[] = await m.query(
-      `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents)
-       VALUES ($1, $2, $3, $4, $5, $6, $7, $8) RETURNING id`,
-      [workOrderId, order.shop_id, order.car_id, order.currency, totals.subtotalCents, taxRatePct, totals.taxCents, totals.totalCents],
+      `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents,
+                             number, issuer_name, issuer_details, bill_to, car_name, car_number, car_class_code)
+       SELECT $1, $2, c.id, $4, $5, $6, $7, $8, $9, $10, $11, u.display_name, c.name, c.car_number, c.class_code
+         FROM cars c JOIN users u ON u.id = c.owner_id WHERE c.id = $3
+       RETURNING id`,
+      [
+        workOrderId, order.shop_id, order.car_id, shop.currency, totals.subtotalCents, taxRatePct, totals.taxCents, totals.totalCents,
+        (last[0]?.number ?? 0) + 1, shop.name, shop.invoice_details,
+      ],
     );
     return { id: rows[0]!.id, created: true };
   });

@@ -49,21 +49,32 @@ export async function getShop(ds: DataSource, user: User, shopId: string): Promi
   return loadShop(ds, user, shopId);
 }
 
-/** A shop admin sets the shop's tax rate, currency and build-sheet tolerance; fields left out stay as they are. */
+/**
+ * A shop admin sets the shop's tax rate, currency, build-sheet tolerance and the lines its invoices print under its
+ * name; fields left out stay as they are. Invoices already made keep what they were made with.
+ */
 export async function updateShopSettings(ds: DataSource, user: User, shopId: string, input: UpdateShopSettingsInput): Promise<Shop> {
   await assertShopAccess(ds, user, shopId, 'manage');
   await ds.query(
     `UPDATE shops SET tax_rate_pct = COALESCE($2, tax_rate_pct), currency = COALESCE($3, currency),
-            compressed_length_tolerance_mm = COALESCE($4, compressed_length_tolerance_mm)
+            compressed_length_tolerance_mm = COALESCE($4, compressed_length_tolerance_mm),
+            invoice_details = COALESCE($5, invoice_details)
       WHERE id = $1`,
-    [shopId, input.taxRatePct ?? null, input.currency ?? null, input.compressedLengthToleranceMm ?? null],
+    [shopId, input.taxRatePct ?? null, input.currency ?? null, input.compressedLengthToleranceMm ?? null, input.invoiceDetails ?? null],
   );
   return loadShop(ds, user, shopId);
 }
 
 async function loadShop(db: Queryable, user: User, shopId: string): Promise<Shop> {
-  const shops: { id: string; name: string; tax_rate_pct: number; currency: string; compressed_length_tolerance_mm: number }[] = await db.query(
-    'SELECT id, name, tax_rate_pct, currency, compressed_length_tolerance_mm FROM shops WHERE id = $1',
+  const shops: {
+    id: string;
+    name: string;
+    tax_rate_pct: number;
+    currency: string;
+    compressed_length_tolerance_mm: number;
+    invoice_details: string;
+  }[] = await db.query(
+    'SELECT id, name, tax_rate_pct, currency, compressed_length_tolerance_mm, invoice_details FROM shops WHERE id = $1',
     [shopId],
   );
   const shop = shops[0];
@@ -85,7 +96,12 @@ async function loadShop(db: Queryable, user: User, shopId: string): Promise<Shop
     staff: staff.map((s) => ({ id: s.id, displayName: s.display_name, email: s.email, isShopAdmin: s.is_shop_admin })),
     isShopAdmin: staff.some((s) => s.id === user.id && s.is_shop_admin),
     pendingInvitations: invitations.map((i) => ({ email: i.email, asAdmin: i.as_admin, expiresAt: i.expires_at.toISOString() })),
-    settings: { taxRatePct: shop.tax_rate_pct, currency: shop.currency, compressedLengthToleranceMm: shop.compressed_length_tolerance_mm },
+    settings: {
+      taxRatePct: shop.tax_rate_pct,
+      currency: shop.currency,
+      compressedLengthToleranceMm: shop.compressed_length_tolerance_mm,
+      invoiceDetails: shop.invoice_details,
+    },
   };
 }
 

@@ -5,9 +5,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeTestApp, signedInClient, type TestApp } from '../test-app';
 import { addCoDriver, expectError, expectFieldErrors } from '../season/season-fixtures';
-import { addStaff, grantedCar, shopWithAdmin } from '../collab/shop-fixtures';
+import { addStaff, grantedCar, SHOP_NAME, shopWithAdmin } from '../collab/shop-fixtures';
 import { startFakePayments, type FakePayments } from '../../../scripts/lib/fake-payments';
 import { fakeSettings, visit } from './invoice-fixtures';
+import { seededDatabaseUrl } from '../support-seeded';
+import { createDataSource } from '../../../server/db/data-source';
+import { InvoiceNumbers1765843200000 } from '../../../server/db/migrations/1765843200000-invoice-numbers';
 
 let t: TestApp;
 let fake: FakePayments;
@@ -33,13 +36,22 @@ describe('PATCH /api/shops/:shopId/settings', () => {
   it('when the shop admin sets tax, currency and tolerance, then GET of the shop shows them (currency in lower case)', async () => {
     const { shopId, admin } = await shopWithAdmin(t);
     const before = await admin.c.get(`/api/shops/${shopId}`);
-    expect(before.body.settings).toEqual({ taxRatePct: 0, currency: 'usd', compressedLengthToleranceMm: 15 });
-    const res = await admin.c.patch(`/api/shops/${shopId}/settings`, { taxRatePct: 20, currency: 'GBP', compressedLengthToleranceMm: 13 });
+    expect(before.body.settings).toEqual({ taxRatePct: 0, currency: 'usd', compressedLengthToleranceMm: 15, invoiceDetails: '' });
+    const res = await admin.c.patch(`/api/shops/${shopId}/settings`, {
+      taxRatePct: 20,
+      currency: 'GBP',
+      compressedLengthToleranceMm: 13,
+      invoiceDetails: '  Unit 4, Brindle Yard\nTel. 555 0143  ',
+    });
     expect(res.status).toBe(200);
-    expect(res.body.settings).toEqual({ taxRatePct: 20, currency: 'gbp', compressedLengthToleranceMm: 13 });
+    const saved = { taxRatePct: 20, currency: 'gbp', compressedLengthToleranceMm: 13, invoiceDetails: 'Unit 4, Brindle Yard\nTel. 555 0143' };
+    expect(res.body.settings).toEqual(saved);
     // A field left out stays as it was.
     await admin.c.patch(`/api/shops/${shopId}/settings`, { taxRatePct: 7.5 });
-    expect((await admin.c.get(`/api/shops/${shopId}`)).body.settings).toEqual({ taxRatePct: 7.5, currency: 'gbp', compressedLengthToleranceMm: 13 });
+    expect((await admin.c.get(`/api/shops/${shopId}`)).body.settings).toEqual({ ...saved, taxRatePct: 7.5 });
+    // An empty text clears the lines.
+    await admin.c.patch(`/api/shops/${shopId}/settings`, { invoiceDetails: '' });
+    expect((await admin.c.get(`/api/shops/${shopId}`)).body.settings.invoiceDetails).toBe('');
   });
 
   it('when the values are out of range or malformed, then 400 names each field and nothing changes', async () => {
@@ -47,7 +59,11 @@ describe('PATCH /api/shops/:shopId/settings', () => {
     const res = await admin.c.patch(`/api/shops/${shopId}/settings`, { taxRatePct: 51, currency: 'euro', compressedLengthToleranceMm: -1 });
     expectFieldErrors(res, ['taxRatePct', 'currency', 'compressedLengthToleranceMm']);
     expectFieldErrors(await admin.c.patch(`/api/shops/${shopId}/settings`, { taxRatePct: 8.8755 }), ['taxRatePct']);
-    expect((await admin.c.get(`/api/shops/${shopId}`)).body.settings.taxRatePct).toBe(0);
+    await admin.c.patch(`/api/shops/${shopId}/settings`, { invoiceDetails: 'Unit 4, Brindle Yard' });
+    expectFieldErrors(await admin.c.patch(`/api/shops/${shopId}/settings`, { invoiceDetails: 'x'.repeat(501) }), ['invoiceDetails']);
+    expectFieldErrors(await admin.c.patch(`/api/shops/${shopId}/settings`, { invoiceDetails: 'line\n'.repeat(8) + 'ninth' }), ['invoiceDetails']);
+    const after = (await admin.c.get(`/api/shops/${shopId}`)).body.settings;
+    expect(after).toMatchObject({ taxRatePct: 0, invoiceDetails: 'Unit 4, Brindle Yard' });
   });
 
   it('when staff who are not admins or people outside the shop try, then 403 and 404', async () => {
@@ -119,6 +135,104 @@ describe('POST /api/work-orders/:workOrderId/invoice', () => {
     expectError(await stranger.c.post(`/api/work-orders/${g.workOrderId}/invoice`), 404, 'not_found');
     expectError(await g.staff.c.post('/api/work-orders/00000000-0000-4000-8000-000000000000/invoice'), 404, 'not_found');
   });
+});
+
+describe('invoice numbers and the parties on an invoice', () => {
+  const invoiceOf = async (g: Awaited<ReturnType<typeof grantedCar>>, workOrderId: string) => {
+    const res = await g.staff.c.post(`/api/work-orders/${workOrderId}/invoice`);
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    return res.body;
+  };
+
+  it('when a shop invoices visits one after another, then they are numbered 1, 2, 3; another shop starts at 1; asking again keeps the number', async () => {
+    const g = await grantedCar(t);
+    const ids = { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id };
+    const numbers = [];
+    for (let i = 0; i < 3; i++) numbers.push((await invoiceOf(g, await visit(t, ids))).number);
+    expect(numbers).toEqual([1, 2, 3]);
+
+    const other = await grantedCar(t, { shopName: 'Other bench' });
+    const first = await visit(t, { shopId: other.shopId, carId: other.driver.carId, staffId: other.staff.user.id });
+    expect((await invoiceOf(other, first)).number).toBe(1);
+    expect((await other.staff.c.post(`/api/work-orders/${first}/invoice`)).body.number).toBe(1);
+  });
+
+  it('when five visits are invoiced at the same moment, then they take 1 to 5, each once, with no gap', async () => {
+    const g = await grantedCar(t);
+    const ids = { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id };
+    const visits = [];
+    for (let i = 0; i < 5; i++) visits.push(await visit(t, ids));
+    const answers = await Promise.all(visits.map((id) => g.staff.c.post(`/api/work-orders/${id}/invoice`)));
+    expect(answers.map((r) => r.status)).toEqual([201, 201, 201, 201, 201]);
+    expect(answers.map((r) => r.body.number as number).sort((a, b) => a - b)).toEqual([1, 2, 3, 4, 5]);
+  });
+
+  it('when an invoice cannot be made (the visit still open), then the next one still takes the next number', async () => {
+    const g = await grantedCar(t);
+    const ids = { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id };
+    expect((await invoiceOf(g, await visit(t, ids))).number).toBe(1);
+    expectError(await g.staff.c.post(`/api/work-orders/${await visit(t, ids, { status: 'open' })}/invoice`), 409, 'conflict');
+    expect((await invoiceOf(g, await visit(t, ids))).number).toBe(2);
+  });
+
+  it('when made, the invoice names the shop with its own lines, the owner and the car; renamed later, it keeps them as issued', async () => {
+    const g = await grantedCar(t);
+    await g.staff.c.patch(`/api/shops/${g.shopId}/settings`, { invoiceDetails: '12 Kettle Lane, Brindle\nTax no. BR-0042' });
+    const made = await invoiceOf(g, await visit(t, { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id }));
+    const issued = {
+      issuer: { name: SHOP_NAME, details: '12 Kettle Lane, Brindle\nTax no. BR-0042' },
+      billTo: 'Nell Ashdown',
+      car: { name: 'Blue roadster', carNumber: '42', classCode: 'SS' },
+    };
+    expect(made).toMatchObject(issued);
+
+    await g.staff.c.patch(`/api/shops/${g.shopId}/settings`, { invoiceDetails: 'Moved: 3 Mill Row' });
+    await t.ds.query(`UPDATE shops SET name = 'Renamed bench' WHERE id = $1`, [g.shopId]);
+    await t.ds.query(`UPDATE cars SET name = 'Red roadster', car_number = NULL WHERE id = $1`, [g.driver.carId]);
+    await t.ds.query(`UPDATE users SET display_name = 'Nell A.' WHERE id = $1`, [g.driver.user.id]);
+    expect((await g.driver.c.get(`/api/work-orders/${made.workOrderId}/invoice`)).body).toMatchObject(issued);
+  });
+
+  it('when invoices were made before they had numbers, then adding the columns numbers each shop\'s in the order they were made and names the parties as they are now', async () => {
+    const db = await seededDatabaseUrl();
+    const ds = createDataSource(db.url, { poolSize: 1 });
+    await ds.initialize();
+    const migration = new InvoiceNumbers1765843200000();
+    const runner = ds.createQueryRunner();
+    try {
+      await migration.down(runner);
+      const orders: { id: string; shop_id: string; car_id: string }[] = await runner.query('SELECT id, shop_id, car_id FROM work_orders ORDER BY visit_date');
+      expect(orders).toHaveLength(2);
+      // Made as the app made them then: the later visit invoiced first.
+      for (const [order, madeAt] of [[orders[1]!, '2026-06-01T10:00:00Z'], [orders[0]!, '2026-06-02T10:00:00Z']] as const) {
+        await runner.query(
+          `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents, created_at)
+           VALUES ($1, $2, $3, 'usd', 1000, 0, 0, 1000, $4)`,
+          [order.id, order.shop_id, order.car_id, madeAt],
+        );
+      }
+      await migration.up(runner);
+      const rows = await runner.query(
+        `SELECT i.work_order_id, i.number, i.issuer_name, i.issuer_details, i.bill_to, i.car_name, i.car_number, i.car_class_code
+           FROM invoices i ORDER BY i.number`,
+      );
+      const expected = await runner.query(
+        `SELECT s.name AS issuer_name, u.display_name AS bill_to, c.name AS car_name, c.car_number, c.class_code AS car_class_code
+           FROM work_orders w JOIN shops s ON s.id = w.shop_id JOIN cars c ON c.id = w.car_id JOIN users u ON u.id = c.owner_id
+          WHERE w.id = $1`,
+        [orders[1]!.id],
+      );
+      expect(rows.map((r: { work_order_id: string; number: number }) => [r.work_order_id, r.number])).toEqual([
+        [orders[1]!.id, 1],
+        [orders[0]!.id, 2],
+      ]);
+      expect(rows[0]).toMatchObject({ ...expected[0], issuer_details: '' });
+    } finally {
+      await runner.release();
+      await ds.destroy();
+      await db.drop();
+    }
+  }, 60_000);
 });
 
 describe('GET /api/work-orders/:workOrderId/invoice', () => {

@@ -44,6 +44,7 @@ export function workOrder(partial: Partial<WorkOrder> = {}): WorkOrder {
 export function invoice(partial: Partial<Invoice> = {}): Invoice {
   return {
     id: SERVICE_IDS.invoice,
+    number: 14,
     workOrderId: SERVICE_IDS.workOrder,
     shopId: COLLAB_IDS.shop,
     carId: IDS.car,
@@ -58,6 +59,9 @@ export function invoice(partial: Partial<Invoice> = {}): Invoice {
     paidMethod: null,
     checkoutStarted: false,
     createdAt: '2026-06-10T17:00:00.000Z',
+    issuer: { name: SHOP_NAME, details: '12 Kettle Lane, Brindle\nTel. 555 0143' },
+    billTo: 'Maren Holt',
+    car: { name: 'Grey roadster', carNumber: '47', classCode: 'SM' },
     ...partial,
   };
 }
