@@ -16,6 +16,8 @@ export const DEMO_ACCOUNTS = {
 
 export const DEMO_SHOP = 'Kettle Lane Chassis Works';
 export const DEMO_SHOP_TAX_RATE_PCT = 8.25;
+/** What the demo shop prints under its name on invoices (an invented address; 555 numbers are not in service). */
+export const DEMO_SHOP_INVOICE_DETAILS = '7 Kettle Lane, Brindlebury\nTel. 555 0199\nSales tax no. KL-20417';
 export const DEMO_TEAM = 'Gravel Pit Irregulars';
 
 /** The demo season's year, and the class factors the demo captain entered for it (invented). */

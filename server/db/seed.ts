@@ -3,7 +3,17 @@ import { hashPassword } from '../auth/password';
 import { UserEntity } from '../features/users/user.entity';
 import { ShopEntity, ShopMemberEntity } from '../features/shops/shop.entity';
 import { TeamEntity, TeamMemberEntity } from '../features/teams/team.entity';
-import { DEMO_ACCOUNTS, DEMO_CLASS_FACTORS, DEMO_PASSWORD, DEMO_SEASON_YEAR, DEMO_SHOP, DEMO_SHOP_TAX_RATE_PCT, DEMO_TEAM } from './demo-accounts';
+import {
+  DEMO_ACCOUNTS,
+  DEMO_CLASS_FACTORS,
+  DEMO_PASSWORD,
+  DEMO_SEASON_YEAR,
+  DEMO_SHOP,
+  DEMO_SHOP_INVOICE_DETAILS,
+  DEMO_SHOP_TAX_RATE_PCT,
+  DEMO_TEAM,
+} from './demo-accounts';
+import { invoiceTotals, roundedTaxRate } from '../../shared/calc/invoice.calc';
 import { DEMO_CAMBER_ARMS_DATE, seedDemoSeason } from './demo-season';
 import { findUserById } from '../features/users/user.service';
 import { createComment } from '../features/comments/comment.service';
@@ -29,8 +39,8 @@ export async function seedDemo(ds: DataSource): Promise<void> {
       ids[key] = saved.id;
     }
     const shop = await m.getRepository(ShopEntity).save({ name: DEMO_SHOP });
-    // The demo shop charges an invented sales tax, so its invoices show how tax is added.
-    await m.query('UPDATE shops SET tax_rate_pct = $2 WHERE id = $1', [shop.id, DEMO_SHOP_TAX_RATE_PCT]);
+    // The demo shop charges an invented sales tax, so its invoices show how tax is added, and prints its address on them.
+    await m.query('UPDATE shops SET tax_rate_pct = $2, invoice_details = $3 WHERE id = $1', [shop.id, DEMO_SHOP_TAX_RATE_PCT, DEMO_SHOP_INVOICE_DETAILS]);
     await m.getRepository(ShopMemberEntity).save({ shopId: shop.id, userId: ids.shopStaff, isShopAdmin: true });
 
     const team = await m.getRepository(TeamEntity).save({ name: DEMO_TEAM });
@@ -88,8 +98,8 @@ async function seedDemoCollaboration(
 }
 
 /**
- * The shop's visits to Pebble: the mid-season camber-arm change, closed and handed over
- * (linked to the setup snapshot and change-log entries the season already holds), and a
+ * The shop's visits to Pebble: the mid-season camber-arm change, closed, handed over (linked to the setup snapshot
+ * and change-log entries the season already holds), invoiced as the shop's number 1 and paid in cash; and a
  * coilover fit still open with its build sheet part-filled. Invented numbers.
  */
 async function seedDemoServiceVisits(m: EntityManager, ids: Record<keyof typeof DEMO_ACCOUNTS, string>, shopId: string): Promise<void> {
@@ -110,13 +120,28 @@ async function seedDemoServiceVisits(m: EntityManager, ids: Record<keyof typeof 
   );
   await m.query('UPDATE setup_snapshots SET work_order_id = $1 WHERE id = $2', [closed!.id, arms!.id]);
   await m.query('UPDATE change_log SET work_order_id = $1 WHERE car_id = $2 AND setup_id = $3', [closed!.id, pebble!.id, arms!.id]);
-  await m.query(
-    `INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES
-       ($1, 'part', 'Adjustable front camber arm', 2, 18950, 0),
-       ($1, 'labour', 'Fit arms, four-wheel alignment and corner balance', 2.5, 9500, 1)`,
-    [closed!.id],
-  );
+  const armLines = [
+    { kind: 'part', description: 'Adjustable front camber arm', quantity: 2, unitPriceCents: 18950 },
+    { kind: 'labour', description: 'Fit arms, four-wheel alignment and corner balance', quantity: 2.5, unitPriceCents: 9500 },
+  ];
+  for (const [position, line] of armLines.entries()) {
+    await m.query(
+      'INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES ($1, $2, $3, $4, $5, $6)',
+      [closed!.id, line.kind, line.description, line.quantity, line.unitPriceCents, position],
+    );
+  }
   const day = (time: string) => `${DEMO_CAMBER_ARMS_DATE}T${time}:00Z`;
+  // Invoiced at handover and paid over the counter a few minutes later: the shop's first invoice.
+  const taxRatePct = roundedTaxRate(DEMO_SHOP_TAX_RATE_PCT);
+  const totals = invoiceTotals(armLines, taxRatePct);
+  await m.query(
+    `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents, status, paid_at,
+                           paid_method, created_at, number, issuer_name, issuer_details, bill_to, car_name, car_number, car_class_code)
+     SELECT $1, s.id, c.id, s.currency, $4, $5, $6, $7, 'paid', $8, 'cash', $9, 1, s.name, s.invoice_details, u.display_name, c.name,
+            c.car_number, c.class_code
+       FROM shops s, cars c JOIN users u ON u.id = c.owner_id WHERE s.id = $2 AND c.id = $3`,
+    [closed!.id, shopId, pebble!.id, totals.subtotalCents, taxRatePct, totals.taxCents, totals.totalCents, day('15:20'), day('15:05')],
+  );
   await m.query(
     `INSERT INTO work_order_stages (work_order_id, stage, measured_at, driver_in_car, driver_weight_kg, fuel_level_pct) VALUES
        ($1, 'before', $2, true, 74, 50), ($1, 'after', $3, true, 74, 50)`,

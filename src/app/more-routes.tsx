@@ -77,6 +77,11 @@ export function moreRoutes({ signedOutOnly, loading }: MoreRoutesShared): {
         lazy: async () => ({ Component: (await import('./routes/work-orders/work-order')).WorkOrderPage }),
       },
       {
+        // The visit's invoice on a page of its own, to print.
+        path: '/work-orders/:workOrderId/invoice',
+        lazy: async () => ({ Component: (await import('./routes/work-orders/invoice')).InvoicePage }),
+      },
+      {
         path: paths.teams,
         lazy: async () => ({ Component: (await import('./routes/teams/teams')).TeamsPage }),
       },

@@ -247,6 +247,24 @@ describe.each(['phone', 'desktop'] as const)('a service visit, staff then driver
     expect(await page.getByRole('button', { name: 'Pay online' }).count()).toBe(0);
     await noSidewaysScroll(page);
     await screenshot(page, `service-${size}-paid`);
+
+    // The invoice on a page of its own, as it prints: the shop's own lines on it, nothing of the app around it, one page.
+    await page.getByRole('link', { name: 'Open the invoice to print' }).click();
+    const doc = page.getByRole('article', { name: /^Invoice \d+$/ });
+    await doc.waitFor({ timeout: 15_000 });
+    await doc.getByLabel('Shop details').getByText(/Kettle Lane/).waitFor();
+    await doc.getByRole('region', { name: 'For' }).getByText('Maren Holloway').waitFor();
+    await noSidewaysScroll(page);
+    await screenshot(page, `service-${size}-invoice-page`);
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.getByRole('banner').isVisible()).toBe(false);
+    expect(await page.getByRole('navigation', { name: 'Main' }).isVisible()).toBe(false);
+    expect(await page.getByRole('button', { name: 'Print or save as PDF' }).isVisible()).toBe(false);
+    expect(await doc.getByLabel('Invoice status').innerText()).toMatch(/^Paid by card/);
+    const pdf = await page.pdf({ format: 'A4', printBackground: true });
+    writeFileSync(join(SCREENSHOT_DIR, `service-${size}-invoice.pdf`), pdf);
+    expect((pdf.toString('latin1').match(/\/Type\s*\/Page(?!s)/g) ?? []).length).toBe(1);
+    await page.emulateMedia({ media: 'screen' });
   });
 
   it('when the shop opens the work order again, then it reads the invoice as paid', async () => {

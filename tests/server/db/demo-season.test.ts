@@ -4,7 +4,7 @@ import { seededDatabaseUrl } from '../support-seeded';
 import { createDataSource } from '../../../server/db/data-source';
 import { seedDemoIfEmpty } from '../../../server/db/seed';
 import { DEMO_CAMBER_ARMS_DATE } from '../../../server/db/demo-season';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../../server/db/demo-accounts';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_SHOP, DEMO_SHOP_INVOICE_DETAILS } from '../../../server/db/demo-accounts';
 import { verifyPassword } from '../../../server/auth/password';
 
 /** A fresh database on the test cluster holding the demo season, and a connection to it. */
@@ -187,6 +187,23 @@ describe('the demo season', () => {
       [DEMO_ACCOUNTS.coDriver.email]: 3,
       [DEMO_ACCOUNTS.driver.email]: 2,
       [DEMO_ACCOUNTS.shopStaff.email]: 1,
+    });
+  });
+
+  it('when seeded, then the closed camber-arm visit has the shop\'s invoice number 1, paid in cash after the handover, with its totals worked out', async () => {
+    const invoices = await q<{
+      number: number; status: string; paid_method: string; subtotal_cents: number; tax_rate_pct: number; tax_cents: number; total_cents: number;
+      issuer_name: string; issuer_details: string; bill_to: string; car_name: string; after_handover: boolean; paid_after: boolean;
+    }>(a.ds, `
+      SELECT i.number, i.status, i.paid_method, i.subtotal_cents, i.tax_rate_pct, i.tax_cents, i.total_cents, i.issuer_name, i.issuer_details,
+             i.bill_to, i.car_name, i.created_at >= w.handover_at AS after_handover, i.paid_at > i.created_at AS paid_after
+        FROM invoices i JOIN work_orders w ON w.id = i.work_order_id WHERE w.status = 'closed'`);
+    expect(invoices).toHaveLength(1);
+    // By hand: 2 × 189.50 + 2.5 × 95.00 = 379.00 + 237.50 = 616.50; tax 8.25 % of it = 50.86125 → 50.86; total 667.36.
+    expect(invoices[0]).toEqual({
+      number: 1, status: 'paid', paid_method: 'cash', subtotal_cents: 61650, tax_rate_pct: 8.25, tax_cents: 5086, total_cents: 66736,
+      issuer_name: DEMO_SHOP, issuer_details: DEMO_SHOP_INVOICE_DETAILS, bill_to: DEMO_ACCOUNTS.driver.displayName, car_name: 'Pebble',
+      after_handover: true, paid_after: true,
     });
   });
 

@@ -11,7 +11,7 @@ import { isApiError } from '@/lib/api-client';
 import { toast } from '@/lib/toast-store';
 import { formatDay, formatDateTime } from '@/lib/dates';
 import { describeRoles } from '@/features/auth/utils/describe-roles';
-import { TextArea } from '@/features/suggestions/components/text-area';
+import { TextArea } from '@/components/ui/text-area';
 import { failureMessage } from '@/features/teams/utils/online-failure';
 import { useAccounts, useCloseSuspendedAccount, useRestoreAccount, useSetAdmin, useSuspendAccount } from '../api/accounts';
 

@@ -1,14 +1,15 @@
-import { useSearchParams } from 'react-router-dom';
-import { CreditCard } from 'lucide-react';
+import { Link, useSearchParams } from 'react-router-dom';
+import { CreditCard, FileText } from 'lucide-react';
 import type { Invoice } from '@shared/service/invoice.schema';
-import { Button } from '@/components/ui/button';
+import { Button, buttonClasses } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SectionCard } from '@/components/ui/section-card';
 import { isApiError } from '@/lib/api-client';
-import { formatDateTime, formatDay } from '@/lib/dates';
+import { formatDay } from '@/lib/dates';
 import { useWorkOrderInvoice } from '../api/get-invoice';
 import { useMakeInvoice, useMarkPaidInCash, useStartCheckout } from '../api/pay-invoice';
 import { LineItemsTable } from '@/components/line-items/line-items-table';
+import { invoiceStatusWords } from '../utils/invoice-words';
 
 /** After coming back from the checkout, ask a few times while the payment service tells the server. */
 const PAID_POLL_MS = 2000;
@@ -16,14 +17,11 @@ const PAID_POLL_TRIES = 5;
 
 const errorText = (error: unknown) => (error ? (isApiError(error) ? error.message : 'Something went wrong; try again.') : null);
 
-/** A short reference to quote on the phone or on a bank transfer: the start of the invoice's id, in capitals. */
-const invoiceReference = (invoice: Pick<Invoice, 'id'>) => invoice.id.slice(0, 8).toUpperCase();
-
 function InvoiceDetails({ invoice }: { invoice: Invoice }) {
   return (
     <div className="flex flex-col gap-2">
       <p className="tabular-figures text-sm">
-        Issued {formatDay(invoice.createdAt)} · reference <span className="font-semibold">{invoiceReference(invoice)}</span>
+        <span className="font-semibold">Invoice {invoice.number}</span> · issued {formatDay(invoice.createdAt)} · for {invoice.billTo}
       </p>
       <LineItemsTable
         caption="Invoice lines"
@@ -36,12 +34,11 @@ function InvoiceDetails({ invoice }: { invoice: Invoice }) {
         ]}
       />
       <p className="font-bold" aria-label="Invoice status">
-        {invoice.status === 'paid'
-          ? `Paid${invoice.paidMethod === 'cash' ? ' in cash' : invoice.paidMethod === 'card' ? ' by card' : ''}${
-              invoice.paidAt ? ` on ${formatDateTime(invoice.paidAt)}` : ''
-            }`
-          : 'Not paid yet'}
+        {invoiceStatusWords(invoice)}
       </p>
+      <Link to={`/work-orders/${invoice.workOrderId}/invoice`} className={buttonClasses('secondary', 'self-start')}>
+        <FileText aria-hidden="true" className="size-4" /> Open the invoice to print
+      </Link>
     </div>
   );
 }

@@ -1,8 +1,9 @@
 import { useState } from 'react';
 import { formatQuantity } from '@shared/calc/units.calc';
-import { updateShopSettingsInputSchema, type Shop } from '@shared/collab/shop.schema';
+import { INVOICE_DETAILS_MAX, updateShopSettingsInputSchema, type Shop } from '@shared/collab/shop.schema';
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
+import { TextArea } from '@/components/ui/text-area';
 import { TextField } from '@/components/ui/text-field';
 import { UnitInput } from '@/components/ui/unit-input';
 import { isApiError } from '@/lib/api-client';
@@ -31,6 +32,7 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: Shop; onSaved?: () =
   const [tax, setTax] = useState(String(shop.settings.taxRatePct));
   const [currency, setCurrency] = useState(shop.settings.currency.toUpperCase());
   const [tolerance, setTolerance] = useState(toInputText(shop.settings.compressedLengthToleranceMm, 'length', units));
+  const [invoiceDetails, setInvoiceDetails] = useState(shop.settings.invoiceDetails);
   const [localErrors, setLocalErrors] = useState<Record<string, string>>({});
   const save = useUpdateShopSettings(shop.id);
   const serverFields = isApiError(save.error) ? save.error.fieldErrors : {};
@@ -54,6 +56,7 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: Shop; onSaved?: () =
       taxRatePct: taxParsed.kind === 'number' ? taxParsed.value : undefined,
       currency,
       compressedLengthToleranceMm: typeof toleranceMm === 'number' ? toleranceMm : undefined,
+      invoiceDetails,
     };
     // The same rules the server applies, so a mistake is shown before anything is sent.
     const checked = updateShopSettingsInputSchema.safeParse(input);
@@ -95,7 +98,16 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: Shop; onSaved?: () =
         error={errorOf('compressedLengthToleranceMm')}
         onChange={(e) => setTolerance(e.target.value)}
       />
-      <p className="text-sm text-ink-muted">Invoices already made keep the rate and currency they were made with.</p>
+      <TextArea
+        label="Under the shop’s name on invoices"
+        hint="Address, telephone, tax number: what your invoices must carry where you work. Up to 8 lines."
+        rows={4}
+        maxLength={INVOICE_DETAILS_MAX}
+        value={invoiceDetails}
+        error={errorOf('invoiceDetails')}
+        onChange={setInvoiceDetails}
+      />
+      <p className="text-sm text-ink-muted">Invoices already made keep the rate, currency and lines they were made with.</p>
       <FormAlert message={formError} />
       <Button type="submit" className="self-start" isPending={save.isPending} pendingLabel="Saving…">
         Save the settings

@@ -13,7 +13,7 @@ import { useAcceptSuggestion, useDeclineSuggestion } from '../api/decide-suggest
 import { previewChanges } from '../utils/change-rows';
 import { ChangePreview } from './change-preview';
 import { setupOnCarPage } from './suggestion-details';
-import { TextArea } from './text-area';
+import { TextArea } from '@/components/ui/text-area';
 import { UnusualValues, valuesBefore } from './unusual-values';
 
 type Errors = Record<string, string>;

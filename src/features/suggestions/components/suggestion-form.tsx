@@ -20,7 +20,7 @@ import { useCreateSuggestion, type CreateSuggestionBody } from '../api/create-su
 import { CORNER_SETS, FIELD_LABELS, newChangeRow, outOfRange, previewChanges, rowToChange, type ChangeRow } from '../utils/change-rows';
 import { deltaHint, examplePlaceholder } from '../utils/delta-hint';
 import { FromTo } from './change-preview';
-import { TextArea } from './text-area';
+import { TextArea } from '@/components/ui/text-area';
 import { UnusualValues } from './unusual-values';
 
 type Errors = Record<string, string>;

@@ -24,7 +24,7 @@ function stubShop({ admin = true, units = METRIC_PREFERENCES, extra = {} }: { ad
 
 describe('the shop settings', () => {
   it('when an admin sets 8.875 % tax in euros, then exactly that is sent and the page confirms it', async () => {
-    const saved = { ...SHOP, settings: { taxRatePct: 8.875, currency: 'eur', compressedLengthToleranceMm: 15 } };
+    const saved = { ...SHOP, settings: { taxRatePct: 8.875, currency: 'eur', compressedLengthToleranceMm: 15, invoiceDetails: '' } };
     const fetchMock = stubShop({ extra: { [PATCH]: jsonResponse(200, saved) } });
     renderApp('/shop');
     const u = userEvent.setup();
@@ -40,8 +40,28 @@ describe('the shop settings', () => {
       taxRatePct: 8.875,
       currency: 'eur',
       compressedLengthToleranceMm: 15,
+      invoiceDetails: '',
     });
     expect(await within(form).findByText('Saved.')).toBeTruthy();
+  });
+
+  it('when an admin writes the lines for under the shop\'s name, then they are sent with their line breaks; a ninth line is refused beside the box', async () => {
+    const fetchMock = stubShop({ extra: { [PATCH]: jsonResponse(200, SHOP) } });
+    renderApp('/shop');
+    const u = userEvent.setup();
+    const form = await screen.findByRole('form', { name: 'Shop settings' });
+    const box = within(form).getByLabelText('Under the shop’s name on invoices');
+    await u.type(box, Array.from({ length: 9 }, (_, i) => `Line ${i + 1}`).join('{Enter}'));
+    await u.click(within(form).getByRole('button', { name: 'Save the settings' }));
+    expect(await within(form).findByText('Use at most 8 lines')).toBeTruthy();
+    expect(box.getAttribute('aria-invalid')).toBe('true');
+    expect(requestsTo(fetchMock, PATCH)).toHaveLength(0);
+
+    await u.clear(box);
+    await u.type(box, '12 Kettle Lane, Brindle{Enter}Tel. 555 0143');
+    await u.click(within(form).getByRole('button', { name: 'Save the settings' }));
+    await waitFor(() => expect(requestsTo(fetchMock, PATCH)).toHaveLength(1));
+    expect((requestsTo(fetchMock, PATCH)[0]!.body as UpdateShopSettingsInput).invoiceDetails).toBe('12 Kettle Lane, Brindle\nTel. 555 0143');
   });
 
   it('when the tolerance is typed in inches, then it is sent in millimetres', async () => {

@@ -304,8 +304,8 @@ describe('the invoice for shop staff', () => {
 
     const table = await screen.findByRole('table', { name: 'Invoice lines' });
     expect(requestsTo(fetchMock, MAKE_INVOICE)).toHaveLength(1);
-    // When it was made, and a reference to quote: the start of its id, in capitals.
-    expect(screen.getByText(/^Issued /).textContent).toBe(`Issued ${formatDay('2026-06-10T17:00:00.000Z')} · reference 1A111111`);
+    // The shop's own number, when it was made, and for whom.
+    expect(screen.getByText(/^Invoice 14/).closest('p')!.textContent).toBe(`Invoice 14 · issued ${formatDay('2026-06-10T17:00:00.000Z')} · for Maren Holt`);
     expect(within(table).getByRole('cell', { name: 'Labour: Alignment' })).toBeTruthy();
     expect(within(within(table).getByRole('row', { name: /^Subtotal/ })).getByText('$135.00')).toBeTruthy();
     expect(within(within(table).getByRole('row', { name: /^Tax \(8\.875 %\)/ })).getByText('$11.98')).toBeTruthy();

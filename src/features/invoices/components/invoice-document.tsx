@@ -1,0 +1,71 @@
+import type { Invoice } from '@shared/service/invoice.schema';
+import type { WorkOrder } from '@shared/service/work-order.schema';
+import { LineItemsTable } from '@/components/line-items/line-items-table';
+import { formatDay } from '@/lib/dates';
+import { invoiceCarWords, invoiceStatusWords } from '../utils/invoice-words';
+
+/**
+ * The invoice as a document to print or file: the shop and its own lines, the number and dates, who it is for and
+ * which car, the work asked for, the lines and totals, and whether it is paid. Everything but the work order's date
+ * and request is as the invoice was issued.
+ */
+export function InvoiceDocument({ invoice, workOrder }: { invoice: Invoice; workOrder: Pick<WorkOrder, 'visitDate' | 'requestedWork'> }) {
+  return (
+    <article
+      aria-labelledby="invoice-title"
+      className="flex flex-col gap-5 rounded-lg border border-line bg-surface p-4 sm:p-6 print:gap-3 print:border-0 print:p-0 print:text-[10pt]"
+    >
+      <header className="flex flex-col gap-4 sm:flex-row sm:justify-between">
+        <div className="min-w-0">
+          <p className="text-xl font-extrabold break-words print:text-[14pt]">{invoice.issuer.name}</p>
+          {invoice.issuer.details ? (
+            <p aria-label="Shop details" className="text-sm break-words whitespace-pre-line">
+              {invoice.issuer.details}
+            </p>
+          ) : null}
+        </div>
+        <div className="sm:text-right">
+          <h1 id="invoice-title" className="tabular-figures text-2xl font-bold print:text-[16pt]">
+            Invoice {invoice.number}
+          </h1>
+          <dl aria-label="Invoice dates" className="tabular-figures grid grid-cols-[auto_1fr] gap-x-2 text-sm sm:justify-end">
+            <dt className="text-ink-muted">Issued</dt>
+            <dd>{formatDay(invoice.createdAt)}</dd>
+            <dt className="text-ink-muted">Work done</dt>
+            <dd>{formatDay(workOrder.visitDate)}</dd>
+          </dl>
+        </div>
+      </header>
+
+      <section aria-labelledby="invoice-bill-to" className="flex flex-col gap-0.5">
+        <h2 id="invoice-bill-to" className="text-sm font-bold text-ink-muted uppercase">
+          For
+        </h2>
+        <p className="font-semibold break-words">{invoice.billTo}</p>
+        <p className="text-sm break-words">{invoiceCarWords(invoice)}</p>
+      </section>
+
+      <section aria-labelledby="invoice-work" className="flex flex-col gap-0.5">
+        <h2 id="invoice-work" className="text-sm font-bold text-ink-muted uppercase">
+          Work asked for
+        </h2>
+        <p className="text-sm break-words whitespace-pre-line">{workOrder.requestedWork}</p>
+      </section>
+
+      <LineItemsTable
+        caption={`Lines of invoice ${invoice.number}`}
+        currency={invoice.currency}
+        lines={invoice.lines}
+        totals={[
+          { label: 'Subtotal', cents: invoice.subtotalCents },
+          { label: `Tax (${invoice.taxRatePct} %)`, cents: invoice.taxCents },
+          { label: 'Total', cents: invoice.totalCents, weight: 'total' },
+        ]}
+      />
+
+      <p className="font-bold" aria-label="Invoice status">
+        {invoiceStatusWords(invoice)}
+      </p>
+    </article>
+  );
+}
