@@ -3,6 +3,7 @@ import { isoDate, isoDateTime } from '../api/dates.schema';
 import { perCorner, type Corner } from '../season/corners';
 import { LIMITS } from '../season/limits';
 import { versionSchema } from '../season/car.schema';
+import type { InvoiceStatus } from './invoice.schema';
 
 /**
  * Shop service visits (work orders): what the shop was asked to do, the parts and labour,
@@ -171,6 +172,14 @@ export type CloseWorkOrderInput = z.infer<typeof closeWorkOrderInputSchema>;
 /* ---------- Responses ---------- */
 
 /** A visit on the driver's car timeline. */
+/** Where a visit's invoice stands, for the lists: null until the shop makes it. */
+export interface InvoiceStanding {
+  number: number;
+  status: InvoiceStatus;
+  totalCents: number;
+  currency: string;
+}
+
 export interface CarWorkOrderSummary {
   id: string;
   shop: { id: string; name: string };
@@ -179,6 +188,7 @@ export interface CarWorkOrderSummary {
   status: WorkOrderStatus;
   handoverAt: string | null;
   setupId: string | null;
+  invoice: InvoiceStanding | null;
 }
 
 /** A row of the shop's board. */
@@ -190,6 +200,7 @@ export interface ShopWorkOrderRow {
   requestedWork: string;
   status: WorkOrderStatus;
   handoverAt: string | null;
+  invoice: InvoiceStanding | null;
 }
 
 export interface WorkOrderLine {

@@ -5,10 +5,11 @@ import type { CreateSetupInput, SetupCorner } from '@shared/season/setup.schema'
 import { handoverLabel } from '@shared/service/handover-label';
 import {
   BUILD_SHEET_FIELDS, MEASUREMENT_FIELDS,
-  type BuildSheetCorner, type BuildSheetInput, type CarWorkOrderSummary, type CloseWorkOrderInput, type CreateWorkOrderInput,
+  type BuildSheetCorner, type BuildSheetInput, type CarWorkOrderSummary, type CloseWorkOrderInput, type CreateWorkOrderInput, type InvoiceStanding,
   type MeasuredCorner, type MeasurementsInput, type ReplaceLinesInput, type ShopWorkOrderRow, type Stage, type StageDiff,
   type UpdateWorkOrderInput, type WorkOrder, type WorkOrderStage, type WorkOrderStatus,
 } from '@shared/service/work-order.schema';
+import type { InvoiceStatus } from '@shared/service/invoice.schema';
 import { balanceIfComplete, buildSheetChecks } from '@shared/calc/build-sheet.calc';
 import { invoiceLineCents, roundedTaxRate } from '@shared/calc/invoice.calc';
 import { AppError, staleVersion } from '../../lib/app-error';
@@ -183,15 +184,29 @@ export async function createWorkOrder(ds: DataSource, user: User, carId: string,
   return { workOrder: await loadWorkOrder(ds, input.id!), created: false };
 }
 
+/** A visit's invoice as the lists show it, from `invoices i` joined on the visit. */
+const INVOICE_STANDING_COLUMNS = 'i.number AS invoice_number, i.status AS invoice_status, i.total_cents AS invoice_total_cents, i.currency AS invoice_currency';
+interface InvoiceStandingRow {
+  invoice_number: number | null;
+  invoice_status: InvoiceStatus | null;
+  invoice_total_cents: number | null;
+  invoice_currency: string | null;
+}
+const invoiceStanding = (r: InvoiceStandingRow): InvoiceStanding | null =>
+  r.invoice_number === null
+    ? null
+    : { number: r.invoice_number, status: r.invoice_status!, totalCents: r.invoice_total_cents!, currency: r.invoice_currency! };
+
 /** The car's visits, oldest first: its drivers see every visit, shop staff their own shops' visits. */
 export async function listCarWorkOrders(ds: DataSource, user: User, carId: string): Promise<CarWorkOrderSummary[]> {
   await assertCarAccess(ds, user, carId, 'read');
   const relations = await carRelations(ds, user.id, carId);
   const drives = relations.includes('owner') || relations.includes('co_driver');
-  const rows: { id: string; shop_id: string; shop_name: string; visit_date: string | Date; requested_work: string; status: WorkOrderStatus; handover_at: Date | null; setup_id: string | null }[] =
+  const rows: ({ id: string; shop_id: string; shop_name: string; visit_date: string | Date; requested_work: string; status: WorkOrderStatus; handover_at: Date | null; setup_id: string | null } & InvoiceStandingRow)[] =
     await ds.query(
-      `SELECT w.id, w.shop_id, s.name AS shop_name, w.visit_date::text AS visit_date, w.requested_work, w.status, w.handover_at, w.setup_id
-         FROM work_orders w JOIN shops s ON s.id = w.shop_id
+      `SELECT w.id, w.shop_id, s.name AS shop_name, w.visit_date::text AS visit_date, w.requested_work, w.status, w.handover_at, w.setup_id,
+              ${INVOICE_STANDING_COLUMNS}
+         FROM work_orders w JOIN shops s ON s.id = w.shop_id LEFT JOIN invoices i ON i.work_order_id = w.id
         WHERE w.car_id = $1 AND ($3 OR EXISTS (SELECT 1 FROM shop_members m WHERE m.shop_id = w.shop_id AND m.user_id = $2))
         ORDER BY w.visit_date, w.created_at`,
       [carId, user.id, drives],
@@ -204,16 +219,18 @@ export async function listCarWorkOrders(ds: DataSource, user: User, carId: strin
     status: r.status,
     handoverAt: iso(r.handover_at),
     setupId: r.setup_id,
+    invoice: invoiceStanding(r),
   }));
 }
 
 /** The shop's board: open visits (or closed, or all), newest visit first. */
 export async function listShopWorkOrders(ds: DataSource, user: User, shopId: string, status?: WorkOrderStatus): Promise<ShopWorkOrderRow[]> {
   await assertShopAccess(ds, user, shopId, 'read');
-  const rows: { id: string; car_id: string; car_name: string; owner_id: string; owner_name: string; visit_date: string | Date; requested_work: string; status: WorkOrderStatus; handover_at: Date | null }[] =
+  const rows: ({ id: string; car_id: string; car_name: string; owner_id: string; owner_name: string; visit_date: string | Date; requested_work: string; status: WorkOrderStatus; handover_at: Date | null } & InvoiceStandingRow)[] =
     await ds.query(
-      `SELECT w.id, w.car_id, c.name AS car_name, c.owner_id, u.display_name AS owner_name, w.visit_date::text AS visit_date, w.requested_work, w.status, w.handover_at
-         FROM work_orders w JOIN cars c ON c.id = w.car_id JOIN users u ON u.id = c.owner_id
+      `SELECT w.id, w.car_id, c.name AS car_name, c.owner_id, u.display_name AS owner_name, w.visit_date::text AS visit_date, w.requested_work, w.status, w.handover_at,
+              ${INVOICE_STANDING_COLUMNS}
+         FROM work_orders w JOIN cars c ON c.id = w.car_id JOIN users u ON u.id = c.owner_id LEFT JOIN invoices i ON i.work_order_id = w.id
         WHERE w.shop_id = $1 AND ($2::text IS NULL OR w.status = $2)
         ORDER BY w.visit_date DESC, w.created_at DESC`,
       [shopId, status ?? null],
@@ -226,6 +243,7 @@ export async function listShopWorkOrders(ds: DataSource, user: User, shopId: str
     requestedWork: r.requested_work,
     status: r.status,
     handoverAt: iso(r.handover_at),
+    invoice: invoiceStanding(r),
   }));
 }
 

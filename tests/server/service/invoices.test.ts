@@ -193,6 +193,26 @@ describe('invoice numbers and the parties on an invoice', () => {
     expect((await g.driver.c.get(`/api/work-orders/${made.workOrderId}/invoice`)).body).toMatchObject(issued);
   });
 
+  it('when the shop and the drivers list the visits, then each closed one says where its invoice stands: none yet, not paid, paid', async () => {
+    const g = await invoicedSetup();
+    const bare = await visit(t, { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id });
+    const made = (await g.staff.c.post(`/api/work-orders/${g.workOrderId}/invoice`)).body;
+    const standing = async () => {
+      const board = (await g.staff.c.get(`/api/shops/${g.shopId}/work-orders?status=closed`)).body.items as { id: string; invoice: unknown }[];
+      const car = (await g.driver.c.get(`/api/cars/${g.driver.carId}/work-orders`)).body.items as { id: string; invoice: unknown }[];
+      expect(new Map(car.map((r) => [r.id, r.invoice]))).toEqual(new Map(board.map((r) => [r.id, r.invoice])));
+      return new Map(board.map((r) => [r.id, r.invoice]));
+    };
+    expect(await standing()).toEqual(
+      new Map<string, unknown>([
+        [g.workOrderId, { number: made.number, status: 'open', totalCents: 67840, currency: 'eur' }],
+        [bare, null],
+      ]),
+    );
+    expect((await g.staff.c.post(`/api/invoices/${made.id}/mark-paid`, { method: 'cash' })).status).toBe(200);
+    expect((await standing()).get(g.workOrderId)).toEqual({ number: made.number, status: 'paid', totalCents: 67840, currency: 'eur' });
+  });
+
   it('when invoices were made before they had numbers, then adding the columns numbers each shop\'s in the order they were made and names the parties as they are now', async () => {
     const db = await seededDatabaseUrl();
     const ds = createDataSource(db.url, { poolSize: 1 });

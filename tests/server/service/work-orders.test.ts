@@ -113,8 +113,8 @@ describe('lists', () => {
     const mine = await driver.c.get(`/api/cars/${driver.carId}/work-orders`);
     expect(mine.status).toBe(200);
     expect(mine.body.items).toEqual([
-      { id: workOrder.id, shop: { id: shopId, name: SHOP_NAME }, visitDate: '2026-06-12', requestedWork: VISIT.requestedWork, status: 'open', handoverAt: null, setupId: null },
-      { id: theirs.body.id, shop: { id: second.shopId, name: 'Second shop' }, visitDate: '2026-07-01', requestedWork: 'Corner balance', status: 'open', handoverAt: null, setupId: null },
+      { id: workOrder.id, shop: { id: shopId, name: SHOP_NAME }, visitDate: '2026-06-12', requestedWork: VISIT.requestedWork, status: 'open', handoverAt: null, setupId: null, invoice: null },
+      { id: theirs.body.id, shop: { id: second.shopId, name: 'Second shop' }, visitDate: '2026-07-01', requestedWork: 'Corner balance', status: 'open', handoverAt: null, setupId: null, invoice: null },
     ]);
     const staffView = await staff.c.get(`/api/cars/${driver.carId}/work-orders`);
     expect(staffView.body.items.map((w: { id: string }) => w.id)).toEqual([workOrder.id]);
@@ -127,7 +127,7 @@ describe('lists', () => {
     expect(board.body.items).toEqual([
       {
         id: workOrder.id, car: { id: driver.carId, name: 'Blue roadster' }, owner: { id: driver.user.id, displayName: 'Nell Ashdown' },
-        visitDate: '2026-06-12', requestedWork: VISIT.requestedWork, status: 'open', handoverAt: null,
+        visitDate: '2026-06-12', requestedWork: VISIT.requestedWork, status: 'open', handoverAt: null, invoice: null,
       },
     ]);
     expect((await staff.c.get(`/api/shops/${shopId}/work-orders?status=closed`)).body.items).toEqual([]);

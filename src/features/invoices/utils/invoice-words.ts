@@ -1,5 +1,7 @@
 import type { Invoice } from '@shared/service/invoice.schema';
+import type { InvoiceStanding } from '@shared/service/work-order.schema';
 import { formatDateTime } from '@/lib/dates';
+import { formatMoney } from '@/lib/money';
 
 /** "Paid in cash on 12 Jun 2026, 16:05", or "Not paid yet". */
 export function invoiceStatusWords(invoice: Pick<Invoice, 'status' | 'paidMethod' | 'paidAt'>): string {
@@ -11,4 +13,10 @@ export function invoiceStatusWords(invoice: Pick<Invoice, 'status' | 'paidMethod
 /** The car as the invoice names it: "Pebble #42 · class SR". */
 export function invoiceCarWords({ car }: Pick<Invoice, 'car'>): string {
   return `${car.name}${car.carNumber ? ` #${car.carNumber}` : ''} · class ${car.classCode}`;
+}
+
+/** A visit's invoice in the lists: "Invoice 3 · $156.96 · not paid", or that there is none yet. */
+export function invoiceStandingWords(invoice: InvoiceStanding | null): string {
+  if (!invoice) return 'No invoice yet';
+  return `Invoice ${invoice.number} · ${formatMoney(invoice.totalCents, invoice.currency)} · ${invoice.status === 'paid' ? 'paid' : 'not paid'}`;
 }

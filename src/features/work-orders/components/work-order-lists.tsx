@@ -10,6 +10,7 @@ import { formatDay, todayIsoDate } from '@/lib/dates';
 import { useCreateWorkOrder } from '../api/create-work-order';
 import { useCarWorkOrders } from '../api/get-car-work-orders';
 import { useShopWorkOrders } from '../api/get-shop-work-orders';
+import { invoiceStandingWords } from '@/features/invoices/utils/invoice-words';
 import type { WorkOrderStatus } from '@shared/service/work-order.schema';
 
 const STATUS_WORDS = { open: 'Open', closed: 'Closed' } as const;
@@ -31,6 +32,7 @@ export function CarVisits({ carId }: { carId: string }) {
           <p className="text-sm break-words">{visit.requestedWork}</p>
           <p className="text-sm text-ink-muted">
             {STATUS_WORDS[visit.status]}
+            {visit.status === 'closed' ? ` · ${invoiceStandingWords(visit.invoice)}` : null}
             {visit.setupId ? (
               <>
                 {' · '}
@@ -81,6 +83,9 @@ export function ShopBoard({ shopId, status = 'open' }: { shopId: string; status?
                 {row.handoverAt ? ` · handed over ${formatDay(row.handoverAt)}` : ''}
               </span>
               <span className="text-sm break-words">{row.requestedWork}</span>
+              {row.status === 'closed' ? (
+                <span className={row.invoice?.status === 'paid' ? 'text-sm text-ink-muted' : 'text-sm font-semibold'}>{invoiceStandingWords(row.invoice)}</span>
+              ) : null}
             </Link>
           </li>
         ))}

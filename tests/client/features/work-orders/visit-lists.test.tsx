@@ -25,6 +25,7 @@ const VISIT: CarWorkOrderSummary = {
   status: 'closed',
   handoverAt: '2026-06-10T16:30:00.000Z',
   setupId: SERVICE_IDS.newSetup,
+  invoice: { number: 14, status: 'paid', totalCents: 14698, currency: 'usd' },
 };
 
 describe('shop visits on the car page', () => {
@@ -36,6 +37,8 @@ describe('shop visits on the car page', () => {
     expect(link.getAttribute('href')).toBe(`/work-orders/${SERVICE_IDS.workOrder}`);
     expect(within(visits).getByText('Four-wheel alignment and corner weights')).toBeTruthy();
     expect(within(visits).getByRole('link', { name: 'Setup it wrote' }).getAttribute('href')).toBe(`/cars/${IDS.car}#setup-${SERVICE_IDS.newSetup}`);
+    // Where its invoice stands, in the line with its state.
+    expect(within(visits).getByText(/^Closed/).textContent).toBe('Closed · Invoice 14 · $146.98 · paid · Setup it wrote');
   });
 });
 
@@ -49,6 +52,7 @@ describe('the shop’s board', () => {
       requestedWork: 'Corner weights',
       status: 'open',
       handoverAt: null,
+      invoice: null,
     };
     stubFetch({
       'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
@@ -61,6 +65,8 @@ describe('the shop’s board', () => {
     const board = await screen.findByRole('list', { name: 'Open work orders' });
     expect(within(board).getByRole('link', { name: /Grey roadster/ }).getAttribute('href')).toBe(`/work-orders/${SERVICE_IDS.workOrder}`);
     expect(within(board).getByText('Maren Holt')).toBeTruthy();
+    // An open visit is not invoiced yet, and says nothing of it.
+    expect(within(board).queryByText(/invoice/i)).toBeNull();
   });
 });
 
@@ -73,6 +79,7 @@ describe('finding a visit again once it is closed', () => {
     requestedWork: `Visit ${n}`,
     status: 'closed',
     handoverAt: `2026-05-${String(30 - n).padStart(2, '0')}T16:00:00.000Z`,
+    invoice: n === 1 ? null : { number: 20 - n, status: n === 2 ? 'open' : 'paid', totalCents: 10000 + n, currency: 'usd' },
   });
 
   it('when the shop has closed visits, then its page lists the latest eight, newest first, each one card-sized link with its handover day, and shows the rest on request', async () => {
@@ -94,6 +101,10 @@ describe('finding a visit again once it is closed', () => {
     // The whole card is the link, with the day it was handed over.
     expect(links[0]!.textContent).toContain('Visit 1');
     expect(links[0]!.textContent).toContain(`handed over ${formatDay(rows[0]!.handoverAt!)}`);
+    // Each says where its invoice stands, so one not made or not paid is seen from the list.
+    expect(within(links[0]!).getByText('No invoice yet')).toBeTruthy();
+    expect(within(links[1]!).getByText('Invoice 18 · $100.02 · not paid').className).toContain('font-semibold');
+    expect(within(links[2]!).getByText('Invoice 17 · $100.03 · paid').className).toContain('text-ink-muted');
     expect(screen.getByText('No open work orders. Open one from a customer’s car.')).toBeTruthy();
 
     await u.click(screen.getByRole('button', { name: 'Show all 10 closed visits' }));
