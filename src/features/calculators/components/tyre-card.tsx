@@ -7,6 +7,7 @@ import { TextField } from '@/components/ui/text-field';
 import { UnitInput } from '@/components/ui/unit-input';
 import { unitSymbol } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
+import { useCars } from '@/features/cars/api/get-cars';
 import { formatNumber, formatPrecise, readQuantity, runCalc } from '../utils/calc-fields';
 import { CalcHeading, CalculatorCard, CheckTheNumbers, ResultNote, ResultRow, Results } from './calculator-card';
 
@@ -32,7 +33,10 @@ function readSize(size: string): { kind: 'empty' } | { kind: 'ok'; value: TyreDi
 /** Nominal dimensions from a tyre size, and cold ↔ hot pressure at constant volume. */
 export function TyreCard() {
   const units = useUnits();
+  const { data: cars } = useCars();
   const [size, setSize] = useState('');
+  // The sizes on the user's own cars, each once, to fill the field with one tap.
+  const carSizes = [...new Map((cars?.items ?? []).filter((c) => c.tyreSize).map((c) => [c.tyreSize!, c.name])).entries()];
   const [direction, setDirection] = useState<Direction>('coldToHot');
   const [pressure, setPressure] = useState('');
   const [fromTemp, setFromTemp] = useState('');
@@ -71,7 +75,7 @@ export function TyreCard() {
       <CalcHeading>Size → dimensions</CalcHeading>
       <TextField
         label="Tyre size"
-        placeholder="245/40R18"
+        placeholder="e.g. 245/40R18"
         autoComplete="off"
         spellCheck={false}
         value={size}
@@ -79,6 +83,21 @@ export function TyreCard() {
         error={dims.kind === 'error' ? dims.message : undefined}
         hint="Width mm / aspect ratio % R rim inches"
       />
+      {carSizes.length > 0 ? (
+        <div role="group" aria-label="Sizes on your cars" className="flex flex-wrap gap-2">
+          {carSizes.map(([carSize, carName]) => (
+            <button
+              key={carSize}
+              type="button"
+              aria-pressed={size.trim() === carSize}
+              className="min-h-tap rounded-full border border-line-strong px-3 text-sm font-semibold text-link aria-pressed:border-accent aria-pressed:bg-accent-soft"
+              onClick={() => setSize(carSize)}
+            >
+              {carName}: {carSize}
+            </button>
+          ))}
+        </div>
+      ) : null}
       <Results label="Nominal tyre dimensions">
         {dims.kind === 'ok' ? (
           <>

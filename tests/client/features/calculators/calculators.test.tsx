@@ -1,11 +1,13 @@
 // @vitest-environment jsdom
-import { cleanup, render, screen, within } from '@testing-library/react';
+import { cleanup, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { MemoryRouter } from 'react-router-dom';
 import { afterEach, describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
 import { UnitsProvider } from '@/lib/units-context';
 import { CalculatorsPage } from '@/app/routes/calculators/calculators';
+import { renderWithQueryClient, stubFetch, type StubRoutes } from '../../test-utils';
+import { CAR, list } from '../../fixtures/season';
 
 /*
  * Expected values are worked by hand from published formulas (each case names its source); the calculators
@@ -14,8 +16,10 @@ import { CalculatorsPage } from '@/app/routes/calculators/calculators';
 
 afterEach(cleanup);
 
-function renderPage(units: UnitPreferences) {
-  render(
+/** The page in the given units; the user's cars (none unless given) are asked for by the tyre card. */
+function renderPage(units: UnitPreferences, routes: StubRoutes = { 'GET /api/cars': list([]) }) {
+  stubFetch(routes);
+  renderWithQueryClient(
     <MemoryRouter>
       <UnitsProvider units={units}>
         <CalculatorsPage />
@@ -202,6 +206,24 @@ describe('tyre size and pressure calculator', () => {
     const u = renderPage(METRIC_PREFERENCES);
     await u.type(card('Tyre size and pressure').getByLabelText('Tyre size'), '245/40R18');
     expect(result('Nominal tyre dimensions', 'Overall diameter (nominal)')).toBe('653.2 mm');
+  });
+
+  it('when the user has cars with tyre sizes, then one tap on a size fills the field and shows its dimensions; each size is offered once', async () => {
+    const u = renderPage(METRIC_PREFERENCES, {
+      'GET /api/cars': list([
+        { ...CAR, id: 'c2222222-2222-4222-8222-222222222222', name: 'Winter hack', tyreSize: null },
+        { ...CAR, name: 'Grey roadster', tyreSize: '205/50R15' },
+        { ...CAR, id: 'c3333333-3333-4333-8333-333333333333', name: 'Spare shell', tyreSize: '205/50R15' },
+      ]),
+    });
+    const tyre = card('Tyre size and pressure');
+    const offered = await tyre.findByRole('group', { name: 'Sizes on your cars' });
+    expect(within(offered).getAllByRole('button').map((b) => b.textContent)).toEqual(['Spare shell: 205/50R15']);
+    await u.click(within(offered).getByRole('button', { name: 'Spare shell: 205/50R15' }));
+    expect((tyre.getByLabelText('Tyre size') as HTMLInputElement).value).toBe('205/50R15');
+    expect(within(offered).getByRole('button', { name: 'Spare shell: 205/50R15' }).getAttribute('aria-pressed')).toBe('true');
+    // By hand: 205 × 0.50 = 102.5 mm of sidewall; 15 × 25.4 + 2 × 102.5 = 586.0 mm (ETRTO / TRA conventions).
+    expect(result('Nominal tyre dimensions', 'Overall diameter (nominal)')).toBe('586.0 mm');
   });
 
   it('when 200 kPa cold at 15 °C warms to 60 °C, then the hot pressure is 247.1 kPa (absolute pressures scaled)', async () => {
