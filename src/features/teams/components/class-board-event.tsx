@@ -4,8 +4,7 @@ import { ArrowLeft, ChevronLeft, ChevronRight } from 'lucide-react';
 import type { ClassBoard } from '@shared/collab/team.schema';
 import { EmptyState } from '@/components/ui/empty-state';
 import { formatDay } from '@/lib/dates';
-import { formatPercent } from '@/lib/numbers';
-import { boardTime, formatFactor, noTimeWords, rawConesWords } from '../utils/board-format';
+import { boardTime, formatFactor, noTimeWords, offFastestWords, rawConesWords } from '../utils/board-format';
 import {
   boardEvents,
   eventBoardPath,
@@ -17,12 +16,6 @@ import {
   type EventClass,
   type EventLine,
 } from '../utils/event-board';
-
-/** How far the line is off the class's fastest at the event, in words. */
-function offFastestWords(pct: number | null): string | null {
-  if (pct === null) return null;
-  return pct === 0 ? 'Fastest in class' : `${formatPercent(pct)} off fastest`;
-}
 
 function Line({ line, hasFactor }: { line: EventLine; hasFactor: boolean }) {
   const { car, result } = line;

@@ -2,7 +2,7 @@ import type { BoardAxleWear, BoardCar, BoardResult } from '@shared/collab/team.s
 import { formatQuantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { formatRunTime } from '@shared/season/run-time';
 import { formatShortDay } from '@/lib/dates';
-import { toInputText } from '@/lib/numbers';
+import { formatPercent, toInputText } from '@/lib/numbers';
 
 /** A class factor as entered: at least three decimals ("0.850", "0.853"), and the fourth when it has one ("0.8535"). */
 export function formatFactor(factor: number): string {
@@ -33,6 +33,12 @@ export function noTimeWords(result: Pick<BoardResult, 'bestAdjustedSec' | 'runs'
 export function rawConesWords(cones: number | null): string | null {
   if (!cones) return null;
   return `+${cones} ${cones === 1 ? 'cone' : 'cones'}`;
+}
+
+/** How far a line is off its class's fastest at an event, in words; null when it has no time to compare. */
+export function offFastestWords(pct: number | null): string | null {
+  if (pct === null) return null;
+  return pct === 0 ? 'Fastest in class' : `${formatPercent(pct)} off fastest`;
 }
 
 /** Below this a slope is shown as holding steady: it would read "0.00 %", as the board's percentages are to 0.01. */
