@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, inject, it } from 'vitest';
 import type { MailboxMessage } from '@shared/collab/mailbox.schema';
-import { onePhoneAtATime, screenshot } from './browser';
+import { onePhoneAtATime, PHONE, screenshot } from './browser';
 
 /**
  * The demo shop reviews a customer's season and suggests a change; the driver hears of it
@@ -122,17 +122,36 @@ describe('a shop reviews a customer, the driver accepts its suggestion, the capt
     await sh.getByText('Biscuit Tin').first().waitFor();
     // Pebble shares its setup; Gooseberry and Biscuit Tin share results only.
     await sr.getByRole('table', { name: 'Setup of Pebble' }).waitFor();
-    // On the phone's first screen, beside each event: the adjusted time and its gap to the class's fastest, what the
-    // class is compared on; raw and index times are a swipe away.
+    await sh.getByText(/setup and tread not shared/i).first().waitFor();
+    // On a phone each car's events are a list, each event's gap to the class's fastest under its link, nothing a swipe
+    // away; the table is not displayed, so screen readers meet the results once. At 320 px too.
+    for (const width of [PHONE.width, 320]) {
+      await page.setViewportSize({ width, height: 640 });
+      for (const name of ['Pebble', 'Gooseberry', 'Biscuit Tin']) {
+        expect(await page.getByRole('region', { name: `Results of ${name}` }).count(), `${name} at ${width} px`).toBe(0);
+        const items = page.getByRole('list', { name: `Results of ${name}` }).getByRole('listitem');
+        expect(await items.count(), `${name} at ${width} px`).toBeGreaterThan(0);
+        for (const item of await items.all()) {
+          const { text, right } = await item.evaluate((li) => ({ text: li.textContent ?? '', right: li.getBoundingClientRect().right }));
+          expect(text, `${name} at ${width} px`).toMatch(/ off fastest|Fastest in class|No other time in class|DNF|Off course|No time/);
+          expect(right, `${name} at ${width} px: ${text}`).toBeLessThanOrEqual(width);
+          expect(await item.getByRole('link').count(), text).toBe(1);
+        }
+      }
+      const sideways = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+      expect(sideways, `at ${width} px`).toBeLessThanOrEqual(0);
+      await screenshot(page, `captain-class-board-${width}`);
+    }
+    // From the sm width up the table stands in for the list, its gap column within its box.
+    await page.setViewportSize({ width: 1024, height: 768 });
+    expect(await sr.getByRole('list', { name: 'Results of Pebble' }).count()).toBe(0);
     const results = sr.getByRole('region', { name: 'Results of Pebble' });
     const box = (await results.boundingBox())!;
     for (const head of [/^Adjusted \(s\)/, /^Off fastest/]) {
       const cell = (await results.getByRole('columnheader', { name: head }).boundingBox())!;
       expect(cell.x + cell.width, String(head)).toBeLessThanOrEqual(box.x + box.width + 1);
     }
-    await sh.getByText(/setup and tread not shared/i).first().waitFor();
-    const sideways = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
-    expect(sideways).toBeLessThanOrEqual(0);
-    await screenshot(page, 'captain-class-board');
+    await screenshot(page, 'captain-class-board-wide');
+    await page.setViewportSize(PHONE);
   });
 });

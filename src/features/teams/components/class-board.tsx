@@ -9,7 +9,7 @@ import { recordPath } from '@/config/record-paths';
 import { formatDay, formatShortDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { aloneWords, boardTime, formatFactor, noTimeWords, rawConesWords, setupLines, trendWords, wearLine } from '../utils/board-format';
+import { aloneWords, boardTime, formatFactor, noTimeWords, offFastestWords, rawConesWords, setupLines, trendWords, wearLine } from '../utils/board-format';
 import { eventBoardPath } from '../utils/event-board';
 import type { TrendPoint } from './trend-chart';
 
@@ -39,20 +39,92 @@ interface EventLinks {
   season: number;
 }
 
+/** One event of the car on a phone: where and who on top, its numbers under them, all within the screen's width. */
+function ResultItem({ result: r, hasFactor, links }: { result: BoardResult; hasFactor: boolean; links: EventLinks }) {
+  const noTime = noTimeWords(r);
+  const off = r.aloneInClass ? 'No other time in class' : offFastestWords(r.pctOffClassFastest);
+  const cones = rawConesWords(r.bestRawCones);
+  const more = [
+    r.rankInClass === null ? null : `Rank ${r.rankInClass}`,
+    r.bestRawSec === null ? null : `Raw ${boardTime(r.bestRawSec)} s${cones ? `, ${cones}` : ''}`,
+    hasFactor && r.indexSec !== null ? `Index ${boardTime(r.indexSec)} s` : null,
+  ].filter((part) => part !== null);
+  return (
+    // The event's link reaches over the whole item, a target for a thumb; read aloud, it is named by the event alone.
+    <li className="relative border-b border-line py-2 last:border-b-0">
+      <Link
+        to={eventBoardPath(links.teamId, links.season, r.eventId)}
+        className="block font-semibold text-balance break-words text-link underline after:absolute after:inset-0"
+      >
+        {r.eventName}
+      </Link>
+      <p className="text-xs break-words text-ink-muted">
+        {formatDay(r.date)} · {r.driver.displayName}
+      </p>
+      <p className="tabular-figures flex flex-wrap items-baseline gap-x-3">
+        {noTime ? (
+          <span className="font-bold break-words">{noTime}</span>
+        ) : (
+          <span className="text-base font-bold whitespace-nowrap">
+            <span className="sr-only">Adjusted </span>
+            {boardTime(r.bestAdjustedSec)}
+            {r.bestAdjustedSec === null ? null : ' s'}
+          </span>
+        )}
+        {off ? (
+          <span className="whitespace-nowrap">
+            <span className="sr-only">, </span>
+            {off}
+          </span>
+        ) : null}
+      </p>
+      {more.length > 0 ? (
+        <p className="tabular-figures flex flex-wrap gap-x-2 text-xs text-ink-muted">
+          {more.map((part, i) => (
+            <span key={part} className="whitespace-nowrap">
+              {i > 0 ? <span className="sr-only">, </span> : null}
+              {part}
+            </span>
+          ))}
+        </p>
+      ) : null}
+    </li>
+  );
+}
+
+/**
+ * The car's events on a phone: one list item each, so the gap to the class's fastest sits under its event
+ * instead of a swipe away. From the `sm` width up the table takes its place; only one of the two is ever
+ * displayed, so screen readers meet the results once.
+ */
+function ResultsList({ car, hasFactor, links }: { car: BoardCar; hasFactor: boolean; links: EventLinks }) {
+  const results = [...car.results].sort(byDate);
+  return (
+    <div className="flex flex-col gap-1 text-sm sm:hidden">
+      <p className="text-xs text-ink-muted">Best adjusted time, cones added, and how far off the class’s fastest.</p>
+      <ol aria-label={`Results of ${car.car.name}`} className="flex flex-col">
+        {results.map((r) => (
+          <ResultItem key={`${r.eventId}-${r.driver.id}`} result={r} hasFactor={hasFactor} links={links} />
+        ))}
+      </ol>
+    </div>
+  );
+}
+
 function ResultsTable({ car, hasFactor, links }: { car: BoardCar; hasFactor: boolean; links: EventLinks }) {
   const results = [...car.results].sort(byDate);
   const head = 'px-1.5 py-2 text-right align-bottom font-semibold';
   const num = 'tabular-figures px-1.5 py-2 text-right whitespace-nowrap';
   return (
-    // On a phone the event column stays put while the numbers scroll past it.
-    <SideScroll label={`Results of ${car.car.name}`} more="raw times and index times">
+    // Should the table be wider than its box, the event column stays put while the numbers scroll past it.
+    <SideScroll label={`Results of ${car.car.name}`}>
       <table className="w-full border-collapse text-left text-sm">
         <thead>
           <tr className="border-b border-line text-ink-muted">
             <th scope="col" className="sticky left-0 bg-surface py-2 pr-2 font-semibold">
               Event, date, driver
             </th>
-            {/* What the class is compared on comes first, on a phone's first screen; raw and index follow. */}
+            {/* What the class is compared on comes first; raw and index follow. */}
             <th scope="col" className={head}>
               <span className="whitespace-nowrap">Adjusted (s)</span>
               <span className="block text-xs font-normal">best, with cones</span>
@@ -86,7 +158,7 @@ function ResultsTable({ car, hasFactor, links }: { car: BoardCar; hasFactor: boo
               <td className={`${num} font-bold`}>{noTimeWords(r) ?? boardTime(r.bestAdjustedSec)}</td>
               <td className={num}>
                 {r.pctOffClassFastest === null ? '—' : formatPercent(r.pctOffClassFastest)}
-                {/* Wrapped to the column's width: the column stays on the phone's first screen. */}
+                {/* Wrapped to the column's width, so the column stays narrow. */}
                 {r.aloneInClass ? <span className="block text-xs font-normal whitespace-normal text-ink-muted">no other time</span> : null}
               </td>
               <td className={num}>{r.rankInClass ?? '—'}</td>
@@ -199,7 +271,7 @@ function BoardCarCard({
 }) {
   const headingId = useId();
   return (
-    <article aria-labelledby={headingId} className="flex min-w-0 flex-col gap-3 rounded border border-line p-3">
+    <article aria-labelledby={headingId} className="flex min-w-0 flex-col gap-3 rounded border border-line p-2.5 sm:p-3">
       <div className="flex flex-wrap items-baseline gap-x-2">
         <h3 id={headingId} className="text-lg font-bold break-words">
           {car.car.name}
@@ -207,7 +279,17 @@ function BoardCarCard({
         </h3>
         <span className="text-sm text-ink-muted">{car.owner.displayName}’s car</span>
       </div>
-      {car.results.length === 0 ? <p className="text-sm text-ink-muted">No results this season yet.</p> : <ResultsTable car={car} hasFactor={hasFactor} links={links} />}
+      {car.results.length === 0 ? (
+        <p className="text-sm text-ink-muted">No results this season yet.</p>
+      ) : (
+        <>
+          <ResultsList car={car} hasFactor={hasFactor} links={links} />
+          {/* Not displayed on a phone, where the list stands in for it. */}
+          <div className="hidden sm:block">
+            <ResultsTable car={car} hasFactor={hasFactor} links={links} />
+          </div>
+        </>
+      )}
       {car.results.length > 0 ? <Trend car={car} classCode={classCode} alone={alone} /> : null}
       <SetupSummary car={car} />
       <WearSummary car={car} />
@@ -232,7 +314,7 @@ export function ClassBoardView({ board }: { board: ClassBoard }) {
         </Caution>
       ) : null}
       {board.classes.map((group) => (
-        <section key={group.classCode} aria-label={`Class ${group.classCode}`} className="flex min-w-0 flex-col gap-3 rounded-lg border border-line bg-surface p-4">
+        <section key={group.classCode} aria-label={`Class ${group.classCode}`} className="flex min-w-0 flex-col gap-3 rounded-lg border border-line bg-surface p-3 sm:p-4">
           <div className="flex flex-wrap items-baseline justify-between gap-2">
             <h2 className="text-xl font-bold">Class {group.classCode}</h2>
             <p className="tabular-figures text-sm text-ink-muted">

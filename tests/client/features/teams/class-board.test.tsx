@@ -8,7 +8,7 @@ import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '.
 import { user } from '../../fixtures/season';
 import type { BoardCar } from '../../../../shared/collab/team.schema';
 import { chartGiven, layOutChart, tickLabels } from '../../chart-layout';
-import { formatShortDay } from '@/lib/dates';
+import { formatDay, formatShortDay } from '@/lib/dates';
 import { BOARD, INES_BOARD_CAR, MAREN_BOARD_CAR, SILVER_BOARD_CAR, TEAM_IDS } from './team-fixtures';
 
 // A canvas draws nothing in jsdom: stand in for the trend line, keeping what it was given.
@@ -22,6 +22,9 @@ const classSection = (code: string) => screen.getByRole('region', { name: `Class
 const rowsOf = (carName: string) => within(screen.getByRole('region', { name: `Results of ${carName}` })).getAllByRole('row').slice(1);
 const cells = (row: HTMLElement) => within(row).getAllByRole('cell').map((c) => c.textContent);
 const rowHeader = (row: HTMLElement) => within(row).getByRole('rowheader').textContent;
+/** A car's events as a phone lists them, one item each: the item's lines in order, joined by " | ". */
+const phoneItems = (carName: string) => within(screen.getByRole('list', { name: `Results of ${carName}` })).getAllByRole('listitem');
+const phoneLines = (carName: string) => phoneItems(carName).map((item) => [...item.children].map((line) => line.textContent).join(' | '));
 
 describe('class board', () => {
   it('when a season is asked for, then times show to the thousandth, index times use the class factor, and "—" shows where there is none', async () => {
@@ -48,8 +51,35 @@ describe('class board', () => {
     expect(within(classSection('STR')).getByText('Factor 0.853')).toBeTruthy();
     const [ines] = rowsOf('White roadster');
     expect(cells(ines!)).toEqual(['1:03.250', '0.00 %', '1', '1:01.250 +1 cone', '53.952']);
-    // On a phone the raw and index columns are off to the right: each table says so.
-    expect(screen.getAllByText('Swipe the table sideways for raw times and index times.')).toHaveLength(screen.getAllByRole('region', { name: /^Results of / }).length);
+  });
+
+  it('when the board is read on a phone, then each event is one list item: its link, date and driver, then the adjusted time, how far off the class’s fastest, rank, raw and index, in seconds', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
+    });
+    renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
+
+    await screen.findByRole('region', { name: 'Class SM' });
+    // Below the sm width these lists are displayed instead of the tables (tests/e2e/collaboration.spec.ts checks that
+    // a phone shows only the list, and a wide screen only the table): nothing is left a swipe away.
+    expect(phoneLines('Grey roadster')).toEqual([
+      `Harrow Flats — Round 3 | ${formatDay('2026-05-17')} · Maren Holt | Adjusted 47.600 s, +1.20 % off fastest | Rank 2, Raw 45.600 s, +1 cone`,
+      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Maren Holt | Adjusted 44.900 s, +0.80 % off fastest | Rank 2, Raw 44.900 s`,
+    ]);
+    // The gap is in the same item as the event it belongs to, and the event's name alone names its link.
+    const [round3] = phoneItems('Grey roadster');
+    expect(within(round3!).getByRole('link', { name: 'Harrow Flats — Round 3' }).getAttribute('href')).toBe(
+      `/teams/${TEAM_IDS.team}/board?season=2026&event=${MAREN_BOARD_CAR.results[0]!.eventId}`,
+    );
+    expect(phoneLines('Silver roadster')[0]).toBe(
+      `Harrow Flats — Round 3 | ${formatDay('2026-05-17')} · Ines Okafor | Adjusted 47.036 s, Fastest in class | Rank 1, Raw 47.036 s`,
+    );
+    // STR has a factor: the index time joins the line; past 60 s times read as minutes.
+    expect(phoneLines('White roadster')).toEqual([
+      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Ines Okafor | Adjusted 1:03.250 s, Fastest in class | Rank 1, Raw 1:01.250 s, +1 cone, Index 53.952 s`,
+    ]);
+    expect(screen.queryByText(/Swipe the table sideways/)).toBeNull();
   });
 
   it('when a day’s runs were all DNF or off course, then the line says so with the number of runs, not only dashes', async () => {
@@ -76,6 +106,12 @@ describe('class board', () => {
       ['DNF (2 runs)', '—', '—', '—', '—'],
       ['No time: 1 DNF, 2 off course', '—', '—', '—', '—'],
       ['Off course (1 run)', '—', '—', '—', '—'],
+    ]);
+    // On a phone the same words, and no line of dashes under them.
+    expect(phoneLines('Grey roadster')).toEqual([
+      `Harrow Flats — Round 3 | ${formatDay('2026-05-17')} · Maren Holt | DNF (2 runs)`,
+      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Maren Holt | No time: 1 DNF, 2 off course`,
+      `Harrow Flats — Round 5 | ${formatDay('2026-06-21')} · Maren Holt | Off course (1 run)`,
     ]);
   });
 
@@ -202,6 +238,9 @@ describe('class board', () => {
     await screen.findByRole('region', { name: 'Class STR' });
     const [line] = rowsOf('White roadster');
     expect(cells(line!).slice(0, 3)).toEqual(['1:03.250', '—no other time', '—']);
+    expect(phoneLines('White roadster')).toEqual([
+      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Ines Okafor | Adjusted 1:03.250 s, No other time in class | Raw 1:01.250 s, +1 cone, Index 53.952 s`,
+    ]);
   });
 
   it('when a car is the only one in its class with times, then it says so instead of a trend against itself, and no line is drawn', async () => {
