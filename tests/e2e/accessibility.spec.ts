@@ -226,8 +226,9 @@ describe('WCAG 2.2 A and AA checks that axe-core can make, on every main screen 
 
 /**
  * WCAG 2.2 SC 1.4.10 Reflow: at 320 CSS px wide nothing needs scrolling sideways, except content that needs two
- * dimensions to be read (the class board's table, which scrolls inside its own box). And the bottom bar's tabs keep
- * their words on one line, so no icon is pushed out of line with the others.
+ * dimensions to be read (a season table opened under the review's charts, which scrolls inside its own box; the
+ * class board is a list at this width). And the bottom bar's tabs keep their words on one line, so no icon is
+ * pushed out of line with the others.
  */
 describe('reflow at 320 CSS px wide, the narrowest phone in common use', () => {
   /** For each page, how far it scrolls sideways and whether the bottom bar's tabs are all one height. */
