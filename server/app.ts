@@ -36,7 +36,7 @@ import { carSuggestionRoutes, suggestionRoutes } from './features/suggestions/su
 import { teamRoutes } from './features/teams/team.routes';
 import { invitationRoutes, oneClickUnsubscribe, unsubscribeRoutes } from './features/invitations/invitation.routes';
 import { mailboxRoutes } from './features/dev/mailbox.routes';
-import { invoiceRoutes, workOrderInvoiceRoutes } from './features/invoices/invoice.routes';
+import { invoiceRoutes, shopInvoiceRoutes, workOrderInvoiceRoutes } from './features/invoices/invoice.routes';
 import { paymentWebhookRoutes } from './features/payments/payment.routes';
 import type { PaymentSettings } from './features/payments/payment-settings';
 import { carWorkOrderRoutes, shopWorkOrderRoutes, workOrderRoutes } from './features/work-orders/work-order.routes';
@@ -187,6 +187,7 @@ export function createApp(opts: AppOptions) {
   mount('/api/notifications', notificationRoutes(opts.ds, opts.mail));
   mount('/api/suggestions', suggestionRoutes(opts.ds, opts.mail));
   mount('/api/shops/:shopId/work-orders', shopWorkOrderRoutes(opts.ds));
+  mount('/api/shops/:shopId/invoices', shopInvoiceRoutes(opts.ds));
   mount('/api/shops', shopRoutes(opts.ds, opts.mail));
   mount('/api/work-orders/:workOrderId/invoice', workOrderInvoiceRoutes(opts.ds));
   mount('/api/work-orders', workOrderRoutes(opts.ds, opts.mail));

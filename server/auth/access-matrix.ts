@@ -206,6 +206,9 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'PATCH /api/shops/:shopId/settings': 'shop.manage',
   'POST /api/work-orders/:workOrderId/invoice': 'work_order.mark_paid',
   'GET /api/work-orders/:workOrderId/invoice': 'work_order.read',
+  /** Its visit's rule; the shop's staff also keep reading it once the visit is gone. */
+  'GET /api/invoices/:invoiceId': 'work_order.read',
+  'GET /api/shops/:shopId/invoices': 'shop.read',
   'POST /api/invoices/:invoiceId/checkout': 'work_order.pay',
   'POST /api/invoices/:invoiceId/mark-paid': 'work_order.mark_paid',
   /** The payment service's signed events: no session; the signature is the check. */

@@ -27,6 +27,7 @@ import { CoDriverNotice1765584000000 } from './migrations/1765584000000-co-drive
 import { UsedUpParts1765670400000 } from './migrations/1765670400000-used-up-parts';
 import { RunsOnTyreSets1765756800000 } from './migrations/1765756800000-runs-on-tyre-sets';
 import { InvoiceNumbers1765843200000 } from './migrations/1765843200000-invoice-numbers';
+import { InvoiceBook1765929600000 } from './migrations/1765929600000-invoice-book';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -43,6 +44,7 @@ export const migrations = [
   UsedUpParts1765670400000,
   RunsOnTyreSets1765756800000,
   InvoiceNumbers1765843200000,
+  InvoiceBook1765929600000,
 ];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */

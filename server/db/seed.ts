@@ -13,7 +13,7 @@ import {
   DEMO_SHOP_TAX_RATE_PCT,
   DEMO_TEAM,
 } from './demo-accounts';
-import { invoiceTotals, roundedTaxRate } from '../../shared/calc/invoice.calc';
+import { invoiceLineCents, invoiceTotals, roundedTaxRate } from '../../shared/calc/invoice.calc';
 import { DEMO_CAMBER_ARMS_DATE, seedDemoSeason } from './demo-season';
 import { findUserById } from '../features/users/user.service';
 import { createComment } from '../features/comments/comment.service';
@@ -134,14 +134,23 @@ async function seedDemoServiceVisits(m: EntityManager, ids: Record<keyof typeof 
   // Invoiced at handover and paid over the counter a few minutes later: the shop's first invoice.
   const taxRatePct = roundedTaxRate(DEMO_SHOP_TAX_RATE_PCT);
   const totals = invoiceTotals(armLines, taxRatePct);
-  await m.query(
+  const [invoice]: { id: string }[] = await m.query(
     `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents, status, paid_at,
-                           paid_method, created_at, number, issuer_name, issuer_details, bill_to, car_name, car_number, car_class_code)
-     SELECT $1, s.id, c.id, s.currency, $4, $5, $6, $7, 'paid', $8, 'cash', $9, 1, s.name, s.invoice_details, u.display_name, c.name,
-            c.car_number, c.class_code
-       FROM shops s, cars c JOIN users u ON u.id = c.owner_id WHERE s.id = $2 AND c.id = $3`,
-    [closed!.id, shopId, pebble!.id, totals.subtotalCents, taxRatePct, totals.taxCents, totals.totalCents, day('15:20'), day('15:05')],
+                           paid_method, created_at, number, issuer_name, issuer_details, bill_to, car_name, car_number, car_class_code,
+                           visit_date, requested_work)
+     SELECT w.id, s.id, c.id, s.currency, $2, $3, $4, $5, 'paid', $6, 'cash', $7, 1, s.name, s.invoice_details, u.display_name, c.name,
+            c.car_number, c.class_code, w.visit_date, w.requested_work
+       FROM work_orders w JOIN shops s ON s.id = w.shop_id JOIN cars c ON c.id = w.car_id JOIN users u ON u.id = c.owner_id WHERE w.id = $1
+     RETURNING id`,
+    [closed!.id, totals.subtotalCents, taxRatePct, totals.taxCents, totals.totalCents, day('15:20'), day('15:05')],
   );
+  for (const [position, line] of armLines.entries()) {
+    await m.query(
+      `INSERT INTO invoice_lines (invoice_id, position, kind, description, quantity, unit_price_cents, used_up, amount_cents)
+       VALUES ($1, $2, $3, $4, $5, $6, false, $7)`,
+      [invoice!.id, position, line.kind, line.description, line.quantity, line.unitPriceCents, invoiceLineCents(line)],
+    );
+  }
   await m.query(
     `INSERT INTO work_order_stages (work_order_id, stage, measured_at, driver_in_car, driver_weight_kg, fuel_level_pct) VALUES
        ($1, 'before', $2, true, 74, 50), ($1, 'after', $3, true, 74, 50)`,

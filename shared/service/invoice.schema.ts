@@ -36,9 +36,10 @@ export interface Invoice extends InvoiceParties {
   id: string;
   /** The shop's own sequence: 1, 2, 3 … in the order its invoices were made, with no gaps. */
   number: number;
-  workOrderId: string;
+  /** Null once the visit, or its car, was deleted: the invoice stays the shop's record. */
+  workOrderId: string | null;
   shopId: string;
-  carId: string;
+  carId: string | null;
   currency: string;
   lines: InvoiceLine[];
   subtotalCents: number;
@@ -51,12 +52,31 @@ export interface Invoice extends InvoiceParties {
   /** A driver has opened the hosted checkout at least once. */
   checkoutStarted: boolean;
   createdAt: string;
+  /** The visit's day and what was asked for, as they stood when the invoice was made. */
+  visitDate: string;
+  requestedWork: string;
+}
+
+/** A line of the shop's invoice book. */
+export interface ShopInvoiceRow extends Pick<InvoiceParties, 'billTo' | 'car'> {
+  id: string;
+  number: number;
+  workOrderId: string | null;
+  totalCents: number;
+  currency: string;
+  status: InvoiceStatus;
+  paidAt: string | null;
+  createdAt: string;
+  visitDate: string;
 }
 
 /** POST /api/invoices/:invoiceId/checkout answers where to send the driver to pay. */
 export interface CheckoutRedirect {
   url: string;
 }
+
+/** `GET /api/shops/:shopId/invoices?status=`: all of them, or only those not paid yet (`open`) or `paid`. */
+export const invoiceListQuerySchema = z.strictObject({ status: z.optional(z.enum(INVOICE_STATUSES)) });
 
 /** The shop took the money over the counter. */
 export const markPaidInputSchema = z.strictObject({

@@ -3,7 +3,7 @@ import type { ReactNode } from 'react';
 import { paths } from '@/config/paths';
 
 /**
- * Pages most people open now and then: the shop's and the team's, suggestions and work orders, the admin's accounts,
+ * Pages most people open now and then: the shop's and the team's, suggestions, work orders and invoices, the admin's accounts,
  * the printable setup sheet, the timing-sheet import, and the pages reached from an e-mail.
  * The router learns of them only when the address asks for one (see `discoverRoutes` in
  * router.tsx), so their entries stay out of the first download that the trackside page needs.
@@ -77,9 +77,9 @@ export function moreRoutes({ signedOutOnly, loading }: MoreRoutesShared): {
         lazy: async () => ({ Component: (await import('./routes/work-orders/work-order')).WorkOrderPage }),
       },
       {
-        // The visit's invoice on a page of its own, to print.
-        path: '/work-orders/:workOrderId/invoice',
-        lazy: async () => ({ Component: (await import('./routes/work-orders/invoice')).InvoicePage }),
+        // An invoice on a page of its own, to print; the shop's record, kept after its visit is gone.
+        path: '/invoices/:invoiceId',
+        lazy: async () => ({ Component: (await import('./routes/invoices/invoice')).InvoicePage }),
       },
       {
         path: paths.teams,

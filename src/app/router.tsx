@@ -25,7 +25,7 @@ const ROOT_ROUTE_ID = 'root';
 
 /** Addresses of the pages in more-routes.tsx: only these make the router fetch that list. */
 export const MORE_ROUTES_PATH =
-  /^\/(shop|teams|accounts|suggestions|work-orders|setups|invitations|unsubscribe|dev|forgot-password|reset-password|cars\/[^/]+\/(import|suggestions))(\/|$)/;
+  /^\/(shop|teams|accounts|suggestions|work-orders|invoices|setups|invitations|unsubscribe|dev|forgot-password|reset-password|cars\/[^/]+\/(import|suggestions))(\/|$)/;
 
 export type AppRouter = ReturnType<typeof createBrowserRouter>;
 

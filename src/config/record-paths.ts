@@ -19,6 +19,7 @@ export const recordPath = {
     `/shop/customers/${carId}/suggestions/new${baseSetupId ? `?from=${encodeURIComponent(baseSetupId)}` : ''}`,
   suggestion: (suggestionId: string) => `/suggestions/${suggestionId}`,
   workOrder: (workOrderId: string) => `/work-orders/${workOrderId}`,
+  invoice: (invoiceId: string) => `/invoices/${invoiceId}`,
   team: (teamId: string) => `/teams/${teamId}`,
   classBoard: (teamId: string) => `/teams/${teamId}/board`,
   /** Timing-sheet import for one car, optionally at a chosen event. */

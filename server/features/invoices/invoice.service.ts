@@ -1,12 +1,12 @@
 import type Stripe from 'stripe';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
-import type { CheckoutRedirect, Invoice, InvoiceLine, InvoiceStatus, PaymentMethod } from '@shared/service/invoice.schema';
+import type { CheckoutRedirect, Invoice, InvoiceLine, InvoiceStatus, PaymentMethod, ShopInvoiceRow } from '@shared/service/invoice.schema';
 import type { LineKind } from '@shared/service/work-order.schema';
 import { invoiceLineCents, invoiceTotals, roundedTaxRate } from '@shared/calc/invoice.calc';
 import { AppError } from '../../lib/app-error';
 import { logger } from '../../lib/logger';
-import { assertWorkOrderAccess, type Queryable, type WorkOrderAction } from '../../auth/access';
+import { assertShopAccess, assertWorkOrderAccess, type Queryable, type WorkOrderAction } from '../../auth/access';
 import type { PaymentSettings } from '../payments/payment-settings';
 
 /** The largest amount the invoices table holds (a PostgreSQL integer), in cents. */
@@ -14,9 +14,10 @@ const MAX_CENTS = 2_147_483_647;
 
 interface InvoiceRow {
   id: string;
-  work_order_id: string;
+  /** Null once the visit, or its car, was deleted: the invoice stays the shop's record. */
+  work_order_id: string | null;
   shop_id: string;
-  car_id: string;
+  car_id: string | null;
   currency: string;
   subtotal_cents: number;
   tax_rate_pct: number;
@@ -34,6 +35,9 @@ interface InvoiceRow {
   car_name: string;
   car_number: string | null;
   car_class_code: string;
+  /** `visit_date::text`. */
+  visit_day: string;
+  requested_work: string;
 }
 
 interface LineRow {
@@ -46,7 +50,8 @@ interface LineRow {
 
 const invoiceNotFound = () => new AppError('not_found', 'That invoice was not found.');
 
-async function linesOf(db: Queryable, workOrderId: string): Promise<LineRow[]> {
+/** The visit's lines, as the invoice copies them when it is made. */
+async function visitLines(db: Queryable, workOrderId: string): Promise<LineRow[]> {
   return db.query(
     'SELECT kind, description, quantity, unit_price_cents, used_up FROM work_order_lines WHERE work_order_id = $1 ORDER BY position, id',
     [workOrderId],
@@ -55,22 +60,23 @@ async function linesOf(db: Queryable, workOrderId: string): Promise<LineRow[]> {
 
 async function loadInvoice(db: Queryable, where: { id: string } | { workOrderId: string }): Promise<Invoice | null> {
   const rows: InvoiceRow[] = await db.query(
-    `SELECT * FROM invoices WHERE ${'id' in where ? 'id' : 'work_order_id'} = $1`,
+    `SELECT *, visit_date::text AS visit_day FROM invoices WHERE ${'id' in where ? 'id' : 'work_order_id'} = $1`,
     ['id' in where ? where.id : where.workOrderId],
   );
   const r = rows[0];
   if (!r) return null;
-  const lines: InvoiceLine[] = (await linesOf(db, r.work_order_id)).map((l) => {
-    const quantity = Number(l.quantity);
-    return {
-      kind: l.kind,
-      description: l.description,
-      quantity,
-      unitPriceCents: l.unit_price_cents,
-      usedUp: l.used_up,
-      amountCents: invoiceLineCents({ quantity, unitPriceCents: l.unit_price_cents }),
-    };
-  });
+  const lineRows: (LineRow & { amount_cents: number })[] = await db.query(
+    'SELECT kind, description, quantity, unit_price_cents, used_up, amount_cents FROM invoice_lines WHERE invoice_id = $1 ORDER BY position',
+    [r.id],
+  );
+  const lines: InvoiceLine[] = lineRows.map((l) => ({
+    kind: l.kind,
+    description: l.description,
+    quantity: Number(l.quantity),
+    unitPriceCents: l.unit_price_cents,
+    usedUp: l.used_up,
+    amountCents: l.amount_cents,
+  }));
   return {
     id: r.id,
     number: r.number,
@@ -91,21 +97,36 @@ async function loadInvoice(db: Queryable, where: { id: string } | { workOrderId:
     issuer: { name: r.issuer_name, details: r.issuer_details },
     billTo: r.bill_to,
     car: { name: r.car_name, carNumber: r.car_number, classCode: r.car_class_code },
+    visitDate: r.visit_day,
+    requestedWork: r.requested_work,
   };
 }
 
-/** The invoice's work order, after checking the user may do `action` to it; 404 for an invoice they cannot see. */
-async function assertInvoiceAccess(db: Queryable, user: User, invoiceId: string, action: WorkOrderAction) {
-  const rows: { work_order_id: string }[] = await db.query('SELECT work_order_id FROM invoices WHERE id = $1', [invoiceId]);
-  const workOrderId = rows[0]?.work_order_id;
-  if (!workOrderId) throw invoiceNotFound();
+/**
+ * The invoice's work order, after checking the user may do `action` to it; 404 for an invoice they cannot see. Staff
+ * of the invoice's shop read it always: it is the shop's record, kept after the visit, the car or the grant is gone.
+ * With the visit gone, they alone may also take cash for it; nobody may pay it online.
+ */
+async function assertInvoiceAccess(db: Queryable, user: User, invoiceId: string, action: WorkOrderAction): Promise<string | null> {
+  const rows: { work_order_id: string | null; staff: boolean }[] = await db.query(
+    `SELECT i.work_order_id, EXISTS (SELECT 1 FROM shop_members m WHERE m.shop_id = i.shop_id AND m.user_id = $2) AS staff
+       FROM invoices i WHERE i.id = $1`,
+    [invoiceId, user.id],
+  );
+  const row = rows[0];
+  if (!row) throw invoiceNotFound();
+  if (row.staff && (action === 'read' || (action === 'mark_paid' && row.work_order_id === null))) return row.work_order_id;
+  if (!row.work_order_id) {
+    if (row.staff) throw new AppError('forbidden', 'This invoice\'s visit was deleted with its car; it can no longer be paid online.');
+    throw invoiceNotFound();
+  }
   try {
-    await assertWorkOrderAccess(db, user, workOrderId, action);
+    await assertWorkOrderAccess(db, user, row.work_order_id, action);
   } catch (err) {
     if (err instanceof AppError && err.code === 'not_found') throw invoiceNotFound();
     throw err;
   }
-  return workOrderId;
+  return row.work_order_id;
 }
 
 /**
@@ -117,8 +138,8 @@ async function assertInvoiceAccess(db: Queryable, user: User, invoiceId: string,
 export async function createInvoice(ds: DataSource, user: User, workOrderId: string): Promise<{ invoice: Invoice; created: boolean }> {
   await assertWorkOrderAccess(ds, user, workOrderId, 'mark_paid');
   const { id, created } = await ds.transaction(async (m) => {
-    const orders: { status: string; shop_id: string; car_id: string }[] = await m.query(
-      'SELECT status, shop_id, car_id FROM work_orders WHERE id = $1 FOR UPDATE',
+    const orders: { status: string; shop_id: string; car_id: string; visit_date: string; requested_work: string }[] = await m.query(
+      'SELECT status, shop_id, car_id, visit_date::text AS visit_date, requested_work FROM work_orders WHERE id = $1 FOR UPDATE',
       [workOrderId],
     );
     const order = orders[0];
@@ -136,23 +157,30 @@ export async function createInvoice(ds: DataSource, user: User, workOrderId: str
     const last: { number: number | null }[] = await m.query('SELECT max(number) AS number FROM invoices WHERE shop_id = $1', [order.shop_id]);
     const shop = shops[0]!;
     const taxRatePct = roundedTaxRate(shop.tax_rate_pct);
-    const totals = invoiceTotals(
-      (await linesOf(m, workOrderId)).map((l) => ({ quantity: Number(l.quantity), unitPriceCents: l.unit_price_cents })),
-      taxRatePct,
-    );
+    const lines = (await visitLines(m, workOrderId)).map((l) => ({ ...l, quantity: Number(l.quantity) }));
+    const totals = invoiceTotals(lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unit_price_cents })), taxRatePct);
     if (totals.totalCents > MAX_CENTS) throw new AppError('conflict', 'This invoice would be too large to keep; split the work into smaller orders.');
     const rows: { id: string }[] = await m.query(
       `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents,
-                             number, issuer_name, issuer_details, bill_to, car_name, car_number, car_class_code)
-       SELECT $1, $2, c.id, $4, $5, $6, $7, $8, $9, $10, $11, u.display_name, c.name, c.car_number, c.class_code
+                             number, issuer_name, issuer_details, bill_to, car_name, car_number, car_class_code, visit_date, requested_work)
+       SELECT $1, $2, c.id, $4, $5, $6, $7, $8, $9, $10, $11, u.display_name, c.name, c.car_number, c.class_code, $12, $13
          FROM cars c JOIN users u ON u.id = c.owner_id WHERE c.id = $3
        RETURNING id`,
       [
         workOrderId, order.shop_id, order.car_id, shop.currency, totals.subtotalCents, taxRatePct, totals.taxCents, totals.totalCents,
-        (last[0]?.number ?? 0) + 1, shop.name, shop.invoice_details,
+        (last[0]?.number ?? 0) + 1, shop.name, shop.invoice_details, order.visit_date, order.requested_work,
       ],
     );
-    return { id: rows[0]!.id, created: true };
+    const id = rows[0]!.id;
+    // The lines as billed, on the invoice itself, so they outlive the visit.
+    for (const [position, l] of lines.entries()) {
+      await m.query(
+        `INSERT INTO invoice_lines (invoice_id, position, kind, description, quantity, unit_price_cents, used_up, amount_cents)
+         VALUES ($1, $2, $3, $4, $5, $6, $7, $8)`,
+        [id, position, l.kind, l.description, l.quantity, l.unit_price_cents, l.used_up, invoiceLineCents({ quantity: l.quantity, unitPriceCents: l.unit_price_cents })],
+      );
+    }
+    return { id, created: true };
   });
   return { invoice: (await loadInvoice(ds, { id }))!, created };
 }
@@ -163,6 +191,37 @@ export async function getWorkOrderInvoice(ds: DataSource, user: User, workOrderI
   const invoice = await loadInvoice(ds, { workOrderId });
   if (!invoice) throw new AppError('not_found', 'There is no invoice for this work order yet.');
   return invoice;
+}
+
+/** One invoice by its id: the shop's staff always, the car's drivers while the visit is there. */
+export async function getInvoice(ds: DataSource, user: User, invoiceId: string): Promise<Invoice> {
+  await assertInvoiceAccess(ds, user, invoiceId, 'read');
+  return (await loadInvoice(ds, { id: invoiceId }))!;
+}
+
+/** The shop's invoice book, newest number first: all, or only those `open` (not paid yet) or `paid`. */
+export async function listShopInvoices(ds: DataSource, user: User, shopId: string, status?: InvoiceStatus): Promise<ShopInvoiceRow[]> {
+  await assertShopAccess(ds, user, shopId, 'read');
+  const rows: Pick<InvoiceRow, 'id' | 'number' | 'work_order_id' | 'bill_to' | 'car_name' | 'car_number' | 'car_class_code' | 'total_cents' | 'currency' | 'status' | 'paid_at' | 'created_at' | 'visit_day'>[] =
+    await ds.query(
+      `SELECT id, number, work_order_id, bill_to, car_name, car_number, car_class_code, total_cents, currency, status, paid_at, created_at,
+              visit_date::text AS visit_day
+         FROM invoices WHERE shop_id = $1 AND ($2::text IS NULL OR status = $2) ORDER BY number DESC`,
+      [shopId, status ?? null],
+    );
+  return rows.map((r) => ({
+    id: r.id,
+    number: r.number,
+    workOrderId: r.work_order_id,
+    billTo: r.bill_to,
+    car: { name: r.car_name, carNumber: r.car_number, classCode: r.car_class_code },
+    totalCents: r.total_cents,
+    currency: r.currency,
+    status: r.status,
+    paidAt: r.paid_at?.toISOString() ?? null,
+    createdAt: r.created_at.toISOString(),
+    visitDate: r.visit_day,
+  }));
 }
 
 /**
@@ -176,7 +235,8 @@ export async function startCheckout(
   user: User,
   invoiceId: string,
 ): Promise<CheckoutRedirect> {
-  const workOrderId = await assertInvoiceAccess(ds, user, invoiceId, 'pay');
+  // Paying online needs the visit: without it the access check has refused already.
+  const workOrderId = (await assertInvoiceAccess(ds, user, invoiceId, 'pay'))!;
   if (!payments) throw new AppError('unavailable', 'Paying online is not set up on this server; pay the shop directly.');
   const rows: (InvoiceRow & { shop_name: string; car_name: string })[] = await ds.query(
     `SELECT i.*, s.name AS shop_name, c.name AS car_name
@@ -319,7 +379,7 @@ export interface CardPayment {
 export async function markPaidByCard(
   m: EntityManager,
   payment: CardPayment,
-): Promise<{ workOrderId: string; carId: string; shopId: string; totalCents: number; currency: string } | null> {
+): Promise<{ workOrderId: string | null; carId: string | null; shopId: string; totalCents: number; currency: string } | null> {
   const rows: InvoiceRow[] = await m.query('SELECT * FROM invoices WHERE id = $1 FOR UPDATE', [payment.invoiceId]);
   const invoice = rows[0];
   if (!invoice || invoice.status !== 'open') return null;

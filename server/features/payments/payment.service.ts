@@ -58,6 +58,8 @@ export async function handlePaymentEvent(ds: DataSource, mail: MailSettings | un
 
     const paid = await markPaidByCard(m, { invoiceId, amountCents: session.amount_total, currency: session.currency });
     if (!paid) return { outcome: 'ignored', outbox: [] };
+    // A visit deleted with its car meanwhile leaves nobody to tell but the books.
+    if (!paid.carId || !paid.workOrderId) return { outcome: 'paid', outbox: [] };
     const audience = await carAudience(m, paid.carId);
     const payer = audience.drivers[0];
     const box = payer

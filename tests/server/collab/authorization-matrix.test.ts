@@ -127,13 +127,7 @@ async function closedWorkOrder(withInvoice = true) {
     [randomUUID(), f.grantedShop, f.car, people.grantedStaff.id],
   );
   await sql(`INSERT INTO work_order_lines (work_order_id, kind, description, quantity, unit_price_cents, position) VALUES ($1, 'labour', 'Alignment', 1, 9000, 0)`, [id]);
-  const invoice = withInvoice
-    ? await one(
-        `INSERT INTO invoices (work_order_id, shop_id, car_id, currency, subtotal_cents, tax_rate_pct, tax_cents, total_cents)
-         VALUES ($1, $2, $3, 'usd', 9000, 0, 0, 9000) RETURNING id`,
-        [id, f.grantedShop, f.car],
-      )
-    : null;
+  const invoice = withInvoice ? ((await people.grantedStaff.c.post(`/api/work-orders/${id}/invoice`)).body.id as string) : null;
   return { workOrder: id, invoice: invoice! };
 }
 
@@ -465,6 +459,8 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
     expect: [403, 403, 404, 201, 404, 404, 404, 404, 401],
   },
   'GET /api/work-orders/:workOrderId/invoice': { call: async () => ({ path: `/api/work-orders/${(await closedWorkOrder()).workOrder}/invoice` }), expect: CAR_READ },
+  'GET /api/invoices/:invoiceId': { call: async () => ({ path: `/api/invoices/${(await closedWorkOrder()).invoice}` }), expect: CAR_READ },
+  'GET /api/shops/:shopId/invoices': { call: () => ({ path: `/api/shops/${f.grantedShop}/invoices` }), expect: [404, 404, 404, 200, 404, 404, 404, 404, 401] },
   'POST /api/invoices/:invoiceId/checkout': {
     call: async () => ({ path: `/api/invoices/${(await closedWorkOrder()).invoice}/checkout` }),
     expect: [200, 200, 404, 403, 404, 404, 404, 404, 401],

@@ -28,7 +28,7 @@ describe('POST /api/shops and GET /api/shops/mine', () => {
       isShopAdmin: true,
       pendingInvitations: [],
       // The defaults from the migration: no tax, US dollars, 15 mm compressed-length tolerance.
-      settings: { taxRatePct: 0, currency: 'usd', compressedLengthToleranceMm: 15 },
+      settings: { taxRatePct: 0, currency: 'usd', compressedLengthToleranceMm: 15, invoiceDetails: '' },
     });
     const mine = await c.get('/api/shops/mine');
     expect(mine.status).toBe(200);

@@ -11,6 +11,7 @@ import { fakeSettings, visit } from './invoice-fixtures';
 import { seededDatabaseUrl } from '../support-seeded';
 import { createDataSource } from '../../../server/db/data-source';
 import { InvoiceNumbers1765843200000 } from '../../../server/db/migrations/1765843200000-invoice-numbers';
+import { InvoiceBook1765929600000 } from '../../../server/db/migrations/1765929600000-invoice-book';
 
 let t: TestApp;
 let fake: FakePayments;
@@ -218,8 +219,11 @@ describe('invoice numbers and the parties on an invoice', () => {
     const ds = createDataSource(db.url, { poolSize: 1 });
     await ds.initialize();
     const migration = new InvoiceNumbers1765843200000();
+    const book = new InvoiceBook1765929600000();
     const runner = ds.createQueryRunner();
     try {
+      // Back to the invoices as they were before both: no numbers, no copies of lines or visit.
+      await book.down(runner);
       await migration.down(runner);
       // The demo's own invoice goes: these two are made as the app made them then.
       await runner.query('DELETE FROM invoices');
@@ -234,6 +238,7 @@ describe('invoice numbers and the parties on an invoice', () => {
         );
       }
       await migration.up(runner);
+      await book.up(runner);
       const rows = await runner.query(
         `SELECT i.work_order_id, i.number, i.issuer_name, i.issuer_details, i.bill_to, i.car_name, i.car_number, i.car_class_code
            FROM invoices i ORDER BY i.number`,
@@ -249,12 +254,83 @@ describe('invoice numbers and the parties on an invoice', () => {
         [orders[0]!.id, 2],
       ]);
       expect(rows[0]).toMatchObject({ ...expected[0], issuer_details: '' });
+      // Each copied its visit's lines (by hand: the closed visit bills 2 × 189.50 and 2.5 h × 95.00, the open one
+      // 2 × 89.00, 2 × 24.00 and 4 h × 95.00) and its day and request.
+      const copied = await runner.query(
+        `SELECT i.work_order_id, i.visit_date::text AS day, i.requested_work = w.requested_work AS same_words,
+                array_agg(l.amount_cents ORDER BY l.position) AS amounts
+           FROM invoices i JOIN work_orders w ON w.id = i.work_order_id JOIN invoice_lines l ON l.invoice_id = i.id
+          GROUP BY i.work_order_id, i.visit_date, i.requested_work, w.requested_work`,
+      );
+      expect(new Map(copied.map((r: { work_order_id: string }) => [r.work_order_id, r]))).toEqual(
+        new Map([
+          [orders[0]!.id, { work_order_id: orders[0]!.id, day: '2026-06-12', same_words: true, amounts: [37900, 23750] }],
+          [orders[1]!.id, { work_order_id: orders[1]!.id, day: '2026-09-03', same_words: true, amounts: [17800, 4800, 38000] }],
+        ]),
+      );
     } finally {
       await runner.release();
       await ds.destroy();
       await db.drop();
     }
   }, 60_000);
+});
+
+describe('the shop\'s invoice book', () => {
+  it('when the shop lists its invoices, then newest number first, with whom, which car, the total and whether paid; `open` and `paid` filter it', async () => {
+    const g = await invoicedSetup();
+    const second = await visit(t, { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id });
+    const first = (await g.staff.c.post(`/api/work-orders/${g.workOrderId}/invoice`)).body;
+    const next = (await g.staff.c.post(`/api/work-orders/${second}/invoice`)).body;
+    await g.staff.c.post(`/api/invoices/${first.id}/mark-paid`, { method: 'cash' });
+
+    const book = await g.staff.c.get(`/api/shops/${g.shopId}/invoices`);
+    expect(book.status).toBe(200);
+    expect(book.body.items.map((r: { number: number; status: string }) => [r.number, r.status])).toEqual([[2, 'open'], [1, 'paid']]);
+    expect(book.body.items[0]).toEqual({
+      id: next.id, number: 2, workOrderId: second, billTo: 'Nell Ashdown', car: { name: 'Blue roadster', carNumber: '42', classCode: 'SS' },
+      totalCents: 67840, currency: 'eur', status: 'open', paidAt: null, createdAt: next.createdAt, visitDate: '2026-06-12',
+    });
+    expect((await g.staff.c.get(`/api/shops/${g.shopId}/invoices?status=open`)).body.items.map((r: { id: string }) => r.id)).toEqual([next.id]);
+    expect((await g.staff.c.get(`/api/shops/${g.shopId}/invoices?status=paid`)).body.items.map((r: { id: string }) => r.id)).toEqual([first.id]);
+    expectFieldErrors(await g.staff.c.get(`/api/shops/${g.shopId}/invoices?status=unpaid`), ['status']);
+    expectError(await g.driver.c.get(`/api/shops/${g.shopId}/invoices`), 404, 'not_found');
+  });
+
+  it('when the owner withdraws the grant and then deletes the car, then the shop keeps the invoice whole: lines, day, request, parties; cash can still be taken', async () => {
+    const g = await invoicedSetup();
+    const made = (await g.staff.c.post(`/api/work-orders/${g.workOrderId}/invoice`)).body;
+    expect((await g.driver.c.get(`/api/invoices/${made.id}`)).body.number).toBe(made.number);
+
+    expect((await g.driver.c.delete(`/api/cars/${g.driver.carId}/shop-grants/${g.shopId}`)).status).toBe(204);
+    expect((await g.staff.c.get(`/api/invoices/${made.id}`)).body).toEqual(made);
+
+    expect((await g.driver.c.delete(`/api/cars/${g.driver.carId}`)).status).toBe(204);
+    const kept = await g.staff.c.get(`/api/invoices/${made.id}`);
+    expect(kept.status).toBe(200);
+    expect(kept.body).toEqual({ ...made, workOrderId: null, carId: null });
+    expect(kept.body).toMatchObject({
+      visitDate: '2026-06-12', requestedWork: 'Fit camber arms and align', billTo: 'Nell Ashdown', totalCents: 67840,
+    });
+    expect(kept.body.lines.map((l: { amountCents: number }) => l.amountCents)).toEqual([37900, 23750, 660]);
+    expect((await g.staff.c.get(`/api/shops/${g.shopId}/invoices`)).body.items.map((r: { id: string; workOrderId: string | null }) => [r.id, r.workOrderId])).toEqual([[made.id, null]]);
+    // The driver's way to it went with the car; paying online needs the visit.
+    expectError(await g.driver.c.get(`/api/invoices/${made.id}`), 404, 'not_found');
+    expectError(await g.driver.c.post(`/api/invoices/${made.id}/checkout`), 404, 'not_found');
+    expectError(await g.staff.c.post(`/api/invoices/${made.id}/checkout`), 403, 'forbidden');
+    const cash = await g.staff.c.post(`/api/invoices/${made.id}/mark-paid`, { method: 'cash' });
+    expect(cash.status, JSON.stringify(cash.body)).toBe(200);
+    expect(cash.body).toMatchObject({ status: 'paid', paidMethod: 'cash' });
+  });
+
+  it('when someone outside the shop asks for an invoice by id, then 404; an unknown id is 404', async () => {
+    const g = await invoicedSetup();
+    const made = (await g.staff.c.post(`/api/work-orders/${g.workOrderId}/invoice`)).body;
+    const other = await shopWithAdmin(t, 'Other bench');
+    expectError(await other.admin.c.get(`/api/invoices/${made.id}`), 404, 'not_found');
+    expectError(await (await signedInClient(t)).c.get(`/api/invoices/${made.id}`), 404, 'not_found');
+    expectError(await g.staff.c.get('/api/invoices/00000000-0000-4000-8000-000000000000'), 404, 'not_found');
+  });
 });
 
 describe('GET /api/work-orders/:workOrderId/invoice', () => {

@@ -12,6 +12,7 @@ import { StartShopForm } from '@/features/shops/components/start-shop-form';
 import { ShopSettingsForm, ShopSettingsSummary } from '@/features/shops/components/shop-settings';
 import { workOrderKeys } from '@/features/work-orders/api/work-order-keys';
 import { ShopBoard } from '@/features/work-orders/components/work-order-lists';
+import { InvoiceBook } from '@/features/invoices/components/invoice-book';
 import { refreshAfterWrite } from '@/lib/refresh-after-write';
 
 const SHOP_PARAM = 'shop';
@@ -93,6 +94,11 @@ export function ShopPage() {
         <SectionBoundary title="Closed visits">
           <SectionCard title="Closed visits">
             <ShopBoard shopId={shop.id} status="closed" />
+          </SectionCard>
+        </SectionBoundary>
+        <SectionBoundary title="Invoices">
+          <SectionCard title="Invoices">
+            <InvoiceBook shopId={shop.id} />
           </SectionCard>
         </SectionBoundary>
         <SectionBoundary title="Staff">

@@ -50,8 +50,9 @@ export function DeleteCar({ car, onDeleted }: { car: Car; onDeleted: () => void 
       </h2>
       <p className="text-sm">
         This removes {car.name} and everything recorded on it, for you and every co-driver: its setups, runs, tyre
-        readings, change log, comments, shop visits and invoices, and what this phone has not sent yet. It cannot be
-        undone. Download its season file first (the car&rsquo;s page, Your data) to keep a copy.
+        readings, change log, comments, shop visits, and what this phone has not sent yet. It cannot be undone. A shop
+        keeps the invoices it issued for the car, as its own records. Download its season file first (the car&rsquo;s
+        page, Your data) to keep a copy.
       </p>
       <TextField
         label={`Type ${car.name} to confirm`}

@@ -36,3 +36,12 @@ export function useWorkOrderInvoice(workOrderId: string, { pollUntilPaid = null 
         : false,
   });
 }
+
+/** One invoice by its id: the shop's record, kept after its visit is gone. */
+export function useInvoice(invoiceId: string) {
+  return useQuery({
+    queryKey: invoiceKeys.detail(invoiceId),
+    queryFn: ({ signal }) => api.get<Invoice>(`/api/invoices/${encodeURIComponent(invoiceId)}`, { signal }),
+    meta: { errorsShownInline: true },
+  });
+}

@@ -3,6 +3,7 @@ import type { CheckoutRedirect, Invoice, MarkPaidInput } from '@shared/service/i
 import { api, isApiError } from '@/lib/api-client';
 import { invoiceKeys } from './invoice-keys';
 import { refreshAfterWrite } from '@/lib/refresh-after-write';
+import { workOrderKeys } from '@/features/work-orders/api/work-order-keys';
 
 export function makeInvoice(workOrderId: string): Promise<Invoice> {
   return api.post(`/api/work-orders/${encodeURIComponent(workOrderId)}/invoice`);
@@ -16,6 +17,18 @@ export function markPaid(invoiceId: string, input: MarkPaidInput): Promise<Invoi
   return api.post(`/api/invoices/${encodeURIComponent(invoiceId)}/mark-paid`, input);
 }
 
+/**
+ * An invoice as the server now has it, wherever the app shows it: on its visit, on its own page, and as a line
+ * of the shop's book and of the visit lists, which are read again.
+ */
+function keepInvoice(queryClient: ReturnType<typeof useQueryClient>, invoice: Invoice) {
+  if (invoice.workOrderId) queryClient.setQueryData(invoiceKeys.ofWorkOrder(invoice.workOrderId), invoice);
+  queryClient.setQueryData(invoiceKeys.detail(invoice.id), invoice);
+  void refreshAfterWrite(queryClient, { queryKey: invoiceKeys.shops() });
+  void refreshAfterWrite(queryClient, { queryKey: [...workOrderKeys.all, 'shop'] });
+  void refreshAfterWrite(queryClient, { queryKey: [...workOrderKeys.all, 'car'] });
+}
+
 /** Staff make the invoice for a closed visit (making it again answers the same one). */
 export function useMakeInvoice(workOrderId: string) {
   const queryClient = useQueryClient();
@@ -23,7 +36,7 @@ export function useMakeInvoice(workOrderId: string) {
     mutationFn: () => makeInvoice(workOrderId),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: (invoice) => queryClient.setQueryData(invoiceKeys.ofWorkOrder(workOrderId), invoice),
+    onSuccess: (invoice) => keepInvoice(queryClient, invoice),
   });
 }
 
@@ -33,32 +46,32 @@ export const checkoutNavigation = {
 };
 
 /** A 409 means the invoice changed elsewhere (paid meanwhile): read it again, so the page says so. */
-function rereadOnConflict(queryClient: ReturnType<typeof useQueryClient>, workOrderId: string) {
+function rereadOnConflict(queryClient: ReturnType<typeof useQueryClient>) {
   return (error: unknown) => {
-    if (isApiError(error) && error.status === 409) void refreshAfterWrite(queryClient, { queryKey: invoiceKeys.ofWorkOrder(workOrderId) });
+    if (isApiError(error) && error.status === 409) void refreshAfterWrite(queryClient, { queryKey: invoiceKeys.all });
   };
 }
 
 /** The driver is sent to the hosted checkout; the page they come back to reads the result. */
-export function useStartCheckout(workOrderId: string) {
+export function useStartCheckout() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (invoiceId: string) => startCheckout(invoiceId),
     networkMode: 'always',
     meta: { errorsShownInline: true },
     onSuccess: ({ url }) => checkoutNavigation.go(url),
-    onError: rereadOnConflict(queryClient, workOrderId),
+    onError: rereadOnConflict(queryClient),
   });
 }
 
 /** Staff took the money over the counter. */
-export function useMarkPaidInCash(workOrderId: string) {
+export function useMarkPaidInCash() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (invoiceId: string) => markPaid(invoiceId, { method: 'cash' }),
     networkMode: 'always',
     meta: { errorsShownInline: true },
-    onSuccess: (invoice) => queryClient.setQueryData(invoiceKeys.ofWorkOrder(workOrderId), invoice),
-    onError: rereadOnConflict(queryClient, workOrderId),
+    onSuccess: (invoice) => keepInvoice(queryClient, invoice),
+    onError: rereadOnConflict(queryClient),
   });
 }

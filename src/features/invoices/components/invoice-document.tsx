@@ -1,15 +1,13 @@
 import type { Invoice } from '@shared/service/invoice.schema';
-import type { WorkOrder } from '@shared/service/work-order.schema';
 import { LineItemsTable } from '@/components/line-items/line-items-table';
 import { formatDay } from '@/lib/dates';
 import { invoiceCarWords, invoiceStatusWords } from '../utils/invoice-words';
 
 /**
  * The invoice as a document to print or file: the shop and its own lines, the number and dates, who it is for and
- * which car, the work asked for, the lines and totals, and whether it is paid. Everything but the work order's date
- * and request is as the invoice was issued.
+ * which car, the work asked for, the lines and totals, and whether it is paid, all as the invoice was issued.
  */
-export function InvoiceDocument({ invoice, workOrder }: { invoice: Invoice; workOrder: Pick<WorkOrder, 'visitDate' | 'requestedWork'> }) {
+export function InvoiceDocument({ invoice }: { invoice: Invoice }) {
   return (
     <article
       aria-labelledby="invoice-title"
@@ -32,7 +30,7 @@ export function InvoiceDocument({ invoice, workOrder }: { invoice: Invoice; work
             <dt className="text-ink-muted">Issued</dt>
             <dd>{formatDay(invoice.createdAt)}</dd>
             <dt className="text-ink-muted">Work done</dt>
-            <dd>{formatDay(workOrder.visitDate)}</dd>
+            <dd>{formatDay(invoice.visitDate)}</dd>
           </dl>
         </div>
       </header>
@@ -49,7 +47,7 @@ export function InvoiceDocument({ invoice, workOrder }: { invoice: Invoice; work
         <h2 id="invoice-work" className="text-sm font-bold text-ink-muted uppercase">
           Work asked for
         </h2>
-        <p className="text-sm break-words whitespace-pre-line">{workOrder.requestedWork}</p>
+        <p className="text-sm break-words whitespace-pre-line">{invoice.requestedWork}</p>
       </section>
 
       <LineItemsTable

@@ -4,6 +4,7 @@ import type { Invoice } from '@shared/service/invoice.schema';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SectionCard } from '@/components/ui/section-card';
+import { recordPath } from '@/config/record-paths';
 import { isApiError } from '@/lib/api-client';
 import { formatDay } from '@/lib/dates';
 import { useWorkOrderInvoice } from '../api/get-invoice';
@@ -36,7 +37,7 @@ function InvoiceDetails({ invoice }: { invoice: Invoice }) {
       <p className="font-bold" aria-label="Invoice status">
         {invoiceStatusWords(invoice)}
       </p>
-      <Link to={`/work-orders/${invoice.workOrderId}/invoice`} className={buttonClasses('secondary', 'self-start')}>
+      <Link to={recordPath.invoice(invoice.id)} className={buttonClasses('secondary', 'self-start')}>
         <FileText aria-hidden="true" className="size-4" /> Open the invoice to print
       </Link>
     </div>
@@ -52,8 +53,8 @@ export function InvoiceSection({ workOrderId, isStaff }: { workOrderId: string; 
   });
   const waitingForPayment = returnedPaid && invoice?.status !== 'paid' && isFetching;
   const make = useMakeInvoice(workOrderId);
-  const checkout = useStartCheckout(workOrderId);
-  const cash = useMarkPaidInCash(workOrderId);
+  const checkout = useStartCheckout();
+  const cash = useMarkPaidInCash();
 
   return (
     <SectionCard title="Invoice">

@@ -62,6 +62,8 @@ export function invoice(partial: Partial<Invoice> = {}): Invoice {
     issuer: { name: SHOP_NAME, details: '12 Kettle Lane, Brindle\nTel. 555 0143' },
     billTo: 'Maren Holt',
     car: { name: 'Grey roadster', carNumber: '47', classCode: 'SM' },
+    visitDate: '2026-06-10',
+    requestedWork: 'Four-wheel alignment and corner weights',
     ...partial,
   };
 }
