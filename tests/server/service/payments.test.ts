@@ -132,6 +132,22 @@ describe('POST /api/payments/webhook', () => {
     expect(staffSees.body.items[0].summary).toContain('$623.10');
   });
 
+  it('when a card payment is confirmed after the owner deleted the car, then the shop\'s kept invoice reads paid by card and nobody is told of a car that is gone', async () => {
+    const g = await openInvoice();
+    expect((await g.driver.c.delete(`/api/cars/${g.driver.carId}`)).status).toBe(204);
+    const event = completedEvent(g.invoice);
+    const payload = JSON.stringify(event);
+    const res = await postEvent(payload, sign(payload));
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(await invoiceRow(g.invoice.id)).toMatchObject({ status: 'paid', paid_method: 'card' });
+    expect(await eventRows(event.id)).toEqual([{ id: event.id, invoice_id: g.invoice.id }]);
+    const notes: { n: number }[] = await t.ds.query(`SELECT count(*)::int AS n FROM notifications WHERE user_id = ANY($1) AND kind = 'invoice_paid'`, [
+      [g.staff.user.id, g.second.user.id],
+    ]);
+    expect(notes[0]!.n).toBe(0);
+    expect((await g.staff.c.get(`/api/invoices/${g.invoice.id}`)).body).toMatchObject({ status: 'paid', paidMethod: 'card', workOrderId: null });
+  });
+
   it('when the same event is delivered again, then 200 and nothing changes: paid_at as before, one event row, no second notification', async () => {
     const g = await openInvoice();
     const payload = JSON.stringify(completedEvent(g.invoice));
