@@ -54,7 +54,7 @@ export function ClassBoardPage() {
         <h1 className="text-3xl font-extrabold">Class board</h1>
         <p className="text-ink-muted">
           Each car’s best times per event, against the fastest in its class on this team. Index times use the factors the team’s captains
-          entered. Tap an event to see every driver there in one list.
+          entered. Tap an event to see the team’s drivers there in one list.
         </p>
       </div>
       <div className="flex flex-wrap items-center gap-3">

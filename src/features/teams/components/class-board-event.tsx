@@ -4,7 +4,7 @@ import { ArrowLeft, ChevronLeft, ChevronRight } from 'lucide-react';
 import type { ClassBoard } from '@shared/collab/team.schema';
 import { EmptyState } from '@/components/ui/empty-state';
 import { formatDay } from '@/lib/dates';
-import { boardTime, formatFactor, noTimeWords, offFastestWords, rawConesWords } from '../utils/board-format';
+import { bestRawWords, boardTime, formatFactor, noTimeWords, offFastestWords } from '../utils/board-format';
 import {
   boardEvents,
   eventBoardPath,
@@ -20,7 +20,6 @@ import {
 function Line({ line, hasFactor }: { line: EventLine; hasFactor: boolean }) {
   const { car, result } = line;
   const noTime = noTimeWords(result);
-  const cones = rawConesWords(result.bestRawCones);
   const off = result.aloneInClass ? 'No other time in class' : offFastestWords(result.pctOffClassFastest);
   return (
     <li className="flex items-start gap-3 border-b border-line py-3 last:border-b-0">
@@ -59,9 +58,7 @@ function Line({ line, hasFactor }: { line: EventLine; hasFactor: boolean }) {
         {off ? <p className="text-sm">{off}</p> : null}
         {hasFactor && result.indexSec !== null ? <p className="text-sm">Index {boardTime(result.indexSec)} s</p> : null}
         {result.bestRawSec !== null ? (
-          <p className="text-xs text-ink-muted">
-            Raw {boardTime(result.bestRawSec)} s{cones ? `, ${cones}` : null}
-          </p>
+          <p className="text-xs text-ink-muted">{bestRawWords(result.bestRawSec, result.bestRawCones)}</p>
         ) : null}
       </div>
     </li>
@@ -155,8 +152,8 @@ export function ClassBoardEventView({ board, eventId }: { board: ClassBoard; eve
           {formatDay(event.date)} · {board.team.name}
         </p>
         <p className="text-sm text-ink-muted">
-          Each driver’s best adjusted time (cones added), fastest first, against the fastest on the team in the class. Equal times share a rank;
-          a day without a time comes last.
+          Each team driver’s best adjusted time (cones added), fastest first, against the fastest on the team in the class. Equal times share a
+          rank; a day without a time comes last. Runs by co-drivers who are not on the team are left out.
         </p>
       </div>
       {eventClasses(board, eventId).map((group) => (

@@ -9,7 +9,7 @@ import { recordPath } from '@/config/record-paths';
 import { formatDay, formatShortDay } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useUnits } from '@/lib/units-context';
-import { aloneWords, boardTime, formatFactor, noTimeWords, offFastestWords, rawConesWords, setupLines, trendWords, wearLine } from '../utils/board-format';
+import { aloneWords, bestRawWords, boardTime, formatFactor, noTimeWords, offFastestWords, rawConesWords, setupLines, trendWords, wearLine } from '../utils/board-format';
 import { eventBoardPath } from '../utils/event-board';
 import type { TrendPoint } from './trend-chart';
 
@@ -43,10 +43,9 @@ interface EventLinks {
 function ResultItem({ result: r, hasFactor, links }: { result: BoardResult; hasFactor: boolean; links: EventLinks }) {
   const noTime = noTimeWords(r);
   const off = r.aloneInClass ? 'No other time in class' : offFastestWords(r.pctOffClassFastest);
-  const cones = rawConesWords(r.bestRawCones);
   const more = [
     r.rankInClass === null ? null : `Rank ${r.rankInClass}`,
-    r.bestRawSec === null ? null : `Raw ${boardTime(r.bestRawSec)} s${cones ? `, ${cones}` : ''}`,
+    r.bestRawSec === null ? null : bestRawWords(r.bestRawSec, r.bestRawCones),
     hasFactor && r.indexSec !== null ? `Index ${boardTime(r.indexSec)} s` : null,
   ].filter((part) => part !== null);
   return (

@@ -30,6 +30,15 @@ export function noTimeWords(result: Pick<BoardResult, 'bestAdjustedSec' | 'runs'
 }
 
 /** The cones on the run of a best raw time, added to it in words ("+1 cone"); null for a clean run. */
+/**
+ * The day's quickest clock time and the cones of the run that set it, which need not be the run of the best adjusted
+ * time: "Best raw 46.204 s (that run +2 cones)", so nobody adds the cones to it and expects the adjusted time.
+ */
+export function bestRawWords(sec: number, cones: number | null): string {
+  const hit = rawConesWords(cones);
+  return `Best raw ${boardTime(sec)} s${hit ? ` (that run ${hit})` : ''}`;
+}
+
 export function rawConesWords(cones: number | null): string | null {
   if (!cones) return null;
   return `+${cones} ${cones === 1 ? 'cone' : 'cones'}`;

@@ -78,9 +78,9 @@ describe('class board: one event', () => {
     expect(await screen.findByRole('heading', { level: 1, name: 'Harrow Flats — Round 3' })).toBeTruthy();
     expect(router.state.location.search).toBe(`?season=2026&event=${ROUND_3.eventId}`);
     expect(lines('SM')).toEqual([
-      'Rank 1 | Ines Okafor | Silver roadster #8 | 3 runs | Adjusted 47.036 s | Fastest in class | Raw 47.036 s',
-      'Rank 2 tie | Maren Holt | Grey roadster #47 | 3 runs | Adjusted 47.600 s | +1.20 % off fastest | Raw 45.600 s, +1 cone',
-      'Rank 2 tie | Wren Alder | Silver roadster #8 | 3 runs, 1 off course | Adjusted 47.600 s | +1.20 % off fastest | Raw 47.600 s',
+      'Rank 1 | Ines Okafor | Silver roadster #8 | 3 runs | Adjusted 47.036 s | Fastest in class | Best raw 47.036 s',
+      'Rank 2 tie | Maren Holt | Grey roadster #47 | 3 runs | Adjusted 47.600 s | +1.20 % off fastest | Best raw 45.600 s (that run +1 cone)',
+      'Rank 2 tie | Wren Alder | Silver roadster #8 | 3 runs, 1 off course | Adjusted 47.600 s | +1.20 % off fastest | Best raw 47.600 s',
       'No rank | Dara Quinn | Grey roadster #47 | DNF (2 runs)',
     ]);
     // STR had no car at Round 3; and nothing needs a sideways swipe: no table, one list item per driver.
@@ -95,7 +95,7 @@ describe('class board: one event', () => {
     await screen.findByRole('heading', { level: 1, name: 'Harrow Flats — Round 4' });
     // STR, factor 0.853: the server's index time 53.952 (63.250 × 0.853 = 53.952, to the thousandth); the best raw's cone in words.
     expect(lines('STR')).toEqual([
-      'Rank 1 | Ines Okafor | White roadster #3 | 2 runs | Adjusted 1:03.250 s | Fastest in class | Index 53.952 s | Raw 1:01.250 s, +1 cone',
+      'Rank 1 | Ines Okafor | White roadster #3 | 2 runs | Adjusted 1:03.250 s | Fastest in class | Index 53.952 s | Best raw 1:01.250 s (that run +1 cone)',
     ]);
     expect(within(screen.getByRole('region', { name: 'Class STR' })).getByText('Factor 0.853')).toBeTruthy();
     expect(lines('SM').join(' ')).not.toMatch(/Index/);
@@ -109,7 +109,7 @@ describe('class board: one event', () => {
 
     await screen.findByRole('heading', { level: 1, name: 'Harrow Flats — Round 4' });
     expect(lines('STR')).toEqual([
-      'No rank | Ines Okafor | White roadster #3 | 2 runs | Adjusted 1:03.250 s | No other time in class | Index 53.952 s | Raw 1:01.250 s, +1 cone',
+      'No rank | Ines Okafor | White roadster #3 | 2 runs | Adjusted 1:03.250 s | No other time in class | Index 53.952 s | Best raw 1:01.250 s (that run +1 cone)',
     ]);
   });
 

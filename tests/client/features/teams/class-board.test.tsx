@@ -64,8 +64,8 @@ describe('class board', () => {
     // Below the sm width these lists are displayed instead of the tables (tests/e2e/collaboration.spec.ts checks that
     // a phone shows only the list, and a wide screen only the table): nothing is left a swipe away.
     expect(phoneLines('Grey roadster')).toEqual([
-      `Harrow Flats — Round 3 | ${formatDay('2026-05-17')} · Maren Holt | Adjusted 47.600 s, +1.20 % off fastest | Rank 2, Raw 45.600 s, +1 cone`,
-      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Maren Holt | Adjusted 44.900 s, +0.80 % off fastest | Rank 2, Raw 44.900 s`,
+      `Harrow Flats — Round 3 | ${formatDay('2026-05-17')} · Maren Holt | Adjusted 47.600 s, +1.20 % off fastest | Rank 2, Best raw 45.600 s (that run +1 cone)`,
+      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Maren Holt | Adjusted 44.900 s, +0.80 % off fastest | Rank 2, Best raw 44.900 s`,
     ]);
     // The gap is in the same item as the event it belongs to, and the event's name alone names its link.
     const [round3] = phoneItems('Grey roadster');
@@ -73,11 +73,11 @@ describe('class board', () => {
       `/teams/${TEAM_IDS.team}/board?season=2026&event=${MAREN_BOARD_CAR.results[0]!.eventId}`,
     );
     expect(phoneLines('Silver roadster')[0]).toBe(
-      `Harrow Flats — Round 3 | ${formatDay('2026-05-17')} · Ines Okafor | Adjusted 47.036 s, Fastest in class | Rank 1, Raw 47.036 s`,
+      `Harrow Flats — Round 3 | ${formatDay('2026-05-17')} · Ines Okafor | Adjusted 47.036 s, Fastest in class | Rank 1, Best raw 47.036 s`,
     );
     // STR has a factor: the index time joins the line; past 60 s times read as minutes.
     expect(phoneLines('White roadster')).toEqual([
-      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Ines Okafor | Adjusted 1:03.250 s, Fastest in class | Rank 1, Raw 1:01.250 s, +1 cone, Index 53.952 s`,
+      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Ines Okafor | Adjusted 1:03.250 s, Fastest in class | Rank 1, Best raw 1:01.250 s (that run +1 cone), Index 53.952 s`,
     ]);
     expect(screen.queryByText(/Swipe the table sideways/)).toBeNull();
   });
@@ -239,7 +239,7 @@ describe('class board', () => {
     const [line] = rowsOf('White roadster');
     expect(cells(line!).slice(0, 3)).toEqual(['1:03.250', '—no other time', '—']);
     expect(phoneLines('White roadster')).toEqual([
-      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Ines Okafor | Adjusted 1:03.250 s, No other time in class | Raw 1:01.250 s, +1 cone, Index 53.952 s`,
+      `Harrow Flats — Round 4 | ${formatDay('2026-06-07')} · Ines Okafor | Adjusted 1:03.250 s, No other time in class | Best raw 1:01.250 s (that run +1 cone), Index 53.952 s`,
     ]);
   });
 
