@@ -166,7 +166,7 @@ describe('closing one’s own account', () => {
     expect(await countOf(t, 'SELECT count(*) AS n FROM shop_members WHERE user_id = $1', [dusty.id])).toBe(0);
   });
 
-  it('when the demo driver closes, then her cars, their runs (her co-driver’s too), files and comments go; events others still use stay; the admin no longer finds her', async () => {
+  it('when the demo driver closes, then her cars, their runs (her co-driver’s too), files, comments and work orders go; events others still use and the shop\'s invoice stay; the admin no longer finds her', async () => {
     const maren = await demo('driver');
     const priya = await demo('secondDriver');
     const carIds = ((await t.ds.query('SELECT id FROM cars WHERE owner_id = $1', [maren.id])) as { id: string }[]).map((r) => r.id);
@@ -192,6 +192,8 @@ describe('closing one’s own account', () => {
       [maren.id, priya.id],
     );
     expect(note).toBeDefined();
+    const invoices: { id: string }[] = await t.ds.query('SELECT id FROM invoices WHERE car_id = ANY($1)', [carIds]);
+    expect(invoices).toHaveLength(1);
 
     expect((await maren.c.post('/api/auth/me/close', { password: DEMO_PASSWORD })).status).toBe(204);
 
@@ -205,6 +207,13 @@ describe('closing one’s own account', () => {
     ] as const) {
       expect(await countOf(t, sql, [...params]), sql).toBe(0);
     }
+    expect(await countOf(t, 'SELECT count(*) AS n FROM work_orders WHERE car_id = ANY($1)', [carIds])).toBe(0);
+    // The shop's invoice stays its record, made out to the name it was issued to, with its lines.
+    const kept: { bill_to: string; work_order_id: string | null; car_id: string | null; lines: number }[] = await t.ds.query(
+      'SELECT bill_to, work_order_id, car_id, (SELECT count(*)::int FROM invoice_lines WHERE invoice_id = i.id) AS lines FROM invoices i WHERE id = $1',
+      [invoices[0]!.id],
+    );
+    expect(kept).toEqual([{ bill_to: DEMO_ACCOUNTS.driver.displayName, work_order_id: null, car_id: null, lines: 2 }]);
     // The stored file goes with its record: queued for removal from storage in the same transaction.
     expect(await countOf(t, 'SELECT count(*) AS n FROM attachments WHERE storage_key = $1', [storageKey])).toBe(0);
     expect(await countOf(t, 'SELECT count(*) AS n FROM stored_file_removals WHERE storage_key = $1', [storageKey])).toBe(1);

@@ -84,6 +84,7 @@ export function CloseAccount({ email }: { email: string }) {
       <ul className="list-disc space-y-1 pl-5 text-sm">
         <li>Your cars are deleted, with every run, setup, tyre reading, file and work order on them, your co-drivers’ runs included.</li>
         <li>Your comments are deleted, and you leave your shops and teams.</li>
+        <li>A shop keeps the invoices it made out to you: they are its business records.</li>
         <li>
           Runs you drove on other people’s cars, and setups or suggestions you wrote for them, stay in their seasons under “{CLOSED_ACCOUNT_NAME}”.
         </li>

@@ -117,7 +117,7 @@ function CloseSuspendedAccount({ account }: { account: AdminAccount }) {
   return (
     <ConfirmWithField
       title={`Close ${account.displayName}’s account for good?`}
-      description={`Their cars go, with every run, setup, tyre reading, file and work order on them, and so do their comments and memberships. What they wrote into other people’s records stays there under “${CLOSED_ACCOUNT_NAME}”. This cannot be undone; they get an e-mail saying so.`}
+      description={`Their cars go, with every run, setup, tyre reading, file and work order on them, and so do their comments and memberships; shops keep the invoices they issued. What they wrote into other people’s records stays there under “${CLOSED_ACCOUNT_NAME}”. This cannot be undone; they get an e-mail saying so.`}
       confirmLabel="Close the account"
       pendingLabel="Closing…"
       isPending={close.isPending}
