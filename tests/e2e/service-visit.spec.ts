@@ -232,7 +232,7 @@ describe.each(['phone', 'desktop'] as const)('a service visit, staff then driver
     // The work order, read only, and its invoice.
     await snapshot.getByRole('link', { name: /^handed back by .+ after the visit of / }).click();
     await page.getByLabel('Invoice status').getByText('Not paid yet').waitFor({ timeout: 15_000 });
-    expect(await page.getByRole('button', { name: 'Paid in cash' }).count()).toBe(0);
+    expect(await page.getByRole('button', { name: 'Record a cash payment' }).count()).toBe(0);
     await page.getByRole('button', { name: 'Pay online' }).click();
 
     // The hosted checkout: another site, one Pay button.
@@ -271,6 +271,6 @@ describe.each(['phone', 'desktop'] as const)('a service visit, staff then driver
     const page = await signInAs(size, 'dusty@example.com', 'Dusty Okonjo');
     await page.goto(workOrderUrl);
     await page.getByLabel('Invoice status').getByText(/^Paid by card/).waitFor({ timeout: 20_000 });
-    expect(await page.getByRole('button', { name: 'Paid in cash' }).count()).toBe(0);
+    expect(await page.getByRole('button', { name: 'Record a cash payment' }).count()).toBe(0);
   });
 });

@@ -51,7 +51,7 @@ export function InvoicePage() {
         </Button>
         {isStaff && invoice.data.status === 'open' ? (
           <Button variant="secondary" isPending={cash.isPending} pendingLabel="Saving…" onClick={() => cash.mutate(invoice.data.id)}>
-            Paid in cash
+            Record a cash payment
           </Button>
         ) : null}
       </div>

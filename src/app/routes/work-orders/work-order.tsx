@@ -110,7 +110,7 @@ export function WorkOrderPage() {
       {workOrder.status === 'closed' ? (
         <div className="print:hidden">
           <SectionBoundary title="Invoice">
-            <InvoiceSection workOrderId={workOrder.id} isStaff={isStaff} />
+            <InvoiceSection workOrderId={workOrder.id} shopId={workOrder.shop.id} isStaff={isStaff} />
           </SectionBoundary>
         </div>
       ) : null}

@@ -1,10 +1,13 @@
 import { Link, useSearchParams } from 'react-router-dom';
+import { useQuery } from '@tanstack/react-query';
 import { CreditCard, FileText } from 'lucide-react';
 import type { Invoice } from '@shared/service/invoice.schema';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { SectionCard } from '@/components/ui/section-card';
+import { paths } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
+import { shopQueryOptions } from '@/features/shops/api/get-shop';
 import { isApiError } from '@/lib/api-client';
 import { formatDay } from '@/lib/dates';
 import { useWorkOrderInvoice } from '../api/get-invoice';
@@ -44,8 +47,24 @@ function InvoiceDetails({ invoice }: { invoice: Invoice }) {
   );
 }
 
+/** Before the first invoice goes out bare: says so when the shop has not written its address and tax number. */
+function ShopLinesMissing({ shopId }: { shopId: string }) {
+  const { data: shop } = useQuery(shopQueryOptions(shopId));
+  if (!shop || shop.settings.invoiceDetails !== '') return null;
+  return (
+    <p className="text-sm">
+      Invoices carry only the shop’s name so far: no address or tax number. {shop.isShopAdmin ? 'Add them' : 'A shop admin adds them'} under
+      “Invoices and build sheets” on the{' '}
+      <Link to={paths.shop} className="font-semibold text-link underline">
+        Shop page
+      </Link>
+      .
+    </p>
+  );
+}
+
 /** The visit's invoice: staff make it and take cash; drivers pay online. */
-export function InvoiceSection({ workOrderId, isStaff }: { workOrderId: string; isStaff: boolean }) {
+export function InvoiceSection({ workOrderId, shopId, isStaff }: { workOrderId: string; shopId: string; isStaff: boolean }) {
   const [params] = useSearchParams();
   const returnedPaid = params.get('paid') === '1';
   const { data: invoice, isPending, isError, isFetching } = useWorkOrderInvoice(workOrderId, {
@@ -66,6 +85,7 @@ export function InvoiceSection({ workOrderId, isStaff }: { workOrderId: string; 
         isStaff ? (
           <div className="flex flex-col gap-2">
             <p className="text-ink-muted">No invoice yet. It lists the parts and labour with tax at the shop’s rate.</p>
+            <ShopLinesMissing shopId={shopId} />
             <FormAlert message={errorText(make.error)} />
             <Button className="self-start" isPending={make.isPending} pendingLabel="Making the invoice…" onClick={() => make.mutate()}>
               Make the invoice
@@ -96,7 +116,7 @@ export function InvoiceSection({ workOrderId, isStaff }: { workOrderId: string; 
               <div className="flex flex-wrap gap-2">
                 {isStaff ? (
                   <Button variant="secondary" isPending={cash.isPending} pendingLabel="Saving…" onClick={() => cash.mutate(invoice.id)}>
-                    Paid in cash
+                    Record a cash payment
                   </Button>
                 ) : (
                   <Button isPending={checkout.isPending} pendingLabel="Opening the checkout…" onClick={() => checkout.mutate(invoice.id)}>

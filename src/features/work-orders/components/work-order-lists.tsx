@@ -32,7 +32,6 @@ export function CarVisits({ carId }: { carId: string }) {
           <p className="text-sm break-words">{visit.requestedWork}</p>
           <p className="text-sm text-ink-muted">
             {STATUS_WORDS[visit.status]}
-            {visit.status === 'closed' ? ` · ${invoiceStandingWords(visit.invoice)}` : null}
             {visit.setupId ? (
               <>
                 {' · '}
@@ -43,6 +42,7 @@ export function CarVisits({ carId }: { carId: string }) {
               </>
             ) : null}
           </p>
+          {visit.status === 'closed' ? <p className="text-sm">{invoiceStandingWords(visit.invoice)}</p> : null}
         </li>
       ))}
     </ol>

@@ -98,10 +98,10 @@ describe('the invoice as a page to print', () => {
     const main = within(screen.getByRole('main'));
     expect(main.queryByRole('link', { name: 'Work order' })).toBeNull();
     expect(main.getByRole('link', { name: 'Shop' }).getAttribute('href')).toBe('/shop');
-    await u.click(screen.getByRole('button', { name: 'Paid in cash' }));
+    await u.click(screen.getByRole('button', { name: 'Record a cash payment' }));
     await waitFor(() => expect(screen.getByLabelText('Invoice status').textContent).toMatch(/^Paid in cash on /));
     expect(requestsTo(fetchMock, MARK_PAID)[0]!.body).toEqual({ method: 'cash' });
-    expect(screen.queryByRole('button', { name: 'Paid in cash' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Record a cash payment' })).toBeNull();
 
     // Back in the book, the paid invoice has left the unpaid list and shows as paid in the whole book.
     await u.click(main.getByRole('link', { name: 'Shop' }));

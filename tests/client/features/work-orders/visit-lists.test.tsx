@@ -37,8 +37,9 @@ describe('shop visits on the car page', () => {
     expect(link.getAttribute('href')).toBe(`/work-orders/${SERVICE_IDS.workOrder}`);
     expect(within(visits).getByText('Four-wheel alignment and corner weights')).toBeTruthy();
     expect(within(visits).getByRole('link', { name: 'Setup it wrote' }).getAttribute('href')).toBe(`/cars/${IDS.car}#setup-${SERVICE_IDS.newSetup}`);
-    // Where its invoice stands, in the line with its state.
-    expect(within(visits).getByText(/^Closed/).textContent).toBe('Closed · Invoice 14 · $146.98 · paid · Setup it wrote');
+    // Where its invoice stands, on a line of its own under its state.
+    expect(within(visits).getByText(/^Closed/).textContent).toBe('Closed · Setup it wrote');
+    expect(within(visits).getByText(/^Closed/).nextElementSibling?.textContent).toBe('Invoice 14 · $146.98 · paid');
   });
 });
 

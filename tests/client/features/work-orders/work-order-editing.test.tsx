@@ -15,6 +15,7 @@ import {
 import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests } from '../../test-utils';
 import { formatDateTime, formatDay } from '@/lib/dates';
 import { invoice, SERVICE_IDS, stubDriver, stubStaff, WO, WORK_ORDER_PATH, workOrder } from './service-fixtures';
+import { COLLAB_IDS, SHOP } from '../../fixtures/collab';
 
 const PATH = WORK_ORDER_PATH;
 const BUILD_SHEET_PUT = `PUT ${WO}/build-sheet`;
@@ -299,6 +300,10 @@ describe('the invoice for shop staff', () => {
     renderApp(PATH);
     const u = userEvent.setup();
     expect(await screen.findByText(/^No invoice yet\./)).toBeTruthy();
+    // The shop has not written its address and tax number: said before the first invoice goes out without them.
+    const missing = await screen.findByText(/^Invoices carry only the shop’s name so far/);
+    expect(missing.textContent).toBe('Invoices carry only the shop’s name so far: no address or tax number. Add them under “Invoices and build sheets” on the Shop page.');
+    expect(within(missing).getByRole('link', { name: 'Shop page' }).getAttribute('href')).toBe('/shop');
     expect(screen.queryByRole('table', { name: 'Invoice lines' })).toBeNull();
     await u.click(screen.getByRole('button', { name: 'Make the invoice' }));
 
@@ -312,7 +317,19 @@ describe('the invoice for shop staff', () => {
     expect(within(within(table).getByRole('row', { name: /^Total/ })).getByText('$146.98')).toBeTruthy();
     expect(screen.getByLabelText('Invoice status').textContent).toBe('Not paid yet');
     expect(screen.queryByRole('button', { name: 'Make the invoice' })).toBeNull();
-    expect(screen.getByRole('button', { name: 'Paid in cash' })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Record a cash payment' })).toBeTruthy();
+  });
+
+  it('when the shop has written its lines for invoices, then nothing is said of them before the invoice is made', async () => {
+    const fetchMock = stubStaff(METRIC_PREFERENCES, {
+      [`GET ${WO}`]: jsonResponse(200, workOrder(CLOSED)),
+      [`GET ${WO}/invoice`]: NO_INVOICE,
+      [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, { ...SHOP, settings: { ...SHOP.settings, invoiceDetails: '12 Kettle Lane' } }),
+    });
+    renderApp(PATH);
+    expect(await screen.findByRole('button', { name: 'Make the invoice' })).toBeTruthy();
+    await waitFor(() => expect(requestsTo(fetchMock, `GET /api/shops/${COLLAB_IDS.shop}`).length).toBeGreaterThan(0));
+    expect(screen.queryByText(/Invoices carry only the shop’s name/)).toBeNull();
   });
 
   it('when staff take cash, then the invoice is marked paid in cash and no payment buttons remain', async () => {
@@ -326,11 +343,11 @@ describe('the invoice for shop staff', () => {
     const u = userEvent.setup();
     expect((await screen.findByLabelText('Invoice status')).textContent).toBe('Not paid yet');
     expect(screen.queryByRole('button', { name: 'Pay online' })).toBeNull();
-    await u.click(screen.getByRole('button', { name: 'Paid in cash' }));
+    await u.click(screen.getByRole('button', { name: 'Record a cash payment' }));
 
     await waitFor(() => expect(screen.getByLabelText('Invoice status').textContent).toBe(`Paid in cash on ${formatDateTime(paidAt)}`));
     expect(requestsTo(fetchMock, MARK_PAID).map((r) => r.body)).toEqual([{ method: 'cash' }]);
-    expect(screen.queryByRole('button', { name: 'Paid in cash' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Record a cash payment' })).toBeNull();
     expect(screen.queryByRole('button', { name: 'Pay online' })).toBeNull();
   });
 
@@ -348,14 +365,14 @@ describe('the invoice for shop staff', () => {
     });
     renderApp(PATH);
     const u = userEvent.setup();
-    await u.click(await screen.findByRole('button', { name: 'Paid in cash' }));
+    await u.click(await screen.findByRole('button', { name: 'Record a cash payment' }));
 
     await waitFor(() => expect(screen.getByLabelText('Invoice status').textContent).toBe(`Paid by card on ${formatDateTime(paidAt)}`));
     expect(requestsTo(fetchMock, MARK_PAID)).toHaveLength(1);
     // The work order and its invoice are still there; nothing is left to pay.
     expect(screen.getByRole('heading', { name: 'Grey roadster' })).toBeTruthy();
     expect(screen.getByRole('table', { name: 'Invoice lines' })).toBeTruthy();
-    expect(screen.queryByRole('button', { name: 'Paid in cash' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Record a cash payment' })).toBeNull();
   });
 
   it('when the server cannot be reached, then the message shows in the form and the button works again', async () => {
@@ -367,11 +384,11 @@ describe('the invoice for shop staff', () => {
     });
     renderApp(PATH);
     const u = userEvent.setup();
-    await u.click(await screen.findByRole('button', { name: 'Paid in cash' }));
+    await u.click(await screen.findByRole('button', { name: 'Record a cash payment' }));
 
     const invoiceSection = screen.getByRole('region', { name: 'Invoice' });
     await waitFor(() => expect(within(invoiceSection).getByRole('alert').textContent).toBe('The server is busy; try again in a moment.'));
-    const again = within(invoiceSection).getByRole('button', { name: 'Paid in cash' }) as HTMLButtonElement;
+    const again = within(invoiceSection).getByRole('button', { name: 'Record a cash payment' }) as HTMLButtonElement;
     expect(again.disabled).toBe(false);
     await u.click(again);
     await waitFor(() => expect(screen.getByLabelText('Invoice status').textContent).toBe(`Paid in cash on ${formatDateTime(paidAt)}`));

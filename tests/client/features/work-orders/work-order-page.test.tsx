@@ -250,7 +250,7 @@ describe('the work order page for the driver', () => {
     const u = userEvent.setup();
     expect(await screen.findByText('$146.98')).toBeTruthy();
     expect(screen.getByText('Tax (8.875 %)')).toBeTruthy();
-    expect(screen.queryByRole('button', { name: 'Paid in cash' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Record a cash payment' })).toBeNull();
     await u.click(screen.getByRole('button', { name: 'Pay online' }));
 
     await waitFor(() => expect(go).toHaveBeenCalledWith(url));
