@@ -57,14 +57,16 @@ export function inputToSi(text: string, quantity: Quantity, units: UnitPreferenc
 }
 
 /**
- * A change (difference) between two SI values, in the user's unit, with ▲ or ▼: "▲ 0.5 psi", "▼ 0.20°".
+ * A change (difference) between two SI values, in the user's unit, with ▲ or ▼: "▲ 0.5 psi", "▼ 0.20°"; "no change" when it
+ * rounds to nothing in that unit.
  * Differences of linear units convert by the same factor as values (temperatures are never shown this way).
  */
 export function formatDelta(deltaSi: number, quantity: Quantity, units: UnitPreferences): string {
   const unit = unitFor(quantity, units);
   const value = convert(Math.abs(deltaSi), SI_UNITS[quantity], unit);
   const text = formatInUnit(value, unit);
-  if (Number(value.toFixed(UNIT_DECIMALS[unit])) === 0) return `± ${text}`;
+  // Not "± 0.0 mm", which reads as a tolerance.
+  if (Number(value.toFixed(UNIT_DECIMALS[unit])) === 0) return 'no change';
   return `${deltaSi > 0 ? '▲' : '▼'} ${text}`;
 }
 

@@ -43,7 +43,7 @@ export function formatFieldValue(field: SetupCornerField, si: number | null | un
 export function formatFieldDelta(field: SetupCornerField, deltaSi: number, units: UnitPreferences): string {
   const { quantity } = FIELD_INFO[field];
   if (quantity) return formatDelta(deltaSi, quantity, units);
-  if (deltaSi === 0) return `± ${clicks(0)}`;
+  if (deltaSi === 0) return 'no change';
   return `${deltaSi > 0 ? '▲' : '▼'} ${clicks(Math.abs(deltaSi))}`;
 }
 
@@ -68,7 +68,7 @@ export function formatFieldChange(field: SetupCornerField, fromSi: number, toSi:
  */
 export function camberChangeWords(deltaSi: number, valuesSi: readonly number[], units: UnitPreferences): string {
   const amount = formatDelta(deltaSi, 'angle', units);
-  if (amount.startsWith('±')) return `${amount} (no change)`;
+  if (!/^[▲▼]/.test(amount)) return amount;
   const size = amount.replace(/^[▲▼] /, '');
   const up = deltaSi > 0;
   if (valuesSi.length > 0 && valuesSi.every((v) => v <= 0)) return `${size} ${up ? 'less negative' : 'more negative'}`;
