@@ -1,8 +1,6 @@
 import { lazy, Suspense, useState, type ReactNode } from 'react';
 import { shortName } from '@shared/auth/person-name';
-import type { Corner } from '@shared/season/corners';
 import { formatRunTime } from '@shared/season/run-time';
-import { CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PendingBadge } from '@/components/ui/pending-badge';
@@ -11,13 +9,12 @@ import { formatClock, isDayEnd } from '@/lib/dates';
 import { formatPercent } from '@/lib/numbers';
 import { useOutbox, useOutboxEntries } from '@/lib/outbox-context';
 import { toast } from '@/lib/toast-store';
-import { useUnits } from '@/lib/units-context';
-import { formatQuantity } from '@shared/calc/units.calc';
 import { createRunEntry, useCreateRun, type CreateRunBody } from '../api/create-run';
 import { deleteRunEntry, useDeleteRun } from '../api/delete-run';
 import { updateRunEntry, useUpdateRun } from '../api/update-run';
 import type { RunRow } from '../utils/merge-runs';
 import { coneWords, STATUS_WORDS } from '../utils/run-words';
+import { HotPressuresToggle } from './hot-pressures-toggle';
 import type { RunChanges } from './run-edit-form';
 
 // Loaded on the first "Edit" or "Fix", so logging runs stays a small download (the service worker keeps it for offline).
@@ -69,7 +66,6 @@ function Time({ label, seconds, strong }: { label: string; seconds: number | nul
  * waiting or was refused.
  */
 export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProps) {
-  const units = useUnits();
   const outbox = useOutbox();
   const entries = useOutboxEntries();
   const create = useCreateRun();
@@ -166,18 +162,7 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
               <span className="text-ink-muted">Setup: {setup ?? 'none recorded'}</span>
             </p>
             {row.notes ? <p className="text-sm text-ink-muted">{row.notes}</p> : null}
-            {hot ? (
-              <details>
-                <summary className="inline-flex min-h-tap cursor-pointer items-center text-sm font-semibold text-link">Hot pressures</summary>
-                <CornerGrid
-                  label="Hot pressures"
-                  title={null}
-                  renderCorner={(c: Corner) => (
-                    <span className="tabular-figures text-right font-bold">{formatQuantity(hot[c], 'pressure', units)}</span>
-                  )}
-                />
-              </details>
-            ) : null}
+            {hot ? <HotPressuresToggle kpa={hot} /> : null}
             {failed ? (
               <Suspense fallback={<p role="alert">Not accepted by the server…</p>}>
                 <RefusedRun row={row} failed={failed} onFix={() => setEditing(row.id)} />
