@@ -34,11 +34,19 @@ function PositionsLine({ set, onCar }: { set: TyreSetView; onCar: boolean }) {
   );
 }
 
+interface TyreSetListProps {
+  carId: string;
+  sets: readonly TyreSetView[];
+  entries: readonly OutboxEntry[];
+  /** For a shop reading a customer's car: the sets and their tread, with no way to enter tread or move tyres. */
+  readOnly?: boolean;
+}
+
 /**
  * A car's tyre sets, each with where its tyres sit, its latest tread reading in the corner grid,
  * and a way to record a rotation. Sets and rotations still on this phone are marked.
  */
-export function TyreSetList({ carId, sets, entries }: { carId: string; sets: readonly TyreSetView[]; entries: readonly OutboxEntry[] }) {
+export function TyreSetList({ carId, sets, entries, readOnly = false }: TyreSetListProps) {
   const units = useUnits();
   const [rotating, setRotating] = useState<string | null>(null);
   if (sets.length === 0) return <EmptyState message="No tyre sets recorded for this car yet." />;
@@ -81,7 +89,7 @@ export function TyreSetList({ carId, sets, entries }: { carId: string; sets: rea
             ) : (
               <p className="text-sm text-ink-muted">No tread readings yet.</p>
             )}
-            {rotating === set.id ? (
+            {readOnly ? null : rotating === set.id ? (
               <RotationForm carId={carId} set={set} onSaved={() => setRotating(null)} onCancel={() => setRotating(null)} />
             ) : (
               <div className="flex flex-wrap gap-2">
