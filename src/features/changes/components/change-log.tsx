@@ -66,16 +66,14 @@ function DeleteChangeButton({ carId, changeId, what }: { carId: string; changeId
   );
 }
 
-/** The car's change log — parts fitted, alignments, repairs — newest first, with a form to add one. */
-export function ChangeLog({ carId, saved, entries }: { carId: string; saved: readonly ChangeLogEntry[]; entries: readonly OutboxEntry[] }) {
-  const outbox = useOutbox();
+/** Adds an entry to the car's log, through the outbox (it waits on the phone without signal). */
+function AddChangeForm({ carId }: { carId: string }) {
   const write = useCreateChange();
   const [changedOn, setChangedOn] = useState(todayIsoDate);
   const [what, setWhat] = useState('');
   const [location, setLocation] = useState<(typeof CHANGE_LOCATIONS)[number]>('car');
   const [notes, setNotes] = useState('');
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const rows = mergeRows(saved, entries);
 
   const onSubmit = async (event: FormEvent) => {
     event.preventDefault();
@@ -101,9 +99,44 @@ export function ChangeLog({ carId, saved, entries }: { carId: string; saved: rea
   };
 
   return (
+    <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Add to the change log" className="flex flex-col gap-3 rounded border border-line p-3">
+      <h3 className="font-bold">Add an entry</h3>
+      <TextField label="What changed" placeholder="e.g. Fitted adjustable camber arms" maxLength={200} value={what} error={errors.what} onChange={(e) => setWhat(e.target.value)} />
+      <div className="grid grid-cols-2 gap-3">
+        <TextField label="Date" type="date" value={changedOn} error={errors.changedOn} onChange={(e) => setChangedOn(e.target.value)} />
+        <SelectField
+          label="Where"
+          value={location}
+          options={CHANGE_LOCATIONS.map((l) => ({ value: l, label: LOCATION_WORDS[l] }))}
+          onChange={(e) => setLocation(e.target.value as (typeof CHANGE_LOCATIONS)[number])}
+        />
+      </div>
+      <TextField label="Notes (optional)" value={notes} maxLength={2000} onChange={(e) => setNotes(e.target.value)} />
+      <div>
+        <Button type="submit" isPending={write.isPending} pendingLabel="Saving…">
+          Add to the log
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+interface ChangeLogProps {
+  carId: string;
+  saved: readonly ChangeLogEntry[];
+  entries: readonly OutboxEntry[];
+  /** For a shop reading a customer's car: the entries, with no form and no delete. */
+  readOnly?: boolean;
+}
+
+/** The car's change log — parts fitted, alignments, repairs — newest first, with a form to add one (not when read only). */
+export function ChangeLog({ carId, saved, entries, readOnly = false }: ChangeLogProps) {
+  const outbox = useOutbox();
+  const rows = mergeRows(saved, entries);
+  return (
     <div className="flex flex-col gap-4">
       {rows.length === 0 ? (
-        <EmptyState message="Nothing logged yet: parts fitted, alignments and repairs go here." />
+        <EmptyState message={`Nothing logged yet: ${readOnly ? 'the drivers log parts fitted, alignments and repairs here' : 'parts fitted, alignments and repairs go here'}.`} />
       ) : (
         <ol className="flex flex-col gap-2" aria-label="Change log, newest first">
           {rows.map((row) => (
@@ -114,7 +147,7 @@ export function ChangeLog({ carId, saved, entries }: { carId: string; saved: rea
                   <PendingBadge state={row.pending.state} />
                 ) : row.fromVisit ? (
                   <span className="text-sm text-ink-muted">From a shop visit</span>
-                ) : (
+                ) : readOnly ? null : (
                   <DeleteChangeButton carId={carId} changeId={row.id} what={row.what} />
                 )}
               </div>
@@ -138,25 +171,7 @@ export function ChangeLog({ carId, saved, entries }: { carId: string; saved: rea
           ))}
         </ol>
       )}
-      <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="Add to the change log" className="flex flex-col gap-3 rounded border border-line p-3">
-        <h3 className="font-bold">Add an entry</h3>
-        <TextField label="What changed" placeholder="e.g. Fitted adjustable camber arms" maxLength={200} value={what} error={errors.what} onChange={(e) => setWhat(e.target.value)} />
-        <div className="grid grid-cols-2 gap-3">
-          <TextField label="Date" type="date" value={changedOn} error={errors.changedOn} onChange={(e) => setChangedOn(e.target.value)} />
-          <SelectField
-            label="Where"
-            value={location}
-            options={CHANGE_LOCATIONS.map((l) => ({ value: l, label: LOCATION_WORDS[l] }))}
-            onChange={(e) => setLocation(e.target.value as (typeof CHANGE_LOCATIONS)[number])}
-          />
-        </div>
-        <TextField label="Notes (optional)" value={notes} maxLength={2000} onChange={(e) => setNotes(e.target.value)} />
-        <div>
-          <Button type="submit" isPending={write.isPending} pendingLabel="Saving…">
-            Add to the log
-          </Button>
-        </div>
-      </form>
+      {readOnly ? null : <AddChangeForm carId={carId} />}
     </div>
   );
 }
