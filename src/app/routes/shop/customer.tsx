@@ -10,16 +10,23 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { formatDay } from '@/lib/dates';
+import type { OutboxEntry } from '@/lib/outbox';
 import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-season';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useCar } from '@/features/cars/api/get-car';
 import { CarHeader } from '@/features/cars/components/car-header';
+import { useChanges } from '@/features/changes/api/get-changes';
+import { ChangeLog } from '@/features/changes/components/change-log';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { useRuns } from '@/features/runs/api/get-runs';
+import { HotPressuresToggle } from '@/features/runs/components/hot-pressures-toggle';
 import { STATUS_WORDS } from '@/features/runs/utils/run-words';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupTimeline } from '@/features/setups/components/setup-timeline';
 import { SuggestionList } from '@/features/suggestions/components/suggestion-list';
+import { useTyreSets } from '@/features/tyres/api/get-tyre-sets';
+import { TyreSetList } from '@/features/tyres/components/tyre-set-list';
+import { mergeTyreSets } from '@/features/tyres/utils/tyre-set-views';
 import { CarVisits, OpenWorkOrderForm } from '@/features/work-orders/components/work-order-lists';
 
 type SeasonEventRow = SeasonResult['events'][number];
@@ -67,6 +74,8 @@ function EventRuns({ carId, event, threadId }: { carId: string; event: SeasonEve
               </p>
               <p className="text-sm text-ink-muted">Setup: {labelOf(run.setupId)}</p>
               {run.notes ? <p className="text-sm">{run.notes}</p> : null}
+              {/* Came with the run: no request of its own. */}
+              {run.hotPressuresKpa ? <HotPressuresToggle kpa={run.hotPressuresKpa} /> : null}
               <CommentToggle
                 target={{ type: 'run', id: run.id }}
                 what={`run ${run.runNumber}`}
@@ -154,6 +163,25 @@ function Setups({ carId }: { carId: string }) {
   );
 }
 
+/** Nothing of this car waits in the shop's outbox: the drivers record its tyres and changes. */
+const NO_ENTRIES: readonly OutboxEntry[] = [];
+
+/** The car's tyre sets as saved: which is on the car, the runs on each and its latest tread, read only. */
+function Tyres({ carId }: { carId: string }) {
+  const { data, isPending, isError } = useTyreSets(carId);
+  if (isPending) return <p className="text-ink-muted">Loading tyre sets…</p>;
+  if (isError) return <p className="text-ink-muted">Tyre sets could not be loaded. Try again shortly.</p>;
+  return <TyreSetList carId={carId} sets={mergeTyreSets(data.items, NO_ENTRIES)} entries={NO_ENTRIES} readOnly />;
+}
+
+/** The car's change log as saved, read only. */
+function Changes({ carId }: { carId: string }) {
+  const { data, isPending, isError } = useChanges(carId);
+  if (isPending) return <p className="text-ink-muted">Loading the change log…</p>;
+  if (isError) return <p className="text-ink-muted">The change log could not be loaded. Try again shortly.</p>;
+  return <ChangeLog carId={carId} saved={data.items} entries={NO_ENTRIES} readOnly />;
+}
+
 /** A customer's car as the shop sees it: the season read-only, with threads, and setup suggestions. */
 export function CustomerPage() {
   const { carId = '' } = useParams();
@@ -170,7 +198,7 @@ export function CustomerPage() {
           <>
             {c.owner.displayName}’s car
             {c.coDrivers.length ? `, also driven by ${c.coDrivers.map((p) => p.displayName).join(', ')}` : ''}. Read only: the drivers
-            record runs and setups; you comment and suggest.
+            record runs, setups, tyres and changes; you comment and suggest.
           </>
         )}
         errorText="This car could not be loaded. Its owner may have taken your shop’s access away."
@@ -194,6 +222,16 @@ export function CustomerPage() {
           <SectionBoundary title="Suggestions">
             <SectionCard title="Suggestions">
               <SuggestionList carId={carId} emptyText="No suggestions yet. Use “Suggest a change” on a setup snapshot." />
+            </SectionCard>
+          </SectionBoundary>
+          <SectionBoundary title="Tyres">
+            <SectionCard title="Tyres">
+              <Tyres carId={carId} />
+            </SectionCard>
+          </SectionBoundary>
+          <SectionBoundary title="Change log">
+            <SectionCard title="Change log">
+              <Changes carId={carId} />
             </SectionCard>
           </SectionBoundary>
           <SectionBoundary title="Events">
