@@ -3,9 +3,11 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { SeasonResult } from '../../../../shared/analysis/analysis.schema';
+import { IMPERIAL_PREFERENCES, MM_PER_INCH } from '../../../../shared/calc/units.calc';
+import type { ChangeLogEntry } from '../../../../shared/season/change-log.schema';
 import { jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
-import { BASE_SETUP, CAR, EVENT, IDS, list, RUNS_URL, savedRun } from '../../fixtures/season';
-import { comment, staffUser, suggestion } from '../../fixtures/collab';
+import { BASE_SETUP, CAR, EVENT, IDS, list, RUNS_URL, savedRun, TYRE_SET } from '../../fixtures/season';
+import { COLLAB_IDS, comment, staffUser, suggestion } from '../../fixtures/collab';
 
 const PAGE = `/shop/customers/${IDS.car}`;
 
@@ -34,6 +36,8 @@ function stubCustomer(extra: Parameters<typeof stubFetch>[0] = {}) {
     [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
     [`GET /api/cars/${IDS.car}/season?minDepthMm=1.6`]: jsonResponse(200, SEASON),
     [`GET /api/cars/${IDS.car}/suggestions`]: list([suggestion()]),
+    [`GET /api/cars/${IDS.car}/tyre-sets`]: list([]),
+    [`GET /api/cars/${IDS.car}/changes`]: list([]),
     [`GET ${RUNS_URL}`]: list([
       savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 45.5, adjustedTimeSec: 45.5, commentCount: 1 }),
       savedRun({ id: IDS.run2, runNumber: 2, rawTimeSec: 46.1, cones: 1, adjustedTimeSec: 48.1, isBest: false }),
@@ -122,5 +126,118 @@ describe('the customer page opened for one thread (a notification\'s link)', () 
     expect(within(history).getByRole('button', { name: 'Comments on “Spring baseline”' }).getAttribute('aria-expanded')).toBe('true');
     // No event named: every event stays folded.
     expect(screen.getByRole('button', { name: 'Runs and comments' }).getAttribute('aria-expanded')).toBe('false');
+  });
+});
+
+describe('a customer’s tyres, change log and hot pressures, for the shop', () => {
+  /** Staff who read in inches and psi. */
+  const imperialStaff = () => ({ ...staffUser(), preferences: { units: IMPERIAL_PREFERENCES } });
+  /** n/32 in in mm (1 in = 25.4 mm exactly, NIST SP 811). */
+  const in32 = (n: number) => (n * MM_PER_INCH) / 32;
+
+  it('when staff open the car, then each tyre set shows read only: whether it is on the car, its runs, and its latest tread per corner, inner, middle and outer, in their units', async () => {
+    stubCustomer({
+      'GET /api/auth/me': jsonResponse(200, { user: imperialStaff() }),
+      [`GET /api/cars/${IDS.car}/tyre-sets`]: list([
+        {
+          ...TYRE_SET,
+          runs: 12,
+          latestReading: {
+            ...TYRE_SET.latestReading!,
+            // Worn on the inner edge at the front, as too much negative camber wears it.
+            corners: {
+              lf: { innerMm: in32(2), middleMm: in32(5), outerMm: in32(6), tyreNumber: 1 },
+              rf: { innerMm: in32(3), middleMm: in32(5), outerMm: in32(6), tyreNumber: 2 },
+              lr: { innerMm: in32(6), middleMm: in32(6), outerMm: in32(6), tyreNumber: 3 },
+            },
+          },
+        },
+      ]),
+    });
+    renderApp(PAGE);
+
+    const tyres = await screen.findByRole('region', { name: 'Tyres' });
+    const set = (await within(tyres).findByRole('heading', { name: TYRE_SET.label })).closest('li')!;
+    expect(set.textContent).toContain('On the car');
+    expect(set.textContent).toContain('12 runs on this set');
+    const tread = within(set).getByRole('group', { name: 'Tread depth (/32 in)' });
+    const corner = (name: string) => within(tread).getByRole('group', { name }).textContent;
+    expect(corner('Left front')).toContain('inner 2.0/32 in, at or below the wear bars');
+    expect(corner('Left front')).toContain('middle 5.0/32 in');
+    expect(corner('Left front')).toContain('outer 6.0/32 in');
+    expect(corner('Right front')).toContain('inner 3.0/32 in');
+    expect(corner('Right front')).not.toContain('wear bars');
+    expect(corner('Right rear')).toContain('Not measured');
+    // Nothing to enter, rotate, fit or add: the drivers record their tyres.
+    expect(within(tyres).queryAllByRole('button')).toHaveLength(0);
+    expect(within(tyres).queryAllByRole('link')).toHaveLength(0);
+    expect(screen.queryByRole('link', { name: /Enter tread/ })).toBeNull();
+  });
+
+  it('when staff open the car, then its change log shows newest first, a visit\'s entries marked, with no form and nothing to delete', async () => {
+    const change = (partial: Partial<ChangeLogEntry> & Pick<ChangeLogEntry, 'id' | 'changedOn' | 'what'>): ChangeLogEntry => ({
+      carId: IDS.car,
+      location: 'car',
+      notes: null,
+      setupId: null,
+      fromVisit: false,
+      createdBy: { id: IDS.maren, displayName: 'Maren Holt' },
+      createdAt: `${partial.changedOn}T18:00:00.000Z`,
+      ...partial,
+    });
+    stubCustomer({
+      [`GET /api/cars/${IDS.car}/changes`]: list([
+        change({ id: 'ca111111-1111-4111-8111-111111111111', changedOn: '2026-04-02', what: 'Fitted stiffer front anti-roll bar', location: 'front' }),
+        change({
+          id: 'ca222222-2222-4222-8222-222222222222',
+          changedOn: '2026-05-10',
+          what: 'Alignment: front camber −2.2°',
+          fromVisit: true,
+          createdBy: { id: COLLAB_IDS.dusty, displayName: 'Dusty Okonjo' },
+        }),
+      ]),
+    });
+    renderApp(PAGE);
+
+    const log = await screen.findByRole('region', { name: 'Change log' });
+    const entries = within(await within(log).findByRole('list', { name: 'Change log, newest first' })).getAllByRole('listitem');
+    expect(entries).toHaveLength(2);
+    expect(entries[0]!.textContent).toContain('Alignment: front camber −2.2°');
+    expect(entries[0]!.textContent).toContain('From a shop visit');
+    expect(entries[1]!.textContent).toContain('Fitted stiffer front anti-roll bar');
+    expect(entries[1]!.textContent).toContain('Front · Maren Holt');
+    expect(within(log).queryByRole('form', { name: 'Add to the change log' })).toBeNull();
+    expect(within(log).queryAllByRole('button')).toHaveLength(0);
+  });
+
+  it('when an event is opened, then a run with hot pressures has them under a toggle, in the staff\'s units, from the runs already loaded', async () => {
+    // 35.0, 34.0 and 32.0 psi at 6.894 757 293 168 kPa/psi (NIST SP 811); the right rear not taken.
+    const hot = { lf: 241.317, rf: 234.422, lr: 220.632 };
+    const fetchMock = stubCustomer({
+      'GET /api/auth/me': jsonResponse(200, { user: imperialStaff() }),
+      [`GET ${RUNS_URL}`]: list([
+        savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 45.5, adjustedTimeSec: 45.5, hotPressuresKpa: hot }),
+        savedRun({ id: IDS.run2, runNumber: 2, rawTimeSec: 46.1, adjustedTimeSec: 46.1, isBest: false }),
+      ]),
+    });
+    renderApp(PAGE);
+    const u = userEvent.setup();
+
+    await u.click(await screen.findByRole('button', { name: 'Runs and comments' }));
+    const runs = await screen.findByRole('list', { name: `Runs at ${EVENT.name}` });
+    const [first, second] = within(runs).getAllByRole('listitem').filter((li) => li.parentElement === runs);
+    const toggle = within(first!).getByText('Hot pressures', { selector: 'summary' });
+    await u.click(toggle);
+    const shown = within(within(first!).getByRole('group', { name: 'Hot pressures' }));
+    expect(within(shown.getByRole('group', { name: 'Left front' })).getByText('35.0 psi')).toBeTruthy();
+    expect(within(shown.getByRole('group', { name: 'Right front' })).getByText('34.0 psi')).toBeTruthy();
+    expect(within(shown.getByRole('group', { name: 'Left rear' })).getByText('32.0 psi')).toBeTruthy();
+    expect(within(shown.getByRole('group', { name: 'Right rear' })).getByText('—')).toBeTruthy();
+    // A run without them has no toggle.
+    expect(within(second!).queryByText('Hot pressures')).toBeNull();
+    // They came with the event's runs: nothing was asked for each run.
+    const urls = fetchMock.mock.calls.map(([input]) => String(input));
+    expect(urls.filter((url) => url.startsWith('/api/runs'))).toEqual(urls.filter((url) => url === RUNS_URL));
+    expect(urls.filter((url) => url.includes(IDS.run1) || url.includes(IDS.run2))).toEqual([]);
   });
 });
