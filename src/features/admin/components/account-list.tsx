@@ -8,7 +8,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { FormAlert } from '@/components/ui/form-alert';
 import { TextField } from '@/components/ui/text-field';
 import { isApiError } from '@/lib/api-client';
-import { toast } from '@/lib/toast-store';
+import { dismissToast, toast } from '@/lib/toast-store';
 import { formatDay, formatDateTime } from '@/lib/dates';
 import { describeRoles } from '@/features/auth/utils/describe-roles';
 import { TextArea } from '@/components/ui/text-area';
@@ -64,6 +64,17 @@ function ConfirmWithField({
   );
 }
 
+/**
+ * The last word on each account's standing: a new one takes the place of the one before, so "is suspended" never
+ * stays on screen above "can sign in again".
+ */
+const standingToasts = new Map<string, number>();
+function standingToast(accountId: string, message: Parameters<typeof toast>[0]) {
+  const before = standingToasts.get(accountId);
+  if (before !== undefined) dismissToast(before);
+  standingToasts.set(accountId, toast(message));
+}
+
 type Suspend = ReturnType<typeof useSuspendAccount>;
 type Restore = ReturnType<typeof useRestoreAccount>;
 
@@ -96,7 +107,11 @@ function SuspendAccount({ account, suspend }: { account: AdminAccount; suspend: 
           {
             onSuccess: () => {
               onSuccess();
-              toast({ tone: 'success', title: `${account.displayName} is suspended`, description: 'Signed out everywhere until an admin restores the account.' });
+              standingToast(account.id, {
+                tone: 'success',
+                title: `${account.displayName} is suspended`,
+                description: 'Signed out everywhere until an admin restores the account.',
+              });
             },
             onError,
           },
@@ -165,7 +180,7 @@ function RestoreAccount({ account, restore }: { account: AdminAccount; restore: 
         restore.mutate(account.id, {
           onSuccess: () => {
             onSuccess();
-            toast({ tone: 'success', title: `${account.displayName} can sign in again` });
+            standingToast(account.id, { tone: 'success', title: `${account.displayName} can sign in again` });
           },
           onError,
         })

@@ -113,6 +113,8 @@ describe('the accounts page', () => {
     await u.click(screen.getByRole('button', { name: 'Restore Tomas Reed' }));
     await u.click(within(screen.getByRole('dialog', { name: 'Restore Tomas Reed?' })).getByRole('button', { name: 'Restore account' }));
     expect(await screen.findByText('Tomas Reed can sign in again')).toBeTruthy();
+    // The word before it goes: the two never stand one above the other.
+    await waitFor(() => expect(screen.queryByText('Tomas Reed is suspended')).toBeNull());
     expect(await screen.findByRole('button', { name: 'Make admin Tomas Reed' })).toBeTruthy();
   });
 
