@@ -9,6 +9,8 @@ import { createQueryClient } from '@/app/query-client';
 import { api, dropCsrfToken, NETWORK_MESSAGE } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
 import { errorResponse, jsonResponse, renderApp, requestsTo, SIGNED_OUT, stubFetch } from '../test-utils';
+import { EVENT } from '../fixtures/season';
+import { todayIsoDate } from '@/lib/dates';
 
 const SAM = { id: 'u1', email: 'sam@example.test', displayName: 'Sam Okafor', roles: ['driver', 'team_captain'], preferences: { units: METRIC_PREFERENCES } };
 
@@ -129,6 +131,22 @@ describe('routes', () => {
     const sync = screen.getByRole('region', { name: 'Sync' });
     expect(within(sync).getByText('All saved')).toBeTruthy();
     expect(screen.getByRole('status').textContent).toContain('All saved');
+  });
+
+  it('when two events are on today, then Home offers both, each one tap from its event day; one on another day is not among them', async () => {
+    const today = todayIsoDate();
+    const morning = { ...EVENT, id: 'e2222222-2222-4222-8222-222222222222', name: 'Morning points round', date: today };
+    const afternoon = { ...EVENT, id: 'e3333333-3333-4333-8333-333333333333', name: 'Afternoon practice', date: today };
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
+      'GET /api/events': jsonResponse(200, { items: [afternoon, morning, EVENT], count: 3 }),
+    });
+    renderApp('/');
+    const day = await screen.findByRole('region', { name: 'Event day' });
+    const links = await within(day).findAllByRole('link');
+    expect(links.map((l) => l.getAttribute('href'))).toEqual([`/events/${afternoon.id}`, `/events/${morning.id}`]);
+    expect(links.every((l) => l.textContent?.startsWith('Today'))).toBe(true);
   });
 
   it('when a captain opens Home, then each of their teams\' class boards is one tap away, above the event and their cars', async () => {

@@ -6,6 +6,7 @@ import { useEventViews } from '../hooks/use-event-views';
 import { currentEvent, currentEventCaption } from '../utils/current-event';
 import { NEW_EVENT_PATH } from '../utils/new-event-path';
 import { EventRow } from './event-row';
+import { isTodayDate } from '@/lib/dates';
 
 function StartTodayLink() {
   return (
@@ -29,13 +30,18 @@ export function CurrentEventCard() {
     );
   }
   const { event, isToday } = current;
+  // A second event the same day (a morning and an afternoon round) is as near as the first.
+  const alsoToday = isToday ? events.filter((e) => e.id !== event.id && isTodayDate(e.date)) : [];
   return (
     <div className="flex flex-col gap-3">
-      <EventRow
-        event={event}
-        caption={currentEventCaption(current)}
-        before={<CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />}
-      />
+      {[event, ...alsoToday].map((e) => (
+        <EventRow
+          key={e.id}
+          event={e}
+          caption={currentEventCaption(current)}
+          before={<CalendarDays aria-hidden="true" className="size-6 shrink-0 text-accent" />}
+        />
+      ))}
       {isToday ? null : <StartTodayLink />}
     </div>
   );
