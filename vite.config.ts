@@ -175,6 +175,9 @@ export default defineConfig({
           name: 'unit',
           include: ['tests/shared/**/*.test.ts', 'tests/client/**/*.test.{ts,tsx}', 'tests/scripts/**/*.test.ts'],
           environment: 'node',
+          // A form test types a dozen values key by key (user-event): about a second alone, past 5 s when the two
+          // cores are shared with the server tests running beside it. Findings still give up on their own.
+          testTimeout: 15_000,
         },
       },
       {
