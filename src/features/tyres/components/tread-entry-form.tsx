@@ -44,6 +44,8 @@ const NEED_ATTENTION = 'Some readings need attention; they are marked above.';
 const REFUSED_MARKED = 'The server refused some readings; they are marked above.';
 const MARKED_ABOVE = new Set([NEED_ATTENTION, REFUSED_MARKED]);
 const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+/** More than this deeper than the last reading of the same spot is worth a second look, in mm. */
+const DEEPER_THAN_LAST_MM = 0.5;
 
 export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadEntryFormProps) {
   const units = useUnits();
@@ -154,6 +156,19 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
     positionsAcross(corner).flatMap((pos) => {
       const si = inputToSi(texts[corner][pos], 'treadDepth', units);
       return atWearBars(si, `corners.${corner}.${pos}`) ? [`${CORNER_NAMES[corner].toLowerCase()} ${POSITION_WORDS[pos]} (${formatQuantity(si, 'treadDepth', units)})`] : [];
+    }),
+  );
+
+  // Deeper than the last reading by more than a gauge's reading varies from one spot of a rib to the next (a few
+  // tenths of a mm; from memory): tread does not grow, so the reading, the spot or the set is worth a second look.
+  // Said, not refused: the driver knows what was measured.
+  const deeper = CORNERS.flatMap((corner) =>
+    positionsAcross(corner).flatMap((pos) => {
+      const si = inputToSi(texts[corner][pos], 'treadDepth', units);
+      const before = last?.corners[corner]?.[pos];
+      return typeof si === 'number' && typeof before === 'number' && !errors[`corners.${corner}.${pos}`] && si - before > DEEPER_THAN_LAST_MM
+        ? [`${CORNER_NAMES[corner].toLowerCase()} ${POSITION_WORDS[pos]} (${formatDelta(si - before, 'treadDepth', units)})`]
+        : [];
     }),
   );
 
@@ -269,6 +284,12 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
               At or below the wear bars ({formatQuantity(WEAR_BAR_MM, 'treadDepth', units)}): {worn.join(', ')}. A tyre worn to them is done: follow your local
               law and the tyre maker’s advice.
             </span>
+          </p>
+        ) : null}
+        {deeper.length > 0 ? (
+          <p role="status" className="mt-1 text-sm font-semibold">
+            Deeper than the last reading: {deeper.join(', ')}. Tread does not grow back; check the gauge, the spot measured and that this is the
+            same set.
           </p>
         ) : null}
       </div>

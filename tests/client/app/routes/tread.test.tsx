@@ -38,6 +38,22 @@ describe('tread entry', () => {
     expect(changeUnder(screen.getByLabelText('Left rear inner')).trim()).toBe('');
   });
 
+  it('when a depth is typed well deeper than the last reading of that spot, then the form asks for a second look, naming it, without refusing it', async () => {
+    stub(METRIC_PREFERENCES);
+    renderApp(`/cars/${IDS.car}/tread?set=${IDS.tyreSet}`);
+    const u = userEvent.setup();
+    const inner = await screen.findByLabelText('Left front inner');
+    // Last 6.0 mm: 6.4 is within a gauge's spot-to-spot variation (0.5 mm, from memory), 6.7 is not.
+    await u.type(inner, '6.4');
+    expect(screen.queryByText(/Deeper than the last reading/)).toBeNull();
+    await u.clear(inner);
+    await u.type(inner, '6.7');
+    expect(screen.getByText(/^Deeper than the last reading/).textContent).toBe(
+      'Deeper than the last reading: left front inner (▲ 0.7 mm). Tread does not grow back; check the gauge, the spot measured and that this is the same set.',
+    );
+    expect(inner.getAttribute('aria-invalid')).toBeNull();
+  });
+
   it('when a depth at or below the wear bars is typed, then the form says which position in words, not by colour alone', async () => {
     stub(METRIC_PREFERENCES);
     renderApp(`/cars/${IDS.car}/tread?set=${IDS.tyreSet}`);
