@@ -8,7 +8,7 @@ export interface AppNotification {
   kind: NotificationKind;
   carId: string | null;
   actor: { id: string; displayName: string } | null;
-  /** One line, e.g. "Dusty Okonjo (Kettle Lane Chassis Works) commented on run 3 at …". */
+  /** One line, e.g. "Dusty Okonjo (Kettle Lane Chassis Works) commented on Nell Ashdown’s run 3 at …". */
   summary: string;
   /** The app path to open, e.g. /cars/…/review or /suggestions/…. */
   link: string;

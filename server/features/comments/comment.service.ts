@@ -37,7 +37,7 @@ interface ResolvedTarget {
   driverLink: string | ((driverId: string) => string);
   /** The shop's page for the car with this thread open, when the page shows it. */
   staffLink?: string;
-  /** "run 3 at Harbour Lot Sprint" */
+  /** "Teo Marsh’s run 3 at Harbour Lot Sprint" ("their own run 3 …" to the run's driver's own comment) */
   description: string;
   /** A work-order thread: the visit's shop, which its staff sign with even after the car's grant is withdrawn. */
   shop?: { id: string; name: string };
@@ -70,8 +70,9 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
   let resolved: ResolvedTarget;
   switch (target.type) {
     case 'run': {
-      const rows: { car_id: string; event_id: string; run_number: number; event_name: string }[] = await db.query(
-        'SELECT r.car_id, r.event_id, r.run_number, e.name AS event_name FROM runs r JOIN events e ON e.id = r.event_id WHERE r.id = $1',
+      const rows: { car_id: string; event_id: string; run_number: number; event_name: string; driver_id: string; driver_name: string }[] = await db.query(
+        `SELECT r.car_id, r.event_id, r.run_number, e.name AS event_name, r.driver_id, d.display_name AS driver_name
+           FROM runs r JOIN events e ON e.id = r.event_id JOIN users d ON d.id = r.driver_id WHERE r.id = $1`,
         [target.id],
       );
       const r = rows[0];
@@ -80,7 +81,9 @@ async function resolveTarget(db: Queryable, user: User, target: CommentTarget, a
         type: 'run', id: target.id, carId: r.car_id,
         driverLink: eventBoardFor(r.event_id, r.car_id, target.id),
         staffLink: customerPageAt(r.car_id, target.id, r.event_id),
-        description: `run ${r.run_number} at ${r.event_name}`,
+        // A shared car's drivers each have a run 3 that day: the driver's name says whose. The same words go to
+        // everyone told, so never "your run"; a driver writing on their own run is not named twice.
+        description: `${r.driver_id === user.id ? 'their own' : `${r.driver_name}’s`} run ${r.run_number} at ${r.event_name}`,
       };
       break;
     }

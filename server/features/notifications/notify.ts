@@ -25,7 +25,7 @@ export interface NewNotification {
   suggestionId?: string;
   /** Set for notifications about a service visit. */
   workOrderId?: string;
-  /** One line naming who did what, e.g. "Dusty Okonjo (Kettle Lane Chassis Works) commented on run 3 at …". */
+  /** One line naming who did what, e.g. "Dusty Okonjo (Kettle Lane Chassis Works) commented on Nell Ashdown’s run 3 at …". */
   summary: string;
   /** Shown under the summary in the e-mail: the comment, the suggestion's title, the decision's note. */
   detail?: string;

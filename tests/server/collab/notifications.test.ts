@@ -48,7 +48,7 @@ describe('who hears about a comment', () => {
     const comment = await staff.c.post('/api/comments', { target: { type: 'run', id: run.id }, body: 'Two clicks softer at the front.' });
     expect(comment.status).toBe(201);
 
-    const summary = `Dusty Okonjo (${SHOP_NAME}) commented on run 3 at Spring points round 1`;
+    const summary = `Dusty Okonjo (${SHOP_NAME}) commented on Nell Ashdown’s run 3 at Spring points round 1`;
     for (const person of [driver, co]) {
       const list = await notes(person.c);
       expect(list.items[0]).toEqual({
@@ -70,6 +70,27 @@ describe('who hears about a comment', () => {
       'comment', summary, `/shop/customers/${driver.carId}?event=${driver.eventId}&comments=${run.id}`,
     ]);
     expect((await notes(staff.c)).count).toBe(before);
+  });
+
+  it('when the owner and the co-driver each have a run 3 that day, then a comment\'s notification and e-mail name the driver of the run it is on', async () => {
+    const { driver, co, staff } = await crew();
+    const owners = await postRun(driver.c, driver.carId, driver.eventId, { runNumber: 3 });
+    const cos = await postRun(co.c, driver.carId, driver.eventId, { runNumber: 3, recordedAt: '2026-04-12T10:02:00Z' });
+
+    await staff.c.post('/api/comments', { target: { type: 'run', id: cos.id }, body: 'Braked later than Nell into the box.' });
+    const aboutCos = `Dusty Okonjo (${SHOP_NAME}) commented on Teo Marsh’s run 3 at Spring points round 1`;
+    for (const person of [driver, co]) expect((await notes(person.c)).items[0]!.summary).toBe(aboutCos);
+    expect(mailTo(driver.email).at(-1)!.text).toContain(aboutCos);
+
+    // Not "your run": the same words go to everyone told, the run's own driver included.
+    await co.c.post('/api/comments', { target: { type: 'run', id: owners.id }, body: 'Yours was the tidier line.' });
+    const forOwner = (await notes(driver.c)).items[0]!;
+    expect(forOwner.summary).toBe('Teo Marsh commented on Nell Ashdown’s run 3 at Spring points round 1');
+    expect((await notes(staff.c)).items[0]!.summary).toBe(forOwner.summary);
+
+    // Their own run: the name is not said twice.
+    await co.c.post('/api/comments', { target: { type: 'run', id: cos.id }, body: 'Late on the brakes, I know.' });
+    expect((await notes(driver.c)).items[0]!.summary).toBe('Teo Marsh commented on their own run 3 at Spring points round 1');
   });
 
   it('when the owner adds a co-driver, then the co-driver is told who added them, linked to the car, with an e-mail; adding again tells them nothing more', async () => {
@@ -241,7 +262,7 @@ describe('notification e-mails', () => {
     const message = sent[0]!;
     expect(message.subject).toBe('New comment on Blue roadster');
     expect(message.unsubscribeUrl).toBe(unsubscribeUrl);
-    expect(message.text).toContain(`Dusty Okonjo (${SHOP_NAME}) commented on run 3 at Spring points round 1`);
+    expect(message.text).toContain(`Dusty Okonjo (${SHOP_NAME}) commented on Nell Ashdown’s run 3 at Spring points round 1`);
     expect(message.text).toContain('Two clicks softer <front>.');
     expect(message.text).toContain(pageUrl);
     expect(message.text).toContain('because you drive Blue roadster');
