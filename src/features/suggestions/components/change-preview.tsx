@@ -1,8 +1,8 @@
 import type { SetupCornerField } from '@shared/season/setup.schema';
 import { CornerGrid } from '@/components/corner-grid/corner-grid';
-import { formatFieldChange, formatFieldValue } from '@/lib/setup-fields';
+import { FIELD_INFO, formatFieldChange, formatFieldValue } from '@/lib/setup-fields';
 import { useUnits } from '@/lib/units-context';
-import { FIELD_LABELS, type PreviewCell } from '../utils/change-rows';
+import type { PreviewCell } from '../utils/change-rows';
 
 /** One corner's from → to, with the difference: "−1.20° → −1.70° (▼ 0.50°)". */
 export function FromTo({ cell }: { cell: Pick<PreviewCell, 'field' | 'from' | 'to'> }) {
@@ -33,7 +33,7 @@ export function ChangePreview({ cells }: { cells: readonly PreviewCell[] }) {
         return (
           <CornerGrid
             key={field}
-            label={FIELD_LABELS[field]}
+            label={FIELD_INFO[field].label}
             renderCorner={(corner) => {
               const cell = byCorner(corner);
               return cell ? <FromTo cell={cell} /> : <p className="text-right text-sm text-ink-muted">unchanged</p>;

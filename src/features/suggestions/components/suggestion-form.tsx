@@ -17,7 +17,7 @@ import { unitSymbol } from '@/lib/numbers';
 import { FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
 import { useUnits } from '@/lib/units-context';
 import { useCreateSuggestion, type CreateSuggestionBody } from '../api/create-suggestion';
-import { CORNER_SETS, FIELD_LABELS, newChangeRow, outOfRange, previewChanges, rowToChange, type ChangeRow } from '../utils/change-rows';
+import { CORNER_SETS, newChangeRow, outOfRange, previewChanges, rowToChange, type ChangeRow } from '../utils/change-rows';
 import { deltaHint, examplePlaceholder } from '../utils/delta-hint';
 import { FromTo } from './change-preview';
 import { TextArea } from '@/components/ui/text-area';
@@ -25,7 +25,7 @@ import { UnusualValues } from './unusual-values';
 
 type Errors = Record<string, string>;
 
-const FIELD_OPTIONS = SETUP_CORNER_FIELDS.map((f) => ({ value: f, label: FIELD_LABELS[f] }));
+const FIELD_OPTIONS = SETUP_CORNER_FIELDS.map((f) => ({ value: f, label: FIELD_INFO[f].label }));
 const MODE_OPTIONS = [
   { value: 'delta', label: 'Change by' },
   { value: 'value', label: 'Set to' },
@@ -52,8 +52,7 @@ interface RowEditorProps {
 
 function RowEditor({ row, index, count, base, before, errors, onChange, onRemove }: RowEditorProps) {
   const units = useUnits();
-  const { quantity, signed } = FIELD_INFO[row.field];
-  const label = FIELD_LABELS[row.field];
+  const { label, quantity, signed } = FIELD_INFO[row.field];
   const unit = quantity ? unitSymbol(quantity, units) : 'clicks';
   const { change } = rowToChange(row, units);
   const cells = change ? previewChanges(base, [...before, change]).slice(-change.corners.length) : [];

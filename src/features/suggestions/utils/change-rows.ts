@@ -1,15 +1,10 @@
 import { fromDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import type { SuggestionChange } from '@shared/collab/suggestion.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
-import { SETUP_CORNER_FIELDS, type Setup, type SetupCornerField } from '@shared/season/setup.schema';
+import type { Setup, SetupCornerField } from '@shared/season/setup.schema';
 import { parseDecimal, tidy, typeANumber } from '@/lib/numbers';
 import { cornerProblems } from '@/lib/setup-corner-problems';
 import { FIELD_INFO } from '@/lib/setup-fields';
-
-/** What a shop can suggest changing, named as the trade says it. */
-export const FIELD_LABELS: Record<SetupCornerField, string> = Object.fromEntries(
-  SETUP_CORNER_FIELDS.map((f) => [f, f === 'damperClicks' ? 'Bump clicks' : FIELD_INFO[f].label]),
-) as Record<SetupCornerField, string>;
 
 export const CORNER_SETS: readonly { label: string; corners: readonly Corner[] }[] = [
   { label: 'Front pair', corners: ['lf', 'rf'] },

@@ -48,12 +48,18 @@ describe('a suggestion', () => {
           { field: 'damperClicks', corners: ['lr', 'rr'], delta: 1 },
           { field: 'damperReboundClicks', corners: ['lf', 'rf'], delta: -2 },
         ],
-        preview: [],
+        preview: [
+          { field: 'damperClicks', corner: 'lr', from: 10, to: 11 },
+          { field: 'damperClicks', corner: 'rr', from: 10, to: 11 },
+        ],
       }),
     );
     renderApp(PAGE);
-    expect(await screen.findByText('Rear pair bump clicks: change by +1 click')).toBeTruthy();
+    // The setups' own names for the two adjusters: "Clicks" (bump, or the only one) and "Rebound clicks".
+    expect(await screen.findByText('Rear pair clicks: change by +1 click')).toBeTruthy();
     expect(screen.getByText('Front pair rebound clicks: change by −2 clicks')).toBeTruthy();
+    expect(within(screen.getByRole('group', { name: 'Clicks' })).getByRole('group', { name: 'Left rear' }).textContent).toContain('→ 11 clicks');
+    expect(screen.queryByText(/bump/i)).toBeNull();
   });
 
   it('when a driver accepts it with a time and a label, then the server gets a device-made setup id, and the new setup is one tap away', async () => {
