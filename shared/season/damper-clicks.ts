@@ -1,9 +1,9 @@
 /**
- * Which way a change of damper clicks goes. An adjuster's clicks are counted from one end of its travel: from full
+ * Damper clicks: which corners have which adjuster, and which way a change goes. An adjuster's clicks are counted from one end of its travel: from full
  * stiff (the usual way, 0 = fully closed) more clicks are softer; from full soft more clicks are stiffer (common
  * practice; the damper maker's manual says which end its clicks count from).
  */
-import { axleOf, type Corner } from './corners';
+import { axleOf, CORNERS, type Axle, type Corner } from './corners';
 import type { Car } from './car.schema';
 
 export type ClickDirection = 'stiffer' | 'softer';
@@ -18,4 +18,28 @@ export function clickDirection(adjusters: Car['damperAdjusters'], corners: reado
   const [end] = ends;
   if (ends.size !== 1 || !end) return null;
   return (end === 'full_soft') === delta > 0 ? 'stiffer' : 'softer';
+}
+
+/** The two click values a corner's setup can hold: clicks (bump, or a damper's only adjuster) and rebound clicks. */
+export const CLICK_FIELDS = ['damperClicks', 'damperReboundClicks'] as const;
+export type ClickField = (typeof CLICK_FIELDS)[number];
+
+export const isClickField = (field: string): field is ClickField => (CLICK_FIELDS as readonly string[]).includes(field);
+
+/**
+ * The corners whose dampers have this adjuster, in grid order. A car describes one adjuster per axle (its clicks), not
+ * whether its dampers are double-adjustable, so rebound clicks are only where the setup records them. Clicks are where
+ * the car describes an adjuster on the axle, or where the setup records clicks all the same.
+ */
+export function cornersWithAdjuster(
+  adjusters: Car['damperAdjusters'],
+  setupCorners: Partial<Record<Corner, Partial<Record<ClickField, number | null>> | undefined>>,
+  field: ClickField,
+): Corner[] {
+  const records = (axle: Axle, f: ClickField) => CORNERS.some((c) => axleOf(c) === axle && typeof setupCorners[c]?.[f] === 'number');
+  const has = (axle: Axle) =>
+    field === 'damperReboundClicks'
+      ? records(axle, 'damperReboundClicks')
+      : adjusters[axle] !== null || records(axle, 'damperClicks') || records(axle, 'damperReboundClicks');
+  return CORNERS.filter((c) => has(axleOf(c)));
 }

@@ -32,9 +32,9 @@ export function NewSuggestionPage() {
           </p>
         ) : null}
       </div>
-      {setups.isPending ? (
+      {setups.isPending || car.isPending ? (
         <p className="text-ink-muted">Loading the car’s setups…</p>
-      ) : setups.isError ? (
+      ) : setups.isError || car.isError ? (
         <EmptyState message="The car’s setups could not be loaded. Try again shortly." />
       ) : !base ? (
         <EmptyState
@@ -50,7 +50,7 @@ export function NewSuggestionPage() {
         </EmptyState>
       ) : (
         <div className="max-w-2xl">
-          <SuggestionForm carId={carId} base={base} onCreated={({ id }) => void navigate(recordPath.suggestion(id))} />
+          <SuggestionForm carId={carId} adjusters={car.data.damperAdjusters} base={base} onCreated={({ id }) => void navigate(recordPath.suggestion(id))} />
         </div>
       )}
     </div>

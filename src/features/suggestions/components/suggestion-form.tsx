@@ -1,6 +1,9 @@
 import { useState, type FormEvent } from 'react';
 import { Plus, Trash2 } from 'lucide-react';
 import { createSuggestionInputSchema, type Suggestion, type SuggestionChange } from '@shared/collab/suggestion.schema';
+import type { Car } from '@shared/season/car.schema';
+import { CORNERS, type Corner } from '@shared/season/corners';
+import { CLICK_FIELDS, cornersWithAdjuster, isClickField, type ClickField } from '@shared/season/damper-clicks';
 import { SETUP_CORNER_FIELDS, type Setup, type SetupCornerField } from '@shared/season/setup.schema';
 import { CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
@@ -25,7 +28,6 @@ import { UnusualValues } from './unusual-values';
 
 type Errors = Record<string, string>;
 
-const FIELD_OPTIONS = SETUP_CORNER_FIELDS.map((f) => ({ value: f, label: FIELD_INFO[f].label }));
 const MODE_OPTIONS = [
   { value: 'delta', label: 'Change by' },
   { value: 'value', label: 'Set to' },
@@ -38,11 +40,30 @@ function flatten(fieldErrors: Record<string, string[]>): Errors {
   return Object.fromEntries(Object.entries(fieldErrors).map(([k, v]) => [k, v.join(' ')]));
 }
 
+/** The values the shop may change, named as the setups name them: clicks only where the car's dampers have that adjuster. */
+type Offered = { fields: { value: SetupCornerField; label: string }[]; corners: (field: SetupCornerField) => readonly Corner[] };
+
+function offeredFor(adjusters: Car['damperAdjusters'], base: Setup): Offered {
+  const clickCorners = Object.fromEntries(CLICK_FIELDS.map((f) => [f, cornersWithAdjuster(adjusters, base.corners, f)])) as Record<ClickField, Corner[]>;
+  const corners = (field: SetupCornerField) => (isClickField(field) ? clickCorners[field] : CORNERS);
+  return {
+    fields: SETUP_CORNER_FIELDS.filter((f) => corners(f).length > 0).map((f) => ({ value: f, label: FIELD_INFO[f].label })),
+    corners,
+  };
+}
+
+/** "Only the front dampers have this adjuster on this car." when one axle's do; null when all four corners do. */
+function onlyWhere(corners: readonly Corner[]): string | null {
+  if (corners.length === CORNERS.length) return null;
+  return `Only the ${corners.includes('lf') ? 'front' : 'rear'} dampers have this adjuster on this car.`;
+}
+
 interface RowEditorProps {
   row: ChangeRow;
   index: number;
   count: number;
   base: Setup;
+  offered: Offered;
   /** The changes before this row, in SI, so the preview builds on them. */
   before: readonly SuggestionChange[];
   errors: Errors;
@@ -50,9 +71,11 @@ interface RowEditorProps {
   onRemove: () => void;
 }
 
-function RowEditor({ row, index, count, base, before, errors, onChange, onRemove }: RowEditorProps) {
+function RowEditor({ row, index, count, base, offered, before, errors, onChange, onRemove }: RowEditorProps) {
   const units = useUnits();
   const { label, quantity, signed } = FIELD_INFO[row.field];
+  const corners = offered.corners(row.field);
+  const where = onlyWhere(corners);
   const unit = quantity ? unitSymbol(quantity, units) : 'clicks';
   const { change } = rowToChange(row, units);
   const cells = change ? previewChanges(base, [...before, change]).slice(-change.corners.length) : [];
@@ -71,8 +94,12 @@ function RowEditor({ row, index, count, base, before, errors, onChange, onRemove
           className="flex-1"
           label="What"
           value={row.field}
-          options={FIELD_OPTIONS}
-          onChange={(e) => onChange({ field: e.target.value as SetupCornerField, amount: '' })}
+          options={offered.fields}
+          onChange={(e) => {
+            const field = e.target.value as SetupCornerField;
+            // Corners without this adjuster are let go of.
+            onChange({ field, amount: '', corners: row.corners.filter((c) => offered.corners(field).includes(c)) });
+          }}
         />
         {count > 1 ? (
           <Button variant="quiet" aria-label={`Remove ${name}`} onClick={onRemove}>
@@ -89,9 +116,10 @@ function RowEditor({ row, index, count, base, before, errors, onChange, onRemove
               key={set.label}
               type="button"
               aria-pressed={sameSet(row.corners, set.corners)}
+              disabled={!set.corners.every((c) => corners.includes(c))}
               onClick={() => onChange({ corners: [...set.corners] })}
               className={cn(
-                'min-h-tap flex-1 rounded border px-2 font-bold',
+                'min-h-tap flex-1 rounded border px-2 font-bold disabled:opacity-50',
                 sameSet(row.corners, set.corners) ? 'border-accent bg-accent text-accent-ink' : 'border-line-strong bg-surface text-ink hover:bg-surface-raised',
               )}
             >
@@ -110,9 +138,10 @@ function RowEditor({ row, index, count, base, before, errors, onChange, onRemove
               <button
                 type="button"
                 aria-pressed={on}
+                disabled={!corners.includes(corner)}
                 onClick={() => onChange({ corners: on ? row.corners.filter((c) => c !== corner) : [...row.corners, corner] })}
                 className={cn(
-                  'flex min-h-tap w-full flex-col items-stretch justify-center rounded border px-2 py-1',
+                  'flex min-h-tap w-full flex-col items-stretch justify-center rounded border px-2 py-1 disabled:opacity-50',
                   on ? 'border-2 border-accent bg-accent-soft text-ink' : 'border-line-strong bg-surface text-ink-muted',
                 )}
               >
@@ -129,6 +158,7 @@ function RowEditor({ row, index, count, base, before, errors, onChange, onRemove
             );
           }}
         />
+        {where ? <p className="text-sm text-ink-muted">{where}</p> : null}
         {cornerError ? <p className="text-sm font-semibold text-warning">{cornerError}</p> : null}
       </div>
       <SegmentedControl
@@ -154,6 +184,8 @@ function RowEditor({ row, index, count, base, before, errors, onChange, onRemove
 
 interface SuggestionFormProps {
   carId: string;
+  /** The car's damper adjusters: clicks are offered only on the axles whose dampers have them. */
+  adjusters: Car['damperAdjusters'];
   /** The snapshot the changes are worked out against. */
   base: Setup;
   onCreated: (suggestion: Pick<Suggestion, 'id'>) => void;
@@ -163,8 +195,9 @@ interface SuggestionFormProps {
  * Shop staff propose setup changes against one snapshot: typed in the user's units, sent in SI,
  * with each corner's from → to shown as they type.
  */
-export function SuggestionForm({ carId, base, onCreated }: SuggestionFormProps) {
+export function SuggestionForm({ carId, adjusters, base, onCreated }: SuggestionFormProps) {
   const units = useUnits();
+  const offered = offeredFor(adjusters, base);
   const create = useCreateSuggestion(carId);
   const [id, setId] = useState(() => crypto.randomUUID());
   const [title, setTitle] = useState('');
@@ -273,6 +306,7 @@ export function SuggestionForm({ carId, base, onCreated }: SuggestionFormProps) 
           index={index}
           count={rows.length}
           base={base}
+          offered={offered}
           before={beforeRow(index)}
           errors={errors}
           onChange={(patch) => updateRow(index, patch)}

@@ -4,6 +4,8 @@ import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { IMPERIAL_PREFERENCES, METRIC_PREFERENCES, type UnitPreferences } from '../../../../shared/calc/units.calc';
 import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
+import type { Car } from '../../../../shared/season/car.schema';
+import type { Setup } from '../../../../shared/season/setup.schema';
 import { BASE_SETUP, CAR, IDS, list, UUID } from '../../fixtures/season';
 import { COLLAB_IDS, staffUser, suggestion } from '../../fixtures/collab';
 
@@ -12,11 +14,11 @@ const POST = `POST /api/cars/${IDS.car}/suggestions`;
 
 setUpAppTests([() => import('@/app/routes/suggestions/new-suggestion')]);
 
-function stub(units: UnitPreferences, extra: Parameters<typeof stubFetch>[0] = {}) {
+function stub(units: UnitPreferences, extra: Parameters<typeof stubFetch>[0] = {}, car: Car = CAR, base: Setup = BASE_SETUP) {
   return stubFetch({
     'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
-    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
-    [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
+    [`GET /api/cars/${IDS.car}`]: jsonResponse(200, car),
+    [`GET /api/cars/${IDS.car}/setups`]: list([base]),
     [`GET /api/suggestions/${COLLAB_IDS.suggestion}`]: jsonResponse(200, suggestion()),
     ...extra,
   });
@@ -24,6 +26,13 @@ function stub(units: UnitPreferences, extra: Parameters<typeof stubFetch>[0] = {
 
 type U = ReturnType<typeof userEvent.setup>;
 const change = (n: number) => screen.getByRole('group', { name: `Change ${n}` });
+const whatOptions = (n: number) => within(within(change(n)).getByLabelText('What')).getAllByRole('option').map((o) => o.textContent);
+
+/** BASE_SETUP with rebound clicks recorded at every corner: the car's dampers are double-adjustable. */
+const DOUBLE_ADJUSTABLE: Setup = {
+  ...BASE_SETUP,
+  corners: Object.fromEntries(Object.entries(BASE_SETUP.corners).map(([c, v]) => [c, { ...v, damperReboundClicks: 12 }])) as Setup['corners'],
+};
 
 async function fillWords(u: U) {
   await u.click(await screen.findByLabelText('Title'));
@@ -84,10 +93,13 @@ describe('suggesting a setup change', () => {
     await waitFor(() => expect(router.state.location.pathname).toBe(`/suggestions/${body.id}`));
   }, 15_000);
 
-  it('when "Set to" is used for clicks, then the value is sent as a whole number of clicks, not a change', async () => {
-    const fetchMock = stub(METRIC_PREFERENCES, {
-      [POST]: ({ body }) => jsonResponse(201, suggestion({ id: (body as { id: string }).id })),
-    });
+  it('when "Set to" is used for rebound clicks, then the value is sent as a whole number of clicks, not a change', async () => {
+    const fetchMock = stub(
+      METRIC_PREFERENCES,
+      { [POST]: ({ body }) => jsonResponse(201, suggestion({ id: (body as { id: string }).id })) },
+      CAR,
+      DOUBLE_ADJUSTABLE,
+    );
     renderApp(PATH);
     const u = userEvent.setup();
     await fillWords(u);
@@ -102,6 +114,64 @@ describe('suggesting a setup change', () => {
     expect((requestsTo(fetchMock, POST)[0]!.body as { changes: unknown[] }).changes).toEqual([
       { field: 'damperReboundClicks', corners: ['lr', 'rr'], value: 6 },
     ]);
+  });
+
+  it('when the car\'s dampers have one adjuster, then the clicks are named as the setups name them and no rebound clicks are offered', async () => {
+    stub(METRIC_PREFERENCES);
+    renderApp(PATH);
+    await screen.findByRole('group', { name: 'Change 1' });
+
+    // BASE_SETUP records clicks but no rebound clicks: one adjuster per damper.
+    expect(whatOptions(1)).toEqual(['Camber', 'Toe', 'Caster', 'Spring rate', 'Ride height', 'Clicks', 'Cold pressure', 'Corner weight']);
+    expect(screen.queryByText(/bump clicks/i)).toBeNull();
+  });
+
+  it('when the setup records rebound clicks as well, then both adjusters are offered, under the setups\' names', async () => {
+    stub(METRIC_PREFERENCES, {}, CAR, DOUBLE_ADJUSTABLE);
+    renderApp(PATH);
+    await screen.findByRole('group', { name: 'Change 1' });
+    expect(whatOptions(1)).toContain('Clicks');
+    expect(whatOptions(1)).toContain('Rebound clicks');
+  });
+
+  it('when only the front dampers adjust, then clicks can be chosen on the front corners only, and rear corners chosen before are let go of', async () => {
+    const frontOnly: Car = { ...CAR, damperAdjusters: { front: CAR.damperAdjusters.front, rear: null } };
+    const noRearClicks: Setup = {
+      ...BASE_SETUP,
+      corners: { ...BASE_SETUP.corners, lr: { ...BASE_SETUP.corners.lr, damperClicks: null }, rr: { ...BASE_SETUP.corners.rr, damperClicks: null } },
+    };
+    stub(METRIC_PREFERENCES, {}, frontOnly, noRearClicks);
+    renderApp(PATH);
+    const u = userEvent.setup();
+    const row = within(await screen.findByRole('group', { name: 'Change 1' }));
+    const cornerButton = (name: string) => within(row.getByRole('group', { name })).getByRole('button');
+
+    await u.click(row.getByRole('button', { name: 'All four' }));
+    await u.selectOptions(row.getByLabelText('What'), 'Clicks');
+
+    expect(row.getByText('Only the front dampers have this adjuster on this car.')).toBeTruthy();
+    expect((row.getByRole('button', { name: 'Front pair' }) as HTMLButtonElement).disabled).toBe(false);
+    for (const name of ['Rear pair', 'All four']) expect((row.getByRole('button', { name }) as HTMLButtonElement).disabled).toBe(true);
+    expect((cornerButton('Left rear') as HTMLButtonElement).disabled).toBe(true);
+    expect(cornerButton('Left rear').getAttribute('aria-pressed')).toBe('false');
+    expect(cornerButton('Left front').getAttribute('aria-pressed')).toBe('true');
+
+    // Back on a value every corner has, every corner can be chosen again.
+    await u.selectOptions(row.getByLabelText('What'), 'Cold pressure');
+    expect((cornerButton('Left rear') as HTMLButtonElement).disabled).toBe(false);
+    expect(row.queryByText(/dampers have this adjuster/)).toBeNull();
+  });
+
+  it('when the car\'s dampers are fixed and no clicks are recorded, then no clicks are offered at all', async () => {
+    const fixed: Car = { ...CAR, damperAdjusters: { front: null, rear: null } };
+    const noClicks: Setup = {
+      ...BASE_SETUP,
+      corners: Object.fromEntries(Object.entries(BASE_SETUP.corners).map(([c, v]) => [c, { ...v, damperClicks: null }])) as Setup['corners'],
+    };
+    stub(METRIC_PREFERENCES, {}, fixed, noClicks);
+    renderApp(PATH);
+    await screen.findByRole('group', { name: 'Change 1' });
+    expect(whatOptions(1).filter((o) => /clicks/i.test(o ?? ''))).toEqual([]);
   });
 
   it('when the form is sent empty, then nothing goes to the server and each field says what is missing', async () => {
