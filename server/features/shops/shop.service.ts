@@ -138,8 +138,8 @@ export async function listCustomers(ds: DataSource, user: User, shopId: string):
        LEFT JOIN LATERAL (
          SELECT x.at, x.kind, x.summary FROM (
            (SELECT LEAST(r.recorded_at, r.created_at) AS at, 'run' AS kind,
-                   'Run ' || r.run_number || ' at ' || e.name AS summary
-              FROM runs r JOIN events e ON e.id = r.event_id
+                   d.display_name || '’s run ' || r.run_number || ' at ' || e.name AS summary
+              FROM runs r JOIN events e ON e.id = r.event_id JOIN users d ON d.id = r.driver_id
              WHERE r.car_id = c.id ORDER BY 1 DESC LIMIT 1)
            UNION ALL
            (SELECT LEAST(s.effective_from, s.created_at), 'setup', 'New setup “' || s.label || '”'

@@ -136,7 +136,7 @@ describe('GET /api/shops/:shopId/customers', () => {
     expect((await latest()).latestActivity).toEqual({ at: '2026-04-01T00:00:00.000Z', kind: 'setup', summary: 'New setup “Spring baseline”' });
 
     await postRun(driver.c, driver.carId, driver.eventId, { runNumber: 3, recordedAt: '2026-04-12T10:00:00Z' });
-    expect((await latest()).latestActivity).toEqual({ at: '2026-04-12T10:00:00.000Z', kind: 'run', summary: 'Run 3 at Spring points round 1' });
+    expect((await latest()).latestActivity).toEqual({ at: '2026-04-12T10:00:00.000Z', kind: 'run', summary: 'Nell Ashdown’s run 3 at Spring points round 1' });
 
     // Entered later but in force earlier: the run is still the newest thing that happened.
     await postSetup(driver.c, driver.carId, { label: 'Winter storage', effectiveFrom: '2026-01-10T00:00:00Z' });

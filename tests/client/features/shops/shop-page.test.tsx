@@ -36,7 +36,7 @@ function stubShop(extra: Parameters<typeof stubFetch>[0] = {}) {
     [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
     [`GET /api/shops/${COLLAB_IDS.shop}/customers`]: list([
       customer({
-        latestActivity: { at: '2026-06-08T10:00:00.000Z', kind: 'run', summary: 'Run 4 at Harrow Flats — Round 4, 45.912' },
+        latestActivity: { at: '2026-06-08T10:00:00.000Z', kind: 'run', summary: 'Maren Holt’s run 4 at Harrow Flats — Round 4' },
         openSuggestions: 1,
       }),
     ]),
@@ -56,7 +56,7 @@ describe('the shop page', () => {
     expect(link.textContent).toContain('Maren Holt');
     // The summary names what happened itself; nothing is put in front of it ("Run: Run 4 …" read twice).
     const lines = [...link.querySelectorAll('span')].map((span) => span.textContent);
-    expect(lines).toContain('Run 4 at Harrow Flats — Round 4, 45.912 · about 2 hours ago');
+    expect(lines).toContain('Maren Holt’s run 4 at Harrow Flats — Round 4 · about 2 hours ago');
     // date-fns formatDistance wording for 2 h (its documented table: 1.5 h to 23.5 h reads "about N hours").
     expect(link.textContent).toContain('about 2 hours ago');
     expect(link.textContent).toContain('1 open suggestion');
