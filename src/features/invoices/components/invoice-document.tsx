@@ -1,7 +1,7 @@
 import type { Invoice } from '@shared/service/invoice.schema';
-import { LineItemsTable } from '@/components/line-items/line-items-table';
 import { formatDay } from '@/lib/dates';
-import { invoiceCarWords, invoiceStatusWords } from '../utils/invoice-words';
+import { invoiceCarWords } from '../utils/invoice-words';
+import { InvoiceLines } from './invoice-lines';
 
 /**
  * The invoice as a document to print or file: the shop and its own lines, the number and dates, who it is for and
@@ -50,20 +50,7 @@ export function InvoiceDocument({ invoice }: { invoice: Invoice }) {
         <p className="text-sm break-words whitespace-pre-line">{invoice.requestedWork}</p>
       </section>
 
-      <LineItemsTable
-        caption={`Lines of invoice ${invoice.number}`}
-        currency={invoice.currency}
-        lines={invoice.lines}
-        totals={[
-          { label: 'Subtotal', cents: invoice.subtotalCents },
-          { label: `Tax (${invoice.taxRatePct} %)`, cents: invoice.taxCents },
-          { label: 'Total', cents: invoice.totalCents, weight: 'total' },
-        ]}
-      />
-
-      <p className="font-bold" aria-label="Invoice status">
-        {invoiceStatusWords(invoice)}
-      </p>
+      <InvoiceLines invoice={invoice} caption={`Lines of invoice ${invoice.number}`} />
     </article>
   );
 }

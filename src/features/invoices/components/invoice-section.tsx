@@ -12,8 +12,7 @@ import { isApiError } from '@/lib/api-client';
 import { formatDay } from '@/lib/dates';
 import { useWorkOrderInvoice } from '../api/get-invoice';
 import { useMakeInvoice, useMarkPaidInCash, useStartCheckout } from '../api/pay-invoice';
-import { LineItemsTable } from '@/components/line-items/line-items-table';
-import { invoiceStatusWords } from '../utils/invoice-words';
+import { InvoiceLines } from './invoice-lines';
 
 /** After coming back from the checkout, ask a few times while the payment service tells the server. */
 const PAID_POLL_MS = 2000;
@@ -27,19 +26,7 @@ function InvoiceDetails({ invoice }: { invoice: Invoice }) {
       <p className="tabular-figures text-sm">
         <span className="font-semibold">Invoice {invoice.number}</span> · issued {formatDay(invoice.createdAt)} · for {invoice.billTo}
       </p>
-      <LineItemsTable
-        caption="Invoice lines"
-        currency={invoice.currency}
-        lines={invoice.lines}
-        totals={[
-          { label: 'Subtotal', cents: invoice.subtotalCents },
-          { label: `Tax (${invoice.taxRatePct} %)`, cents: invoice.taxCents },
-          { label: 'Total', cents: invoice.totalCents, weight: 'total' },
-        ]}
-      />
-      <p className="font-bold" aria-label="Invoice status">
-        {invoiceStatusWords(invoice)}
-      </p>
+      <InvoiceLines invoice={invoice} caption="Invoice lines" />
       <Link to={recordPath.invoice(invoice.id)} className={buttonClasses('secondary', 'self-start')}>
         <FileText aria-hidden="true" className="size-4" /> Open the invoice to print
       </Link>
