@@ -16,7 +16,7 @@ type Shown = 'open' | 'all';
 const INVOICES_SHOWN = 8;
 
 const WORDS = {
-  open: { none: 'Every invoice is paid.', list: 'Invoices not paid yet' },
+  open: { none: 'No invoice is waiting to be paid.', list: 'Invoices not paid yet' },
   all: { none: 'No invoices yet. Make one from a closed work order.', list: 'All invoices' },
 } as const;
 

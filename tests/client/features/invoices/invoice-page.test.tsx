@@ -105,7 +105,7 @@ describe('the invoice as a page to print', () => {
 
     // Back in the book, the paid invoice has left the unpaid list and shows as paid in the whole book.
     await u.click(main.getByRole('link', { name: 'Shop' }));
-    expect(await screen.findByText('Every invoice is paid.')).toBeTruthy();
+    expect(await screen.findByText('No invoice is waiting to be paid.')).toBeTruthy();
     await u.click(screen.getByRole('radio', { name: 'All' }));
     const whole = await screen.findByRole('list', { name: 'All invoices' });
     expect(within(whole).getByRole('link').textContent).toMatch(/\$146\.98 · paid /);
