@@ -1,7 +1,9 @@
 import { Wrench } from 'lucide-react';
 import { PendingBadge } from '@/components/ui/pending-badge';
 import { formatClock, formatDay, isOnDate } from '@/lib/dates';
-import type { SetupView } from '../utils/setup-views';
+import { QUICK_CHANGE_PREFIX, type SetupView } from '../utils/setup-views';
+
+const shortLabel = (label: string) => (label.startsWith(QUICK_CHANGE_PREFIX) ? label.slice(QUICK_CHANGE_PREFIX.length) : label);
 
 /**
  * The setup the next run will be tied to, in two lines at most: the one on the car now, or, once the event's
@@ -18,7 +20,8 @@ export function CurrentSetup({ setup, loading = false, day, dayOver = false }: {
         {/* Kept to two lines, so the keypad below stays whole on a phone's first screen (each run shows the full name). */}
         <p className="line-clamp-2 text-sm">
           <span className="text-ink-muted">{dayOver ? 'Setup that day: ' : 'Setup now: '}</span>
-          <span className="font-bold break-words">{setup ? setup.label : loading ? 'not known yet' : 'none recorded'}</span>
+          {/* Beside the Quick change button, a quick change's own name starts with what changed, so the two lines keep the value. */}
+          <span className="font-bold break-words">{setup ? shortLabel(setup.label) : loading ? 'not known yet' : 'none recorded'}</span>
         </p>
         {setup ? (
           <p className="tabular-figures flex flex-wrap items-center gap-x-2 text-xs text-ink-muted">

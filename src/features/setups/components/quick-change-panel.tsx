@@ -16,7 +16,7 @@ import { toast } from '@/lib/toast-store';
 import { useUnits } from '@/lib/units-context';
 import { quickChangeEntry, useQuickChange, type QuickChangeBody } from '../api/quick-change';
 import { FIELD_INFO, formatFieldValue } from '@/lib/setup-fields';
-import { setupInForce, type AppliedQuickChange, type SetupView } from '../utils/setup-views';
+import { QUICK_CHANGE_PREFIX, setupInForce, type AppliedQuickChange, type SetupView } from '../utils/setup-views';
 import { checkedQuickChange } from '../utils/checked-quick-change';
 
 type QuickField = (typeof QUICK_CHANGE_FIELDS)[number];
@@ -169,7 +169,7 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
       setFormError(problems.join('. '));
       return;
     }
-    const label = `Quick change: ${built.words.join(', ')}`;
+    const label = `${QUICK_CHANGE_PREFIX}${built.words.join(', ')}`;
     const body: QuickChangeBody = {
       id: crypto.randomUUID(),
       label: label.length > 80 ? `${label.slice(0, 79)}…` : label,

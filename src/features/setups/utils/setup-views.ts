@@ -11,6 +11,9 @@ export interface SetupView extends Setup {
   pending: null | { state: 'waiting' | 'failed'; entryKey: string; kind: string; error?: OutboxError };
 }
 
+/** What a snapshot made by a quick change between runs is named by: the words of the change follow it. */
+export const QUICK_CHANGE_PREFIX = 'Quick change: ';
+
 const emptyCorner = (): SetupCorner => Object.fromEntries(SETUP_CORNER_FIELDS.map((f) => [f, null])) as SetupCorner;
 
 const time = (iso: string) => new Date(iso).getTime();

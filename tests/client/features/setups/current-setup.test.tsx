@@ -25,4 +25,14 @@ describe('the setup line on the trackside page', () => {
     render(<CurrentSetup setup={setup} day="2026-09-21" />);
     expect(screen.getByText(`since ${day}, ${clock}`)).toBeTruthy();
   });
+
+  it('when the setup is a quick change, then the line starts with what changed, not the words the Quick change button beside it already says', () => {
+    render(<CurrentSetup setup={setup} day="2026-09-20" />);
+    expect(screen.getByText('rear cold pressure −7 kPa')).toBeTruthy();
+    expect(screen.queryByText(/Quick change/)).toBeNull();
+    // Any other name is shown whole, even one that says "quick change" later on.
+    cleanup();
+    render(<CurrentSetup setup={{ ...setup, label: 'Spring baseline after the Quick change: tidy' }} day="2026-09-20" />);
+    expect(screen.getByText('Spring baseline after the Quick change: tidy')).toBeTruthy();
+  });
 });
