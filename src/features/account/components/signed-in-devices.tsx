@@ -60,11 +60,15 @@ function ConfirmSignOut({ target, onDone, onCancel }: { target: Target; onDone: 
   );
 }
 
+/** How many devices show before "Show all": this one and the latest active, the ones a driver looks for. */
+const DEVICES_SHOWN = 6;
+
 /** Where this account is signed in, with a way to sign out a lost phone or a shared computer. */
 export function SignedInDevices() {
   const devices = useSignedInDevices();
   const [target, setTarget] = useState<Target | null>(null);
   const [ended, setEnded] = useState<number | null>(null);
+  const [all, setAll] = useState(false);
 
   if (devices.isPending) return <p className="text-ink-muted">Loading…</p>;
   if (devices.isError) return <FormAlert message="The list of devices could not be loaded. Try again when you have signal." />;
@@ -104,7 +108,7 @@ export function SignedInDevices() {
       ) : null}
       {target?.kind === 'others' ? confirm(target) : null}
       <ul className="flex flex-col gap-2" aria-label="Signed-in devices">
-        {devices.data.map((d) => (
+        {(all ? devices.data : devices.data.slice(0, DEVICES_SHOWN)).map((d) => (
           <li key={d.id} className="flex flex-col gap-3 rounded border border-line p-3">
             <div className="flex flex-wrap items-center justify-between gap-2">
               <div className="flex min-w-0 flex-col">
@@ -127,6 +131,11 @@ export function SignedInDevices() {
           </li>
         ))}
       </ul>
+      {!all && devices.data.length > DEVICES_SHOWN ? (
+        <Button variant="quiet" className="self-start" onClick={() => setAll(true)}>
+          Show all {devices.data.length} devices
+        </Button>
+      ) : null}
     </div>
   );
 }

@@ -91,6 +91,20 @@ describe('signed-in devices in settings', () => {
     expect(section().queryByRole('status')).toBeNull();
   });
 
+  it('when many devices are signed in, then this one and the five latest active show, and the rest on request', async () => {
+    const many: SignedInDevice[] = [
+      THIS,
+      ...Array.from({ length: 8 }, (_, i) => ({ ...IPHONE, id: String(i).repeat(32), lastActiveAt: `2026-11-${String(28 - i).padStart(2, '0')}T12:00:00Z` })),
+    ];
+    const { u } = open(jsonResponse(200, { ended: 1 }), many);
+    const list = within(await screen.findByRole('list', { name: 'Signed-in devices' }));
+    expect(list.getAllByRole('listitem')).toHaveLength(6);
+    expect(list.getAllByRole('listitem')[0]!.textContent).toMatch(/This device/);
+    await u.click(section().getByRole('button', { name: 'Show all 9 devices' }));
+    expect(list.getAllByRole('listitem')).toHaveLength(9);
+    expect(section().queryByRole('button', { name: /Show all/ })).toBeNull();
+  });
+
   it('when only one other device is signed in, then there is no separate button for all of them', async () => {
     open(jsonResponse(200, { ended: 1 }), [THIS, IPHONE]);
     await screen.findByRole('button', { name: 'Sign out Safari on iOS' });
