@@ -3,7 +3,7 @@ import { Minus, Plus, Trash2 } from 'lucide-react';
 import { fromDisplay, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { axleOf, CORNERS, type Corner } from '@shared/season/corners';
 import type { Car } from '@shared/season/car.schema';
-import { clickDirection } from '@shared/season/damper-clicks';
+import { clickDirection, cornersWithAdjuster, isClickField } from '@shared/season/damper-clicks';
 import { QUICK_CHANGE_FIELDS, quickChangeInputSchema, type QuickChangeInput } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
@@ -50,7 +50,6 @@ function toSi(value: number, quantity: Quantity | null, units: UnitPreferences):
 }
 
 const FIELD_OPTIONS = QUICK_CHANGE_FIELDS.map((f) => ({ value: f, label: FIELD_INFO[f].label }));
-const CLICK_FIELDS: readonly QuickField[] = ['damperClicks', 'damperReboundClicks'];
 
 function whereWords(corners: Corner[]): string {
   const preset = PRESETS.find((p) => p.corners.length === corners.length && p.corners.every((c) => corners.includes(c)));
@@ -79,7 +78,7 @@ type AdjustableDampers = { front: boolean; rear: boolean };
  * the car describes, null when a corner's clicks are not known before or after, or the corners go different ways.
  */
 function clicksWay(adjusters: Car['damperAdjusters'], line: ChangeLine, before: SetupView | null, after: AppliedQuickChange | null) {
-  if (!CLICK_FIELDS.includes(line.field) || !after || after.problems.length > 0) return null;
+  if (!isClickField(line.field) || !after || after.problems.length > 0) return null;
   const moves = line.corners.map((c) => {
     const from = before?.corners[c]?.[line.field] ?? null;
     const to = after.corners[c][line.field] ?? null;
@@ -123,10 +122,10 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
   const [errors, setErrors] = useState<Record<number, string>>({});
   const [formError, setFormError] = useState<string | null>(null);
   const base = setupInForce(setups, new Date().toISOString());
-  // Fixed dampers have no clicks to change, unless the setup in force records some all the same.
-  const hasClicks =
-    dampers.front || dampers.rear || CORNERS.some((c) => CLICK_FIELDS.some((f) => (base?.corners[c]?.[f] ?? null) !== null));
-  const fieldOptions = hasClicks ? FIELD_OPTIONS : FIELD_OPTIONS.filter((o) => !CLICK_FIELDS.includes(o.value));
+  // Clicks where the dampers have them (fixed dampers none, unless the setup in force records some all the same), and
+  // rebound clicks only where that setup records them, as the shop's suggestion form offers them: a car says how its
+  // clicks count, not whether its dampers are double-adjustable.
+  const fieldOptions = FIELD_OPTIONS.filter((o) => !isClickField(o.value) || cornersWithAdjuster(adjusters, base?.corners ?? {}, o.value).length > 0);
 
   const update = (id: number, patch: Partial<ChangeLine>) => {
     setLines((ls) => ls.map((l) => (l.id === id ? { ...l, ...patch } : l)));

@@ -634,6 +634,27 @@ describe('event day', () => {
     expect(within(form).getByRole('button', { name: 'All four' }).getAttribute('aria-pressed')).toBe('true');
   });
 
+  it('when the setup in force records no rebound clicks, then a quick change offers clicks but not rebound clicks; once it records them, both', async () => {
+    const offered = async () => {
+      const u = userEvent.setup();
+      await screen.findByRole('form', { name: 'Log a run' });
+      await u.click(screen.getByRole('button', { name: 'Quick change' }));
+      const form = await screen.findByRole('form', { name: 'Quick change' });
+      return [...(within(form).getByLabelText('What') as HTMLSelectElement).options].map((o) => o.value);
+    };
+    stubWithRuns([], { extra: TODAY_EVENT() });
+    const first = renderApp(PATH);
+    const single = await offered();
+    expect(single).toContain('damperClicks');
+    expect(single).not.toContain('damperReboundClicks');
+    first.unmount();
+
+    const withRebound = { ...BASE_SETUP, corners: Object.fromEntries(Object.entries(BASE_SETUP.corners).map(([c, v]) => [c, { ...v, damperReboundClicks: 6 }])) };
+    stubWithRuns([], { setups: [withRebound as typeof BASE_SETUP], extra: TODAY_EVENT() });
+    renderApp(PATH);
+    expect(await offered()).toEqual(expect.arrayContaining(['damperClicks', 'damperReboundClicks']));
+  });
+
   it.each([
     ['front', 'Front', { front: CAR.damperAdjusters.front, rear: null }],
     ['rear', 'Rear', { front: null, rear: CAR.damperAdjusters.rear }],
