@@ -10,6 +10,7 @@ import { useMyShops } from '@/features/shops/api/get-my-shops';
 import { useInvoice } from '@/features/invoices/api/get-invoice';
 import { useMarkPaidInCash } from '@/features/invoices/api/pay-invoice';
 import { InvoiceDocument } from '@/features/invoices/components/invoice-document';
+import { invoiceErrorText } from '@/features/invoices/utils/invoice-words';
 
 /**
  * One invoice as a page of its own, to print or save as a PDF. The shop's staff reach it from their invoice book,
@@ -56,7 +57,7 @@ export function InvoicePage() {
         ) : null}
       </div>
       <div className="print:hidden">
-        <FormAlert message={cash.error ? (isApiError(cash.error) ? cash.error.message : 'Something went wrong; try again.') : null} />
+        <FormAlert message={invoiceErrorText(cash.error)} />
       </div>
       {workOrderId ? null : (
         <p className="text-sm text-ink-muted print:hidden">Its car was deleted by its owner; the shop keeps the invoice as issued.</p>

@@ -8,17 +8,16 @@ import { SectionCard } from '@/components/ui/section-card';
 import { paths } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
 import { shopQueryOptions } from '@/features/shops/api/get-shop';
-import { isApiError } from '@/lib/api-client';
 import { formatDay } from '@/lib/dates';
 import { useWorkOrderInvoice } from '../api/get-invoice';
 import { useMakeInvoice, useMarkPaidInCash, useStartCheckout } from '../api/pay-invoice';
+import { invoiceErrorText } from '../utils/invoice-words';
 import { InvoiceLines } from './invoice-lines';
 
 /** After coming back from the checkout, ask a few times while the payment service tells the server. */
 const PAID_POLL_MS = 2000;
 const PAID_POLL_TRIES = 5;
 
-const errorText = (error: unknown) => (error ? (isApiError(error) ? error.message : 'Something went wrong; try again.') : null);
 
 function InvoiceDetails({ invoice }: { invoice: Invoice }) {
   return (
@@ -73,7 +72,7 @@ export function InvoiceSection({ workOrderId, shopId, isStaff }: { workOrderId: 
           <div className="flex flex-col gap-2">
             <p className="text-ink-muted">No invoice yet. It lists the parts and labour with tax at the shop’s rate.</p>
             <ShopLinesMissing shopId={shopId} />
-            <FormAlert message={errorText(make.error)} />
+            <FormAlert message={invoiceErrorText(make.error)} />
             <Button className="self-start" isPending={make.isPending} pendingLabel="Making the invoice…" onClick={() => make.mutate()}>
               Make the invoice
             </Button>
@@ -99,7 +98,7 @@ export function InvoiceSection({ workOrderId, shopId, isStaff }: { workOrderId: 
           <InvoiceDetails invoice={invoice} />
           {invoice.status === 'open' ? (
             <>
-              <FormAlert message={errorText(checkout.error) ?? errorText(cash.error)} />
+              <FormAlert message={invoiceErrorText(checkout.error) ?? invoiceErrorText(cash.error)} />
               <div className="flex flex-wrap gap-2">
                 {isStaff ? (
                   <Button variant="secondary" isPending={cash.isPending} pendingLabel="Saving…" onClick={() => cash.mutate(invoice.id)}>

@@ -2,6 +2,7 @@ import type { Invoice } from '@shared/service/invoice.schema';
 import type { InvoiceStanding } from '@shared/service/work-order.schema';
 import { formatDateTime } from '@/lib/dates';
 import { formatMoney } from '@/lib/money';
+import { isApiError } from '@/lib/api-client';
 
 /** "Paid in cash on 12 Jun 2026, 16:05", or "Not paid yet". */
 export function invoiceStatusWords(invoice: Pick<Invoice, 'status' | 'paidMethod' | 'paidAt'>): string {
@@ -20,3 +21,7 @@ export function invoiceStandingWords(invoice: InvoiceStanding | null): string {
   if (!invoice) return 'No invoice yet';
   return `Invoice ${invoice.number} · ${formatMoney(invoice.totalCents, invoice.currency)} · ${invoice.status === 'paid' ? 'paid' : 'not paid'}`;
 }
+
+/** What an invoice action's failure says beside its button: the server's words, else a plain retry; null without one. */
+export const invoiceErrorText = (error: unknown): string | null =>
+  error ? (isApiError(error) ? error.message : 'Something went wrong; try again.') : null;
