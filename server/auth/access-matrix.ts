@@ -88,6 +88,7 @@ export const ROUTE_ACCESS: Record<string, RouteNeed> = {
   'POST /api/auth/login': 'public',
   'POST /api/auth/logout': 'public',
   'GET /api/auth/me': 'signed_in',
+  'GET /api/auth/session': 'public',
   'PATCH /api/auth/me/preferences': 'signed_in',
   'POST /api/auth/me/password': 'signed_in',
   'GET /api/auth/me/email': 'signed_in',

@@ -140,6 +140,11 @@ export function authRoutes({ ds, passport, limits, generateCsrfToken, mail, idle
     res.json({ user: currentUser(req) });
   });
 
+  /** Who is signed in on this browser, or null: a question every page asks, so "nobody" is an answer, not a refusal. */
+  router.get('/session', (req, res) => {
+    res.json({ user: req.user ? currentUser(req) : null });
+  });
+
   /** Units per quantity (and later other display choices); merged into what is stored. */
   router.patch('/me/preferences', requireAuth, validate({ body: updatePreferencesInputSchema }), async (req, res) => {
     const user = await updatePreferences(ds, currentUser(req).id, parsed<UpdatePreferencesInput>(res, 'body'));

@@ -5,7 +5,7 @@
  * address, query order included, so both sides build them with these.
  */
 export const firstReads = {
-  me: '/api/auth/me',
+  me: '/api/auth/session',
   cars: '/api/cars',
   event: (eventId: string) => `/api/events/${encodeURIComponent(eventId)}`,
   setups: (carId: string) => `/api/cars/${encodeURIComponent(carId)}/setups`,

@@ -48,4 +48,6 @@ export const userSchema = z.object({
 export type User = z.infer<typeof userSchema>;
 
 export const userResponseSchema = z.object({ user: userSchema });
+/** `GET /api/auth/session`: the signed-in user, or null. */
+export const sessionResponseSchema = z.object({ user: z.nullable(userSchema) });
 export const csrfResponseSchema = z.object({ token: z.string() });

@@ -46,8 +46,11 @@ export function errorResponse(
 
 export const CSRF_TOKEN = 'token-1';
 
-/** GET /api/auth/me when nobody is signed in. */
+/** Any signed-in route's answer once the session has ended. */
 export const SIGNED_OUT = errorResponse(401, 'unauthenticated', 'Sign in to continue.');
+
+/** GET /api/auth/session when nobody is signed in. */
+export const NOBODY_SIGNED_IN = jsonResponse(200, { user: null });
 
 /**
  * Stubs the global fetch with answers keyed "METHOD /path". An array is answered in order

@@ -37,6 +37,24 @@ describe('signing up and in on a phone (390×844)', () => {
     expect(worker).not.toMatch(/zxcvbn/);
   });
 
+  it('when a signed-out phone opens the app, then it lands on sign-in with no failed request and no console error', async () => {
+    const errors: string[] = [];
+    const onConsole = (m: { type(): string; text(): string }) => void (m.type() === 'error' && errors.push(m.text()));
+    const onResponse = (r: { status(): number; url(): string }) => void (r.status() >= 400 && errors.push(`${r.status()} ${r.url()}`));
+    page.on('console', onConsole);
+    page.on('response', onResponse);
+    try {
+      await page.goto(`${baseUrl}/`);
+      await page.waitForURL(/\/sign-in/);
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      await page.waitForLoadState('networkidle');
+    } finally {
+      page.off('console', onConsole);
+      page.off('response', onResponse);
+    }
+    expect(errors).toEqual([]);
+  });
+
   it('when a new driver registers, then they land on home, signed in', async () => {
     await page.goto(`${baseUrl}/`);
     await page.waitForURL(/\/sign-in/);

@@ -8,7 +8,7 @@ import { SIGNED_IN_ROUTE_ID, sendToSignIn } from '@/app/router';
 import { createQueryClient } from '@/app/query-client';
 import { api, dropCsrfToken, NETWORK_MESSAGE } from '@/lib/api-client';
 import { clearToasts } from '@/lib/toast-store';
-import { errorResponse, jsonResponse, renderApp, requestsTo, SIGNED_OUT, stubFetch } from '../test-utils';
+import { errorResponse, jsonResponse, NOBODY_SIGNED_IN, renderApp, requestsTo, SIGNED_OUT, stubFetch } from '../test-utils';
 import { EVENT } from '../fixtures/season';
 import { todayIsoDate } from '@/lib/dates';
 
@@ -41,7 +41,7 @@ describe('routes', () => {
 
   it('when a signed-out user opens a signed-in page, then they are sent to sign in and come back after', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       'POST /api/auth/login': jsonResponse(200, { user: SAM }),
     });
     const { router } = renderApp('/?view=week');
@@ -62,7 +62,7 @@ describe('routes', () => {
 
   it('when someone signs in on a phone that still holds answers from an earlier session, then those answers are dropped', async () => {
     stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       'POST /api/auth/login': jsonResponse(200, { user: SAM }),
     });
     const { queryClient } = renderApp('/sign-in');
@@ -77,7 +77,7 @@ describe('routes', () => {
 
   it('when the e-mail and password do not match (401), then the sign-in form shows the server message', async () => {
     stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       'POST /api/auth/login': errorResponse(401, 'unauthenticated', 'That e-mail and password do not match an account.'),
     });
     const { router } = renderApp('/sign-in');
@@ -93,7 +93,7 @@ describe('routes', () => {
 
   it('when sign-in is rate limited (429), then the form shows how long to wait', async () => {
     stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       'POST /api/auth/login': errorResponse(429, 'rate_limited', 'Too many attempts. Try again in 15 min.'),
     });
     renderApp('/sign-in');
@@ -105,7 +105,7 @@ describe('routes', () => {
 
   it('when there is no connection while signing in, then the form says so and nothing is lost', async () => {
     stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       'POST /api/auth/login': () => Promise.reject(new TypeError('Failed to fetch')),
     });
     renderApp('/sign-in');
@@ -118,7 +118,7 @@ describe('routes', () => {
 
   it('when a signed-in user with no cars opens Home, then it greets them, names their roles and says there are no cars yet', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/auth/session': jsonResponse(200, { user: SAM }),
       'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
       'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
     });
@@ -138,7 +138,7 @@ describe('routes', () => {
     const morning = { ...EVENT, id: 'e2222222-2222-4222-8222-222222222222', name: 'Morning points round', date: today };
     const afternoon = { ...EVENT, id: 'e3333333-3333-4333-8333-333333333333', name: 'Afternoon practice', date: today };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/auth/session': jsonResponse(200, { user: SAM }),
       'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
       'GET /api/events': jsonResponse(200, { items: [afternoon, morning, EVENT], count: 3 }),
     });
@@ -152,7 +152,7 @@ describe('routes', () => {
   it('when a captain opens Home, then each of their teams\' class boards is one tap away, above the event and their cars', async () => {
     const teamId = 'd1111111-1111-4111-8111-111111111111';
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/auth/session': jsonResponse(200, { user: SAM }),
       'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
       'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
       'GET /api/teams/mine': jsonResponse(200, { items: [{ id: teamId, name: 'Late Brakers', isCaptain: true }], count: 1 }),
@@ -169,7 +169,7 @@ describe('routes', () => {
 
   it('when an admin opens Home, then the accounts are one tap away, above the event and their cars; a driver\'s links come after them', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: { ...SAM, roles: ['driver', 'admin'] } }),
+      'GET /api/auth/session': jsonResponse(200, { user: { ...SAM, roles: ['driver', 'admin'] } }),
       'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
       'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
     });
@@ -182,7 +182,7 @@ describe('routes', () => {
     unmount();
 
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: { ...SAM, roles: ['driver'] } }),
+      'GET /api/auth/session': jsonResponse(200, { user: { ...SAM, roles: ['driver'] } }),
       'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
       'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
     });
@@ -192,7 +192,7 @@ describe('routes', () => {
   });
 
   it('when a signed-in user opens the sign-in page, then they go straight to Home', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: SAM }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: SAM }) });
     const { router } = renderApp('/sign-in');
 
     await screen.findByRole('heading', { name: 'Hi, Sam Okafor' });
@@ -201,7 +201,7 @@ describe('routes', () => {
 
   it('when a request on a signed-in page answers 401, then the user is sent to sign in, keeping the address', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/auth/session': jsonResponse(200, { user: SAM }),
       'GET /api/cars': SIGNED_OUT,
     });
     const { router, queryClient } = renderApp('/?view=week');
@@ -240,7 +240,7 @@ describe('routes', () => {
 
   it('when the user signs out from the account menu, then the session ends and the sign-in page opens', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: SAM }),
+      'GET /api/auth/session': jsonResponse(200, { user: SAM }),
       'POST /api/auth/logout': jsonResponse(204),
     });
     const { router, queryClient } = renderApp('/');

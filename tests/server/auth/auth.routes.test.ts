@@ -176,6 +176,25 @@ describe('GET /api/auth/me', () => {
   });
 });
 
+describe('GET /api/auth/session', () => {
+  it('when nobody is signed in, then it answers 200 with a null user, so a browser logs no failed request', async () => {
+    const res = await request(t.app).get('/api/auth/session');
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ user: null });
+  });
+
+  it('when signed in, then it answers the user, and null again once signed out', async () => {
+    const c = client(t.app);
+    const email = uniqueEmail();
+    await c.post('/api/auth/register', { email, password: TEST_PASSWORD, displayName: 'Odile' }).then((r) => expect(r.status).toBe(201));
+    const before = await c.get('/api/auth/session');
+    expect(before.status).toBe(200);
+    expect(before.body.user).toMatchObject({ email, displayName: 'Odile', roles: ['driver'] });
+    await c.post('/api/auth/logout').then((r) => expect(r.status).toBe(204));
+    expect((await c.get('/api/auth/session')).body).toEqual({ user: null });
+  });
+});
+
 describe('PATCH /api/auth/me/preferences', () => {
   it('when a driver picks psi and 1/32 in, then they are kept with the account and the rest stay metric', async () => {
     const { c } = await signedInClient(t);

@@ -177,6 +177,7 @@ const ROUTES: Record<string, { call: Build; expect: Expect; fresh?: boolean }> =
   },
   'POST /api/auth/logout': { call: () => ({ path: '/api/auth/logout' }), expect: everyone(204), fresh: true },
   'GET /api/auth/me': { call: () => ({ path: '/api/auth/me' }), expect: signedIn(200) },
+  'GET /api/auth/session': { call: () => ({ path: '/api/auth/session' }), expect: everyone(200) },
   'PATCH /api/auth/me/preferences': { call: () => ({ path: '/api/auth/me/preferences', body: { units: { pressure: 'kPa' } } }), expect: signedIn(200) },
   // A wrong current password: every signed-in person reaches the check (400), no one's password changes.
   'POST /api/auth/me/password': {

@@ -81,7 +81,7 @@ describe('serving the client', () => {
     const carId = '0953b2ca-f177-4ae5-9077-4787850bcc56';
     const res = await request(app).get(`/events/${eventId}?carId=${carId}&driverId=someone`);
     expect(readsIn(res.text)).toEqual([
-      '/api/auth/me',
+      '/api/auth/session',
       '/api/cars',
       `/api/events/${eventId}`,
       `/api/cars/${carId}/setups`,
@@ -90,17 +90,17 @@ describe('serving the client', () => {
     ]);
     expect(res.text.indexOf('as="fetch"')).toBeLessThan(res.text.indexOf('</head>'));
     // Without the car in the address, the car is the one the phone remembers: only the event is named.
-    expect(readsIn((await request(app).get(`/events/${eventId}`)).text)).toEqual(['/api/auth/me', '/api/cars', `/api/events/${eventId}`]);
+    expect(readsIn((await request(app).get(`/events/${eventId}`)).text)).toEqual(['/api/auth/session', '/api/cars', `/api/events/${eventId}`]);
   });
 
   it('when the address holds something other than ids, then none of it reaches the document', async () => {
     const res = await request(app).get('/events/%22%3E%3Cscript%3E?carId=%22%3E%3Cimg%20src%3Dx%3E');
-    expect(readsIn(res.text)).toEqual(['/api/auth/me']);
+    expect(readsIn(res.text)).toEqual(['/api/auth/session']);
     expect(res.text).not.toContain('<script>');
     expect(res.text).not.toContain('<img');
     const car = await request(app).get('/events/2fbc14dd-8584-48aa-b5b5-cc414c6101e8?carId=x');
-    expect(readsIn(car.text)).toEqual(['/api/auth/me', '/api/cars', '/api/events/2fbc14dd-8584-48aa-b5b5-cc414c6101e8']);
-    expect(readsIn((await request(app).get('/settings')).text)).toEqual(['/api/auth/me']);
+    expect(readsIn(car.text)).toEqual(['/api/auth/session', '/api/cars', '/api/events/2fbc14dd-8584-48aa-b5b5-cc414c6101e8']);
+    expect(readsIn((await request(app).get('/settings')).text)).toEqual(['/api/auth/session']);
   });
 
   it('when a page of no listed chunk is opened, then the document names none', async () => {

@@ -1,18 +1,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { userResponseSchema, type User } from '@shared/auth/auth.schema';
-import { api, isApiError } from '@/lib/api-client';
+import { sessionResponseSchema, type User } from '@shared/auth/auth.schema';
+import { api } from '@/lib/api-client';
 import { authKeys } from './auth-keys';
 import { firstReads } from '@shared/api/first-reads';
 
-/** The signed-in user, or null when nobody is signed in (the server answers 401). */
+/** The signed-in user, or null when nobody is signed in. */
 export async function getMe({ signal }: { signal?: AbortSignal } = {}): Promise<User | null> {
-  try {
-    const { user } = await api.get(firstReads.me, { schema: userResponseSchema, signal });
-    return user;
-  } catch (error) {
-    if (isApiError(error) && error.status === 401) return null;
-    throw error;
-  }
+  const { user } = await api.get(firstReads.me, { schema: sessionResponseSchema, signal });
+  return user;
 }
 
 export function meQueryOptions() {

@@ -9,7 +9,7 @@ import type { Run } from '../../../../shared/season/run.schema';
 import type { Setup } from '../../../../shared/season/setup.schema';
 import { formatDay, todayIsoDate } from '@/lib/dates';
 import type { OutboxEntry } from '@/lib/outbox';
-import { blockingEntry, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, storedEntry, stubFetch } from '../../test-utils';
+import { blockingEntry, errorResponse, jsonResponse, NOBODY_SIGNED_IN, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, storedEntry, stubFetch } from '../../test-utils';
 import { BASE_SETUP, CAR, EVENT, IDS, list, runOnPhone, RUNS_URL, savedRun, user, UUID } from '../../fixtures/season';
 
 const PATH = `/events/${IDS.event}?carId=${IDS.car}`;
@@ -40,7 +40,7 @@ interface StubOptions {
 /** The event, the car, its setups and its runs at the event, as the server would answer; uploads of runs find no signal. */
 function stubWithRuns(runs: Run[] | Response[], opts: StubOptions = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(opts.units ?? METRIC_PREFERENCES) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(opts.units ?? METRIC_PREFERENCES) }),
     [`GET /api/events/${IDS.event}`]: jsonResponse(200, EVENT),
     'GET /api/cars': list([CAR]),
     [RUNS]: runs.length && runs[0] instanceof Response ? (runs as Response[]) : list(runs as Run[]),
@@ -101,7 +101,7 @@ describe('event day', () => {
     let deviceDone: () => void = () => undefined;
     renderApp(PATH, { deviceRead: new Promise<void>((resolve) => (deviceDone = resolve)) });
     await waitFor(() => expect(requestsTo(fetchMock, 'GET /api/cars')).toHaveLength(1));
-    expect(requestsTo(fetchMock, 'GET /api/auth/me')).toHaveLength(1);
+    expect(requestsTo(fetchMock, 'GET /api/auth/session')).toHaveLength(1);
     // Whether this event is still only on the phone is not known yet: nothing about it is asked.
     expect(requestsTo(fetchMock, `GET /api/events/${IDS.event}`)).toHaveLength(0);
     expect(requestsTo(fetchMock, RUNS)).toHaveLength(0);
@@ -110,7 +110,7 @@ describe('event day', () => {
     expect(requestsTo(fetchMock, `GET /api/events/${IDS.event}`)).toHaveLength(1);
     expect(await screen.findByRole('listitem', { name: /^Run 1,/ })).toBeTruthy();
     // Each was asked once: the sign-in check found the answer already on its way.
-    expect(requestsTo(fetchMock, 'GET /api/auth/me')).toHaveLength(1);
+    expect(requestsTo(fetchMock, 'GET /api/auth/session')).toHaveLength(1);
   });
 
   it('when the page first draws on the event\'s day with its runs known, then the keypad goes on screen before the run list, which follows in a later drawing', async () => {
@@ -943,7 +943,7 @@ describe('event day', () => {
 
   it('when an upload finds the session over, then the page goes to sign in, and the run stays on the phone for the driver', async () => {
     stubWithRuns([], {
-      extra: { 'GET /api/auth/me': [jsonResponse(200, { user: user(METRIC_PREFERENCES) }), SIGNED_OUT], 'POST /api/runs': SIGNED_OUT },
+      extra: { 'GET /api/auth/session': [jsonResponse(200, { user: user(METRIC_PREFERENCES) }), NOBODY_SIGNED_IN], 'POST /api/runs': SIGNED_OUT },
     });
     const { router, storage } = renderApp(PATH);
     const u = userEvent.setup();

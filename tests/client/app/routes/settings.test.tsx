@@ -11,7 +11,7 @@ setUpAppTests([() => import('@/app/routes/settings')]);
 describe('unit settings', () => {
   it('when Imperial is chosen and saved, then every choosable unit is sent and the app reads the new units', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       'GET /api/auth/me/sessions': jsonResponse(200, { items: [] }),
       'PATCH /api/auth/me/preferences': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
     });
@@ -36,7 +36,7 @@ describe('unit settings', () => {
 
   it('when one quantity is changed on its own, then only that choice differs from what was saved', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       'GET /api/auth/me/sessions': jsonResponse(200, { items: [] }),
       'PATCH /api/auth/me/preferences': jsonResponse(200, { user: user({ ...METRIC_PREFERENCES, pressure: 'bar' }) }),
     });
@@ -56,7 +56,7 @@ describe('unit settings', () => {
 
   it('when there is no connection, then the form says the units were not saved and keeps the choice', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       'GET /api/auth/me/sessions': jsonResponse(200, { items: [] }),
       'PATCH /api/auth/me/preferences': () => Promise.reject(new TypeError('Failed to fetch')),
     });

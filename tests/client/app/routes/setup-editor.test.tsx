@@ -12,7 +12,7 @@ const SETUPS = `POST /api/cars/${IDS.car}/setups`;
 
 function stub(answer: Parameters<typeof stubFetch>[0][string]) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
     [SETUPS]: answer,

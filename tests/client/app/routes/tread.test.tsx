@@ -10,7 +10,7 @@ setUpAppTests([() => import('@/app/routes/cars/tread')]);
 
 function stub(units: UnitPreferences) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(units) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(units) }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/cars/${IDS.car}/tyre-sets`]: list([TYRE_SET]),
   });
@@ -142,7 +142,7 @@ describe('deleting a reading', () => {
     const readingId = TYRE_SET.latestReading!.id;
     let deleted = false;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/tyre-sets`]: () => list([deleted ? { ...TYRE_SET, latestReading: null } : TYRE_SET]),
       [`DELETE /api/tyre-sets/${IDS.tyreSet}/readings/${readingId}`]: () => {
@@ -165,7 +165,7 @@ describe('deleting a reading', () => {
 describe('tread entry for a car with no tyre set', () => {
   it('when the car has no set, then the page offers to add one there, and its tread boxes follow once it is saved on the phone', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/tyre-sets`]: list([]),
     });

@@ -13,7 +13,7 @@ const NEW = 'copper kettle under the grandstand';
 
 async function openPasswordSection(answer: Response) {
   const fetchMock = stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
     'GET /api/auth/me/sessions': jsonResponse(200, { items: [] }),
     'POST /api/auth/me/password': answer,
   });

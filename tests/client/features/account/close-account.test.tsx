@@ -18,7 +18,7 @@ const section = async () => within(await screen.findByRole('region', { name: 'Cl
 
 function open(answers: StubRoutes = {}, outboxEntries: OutboxEntry[] = []) {
   const fetchMock = stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: ME }),
+    'GET /api/auth/session': jsonResponse(200, { user: ME }),
     'GET /api/auth/me/sessions': jsonResponse(200, { items: [] }),
     'GET /api/auth/me/email': jsonResponse(200, { pending: null }),
     ...answers,

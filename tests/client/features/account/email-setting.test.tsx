@@ -12,7 +12,7 @@ setUpAppTests([() => import('@/app/routes/settings')]);
 describe('e-mail setting', () => {
   it('when the switch is turned off, then only that preference is sent and the switch shows the saved answer', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: withEmails(true) }),
+      'GET /api/auth/session': jsonResponse(200, { user: withEmails(true) }),
       'PATCH /api/auth/me/preferences': jsonResponse(200, { user: withEmails(false) }),
     });
     renderApp('/settings');
@@ -28,7 +28,7 @@ describe('e-mail setting', () => {
 
   it('when there is no connection, then the switch stays as saved and says nothing changed', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: withEmails(false) }),
+      'GET /api/auth/session': jsonResponse(200, { user: withEmails(false) }),
       'PATCH /api/auth/me/preferences': () => Promise.reject(new TypeError('Failed to fetch')),
     });
     renderApp('/settings');

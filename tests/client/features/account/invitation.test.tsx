@@ -3,7 +3,7 @@ import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import type { InvitationPreview } from '../../../../shared/collab/invitation.schema';
-import { CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, stubFetch } from '../../test-utils';
+import { CSRF_TOKEN, errorResponse, jsonResponse, NOBODY_SIGNED_IN, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { list, user } from '../../fixtures/season';
 
 const TOKEN = 'q7Yb2mKx0PzR4sVt8wNc1dLh6jGf3eAu9oIy5rTk_Q';
@@ -29,7 +29,7 @@ setUpAppTests([
 describe('invitation page', () => {
   it('when nobody is signed in, then it says who invites whom to what, and sign-in and registration come back here', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       [`GET /api/invitations/${TOKEN}`]: jsonResponse(200, PREVIEW),
     });
     renderApp(PAGE);
@@ -44,7 +44,7 @@ describe('invitation page', () => {
 
   it('when the invited person is signed in and joins, then the invitation is accepted and the team page opens', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET /api/invitations/${TOKEN}`]: jsonResponse(200, PREVIEW),
       [`POST /api/invitations/${TOKEN}/accept`]: jsonResponse(200, { kind: 'team', id: TEAM_ID, name: PREVIEW.name }),
       [`GET /api/teams/${TEAM_ID}`]: jsonResponse(200, {
@@ -70,7 +70,7 @@ describe('invitation page', () => {
 
   it('when a shop invitation is accepted, then the shop page opens', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET /api/invitations/${TOKEN}`]: jsonResponse(200, { ...PREVIEW, kind: 'shop', name: 'Apex Alignment', asAdmin: true }),
       [`POST /api/invitations/${TOKEN}/accept`]: jsonResponse(200, { kind: 'shop', id: 'a5555555-5555-4555-8555-555555555555', name: 'Apex Alignment' }),
     });
@@ -85,7 +85,7 @@ describe('invitation page', () => {
 
   it('when someone else is signed in, then the page says the invitation is for another address and offers no Join', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: { ...user(), email: 'tomas@example.test' } }),
+      'GET /api/auth/session': jsonResponse(200, { user: { ...user(), email: 'tomas@example.test' } }),
       [`GET /api/invitations/${TOKEN}`]: jsonResponse(200, PREVIEW),
     });
     renderApp(PAGE);
@@ -96,7 +96,7 @@ describe('invitation page', () => {
 
   it('when the invitation has expired or was used, then the page says so plainly and offers no Join', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET /api/invitations/${TOKEN}`]: jsonResponse(200, { ...PREVIEW, state: 'expired', expiresAt: '2026-06-01T10:00:00.000Z' }),
     });
     renderApp(PAGE);
@@ -106,7 +106,7 @@ describe('invitation page', () => {
     cleanup();
 
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET /api/invitations/${TOKEN}`]: jsonResponse(200, { ...PREVIEW, state: 'used' }),
     });
     renderApp(PAGE);
@@ -117,7 +117,7 @@ describe('invitation page', () => {
   it('when the server refuses the join (the address does not match), then its message is shown and the page stays', async () => {
     const message = 'This invitation is for maren@example.test. Sign in with that address to accept it.';
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET /api/invitations/${TOKEN}`]: jsonResponse(200, PREVIEW),
       [`POST /api/invitations/${TOKEN}/accept`]: errorResponse(403, 'forbidden', message),
     });
@@ -132,7 +132,7 @@ describe('invitation page', () => {
 
   it('when the link names no invitation, then the page says the link does not work', async () => {
     stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       [`GET /api/invitations/${TOKEN}`]: errorResponse(404, 'not_found', 'That invitation was not found.'),
     });
     renderApp(PAGE);

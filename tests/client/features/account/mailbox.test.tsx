@@ -3,7 +3,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import type { MailboxMessage } from '../../../../shared/collab/mailbox.schema';
-import { errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, stubFetch } from '../../test-utils';
+import { errorResponse, jsonResponse, NOBODY_SIGNED_IN, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 import { list } from '../../fixtures/season';
 
 const ORIGIN = window.location.origin;
@@ -34,7 +34,7 @@ setUpAppTests([() => import('@/app/routes/dev/mailbox')]);
 
 describe('development mailbox', () => {
   it('when e-mails were caught, then they are listed newest first and the chosen one shows its text, with only this app’s links clickable', async () => {
-    stubFetch({ 'GET /api/auth/me': SIGNED_OUT, 'GET /api/dev/mailbox': list([RESET, INVITE]) });
+    stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN, 'GET /api/dev/mailbox': list([RESET, INVITE]) });
     renderApp('/dev/mailbox');
     const u = userEvent.setup();
 
@@ -62,7 +62,7 @@ describe('development mailbox', () => {
   it('when the mailbox is emptied, then the server is asked to delete every message and the list is read again', async () => {
     let emptied = false;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       'GET /api/dev/mailbox': () => list(emptied ? [] : [RESET]),
       'DELETE /api/dev/mailbox': () => {
         emptied = true;
@@ -79,7 +79,7 @@ describe('development mailbox', () => {
   });
 
   it('when the server has no mailbox (404), then the page says it exists only in development', async () => {
-    stubFetch({ 'GET /api/auth/me': SIGNED_OUT, 'GET /api/dev/mailbox': errorResponse(404, 'not_found', 'Not found.') });
+    stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN, 'GET /api/dev/mailbox': errorResponse(404, 'not_found', 'Not found.') });
     renderApp('/dev/mailbox');
 
     expect(await screen.findByText('The mailbox is only available in development.')).toBeTruthy();

@@ -4,7 +4,7 @@ import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
 import { PASSWORD_RESET_REQUESTED_MESSAGE } from '../../../../shared/collab/invitation.schema';
 import { dropCsrfToken } from '@/lib/api-client';
-import { CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, stubFetch } from '../../test-utils';
+import { CSRF_TOKEN, errorResponse, jsonResponse, NOBODY_SIGNED_IN, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 
 const TOKEN = 'Zr8kQ2vN5xLp0mT7yB3cW9dF1gH4jK6s_A';
 const NEW_PASSWORD = 'gravel kettle orbit lantern';
@@ -22,7 +22,7 @@ describe('forgot password', () => {
       // A server that says more must not change what the page says.
       jsonResponse(202, { message: 'We found your account and e-mailed you.' }),
     ]) {
-      const fetchMock = stubFetch({ 'GET /api/auth/me': SIGNED_OUT, 'POST /api/auth/password-reset': answer });
+      const fetchMock = stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN, 'POST /api/auth/password-reset': answer });
       renderApp('/forgot-password');
       const u = userEvent.setup();
 
@@ -41,7 +41,7 @@ describe('forgot password', () => {
   });
 
   it('when the sign-in page opens, then it links to the forgot-password page', async () => {
-    stubFetch({ 'GET /api/auth/me': SIGNED_OUT });
+    stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN });
     renderApp('/sign-in');
     expect((await screen.findByRole('link', { name: 'Forgot your password?' })).getAttribute('href')).toBe('/forgot-password');
   });
@@ -51,7 +51,7 @@ describe('reset password', () => {
   it('when the link has expired, then the page says so beside a way to ask for a new link', async () => {
     const message = 'This reset link has expired or was already used. Ask for a new one.';
     const fetchMock = stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       'POST /api/auth/password-reset/confirm': errorResponse(400, 'validation_failed', message, { token: [message] }),
     });
     renderApp(`/reset-password?token=${TOKEN}`);
@@ -68,7 +68,7 @@ describe('reset password', () => {
   });
 
   it('when the new password breaks the registration rules, then the field says so and nothing is sent', async () => {
-    const fetchMock = stubFetch({ 'GET /api/auth/me': SIGNED_OUT });
+    const fetchMock = stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN });
     renderApp(`/reset-password?token=${TOKEN}`);
     const u = userEvent.setup();
 
@@ -82,7 +82,7 @@ describe('reset password', () => {
   });
 
   it('when the new password is saved, then the sign-in page opens with a note', async () => {
-    stubFetch({ 'GET /api/auth/me': SIGNED_OUT, 'POST /api/auth/password-reset/confirm': jsonResponse(204) });
+    stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN, 'POST /api/auth/password-reset/confirm': jsonResponse(204) });
     const { router } = renderApp(`/reset-password?token=${TOKEN}`);
     const u = userEvent.setup();
 
@@ -94,7 +94,7 @@ describe('reset password', () => {
   });
 
   it('when the address has no token, then the page says the link is incomplete and offers a new one', async () => {
-    stubFetch({ 'GET /api/auth/me': SIGNED_OUT });
+    stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN });
     renderApp('/reset-password');
 
     expect(await screen.findByText(/This link is incomplete/)).toBeTruthy();

@@ -17,7 +17,7 @@ const LAPTOP: SignedInDevice = { id: 'c'.repeat(32), device: null, signedInAt: n
 function open(endAnswer: Response, before: SignedInDevice[] = [THIS, IPHONE, LAPTOP], after: SignedInDevice[] = [THIS, LAPTOP]) {
   let signedOut = false;
   const fetchMock = stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
     'GET /api/auth/me/sessions': () => jsonResponse(200, { items: signedOut ? after : before }),
     'POST /api/auth/me/sessions/end': () => {
       signedOut = endAnswer.ok;

@@ -2,7 +2,7 @@
 import { screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
-import { CSRF_TOKEN, errorResponse, jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, stubFetch } from '../../test-utils';
+import { CSRF_TOKEN, errorResponse, jsonResponse, NOBODY_SIGNED_IN, renderApp, requestsTo, setUpAppTests, stubFetch } from '../../test-utils';
 
 const TOKEN = '9b0c1d2e-3f40-4152-8637-48596a7b8c9d';
 
@@ -10,7 +10,7 @@ setUpAppTests([() => import('@/app/routes/account/unsubscribe')]);
 
 describe('unsubscribe page', () => {
   it('when the button is pressed, then the token is posted with the CSRF token and the page says how to turn e-mails back on', async () => {
-    const fetchMock = stubFetch({ 'GET /api/auth/me': SIGNED_OUT, [`POST /api/unsubscribe/${TOKEN}`]: jsonResponse(204) });
+    const fetchMock = stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN, [`POST /api/unsubscribe/${TOKEN}`]: jsonResponse(204) });
     renderApp(`/unsubscribe/${TOKEN}`);
     const u = userEvent.setup();
 
@@ -26,7 +26,7 @@ describe('unsubscribe page', () => {
 
   it('when the link names nobody, then the page says the link does not work and where else to turn e-mails off', async () => {
     stubFetch({
-      'GET /api/auth/me': SIGNED_OUT,
+      'GET /api/auth/session': NOBODY_SIGNED_IN,
       [`POST /api/unsubscribe/${TOKEN}`]: errorResponse(404, 'not_found', 'That unsubscribe link was not found.'),
     });
     renderApp(`/unsubscribe/${TOKEN}`);

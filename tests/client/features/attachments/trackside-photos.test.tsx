@@ -22,7 +22,7 @@ beforeEach(() => localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.s
 describe('photos of a run at the track', () => {
   it('when a run’s comments are opened, then its photos fold out in the same dialog, and are asked for only then', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET /api/events/${IDS.event}`]: jsonResponse(200, EVENT),
       'GET /api/cars': list([CAR]),
       [`GET ${RUNS_URL}`]: list([savedRun({ id: IDS.run1, runNumber: 1 })]),

@@ -12,7 +12,7 @@ const STAFF = { ...user(METRIC_PREFERENCES), id: '5a5a5a5a-0000-4000-8000-000000
 
 function stub(me: SignedInUser) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: me }),
+    'GET /api/auth/session': jsonResponse(200, { user: me }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
     [`GET /api/setups/${BASE_SETUP.id}`]: jsonResponse(200, BASE_SETUP),

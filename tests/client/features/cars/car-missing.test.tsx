@@ -13,7 +13,7 @@ describe('a car the account cannot see', () => {
     [403, 'forbidden', 'You do not have access to that car.'],
   ])('when the server answers %i, then the page says the car was not found and offers none of its actions', async (status, code, message) => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       [`GET /api/cars/${IDS.car}`]: errorResponse(status, code, message),
       [`GET /api/cars/${IDS.car}/setups`]: errorResponse(status, code, message),
       [`GET /api/cars/${IDS.car}/tyre-sets`]: errorResponse(status, code, message),

@@ -29,7 +29,7 @@ describe('editing a car', () => {
     const saved: Car = { ...CAR, name: 'Grey roadster II', damperAdjusters: { ...CAR.damperAdjusters, rear: { positions: 16, countFrom: 'full_stiff' } }, version: 2 };
     let stored = CAR;
     const fetch = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${CAR_PATH}`]: () => jsonResponse(200, stored),
       [`PATCH ${CAR_PATH}`]: () => {
         stored = saved;
@@ -73,7 +73,7 @@ describe('editing a car', () => {
   });
 
   it('when a click count is not a whole number, then the box says so and nothing is sent', async () => {
-    const fetch = stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), [`GET ${CAR_PATH}`]: jsonResponse(200, CAR) });
+    const fetch = stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: user() }), [`GET ${CAR_PATH}`]: jsonResponse(200, CAR) });
     renderApp(EDIT);
     const u = userEvent.setup();
     const front = await screen.findByRole('group', { name: 'Front dampers' });
@@ -89,7 +89,7 @@ describe('editing a car', () => {
     const theirs: Car = { ...CAR, classCode: 'STR', version: 2 };
     let stored = CAR;
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${CAR_PATH}`]: () => jsonResponse(200, stored),
       [`PATCH ${CAR_PATH}`]: () => {
         stored = theirs;
@@ -108,7 +108,7 @@ describe('editing a car', () => {
 
   it('when the server refuses a field, then the message stands under that box', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${CAR_PATH}`]: jsonResponse(200, CAR),
       [`PATCH ${CAR_PATH}`]: errorResponse(400, 'validation_failed', 'Check the marked fields.', { classCode: ['Use at most 20 characters'] }),
     });
@@ -124,7 +124,7 @@ describe('editing a car', () => {
 
   it('when a co-driver opens the page, then it says who can change the car and offers no form', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: { ...user(), id: IDS.tomas, displayName: 'Tomas Reyes' } }),
+      'GET /api/auth/session': jsonResponse(200, { user: { ...user(), id: IDS.tomas, displayName: 'Tomas Reyes' } }),
       [`GET ${CAR_PATH}`]: jsonResponse(200, CAR),
     });
     renderApp(EDIT);
@@ -138,7 +138,7 @@ describe('editing a car', () => {
 describe('deleting a car', () => {
   it('when the name typed is not the car’s, then nothing is deleted; when it is, then the car goes and the cars list opens', async () => {
     const fetch = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${CAR_PATH}`]: jsonResponse(200, CAR),
       [`DELETE ${CAR_PATH}`]: () => new Response(null, { status: 204 }),
       'GET /api/cars': list([]),

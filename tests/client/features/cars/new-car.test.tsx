@@ -14,7 +14,7 @@ setUpAppTests([() => import('@/app/routes/cars/cars'), () => import('@/app/route
 
 function stubNoCars() {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/auth/session': jsonResponse(200, { user: user() }),
     'GET /api/cars': list([]),
     'GET /api/events': list([]),
     'POST /api/cars': offline,
@@ -84,7 +84,7 @@ describe('new car', () => {
 
   it('when a driver at an event with no car adds one, then saving it goes back to that event with the new car and them chosen, ready to log a run', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/cars': list([]),
       [`GET /api/events/${IDS.event}`]: jsonResponse(200, EVENT),
       'POST /api/cars': offline,
@@ -124,7 +124,7 @@ describe('new car', () => {
     const SETUPS = `GET /api/cars/${NEW}/setups`;
     const RUNS = `GET /api/runs?carId=${NEW}&eventId=${IDS.event}`;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: me }),
+      'GET /api/auth/session': jsonResponse(200, { user: me }),
       'GET /api/cars': () => list(landed ? [saved] : []),
       [`GET /api/events/${IDS.event}`]: jsonResponse(200, EVENT),
       'POST /api/cars': () =>

@@ -16,7 +16,7 @@ beforeEach(() => localStorage.setItem(`scrubline.event-day.${IDS.event}`, JSON.s
 
 function stubDay(extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/auth/session': jsonResponse(200, { user: user() }),
     [`GET /api/events/${IDS.event}`]: jsonResponse(200, EVENT),
     'GET /api/cars': list([CAR]),
     [`GET ${RUNS_URL}`]: list([savedRun({ id: IDS.run1, runNumber: 1, commentCount: 2 }), savedRun({ id: IDS.run2, runNumber: 2, isBest: false })]),

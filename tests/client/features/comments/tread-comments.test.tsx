@@ -12,7 +12,7 @@ describe('comments on a tread reading', () => {
     const reading = TYRE_SET.latestReading!;
     const url = `GET /api/comments?type=tread_reading&id=${reading.id}`;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/tyre-sets`]: list([TYRE_SET]),
       [url]: list([]),

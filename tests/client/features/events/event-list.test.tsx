@@ -15,7 +15,7 @@ setUpAppTests(
 describe('events list', () => {
   it('when a user sees no events, then it says how events come to be listed and leads to the teams, whose class boards hold the team cars\' results', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: { ...user(), roles: ['team_captain'] } }),
+      'GET /api/auth/session': jsonResponse(200, { user: { ...user(), roles: ['team_captain'] } }),
       'GET /api/events': list([]),
       'GET /api/cars': list([]),
       'GET /api/teams/mine': list([]),
@@ -33,7 +33,7 @@ describe('events list', () => {
     ['Event day with nothing today', '/event-day', 'Latest event'],
     ['Home', '/', 'Latest event'],
   ])('when %s shows an earlier event, then one row names it, says when and where, and opens its event day', async (_where, path, caption) => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), 'GET /api/events': list([EVENT]), 'GET /api/cars': list([]) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: user() }), 'GET /api/events': list([EVENT]), 'GET /api/cars': list([]) });
     const { router } = renderApp(path);
 
     const row = await screen.findByRole('link', { name: new RegExp(EVENT.name) });
@@ -50,7 +50,7 @@ describe('events list', () => {
     const ahead = (days: number) => format(addDays(new Date(), days), 'yyyy-MM-dd');
     const soon = { ...EVENT, id: 'e1e1e1e1-0000-4000-8000-0000000000f1', name: 'Harrow Flats — Round 5', date: ahead(9) };
     const later = { ...EVENT, id: 'e1e1e1e1-0000-4000-8000-0000000000f2', name: 'Harrow Flats — Round 6', date: ahead(40) };
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), 'GET /api/events': list([later, soon, EVENT]), 'GET /api/cars': list([]) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: user() }), 'GET /api/events': list([later, soon, EVENT]), 'GET /api/cars': list([]) });
     renderApp(path);
 
     const row = await screen.findByRole('link', { name: /Round 5/ });
@@ -61,7 +61,7 @@ describe('events list', () => {
 
   it('when an event has its conditions written down, then its row says them in the user\'s units: surface, air and track', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
       'GET /api/events': list([{ ...EVENT, surface: 'old concrete', airTempC: 22, trackTempC: 35 }]),
       'GET /api/cars': list([]),
     });

@@ -13,7 +13,7 @@ setUpAppTests([() => import('@/app/routes/events/events'), () => import('@/app/r
 
 function stub(units: UnitPreferences, extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(units) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(units) }),
     'GET /api/cars': list([CAR]),
     // No signal: every upload waits in the outbox.
     'POST /api/events': offline,

@@ -25,7 +25,7 @@ const SETUP: Setup = {
 
 function stub(units: UnitPreferences) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(units) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(units) }),
     [`GET /api/setups/${IDS.setupBase}`]: jsonResponse(200, SETUP),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
   });
@@ -87,7 +87,7 @@ describe('the printable setup sheet', () => {
 
   it('when the setup is not visible to this user, then the page says it was not found', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET /api/setups/${IDS.setupBase}`]: errorResponse(404, 'not_found', 'That setup was not found.'),
     });
     renderApp(SHEET);

@@ -12,7 +12,7 @@ const POST = `POST /api/events/${IDS.event}/imports`;
 
 function stubImport(extra: StubRoutes = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/auth/session': jsonResponse(200, { user: user() }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     'GET /api/events': list([EVENT]),
     [POST]: jsonResponse(200, { created: 2, alreadyThere: 1, failed: [{ line: 4, runNumber: 3, reason: 'Run numbers go up to 999' }] }),

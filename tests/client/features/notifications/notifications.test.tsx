@@ -15,7 +15,7 @@ const bell = () => screen.findByRole('link', { name: /notification/i });
 describe('notification bell', () => {
   it('when three are unread, then the bell is named "3 unread notifications" and shows the count', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/notifications/unread-count': jsonResponse(200, { unread: 3 }),
     });
     renderApp('/settings');
@@ -27,7 +27,7 @@ describe('notification bell', () => {
 
   it('when nothing is unread, then no count shows and the bell is simply "Notifications"', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/notifications/unread-count': jsonResponse(200, { unread: 0 }),
     });
     renderApp('/settings');
@@ -41,7 +41,7 @@ describe('notification bell', () => {
 
   it('when the bell cannot reach the server, then it stays quiet: no count and no toast', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/notifications/unread-count': () => Promise.reject(new TypeError('Failed to fetch')),
     });
     renderApp('/settings');
@@ -56,7 +56,7 @@ describe('notification bell', () => {
     try {
       let unread = 1;
       const fetchMock = stubFetch({
-        'GET /api/auth/me': jsonResponse(200, { user: user() }),
+        'GET /api/auth/session': jsonResponse(200, { user: user() }),
         'GET /api/notifications/unread-count': () => jsonResponse(200, { unread }),
       });
       renderApp('/settings');
@@ -106,7 +106,7 @@ describe('notifications page', () => {
   it('when an unread one is opened, then it is marked read on the server, the bell drops, and the app goes to its link', async () => {
     let unread = 1;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/notifications': () => jsonResponse(200, { items, count: 2, unread }),
       'GET /api/notifications/unread-count': () => jsonResponse(200, { unread }),
       'POST /api/notifications/read': () => {
@@ -139,7 +139,7 @@ describe('notifications page', () => {
   it('when "Mark all read" is pressed, then the server is asked to mark all, and the list says so', async () => {
     let unread = 1;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/notifications': () =>
         jsonResponse(200, { items: unread ? items : items.map((n) => ({ ...n, readAt: '2026-06-08T12:00:00.000Z' })), count: 2, unread }),
       'GET /api/notifications/unread-count': () => jsonResponse(200, { unread }),
@@ -162,7 +162,7 @@ describe('notifications page', () => {
   it('when a notification carries a link outside the app, then opening it marks it read but goes nowhere', async () => {
     const outside = notification({ id: COLLAB_IDS.notification1, summary: 'Odd one', link: '//elsewhere.example/steal' });
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/notifications': jsonResponse(200, { items: [outside], count: 1, unread: 1 }),
       'POST /api/notifications/read': jsonResponse(200, { unread: 0, updated: 1 }),
     });

@@ -96,7 +96,7 @@ describe('the setup history folds all but the newest snapshots away', () => {
   it('when the shop opens a customer’s old setup thread, then that snapshot shows with its thread open', async () => {
     const setups = season(5);
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      'GET /api/auth/session': jsonResponse(200, { user: staffUser() }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/suggestions`]: list([]),
       [`GET /api/cars/${IDS.car}/setups`]: list(setups),

@@ -31,7 +31,7 @@ setUpAppTests([() => import('@/app/routes/shop/customer'), () => import('@/featu
 
 function stubCustomer(extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+    'GET /api/auth/session': jsonResponse(200, { user: staffUser() }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
     [`GET /api/cars/${IDS.car}/season?minDepthMm=1.6`]: jsonResponse(200, SEASON),
@@ -137,7 +137,7 @@ describe('a customer’s tyres, change log and hot pressures, for the shop', () 
 
   it('when staff open the car, then each tyre set shows read only: whether it is on the car, its runs, and its latest tread per corner, inner, middle and outer, in their units', async () => {
     stubCustomer({
-      'GET /api/auth/me': jsonResponse(200, { user: imperialStaff() }),
+      'GET /api/auth/session': jsonResponse(200, { user: imperialStaff() }),
       [`GET /api/cars/${IDS.car}/tyre-sets`]: list([
         {
           ...TYRE_SET,
@@ -214,7 +214,7 @@ describe('a customer’s tyres, change log and hot pressures, for the shop', () 
     // 35.0, 34.0 and 32.0 psi at 6.894 757 293 168 kPa/psi (NIST SP 811); the right rear not taken.
     const hot = { lf: 241.317, rf: 234.422, lr: 220.632 };
     const fetchMock = stubCustomer({
-      'GET /api/auth/me': jsonResponse(200, { user: imperialStaff() }),
+      'GET /api/auth/session': jsonResponse(200, { user: imperialStaff() }),
       [`GET ${RUNS_URL}`]: list([
         savedRun({ id: IDS.run1, runNumber: 1, rawTimeSec: 45.5, adjustedTimeSec: 45.5, hotPressuresKpa: hot }),
         savedRun({ id: IDS.run2, runNumber: 2, rawTimeSec: 46.1, adjustedTimeSec: 46.1, isBest: false }),

@@ -16,7 +16,7 @@ async function openAccountMenu(name: string) {
 
 describe('reaching the shop and teams', () => {
   it('when the user works for a shop, then the account menu offers their shop and teams', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: staffUser() }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: staffUser() }) });
     renderApp('/settings');
 
     const menu = await openAccountMenu('Dusty Okonjo');
@@ -25,7 +25,7 @@ describe('reaching the shop and teams', () => {
   });
 
   it('when the user is a driver only, then the menu offers teams and no shop, and no accounts', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: user() }) });
     renderApp('/settings');
 
     const menu = await openAccountMenu('Maren Holt');
@@ -35,7 +35,7 @@ describe('reaching the shop and teams', () => {
   });
 
   it('when the user is an admin, then the menu offers the accounts', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: { ...user(), roles: ['driver', 'admin'] } }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: { ...user(), roles: ['driver', 'admin'] } }) });
     renderApp('/settings');
 
     const menu = await openAccountMenu('Maren Holt');
@@ -43,7 +43,7 @@ describe('reaching the shop and teams', () => {
   });
 
   it('keeps the phone’s bottom bar to five places', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: staffUser() }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: staffUser() }) });
     renderApp('/settings');
     await screen.findByRole('button', { name: 'Account: Dusty Okonjo' });
     const bars = screen.getAllByRole('navigation', { name: 'Main' });
@@ -51,7 +51,7 @@ describe('reaching the shop and teams', () => {
   });
 
   it('when the user works for a shop, then the bars offer the shop where a driver has Settings (which stays in the account menu)', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: staffUser() }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: staffUser() }) });
     renderApp('/settings');
     await screen.findByRole('button', { name: 'Account: Dusty Okonjo' });
     for (const bar of screen.getAllByRole('navigation', { name: 'Main' })) {
@@ -61,7 +61,7 @@ describe('reaching the shop and teams', () => {
   });
 
   it('when the user is a driver only, then the bars end with Settings and offer no shop', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: user() }) });
     renderApp('/settings');
     await screen.findByRole('button', { name: 'Account: Maren Holt' });
     for (const bar of screen.getAllByRole('navigation', { name: 'Main' })) {
@@ -70,7 +70,7 @@ describe('reaching the shop and teams', () => {
   });
 
   it('when an event\'s pages are open, then both bars mark Event day as the current place, and only it', async () => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), 'GET /api/events': jsonResponse(200, { items: [], count: 0 }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: user() }), 'GET /api/events': jsonResponse(200, { items: [], count: 0 }) });
     renderApp('/events');
     await screen.findByRole('heading', { name: 'Events' });
     for (const bar of screen.getAllByRole('navigation', { name: 'Main' })) {

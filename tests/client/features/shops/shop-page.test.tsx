@@ -31,7 +31,7 @@ const MINE = { id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customer
 
 function stubShop(extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+    'GET /api/auth/session': jsonResponse(200, { user: staffUser() }),
     'GET /api/shops/mine': list([MINE]),
     [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
     [`GET /api/shops/${COLLAB_IDS.shop}/customers`]: list([

@@ -14,7 +14,7 @@ const PATCH = `PATCH /api/shops/${COLLAB_IDS.shop}/settings`;
 
 function stubShop({ admin = true, units = METRIC_PREFERENCES, extra = {} }: { admin?: boolean; units?: UnitPreferences; extra?: StubRoutes } = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
+    'GET /api/auth/session': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
     'GET /api/shops/mine': list([{ id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: admin, customerCount: 0 }]),
     [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, { ...SHOP, isShopAdmin: admin }),
     [`GET /api/shops/${COLLAB_IDS.shop}/customers`]: list([]),

@@ -45,7 +45,7 @@ describe('plain words on the car page and the shop’s suggestion form', () => {
   it('when shop staff open the suggestion form, then it names the setup plainly and the bottom bar marks Shop, not Cars', async () => {
     const base = { ...BASE_SETUP, label: `From ${SHOP_NAME}: More front camber` };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      'GET /api/auth/session': jsonResponse(200, { user: staffUser() }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/setups`]: list([base]),
       'GET /api/shops/mine': list([{ id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 }]),

@@ -16,7 +16,7 @@ setUpAppTests([() => import('@/app/routes/suggestions/new-suggestion')]);
 
 function stub(units: UnitPreferences, extra: Parameters<typeof stubFetch>[0] = {}, car: Car = CAR, base: Setup = BASE_SETUP) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
+    'GET /api/auth/session': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, car),
     [`GET /api/cars/${IDS.car}/setups`]: list([base]),
     [`GET /api/suggestions/${COLLAB_IDS.suggestion}`]: jsonResponse(200, suggestion()),

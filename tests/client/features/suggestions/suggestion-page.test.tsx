@@ -16,7 +16,7 @@ setUpAppTests([() => import('@/app/routes/suggestions/suggestion')]);
 
 function stub(me: object, current: () => Suggestion, extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: me }),
+    'GET /api/auth/session': jsonResponse(200, { user: me }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [GET]: () => jsonResponse(200, current()),
     ...extra,

@@ -25,7 +25,7 @@ type U = ReturnType<typeof userEvent.setup>;
 
 function stubForm(units: UnitPreferences) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
+    'GET /api/auth/session': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
     [POST]: ({ body }) => jsonResponse(201, suggestion({ id: (body as { id: string }).id })),
@@ -122,7 +122,7 @@ describe('unusual values for the shop reading back what it sent', () => {
 
 function stubPage(current: Suggestion, units: UnitPreferences = METRIC_PREFERENCES, setups = [BASE_SETUP], me: ReturnType<typeof user> | ReturnType<typeof staffUser> = user(units)) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: me }),
+    'GET /api/auth/session': jsonResponse(200, { user: me }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/suggestions/${COLLAB_IDS.suggestion}`]: jsonResponse(200, current),
     [`GET /api/cars/${IDS.car}/setups`]: list(setups),

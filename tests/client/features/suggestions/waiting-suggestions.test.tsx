@@ -24,7 +24,7 @@ const waiting: WaitingSuggestion = {
 
 function stub(cars: unknown[], items: WaitingSuggestion[]) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/auth/session': jsonResponse(200, { user: user() }),
     'GET /api/cars': list(cars),
     'GET /api/events': list([]),
     [WAITING]: jsonResponse(200, { items, count: items.length }),

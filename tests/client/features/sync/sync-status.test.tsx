@@ -4,7 +4,7 @@ import userEvent from '@testing-library/user-event';
 import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 import type { OutboxEntry } from '@/lib/outbox';
-import { jsonResponse, renderApp, requestsTo, setUpAppTests, SIGNED_OUT, storedEntry, stubFetch } from '../../test-utils';
+import { jsonResponse, NOBODY_SIGNED_IN, renderApp, requestsTo, setUpAppTests, storedEntry, stubFetch } from '../../test-utils';
 import { IDS, user } from '../../fixtures/season';
 
 beforeAll(() => {
@@ -43,7 +43,7 @@ const refused = storedEntry({
 
 function stubHome(extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
     'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
     'GET /api/events': jsonResponse(200, { items: [], count: 0 }),
     'POST /api/runs': jsonResponse(201, {}),
@@ -164,7 +164,7 @@ describe('signing out with work on the phone', () => {
 });
 
 describe('the sign-in page with work on the phone', () => {
-  const signedOut = (extra: Parameters<typeof stubFetch>[0] = {}) => stubFetch({ 'GET /api/auth/me': SIGNED_OUT, ...extra });
+  const signedOut = (extra: Parameters<typeof stubFetch>[0] = {}) => stubFetch({ 'GET /api/auth/session': NOBODY_SIGNED_IN, ...extra });
 
   it('when an ended session left two runs on the phone, then the sign-in page says they are on it only and wait for their account, and sends none', async () => {
     const fetchMock = signedOut();

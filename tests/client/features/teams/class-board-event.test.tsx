@@ -50,7 +50,7 @@ const MEET: ClassBoard = {
 
 function stubBoard(board: ClassBoard = MEET) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/auth/session': jsonResponse(200, { user: user() }),
     [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, board),
   });
 }

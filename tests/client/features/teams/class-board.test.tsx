@@ -29,7 +29,7 @@ const phoneLines = (carName: string) => phoneItems(carName).map((item) => [...it
 describe('class board', () => {
   it('when a season is asked for, then times show to the thousandth, index times use the class factor, and "—" shows where there is none', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -55,7 +55,7 @@ describe('class board', () => {
 
   it('when the board is read on a phone, then each event is one list item: its link, date and driver, then the adjusted time, how far off the class’s fastest, rank, raw and index, in seconds', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -96,7 +96,7 @@ describe('class board', () => {
       trendPctPerEvent: null,
     };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, { ...BOARD, classes: [{ classCode: 'SM', factor: null, cars: [car] }] }),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -117,7 +117,7 @@ describe('class board', () => {
 
   it('when a best raw time came from a run with cones, then the cones show beside it; a clean one shows none', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -130,7 +130,7 @@ describe('class board', () => {
 
   it('when a class factor has four decimals, then the board shows all four', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, { ...BOARD, classes: [{ classCode: 'STR', factor: 0.8535, cars: [INES_BOARD_CAR] }] }),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -140,7 +140,7 @@ describe('class board', () => {
 
   it('when a car shares results only, then its setup is hidden; when it shares its setup, then the values show in the user’s units', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -170,7 +170,7 @@ describe('class board', () => {
       })),
     };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, leaked),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -192,7 +192,7 @@ describe('class board', () => {
 
   it('when the user reads tread in 1/32 in, then the board\'s tread shows in 1/32 in', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -208,7 +208,7 @@ describe('class board', () => {
 
   it('when a car has a trend, then it is drawn from the % off the class’s fastest over the events’ dates and said to the board’s two decimals', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -231,7 +231,7 @@ describe('class board', () => {
       results: [{ ...INES_BOARD_CAR.results[0]!, pctOffClassFastest: null, rankInClass: null, aloneInClass: true }],
     };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, { ...BOARD, classes: [{ classCode: 'STR', factor: 0.853, cars: [alone] }] }),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -256,7 +256,7 @@ describe('class board', () => {
     // A classmate entered but without a time this season leaves it just as alone.
     const idle: BoardCar = { ...SILVER_BOARD_CAR, results: [], trendPctPerEvent: null };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, { ...BOARD, classes: [{ classCode: 'STR', factor: 0.853, cars: [alone, idle] }] }),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);
@@ -269,7 +269,7 @@ describe('class board', () => {
 
   it('when the next season is picked, then the board for that season is asked for and the address keeps it', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(200, BOARD),
       [`GET ${BOARD_API}?season=2027`]: jsonResponse(200, { ...BOARD, season: 2027, classes: [] }),
     });
@@ -288,7 +288,7 @@ describe('a class board that does not come', () => {
   it('when it fails to load, then "Try again" asks for it again and the board shows once it comes; a factor missing says what to do in words', async () => {
     let down = true;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: () =>
         down ? jsonResponse(503, { error: { code: 'unavailable', message: 'Scrubline cannot reach its database just now.' } }) : jsonResponse(200, BOARD),
     });
@@ -308,7 +308,7 @@ describe('a class board that does not come', () => {
 
   it('when the team is not one of the user\'s, then no "Try again" is offered, only the way back', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${BOARD_API}?season=2026`]: jsonResponse(404, { error: { code: 'not_found', message: 'That team was not found.' } }),
     });
     renderApp(`/teams/${TEAM_IDS.team}/board?season=2026`);

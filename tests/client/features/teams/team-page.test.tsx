@@ -15,7 +15,7 @@ setUpAppTests([() => import('@/app/routes/teams/team')]);
 
 function stubTeamPage(isCaptain: boolean, extra: Parameters<typeof stubFetch>[0] = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/auth/session': jsonResponse(200, { user: user() }),
     [`GET ${TEAM_API}`]: jsonResponse(200, team(isCaptain)),
     // Maren's roadster (already entered), her hatch, and a coupe she only co-drives.
     'GET /api/cars': list([CAR, MAREN_HATCH, CO_DRIVEN]),

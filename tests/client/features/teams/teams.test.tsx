@@ -13,7 +13,7 @@ const OTHER_TEAM = { id: '7e222222-2222-4222-8222-222222222222', name: 'Night Sp
 describe('teams page', () => {
   it('when the user belongs to teams, then each is listed with its captain marker and links to its page and its class board', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/teams/mine': list([{ id: TEAM_IDS.team, name: 'Harrow Flats Sprint Club', isCaptain: false }, OTHER_TEAM]),
     });
     renderApp('/teams');
@@ -32,7 +32,7 @@ describe('teams page', () => {
   it('when a name is refused by the server, then its message shows on the name field and no team opens', async () => {
     const message = 'You already captain a team with that name';
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/teams/mine': list([]),
       'POST /api/teams': errorResponse(400, 'validation_failed', 'Check the name.', { name: [message] }),
     });
@@ -55,7 +55,7 @@ describe('teams page', () => {
 
   it('when the name is left empty, then the form says so without asking the server', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/teams/mine': list([]),
     });
     renderApp('/teams');
@@ -69,7 +69,7 @@ describe('teams page', () => {
   it('when a team is started, then its page opens', async () => {
     const created = { id: TEAM_IDS.team, name: 'Harrow Flats Sprint Club', isCaptain: true };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       'GET /api/teams/mine': list([]),
       'POST /api/teams': jsonResponse(201, created),
       [`GET /api/teams/${TEAM_IDS.team}`]: jsonResponse(200, { ...team(true), members: [{ id: user().id, displayName: 'Maren Holt', isCaptain: true }], entries: [] }),

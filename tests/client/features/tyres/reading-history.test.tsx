@@ -35,7 +35,7 @@ const SECOND = reading('e2222222-2222-4222-8222-222222222222', '2026-05-03T15:00
 
 function stub(units: UnitPreferences, readings = list([FIRST, SECOND, LATEST])) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(units) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(units) }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/cars/${IDS.car}/tyre-sets`]: list([TYRE_SET]),
     [`GET /api/attachments?targetType=tread_reading&targetId=${LATEST.id}`]: list([]),
@@ -80,7 +80,7 @@ describe('reading history', () => {
 
   it('when the server counts the runs made on the set up to each reading, then the latest and each earlier reading say after how many', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/tyre-sets`]: list([{ ...TYRE_SET, latestReading: { ...LATEST, runsOnSet: 20 } }]),
       [`GET /api/attachments?targetType=tread_reading&targetId=${LATEST.id}`]: list([]),

@@ -15,7 +15,7 @@ setUpAppTests([() => import('@/app/routes/cars/car')]);
 /** The car page with one saved tyre set (tyres as first fitted); uploads find no signal. */
 function stubCarPage(units: UnitPreferences) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user(units) }),
+    'GET /api/auth/session': jsonResponse(200, { user: user(units) }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     [`GET /api/cars/${IDS.car}/setups`]: list([]),
     [`GET /api/cars/${IDS.car}/tyre-sets`]: list([TYRE_SET]),
@@ -124,7 +124,7 @@ describe('which set is on the car', () => {
       createdAt: '2026-06-02T08:00:00.000Z',
     };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/setups`]: list([]),
       [`GET /api/cars/${IDS.car}/tyre-sets`]: list([summer, TYRE_SET]),
@@ -145,7 +145,7 @@ describe('which set is on the car', () => {
     const spare = { ...TYRE_SET, id: 'e2e2e2e2-0000-4000-8000-0000000000b1', label: 'Spare set', latestReading: null, runs: 1 };
     const old = { ...TYRE_SET, id: 'e2e2e2e2-0000-4000-8000-0000000000b2', label: 'Old set', latestReading: null, runs: undefined };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(METRIC_PREFERENCES) }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/setups`]: list([]),
       [`GET /api/cars/${IDS.car}/tyre-sets`]: list([{ ...TYRE_SET, runs: 42 }, spare, old]),

@@ -75,7 +75,7 @@ const MINE = { id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customer
 /** Signed in as the shop's admin, in the given units, with the open visit. */
 export function stubStaff(units: UnitPreferences, extra: StubRoutes = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
+    'GET /api/auth/session': jsonResponse(200, { user: { ...staffUser(), preferences: { units } } }),
     'GET /api/shops/mine': list([MINE]),
     [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
     [`GET ${WO}`]: jsonResponse(200, workOrder()),
@@ -86,7 +86,7 @@ export function stubStaff(units: UnitPreferences, extra: StubRoutes = {}) {
 /** Signed in as the car's owner, who works for no shop. */
 export function stubDriver(extra: StubRoutes = {}) {
   return stubFetch({
-    'GET /api/auth/me': jsonResponse(200, { user: user() }),
+    'GET /api/auth/session': jsonResponse(200, { user: user() }),
     'GET /api/shops/mine': list([]),
     [`GET /api/cars/${CAR.id}`]: jsonResponse(200, CAR),
     ...extra,

@@ -56,7 +56,7 @@ describe('the shop’s board', () => {
       invoice: null,
     };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      'GET /api/auth/session': jsonResponse(200, { user: staffUser() }),
       'GET /api/shops/mine': list([{ id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 }]),
       [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
       [`GET /api/shops/${COLLAB_IDS.shop}/customers`]: list([]),
@@ -86,7 +86,7 @@ describe('finding a visit again once it is closed', () => {
   it('when the shop has closed visits, then its page lists the latest eight, newest first, each one card-sized link with its handover day, and shows the rest on request', async () => {
     const rows = Array.from({ length: 10 }, (_, i) => closedRow(i + 1));
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      'GET /api/auth/session': jsonResponse(200, { user: staffUser() }),
       'GET /api/shops/mine': list([{ id: COLLAB_IDS.shop, name: SHOP_NAME, isShopAdmin: true, customerCount: 1 }]),
       [`GET /api/shops/${COLLAB_IDS.shop}`]: jsonResponse(200, SHOP),
       [`GET /api/shops/${COLLAB_IDS.shop}/customers`]: list([]),
@@ -116,7 +116,7 @@ describe('finding a visit again once it is closed', () => {
   it('when staff open a customer\'s car, then its visits to the shop are listed, newest first, each linking to its work order', async () => {
     const older: CarWorkOrderSummary = { ...VISIT, id: '0c0c0c0c-0000-4000-8000-0000000000aa', visitDate: '2026-03-02', requestedWork: 'Coilovers fitted', setupId: null };
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      'GET /api/auth/session': jsonResponse(200, { user: staffUser() }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/setups`]: list([]),
       [`GET /api/cars/${IDS.car}/season?minDepthMm=1.6`]: jsonResponse(200, { carId: IDS.car, events: [], setupChanges: [], changeLog: [], tyreLife: [] }),
@@ -137,7 +137,7 @@ describe('opening a work order from a customer’s car', () => {
   it('when staff open one, then it is sent with an id made here and the work order page opens', async () => {
     const POST = `POST /api/cars/${IDS.car}/work-orders`;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: staffUser() }),
+      'GET /api/auth/session': jsonResponse(200, { user: staffUser() }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
       [`GET /api/cars/${IDS.car}/setups`]: list([]),
       [`GET /api/cars/${IDS.car}/season?minDepthMm=1.6`]: jsonResponse(200, { carId: IDS.car, events: [], setupChanges: [], changeLog: [], tyreLife: [] }),
