@@ -9,6 +9,7 @@ import { describeRoles } from '@/features/auth/utils/describe-roles';
 import { SyncStatus } from '@/features/sync/components/sync-status';
 import { CarList } from '@/features/cars/components/car-list';
 import { CurrentEventCard } from '@/features/events/components/current-event-card';
+import { useEventViews } from '@/features/events/hooks/use-event-views';
 import { useMyTeams } from '@/features/teams/api/get-my-teams';
 import { useCars } from '@/features/cars/api/get-cars';
 import { recordPath } from '@/config/record-paths';
@@ -34,6 +35,7 @@ export function HomePage() {
   const { data: teams } = useMyTeams();
   // The same list "Your cars" shows (one request for both).
   const { data: cars } = useCars();
+  const { events, isPending: eventsPending } = useEventViews();
   if (!user) return null;
   const drivesACar = (cars?.items.length ?? 0) > 0;
   const roles = describeRoles(user.roles);
@@ -71,6 +73,8 @@ export function HomePage() {
   // A captain, the shop's staff or an admin come here for the board, the customers or the accounts more than
   // for a car of their own, so their links come first, above today's event.
   const linksFirst = captain || staff || admin;
+  // Someone here for those links, with no car and no event to go to, is not offered to start an event day.
+  const eventDay = !(linksFirst && cars && !drivesACar && !eventsPending && events.length === 0);
 
   return (
     <div className="flex flex-col gap-6">
@@ -81,11 +85,13 @@ export function HomePage() {
       </div>
       <div className="grid gap-4 md:grid-cols-2">
         {linksFirst ? linksCard : null}
-        <SectionBoundary title="Event day">
-          <SectionCard title="Event day">
-            <CurrentEventCard />
-          </SectionCard>
-        </SectionBoundary>
+        {eventDay ? (
+          <SectionBoundary title="Event day">
+            <SectionCard title="Event day">
+              <CurrentEventCard />
+            </SectionCard>
+          </SectionBoundary>
+        ) : null}
         {/* After the event: at the track, logging comes first; an answer to the shop can wait a heat. */}
         {drivesACar ? (
           <SectionBoundary title="Waiting for you">

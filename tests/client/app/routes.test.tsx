@@ -163,8 +163,30 @@ describe('routes', () => {
     expect(board.getAttribute('href')).toBe(`/teams/${teamId}/board`);
     const names = screen.getAllByRole('region').map((r) => within(r).getByRole('heading').textContent);
     expect(names.indexOf('Teams')).toBe(0);
-    expect(names.indexOf('Teams')).toBeLessThan(names.indexOf('Event day'));
     expect(names.indexOf('Teams')).toBeLessThan(names.indexOf('Your cars'));
+  });
+
+  it('when a captain with no car and no event opens Home, then no event day is offered; once a team car has an event, it is', async () => {
+    const teamId = 'd1111111-1111-4111-8111-111111111111';
+    const routes = {
+      'GET /api/auth/session': jsonResponse(200, { user: SAM }),
+      'GET /api/cars': jsonResponse(200, { items: [], count: 0 }),
+      'GET /api/teams/mine': jsonResponse(200, { items: [{ id: teamId, name: 'Late Brakers', isCaptain: true }], count: 1 }),
+    };
+    stubFetch({ ...routes, 'GET /api/events': jsonResponse(200, { items: [], count: 0 }) });
+    const { unmount } = renderApp('/');
+    const regions = () => screen.getAllByRole('region').map((r) => within(r).getByRole('heading').textContent);
+    const cars = await screen.findByRole('region', { name: 'Your cars' });
+    expect(await within(cars).findByText(/No cars yet/)).toBeTruthy();
+    expect(regions()).toEqual(['Teams', 'Sync', 'Your cars']);
+    expect(screen.queryByText(/No events yet/)).toBeNull();
+    unmount();
+
+    stubFetch({ ...routes, 'GET /api/events': jsonResponse(200, { items: [EVENT], count: 1 }) });
+    renderApp('/');
+    const day = await screen.findByRole('region', { name: 'Event day' });
+    expect((await within(day).findByRole('link', { name: new RegExp(EVENT.name) })).getAttribute('href')).toBe(`/events/${EVENT.id}`);
+    expect(regions()).toEqual(['Teams', 'Event day', 'Sync', 'Your cars']);
   });
 
   it('when an admin opens Home, then the accounts are one tap away, above the event and their cars; a driver\'s links come after them', async () => {
