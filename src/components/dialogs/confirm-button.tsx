@@ -19,6 +19,8 @@ export interface ConfirmButtonProps {
   /** The button that opens the question. */
   children: ReactNode;
   variant?: 'primary' | 'secondary' | 'quiet';
+  /** The confirming button is drawn as a destructive step (removing, revoking, ending); not for restoring or granting. */
+  destructive?: boolean;
   title: string;
   description: string;
   confirmLabel: string;
@@ -39,6 +41,7 @@ export interface ConfirmButtonProps {
 export function ConfirmButton({
   children,
   variant = 'quiet',
+  destructive = false,
   title,
   description,
   confirmLabel,
@@ -72,7 +75,7 @@ export function ConfirmButton({
         {fields}
         <FormAlert message={error} />
         <div className="flex flex-wrap gap-3">
-          <Button onClick={confirm} isPending={isPending} pendingLabel={pendingLabel}>
+          <Button variant={destructive ? 'danger' : 'primary'} onClick={confirm} isPending={isPending} pendingLabel={pendingLabel}>
             {confirmLabel}
           </Button>
           <Button variant="secondary" onClick={() => onOpenChange(false)}>
@@ -103,6 +106,7 @@ export function RemovePersonButton({
   return (
     <ConfirmButton
       title={`Remove ${person.displayName}?`}
+      destructive
       description={description}
       confirmLabel={confirmLabel}
       pendingLabel="Removing…"

@@ -1,12 +1,14 @@
 import type { ComponentProps } from 'react';
 import { cn } from '@/lib/cn';
 
-type Variant = 'primary' | 'secondary' | 'quiet';
+type Variant = 'primary' | 'secondary' | 'quiet' | 'danger';
 
 const VARIANTS: Record<Variant, string> = {
   primary: 'bg-accent text-accent-ink hover:bg-accent-hover',
   secondary: 'border border-line-strong bg-surface text-ink hover:bg-surface-raised',
   quiet: 'text-link hover:bg-accent-soft',
+  /** The step that removes or ends something, in the caution colour, so it is not taken for the usual way on. */
+  danger: 'border border-warning bg-surface text-warning hover:bg-warning-surface',
 };
 
 const BUTTON_BASE =

@@ -49,7 +49,7 @@ function ConfirmSignOut({ target, onDone, onCancel }: { target: Target; onDone: 
       <PasswordField label="Your password" autoComplete="current-password" error={formState.errors.password?.message} {...register('password')} />
       <FormAlert message={formError} />
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" isPending={end.isPending} pendingLabel="Signing out…">
+        <Button type="submit" variant="danger" isPending={end.isPending} pendingLabel="Signing out…">
           Sign out
         </Button>
         <Button type="button" variant="secondary" onClick={onCancel}>

@@ -45,7 +45,7 @@ function CloseAccountForm({ email, onCancel }: { email: string; onCancel: () => 
       <PasswordField label="Your password" autoComplete="current-password" error={formState.errors.password?.message} {...register('password')} />
       <FormAlert message={formError} />
       <div className="flex flex-wrap gap-3">
-        <Button type="submit" isPending={close.isPending} pendingLabel="Closing…">
+        <Button type="submit" variant="danger" isPending={close.isPending} pendingLabel="Closing…">
           Close my account
         </Button>
         <Button variant="secondary" onClick={onCancel}>

@@ -84,6 +84,7 @@ function SuspendAccount({ account, suspend }: { account: AdminAccount; suspend: 
     <ConfirmWithField
       variant="secondary"
       title={`Suspend ${account.displayName}?`}
+      destructive
       description="They are signed out on every device at once and cannot sign in until an admin restores the account. Their cars, runs and setups stay as they are."
       confirmLabel="Suspend account"
       pendingLabel="Suspending…"
@@ -132,6 +133,7 @@ function CloseSuspendedAccount({ account }: { account: AdminAccount }) {
   return (
     <ConfirmWithField
       title={`Close ${account.displayName}’s account for good?`}
+      destructive
       description={`Their cars go, with every run, setup, tyre reading, file and work order on them, and so do their comments and memberships; shops keep the invoices they issued. What they wrote into other people’s records stays there under “${CLOSED_ACCOUNT_NAME}”. This cannot be undone; they get an e-mail saying so.`}
       confirmLabel="Close the account"
       pendingLabel="Closing…"
@@ -199,6 +201,7 @@ function AdminRole({ account }: { account: AdminAccount }) {
   return (
     <ConfirmButton
       title={isAdmin ? `Take the admin role from ${account.displayName}?` : `Make ${account.displayName} an admin?`}
+      destructive={isAdmin}
       description={
         isAdmin
           ? 'They keep their account, cars and shops, but can no longer see the accounts or suspend anyone.'

@@ -176,7 +176,7 @@ export function AttachmentStrip({ target, what, canAdd = true, heading = true }:
       >
         <FormAlert message={remove.isError ? remove.error.message : null} />
         <div className="flex flex-wrap gap-2">
-          <Button onClick={confirmDelete} isPending={remove.isPending} pendingLabel="Deleting…">
+          <Button variant="danger" onClick={confirmDelete} isPending={remove.isPending} pendingLabel="Deleting…">
             Delete
           </Button>
           <Button variant="secondary" onClick={() => setConfirming(null)}>

@@ -62,7 +62,7 @@ export function DeleteCar({ car, onDeleted }: { car: Car; onDeleted: () => void 
         error={fieldError}
       />
       <FormAlert message={error} />
-      <Button type="submit" variant="secondary" className="self-start text-warning" isPending={remove.isPending} pendingLabel="Deleting…">
+      <Button type="submit" variant="danger" className="self-start" isPending={remove.isPending} pendingLabel="Deleting…">
         Delete {car.name} and its season
       </Button>
     </form>

@@ -53,6 +53,7 @@ function DeleteChangeButton({ carId, changeId, what }: { carId: string; changeId
   return (
     <ConfirmButton
       title={`Delete “${what}” from the log?`}
+      destructive
       description="Comparisons made across this entry go with it; a setup it named stays. It cannot be undone."
       confirmLabel="Delete entry"
       pendingLabel="Deleting…"

@@ -127,7 +127,7 @@ function CommentItem({ comment, target }: { comment: Comment; target: CommentTar
             <p className="font-semibold">Delete this comment? It cannot be brought back.</p>
             <FormAlert message={problem.form} />
             <div className="flex flex-wrap gap-2">
-              <Button onClick={confirmDelete} isPending={remove.isPending} pendingLabel="Deleting…">
+              <Button variant="danger" onClick={confirmDelete} isPending={remove.isPending} pendingLabel="Deleting…">
                 Delete comment
               </Button>
               <Button variant="secondary" onClick={() => setConfirming(false)}>

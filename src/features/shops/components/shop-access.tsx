@@ -16,6 +16,7 @@ function RevokeShop({ carId, shop }: { carId: string; shop: ShopSummary }) {
   return (
     <ConfirmButton
       title={`Revoke ${shop.name}’s access?`}
+      destructive
       description="Its staff will no longer see this car’s season, comment or suggest setups. Their past comments and suggestions stay. You can let the shop in again later."
       confirmLabel="Revoke access"
       pendingLabel="Revoking…"

@@ -80,6 +80,7 @@ function WithdrawEntry({ team, entry, withdraw }: { team: Team; entry: TeamEntry
   return (
     <ConfirmButton
       title={`Withdraw ${name}?`}
+      destructive
       description={
         entry.mine
           ? 'The car comes off the team’s class board. Its runs and setups stay with the car; you can enter it again.'

@@ -119,6 +119,7 @@ export function LeaveTeam({ team, currentUserId, onLeft }: { team: Team; current
     <ConfirmButton
       variant="secondary"
       title={`Leave ${team.name}?`}
+      destructive
       description="Your cars come off the team’s class board and you no longer see it. A captain can invite you again."
       confirmLabel="Leave team"
       pendingLabel="Leaving…"

@@ -8,6 +8,7 @@ export function DeleteReadingButton({ tyreSetId, readingId, setLabel, takenAt }:
   return (
     <ConfirmButton
       title={`Delete the ${setLabel} reading of ${formatDateTime(takenAt)}?`}
+      destructive
       description="Its depths stop counting in the set's wear and the season review, and its comments and photos go with it. It cannot be undone; type the reading again if you need it back."
       confirmLabel="Delete reading"
       pendingLabel="Deleting…"

@@ -25,7 +25,7 @@ const page = (items: AdminAccount[]) => jsonResponse(200, { items, count: items.
 describe('the accounts page', () => {
   it('when an admin opens it, then every account shows its roles and devices, theirs without buttons, a suspended one with its note and a Restore button', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': page([{ ...SUSPENDED, id: '5a222222-2222-4222-8222-222222222222', displayName: 'Lena Park' }, ME, TOMAS]),
     });
     renderApp('/accounts');
@@ -43,7 +43,7 @@ describe('the accounts page', () => {
 
   it('when a search is typed, then the server is asked once typing pauses, with what was typed', async () => {
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': page([ME, TOMAS]),
       'GET /api/admin/users?q=tom': page([TOMAS]),
     });
@@ -59,7 +59,7 @@ describe('the accounts page', () => {
   it('when Suspend is confirmed without a reason, then nothing is sent and the reason is asked for; with one, it is sent and the list read again', async () => {
     let suspended = false;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': () => page([suspended ? SUSPENDED : TOMAS]),
       [`POST /api/admin/users/${TOMAS.id}/suspend`]: () => {
         suspended = true;
@@ -81,12 +81,12 @@ describe('the accounts page', () => {
     expect(await screen.findByRole('button', { name: 'Restore Tomas Reed' })).toBeTruthy();
   });
 
-  it('when an account is suspended and then restored, then a toast says so each time, the card stays where it was, and a suspended one is not offered Make admin', async () => {
+  it('when an account is suspended and then restored, then suspending is drawn as a destructive step and restoring is not, a toast says so each time, the card stays where it was, and a suspended one is not offered Make admin', async () => {
     const ANA: AdminAccount = { ...TOMAS, id: '5a333333-3333-4333-8333-333333333333', email: 'ana@example.test', displayName: 'Ana Brook' };
     const ZED: AdminAccount = { ...TOMAS, id: '5a444444-4444-4444-8444-444444444444', email: 'zed@example.test', displayName: 'Zed Moss' };
     let suspended = false;
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': () => page([ANA, suspended ? SUSPENDED : TOMAS, ZED]),
       [`POST /api/admin/users/${TOMAS.id}/suspend`]: () => {
         suspended = true;
@@ -103,7 +103,11 @@ describe('the accounts page', () => {
 
     await u.click(await screen.findByRole('button', { name: 'Suspend Tomas Reed' }));
     await u.type(within(screen.getByRole('dialog')).getByLabelText('Why'), 'Asked by the club');
-    await u.click(within(screen.getByRole('dialog')).getByRole('button', { name: 'Suspend account' }));
+    // Suspending is drawn as a destructive step, in the caution colour; restoring (below) is the ordinary way on.
+    const suspend = within(screen.getByRole('dialog')).getByRole('button', { name: 'Suspend account' });
+    expect(suspend.className.split(' ')).toEqual(expect.arrayContaining(['text-warning', 'border-warning']));
+    expect(suspend.className.split(' ')).not.toContain('bg-accent');
+    await u.click(suspend);
     expect(await screen.findByText('Tomas Reed is suspended')).toBeTruthy();
     await screen.findByRole('button', { name: 'Restore Tomas Reed' });
     expect(names()).toEqual(['Ana Brook', 'Tomas Reed', 'Zed Moss']);
@@ -111,7 +115,10 @@ describe('the accounts page', () => {
     expect(screen.getByRole('button', { name: 'Make admin Ana Brook' })).toBeTruthy();
 
     await u.click(screen.getByRole('button', { name: 'Restore Tomas Reed' }));
-    await u.click(within(screen.getByRole('dialog', { name: 'Restore Tomas Reed?' })).getByRole('button', { name: 'Restore account' }));
+    const restore = within(screen.getByRole('dialog', { name: 'Restore Tomas Reed?' })).getByRole('button', { name: 'Restore account' });
+    expect(restore.className.split(' ')).toContain('bg-accent');
+    expect(restore.className.split(' ')).not.toContain('text-warning');
+    await u.click(restore);
     expect(await screen.findByText('Tomas Reed can sign in again')).toBeTruthy();
     // The word before it goes: the two never stand one above the other.
     await waitFor(() => expect(screen.queryByText('Tomas Reed is suspended')).toBeNull());
@@ -120,7 +127,7 @@ describe('the accounts page', () => {
 
   it('when a suspended account is an admin, then its admin role can still be taken', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': page([{ ...SUSPENDED, roles: ['driver', 'admin'] }]),
     });
     renderApp('/accounts');
@@ -133,7 +140,7 @@ describe('the accounts page', () => {
     let suspensionDone!: () => void;
     const afterSuspension = new Promise<void>((resolve) => (suspensionDone = resolve));
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': () => page([TOMAS]),
       'GET /api/admin/users?q=tom': async () => {
         const answer = page([suspended ? SUSPENDED : TOMAS]);
@@ -161,7 +168,7 @@ describe('the accounts page', () => {
 
   it('when the server refuses the suspension, then its words show in the dialog, which stays open', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': page([TOMAS]),
       [`POST /api/admin/users/${TOMAS.id}/suspend`]: errorResponse(400, 'validation_failed', 'Some fields need attention.', { note: ['Use at most 500 characters'] }),
     });
@@ -178,7 +185,7 @@ describe('the accounts page', () => {
   it('when a suspended account is closed for good, then its address is asked for, a wrong one is refused beside the field, and once typed it is sent and the row goes', async () => {
     let closed = false;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': () => page(closed ? [] : [SUSPENDED]),
       [`POST /api/admin/users/${TOMAS.id}/close`]: [
         errorResponse(400, 'validation_failed', 'Type the account’s e-mail address exactly as shown.', { email: ['Type the account’s e-mail address exactly as shown'] }),
@@ -217,7 +224,7 @@ describe('the accounts page', () => {
   it('when an admin makes a driver an admin, then the role is sent after asking, and the row then offers to take it back', async () => {
     let admin = false;
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: ADMIN }),
+      'GET /api/auth/session': jsonResponse(200, { user: ADMIN }),
       'GET /api/admin/users': () => page([admin ? { ...TOMAS, roles: ['driver', 'admin'] } : TOMAS]),
       [`PUT /api/admin/users/${TOMAS.id}/admin`]: () => {
         admin = true;
@@ -234,7 +241,7 @@ describe('the accounts page', () => {
   });
 
   it('when a driver who is not an admin opens it, then the page says so and asks the server nothing', async () => {
-    const fetchMock = stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }) });
+    const fetchMock = stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: user() }) });
     renderApp('/accounts');
     expect(await screen.findByText('Only an administrator can see the accounts.')).toBeTruthy();
     expect(requestsTo(fetchMock, 'GET /api/admin/users')).toHaveLength(0);
@@ -244,7 +251,7 @@ describe('the accounts page', () => {
     ['an admin', ADMIN, 'Teams and accounts', true],
     ['a driver', user(), 'Teams', false],
   ])('when %s is on the home page, then its links are named %j and Accounts is there: %s', async (_who, me, name, linked) => {
-    stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: me }), 'GET /api/cars': jsonResponse(200, { items: [], count: 0 }) });
+    stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: me }), 'GET /api/cars': jsonResponse(200, { items: [], count: 0 }) });
     renderApp('/');
     const nav = await screen.findByRole('navigation', { name });
     expect(within(nav).queryByRole('link', { name: /^Accounts/ })?.getAttribute('href') ?? null).toBe(linked ? '/accounts' : null);
