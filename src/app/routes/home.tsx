@@ -13,6 +13,7 @@ import { useEventViews } from '@/features/events/hooks/use-event-views';
 import { useMyTeams } from '@/features/teams/api/get-my-teams';
 import { useCars } from '@/features/cars/api/get-cars';
 import { recordPath } from '@/config/record-paths';
+import { CardSection } from '@/components/layouts/card-section';
 
 function HomeLink({ to, title, children }: { to: string; title: string; children: ReactNode }) {
   return (
@@ -86,11 +87,9 @@ export function HomePage() {
       <div className="grid gap-4 md:grid-cols-2">
         {linksFirst ? linksCard : null}
         {eventDay ? (
-          <SectionBoundary title="Event day">
-            <SectionCard title="Event day">
-              <CurrentEventCard />
-            </SectionCard>
-          </SectionBoundary>
+          <CardSection title="Event day">
+            <CurrentEventCard />
+          </CardSection>
         ) : null}
         {/* After the event: at the track, logging comes first; an answer to the shop can wait a heat. */}
         {drivesACar ? (
@@ -100,16 +99,12 @@ export function HomePage() {
             </Suspense>
           </SectionBoundary>
         ) : null}
-        <SectionBoundary title="Sync">
-          <SectionCard title="Sync">
-            <SyncStatus />
-          </SectionCard>
-        </SectionBoundary>
-        <SectionBoundary title="Your cars">
-          <SectionCard title="Your cars">
-            <CarList currentUserId={user.id} />
-          </SectionCard>
-        </SectionBoundary>
+        <CardSection title="Sync">
+          <SyncStatus />
+        </CardSection>
+        <CardSection title="Your cars">
+          <CarList currentUserId={user.id} />
+        </CardSection>
         {linksFirst ? null : linksCard}
       </div>
     </div>

@@ -3,9 +3,7 @@ import { Link, useParams } from 'react-router-dom';
 import { ArrowLeft } from 'lucide-react';
 import { fromDisplay, unitFor, type UnitPreferences } from '@shared/calc/units.calc';
 import { pathTo } from '@/config/paths';
-import { SectionBoundary } from '@/components/errors/section-boundary';
 import { EmptyState } from '@/components/ui/empty-state';
-import { SectionCard } from '@/components/ui/section-card';
 import { useUnits } from '@/lib/units-context';
 import { useCar } from '@/features/cars/api/get-car';
 import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
@@ -17,6 +15,7 @@ import { useSetups } from '@/features/setups/api/get-setups';
 import { ScatterSection } from '@/features/analysis/components/scatter-section';
 import { SeasonTimeline } from '@/features/analysis/components/season-timeline';
 import { TyreLife } from '@/features/analysis/components/tyre-life';
+import { CardSection } from '@/components/layouts/card-section';
 
 /** 1.6 mm, or exactly 2/32 in for someone who reads tread in 1/32 in. */
 function defaultMinDepthMm(units: UnitPreferences): number {
@@ -55,25 +54,21 @@ function SeasonSections({ carId }: { carId: string }) {
 
   return (
     <>
-      <SectionBoundary title="Season timeline">
-        <SectionCard title="Season timeline">
-          {body((data) => (
-            <SeasonTimeline season={data} renderChanges={(changes) => <SetupChangeList changes={changes} adjusters={car?.damperAdjusters} />} />
-          ))}
-        </SectionCard>
-      </SectionBoundary>
-      <SectionBoundary title="Tyre life">
-        <SectionCard title="Tyre life">
-          {body((data) => (
-            <TyreLife
-              tyreLife={data.tyreLife}
-              minDepthMm={minDepthMm}
-              onMinDepthChange={setMinDepthMm}
-              isUpdating={season.isPlaceholderData}
-            />
-          ))}
-        </SectionCard>
-      </SectionBoundary>
+      <CardSection title="Season timeline">
+        {body((data) => (
+          <SeasonTimeline season={data} renderChanges={(changes) => <SetupChangeList changes={changes} adjusters={car?.damperAdjusters} />} />
+        ))}
+      </CardSection>
+      <CardSection title="Tyre life">
+        {body((data) => (
+          <TyreLife
+            tyreLife={data.tyreLife}
+            minDepthMm={minDepthMm}
+            onMinDepthChange={setMinDepthMm}
+            isUpdating={season.isPlaceholderData}
+          />
+        ))}
+      </CardSection>
     </>
   );
 }
@@ -101,16 +96,12 @@ export function SeasonReviewPage() {
           where there are too few, it says so.
         </p>
       </div>
-      <SectionBoundary title="Setup against time and wear">
-        <SectionCard title="Setup against time and wear">
-          <ScatterSection carId={carId} />
-        </SectionCard>
-      </SectionBoundary>
-      <SectionBoundary title="Before and after a change">
-        <SectionCard title="Before and after a change">
-          <ChangesCompare carId={carId} />
-        </SectionCard>
-      </SectionBoundary>
+      <CardSection title="Setup against time and wear">
+        <ScatterSection carId={carId} />
+      </CardSection>
+      <CardSection title="Before and after a change">
+        <ChangesCompare carId={carId} />
+      </CardSection>
       <SeasonSections carId={carId} />
     </div>
   );

@@ -5,7 +5,6 @@ import type { Car } from '@shared/season/car.schema';
 import { paths, pathTo } from '@/config/paths';
 import { EDIT_PARAM, recordPath } from '@/config/record-paths';
 import { Button, buttonClasses } from '@/components/ui/button';
-import { SectionCard } from '@/components/ui/section-card';
 import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
@@ -32,6 +31,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { carKeys } from '@/features/cars/api/car-keys';
 import { SeasonData } from '@/features/exports/components/season-data';
 import { refreshAfterWrite } from '@/lib/refresh-after-write';
+import { CardSection } from '@/components/layouts/card-section';
 
 /** A setup's thread the page was opened for (a notification's link, `?comments=<setup id>`): open, and scrolled to. */
 function SetupSection({ carId }: { carId: string }) {
@@ -169,51 +169,35 @@ export function CarPage() {
         <OpenSuggestions carId={carId} />
       </SectionBoundary>
       <div className="grid gap-4 lg:grid-cols-2">
-        <SectionBoundary title="Setup history">
-          <SectionCard title="Setup history">
-            <SetupSection carId={carId} />
-          </SectionCard>
-        </SectionBoundary>
+        <CardSection title="Setup history">
+          <SetupSection carId={carId} />
+        </CardSection>
         <div className="flex flex-col gap-4">
-          <SectionBoundary title="Tyres">
-            <SectionCard title="Tyres">
-              <TyreSection carId={carId} car={car} />
-            </SectionCard>
-          </SectionBoundary>
+          <CardSection title="Tyres">
+            <TyreSection carId={carId} car={car} />
+          </CardSection>
           {car && me ? (
-            <SectionBoundary title="Drivers">
-              <SectionCard title="Drivers">
-                <CoDrivers car={car} currentUserId={me.id} />
-              </SectionCard>
-            </SectionBoundary>
+            <CardSection title="Drivers">
+              <CoDrivers car={car} currentUserId={me.id} />
+            </CardSection>
           ) : null}
           {car && me ? (
-            <SectionBoundary title="Shop access">
-              <SectionCard title="Shop access">
-                <ShopAccess carId={carId} isOwner={car.owner.id === me.id} ownerName={car.owner.displayName} />
-              </SectionCard>
-            </SectionBoundary>
+            <CardSection title="Shop access">
+              <ShopAccess carId={carId} isOwner={car.owner.id === me.id} ownerName={car.owner.displayName} />
+            </CardSection>
           ) : null}
-          <SectionBoundary title="Suggestions from shops">
-            <SectionCard title="Suggestions from shops">
-              <SuggestionList carId={carId} emptyText="No suggestions yet. A shop you let in can suggest setup changes here." forDriver />
-            </SectionCard>
-          </SectionBoundary>
-          <SectionBoundary title="Shop visits">
-            <SectionCard title="Shop visits">
-              <CarVisits carId={carId} />
-            </SectionCard>
-          </SectionBoundary>
-          <SectionBoundary title="Change log">
-            <SectionCard title="Change log">
-              <ChangeSection carId={carId} />
-            </SectionCard>
-          </SectionBoundary>
-          <SectionBoundary title="Your data">
-            <SectionCard title="Your data">
-              <DataSection carId={carId} />
-            </SectionCard>
-          </SectionBoundary>
+          <CardSection title="Suggestions from shops">
+            <SuggestionList carId={carId} emptyText="No suggestions yet. A shop you let in can suggest setup changes here." forDriver />
+          </CardSection>
+          <CardSection title="Shop visits">
+            <CarVisits carId={carId} />
+          </CardSection>
+          <CardSection title="Change log">
+            <ChangeSection carId={carId} />
+          </CardSection>
+          <CardSection title="Your data">
+            <DataSection carId={carId} />
+          </CardSection>
         </div>
       </div>
     </div>

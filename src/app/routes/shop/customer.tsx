@@ -7,8 +7,6 @@ import { paths } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
 import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
-import { SectionCard } from '@/components/ui/section-card';
-import { SectionBoundary } from '@/components/errors/section-boundary';
 import { formatDay } from '@/lib/dates';
 import type { OutboxEntry } from '@/lib/outbox';
 import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-season';
@@ -28,6 +26,7 @@ import { useTyreSets } from '@/features/tyres/api/get-tyre-sets';
 import { TyreSetList } from '@/features/tyres/components/tyre-set-list';
 import { mergeTyreSets } from '@/features/tyres/utils/tyre-set-views';
 import { CarVisits, OpenWorkOrderForm } from '@/features/work-orders/components/work-order-lists';
+import { CardSection } from '@/components/layouts/card-section';
 
 type SeasonEventRow = SeasonResult['events'][number];
 
@@ -209,42 +208,28 @@ export function CustomerPage() {
       </CarHeader>
       <div className="grid gap-4 lg:grid-cols-2">
         <div className="flex flex-col gap-4">
-          <SectionBoundary title="Open a work order">
-            <SectionCard title="Open a work order">
-              <OpenWorkOrderForm carId={carId} />
-            </SectionCard>
-          </SectionBoundary>
-          <SectionBoundary title="Visits">
-            <SectionCard title="Visits">
-              <CarVisits carId={carId} />
-            </SectionCard>
-          </SectionBoundary>
-          <SectionBoundary title="Suggestions">
-            <SectionCard title="Suggestions">
-              <SuggestionList carId={carId} emptyText="No suggestions yet. Use “Suggest a change” on a setup snapshot." />
-            </SectionCard>
-          </SectionBoundary>
-          <SectionBoundary title="Tyres">
-            <SectionCard title="Tyres">
-              <Tyres carId={carId} />
-            </SectionCard>
-          </SectionBoundary>
-          <SectionBoundary title="Change log">
-            <SectionCard title="Change log">
-              <Changes carId={carId} />
-            </SectionCard>
-          </SectionBoundary>
-          <SectionBoundary title="Events">
-            <SectionCard title="Events">
-              <Events carId={carId} />
-            </SectionCard>
-          </SectionBoundary>
+          <CardSection title="Open a work order">
+            <OpenWorkOrderForm carId={carId} />
+          </CardSection>
+          <CardSection title="Visits">
+            <CarVisits carId={carId} />
+          </CardSection>
+          <CardSection title="Suggestions">
+            <SuggestionList carId={carId} emptyText="No suggestions yet. Use “Suggest a change” on a setup snapshot." />
+          </CardSection>
+          <CardSection title="Tyres">
+            <Tyres carId={carId} />
+          </CardSection>
+          <CardSection title="Change log">
+            <Changes carId={carId} />
+          </CardSection>
+          <CardSection title="Events">
+            <Events carId={carId} />
+          </CardSection>
         </div>
-        <SectionBoundary title="Setup history">
-          <SectionCard title="Setup history">
-            <Setups carId={carId} />
-          </SectionCard>
-        </SectionBoundary>
+        <CardSection title="Setup history">
+          <Setups carId={carId} />
+        </CardSection>
       </div>
     </div>
   );

@@ -1,8 +1,6 @@
 import { useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import { SectionCard } from '@/components/ui/section-card';
 import { SelectField } from '@/components/ui/select-field';
-import { SectionBoundary } from '@/components/errors/section-boundary';
 import { useMe } from '@/features/auth/api/get-me';
 import { useMyShops } from '@/features/shops/api/get-my-shops';
 import { useShop } from '@/features/shops/api/get-shop';
@@ -14,6 +12,7 @@ import { workOrderKeys } from '@/features/work-orders/api/work-order-keys';
 import { ShopBoard } from '@/features/work-orders/components/work-order-lists';
 import { InvoiceBook } from '@/features/invoices/components/invoice-book';
 import { refreshAfterWrite } from '@/lib/refresh-after-write';
+import { CardSection } from '@/components/layouts/card-section';
 
 const SHOP_PARAM = 'shop';
 
@@ -81,36 +80,24 @@ export function ShopPage() {
         ) : null}
       </div>
       <div className="grid gap-4 lg:grid-cols-2">
-        <SectionBoundary title="Open work orders">
-          <SectionCard title="Open work orders">
-            <ShopBoard shopId={shop.id} />
-          </SectionCard>
-        </SectionBoundary>
-        <SectionBoundary title="Customers">
-          <SectionCard title="Customers">
-            <CustomerList shopId={shop.id} />
-          </SectionCard>
-        </SectionBoundary>
-        <SectionBoundary title="Closed visits">
-          <SectionCard title="Closed visits">
-            <ShopBoard shopId={shop.id} status="closed" />
-          </SectionCard>
-        </SectionBoundary>
-        <SectionBoundary title="Invoices">
-          <SectionCard title="Invoices">
-            <InvoiceBook shopId={shop.id} />
-          </SectionCard>
-        </SectionBoundary>
-        <SectionBoundary title="Staff">
-          <SectionCard title="Staff">
-            <StaffCard shopId={shop.id} currentUserId={me.id} />
-          </SectionCard>
-        </SectionBoundary>
-        <SectionBoundary title="Invoices and build sheets">
-          <SectionCard title="Invoices and build sheets">
-            <SettingsCard shopId={shop.id} />
-          </SectionCard>
-        </SectionBoundary>
+        <CardSection title="Open work orders">
+          <ShopBoard shopId={shop.id} />
+        </CardSection>
+        <CardSection title="Customers">
+          <CustomerList shopId={shop.id} />
+        </CardSection>
+        <CardSection title="Closed visits">
+          <ShopBoard shopId={shop.id} status="closed" />
+        </CardSection>
+        <CardSection title="Invoices">
+          <InvoiceBook shopId={shop.id} />
+        </CardSection>
+        <CardSection title="Staff">
+          <StaffCard shopId={shop.id} currentUserId={me.id} />
+        </CardSection>
+        <CardSection title="Invoices and build sheets">
+          <SettingsCard shopId={shop.id} />
+        </CardSection>
       </div>
     </div>
   );

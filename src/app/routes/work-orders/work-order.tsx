@@ -17,6 +17,7 @@ import { HandoverCautions, MeasurementCautions } from '@/features/work-orders/co
 import { LinesEditor, LinesTable } from '@/features/work-orders/components/work-order-lines';
 import { WorkOrderHeader } from '@/features/work-orders/components/work-order-header';
 import { InvoiceSection } from '@/features/invoices/components/invoice-section';
+import { CardSection } from '@/components/layouts/card-section';
 
 /** One shop visit: staff of the shop edit it while it is open; the car's drivers read it and comment. */
 export function WorkOrderPage() {
@@ -57,45 +58,39 @@ export function WorkOrderPage() {
         </Button>
       </div>
 
-      <SectionBoundary title="Measurements">
-        <SectionCard title="Measurements">
-          {/* The handover's own caution below is what the customer's sheet carries; this one is for the work. */}
-          <div className="print:hidden">
-            <MeasurementCautions />
+      <CardSection title="Measurements">
+        {/* The handover's own caution below is what the customer's sheet carries; this one is for the work. */}
+        <div className="print:hidden">
+          <MeasurementCautions />
+        </div>
+        <MeasurementsView workOrder={workOrder} />
+        {/* Each form keeps what is typed in it: saving one section must not wipe another's unsaved values. */}
+        {canEdit ? (
+          <div className="flex flex-col gap-6 print:hidden">
+            <MeasurementsForm workOrder={workOrder} stage="before" />
+            <MeasurementsForm workOrder={workOrder} stage="after" />
           </div>
-          <MeasurementsView workOrder={workOrder} />
-          {/* Each form keeps what is typed in it: saving one section must not wipe another's unsaved values. */}
-          {canEdit ? (
-            <div className="flex flex-col gap-6 print:hidden">
-              <MeasurementsForm workOrder={workOrder} stage="before" />
-              <MeasurementsForm workOrder={workOrder} stage="after" />
-            </div>
-          ) : null}
-        </SectionCard>
-      </SectionBoundary>
+        ) : null}
+      </CardSection>
 
-      <SectionBoundary title="Build sheet">
-        <SectionCard title="Build sheet">
-          <BuildSheetCautions />
-          {canEdit ? <BuildSheetEditor workOrder={workOrder} /> : <BuildSheetView workOrder={workOrder} />}
-        </SectionCard>
-      </SectionBoundary>
+      <CardSection title="Build sheet">
+        <BuildSheetCautions />
+        {canEdit ? <BuildSheetEditor workOrder={workOrder} /> : <BuildSheetView workOrder={workOrder} />}
+      </CardSection>
 
-      <SectionBoundary title="Parts and labour">
-        <SectionCard title="Parts and labour">
-          {canEdit ? (
-            <>
-              {/* The saved lines as a running estimate, above the form that edits them. */}
-              <LinesTable workOrder={workOrder} currency={currency} />
-              <div className="print:hidden">
-                <LinesEditor key={currency} workOrder={workOrder} currency={currency} />
-              </div>
-            </>
-          ) : (
+      <CardSection title="Parts and labour">
+        {canEdit ? (
+          <>
+            {/* The saved lines as a running estimate, above the form that edits them. */}
             <LinesTable workOrder={workOrder} currency={currency} />
-          )}
-        </SectionCard>
-      </SectionBoundary>
+            <div className="print:hidden">
+              <LinesEditor key={currency} workOrder={workOrder} currency={currency} />
+            </div>
+          </>
+        ) : (
+          <LinesTable workOrder={workOrder} currency={currency} />
+        )}
+      </CardSection>
 
       <HandoverCautions />
 
