@@ -28,6 +28,7 @@ import { UsedUpParts1765670400000 } from './migrations/1765670400000-used-up-par
 import { RunsOnTyreSets1765756800000 } from './migrations/1765756800000-runs-on-tyre-sets';
 import { InvoiceNumbers1765843200000 } from './migrations/1765843200000-invoice-numbers';
 import { InvoiceBook1765929600000 } from './migrations/1765929600000-invoice-book';
+import { DoubleAdjustableDampers1766016000000 } from './migrations/1766016000000-double-adjustable-dampers';
 
 export const entities = [
   UserEntity, ShopEntity, ShopMemberEntity, TeamEntity, TeamMemberEntity,
@@ -45,6 +46,7 @@ export const migrations = [
   RunsOnTyreSets1765756800000,
   InvoiceNumbers1765843200000,
   InvoiceBook1765929600000,
+  DoubleAdjustableDampers1766016000000,
 ];
 
 /** The app's one DataSource per database URL. Schema changes come only from migrations. */

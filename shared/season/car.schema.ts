@@ -4,18 +4,30 @@ import { emailSchema } from '../auth/auth.schema';
 
 export const DAMPER_COUNT_FROM = ['full_stiff', 'full_soft'] as const;
 
-export const damperAdjusterSchema = z.strictObject({
+const clickAdjusterFields = {
   /** Number of click positions the adjuster has. */
   positions: z.number().check(z.int(), z.gte(LIMITS.damperPositions.min), z.lte(LIMITS.damperPositions.max)),
   /** Which end click 0 is counted from. */
   countFrom: z.enum(DAMPER_COUNT_FROM),
-});
-export type DamperAdjuster = z.infer<typeof damperAdjusterSchema>;
+};
+/** One adjuster's clicks: how many, and which end click 0 is. */
+export const clickAdjusterSchema = z.strictObject(clickAdjusterFields);
+export type ClickAdjuster = z.infer<typeof clickAdjusterSchema>;
+
+/** Optional, and null clears it. */
+const clearable = <T extends z.ZodMiniType>(schema: T) => z.optional(z.nullable(schema));
+
+/**
+ * An axle's dampers: their adjuster (bump, or their only one), and on double-adjustable dampers a separate rebound
+ * adjuster with clicks of its own. Left out of an edit, the rebound adjuster stays as it was; null clears it.
+ */
+export const damperAdjusterSchema = z.strictObject({ ...clickAdjusterFields, rebound: clearable(clickAdjusterSchema) });
+export type DamperAdjusterInput = z.infer<typeof damperAdjusterSchema>;
+/** An axle's dampers as the car holds them: `rebound` is null unless they are double-adjustable. */
+export type DamperAdjuster = ClickAdjuster & { rebound: ClickAdjuster | null };
 
 const motionRatio = z.number().check(z.gte(LIMITS.motionRatio.min), z.lte(LIMITS.motionRatio.max));
 const text = (max: number) => z.string().check(z.trim(), z.maxLength(max, `Use at most ${max} characters`));
-/** Optional, and null clears it. */
-const clearable = <T extends z.ZodMiniType>(schema: T) => z.optional(z.nullable(schema));
 
 const carFields = {
   name: text(80).check(z.minLength(1, 'Give the car a name')),

@@ -4,21 +4,9 @@
  * practice; the damper maker's manual says which end its clicks count from).
  */
 import { axleOf, CORNERS, type Axle, type Corner } from './corners';
-import type { Car } from './car.schema';
+import type { ClickAdjuster, DamperAdjusterInput } from './car.schema';
 
 export type ClickDirection = 'stiffer' | 'softer';
-
-/**
- * "stiffer" or "softer" for a change of `delta` clicks at these corners, when every one of them counts from the same
- * end; null for no change, no corners, or an adjuster the car does not describe.
- */
-export function clickDirection(adjusters: Car['damperAdjusters'], corners: readonly Corner[], delta: number): ClickDirection | null {
-  if (delta === 0 || corners.length === 0) return null;
-  const ends = new Set(corners.map((c) => adjusters[axleOf(c)]?.countFrom ?? null));
-  const [end] = ends;
-  if (ends.size !== 1 || !end) return null;
-  return (end === 'full_soft') === delta > 0 ? 'stiffer' : 'softer';
-}
 
 /** The two click values a corner's setup can hold: clicks (bump, or a damper's only adjuster) and rebound clicks. */
 export const CLICK_FIELDS = ['damperClicks', 'damperReboundClicks'] as const;
@@ -26,13 +14,34 @@ export type ClickField = (typeof CLICK_FIELDS)[number];
 
 export const isClickField = (field: string): field is ClickField => (CLICK_FIELDS as readonly string[]).includes(field);
 
+/** A car's adjusters per axle, as it holds them or as a request or season file gives them. */
+type Adjusters = { readonly [A in Axle]?: DamperAdjusterInput | null };
+
 /**
- * The corners whose dampers have this adjuster, in grid order. A car describes one adjuster per axle (its clicks), not
- * whether its dampers are double-adjustable, so rebound clicks are only where the setup records them. Clicks are where
- * the car describes an adjuster on the axle, or where the setup records clicks all the same.
+ * The adjuster that sets this value on an axle: rebound clicks are the rebound adjuster's where the car describes one
+ * (double-adjustable dampers), else the damper's one adjuster's; undefined where the axle has none.
+ */
+export const adjusterFor = (adjusters: Adjusters, axle: Axle, field: ClickField): ClickAdjuster | undefined =>
+  (field === 'damperReboundClicks' && adjusters[axle]?.rebound) || adjusters[axle] || undefined;
+
+/**
+ * "stiffer" or "softer" for a change of `delta` clicks at these corners, when every one of them counts from the same
+ * end; null for no change, no corners, or an adjuster the car does not describe.
+ */
+export function clickDirection(adjusters: Adjusters, corners: readonly Corner[], delta: number): ClickDirection | null {
+  if (delta === 0 || corners.length === 0) return null;
+  const ends = new Set(corners.map((c) => adjusters[axleOf(c)]?.countFrom ?? null));
+  const [end] = ends;
+  if (ends.size !== 1 || !end) return null;
+  return (end === 'full_soft') === delta > 0 ? 'stiffer' : 'softer';
+}
+
+/**
+ * The corners whose dampers have this adjuster, in grid order. Rebound clicks are only where the setup records them.
+ * Clicks are where the car describes an adjuster on the axle, or where the setup records clicks all the same.
  */
 export function cornersWithAdjuster(
-  adjusters: Car['damperAdjusters'],
+  adjusters: Adjusters,
   setupCorners: Partial<Record<Corner, Partial<Record<ClickField, number | null>> | undefined>>,
   field: ClickField,
 ): Corner[] {
@@ -40,6 +49,6 @@ export function cornersWithAdjuster(
   const has = (axle: Axle) =>
     field === 'damperReboundClicks'
       ? records(axle, 'damperReboundClicks')
-      : adjusters[axle] !== null || records(axle, 'damperClicks') || records(axle, 'damperReboundClicks');
+      : !!adjusters[axle] || records(axle, 'damperClicks') || records(axle, 'damperReboundClicks');
   return CORNERS.filter((c) => has(axleOf(c)));
 }

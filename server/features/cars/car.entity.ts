@@ -12,6 +12,11 @@ export class CarEntity {
   @Column({ name: 'front_damper_count_from', type: 'text', nullable: true }) frontDamperCountFrom!: 'full_stiff' | 'full_soft' | null;
   @Column({ name: 'rear_damper_positions', type: 'integer', nullable: true }) rearDamperPositions!: number | null;
   @Column({ name: 'rear_damper_count_from', type: 'text', nullable: true }) rearDamperCountFrom!: 'full_stiff' | 'full_soft' | null;
+  /** Double-adjustable dampers' rebound adjuster; null when the axle's dampers have one adjuster or none. */
+  @Column({ name: 'front_damper_rebound_positions', type: 'integer', nullable: true }) frontDamperReboundPositions!: number | null;
+  @Column({ name: 'front_damper_rebound_count_from', type: 'text', nullable: true }) frontDamperReboundCountFrom!: 'full_stiff' | 'full_soft' | null;
+  @Column({ name: 'rear_damper_rebound_positions', type: 'integer', nullable: true }) rearDamperReboundPositions!: number | null;
+  @Column({ name: 'rear_damper_rebound_count_from', type: 'text', nullable: true }) rearDamperReboundCountFrom!: 'full_stiff' | 'full_soft' | null;
   @Column({ name: 'front_motion_ratio', type: 'double precision', nullable: true }) frontMotionRatio!: number | null;
   @Column({ name: 'rear_motion_ratio', type: 'double precision', nullable: true }) rearMotionRatio!: number | null;
   @Column({ type: 'text', nullable: true }) notes!: string | null;

@@ -1,6 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
-import type { Car, CreateCarInput, Person, UpdateCarInput } from '@shared/season/car.schema';
+import type { Car, ClickAdjuster, CreateCarInput, DamperAdjuster, Person, UpdateCarInput } from '@shared/season/car.schema';
+import { AXLES, type Axle } from '@shared/season/corners';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { accessibleCarIdsSql, assertCarAccess } from '../../auth/access';
 import { insertUnlessPresent } from '../../lib/insert';
@@ -10,6 +11,31 @@ import { CarCoDriverEntity, CarEntity } from './car.entity';
 
 type Db = DataSource | EntityManager;
 
+/** Each axle's adjuster columns. */
+const COLUMNS = {
+  front: {
+    positions: 'frontDamperPositions', countFrom: 'frontDamperCountFrom',
+    reboundPositions: 'frontDamperReboundPositions', reboundCountFrom: 'frontDamperReboundCountFrom',
+  },
+  rear: {
+    positions: 'rearDamperPositions', countFrom: 'rearDamperCountFrom',
+    reboundPositions: 'rearDamperReboundPositions', reboundCountFrom: 'rearDamperReboundCountFrom',
+  },
+} as const satisfies Record<Axle, Record<string, keyof CarEntity>>;
+
+const clickAdjuster = (positions: number | null, countFrom: ClickAdjuster['countFrom'] | null): ClickAdjuster | null =>
+  positions !== null && countFrom !== null ? { positions, countFrom } : null;
+
+/** The car's adjusters from its columns: each axle's, with its rebound adjuster or null. */
+export function damperAdjustersOf(c: CarEntity): Car['damperAdjusters'] {
+  const axle = (a: Axle): DamperAdjuster | null => {
+    const col = COLUMNS[a];
+    const main = clickAdjuster(c[col.positions], c[col.countFrom]);
+    return main && { ...main, rebound: clickAdjuster(c[col.reboundPositions], c[col.reboundCountFrom]) };
+  };
+  return { front: axle('front'), rear: axle('rear') };
+}
+
 function columnsFrom(input: Partial<CreateCarInput>): Partial<CarEntity> {
   const out: Partial<CarEntity> = {};
   if (input.name !== undefined) out.name = input.name;
@@ -17,14 +43,17 @@ function columnsFrom(input: Partial<CreateCarInput>): Partial<CarEntity> {
   if (input.carNumber !== undefined) out.carNumber = input.carNumber || null;
   if (input.tyreSize !== undefined) out.tyreSize = input.tyreSize || null;
   if (input.notes !== undefined) out.notes = input.notes || null;
-  const d = input.damperAdjusters;
-  if (d?.front !== undefined) {
-    out.frontDamperPositions = d.front?.positions ?? null;
-    out.frontDamperCountFrom = d.front?.countFrom ?? null;
-  }
-  if (d?.rear !== undefined) {
-    out.rearDamperPositions = d.rear?.positions ?? null;
-    out.rearDamperCountFrom = d.rear?.countFrom ?? null;
+  for (const axle of AXLES) {
+    const a = input.damperAdjusters?.[axle];
+    if (a === undefined) continue;
+    const col = COLUMNS[axle];
+    out[col.positions] = a?.positions ?? null;
+    out[col.countFrom] = a?.countFrom ?? null;
+    // An adjuster given without its rebound keeps the rebound stored; an axle with no adjuster has no rebound either.
+    if (a === null || a.rebound !== undefined) {
+      out[col.reboundPositions] = a?.rebound?.positions ?? null;
+      out[col.reboundCountFrom] = a?.rebound?.countFrom ?? null;
+    }
   }
   const m = input.motionRatios;
   if (m?.front !== undefined) out.frontMotionRatio = m.front;
@@ -64,10 +93,7 @@ function toCar(c: CarEntity, people: Awaited<ReturnType<typeof peopleOf>>): Car 
     classCode: c.classCode,
     carNumber: c.carNumber,
     tyreSize: c.tyreSize,
-    damperAdjusters: {
-      front: c.frontDamperPositions && c.frontDamperCountFrom ? { positions: c.frontDamperPositions, countFrom: c.frontDamperCountFrom } : null,
-      rear: c.rearDamperPositions && c.rearDamperCountFrom ? { positions: c.rearDamperPositions, countFrom: c.rearDamperCountFrom } : null,
-    },
+    damperAdjusters: damperAdjustersOf(c),
     motionRatios: { front: c.frontMotionRatio, rear: c.rearMotionRatio },
     notes: c.notes,
     version: c.version,

@@ -12,7 +12,8 @@ import * as z from '@shared/zod';
 import { AppError } from '../../lib/app-error';
 import { unstorableFields } from '../../lib/validate';
 import { assertCarAccess } from '../../auth/access';
-import { loadCarEntity } from '../cars/car.service';
+import { adjusterFor, CLICK_FIELDS } from '@shared/season/damper-clicks';
+import { damperAdjustersOf, loadCarEntity } from '../cars/car.service';
 import { setupsOfCar } from '../setups/setup.service';
 import { loadRuns } from '../runs/run.service';
 import { tyreSetsWithReadings } from '../tyres/tyre.service';
@@ -61,9 +62,6 @@ export async function buildSeasonExport(db: Db, carId: string, now = new Date())
       )
     : [];
 
-  const adjusters = (positions: number | null, countFrom: 'full_stiff' | 'full_soft' | null) =>
-    positions !== null && countFrom !== null ? { positions, countFrom } : null;
-
   return {
     format: SEASON_FILE_FORMAT,
     version: SEASON_FILE_VERSION,
@@ -74,10 +72,7 @@ export async function buildSeasonExport(db: Db, carId: string, now = new Date())
       classCode: car.classCode,
       carNumber: car.carNumber,
       tyreSize: car.tyreSize,
-      damperAdjusters: {
-        front: adjusters(car.frontDamperPositions, car.frontDamperCountFrom),
-        rear: adjusters(car.rearDamperPositions, car.rearDamperCountFrom),
-      },
+      damperAdjusters: damperAdjustersOf(car),
       motionRatios: { front: car.frontMotionRatio, rear: car.rearMotionRatio },
       notes: car.notes,
     },
@@ -207,14 +202,14 @@ function checkReferences(file: SeasonExport): FieldErrors {
     );
   }
 
-  const car = file.car.damperAdjusters;
+  const car = file.car.damperAdjusters ?? {};
   file.setups.forEach((s, i) => {
     if (s.derivedFromId !== null && (!setups.has(s.derivedFromId) || s.derivedFromId === s.id)) {
       add(`setups.${i}.derivedFromId`, 'No other setup in the file has this id');
     }
     for (const corner of CORNERS) {
-      const positions = car?.[axleOf(corner)]?.positions;
-      for (const field of ['damperClicks', 'damperReboundClicks'] as const) {
+      for (const field of CLICK_FIELDS) {
+        const positions = adjusterFor(car, axleOf(corner), field)?.positions;
         const v = s.corners[corner]?.[field];
         if (positions && v !== null && v !== undefined && v > positions) {
           add(`setups.${i}.corners.${corner}.${field}`, `The car's adjuster has ${positions} clicks; use 0 to ${positions}`);
@@ -322,12 +317,18 @@ export async function importSeason(ds: DataSource, user: User, body: unknown): P
       {
         id: 'uuid', owner_id: 'uuid', name: 'text', class_code: 'text', car_number: 'text', tyre_size: 'text',
         front_damper_positions: 'integer', front_damper_count_from: 'text', rear_damper_positions: 'integer', rear_damper_count_from: 'text',
+        front_damper_rebound_positions: 'integer', front_damper_rebound_count_from: 'text',
+        rear_damper_rebound_positions: 'integer', rear_damper_rebound_count_from: 'text',
         front_motion_ratio: 'double precision', rear_motion_ratio: 'double precision', notes: 'text',
       },
       [{
         id: carId, owner_id: user.id, name: c.name, class_code: c.classCode, car_number: c.carNumber || null, tyre_size: c.tyreSize || null,
         front_damper_positions: c.damperAdjusters?.front?.positions, front_damper_count_from: c.damperAdjusters?.front?.countFrom,
         rear_damper_positions: c.damperAdjusters?.rear?.positions, rear_damper_count_from: c.damperAdjusters?.rear?.countFrom,
+        front_damper_rebound_positions: c.damperAdjusters?.front?.rebound?.positions,
+        front_damper_rebound_count_from: c.damperAdjusters?.front?.rebound?.countFrom,
+        rear_damper_rebound_positions: c.damperAdjusters?.rear?.rebound?.positions,
+        rear_damper_rebound_count_from: c.damperAdjusters?.rear?.rebound?.countFrom,
         front_motion_ratio: c.motionRatios?.front, rear_motion_ratio: c.motionRatios?.rear, notes: c.notes || null,
       }],
     );

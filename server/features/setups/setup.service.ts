@@ -9,7 +9,8 @@ import { diffSetups } from '@shared/season/setup-diff';
 import { toFieldErrors, type FieldErrors } from '@shared/api/api-error.schema';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { assertCarAccess, assertCarChildAccess } from '../../auth/access';
-import { loadCarEntity } from '../cars/car.service';
+import { adjusterFor, CLICK_FIELDS } from '@shared/season/damper-clicks';
+import { damperAdjustersOf, loadCarEntity } from '../cars/car.service';
 import { insertUnlessPresent } from '../../lib/insert';
 import { SetupCornerEntity, SetupSnapshotEntity } from './setup.entity';
 
@@ -85,18 +86,17 @@ export async function activeSetupAt(db: Db, carId: string, at: Date): Promise<Se
   return s ? (await toSetups(db, [s]))[0]! : null;
 }
 
-/** Clicks must lie within the car's adjuster: 0 to its number of positions. */
+/** Clicks must lie within the car's adjuster: 0 to its number of positions (rebound clicks: the rebound adjuster's, if described). */
 async function checkClicks(db: Db, carId: string, corners: Partial<Record<Corner, SetupCorner | undefined>>, prefix = 'corners') {
-  const car = await loadCarEntity(db, carId);
+  const adjusters = damperAdjustersOf(await loadCarEntity(db, carId));
   const errors: FieldErrors = {};
   for (const corner of CORNERS) {
     const values = corners[corner];
     if (!values) continue;
-    const positions = axleOf(corner) === 'front' ? car.frontDamperPositions : car.rearDamperPositions;
-    if (positions === null) continue;
-    for (const field of ['damperClicks', 'damperReboundClicks'] as const) {
+    for (const field of CLICK_FIELDS) {
+      const positions = adjusterFor(adjusters, axleOf(corner), field)?.positions;
       const v = values[field];
-      if (v !== null && v !== undefined && v > positions) {
+      if (positions !== undefined && v !== null && v !== undefined && v > positions) {
         errors[`${prefix}.${corner}.${field}`] = [`This adjuster has ${positions} clicks; use 0 to ${positions}`];
       }
     }

@@ -153,6 +153,27 @@ describe('the season round trip: export as one driver, import as another, export
     expect(await tieOf(b.c, newCarId)).toEqual(await tieOf(a.c, a.carId));
   });
 
+  it('when the front dampers are double-adjustable, then the file carries the rebound adjuster, the import restores it, and rebound clicks past it are refused', async () => {
+    const a = await driverWithCarAndEvent(t);
+    const front = { positions: 12, countFrom: 'full_soft', rebound: { positions: 20, countFrom: 'full_stiff' } };
+    ok(await a.c.patch(`/api/cars/${a.carId}`, { version: 1, damperAdjusters: { front } }), 200);
+    // 16 rebound clicks: past the front adjuster's 12, within its rebound adjuster's 20.
+    await postSetup(a.c, a.carId, { corners: { ...setupBody().corners, lf: { damperClicks: 4, damperReboundClicks: 16 } } });
+    const file = await exportJson(a.c, a.carId);
+    expect(file.car.damperAdjusters).toEqual({ front, rear: { positions: 12, countFrom: 'full_soft', rebound: null } });
+
+    const b = await signedInClient(t);
+    const imported = ok(await b.c.post('/api/cars/import', file));
+    expect(ok(await b.c.get(`/api/cars/${String(imported.carId)}`), 200).damperAdjusters).toEqual(file.car.damperAdjusters);
+
+    const tight = structuredClone(file);
+    (tight.car.damperAdjusters as { front: typeof front }).front.rebound.positions = 15;
+    const res = await b.c.post('/api/cars/import', tight);
+    expectError(res, 400, 'validation_failed');
+    expect(res.body.error.fieldErrors).toEqual({ 'setups.0.corners.lf.damperReboundClicks': ["The car's adjuster has 15 clicks; use 0 to 15"] });
+    expect(await countOf(t, 'SELECT count(*) AS n FROM cars WHERE owner_id = $1', [b.user.id])).toBe(1);
+  });
+
   it('when one field or one record is dropped from a file, then the comparison above tells the files apart', async () => {
     const a = await driverWithCarAndEvent(t);
     await seedSeason(a);

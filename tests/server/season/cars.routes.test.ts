@@ -1,4 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { randomUUID } from 'node:crypto';
+import pg from 'pg';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { createDataSource } from '../../../server/db/data-source';
+import { DoubleAdjustableDampers1766016000000 } from '../../../server/db/migrations/1766016000000-double-adjustable-dampers';
 import { makeTestApp, signedInClient, type TestApp } from '../test-app';
 import {
   addCoDriver, anonymous, countOf, driverWithCarAndEvent, expectError, expectFieldErrors, postRun, postSetup,
@@ -34,7 +38,7 @@ describe('POST /api/cars', () => {
       classCode: 'STS',
       carNumber: '7',
       tyreSize: null,
-      damperAdjusters: { front: { positions: 16, countFrom: 'full_stiff' }, rear: null },
+      damperAdjusters: { front: { positions: 16, countFrom: 'full_stiff', rebound: null }, rear: null },
       motionRatios: { front: null, rear: 0.8 },
       notes: null,
       version: 1,
@@ -75,6 +79,138 @@ describe('POST /api/cars', () => {
     );
     expect(await carsOf(user.id)).toBe(0);
   });
+});
+
+/** Double-adjustable front dampers: 16 clicks counted from full stiff, and a rebound adjuster of 24 counted from full soft. */
+const FRONT_DOUBLE = { positions: 16, countFrom: 'full_stiff', rebound: { positions: 24, countFrom: 'full_soft' } };
+
+describe('double-adjustable dampers', () => {
+  it('when a car is made with a rebound adjuster, then it reads back; an edit of the clicks alone keeps it, null clears it, and no adjuster takes it along', async () => {
+    const { c } = await signedInClient(t);
+    const made = await c.post('/api/cars', { name: 'Coupe', classCode: 'SS', damperAdjusters: { front: FRONT_DOUBLE, rear: { positions: 12, countFrom: 'full_soft' } } });
+    expect(made.status, JSON.stringify(made.body)).toBe(201);
+    expect(made.body.damperAdjusters).toEqual({ front: FRONT_DOUBLE, rear: { positions: 12, countFrom: 'full_soft', rebound: null } });
+    expect((await c.get(`/api/cars/${made.body.id}`)).body.damperAdjusters).toEqual(made.body.damperAdjusters);
+
+    // The front's clicks change; its rebound adjuster, not named, stays. The rear gains one.
+    const edited = await c.patch(`/api/cars/${made.body.id}`, {
+      version: 1,
+      damperAdjusters: { front: { positions: 18, countFrom: 'full_stiff' }, rear: { positions: 12, countFrom: 'full_soft', rebound: { positions: 10, countFrom: 'full_stiff' } } },
+    });
+    expect(edited.status, JSON.stringify(edited.body)).toBe(200);
+    expect(edited.body.damperAdjusters).toEqual({
+      front: { ...FRONT_DOUBLE, positions: 18 },
+      rear: { positions: 12, countFrom: 'full_soft', rebound: { positions: 10, countFrom: 'full_stiff' } },
+    });
+
+    const cleared = await c.patch(`/api/cars/${made.body.id}`, { version: 2, damperAdjusters: { front: { positions: 18, countFrom: 'full_stiff', rebound: null }, rear: null } });
+    expect(cleared.status, JSON.stringify(cleared.body)).toBe(200);
+    expect(cleared.body.damperAdjusters).toEqual({ front: { positions: 18, countFrom: 'full_stiff', rebound: null }, rear: null });
+    // The rear's rebound went with its adjuster: giving the rear clicks again brings no rebound adjuster back.
+    const again = await c.patch(`/api/cars/${made.body.id}`, { version: 3, damperAdjusters: { rear: { positions: 12, countFrom: 'full_soft' } } });
+    expect(again.body.damperAdjusters.rear).toEqual({ positions: 12, countFrom: 'full_soft', rebound: null });
+    expect((await c.get(`/api/cars/${made.body.id}`)).body).toEqual(again.body);
+  });
+
+  it('when a rebound adjuster has 0 or 101 positions, counts from no known end or has an unknown field, then 400 at its path and nothing changes', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const errors = expectFieldErrors(
+      await d.c.patch(`/api/cars/${d.carId}`, {
+        version: 1,
+        damperAdjusters: {
+          front: { positions: 12, countFrom: 'full_soft', rebound: { positions: 0, countFrom: 'middle' } },
+          rear: { positions: 12, countFrom: 'full_soft', rebound: { positions: 101, countFrom: 'full_soft', turns: 2 } },
+        },
+      }),
+      ['damperAdjusters.front.rebound.positions', 'damperAdjusters.front.rebound.countFrom', 'damperAdjusters.rear.rebound.positions', 'damperAdjusters.rear.rebound.turns'],
+    );
+    expect(errors['damperAdjusters.rear.rebound.turns']).toEqual(['Unknown field']);
+    expect((await d.c.get(`/api/cars/${d.carId}`)).body).toEqual(d.car);
+    const { c, user } = await signedInClient(t);
+    expectFieldErrors(
+      await c.post('/api/cars', { name: 'A', classCode: 'SS', damperAdjusters: { front: { positions: 12, countFrom: 'full_soft', rebound: { positions: 2.5, countFrom: 'full_soft' } } } }),
+      ['damperAdjusters.front.rebound.positions'],
+    );
+    expect(await carsOf(user.id)).toBe(0);
+  });
+});
+
+/** A database of its own on the test cluster, migrated: the migration test takes columns away and back. */
+async function ownDatabase() {
+  const base = new URL(inject('databaseUrl'));
+  const name = `cars_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
+  const admin = new pg.Client({ connectionString: base.toString() });
+  await admin.connect();
+  await admin.query(`CREATE DATABASE ${name}`);
+  await admin.end();
+  const url = new URL(base.toString());
+  url.pathname = `/${name}`;
+  const ds = createDataSource(url.toString(), { poolSize: 1 });
+  await ds.initialize();
+  await ds.runMigrations({ transaction: 'each' });
+  await ds.destroy();
+  return {
+    url: url.toString(),
+    async drop() {
+      const c = new pg.Client({ connectionString: base.toString() });
+      await c.connect();
+      await c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+      await c.end();
+    },
+  };
+}
+
+describe('the migration that lets dampers be double-adjustable', () => {
+  it('when cars were stored before it, then they read back with no rebound adjuster, take one afterwards, and the columns come off and on again', async () => {
+    const db = await ownDatabase();
+    const own = await makeTestApp({ databaseUrl: db.url });
+    try {
+      const { c, user } = await signedInClient(own);
+      const migration = new DoubleAdjustableDampers1766016000000();
+      const runner = own.ds.createQueryRunner();
+      const [withAdjusters, fixed] = [randomUUID(), randomUUID()];
+      try {
+        await migration.down(runner);
+        // Two cars as the app stored them before: one with clicks front and rear, one on fixed dampers.
+        await runner.query(
+          `INSERT INTO cars (id, owner_id, name, class_code, front_damper_positions, front_damper_count_from, rear_damper_positions, rear_damper_count_from)
+           VALUES ($1, $3, 'Old coupe', 'SS', 16, 'full_stiff', 12, 'full_soft'), ($2, $3, 'Old hatch', 'HS', NULL, NULL, NULL, NULL)`,
+          [withAdjusters, fixed, user.id],
+        );
+        await migration.up(runner);
+      } finally {
+        await runner.release();
+      }
+      expect((await c.get(`/api/cars/${withAdjusters}`)).body.damperAdjusters).toEqual({
+        front: { positions: 16, countFrom: 'full_stiff', rebound: null },
+        rear: { positions: 12, countFrom: 'full_soft', rebound: null },
+      });
+      expect((await c.get(`/api/cars/${fixed}`)).body.damperAdjusters).toEqual({ front: null, rear: null });
+      const edited = await c.patch(`/api/cars/${withAdjusters}`, { version: 1, damperAdjusters: { front: FRONT_DOUBLE } });
+      expect(edited.status, JSON.stringify(edited.body)).toBe(200);
+      expect(edited.body.damperAdjusters.front).toEqual(FRONT_DOUBLE);
+
+      // A rebound adjuster stands only beside the axle's other adjuster, and whole.
+      await expect(own.ds.query(`UPDATE cars SET rear_damper_rebound_positions = 10, rear_damper_rebound_count_from = 'full_soft' WHERE id = $1`, [fixed])).rejects.toThrow(/check/i);
+      await expect(own.ds.query(`UPDATE cars SET rear_damper_rebound_positions = 10 WHERE id = $1`, [withAdjusters])).rejects.toThrow(/check/i);
+
+      // Down takes the rebound adjusters away (the cars keep the rest); up brings the columns back empty.
+      const again = own.ds.createQueryRunner();
+      try {
+        await migration.down(again);
+        await migration.up(again);
+      } finally {
+        await again.release();
+      }
+      expect((await c.get(`/api/cars/${withAdjusters}`)).body.damperAdjusters).toEqual({
+        front: { positions: 16, countFrom: 'full_stiff', rebound: null },
+        rear: { positions: 12, countFrom: 'full_soft', rebound: null },
+      });
+    } finally {
+      await own.close();
+      await db.drop();
+    }
+  }, 60_000);
 });
 
 describe('GET /api/cars and /api/cars/:carId', () => {

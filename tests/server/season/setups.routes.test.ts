@@ -157,6 +157,23 @@ describe('plausibility limits on a setup', () => {
     expect(await setupsOf(d.carId)).toBe(0);
   });
 
+  it('when the rear dampers have a rebound adjuster of 20 clicks, then rebound clicks there are checked against its 20 and clicks against the other adjuster\'s 12', async () => {
+    const d = await driverWithCarAndEvent(t);
+    const rear = { positions: 12, countFrom: 'full_soft', rebound: { positions: 20, countFrom: 'full_stiff' } };
+    expect((await d.c.patch(`/api/cars/${d.carId}`, { version: 1, damperAdjusters: { rear } })).status).toBe(200);
+    const ok = await d.c.post(`/api/cars/${d.carId}/setups`, setupBody({ corners: { rr: { damperClicks: 12, damperReboundClicks: 20 } } }));
+    expect(ok.status, JSON.stringify(ok.body)).toBe(201);
+    const errors = expectFieldErrors(
+      await d.c.post(`/api/cars/${d.carId}/setups`, setupBody({ corners: { lf: { damperReboundClicks: 13 }, rr: { damperClicks: 13, damperReboundClicks: 21 } } })),
+      ['corners.lf.damperReboundClicks', 'corners.rr.damperClicks', 'corners.rr.damperReboundClicks'],
+    );
+    expect(errors['corners.rr.damperReboundClicks']![0]).toMatch(/20 clicks/);
+    expect(errors['corners.rr.damperClicks']![0]).toMatch(/12 clicks/);
+    // The front dampers describe no rebound adjuster: their rebound clicks stay within their one adjuster's 12.
+    expect(errors['corners.lf.damperReboundClicks']![0]).toMatch(/12 clicks/);
+    expect(await setupsOf(d.carId)).toBe(1);
+  });
+
   it('when clicks are −1, 101 or fractional, then the schema refuses them at the corner field', async () => {
     const d = await driverWithCarAndEvent(t);
     expectFieldErrors(await lfWith(d, { damperClicks: -1 }), ['corners.lf.damperClicks']);

@@ -1,6 +1,6 @@
 import * as z from '@shared/zod';
 import { AXLES, type Axle } from '@shared/season/corners';
-import { createCarInputSchema, DAMPER_COUNT_FROM, type Car, type CreateCarInput, type DamperAdjuster } from '@shared/season/car.schema';
+import { createCarInputSchema, DAMPER_COUNT_FROM, type Car, type CreateCarInput, type DamperAdjusterInput } from '@shared/season/car.schema';
 import { LIMITS } from '@shared/season/limits';
 import { parseDecimal, typeANumber } from '@/lib/numbers';
 import { addIssue } from '@/lib/form-schema';
@@ -78,7 +78,7 @@ export const carFormSchema = z.pipe(
       local.add(path.join('.'));
       addIssue(ctx, path, message);
     };
-    const adjuster = (axle: Axle): DamperAdjuster | null => {
+    const adjuster = (axle: Axle): DamperAdjusterInput | null => {
       const typed = v.damperAdjusters[axle].positions.trim();
       if (!typed) return null;
       const path = ['damperAdjusters', axle, 'positions'];
@@ -101,7 +101,7 @@ export const carFormSchema = z.pipe(
       classCode: v.classCode,
       carNumber: optionalText(v.carNumber),
       tyreSize: optionalText(v.tyreSize),
-      damperAdjusters: Object.fromEntries(AXLES.map((a) => [a, adjuster(a)])) as Record<Axle, DamperAdjuster | null>,
+      damperAdjusters: Object.fromEntries(AXLES.map((a) => [a, adjuster(a)])) as Record<Axle, DamperAdjusterInput | null>,
       motionRatios: Object.fromEntries(AXLES.map((a) => [a, motionRatio(a)])) as Record<Axle, number | null>,
       notes: optionalText(v.notes),
     };

@@ -1,4 +1,4 @@
-import type { Car, Person } from '@shared/season/car.schema';
+import type { Car, DamperAdjuster, DamperAdjusterInput, Person } from '@shared/season/car.schema';
 import type { OutboxEntry, OutboxError } from '@/lib/outbox';
 import type { CreateCarBody } from '../api/create-car';
 
@@ -6,6 +6,9 @@ import type { CreateCarBody } from '../api/create-car';
 export interface CarView extends Car {
   pending: null | { state: 'waiting' | 'failed'; entryKey: string; error?: OutboxError };
 }
+
+/** An axle's adjuster as sent, as the car will hold it: no rebound adjuster unless one was given. */
+const adjuster = (a: DamperAdjusterInput | null | undefined): DamperAdjuster | null => (a ? { ...a, rebound: a.rebound ?? null } : null);
 
 export const isCarCreate = (entry: OutboxEntry) => entry.kind === 'car.create';
 
@@ -21,7 +24,7 @@ export function carFromEntry(entry: OutboxEntry, owner: Person, pending: boolean
     classCode: body.classCode,
     carNumber: body.carNumber ?? null,
     tyreSize: body.tyreSize ?? null,
-    damperAdjusters: { front: body.damperAdjusters?.front ?? null, rear: body.damperAdjusters?.rear ?? null },
+    damperAdjusters: { front: adjuster(body.damperAdjusters?.front), rear: adjuster(body.damperAdjusters?.rear) },
     motionRatios: { front: body.motionRatios?.front ?? null, rear: body.motionRatios?.rear ?? null },
     notes: body.notes ?? null,
     version: 0,

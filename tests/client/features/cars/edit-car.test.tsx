@@ -26,7 +26,7 @@ describe('editing a car', () => {
   });
 
   it('when the owner opens Edit car, then the form holds what is stored, and saving sends the changes with the version', async () => {
-    const saved: Car = { ...CAR, name: 'Grey roadster II', damperAdjusters: { ...CAR.damperAdjusters, rear: { positions: 16, countFrom: 'full_stiff' } }, version: 2 };
+    const saved: Car = { ...CAR, name: 'Grey roadster II', damperAdjusters: { ...CAR.damperAdjusters, rear: { positions: 16, countFrom: 'full_stiff', rebound: null } }, version: 2 };
     let stored = CAR;
     const fetch = stubFetch({
       'GET /api/auth/session': jsonResponse(200, { user: user() }),
