@@ -25,20 +25,21 @@ export const adjusterFor = (adjusters: Adjusters, axle: Axle, field: ClickField)
   (field === 'damperReboundClicks' && adjusters[axle]?.rebound) || adjusters[axle] || undefined;
 
 /**
- * "stiffer" or "softer" for a change of `delta` clicks at these corners, when every one of them counts from the same
- * end; null for no change, no corners, or an adjuster the car does not describe.
+ * "stiffer" or "softer" for a change of `delta` clicks of this value at these corners, when every one of them counts
+ * from the same end; null for no change, no corners, or an adjuster the car does not describe.
  */
-export function clickDirection(adjusters: Adjusters, corners: readonly Corner[], delta: number): ClickDirection | null {
+export function clickDirection(adjusters: Adjusters, corners: readonly Corner[], delta: number, field: ClickField): ClickDirection | null {
   if (delta === 0 || corners.length === 0) return null;
-  const ends = new Set(corners.map((c) => adjusters[axleOf(c)]?.countFrom ?? null));
+  const ends = new Set(corners.map((c) => adjusterFor(adjusters, axleOf(c), field)?.countFrom));
   const [end] = ends;
   if (ends.size !== 1 || !end) return null;
   return (end === 'full_soft') === delta > 0 ? 'stiffer' : 'softer';
 }
 
 /**
- * The corners whose dampers have this adjuster, in grid order. Rebound clicks are only where the setup records them.
- * Clicks are where the car describes an adjuster on the axle, or where the setup records clicks all the same.
+ * The corners whose dampers have this adjuster, in grid order. Clicks are where the car describes an adjuster on the
+ * axle; rebound clicks where it describes a rebound adjuster there. Either is also where the setup records it all the
+ * same (and clicks where it records rebound clicks), so a value already written can still be changed.
  */
 export function cornersWithAdjuster(
   adjusters: Adjusters,
@@ -48,7 +49,7 @@ export function cornersWithAdjuster(
   const records = (axle: Axle, f: ClickField) => CORNERS.some((c) => axleOf(c) === axle && typeof setupCorners[c]?.[f] === 'number');
   const has = (axle: Axle) =>
     field === 'damperReboundClicks'
-      ? records(axle, 'damperReboundClicks')
+      ? !!adjusters[axle]?.rebound || records(axle, 'damperReboundClicks')
       : !!adjusters[axle] || records(axle, 'damperClicks') || records(axle, 'damperReboundClicks');
   return CORNERS.filter((c) => has(axleOf(c)));
 }

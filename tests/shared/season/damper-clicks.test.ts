@@ -13,16 +13,35 @@ describe('clickDirection', () => {
     [FROM_SOFT, 2, 'stiffer'],
     [FROM_SOFT, -3, 'softer'],
   ] as const)('when counted from %o and the clicks change by %d, then the damper is %s', (adjuster, delta, word) => {
-    expect(clickDirection({ front: adjuster, rear: null }, ['lf', 'rf'], delta)).toBe(word);
+    expect(clickDirection({ front: adjuster, rear: null }, ['lf', 'rf'], delta, 'damperClicks')).toBe(word);
   });
 
   it('when the corners count from different ends, or the adjuster is not described, or nothing changed, then no direction is claimed', () => {
     const mixed = { front: FROM_STIFF, rear: FROM_SOFT };
-    expect(clickDirection(mixed, ['lf', 'lf', 'rr'], 1)).toBeNull();
-    expect(clickDirection(mixed, ['lr', 'rr'], 1)).toBe('stiffer');
-    expect(clickDirection({ front: FROM_STIFF, rear: null }, ['lr'], 1)).toBeNull();
-    expect(clickDirection(mixed, ['lf'], 0)).toBeNull();
-    expect(clickDirection(mixed, [], 2)).toBeNull();
+    expect(clickDirection(mixed, ['lf', 'lf', 'rr'], 1, 'damperClicks')).toBeNull();
+    expect(clickDirection(mixed, ['lr', 'rr'], 1, 'damperClicks')).toBe('stiffer');
+    expect(clickDirection({ front: FROM_STIFF, rear: null }, ['lr'], 1, 'damperClicks')).toBeNull();
+    expect(clickDirection(mixed, ['lf'], 0, 'damperClicks')).toBeNull();
+    expect(clickDirection(mixed, [], 2, 'damperClicks')).toBeNull();
+  });
+
+  // Double-adjustable dampers: bump counted from full stiff, rebound from full soft. Each adjuster's clicks go the way
+  // its own end says (common practice: damper makers' adjustment instructions).
+  it.each([
+    [2, 'stiffer'],
+    [-1, 'softer'],
+  ] as const)('when the bump clicks count from full stiff, the rebound adjuster\'s from full soft, and the rebound clicks change by %d, then the damper is %s', (delta, word) => {
+    const double = { front: { ...FROM_STIFF, rebound: FROM_SOFT }, rear: null };
+    expect(clickDirection(double, ['lf', 'rf'], delta, 'damperReboundClicks')).toBe(word);
+    // The bump clicks still go the way their own end says.
+    expect(clickDirection(double, ['lf', 'rf'], delta, 'damperClicks')).toBe(word === 'stiffer' ? 'softer' : 'stiffer');
+  });
+
+  it('when the front has a rebound adjuster from full soft and the rear only its one adjuster from full stiff, then rebound clicks on all four claim no direction and on the rear go by the one adjuster', () => {
+    const mixed = { front: { ...FROM_STIFF, rebound: FROM_SOFT }, rear: { ...FROM_STIFF, rebound: null } };
+    expect(clickDirection(mixed, ['lf', 'rf', 'lr', 'rr'], 1, 'damperReboundClicks')).toBeNull();
+    expect(clickDirection(mixed, ['lr', 'rr'], 1, 'damperReboundClicks')).toBe('softer');
+    expect(clickDirection(mixed, ['lf', 'rf', 'lr', 'rr'], 1, 'damperClicks')).toBe('softer');
   });
 });
 
@@ -38,6 +57,14 @@ describe('cornersWithAdjuster', () => {
   it('when the setup records rebound clicks on one axle, then rebound clicks are on that axle only', () => {
     const frontDouble = { ...clicksOnly, lf: { damperClicks: 4, damperReboundClicks: 9 }, rf: { damperClicks: 4, damperReboundClicks: null } };
     expect(cornersWithAdjuster(both, frontDouble, 'damperReboundClicks')).toEqual(['lf', 'rf']);
+  });
+
+  it('when the car describes a rebound adjuster on the rear dampers, then rebound clicks are on the rear even with none recorded yet', () => {
+    const rearDouble = { front: { ...FROM_STIFF, rebound: null }, rear: { ...FROM_SOFT, rebound: FROM_STIFF } };
+    expect(cornersWithAdjuster(rearDouble, clicksOnly, 'damperReboundClicks')).toEqual(['lr', 'rr']);
+    expect(cornersWithAdjuster(rearDouble, {}, 'damperReboundClicks')).toEqual(['lr', 'rr']);
+    // Where the setup records rebound clicks all the same, they stay offered.
+    expect(cornersWithAdjuster(rearDouble, { lf: { damperReboundClicks: 3 } }, 'damperReboundClicks')).toEqual(['lf', 'rf', 'lr', 'rr']);
   });
 
   it('when the rear dampers are fixed, then clicks are on the front only, unless the setup records rear clicks all the same', () => {

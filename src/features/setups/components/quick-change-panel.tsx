@@ -3,7 +3,7 @@ import { Minus, Plus, Trash2 } from 'lucide-react';
 import { fromDisplay, type Quantity, type UnitPreferences } from '@shared/calc/units.calc';
 import { axleOf, CORNERS, type Corner } from '@shared/season/corners';
 import type { Car } from '@shared/season/car.schema';
-import { clickDirection, cornersWithAdjuster, isClickField } from '@shared/season/damper-clicks';
+import { adjusterFor, clickDirection, cornersWithAdjuster, isClickField, type ClickField } from '@shared/season/damper-clicks';
 import { QUICK_CHANGE_FIELDS, quickChangeInputSchema, type QuickChangeInput } from '@shared/season/setup.schema';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
 import { Button } from '@/components/ui/button';
@@ -85,7 +85,7 @@ function clicksWay(adjusters: Car['damperAdjusters'], line: ChangeLine, before: 
     return from === null || to === null ? Number.NaN : Math.sign(to - from);
   });
   const [move = 0] = moves;
-  return moves.every((m) => m === move) ? clickDirection(adjusters, line.corners, move) : null;
+  return moves.every((m) => m === move) ? clickDirection(adjusters, line.corners, move, line.field) : null;
 }
 
 /**
@@ -123,8 +123,8 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
   const [formError, setFormError] = useState<string | null>(null);
   const base = setupInForce(setups, new Date().toISOString());
   // Clicks where the dampers have them (fixed dampers none, unless the setup in force records some all the same), and
-  // rebound clicks only where that setup records them, as the shop's suggestion form offers them: a car says how its
-  // clicks count, not whether its dampers are double-adjustable.
+  // rebound clicks where the car describes a rebound adjuster or that setup records them, as the shop's suggestion form
+  // offers them.
   const fieldOptions = FIELD_OPTIONS.filter((o) => !isClickField(o.value) || cornersWithAdjuster(adjusters, base?.corners ?? {}, o.value).length > 0);
 
   const update = (id: number, patch: Partial<ChangeLine>) => {
@@ -336,7 +336,7 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
               {/* Always there, so a screen reader hears the words change; out of the layout while it has none. */}
               <p className={way ? 'text-sm font-semibold' : 'sr-only'} aria-live="polite">
                 {way
-                  ? `${way === 'stiffer' ? 'Stiffer' : 'Softer'} (clicks count from ${adjusters[axleOf(line.corners[0]!)]?.countFrom === 'full_soft' ? 'full soft' : 'full stiff'})`
+                  ? `${way === 'stiffer' ? 'Stiffer' : 'Softer'} (${label.toLowerCase()} count from ${adjusterFor(adjusters, axleOf(line.corners[0]!), line.field as ClickField)?.countFrom === 'full_soft' ? 'full soft' : 'full stiff'})`
                   : ''}
               </p>
               {lineError ? (

@@ -1,5 +1,5 @@
 import type { Car } from '@shared/season/car.schema';
-import { clickDirection } from '@shared/season/damper-clicks';
+import { clickDirection, isClickField } from '@shared/season/damper-clicks';
 import type { SetupChange, SetupCornerField } from '@shared/season/setup.schema';
 import type { UnitPreferences } from '@shared/calc/units.calc';
 import { useUnits } from '@/lib/units-context';
@@ -45,8 +45,8 @@ export function SetupChangeList({ changes, emptyText = 'No values changed.', adj
                     ? camberChangeWords(g.delta, g.ends.flatMap((e) => [e.from, e.to].filter((v): v is number => v !== null)), units)
                     : formatFieldDelta(g.field, g.delta, units)}
               </span>
-              {(g.field === 'damperClicks' || g.field === 'damperReboundClicks') && adjusters ? (
-                <span className="font-semibold">{clickDirection(adjusters, g.corners, g.delta)}</span>
+              {isClickField(g.field) && adjusters ? (
+                <span className="font-semibold">{clickDirection(adjusters, g.corners, g.delta, g.field)}</span>
               ) : null}
               {g.sameEnds ? (
                 <span className="text-sm text-ink-muted">

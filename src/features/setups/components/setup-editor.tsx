@@ -2,7 +2,8 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { useForm, useWatch, type Path } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import type { Car } from '@shared/season/car.schema';
-import { CORNERS, type Corner } from '@shared/season/corners';
+import { AXLES, CORNERS, type Corner } from '@shared/season/corners';
+import { adjusterFor, isClickField } from '@shared/season/damper-clicks';
 import { createSetupInputSchema, SETUP_CORNER_FIELDS, type SetupCorner } from '@shared/season/setup.schema';
 import { diffSetups } from '@shared/season/setup-diff';
 import { CORNER_NAMES, CornerGrid } from '@/components/corner-grid/corner-grid';
@@ -20,7 +21,7 @@ import { useUnits } from '@/lib/units-context';
 import { useWatchedEntry } from '@/lib/use-outbox-entry';
 import { createSetupEntry, useCreateSetup, type CreateSetupBody } from '../api/create-setup';
 import { FIELD_INFO, formatFieldChange } from '@/lib/setup-fields';
-import { compactCorners, cornersToTexts, maxClicks, textsToSi, type SetupFormValues } from '../utils/setup-form';
+import { compactCorners, cornersToTexts, textsToSi, type SetupFormValues } from '../utils/setup-form';
 import { setupInForce, type SetupView } from '../utils/setup-views';
 import { SetupChangeList } from './setup-change-list';
 import { SAVE_BAR_CLASSES } from '@/components/layouts/save-bar';
@@ -200,7 +201,13 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
           const unit = info.quantity ? unitSymbol(info.quantity, units) : 'clicks';
           // "Clicks (clicks)" says the word twice: a count names its own unit.
           const heading = info.label.toLowerCase().endsWith(unit) ? null : unit;
-          const adjuster = name === 'damperClicks' || name === 'damperReboundClicks' ? car.damperAdjusters : null;
+          // Each axle's adjuster for these clicks (rebound clicks: the rebound adjuster, where the car describes one).
+          const adjusters = isClickField(name)
+            ? AXLES.flatMap((axle) => {
+                const a = adjusterFor(car.damperAdjusters, axle, name);
+                return a ? [{ axle, ...a }] : [];
+              })
+            : [];
           return (
             <section key={name} className="flex flex-col gap-1" aria-label={info.label}>
               <CornerGrid
@@ -238,14 +245,10 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
                 }}
               />
               {info.note ? <p className="text-xs text-ink-muted">{info.note}</p> : null}
-              {adjuster && (adjuster.front || adjuster.rear) ? (
+              {adjusters.length > 0 ? (
                 <p className="text-xs text-ink-muted">
-                  {(['front', 'rear'] as const)
-                    .filter((axle) => adjuster[axle])
-                    .map(
-                      (axle) =>
-                        `${axle === 'front' ? 'Front' : 'Rear'}: 0 to ${maxClicks(car, axle === 'front' ? 'lf' : 'lr')}, counted from full ${adjuster[axle]!.countFrom === 'full_stiff' ? 'stiff' : 'soft'}`,
-                    )
+                  {adjusters
+                    .map((a) => `${a.axle === 'front' ? 'Front' : 'Rear'}: 0 to ${a.positions}, counted from full ${a.countFrom === 'full_stiff' ? 'stiff' : 'soft'}`)
                     .join(' · ')}
                 </p>
               ) : null}

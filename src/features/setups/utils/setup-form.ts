@@ -1,6 +1,7 @@
 import { formatQuantity, toDisplay, type UnitPreferences } from '@shared/calc/units.calc';
 import type { Car } from '@shared/season/car.schema';
 import { axleOf, CORNERS, type Corner } from '@shared/season/corners';
+import { adjusterFor, type ClickField } from '@shared/season/damper-clicks';
 import { SETUP_CORNER_FIELDS, type SetupCorner, type SetupCornerField } from '@shared/season/setup.schema';
 import { inputToSi, parseDecimal, toInputText, typeANumber } from '@/lib/numbers';
 import { FIELD_INFO } from '@/lib/setup-fields';
@@ -46,9 +47,9 @@ export function cornersToTexts(corners: Partial<Record<Corner, SetupCorner>> | u
   ) as Record<Corner, CornerTexts>;
 }
 
-/** The most clicks an axle's adjuster allows, from the car's record (or the general limit). */
-export function maxClicks(car: Pick<Car, 'damperAdjusters'> | null, corner: Corner): number {
-  const adjuster = car?.damperAdjusters?.[axleOf(corner)];
+/** The most clicks the adjuster for this value allows at a corner, from the car's record (or the general limit). */
+export function maxClicks(car: Pick<Car, 'damperAdjusters'> | null, corner: Corner, field: ClickField): number {
+  const adjuster = car && adjusterFor(car.damperAdjusters, axleOf(corner), field);
   return adjuster?.positions ?? FIELD_INFO.damperClicks.limits.max;
 }
 
@@ -92,7 +93,8 @@ export function textsToSi(
         if (parsed.kind === 'empty') out[field] = null;
         else if (parsed.kind === 'invalid' || !Number.isInteger(parsed.value)) refuse('Clicks are whole numbers, e.g. 12');
         else {
-          const max = maxClicks(car, corner);
+          // The values counted without a unit are the clicks.
+          const max = maxClicks(car, corner, field as ClickField);
           if (parsed.value < 0 || parsed.value > max) refuse(`Use 0 to ${max} clicks`);
           else out[field] = parsed.value;
         }

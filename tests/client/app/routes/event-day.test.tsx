@@ -705,6 +705,27 @@ describe('event day', () => {
     expect(within(form).queryByText(/^(Stiffer|Softer) \(/)).toBeNull();
   });
 
+  it('when the front dampers have a rebound adjuster counted from the other end, then a quick change of rebound clicks says stiffer or softer by that adjuster\'s end', async () => {
+    // Bump clicks from full soft, rebound clicks from full stiff: more rebound clicks are softer (common practice; the
+    // damper maker's manual says which end each adjuster counts from).
+    const car = { ...CAR, damperAdjusters: { ...CAR.damperAdjusters, front: { positions: 24, countFrom: 'full_soft' as const, rebound: { positions: 20, countFrom: 'full_stiff' as const } } } };
+    const withRebound: Setup = { ...BASE_SETUP, corners: { ...BASE_SETUP.corners, lf: { ...BASE_SETUP.corners.lf, damperReboundClicks: 8 }, rf: { ...BASE_SETUP.corners.rf, damperReboundClicks: 8 } } };
+    stubWithRuns([], { setups: [withRebound], extra: { ...TODAY_EVENT(), 'GET /api/cars': list([car]) } });
+    renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+
+    await u.selectOptions(within(form).getByLabelText('What'), 'Rebound clicks');
+    await u.click(within(form).getByRole('button', { name: 'Front' }));
+    await u.click(within(form).getByRole('button', { name: 'More rebound clicks' }));
+    expect(within(form).getByText('Softer (rebound clicks count from full stiff)')).toBeTruthy();
+    await u.click(within(form).getByRole('button', { name: 'Less rebound clicks' }));
+    await u.click(within(form).getByRole('button', { name: 'Less rebound clicks' }));
+    expect(within(form).getByText('Stiffer (rebound clicks count from full stiff)')).toBeTruthy();
+  });
+
   it('when a quick change sets the rear to one click, then its label reads "1 click", not "1 clicks"', async () => {
     stubWithRuns([], { extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });

@@ -123,6 +123,32 @@ describe('setup editor', () => {
     expect(within(diff).getByText('Nothing changed yet.')).toBeTruthy();
   });
 
+  it('when the front dampers have a rebound adjuster of 30 clicks, then rebound clicks there are checked against its 30 and named under their grid', async () => {
+    const car = { ...CAR, damperAdjusters: { ...CAR.damperAdjusters, front: { positions: 24, countFrom: 'full_soft' as const, rebound: { positions: 30, countFrom: 'full_stiff' as const } } } };
+    const fetchMock = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+      [`GET /api/cars/${IDS.car}`]: jsonResponse(200, car),
+      [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
+      [SETUPS]: jsonResponse(201, BASE_SETUP),
+    });
+    renderApp(`/cars/${IDS.car}/setups/new`);
+    const u = userEvent.setup();
+
+    const rebound = await screen.findByRole('region', { name: 'Rebound clicks' });
+    expect(within(rebound).getByText('Front: 0 to 30, counted from full stiff · Rear: 0 to 24, counted from full soft')).toBeTruthy();
+    expect(within(screen.getByRole('region', { name: 'Clicks' })).getByText('Front: 0 to 24, counted from full soft · Rear: 0 to 24, counted from full soft')).toBeTruthy();
+
+    await u.type(screen.getByLabelText('Label'), 'More rebound');
+    // 28 is past the front's 24 bump clicks but within its rebound adjuster's 30; 31 is past it.
+    await u.type(screen.getByLabelText('Left front rebound clicks'), '28');
+    await u.type(screen.getByLabelText('Right front rebound clicks'), '31');
+    await u.click(screen.getByRole('button', { name: 'Save as new setup' }));
+
+    expect(await screen.findByText('Use 0 to 30 clicks')).toBeTruthy();
+    expect(screen.getByLabelText('Left front rebound clicks').getAttribute('aria-invalid')).toBeNull();
+    expect(requestsTo(fetchMock, SETUPS)).toHaveLength(0);
+  });
+
   it('when the label is missing and a value is out of range, then the focus goes to the label, the first marked box on the page', async () => {
     const fetchMock = stub(jsonResponse(201, BASE_SETUP));
     renderApp(`/cars/${IDS.car}/setups/new`);

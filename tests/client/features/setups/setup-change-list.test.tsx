@@ -1,6 +1,7 @@
 // @vitest-environment jsdom
 import { cleanup, render, screen } from '@testing-library/react';
 import { afterEach, describe, expect, it } from 'vitest';
+import type { Car } from '../../../../shared/season/car.schema';
 import type { SetupChange } from '../../../../shared/season/setup.schema';
 import { METRIC_PREFERENCES } from '../../../../shared/calc/units.calc';
 import { SetupChangeList } from '@/features/setups/components/setup-change-list';
@@ -16,10 +17,10 @@ const change = (corner: 'lf' | 'rf' | 'lr' | 'rr', field: string, from: number, 
   delta: Number((to - from).toFixed(6)),
 });
 
-function lines(changes: SetupChange[]) {
+function lines(changes: SetupChange[], adjusters?: Car['damperAdjusters']) {
   render(
     <UnitsProvider units={METRIC_PREFERENCES}>
-      <SetupChangeList changes={changes} />
+      <SetupChangeList changes={changes} adjusters={adjusters} />
     </UnitsProvider>,
   );
   return screen.getAllByRole('listitem').map((li) => li.textContent);
@@ -67,5 +68,14 @@ describe('the setup-change summary', () => {
     expect(text[0]).toBe('Front camber0.60° less negative(\u22122.40° → \u22121.80°)');
     expect(text[1]).toBe('LR camber0.50° more negative(\u22121.50° → \u22122.00°)');
     expect(text.join(' ')).not.toMatch(/[▲▼]/);
+  });
+
+  it('when the rear dampers\' bump clicks count from full soft and their rebound adjuster\'s from full stiff, then two more of each read stiffer and softer', () => {
+    // From full soft more clicks are stiffer, from full stiff softer (common practice; the damper maker's manual says which end).
+    const text = lines(
+      [change('lr', 'damperClicks', 6, 8), change('rr', 'damperClicks', 6, 8), change('lr', 'damperReboundClicks', 10, 12), change('rr', 'damperReboundClicks', 10, 12)],
+      { front: null, rear: { positions: 12, countFrom: 'full_soft', rebound: { positions: 20, countFrom: 'full_stiff' } } },
+    );
+    expect(text).toEqual(['Rear clicks▲ 2 clicksstiffer(6 clicks → 8 clicks)', 'Rear rebound clicks▲ 2 clickssofter(10 clicks → 12 clicks)']);
   });
 });

@@ -134,6 +134,34 @@ describe('suggesting a setup change', () => {
     expect(whatOptions(1)).toContain('Rebound clicks');
   });
 
+  it('when the car describes a rebound adjuster on the front dampers, then rebound clicks are offered there before any are recorded, and sent as typed', async () => {
+    const frontDouble: Car = {
+      ...CAR,
+      damperAdjusters: { ...CAR.damperAdjusters, front: { positions: 24, countFrom: 'full_soft', rebound: { positions: 20, countFrom: 'full_stiff' } } },
+    };
+    const fetchMock = stub(METRIC_PREFERENCES, { [POST]: ({ body }) => jsonResponse(201, suggestion({ id: (body as { id: string }).id })) }, frontDouble);
+    renderApp(PATH);
+    const u = userEvent.setup();
+    await fillWords(u);
+    const row = within(change(1));
+    const cornerButton = (name: string) => within(row.getByRole('group', { name })).getByRole('button') as HTMLButtonElement;
+
+    // BASE_SETUP records no rebound clicks: the car alone says the front dampers have them.
+    expect(whatOptions(1)).toContain('Rebound clicks');
+    await u.selectOptions(row.getByLabelText('What'), 'Rebound clicks');
+    expect(row.getByText('Only the front dampers have this adjuster on this car.')).toBeTruthy();
+    expect(cornerButton('Left rear').disabled).toBe(true);
+    await u.click(row.getByRole('button', { name: 'Front pair' }));
+    await u.click(row.getByRole('radio', { name: 'Set to' }));
+    await u.type(row.getByLabelText('Set rebound clicks to'), '14');
+    await u.click(screen.getByRole('button', { name: 'Send the suggestion' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(1));
+    expect((requestsTo(fetchMock, POST)[0]!.body as { changes: unknown[] }).changes).toEqual([
+      { field: 'damperReboundClicks', corners: ['lf', 'rf'], value: 14 },
+    ]);
+  });
+
   it('when only the front dampers adjust, then clicks can be chosen on the front corners only, and rear corners chosen before are let go of', async () => {
     const frontOnly: Car = { ...CAR, damperAdjusters: { front: CAR.damperAdjusters.front, rear: null } };
     const noRearClicks: Setup = {
