@@ -1,5 +1,5 @@
 import { useId, type ReactNode } from 'react';
-import { Controller, useForm, type Control, type UseFormSetError } from 'react-hook-form';
+import { Controller, useForm, useWatch, type Control, type FieldErrors, type UseFormRegister, type UseFormSetError } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { CreateCarInput } from '@shared/season/car.schema';
 import { AXLES, type Axle } from '@shared/season/corners';
@@ -14,13 +14,52 @@ import { carFormSchema, COUNT_FROM_WORDS, type CarFormValues, type DamperCountFr
 const AXLE_WORDS: Record<Axle, string> = { front: 'Front', rear: 'Rear' };
 const COUNT_FROM_OPTIONS = (Object.keys(COUNT_FROM_WORDS) as DamperCountFrom[]).map((value) => ({ value, label: COUNT_FROM_WORDS[value] }));
 
-function CountFrom({ control, axle }: { control: Control<CarFormValues, unknown, CreateCarInput>; axle: Axle }) {
+type FormControl = Control<CarFormValues, unknown, CreateCarInput>;
+
+function CountFrom({ control, name, label }: { control: FormControl; name: `damperAdjusters.${Axle}${'' | '.rebound'}.countFrom`; label: string }) {
   return (
     <Controller
       control={control}
-      name={`damperAdjusters.${axle}.countFrom`}
-      render={({ field }) => <SegmentedControl label="Click 0 is at" options={COUNT_FROM_OPTIONS} value={field.value} onChange={field.onChange} />}
+      name={name}
+      render={({ field }) => <SegmentedControl label={label} options={COUNT_FROM_OPTIONS} value={field.value} onChange={field.onChange} />}
     />
+  );
+}
+
+interface ReboundAdjusterProps {
+  control: FormControl;
+  register: UseFormRegister<CarFormValues>;
+  errors: FieldErrors<CarFormValues>;
+  axle: Axle;
+}
+
+/** Double-adjustable dampers: a rebound adjuster of their own, with its clicks and its end, asked for once ticked. */
+function ReboundAdjuster({ control, register, errors, axle }: ReboundAdjusterProps) {
+  const on = useWatch({ control, name: `damperAdjusters.${axle}.rebound.on` });
+  return (
+    <div className="flex flex-col gap-3">
+      <label className="flex min-h-tap items-center gap-3">
+        <input type="checkbox" className="size-5 shrink-0 accent-accent" {...register(`damperAdjusters.${axle}.rebound.on`)} />
+        <span>
+          <span className="font-semibold">Separate rebound adjuster</span>
+          <span className="block text-sm text-ink-muted">Double-adjustable dampers: the clicks above are then the bump adjuster’s.</span>
+        </span>
+      </label>
+      {on ? (
+        <>
+          <UnitInput
+            label="Number of rebound clicks"
+            unit="clicks"
+            inputMode="numeric"
+            className="max-w-60"
+            hint="Check the damper maker’s manual for the count."
+            error={errors.damperAdjusters?.[axle]?.rebound?.positions?.message}
+            {...register(`damperAdjusters.${axle}.rebound.positions`)}
+          />
+          <CountFrom control={control} name={`damperAdjusters.${axle}.rebound.countFrom`} label="Rebound click 0 is at" />
+        </>
+      ) : null}
+    </div>
   );
 }
 
@@ -40,7 +79,7 @@ interface CarDetailsFormProps {
 
 /**
  * A car's details: name, class, number, tyre size, the damper adjusters per axle (how many clicks, and which end
- * click 0 is) and the motion ratios. The new-car page and the car's own edit page both use it.
+ * click 0 is, and the same for a separate rebound adjuster) and the motion ratios. The new-car page and the car's own edit page both use it.
  */
 export function CarDetailsForm({ label, defaults, submitLabel, isPending, formError, onSave, footnote }: CarDetailsFormProps) {
   const notesId = useId();
@@ -86,7 +125,8 @@ export function CarDetailsForm({ label, defaults, submitLabel, isPending, formEr
               error={errors.damperAdjusters?.[axle]?.positions?.message}
               {...register(`damperAdjusters.${axle}.positions`)}
             />
-            <CountFrom control={control} axle={axle} />
+            <CountFrom control={control} name={`damperAdjusters.${axle}.countFrom`} label="Click 0 is at" />
+            <ReboundAdjuster control={control} register={register} errors={errors} axle={axle} />
           </fieldset>
         ))}
       </div>

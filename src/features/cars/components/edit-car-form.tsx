@@ -1,13 +1,17 @@
 import { useState } from 'react';
 import type { UseFormSetError } from 'react-hook-form';
 import type { Car, CreateCarInput } from '@shared/season/car.schema';
+import { AXLES } from '@shared/season/corners';
 import { isApiError } from '@/lib/api-client';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useUpdateCar } from '../api/update-car';
 import { carToForm, type CarFormValues } from '../utils/car-form';
 import { CarDetailsForm } from './car-details-form';
 
-const FIELDS = ['name', 'classCode', 'carNumber', 'tyreSize', 'notes'] as const;
+const FIELDS = [
+  'name', 'classCode', 'carNumber', 'tyreSize', 'notes',
+  ...AXLES.flatMap((a) => [`damperAdjusters.${a}.positions`, `damperAdjusters.${a}.rebound.positions`, `motionRatios.${a}`] as const),
+] as const;
 
 const STALE =
   'Someone changed this car since you opened it. The form now shows what is stored; make your change again and save.';

@@ -1,11 +1,17 @@
 import * as z from '@shared/zod';
 import { AXLES, type Axle } from '@shared/season/corners';
-import { createCarInputSchema, DAMPER_COUNT_FROM, type Car, type CreateCarInput, type DamperAdjusterInput } from '@shared/season/car.schema';
+import { createCarInputSchema, DAMPER_COUNT_FROM, type Car, type ClickAdjuster, type CreateCarInput, type DamperAdjusterInput } from '@shared/season/car.schema';
 import { LIMITS } from '@shared/season/limits';
 import { parseDecimal, typeANumber } from '@/lib/numbers';
 import { addIssue } from '@/lib/form-schema';
 
 export type DamperCountFrom = (typeof DAMPER_COUNT_FROM)[number];
+
+/** One adjuster as typed: its number of clicks, and which end click 0 is. */
+interface AdjusterTexts {
+  positions: string;
+  countFrom: DamperCountFrom;
+}
 
 /** What the new-car form holds, as typed. */
 export interface CarFormValues {
@@ -13,12 +19,15 @@ export interface CarFormValues {
   classCode: string;
   carNumber: string;
   tyreSize: string;
-  damperAdjusters: Record<Axle, { positions: string; countFrom: DamperCountFrom }>;
+  /** Each axle's adjuster, and its separate rebound adjuster when `rebound.on` (double-adjustable dampers). */
+  damperAdjusters: Record<Axle, AdjusterTexts & { rebound: AdjusterTexts & { on: boolean } }>;
   motionRatios: Record<Axle, string>;
   notes: string;
 }
 
 export const COUNT_FROM_WORDS: Record<DamperCountFrom, string> = { full_stiff: 'Full stiff', full_soft: 'Full soft' };
+
+const emptyAdjuster = () => ({ positions: '', countFrom: 'full_stiff' as const, rebound: { on: false, positions: '', countFrom: 'full_stiff' as const } });
 
 export function emptyCarForm(): CarFormValues {
   return {
@@ -27,7 +36,7 @@ export function emptyCarForm(): CarFormValues {
     carNumber: '',
     tyreSize: '',
     // Counting clicks out from full stiff (closed) is the usual way racing dampers are set; the driver picks.
-    damperAdjusters: { front: { positions: '', countFrom: 'full_stiff' }, rear: { positions: '', countFrom: 'full_stiff' } },
+    damperAdjusters: { front: emptyAdjuster(), rear: emptyAdjuster() },
     motionRatios: { front: '', rear: '' },
     notes: '',
   };
@@ -35,10 +44,12 @@ export function emptyCarForm(): CarFormValues {
 
 /** A saved car as the form shows it, to be edited: an axle with no adjuster has its clicks left empty. */
 export function carToForm(car: Car): CarFormValues {
-  const empty = emptyCarForm();
   const adjuster = (axle: Axle) => {
     const a = car.damperAdjusters[axle];
-    return a ? { positions: String(a.positions), countFrom: a.countFrom } : empty.damperAdjusters[axle];
+    const empty = emptyAdjuster();
+    if (!a) return empty;
+    const rebound = a.rebound ? { on: true, positions: String(a.rebound.positions), countFrom: a.rebound.countFrom } : empty.rebound;
+    return { positions: String(a.positions), countFrom: a.countFrom, rebound };
   };
   const ratio = (axle: Axle) => (car.motionRatios[axle] === null ? '' : String(car.motionRatios[axle]));
   return {
@@ -54,6 +65,8 @@ export function carToForm(car: Car): CarFormValues {
 
 const optionalText = (s: string) => (s.trim() ? s.trim() : null);
 const text = z.string();
+const countFrom = z.enum(DAMPER_COUNT_FROM);
+const adjusterTexts = z.object({ positions: text, countFrom, rebound: z.object({ on: z.boolean(), positions: text, countFrom }) });
 
 /**
  * The form's values → the body of POST /api/cars, checked with the shared schema. An axle whose
@@ -65,10 +78,7 @@ export const carFormSchema = z.pipe(
     classCode: text,
     carNumber: text,
     tyreSize: text,
-    damperAdjusters: z.object({
-      front: z.object({ positions: text, countFrom: z.enum(DAMPER_COUNT_FROM) }),
-      rear: z.object({ positions: text, countFrom: z.enum(DAMPER_COUNT_FROM) }),
-    }),
+    damperAdjusters: z.object({ front: adjusterTexts, rear: adjusterTexts }),
     motionRatios: z.object({ front: text, rear: text }),
     notes: text,
   }),
@@ -78,14 +88,27 @@ export const carFormSchema = z.pipe(
       local.add(path.join('.'));
       addIssue(ctx, path, message);
     };
-    const adjuster = (axle: Axle): DamperAdjusterInput | null => {
-      const typed = v.damperAdjusters[axle].positions.trim();
-      if (!typed) return null;
-      const path = ['damperAdjusters', axle, 'positions'];
+    /** An adjuster's clicks as typed, checked; null when left empty. */
+    const clicks = (typed: AdjusterTexts, path: string[]): ClickAdjuster | null => {
+      const positions = typed.positions.trim();
+      if (!positions) return null;
       const { min, max } = LIMITS.damperPositions;
-      if (!/^\d+$/.test(typed)) problem(path, 'Type a whole number of clicks, e.g. 24');
-      else if (Number(typed) < min || Number(typed) > max) problem(path, `Between ${min} and ${max} clicks`);
-      return { positions: Number(typed), countFrom: v.damperAdjusters[axle].countFrom };
+      if (!/^\d+$/.test(positions)) problem(path, 'Type a whole number of clicks, e.g. 24');
+      else if (Number(positions) < min || Number(positions) > max) problem(path, `Between ${min} and ${max} clicks`);
+      return { positions: Number(positions), countFrom: typed.countFrom };
+    };
+    const adjuster = (axle: Axle): DamperAdjusterInput | null => {
+      const typed = v.damperAdjusters[axle];
+      const main = clicks(typed, ['damperAdjusters', axle, 'positions']);
+      const reboundPath = ['damperAdjusters', axle, 'rebound', 'positions'];
+      const rebound = typed.rebound.on ? clicks(typed.rebound, reboundPath) : null;
+      if (typed.rebound.on && !rebound) problem(reboundPath, 'Give the number of rebound clicks, or untick the rebound adjuster');
+      if (!main) {
+        if (rebound) problem(['damperAdjusters', axle, 'positions'], 'Give these clicks too, or untick the rebound adjuster');
+        return null;
+      }
+      // Null clears a rebound adjuster stored before.
+      return { ...main, rebound };
     };
     const motionRatio = (axle: Axle): number | null => {
       const parsed = parseDecimal(v.motionRatios[axle]);

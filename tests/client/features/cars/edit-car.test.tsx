@@ -65,11 +65,90 @@ describe('editing a car', () => {
       classCode: 'SM',
       carNumber: '47',
       tyreSize: '205/50R15',
-      damperAdjusters: { front: { positions: 24, countFrom: 'full_soft' }, rear: { positions: 16, countFrom: 'full_stiff' } },
+      damperAdjusters: { front: { positions: 24, countFrom: 'full_soft', rebound: null }, rear: { positions: 16, countFrom: 'full_stiff', rebound: null } },
       motionRatios: { front: null, rear: null },
       notes: null,
       version: 1,
     });
+  });
+
+  it('when the front dampers have a rebound adjuster, then the form shows it; unticking it clears it and the rear gains one, sent with the version', async () => {
+    const double: Car = {
+      ...CAR,
+      damperAdjusters: { ...CAR.damperAdjusters, front: { positions: 24, countFrom: 'full_soft', rebound: { positions: 20, countFrom: 'full_stiff' } } },
+    };
+    const fetch = stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${CAR_PATH}`]: jsonResponse(200, double),
+      [`PATCH ${CAR_PATH}`]: jsonResponse(200, { ...double, version: 2 }),
+    });
+    renderApp(EDIT);
+    const u = userEvent.setup();
+    const front = await screen.findByRole('group', { name: 'Front dampers' });
+    const rear = screen.getByRole('group', { name: 'Rear dampers' });
+
+    expect((within(front).getByRole('checkbox', { name: /Separate rebound adjuster/ }) as HTMLInputElement).checked).toBe(true);
+    expect((within(front).getByLabelText('Number of rebound clicks') as HTMLInputElement).value).toBe('20');
+    const frontReboundEnd = within(front).getByRole('group', { name: 'Rebound click 0 is at' });
+    expect((within(frontReboundEnd).getByRole('radio', { name: /Full stiff/ }) as HTMLInputElement).checked).toBe(true);
+    // The damper maker's manual is named where the rebound clicks are asked for.
+    expect(within(front).getByText('Check the damper maker’s manual for the count.')).toBeTruthy();
+    // The rear has none: its rebound clicks are not asked for until ticked.
+    expect((within(rear).getByRole('checkbox', { name: /Separate rebound adjuster/ }) as HTMLInputElement).checked).toBe(false);
+    expect(within(rear).queryByLabelText('Number of rebound clicks')).toBeNull();
+
+    await u.click(within(front).getByRole('checkbox', { name: /Separate rebound adjuster/ }));
+    expect(within(front).queryByLabelText('Number of rebound clicks')).toBeNull();
+    await u.click(within(rear).getByRole('checkbox', { name: /Separate rebound adjuster/ }));
+    await u.type(within(rear).getByLabelText('Number of rebound clicks'), '10');
+    await u.click(within(within(rear).getByRole('group', { name: 'Rebound click 0 is at' })).getByRole('radio', { name: /Full soft/ }));
+    await u.click(screen.getByRole('button', { name: 'Save changes' }));
+
+    await waitFor(() => expect(requestsTo(fetch, `PATCH ${CAR_PATH}`)).toHaveLength(1));
+    expect((requestsTo(fetch, `PATCH ${CAR_PATH}`)[0]!.body as { damperAdjusters: unknown }).damperAdjusters).toEqual({
+      front: { positions: 24, countFrom: 'full_soft', rebound: null },
+      rear: { positions: 24, countFrom: 'full_soft', rebound: { positions: 10, countFrom: 'full_soft' } },
+    });
+  });
+
+  it('when a ticked rebound adjuster has no clicks, 0 clicks, or stands without the other adjuster\'s clicks, then each box says so and nothing is sent', async () => {
+    const fetch = stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), [`GET ${CAR_PATH}`]: jsonResponse(200, CAR) });
+    renderApp(EDIT);
+    const u = userEvent.setup();
+    const front = await screen.findByRole('group', { name: 'Front dampers' });
+    const rear = screen.getByRole('group', { name: 'Rear dampers' });
+    await u.click(within(front).getByRole('checkbox', { name: /Separate rebound adjuster/ }));
+    await u.click(within(rear).getByRole('checkbox', { name: /Separate rebound adjuster/ }));
+    await u.type(within(rear).getByLabelText('Number of rebound clicks'), '0');
+    await u.click(screen.getByRole('button', { name: 'Save changes' }));
+
+    expect(await within(front).findByText('Give the number of rebound clicks, or untick the rebound adjuster')).toBeTruthy();
+    expect(within(front).getByLabelText('Number of rebound clicks').getAttribute('aria-invalid')).toBe('true');
+    expect(within(rear).getByText('Between 1 and 100 clicks')).toBeTruthy();
+
+    await u.type(within(front).getByLabelText('Number of rebound clicks'), '20');
+    await u.clear(within(front).getByLabelText('Number of clicks'));
+    await u.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(await within(front).findByText('Give these clicks too, or untick the rebound adjuster')).toBeTruthy();
+    expect(requestsTo(fetch, `PATCH ${CAR_PATH}`)).toHaveLength(0);
+  });
+
+  it('when the server refuses a rebound adjuster\'s clicks, then the message stands under that box', async () => {
+    stubFetch({
+      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      [`GET ${CAR_PATH}`]: jsonResponse(200, CAR),
+      [`PATCH ${CAR_PATH}`]: errorResponse(400, 'validation_failed', 'Check the marked fields.', { 'damperAdjusters.rear.rebound.positions': ['At most 100'] }),
+    });
+    renderApp(EDIT);
+    const u = userEvent.setup();
+    const rear = await screen.findByRole('group', { name: 'Rear dampers' });
+    await u.click(within(rear).getByRole('checkbox', { name: /Separate rebound adjuster/ }));
+    await u.type(within(rear).getByLabelText('Number of rebound clicks'), '16');
+    await u.click(screen.getByRole('button', { name: 'Save changes' }));
+
+    const box = within(rear).getByLabelText('Number of rebound clicks');
+    await waitFor(() => expect(box.getAttribute('aria-invalid')).toBe('true'));
+    expect(within(rear).getByText('At most 100')).toBeTruthy();
   });
 
   it('when a click count is not a whole number, then the box says so and nothing is sent', async () => {
