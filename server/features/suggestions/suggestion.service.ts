@@ -5,10 +5,14 @@ import type {
   AcceptSuggestionInput, CreateSuggestionInput, DeclineSuggestionInput, Suggestion, SuggestionChange, SuggestionPreviewCell,
   SuggestionSetupRef, SuggestionStatus, WaitingSuggestion,
 } from '@shared/collab/suggestion.schema';
+import type { FieldErrors } from '@shared/api/api-error.schema';
+import { CORNERS, type Corner } from '@shared/season/corners';
+import { cornersWithAdjuster, isClickField } from '@shared/season/damper-clicks';
 import type { Setup } from '@shared/season/setup.schema';
 import { AppError } from '../../lib/app-error';
 import { insertUnlessPresent } from '../../lib/insert';
 import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, grantedShopOf } from '../../auth/access';
+import { damperAdjustersOf, loadCarEntity } from '../cars/car.service';
 import type { MailSettings } from '../../mail/mailer';
 import {
   activeSetupAt, applyCornerChanges, checkChangedClicks, insertSnapshot, loadSetup, setupsOfCar,
@@ -120,12 +124,36 @@ async function loadSuggestion(db: Db, id: string): Promise<Suggestion> {
   return toSuggestion(row, await suggestionSetups(db, row.car_id));
 }
 
+/** "LR" and "RR" as "LR and RR". */
+const cornerList = (corners: Corner[]) => corners.map((c) => c.toUpperCase()).join(' and ');
+
+/**
+ * Changes of clicks at corners whose dampers lack that adjuster, keyed `changes.<i>.corners`: by the same rule as the
+ * shop's form offers them (the car's adjusters, or clicks the base already records).
+ */
+async function cornersWithoutAdjuster(db: Db, carId: string, base: Setup, changes: SuggestionChange[]): Promise<FieldErrors> {
+  const adjusters = damperAdjustersOf(await loadCarEntity(db, carId));
+  const errors: FieldErrors = {};
+  changes.forEach((change, i) => {
+    if (!isClickField(change.field)) return;
+    const offered = cornersWithAdjuster(adjusters, base.corners, change.field);
+    const missing = CORNERS.filter((c) => change.corners.includes(c) && !offered.includes(c));
+    if (missing.length === 0) return;
+    const what = change.field === 'damperReboundClicks' ? 'rebound adjuster' : 'damper adjuster';
+    errors[`changes.${i}.corners`] = [`${cornerList(missing)} ${missing.length === 1 ? 'has' : 'have'} no ${what} on this car`];
+  });
+  return errors;
+}
+
 /**
  * The start's corners with the changes applied, or a 400 listing every change that
- * leaves a value out of range, past the car's adjusters, or has nothing to start from.
+ * leaves a value out of range, past the car's adjusters, or has nothing to start from
+ * (with any errors already `found`).
  */
-async function changedCorners(db: Db, carId: string, start: Setup, changes: SuggestionChange[], message: string) {
-  const { corners, errors } = applyCornerChanges(start.corners, changes);
+async function changedCorners(db: Db, carId: string, start: Setup, changes: SuggestionChange[], message: string, found: FieldErrors = {}) {
+  const { corners, errors: applied } = applyCornerChanges(start.corners, changes);
+  const errors: FieldErrors = { ...found };
+  for (const [key, messages] of Object.entries(applied)) (errors[key] ??= []).push(...messages);
   try {
     await checkChangedClicks(db, carId, corners, changes);
   } catch (err) {
@@ -194,7 +222,8 @@ export async function createSuggestion(
     throw new AppError('validation_failed', 'Some fields need attention.', { baseSetupId: ['Pick a setup of this car'] });
   }
   const base = await loadSetup(ds, input.baseSetupId);
-  await changedCorners(ds, carId, base, input.changes, 'Some fields need attention.');
+  const found = await cornersWithoutAdjuster(ds, carId, base, input.changes);
+  await changedCorners(ds, carId, base, input.changes, 'Some fields need attention.', found);
 
   const { id, created, outbox } = await ds.transaction(async (m) => {
     const { inserted, id: newId } = await insertUnlessPresent(m, SetupSuggestionEntity, {

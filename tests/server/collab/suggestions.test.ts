@@ -120,6 +120,55 @@ describe('POST /api/cars/:carId/suggestions', () => {
     expect(await suggestionsOf(driver.carId)).toBe(0);
   });
 
+  it('when a change of clicks or rebound clicks names corners whose dampers lack that adjuster, then 400 at that change\'s corners and nothing is written', async () => {
+    const { driver, staff } = await grantedCar(t);
+    // Fixed rear dampers, and a base that records no rear clicks and no rebound clicks anywhere.
+    expect((await driver.c.patch(`/api/cars/${driver.carId}`, { version: 1, damperAdjusters: { rear: null } })).status).toBe(200);
+    const setup = await postSetup(driver.c, driver.carId, {
+      corners: { lf: { camberDeg: -1.5, damperClicks: 4 }, rf: { camberDeg: -1.5, damperClicks: 4 }, lr: { camberDeg: -1 }, rr: { camberDeg: -1 } },
+    });
+    const res = await staff.c.post(`/api/cars/${driver.carId}/suggestions`, {
+      ...SUGGESTION,
+      baseSetupId: setup.id,
+      changes: [
+        { field: 'camberDeg', corners: ['lf', 'rf'], delta: -0.5 },
+        { field: 'damperClicks', corners: ['lf', 'lr', 'rr'], value: 5 },
+        { field: 'damperReboundClicks', corners: ['rf'], value: 3 },
+      ],
+    });
+    const errors = expectFieldErrors(res, ['changes.1.corners', 'changes.2.corners']);
+    expect(errors['changes.1.corners']).toEqual(['LR and RR have no damper adjuster on this car']);
+    expect(errors['changes.2.corners']).toEqual(['RF has no rebound adjuster on this car']);
+    expect(await suggestionsOf(driver.carId)).toBe(0);
+    expect(await countOf(t, 'SELECT count(*) AS n FROM notifications WHERE car_id = $1 AND kind = $2', [driver.carId, 'suggestion'])).toBe(0);
+  });
+
+  it('when the car describes a rebound adjuster on the front, then rebound clicks are accepted there, within its own clicks, and still refused on the rear', async () => {
+    const { driver, staff } = await grantedCar(t);
+    // 12 clicks counted from full soft, and a rebound adjuster of 20 from full stiff; the base records no rebound clicks.
+    const front = { positions: 12, countFrom: 'full_soft', rebound: { positions: 20, countFrom: 'full_stiff' } };
+    expect((await driver.c.patch(`/api/cars/${driver.carId}`, { version: 1, damperAdjusters: { front } })).status).toBe(200);
+    const setup = await postSetup(driver.c, driver.carId);
+    const url = `/api/cars/${driver.carId}/suggestions`;
+
+    const rear = await staff.c.post(url, { ...SUGGESTION, baseSetupId: setup.id, changes: [{ field: 'damperReboundClicks', corners: ['lr', 'rr'], value: 8 }] });
+    expect(expectFieldErrors(rear, ['changes.0.corners'])['changes.0.corners']).toEqual(['LR and RR have no rebound adjuster on this car']);
+    // 21 is past the rebound adjuster's 20.
+    expectFieldErrors(await staff.c.post(url, { ...SUGGESTION, baseSetupId: setup.id, changes: [{ field: 'damperReboundClicks', corners: ['lf'], value: 21 }] }), [
+      'changes.0.value',
+    ]);
+    expect(await suggestionsOf(driver.carId)).toBe(0);
+
+    // 16 is past the front's 12 clicks but within its rebound adjuster's 20.
+    const res = await staff.c.post(url, { ...SUGGESTION, baseSetupId: setup.id, changes: [{ field: 'damperReboundClicks', corners: ['lf', 'rf'], value: 16 }] });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body.preview).toEqual([
+      { field: 'damperReboundClicks', corner: 'lf', from: null, to: 16 },
+      { field: 'damperReboundClicks', corner: 'rf', from: null, to: 16 },
+    ]);
+    expect(await suggestionsOf(driver.carId)).toBe(1);
+  });
+
   it('when a change gives both a delta and a value, names an unknown field, or has no corners, then 400 at that change', async () => {
     const { driver, staff } = await grantedCar(t);
     const setup = await postSetup(driver.c, driver.carId);
