@@ -126,7 +126,7 @@ describe('setup editor', () => {
   it('when the front dampers have a rebound adjuster of 30 clicks, then rebound clicks there are checked against its 30 and named under their grid', async () => {
     const car = { ...CAR, damperAdjusters: { ...CAR.damperAdjusters, front: { positions: 24, countFrom: 'full_soft' as const, rebound: { positions: 30, countFrom: 'full_stiff' as const } } } };
     const fetchMock = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
+      'GET /api/auth/session': jsonResponse(200, { user: user(IMPERIAL_PREFERENCES) }),
       [`GET /api/cars/${IDS.car}`]: jsonResponse(200, car),
       [`GET /api/cars/${IDS.car}/setups`]: list([BASE_SETUP]),
       [SETUPS]: jsonResponse(201, BASE_SETUP),

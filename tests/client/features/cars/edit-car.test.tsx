@@ -78,7 +78,7 @@ describe('editing a car', () => {
       damperAdjusters: { ...CAR.damperAdjusters, front: { positions: 24, countFrom: 'full_soft', rebound: { positions: 20, countFrom: 'full_stiff' } } },
     };
     const fetch = stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${CAR_PATH}`]: jsonResponse(200, double),
       [`PATCH ${CAR_PATH}`]: jsonResponse(200, { ...double, version: 2 }),
     });
@@ -112,7 +112,7 @@ describe('editing a car', () => {
   });
 
   it('when a ticked rebound adjuster has no clicks, 0 clicks, or stands without the other adjuster\'s clicks, then each box says so and nothing is sent', async () => {
-    const fetch = stubFetch({ 'GET /api/auth/me': jsonResponse(200, { user: user() }), [`GET ${CAR_PATH}`]: jsonResponse(200, CAR) });
+    const fetch = stubFetch({ 'GET /api/auth/session': jsonResponse(200, { user: user() }), [`GET ${CAR_PATH}`]: jsonResponse(200, CAR) });
     renderApp(EDIT);
     const u = userEvent.setup();
     const front = await screen.findByRole('group', { name: 'Front dampers' });
@@ -135,7 +135,7 @@ describe('editing a car', () => {
 
   it('when the server refuses a rebound adjuster\'s clicks, then the message stands under that box', async () => {
     stubFetch({
-      'GET /api/auth/me': jsonResponse(200, { user: user() }),
+      'GET /api/auth/session': jsonResponse(200, { user: user() }),
       [`GET ${CAR_PATH}`]: jsonResponse(200, CAR),
       [`PATCH ${CAR_PATH}`]: errorResponse(400, 'validation_failed', 'Check the marked fields.', { 'damperAdjusters.rear.rebound.positions': ['At most 100'] }),
     });
