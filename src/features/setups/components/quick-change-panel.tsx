@@ -97,8 +97,16 @@ function firstChange(dampers: AdjustableDampers): Pick<ChangeLine, 'field' | 'co
   return adjustable.length > 0 ? { field: 'damperClicks', corners: adjustable } : { field: 'coldPressureKpa', corners: [...CORNERS] };
 }
 
+/** "Change by" where a chosen corner records the value to change from; "Set to" where none does (nothing to add to). */
+function modeFor(base: Pick<SetupView, 'corners'> | null, field: QuickField, corners: readonly Corner[]): ChangeLine['mode'] {
+  return corners.some((c) => typeof base?.corners[c]?.[field] === 'number') ? 'delta' : 'value';
+}
+
 let nextLineId = 1;
-const newLine = (dampers: AdjustableDampers): ChangeLine => ({ id: nextLineId++, ...firstChange(dampers), mode: 'delta', amount: '' });
+const newLine = (dampers: AdjustableDampers, base: SetupView | null): ChangeLine => {
+  const first = firstChange(dampers);
+  return { id: nextLineId++, ...first, mode: modeFor(base, first.field, first.corners), amount: '' };
+};
 
 interface QuickChangePanelProps {
   carId: string;
@@ -117,11 +125,11 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
   const units = useUnits();
   const dampers: AdjustableDampers = { front: adjusters.front !== null, rear: adjusters.rear !== null };
   const write = useQuickChange();
-  const [lines, setLines] = useState<ChangeLine[]>(() => [newLine(dampers)]);
+  const base = setupInForce(setups, new Date().toISOString());
+  const [lines, setLines] = useState<ChangeLine[]>(() => [newLine(dampers, base)]);
   const [notes, setNotes] = useState('');
   const [errors, setErrors] = useState<Record<number, string>>({});
   const [formError, setFormError] = useState<string | null>(null);
-  const base = setupInForce(setups, new Date().toISOString());
   // Clicks where the dampers have them (fixed dampers none, unless the setup in force records some all the same), and
   // rebound clicks where the car describes a rebound adjuster or that setup records them, as the shop's suggestion form
   // offers them.
@@ -184,7 +192,7 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
     }
     await write.mutateAsync(quickChangeEntry(carId, body));
     toast({ tone: 'success', title: 'Quick change saved', description: body.label });
-    setLines([newLine(dampers)]);
+    setLines([newLine(dampers, base)]);
     setNotes('');
     onDone();
   };
@@ -219,7 +227,10 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
                 label="What"
                 value={line.field}
                 options={fieldOptions}
-                onChange={(e) => update(line.id, { field: e.target.value as QuickField, amount: '' })}
+                onChange={(e) => {
+                  const field = e.target.value as QuickField;
+                  update(line.id, { field, mode: modeFor(base, field, line.corners), amount: '' });
+                }}
               />
               {lines.length > 1 ? (
                 <Button variant="quiet" aria-label={`Remove change ${index + 1}`} onClick={() => setLines((ls) => ls.filter((l) => l.id !== line.id))}>
@@ -349,7 +360,7 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
         );
       })}
       <div>
-        <Button variant="quiet" onClick={() => setLines((ls) => [...ls, newLine(dampers)])}>
+        <Button variant="quiet" onClick={() => setLines((ls) => [...ls, newLine(dampers, base)])}>
           <Plus aria-hidden="true" className="size-5" /> Another change
         </Button>
       </div>

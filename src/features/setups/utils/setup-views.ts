@@ -59,12 +59,16 @@ export function applyQuickChange(base: Pick<Setup, 'corners'> | null, changes: Q
   >;
   const problems: string[] = [];
   for (const change of changes) {
+    const missing: string[] = [];
     for (const corner of change.corners) {
       const current = corners[corner][change.field];
       if (change.value !== undefined) corners[corner][change.field] = change.value;
-      else if (current === null || current === undefined) {
-        problems.push(`No ${FIELD_WORDS[change.field]} is recorded on the ${CORNER_NAMES[corner].toLowerCase()} to change; set a value instead`);
-      } else corners[corner][change.field] = Math.round((current + (change.delta ?? 0)) * 1e6) / 1e6;
+      else if (current === null || current === undefined) missing.push(CORNER_NAMES[corner].toLowerCase());
+      else corners[corner][change.field] = Math.round((current + (change.delta ?? 0)) * 1e6) / 1e6;
+    }
+    // One sentence for the change, naming every corner with nothing to change from.
+    if (missing.length) {
+      problems.push(`No ${FIELD_WORDS[change.field]} recorded at the ${new Intl.ListFormat('en').format(missing)} to change by; use “Set to”`);
     }
   }
   return { corners, problems };

@@ -726,6 +726,32 @@ describe('event day', () => {
     expect(within(form).getByText('Stiffer (rebound clicks count from full stiff)')).toBeTruthy();
   });
 
+  it('when rebound clicks are picked where the setup records none, then the change starts on "Set to"; a change by an amount says once which corners have nothing to change from', async () => {
+    const car = { ...CAR, damperAdjusters: { ...CAR.damperAdjusters, front: { positions: 24, countFrom: 'full_soft' as const, rebound: { positions: 20, countFrom: 'full_stiff' as const } } } };
+    stubWithRuns([], { extra: { ...TODAY_EVENT(), 'GET /api/cars': list([car]) } });
+    renderApp(PATH, { outboxEntries: [blockingEntry()] });
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+    const pressed = () => within(within(form).getByRole('group', { name: 'Change by or set to' })).getAllByRole('button', { pressed: true }).map((b) => b.textContent);
+
+    // Clicks are recorded: a change by an amount. Rebound clicks are not: set a value.
+    expect(pressed()).toEqual(['Change by']);
+    await u.selectOptions(within(form).getByLabelText('What'), 'Rebound clicks');
+    expect(pressed()).toEqual(['Set to']);
+    await u.selectOptions(within(form).getByLabelText('What'), 'Clicks');
+    expect(pressed()).toEqual(['Change by']);
+
+    await u.selectOptions(within(form).getByLabelText('What'), 'Rebound clicks');
+    await u.click(within(form).getByRole('button', { name: 'Front' }));
+    await u.click(within(form).getByRole('button', { name: 'Change by' }));
+    await u.click(within(form).getByRole('button', { name: 'More rebound clicks' }));
+    expect(within(form).getAllByText(/recorded at the/).map((e) => e.textContent)).toEqual([
+      'No rebound clicks recorded at the left front and right front to change by; use “Set to”',
+    ]);
+  });
+
   it('when a quick change sets the rear to one click, then its label reads "1 click", not "1 clicks"', async () => {
     stubWithRuns([], { extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
