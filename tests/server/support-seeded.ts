@@ -5,9 +5,14 @@ import { createDataSource } from '../../server/db/data-source';
 import { seedDemoIfEmpty } from '../../server/db/seed';
 
 /** A fresh database on the test cluster holding the demo season; drop() removes it. */
-export async function seededDatabaseUrl() {
+export function seededDatabaseUrl() {
+  return migratedDatabaseUrl({ seed: true });
+}
+
+/** A fresh, migrated database on the test cluster, empty unless `seed` asks for the demo season; drop() removes it. */
+export async function migratedDatabaseUrl({ seed = false }: { seed?: boolean } = {}) {
   const base = new URL(inject('databaseUrl'));
-  const name = `seed_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
+  const name = `${seed ? 'seed' : 'empty'}_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
   const admin = new pg.Client({ connectionString: base.toString() });
   await admin.connect();
   await admin.query(`CREATE DATABASE ${name}`);
@@ -17,7 +22,7 @@ export async function seededDatabaseUrl() {
   const ds = createDataSource(url.toString(), { poolSize: 2 });
   await ds.initialize();
   await ds.runMigrations({ transaction: 'each' });
-  await seedDemoIfEmpty(ds);
+  if (seed) await seedDemoIfEmpty(ds);
   await ds.destroy();
   return {
     url: url.toString(),

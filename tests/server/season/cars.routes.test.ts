@@ -1,9 +1,8 @@
 import { randomUUID } from 'node:crypto';
-import pg from 'pg';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { createDataSource } from '../../../server/db/data-source';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DoubleAdjustableDampers1766016000000 } from '../../../server/db/migrations/1766016000000-double-adjustable-dampers';
 import { makeTestApp, signedInClient, type TestApp } from '../test-app';
+import { migratedDatabaseUrl } from '../support-seeded';
 import {
   addCoDriver, anonymous, countOf, driverWithCarAndEvent, expectError, expectFieldErrors, postRun, postSetup,
 } from './season-fixtures';
@@ -135,34 +134,10 @@ describe('double-adjustable dampers', () => {
   });
 });
 
-/** A database of its own on the test cluster, migrated: the migration test takes columns away and back. */
-async function ownDatabase() {
-  const base = new URL(inject('databaseUrl'));
-  const name = `cars_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
-  const admin = new pg.Client({ connectionString: base.toString() });
-  await admin.connect();
-  await admin.query(`CREATE DATABASE ${name}`);
-  await admin.end();
-  const url = new URL(base.toString());
-  url.pathname = `/${name}`;
-  const ds = createDataSource(url.toString(), { poolSize: 1 });
-  await ds.initialize();
-  await ds.runMigrations({ transaction: 'each' });
-  await ds.destroy();
-  return {
-    url: url.toString(),
-    async drop() {
-      const c = new pg.Client({ connectionString: base.toString() });
-      await c.connect();
-      await c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
-      await c.end();
-    },
-  };
-}
-
 describe('the migration that lets dampers be double-adjustable', () => {
   it('when cars were stored before it, then they read back with no rebound adjuster, take one afterwards, and the columns come off and on again', async () => {
-    const db = await ownDatabase();
+    // A database of its own: the test takes the migration's columns away and back.
+    const db = await migratedDatabaseUrl();
     const own = await makeTestApp({ databaseUrl: db.url });
     try {
       const { c, user } = await signedInClient(own);
