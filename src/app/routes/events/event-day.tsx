@@ -1,4 +1,4 @@
-import { lazy, Suspense, useDeferredValue, useState } from 'react';
+import { lazy, startTransition, Suspense, useEffect, useState } from 'react';
 import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { useQuery, type QueryClient } from '@tanstack/react-query';
 import type { DeviceState } from '@/app/router';
@@ -114,14 +114,20 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarV
     return saved ? <CommentsButton target={{ type: 'run', id: row.id }} what={`run ${row.runNumber}`} count={saved.commentCount} /> : null;
   };
 
-  // The run list is most of the page's elements. On the day it is drawn just after the rest (a deferred render
-  // that React may interrupt), so the setup line and the keypad are on screen and answer a tap sooner. After
-  // the day the list comes first, above the keypad, and is drawn at once so the keypad does not jump down.
-  const listDrawn = useDeferredValue(true, moment.dayOver);
+  // The board is drawn in steps, each a render React may interrupt, so that what is above it is on screen
+  // first: the event's name (the page's largest text) is not held back while a slow phone lays out the keypad.
+  // Step 1 draws the setup line and the keypad. The run list is most of the page's elements: on the day it
+  // follows in step 2, so the keypad answers a tap sooner; after the day the list comes first, above the
+  // keypad, and is drawn in step 1 so the keypad does not jump down.
+  const [step, setStep] = useState(0);
+  const listDrawn = step > 1 || moment.dayOver;
+  useEffect(() => {
+    if (!listDrawn || !step) startTransition(() => setStep(step + 1));
+  }, [step, listDrawn]);
 
   // How tall the setup line is depends on the setup's name: the board waits while the car's setups are on
   // their way, so the keypad never moves under a thumb when they land. With no signal they are not coming.
-  if (setupsQuery.isPending && setupsQuery.fetchStatus === 'fetching' && setups.length === 0) return <p className="text-ink-muted">Loading…</p>;
+  if (!step || (setupsQuery.isPending && setupsQuery.fetchStatus === 'fetching' && setups.length === 0)) return <p className="text-ink-muted">Loading…</p>;
 
   const own = rows.filter((r) => r.driver.id === driver.id);
   const best = own.find((r) => r.isBest);

@@ -61,27 +61,37 @@ const TODAY_EVENT = () => ({ [`GET /api/events/${IDS.event}`]: jsonResponse(200,
 
 const runItem = (n: number) => screen.getByRole('listitem', { name: new RegExp(`^Run ${n},`) });
 
+interface Drawing {
+  /** The header names the event. */
+  named: boolean;
+  /** The keypad's form is on screen. */
+  form: boolean;
+  /** The run list is on screen. */
+  list: boolean;
+}
+
 /**
- * Renders the page and records, for each insertion into the document (judged when it is reported), whether it
- * brought the keypad's form and the run list; until run 2 is on screen.
+ * Renders the page and records what the document shows after each drawing (each batch of changes the
+ * MutationObserver reports, one per commit), until run 2 is on screen.
  */
-async function drawingOrder(): Promise<{ form: boolean; list: boolean }[]> {
-  const FORM = 'form[aria-label="Log a run"]';
-  const LIST = 'ol[aria-label$="newest first"]';
-  const brought = (nodes: Node[], selector: string) => nodes.some((n) => n instanceof Element && (n.matches(selector) || n.querySelector(selector) !== null));
-  const insertions: { form: boolean; list: boolean }[] = [];
-  const observer = new MutationObserver((records) => {
-    for (const r of records) {
-      const nodes = [...r.addedNodes];
-      if (nodes.length) insertions.push({ form: brought(nodes, FORM), list: brought(nodes, LIST) });
-    }
-  });
-  observer.observe(document.body, { childList: true, subtree: true });
+async function drawingOrder(): Promise<Drawing[]> {
+  const drawings: Drawing[] = [];
+  const observer = new MutationObserver(() =>
+    drawings.push({
+      named: document.querySelector('h1')?.textContent === EVENT.name,
+      form: document.querySelector('form[aria-label="Log a run"]') !== null,
+      list: document.querySelector('ol[aria-label$="newest first"]') !== null,
+    }),
+  );
+  observer.observe(document.body, { childList: true, subtree: true, characterData: true });
   renderApp(PATH);
   await screen.findByRole('listitem', { name: /^Run 2,/ });
   observer.disconnect();
-  return insertions;
+  return drawings;
 }
+
+/** The first drawing that shows it. */
+const firstShowing = (drawings: Drawing[], what: keyof Drawing) => drawings.findIndex((d) => d[what]);
 
 describe('event day', () => {
   it('when the page opens, then the car\'s setups and runs are asked for at once, without waiting for the event and the car to arrive', async () => {
@@ -113,14 +123,14 @@ describe('event day', () => {
     expect(requestsTo(fetchMock, 'GET /api/auth/session')).toHaveLength(1);
   });
 
-  it('when the page first draws on the event\'s day with its runs known, then the keypad goes on screen before the run list, which follows in a later drawing', async () => {
+  it('when the page first draws on the event\'s day with its runs known, then the event\'s name goes on screen first, the keypad in a later drawing, and the run list after it', async () => {
     stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })], { extra: TODAY_EVENT() });
-    // One insertion bringing both would mean the list held the keypad back.
-    const insertions = await drawingOrder();
-    const form = insertions.findIndex((i) => i.form);
-    const list = insertions.findIndex((i) => i.list);
-    expect(form).toBeGreaterThanOrEqual(0);
-    expect(list).toBeGreaterThan(form);
+    // One drawing bringing two of them would mean the later one held the earlier back.
+    const drawings = await drawingOrder();
+    const named = firstShowing(drawings, 'named');
+    expect(named).toBeGreaterThanOrEqual(0);
+    expect(firstShowing(drawings, 'form')).toBeGreaterThan(named);
+    expect(firstShowing(drawings, 'list')).toBeGreaterThan(firstShowing(drawings, 'form'));
   });
 
   it('when the event is opened on its day, then the keypad comes before the runs, with no heading of its own', async () => {
@@ -142,10 +152,10 @@ describe('event day', () => {
     expect(link.getAttribute('href')).toBe('/events');
   });
 
-  it('when a past event is opened, then its runs come first and the keypad follows under a heading of its own, both in one drawing', async () => {
+  it('when a past event is opened, then its name goes on screen first, and its runs and the keypad under a heading of its own follow, both in one drawing', async () => {
     stubWithRuns([savedRun({ id: IDS.run1, runNumber: 1 }), savedRun({ id: IDS.run2, runNumber: 2 })]);
     // Drawn later than the keypad, a list above it would push the keypad down under the thumb.
-    const insertions = await drawingOrder();
+    const drawings = await drawingOrder();
 
     const list = screen.getByRole('list', { name: `Runs on ${formatDay(EVENT.date)}, newest first` });
     const form = screen.getByRole('form', { name: 'Log a run' });
@@ -153,8 +163,10 @@ describe('event day', () => {
     const heading = screen.getByRole('heading', { name: 'Add a run from that day' });
     expect(heading.compareDocumentPosition(form) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
     expect(list.compareDocumentPosition(heading) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
-    expect(insertions.findIndex((i) => i.list)).toBeGreaterThanOrEqual(0);
-    expect(insertions.findIndex((i) => i.list)).toBeLessThanOrEqual(insertions.findIndex((i) => i.form));
+    const named = firstShowing(drawings, 'named');
+    expect(named).toBeGreaterThanOrEqual(0);
+    expect(firstShowing(drawings, 'list')).toBeGreaterThan(named);
+    expect(firstShowing(drawings, 'list')).toBe(firstShowing(drawings, 'form'));
   });
 
   it('when the car\'s setups are still on their way, then the keypad waits for them, so it does not move when the setup line fills in, and "none recorded" is never shown', async () => {
