@@ -165,6 +165,46 @@ describe('trackside on a phone (390×844)', () => {
     }
   });
 
+  it('when a run waits on a 320 px phone with no signal, then the top bar shows the whole count with "offline" under it, and the account button stays on screen', async () => {
+    // A throwaway phone: its run never leaves it, so the event's runs below are not touched.
+    const own = await openBrowser('phone');
+    try {
+      await own.page.setViewportSize({ width: 320, height: 640 });
+      await signIn(own.page, baseUrl, 'maren@example.com', 'Maren Holloway');
+      const me = await own.page.evaluate(async () => ((await (await fetch('/api/auth/me')).json()) as { user: { id: string } }).user.id);
+      await own.page.goto(`${baseUrl}/events/${eventId}?carId=${carId}&driverId=${me}`);
+      const keypad = own.page.getByRole('group', { name: 'Time keypad' });
+      await keypad.waitFor();
+      await own.context.setOffline(true);
+      for (const name of ['4', '9', 'Point', '5']) await keypad.getByRole('button', { name, exact: true }).click();
+      await own.page.getByRole('button', { name: /^Save run/ }).click();
+      const badge = own.page.locator('header [role="status"]');
+      await expect.poll(() => badge.textContent()).toContain('offline');
+
+      const bar = await badge.evaluate((status) => {
+        const count = status.querySelector<HTMLElement>('span[aria-hidden="true"]')!;
+        const offline = [...status.querySelectorAll('span')].find((s) => s.textContent === 'offline') ?? null;
+        return {
+          count: count.textContent,
+          cut: count.scrollWidth > count.clientWidth,
+          countBottom: count.getBoundingClientRect().bottom,
+          offlineTop: offline?.getBoundingClientRect().top ?? null,
+          sideways: document.documentElement.scrollWidth - window.innerWidth,
+        };
+      });
+      expect(bar.count).toBe('1 waiting');
+      expect(bar.cut, 'the count is cut short').toBe(false);
+      expect(bar.offlineTop, '"offline" is on a line of its own').not.toBeNull();
+      expect(bar.offlineTop!).toBeGreaterThanOrEqual(bar.countBottom - 1);
+      expect(bar.sideways, 'the page scrolls sideways').toBeLessThanOrEqual(0);
+      const account = (await own.page.getByRole('button', { name: /^Account:/ }).boundingBox())!;
+      expect(account.x + account.width).toBeLessThanOrEqual(320);
+      await screenshot(own.page, 'trackside-320-offline', { fullPage: false });
+    } finally {
+      await own.close();
+    }
+  });
+
   it('when the driver logs a clean run, a run with 2 cones and a DNF, then adjusted times and the best show on screen', async () => {
     await page.goto(`${baseUrl}/events/${eventId}?carId=${carId}`);
     await page.getByRole('radio', { name: /Maren Holloway/ }).check({ force: true });

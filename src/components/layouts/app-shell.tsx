@@ -31,7 +31,7 @@ export function AppShell({ navItems, status, account, children }: AppShellProps)
             <Wordmark />
           </Link>
           <TopNav items={navItems} />
-          <div className="ml-auto flex items-center gap-2">
+          <div className="ml-auto flex min-w-0 items-center gap-2">
             {status}
             {account}
           </div>

@@ -1,4 +1,4 @@
-import { CircleCheck, CloudOff, CloudUpload, TriangleAlert } from 'lucide-react';
+import { CircleCheck, CloudUpload, TriangleAlert } from 'lucide-react';
 import { useOutboxEntries } from '@/lib/outbox-context';
 import { summariseOutbox } from '@/lib/outbox-summary';
 import { useOnlineStatus } from '@/hooks/use-online-status';
@@ -15,23 +15,24 @@ export const TONE = {
   attention: { Icon: TriangleAlert, className: 'text-warning' },
 } as const;
 
-/** One short line for the top bar; the app's live region for the save state. */
+/** The top bar's save state, in one short line (and "offline" under it with no signal); the app's live region for it. */
 export function SyncStatusBadge() {
   const entries = useOutboxEntries();
   const online = useOnlineStatus();
   const summary = summariseOutbox(entries);
   const { Icon, className } = TONE[summary.tone];
-  const ShownIcon = summary.tone === 'saved' && !online ? CloudOff : Icon;
   return (
-    <p role="status" className={cn('inline-flex min-w-0 items-center gap-1.5 text-sm font-semibold', className)}>
-      <ShownIcon aria-hidden="true" className="size-4 shrink-0" />
+    <p role="status" className={cn('grid min-w-0 grid-cols-[auto_1fr] gap-x-1.5 text-sm font-semibold', className)}>
+      <Icon aria-hidden="true" className="row-span-2 size-4" />
       {/* A phone's top bar has room for the short form; the full sentence is read out everywhere. */}
       <span aria-hidden="true" className="truncate md:hidden">
         {summary.short}
       </span>
       <span className="sr-only md:not-sr-only md:truncate">{summary.text}</span>
-      {/* Said in words: "2 waiting" alone does not tell no signal from a slow upload. */}
-      {!online ? <span className="shrink-0"> · offline</span> : null}
+      {/* Said in words: "2 waiting" alone does not tell no signal from a slow upload. On a line of its own
+          under the count, so a narrow phone's top bar never cuts the count short; in the plain ink, since
+          "All saved" is in the colour of success and no signal is not. */}
+      {!online ? <span className="text-ink">offline</span> : null}
     </p>
   );
 }

@@ -193,14 +193,14 @@ describe('the sign-in page with work on the phone', () => {
     expect(screen.queryByText(/still on this phone only/)).toBeNull();
   });
 
-  it('when the phone has no signal, then the top bar says "offline" on screen beside what waits, and stops saying it when the signal is back', async () => {
+  it('when the phone has no signal, then the top bar says "offline" on screen under what waits, and stops saying it when the signal is back', async () => {
     stubHome();
     const onLine = vi.spyOn(navigator, 'onLine', 'get').mockReturnValue(false);
     renderApp('/', { outboxEntries: [waitingRun(1)] });
     await screen.findByRole('heading', { name: 'Hi, Maren Holt' });
     const badge = screen.getByRole('status');
     const shown = () => [...badge.querySelectorAll('span')].filter((s) => !s.classList.contains('sr-only')).map((s) => s.textContent).join('');
-    expect(shown()).toBe('1 waiting · offline');
+    expect(shown()).toBe('1 waitingoffline');
 
     onLine.mockReturnValue(true);
     act(() => void window.dispatchEvent(new Event('online')));
