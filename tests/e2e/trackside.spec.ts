@@ -165,7 +165,7 @@ describe('trackside on a phone (390×844)', () => {
     }
   });
 
-  it('when a run waits on a 320 px phone with no signal, then the top bar shows the whole count with "offline" under it, and the account button stays on screen', async () => {
+  it('when a run waits on a 320 px phone with no signal, then the top bar shows the whole count with "offline" under it, and the bell and the account button stay on screen, on a small tablet too', async () => {
     // A throwaway phone: its run never leaves it, so the event's runs below are not touched.
     const own = await openBrowser('phone');
     try {
@@ -181,24 +181,32 @@ describe('trackside on a phone (390×844)', () => {
       const badge = own.page.locator('header [role="status"]');
       await expect.poll(() => badge.textContent()).toContain('offline');
 
-      const bar = await badge.evaluate((status) => {
-        const count = status.querySelector<HTMLElement>('span[aria-hidden="true"]')!;
-        const offline = [...status.querySelectorAll('span')].find((s) => s.textContent === 'offline') ?? null;
-        return {
-          count: count.textContent,
-          cut: count.scrollWidth > count.clientWidth,
-          countBottom: count.getBoundingClientRect().bottom,
-          offlineTop: offline?.getBoundingClientRect().top ?? null,
-          sideways: document.documentElement.scrollWidth - window.innerWidth,
-        };
-      });
-      expect(bar.count).toBe('1 waiting');
-      expect(bar.cut, 'the count is cut short').toBe(false);
-      expect(bar.offlineTop, '"offline" is on a line of its own').not.toBeNull();
-      expect(bar.offlineTop!).toBeGreaterThanOrEqual(bar.countBottom - 1);
-      expect(bar.sideways, 'the page scrolls sideways').toBeLessThanOrEqual(0);
-      const account = (await own.page.getByRole('button', { name: /^Account:/ }).boundingBox())!;
-      expect(account.x + account.width).toBeLessThanOrEqual(320);
+      // The narrowest phone, then a small tablet, where the top bar also holds the page links.
+      for (const width of [320, 768]) {
+        await own.page.setViewportSize({ width, height: width === 320 ? 640 : 1024 });
+        const bar = await badge.evaluate((status) => {
+          // The line on screen (the full sentence is there too, for screen readers only).
+          const count = [...status.querySelectorAll('span')].find((s) => s.textContent !== 'offline' && s.clientWidth > 1)!;
+          const offline = [...status.querySelectorAll('span')].find((s) => s.textContent === 'offline') ?? null;
+          return {
+            count: count.textContent,
+            cut: count.scrollWidth > count.clientWidth,
+            countBottom: count.getBoundingClientRect().bottom,
+            offlineTop: offline?.getBoundingClientRect().top ?? null,
+            sideways: document.documentElement.scrollWidth - window.innerWidth,
+          };
+        });
+        expect(bar.count, `at ${width} px`).toBe('1 waiting');
+        expect(bar.cut, `the count is cut short at ${width} px`).toBe(false);
+        expect(bar.offlineTop, '"offline" is on a line of its own').not.toBeNull();
+        expect(bar.offlineTop!).toBeGreaterThanOrEqual(bar.countBottom - 1);
+        expect(bar.sideways, `the page scrolls sideways at ${width} px`).toBeLessThanOrEqual(0);
+        for (const name of [/^Account:/, /^(Notifications$|\d+ unread notification)/]) {
+          const button = (await own.page.getByRole('button', { name }).or(own.page.getByRole('link', { name })).first().boundingBox())!;
+          expect(button.x + button.width, `${String(name)} at ${width} px`).toBeLessThanOrEqual(width);
+        }
+      }
+      await own.page.setViewportSize({ width: 320, height: 640 });
       await screenshot(own.page, 'trackside-320-offline', { fullPage: false });
     } finally {
       await own.close();

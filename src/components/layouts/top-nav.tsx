@@ -15,7 +15,7 @@ export function TopNav({ items }: { items: readonly NavItem[] }) {
               end={item.end}
               className={({ isActive }) =>
                 cn(
-                  'inline-flex min-h-tap items-center rounded px-3 font-semibold',
+                  'inline-flex min-h-tap items-center rounded px-3 font-semibold whitespace-nowrap',
                   isCurrent(item, isActive) ? 'bg-accent-soft text-link' : 'text-ink-muted hover:bg-surface-raised hover:text-ink',
                 )
               }

@@ -8,8 +8,8 @@ export const ACCOUNT_BUTTON =
 export function AccountButtonFace({ user }: { user: User }) {
   return (
     <>
-      <CircleUserRound aria-hidden="true" className="size-6" />
-      <span className="hidden max-w-40 truncate md:inline">{user.displayName}</span>
+      <CircleUserRound aria-hidden="true" className="size-6 shrink-0" />
+      <span className="hidden max-w-40 truncate lg:inline">{user.displayName}</span>
     </>
   );
 }

@@ -25,10 +25,10 @@ export function SyncStatusBadge() {
     <p role="status" className={cn('grid min-w-0 grid-cols-[auto_1fr] gap-x-1.5 text-sm font-semibold', className)}>
       <Icon aria-hidden="true" className="row-span-2 size-4" />
       {/* A phone's top bar has room for the short form; the full sentence is read out everywhere. */}
-      <span aria-hidden="true" className="truncate md:hidden">
+      <span aria-hidden="true" className="truncate lg:hidden">
         {summary.short}
       </span>
-      <span className="sr-only md:not-sr-only md:truncate">{summary.text}</span>
+      <span className="sr-only lg:not-sr-only lg:truncate">{summary.text}</span>
       {/* Said in words: "2 waiting" alone does not tell no signal from a slow upload. On a line of its own
           under the count, so a narrow phone's top bar never cuts the count short; in the plain ink, since
           "All saved" is in the colour of success and no signal is not. */}
