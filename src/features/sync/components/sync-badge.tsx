@@ -24,7 +24,7 @@ export function SyncStatusBadge() {
   return (
     <p role="status" className={cn('grid min-w-0 grid-cols-[auto_1fr] gap-x-1.5 text-sm font-semibold', className)}>
       <Icon aria-hidden="true" className="row-span-2 size-4" />
-      {/* A phone's top bar has room for the short form; the full sentence is read out everywhere. */}
+      {/* A phone's or a small tablet's top bar has room for the short form; the full sentence is read out everywhere. */}
       <span aria-hidden="true" className="truncate lg:hidden">
         {summary.short}
       </span>
