@@ -22,8 +22,8 @@ export function SyncStatusBadge() {
   const summary = summariseOutbox(entries);
   const { Icon, className } = TONE[summary.tone];
   return (
-    <p role="status" className={cn('grid min-w-0 grid-cols-[auto_1fr] gap-x-1.5 text-sm font-semibold', className)}>
-      <Icon aria-hidden="true" className="row-span-2 size-4" />
+    <p role="status" className={cn('grid min-w-0 grid-cols-[auto_1fr] items-center gap-x-1.5 text-sm font-semibold', className)}>
+      <Icon aria-hidden="true" className="size-4" />
       {/* A phone's or a small tablet's top bar has room for the short form; the full sentence is read out everywhere. */}
       <span aria-hidden="true" className="truncate lg:hidden">
         {summary.short}
@@ -32,7 +32,7 @@ export function SyncStatusBadge() {
       {/* Said in words: "2 waiting" alone does not tell no signal from a slow upload. On a line of its own
           under the count, so a narrow phone's top bar never cuts the count short; in the plain ink, since
           "All saved" is in the colour of success and no signal is not. */}
-      {!online ? <span className="text-ink">offline</span> : null}
+      {!online ? <span className="col-start-2 text-ink">offline</span> : null}
     </p>
   );
 }
