@@ -199,8 +199,8 @@ describe('the sign-in page with work on the phone', () => {
     renderApp('/', { outboxEntries: [waitingRun(1)] });
     await screen.findByRole('heading', { name: 'Hi, Maren Holt' });
     const badge = screen.getByRole('status');
-    const shown = () => [...badge.querySelectorAll('span')].filter((s) => !s.classList.contains('sr-only')).map((s) => s.textContent).join('');
-    expect(shown()).toBe('1 waitingoffline');
+    const shown = () => [...badge.querySelectorAll('span')].filter((s) => !s.classList.contains('sr-only')).map((s) => s.textContent).join(' | ');
+    expect(shown()).toBe('1 waiting | offline');
 
     onLine.mockReturnValue(true);
     act(() => void window.dispatchEvent(new Event('online')));
