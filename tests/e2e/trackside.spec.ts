@@ -40,6 +40,17 @@ async function logRun(time: string | null, opts: { cones?: number; status?: 'DNF
   await page.getByText(/saved on this phone/).waitFor();
 }
 
+/** On a phone of its own at 320 × 640: Maren signs in and opens her board at the event; returns the keypad, on screen. */
+async function boardAt320(own: Awaited<ReturnType<typeof openBrowser>>) {
+  await own.page.setViewportSize({ width: 320, height: 640 });
+  await signIn(own.page, baseUrl, 'maren@example.com', 'Maren Holloway');
+  const me = await own.page.evaluate(async () => ((await (await fetch('/api/auth/me')).json()) as { user: { id: string } }).user.id);
+  await own.page.goto(`${baseUrl}/events/${eventId}?carId=${carId}&driverId=${me}`);
+  const keypad = own.page.getByRole('group', { name: 'Time keypad' });
+  await keypad.waitFor();
+  return keypad;
+}
+
 /** Waits until the service worker holds the app shell and answers for this page (a page opened before it was installed needs a reload). */
 async function serviceWorkerInControl() {
   await page.waitForFunction(async () => (await navigator.serviceWorker.ready) && !!navigator.serviceWorker.controller, null, { timeout: 20_000 })
@@ -132,12 +143,7 @@ describe('trackside on a phone (390×844)', () => {
   it('when the page opens on the narrowest, shortest phone in common use (320 × 640), then the whole keypad and the Save bar are in reach without scrolling', async () => {
     const own = await openBrowser('phone');
     try {
-      await own.page.setViewportSize({ width: 320, height: 640 });
-      await signIn(own.page, baseUrl, 'maren@example.com', 'Maren Holloway');
-      const me = await own.page.evaluate(async () => ((await (await fetch('/api/auth/me')).json()) as { user: { id: string } }).user.id);
-      await own.page.goto(`${baseUrl}/events/${eventId}?carId=${carId}&driverId=${me}`);
-      const keypad = own.page.getByRole('group', { name: 'Time keypad' });
-      await keypad.waitFor();
+      const keypad = await boardAt320(own);
       const saveBar = own.page.locator('form[aria-label="Log a run"] > .sticky');
       // The page has moved up by itself once the form is drawn: wait for it to settle.
       await expect.poll(() => own.page.evaluate(() => window.scrollY), { timeout: 5_000 }).toBeGreaterThan(0);
@@ -169,12 +175,7 @@ describe('trackside on a phone (390×844)', () => {
     // A throwaway phone: its run never leaves it, so the event's runs below are not touched.
     const own = await openBrowser('phone');
     try {
-      await own.page.setViewportSize({ width: 320, height: 640 });
-      await signIn(own.page, baseUrl, 'maren@example.com', 'Maren Holloway');
-      const me = await own.page.evaluate(async () => ((await (await fetch('/api/auth/me')).json()) as { user: { id: string } }).user.id);
-      await own.page.goto(`${baseUrl}/events/${eventId}?carId=${carId}&driverId=${me}`);
-      const keypad = own.page.getByRole('group', { name: 'Time keypad' });
-      await keypad.waitFor();
+      const keypad = await boardAt320(own);
       await own.context.setOffline(true);
       for (const name of ['4', '9', 'Point', '5']) await keypad.getByRole('button', { name, exact: true }).click();
       await own.page.getByRole('button', { name: /^Save run/ }).click();
