@@ -36,6 +36,11 @@ export function damperAdjustersOf(c: CarEntity): Car['damperAdjusters'] {
   return { front: axle('front'), rear: axle('rear') };
 }
 
+/** A car's adjusters, read from its row: what the click checks of setups, quick changes and suggestions go by. */
+export async function carAdjusters(db: Db, carId: string): Promise<Car['damperAdjusters']> {
+  return damperAdjustersOf(await loadCarEntity(db, carId));
+}
+
 function columnsFrom(input: Partial<CreateCarInput>): Partial<CarEntity> {
   const out: Partial<CarEntity> = {};
   if (input.name !== undefined) out.name = input.name;

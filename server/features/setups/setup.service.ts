@@ -1,5 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { User } from '@shared/auth/auth.schema';
+import type { Car } from '@shared/season/car.schema';
 import { CORNERS, axleOf, type Corner } from '@shared/season/corners';
 import {
   SETUP_CORNER_FIELDS, setupCornerSchema,
@@ -10,7 +11,7 @@ import { toFieldErrors, type FieldErrors } from '@shared/api/api-error.schema';
 import { AppError, staleVersion } from '../../lib/app-error';
 import { assertCarAccess, assertCarChildAccess } from '../../auth/access';
 import { adjusterFor, CLICK_FIELDS } from '@shared/season/damper-clicks';
-import { damperAdjustersOf, loadCarEntity } from '../cars/car.service';
+import { carAdjusters } from '../cars/car.service';
 import { insertUnlessPresent } from '../../lib/insert';
 import { SetupCornerEntity, SetupSnapshotEntity } from './setup.entity';
 
@@ -87,8 +88,7 @@ export async function activeSetupAt(db: Db, carId: string, at: Date): Promise<Se
 }
 
 /** Clicks must lie within the car's adjuster: 0 to its number of positions (rebound clicks: the rebound adjuster's, if described). */
-async function checkClicks(db: Db, carId: string, corners: Partial<Record<Corner, SetupCorner | undefined>>, prefix = 'corners') {
-  const adjusters = damperAdjustersOf(await loadCarEntity(db, carId));
+function checkClicks(adjusters: Car['damperAdjusters'], corners: Partial<Record<Corner, SetupCorner | undefined>>, prefix = 'corners') {
   const errors: FieldErrors = {};
   for (const corner of CORNERS) {
     const values = corners[corner];
@@ -116,7 +116,7 @@ export async function checkSnapshotCorners(db: Db, carId: string, corners: Recor
     for (const [key, messages] of Object.entries(toFieldErrors(result.error))) (errors[`corners.${corner}.${key}`] ??= []).push(...messages);
   }
   if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
-  await checkClicks(db, carId, corners);
+  checkClicks(await carAdjusters(db, carId), corners);
 }
 
 /**
@@ -137,7 +137,7 @@ async function writeCorners(m: EntityManager, setupId: string, corners: Partial<
 
 export async function createSetup(ds: DataSource, user: User, carId: string, input: CreateSetupInput): Promise<{ setup: Setup; created: boolean }> {
   await assertCarAccess(ds, user, carId, 'write');
-  await checkClicks(ds, carId, input.corners);
+  checkClicks(await carAdjusters(ds, carId), input.corners);
   const effectiveFrom = new Date(input.effectiveFrom);
   if (input.derivedFromId) await assertSameCar(ds, input.derivedFromId, carId, 'derivedFromId');
   const { id, created } = await ds.transaction(async (m) => {
@@ -212,7 +212,7 @@ export async function getSetup(ds: DataSource, user: User, setupId: string): Pro
 
 export async function updateSetup(ds: DataSource, user: User, setupId: string, input: UpdateSetupInput): Promise<Setup> {
   const carId = await assertCarChildAccess(ds, user, 'setup_snapshots', setupId, 'write', 'That setup');
-  if (input.corners) await checkClicks(ds, carId, input.corners);
+  if (input.corners) checkClicks(await carAdjusters(ds, carId), input.corners);
   if (input.derivedFromId) {
     if (input.derivedFromId === setupId) {
       throw new AppError('validation_failed', 'Some fields need attention.', { derivedFromId: ['A setup cannot be derived from itself'] });
@@ -316,9 +316,9 @@ export function applyCornerChanges(start: Record<Corner, SetupCorner> | null, ch
 }
 
 /** Clicks after the changes must fit the car's adjusters; errors keyed like applyCornerChanges. */
-export async function checkChangedClicks(db: Db, carId: string, corners: Record<Corner, SetupCorner>, changes: CornerChange[]) {
+export function checkChangedClicks(adjusters: Car['damperAdjusters'], corners: Record<Corner, SetupCorner>, changes: CornerChange[]) {
   try {
-    await checkClicks(db, carId, corners);
+    checkClicks(adjusters, corners);
   } catch (err) {
     if (err instanceof AppError && err.fieldErrors) {
       const remapped: FieldErrors = {};
@@ -346,7 +346,7 @@ export async function quickChange(ds: DataSource, user: User, carId: string, inp
   const active = await activeSetupAt(ds, carId, effectiveFrom);
   const { corners, errors, words } = applyCornerChanges(active?.corners ?? null, input.changes);
   if (Object.keys(errors).length) throw new AppError('validation_failed', 'Some fields need attention.', errors);
-  await checkChangedClicks(ds, carId, corners, input.changes);
+  checkChangedClicks(await carAdjusters(ds, carId), corners, input.changes);
   const created = await createSetup(ds, user, carId, {
     ...(input.id ? { id: input.id } : {}),
     label: input.label ?? `Quick change: ${words.join(', ')}`,

@@ -8,11 +8,12 @@ import type {
 import type { FieldErrors } from '@shared/api/api-error.schema';
 import { CORNERS, type Corner } from '@shared/season/corners';
 import { cornersWithAdjuster, isClickField } from '@shared/season/damper-clicks';
+import type { Car } from '@shared/season/car.schema';
 import type { Setup } from '@shared/season/setup.schema';
 import { AppError } from '../../lib/app-error';
 import { insertUnlessPresent } from '../../lib/insert';
 import { accessibleCarIdsSql, assertCarAccess, assertCarChildAccess, grantedShopOf } from '../../auth/access';
-import { damperAdjustersOf, loadCarEntity } from '../cars/car.service';
+import { carAdjusters } from '../cars/car.service';
 import type { MailSettings } from '../../mail/mailer';
 import {
   activeSetupAt, applyCornerChanges, checkChangedClicks, insertSnapshot, loadSetup, setupsOfCar,
@@ -131,8 +132,7 @@ const cornerList = (corners: Corner[]) => corners.map((c) => c.toUpperCase()).jo
  * Changes of clicks at corners whose dampers lack that adjuster, keyed `changes.<i>.corners`: by the same rule as the
  * shop's form offers them (the car's adjusters, or clicks the base already records).
  */
-async function cornersWithoutAdjuster(db: Db, carId: string, base: Setup, changes: SuggestionChange[]): Promise<FieldErrors> {
-  const adjusters = damperAdjustersOf(await loadCarEntity(db, carId));
+function cornersWithoutAdjuster(adjusters: Car['damperAdjusters'], base: Setup, changes: SuggestionChange[]): FieldErrors {
   const errors: FieldErrors = {};
   changes.forEach((change, i) => {
     if (!isClickField(change.field)) return;
@@ -150,12 +150,12 @@ async function cornersWithoutAdjuster(db: Db, carId: string, base: Setup, change
  * leaves a value out of range, past the car's adjusters, or has nothing to start from
  * (with any errors already `found`).
  */
-async function changedCorners(db: Db, carId: string, start: Setup, changes: SuggestionChange[], message: string, found: FieldErrors = {}) {
+function changedCorners(adjusters: Car['damperAdjusters'], start: Setup, changes: SuggestionChange[], message: string, found: FieldErrors = {}) {
   const { corners, errors: applied } = applyCornerChanges(start.corners, changes);
   const errors: FieldErrors = { ...found };
   for (const [key, messages] of Object.entries(applied)) (errors[key] ??= []).push(...messages);
   try {
-    await checkChangedClicks(db, carId, corners, changes);
+    checkChangedClicks(adjusters, corners, changes);
   } catch (err) {
     if (!(err instanceof AppError && err.fieldErrors)) throw err;
     for (const [key, messages] of Object.entries(err.fieldErrors)) (errors[key] ??= []).push(...messages);
@@ -222,8 +222,9 @@ export async function createSuggestion(
     throw new AppError('validation_failed', 'Some fields need attention.', { baseSetupId: ['Pick a setup of this car'] });
   }
   const base = await loadSetup(ds, input.baseSetupId);
-  const found = await cornersWithoutAdjuster(ds, carId, base, input.changes);
-  await changedCorners(ds, carId, base, input.changes, 'Some fields need attention.', found);
+  // The car's adjusters, read once for both checks.
+  const adjusters = await carAdjusters(ds, carId);
+  changedCorners(adjusters, base, input.changes, 'Some fields need attention.', cornersWithoutAdjuster(adjusters, base, input.changes));
 
   const { id, created, outbox } = await ds.transaction(async (m) => {
     const { inserted, id: newId } = await insertUnlessPresent(m, SetupSuggestionEntity, {
@@ -318,7 +319,7 @@ export async function acceptSuggestion(
     }
     const effectiveFrom = new Date(input.effectiveFrom);
     const start = (await activeSetupAt(m, carId, effectiveFrom)) ?? (await loadSetup(m, row.base_setup_id));
-    const corners = await changedCorners(m, carId, start, row.changes, `The setup in force then ("${start.label}") cannot take these changes.`);
+    const corners = changedCorners(await carAdjusters(m, carId), start, row.changes, `The setup in force then ("${start.label}") cannot take these changes.`);
     const label = input.label ?? clip(`From ${row.shop_name}: ${row.title}`, LABEL_MAX);
     const snapshot = await insertSnapshot(
       m,
