@@ -171,7 +171,7 @@ describe('trackside on a phone (390×844)', () => {
     }
   });
 
-  it('when a run waits on a 320 px phone with no signal, then the top bar shows the whole count with "offline" under it, and the bell and the account button stay on screen, on a small tablet too', async () => {
+  it('when a run waits on a 320 px phone with no signal, then the top bar shows the whole count with "offline" under it, and the bell and the account button stay on screen, on a small tablet and a laptop too', async () => {
     // A throwaway phone: its run never leaves it, so the event's runs below are not touched.
     const own = await openBrowser('phone');
     try {
@@ -182,9 +182,10 @@ describe('trackside on a phone (390×844)', () => {
       const badge = own.page.locator('header [role="status"]');
       await expect.poll(() => badge.textContent()).toContain('offline');
 
-      // The narrowest phone, then a small tablet, where the top bar also holds the page links.
-      for (const width of [320, 768]) {
-        await own.page.setViewportSize({ width, height: width === 320 ? 640 : 1024 });
+      // The narrowest phone, then a small tablet and a laptop, where the top bar also holds the page links (and,
+      // on the laptop, the account's name).
+      for (const [width, height] of [[320, 640], [768, 1024], [1024, 768]] as const) {
+        await own.page.setViewportSize({ width, height });
         const bar = await badge.evaluate((status) => {
           // The line on screen (the full sentence is there too, for screen readers only).
           const count = [...status.querySelectorAll('span')].find((s) => s.textContent !== 'offline' && s.clientWidth > 1)!;

@@ -15,20 +15,23 @@ export const TONE = {
   attention: { Icon: TriangleAlert, className: 'text-warning' },
 } as const;
 
-/** The top bar's save state, in one short line (and "offline" under it with no signal); the app's live region for it. */
+/**
+ * The top bar's save state, in one short line (and "offline" under it with no signal); the app's live region for it.
+ * The full sentence ("2 runs and 1 change waiting to upload") is what a screen reader says and what a pointer's
+ * hover shows: beside the page links and the account, no width of the bar has room for its longest forms.
+ */
 export function SyncStatusBadge() {
   const entries = useOutboxEntries();
   const online = useOnlineStatus();
   const summary = summariseOutbox(entries);
   const { Icon, className } = TONE[summary.tone];
   return (
-    <p role="status" className={cn('grid min-w-0 grid-cols-[auto_1fr] items-center gap-x-1.5 text-sm font-semibold', className)}>
+    <p role="status" title={summary.text} className={cn('grid min-w-0 grid-cols-[auto_1fr] items-center gap-x-1.5 text-sm font-semibold', className)}>
       <Icon aria-hidden="true" className="size-4" />
-      {/* A phone's or a small tablet's top bar has room for the short form; the full sentence is read out everywhere. */}
-      <span aria-hidden="true" className="truncate lg:hidden">
+      <span aria-hidden="true" className="truncate">
         {summary.short}
       </span>
-      <span className="sr-only lg:not-sr-only lg:truncate">{summary.text}</span>
+      <span className="sr-only">{summary.text}</span>
       {/* Said in words: "2 waiting" alone does not tell no signal from a slow upload. On a line of its own
           under the count, so a narrow phone's top bar never cuts the count short; in the plain ink, since
           "All saved" is in the colour of success and no signal is not. */}
