@@ -37,7 +37,7 @@ export function CloseWorkOrderForm({ workOrder }: { workOrder: WorkOrder }) {
   const attentionId = useId();
   const close = useCloseWorkOrder(workOrder.id);
   const { data: setups } = useSetups(workOrder.carId);
-  const server = splitErrors(close.error);
+  const server = splitErrors(close.error, ['handoverAt', 'label']);
   const byDefault = handoverLabel(workOrder.shop.name, workOrder.requestedWork);
   // Setups starting after the handover keep their own values; the one written now slots in before them.
   const attention = asking ? buildSheetAttention(workOrder, units) : [];

@@ -4,12 +4,17 @@ import { showFirstRefused } from '@/lib/show-first-refused';
 
 const FALLBACK = 'Something went wrong. Nothing you typed was lost; try again.';
 
-/** A failed save's messages: per field key ("lines.0.quantity"), and what concerns the whole form. */
-export function splitErrors(error: unknown): { fields: Record<string, string>; form: string | null } {
+/**
+ * A failed save's messages: per field key ("lines.0.quantity"), and what concerns the whole form. The message for the
+ * whole form is left out when the fields say it, unless some of them are not on this form (`marks` lists the keys it
+ * can mark): closing a visit may be refused for a click count on the build sheet, further up the page.
+ */
+export function splitErrors(error: unknown, marks?: readonly string[]): { fields: Record<string, string>; form: string | null } {
   if (!error) return { fields: {}, form: null };
   if (!isApiError(error)) return { fields: {}, form: FALLBACK };
   const fields = Object.fromEntries(Object.entries(error.fieldErrors).map(([k, v]) => [k, v.join(' ')]));
-  return { fields, form: error.hasFieldErrors ? null : error.message || FALLBACK };
+  const allMarked = error.hasFieldErrors && (!marks || Object.keys(fields).every((k) => marks.includes(k)));
+  return { fields, form: allMarked ? null : error.message || FALLBACK };
 }
 
 /** What to say by the Save button: the form's own message, or, when fields are marked, how many and where. */

@@ -220,6 +220,25 @@ describe('closing a visit, asked twice', () => {
     expect(within(confirm).queryByRole('list')).toBeNull();
     expect(confirm.getAttribute('aria-describedby')).toBeNull();
   });
+
+  it('when closing is refused for a click count on the build sheet, then the refusal shows by the form, and the label field is not marked', async () => {
+    const POST = `POST ${WO}/close`;
+    const why = 'The setup this visit hands over would not be valid (RR bump clicks: This adjuster has 12 clicks; use 0 to 12). Correct the build sheet or the after measurements, then close it.';
+    const fetchMock = stubStaff(METRIC_PREFERENCES, {
+      [POST]: errorResponse(400, 'validation_failed', why, { 'corners.rr.damperClicks': ['This adjuster has 12 clicks; use 0 to 12'] }),
+    });
+    renderApp(PATH);
+    const u = userEvent.setup();
+    const form = await screen.findByRole('form', { name: 'Close and hand over' });
+    await u.click(within(form).getByRole('button', { name: 'Close and hand over…' }));
+    await u.click(within(form).getByRole('button', { name: 'Yes, close and hand over' }));
+
+    await waitFor(() => expect(requestsTo(fetchMock, POST)).toHaveLength(1));
+    expect((await within(form).findByRole('alert')).textContent).toBe(why);
+    // Still open, and nothing on the form itself is wrong.
+    expect(within(form).getByRole('button', { name: 'Close and hand over…' })).toBeTruthy();
+    expect(within(form).getByLabelText('Setup label (optional)').getAttribute('aria-invalid')).not.toBe('true');
+  });
 });
 
 describe('the work order page for the driver', () => {
