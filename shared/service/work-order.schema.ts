@@ -3,6 +3,7 @@ import { isoDate, isoDateTime } from '../api/dates.schema';
 import { perCorner, type Corner } from '../season/corners';
 import { LIMITS } from '../season/limits';
 import { versionSchema } from '../season/car.schema';
+import { invoiceLineCents } from '../calc/invoice.calc';
 import type { InvoiceStatus } from './invoice.schema';
 
 /**
@@ -83,8 +84,28 @@ export const workOrderLineSchema = z
   );
 export type WorkOrderLineInput = z.infer<typeof workOrderLineSchema>;
 
+/**
+ * The most a visit's lines may add up to, in the currency's smallest unit: with the highest tax rate a shop can set
+ * (50 %), the invoice's total still fits the 32-bit integer it is kept in (2 147 483 647).
+ */
+export const LINES_TOTAL_MAX_CENTS = 1_000_000_000;
+
+/** The lines' amounts added up; null while a line is not a valid amount (its own field says why). */
+function linesTotalCents(lines: readonly { quantity: number; unitPriceCents: number }[]): number | null {
+  try {
+    return lines.reduce((sum, l) => sum + invoiceLineCents(l), 0);
+  } catch {
+    return null;
+  }
+}
+
 export const replaceLinesInputSchema = z.strictObject({
-  lines: z.array(workOrderLineSchema).check(z.maxLength(100, 'Use at most 100 lines')),
+  lines: z
+    .array(workOrderLineSchema)
+    .check(
+      z.maxLength(100, 'Use at most 100 lines'),
+      z.refine((lines) => (linesTotalCents(lines) ?? 0) <= LINES_TOTAL_MAX_CENTS, 'These lines add up to more than one invoice can hold; split the work into smaller orders'),
+    ),
 });
 export type ReplaceLinesInput = z.infer<typeof replaceLinesInputSchema>;
 

@@ -8,6 +8,7 @@ import { addCoDriver, expectError, expectFieldErrors } from '../season/season-fi
 import { addStaff, grantedCar, SHOP_NAME, shopWithAdmin } from '../collab/shop-fixtures';
 import { startFakePayments, type FakePayments } from '../../../scripts/lib/fake-payments';
 import { fakeSettings, visit } from './invoice-fixtures';
+import { LINES_TOTAL_MAX_CENTS } from '../../../shared/service/work-order.schema';
 import { seededDatabaseUrl } from '../support-seeded';
 import { createDataSource } from '../../../server/db/data-source';
 import { InvoiceNumbers1765843200000 } from '../../../server/db/migrations/1765843200000-invoice-numbers';
@@ -118,6 +119,17 @@ describe('POST /api/work-orders/:workOrderId/invoice', () => {
     await g.staff.c.patch(`/api/shops/${g.shopId}/settings`, { taxRatePct: 20 });
     const res = await g.driver.c.get(`/api/work-orders/${g.workOrderId}/invoice`);
     expect(res.body).toMatchObject({ taxRatePct: 8.875, taxCents: 5530, totalCents: 67840 });
+  });
+
+  it('when a visit\'s lines are at the most they may add up to and the tax rate at its highest, then the invoice is still made', async () => {
+    const g = await grantedCar(t);
+    expect((await g.staff.c.patch(`/api/shops/${g.shopId}/settings`, { taxRatePct: 50 })).status).toBe(200);
+    const lines = [{ kind: 'part' as const, description: 'Ten of the dearest', quantity: 10, unitPriceCents: LINES_TOTAL_MAX_CENTS / 10 }];
+    const workOrderId = await visit(t, { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id }, { lines });
+    const res = await g.staff.c.post(`/api/work-orders/${workOrderId}/invoice`);
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    // By hand: 1 000 000 000 + 50 % = 1 500 000 000 cents, under the 2 147 483 647 a 32-bit integer holds.
+    expect(res.body).toMatchObject({ subtotalCents: 1_000_000_000, taxCents: 500_000_000, totalCents: 1_500_000_000 });
   });
 
   it('when the visit is still open, then 409 and no invoice is made', async () => {

@@ -6,6 +6,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import { handoverLabel } from '../../../shared/service/handover-label';
+import { LINES_TOTAL_MAX_CENTS } from '../../../shared/service/work-order.schema';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { captureMail, makeTestApp, signedInClient, type TestApp } from '../test-app';
 import { addCoDriver, countOf, expectError, expectFieldErrors, postRun, postSetup } from '../season/season-fixtures';
@@ -252,6 +253,25 @@ describe('editing a visit', () => {
     });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(res.body.lines[0].totalCents).toBe(15);
+  });
+
+  it('when the lines add up to more than one invoice can hold, then 400 at the lines and the saved ones stay; up to the limit they save', async () => {
+    const { staff, workOrder } = await openVisit();
+    const url = `/api/work-orders/${workOrder.id}/lines`;
+    expect((await staff.c.put(url, LINES)).status).toBe(200);
+    // Each line is within its own limits (99999 pieces, 1 000 000.00 each); together 9 999 900 000 000 cents.
+    const errors = expectFieldErrors(
+      await staff.c.put(url, { lines: [{ kind: 'part', description: 'Bulk order', quantity: 99999, unitPriceCents: 100_000_000 }] }),
+      ['lines'],
+    );
+    expect(errors.lines).toEqual(['These lines add up to more than one invoice can hold; split the work into smaller orders']);
+    const kept = (await staff.c.get(`/api/work-orders/${workOrder.id}`)).body.lines as { description: string }[];
+    expect(kept.map((l) => l.description)).toEqual(['Adjustable front camber arm', 'Fit arms and four-wheel alignment']);
+
+    // Exactly at the limit: 10 × 100 000 000 cents = 1 000 000 000; one cent more is refused.
+    const atLimit = { kind: 'part', description: 'Ten of the dearest', quantity: 10, unitPriceCents: 100_000_000 };
+    expect((await staff.c.put(url, { lines: [atLimit] })).body.totals.subtotalCents).toBe(LINES_TOTAL_MAX_CENTS);
+    expectFieldErrors(await staff.c.put(url, { lines: [atLimit, { kind: 'part', description: 'Washer', quantity: 1, unitPriceCents: 1 }] }), ['lines']);
   });
 
   it('when measurements are out of range or the driver sat in without a weight, then 400 per field and nothing is written', async () => {
