@@ -53,4 +53,41 @@ describe('markup and SQL typed into the notebook (390×844)', () => {
     expect(back).toBe(PAYLOAD);
     expect(await page.evaluate(async (id) => (await fetch(`/api/runs?carId=${id}`)).status, carId)).toBe(200);
   });
+
+  it('when a pasted code with no spaces fills a work order\'s requested work and a line, then the shop page, the visit and its invoice still fit the phone', async () => {
+    browser ??= await openBrowser('phone');
+    // Her own shop, for her own car: the demo shop's pages, read by the other browser tests, stay as they are.
+    const page = browser.page;
+    await page.context().clearCookies();
+    await signIn(page, baseUrl, 'priya@example.com', 'Priya Castellan');
+    const word = 'PART-CODE-' + 'X7Q2'.repeat(45);
+    const { workOrderId, invoiceId } = await page.evaluate(async (word) => {
+      const token = (await (await fetch('/api/auth/csrf')).json()).token as string;
+      const send = async (method: string, path: string, data?: object) => {
+        const res = await fetch(path, { method, headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': token }, body: data ? JSON.stringify(data) : undefined });
+        if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`);
+        return res.json();
+      };
+      const shop = await send('POST', '/api/shops', { name: 'Long Word Garage' });
+      const car = await send('POST', '/api/cars', { name: 'Wide test car', classCode: 'SS' });
+      await send('POST', `/api/cars/${car.id}/shop-grants`, { shopId: shop.id });
+      const visit = await send('POST', `/api/cars/${car.id}/work-orders`, { shopId: shop.id, visitDate: '2026-06-12', requestedWork: word });
+      await send('PUT', `/api/work-orders/${visit.id}/lines`, { lines: [{ kind: 'part', description: word.slice(0, 200), quantity: 2, unitPriceCents: 18950 }] });
+      await send('POST', `/api/work-orders/${visit.id}/close`, { handoverAt: '2026-06-12T16:00:00.000Z' });
+      const invoice = await send('POST', `/api/work-orders/${visit.id}/invoice`);
+      return { workOrderId: visit.id as string, invoiceId: invoice.id as string };
+    }, word);
+
+    const sideways = () => page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    for (const [path, shown] of [
+      ['/shop', word],
+      [`/work-orders/${workOrderId}`, word.slice(0, 200)],
+      [`/invoices/${invoiceId}`, word.slice(0, 200)],
+    ] as const) {
+      await page.goto(`${baseUrl}${path}`);
+      await page.getByText(shown).first().waitFor({ timeout: 20_000 });
+      expect(await sideways(), `${path} scrolls sideways`).toBeLessThanOrEqual(0);
+    }
+    await screenshot(page, 'hostile-text-long-word-invoice');
+  });
 });

@@ -44,7 +44,7 @@ export function LineItemsTable({ caption, lines, totals, currency }: { caption: 
       <tbody>
         {lines.map((line, i) => (
           <tr key={i} className="border-b border-line">
-            <td className="py-1 pr-2 break-words">
+            <td className="py-1 pr-2 wrap-anywhere">
               <span className="text-ink-muted">{LINE_KIND_WORDS[line.kind]}:</span> {line.description}
               {line.usedUp ? USED_UP_MARK : ''}
             </td>

@@ -95,7 +95,7 @@ function EventItem({ carId, event, threadId = null }: { carId: string; event: Se
   const Chevron = open ? ChevronDown : ChevronRight;
   return (
     <li className="flex flex-col gap-1 rounded border border-line p-3">
-      <p className="font-bold break-words">{event.name}</p>
+      <p className="font-bold wrap-anywhere">{event.name}</p>
       <p className="text-sm text-ink-muted">
         {formatDay(event.date)}
         {event.venue ? ` · ${event.venue}` : ''}

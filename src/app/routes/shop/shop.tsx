@@ -67,7 +67,7 @@ export function ShopPage() {
     <div className="flex flex-col gap-6">
       <title>{`${shop.name} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <h1 className="text-3xl font-extrabold break-words">{shop.name}</h1>
+        <h1 className="text-3xl font-extrabold wrap-anywhere">{shop.name}</h1>
         <p className="text-ink-muted">{shop.isShopAdmin ? 'You are a shop admin.' : 'You are on the staff.'}</p>
         {shops.length > 1 ? (
           <SelectField

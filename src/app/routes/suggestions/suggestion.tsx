@@ -50,7 +50,7 @@ export function SuggestionPage() {
           <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
         </Link>
         <p className="text-sm font-semibold text-ink-muted">Setup suggestion</p>
-        <h1 className="text-3xl font-extrabold break-words">{suggestion.title}</h1>
+        <h1 className="text-3xl font-extrabold wrap-anywhere">{suggestion.title}</h1>
       </div>
       <SuggestionDetails suggestion={suggestion} />
       <SectionCard title="Decision">

@@ -48,7 +48,7 @@ export function TeamPage() {
           <ArrowLeft aria-hidden="true" className="size-4" /> Teams
         </Link>
         <div className="flex flex-wrap items-center gap-2">
-          <h1 className="min-w-0 text-3xl font-extrabold break-words">{team.name}</h1>
+          <h1 className="min-w-0 text-3xl font-extrabold wrap-anywhere">{team.name}</h1>
           {team.isCaptain ? <CaptainMarker /> : null}
         </div>
         <Link to={recordPath.classBoard(team.id)} className={buttonClasses('primary', 'self-start')}>

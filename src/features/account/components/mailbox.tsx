@@ -18,7 +18,7 @@ export const MAILBOX_DEV_ONLY = 'The mailbox is only available in development.';
 function MessageText({ text }: { text: string }) {
   const parts = linkifyOwnOrigin(text, window.location.origin);
   return (
-    <pre className="overflow-x-auto rounded border border-line bg-canvas p-3 font-sans text-sm break-words whitespace-pre-wrap">
+    <pre className="overflow-x-auto rounded border border-line bg-canvas p-3 font-sans text-sm wrap-anywhere whitespace-pre-wrap">
       {parts.map((part, i) =>
         part.kind === 'link' ? (
           <Link key={i} to={part.path} className="font-semibold break-all text-link underline">
@@ -36,7 +36,7 @@ function MessageView({ message }: { message: MailboxMessage }) {
   return (
     <article aria-label={`E-mail: ${message.subject}`} className="flex min-w-0 flex-col gap-3">
       <div className="flex flex-col gap-1">
-        <h2 className="text-xl font-bold break-words">{message.subject || '(no subject)'}</h2>
+        <h2 className="text-xl font-bold wrap-anywhere">{message.subject || '(no subject)'}</h2>
         <dl className="grid grid-cols-[auto_1fr] gap-x-3 text-sm">
           <dt className="text-ink-muted">From</dt>
           <dd className="break-all">{message.from}</dd>

@@ -229,7 +229,7 @@ function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean })
     <li className="flex flex-col gap-2 rounded border border-line p-3">
       <div className="flex flex-wrap items-start gap-x-3 gap-y-2">
         <div className="flex min-w-0 flex-1 flex-col">
-          <span className="font-bold break-words">
+          <span className="font-bold wrap-anywhere">
             {account.displayName}
             {isMe ? ' (you)' : ''}
           </span>
@@ -251,7 +251,7 @@ function AccountRow({ account, isMe }: { account: AdminAccount; isMe: boolean })
       {account.suspendedAt ? (
         <div className="flex flex-col gap-1 rounded border border-warning-line bg-warning-surface p-3 text-sm">
           <p className="font-semibold text-warning">Suspended since {formatDateTime(account.suspendedAt)}</p>
-          <p className="break-words whitespace-pre-line text-ink">{account.suspensionNote}</p>
+          <p className="wrap-anywhere whitespace-pre-line text-ink">{account.suspensionNote}</p>
         </div>
       ) : null}
     </li>

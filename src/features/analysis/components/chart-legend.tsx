@@ -51,7 +51,7 @@ export function ChartLegend({ series, hidden, onToggle, onShowAll, disabled = fa
                 <span className={cn('flex', !shown && 'opacity-40')}>
                   <SeriesMark series={s} />
                 </span>
-                <span className={cn('min-w-0 break-words', !shown && 'line-through')}>{s.label}</span>
+                <span className={cn('min-w-0 wrap-anywhere', !shown && 'line-through')}>{s.label}</span>
               </button>
             </li>
           );

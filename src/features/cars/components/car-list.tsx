@@ -13,7 +13,7 @@ function CarSummary({ car, currentUserId }: { car: CarView; currentUserId: strin
   return (
     <div className="flex min-w-0 flex-1 flex-col">
       <span className="flex flex-wrap items-center gap-x-2 gap-y-1">
-        <span className="min-w-0 font-bold break-words">
+        <span className="min-w-0 font-bold wrap-anywhere">
           {car.name}
           {car.carNumber ? <span className="tabular-figures font-semibold text-ink-muted"> #{car.carNumber}</span> : null}
         </span>

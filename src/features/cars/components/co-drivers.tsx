@@ -69,7 +69,7 @@ export function CoDrivers({ car, currentUserId }: { car: Car; currentUserId: str
         </li>
         {car.coDrivers.map((person) => (
           <li key={person.id} className="flex min-h-tap flex-wrap items-center justify-between gap-2 rounded border border-line px-3 py-1">
-            <span className="min-w-0 font-semibold break-words">
+            <span className="min-w-0 font-semibold wrap-anywhere">
               {person.displayName}
               {you(person)}
             </span>

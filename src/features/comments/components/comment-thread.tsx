@@ -119,7 +119,7 @@ function CommentItem({ comment, target }: { comment: Comment; target: CommentTar
           </div>
         </form>
       ) : (
-        <p className="break-words whitespace-pre-wrap">{comment.body}</p>
+        <p className="wrap-anywhere whitespace-pre-wrap">{comment.body}</p>
       )}
       {comment.mine && !editing ? (
         confirming ? (

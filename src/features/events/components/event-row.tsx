@@ -14,7 +14,7 @@ export function EventRow({ event, before, caption }: { event: EventView; before?
       <div className="flex min-w-0 flex-1 flex-col">
         {caption ? <span className="text-sm font-bold text-ink-muted">{caption}</span> : null}
         <span className="flex flex-wrap items-center gap-2">
-          <span className="font-bold break-words">{event.name}</span>
+          <span className="font-bold wrap-anywhere">{event.name}</span>
           {event.pending ? <PendingBadge state={event.pending.state} /> : null}
         </span>
         <EventFacts event={event} />

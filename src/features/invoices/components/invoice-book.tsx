@@ -60,7 +60,7 @@ export function InvoiceBook({ shopId }: { shopId: string }) {
                   <span className="tabular-figures font-bold text-link">
                     Invoice {row.number} · {formatDay(row.createdAt)}
                   </span>
-                  <span className="text-sm break-words text-ink-muted">
+                  <span className="text-sm wrap-anywhere text-ink-muted">
                     {row.billTo} · {invoiceCarWords(row)}
                   </span>
                   <span className={row.status === 'paid' ? 'tabular-figures text-sm' : 'tabular-figures text-sm font-semibold'}>

@@ -15,9 +15,9 @@ export function InvoiceDocument({ invoice }: { invoice: Invoice }) {
     >
       <header className="flex flex-col gap-4 sm:flex-row sm:justify-between">
         <div className="min-w-0">
-          <p className="text-xl font-extrabold break-words print:text-[14pt]">{invoice.issuer.name}</p>
+          <p className="text-xl font-extrabold wrap-anywhere print:text-[14pt]">{invoice.issuer.name}</p>
           {invoice.issuer.details ? (
-            <p aria-label="Shop details" className="text-sm break-words whitespace-pre-line">
+            <p aria-label="Shop details" className="text-sm wrap-anywhere whitespace-pre-line">
               {invoice.issuer.details}
             </p>
           ) : null}
@@ -39,15 +39,15 @@ export function InvoiceDocument({ invoice }: { invoice: Invoice }) {
         <h2 id="invoice-bill-to" className="text-sm font-bold text-ink-muted uppercase">
           For
         </h2>
-        <p className="font-semibold break-words">{invoice.billTo}</p>
-        <p className="text-sm break-words">{invoiceCarWords(invoice)}</p>
+        <p className="font-semibold wrap-anywhere">{invoice.billTo}</p>
+        <p className="text-sm wrap-anywhere">{invoiceCarWords(invoice)}</p>
       </section>
 
       <section aria-labelledby="invoice-work" className="flex flex-col gap-0.5">
         <h2 id="invoice-work" className="text-sm font-bold text-ink-muted uppercase">
           Work asked for
         </h2>
-        <p className="text-sm break-words whitespace-pre-line">{invoice.requestedWork}</p>
+        <p className="text-sm wrap-anywhere whitespace-pre-line">{invoice.requestedWork}</p>
       </section>
 
       <InvoiceLines invoice={invoice} caption={`Lines of invoice ${invoice.number}`} />

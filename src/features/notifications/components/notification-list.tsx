@@ -22,7 +22,7 @@ function NotificationItem({ item, onOpen }: { item: AppNotification; onOpen: (it
         )}
       >
         <span className="flex min-w-0 flex-1 flex-col gap-0.5">
-          <span className={cn('break-words', unread ? 'font-bold' : 'text-ink')}>
+          <span className={cn('wrap-anywhere', unread ? 'font-bold' : 'text-ink')}>
             {unread ? <span className="sr-only">Unread: </span> : null}
             {item.summary}
           </span>

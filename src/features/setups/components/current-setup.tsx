@@ -21,7 +21,7 @@ export function CurrentSetup({ setup, loading = false, day, dayOver = false }: {
         <p className="line-clamp-2 text-sm">
           <span className="text-ink-muted">{dayOver ? 'Setup that day: ' : 'Setup now: '}</span>
           {/* Beside the Quick change button, a quick change's own name starts with what changed, so the two lines keep the value. */}
-          <span className="font-bold break-words">{setup ? shortLabel(setup.label) : loading ? 'not known yet' : 'none recorded'}</span>
+          <span className="font-bold wrap-anywhere">{setup ? shortLabel(setup.label) : loading ? 'not known yet' : 'none recorded'}</span>
         </p>
         {setup ? (
           <p className="tabular-figures flex flex-wrap items-center gap-x-2 text-xs text-ink-muted">

@@ -57,7 +57,7 @@ function OriginBadge({ setup }: { setup: SetupView }) {
       className="inline-flex min-h-tap items-center gap-1 self-start rounded bg-accent-soft px-2 text-sm font-semibold text-link"
     >
       <origin.Icon aria-hidden="true" className="size-4 shrink-0" />
-      <span className="break-words">{origin.text}</span>
+      <span className="wrap-anywhere">{origin.text}</span>
     </Link>
   );
 }

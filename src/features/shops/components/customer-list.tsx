@@ -12,7 +12,7 @@ function CustomerItem({ customer }: { customer: Customer }) {
     <li>
       <Link to={recordPath.shopCustomer(car.id)} className="flex min-h-tap-lg items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
         <span className="flex min-w-0 flex-1 flex-col gap-0.5">
-          <span className="font-bold break-words">
+          <span className="font-bold wrap-anywhere">
             {car.name}
             {car.carNumber ? <span className="tabular-figures font-semibold text-ink-muted"> #{car.carNumber}</span> : null}
           </span>

@@ -72,7 +72,7 @@ function GrantShopForm({ carId, granted }: { carId: string; granted: readonly st
           <ul className="flex flex-col gap-2" aria-label="Shops found">
             {results.map((shop) => (
               <li key={shop.id} className="flex min-h-tap flex-wrap items-center justify-between gap-2 rounded border border-line px-3 py-1">
-                <span className="min-w-0 font-semibold break-words">{shop.name}</span>
+                <span className="min-w-0 font-semibold wrap-anywhere">{shop.name}</span>
                 <Button
                   variant="secondary"
                   isPending={grant.isPending && grant.variables?.shopId === shop.id}
@@ -110,7 +110,7 @@ function GrantItem({ grant, carId, isOwner }: { grant: ShopGrant; carId: string;
   return (
     <li className="flex min-h-tap flex-wrap items-center justify-between gap-2 rounded border border-line px-3 py-2">
       <span className="flex min-w-0 flex-col">
-        <span className="font-semibold break-words">{grant.shop.name}</span>
+        <span className="font-semibold wrap-anywhere">{grant.shop.name}</span>
         <span className="text-sm text-ink-muted">
           Access given {formatDay(grant.createdAt)} by {grant.grantedBy.displayName}
         </span>

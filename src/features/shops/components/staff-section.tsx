@@ -59,7 +59,7 @@ export function StaffSection({ shop, currentUserId }: { shop: Shop; currentUserI
         {shop.staff.map((person) => (
           <li key={person.id} className="flex min-h-tap flex-wrap items-center justify-between gap-2 rounded border border-line px-3 py-2">
             <span className="flex min-w-0 flex-col">
-              <span className="font-semibold break-words">
+              <span className="font-semibold wrap-anywhere">
                 {person.displayName}
                 {person.id === currentUserId ? ' (you)' : ''}
                 {person.isShopAdmin ? <span className="text-sm font-normal text-ink-muted"> · shop admin</span> : null}

@@ -127,7 +127,7 @@ export function SuggestionDetails({ suggestion }: { suggestion: Suggestion }) {
         <h2 id="why" className="text-xl font-bold">
           Why
         </h2>
-        <p className="break-words whitespace-pre-wrap">{suggestion.rationale}</p>
+        <p className="wrap-anywhere whitespace-pre-wrap">{suggestion.rationale}</p>
       </section>
       <section aria-labelledby="changes" className="flex flex-col gap-3">
         <h2 id="changes" className="text-xl font-bold">

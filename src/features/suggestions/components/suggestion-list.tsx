@@ -39,7 +39,7 @@ function SuggestionLinks({ items, label, forDriver }: { items: readonly Suggesti
         <li key={s.id}>
           <Link to={recordPath.suggestion(s.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
             <span className="flex min-w-0 flex-1 flex-col gap-0.5">
-              <span className="font-bold break-words">{s.title}</span>
+              <span className="font-bold wrap-anywhere">{s.title}</span>
               <span className="text-sm text-ink-muted">
                 {s.shop.name} · {s.author.displayName} · {formatDay(s.createdAt)}
               </span>

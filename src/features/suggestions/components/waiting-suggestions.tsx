@@ -20,7 +20,7 @@ export function WaitingSuggestions() {
             <Link to={recordPath.suggestion(s.id)} className="flex min-h-tap items-center gap-3 rounded border border-line p-3 hover:bg-surface-raised">
               <Lightbulb aria-hidden="true" className="size-5 shrink-0 text-accent" />
               <span className="flex min-w-0 flex-1 flex-col">
-                <span className="font-bold break-words">{s.title}</span>
+                <span className="font-bold wrap-anywhere">{s.title}</span>
                 <span className="text-sm text-ink-muted">
                   {s.car.name} · from {s.shop.name} · accept or decline
                 </span>

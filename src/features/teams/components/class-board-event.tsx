@@ -38,8 +38,8 @@ function Line({ line, hasFactor }: { line: EventLine; hasFactor: boolean }) {
         {line.tied ? <span className="block text-xs font-normal text-ink-muted"> tie</span> : null}
       </p>
       <div className="min-w-0 flex-1">
-        <p className="font-semibold break-words">{result.driver.displayName}</p>
-        <p className="text-sm break-words text-ink-muted">
+        <p className="font-semibold wrap-anywhere">{result.driver.displayName}</p>
+        <p className="text-sm wrap-anywhere text-ink-muted">
           {car.name}
           {car.carNumber ? <span className="tabular-figures"> #{car.carNumber}</span> : null}
         </p>
@@ -47,7 +47,7 @@ function Line({ line, hasFactor }: { line: EventLine; hasFactor: boolean }) {
       </div>
       <div className="tabular-figures max-w-[50%] shrink-0 text-right">
         {noTime ? (
-          <p className="font-bold break-words">{noTime}</p>
+          <p className="font-bold wrap-anywhere">{noTime}</p>
         ) : (
           <p className="text-2xl font-extrabold">
             <span className="sr-only">Adjusted </span>
@@ -101,7 +101,7 @@ function StepLink({ teamId, season, event, direction }: { teamId: string; season
       <span className="min-w-0">
         <span className="block text-xs font-normal text-ink-muted">{direction} event</span>
         <span className="sr-only">: </span>
-        <span className="block break-words">{event.eventName}</span>
+        <span className="block wrap-anywhere">{event.eventName}</span>
       </span>
     </Link>
   );
@@ -147,7 +147,7 @@ export function ClassBoardEventView({ board, eventId }: { board: ClassBoard; eve
       <title>{`${event.eventName} · Class board · ${board.team.name} · Scrubline`}</title>
       <div className="flex flex-col gap-1">
         {back}
-        <h1 className="text-3xl font-extrabold break-words">{event.eventName}</h1>
+        <h1 className="text-3xl font-extrabold wrap-anywhere">{event.eventName}</h1>
         <p className="text-ink-muted">
           {formatDay(event.date)} · {board.team.name}
         </p>

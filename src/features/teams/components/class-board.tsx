@@ -53,16 +53,16 @@ function ResultItem({ result: r, hasFactor, links }: { result: BoardResult; hasF
     <li className="relative border-b border-line py-2 last:border-b-0">
       <Link
         to={eventBoardPath(links.teamId, links.season, r.eventId)}
-        className="block font-semibold text-balance break-words text-link underline after:absolute after:inset-0"
+        className="block font-semibold text-balance wrap-anywhere text-link underline after:absolute after:inset-0"
       >
         {r.eventName}
       </Link>
-      <p className="text-xs break-words text-ink-muted">
+      <p className="text-xs wrap-anywhere text-ink-muted">
         {formatDay(r.date)} · {r.driver.displayName}
       </p>
       <p className="tabular-figures flex flex-wrap items-baseline gap-x-3">
         {noTime ? (
-          <span className="font-bold break-words">{noTime}</span>
+          <span className="font-bold wrap-anywhere">{noTime}</span>
         ) : (
           <span className="text-base font-bold whitespace-nowrap">
             <span className="sr-only">Adjusted </span>
@@ -146,7 +146,7 @@ function ResultsTable({ car, hasFactor, links }: { car: BoardCar; hasFactor: boo
               <th scope="row" className="sticky left-0 max-w-40 min-w-32 bg-surface py-2 pr-2 text-left font-normal">
                 <Link
                   to={eventBoardPath(links.teamId, links.season, r.eventId)}
-                  className="block py-0.5 font-semibold break-words text-link underline"
+                  className="block py-0.5 font-semibold wrap-anywhere text-link underline"
                 >
                   {r.eventName}
                 </Link>
@@ -223,7 +223,7 @@ function WearSummary({ car }: { car: BoardCar }) {
   return (
     <div className="flex flex-col gap-1">
       <p className="text-sm font-semibold">Tread at the latest reading (mean of both tyres)</p>
-      <ul aria-label={`Tread of ${car.car.name}`} className="tabular-figures flex flex-col gap-0.5 text-sm break-words">
+      <ul aria-label={`Tread of ${car.car.name}`} className="tabular-figures flex flex-col gap-0.5 text-sm wrap-anywhere">
         <li>{wearLine('Front', car.wear.front, units)}</li>
         <li>{wearLine('Rear', car.wear.rear, units)}</li>
       </ul>
@@ -272,7 +272,7 @@ function BoardCarCard({
   return (
     <article aria-labelledby={headingId} className="flex min-w-0 flex-col gap-3 rounded border border-line p-2.5 sm:p-3">
       <div className="flex flex-wrap items-baseline gap-x-2">
-        <h3 id={headingId} className="text-lg font-bold break-words">
+        <h3 id={headingId} className="text-lg font-bold wrap-anywhere">
           {car.car.name}
           {car.car.carNumber ? <span className="tabular-figures font-semibold text-ink-muted"> #{car.car.carNumber}</span> : null}
         </h3>

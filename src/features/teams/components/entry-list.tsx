@@ -113,7 +113,7 @@ function EntryItem({ team, entry, withdraw }: { team: Team; entry: TeamEntry; wi
     <li className="flex flex-col rounded border border-line px-3 py-2">
       <div className="flex min-h-tap flex-wrap items-center gap-x-3 gap-y-1">
         <div className="flex min-w-0 flex-1 flex-col">
-          <span className="font-bold break-words">{carName(entry)}</span>
+          <span className="font-bold wrap-anywhere">{carName(entry)}</span>
           <span className="text-sm text-ink-muted">
             Class {entry.classCode} · {SHARING_LABELS[entry.sharing]} · {entry.mine ? 'yours' : entry.owner.displayName}
           </span>

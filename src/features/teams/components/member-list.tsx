@@ -69,7 +69,7 @@ export function MemberList({ team, currentUserId }: { team: Team; currentUserId:
         const isMe = member.id === currentUserId;
         return (
           <li key={member.id} className="flex min-h-tap flex-wrap items-center gap-2 rounded border border-line px-3 py-2">
-            <span className="min-w-0 font-semibold break-words">
+            <span className="min-w-0 font-semibold wrap-anywhere">
               {member.displayName}
               {isMe ? ' (you)' : ''}
             </span>

@@ -31,7 +31,7 @@ export function TeamList() {
             to={recordPath.team(team.id)}
             className="flex min-h-tap min-w-0 flex-1 items-center gap-2 rounded px-2 font-bold hover:bg-surface-raised"
           >
-            <span className="min-w-0 break-words">{team.name}</span>
+            <span className="min-w-0 wrap-anywhere">{team.name}</span>
             {team.isCaptain ? <CaptainMarker /> : null}
             <ChevronRight aria-hidden="true" className="ml-auto size-5 shrink-0 text-ink-muted" />
           </Link>

@@ -146,7 +146,7 @@ function BuildSheetTable({ workOrder }: { workOrder: WorkOrder }) {
                 {FIELD_INFO[f].label}
               </th>
               {CORNERS.map((c) => (
-                <td key={c} className="py-1 pl-2 text-right break-words">
+                <td key={c} className="py-1 pl-2 text-right wrap-anywhere">
                   {valueText(f, corners[c]?.[f] ?? null, units)}
                 </td>
               ))}
@@ -185,7 +185,7 @@ function BuildSheetGrid({ workOrder }: { workOrder: WorkOrder }) {
               {BUILD_SHEET_FIELDS.filter((f) => sheet[f] !== null).map((f) => (
                 <div key={f}>
                   <dt className="text-ink-muted">{FIELD_INFO[f].label}</dt>
-                  <dd className="font-semibold break-words">{valueText(f, sheet[f], units)}</dd>
+                  <dd className="font-semibold wrap-anywhere">{valueText(f, sheet[f], units)}</dd>
                 </div>
               ))}
             </dl>

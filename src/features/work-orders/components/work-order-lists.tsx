@@ -26,10 +26,10 @@ export function CarVisits({ carId }: { carId: string }) {
       {/* The server lists them oldest first; the latest visit is the one asked about. */}
       {[...data.items].reverse().map((visit) => (
         <li key={visit.id} className="flex flex-col gap-1 rounded border border-line p-3">
-          <Link to={recordPath.workOrder(visit.id)} className="font-bold break-words text-link">
+          <Link to={recordPath.workOrder(visit.id)} className="font-bold wrap-anywhere text-link">
             {visit.shop.name} · {formatDay(visit.visitDate)}
           </Link>
-          <p className="text-sm break-words">{visit.requestedWork}</p>
+          <p className="text-sm wrap-anywhere">{visit.requestedWork}</p>
           <p className="text-sm text-ink-muted">
             {STATUS_WORDS[visit.status]}
             {visit.setupId ? (
@@ -75,14 +75,14 @@ export function ShopBoard({ shopId, status = 'open' }: { shopId: string; status?
         {shown.map((row) => (
           <li key={row.id}>
             <Link to={recordPath.workOrder(row.id)} className="flex min-h-tap-lg flex-col gap-1 rounded border border-line p-3 hover:bg-surface-raised">
-              <span className="font-bold break-words text-link">
+              <span className="font-bold wrap-anywhere text-link">
                 {row.car.name} · {formatDay(row.visitDate)}
               </span>
               <span className="text-sm text-ink-muted">
                 {row.owner.displayName}
                 {row.handoverAt ? ` · handed over ${formatDay(row.handoverAt)}` : ''}
               </span>
-              <span className="text-sm break-words">{row.requestedWork}</span>
+              <span className="text-sm wrap-anywhere">{row.requestedWork}</span>
               {row.status === 'closed' ? (
                 <span className={row.invoice?.status === 'paid' ? 'text-sm text-ink-muted' : 'text-sm font-semibold'}>{invoiceStandingWords(row.invoice)}</span>
               ) : null}
