@@ -20,6 +20,9 @@ export type InviteInput = z.infer<typeof inviteInputSchema>;
 export const INVOICE_DETAILS_MAX = 500;
 export const INVOICE_DETAILS_MAX_LINES = 8;
 
+/** The ISO 4217 currencies the platform can write amounts in (ECMA-402 `Intl.supportedValuesOf`), in lower case. */
+const CURRENCIES = new Set(Intl.supportedValuesOf('currency').map((c) => c.toLowerCase()));
+
 /** What a shop sets for its own bench: invoice tax and currency, and the build sheet's compressed-length tolerance. */
 export const updateShopSettingsInputSchema = z.strictObject({
   taxRatePct: z.optional(
@@ -30,7 +33,14 @@ export const updateShopSettingsInputSchema = z.strictObject({
     ),
   ),
   currency: z.optional(
-    z.string({ error: 'Enter a currency code such as USD' }).check(z.trim(), z.toLowerCase(), z.regex(/^[a-z]{3}$/, 'Use a three-letter currency code such as USD or EUR')),
+    z
+      .string({ error: 'Enter a currency code such as USD' })
+      .check(
+        z.trim(),
+        z.toLowerCase(),
+        z.regex(/^[a-z]{3}$/, 'Use a three-letter currency code such as USD or EUR'),
+        z.refine((code) => !/^[a-z]{3}$/.test(code) || CURRENCIES.has(code), 'That is not a currency code (ISO 4217) this app knows; use one such as USD or EUR'),
+      ),
   ),
   compressedLengthToleranceMm: z.optional(
     z.number({ error: 'Enter the tolerance in mm' }).check(

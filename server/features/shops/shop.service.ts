@@ -55,13 +55,31 @@ export async function getShop(ds: DataSource, user: User, shopId: string): Promi
  */
 export async function updateShopSettings(ds: DataSource, user: User, shopId: string, input: UpdateShopSettingsInput): Promise<Shop> {
   await assertShopAccess(ds, user, shopId, 'manage');
-  await ds.query(
-    `UPDATE shops SET tax_rate_pct = COALESCE($2, tax_rate_pct), currency = COALESCE($3, currency),
-            compressed_length_tolerance_mm = COALESCE($4, compressed_length_tolerance_mm),
-            invoice_details = COALESCE($5, invoice_details)
-      WHERE id = $1`,
+  // Prices are kept in the currency's smallest unit, so a visit priced in dollars and not yet invoiced would read
+  // as yen (a hundred times over) or as euros after the change: the currency changes only when no such visit has a
+  // price. Checked in the same statement as the write (wrapped in a SELECT: TypeORM answers a bare UPDATE … RETURNING
+  // with [rows, count]).
+  const updated: { currency: string }[] = await ds.query(
+    `WITH done AS (
+       UPDATE shops SET tax_rate_pct = COALESCE($2, tax_rate_pct), currency = COALESCE($3, currency),
+              compressed_length_tolerance_mm = COALESCE($4, compressed_length_tolerance_mm),
+              invoice_details = COALESCE($5, invoice_details)
+        WHERE id = $1
+          AND ($3::text IS NULL OR $3 = currency OR NOT EXISTS (
+                SELECT 1 FROM work_orders w JOIN work_order_lines l ON l.work_order_id = w.id
+                 WHERE w.shop_id = $1 AND l.unit_price_cents > 0 AND NOT EXISTS (SELECT 1 FROM invoices i WHERE i.work_order_id = w.id)))
+        RETURNING currency
+     ) SELECT currency FROM done`,
     [shopId, input.taxRatePct ?? null, input.currency ?? null, input.compressedLengthToleranceMm ?? null, input.invoiceDetails ?? null],
   );
+  if (updated.length === 0) {
+    const [shop] = (await ds.query('SELECT currency FROM shops WHERE id = $1', [shopId])) as { currency: string }[];
+    if (!shop) throw new AppError('not_found', 'That shop was not found.');
+    const was = shop.currency.toUpperCase();
+    throw new AppError('validation_failed', 'Nothing was saved.', {
+      currency: [`Visits not yet invoiced have prices in ${was}. Invoice them, or clear their prices, before changing the currency`],
+    });
+  }
   return loadShop(ds, user, shopId);
 }
 

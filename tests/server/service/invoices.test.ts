@@ -68,6 +68,38 @@ describe('PATCH /api/shops/:shopId/settings', () => {
     expect(after).toMatchObject({ taxRatePct: 0, invoiceDetails: 'Unit 4, Brindle Yard' });
   });
 
+  it('when the code is three letters but no currency, then 400 at the currency and it stays as it was', async () => {
+    const { shopId, admin } = await shopWithAdmin(t);
+    // ISO 4217 has no XYZ; JPY is a currency, with no minor unit.
+    const errors = expectFieldErrors(await admin.c.patch(`/api/shops/${shopId}/settings`, { currency: 'XYZ' }), ['currency']);
+    expect(errors.currency![0]).toMatch(/not a currency code/);
+    expect((await admin.c.get(`/api/shops/${shopId}`)).body.settings.currency).toBe('usd');
+    expect((await admin.c.patch(`/api/shops/${shopId}/settings`, { currency: 'JPY' })).body.settings.currency).toBe('jpy');
+  });
+
+  it('when a visit not yet invoiced has prices, then the currency cannot change (nothing else in the request is saved either); once it is invoiced, it can', async () => {
+    const g = await grantedCar(t);
+    const ids = { shopId: g.shopId, carId: g.driver.carId, staffId: g.staff.user.id };
+    const open = await visit(t, ids, { status: 'open' });
+    const url = `/api/shops/${g.shopId}/settings`;
+    const errors = expectFieldErrors(await g.staff.c.patch(url, { currency: 'JPY', taxRatePct: 10 }), ['currency']);
+    expect(errors.currency).toEqual(['Visits not yet invoiced have prices in USD. Invoice them, or clear their prices, before changing the currency']);
+    expect((await g.staff.c.get(`/api/shops/${g.shopId}`)).body.settings).toMatchObject({ currency: 'usd', taxRatePct: 0 });
+    // The same currency again, or no currency at all, is not a change.
+    expect((await g.staff.c.patch(url, { currency: 'usd', taxRatePct: 10 })).status).toBe(200);
+
+    // A closed visit is not invoiced yet either.
+    await t.ds.query(`UPDATE work_orders SET status = 'closed', handover_at = '2026-06-12T16:00:00Z', closed_by = $2 WHERE id = $1`, [open, g.staff.user.id]);
+    expectFieldErrors(await g.staff.c.patch(url, { currency: 'EUR' }), ['currency']);
+    const invoice = await g.staff.c.post(`/api/work-orders/${open}/invoice`);
+    expect(invoice.status, JSON.stringify(invoice.body)).toBe(201);
+    const changed = await g.staff.c.patch(url, { currency: 'EUR' });
+    expect(changed.status, JSON.stringify(changed.body)).toBe(200);
+    expect(changed.body.settings.currency).toBe('eur');
+    // The invoice keeps the currency it was made in.
+    expect((await g.staff.c.get(`/api/invoices/${invoice.body.id}`)).body.currency).toBe('usd');
+  });
+
   it('when staff who are not admins or people outside the shop try, then 403 and 404', async () => {
     const { shopId } = await shopWithAdmin(t);
     const staff = await addStaff(t, shopId);
