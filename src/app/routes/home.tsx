@@ -84,7 +84,7 @@ export function HomePage() {
         <h1 className="text-3xl font-extrabold">Hi, {user.displayName}</h1>
         <p className="text-ink-muted">{roles ? `Your roles: ${roles}.` : 'Your account has no roles yet.'}</p>
       </div>
-      <div className="grid gap-4 md:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-2">
         {linksFirst ? linksCard : null}
         {eventDay ? (
           <CardSection title="Event day">

@@ -87,7 +87,7 @@ export function SeasonReviewPage() {
     <div className="flex flex-col gap-6">
       <title>{`Season review · ${name} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {name}
         </Link>
         <h1 className="text-3xl font-extrabold">Season review</h1>

@@ -63,7 +63,7 @@ export function CalculatorsPage() {
           </ul>
         </nav>
       </div>
-      <div className="grid items-start gap-4 lg:grid-cols-2">
+      <div className="grid grid-cols-1 items-start gap-4 lg:grid-cols-2">
         {CALCULATORS.map(({ id, Card }) => (
           // Clear of the sticky top bar when jumped to.
           <div key={id} id={id} tabIndex={-1} className="scroll-mt-20 focus:outline-none">

@@ -168,7 +168,7 @@ export function CarPage() {
       <SectionBoundary title="Waiting for you">
         <OpenSuggestions carId={carId} />
       </SectionBoundary>
-      <div className="grid gap-4 lg:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-2">
         <CardSection title="Setup history">
           <SetupSection carId={carId} />
         </CardSection>

@@ -36,7 +36,7 @@ export function EditCarPage() {
     <div className="flex flex-col gap-6">
       <title>{`Edit ${car?.name ?? 'car'} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {car?.name ?? 'Car'}
         </Link>
         <h1 className="text-3xl font-extrabold">Edit {car?.name ?? 'car'}</h1>

@@ -34,7 +34,7 @@ export function NewCarPage() {
     <div className="flex flex-col gap-6">
       <title>New car · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={eventId ? pathTo.event(eventId) : paths.cars} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={eventId ? pathTo.event(eventId) : paths.cars} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {eventId ? 'Back to the event' : 'Cars'}
         </Link>
         <h1 className="text-3xl font-extrabold">New car</h1>

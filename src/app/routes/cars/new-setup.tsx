@@ -45,7 +45,7 @@ export function NewSetupPage() {
     <div className="flex flex-col gap-6">
       <title>New setup · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
         </Link>
         <h1 className="text-3xl font-extrabold">{fixKey ? 'Fix a refused setup' : 'New setup'}</h1>

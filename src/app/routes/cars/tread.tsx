@@ -38,7 +38,7 @@ export function TreadPage() {
     <div className="flex flex-col gap-6">
       <title>Tread · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
         </Link>
         <h1 className="text-3xl font-extrabold">Tread depth</h1>

@@ -192,7 +192,7 @@ function EventDayBoard({ event, car, driver, me }: { event: EventView; car: CarV
         ) : null}
       </section>
 
-      <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_24rem] md:items-start">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-[minmax(0,1fr)_24rem] md:items-start">
         {/* On the day the keypad comes first; opened afterwards, the day's results do, with the keypad below them. */}
         {moment.dayOver ? [runList, logRun] : [logRun, runList]}
       </div>
@@ -264,7 +264,7 @@ export function EventDayPage() {
         {/* With the event's facts, which come above it: drawn before them, this line would move down. */}
         {event && car && driver && !picking ? (
           <p className="flex flex-wrap items-center gap-x-2 text-sm font-semibold">
-            <span>
+            <span className="wrap-anywhere">
               {car.name}
               {car.carNumber ? <span className="tabular-figures text-ink-muted"> #{car.carNumber}</span> : null} · {driver.displayName}
             </span>

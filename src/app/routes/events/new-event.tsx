@@ -12,7 +12,7 @@ export function NewEventPage() {
     <div className="flex flex-col gap-6">
       <title>New event · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={paths.events} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={paths.events} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> Events
         </Link>
         <h1 className="text-3xl font-extrabold">New event</h1>

@@ -39,11 +39,11 @@ export function InvoicePage() {
       <title>{`Invoice ${invoice.data.number} · ${invoice.data.issuer.name} · Scrubline`}</title>
       <div className="flex flex-wrap items-center gap-3 print:hidden">
         {workOrderId ? (
-          <Link to={recordPath.workOrder(workOrderId)} className="inline-flex min-h-tap items-center gap-1 font-semibold text-link">
+          <Link to={recordPath.workOrder(workOrderId)} className="inline-flex min-h-tap items-center gap-1 font-semibold text-link wrap-anywhere">
             <ArrowLeft aria-hidden="true" className="size-5" /> Work order
           </Link>
         ) : isStaff ? (
-          <Link to={paths.shop} className="inline-flex min-h-tap items-center gap-1 font-semibold text-link">
+          <Link to={paths.shop} className="inline-flex min-h-tap items-center gap-1 font-semibold text-link wrap-anywhere">
             <ArrowLeft aria-hidden="true" className="size-5" /> Shop
           </Link>
         ) : null}

@@ -32,7 +32,7 @@ export function SetupSheetPage() {
     <div className="setup-sheet mx-auto flex w-full max-w-3xl flex-col gap-4 print:max-w-none">
       <title>{`${setup.data.label} · ${car.data.name} · Scrubline`}</title>
       <div className="flex flex-wrap items-center gap-3 print:hidden">
-        <Link to={`${carPagePath(car.data, me.id)}#setup-${setupId}`} className="inline-flex min-h-tap items-center gap-1 font-semibold text-link">
+        <Link to={`${carPagePath(car.data, me.id)}#setup-${setupId}`} className="inline-flex min-h-tap items-center gap-1 font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-5" /> {car.data.name}
         </Link>
         <Button variant="primary" onClick={() => window.print()}>

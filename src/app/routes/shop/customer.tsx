@@ -206,7 +206,7 @@ export function CustomerPage() {
           <ChartScatter aria-hidden="true" className="size-5" /> Season review
         </Link>
       </CarHeader>
-      <div className="grid gap-4 lg:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-2">
         <div className="flex flex-col gap-4">
           <CardSection title="Open a work order">
             <OpenWorkOrderForm carId={carId} />

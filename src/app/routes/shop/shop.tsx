@@ -79,7 +79,7 @@ export function ShopPage() {
           />
         ) : null}
       </div>
-      <div className="grid gap-4 lg:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-2">
         <CardSection title="Open work orders">
           <ShopBoard shopId={shop.id} />
         </CardSection>

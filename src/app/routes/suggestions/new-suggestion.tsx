@@ -22,7 +22,7 @@ export function NewSuggestionPage() {
     <div className="flex flex-col gap-6">
       <title>Suggest a change · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={recordPath.shopCustomer(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={recordPath.shopCustomer(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
         </Link>
         <h1 className="text-3xl font-extrabold">Suggest a setup change</h1>

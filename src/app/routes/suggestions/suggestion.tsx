@@ -46,7 +46,7 @@ export function SuggestionPage() {
     <div className="flex max-w-2xl flex-col gap-6">
       <title>{`${suggestion.title} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
         </Link>
         <p className="text-sm font-semibold text-ink-muted">Setup suggestion</p>

@@ -48,7 +48,7 @@ export function ClassBoardPage() {
     <div className="flex min-w-0 flex-col gap-6">
       <title>{`Class board · ${board.team.name} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={recordPath.team(teamId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={recordPath.team(teamId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {board.team.name}
         </Link>
         <h1 className="text-3xl font-extrabold">Class board</h1>

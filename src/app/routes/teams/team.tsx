@@ -44,7 +44,7 @@ export function TeamPage() {
     <div className="flex max-w-3xl flex-col gap-6">
       <title>{`${team.name} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={paths.teams} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+        <Link to={paths.teams} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> Teams
         </Link>
         <div className="flex flex-wrap items-center gap-2">

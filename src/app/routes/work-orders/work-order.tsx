@@ -44,7 +44,7 @@ export function WorkOrderPage() {
     <div className="handover-sheet flex max-w-3xl flex-col gap-6 print:max-w-none print:gap-1">
       <title>{`${workOrder.carName}: work order · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link print:hidden">
+        <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link print:hidden wrap-anywhere">
           <ArrowLeft aria-hidden="true" className="size-4" /> {workOrder.carName}
         </Link>
         <WorkOrderHeader workOrder={workOrder} />

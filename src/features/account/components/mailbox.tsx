@@ -103,7 +103,7 @@ export function MailboxView() {
       {messages.length === 0 ? (
         <EmptyState message="No e-mails caught yet. Ask for a password reset or send an invitation, then check again." />
       ) : (
-        <div className="grid min-w-0 gap-4 md:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
+        <div className="grid grid-cols-1 min-w-0 gap-4 md:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
           <ul aria-label="E-mails, newest first" className="flex min-w-0 flex-col gap-2">
             {messages.map((m) => {
               const current = m.id === selected?.id;

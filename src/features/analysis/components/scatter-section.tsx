@@ -233,7 +233,7 @@ export function ScatterSection({ carId }: { carId: string }) {
 
   return (
     <div className="flex flex-col gap-4">
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
         <SelectField label="Setting (x)" options={PARAM_OPTIONS} value={param} onChange={(e) => setParam(e.target.value as ScatterParam)} />
         <SelectField label="Where" options={WHERE_OPTIONS} value={corner} onChange={(e) => setCorner(e.target.value as CornerOrAxle)} />
         <SelectField

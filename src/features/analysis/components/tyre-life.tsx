@@ -149,7 +149,7 @@ export function TyreLife({
       {tyreLife.length === 0 ? (
         <EmptyState message="No tyre sets recorded for this car yet." />
       ) : (
-        <div className="grid gap-3 sm:grid-cols-2">
+        <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
           {tyreLife.map((entry) => (
             <TyreSetLife key={entry.tyreSetId} entry={entry} />
           ))}

@@ -51,7 +51,7 @@ export function AlignmentCard() {
       caution="Alignment is verified by a qualified technician. Support a raised car on stands on firm ground — never work under a car held by a jack alone."
     >
       <CalcHeading>Toe, one wheel</CalcHeading>
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <SegmentedControl<Basis>
           label="Measured across"
           options={[
@@ -105,7 +105,7 @@ export function AlignmentCard() {
       </p>
 
       <CalcHeading>Camber from a plumb line</CalcHeading>
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <UnitInput
           label="Top of the wheel inboard by"
           unit={lengthUnit}

@@ -150,7 +150,7 @@ export function CornerBalanceCard() {
           />
         )}
       />
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <SelectField label="Corner whose perch moves" options={CORNER_OPTIONS} value={corner} onChange={(e) => setCorner(e.target.value as Corner)} />
         <UnitInput
           label="Wheel moves by"

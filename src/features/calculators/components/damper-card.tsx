@@ -74,7 +74,7 @@ export function DamperCard() {
       caution="Check clearances with the spring removed and the suspension compressed, with the car on stands on firm ground — never under a car on a jack alone. Compress coil springs only with a proper spring compressor."
     >
       <CalcHeading>Spring seated at full droop?</CalcHeading>
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <UnitInput label="Load on the wheel" unit={massUnit} value={load} onChange={(e) => setLoad(e.target.value)} error={droop.errors.load} hint="The corner weight at ride height" />
         <UnitInput label="Spring motion ratio" unit="ratio" value={springMr} onChange={(e) => setSpringMr(e.target.value)} error={droop.errors.mr} hint="Spring travel ÷ wheel travel" />
         <UnitInput label="Main spring rate" unit={rateUnit} value={springRate} onChange={(e) => setSpringRate(e.target.value)} error={droop.errors.k} />
@@ -109,7 +109,7 @@ export function DamperCard() {
       </Results>
 
       <CalcHeading>Bump travel at the wheel</CalcHeading>
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <UnitInput label="Damper stroke" unit={lengthUnit} value={stroke} onChange={(e) => setStroke(e.target.value)} error={bump.errors.stroke} />
         <UnitInput
           label="Droop at the damper"
@@ -142,7 +142,7 @@ export function DamperCard() {
       </Results>
 
       <CalcHeading>Compressed length against the original</CalcHeading>
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
         <UnitInput label="Compressed length" unit={lengthUnit} value={compressed} onChange={(e) => setCompressed(e.target.value)} error={length.errors.compressed} />
         <UnitInput
           label="Original compressed length"

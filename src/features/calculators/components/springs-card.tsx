@@ -64,7 +64,7 @@ export function SpringsCard() {
       caution="Compress coil springs only with a proper spring compressor. Support a raised car on stands on firm ground — never work under a car held by a jack alone."
     >
       <CalcHeading>Wheel rate</CalcHeading>
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
         <UnitInput label="Spring rate" unit={rateUnit} value={spring} onChange={(e) => setSpring(e.target.value)} error={wheel.errors.spring} />
         <UnitInput
           label="Motion ratio"
@@ -97,7 +97,7 @@ export function SpringsCard() {
       </Results>
 
       <CalcHeading>Ride frequency</CalcHeading>
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
         <UnitInput
           label="Wheel rate (optional)"
           unit={rateUnit}
@@ -136,7 +136,7 @@ export function SpringsCard() {
       </Results>
 
       <CalcHeading>Wheel rate for a frequency</CalcHeading>
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
         <UnitInput label="Target frequency" unit="Hz" value={target} onChange={(e) => setTarget(e.target.value)} error={inverse.errors.f} hint="Uses the sprung mass and tyre rate above" />
       </div>
       <Results label="Wheel rate for a frequency">

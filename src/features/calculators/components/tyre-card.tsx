@@ -129,7 +129,7 @@ export function TyreCard() {
         value={direction}
         onChange={setDirection}
       />
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
         <UnitInput
           label={coldToHot ? 'Cold pressure' : 'Hot pressure'}
           unit={pressureUnit}

@@ -93,7 +93,7 @@ export function CarDetailsForm({ label, defaults, submitLabel, isPending, formEr
   return (
     <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label={label} className="flex max-w-form flex-col gap-5">
       <TextField label="Name" hint="What you call it, e.g. “Grey roadster”." maxLength={80} error={errors.name?.message} {...register('name')} />
-      <div className="grid gap-5 sm:grid-cols-2 sm:gap-3">
+      <div className="grid grid-cols-1 gap-5 sm:grid-cols-2 sm:gap-3">
         <TextField label="Class" maxLength={20} autoCapitalize="characters" error={errors.classCode?.message} {...register('classCode')} />
         <TextField label="Car number (optional)" inputMode="text" maxLength={10} error={errors.carNumber?.message} {...register('carNumber')} />
       </div>

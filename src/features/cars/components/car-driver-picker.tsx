@@ -46,7 +46,7 @@ export function CarDriverPicker({ cars, currentUserId, initialCarId, initialDriv
         {cars.map((c) => (
           <label key={c.id} className={option(c.id === carId)}>
             <input type="radio" name="car" className="size-5 accent-[var(--sl-accent)]" checked={c.id === carId} onChange={() => setCarId(c.id)} />
-            <span className="flex flex-col">
+            <span className="flex min-w-0 flex-col">
               <span>
                 {c.name}
                 {c.carNumber ? <span className="tabular-figures text-ink-muted"> #{c.carNumber}</span> : null}

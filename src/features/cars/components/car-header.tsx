@@ -21,7 +21,7 @@ interface CarHeaderProps {
 export function CarHeader({ car, isPending, isError, back, about, errorText, children }: CarHeaderProps) {
   return (
     <div className="flex flex-col gap-2">
-      <Link to={back.to} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+      <Link to={back.to} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
         <ArrowLeft aria-hidden="true" className="size-4" /> {back.label}
       </Link>
       <h1 className="text-3xl font-extrabold">

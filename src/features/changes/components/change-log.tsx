@@ -143,7 +143,7 @@ export function ChangeLog({ carId, saved, entries, readOnly = false }: ChangeLog
           {rows.map((row) => (
             <li key={row.id} className="flex flex-col gap-1 rounded border border-line p-3">
               <div className="flex flex-wrap items-baseline justify-between gap-2">
-                <span className="font-bold">{row.what}</span>
+                <span className="font-bold wrap-anywhere">{row.what}</span>
                 {row.pending ? (
                   <PendingBadge state={row.pending.state} />
                 ) : row.fromVisit ? (

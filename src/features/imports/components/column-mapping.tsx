@@ -45,7 +45,7 @@ export function ColumnMappingForm({
           { value: 'wide', label: 'One row per driver, a column per run' },
         ]}
       />
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         {fields.map((field) => (
           <SelectField
             key={field}

@@ -21,7 +21,7 @@ export function RowChooser({
 }) {
   return (
     <div className="flex flex-col gap-3">
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <TextField
           label="Your car number"
           inputMode="text"

@@ -159,7 +159,7 @@ export function RunList({ label, rows, setupLabelOf, renderExtras }: RunListProp
               {/* "Clean" is a finished run's word: a DNF with no cone was not a clean run. */}
               {row.cones || row.status === 'finished' ? <span>{row.cones ? `+${coneWords(row.cones)}` : 'Clean'}</span> : null}
               {row.pctOffBest !== null && !row.isBest ? <span>{`${formatPercent(row.pctOffBest)} off ${whose}`}</span> : null}
-              <span className="text-ink-muted">Setup: {setup ?? 'none recorded'}</span>
+              <span className="text-ink-muted wrap-anywhere">Setup: {setup ?? 'none recorded'}</span>
             </p>
             {row.notes ? <p className="text-sm text-ink-muted">{row.notes}</p> : null}
             {hot ? <HotPressuresToggle kpa={hot} /> : null}

@@ -175,7 +175,7 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
 
   return (
     <form onSubmit={(e) => void onSubmit(e)} noValidate aria-label="New setup" className="flex flex-col gap-6">
-      <div className="grid gap-4 md:grid-cols-2">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-2">
         <TextField label="Label" placeholder="e.g. After alignment" maxLength={80} error={errors.label?.message} {...field('label')} />
         <TextField
           label="On the car from"
@@ -195,7 +195,7 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
         )}
       </p>
 
-      <div className="grid gap-6 md:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 md:grid-cols-2">
         {SETUP_CORNER_FIELDS.map((name) => {
           const info = FIELD_INFO[name];
           const unit = info.quantity ? unitSymbol(info.quantity, units) : 'clicks';

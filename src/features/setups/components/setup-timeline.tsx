@@ -130,7 +130,7 @@ function SnapshotItem({ carId, setup, before, readOnly, renderExtras, adjusters 
       className="flex scroll-mt-4 flex-col gap-2 rounded border border-line p-3 focus:ring-2 focus:ring-accent focus:outline-none"
     >
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h3 className="font-bold">{setup.label}</h3>
+        <h3 className="font-bold wrap-anywhere">{setup.label}</h3>
         {setup.pending ? <PendingBadge state={setup.pending.state} /> : null}
       </div>
       <p className="tabular-figures text-sm text-ink-muted">

@@ -10,7 +10,7 @@ export function SetupValues({ setup }: { setup: Pick<Setup, 'corners' | 'axles'>
   const bars = [setup.axles.front.antiRollBar, setup.axles.rear.antiRollBar];
   if (fields.length === 0 && bars.every((b) => !b)) return <p className="text-sm text-ink-muted">No values recorded.</p>;
   return (
-    <div className="grid gap-4 sm:grid-cols-2">
+    <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
       {fields.map((field) => (
         <CornerGrid
           key={field}

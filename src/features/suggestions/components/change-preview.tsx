@@ -23,7 +23,7 @@ export function ChangePreview({ cells }: { cells: readonly PreviewCell[] }) {
   const fields = [...new Set(cells.map((c) => c.field))] as SetupCornerField[];
   if (fields.length === 0) return <p className="text-sm text-ink-muted">No changes.</p>;
   return (
-    <div className="grid gap-4 sm:grid-cols-2">
+    <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
       {fields.map((field) => {
         // The last change to a corner is where it ends up; the first says where it started.
         const byCorner = (corner: PreviewCell['corner']) => {

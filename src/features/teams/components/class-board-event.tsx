@@ -126,7 +126,7 @@ export function ClassBoardEventView({ board, eventId }: { board: ClassBoard; eve
   const teamId = board.team.id;
   const event = boardEvents(board).find((e) => e.eventId === eventId);
   const back = (
-    <Link to={seasonBoardPath(teamId, board.season)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link">
+    <Link to={seasonBoardPath(teamId, board.season)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
       <ArrowLeft aria-hidden="true" className="size-4" /> Whole class board
     </Link>
   );

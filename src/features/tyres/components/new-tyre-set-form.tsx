@@ -50,7 +50,7 @@ export function NewTyreSetForm({ carId, defaultSize, onSaved, onCancel }: NewTyr
       <h3 className="font-bold">New tyre set</h3>
       <TextField label="Label" hint="As written on the tyres or the rack, e.g. “Set C (2026)”." maxLength={80} error={errors.label?.message} {...register('label')} />
       <TextField label="Size (optional)" maxLength={40} autoCapitalize="characters" error={errors.size?.message} {...register('size')} />
-      <div className="grid gap-4 sm:grid-cols-2 sm:gap-3">
+      <div className="grid grid-cols-1 gap-4 sm:grid-cols-2 sm:gap-3">
         <TextField label="Bought on (optional)" type="date" error={errors.boughtOn?.message} {...register('boughtOn')} />
         <UnitInput label="Depth when new (optional)" unit={unit} error={errors.startTreadMm?.message} {...register('startTreadMm')} />
       </div>

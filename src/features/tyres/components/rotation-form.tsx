@@ -67,7 +67,7 @@ export function RotationForm({ carId, set, onSaved, onCancel }: RotationFormProp
       <h4 className="font-bold">Rotate tyres</h4>
       <div className="flex flex-col gap-2">
         <p className="text-sm font-semibold">Common patterns</p>
-        <div className="grid gap-2 sm:grid-cols-3">
+        <div className="grid grid-cols-1 gap-2 sm:grid-cols-3">
           {PRESETS.map((preset) => (
             <Button key={preset} variant="secondary" className="px-3" onClick={() => pickPreset(preset)}>
               {PRESET_WORDS[preset]}

@@ -196,7 +196,7 @@ export function TreadEntryForm({ carId, sets, initialSetId, onUploaded }: TreadE
                 setEntryKey(null);
               }}
             />
-            <span>
+            <span className="min-w-0">
               {s.label}
               {s.size && !s.label.includes(s.size) ? <span className="font-normal text-ink-muted"> · {s.size}</span> : null}
             </span>

@@ -58,7 +58,7 @@ export function TyreSetList({ carId, sets, entries, readOnly = false }: TyreSetL
         return (
           <li key={set.id} className="flex flex-col gap-2 rounded border border-line p-3">
             <div className="flex flex-wrap items-baseline justify-between gap-2">
-              <h3 className="flex flex-wrap items-center gap-2 font-bold">
+              <h3 className="flex flex-wrap items-center gap-2 font-bold wrap-anywhere">
                 {set.label}
                 {set.pending ? <PendingBadge state={set.pending.state} /> : null}
               </h3>
