@@ -8,6 +8,7 @@ import { useOutboxEntriesFor } from '@/lib/outbox-context';
 import { toast } from '@/lib/toast-store';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCar } from '@/features/cars/api/get-car';
+import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupEditor } from '@/features/setups/components/setup-editor';
 import { mergePendingSetups } from '@/features/setups/utils/setup-views';
@@ -40,6 +41,7 @@ export function NewSetupPage() {
     [navigate, carId],
   );
 
+  if (!car.data && carIsHidden(car.error)) return <CarNotFound />;
   const loading = car.isPending || (setups.isPending && !setups.isError);
   return (
     <div className="flex flex-col gap-6">

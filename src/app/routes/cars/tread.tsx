@@ -8,6 +8,7 @@ import { formatDateTime } from '@/lib/dates';
 import { toast } from '@/lib/toast-store';
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useCar } from '@/features/cars/api/get-car';
+import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
 import { DeleteReadingButton } from '@/features/tyres/components/delete-reading-button';
 import { NewTyreSetForm } from '@/features/tyres/components/new-tyre-set-form';
@@ -33,6 +34,7 @@ export function TreadPage() {
     toast({ tone: 'success', title: 'Tread reading saved' });
     void navigate(pathTo.car(carId));
   }, [navigate, carId]);
+  if (!car.data && carIsHidden(car.error)) return <CarNotFound />;
 
   return (
     <div className="flex flex-col gap-6">

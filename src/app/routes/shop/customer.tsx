@@ -13,6 +13,7 @@ import { DEFAULT_MIN_DEPTH_MM, useSeason } from '@/features/analysis/api/get-sea
 import { AttachmentToggle } from '@/features/attachments/components/attachment-toggle';
 import { useCar } from '@/features/cars/api/get-car';
 import { CarHeader } from '@/features/cars/components/car-header';
+import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
 import { useChanges } from '@/features/changes/api/get-changes';
 import { ChangeLog } from '@/features/changes/components/change-log';
 import { CommentToggle } from '@/features/comments/components/comment-toggle';
@@ -184,7 +185,8 @@ function Changes({ carId }: { carId: string }) {
 /** A customer's car as the shop sees it: the season read-only, with threads, and setup suggestions. */
 export function CustomerPage() {
   const { carId = '' } = useParams();
-  const { data: car, isPending, isError } = useCar(carId);
+  const { data: car, isPending, isError, error } = useCar(carId);
+  if (!car && carIsHidden(error)) return <CarNotFound forShop />;
   return (
     <div className="flex flex-col gap-6">
       <title>{`${car?.name ?? 'Customer'} · Scrubline`}</title>

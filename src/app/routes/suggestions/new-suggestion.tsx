@@ -3,6 +3,7 @@ import { ArrowLeft } from 'lucide-react';
 import { recordPath } from '@/config/record-paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import { useCar } from '@/features/cars/api/get-car';
+import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SuggestionForm } from '@/features/suggestions/components/suggestion-form';
 
@@ -17,6 +18,7 @@ export function NewSuggestionPage() {
   const items = setups.data?.items ?? [];
   // The list is newest first: without ?from, the latest snapshot is the one to change.
   const base = from ? items.find((s) => s.id === from) : items[0];
+  if (!car.data && carIsHidden(car.error)) return <CarNotFound forShop />;
 
   return (
     <div className="flex flex-col gap-6">
