@@ -285,8 +285,11 @@ export function applyCornerChanges(start: Record<Corner, SetupCorner> | null, ch
   const corners = Object.fromEntries(CORNERS.map((c) => [c, { ...(start?.[c] ?? emptyCorner()) }])) as Record<Corner, SetupCorner>;
   const errors: FieldErrors = {};
   const words: string[] = [];
+  // The words of changes that moved nothing (a value set to what it was), named only when no change moved anything.
+  const idle: string[] = [];
   const steps: AppliedStep[] = [];
   changes.forEach((change, i) => {
+    let moved = false;
     for (const corner of change.corners) {
       const current = corners[corner][change.field] ?? null;
       if (change.value !== undefined) {
@@ -297,10 +300,12 @@ export function applyCornerChanges(start: Record<Corner, SetupCorner> | null, ch
         corners[corner][change.field] = Math.round((current + change.delta!) * 1e6) / 1e6;
       }
       steps.push({ field: change.field, corner, from: current, to: corners[corner][change.field] ?? null });
+      moved ||= current !== (corners[corner][change.field] ?? null);
     }
     const amount = change.value !== undefined ? `= ${change.value}` : `${change.delta! > 0 ? '+' : ''}${change.delta}`;
-    words.push(`${describeCorners(change.corners)} ${FIELD_WORDS[change.field]} ${amount}`);
+    (moved ? words : idle).push(`${describeCorners(change.corners)} ${FIELD_WORDS[change.field]} ${amount}`);
   });
+  if (words.length === 0) words.push(...idle);
   for (const corner of CORNERS) {
     const result = setupCornerSchema.safeParse(corners[corner]);
     if (!result.success) {

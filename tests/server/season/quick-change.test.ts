@@ -77,6 +77,20 @@ describe('POST /api/cars/:carId/setups/quick-change', () => {
     expect([res.body.corners.lf.rideHeightMm, res.body.corners.rf.rideHeightMm, res.body.corners.lr.rideHeightMm]).toEqual([118, 118, null]);
   });
 
+  it('when one change sets a value the corners already have, then the default name leaves it out and names the change that was made', async () => {
+    const d = await driverWithCarAndEvent(t);
+    await postSetup(d.c, d.carId);
+    const res = await d.c.post(`/api/cars/${d.carId}/setups/quick-change`, {
+      changes: [
+        { field: 'damperClicks', corners: ['lr', 'rr'], delta: 2 },
+        { field: 'coldPressureKpa', corners: ['lf', 'rf'], value: base.corners.lf.coldPressureKpa },
+      ],
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(base.corners.rf.coldPressureKpa).toBe(base.corners.lf.coldPressureKpa);
+    expect(res.body.label).toBe('Quick change: rear clicks +2');
+  });
+
   it('when a delta pushes clicks past the 12-position adjuster, then 400 under changes.0.delta and no snapshot is made', async () => {
     const d = await driverWithCarAndEvent(t);
     await postSetup(d.c, d.carId);

@@ -159,6 +159,11 @@ export function QuickChangePanel({ carId, adjusters, setups, onDone }: QuickChan
       else if (!quantity && !Number.isInteger(amount)) lineErrors[line.id] = 'Clicks are whole numbers';
       if (lineErrors[line.id] || amount === null) continue;
       const si = toSi(amount, quantity, units);
+      // Set to what every chosen corner already has: no change, and its words would name one that was not made.
+      if (line.mode === 'value' && line.corners.every((c) => Math.abs((base?.corners[c]?.[line.field] ?? Number.NaN) - si) < 1e-6)) {
+        lineErrors[line.id] = 'Each corner chosen already has this value: that changes nothing';
+        continue;
+      }
       changes.push({ field: line.field, corners: CORNERS.filter((c) => line.corners.includes(c)), ...(line.mode === 'delta' ? { delta: si } : { value: si }) });
       words.push(describeLine(line, amount, units));
     }

@@ -782,6 +782,29 @@ describe('event day', () => {
     expect(body.label).toBe('Quick change: rear clicks = 1 click');
   });
 
+  it('when a quick change sets the front to the cold pressure it already has, then the line says that changes nothing, and nothing is saved', async () => {
+    stubWithRuns([], { extra: TODAY_EVENT() });
+    const { outbox } = renderApp(PATH);
+    const u = userEvent.setup();
+    await screen.findByRole('form', { name: 'Log a run' });
+    await u.click(screen.getByRole('button', { name: 'Quick change' }));
+    const form = await screen.findByRole('form', { name: 'Quick change' });
+    await u.selectOptions(within(form).getByLabelText('What'), 'coldPressureKpa');
+    await u.click(within(form).getByRole('button', { name: 'Front' }));
+    await u.click(within(form).getByRole('button', { name: 'Set to' }));
+    // Both front corners of the setup in force are at 200 kPa.
+    await u.type(within(form).getByLabelText(/Set cold pressure to/), '200');
+    await u.click(within(form).getByRole('button', { name: 'Save quick change' }));
+
+    expect(await within(form).findByText('Each corner chosen already has this value: that changes nothing')).toBeTruthy();
+    expect(outbox.getSnapshot()).toHaveLength(0);
+    // One corner that differs makes it a change: the rear is at 190 kPa.
+    await u.click(within(form).getByRole('button', { name: 'All four' }));
+    await u.click(within(form).getByRole('button', { name: 'Save quick change' }));
+    await waitFor(() => expect(outbox.getSnapshot()).toHaveLength(1));
+    expect((outbox.getSnapshot()[0]!.body as { label: string }).label).toBe('Quick change: all four cold pressure = 200 kPa');
+  });
+
   it('when a quick change is made in psi, then its body carries the change in kPa, the device time, a client id, and the next run shows the new setup', async () => {
     const fetchMock = stubWithRuns([], { units: IMPERIAL_PREFERENCES, extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH, { outboxEntries: [blockingEntry()] });
