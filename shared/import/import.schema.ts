@@ -56,9 +56,26 @@ export interface ImportFailure {
   reason: string;
 }
 
+/** A run's result as logged or as the sheet gives it (a disqualification is stored as a DNF). */
+export interface ImportedRunValues {
+  status: 'finished' | 'dnf' | 'off_course';
+  rawTimeSec: number | null;
+  cones: number;
+}
+
+/** A run already logged whose time, cones or result the sheet gives otherwise: kept as logged, and said. */
+export interface ImportDifference {
+  line: number;
+  runNumber: number;
+  logged: ImportedRunValues;
+  sheet: ImportedRunValues;
+}
+
 export interface ImportResult {
   created: number;
   /** Runs with that number were already logged for this driver and car at this event; they are left as they are. */
   alreadyThere: number;
+  /** Of those, the ones the sheet disagrees with, in the sheet's order. */
+  differing: ImportDifference[];
   failed: ImportFailure[];
 }

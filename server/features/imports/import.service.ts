@@ -4,6 +4,8 @@ import type { User } from '@shared/auth/auth.schema';
 import {
   DSQ_NOTE,
   importRunValuesSchema,
+  type ImportDifference,
+  type ImportedRunValues,
   type ImportFailure,
   type ImportResult,
   type ImportResultsInput,
@@ -42,7 +44,7 @@ export async function importResults(ds: DataSource, user: User, eventId: string,
   }
 
   const failed: ImportFailure[] = [];
-  const good: { runNumber: number; status: string; rawTimeSec: number | null; cones: number; notes: string | null }[] = [];
+  const good: ({ line: number; runNumber: number; notes: string | null } & ImportedRunValues)[] = [];
   const seen = new Set<number>();
   for (const run of input.runs) {
     const checked = z.safeParse(importRunValuesSchema, run);
@@ -56,28 +58,54 @@ export async function importResults(ds: DataSource, user: User, eventId: string,
     }
     seen.add(run.runNumber);
     const dsq = run.status === 'dsq';
-    good.push({ runNumber: run.runNumber, status: dsq ? 'dnf' : run.status, rawTimeSec: run.rawTimeSec, cones: run.cones, notes: dsq ? DSQ_NOTE : null });
+    good.push({ line: run.line, runNumber: run.runNumber, status: run.status === 'dsq' ? 'dnf' : run.status, rawTimeSec: run.rawTimeSec, cones: run.cones, notes: dsq ? DSQ_NOTE : null });
   }
 
   let created = 0;
+  const differing: ImportDifference[] = [];
   if (good.length > 0) {
     created = await ds.transaction(async (m) => {
-      const inserted: unknown[] = await m.query(
+      const inserted: { run_number: number }[] = await m.query(
         `INSERT INTO runs (id, car_id, event_id, driver_id, run_number, raw_time_sec, cones, status, recorded_at, notes)
          SELECT gen_random_uuid(), $1, $2, $3, g.run_number, g.raw_time_sec, g.cones, g.status,
                 $4::timestamptz + (g.run_number - 1) * interval '1 minute', g.notes
            FROM unnest($5::int[], $6::float8[], $7::int[], $8::text[], $9::text[]) AS g(run_number, raw_time_sec, cones, status, notes)
          ON CONFLICT ON CONSTRAINT runs_number_unique DO NOTHING
-         RETURNING id`,
+         RETURNING run_number`,
         [
           input.carId, eventId, driverId, new Date(firstRunAt),
           good.map((r) => r.runNumber), good.map((r) => r.rawTimeSec), good.map((r) => r.cones),
           good.map((r) => r.status), good.map((r) => r.notes),
         ],
       );
+      // The runs already logged: the phone's record stands, but where the sheet says otherwise the driver is told.
+      const added = new Set(inserted.map((r) => r.run_number));
+      const kept = good.filter((r) => !added.has(r.runNumber));
+      if (kept.length > 0) {
+        const logged: { run_number: number; status: ImportedRunValues['status']; raw_time_sec: number | null; cones: number }[] = await m.query(
+          `SELECT run_number, status, raw_time_sec, cones FROM runs
+            WHERE event_id = $1 AND car_id = $2 AND driver_id = $3 AND run_number = ANY($4::int[])`,
+          [eventId, input.carId, driverId, kept.map((r) => r.runNumber)],
+        );
+        const byNumber = new Map(logged.map((r) => [r.run_number, r]));
+        for (const sheet of kept) {
+          const was = byNumber.get(sheet.runNumber);
+          if (!was) continue;
+          const values: ImportedRunValues = { status: was.status, rawTimeSec: was.raw_time_sec, cones: was.cones };
+          if (!sameResult(values, sheet)) {
+            differing.push({ line: sheet.line, runNumber: sheet.runNumber, logged: values, sheet: { status: sheet.status, rawTimeSec: sheet.rawTimeSec, cones: sheet.cones } });
+          }
+        }
+      }
       return inserted.length;
     });
   }
   failed.sort((a, b) => a.line - b.line || a.runNumber - b.runNumber);
-  return { created, alreadyThere: good.length - created, failed };
+  return { created, alreadyThere: good.length - created, differing, failed };
+}
+
+/** The same result: status and cones, and for a finished run its time to the thousandth a timing sheet gives. */
+function sameResult(a: ImportedRunValues, b: ImportedRunValues): boolean {
+  const time = (s: number | null) => (s === null ? null : Math.round(s * 1000));
+  return a.status === b.status && a.cones === b.cones && (a.status !== 'finished' || time(a.rawTimeSec) === time(b.rawTimeSec));
 }

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeTestApp, signedInClient, type TestApp } from '../test-app';
-import { addCoDriver, countOf, driverWithCarAndEvent, expectError, expectFieldErrors, postSetup, type Driver } from '../season/season-fixtures';
+import { addCoDriver, countOf, driverWithCarAndEvent, expectError, expectFieldErrors, postRun, postSetup, type Driver } from '../season/season-fixtures';
 import { parseSheet } from '../../../shared/import/sheet';
 import { guessMapping, rowsToRuns } from '../../../shared/import/mapping';
 import { DSQ_NOTE, type ImportResult } from '../../../shared/import/import.schema';
@@ -40,7 +40,7 @@ describe('POST /api/events/:eventId/imports', () => {
     const setup = await postSetup(d.c, d.carId, { effectiveFrom: '2026-04-12T07:00:00Z' });
     const res = await d.c.post(importPath(d), { carId: d.carId, runs: nellsRuns() });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
-    expect(res.body).toEqual({ created: 3, alreadyThere: 0, failed: [] } satisfies ImportResult);
+    expect(res.body).toEqual({ created: 3, alreadyThere: 0, differing: [], failed: [] } satisfies ImportResult);
 
     const list = await d.c.get(`/api/runs?carId=${d.carId}&eventId=${d.eventId}`);
     const runs = (list.body.items as { runNumber: number; rawTimeSec: number | null; cones: number; status: string; setupId: string; driver: { id: string }; recordedAt: string }[])
@@ -61,8 +61,37 @@ describe('POST /api/events/:eventId/imports', () => {
     expect(first.body.created).toBe(3);
     const again = await d.c.post(importPath(d), { carId: d.carId, runs: nellsRuns() });
     expect(again.status).toBe(200);
-    expect(again.body).toEqual({ created: 0, alreadyThere: 3, failed: [] });
+    expect(again.body).toEqual({ created: 0, alreadyThere: 3, differing: [], failed: [] });
     expect(await runsOf(d.carId)).toBe(3);
+  });
+
+  it('when the sheet gives a logged run another time, cones or result, then the logged run stays as it was and the difference is listed', async () => {
+    const d = await driverWithCarAndEvent(t);
+    // Logged on the phone: run 1 at 45.678 clean, run 2 at 46.5 clean, run 3 a DNF.
+    await postRun(d.c, d.carId, d.eventId, { runNumber: 1, rawTimeSec: 45.678, cones: 0, status: 'finished' });
+    await postRun(d.c, d.carId, d.eventId, { runNumber: 2, rawTimeSec: 46.5, cones: 0, status: 'finished' });
+    await postRun(d.c, d.carId, d.eventId, { runNumber: 3, rawTimeSec: null, cones: 0, status: 'dnf' });
+    const res = await d.c.post(importPath(d), {
+      carId: d.carId,
+      runs: [
+        run(2, 1, 45.123), // another time
+        run(3, 2, 46.5, { cones: 1 }), // a cone the phone missed
+        run(4, 3, null, { status: 'dnf' }), // the same DNF
+        run(5, 4, 47.01), // new
+      ],
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body).toEqual({
+      created: 1,
+      alreadyThere: 3,
+      differing: [
+        { line: 2, runNumber: 1, logged: { status: 'finished', rawTimeSec: 45.678, cones: 0 }, sheet: { status: 'finished', rawTimeSec: 45.123, cones: 0 } },
+        { line: 3, runNumber: 2, logged: { status: 'finished', rawTimeSec: 46.5, cones: 0 }, sheet: { status: 'finished', rawTimeSec: 46.5, cones: 1 } },
+      ],
+      failed: [],
+    } satisfies ImportResult);
+    const stored = await t.ds.query('SELECT run_number, raw_time_sec, cones FROM runs WHERE car_id = $1 ORDER BY run_number', [d.carId]);
+    expect(stored.slice(0, 2)).toEqual([{ run_number: 1, raw_time_sec: 45.678, cones: 0 }, { run_number: 2, raw_time_sec: 46.5, cones: 0 }]);
   });
 
   it('when one run is bad, then it is listed with its reason and the others import', async () => {

@@ -1,8 +1,17 @@
-import type { ImportFailure, ImportResult } from '@shared/import/import.schema';
+import type { ImportedRunValues, ImportFailure, ImportResult } from '@shared/import/import.schema';
+import { formatRunTime } from '@shared/season/run-time';
+import { coneWords, STATUS_WORDS } from '@/features/runs/utils/run-words';
 
 const runs = (n: number) => `${n} ${n === 1 ? 'run' : 'runs'}`;
 
-/** What the import did: runs added, runs already logged (left as they were), and runs left out with why. */
+/** "45.678", "46.500 +1 cone", "DNF": a run's result in one short phrase. */
+const resultWords = (r: ImportedRunValues) =>
+  `${r.status === 'finished' && r.rawTimeSec !== null ? formatRunTime(r.rawTimeSec) : STATUS_WORDS[r.status]}${r.cones ? ` +${coneWords(r.cones)}` : ''}`;
+
+/**
+ * What the import did: runs added, runs already logged (left as they were, and those the sheet gives otherwise named
+ * with both results, since the club's sheet may be the one that is right), and runs left out with why.
+ */
 export function ImportSummary({ result, notSent }: { result: ImportResult; notSent: readonly ImportFailure[] }) {
   const failed = [...notSent, ...result.failed].sort((a, b) => a.line - b.line || a.runNumber - b.runNumber);
   return (
@@ -10,6 +19,21 @@ export function ImportSummary({ result, notSent }: { result: ImportResult; notSe
       <p className="text-lg font-bold">Added {runs(result.created)}.</p>
       {result.alreadyThere > 0 ? (
         <p>{runs(result.alreadyThere)} already logged for this event; kept as they were.</p>
+      ) : null}
+      {result.differing.length > 0 ? (
+        <div>
+          <p className="font-semibold text-warning">
+            The sheet gives {result.differing.length === 1 ? 'one of them' : `${result.differing.length} of them`} otherwise. If the sheet is
+            right, edit {result.differing.length === 1 ? 'the run' : 'those runs'} on the event’s page:
+          </p>
+          <ul className="list-disc pl-5">
+            {result.differing.map((d) => (
+              <li key={d.runNumber} className="tabular-figures">
+                Run {d.runNumber}: logged {resultWords(d.logged)}; the sheet (line {d.line}) {resultWords(d.sheet)}
+              </li>
+            ))}
+          </ul>
+        </div>
       ) : null}
       {failed.length > 0 ? (
         <div>

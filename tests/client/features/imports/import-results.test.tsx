@@ -15,7 +15,12 @@ function stubImport(extra: StubRoutes = {}) {
     'GET /api/auth/session': jsonResponse(200, { user: user() }),
     [`GET /api/cars/${IDS.car}`]: jsonResponse(200, CAR),
     'GET /api/events': list([EVENT]),
-    [POST]: jsonResponse(200, { created: 2, alreadyThere: 1, failed: [{ line: 4, runNumber: 3, reason: 'Run numbers go up to 999' }] }),
+    [POST]: jsonResponse(200, {
+      created: 2,
+      alreadyThere: 1,
+      differing: [{ line: 3, runNumber: 1, logged: { status: 'finished', rawTimeSec: 46.7, cones: 0 }, sheet: { status: 'finished', rawTimeSec: 46.21, cones: 1 } }],
+      failed: [{ line: 4, runNumber: 3, reason: 'Run numbers go up to 999' }],
+    }),
     ...extra,
   });
 }
@@ -107,11 +112,14 @@ describe('the results import page', { timeout: 15_000 }, () => {
     const summary = await screen.findByRole('status', { name: 'Import result' });
     expect(summary.textContent).toContain('Added 2 runs.');
     expect(summary.textContent).toContain('1 run already logged for this event; kept as they were.');
+    // The phone's run 1 stays, and the sheet's other result is named beside it.
+    expect(summary.textContent).toContain('The sheet gives one of them otherwise. If the sheet is right, edit the run on the event’s page:');
+    expect(within(summary).getByText('Run 1: logged 46.700; the sheet (line 3) 46.210 +1 cone')).toBeTruthy();
     expect(summary.textContent).toContain('Line 4, run 3: Run numbers go up to 999');
   });
 
   it('when a chosen row has a cell that is not a time, then that run is left out and listed with its reason', async () => {
-    const fetchMock = stubImport({ [POST]: jsonResponse(200, { created: 1, alreadyThere: 0, failed: [] }) });
+    const fetchMock = stubImport({ [POST]: jsonResponse(200, { created: 1, alreadyThere: 0, differing: [], failed: [] }) });
     renderApp(PATH);
     const u = await chooseFile('Name\t#\tR1\tR2\nPia Lindqvist\t47\t48.100\tabc\n');
     await screen.findByText(/Run 2 will be left out: "abc" is not a time/);
