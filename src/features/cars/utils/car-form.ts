@@ -93,7 +93,9 @@ export const carFormSchema = z.pipe(
       const positions = typed.positions.trim();
       if (!positions) return null;
       const { min, max } = LIMITS.damperPositions;
-      if (!/^\d+$/.test(positions)) problem(path, 'Type a whole number of clicks, e.g. 24');
+      // "−3" is a whole number too: a count of clicks below one is said as the range.
+      if (/^[-−]\d+$/.test(positions)) problem(path, `Between ${min} and ${max} clicks`);
+      else if (!/^\d+$/.test(positions)) problem(path, 'Type a whole number of clicks, e.g. 24');
       else if (Number(positions) < min || Number(positions) > max) problem(path, `Between ${min} and ${max} clicks`);
       return { positions: Number(positions), countFrom: typed.countFrom };
     };

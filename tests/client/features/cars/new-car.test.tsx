@@ -74,6 +74,21 @@ describe('new car', () => {
     expect(outbox.getSnapshot()).toHaveLength(0);
   });
 
+  it('when the clicks are typed below zero, then the box gives the range rather than asking for a whole number', async () => {
+    stubNoCars();
+    const { outbox } = renderApp('/cars?new=1');
+    const u = userEvent.setup();
+
+    await u.type(await screen.findByLabelText(/^Name/), 'Blue hatch');
+    await u.type(screen.getByLabelText(/^Class/), 'SS');
+    await u.type(within(screen.getByRole('group', { name: 'Rear dampers' })).getByLabelText('Number of clicks'), '-3');
+    await u.click(screen.getByRole('button', { name: 'Save car' }));
+
+    expect(await within(screen.getByRole('group', { name: 'Rear dampers' })).findByText('Between 1 and 100 clicks')).toBeTruthy();
+    expect(screen.queryByText('Type a whole number of clicks, e.g. 24')).toBeNull();
+    expect(outbox.getSnapshot()).toHaveLength(0);
+  });
+
   it('when the driver has no cars, then Home offers to add one', async () => {
     stubNoCars();
     renderApp('/');
