@@ -201,11 +201,12 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
           const unit = info.quantity ? unitSymbol(info.quantity, units) : 'clicks';
           // "Clicks (clicks)" says the word twice: a count names its own unit.
           const heading = info.label.toLowerCase().endsWith(unit) ? null : unit;
-          // Each axle's adjuster for these clicks (rebound clicks: the rebound adjuster, where the car describes one).
+          // Each axle's adjuster for these clicks (rebound clicks: the rebound adjuster, where the car describes one;
+          // else the damper's one adjuster, which the Clicks grid sets too, and the hint says so).
           const adjusters = isClickField(name)
             ? AXLES.flatMap((axle) => {
                 const a = adjusterFor(car.damperAdjusters, axle, name);
-                return a ? [{ axle, ...a }] : [];
+                return a ? [{ axle, ...a, shared: name === 'damperReboundClicks' && !car.damperAdjusters[axle]?.rebound }] : [];
               })
             : [];
           return (
@@ -248,7 +249,10 @@ export function SetupEditor({ car, setups, fromId, fixEntry, onUploaded }: Setup
               {adjusters.length > 0 ? (
                 <p className="text-xs text-ink-muted">
                   {adjusters
-                    .map((a) => `${a.axle === 'front' ? 'Front' : 'Rear'}: 0 to ${a.positions}, counted from full ${a.countFrom === 'full_stiff' ? 'stiff' : 'soft'}`)
+                    .map(
+                      (a) =>
+                        `${a.axle === 'front' ? 'Front' : 'Rear'}: 0 to ${a.positions}, counted from full ${a.countFrom === 'full_stiff' ? 'stiff' : 'soft'}${a.shared ? ' (no rebound adjuster of its own: the same adjuster as its clicks)' : ''}`,
+                    )
                     .join(' · ')}
                 </p>
               ) : null}

@@ -135,7 +135,10 @@ describe('setup editor', () => {
     const u = userEvent.setup();
 
     const rebound = await screen.findByRole('region', { name: 'Rebound clicks' });
-    expect(within(rebound).getByText('Front: 0 to 30, counted from full stiff · Rear: 0 to 24, counted from full soft')).toBeTruthy();
+    // The rear has one adjuster: its rebound clicks are that adjuster's, and the hint says so.
+    expect(
+      within(rebound).getByText('Front: 0 to 30, counted from full stiff · Rear: 0 to 24, counted from full soft (no rebound adjuster of its own: the same adjuster as its clicks)'),
+    ).toBeTruthy();
     expect(within(screen.getByRole('region', { name: 'Clicks' })).getByText('Front: 0 to 24, counted from full soft · Rear: 0 to 24, counted from full soft')).toBeTruthy();
 
     await u.type(screen.getByLabelText('Label'), 'More rebound');
