@@ -782,7 +782,8 @@ describe('event day', () => {
     expect(body.label).toBe('Quick change: rear clicks = 1 click');
   });
 
-  it('when a quick change sets the front to the cold pressure it already has, then the line says that changes nothing, and nothing is saved', async () => {
+  /** Today's board, its quick change open on a line that sets the front cold pressure to a value yet to be typed. */
+  async function setFrontColdPressure() {
     stubWithRuns([], { extra: TODAY_EVENT() });
     const { outbox } = renderApp(PATH);
     const u = userEvent.setup();
@@ -792,6 +793,11 @@ describe('event day', () => {
     await u.selectOptions(within(form).getByLabelText('What'), 'coldPressureKpa');
     await u.click(within(form).getByRole('button', { name: 'Front' }));
     await u.click(within(form).getByRole('button', { name: 'Set to' }));
+    return { u, outbox, form };
+  }
+
+  it('when a quick change sets the front to the cold pressure it already has, then the line says that changes nothing, and nothing is saved', async () => {
+    const { u, outbox, form } = await setFrontColdPressure();
     // Both front corners of the setup in force are at 200 kPa.
     await u.type(within(form).getByLabelText(/Set cold pressure to/), '200');
     await u.click(within(form).getByRole('button', { name: 'Save quick change' }));
@@ -852,17 +858,8 @@ describe('event day', () => {
   });
 
   it('when a quick change would take a corner out of range, then the line says which as it is typed, with the caution beside it, and nothing is saved', async () => {
-    stubWithRuns([], { extra: TODAY_EVENT() });
-    const { outbox } = renderApp(PATH);
-    const u = userEvent.setup();
-    await screen.findByRole('form', { name: 'Log a run' });
-
-    await u.click(screen.getByRole('button', { name: 'Quick change' }));
-    const form = await screen.findByRole('form', { name: 'Quick change' });
+    const { u, outbox, form } = await setFrontColdPressure();
     expect(within(form).getByRole('complementary', { name: 'Before you change the car' }).textContent).toMatch(/stands/);
-    await u.selectOptions(within(form).getByLabelText('What'), 'coldPressureKpa');
-    await u.click(within(form).getByRole('button', { name: 'Front' }));
-    await u.click(within(form).getByRole('button', { name: 'Set to' }));
     const amount = within(form).getByLabelText(/Set cold pressure to/);
     await u.type(amount, '900');
 
