@@ -57,8 +57,9 @@ export async function importResults(ds: DataSource, user: User, eventId: string,
       continue;
     }
     seen.add(run.runNumber);
-    const dsq = run.status === 'dsq';
-    good.push({ line: run.line, runNumber: run.runNumber, status: run.status === 'dsq' ? 'dnf' : run.status, rawTimeSec: run.rawTimeSec, cones: run.cones, notes: dsq ? DSQ_NOTE : null });
+    // A disqualification is stored as a DNF, with a note saying so.
+    const status = run.status === 'dsq' ? 'dnf' : run.status;
+    good.push({ line: run.line, runNumber: run.runNumber, status, rawTimeSec: run.rawTimeSec, cones: run.cones, notes: run.status === 'dsq' ? DSQ_NOTE : null });
   }
 
   let created = 0;

@@ -1,12 +1,7 @@
-import type { ImportedRunValues, ImportFailure, ImportResult } from '@shared/import/import.schema';
-import { formatRunTime } from '@shared/season/run-time';
-import { coneWords, STATUS_WORDS } from '@/features/runs/utils/run-words';
+import type { ImportFailure, ImportResult } from '@shared/import/import.schema';
+import { runResult } from '@/features/runs/utils/run-words';
 
 const runs = (n: number) => `${n} ${n === 1 ? 'run' : 'runs'}`;
-
-/** "45.678", "46.500 +1 cone", "DNF": a run's result in one short phrase. */
-const resultWords = (r: ImportedRunValues) =>
-  `${r.status === 'finished' && r.rawTimeSec !== null ? formatRunTime(r.rawTimeSec) : STATUS_WORDS[r.status]}${r.cones ? ` +${coneWords(r.cones)}` : ''}`;
 
 /**
  * What the import did: runs added, runs already logged (left as they were, and those the sheet gives otherwise named
@@ -29,7 +24,7 @@ export function ImportSummary({ result, notSent }: { result: ImportResult; notSe
           <ul className="list-disc pl-5">
             {result.differing.map((d) => (
               <li key={d.runNumber} className="tabular-figures">
-                Run {d.runNumber}: logged {resultWords(d.logged)}; the sheet (line {d.line}) {resultWords(d.sheet)}
+                Run {d.runNumber}: logged {runResult(d.logged)}; the sheet (line {d.line}) {runResult(d.sheet)}
               </li>
             ))}
           </ul>
