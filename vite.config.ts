@@ -149,12 +149,14 @@ export default defineConfig({
             { name: 'app', tags: ['$initial'], priority: 3, test: (id) => !/[\\/](index\.html|src[\\/]main\.tsx)$/.test(id) },
             // The small UI primitives pages share (not the Radix dialog and toasts, loaded on use, nor the
             // password field, its eye icons and the strength meter, which only the sign-in and password pages draw,
-            // nor the text box for a few sentences, which only the shop's, the admin's and the suggestion pages use).
+            // nor the text box for a few sentences, which only the shop's, the admin's and the suggestion pages use,
+            // nor the way back above a heading, which the trackside page does not draw).
             {
               name: 'ui',
               priority: 2,
               minShareCount: 2,
-              test: (id) => /[\\/]src[\\/]components[\\/]ui[\\/]/.test(id) && !/[\\/](dialog|toast-layer|password-field|password-strength|text-area)\.tsx$/.test(id),
+              test: (id) =>
+                /[\\/]src[\\/]components[\\/]ui[\\/]/.test(id) && !/[\\/](dialog|toast-layer|password-field|password-strength|text-area|back-link)\.tsx$/.test(id),
             },
             // The password-strength estimator and its word lists (zxcvbn-ts): large, and loaded only when
             // someone types a new password (src/lib/password-strength.ts).

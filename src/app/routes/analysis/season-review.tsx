@@ -1,6 +1,5 @@
 import { useState, type ReactNode } from 'react';
-import { Link, useParams } from 'react-router-dom';
-import { ArrowLeft } from 'lucide-react';
+import { useParams } from 'react-router-dom';
 import { fromDisplay, unitFor, type UnitPreferences } from '@shared/calc/units.calc';
 import { pathTo } from '@/config/paths';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -16,6 +15,7 @@ import { ScatterSection } from '@/features/analysis/components/scatter-section';
 import { SeasonTimeline } from '@/features/analysis/components/season-timeline';
 import { TyreLife } from '@/features/analysis/components/tyre-life';
 import { CardSection } from '@/components/layouts/card-section';
+import { BackLink } from '@/components/ui/back-link';
 
 /** 1.6 mm, or exactly 2/32 in for someone who reads tread in 1/32 in. */
 function defaultMinDepthMm(units: UnitPreferences): number {
@@ -87,9 +87,7 @@ export function SeasonReviewPage() {
     <div className="flex flex-col gap-6">
       <title>{`Season review · ${name} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {name}
-        </Link>
+        <BackLink to={pathTo.car(carId)}>{name}</BackLink>
         <h1 className="text-3xl font-extrabold">Season review</h1>
         <p className="text-ink-muted">
           What the season&apos;s numbers say, with how many there are and how sure they are. Few points mean a weak answer:

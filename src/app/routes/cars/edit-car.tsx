@@ -1,5 +1,4 @@
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { ArrowLeft } from 'lucide-react';
 import { paths, pathTo } from '@/config/paths';
 import { PageMessage } from '@/components/ui/page-message';
 import { buttonClasses } from '@/components/ui/button';
@@ -9,6 +8,7 @@ import { useCar } from '@/features/cars/api/get-car';
 import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
 import { DeleteCar } from '@/features/cars/components/delete-car';
 import { EditCarForm } from '@/features/cars/components/edit-car-form';
+import { BackLink } from '@/components/ui/back-link';
 
 /** The car's own details and deleting it: its owner's page. A co-driver is told who can change it. */
 export function EditCarPage() {
@@ -36,9 +36,7 @@ export function EditCarPage() {
     <div className="flex flex-col gap-6">
       <title>{`Edit ${car?.name ?? 'car'} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {car?.name ?? 'Car'}
-        </Link>
+        <BackLink to={pathTo.car(carId)}>{car?.name ?? 'Car'}</BackLink>
         <h1 className="text-3xl font-extrabold">Edit {car?.name ?? 'car'}</h1>
       </div>
       {car ? (

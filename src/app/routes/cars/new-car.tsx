@@ -1,9 +1,9 @@
 import { useCallback } from 'react';
-import { Link, useLocation, useNavigate } from 'react-router-dom';
-import { ArrowLeft } from 'lucide-react';
+import { useLocation, useNavigate } from 'react-router-dom';
 import { paths, pathTo } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { NewCarForm } from '@/features/cars/components/new-car-form';
+import { BackLink } from '@/components/ui/back-link';
 
 /**
  * The event a driver left to add a car, as the event-day page passes it in the history entry's state:
@@ -34,9 +34,7 @@ export function NewCarPage() {
     <div className="flex flex-col gap-6">
       <title>New car · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={eventId ? pathTo.event(eventId) : paths.cars} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {eventId ? 'Back to the event' : 'Cars'}
-        </Link>
+        <BackLink to={eventId ? pathTo.event(eventId) : paths.cars}>{eventId ? 'Back to the event' : 'Cars'}</BackLink>
         <h1 className="text-3xl font-extrabold">New car</h1>
       </div>
       <NewCarForm onSaved={onSaved} />

@@ -1,6 +1,5 @@
 import { useCallback, useMemo, useState } from 'react';
-import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
-import { ArrowLeft } from 'lucide-react';
+import { useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { pathTo } from '@/config/paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import type { OutboxEntry } from '@/lib/outbox';
@@ -12,6 +11,7 @@ import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-fou
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SetupEditor } from '@/features/setups/components/setup-editor';
 import { mergePendingSetups } from '@/features/setups/utils/setup-views';
+import { BackLink } from '@/components/ui/back-link';
 
 /** A new setup snapshot (?from=<setupId> to start from an older one; ?fix=<entry> to fix a refused one). */
 export function NewSetupPage() {
@@ -47,9 +47,7 @@ export function NewSetupPage() {
     <div className="flex flex-col gap-6">
       <title>New setup · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
-        </Link>
+        <BackLink to={pathTo.car(carId)}>{car.data?.name ?? 'Car'}</BackLink>
         <h1 className="text-3xl font-extrabold">{fixKey ? 'Fix a refused setup' : 'New setup'}</h1>
       </div>
       {loading ? (

@@ -1,6 +1,5 @@
 import { useCallback } from 'react';
-import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
-import { ArrowLeft } from 'lucide-react';
+import { useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { pathTo } from '@/config/paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import { SectionCard } from '@/components/ui/section-card';
@@ -17,6 +16,7 @@ import { TreadDisplay } from '@/features/tyres/components/tread-display';
 import { TreadEntryForm } from '@/features/tyres/components/tread-entry-form';
 import { useTyreSetViews } from '@/features/tyres/hooks/use-tyre-set-views';
 import { runsOnSetText } from '@/features/tyres/utils/tread';
+import { BackLink } from '@/components/ui/back-link';
 
 /** Tread depths of one tyre set (?set=<tyreSetId> to preselect it). */
 export function TreadPage() {
@@ -40,9 +40,7 @@ export function TreadPage() {
     <div className="flex flex-col gap-6">
       <title>Tread · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={pathTo.car(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
-        </Link>
+        <BackLink to={pathTo.car(carId)}>{car.data?.name ?? 'Car'}</BackLink>
         <h1 className="text-3xl font-extrabold">Tread depth</h1>
       </div>
       {sets.isPending ? (

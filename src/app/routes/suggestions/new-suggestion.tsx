@@ -1,11 +1,11 @@
 import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
-import { ArrowLeft } from 'lucide-react';
 import { recordPath } from '@/config/record-paths';
 import { EmptyState } from '@/components/ui/empty-state';
 import { useCar } from '@/features/cars/api/get-car';
 import { CarNotFound, carIsHidden } from '@/features/cars/components/car-not-found';
 import { useSetups } from '@/features/setups/api/get-setups';
 import { SuggestionForm } from '@/features/suggestions/components/suggestion-form';
+import { BackLink } from '@/components/ui/back-link';
 
 /** Shop staff suggest a change to one of a customer car's setups (?from=<setupId>; the newest when not given). */
 export function NewSuggestionPage() {
@@ -24,9 +24,7 @@ export function NewSuggestionPage() {
     <div className="flex flex-col gap-6">
       <title>Suggest a change · Scrubline</title>
       <div className="flex flex-col gap-2">
-        <Link to={recordPath.shopCustomer(carId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
-        </Link>
+        <BackLink to={recordPath.shopCustomer(carId)}>{car.data?.name ?? 'Car'}</BackLink>
         <h1 className="text-3xl font-extrabold">Suggest a setup change</h1>
         {car.data ? (
           <p className="text-ink-muted">

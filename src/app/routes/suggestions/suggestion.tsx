@@ -1,7 +1,6 @@
 import { useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { ArrowLeft } from 'lucide-react';
 import { pathTo } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
 import { Caution } from '@/components/ui/caution';
@@ -16,6 +15,7 @@ import { DecisionPanel } from '@/features/suggestions/components/decision-panel'
 import { UnusualValues, valuesBefore } from '@/features/suggestions/components/unusual-values';
 import { DecisionStatus, SuggestionDetails } from '@/features/suggestions/components/suggestion-details';
 import { refreshAfterWrite } from '@/lib/refresh-after-write';
+import { BackLink } from '@/components/ui/back-link';
 
 /** One suggestion: what and why; the car's drivers accept or decline it while it is open. */
 export function SuggestionPage() {
@@ -46,9 +46,7 @@ export function SuggestionPage() {
     <div className="flex max-w-2xl flex-col gap-6">
       <title>{`${suggestion.title} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {car.data?.name ?? 'Car'}
-        </Link>
+        <BackLink to={back}>{car.data?.name ?? 'Car'}</BackLink>
         <p className="text-sm font-semibold text-ink-muted">Setup suggestion</p>
         <h1 className="text-3xl font-extrabold wrap-anywhere">{suggestion.title}</h1>
       </div>

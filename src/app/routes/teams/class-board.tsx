@@ -1,6 +1,5 @@
 import { lazy, Suspense, useLayoutEffect } from 'react';
-import { Link, useNavigationType, useParams, useSearchParams } from 'react-router-dom';
-import { ArrowLeft } from 'lucide-react';
+import { useNavigationType, useParams, useSearchParams } from 'react-router-dom';
 import { recordPath } from '@/config/record-paths';
 import { useBoard } from '@/features/teams/api/get-board';
 import { ClassBoardView } from '@/features/teams/components/class-board';
@@ -8,6 +7,7 @@ import { SeasonPicker } from '@/features/teams/components/season-picker';
 import { TeamUnavailable } from '@/features/teams/components/team-unavailable';
 import { currentSeason, parseSeason } from '@/features/teams/utils/board-format';
 import { EVENT_PARAM } from '@/features/teams/utils/event-board';
+import { BackLink } from '@/components/ui/back-link';
 
 // One event's ranking is loaded when it is first opened.
 const ClassBoardEventView = lazy(() => import('@/features/teams/components/class-board-event').then((m) => ({ default: m.ClassBoardEventView })));
@@ -48,9 +48,7 @@ export function ClassBoardPage() {
     <div className="flex min-w-0 flex-col gap-6">
       <title>{`Class board · ${board.team.name} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={recordPath.team(teamId)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {board.team.name}
-        </Link>
+        <BackLink to={recordPath.team(teamId)}>{board.team.name}</BackLink>
         <h1 className="text-3xl font-extrabold">Class board</h1>
         <p className="text-ink-muted">
           Each car’s best times per event, against the fastest in its class on this team. Index times use the factors the team’s captains

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { ArrowLeft, Trophy } from 'lucide-react';
+import { Trophy } from 'lucide-react';
 import type { Team } from '@shared/collab/team.schema';
 import { paths } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
@@ -17,6 +17,7 @@ import { InviteForm, PendingInvitations } from '@/features/teams/components/invi
 import { LeaveTeam, MemberList } from '@/features/teams/components/member-list';
 import { CaptainMarker } from '@/features/teams/components/team-list';
 import { TeamUnavailable } from '@/features/teams/components/team-unavailable';
+import { BackLink } from '@/components/ui/back-link';
 
 /** The user's own cars not yet on the team: co-driven cars are their owners' to enter. */
 function EnterCarSection({ team, currentUserId }: { team: Team; currentUserId: string }) {
@@ -44,9 +45,7 @@ export function TeamPage() {
     <div className="flex max-w-3xl flex-col gap-6">
       <title>{`${team.name} · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={paths.teams} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> Teams
-        </Link>
+        <BackLink to={paths.teams}>Teams</BackLink>
         <div className="flex flex-wrap items-center gap-2">
           <h1 className="min-w-0 text-3xl font-extrabold wrap-anywhere">{team.name}</h1>
           {team.isCaptain ? <CaptainMarker /> : null}

@@ -1,5 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
-import { ArrowLeft, Printer } from 'lucide-react';
+import { Printer } from 'lucide-react';
 import { pathTo } from '@/config/paths';
 import { recordPath } from '@/config/record-paths';
 import { Button, buttonClasses } from '@/components/ui/button';
@@ -18,6 +18,7 @@ import { LinesEditor, LinesTable } from '@/features/work-orders/components/work-
 import { WorkOrderHeader } from '@/features/work-orders/components/work-order-header';
 import { InvoiceSection } from '@/features/invoices/components/invoice-section';
 import { CardSection } from '@/components/layouts/card-section';
+import { BackLink } from '@/components/ui/back-link';
 
 /** One shop visit: staff of the shop edit it while it is open; the car's drivers read it and comment. */
 export function WorkOrderPage() {
@@ -44,9 +45,7 @@ export function WorkOrderPage() {
     <div className="handover-sheet flex max-w-3xl flex-col gap-6 print:max-w-none print:gap-1">
       <title>{`${workOrder.carName}: work order · Scrubline`}</title>
       <div className="flex flex-col gap-2">
-        <Link to={back} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link print:hidden wrap-anywhere">
-          <ArrowLeft aria-hidden="true" className="size-4" /> {workOrder.carName}
-        </Link>
+        <BackLink to={back} className="print:hidden">{workOrder.carName}</BackLink>
         <WorkOrderHeader workOrder={workOrder} />
         {workOrder.setupId ? (
           <Link to={`${back}#setup-${workOrder.setupId}`} className={buttonClasses('secondary', 'self-start print:hidden')}>

@@ -1,7 +1,6 @@
 import type { ReactNode } from 'react';
-import { Link } from 'react-router-dom';
-import { ArrowLeft } from 'lucide-react';
 import type { Car } from '@shared/season/car.schema';
+import { BackLink } from '@/components/ui/back-link';
 
 interface CarHeaderProps {
   car: Car | undefined;
@@ -21,9 +20,7 @@ interface CarHeaderProps {
 export function CarHeader({ car, isPending, isError, back, about, errorText, children }: CarHeaderProps) {
   return (
     <div className="flex flex-col gap-2">
-      <Link to={back.to} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-        <ArrowLeft aria-hidden="true" className="size-4" /> {back.label}
-      </Link>
+      <BackLink to={back.to}>{back.label}</BackLink>
       <h1 className="text-3xl font-extrabold">
         {car ? car.name : isPending ? 'Loading…' : 'Car'}
         {car?.carNumber ? <span className="tabular-figures text-ink-muted"> #{car.carNumber}</span> : null}

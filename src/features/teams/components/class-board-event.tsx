@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { Link } from 'react-router-dom';
-import { ArrowLeft, ChevronLeft, ChevronRight } from 'lucide-react';
+import { ChevronLeft, ChevronRight } from 'lucide-react';
 import type { ClassBoard } from '@shared/collab/team.schema';
 import { EmptyState } from '@/components/ui/empty-state';
 import { formatDay } from '@/lib/dates';
@@ -16,6 +16,7 @@ import {
   type EventClass,
   type EventLine,
 } from '../utils/event-board';
+import { BackLink } from '@/components/ui/back-link';
 
 function Line({ line, hasFactor }: { line: EventLine; hasFactor: boolean }) {
   const { car, result } = line;
@@ -126,9 +127,7 @@ export function ClassBoardEventView({ board, eventId }: { board: ClassBoard; eve
   const teamId = board.team.id;
   const event = boardEvents(board).find((e) => e.eventId === eventId);
   const back = (
-    <Link to={seasonBoardPath(teamId, board.season)} className="inline-flex min-h-tap items-center gap-1 self-start font-semibold text-link wrap-anywhere">
-      <ArrowLeft aria-hidden="true" className="size-4" /> Whole class board
-    </Link>
+    <BackLink to={seasonBoardPath(teamId, board.season)}>Whole class board</BackLink>
   );
   if (!event) {
     return (
